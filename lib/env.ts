@@ -1,0 +1,71 @@
+import { z } from "zod";
+
+/**
+ * All configuration comes from the environment and is parsed here once.
+ * A bad value stops start-up with a message that names the variable.
+ */
+const minutes = (fallback: number) => z.coerce.number().int().positive().default(fallback);
+
+const envSchema = z
+  .object({
+    NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+    DATABASE_URL: z
+      .string()
+      .default("file:./data/washproof.db")
+      .refine((u) => /^(file:|libsql:\/\/|https?:\/\/|wss?:\/\/)/.test(u), {
+        message: "must start with file:, libsql://, http(s):// or ws(s)://",
+      }),
+    DATABASE_AUTH_TOKEN: z.string().optional(),
+    SESSION_IDLE_MINUTES: minutes(30),
+    SESSION_ABSOLUTE_MINUTES: minutes(12 * 60),
+    LOCKOUT_THRESHOLD: z.coerce.number().int().min(1).max(100).default(5),
+    LOCKOUT_MINUTES: minutes(15),
+    SMTP_URL: z.string().url().default("smtp://127.0.0.1:2525"),
+    MAIL_FROM: z.string().default("Washproof <no-reply@washproof.local>"),
+    UPLOAD_DIR: z.string().default("./data/uploads"),
+    UPLOAD_MAX_MB: z.coerce.number().positive().max(1024).default(25),
+    APP_URL: z.string().url().default("http://localhost:3000"),
+    DEMO_MODE: z
+      .enum(["true", "false", "1", "0"])
+      .default("false")
+      .transform((v) => v === "true" || v === "1"),
+  })
+  .superRefine((env, ctx) => {
+    // A relative file: URL resolves against the working directory, which differs
+    // between `next start`, standalone output and scripts: demand an absolute one.
+    if (env.NODE_ENV === "production" && env.DATABASE_URL.startsWith("file:")) {
+      const path = env.DATABASE_URL.slice("file:".length);
+      if (!path.startsWith("/")) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["DATABASE_URL"],
+          message: "must be an absolute file: path in production (e.g. file:/var/lib/washproof/app.db)",
+        });
+      }
+    }
+    if (env.SESSION_IDLE_MINUTES > env.SESSION_ABSOLUTE_MINUTES) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["SESSION_IDLE_MINUTES"],
+        message: "must not exceed SESSION_ABSOLUTE_MINUTES",
+      });
+    }
+  });
+
+export type Env = z.infer<typeof envSchema>;
+
+export function parseEnv(source: Record<string, string | undefined>): Env {
+  const result = envSchema.safeParse(source);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join(".") || "(env)"}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join("\n")}`);
+  }
+  return result.data;
+}
+
+let cached: Env | undefined;
+
+export function env(): Env {
+  cached ??= parseEnv(process.env);
+  return cached;
+}
