@@ -1,0 +1,42 @@
+import { mkdirSync } from "node:fs";
+import { dirname, resolve } from "node:path";
+import { createClient, type Client } from "@libsql/client";
+import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
+import { env } from "@/lib/env";
+import * as schema from "./schema";
+
+export type Database = LibSQLDatabase<typeof schema>;
+/** A transaction or the database itself: services accept either so callers can compose them. */
+export type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+export type Executor = Database | Tx;
+
+/** libSQL creates the database file but not its folder. */
+function ensureFolder(url: string) {
+  if (!url.startsWith("file:")) return;
+  const path = url.slice("file:".length).replace(/^\/\/(?=\/)/, "");
+  if (path === ":memory:") return;
+  mkdirSync(dirname(resolve(path)), { recursive: true });
+}
+
+export function openDatabase(url: string, authToken?: string): { db: Database; client: Client } {
+  ensureFolder(url);
+  // libSQL turns foreign keys on for every pooled connection; `timeout` is the busy timeout.
+  const client = createClient({ url, authToken, timeout: 5000, concurrency: 8 });
+  return { db: drizzle(client, { schema }), client };
+}
+
+let opened: { db: Database; client: Client } | undefined;
+
+/** The process-wide database, opened on first use so `next build` needs no data folder. */
+export function getDb(): Database {
+  if (!opened) {
+    const { DATABASE_URL, DATABASE_AUTH_TOKEN } = env();
+    opened = openDatabase(DATABASE_URL, DATABASE_AUTH_TOKEN);
+  }
+  return opened.db;
+}
+
+/** Tests point the process at a temporary database. */
+export function setProcessDatabase(db: Database, client: Client) {
+  opened = { db, client };
+}

@@ -1,0 +1,71 @@
+/** Closed sets of values, shared by the schema, zod schemas and client components. */
+
+export const ROLES = ["admin", "engineer", "reviewer", "approver", "technician", "auditor"] as const;
+
+export const STAGE_KINDS = ["wash", "rinse", "final_rinse", "drying", "other"] as const;
+
+export const STAGE_MODES = [
+  "ultrasonic",
+  "spray",
+  "injection",
+  "flood",
+  "immersion",
+  "hot_air_drying",
+  "vacuum_drying",
+] as const;
+
+export const RECIPE_VERSION_STATUSES = ["draft", "proposed", "effective", "superseded", "withdrawn"] as const;
+
+export const PARAMETER_KINDS = [
+  "temperature",
+  "time",
+  "concentration",
+  "ultrasonic_power",
+  "ultrasonic_frequency",
+  "spray_pressure",
+  "flow",
+  "conductivity_limit",
+  "drying_temperature",
+  "vacuum_pressure",
+  "basket_loading",
+  "filter_interval",
+  "other",
+] as const;
+
+export const DOCUMENT_TYPES = ["iq_protocol", "oq_protocol", "pq_protocol", "report", "procedure", "change_narrative"] as const;
+
+export const DOCUMENT_STATUSES = ["draft", "in_review", "approved", "effective", "superseded", "retired"] as const;
+
+export const CHANGE_STATUSES = [
+  "draft",
+  "impact_assessed",
+  "approved_for_implementation",
+  "requalification",
+  "verified",
+  "closed",
+  "rejected",
+  "withdrawn",
+] as const;
+
+export const IMPACT_CLASSES = ["editorial", "minor", "major"] as const;
+
+export const TEST_TYPES = [
+  "particle_cleanliness",
+  "gravimetric",
+  "wetting_tension",
+  "rinse_conductivity",
+  "visual",
+  "uv_inspection",
+  "dryness",
+] as const;
+
+export const RUN_STATUSES = ["open", "performed", "verified", "superseded"] as const;
+
+export const OUTCOMES = ["pass", "fail", "incomplete"] as const;
+
+export const SIGNATURE_MEANINGS = ["authored", "reviewed", "approved", "performed", "verified"] as const;
+
+export const SIGNED_RECORD_TYPES = ["document_version", "change_request", "test_run", "recipe_version"] as const;
+
+export type Role = (typeof ROLES)[number];
+export type ParameterKind = (typeof PARAMETER_KINDS)[number];

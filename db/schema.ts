@@ -1,0 +1,406 @@
+import { sql } from "drizzle-orm";
+import {
+  ROLES,
+  STAGE_KINDS,
+  STAGE_MODES,
+  RECIPE_VERSION_STATUSES,
+  PARAMETER_KINDS,
+  DOCUMENT_TYPES,
+  DOCUMENT_STATUSES,
+  CHANGE_STATUSES,
+  IMPACT_CLASSES,
+  TEST_TYPES,
+  RUN_STATUSES,
+  OUTCOMES,
+  SIGNATURE_MEANINGS,
+  SIGNED_RECORD_TYPES,
+} from "./enums";
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+
+export * from "./enums";
+
+/** Times are ISO-8601 UTC strings (sortable, readable in the audit trail), except lucia's session expiry. */
+const id = () => text("id").primaryKey().$defaultFn(() => crypto.randomUUID());
+const createdAt = () => text("created_at").notNull().$defaultFn(() => new Date().toISOString());
+const bool = (name: string) => integer(name, { mode: "boolean" });
+
+// ── People and access ─────────────────────────────────────────────────────
+
+export const users = sqliteTable("users", {
+  id: id(),
+  email: text("email").notNull().unique(),
+  name: text("name").notNull(),
+  jobTitle: text("job_title"),
+  passwordHash: text("password_hash").notNull(),
+  active: bool("active").notNull().default(true),
+  failedAttempts: integer("failed_attempts").notNull().default(0),
+  lockedUntil: text("locked_until"),
+  mustChangePassword: bool("must_change_password").notNull().default(false),
+  passwordChangedAt: text("password_changed_at"),
+  createdAt: createdAt(),
+});
+export type User = typeof users.$inferSelect;
+
+
+export const userRoles = sqliteTable(
+  "user_roles",
+  {
+    userId: text("user_id").notNull().references(() => users.id),
+    role: text("role", { enum: ROLES }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.role] })],
+);
+export type UserRole = typeof userRoles.$inferSelect;
+
+export const sessions = sqliteTable(
+  "sessions",
+  {
+    id: text("id").primaryKey(),
+    userId: text("user_id").notNull().references(() => users.id),
+    /** Unix seconds, as lucia's adapter writes it; moved forward on activity (idle timeout). */
+    expiresAt: integer("expires_at").notNull(),
+    /** Unix seconds; the absolute lifetime counts from here. */
+    createdAt: integer("created_at").notNull(),
+  },
+  (t) => [index("sessions_user_idx").on(t.userId)],
+);
+export type Session = typeof sessions.$inferSelect;
+
+// ── Plant ─────────────────────────────────────────────────────────────────
+
+export const sites = sqliteTable("sites", {
+  id: id(),
+  name: text("name").notNull(),
+  location: text("location"),
+  createdAt: createdAt(),
+});
+export type Site = typeof sites.$inferSelect;
+
+export const cleaningSystems = sqliteTable("cleaning_systems", {
+  id: id(),
+  siteId: text("site_id").notNull().references(() => sites.id),
+  code: text("code").notNull().unique(),
+  name: text("name").notNull(),
+  kind: text("kind", { enum: ["multi_tank_aqueous", "single_chamber_spray", "other"] }).notNull(),
+  description: text("description"),
+  active: bool("active").notNull().default(true),
+  createdAt: createdAt(),
+});
+export type CleaningSystem = typeof cleaningSystems.$inferSelect;
+
+
+/** A physical stage (tank or chamber step) of a cleaning system and what it can do. */
+export const systemStages = sqliteTable(
+  "system_stages",
+  {
+    id: id(),
+    systemId: text("system_id").notNull().references(() => cleaningSystems.id),
+    position: integer("position").notNull(),
+    name: text("name").notNull(),
+    kind: text("kind", { enum: STAGE_KINDS }).notNull(),
+    /** JSON array of STAGE_MODES the stage supports. */
+    capabilities: text("capabilities", { mode: "json" }).$type<string[]>().notNull(),
+    tankVolumeL: real("tank_volume_l"),
+  },
+  (t) => [uniqueIndex("system_stages_position_uq").on(t.systemId, t.position)],
+);
+export type SystemStage = typeof systemStages.$inferSelect;
+
+// ── Parts and specifications ──────────────────────────────────────────────
+
+export const cleanlinessSpecs = sqliteTable("cleanliness_specs", {
+  id: id(),
+  code: text("code").notNull().unique(),
+  name: text("name").notNull(),
+  /** Per-size-class limits in CCC notation, e.g. A(B-E17/F-G14/H-I4/J-K2/L-N00). */
+  ccc: text("ccc").notNull(),
+  maxMetallicUm: real("max_metallic_um"),
+  maxNonMetallicUm: real("max_non_metallic_um"),
+  maxFibreUm: real("max_fibre_um"),
+  gravimetricLimitMg: real("gravimetric_limit_mg"),
+  gravimetricBasis: text("gravimetric_basis", { enum: ["per_component", "per_1000_cm2"] }),
+  minWettingTensionMNm: real("min_wetting_tension_mnm"),
+  visualCriteria: text("visual_criteria"),
+  drynessCriteria: text("dryness_criteria"),
+  createdAt: createdAt(),
+});
+export type CleanlinessSpec = typeof cleanlinessSpecs.$inferSelect;
+
+export const partFamilies = sqliteTable("part_families", {
+  id: id(),
+  code: text("code").notNull().unique(),
+  name: text("name").notNull(),
+  material: text("material").notNull(),
+  wettedAreaCm2: real("wetted_area_cm2").notNull(),
+  wettedVolumeCm3: real("wetted_volume_cm3"),
+  specId: text("spec_id").notNull().references(() => cleanlinessSpecs.id),
+  description: text("description"),
+  createdAt: createdAt(),
+});
+export type PartFamily = typeof partFamilies.$inferSelect;
+
+// ── Recipes ───────────────────────────────────────────────────────────────
+
+export const recipes = sqliteTable("recipes", {
+  id: id(),
+  systemId: text("system_id").notNull().references(() => cleaningSystems.id),
+  code: text("code").notNull().unique(),
+  name: text("name").notNull(),
+  description: text("description"),
+  createdAt: createdAt(),
+});
+export type Recipe = typeof recipes.$inferSelect;
+
+
+export const recipeVersions = sqliteTable(
+  "recipe_versions",
+  {
+    id: id(),
+    recipeId: text("recipe_id").notNull().references(() => recipes.id),
+    version: integer("version").notNull(),
+    status: text("status", { enum: RECIPE_VERSION_STATUSES }).notNull().default("draft"),
+    detergent: text("detergent"),
+    notes: text("notes"),
+    effectiveFrom: text("effective_from"),
+    effectiveTo: text("effective_to"),
+    createdBy: text("created_by").references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("recipe_versions_uq").on(t.recipeId, t.version)],
+);
+export type RecipeVersion = typeof recipeVersions.$inferSelect;
+
+export const recipeStages = sqliteTable(
+  "recipe_stages",
+  {
+    id: id(),
+    versionId: text("version_id").notNull().references(() => recipeVersions.id),
+    position: integer("position").notNull(),
+    name: text("name").notNull(),
+    kind: text("kind", { enum: STAGE_KINDS }).notNull(),
+    mode: text("mode", { enum: STAGE_MODES }),
+  },
+  (t) => [uniqueIndex("recipe_stages_position_uq").on(t.versionId, t.position)],
+);
+export type RecipeStage = typeof recipeStages.$inferSelect;
+
+
+export const recipeParameters = sqliteTable(
+  "recipe_parameters",
+  {
+    id: id(),
+    versionId: text("version_id").notNull().references(() => recipeVersions.id),
+    stageId: text("stage_id").notNull().references(() => recipeStages.id),
+    /** Stable across versions (e.g. "wash.temperature") so a parameter can be traced. */
+    key: text("key").notNull(),
+    name: text("name").notNull(),
+    kind: text("kind", { enum: PARAMETER_KINDS }).notNull(),
+    setpoint: real("setpoint").notNull(),
+    unit: text("unit").notNull(),
+    /** The proven acceptable range. */
+    validatedLow: real("validated_low"),
+    validatedHigh: real("validated_high"),
+    critical: bool("critical").notNull().default(false),
+  },
+  (t) => [uniqueIndex("recipe_parameters_key_uq").on(t.versionId, t.key), index("recipe_parameters_key_idx").on(t.key)],
+);
+export type RecipeParameter = typeof recipeParameters.$inferSelect;
+
+// ── Documents ─────────────────────────────────────────────────────────────
+
+
+export const documents = sqliteTable("documents", {
+  id: id(),
+  number: text("number").notNull().unique(),
+  title: text("title").notNull(),
+  type: text("type", { enum: DOCUMENT_TYPES }).notNull(),
+  systemId: text("system_id").references(() => cleaningSystems.id),
+  partFamilyId: text("part_family_id").references(() => partFamilies.id),
+  recipeVersionId: text("recipe_version_id").references(() => recipeVersions.id),
+  ownerId: text("owner_id").notNull().references(() => users.id),
+  createdAt: createdAt(),
+});
+export type Document = typeof documents.$inferSelect;
+
+export const documentVersions = sqliteTable(
+  "document_versions",
+  {
+    id: id(),
+    documentId: text("document_id").notNull().references(() => documents.id),
+    version: integer("version").notNull(),
+    status: text("status", { enum: DOCUMENT_STATUSES }).notNull().default("draft"),
+    /** Tiptap JSON, validated and sanitised on the server. */
+    content: text("content", { mode: "json" }).notNull(),
+    /** SHA-256 of the canonical JSON, set when the version is frozen for review. */
+    contentHash: text("content_hash"),
+    /** Optimistic concurrency: every save must name the counter it read. */
+    lockVersion: integer("lock_version").notNull().default(0),
+    effectiveDate: text("effective_date"),
+    createdBy: text("created_by").notNull().references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: text("updated_at"),
+  },
+  (t) => [uniqueIndex("document_versions_uq").on(t.documentId, t.version)],
+);
+export type DocumentVersion = typeof documentVersions.$inferSelect;
+
+// ── Change control ────────────────────────────────────────────────────────
+
+
+export const changeRequests = sqliteTable(
+  "change_requests",
+  {
+    id: id(),
+    number: text("number").notNull().unique(),
+    title: text("title").notNull(),
+    recipeId: text("recipe_id").notNull().references(() => recipes.id),
+    fromVersionId: text("from_version_id").references(() => recipeVersions.id),
+    toVersionId: text("to_version_id").references(() => recipeVersions.id),
+    status: text("status", { enum: CHANGE_STATUSES }).notNull().default("draft"),
+    impact: text("impact", { enum: IMPACT_CLASSES }),
+    /** The computed impact with its working, as shown to the approver. */
+    impactDetails: text("impact_details", { mode: "json" }),
+    narrativeDocumentId: text("narrative_document_id").references(() => documents.id),
+    createdBy: text("created_by").notNull().references(() => users.id),
+    createdAt: createdAt(),
+    closedAt: text("closed_at"),
+  },
+  (t) => [index("change_requests_recipe_idx").on(t.recipeId)],
+);
+export type ChangeRequest = typeof changeRequests.$inferSelect;
+
+// ── Evidence ──────────────────────────────────────────────────────────────
+
+
+export const testRuns = sqliteTable(
+  "test_runs",
+  {
+    id: id(),
+    number: text("number").notNull().unique(),
+    partFamilyId: text("part_family_id").notNull().references(() => partFamilies.id),
+    recipeVersionId: text("recipe_version_id").notNull().references(() => recipeVersions.id),
+    changeRequestId: text("change_request_id").references(() => changeRequests.id),
+    protocolDocumentId: text("protocol_document_id").references(() => documents.id),
+    testType: text("test_type", { enum: TEST_TYPES }).notNull(),
+    status: text("status", { enum: RUN_STATUSES }).notNull().default("open"),
+    /** Computed from the stored results, never typed. */
+    outcome: text("outcome", { enum: OUTCOMES }),
+    revision: integer("revision").notNull().default(1),
+    supersedesId: text("supersedes_id"),
+    technicianId: text("technician_id").references(() => users.id),
+    lab: text("lab"),
+    performedOn: text("performed_on"),
+    createdBy: text("created_by").notNull().references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("test_runs_family_idx").on(t.partFamilyId),
+    index("test_runs_recipe_version_idx").on(t.recipeVersionId),
+    index("test_runs_change_idx").on(t.changeRequestId),
+  ],
+);
+export type TestRun = typeof testRuns.$inferSelect;
+
+/** Raw data of one sample of a run; `data` is validated per test type. */
+export const testResults = sqliteTable(
+  "test_results",
+  {
+    id: id(),
+    runId: text("run_id").notNull().references(() => testRuns.id),
+    sampleLabel: text("sample_label").notNull(),
+    basketPosition: text("basket_position"),
+    worstCase: bool("worst_case").notNull().default(false),
+    data: text("data", { mode: "json" }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("test_results_run_idx").on(t.runId)],
+);
+export type TestResult = typeof testResults.$inferSelect;
+
+export const evidenceFiles = sqliteTable(
+  "evidence_files",
+  {
+    id: id(),
+    runId: text("run_id").references(() => testRuns.id),
+    /** Content address: the bytes are stored once under this hash. */
+    sha256: text("sha256").notNull(),
+    originalName: text("original_name").notNull(),
+    mimeType: text("mime_type").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    uploadedBy: text("uploaded_by").notNull().references(() => users.id),
+    uploadedAt: createdAt(),
+  },
+  (t) => [index("evidence_files_run_idx").on(t.runId), index("evidence_files_sha_idx").on(t.sha256)],
+);
+export type EvidenceFile = typeof evidenceFiles.$inferSelect;
+
+// ── Signatures and audit ──────────────────────────────────────────────────
+
+
+export const signatures = sqliteTable(
+  "signatures",
+  {
+    id: id(),
+    recordType: text("record_type", { enum: SIGNED_RECORD_TYPES }).notNull(),
+    recordId: text("record_id").notNull(),
+    userId: text("user_id").notNull().references(() => users.id),
+    /** The name as printed at the moment of signing (§11.50). */
+    printedName: text("printed_name").notNull(),
+    meaning: text("meaning", { enum: SIGNATURE_MEANINGS }).notNull(),
+    signedAt: text("signed_at").notNull(),
+    /** SHA-256 of exactly the record version signed (§11.70). */
+    contentHash: text("content_hash").notNull(),
+  },
+  (t) => [
+    index("signatures_record_idx").on(t.recordType, t.recordId),
+    uniqueIndex("signatures_once_uq").on(t.recordType, t.recordId, t.userId, t.meaning),
+  ],
+);
+export type Signature = typeof signatures.$inferSelect;
+
+/** Append-only; triggers in the migrations refuse UPDATE and DELETE. */
+export const auditEvents = sqliteTable(
+  "audit_events",
+  {
+    seq: integer("seq").primaryKey({ autoIncrement: true }),
+    at: text("at").notNull(),
+    actorId: text("actor_id"),
+    actorName: text("actor_name").notNull(),
+    action: text("action").notNull(),
+    recordType: text("record_type").notNull(),
+    recordId: text("record_id").notNull(),
+    /** Canonical JSON text, exactly as hashed. */
+    oldValue: text("old_value"),
+    newValue: text("new_value"),
+    reason: text("reason"),
+    prevHash: text("prev_hash").notNull(),
+    hash: text("hash").notNull(),
+  },
+  (t) => [
+    index("audit_record_idx").on(t.recordType, t.recordId),
+    index("audit_actor_idx").on(t.actorId),
+    index("audit_at_idx").on(t.at),
+  ],
+);
+export type AuditEventRow = typeof auditEvents.$inferSelect;
+
+// ── Outgoing e-mail ───────────────────────────────────────────────────────
+
+export const emailOutbox = sqliteTable(
+  "email_outbox",
+  {
+    id: id(),
+    to: text("to").notNull(),
+    subject: text("subject").notNull(),
+    text: text("text").notNull(),
+    html: text("html"),
+    status: text("status", { enum: ["pending", "sent", "failed"] }).notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: text("next_attempt_at").notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),
+    lastError: text("last_error"),
+    createdAt: createdAt(),
+    sentAt: text("sent_at"),
+  },
+  (t) => [index("email_outbox_due_idx").on(t.status, t.nextAttemptAt)],
+);
+export type OutboxMessage = typeof emailOutbox.$inferSelect;
