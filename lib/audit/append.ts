@@ -1,0 +1,36 @@
+import { desc } from "drizzle-orm";
+import { auditEvents } from "@/db/schema";
+import type { Tx } from "@/db/client";
+import { canonicalJson } from "./canonical-json";
+import { auditEventSchema, type AuditActor, type AuditEventInput } from "./events";
+import { chainHash, GENESIS_HASH } from "./hash";
+
+/**
+ * Appends one event to the hash chain. Call it inside the transaction that makes
+ * the change it records, so both commit or neither does. SQLite serialises write
+ * transactions, so reading the last hash here cannot race another writer.
+ */
+export async function appendAudit(tx: Tx, actor: AuditActor, input: AuditEventInput, now = new Date()) {
+  const event = auditEventSchema.parse(input);
+  const [last] = await tx
+    .select({ seq: auditEvents.seq, hash: auditEvents.hash })
+    .from(auditEvents)
+    .orderBy(desc(auditEvents.seq))
+    .limit(1);
+  const fields = {
+    seq: (last?.seq ?? 0) + 1,
+    at: now.toISOString(),
+    actorId: actor.id,
+    actorName: actor.name,
+    action: event.action,
+    recordType: event.recordType,
+    recordId: event.recordId,
+    oldValue: event.old === null ? null : canonicalJson(event.old),
+    newValue: event.new === null ? null : canonicalJson(event.new),
+    reason: event.reason,
+    prevHash: last?.hash ?? GENESIS_HASH,
+  };
+  const hash = chainHash(fields);
+  await tx.insert(auditEvents).values({ ...fields, hash });
+  return { seq: fields.seq, hash };
+}

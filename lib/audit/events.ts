@@ -1,0 +1,50 @@
+import { z } from "zod";
+
+/** A JSON object as stored in old/new values. */
+const jsonObject = z.record(z.string(), z.unknown());
+
+function event<A extends string, R extends string>(action: A, recordType: R) {
+  return z.object({
+    action: z.literal(action),
+    recordType: z.literal(recordType),
+    recordId: z.string().min(1),
+    old: jsonObject.nullable().default(null),
+    new: jsonObject.nullable().default(null),
+    reason: z.string().max(4000).nullable().default(null),
+  });
+}
+
+/**
+ * Every kind of event the audit trail records, one schema each.
+ * Later features add their events here so the trail stays a closed, typed set.
+ */
+export const auditEventSchema = z.discriminatedUnion("action", [
+  event("auth.signed_in", "user"),
+  event("auth.signed_out", "user"),
+  event("auth.sign_in_failed", "user"),
+  event("auth.locked_out", "user"),
+  event("auth.password_changed", "user"),
+  event("user.created", "user"),
+  event("user.updated", "user"),
+  event("user.roles_changed", "user"),
+  event("user.deactivated", "user"),
+  event("user.reactivated", "user"),
+  event("user.password_reset", "user"),
+  event("site.created", "site"),
+  event("system.created", "cleaning_system"),
+  event("system.updated", "cleaning_system"),
+  event("spec.created", "cleanliness_spec"),
+  event("part_family.created", "part_family"),
+  event("recipe.created", "recipe"),
+  event("recipe_version.created", "recipe_version"),
+  event("recipe_version.effective", "recipe_version"),
+  event("recipe_version.superseded", "recipe_version"),
+]);
+
+export type AuditEventInput = z.input<typeof auditEventSchema>;
+export type AuditEvent = z.output<typeof auditEventSchema>;
+export type AuditAction = AuditEvent["action"];
+
+/** Who did it: a signed-in user, or the system itself (seeding, scheduled jobs). */
+export type AuditActor = { id: string; name: string } | { id: null; name: string };
+export const SYSTEM_ACTOR: AuditActor = { id: null, name: "system" };

@@ -1,0 +1,102 @@
+import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { appendAudit, verifyAuditChain, canonicalJson } from "@/lib/audit";
+import { createTestDatabase } from "./support/test-db";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+const actor = { id: "u-1", name: "Test Engineer" };
+
+async function appendMany(n: number) {
+  for (let i = 0; i < n; i++) {
+    await t.db.transaction((tx) =>
+      appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: `r-${i}`, old: { n: i }, new: { n: i + 1 }, reason: "test" }),
+    );
+  }
+}
+
+beforeEach(async () => {
+  t = await createTestDatabase();
+});
+afterEach(() => t.cleanup());
+
+describe("audit chain", () => {
+  it("verifies an intact chain and counts its events", async () => {
+    await appendMany(5);
+    const result = await verifyAuditChain(t.db);
+    expect(result).toMatchObject({ ok: true, events: 5 });
+  });
+
+  it("links each event to the previous event's hash", async () => {
+    await appendMany(3);
+    const rows = (await t.client.execute("SELECT seq, prev_hash, hash FROM audit_events ORDER BY seq")).rows;
+    expect(rows[0].prev_hash).toBe("0".repeat(64));
+    expect(rows[1].prev_hash).toBe(rows[0].hash);
+    expect(rows[2].prev_hash).toBe(rows[1].hash);
+  });
+
+  it("stores old and new values as canonical JSON", async () => {
+    await t.db.transaction((tx) =>
+      appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: "x", new: { b: 1, a: { d: 2, c: 3 } } }),
+    );
+    const row = (await t.client.execute("SELECT new_value FROM audit_events")).rows[0];
+    expect(row.new_value).toBe('{"a":{"c":3,"d":2},"b":1}');
+    expect(canonicalJson({ b: 1, a: [{ y: 1, x: 2 }] })).toBe('{"a":[{"x":2,"y":1}],"b":1}');
+  });
+
+  it("refuses UPDATE and DELETE through its triggers", async () => {
+    await appendMany(2);
+    await expect(t.client.execute("UPDATE audit_events SET reason = 'changed' WHERE seq = 1")).rejects.toThrow(/append-only/);
+    await expect(t.client.execute("DELETE FROM audit_events WHERE seq = 2")).rejects.toThrow(/append-only/);
+    expect((await verifyAuditChain(t.db)).ok).toBe(true);
+  });
+
+  it("detects an altered row", async () => {
+    await appendMany(4);
+    await t.client.execute("DROP TRIGGER audit_events_no_update");
+    await t.client.execute(`UPDATE audit_events SET new_value = '{"n":99}' WHERE seq = 2`);
+    expect(await verifyAuditChain(t.db)).toMatchObject({ ok: false, brokenAt: 2 });
+  });
+
+  it("detects a removed row in the middle", async () => {
+    await appendMany(4);
+    await t.client.execute("DROP TRIGGER audit_events_no_delete");
+    await t.client.execute("DELETE FROM audit_events WHERE seq = 3");
+    expect(await verifyAuditChain(t.db)).toMatchObject({ ok: false, brokenAt: 3 });
+  });
+
+  it("detects rows removed from the end", async () => {
+    await appendMany(4);
+    await t.client.execute("DROP TRIGGER audit_events_no_delete");
+    await t.client.execute("DELETE FROM audit_events WHERE seq = 4");
+    expect(await verifyAuditChain(t.db)).toMatchObject({ ok: false, brokenAt: 4 });
+  });
+
+  it("detects a rewritten row whose own hash was recomputed", async () => {
+    await appendMany(3);
+    await t.client.execute("DROP TRIGGER audit_events_no_update");
+    // A forger who recomputes row 1's hash still breaks row 2's link to it.
+    await t.client.execute(`UPDATE audit_events SET actor_name = 'Someone Else', hash = '${"f".repeat(64)}' WHERE seq = 1`);
+    const result = await verifyAuditChain(t.db);
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.brokenAt).toBe(1);
+  });
+
+  it("writes nothing when the surrounding transaction rolls back", async () => {
+    await appendMany(1);
+    await expect(
+      t.db.transaction(async (tx) => {
+        await appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: "y" });
+        throw new Error("the change failed");
+      }),
+    ).rejects.toThrow("the change failed");
+    expect(await verifyAuditChain(t.db)).toMatchObject({ ok: true, events: 1 });
+  });
+
+  it("rejects an event that does not match its schema", async () => {
+    await expect(
+      t.db.transaction((tx) =>
+        // @ts-expect-error — a record type that does not belong to this action
+        appendAudit(tx, actor, { action: "user.updated", recordType: "document", recordId: "z" }),
+      ),
+    ).rejects.toThrow();
+  });
+});

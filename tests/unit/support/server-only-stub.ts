@@ -1,0 +1,2 @@
+// Vitest runs server modules outside Next; the real package throws outside a server bundle.
+export {};
