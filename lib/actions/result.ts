@@ -1,0 +1,18 @@
+import type { z } from "zod";
+
+/** The one result shape of every server action, read by forms with useActionState. */
+export type ActionResult =
+  | { ok: true; message?: string }
+  | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
+
+/** What a form holds before its first submission. */
+export type FormState = ActionResult | null;
+
+export function invalid(error: z.ZodError, message = "Some fields need attention."): ActionResult {
+  const fieldErrors: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.join(".") || "_form";
+    (fieldErrors[key] ??= []).push(issue.message);
+  }
+  return { ok: false, message, fieldErrors };
+}

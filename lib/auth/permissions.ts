@@ -1,0 +1,65 @@
+import { ROLES, type Role } from "@/db/enums";
+
+export { ROLES, type Role };
+
+const ALL: readonly Role[] = ROLES;
+const ACTORS: readonly Role[] = ["admin", "engineer", "reviewer", "approver", "technician"];
+const CONTROLLERS: readonly Role[] = ["admin", "engineer", "reviewer", "approver", "auditor"];
+
+/**
+ * Every action in Washproof and the roles allowed to take it. This table is the
+ * single source of authorisation: pages, server actions and route handlers all
+ * ask `can()`, and the authorisation tests read this table.
+ */
+export const PERMISSIONS = {
+  // Reading
+  "queue.view": ACTORS,
+  "systems.view": ALL,
+  "parts.view": ALL,
+  "documents.view": ALL,
+  "changes.view": CONTROLLERS,
+  "evidence.view": ALL,
+  "trace.view": CONTROLLERS,
+  "audit.view": ["admin", "auditor", "approver"],
+  "audit.export": ["admin", "auditor"],
+  "calc.view": ALL,
+  // Own account
+  "account.change_password": ALL,
+  // Administration (admins never sign on behalf of others)
+  "admin.view": ["admin"],
+  "users.manage": ["admin"],
+  "systems.manage": ["admin"],
+  "parts.manage": ["admin", "engineer"],
+  "matrix.manage": ["admin"],
+  // Documents
+  "document.draft": ["engineer"],
+  "document.submit": ["engineer"],
+  "document.review": ["reviewer"],
+  "document.approve": ["approver"],
+  // Recipes and change control
+  "recipe.edit": ["engineer"],
+  "recipe.make_effective": ["approver"],
+  "change.draft": ["engineer"],
+  "change.review": ["reviewer"],
+  "change.approve": ["approver"],
+  // Evidence
+  "evidence.record": ["engineer", "technician"],
+  "evidence.sign_performed": ["technician"],
+  "evidence.verify": ["engineer", "reviewer", "approver", "technician"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof PERMISSIONS;
+
+export function can(roles: readonly Role[], action: Action): boolean {
+  const allowed: readonly Role[] = PERMISSIONS[action];
+  return roles.some((r) => allowed.includes(r));
+}
+
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: "Administrator",
+  engineer: "Quality engineer",
+  reviewer: "Reviewer",
+  approver: "Approver",
+  technician: "Technician",
+  auditor: "Auditor",
+};

@@ -1,0 +1,45 @@
+import { z } from "zod";
+import { ROLES } from "@/db/enums";
+
+export const PASSWORD_MIN_LENGTH = 12;
+
+const email = z.string().trim().toLowerCase().email("Enter a valid e-mail address.").max(200);
+
+export const signInSchema = z.object({
+  email: z.string().trim().min(1, "Enter your e-mail address.").max(200),
+  password: z.string().min(1, "Enter your password.").max(200),
+});
+
+/** The password rules, shared by the form and the server so the two cannot drift. */
+export const passwordChangeSchema = z
+  .object({
+    currentPassword: z.string().min(1, "Enter your current password."),
+    newPassword: z
+      .string()
+      .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
+      .max(200, "Use at most 200 characters."),
+    confirmPassword: z.string(),
+  })
+  .refine((v) => v.newPassword === v.confirmPassword, {
+    path: ["confirmPassword"],
+    message: "The two new passwords differ.",
+  })
+  .refine((v) => v.newPassword !== v.currentPassword, {
+    path: ["newPassword"],
+    message: "Choose a password different from the current one.",
+  });
+
+export function passwordIsEmail(password: string, userEmail: string) {
+  return password.trim().toLowerCase() === userEmail.trim().toLowerCase();
+}
+
+export const userSchema = z.object({
+  name: z.string().trim().min(2, "Enter the person's full name.").max(120),
+  email,
+  jobTitle: z.string().trim().max(120).optional().transform((v) => v || null),
+  roles: z.array(z.enum(ROLES)).min(1, "Choose at least one role."),
+});
+
+export const createUserSchema = userSchema;
+export const updateUserSchema = userSchema.extend({ userId: z.string().uuid() });
+export const userIdSchema = z.object({ userId: z.string().uuid() });

@@ -1,0 +1,63 @@
+import { describe, expect, it } from "vitest";
+import { can, PERMISSIONS, ROLES, type Action, type Role } from "@/lib/auth/permissions";
+
+/**
+ * The expected grants, written out independently of the table so that a change
+ * to the table must be made twice, on purpose. Rows: action → roles allowed.
+ */
+const EXPECTED: Record<Action, Role[]> = {
+  "queue.view": ["admin", "engineer", "reviewer", "approver", "technician"],
+  "systems.view": [...ROLES],
+  "parts.view": [...ROLES],
+  "documents.view": [...ROLES],
+  "changes.view": ["admin", "engineer", "reviewer", "approver", "auditor"],
+  "evidence.view": [...ROLES],
+  "trace.view": ["admin", "engineer", "reviewer", "approver", "auditor"],
+  "audit.view": ["admin", "auditor", "approver"],
+  "audit.export": ["admin", "auditor"],
+  "calc.view": [...ROLES],
+  "account.change_password": [...ROLES],
+  "admin.view": ["admin"],
+  "users.manage": ["admin"],
+  "systems.manage": ["admin"],
+  "parts.manage": ["admin", "engineer"],
+  "matrix.manage": ["admin"],
+  "document.draft": ["engineer"],
+  "document.submit": ["engineer"],
+  "document.review": ["reviewer"],
+  "document.approve": ["approver"],
+  "recipe.edit": ["engineer"],
+  "recipe.make_effective": ["approver"],
+  "change.draft": ["engineer"],
+  "change.review": ["reviewer"],
+  "change.approve": ["approver"],
+  "evidence.record": ["engineer", "technician"],
+  "evidence.sign_performed": ["technician"],
+  "evidence.verify": ["engineer", "reviewer", "approver", "technician"],
+};
+
+describe("role table", () => {
+  it("lists exactly the expected actions", () => {
+    expect(Object.keys(PERMISSIONS).sort()).toEqual(Object.keys(EXPECTED).sort());
+  });
+
+  for (const action of Object.keys(EXPECTED) as Action[]) {
+    for (const role of ROLES) {
+      const allowed = EXPECTED[action].includes(role);
+      it(`${role} ${allowed ? "may" : "may not"} ${action}`, () => {
+        expect(can([role], action)).toBe(allowed);
+      });
+    }
+  }
+
+  it("the auditor writes nothing", () => {
+    const writes = (Object.keys(PERMISSIONS) as Action[]).filter((a) => !/\.(view|export)$/.test(a) && a !== "account.change_password");
+    expect(writes.filter((a) => can(["auditor"], a))).toEqual([]);
+  });
+
+  it("no role may both draft and approve a document by itself, but several roles combine", () => {
+    expect(ROLES.filter((r) => can([r], "document.draft") && can([r], "document.approve"))).toEqual([]);
+    expect(can(["engineer", "approver"], "document.approve")).toBe(true);
+    expect(can([], "systems.view")).toBe(false);
+  });
+});
