@@ -1,0 +1,51 @@
+"use client";
+
+import { ActionForm } from "@/components/ui/action-form";
+import { Field, FieldError } from "@/components/ui/field";
+import { SubmitButton } from "@/components/ui/submit-button";
+import { ROLES, type Role } from "@/db/enums";
+import { ROLE_LABELS } from "@/lib/auth/permissions";
+import type { FormState } from "@/lib/actions/result";
+import { TemporaryPassword } from "./temporary-password";
+
+export interface UserFormProps {
+  action: (prev: FormState, formData: FormData) => Promise<FormState>;
+  user?: { id: string; name: string; email: string; jobTitle: string | null; roles: Role[] };
+  submitLabel: string;
+}
+
+const ROLE_HINTS: Record<Role, string> = {
+  admin: "users, roles, systems, requalification matrix",
+  engineer: "drafts protocols, recipes, change requests",
+  reviewer: "comments, signs reviewed or sends back",
+  approver: "signs approved or rejects",
+  technician: "records results, signs performed",
+  auditor: "reads and traces everything, changes nothing",
+};
+
+export function UserForm({ action, user, submitLabel }: UserFormProps) {
+  return (
+    <ActionForm action={action} className="max-w-xl space-y-4" aria-label={user ? "Edit user" : "New user"}>
+      {user && <input type="hidden" name="userId" value={user.id} />}
+      <Field name="name" label="Full name" defaultValue={user?.name} autoComplete="off" />
+      <Field name="email" label="E-mail" type="email" defaultValue={user?.email} autoComplete="off" />
+      <Field name="jobTitle" label="Job title (optional)" defaultValue={user?.jobTitle ?? ""} />
+      <fieldset className="space-y-2">
+        <legend className="text-sm font-medium text-stone-800">Roles</legend>
+        <p className="text-xs text-stone-600">Nobody may sign both &quot;authored&quot; and &quot;approved&quot; on the same version, whatever their roles.</p>
+        {ROLES.map((role) => (
+          <label key={role} className="flex items-start gap-2 text-sm">
+            <input type="checkbox" name="roles" value={role} defaultChecked={user?.roles.includes(role)} className="mt-0.5" />
+            <span>
+              <span className="font-medium">{ROLE_LABELS[role]}</span> <span className="text-stone-600">— {ROLE_HINTS[role]}</span>
+            </span>
+          </label>
+        ))}
+        <FieldError name="roles" />
+      </fieldset>
+      <SubmitButton>{submitLabel}</SubmitButton>
+      <TemporaryPassword />
+    </ActionForm>
+  );
+}
+

@@ -1,0 +1,31 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { sessions, userRoles, users } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import { UserFacingError } from "@/lib/server/errors";
+import { assertAnotherActiveAdmin } from "./last-admin";
+
+/** Deactivates (users are never deleted: their signatures and audit events stay theirs) or reactivates. */
+export async function setUserActive(actor: AuditActor, input: { userId: string; active: boolean; reason: string }) {
+  await getDb().transaction(async (tx) => {
+    const [user] = await tx.select().from(users).where(eq(users.id, input.userId));
+    if (!user) throw new UserFacingError("That user does not exist.");
+    if (user.active === input.active) return;
+    if (!input.active) {
+      if (user.id === actor.id) throw new UserFacingError("You cannot deactivate your own account.");
+      const roles = await tx.select().from(userRoles).where(eq(userRoles.userId, user.id));
+      if (roles.some((r) => r.role === "admin")) await assertAnotherActiveAdmin(tx, user.id);
+      await tx.delete(sessions).where(eq(sessions.userId, user.id));
+    }
+    await tx.update(users).set({ active: input.active, failedAttempts: 0, lockedUntil: null }).where(eq(users.id, user.id));
+    await appendAudit(tx, actor, {
+      action: input.active ? "user.reactivated" : "user.deactivated",
+      recordType: "user",
+      recordId: user.id,
+      old: { active: user.active },
+      new: { active: input.active },
+      reason: input.reason,
+    });
+  });
+}
