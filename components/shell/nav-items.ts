@@ -1,0 +1,21 @@
+import type { Action } from "@/lib/auth/permissions";
+
+export interface NavItem {
+  href: string;
+  label: string;
+  icon: "queue" | "systems" | "parts" | "documents" | "changes" | "evidence" | "trace" | "calc" | "admin";
+  permission: Action;
+}
+
+/** Screens are named for what the user does there. */
+export const NAV_ITEMS: NavItem[] = [
+  { href: "/queue", label: "My queue", icon: "queue", permission: "queue.view" },
+  { href: "/systems", label: "Cleaning systems", icon: "systems", permission: "systems.view" },
+  { href: "/parts", label: "Parts & specifications", icon: "parts", permission: "parts.view" },
+  { href: "/documents", label: "Documents", icon: "documents", permission: "documents.view" },
+  { href: "/changes", label: "Changes", icon: "changes", permission: "changes.view" },
+  { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
+  { href: "/trace", label: "Trace", icon: "trace", permission: "trace.view" },
+  { href: "/how-we-compute", label: "How we compute", icon: "calc", permission: "calc.view" },
+  { href: "/admin", label: "Admin", icon: "admin", permission: "admin.view" },
+];
