@@ -1,0 +1,133 @@
+import { eq } from "drizzle-orm";
+import { pathToFileURL } from "node:url";
+import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { hashPassword } from "@/lib/auth/password";
+import { getDb, type Database } from "./client";
+import {
+  cleaningSystems,
+  cleanlinessSpecs,
+  partFamilies,
+  recipeParameters,
+  recipes,
+  recipeStages,
+  recipeVersions,
+  sites,
+  systemStages,
+  userRoles,
+  users,
+} from "./schema";
+import { DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
+
+/**
+ * Loads the invented demo scenario. Idempotent: a database that already holds
+ * the demo site is left as it is. Every row is audited, as any other change.
+ */
+export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
+  const existing = await db.select({ id: sites.id }).from(sites).where(eq(sites.name, DEMO_SITE.name));
+  if (existing.length > 0) return { seeded: false };
+
+  // Hash outside the transaction: argon2 is deliberately slow.
+  const hashes = await Promise.all(DEMO_USERS.map(() => hashPassword(DEMO_PASSWORD)));
+
+  await db.transaction(async (tx) => {
+    const audit = (input: Parameters<typeof appendAudit>[2]) => appendAudit(tx, SYSTEM_ACTOR, input);
+    const userIds = new Map<string, string>();
+    for (const [i, u] of DEMO_USERS.entries()) {
+      const [row] = await tx
+        .insert(users)
+        .values({ name: u.name, email: u.email, jobTitle: u.jobTitle, passwordHash: hashes[i] })
+        .onConflictDoNothing()
+        .returning({ id: users.id });
+      if (!row) continue; // someone already created this e-mail by hand
+      userIds.set(u.email, row.id);
+      await tx.insert(userRoles).values(u.roles.map((role) => ({ userId: row.id, role })));
+      await audit({ action: "user.created", recordType: "user", recordId: row.id, new: { name: u.name, email: u.email, roles: u.roles } });
+    }
+    const engineerId = userIds.get("engineer@fennmoor.example") ?? null;
+
+    const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
+    await audit({ action: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
+
+    const systemIds = new Map<string, string>();
+    for (const s of DEMO_SYSTEMS) {
+      const [sys] = await tx
+        .insert(cleaningSystems)
+        .values({ siteId: site.id, code: s.code, name: s.name, kind: s.kind, description: s.description })
+        .returning();
+      systemIds.set(s.code, sys.id);
+      await tx.insert(systemStages).values(s.stages.map((st, i) => ({ ...st, systemId: sys.id, position: i + 1 })));
+      await audit({ action: "system.created", recordType: "cleaning_system", recordId: sys.id, new: { code: s.code, name: s.name, stages: s.stages.map((st) => st.name) } });
+    }
+
+    const specIds = new Map<string, string>();
+    for (const spec of DEMO_SPECS) {
+      const [row] = await tx.insert(cleanlinessSpecs).values(spec).returning();
+      specIds.set(spec.code, row.id);
+      await audit({ action: "spec.created", recordType: "cleanliness_spec", recordId: row.id, new: spec });
+    }
+
+    for (const pf of DEMO_PART_FAMILIES) {
+      const { spec, ...fields } = pf;
+      const [row] = await tx.insert(partFamilies).values({ ...fields, specId: specIds.get(spec)! }).returning();
+      await audit({ action: "part_family.created", recordType: "part_family", recordId: row.id, new: pf });
+    }
+
+    for (const r of DEMO_RECIPES) {
+      const [recipe] = await tx
+        .insert(recipes)
+        .values({ systemId: systemIds.get(r.system)!, code: r.code, name: r.name, description: r.description })
+        .returning();
+      await audit({ action: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: r.code, name: r.name } });
+      let previous: { id: string; version: number } | null = null;
+      for (const [i, v] of r.versions.entries()) {
+        const isLast = i === r.versions.length - 1;
+        const next = r.versions[i + 1];
+        const [version] = await tx
+          .insert(recipeVersions)
+          .values({
+            recipeId: recipe.id,
+            version: i + 1,
+            status: isLast ? "effective" : "superseded",
+            detergent: v.detergent,
+            notes: v.notes,
+            effectiveFrom: v.effectiveFrom,
+            effectiveTo: next?.effectiveFrom ?? null,
+            createdBy: engineerId,
+          })
+          .returning();
+        for (const [si, s] of v.stages.entries()) {
+          const [stage] = await tx
+            .insert(recipeStages)
+            .values({ versionId: version.id, position: si + 1, name: s.name, kind: s.kind, mode: s.mode as never })
+            .returning();
+          await tx.insert(recipeParameters).values(
+            s.parameters.map((p) => ({
+              versionId: version.id,
+              stageId: stage.id,
+              key: p.key,
+              name: p.name,
+              kind: p.kind,
+              setpoint: p.setpoint,
+              unit: p.unit,
+              validatedLow: p.low,
+              validatedHigh: p.high,
+              critical: p.critical ?? false,
+            })),
+          );
+        }
+        await audit({ action: "recipe_version.created", recordType: "recipe_version", recordId: version.id, new: { recipe: r.code, version: i + 1, notes: v.notes } });
+        if (previous) {
+          await audit({ action: "recipe_version.superseded", recordType: "recipe_version", recordId: previous.id, old: { status: "effective" }, new: { status: "superseded", by: i + 1 } });
+        }
+        await audit({ action: "recipe_version.effective", recordType: "recipe_version", recordId: version.id, new: { status: "effective", effectiveFrom: v.effectiveFrom } });
+        previous = { id: version.id, version: i + 1 };
+      }
+    }
+  });
+  return { seeded: true };
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href) {
+  const result = await seedDemo(getDb());
+  console.log(result.seeded ? "Demo data loaded." : "Demo data already present; nothing changed.");
+}

@@ -1,0 +1,33 @@
+/**
+ * One command for a fresh machine: migrate, load the demo scenario, build, and
+ * serve Washproof at http://localhost:3000 on the embedded SQLite database.
+ */
+import { spawn, spawnSync } from "node:child_process";
+import { resolve } from "node:path";
+
+process.env.DATABASE_URL ??= `file:${resolve("data/washproof.db")}`;
+process.env.UPLOAD_DIR ??= resolve("data/uploads");
+process.env.DEMO_MODE ??= "true";
+process.env.NEXT_TELEMETRY_DISABLED = "1";
+const port = process.env.PORT ?? "3000";
+process.env.APP_URL ??= `http://localhost:${port}`;
+
+const { openDatabase } = await import("@/db/client");
+const { migrateDatabase } = await import("@/db/migrate");
+const { seedDemo } = await import("@/db/seed");
+const { db, client } = openDatabase(process.env.DATABASE_URL);
+await migrateDatabase(db, client);
+const { seeded } = await seedDemo(db);
+client.close();
+console.log(seeded ? "Demo data loaded." : "Demo data already present.");
+
+console.log("Building Washproof (about a minute)…");
+const build = spawnSync("npx", ["next", "build"], { stdio: "inherit", env: process.env });
+if (build.status !== 0) process.exit(build.status ?? 1);
+
+console.log(`\nWashproof is starting at http://localhost:${port}`);
+console.log("Demo sign-ins: admin@, engineer@, reviewer@, approver@, technician@, auditor@fennmoor.example");
+console.log("Password for all of them: Washproof-demo-2026\n");
+const server = spawn("npx", ["next", "start", "-p", port], { stdio: "inherit", env: process.env });
+for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => server.kill(signal));
+server.on("exit", (code) => process.exit(code ?? 0));
