@@ -1,0 +1,21 @@
+#!/usr/bin/env bash
+# The whole test suite: type-check, lint, unit tests, production build, browser tests.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+
+if [ ! -x /usr/bin/chromium ] || ! command -v pdftotext >/dev/null 2>&1; then
+  if [ "$(id -u)" = "0" ] && command -v apt-get >/dev/null 2>&1; then
+    echo "Installing Debian's chromium and poppler-utils for the browser and PDF tests…"
+    apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium poppler-utils >/dev/null
+  else
+    echo "Browser tests need Debian's chromium and poppler-utils: run 'sudo apt-get install -y chromium poppler-utils', then 'npm test' again." >&2
+    exit 1
+  fi
+fi
+
+export PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD=1 NEXT_TELEMETRY_DISABLED=1
+echo "== type-check";  npx tsc --noEmit
+echo "== lint";        npx eslint . --max-warnings=0
+echo "== unit tests";  npx vitest run
+echo "== build";       npx next build > /tmp/washproof-build.log 2>&1 || { cat /tmp/washproof-build.log; exit 1; }
+echo "== browser tests"; npx playwright test

@@ -1,0 +1,49 @@
+import { expect, signIn, signInAs, test } from "./fixtures";
+
+test("bad input shows each error beside its field and keeps what was typed", async ({ page }) => {
+  await signInAs(page, "admin");
+  await page.goto("/admin/users/new");
+  await page.getByLabel("Full name").fill("Q");
+  await page.getByLabel("E-mail").fill("not-an-email");
+  await page.getByLabel("Job title (optional)").fill("Night-shift lead");
+  await page.getByRole("button", { name: "Create user" }).click();
+  await expect(page.getByText("Enter the person's full name.")).toBeVisible();
+  await expect(page.getByText("Enter a valid e-mail address.")).toBeVisible();
+  await expect(page.getByText("Choose at least one role.")).toBeVisible();
+  await expect(page.getByLabel("Full name")).toHaveValue("Q");
+  await expect(page.getByLabel("E-mail")).toHaveValue("not-an-email");
+  await expect(page.getByLabel("Job title (optional)")).toHaveValue("Night-shift lead");
+});
+
+test("an admin creates a user who must choose a password at first sign-in", async ({ page, browser }) => {
+  await signInAs(page, "admin");
+  await page.goto("/admin/users/new");
+  await page.getByLabel("Full name").fill("Oskar Lindqvist");
+  await page.getByLabel("E-mail").fill("oskar.lindqvist@fennmoor.example");
+  await page.getByRole("checkbox", { name: /Technician/ }).check();
+  await page.getByRole("button", { name: "Create user" }).click();
+  const temporary = await page.getByTestId("temporary-password").textContent();
+  expect(temporary).toMatch(/^\S{4}-\S{4}-\S{4}-\S{4}$/);
+
+  const other = await browser.newPage();
+  await signIn(other, "oskar.lindqvist@fennmoor.example", temporary!);
+  await expect(other).toHaveURL(/\/account\/password$/);
+  await expect(other.getByRole("navigation", { name: "Main" })).toHaveCount(0);
+  // Any other page sends them back until they have chosen a password.
+  await other.goto("/systems");
+  await expect(other).toHaveURL(/\/account\/password$/);
+
+  await other.getByLabel("Current password").fill(temporary!);
+  await other.getByLabel("New password", { exact: true }).fill("short");
+  await other.getByLabel("New password again").fill("short");
+  await other.getByRole("button", { name: "Change password" }).click();
+  await expect(other.getByText("Use at least 12 characters.")).toBeVisible();
+  await expect(other.getByLabel("Current password")).toHaveValue(temporary!);
+
+  await other.getByLabel("New password", { exact: true }).fill("basket rinse conductivity");
+  await other.getByLabel("New password again").fill("basket rinse conductivity");
+  await other.getByRole("button", { name: "Change password" }).click();
+  await expect(other).toHaveURL(/\/queue/);
+  await expect(other.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Evidence" })).toBeVisible();
+  await other.close();
+});

@@ -1,0 +1,66 @@
+import { DEMO, expect, signIn, signInAs, test, type DemoRole } from "./fixtures";
+
+const NAV: Record<DemoRole, string[]> = {
+  admin: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute", "Admin"],
+  engineer: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
+  reviewer: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
+  approver: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
+  technician: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Evidence", "How we compute"],
+  auditor: ["Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
+};
+
+for (const role of Object.keys(DEMO) as DemoRole[]) {
+  test(`${role} signs in and sees the ${role}'s navigation`, async ({ page }) => {
+    await signInAs(page, role);
+    const links = page.getByRole("navigation", { name: "Main" }).getByRole("link");
+    await expect(links).toHaveText(NAV[role]);
+  });
+}
+
+test("a wrong password shows the generic error and keeps the e-mail", async ({ page }) => {
+  await signIn(page, DEMO.reviewer.email, "not-the-password");
+  const alert = page.getByRole("form", { name: "Sign in" }).getByRole("alert");
+  await expect(alert).toHaveText(/e-mail or password is not correct/);
+  await expect(page.getByLabel("E-mail")).toHaveValue(DEMO.reviewer.email);
+  // An unknown e-mail gets exactly the same message.
+  const first = await alert.textContent();
+  await page.getByLabel("E-mail").fill("nobody@fennmoor.example");
+  await page.getByLabel("Password").fill("whatever it is");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByLabel("E-mail")).toHaveValue("nobody@fennmoor.example");
+  await expect(alert).toHaveText(first!);
+});
+
+test("empty sign-in fields get their own errors beside them", async ({ page }) => {
+  await page.goto("/sign-in");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByText("Enter your e-mail address.")).toBeVisible();
+  await expect(page.getByText("Enter your password.")).toBeVisible();
+});
+
+test("sign-out ends the session on the server", async ({ page, context }) => {
+  await signInAs(page, "engineer");
+  const cookie = (await context.cookies()).find((c) => c.name === "washproof_session");
+  expect(cookie).toBeDefined();
+  await page.getByText(DEMO.engineer.name).click();
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page).toHaveURL(/\/sign-in$/);
+  // Replaying the old cookie does not bring the session back.
+  await context.addCookies([cookie!]);
+  await page.goto("/queue");
+  await expect(page).toHaveURL(/\/sign-in$/);
+});
+
+test("an auditor who opens an admin URL is refused by the server", async ({ page }) => {
+  await signInAs(page, "auditor");
+  const response = await page.goto("/admin");
+  expect(response?.status()).toBe(403);
+  await expect(page.getByRole("heading", { name: "Your role does not open this page" })).toBeVisible();
+  const create = await page.goto("/admin/users/new");
+  expect(create?.status()).toBe(403);
+});
+
+test("a signed-out visitor is sent to sign-in", async ({ page }) => {
+  await page.goto("/systems");
+  await expect(page).toHaveURL(/\/sign-in$/);
+});
