@@ -69,3 +69,5 @@ export const SIGNED_RECORD_TYPES = ["document_version", "change_request", "test_
 
 export type Role = (typeof ROLES)[number];
 export type ParameterKind = (typeof PARAMETER_KINDS)[number];
+export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
+export type SignedRecordType = (typeof SIGNED_RECORD_TYPES)[number];
