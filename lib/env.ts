@@ -22,6 +22,9 @@ const envSchema = z
     LOCKOUT_MINUTES: minutes(15),
     SMTP_URL: z.string().url().default("smtp://127.0.0.1:2525"),
     MAIL_FROM: z.string().default("Washproof <no-reply@washproof.local>"),
+    /** Where the local capturing SMTP server (demo and tests) keeps what it receives. */
+    MAILBOX_FILE: z.string().default("./data/mailbox.jsonl"),
+    REVIEW_OVERDUE_DAYS: z.coerce.number().int().positive().max(365).default(5),
     UPLOAD_DIR: z.string().default("./data/uploads"),
     UPLOAD_MAX_MB: z.coerce.number().positive().max(1024).default(25),
     APP_URL: z.string().url().default("http://localhost:3000"),

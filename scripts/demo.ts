@@ -11,6 +11,9 @@ process.env.DEMO_MODE ??= "true";
 process.env.NEXT_TELEMETRY_DISABLED = "1";
 const port = process.env.PORT ?? "3000";
 process.env.APP_URL ??= `http://localhost:${port}`;
+process.env.MAILBOX_FILE ??= resolve("data/mailbox.jsonl");
+const smtpPort = Number(process.env.DEMO_SMTP_PORT ?? 2525);
+process.env.SMTP_URL ??= `smtp://127.0.0.1:${smtpPort}`;
 
 const { openDatabase } = await import("@/db/client");
 const { migrateDatabase } = await import("@/db/migrate");
@@ -20,6 +23,10 @@ await migrateDatabase(db, client);
 const { seeded } = await seedDemo(db);
 client.close();
 console.log(seeded ? "Demo data loaded." : "Demo data already present.");
+
+const { startFakeSmtpServer } = await import("@/lib/email/fake-smtp-server");
+await startFakeSmtpServer({ port: smtpPort, mailboxFile: process.env.MAILBOX_FILE });
+console.log(`Demo e-mail is captured on 127.0.0.1:${smtpPort}; admins read it under Admin › E-mail.`);
 
 console.log("Building Washproof (about a minute)…");
 const build = spawnSync("npx", ["next", "build"], { stdio: "inherit", env: process.env });

@@ -14,6 +14,9 @@ process.env.DATABASE_URL = `file:${dataDir}/washproof.db`;
 process.env.UPLOAD_DIR = `${dataDir}/uploads`;
 process.env.APP_URL = `http://127.0.0.1:${port}`;
 process.env.DEMO_MODE = "true";
+process.env.MAILBOX_FILE = `${dataDir}/mailbox.jsonl`;
+const smtpPort = Number(port) + 1000;
+process.env.SMTP_URL = `smtp://127.0.0.1:${smtpPort}`;
 
 const { openDatabase } = await import("@/db/client");
 const { migrateDatabase } = await import("@/db/migrate");
@@ -22,6 +25,9 @@ const { db, client } = openDatabase(process.env.DATABASE_URL);
 await migrateDatabase(db, client);
 await seedDemo(db);
 client.close();
+
+const { startFakeSmtpServer } = await import("@/lib/email/fake-smtp-server");
+await startFakeSmtpServer({ port: smtpPort, mailboxFile: process.env.MAILBOX_FILE });
 
 if (!existsSync(".next/BUILD_ID")) {
   console.error("No production build found: run `npx next build` first (npm test does).");

@@ -39,6 +39,8 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("recipe_version.created", "recipe_version"),
   event("recipe_version.effective", "recipe_version"),
   event("recipe_version.superseded", "recipe_version"),
+  event("signature.applied", "signature"),
+  event("email.test_sent", "email"),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

@@ -10,6 +10,8 @@ import { createUser } from "@/lib/server/users/create-user";
 import { resetPassword } from "@/lib/server/users/reset-password";
 import { setUserActive } from "@/lib/server/users/set-user-active";
 import { updateUser } from "@/lib/server/users/update-user";
+import { sendTestEmail } from "@/lib/server/email/send-test-email";
+import { deliverSoon } from "@/lib/email/deliver";
 
 export type TemporaryPasswordState = (FormState & { temporaryPassword?: string; email?: string }) | null;
 
@@ -77,6 +79,23 @@ export async function resetPasswordAction(_prev: FormState, formData: FormData):
   try {
     const { temporaryPassword } = await resetPassword({ id: auth.user.id, name: auth.user.name }, parsed.data);
     return { ok: true, message: "Password reset; the user must choose a new one at sign-in.", temporaryPassword };
+  } catch (error) {
+    return toActionFailure(error);
+  }
+}
+
+const testEmailSchema = z.object({ to: z.string().trim().toLowerCase().email("Enter a valid e-mail address.") });
+
+export async function sendTestEmailAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const auth = await authorize("users.manage");
+  if (!auth.ok) return auth;
+  const parsed = testEmailSchema.safeParse({ to: formData.get("to") });
+  if (!parsed.success) return invalid(parsed.error);
+  try {
+    await sendTestEmail({ id: auth.user.id, name: auth.user.name }, parsed.data);
+    deliverSoon();
+    revalidatePath("/admin/email");
+    return { ok: true, message: `Queued a test message to ${parsed.data.to}.` };
   } catch (error) {
     return toActionFailure(error);
   }

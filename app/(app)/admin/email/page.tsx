@@ -1,0 +1,98 @@
+import type { Metadata } from "next";
+import { ActionForm } from "@/components/ui/action-form";
+import { Field } from "@/components/ui/field";
+import { PageHeader } from "@/components/ui/page-header";
+import { SubmitButton } from "@/components/ui/submit-button";
+import { readMailbox } from "@/lib/email/mailbox";
+import { env } from "@/lib/env";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { listOutbox } from "@/lib/server/email/queries";
+import { sendTestEmailAction } from "../actions";
+
+export const metadata: Metadata = { title: "Admin · E-mail" };
+
+const STATUS_WORDS = { pending: "Queued", sent: "Sent", failed: "Failed — gave up" } as const;
+
+export default async function EmailAdminPage() {
+  const user = await requirePageUser("users.manage");
+  const outbox = await listOutbox();
+  const demo = env().DEMO_MODE;
+  const mailbox = demo ? readMailbox() : [];
+  return (
+    <>
+      <PageHeader
+        title="E-mail"
+        description="Notifications are queued with the step that causes them and sent after it is saved; failed sends are retried with growing delays, then shown here as failed."
+      />
+      <section aria-labelledby="test-mail" className="mb-8 max-w-md">
+        <h2 id="test-mail" className="mb-2 font-semibold">Send a test message</h2>
+        <ActionForm action={sendTestEmailAction} className="flex items-end gap-2" aria-label="Send a test message">
+          <Field name="to" label="To" type="email" defaultValue={user.email} className="flex-1" />
+          <SubmitButton variant="secondary">Send</SubmitButton>
+        </ActionForm>
+      </section>
+
+      <section aria-labelledby="outbox" className="mb-10">
+        <h2 id="outbox" className="mb-2 font-semibold">Outbox</h2>
+        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
+          <table className="w-full text-sm">
+            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
+              <tr>
+                <th className="px-3 py-2 font-medium">Queued (UTC)</th>
+                <th className="px-3 py-2 font-medium">To</th>
+                <th className="px-3 py-2 font-medium">Subject</th>
+                <th className="px-3 py-2 font-medium">Status</th>
+                <th className="px-3 py-2 text-right font-medium">Attempts</th>
+                <th className="px-3 py-2 font-medium">Last error</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-stone-100">
+              {outbox.length === 0 && (
+                <tr>
+                  <td colSpan={6} className="px-3 py-4 text-center text-stone-600">
+                    No e-mail has been queued yet.
+                  </td>
+                </tr>
+              )}
+              {outbox.map((m) => (
+                <tr key={m.id}>
+                  <td className="px-3 py-2 tabular-nums">{m.createdAt.replace("T", " ").slice(0, 19)}</td>
+                  <td className="px-3 py-2">{m.to}</td>
+                  <td className="px-3 py-2">{m.subject}</td>
+                  <td className={`px-3 py-2 ${m.status === "failed" ? "font-medium text-red-800" : ""}`}>{STATUS_WORDS[m.status]}</td>
+                  <td className="px-3 py-2 text-right tabular-nums">{m.attempts}</td>
+                  <td className="px-3 py-2 text-xs text-stone-600">{m.lastError ?? "—"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </section>
+
+      {demo && (
+        <section aria-labelledby="mailbox">
+          <h2 id="mailbox" className="mb-1 font-semibold">Demo mailbox</h2>
+          <p className="mb-3 text-sm text-stone-600">
+            In demo mode e-mail goes to a capturing server on this machine instead of real inboxes. Everything it received:
+          </p>
+          {mailbox.length === 0 ? (
+            <p className="text-sm text-stone-600">The demo mailbox is empty.</p>
+          ) : (
+            <ul className="space-y-3">
+              {mailbox.map((m) => (
+                <li key={m.id}>
+                  <details className="rounded-lg border border-stone-200 bg-white p-3">
+                    <summary className="cursor-pointer text-sm">
+                      <span className="font-medium">{m.subject}</span> <span className="text-stone-600">to {m.to.join(", ")} · {m.receivedAt.replace("T", " ").slice(0, 19)} UTC</span>
+                    </summary>
+                    <pre className="mt-2 font-sans text-sm whitespace-pre-wrap text-stone-800">{m.text}</pre>
+                  </details>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+      )}
+    </>
+  );
+}
