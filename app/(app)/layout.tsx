@@ -1,6 +1,7 @@
 import type { ReactNode } from "react";
 import Link from "next/link";
 import { Logo } from "@/components/brand/logo";
+import { Providers } from "@/components/providers";
 import { AppNav } from "@/components/shell/app-nav";
 import { NAV_ITEMS } from "@/components/shell/nav-items";
 import { UserMenu } from "@/components/shell/user-menu";
@@ -29,7 +30,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
           </aside>
         )}
         <main id="main" className="min-w-0 flex-1">
-          {children}
+          <Providers>{children}</Providers>
         </main>
       </div>
     </div>

@@ -1,19 +1,18 @@
 import type { Metadata } from "next";
-import { EmptyState } from "@/components/ui/empty-state";
+import { QueueList } from "@/components/queue/queue-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getQueue } from "@/lib/server/queue/get-queue";
 
 export const metadata: Metadata = { title: "My queue" };
 
 export default async function QueuePage() {
   const user = await requirePageUser("queue.view");
+  const initial = await getQueue(user);
   return (
     <>
       <PageHeader title="My queue" description={`What is waiting for you, ${user.name.split(" ")[0]}.`} />
-      <EmptyState title="Nothing is waiting for you">
-        Reviews and approvals assigned to you, drafts sent back to you, tests to perform or verify, and bath
-        maintenance that falls due will be listed here as they arise.
-      </EmptyState>
+      <QueueList initial={initial} />
     </>
   );
 }

@@ -1,0 +1,73 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { AlarmClock, CalendarClock } from "lucide-react";
+import Link from "next/link";
+import type { QueueEntry } from "@/lib/server/queue/get-queue";
+import { EmptyState } from "@/components/ui/empty-state";
+
+async function fetchQueue(): Promise<QueueEntry[]> {
+  const response = await fetch("/api/queue", { cache: "no-store" });
+  if (!response.ok) throw new Error((await response.json().catch(() => null))?.error ?? "The queue could not be loaded.");
+  return (await response.json()).items;
+}
+
+/** Fetched in the client and refreshed every 30 s and whenever the tab regains focus. */
+export function QueueList({ initial }: { initial: QueueEntry[] }) {
+  const { data, error, isFetching } = useQuery({
+    queryKey: ["queue"],
+    queryFn: fetchQueue,
+    initialData: initial,
+    refetchInterval: 30_000,
+    refetchOnWindowFocus: true,
+  });
+  if (error) return <p role="alert" className="text-sm text-red-800">{error.message}</p>;
+  if (data.length === 0) {
+    return (
+      <EmptyState title="Nothing is waiting for you">
+        Reviews and approvals assigned to you, drafts sent back to you, tests to perform or verify, and bath
+        maintenance that falls due appear here as they arise.
+      </EmptyState>
+    );
+  }
+  return (
+    <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white" aria-busy={isFetching}>
+      <table className="w-full text-sm">
+        <caption className="sr-only">Waiting for you</caption>
+        <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
+          <tr>
+            <th className="px-3 py-2 font-medium">What</th>
+            <th className="px-3 py-2 font-medium">Item</th>
+            <th className="px-3 py-2 font-medium">Due</th>
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-stone-100">
+          {data.map((item) => (
+            <tr key={item.id}>
+              <td className="px-3 py-2 font-medium whitespace-nowrap">{item.kind}</td>
+              <td className="px-3 py-2">
+                <Link href={item.href} className="font-medium text-brand-800 hover:underline">
+                  {item.title}
+                </Link>
+                <span className="block text-xs text-stone-600">{item.detail}</span>
+              </td>
+              <td className="px-3 py-2 whitespace-nowrap">
+                {item.due === null ? (
+                  "—"
+                ) : item.overdue ? (
+                  <span className="inline-flex items-center gap-1 font-medium text-red-800">
+                    <AlarmClock className="h-4 w-4" aria-hidden="true" /> Overdue since {item.due.slice(0, 10)}
+                  </span>
+                ) : (
+                  <span className="inline-flex items-center gap-1">
+                    <CalendarClock className="h-4 w-4" aria-hidden="true" /> {item.due.slice(0, 10)}
+                  </span>
+                )}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
