@@ -20,13 +20,16 @@ Font.register({
 Font.registerHyphenationCallback((word) => [word]);
 
 const s = StyleSheet.create({
-  page: { fontFamily: "Geist", fontSize: 9.5, paddingTop: 78, paddingBottom: 56, paddingHorizontal: 48, color: "#1c1917", lineHeight: 1.35 },
+  page: { fontFamily: "Geist", fontSize: 9.5, paddingTop: 78, paddingBottom: 56, paddingHorizontal: 48, color: "#1c1917" },
+  // Line height on the body only: set on the page, it stops react-pdf drawing the rendered page number.
+  body: { lineHeight: 1.35 },
   header: { position: "absolute", top: 24, left: 48, right: 48, borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 6 },
   headerRow: { flexDirection: "row", justifyContent: "space-between" },
   number: { fontSize: 11, fontWeight: "bold", color: "#12524d" },
   small: { fontSize: 8, color: "#57534e" },
   uncontrolled: { fontSize: 9, fontWeight: "bold", color: "#1c1917", borderWidth: 1, borderColor: "#1c1917", paddingHorizontal: 4, paddingVertical: 1 },
-  footer: { position: "absolute", bottom: 22, left: 48, right: 48, flexDirection: "row", justifyContent: "space-between", fontSize: 7.5, color: "#57534e", borderTopWidth: 0.5, borderTopColor: "#a8a29e", paddingTop: 4 },
+  footerLeft: { position: "absolute", bottom: 24, left: 48, right: 160, fontSize: 7.5, color: "#57534e" },
+  footerRight: { position: "absolute", bottom: 24, right: 48, fontSize: 7.5, color: "#57534e" },
   h1: { fontSize: 15, fontWeight: "bold", marginTop: 4, marginBottom: 6 },
   h2: { fontSize: 12, fontWeight: "bold", marginTop: 10, marginBottom: 4, color: "#12524d" },
   h3: { fontSize: 10.5, fontWeight: "bold", marginTop: 8, marginBottom: 3 },
@@ -174,7 +177,7 @@ function DocumentPdf(d: DocumentPdfInput) {
           </Text>
         </View>
 
-        {(d.content.content ?? []).map((n, i) => block(n, i))}
+        <View style={s.body}>{(d.content.content ?? []).map((n, i) => block(n, i))}</View>
 
         <View wrap={false}>
           <Text style={s.sigTitle}>Electronic signatures</Text>
@@ -205,13 +208,11 @@ function DocumentPdf(d: DocumentPdfInput) {
           </Text>
         </View>
 
-        <View style={s.footer} fixed>
-          <Text>
-            {d.number} v{d.version} · {d.contentHash ? `SHA-256 ${d.contentHash.slice(0, 16)}…` : "draft"}
-            {controlled ? "" : " · Uncontrolled copy"}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <Text style={s.footerLeft} fixed>
+          {d.number} v{d.version} · {d.contentHash ? `SHA-256 ${d.contentHash.slice(0, 16)}…` : "draft"}
+          {controlled ? "" : " · Uncontrolled copy"}
+        </Text>
+        <Text style={s.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
       </Page>
     </Document>
   );

@@ -61,6 +61,7 @@ export async function submitAction(_prev: FormState, formData: FormData): Promis
   const parsed = submitSchema.safeParse({
     versionId: formData.get("versionId"),
     lockVersion: formData.get("lockVersion"),
+    contentHash: formData.get("contentHash"),
     reviewerIds: formData.getAll("reviewerIds"),
     approverId: formData.get("approverId") ?? undefined,
     routing: formData.get("routing") ?? undefined,
