@@ -43,7 +43,7 @@ async function signInDialog(page: Page, button: string, password: string) {
 }
 
 test("a PQ protocol goes from template to effective with e-mailed, signed steps and a signed PDF", async ({ page, browser }) => {
-  test.setTimeout(120_000);
+  test.setTimeout(240_000);
   await signInAs(page, "engineer");
   const editor = await createFromTemplate(page, "PQ of the valve-body recipe on AW-3");
   await expect(editor).toContainText("n = 29 parts");
@@ -118,7 +118,7 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
 });
 
 test("a stale save is refused with the text kept, an oversized draft is refused, and a draft prints as uncontrolled", async ({ page, browser }) => {
-  test.setTimeout(120_000);
+  test.setTimeout(240_000);
   await signInAs(page, "engineer");
   const editor = await createFromTemplate(page, "PQ for the concurrency check");
   const editUrl = page.url();
