@@ -41,6 +41,8 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("recipe_version.superseded", "recipe_version"),
   event("signature.applied", "signature"),
   event("email.test_sent", "email"),
+  event("audit.exported", "audit_trail"),
+  event("audit.verified", "audit_trail"),
   // Controlled documents
   event("document.created", "document"),
   event("document.edited", "document_version"),
