@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, type SelectHTMLAttributes } from "react";
-import { useFormResult } from "./action-form";
+import { FieldFrame, useFieldErrors } from "./field";
 
 export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement> {
   name: string;
@@ -12,15 +12,11 @@ export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement
 }
 
 /** A labelled select whose server-side error appears beside it, like Field. */
-export function SelectField({ name, label, options, placeholder, className = "", ...select }: SelectFieldProps) {
+export function SelectField({ name, label, options, placeholder, className, ...select }: SelectFieldProps) {
   const id = useId();
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errors = useFieldErrors(name);
   return (
-    <div className={`space-y-1 ${className}`}>
-      <label htmlFor={id} className="block text-sm font-medium text-stone-800">
-        {label}
-      </label>
+    <FieldFrame id={id} label={label} errors={errors} className={className}>
       <select
         id={id}
         name={name}
@@ -36,11 +32,6 @@ export function SelectField({ name, label, options, placeholder, className = "",
           </option>
         ))}
       </select>
-      {errors && (
-        <p id={`${id}-error`} className="text-sm text-red-800">
-          {errors.join(" ")}
-        </p>
-      )}
-    </div>
+    </FieldFrame>
   );
 }

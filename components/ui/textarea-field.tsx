@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, type TextareaHTMLAttributes } from "react";
-import { useFormResult } from "./action-form";
+import { FieldFrame, useFieldErrors } from "./field";
 
 export interface TextareaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaElement> {
   name: string;
@@ -9,15 +9,11 @@ export interface TextareaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaE
 }
 
 /** A labelled multi-line input whose server-side error appears beside it, like Field. */
-export function TextareaField({ name, label, className = "", rows = 3, ...textarea }: TextareaFieldProps) {
+export function TextareaField({ name, label, className, rows = 3, ...textarea }: TextareaFieldProps) {
   const id = useId();
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errors = useFieldErrors(name);
   return (
-    <div className={`space-y-1 ${className}`}>
-      <label htmlFor={id} className="block text-sm font-medium text-stone-800">
-        {label}
-      </label>
+    <FieldFrame id={id} label={label} errors={errors} className={className}>
       <textarea
         id={id}
         name={name}
@@ -27,11 +23,6 @@ export function TextareaField({ name, label, className = "", rows = 3, ...textar
         className="block w-full rounded-md border border-stone-300 bg-white px-3 py-2 text-sm shadow-xs aria-invalid:border-red-700"
         {...textarea}
       />
-      {errors && (
-        <p id={`${id}-error`} className="text-sm text-red-800">
-          {errors.join(" ")}
-        </p>
-      )}
-    </div>
+    </FieldFrame>
   );
 }

@@ -106,3 +106,11 @@ export async function listLinkOptions() {
     .orderBy(asc(recipes.code), desc(recipeVersions.version));
   return { systems, families, recipes: recipeRows };
 }
+
+/** A document and the version a page asked for (?version=N), the latest when none; null when either is missing. */
+export async function getDocumentAndVersion(documentId: string, versionParam: string | undefined) {
+  const document = await getDocument(documentId);
+  if (!document) return null;
+  const version = await getVersion(documentId, Number(versionParam) || document.versions[0].version);
+  return version ? { document, version } : null;
+}

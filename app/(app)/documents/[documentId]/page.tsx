@@ -16,7 +16,7 @@ import { can } from "@/lib/auth/permissions";
 import { checkTransition, TYPE_LABELS } from "@/lib/documents/lifecycle";
 import { renderRichHtml } from "@/lib/documents/render-html";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { getDocument, getVersion, listSigners } from "@/lib/server/documents/queries";
+import { getDocumentAndVersion, listSigners } from "@/lib/server/documents/queries";
 import { hashContent } from "@/lib/server/documents/shared";
 import { approveAction, newVersionAction, rejectAction, retireAction, sendBackAction, signReviewAction, submitAction } from "../actions";
 
@@ -36,11 +36,9 @@ function Panel({ title, children }: { title: string; children: React.ReactNode }
 export default async function DocumentPage({ params, searchParams }: { params: Promise<{ documentId: string }>; searchParams: Promise<{ version?: string }> }) {
   const user = await requirePageUser("documents.view");
   const { documentId } = await params;
-  const document = await getDocument(documentId);
-  if (!document) notFound();
-  const wanted = Number((await searchParams).version) || document.versions[0].version;
-  const version = await getVersion(documentId, wanted);
-  if (!version) notFound();
+  const found = await getDocumentAndVersion(documentId, (await searchParams).version);
+  if (!found) notFound();
+  const { document, version } = found;
 
   const now = new Date().toISOString();
   const label = `${document.number} version ${version.version}`;

@@ -6,18 +6,16 @@ import { StatusBadge } from "@/components/documents/status-badge";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { getDocument, getVersion } from "@/lib/server/documents/queries";
+import { getDocumentAndVersion } from "@/lib/server/documents/queries";
 
 export const metadata: Metadata = { title: "Edit draft" };
 
 export default async function EditDocumentPage({ params, searchParams }: { params: Promise<{ documentId: string }>; searchParams: Promise<{ version?: string }> }) {
   await requirePageUser("document.draft");
   const { documentId } = await params;
-  const document = await getDocument(documentId);
-  if (!document) notFound();
-  const wanted = Number((await searchParams).version) || document.versions[0].version;
-  const version = await getVersion(documentId, wanted);
-  if (!version) notFound();
+  const found = await getDocumentAndVersion(documentId, (await searchParams).version);
+  if (!found) notFound();
+  const { document, version } = found;
   const back = `/documents/${documentId}?version=${version.version}`;
   return (
     <>
