@@ -43,6 +43,20 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("email.test_sent", "email"),
   event("audit.exported", "audit_trail"),
   event("audit.verified", "audit_trail"),
+  // Controlled documents
+  event("document.created", "document"),
+  event("document.edited", "document_version"),
+  event("document.submitted", "document_version"),
+  event("document.reviewed", "document_version"),
+  event("document.sent_back", "document_version"),
+  event("document.approved", "document_version"),
+  event("document.rejected", "document_version"),
+  event("document.effective", "document_version"),
+  event("document.superseded", "document_version"),
+  event("document.retired", "document_version"),
+  event("document.version_started", "document_version"),
+  event("document.review_overdue", "document_review"),
+  event("document.exported", "document_version"),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;
