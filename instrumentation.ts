@@ -1,4 +1,4 @@
-/** Runs once when the server starts: a timer retries queued e-mail (the outbox). */
+/** Runs once when the server starts: timers retry queued e-mail (the outbox) and queue bath-maintenance reminders. */
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { deliverDueEmails } = await import("@/lib/email/deliver");
@@ -6,4 +6,11 @@ export async function register() {
     deliverDueEmails().catch((error) => console.error("e-mail delivery failed", error));
   }, 30_000);
   timer.unref();
+  const { sendMaintenanceReminders } = await import("@/lib/server/bath/send-maintenance-reminders");
+  const remind = () =>
+    sendMaintenanceReminders()
+      .then(({ queued }) => (queued > 0 ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("maintenance reminders failed", error));
+  setTimeout(remind, 5_000).unref();
+  setInterval(remind, 15 * 60_000).unref();
 }
