@@ -16,6 +16,7 @@ import {
   userRoles,
   users,
 } from "./schema";
+import { seedEvidence } from "./seed-evidence";
 import { DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
 
 /**
@@ -123,6 +124,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
         previous = { id: version.id, version: i + 1 };
       }
     }
+    await seedEvidence(tx);
   });
   return { seeded: true };
 }
