@@ -1,7 +1,7 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { rowPaginationFeature, rowSortingFeature, tableFeatures, useTable, type ColumnDef, type PaginationState, type SortingState } from "@tanstack/react-table";
+import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type PaginationState, type SortingState } from "@tanstack/react-table";
 import { ArrowDown, ArrowUp, ArrowUpDown } from "lucide-react";
 import Link from "next/link";
 import { useState } from "react";
@@ -11,9 +11,7 @@ import type { EvidenceListPage, EvidenceListRow } from "@/lib/schemas/evidence-l
 import { Button } from "@/components/ui/button";
 import { OutcomeWord, RunStatusWord } from "./status-word";
 
-const features = tableFeatures({ rowSortingFeature, rowPaginationFeature });
-
-const columns: ColumnDef<typeof features, EvidenceListRow>[] = [
+const columns: ColumnDef<EvidenceListRow>[] = [
   {
     id: "number",
     header: "Run",
@@ -62,9 +60,9 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
     pageSize: String(pagination.pageSize),
   });
   const { data, error, isFetching } = useQuery({ queryKey: ["evidence", params.toString()], queryFn: () => fetchPage(params), placeholderData: (prev) => prev });
-  const table = useTable({
-    features,
+  const table = useReactTable({
     columns,
+    getCoreRowModel: getCoreRowModel(),
     data: data?.rows ?? [],
     state: { sorting, pagination },
     onSortingChange: setSorting,
@@ -169,9 +167,9 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
           <tbody className="divide-y divide-stone-100">
             {table.getRowModel().rows.map((row) => (
               <tr key={row.id}>
-                {row.getAllCells().map((cell) => (
+                {row.getVisibleCells().map((cell) => (
                   <td key={cell.id} className="px-3 py-2 whitespace-nowrap">
-                    <table.FlexRender cell={cell} />
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}
               </tr>

@@ -41,6 +41,8 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("recipe_version.superseded", "recipe_version"),
   event("signature.applied", "signature"),
   event("email.test_sent", "email"),
+  event("audit.exported", "audit_trail"),
+  event("audit.verified", "audit_trail"),
   // Evidence: test runs, their raw data and files, and the bath and filter log
   event("test_run.created", "test_run"),
   event("test_run.result_added", "test_run"),
