@@ -28,7 +28,6 @@ export function detectType(bytes: Uint8Array): AcceptedType | null {
   } catch {
     return null;
   }
-  // eslint-disable-next-line no-control-regex
   return /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/.test(text) ? null : "csv";
 }
 
@@ -52,7 +51,6 @@ export function sanitizeFileName(raw: string): string {
   if (/[/\\]/.test(name) || name.includes("..")) {
     throw new FileCheckError(`The file name "${raw.slice(0, 80)}" contains a folder path ("/", "\\" or ".."). Rename the file and upload it again.`);
   }
-  // eslint-disable-next-line no-control-regex
   if (/[\u0000-\u001f\u007f]/.test(name)) throw new FileCheckError("The file name contains control characters. Rename the file and upload it again.");
   if (name.startsWith(".")) throw new FileCheckError(`The file name "${raw.slice(0, 80)}" starts with a dot. Rename the file and upload it again.`);
   const cleaned = name.replace(/[^\p{L}\p{N} ._()+-]/gu, "_").replace(/\s+/g, " ");
