@@ -88,12 +88,13 @@ function rowToSample(row: Record<string, string>, m: ColumnMapping): unknown {
  */
 export function parseParticleCsv(
   input: Readable | string,
-  opts: { mapping?: ColumnMapping; maxErrors?: number; maxRows?: number; collect?: boolean } = {},
+  opts: { mapping?: ColumnMapping; maxErrors?: number; maxRows?: number; collect?: boolean; onRow?: (rowCount: number) => void } = {},
 ): Promise<CsvImportResult> {
   const maxErrors = opts.maxErrors ?? 50;
   const collect = opts.collect ?? true;
   const result: CsvImportResult = { headers: [], rows: [], rowCount: 0, errors: [], fileErrors: [], errorCount: 0 };
   let mapping: ColumnMapping | null = null;
+  let sawText = false;
   const seen = new Set<string>();
   const fail = (line: number, message: string) => {
     result.errorCount += 1;
@@ -105,6 +106,9 @@ export function parseParticleCsv(
       header: true,
       skipEmptyLines: "greedy",
       transformHeader: (h: string) => h.trim(),
+      beforeFirstChunk(chunk) {
+        sawText = chunk.trim() !== "";
+      },
       step(step, parser) {
         if (mapping === null) {
           result.headers = step.meta.fields ?? [];
@@ -116,6 +120,7 @@ export function parseParticleCsv(
           }
         }
         result.rowCount += 1;
+        opts.onRow?.(result.rowCount);
         const line = result.rowCount + 1;
         if (opts.maxRows && result.rowCount > opts.maxRows) {
           result.fileErrors.push(`The file has more than ${opts.maxRows} rows; split it.`);
@@ -139,7 +144,7 @@ export function parseParticleCsv(
         if (collect && result.errorCount === 0) result.rows.push(parsed.data);
       },
       complete() {
-        if (mapping === null && result.fileErrors.length === 0) result.fileErrors.push("The file is empty: it has no header row and no data.");
+        if (mapping === null && result.fileErrors.length === 0) result.fileErrors.push(sawText ? "The file has a header row but no data rows." : "The file is empty: it has no header row and no data.");
         else if (result.rowCount === 0 && result.fileErrors.length === 0) result.fileErrors.push("The file has a header row but no data rows.");
         if (result.errorCount > 0 || result.fileErrors.length > 0) result.rows = [];
         resolve(result);
