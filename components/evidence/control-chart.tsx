@@ -9,12 +9,15 @@ export interface ControlChartProps {
   centre: number;
   ucl: number;
   lcl: number;
+  movingRangeLimit: number;
+  /** Pairs of dates whose moving range is above its limit. */
+  movingRangeSignals: string[];
 }
 
 const fmt = (n: number) => new Intl.NumberFormat("en-GB", { maximumFractionDigits: 2 }).format(n);
 
 /** Individuals chart: each value with the centre line and 3σ limits; out-of-control points drawn as crosses and listed in words. */
-export function ControlChart({ title, unit, points, centre, ucl, lcl }: ControlChartProps) {
+export function ControlChart({ title, unit, points, centre, ucl, lcl, movingRangeLimit, movingRangeSignals }: ControlChartProps) {
   const data = points.map((p) => ({ ...p, date: p.at.slice(0, 10), flagged: p.outOfControl ? p.value : null }));
   const flagged = points.filter((p) => p.outOfControl);
   return (
@@ -45,7 +48,9 @@ export function ControlChart({ title, unit, points, centre, ucl, lcl }: ControlC
           <span>
             <strong>Out of control:</strong> {flagged.map((p) => `${p.at.slice(0, 10)} (${fmt(p.value)} ${unit}, ${p.outOfControl})`).join("; ")}.
           </span>
-        )}
+        )}{" "}
+        Moving range limit {fmt(movingRangeLimit)} {unit}
+        {movingRangeSignals.length ? `; exceeded between ${movingRangeSignals.join(", ")}.` : "; not exceeded."}
       </figcaption>
     </figure>
   );
