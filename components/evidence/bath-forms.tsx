@@ -12,7 +12,7 @@ type Action = (prev: FormState, formData: FormData) => Promise<FormState>;
 
 export function BathRecordForm({ action, stageId }: { action: Action; stageId: string }) {
   return (
-    <ActionForm action={action} className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3" aria-label="Record in the bath log">
+    <ActionForm action={action} resetOnSuccess className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3" aria-label="Record in the bath log">
       <input type="hidden" name="stageId" value={stageId} />
       <SelectField name="kind" label="What was done" defaultValue="reading" options={BATH_RECORD_KINDS.map((k) => ({ value: k, label: MAINTENANCE_LABELS[k] }))} />
       <Field name="performedAt" label="When (UTC)" type="datetime-local" defaultValue={new Date().toISOString().slice(0, 16)} />

@@ -117,7 +117,7 @@ const QUESTIONS = { visual: "Free of stains and visible residue?", uv_inspection
 /** The entry form for one sample, with the fields of the run's test type; units are in every label. */
 export function SampleForm({ action, runId, testType }: { action: Action; runId: string; testType: TestType }) {
   return (
-    <ActionForm action={action} className="space-y-4 rounded-lg border border-stone-200 bg-white p-4" aria-label="Add a sample">
+    <ActionForm action={action} resetOnSuccess className="space-y-4 rounded-lg border border-stone-200 bg-white p-4" aria-label="Add a sample">
       <input type="hidden" name="runId" value={runId} />
       <SampleIdentity />
       {testType === "particle_cleanliness" && <ParticleFields />}

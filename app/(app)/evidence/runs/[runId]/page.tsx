@@ -78,7 +78,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
                 ))}
               </ul>
             )}
-            {mayRecord && <SampleForm key={results.length} action={addSampleAction} runId={run.id} testType={run.testType} />}
+            {mayRecord && <SampleForm action={addSampleAction} runId={run.id} testType={run.testType} />}
             {mayRecord && run.testType === "particle_cleanliness" && (
               <>
                 <h3 className="pt-2 text-sm font-semibold">Extraction (declining test) and blank value</h3>
