@@ -3,7 +3,7 @@ import { DEMO_PASSWORD, expect, signInAs, test } from "./fixtures";
 const PDF = Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n");
 const PNG = Buffer.from("89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f6fd3c0000000049454e44ae426082", "hex");
 
-test.describe.configure({ mode: "serial" });
+test.describe.configure({ mode: "serial", timeout: 180_000 });
 
 let runUrl = "";
 let runNumber = "";
@@ -117,8 +117,10 @@ test("the evidence table filters on the server and the trend chart renders", asy
   await expect(table.getByText("Fail").first()).toBeVisible();
 
   await page.getByRole("link", { name: "Trends" }).click();
+  await page.getByRole("form", { name: "Choose part family and recipe version" }).getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
+  await page.getByRole("form", { name: "Choose part family and recipe version" }).getByRole("button", { name: "Show" }).click();
   const chart = page.getByRole("figure", { name: "Particle trend chart" });
-  await expect(chart.locator("svg.recharts-surface")).toBeVisible();
+  await expect(chart.locator(".recharts-line-curve")).toBeVisible();
   await expect(chart).toContainText("Dashed line: the specification limit");
   const control = page.getByRole("figure", { name: /Control chart: Detergent concentration/ });
   await expect(control).toContainText("Out of control:");
