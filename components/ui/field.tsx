@@ -12,8 +12,7 @@ export interface FieldProps extends InputHTMLAttributes<HTMLInputElement> {
 /** A labelled input whose server-side error appears right beside it. */
 export function Field({ name, label, hint, className = "", ...input }: FieldProps) {
   const id = useId();
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errors = useFieldErrors(name);
   const describedBy = [hint ? `${id}-hint` : null, errors ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;
   return (
     <div className={`space-y-1 ${className}`}>
@@ -28,6 +27,15 @@ export function Field({ name, label, hint, className = "", ...input }: FieldProp
         className="block w-full rounded-md border border-stone-300 bg-white px-3 py-2 text-sm shadow-xs aria-invalid:border-red-700 focus:border-brand-600"
         {...input}
       />
+      <FieldMessages id={id} hint={hint} errors={errors} />
+    </div>
+  );
+}
+
+/** The hint and the server's errors under a control, with the ids its aria-describedby names. */
+export function FieldMessages({ id, hint, errors }: { id: string; hint?: ReactNode; errors?: string[] }) {
+  return (
+    <>
       {hint && (
         <p id={`${id}-hint`} className="text-xs text-stone-600">
           {hint}
@@ -38,14 +46,19 @@ export function Field({ name, label, hint, className = "", ...input }: FieldProp
           {errors.join(" ")}
         </p>
       )}
-    </div>
+    </>
   );
+}
+
+/** The field's errors from the form's last result. */
+export function useFieldErrors(name: string) {
+  const { state } = useFormResult();
+  return state && !state.ok ? state.fieldErrors?.[name] : undefined;
 }
 
 /** A group error (for checkboxes and the like) shown under its fieldset. */
 export function FieldError({ name }: { name: string }) {
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errors = useFieldErrors(name);
   if (!errors) return null;
   return <p className="text-sm text-red-800">{errors.join(" ")}</p>;
 }

@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, type ReactNode, type SelectHTMLAttributes } from "react";
-import { useFormResult } from "./action-form";
+import { FieldMessages, useFieldErrors } from "./field";
 
 export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement> {
   name: string;
@@ -15,8 +15,7 @@ export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement
 /** A labelled select whose server-side error appears beside it, like Field. */
 export function SelectField({ name, label, hint, options, placeholder, className = "", ...select }: SelectFieldProps) {
   const id = useId();
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errors = useFieldErrors(name);
   return (
     <div className={`space-y-1 ${className}`}>
       <label htmlFor={id} className="block text-sm font-medium text-stone-800">
@@ -37,16 +36,7 @@ export function SelectField({ name, label, hint, options, placeholder, className
           </option>
         ))}
       </select>
-      {hint && (
-        <p id={`${id}-hint`} className="text-xs text-stone-600">
-          {hint}
-        </p>
-      )}
-      {errors && (
-        <p id={`${id}-error`} className="text-sm text-red-800">
-          {errors.join(" ")}
-        </p>
-      )}
+      <FieldMessages id={id} hint={hint} errors={errors} />
     </div>
   );
 }
