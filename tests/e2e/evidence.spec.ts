@@ -119,9 +119,11 @@ test("the evidence table filters on the server and the trend chart renders", asy
   await page.getByRole("link", { name: "Trends" }).click();
   await page.getByRole("form", { name: "Choose part family and recipe version" }).getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
   await page.getByRole("form", { name: "Choose part family and recipe version" }).getByRole("button", { name: "Show" }).click();
+  await expect(page).toHaveURL(/family=/);
   const chart = page.getByRole("figure", { name: "Particle trend chart" });
-  await expect(chart.locator(".recharts-line-curve")).toBeVisible();
-  await expect(chart).toContainText("Dashed line: the specification limit");
+  await expect(chart).toContainText(/\d+ run\(s\)\. Dashed line: the specification limit/, { timeout: 30_000 });
+  await expect(chart.locator("path.recharts-line-curve")).toHaveCount(1, { timeout: 30_000 });
+  await expect(chart.locator(".recharts-line-dot")).not.toHaveCount(0);
   const control = page.getByRole("figure", { name: /Control chart: Detergent concentration/ });
   await expect(control).toContainText("Out of control:");
 });
