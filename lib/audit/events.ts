@@ -57,6 +57,22 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("document.version_started", "document_version"),
   event("document.review_overdue", "document_review"),
   event("document.exported", "document_version"),
+  // Evidence: test runs, their raw data and files, and the bath and filter log
+  event("test_run.created", "test_run"),
+  event("test_run.result_added", "test_run"),
+  event("test_run.result_removed", "test_run"),
+  event("test_run.data_saved", "test_run"),
+  event("test_run.csv_imported", "test_run"),
+  event("test_run.performed", "test_run"),
+  event("test_run.verified", "test_run"),
+  event("test_run.revised", "test_run"),
+  event("test_run.superseded", "test_run"),
+  event("evidence_file.uploaded", "evidence_file"),
+  event("evidence_file.downloaded", "evidence_file"),
+  event("evidence_file.integrity_failed", "evidence_file"),
+  event("bath_record.created", "bath_record"),
+  event("maintenance_interval.set", "maintenance_interval"),
+  event("maintenance.reminder_queued", "maintenance_interval"),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;
