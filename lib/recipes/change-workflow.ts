@@ -1,4 +1,4 @@
-import type { CHANGE_STATUSES } from "@/db/enums";
+import { CHANGE_KINDS, type CHANGE_STATUSES } from "@/db/enums";
 import type { Action } from "@/lib/auth/permissions";
 
 export type ChangeStatus = (typeof CHANGE_STATUSES)[number];
@@ -54,7 +54,7 @@ export const STATUS_LABELS: Record<ChangeStatus, string> = {
   withdrawn: "Withdrawn",
 };
 
-export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval"] as const;
+export { CHANGE_KINDS };
 export type ChangeKind = (typeof CHANGE_KINDS)[number];
 export const CHANGE_KIND_LABELS: Record<ChangeKind, string> = {
   parameter_change: "Parameter change",
