@@ -444,8 +444,11 @@ export const changeRequestAssessments = sqliteTable("change_request_assessments"
   /** The part family a "new part family" change adds to the recipe. */
   partFamilyId: text("part_family_id").references(() => partFamilies.id),
   computedImpact: text("computed_impact", { enum: IMPACT_CLASSES }),
-  /** Why the engineer raised the class above the computed one (never lowered). */
+  /** The class the engineer raised it to, with the reason (never lowered below the computed one). */
+  raisedTo: text("raised_to", { enum: IMPACT_CLASSES }),
   raiseReason: text("raise_reason"),
+  /** Counts reopenings: signatures bind to "<change id>#<revision>", so those on an earlier revision stay with it. */
+  revision: integer("revision").notNull().default(1),
   matrixId: text("matrix_id").references(() => requalificationMatrices.id),
   /** SHA-256 of the assessed content, frozen at submission; signatures bind to it. */
   contentHash: text("content_hash"),

@@ -1,21 +1,7 @@
-import { PARAMETER_KINDS, STAGE_KINDS } from "@/db/enums";
+import type { STAGE_KINDS } from "@/db/enums";
 import { successRunSampleSize } from "@/lib/stats";
 import type { RecipeDiff } from "./diff";
-import type { TestType } from "./test-types";
-
-
-/**
- * What a requalification matrix row is keyed by: a parameter kind, a stage
- * (or its mode) of a kind added or removed, a new detergent, or a new part
- * family on the recipe.
- */
-export const MATRIX_SUBJECTS = [
-  ...PARAMETER_KINDS.map((k) => `parameter:${k}` as const),
-  ...STAGE_KINDS.map((k) => `stage:${k}` as const),
-  "detergent",
-  "part_family",
-] as const;
-export type MatrixSubject = (typeof MATRIX_SUBJECTS)[number];
+import type { MatrixSubject, TestType } from "./test-types";
 
 export interface MatrixRow {
   subject: MatrixSubject;
@@ -77,14 +63,7 @@ export function requiredTests(triggers: ImpactTrigger[], matrix: MatrixRow[]): R
       if (samples > current.samples) Object.assign(current, { samples, confidencePct: row.confidencePct, reliabilityPct: row.reliabilityPct });
     }
   }
-  return [...byTest.values()].sort((a, b) => a.testType.localeCompare(b.testType));
-}
-
-export function subjectLabel(subject: MatrixSubject): string {
-  if (subject === "detergent") return "New detergent";
-  if (subject === "part_family") return "New part family on the recipe";
-  const [group, kind] = subject.split(":");
-  return group === "stage" ? `Stage or mode added or removed: ${kind.replace(/_/g, " ")}` : `Parameter: ${kind.replace(/_/g, " ")}`;
+  return [...byTest.values()].sort((a, b) => (a.testType < b.testType ? -1 : 1));
 }
 
 const WASH: MatrixSubject[] = ["parameter:temperature", "parameter:time", "parameter:concentration", "parameter:ultrasonic_power", "parameter:ultrasonic_frequency", "parameter:spray_pressure", "parameter:flow", "stage:wash", "detergent"];

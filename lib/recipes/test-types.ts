@@ -1,4 +1,4 @@
-import type { TEST_TYPES } from "@/db/enums";
+import { PARAMETER_KINDS, STAGE_KINDS, type TEST_TYPES } from "@/db/enums";
 
 export type TestType = (typeof TEST_TYPES)[number];
 
@@ -11,3 +11,24 @@ export const TEST_TYPE_LABELS: Record<TestType, string> = {
   uv_inspection: "UV inspection (oil films)",
   dryness: "Dryness",
 };
+
+/**
+ * What a requalification matrix row is keyed by: a parameter kind, a stage
+ * (or its mode) of a kind added or removed, a new detergent, or a new part
+ * family on the recipe.
+ */
+export const MATRIX_SUBJECTS = [
+  ...PARAMETER_KINDS.map((k) => `parameter:${k}` as const),
+  ...STAGE_KINDS.map((k) => `stage:${k}` as const),
+  "detergent",
+  "part_family",
+] as const;
+export type MatrixSubject = (typeof MATRIX_SUBJECTS)[number];
+
+export function subjectLabel(subject: MatrixSubject): string {
+  if (subject === "detergent") return "New detergent";
+  if (subject === "part_family") return "New part family on the recipe";
+  const [group, kind] = subject.split(":");
+  return group === "stage" ? `Stage or mode added or removed: ${kind.replace(/_/g, " ")}` : `Parameter: ${kind.replace(/_/g, " ")}`;
+}
+
