@@ -18,9 +18,11 @@ import { gateRefusal } from "./verify-change";
 export async function closeChange(actor: AuditActor, input: { changeRequestId: string }, now = new Date()) {
   await getDb().transaction(async (tx) => {
     const state = await loadChangeState(tx, input.changeRequestId);
-    assertStep(state, "close");
+    // Asked to close during requalification, say what evidence is missing before saying "verify first".
+    if (state.cr.status !== "requalification") assertStep(state, "close");
     const { gate } = await loadGate(tx, state.cr.id);
     if (!gate.holds) throw gateRefusal(gate.missing);
+    assertStep(state, "close");
     const at = now.toISOString();
     const old = state.fromVersion;
     await tx.update(recipeVersions).set({ status: "superseded", effectiveTo: at }).where(and(eq(recipeVersions.id, old.id), eq(recipeVersions.status, "effective")));

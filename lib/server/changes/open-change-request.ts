@@ -5,7 +5,8 @@ import { changeRequestAssessments, changeRequests, documents, documentVersions, 
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { OPEN_STATUSES, type ChangeKind } from "@/lib/recipes/change-workflow";
 import { UserFacingError } from "@/lib/server/errors";
-import { loadRecipeSnapshot, narrativeDocument, writeRecipeContent } from "./snapshot";
+import { narrativeDocument } from "@/lib/recipes/change-content";
+import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
 
 /**
  * Opens a change request against a recipe's effective version: the proposal

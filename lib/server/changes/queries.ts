@@ -16,7 +16,7 @@ import {
 } from "@/db/schema";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadGate, loadRecipeSnapshot } from "./snapshot";
-import { loadChangeState } from "./state";
+import { getEffectiveMatrix, loadChangeState } from "./state";
 
 export async function listChangeRequests() {
   return getDb()
@@ -79,6 +79,8 @@ export async function getRecipePage(recipeId: string) {
   return { ...row, versions, effective, content, intervals, changes };
 }
 
-export async function listMatrixVersions() {
-  return getDb().select().from(requalificationMatrices).orderBy(desc(requalificationMatrices.version));
+export async function getMatrixPage() {
+  const db = getDb();
+  const [matrix, versions] = await Promise.all([getEffectiveMatrix(db), db.select().from(requalificationMatrices).orderBy(desc(requalificationMatrices.version))]);
+  return { matrix, versions };
 }

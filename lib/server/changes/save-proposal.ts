@@ -6,7 +6,8 @@ import { appendAudit, type AuditActor } from "@/lib/audit";
 import { assess, raiseProblem } from "@/lib/recipes/assess";
 import type { Proposal } from "@/lib/schemas/change";
 import { UserFacingError } from "@/lib/server/errors";
-import { loadRecipeSnapshot, narrativeDocument, narrativeText, writeRecipeContent } from "./snapshot";
+import { narrativeDocument, narrativeText } from "@/lib/recipes/change-content";
+import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
 
 /**
  * Saves the engineer's proposal on a draft change request: the proposed recipe

@@ -1,13 +1,10 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
-import type { Executor, Tx } from "@/db/client";
+import type { Executor } from "@/db/client";
 import {
   changeRequestEvidence,
   changeRequestTests,
   documentVersions,
-  recipeParameters,
-  recipeStages,
-  recipeVersions,
   signatures,
   testResults,
   testRuns,
@@ -15,73 +12,15 @@ import {
   userRoles,
   type Role,
 } from "@/db/schema";
-import { canonicalJson, sha256Hex } from "@/lib/audit";
-import type { RecipeSnapshot } from "@/lib/recipes/diff";
 import { evaluateGate, type GateRun } from "@/lib/recipes/gate";
 import type { TestType } from "@/lib/recipes/test-types";
 
-/** A recipe version's stages and parameters as the diff compares them, in stage order. */
-export async function loadRecipeSnapshot(db: Executor, versionId: string): Promise<RecipeSnapshot> {
-  const [version] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, versionId));
-  const stages = await db.select().from(recipeStages).where(eq(recipeStages.versionId, versionId)).orderBy(asc(recipeStages.position));
-  const params = await db.select().from(recipeParameters).where(eq(recipeParameters.versionId, versionId));
-  return {
-    detergent: version?.detergent ?? null,
-    notes: version?.notes ?? null,
-    stages: stages.map((s) => ({
-      name: s.name,
-      kind: s.kind,
-      mode: s.mode,
-      parameters: params
-        .filter((p) => p.stageId === s.id)
-        .map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: p.setpoint, unit: p.unit, validatedLow: p.validatedLow, validatedHigh: p.validatedHigh, critical: p.critical })),
-    })),
-  };
-}
-
-/** Writes a recipe version's stages and parameters, replacing what a draft held before. */
-export async function writeRecipeContent(tx: Tx, versionId: string, content: RecipeSnapshot) {
-  await tx.delete(recipeParameters).where(eq(recipeParameters.versionId, versionId));
-  await tx.delete(recipeStages).where(eq(recipeStages.versionId, versionId));
-  await tx.update(recipeVersions).set({ detergent: content.detergent, notes: content.notes }).where(eq(recipeVersions.id, versionId));
-  for (const [i, s] of content.stages.entries()) {
-    const [stage] = await tx.insert(recipeStages).values({ versionId, position: i + 1, name: s.name, kind: s.kind as never, mode: s.mode as never }).returning();
-    if (s.parameters.length) await tx.insert(recipeParameters).values(s.parameters.map((p) => ({ ...p, versionId, stageId: stage.id })));
-  }
-}
-
-/** The narrative's text: paragraphs of a Tiptap-shaped document, joined by blank lines. */
-export function narrativeText(content: unknown): string {
-  const doc = content as { content?: { content?: { text?: string }[] }[] } | null;
-  return (doc?.content ?? []).map((block) => (block.content ?? []).map((n) => n.text ?? "").join("")).join("\n\n");
-}
-
-/** Plain text stored as a Tiptap-shaped document, so the rich-text editor can open it unchanged. */
-export function narrativeDocument(text: string) {
-  const paragraphs = text.split(/\n\s*\n/).map((p) => p.trim()).filter(Boolean);
-  return { type: "doc", content: paragraphs.map((p) => ({ type: "paragraph", content: [{ type: "text", text: p }] })) };
-}
+export { loadRecipeSnapshot, writeRecipeContent } from "@/db/recipe-content";
 
 export async function loadNarrative(db: Executor, documentId: string | null) {
   if (!documentId) return null;
   const [v] = await db.select().from(documentVersions).where(eq(documentVersions.documentId, documentId)).orderBy(asc(documentVersions.version));
   return v ?? null;
-}
-
-/** What the signatures on a change request bind to: the proposal, the narrative, and the assessment. */
-export function changeContentHash(input: {
-  number: string;
-  title: string;
-  kind: string;
-  partFamilyId: string | null;
-  fromVersionId: string | null;
-  proposal: RecipeSnapshot;
-  narrative: unknown;
-  impact: string | null;
-  raiseReason: string | null;
-  requirements: { testType: string; samples: number }[];
-}) {
-  return sha256Hex(canonicalJson(input as unknown as Record<string, unknown>));
 }
 
 /** The gate of one change request, read from the stored runs and their signatures. */

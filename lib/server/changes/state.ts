@@ -15,7 +15,8 @@ import { assess } from "@/lib/recipes/assess";
 import type { MatrixRow } from "@/lib/recipes/requalification";
 import type { MatrixSubject, TestType } from "@/lib/recipes/test-types";
 import { UserFacingError } from "@/lib/server/errors";
-import { changeContentHash, loadNarrative, loadRecipeSnapshot } from "./snapshot";
+import { changeContentHash } from "@/lib/recipes/change-content";
+import { loadNarrative, loadRecipeSnapshot } from "./snapshot";
 
 export async function getEffectiveMatrix(db: Executor) {
   const [matrix] = await db.select().from(requalificationMatrices).where(eq(requalificationMatrices.status, "effective")).orderBy(desc(requalificationMatrices.version)).limit(1);

@@ -1,12 +1,13 @@
 import "server-only";
 import type { SessionUser } from "@/lib/server/auth/sessions";
+import { changesQueue } from "@/lib/server/changes/queue";
 import type { QueueItem, QueueProvider } from "./types";
 
 /**
  * Features register their providers here (documents: reviews and approvals;
  * evidence: tests to perform or verify, bath maintenance; changes: steps to act on).
  */
-const PROVIDERS: QueueProvider[] = [];
+const PROVIDERS: QueueProvider[] = [changesQueue];
 
 export interface QueueEntry extends QueueItem {
   overdue: boolean;

@@ -13,7 +13,7 @@ import { CHANGE_KIND_LABELS, CHANGE_STEPS, STATUS_LABELS, stepProblem, type Chan
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getChangeRequestPage } from "@/lib/server/changes/queries";
-import { narrativeText } from "@/lib/server/changes/snapshot";
+import { narrativeText } from "@/lib/recipes/change-content";
 import {
   approveChangeAction,
   assessChangeAction,
@@ -73,7 +73,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           {may("verify") && (
             <SignatureDialog action={verifyChangeAction} meaning="verified" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Verify change" />
           )}
-          {may("close") && <StepButton action={closeChangeAction} changeRequestId={cr.id} label="Close and make effective" />}
+          {(may("close") || (cr.status === "requalification" && can(user.roles, "recipe.make_effective"))) && <StepButton action={closeChangeAction} changeRequestId={cr.id} label="Close and make effective" />}
           {may("reopen") && <ReasonStep action={reopenChangeAction} changeRequestId={cr.id} label="Reopen for editing" variant="secondary" />}
           {may("reject") && <ReasonStep action={rejectChangeAction} changeRequestId={cr.id} label="Reject" />}
           {may("withdraw") && <ReasonStep action={withdrawChangeAction} changeRequestId={cr.id} label="Withdraw" />}
