@@ -41,6 +41,8 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("recipe_version.superseded", "recipe_version"),
   event("signature.applied", "signature"),
   event("email.test_sent", "email"),
+  event("audit.exported", "audit_trail"),
+  event("audit.verified", "audit_trail"),
   // Change control
   event("change.opened", "change_request"),
   event("change.proposal_saved", "change_request"),

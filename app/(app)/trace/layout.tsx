@@ -1,0 +1,16 @@
+import type { ReactNode } from "react";
+import { SubNav } from "@/components/shell/sub-nav";
+import { can } from "@/lib/auth/permissions";
+import { getCurrentUser } from "@/lib/server/auth/current-user";
+
+export default async function TraceLayout({ children }: { children: ReactNode }) {
+  const user = await getCurrentUser();
+  const items = [{ href: "/trace", label: "Parameter history" }];
+  if (user && can(user.roles, "audit.view")) items.push({ href: "/trace/audit", label: "Audit trail" });
+  return (
+    <>
+      {items.length > 1 && <SubNav label="Trace" items={items} />}
+      {children}
+    </>
+  );
+}

@@ -1,0 +1,196 @@
+"use client";
+
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { Download } from "lucide-react";
+import { useState, type FormEvent } from "react";
+import { Button } from "@/components/ui/button";
+import type { AuditPage } from "@/lib/server/audit/query-audit-events";
+
+type Row = AuditPage["items"][number];
+type Filters = Record<"actor" | "recordType" | "recordId" | "action" | "from" | "to", string>;
+const EMPTY: Filters = { actor: "", recordType: "", recordId: "", action: "", from: "", to: "" };
+
+function queryString(filters: Filters, before?: number) {
+  const params = new URLSearchParams(Object.entries(filters).filter(([, v]) => v !== ""));
+  if (before) params.set("before", String(before));
+  return params.toString();
+}
+
+async function fetchPage(qs: string): Promise<AuditPage> {
+  const response = await fetch(`/api/audit-events?${qs}`, { cache: "no-store" });
+  const body = await response.json();
+  if (!response.ok) {
+    const details = body.fieldErrors ? Object.values(body.fieldErrors as Record<string, string[]>).flat().join(" ") : "";
+    throw new Error(`${body.error ?? "The audit trail could not be loaded."} ${details}`.trim());
+  }
+  return body;
+}
+
+const column = createColumnHelper<Row>();
+const columns = [
+  column.accessor("seq", { header: "#", cell: (c) => <span className="tabular-nums">{c.getValue()}</span> }),
+  column.accessor("at", { header: "When (UTC)", cell: (c) => <span className="whitespace-nowrap tabular-nums">{c.getValue().replace("T", " ").slice(0, 19)}</span> }),
+  column.accessor("actorName", { header: "Who" }),
+  column.accessor("action", { header: "Action", cell: (c) => <code className="text-xs">{c.getValue()}</code> }),
+  column.display({
+    id: "record",
+    header: "Record",
+    cell: ({ row }) => (
+      <span className="text-xs">
+        {row.original.recordType}
+        <span className="block font-mono break-all text-stone-500">{row.original.recordId}</span>
+      </span>
+    ),
+  }),
+  column.display({
+    id: "changes",
+    header: "Old → new",
+    cell: ({ row }) =>
+      row.original.changes.length === 0 ? (
+        <span className="text-stone-500">—</span>
+      ) : (
+        <ul className="space-y-0.5 text-xs">
+          {row.original.changes.map((c) => (
+            <li key={c.field}>
+              <span className="font-medium">{c.field}:</span> {c.old !== null && <del className="text-red-800">{c.old}</del>}
+              {c.old !== null && c.new !== null && " → "}
+              {c.new !== null && <ins className="text-brand-800 no-underline">{c.new}</ins>}
+            </li>
+          ))}
+        </ul>
+      ),
+  }),
+  column.accessor("reason", { header: "Reason", cell: (c) => c.getValue() ?? "—" }),
+];
+
+export interface AuditBrowserProps {
+  actors: { id: string; name: string }[];
+  actions: string[];
+  recordTypes: string[];
+  canExport: boolean;
+}
+
+export function AuditBrowser({ actors, actions, recordTypes, canExport }: AuditBrowserProps) {
+  const [filters, setFilters] = useState<Filters>(EMPTY);
+  const [cursors, setCursors] = useState<number[]>([]); // stack of "before" cursors, newest page first
+  const before = cursors.at(-1);
+  const qs = queryString(filters, before);
+  const { data, error, isFetching } = useQuery({ queryKey: ["audit", qs], queryFn: () => fetchPage(qs), placeholderData: keepPreviousData });
+  const table = useReactTable({ data: data?.items ?? [], columns, getCoreRowModel: getCoreRowModel() });
+
+  function apply(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const form = new FormData(event.currentTarget);
+    setFilters(Object.fromEntries(Object.keys(EMPTY).map((k) => [k, String(form.get(k) ?? "")])) as Filters);
+    setCursors([]);
+  }
+
+  const select = "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
+  return (
+    <div className="space-y-4">
+      <form onSubmit={apply} aria-label="Filter the audit trail" className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3 xl:grid-cols-7">
+        <label className="text-sm">
+          User
+          <select name="actor" className={select} defaultValue="">
+            <option value="">Anyone</option>
+            {actors.map((a) => (
+              <option key={a.id} value={a.id}>
+                {a.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="text-sm">
+          Record type
+          <select name="recordType" className={select} defaultValue="">
+            <option value="">Any</option>
+            {recordTypes.map((t) => (
+              <option key={t}>{t}</option>
+            ))}
+          </select>
+        </label>
+        <label className="text-sm">
+          Record id
+          <input name="recordId" className={select} />
+        </label>
+        <label className="text-sm">
+          Action
+          <select name="action" className={select} defaultValue="">
+            <option value="">Any</option>
+            {actions.map((a) => (
+              <option key={a}>{a}</option>
+            ))}
+          </select>
+        </label>
+        <label className="text-sm">
+          From
+          <input type="date" name="from" className={select} />
+        </label>
+        <label className="text-sm">
+          To
+          <input type="date" name="to" className={select} />
+        </label>
+        <div className="flex items-end gap-2">
+          <Button type="submit">Filter</Button>
+          {canExport && (
+            <a href={`/api/audit-events/export?${queryString(filters)}`} className="inline-flex items-center gap-1 rounded-md border border-stone-300 bg-white px-3 py-2 text-sm hover:bg-stone-100" download>
+              <Download className="h-4 w-4" aria-hidden="true" /> CSV
+            </a>
+          )}
+        </div>
+      </form>
+
+      {error && (
+        <p role="alert" className="rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900">
+          {error.message}
+        </p>
+      )}
+
+      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white" aria-busy={isFetching}>
+        <table className="w-full text-sm">
+          <caption className="sr-only">Audit events, newest first</caption>
+          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
+            {table.getHeaderGroups().map((g) => (
+              <tr key={g.id}>
+                {g.headers.map((h) => (
+                  <th key={h.id} className="px-3 py-2 font-medium">
+                    {flexRender(h.column.columnDef.header, h.getContext())}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="divide-y divide-stone-100 align-top">
+            {table.getRowModel().rows.map((r) => (
+              <tr key={r.id}>
+                {r.getVisibleCells().map((c) => (
+                  <td key={c.id} className="px-3 py-2">
+                    {flexRender(c.column.columnDef.cell, c.getContext())}
+                  </td>
+                ))}
+              </tr>
+            ))}
+            {data && data.items.length === 0 && (
+              <tr>
+                <td colSpan={columns.length} className="px-3 py-6 text-center text-stone-600">
+                  No events match these filters.
+                </td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+
+      <div className="flex items-center justify-between text-sm">
+        <Button variant="secondary" disabled={cursors.length === 0} onClick={() => setCursors((c) => c.slice(0, -1))}>
+          ← Newer
+        </Button>
+        <span className="text-stone-600">{isFetching ? "Loading…" : `Page ${cursors.length + 1}`}</span>
+        <Button variant="secondary" disabled={!data?.nextBefore} onClick={() => data?.nextBefore && setCursors((c) => [...c, data.nextBefore!])}>
+          Older →
+        </Button>
+      </div>
+    </div>
+  );
+}

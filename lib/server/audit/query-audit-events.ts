@@ -1,0 +1,70 @@
+import "server-only";
+import { and, desc, eq, gte, lt, lte, type SQL } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { auditEvents } from "@/db/schema";
+import { describeChanges } from "@/lib/audit/describe";
+import type { AuditQuery } from "@/lib/schemas/audit";
+
+function conditions(q: Partial<AuditQuery>): SQL | undefined {
+  const where: SQL[] = [];
+  if (q.actor) where.push(q.actor === "system" ? eq(auditEvents.actorName, "system") : eq(auditEvents.actorId, q.actor));
+  if (q.recordType) where.push(eq(auditEvents.recordType, q.recordType));
+  if (q.recordId) where.push(eq(auditEvents.recordId, q.recordId));
+  if (q.action) where.push(eq(auditEvents.action, q.action));
+  if (q.from) where.push(gte(auditEvents.at, `${q.from}T00:00:00.000Z`));
+  if (q.to) where.push(lte(auditEvents.at, `${q.to}T23:59:59.999Z`));
+  return where.length ? and(...where) : undefined;
+}
+
+/** One page of events, newest first, with the cursor for the next (older) page. */
+export async function queryAuditEvents(q: AuditQuery) {
+  const where = conditions(q);
+  const rows = await getDb()
+    .select()
+    .from(auditEvents)
+    .where(q.before ? and(where, lt(auditEvents.seq, q.before)) : where)
+    .orderBy(desc(auditEvents.seq))
+    .limit(q.limit + 1);
+  const page = rows.slice(0, q.limit);
+  return {
+    items: page.map((r) => ({
+      seq: r.seq,
+      at: r.at,
+      actorName: r.actorName,
+      action: r.action,
+      recordType: r.recordType,
+      recordId: r.recordId,
+      reason: r.reason,
+      changes: describeChanges(r.oldValue, r.newValue),
+      hash: r.hash,
+    })),
+    nextBefore: rows.length > q.limit ? page[page.length - 1].seq : null,
+  };
+}
+
+export type AuditPage = Awaited<ReturnType<typeof queryAuditEvents>>;
+
+/** Every matching event for export, newest first, in pages so memory stays flat. */
+export async function* iterateAuditEvents(q: Partial<Omit<AuditQuery, "before" | "limit">>, pageSize = 2000) {
+  let before: number | undefined;
+  for (;;) {
+    const where = conditions(q);
+    const rows = await getDb()
+      .select()
+      .from(auditEvents)
+      .where(before ? and(where, lt(auditEvents.seq, before)) : where)
+      .orderBy(desc(auditEvents.seq))
+      .limit(pageSize);
+    if (rows.length === 0) return;
+    yield rows;
+    before = rows[rows.length - 1].seq;
+  }
+}
+
+/** The distinct values the filters offer. */
+export async function auditFilterOptions() {
+  const db = getDb();
+  const actions = await db.selectDistinct({ v: auditEvents.action }).from(auditEvents).orderBy(auditEvents.action);
+  const types = await db.selectDistinct({ v: auditEvents.recordType }).from(auditEvents).orderBy(auditEvents.recordType);
+  return { actions: actions.map((a) => a.v), recordTypes: types.map((t) => t.v) };
+}
