@@ -16,6 +16,7 @@ import {
   userRoles,
   users,
 } from "./schema";
+import { seedChangeControl } from "./seed-changes";
 import { DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
 
 /**
@@ -66,17 +67,21 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       await audit({ action: "spec.created", recordType: "cleanliness_spec", recordId: row.id, new: spec });
     }
 
+    const familyIds = new Map<string, string>();
     for (const pf of DEMO_PART_FAMILIES) {
       const { spec, ...fields } = pf;
       const [row] = await tx.insert(partFamilies).values({ ...fields, specId: specIds.get(spec)! }).returning();
+      familyIds.set(pf.code, row.id);
       await audit({ action: "part_family.created", recordType: "part_family", recordId: row.id, new: pf });
     }
 
+    const recipeIds = new Map<string, string>();
     for (const r of DEMO_RECIPES) {
       const [recipe] = await tx
         .insert(recipes)
         .values({ systemId: systemIds.get(r.system)!, code: r.code, name: r.name, description: r.description })
         .returning();
+      recipeIds.set(r.code, recipe.id);
       await audit({ action: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: r.code, name: r.name } });
       let previous: { id: string; version: number } | null = null;
       for (const [i, v] of r.versions.entries()) {
@@ -123,6 +128,8 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
         previous = { id: version.id, version: i + 1 };
       }
     }
+
+    await seedChangeControl(tx, { userIds, recipeIds, familyIds });
   });
   return { seeded: true };
 }

@@ -124,8 +124,6 @@ export function compareParameter(oldP: ParameterSnapshot | null, newP: Parameter
   if (setpoint !== oldP.setpoint) {
     if (position === "inside") raise("minor", `Setpoint ${oldP.setpoint} → ${setpoint} ${oldP.unit}, inside the validated range ${describeRange(oldP.validatedLow, oldP.validatedHigh, oldP.unit)}.`);
     else raise("major", `Setpoint ${oldP.setpoint} → ${setpoint} ${oldP.unit}, outside the validated range ${describeRange(oldP.validatedLow, oldP.validatedHigh, oldP.unit)}.`);
-  } else if (position === "outside") {
-    raise("major", `Setpoint ${setpoint} ${oldP.unit} lies outside the validated range ${describeRange(oldP.validatedLow, oldP.validatedHigh, oldP.unit)}.`);
   }
   if (low !== oldP.validatedLow || high !== oldP.validatedHigh) {
     const widened = (low === null ? oldP.validatedLow !== null : oldP.validatedLow !== null && low < oldP.validatedLow) || (high === null ? oldP.validatedHigh !== null : oldP.validatedHigh !== null && high > oldP.validatedHigh);
