@@ -1,0 +1,118 @@
+/** Raised for input the conductivity computations cannot accept; `field` names the input. */
+export class WaterInputError extends RangeError {
+  name = "WaterInputError";
+  readonly field: string | undefined;
+
+  constructor(message: string, field?: string) {
+    super(message);
+    this.field = field;
+  }
+}
+
+const REFERENCE_C = 25;
+
+function requireConductivity(value: number): number {
+  if (typeof value !== "number" || !Number.isFinite(value) || value < 0) {
+    throw new WaterInputError(
+      `Measured conductivity must be a non-negative finite number in µS/cm (got ${String(value)}).`,
+      "measuredUsPerCm",
+    );
+  }
+  return value;
+}
+
+function requireTemperature(value: number): number {
+  if (typeof value !== "number" || !Number.isFinite(value)) {
+    throw new WaterInputError(
+      `Temperature must be a finite number in °C (got ${String(value)}).`,
+      "temperatureC",
+    );
+  }
+  if (value < 0 || value > 100) {
+    throw new WaterInputError(
+      `Temperature must be between 0 and 100 °C for liquid water (got ${value}).`,
+      "temperatureC",
+    );
+  }
+  return value;
+}
+
+/**
+ * Linear temperature compensation to 25 °C [std, instrument practice]:
+ * κ25 = κT / (1 + α (T − 25)), α ≈ 0.02 per °C for most natural and rinse waters.
+ */
+export function conductivityAt25C(
+  measuredUsPerCm: number,
+  temperatureC: number,
+  alphaPerDegC = 0.02,
+): number {
+  requireConductivity(measuredUsPerCm);
+  requireTemperature(temperatureC);
+  if (
+    typeof alphaPerDegC !== "number" ||
+    !Number.isFinite(alphaPerDegC) ||
+    alphaPerDegC < 0 ||
+    alphaPerDegC > 0.1
+  ) {
+    throw new WaterInputError(
+      `The temperature coefficient must be between 0 and 0.1 per °C (got ${String(alphaPerDegC)}).`,
+      "alphaPerDegC",
+    );
+  }
+  const denominator = 1 + alphaPerDegC * (temperatureC - REFERENCE_C);
+  if (denominator <= 0) {
+    throw new WaterInputError(
+      `With α = ${alphaPerDegC} per °C the compensation is undefined at ${temperatureC} °C.`,
+      "alphaPerDegC",
+    );
+  }
+  return measuredUsPerCm / denominator;
+}
+
+export type F25Point = {
+  readonly temperatureC: number;
+  readonly f25: number;
+  readonly source: string;
+};
+
+/**
+ * ISO 7888 (EN 27888) factors f25(T) for natural water, κ25 = f25(T) · κT. Only the factors we
+ * can source are tabulated; temperatures outside them are refused rather than extrapolated.
+ */
+export const ISO7888_F25: readonly F25Point[] = Object.freeze([
+  { temperatureC: 20, f25: 1.116, source: "[std] ISO 7888 f25(20 °C), as quoted" },
+  {
+    temperatureC: 25,
+    f25: 1,
+    source: "[derived] reference temperature: f25(25 °C) = 1 by definition",
+  },
+  { temperatureC: 30, f25: 0.903, source: "[std] ISO 7888 f25(30 °C), as quoted" },
+]);
+
+/** f25(T) interpolated linearly between the tabulated temperatures. */
+export function f25NaturalWater(temperatureC: number): number {
+  requireTemperature(temperatureC);
+  const first = ISO7888_F25[0];
+  const last = ISO7888_F25[ISO7888_F25.length - 1];
+  if (temperatureC < first.temperatureC || temperatureC > last.temperatureC) {
+    throw new WaterInputError(
+      `The ISO 7888 factor table held here spans ${first.temperatureC}–${last.temperatureC} °C; ${temperatureC} °C is outside it. Measure within that span or use linear compensation.`,
+      "temperatureC",
+    );
+  }
+  for (let i = 1; i < ISO7888_F25.length; i++) {
+    const high = ISO7888_F25[i];
+    if (temperatureC <= high.temperatureC) {
+      const low = ISO7888_F25[i - 1];
+      const t = (temperatureC - low.temperatureC) / (high.temperatureC - low.temperatureC);
+      return low.f25 + t * (high.f25 - low.f25);
+    }
+  }
+  return last.f25;
+}
+
+/** Non-linear compensation for natural water [std, ISO 7888]: κ25 = f25(T) · κT. */
+export function conductivityAt25CNonLinear(measuredUsPerCm: number, temperatureC: number): number {
+  requireConductivity(measuredUsPerCm);
+  return f25NaturalWater(temperatureC) * measuredUsPerCm;
+}
