@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { invalid, type FormState } from "@/lib/actions/result";
+import { invalid, readJsonPayload, type FormState } from "@/lib/actions/result";
 import { deliverSoon } from "@/lib/email/deliver";
 import { changeIdSchema, endChangeSchema, linkEvidenceSchema, openChangeSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
 import { authorize } from "@/lib/server/auth/current-user";
@@ -42,13 +42,9 @@ export async function openChangeAction(_prev: FormState, formData: FormData): Pr
 export async function saveProposalAction(_prev: FormState, formData: FormData): Promise<FormState> {
   const auth = await authorize("recipe.edit");
   if (!auth.ok) return auth;
-  let payload: unknown;
-  try {
-    payload = JSON.parse(String(formData.get("payload") ?? "null"));
-  } catch {
-    return { ok: false, message: "The form could not be read. Reload the page; nothing was saved." };
-  }
-  const parsed = proposalSchema.safeParse(payload);
+  const payload = readJsonPayload(formData);
+  if (!payload.ok) return payload;
+  const parsed = proposalSchema.safeParse(payload.value);
   if (!parsed.success) return invalid(parsed.error, "Some values need attention. Nothing was saved; everything you typed is still here.");
   try {
     await saveProposal(auth.user, parsed.data);
