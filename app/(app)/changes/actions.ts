@@ -4,7 +4,7 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { invalid, readJsonPayload, type FormState } from "@/lib/actions/result";
 import { deliverSoon } from "@/lib/email/deliver";
-import { changeIdSchema, endChangeSchema, linkEvidenceSchema, openChangeSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
+import { changeIdSchema, endChangeSchema, intervalSchema, linkEvidenceSchema, openChangeSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
 import { authorize } from "@/lib/server/auth/current-user";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
@@ -14,6 +14,7 @@ import { linkEvidence } from "@/lib/server/changes/link-evidence";
 import { openChangeRequest } from "@/lib/server/changes/open-change-request";
 import { reopenChange } from "@/lib/server/changes/reopen-change";
 import { saveProposal } from "@/lib/server/changes/save-proposal";
+import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import { toActionFailure } from "@/lib/server/errors";
@@ -152,4 +153,19 @@ export async function withdrawChangeAction(_prev: FormState, formData: FormData)
 }
 export async function reopenChangeAction(_prev: FormState, formData: FormData) {
   return ending("reopen", formData);
+}
+
+export async function setIntervalAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const auth = await authorize("recipe.edit");
+  if (!auth.ok) return auth;
+  const parsed = intervalSchema.safeParse({ intervalId: formData.get("intervalId"), intervalMonths: formData.get("intervalMonths"), reason: formData.get("reason") });
+  if (!parsed.success) return invalid(parsed.error);
+  try {
+    await setRequalificationInterval(auth.user, parsed.data);
+  } catch (error) {
+    return toActionFailure(error);
+  }
+  revalidatePath("/systems", "layout");
+  revalidatePath("/queue");
+  return { ok: true, message: `Requalify every ${parsed.data.intervalMonths} months.` };
 }
