@@ -1,7 +1,7 @@
 /**
  * Runs once when the server starts: timers retry queued e-mail (the outbox), remind
  * people of overdue document reviews, make approved documents effective on their
- * date, and queue bath-maintenance reminders.
+ * date, and queue bath-maintenance and requalification reminders.
  */
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
@@ -21,4 +21,11 @@ export async function register() {
       .catch((error) => console.error("maintenance reminders failed", error));
   setTimeout(remind, 5_000).unref();
   setInterval(remind, 15 * 60_000).unref();
+  const { sendRequalificationReminders } = await import("@/lib/server/changes/send-requalification-reminders");
+  const remindRequalification = () =>
+    sendRequalificationReminders()
+      .then(() => deliverDueEmails())
+      .catch((error) => console.error("requalification reminders failed", error));
+  setTimeout(remindRequalification, 5_000).unref();
+  setInterval(remindRequalification, 3_600_000).unref();
 }

@@ -47,6 +47,10 @@ export const CHANGE_STATUSES = [
   "withdrawn",
 ] as const;
 
+export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval"] as const;
+
+export const MATRIX_STATUSES = ["effective", "superseded"] as const;
+
 export const IMPACT_CLASSES = ["editorial", "minor", "major"] as const;
 
 export const TEST_TYPES = [

@@ -18,6 +18,7 @@ import {
   users,
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
+import { seedChangeControl } from "./seed-changes";
 import { DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
 
 /**
@@ -68,17 +69,21 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       await audit({ action: "spec.created", recordType: "cleanliness_spec", recordId: row.id, new: spec });
     }
 
+    const familyIds = new Map<string, string>();
     for (const pf of DEMO_PART_FAMILIES) {
       const { spec, ...fields } = pf;
       const [row] = await tx.insert(partFamilies).values({ ...fields, specId: specIds.get(spec)! }).returning();
+      familyIds.set(pf.code, row.id);
       await audit({ action: "part_family.created", recordType: "part_family", recordId: row.id, new: pf });
     }
 
+    const recipeIds = new Map<string, string>();
     for (const r of DEMO_RECIPES) {
       const [recipe] = await tx
         .insert(recipes)
         .values({ systemId: systemIds.get(r.system)!, code: r.code, name: r.name, description: r.description })
         .returning();
+      recipeIds.set(r.code, recipe.id);
       await audit({ action: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: r.code, name: r.name } });
       let previous: { id: string; version: number } | null = null;
       for (const [i, v] of r.versions.entries()) {
@@ -135,6 +140,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     }
 
     await seedEvidence(tx);
+    await seedChangeControl(tx, { userIds, recipeIds, familyIds });
   });
   return { seeded: true };
 }

@@ -73,6 +73,24 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("bath_record.created", "bath_record"),
   event("maintenance_interval.set", "maintenance_interval"),
   event("maintenance.reminder_queued", "maintenance_interval"),
+  // Change control
+  event("change.opened", "change_request"),
+  event("change.proposal_saved", "change_request"),
+  event("change.impact_assessed", "change_request"),
+  event("change.reopened", "change_request"),
+  event("change.approved", "change_request"),
+  event("change.requalification_started", "change_request"),
+  event("change.evidence_linked", "change_request"),
+  event("change.verified", "change_request"),
+  event("change.closed", "change_request"),
+  event("change.rejected", "change_request"),
+  event("change.withdrawn", "change_request"),
+  event("recipe_version.proposed", "recipe_version"),
+  event("recipe_version.withdrawn", "recipe_version"),
+  event("change_narrative.saved", "document_version"),
+  event("requalification_matrix.versioned", "requalification_matrix"),
+  event("requalification_interval.set", "requalification_interval"),
+  event("requalification_interval.reminder_sent", "requalification_interval"),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

@@ -43,6 +43,7 @@ export const PERMISSIONS = {
   "change.draft": ["engineer"],
   "change.review": ["reviewer"],
   "change.approve": ["approver"],
+  "change.verify": ["reviewer", "approver"],
   // Evidence
   "evidence.record": ["engineer", "technician"],
   "evidence.sign_performed": ["technician"],

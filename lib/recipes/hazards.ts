@@ -8,6 +8,8 @@ export interface HazardInput {
   setpoint: number;
   unit: string;
   mode?: string | null;
+  /** The top of the validated range: the bath may run there too. */
+  validatedHigh?: number | null;
 }
 
 export interface Hazard {
@@ -20,12 +22,15 @@ const BURN_THRESHOLD_C = 50; // common practice
 
 export function hazardsOfParameters(params: HazardInput[]): Hazard[] {
   const found = new Map<Hazard["kind"], Hazard>();
+  let maxTemperature = -Infinity;
   for (const p of params) {
-    if ((p.kind === "temperature" || p.kind === "drying_temperature") && p.unit === "°C" && p.setpoint > BURN_THRESHOLD_C) {
+    const hottest = Math.max(p.setpoint, p.validatedHigh ?? -Infinity);
+    if ((p.kind === "temperature" || p.kind === "drying_temperature") && p.unit === "°C" && hottest > BURN_THRESHOLD_C) {
+      maxTemperature = Math.max(maxTemperature, hottest);
       found.set("burn", {
         kind: "burn",
         title: "hot bath, steam and hot surfaces",
-        text: `A setpoint of ${p.setpoint} °C scalds. Let tanks and chambers cool or wear heat-resistant protection before reaching in.`,
+        text: `Baths and dryers here run up to ${maxTemperature} °C, which scalds. Let tanks and chambers cool or wear heat-resistant protection before reaching in.`,
       });
     }
     if (p.kind === "concentration") {
@@ -58,4 +63,12 @@ export function hazardsOfParameters(params: HazardInput[]): Hazard[] {
     }
   }
   return [...found.values()];
+}
+
+/** The cautions of a whole recipe version: every parameter, with its stage's mode. */
+export function hazardsOfStages(stages: { mode: string | null; parameters: Omit<HazardInput, "mode">[] }[]): Hazard[] {
+  const params: HazardInput[] = stages.flatMap((s) => s.parameters.map((p) => ({ ...p, mode: s.mode })));
+  // A mode carries its own hazard even on a stage without parameters yet.
+  for (const s of stages) if (s.parameters.length === 0 && s.mode) params.push({ kind: "other", setpoint: 0, unit: "", mode: s.mode });
+  return hazardsOfParameters(params);
 }

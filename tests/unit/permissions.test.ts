@@ -32,6 +32,7 @@ const EXPECTED: Record<Action, Role[]> = {
   "change.draft": ["engineer"],
   "change.review": ["reviewer"],
   "change.approve": ["approver"],
+  "change.verify": ["reviewer", "approver"],
   "evidence.record": ["engineer", "technician"],
   "evidence.sign_performed": ["technician"],
   "evidence.verify": ["engineer", "reviewer", "approver", "technician"],

@@ -8,6 +8,7 @@ export default function AdminLayout({ children }: { children: ReactNode }) {
         label="Administration"
         items={[
           { href: "/admin", label: "Users and roles", alsoCurrentUnder: ["/admin/users"] },
+          { href: "/admin/matrix", label: "Requalification matrix" },
           { href: "/admin/email", label: "E-mail" },
         ]}
       />

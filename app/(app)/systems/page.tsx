@@ -51,7 +51,17 @@ export default async function SystemsPage() {
                 </tbody>
               </table>
               <p className="mt-3 text-sm text-stone-700">
-                Recipes: {s.recipes.length === 0 ? "none" : s.recipes.map((r) => `${r.code} ${r.name}`).join("; ")}
+                Recipes:{" "}
+                {s.recipes.length === 0
+                  ? "none"
+                  : s.recipes.map((r, i) => (
+                      <span key={r.id}>
+                        {i > 0 && "; "}
+                        <Link href={`/systems/recipes/${r.id}`} className="text-brand-800 hover:underline">
+                          {r.code} {r.name}
+                        </Link>
+                      </span>
+                    ))}
               </p>
             </section>
           ))}

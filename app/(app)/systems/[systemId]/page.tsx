@@ -1,75 +1,77 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
-import { Caution } from "@/components/ui/caution";
+import { RecipeTable } from "@/components/recipes/recipe-table";
+import { SystemEditor } from "@/components/systems/system-editor";
 import { PageHeader } from "@/components/ui/page-header";
-import { humanize, rangeWithUnit, STAGE_MODE_LABELS, withUnit } from "@/lib/format/labels";
-import { hazardsOfParameters } from "@/lib/recipes/hazards";
+import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getCleaningSystem } from "@/lib/server/plant/queries";
+import { updateSystemAction } from "../actions";
 
 export const metadata: Metadata = { title: "Cleaning system" };
 
 export default async function SystemPage({ params }: { params: Promise<{ systemId: string }> }) {
-  await requirePageUser("systems.view");
+  const user = await requirePageUser("systems.view");
   const { systemId } = await params;
-  const system = await getCleaningSystem(systemId);
+  const system = /^[0-9a-f-]{36}$/.test(systemId) ? await getCleaningSystem(systemId) : undefined;
   if (!system) notFound();
   return (
     <>
       <PageHeader title={`${system.code} · ${system.name}`} description={system.description ?? undefined} />
+      <section aria-labelledby="stages" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+        <h2 id="stages" className="text-lg font-semibold">
+          Stages
+        </h2>
+        <table className="mt-2 w-full text-sm">
+          <caption className="sr-only">Stages of {system.name}</caption>
+          <thead className="text-left text-xs text-stone-500 uppercase">
+            <tr>
+              <th className="py-1 pr-3 font-medium">#</th>
+              <th className="py-1 pr-3 font-medium">Stage</th>
+              <th className="py-1 pr-3 font-medium">Kind</th>
+              <th className="py-1 pr-3 font-medium">Can run</th>
+              <th className="py-1 text-right font-medium">Tank volume</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-stone-100">
+            {system.stages.map((st) => (
+              <tr key={st.id}>
+                <td className="py-1.5 pr-3 tabular-nums">{st.position}</td>
+                <td className="py-1.5 pr-3">{st.name}</td>
+                <td className="py-1.5 pr-3">{humanize(st.kind)}</td>
+                <td className="py-1.5 pr-3">{st.capabilities.map((c) => STAGE_MODE_LABELS[c] ?? c).join(", ")}</td>
+                <td className="py-1.5 text-right tabular-nums">{st.tankVolumeL === null ? "—" : `${st.tankVolumeL} L`}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {can(user.roles, "systems.manage") && (
+          <details className="mt-4">
+            <summary className="cursor-pointer text-sm font-medium text-brand-800">Edit system and stages</summary>
+            <div className="mt-3">
+              <SystemEditor action={updateSystemAction} system={system} />
+            </div>
+          </details>
+        )}
+      </section>
       {system.recipes.map((recipe) => {
         const v = recipe.effectiveVersion;
-        const hazards = v ? hazardsOfParameters(v.stages.flatMap((s) => s.parameters.map((p) => ({ ...p, mode: s.mode })))) : [];
         return (
           <section key={recipe.id} className="mb-8 rounded-lg border border-stone-200 bg-white p-5" aria-labelledby={`r-${recipe.id}`}>
             <h2 id={`r-${recipe.id}`} className="text-lg font-semibold">
-              {recipe.code} · {recipe.name}
+              <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
+                {recipe.code} · {recipe.name}
+              </Link>
             </h2>
             <p className="text-sm text-stone-600">
               {v ? `Effective version ${v.version} since ${v.effectiveFrom?.slice(0, 10)} · detergent: ${v.detergent ?? "none"}` : "No effective version"}
             </p>
-            {hazards.length > 0 && (
-              <div className="mt-3 space-y-2">
-                {hazards.map((h) => (
-                  <Caution key={h.kind} title={h.title}>
-                    {h.text}
-                  </Caution>
-                ))}
-              </div>
-            )}
-            {v && (
-              <table className="mt-4 w-full text-sm">
-                <caption className="sr-only">Parameters of {recipe.name}, version {v.version}</caption>
-                <thead className="border-b border-stone-200 text-left text-xs text-stone-500 uppercase">
-                  <tr>
-                    <th className="py-1.5 pr-3 font-medium">Stage</th>
-                    <th className="py-1.5 pr-3 font-medium">Parameter</th>
-                    <th className="py-1.5 pr-3 text-right font-medium">Setpoint</th>
-                    <th className="py-1.5 pr-3 font-medium">Validated range</th>
-                    <th className="py-1.5 font-medium">Critical</th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-stone-100">
-                  {v.stages.flatMap((stage) =>
-                    stage.parameters.map((p, i) => (
-                      <tr key={p.id}>
-                        <td className="py-1.5 pr-3 align-top">
-                          {i === 0 ? `${stage.name}${stage.mode ? ` (${STAGE_MODE_LABELS[stage.mode]})` : ""}` : ""}
-                        </td>
-                        <td className="py-1.5 pr-3">{p.name}</td>
-                        <td className="py-1.5 pr-3 text-right tabular-nums">{withUnit(p.setpoint, p.unit)}</td>
-                        <td className="py-1.5 pr-3 tabular-nums">{rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit)}</td>
-                        <td className="py-1.5">{p.critical ? "Critical" : "—"}</td>
-                      </tr>
-                    )),
-                  )}
-                </tbody>
-              </table>
-            )}
+            {v && <RecipeTable content={v} caption={`Parameters of ${recipe.name}, version ${v.version}`} />}
           </section>
         );
       })}
-      <p className="text-xs text-stone-500">Stage kinds: {[...new Set(system.stages.map((s) => humanize(s.kind)))].join(", ")}.</p>
     </>
   );
 }

@@ -1,0 +1,189 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { DiffView, ImpactWorking } from "@/components/changes/diff-view";
+import { ProposalEditor } from "@/components/changes/proposal-editor";
+import { LinkEvidenceForm, ReasonStep, StepButton } from "@/components/changes/step-forms";
+import { RecipeTable } from "@/components/recipes/recipe-table";
+import { SignatureDialog } from "@/components/signatures/signature-dialog";
+import { SignatureList } from "@/components/signatures/signature-list";
+import { PageHeader } from "@/components/ui/page-header";
+import { can } from "@/lib/auth/permissions";
+import { CHANGE_KIND_LABELS, CHANGE_STEPS, STATUS_LABELS, stepProblem, type ChangeStep } from "@/lib/recipes/change-workflow";
+import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getChangeRequestPage } from "@/lib/server/changes/queries";
+import { narrativeText } from "@/lib/recipes/change-content";
+import {
+  approveChangeAction,
+  assessChangeAction,
+  closeChangeAction,
+  linkEvidenceAction,
+  rejectChangeAction,
+  reopenChangeAction,
+  saveProposalAction,
+  startRequalificationAction,
+  verifyChangeAction,
+  withdrawChangeAction,
+} from "../actions";
+
+export const metadata: Metadata = { title: "Change request" };
+
+export default async function ChangePage({ params }: { params: Promise<{ changeId: string }> }) {
+  const user = await requirePageUser("changes.view");
+  const { changeId } = await params;
+  const page = /^[0-9a-f-]{36}$/.test(changeId) ? await getChangeRequestPage(changeId).catch(() => undefined) : undefined;
+  if (!page) notFound();
+  const { cr, recipe, fromVersion, toVersion, assessment, impact, requirements, gate, linked, candidates } = page;
+  const may = (step: ChangeStep) => can(user.roles, CHANGE_STEPS[step].permission) && stepProblem(step, cr.status, requirements.length) === null;
+  const hidden = { changeRequestId: cr.id };
+  const label = `${cr.number} revision ${page.assessmentRow.revision}`;
+  const editing = cr.status === "draft" && can(user.roles, "recipe.edit");
+  const narrative = narrativeText(page.narrative?.content ?? null);
+  const gateMatters = ["approved_for_implementation", "requalification", "verified"].includes(cr.status) && requirements.length > 0;
+
+  return (
+    <>
+      <PageHeader
+        title={`${cr.number} · ${cr.title}`}
+        description={
+          <>
+            Status: <span className="font-semibold">{STATUS_LABELS[cr.status]}</span> · {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
+            <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
+              {recipe.code}
+            </Link>{" "}
+            version {fromVersion.version} → proposed version {toVersion.version}
+            {page.family ? ` · adds ${page.family.code}` : ""} · opened by {page.author} on {cr.createdAt.slice(0, 10)}
+          </>
+        }
+      />
+
+      <section aria-labelledby="next" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+        <h2 id="next" className="mb-3 text-base font-semibold">
+          Next step
+        </h2>
+        <div className="flex flex-wrap items-start gap-3">
+          {may("assess") && (
+            <SignatureDialog action={assessChangeAction} meaning="authored" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Sign and submit impact assessment" />
+          )}
+          {may("approve") && (
+            <SignatureDialog action={approveChangeAction} meaning="approved" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Approve for implementation" />
+          )}
+          {may("start_requalification") && <StepButton action={startRequalificationAction} changeRequestId={cr.id} label="Start requalification" />}
+          {may("verify") && (
+            <SignatureDialog action={verifyChangeAction} meaning="verified" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Verify change" />
+          )}
+          {(may("close") || (cr.status === "requalification" && can(user.roles, "recipe.make_effective"))) && <StepButton action={closeChangeAction} changeRequestId={cr.id} label="Close and make effective" />}
+          {may("reopen") && <ReasonStep action={reopenChangeAction} changeRequestId={cr.id} label="Reopen for editing" variant="secondary" />}
+          {may("reject") && <ReasonStep action={rejectChangeAction} changeRequestId={cr.id} label="Reject" />}
+          {may("withdraw") && <ReasonStep action={withdrawChangeAction} changeRequestId={cr.id} label="Withdraw" />}
+        </div>
+        {cr.status === "closed" && <p className="mt-2 text-sm">Closed on {cr.closedAt?.slice(0, 10)}: version {toVersion.version} is effective.</p>}
+        {(cr.status === "rejected" || cr.status === "withdrawn") && <p className="mt-2 text-sm">{STATUS_LABELS[cr.status]} on {cr.closedAt?.slice(0, 10)}; proposed version {toVersion.version} was withdrawn.</p>}
+      </section>
+
+      {gateMatters && (
+        <section aria-labelledby="gate" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+          <h2 id="gate" className="text-base font-semibold">
+            Requalification gate: {gate.holds ? "met" : "not met"}
+          </h2>
+          {!gate.holds && (
+            <div className="mt-2 text-sm">
+              <p className="font-medium">Missing before the change can be verified and closed:</p>
+              <ul className="mt-1 list-disc pl-5" aria-label="What is missing">
+                {gate.missing.map((m) => (
+                  <li key={m}>{m}</li>
+                ))}
+              </ul>
+            </div>
+          )}
+          <ul className="mt-4 space-y-3 text-sm">
+            {gate.requirements.map(({ requirement, satisfiedBy }) => {
+              const label = TEST_TYPE_LABELS[requirement.testType];
+              const runs = linked.get(requirement.id) ?? [];
+              const offer = candidates.filter((c) => c.testType === requirement.testType && !runs.some((r) => r.id === c.id));
+              return (
+                <li key={requirement.id} className="rounded-md border border-stone-200 p-3">
+                  <p>
+                    <span className="font-medium">{label}</span> on {requirement.samples} parts: {satisfiedBy ? `met by ${satisfiedBy}` : "not met"}
+                  </p>
+                  {runs.length > 0 && (
+                    <p className="text-stone-700">
+                      Linked: {runs.map((r) => `${r.number} (${r.status}, outcome ${r.outcome ?? "not computed"}, ${r.sampleCount} samples)`).join("; ")}
+                    </p>
+                  )}
+                  {cr.status === "requalification" && can(user.roles, "evidence.record") && offer.length > 0 && (
+                    <LinkEvidenceForm action={linkEvidenceAction} changeRequestId={cr.id} requirementId={requirement.id} label={label} runs={offer} />
+                  )}
+                </li>
+              );
+            })}
+          </ul>
+          <p className="mt-3 text-xs text-stone-600">
+            Runs count when they are on proposed version {toVersion.version}, their computed outcome passes, they hold at least the required samples and a second person verified them. A computed pass supports, and never replaces,
+            the customer&apos;s specification and the engineer&apos;s judgement.
+          </p>
+        </section>
+      )}
+
+      <section aria-labelledby="impact" className="mb-8">
+        <h2 id="impact" className="mb-2 text-lg font-semibold">
+          Computed impact
+        </h2>
+        <ImpactWorking assessment={assessment} impact={impact} raiseReason={page.assessmentRow.raiseReason} requirements={requirements} matrixVersion={page.matrixVersion} />
+      </section>
+
+      <section aria-labelledby="diff" className="mb-8">
+        <h2 id="diff" className="mb-2 text-lg font-semibold">
+          Parameter diff
+        </h2>
+        <DiffView diff={assessment.diff} />
+      </section>
+
+      <section aria-labelledby="proposal" className="mb-8">
+        <h2 id="proposal" className="mb-2 text-lg font-semibold">
+          {editing ? "Edit the proposal" : `Proposed version ${toVersion.version}`}
+        </h2>
+        {editing ? (
+          <ProposalEditor
+            action={saveProposalAction}
+            changeRequestId={cr.id}
+            title={cr.title}
+            kind={page.assessmentRow.kind}
+            partFamilyId={page.assessmentRow.partFamilyId}
+            families={page.families}
+            narrative={narrative}
+            raisedTo={page.assessmentRow.raisedTo}
+            raiseReason={page.assessmentRow.raiseReason}
+            computed={assessment.computed}
+            recipe={page.to}
+          />
+        ) : (
+          <>
+            <h3 className="text-base font-semibold">Justification and risk assessment</h3>
+            <div className="prose prose-stone prose-sm mt-1 max-w-3xl">
+              {narrative ? narrative.split("\n\n").map((p, i) => <p key={i}>{p}</p>) : <p className="text-stone-600">Not written.</p>}
+            </div>
+            <div className="mt-4 rounded-lg border border-stone-200 bg-white p-5">
+              <RecipeTable content={page.to} caption={`Parameters of proposed version ${toVersion.version}`} />
+            </div>
+          </>
+        )}
+      </section>
+
+      <section aria-labelledby="signatures" className="mb-8">
+        <h2 id="signatures" className="mb-2 text-lg font-semibold">
+          Signatures
+        </h2>
+        <SignatureList signatures={page.signatures} />
+        {page.earlierSignatures.length > 0 && (
+          <details className="mt-3 text-sm">
+            <summary className="cursor-pointer">Signatures on earlier revisions</summary>
+            <SignatureList signatures={page.earlierSignatures} />
+          </details>
+        )}
+        <p className="mt-2 font-mono text-xs break-all text-stone-500">Content hash of this revision: {page.contentHash}</p>
+      </section>
+    </>
+  );
+}

@@ -1,0 +1,127 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { IntervalForm } from "@/components/changes/interval-form";
+import { OpenChangeForm } from "@/components/changes/open-change-form";
+import { RecipeTable } from "@/components/recipes/recipe-table";
+import { PageHeader } from "@/components/ui/page-header";
+import { can } from "@/lib/auth/permissions";
+import { humanize } from "@/lib/format/labels";
+import { OPEN_STATUSES, STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { requalificationDue } from "@/lib/recipes/periodic";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getRecipePage } from "@/lib/server/changes/queries";
+import { openChangeAction, setIntervalAction } from "../../../changes/actions";
+
+export const metadata: Metadata = { title: "Recipe" };
+
+export default async function RecipePage({ params }: { params: Promise<{ recipeId: string }> }) {
+  const user = await requirePageUser("systems.view");
+  const { recipeId } = await params;
+  const page = /^[0-9a-f-]{36}$/.test(recipeId) ? await getRecipePage(recipeId) : undefined;
+  if (!page) notFound();
+  const { recipe, system, effective, content, versions, intervals, changes } = page;
+  const open = changes.find((c) => OPEN_STATUSES.includes(c.status));
+  const canSeeChanges = can(user.roles, "changes.view");
+  return (
+    <>
+      <PageHeader
+        title={`${recipe.code} · ${recipe.name}`}
+        description={
+          <>
+            On <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">{system.code} {system.name}</Link>. {recipe.description}
+          </>
+        }
+      />
+      <div className="grid gap-8 xl:grid-cols-[1fr_24rem]">
+        <section aria-labelledby="effective" className="rounded-lg border border-stone-200 bg-white p-5">
+          <h2 id="effective" className="text-lg font-semibold">
+            {effective ? `Effective version ${effective.version}` : "No effective version"}
+          </h2>
+          {effective && (
+            <p className="text-sm text-stone-600">
+              Effective since {effective.effectiveFrom?.slice(0, 10)} · detergent: {effective.detergent ?? "none"} · {effective.notes}
+            </p>
+          )}
+          {content && effective && <RecipeTable content={content} caption={`Parameters of version ${effective.version}`} />}
+        </section>
+        <div className="space-y-6">
+          {effective && can(user.roles, "change.draft") && (
+            <section aria-labelledby="change" className="rounded-lg border border-stone-200 bg-white p-5">
+              <h2 id="change" className="mb-3 text-base font-semibold">
+                Change this recipe
+              </h2>
+              {open ? (
+                <p className="text-sm">
+                  <Link href={`/changes/${open.id}`} className="font-medium text-brand-800 hover:underline">
+                    {open.number}
+                  </Link>{" "}
+                  is open ({STATUS_LABELS[open.status].toLowerCase()}): finish or withdraw it before opening another.
+                </p>
+              ) : (
+                <OpenChangeForm action={openChangeAction} recipeId={recipe.id} version={effective.version} />
+              )}
+            </section>
+          )}
+          <section aria-labelledby="versions">
+            <h2 id="versions" className="mb-2 text-base font-semibold">
+              Versions
+            </h2>
+            <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
+              {versions.map((v) => (
+                <li key={v.id} className="flex justify-between px-3 py-2">
+                  <span>Version {v.version}</span>
+                  <span>
+                    {humanize(v.status)}
+                    {v.effectiveFrom ? ` · from ${v.effectiveFrom.slice(0, 10)}` : ""}
+                    {v.effectiveTo ? ` to ${v.effectiveTo.slice(0, 10)}` : ""}
+                  </span>
+                </li>
+              ))}
+            </ul>
+          </section>
+          <section aria-labelledby="families">
+            <h2 id="families" className="mb-2 text-base font-semibold">
+              Validated part families
+            </h2>
+            {intervals.length === 0 ? (
+              <p className="text-sm text-stone-600">No part family is validated on the effective version.</p>
+            ) : (
+              <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
+                {intervals.map(({ interval, family }) => (
+                  <li key={interval.id} className="px-3 py-2">
+                    <span className="font-medium">{family.code}</span> {family.name} · requalify every {interval.intervalMonths} months · last {interval.lastQualifiedAt.slice(0, 10)} · next due{" "}
+                    {requalificationDue(interval.lastQualifiedAt, interval.intervalMonths).slice(0, 10)}
+                    {can(user.roles, "recipe.edit") && <IntervalForm action={setIntervalAction} intervalId={interval.id} months={interval.intervalMonths} family={family.code} />}
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
+          {canSeeChanges && (
+            <section aria-labelledby="history">
+              <h2 id="history" className="mb-2 text-base font-semibold">
+                Change requests
+              </h2>
+              {changes.length === 0 ? (
+                <p className="text-sm text-stone-600">None yet.</p>
+              ) : (
+                <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
+                  {changes.map((c) => (
+                    <li key={c.id} className="px-3 py-2">
+                      <Link href={`/changes/${c.id}`} className="font-medium text-brand-800 hover:underline">
+                        {c.number}
+                      </Link>{" "}
+                      {c.title} · {STATUS_LABELS[c.status]}
+                      {c.impact ? ` · ${c.impact}` : ""}
+                    </li>
+                  ))}
+                </ul>
+              )}
+            </section>
+          )}
+        </div>
+      </div>
+    </>
+  );
+}

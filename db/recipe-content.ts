@@ -1,0 +1,38 @@
+import { asc, eq, sql } from "drizzle-orm";
+import type { Executor, Tx } from "./client";
+import { recipeParameters, recipeStages, recipeVersions } from "./schema";
+import type { RecipeSnapshot } from "@/lib/recipes/diff";
+
+/**
+ * A recipe version's stages and parameters as the diff compares and signatures
+ * hash them: stages by position, parameters in the order they were written.
+ * Used by the server and by the seed, so both hash the same content.
+ */
+export async function loadRecipeSnapshot(db: Executor, versionId: string): Promise<RecipeSnapshot> {
+  const [version] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, versionId));
+  const stages = await db.select().from(recipeStages).where(eq(recipeStages.versionId, versionId)).orderBy(asc(recipeStages.position));
+  const params = await db.select().from(recipeParameters).where(eq(recipeParameters.versionId, versionId)).orderBy(sql`rowid`);
+  return {
+    detergent: version?.detergent ?? null,
+    notes: version?.notes ?? null,
+    stages: stages.map((s) => ({
+      name: s.name,
+      kind: s.kind,
+      mode: s.mode,
+      parameters: params
+        .filter((p) => p.stageId === s.id)
+        .map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: p.setpoint, unit: p.unit, validatedLow: p.validatedLow, validatedHigh: p.validatedHigh, critical: p.critical })),
+    })),
+  };
+}
+
+/** Writes a recipe version's content, replacing what a proposed version held before. */
+export async function writeRecipeContent(tx: Tx, versionId: string, content: RecipeSnapshot) {
+  await tx.delete(recipeParameters).where(eq(recipeParameters.versionId, versionId));
+  await tx.delete(recipeStages).where(eq(recipeStages.versionId, versionId));
+  await tx.update(recipeVersions).set({ detergent: content.detergent, notes: content.notes }).where(eq(recipeVersions.id, versionId));
+  for (const [i, s] of content.stages.entries()) {
+    const [stage] = await tx.insert(recipeStages).values({ versionId, position: i + 1, name: s.name, kind: s.kind as never, mode: s.mode as never }).returning();
+    if (s.parameters.length) await tx.insert(recipeParameters).values(s.parameters.map((p) => ({ ...p, versionId, stageId: stage.id })));
+  }
+}

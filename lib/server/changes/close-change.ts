@@ -1,0 +1,47 @@
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { changeRequests, recipeVersions, requalificationIntervals } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import { assertStep } from "./guard";
+import { notifyNext } from "./notify";
+import { loadGate } from "./snapshot";
+import { loadChangeState } from "./state";
+import { gateRefusal } from "./verify-change";
+
+/**
+ * Closes a verified change: in one transaction the old version is superseded, the
+ * proposed one becomes effective (the database allows one effective version per
+ * recipe), and the validated part families carry over to it. A major change
+ * requalified them today; a minor one keeps their last qualification date.
+ */
+export async function closeChange(actor: AuditActor, input: { changeRequestId: string }, now = new Date()) {
+  await getDb().transaction(async (tx) => {
+    const state = await loadChangeState(tx, input.changeRequestId);
+    // Asked to close during requalification, say what evidence is missing before saying "verify first".
+    if (state.cr.status !== "requalification") assertStep(state, "close");
+    const { gate } = await loadGate(tx, state.cr.id);
+    if (!gate.holds) throw gateRefusal(gate.missing);
+    assertStep(state, "close");
+    const at = now.toISOString();
+    const old = state.fromVersion;
+    await tx.update(recipeVersions).set({ status: "superseded", effectiveTo: at }).where(and(eq(recipeVersions.id, old.id), eq(recipeVersions.status, "effective")));
+    await tx.update(recipeVersions).set({ status: "effective", effectiveFrom: at }).where(eq(recipeVersions.id, state.toVersion.id));
+    await tx.update(changeRequests).set({ status: "closed", closedAt: at }).where(eq(changeRequests.id, state.cr.id));
+
+    const carried = await tx.select().from(requalificationIntervals).where(eq(requalificationIntervals.recipeVersionId, old.id));
+    const families = new Map(carried.map((c) => [c.partFamilyId, c]));
+    if (state.assessmentRow.kind === "new_part_family" && state.assessmentRow.partFamilyId && !families.has(state.assessmentRow.partFamilyId)) {
+      families.set(state.assessmentRow.partFamilyId, { partFamilyId: state.assessmentRow.partFamilyId, intervalMonths: 12, lastQualifiedAt: at } as (typeof carried)[number]);
+    }
+    for (const [partFamilyId, c] of families) {
+      const lastQualifiedAt = state.impact === "major" ? at : c.lastQualifiedAt;
+      const [row] = await tx.insert(requalificationIntervals).values({ recipeVersionId: state.toVersion.id, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt }).returning();
+      await appendAudit(tx, actor, { action: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { recipeVersion: state.toVersion.version, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt } }, now);
+    }
+    await appendAudit(tx, actor, { action: "recipe_version.superseded", recordType: "recipe_version", recordId: old.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: at, by: state.toVersion.version, changeRequest: state.cr.number } }, now);
+    await appendAudit(tx, actor, { action: "recipe_version.effective", recordType: "recipe_version", recordId: state.toVersion.id, old: { status: "proposed" }, new: { status: "effective", effectiveFrom: at, changeRequest: state.cr.number } }, now);
+    await appendAudit(tx, actor, { action: "change.closed", recordType: "change_request", recordId: state.cr.id, old: { status: "verified" }, new: { status: "closed", effectiveVersion: state.toVersion.version } }, now);
+    await notifyNext(tx, { cr: state.cr, status: "closed", actorName: actor.name, nextStep: `${state.recipe.code} version ${state.toVersion.version} is effective; brief the operators on the new settings.`, userIds: [state.cr.createdBy] });
+  });
+}

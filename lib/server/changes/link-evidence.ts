@@ -1,0 +1,30 @@
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { changeRequestEvidence, changeRequestTests, testRuns } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
+import { isUniqueViolation, UserFacingError } from "@/lib/server/errors";
+import { loadChangeState } from "./state";
+
+/** Offers a test run on the proposed recipe version as the evidence for one required test. */
+export async function linkEvidence(actor: AuditActor & { id: string }, input: { changeRequestId: string; requirementId: string; testRunId: string }, now = new Date()) {
+  try {
+    await getDb().transaction(async (tx) => {
+      const state = await loadChangeState(tx, input.changeRequestId);
+      if (state.cr.status !== "requalification") throw new UserFacingError("Evidence is linked while the change is in requalification.");
+      const [req] = await tx.select().from(changeRequestTests).where(and(eq(changeRequestTests.id, input.requirementId), eq(changeRequestTests.changeRequestId, state.cr.id)));
+      if (!req) throw new UserFacingError("That required test is not part of this change request.");
+      const [run] = await tx.select().from(testRuns).where(eq(testRuns.id, input.testRunId));
+      if (!run) throw new UserFacingError("That test run does not exist.", "testRunId");
+      if (run.recipeVersionId !== state.cr.toVersionId) throw new UserFacingError(`${run.number} was run on another recipe version, not the proposed version ${state.toVersion.version}.`, "testRunId");
+      if (run.testType !== req.testType) throw new UserFacingError(`${run.number} is not a ${TEST_TYPE_LABELS[req.testType].toLowerCase()} test.`, "testRunId");
+      await tx.insert(changeRequestEvidence).values({ requirementId: req.id, testRunId: run.id, linkedBy: actor.id, linkedAt: now.toISOString() });
+      if (!run.changeRequestId) await tx.update(testRuns).set({ changeRequestId: state.cr.id }).where(eq(testRuns.id, run.id));
+      await appendAudit(tx, actor, { action: "change.evidence_linked", recordType: "change_request", recordId: state.cr.id, new: { requirement: req.testType, samplesRequired: req.samples, testRun: run.number } }, now);
+    });
+  } catch (error) {
+    if (isUniqueViolation(error)) throw new UserFacingError("That run is already linked to this requirement.", "testRunId");
+    throw error;
+  }
+}

@@ -1,0 +1,86 @@
+import "server-only";
+import { and, asc, desc, eq, inArray, like } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import {
+  changeRequestAssessments,
+  changeRequests,
+  cleaningSystems,
+  partFamilies,
+  recipes,
+  recipeVersions,
+  requalificationIntervals,
+  requalificationMatrices,
+  signatures,
+  testRuns,
+  users,
+} from "@/db/schema";
+import { signatureValidity } from "@/lib/signatures/rules";
+import { loadGate, loadRecipeSnapshot } from "./snapshot";
+import { getEffectiveMatrix, loadChangeState } from "./state";
+
+export async function listChangeRequests() {
+  return getDb()
+    .select({
+      id: changeRequests.id,
+      number: changeRequests.number,
+      title: changeRequests.title,
+      status: changeRequests.status,
+      impact: changeRequests.impact,
+      kind: changeRequestAssessments.kind,
+      recipeCode: recipes.code,
+      recipeId: recipes.id,
+      createdAt: changeRequests.createdAt,
+      closedAt: changeRequests.closedAt,
+      author: users.name,
+    })
+    .from(changeRequests)
+    .innerJoin(changeRequestAssessments, eq(changeRequestAssessments.changeRequestId, changeRequests.id))
+    .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
+    .innerJoin(users, eq(users.id, changeRequests.createdBy))
+    .orderBy(desc(changeRequests.createdAt));
+}
+
+/** The change request page: state, gate, signatures of every revision, and runs that could be linked. */
+export async function getChangeRequestPage(changeRequestId: string) {
+  const db = getDb();
+  const state = await loadChangeState(db, changeRequestId);
+  const { requirements: stored, linked, gate } = await loadGate(db, changeRequestId);
+  const sigs = await db
+    .select()
+    .from(signatures)
+    .where(and(eq(signatures.recordType, "change_request"), like(signatures.recordId, `${changeRequestId}#%`)))
+    .orderBy(asc(signatures.signedAt));
+  const current = sigs.filter((s) => s.recordId === state.signatureRecordId).map((s) => ({ ...s, validity: signatureValidity(s.contentHash, state.contentHash) }));
+  const earlier = sigs.filter((s) => s.recordId !== state.signatureRecordId).map((s) => ({ ...s, validity: "invalid" as const }));
+  const candidates = state.toVersion
+    ? await db.select().from(testRuns).where(and(eq(testRuns.recipeVersionId, state.toVersion.id), inArray(testRuns.testType, stored.length ? stored.map((r) => r.testType) : ["visual"])))
+    : [];
+  const [author] = await db.select({ name: users.name }).from(users).where(eq(users.id, state.cr.createdBy));
+  const families = await db.select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code));
+  return { ...state, stored, linked, gate, signatures: current, earlierSignatures: earlier, candidates, author: author?.name ?? "", families };
+}
+
+/** A recipe with every version, the effective version's content, its validated part families and its changes. */
+export async function getRecipePage(recipeId: string) {
+  const db = getDb();
+  const [row] = await db.select({ recipe: recipes, system: cleaningSystems }).from(recipes).innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId)).where(eq(recipes.id, recipeId));
+  if (!row) return undefined;
+  const versions = await db.select().from(recipeVersions).where(eq(recipeVersions.recipeId, recipeId)).orderBy(desc(recipeVersions.version));
+  const effective = versions.find((v) => v.status === "effective") ?? null;
+  const content = effective ? await loadRecipeSnapshot(db, effective.id) : null;
+  const intervals = effective
+    ? await db
+        .select({ interval: requalificationIntervals, family: partFamilies })
+        .from(requalificationIntervals)
+        .innerJoin(partFamilies, eq(partFamilies.id, requalificationIntervals.partFamilyId))
+        .where(eq(requalificationIntervals.recipeVersionId, effective.id))
+    : [];
+  const changes = await db.select().from(changeRequests).where(eq(changeRequests.recipeId, recipeId)).orderBy(desc(changeRequests.createdAt));
+  return { ...row, versions, effective, content, intervals, changes };
+}
+
+export async function getMatrixPage() {
+  const db = getDb();
+  const [matrix, versions] = await Promise.all([getEffectiveMatrix(db), db.select().from(requalificationMatrices).orderBy(desc(requalificationMatrices.version))]);
+  return { matrix, versions };
+}

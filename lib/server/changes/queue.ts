@@ -1,0 +1,51 @@
+import "server-only";
+import { eq, inArray } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { changeRequests, changeRequestTests, recipes } from "@/db/schema";
+import { can } from "@/lib/auth/permissions";
+import { OPEN_STATUSES } from "@/lib/recipes/change-workflow";
+import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
+import { dueRequalifications } from "./due-requalifications";
+import { loadGate } from "./snapshot";
+
+/** Change-control steps waiting for this user, and periodic requalifications falling due. */
+export const changesQueue: QueueProvider = async (user, now) => {
+  const db = getDb();
+  const items: QueueItem[] = [];
+  const open = await db
+    .select({ cr: changeRequests, recipeCode: recipes.code })
+    .from(changeRequests)
+    .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
+    .where(inArray(changeRequests.status, OPEN_STATUSES));
+  const tests = open.length ? await db.select().from(changeRequestTests).where(inArray(changeRequestTests.changeRequestId, open.map((o) => o.cr.id))) : [];
+  const mine = (id: string) => id === user.id;
+  for (const { cr, recipeCode } of open) {
+    const push = (kind: string, detail: string) => items.push({ id: `change:${cr.id}:${kind}`, kind, title: `${cr.number} ${cr.title}`, detail: `${recipeCode} · ${detail}`, href: `/changes/${cr.id}`, due: null });
+    const required = tests.filter((t) => t.changeRequestId === cr.id).length;
+    if (cr.status === "draft" && mine(cr.createdBy)) push("Change draft", "complete the proposal and submit the impact assessment");
+    if (cr.status === "impact_assessed" && can(user.roles, "change.approve")) push("Change approval", `${cr.impact} change to approve or reject`);
+    if (cr.status === "approved_for_implementation") {
+      if (required > 0 && mine(cr.createdBy)) push("Requalification", "approved: start requalification");
+      if (required === 0 && can(user.roles, "change.verify")) push("Change verification", "approved, no tests required: verify");
+    }
+    if (cr.status === "requalification") {
+      const { gate } = await loadGate(db, cr.id);
+      if (!gate.holds && can(user.roles, "evidence.record")) push("Requalification tests", `${gate.missing.length} item${gate.missing.length > 1 ? "s" : ""} missing`);
+      if (gate.holds && can(user.roles, "change.verify")) push("Change verification", "requalification evidence complete: verify");
+    }
+    if (cr.status === "verified" && can(user.roles, "recipe.make_effective")) push("Close change", "verified: close to make the new version effective");
+  }
+  if (can(user.roles, "change.draft")) {
+    for (const d of await dueRequalifications(db, now)) {
+      items.push({
+        id: `requalification:${d.interval.id}`,
+        kind: d.state === "overdue" ? "Requalification overdue" : "Requalification due",
+        title: `${d.recipe.code} v${d.version.version} × ${d.family.code}`,
+        detail: `Periodic requalification every ${d.interval.intervalMonths} months; last ${d.interval.lastQualifiedAt.slice(0, 10)}`,
+        href: `/systems/recipes/${d.recipe.id}`,
+        due: d.due,
+      });
+    }
+  }
+  return items;
+};

@@ -1,0 +1,73 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { changeRequestAssessments, changeRequests, documentVersions } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import { assess, raiseProblem } from "@/lib/recipes/assess";
+import type { Proposal } from "@/lib/schemas/change";
+import { UserFacingError } from "@/lib/server/errors";
+import { narrativeDocument, narrativeText } from "@/lib/recipes/change-content";
+import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
+
+/**
+ * Saves the engineer's proposal on a draft change request: the proposed recipe
+ * version's stages and parameters, the justification, and any raised class.
+ * The audit event records the parameter rows that differ from the last save.
+ */
+export async function saveProposal(actor: AuditActor & { id: string }, input: Proposal, now = new Date()) {
+  await getDb().transaction(async (tx) => {
+    const [cr] = await tx.select().from(changeRequests).where(eq(changeRequests.id, input.changeRequestId));
+    if (!cr || !cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("That change request does not exist.");
+    if (cr.status !== "draft") throw new UserFacingError("Only a draft change request can be edited: reopen it first.");
+    const [a] = await tx.select().from(changeRequestAssessments).where(eq(changeRequestAssessments.changeRequestId, cr.id));
+
+    const before = await loadRecipeSnapshot(tx, cr.toVersionId);
+    const from = await loadRecipeSnapshot(tx, cr.fromVersionId);
+    const computed = assess({ from, to: input.recipe, newPartFamily: input.kind === "new_part_family" ? input.partFamilyId : null, raisedTo: null, matrix: [] }).computed;
+    const problem = raiseProblem(computed, input.raiseTo);
+    if (problem) throw new UserFacingError(problem, "raiseTo");
+
+    await writeRecipeContent(tx, cr.toVersionId, input.recipe);
+    await tx.update(changeRequests).set({ title: input.title }).where(eq(changeRequests.id, cr.id));
+    const raisedTo = input.raiseTo && input.raiseTo !== computed ? input.raiseTo : null;
+    await tx
+      .update(changeRequestAssessments)
+      .set({ kind: input.kind, partFamilyId: input.kind === "new_part_family" ? input.partFamilyId : null, raisedTo, raiseReason: raisedTo ? input.raiseReason : null, updatedAt: now.toISOString() })
+      .where(eq(changeRequestAssessments.changeRequestId, cr.id));
+
+    let narrativeChanged = false;
+    if (cr.narrativeDocumentId) {
+      const [v] = await tx.select().from(documentVersions).where(eq(documentVersions.documentId, cr.narrativeDocumentId));
+      if (v && narrativeText(v.content) !== input.narrative.trim()) {
+        narrativeChanged = true;
+        await tx
+          .update(documentVersions)
+          .set({ content: narrativeDocument(input.narrative), lockVersion: v.lockVersion + 1, updatedAt: now.toISOString() })
+          .where(eq(documentVersions.id, v.id));
+        await appendAudit(tx, actor, { action: "change_narrative.saved", recordType: "document_version", recordId: v.id, old: { text: narrativeText(v.content) }, new: { text: input.narrative.trim() } }, now);
+      }
+    }
+
+    const changedRows = assess({ from: before, to: input.recipe, newPartFamily: null, raisedTo: null, matrix: [] }).diff.parameters.filter((p) => p.change !== "unchanged");
+    await appendAudit(
+      tx,
+      actor,
+      {
+        action: "change.proposal_saved",
+        recordType: "change_request",
+        recordId: cr.id,
+        old: { title: cr.title, kind: a.kind, raisedTo: a.raisedTo },
+        new: {
+          title: input.title,
+          kind: input.kind,
+          raisedTo,
+          computedImpact: computed,
+          narrativeChanged,
+          parameters: changedRows.map((p) => ({ key: p.key, old: p.old && { setpoint: p.old.setpoint, unit: p.old.unit, low: p.old.validatedLow, high: p.old.validatedHigh }, new: p.new && { setpoint: p.new.setpoint, unit: p.new.unit, low: p.new.validatedLow, high: p.new.validatedHigh } })),
+        },
+        reason: raisedTo ? input.raiseReason : null,
+      },
+      now,
+    );
+  });
+}

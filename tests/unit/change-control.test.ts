@@ -1,0 +1,259 @@
+import { and, desc, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import {
+  auditEvents,
+  changeRequests,
+  emailOutbox,
+  partFamilies,
+  recipes,
+  recipeVersions,
+  requalificationIntervals,
+  signatures,
+  testResults,
+  testRuns,
+  users,
+  type TestRun,
+} from "@/db/schema";
+import { seedDemo } from "@/db/seed";
+import { DEMO_PASSWORD } from "@/db/seed-data";
+import { proposalSchema } from "@/lib/schemas/change";
+import { approveChange } from "@/lib/server/changes/approve-change";
+import { assessChange } from "@/lib/server/changes/assess-change";
+import { closeChange } from "@/lib/server/changes/close-change";
+import { linkEvidence } from "@/lib/server/changes/link-evidence";
+import { openChangeRequest } from "@/lib/server/changes/open-change-request";
+import { changesQueue } from "@/lib/server/changes/queue";
+import { reopenChange } from "@/lib/server/changes/reopen-change";
+import { saveProposal } from "@/lib/server/changes/save-proposal";
+import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
+import { sendRequalificationReminders } from "@/lib/server/changes/send-requalification-reminders";
+import { startRequalification } from "@/lib/server/changes/start-requalification";
+import { loadChangeState } from "@/lib/server/changes/state";
+import { verifyChange } from "@/lib/server/changes/verify-change";
+import { versionMatrix } from "@/lib/server/matrix/version-matrix";
+import { createTestDatabase } from "./support/test-db";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+const people: Record<string, { id: string; name: string }> = {};
+
+async function user(email: string) {
+  const [u] = await t.db.select().from(users).where(eq(users.email, email));
+  return { id: u.id, name: u.name };
+}
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  await seedDemo(t.db);
+  for (const role of ["engineer", "approver", "reviewer", "technician", "admin"]) people[role] = await user(`${role}@fennmoor.example`);
+});
+afterAll(() => t.cleanup());
+
+async function proposalFor(changeRequestId: string, edit: (p: Record<string, unknown>) => void, extra: Record<string, unknown> = {}) {
+  const s = await loadChangeState(t.db, changeRequestId);
+  const recipe = {
+    detergent: s.to.detergent ?? "",
+    notes: s.to.notes ?? "",
+    stages: s.to.stages.map((st) => ({ ...st, parameters: st.parameters.map((p) => ({ ...p, setpoint: String(p.setpoint), validatedLow: p.validatedLow === null ? "" : String(p.validatedLow), validatedHigh: p.validatedHigh === null ? "" : String(p.validatedHigh) })) })),
+  };
+  for (const st of recipe.stages) for (const p of st.parameters) edit(p as unknown as Record<string, unknown>);
+  return { changeRequestId, title: s.cr.title, kind: "parameter_change", partFamilyId: "", narrative: "Heavier chip load.\n\nRisk: burns at the tank; requalify.", raiseTo: "", raiseReason: "", recipe, ...extra };
+}
+
+const signing = async (id: string) => ({ changeRequestId: id, password: DEMO_PASSWORD, contentHash: (await loadChangeState(t.db, id)).contentHash });
+
+async function addRun(input: { crId: string; versionId: string; testType: TestRun["testType"]; number: string; samples: number; outcome: TestRun["outcome"]; status: TestRun["status"]; performer?: string; verifier?: string }) {
+  const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
+  const [run] = await t.db
+    .insert(testRuns)
+    .values({ number: input.number, partFamilyId: family.id, recipeVersionId: input.versionId, testType: input.testType, status: input.status, outcome: input.outcome, createdBy: people.technician.id })
+    .returning();
+  await t.db.insert(testResults).values(Array.from({ length: input.samples }, (_, i) => ({ runId: run.id, sampleLabel: `S${i + 1}`, data: { counts: {} } })));
+  const at = new Date().toISOString();
+  if (input.performer) await t.db.insert(signatures).values({ recordType: "test_run", recordId: run.id, userId: input.performer, printedName: "p", meaning: "performed", signedAt: at, contentHash: "h" });
+  if (input.verifier) await t.db.insert(signatures).values({ recordType: "test_run", recordId: run.id, userId: input.verifier, printedName: "v", meaning: "verified", signedAt: at, contentHash: "h" });
+  return run;
+}
+
+describe("periodic requalification", () => {
+  it("sends a reminder once for a requalification falling due within 30 days, and lists it in My queue", async () => {
+    const before = (await t.db.select().from(emailOutbox)).length;
+    expect(await sendRequalificationReminders()).toBeGreaterThanOrEqual(1);
+    const mails = (await t.db.select().from(emailOutbox)).slice(before);
+    expect(mails.some((m) => m.subject.includes("Requalification due") && m.to === "engineer@fennmoor.example")).toBe(true);
+    expect(await sendRequalificationReminders()).toBe(0);
+    const engineer = { ...people.engineer, email: "engineer@fennmoor.example", roles: ["engineer" as const], mustChangePassword: false };
+    const items = await changesQueue(engineer as never, new Date());
+    expect(items.some((i) => i.kind === "Requalification due" && i.title.startsWith("R-SC1-SF") === false)).toBe(true);
+    const technician = { ...people.technician, email: "technician@fennmoor.example", roles: ["technician" as const], mustChangePassword: false };
+    const techItems = await changesQueue(technician as never, new Date());
+    expect(techItems.find((i) => i.title.startsWith("CR-2026-002"))?.kind).toBe("Requalification tests");
+  });
+});
+
+describe("requalification interval", () => {
+  it("changes with a reason, refuses the same value, and re-arms the reminder", async () => {
+    const [row] = await t.db.select().from(requalificationIntervals).where(eq(requalificationIntervals.intervalMonths, 12));
+    await expect(setRequalificationInterval(people.engineer, { intervalId: row.id, intervalMonths: 12, reason: "No change" })).rejects.toMatchObject({ field: "intervalMonths" });
+    await setRequalificationInterval(people.engineer, { intervalId: row.id, intervalMonths: 6, reason: "Customer asks for half-yearly checks" });
+    const [after] = await t.db.select().from(requalificationIntervals).where(eq(requalificationIntervals.id, row.id));
+    expect(after).toMatchObject({ intervalMonths: 6, notifiedForDue: null });
+    const [event] = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, row.id)).orderBy(desc(auditEvents.seq)).limit(1);
+    expect(event).toMatchObject({ action: "requalification_interval.set", reason: "Customer asks for half-yearly checks" });
+    await setRequalificationInterval(people.engineer, { intervalId: row.id, intervalMonths: 12, reason: "Back to yearly" });
+  });
+});
+
+describe("a major change from proposal to closure", () => {
+  let crId = "";
+  let toVersionId = "";
+  let recipeId = "";
+
+  it("opens against the effective version with a proposed copy, and refuses a second open change", async () => {
+    const [recipe] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB"));
+    recipeId = recipe.id;
+    const cr = await openChangeRequest(people.engineer, { recipeId, title: "Wash valve bodies at 70 °C", kind: "parameter_change" });
+    crId = cr.id;
+    toVersionId = cr.toVersionId!;
+    const [v] = await t.db.select().from(recipeVersions).where(eq(recipeVersions.id, toVersionId));
+    expect(v).toMatchObject({ version: 3, status: "proposed" });
+    await expect(openChangeRequest(people.engineer, { recipeId, title: "Another change", kind: "parameter_change" })).rejects.toThrow(/already open/);
+  });
+
+  it("computes major with the matrix's tests and sample sizes when the wash temperature leaves its range", async () => {
+    const input = proposalSchema.parse(await proposalFor(crId, (p) => p.key === "wash.temperature" && (p.setpoint = "70")));
+    await saveProposal(people.engineer, input);
+    const s = await loadChangeState(t.db, crId);
+    expect(s.assessment.computed).toBe("major");
+    // Success run, C 95 % / R 90 % → 29 [derived, standards.md §4].
+    expect(s.requirements.map((r) => [r.testType, r.samples])).toEqual([
+      ["gravimetric", 29],
+      ["particle_cleanliness", 29],
+    ]);
+  });
+
+  it("refuses to lower the class below the computed one", async () => {
+    const input = proposalSchema.parse(await proposalFor(crId, (p) => p.key === "wash.temperature" && (p.setpoint = "70"), { raiseTo: "minor", raiseReason: "I think it is fine" }));
+    await expect(saveProposal(people.engineer, input)).rejects.toMatchObject({ field: "raiseTo" });
+  });
+
+  it("signs authored at submission; the author may not approve; an approver does", async () => {
+    await assessChange(people.engineer, await signing(crId));
+    const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.id, crId));
+    expect(cr).toMatchObject({ status: "impact_assessed", impact: "major" });
+    await expect(approveChange(people.engineer, await signing(crId))).rejects.toThrow(/another person/);
+    await approveChange(people.approver, await signing(crId));
+    await startRequalification(people.engineer, { changeRequestId: crId });
+    const mails = await t.db.select().from(emailOutbox);
+    expect(mails.some((m) => m.to === "approver@fennmoor.example" && m.subject.includes("impact assessed"))).toBe(true);
+    expect(mails.some((m) => m.to === "technician@fennmoor.example" && m.text.includes("Particle cleanliness on 29 parts"))).toBe(true);
+  });
+
+  it("refuses verification and closure with each requirement missing in turn, naming exactly what is missing", async () => {
+    await expect(verifyChange(people.reviewer, await signing(crId))).rejects.toThrow(/Missing: Gravimetric residue \(29 samples\): no test run linked; Particle cleanliness \(29 samples\): no test run linked/);
+    await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow(/no test run linked/);
+
+    const s = await loadChangeState(t.db, crId);
+    const reqs = (await import("@/lib/server/changes/snapshot")).loadGate;
+    const { requirements } = await reqs(t.db, crId);
+    const particle = requirements.find((r) => r.testType === "particle_cleanliness")!;
+    const gravimetric = requirements.find((r) => r.testType === "gravimetric")!;
+    const tech = people.technician.id;
+    const eng = people.engineer.id;
+
+    const good = await addRun({ crId, versionId: toVersionId, testType: "gravimetric", number: "T-G1", samples: 29, outcome: "pass", status: "verified", performer: tech, verifier: eng });
+    await linkEvidence(people.engineer, { changeRequestId: crId, requirementId: gravimetric.id, testRunId: good.id });
+
+    const cases = [
+      { number: "T-P1", samples: 29, outcome: "fail" as const, status: "verified" as const, performer: tech, verifier: eng, missing: "T-P1 computed outcome is fail, not pass" },
+      { number: "T-P2", samples: 20, outcome: "pass" as const, status: "verified" as const, performer: tech, verifier: eng, missing: "T-P2 has 20 samples, 29 required" },
+      { number: "T-P3", samples: 29, outcome: "pass" as const, status: "performed" as const, performer: tech, verifier: undefined, missing: "T-P3 is not verified by a second person" },
+      { number: "T-P4", samples: 29, outcome: "pass" as const, status: "verified" as const, performer: tech, verifier: tech, missing: "T-P4 is not verified by a second person" },
+    ];
+    for (const c of cases) {
+      const run = await addRun({ crId, versionId: toVersionId, testType: "particle_cleanliness", ...c });
+      await linkEvidence(people.engineer, { changeRequestId: crId, requirementId: particle.id, testRunId: run.id });
+      const refusal = verifyChange(people.reviewer, await signing(crId));
+      await expect(refusal).rejects.toThrow(c.missing);
+      await expect(refusal).rejects.not.toThrow(/Gravimetric/);
+    }
+    // Evidence on another version, or of another test type, is refused outright.
+    const other = await addRun({ crId, versionId: s.fromVersion.id, testType: "particle_cleanliness", number: "T-X1", samples: 29, outcome: "pass", status: "verified", performer: tech, verifier: eng });
+    await expect(linkEvidence(people.engineer, { changeRequestId: crId, requirementId: particle.id, testRunId: other.id })).rejects.toThrow(/another recipe version/);
+    await expect(linkEvidence(people.engineer, { changeRequestId: crId, requirementId: particle.id, testRunId: good.id })).rejects.toThrow(/not a particle cleanliness test/);
+  });
+
+  it("passes once every requirement is met, and closing leaves exactly one effective version", async () => {
+    const { loadGate } = await import("@/lib/server/changes/snapshot");
+    const particle = (await loadGate(t.db, crId)).requirements.find((r) => r.testType === "particle_cleanliness")!;
+    const run = await addRun({ crId, versionId: toVersionId, testType: "particle_cleanliness", number: "T-P5", samples: 30, outcome: "pass", status: "verified", performer: people.technician.id, verifier: people.reviewer.id });
+    await linkEvidence(people.technician, { changeRequestId: crId, requirementId: particle.id, testRunId: run.id });
+    await verifyChange(people.reviewer, await signing(crId));
+    await closeChange(people.approver, { changeRequestId: crId });
+
+    const versions = await t.db.select().from(recipeVersions).where(eq(recipeVersions.recipeId, recipeId));
+    expect(versions.filter((v) => v.status === "effective").map((v) => v.version)).toEqual([3]);
+    expect(versions.find((v) => v.version === 2)?.status).toBe("superseded");
+    const events = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, toVersionId));
+    expect(events.map((e) => e.action)).toContain("recipe_version.effective");
+    const [interval] = await t.db.select().from(requalificationIntervals).where(eq(requalificationIntervals.recipeVersionId, toVersionId));
+    expect(interval.intervalMonths).toBe(12);
+  });
+
+  it("the database itself refuses a second effective version", async () => {
+    const [v2] = await t.db.select().from(recipeVersions).where(and(eq(recipeVersions.recipeId, recipeId), eq(recipeVersions.version, 2)));
+    await expect(t.db.update(recipeVersions).set({ status: "effective" }).where(eq(recipeVersions.id, v2.id))).rejects.toThrow();
+  });
+});
+
+describe("reopening and revisions", () => {
+  it("reopening starts a new revision: earlier signatures stay with the earlier revision, and the author may sign again", async () => {
+    const [recipe] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB"));
+    const cr = await openChangeRequest(people.engineer, { recipeId: recipe.id, title: "Shorter rinse", kind: "parameter_change" });
+    await saveProposal(people.engineer, proposalSchema.parse(await proposalFor(cr.id, (p) => p.key === "rinse.time" && (p.setpoint = "80"))));
+    expect((await loadChangeState(t.db, cr.id)).impact).toBe("minor");
+    await assessChange(people.engineer, await signing(cr.id));
+    await reopenChange(people.engineer, { changeRequestId: cr.id, reason: "Add the customer's note" });
+    const s = await loadChangeState(t.db, cr.id);
+    expect(s.signatureRecordId).toBe(`${cr.id}#2`);
+    await assessChange(people.engineer, await signing(cr.id));
+    const sigs = await t.db.select().from(signatures).where(eq(signatures.userId, people.engineer.id));
+    expect(sigs.filter((x) => x.recordId.startsWith(cr.id)).map((x) => x.recordId).sort()).toEqual([`${cr.id}#1`, `${cr.id}#2`]);
+    // A minor change has no tests: approval, then verification, then closure.
+    await approveChange(people.approver, await signing(cr.id));
+    await expect(startRequalification(people.engineer, { changeRequestId: cr.id })).rejects.toThrow(/no requalification tests/);
+    await verifyChange(people.reviewer, await signing(cr.id));
+    await closeChange(people.approver, { changeRequestId: cr.id });
+  });
+});
+
+describe("bad input on the proposal", () => {
+  it("names each impossible value at its own field", async () => {
+    const [recipe] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB"));
+    const cr = await openChangeRequest(people.engineer, { recipeId: recipe.id, title: "Bad values", kind: "parameter_change" });
+    const raw = await proposalFor(cr.id, (p) => {
+      if (p.key === "wash.temperature") p.setpoint = "105";
+      if (p.key === "wash.time") p.setpoint = "-30";
+      if (p.key === "rinse.spray_pressure") Object.assign(p, { validatedLow: "5", validatedHigh: "2" });
+      if (p.key === "wash.concentration") p.unit = "bar";
+    });
+    const result = proposalSchema.safeParse(raw);
+    expect(result.success).toBe(false);
+    const paths = Object.fromEntries(result.error!.issues.map((i) => [i.path.join("."), i.message]));
+    expect(paths["recipe.stages.0.parameters.0.setpoint"]).toMatch(/boils/);
+    expect(paths["recipe.stages.0.parameters.1.setpoint"]).toMatch(/negative/);
+    expect(paths["recipe.stages.0.parameters.2.unit"]).toMatch(/not "bar"/);
+    expect(paths["recipe.stages.1.parameters.2.validatedLow"]).toMatch(/above the validated high/);
+  });
+});
+
+describe("requalification matrix", () => {
+  it("versions the matrix and keeps one in force", async () => {
+    const m = await versionMatrix(people.admin, { note: "Stricter drying tests", rows: [{ subject: "parameter:drying_temperature", testType: "dryness", confidencePct: 95, reliabilityPct: 95 }] });
+    expect(m.version).toBe(2);
+    const { getEffectiveMatrix } = await import("@/lib/server/changes/state");
+    const eff = await getEffectiveMatrix(t.db);
+    expect(eff?.version).toBe(2);
+    expect(eff?.rows).toHaveLength(1);
+  });
+
+});
