@@ -144,7 +144,7 @@ test("a stale save is refused with the text kept, an oversized draft is refused,
   await editor.getByText("Scope", { exact: true }).click();
   await page.keyboard.press("End");
   await page.keyboard.insertText(` ${"rinse ".repeat(380_000)}END-OF-LONG-TEXT`);
-  await expect(page.getByRole("alert").filter({ hasText: "MB" })).toContainText("the limit is 2 MB. Nothing was saved and your text is still in the editor", { timeout: 30_000 });
+  await expect(page.getByRole("alert").filter({ hasText: "MB" })).toContainText("the limit is 2 MB. Nothing was saved and your text is still in the editor", { timeout: 90_000 });
   await expect(editor).toContainText("END-OF-LONG-TEXT");
 
   await other.reload();
