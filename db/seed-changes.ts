@@ -77,7 +77,17 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       .insert(documents)
       .values({ number: `CN-${input.number.slice(3)}`, title: `Justification and risk assessment, ${input.number}`, type: "change_narrative", recipeVersionId: input.toId, ownerId: engineer.id, createdAt: input.openedAt })
       .returning();
-    await tx.insert(documentVersions).values({ documentId: doc.id, version: 1, content, createdBy: engineer.id, createdAt: input.openedAt });
+    // The narrative follows its change: approved while requalifying, effective once closed.
+    await tx.insert(documentVersions).values({
+      documentId: doc.id,
+      version: 1,
+      status: input.status === "closed" ? "effective" : "approved",
+      content,
+      contentHash: sha256Hex(canonicalJson(content)),
+      effectiveDate: input.closedAt?.slice(0, 10) ?? null,
+      createdBy: engineer.id,
+      createdAt: input.openedAt,
+    });
     const [cr] = await tx
       .insert(changeRequests)
       .values({

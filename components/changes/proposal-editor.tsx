@@ -14,7 +14,6 @@ import { CHANGE_KIND_LABELS, type ChangeKind } from "@/lib/recipes/change-workfl
 import type { RecipeSnapshot } from "@/lib/recipes/diff";
 import { hazardsOfStages } from "@/lib/recipes/hazards";
 import { PARAMETER_KIND_LABELS, UNITS_BY_KIND } from "@/lib/recipes/units";
-import { NARRATIVE_MAX } from "@/lib/schemas/change";
 
 type Text = string;
 interface ParamDraft {
@@ -44,7 +43,6 @@ export interface ProposalEditorProps {
   kind: ChangeKind;
   partFamilyId: string | null;
   families: { id: string; code: string; name: string }[];
-  narrative: string;
   raisedTo: string | null;
   raiseReason: string | null;
   computed: string;
@@ -60,7 +58,6 @@ export function ProposalEditor(props: ProposalEditorProps) {
   const [title, setTitle] = useState(props.title);
   const [kind, setKind] = useState<ChangeKind>(props.kind);
   const [partFamilyId, setPartFamilyId] = useState(props.partFamilyId ?? "");
-  const [narrative, setNarrative] = useState(props.narrative);
   const [raiseTo, setRaiseTo] = useState(props.raisedTo ?? "");
   const [raiseReason, setRaiseReason] = useState(props.raiseReason ?? "");
   const [detergent, setDetergent] = useState(props.recipe.detergent ?? "");
@@ -80,7 +77,6 @@ export function ProposalEditor(props: ProposalEditorProps) {
     title,
     kind,
     partFamilyId,
-    narrative,
     raiseTo,
     raiseReason,
     recipe: {
@@ -239,15 +235,6 @@ export function ProposalEditor(props: ProposalEditorProps) {
       <Button variant="secondary" onClick={() => setStages((all) => [...all, { uid: uid(), name: "", kind: "rinse", mode: "", parameters: [] }])}>
         <Plus className="h-4 w-4" aria-hidden="true" /> Add stage
       </Button>
-
-      <TextArea
-        label="Justification and risk assessment"
-        path="narrative"
-        value={narrative}
-        onChange={setNarrative}
-        rows={8}
-        hint={`Why the change, what could go wrong, how the risk is controlled. Blank lines separate paragraphs. Up to ${NARRATIVE_MAX.toLocaleString("en-GB")} characters.`}
-      />
 
       <div className="grid gap-4 md:grid-cols-[14rem_1fr]">
         <SelectInput

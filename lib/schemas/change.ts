@@ -55,8 +55,6 @@ export const recipeContentSchema = z
   });
 export type RecipeContent = z.output<typeof recipeContentSchema>;
 
-export const NARRATIVE_MAX = 20_000;
-
 /** What the engineer edits on a draft change request; the payload is the editor's JSON. */
 export const proposalSchema = z
   .object({
@@ -68,7 +66,6 @@ export const proposalSchema = z
       .optional()
       .transform((v) => v || null)
       .pipe(z.string().uuid().nullable()),
-    narrative: z.string().max(NARRATIVE_MAX, `Keep the justification under ${NARRATIVE_MAX} characters.`),
     raiseTo: z
       .string()
       .optional()

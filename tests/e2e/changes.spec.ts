@@ -28,7 +28,6 @@ test("impossible setpoints, a low above its high and a foreign unit get clear er
   await page.getByLabel("Setpoint of Wash time").fill("-30");
   await page.getByLabel("Validated low of Spray pressure").fill("6");
   await page.getByLabel("Unit of Detergent concentration").fill("bar");
-  await page.getByLabel("Justification and risk assessment").fill("Checking the limits.");
   await page.getByRole("button", { name: "Save proposal" }).click();
 
   await expect(page.getByRole("form", { name: "Proposed change" }).getByRole("alert")).toContainText("Nothing was saved");
@@ -38,7 +37,6 @@ test("impossible setpoints, a low above its high and a foreign unit get clear er
   await expect(page.getByText('Detergent concentration is given in % or g/L, not "bar".')).toBeVisible();
   await expect(page.getByLabel("Setpoint of Wash temperature")).toHaveValue("104");
   await expect(page.getByLabel("Setpoint of Wash time")).toHaveValue("-30");
-  await expect(page.getByLabel("Justification and risk assessment")).toHaveValue("Checking the limits.");
 
   // Withdrawn so the recipe is free again.
   await page.getByRole("button", { name: "Withdraw" }).click();
@@ -58,7 +56,11 @@ test("a wash temperature above its validated range is major, is requalified with
 
   await expect(page.getByRole("note").filter({ hasText: "hot bath" })).toBeVisible();
   await page.getByLabel("Setpoint of Bath temperature").fill("70");
-  await page.getByLabel("Justification and risk assessment").fill("Heavier chip load from the new line.\n\nRisk: hotter bath, burns at the tank; requalify cleanliness.");
+  // The justification is a change-narrative document in the documents editor, saved as it is typed.
+  const narrative = page.getByRole("textbox", { name: "Document text" });
+  await narrative.click();
+  await page.keyboard.type("Heavier chip load from the new line. Risk: hotter bath, burns at the tank; requalify cleanliness.");
+  await expect(page.getByRole("region", { name: "Justification and risk assessment" }).getByRole("status")).toContainText("All changes saved");
   await page.getByRole("button", { name: "Save proposal" }).click();
   await expect(page.getByText("Saved. The parameter diff")).toBeVisible();
 
@@ -73,6 +75,7 @@ test("a wash temperature above its validated range is major, is requalified with
 
   await sign(page, "Sign and submit impact assessment");
   await expect(page.getByRole("heading", { level: 1 }).locator("..")).toContainText("Impact assessed");
+  await expect(page.getByRole("region", { name: "Proposed version 3" })).toContainText("Heavier chip load from the new line.");
   const changeUrl = page.url();
 
   const approver = await as(browser, "approver", changeUrl);

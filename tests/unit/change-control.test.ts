@@ -16,7 +16,10 @@ import {
 } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
+import type { RichDoc } from "@/lib/documents/rich-text";
+import { narrativeDocument } from "@/lib/recipes/change-content";
 import { proposalSchema } from "@/lib/schemas/change";
+import { saveDraft } from "@/lib/server/documents/save-draft";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
 import { closeChange } from "@/lib/server/changes/close-change";
@@ -56,7 +59,13 @@ async function proposalFor(changeRequestId: string, edit: (p: Record<string, unk
     stages: s.to.stages.map((st) => ({ ...st, parameters: st.parameters.map((p) => ({ ...p, setpoint: String(p.setpoint), validatedLow: p.validatedLow === null ? "" : String(p.validatedLow), validatedHigh: p.validatedHigh === null ? "" : String(p.validatedHigh) })) })),
   };
   for (const st of recipe.stages) for (const p of st.parameters) edit(p as unknown as Record<string, unknown>);
-  return { changeRequestId, title: s.cr.title, kind: "parameter_change", partFamilyId: "", narrative: "Heavier chip load.\n\nRisk: burns at the tank; requalify.", raiseTo: "", raiseReason: "", recipe, ...extra };
+  return { changeRequestId, title: s.cr.title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe, ...extra };
+}
+
+/** The justification, saved through the documents editor's own service. */
+async function writeNarrative(changeRequestId: string, text: string) {
+  const s = await loadChangeState(t.db, changeRequestId);
+  await saveDraft({ ...people.engineer, roles: ["engineer"] }, { versionId: s.narrative!.id, lockVersion: s.narrative!.lockVersion, content: narrativeDocument(text) as RichDoc, overwrite: false });
 }
 
 const signing = async (id: string) => ({ changeRequestId: id, password: DEMO_PASSWORD, contentHash: (await loadChangeState(t.db, id)).contentHash });
@@ -137,9 +146,13 @@ describe("a major change from proposal to closure", () => {
   });
 
   it("signs authored at submission; the author may not approve; an approver does", async () => {
+    await expect(assessChange(people.engineer, await signing(crId))).rejects.toThrow(/Write the justification/);
+    await writeNarrative(crId, "Heavier chip load.\n\nRisk: burns at the tank; requalify.");
     await assessChange(people.engineer, await signing(crId));
     const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.id, crId));
     expect(cr).toMatchObject({ status: "impact_assessed", impact: "major" });
+    // The signed justification is frozen with the assessment.
+    await expect(writeNarrative(crId, "Changed after signing")).rejects.toThrow();
     await expect(approveChange(people.engineer, await signing(crId))).rejects.toThrow(/another person/);
     await approveChange(people.approver, await signing(crId));
     await startRequalification(people.engineer, { changeRequestId: crId });
@@ -211,6 +224,7 @@ describe("reopening and revisions", () => {
     const cr = await openChangeRequest(people.engineer, { recipeId: recipe.id, title: "Shorter rinse", kind: "parameter_change" });
     await saveProposal(people.engineer, proposalSchema.parse(await proposalFor(cr.id, (p) => p.key === "rinse.time" && (p.setpoint = "80"))));
     expect((await loadChangeState(t.db, cr.id)).impact).toBe("minor");
+    await writeNarrative(cr.id, "Shorter rinse is enough for the lighter parts.");
     await assessChange(people.engineer, await signing(cr.id));
     await reopenChange(people.engineer, { changeRequestId: cr.id, reason: "Add the customer's note" });
     const s = await loadChangeState(t.db, cr.id);

@@ -5,6 +5,7 @@ import { changeRequests } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
+import { setNarrativeStatus } from "./narrative-status";
 import { assertHash, assertStep } from "./guard";
 import { notifyNext } from "./notify";
 import { loadChangeState } from "./state";
@@ -18,6 +19,7 @@ export async function approveChange(actor: AuditActor & { id: string }, input: {
     assertHash(state, input.contentHash);
     await applySignature(tx, { signer, recordType: "change_request", recordId: state.signatureRecordId, meaning: "approved", contentHash: state.contentHash }, now);
     await tx.update(changeRequests).set({ status: "approved_for_implementation" }).where(eq(changeRequests.id, state.cr.id));
+    await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "approved", now);
     await appendAudit(tx, actor, { action: "change.approved", recordType: "change_request", recordId: state.cr.id, old: { status: "impact_assessed" }, new: { status: "approved_for_implementation", impact: state.impact } }, now);
     const tests = state.requirements.length;
     await notifyNext(tx, {

@@ -6,6 +6,7 @@ import { appendAudit, type AuditActor } from "@/lib/audit";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
 import { UserFacingError } from "@/lib/server/errors";
+import { setNarrativeStatus } from "./narrative-status";
 import { assertHash, assertStep } from "./guard";
 import { notifyNext } from "./notify";
 import { loadChangeState } from "./state";
@@ -39,6 +40,7 @@ export async function assessChange(actor: AuditActor & { id: string }, input: { 
       .update(changeRequestAssessments)
       .set({ computedImpact: assessment.computed, matrixId: state.matrixId, contentHash: state.contentHash, updatedAt: now.toISOString() })
       .where(eq(changeRequestAssessments.changeRequestId, state.cr.id));
+    await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "in_review", now);
     await applySignature(tx, { signer, recordType: "change_request", recordId: state.signatureRecordId, meaning: "authored", contentHash: state.contentHash }, now);
     await appendAudit(
       tx,

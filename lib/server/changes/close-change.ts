@@ -3,6 +3,7 @@ import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, recipeVersions, requalificationIntervals } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
+import { setNarrativeStatus } from "./narrative-status";
 import { assertStep } from "./guard";
 import { notifyNext } from "./notify";
 import { loadGate } from "./snapshot";
@@ -41,6 +42,7 @@ export async function closeChange(actor: AuditActor, input: { changeRequestId: s
     }
     await appendAudit(tx, actor, { action: "recipe_version.superseded", recordType: "recipe_version", recordId: old.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: at, by: state.toVersion.version, changeRequest: state.cr.number } }, now);
     await appendAudit(tx, actor, { action: "recipe_version.effective", recordType: "recipe_version", recordId: state.toVersion.id, old: { status: "proposed" }, new: { status: "effective", effectiveFrom: at, changeRequest: state.cr.number } }, now);
+    await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "effective", now);
     await appendAudit(tx, actor, { action: "change.closed", recordType: "change_request", recordId: state.cr.id, old: { status: "verified" }, new: { status: "closed", effectiveVersion: state.toVersion.version } }, now);
     await notifyNext(tx, { cr: state.cr, status: "closed", actorName: actor.name, nextStep: `${state.recipe.code} version ${state.toVersion.version} is effective; brief the operators on the new settings.`, userIds: [state.cr.createdBy] });
   });

@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, recipeVersions } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
+import { setNarrativeStatus } from "./narrative-status";
 import { assertStep } from "./guard";
 import { notifyNext } from "./notify";
 import { loadChangeState } from "./state";
@@ -15,6 +16,7 @@ export async function endChange(actor: AuditActor, input: { changeRequestId: str
     const status = input.how === "reject" ? "rejected" : "withdrawn";
     await tx.update(changeRequests).set({ status, closedAt: now.toISOString() }).where(eq(changeRequests.id, state.cr.id));
     await tx.update(recipeVersions).set({ status: "withdrawn" }).where(eq(recipeVersions.id, state.toVersion.id));
+    await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "retired", now);
     await appendAudit(tx, actor, { action: input.how === "reject" ? "change.rejected" : "change.withdrawn", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status }, new: { status }, reason: input.reason }, now);
     await appendAudit(tx, actor, { action: "recipe_version.withdrawn", recordType: "recipe_version", recordId: state.toVersion.id, old: { status: "proposed" }, new: { status: "withdrawn", changeRequest: state.cr.number }, reason: input.reason }, now);
     if (input.how === "reject") await notifyNext(tx, { cr: state.cr, status, actorName: actor.name, nextStep: `read the reason: ${input.reason}`, userIds: [state.cr.createdBy] });

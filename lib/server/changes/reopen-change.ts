@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequestAssessments, changeRequests, changeRequestTests } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
+import { setNarrativeStatus } from "./narrative-status";
 import { assertStep } from "./guard";
 import { loadChangeState } from "./state";
 
@@ -17,6 +18,7 @@ export async function reopenChange(actor: AuditActor, input: { changeRequestId: 
       .update(changeRequestAssessments)
       .set({ revision: state.assessmentRow.revision + 1, contentHash: null, computedImpact: null, matrixId: null, updatedAt: now.toISOString() })
       .where(eq(changeRequestAssessments.changeRequestId, state.cr.id));
+    await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "draft", now);
     await appendAudit(tx, actor, { action: "change.reopened", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status, revision: state.assessmentRow.revision }, new: { status: "draft", revision: state.assessmentRow.revision + 1 }, reason: input.reason }, now);
   });
 }

@@ -1,17 +1,17 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { changeRequestAssessments, changeRequests, documentVersions } from "@/db/schema";
+import { changeRequestAssessments, changeRequests } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { assess, raiseProblem } from "@/lib/recipes/assess";
 import type { Proposal } from "@/lib/schemas/change";
 import { UserFacingError } from "@/lib/server/errors";
-import { narrativeDocument, narrativeText } from "@/lib/recipes/change-content";
 import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
 
 /**
  * Saves the engineer's proposal on a draft change request: the proposed recipe
- * version's stages and parameters, the justification, and any raised class.
+ * version's stages and parameters, and any raised class. The justification is a
+ * change-narrative document, saved by the documents editor.
  * The audit event records the parameter rows that differ from the last save.
  */
 export async function saveProposal(actor: AuditActor & { id: string }, input: Proposal, now = new Date()) {
@@ -35,19 +35,6 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
       .set({ kind: input.kind, partFamilyId: input.kind === "new_part_family" ? input.partFamilyId : null, raisedTo, raiseReason: raisedTo ? input.raiseReason : null, updatedAt: now.toISOString() })
       .where(eq(changeRequestAssessments.changeRequestId, cr.id));
 
-    let narrativeChanged = false;
-    if (cr.narrativeDocumentId) {
-      const [v] = await tx.select().from(documentVersions).where(eq(documentVersions.documentId, cr.narrativeDocumentId));
-      if (v && narrativeText(v.content) !== input.narrative.trim()) {
-        narrativeChanged = true;
-        await tx
-          .update(documentVersions)
-          .set({ content: narrativeDocument(input.narrative), lockVersion: v.lockVersion + 1, updatedAt: now.toISOString() })
-          .where(eq(documentVersions.id, v.id));
-        await appendAudit(tx, actor, { action: "change_narrative.saved", recordType: "document_version", recordId: v.id, old: { text: narrativeText(v.content) }, new: { text: input.narrative.trim() } }, now);
-      }
-    }
-
     const changedRows = assess({ from: before, to: input.recipe, newPartFamily: null, raisedTo: null, matrix: [] }).diff.parameters.filter((p) => p.change !== "unchanged");
     await appendAudit(
       tx,
@@ -62,7 +49,6 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
           kind: input.kind,
           raisedTo,
           computedImpact: computed,
-          narrativeChanged,
           parameters: changedRows.map((p) => ({ key: p.key, old: p.old && { setpoint: p.old.setpoint, unit: p.old.unit, low: p.old.validatedLow, high: p.old.validatedHigh }, new: p.new && { setpoint: p.new.setpoint, unit: p.new.unit, low: p.new.validatedLow, high: p.new.validatedHigh } })),
         },
         reason: raisedTo ? input.raiseReason : null,

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { DiffView, ImpactWorking } from "@/components/changes/diff-view";
 import { ProposalEditor } from "@/components/changes/proposal-editor";
+import { DocumentEditorLoader } from "@/components/documents/document-editor-loader";
 import { LinkEvidenceForm, ReasonStep, StepButton } from "@/components/changes/step-forms";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
@@ -13,7 +14,8 @@ import { CHANGE_KIND_LABELS, CHANGE_STEPS, STATUS_LABELS, stepProblem, type Chan
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getChangeRequestPage } from "@/lib/server/changes/queries";
-import { narrativeText } from "@/lib/recipes/change-content";
+import { renderRichHtml } from "@/lib/documents/render-html";
+import type { RichDoc } from "@/lib/documents/rich-text";
 import {
   approveChangeAction,
   assessChangeAction,
@@ -39,7 +41,8 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
   const hidden = { changeRequestId: cr.id };
   const label = `${cr.number} revision ${page.assessmentRow.revision}`;
   const editing = cr.status === "draft" && can(user.roles, "recipe.edit");
-  const narrative = narrativeText(page.narrative?.content ?? null);
+  const narrative = page.narrative;
+  const editNarrative = editing && narrative?.status === "draft" && can(user.roles, "document.draft");
   const gateMatters = ["approved_for_implementation", "requalification", "verified"].includes(cr.status) && requirements.length > 0;
 
   return (
@@ -140,6 +143,16 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         <DiffView diff={assessment.diff} />
       </section>
 
+      {editNarrative && narrative && (
+        <section aria-labelledby="narrative" className="mb-8">
+          <h2 id="narrative" className="mb-1 text-lg font-semibold">
+            Justification and risk assessment
+          </h2>
+          <p className="mb-2 text-sm text-stone-600">Why the change, what could go wrong and how the risk is controlled. Saved as you type; frozen when you sign the impact assessment.</p>
+          <DocumentEditorLoader versionId={narrative.id} initialContent={narrative.content as RichDoc} initialLockVersion={narrative.lockVersion} />
+        </section>
+      )}
+
       <section aria-labelledby="proposal" className="mb-8">
         <h2 id="proposal" className="mb-2 text-lg font-semibold">
           {editing ? "Edit the proposal" : `Proposed version ${toVersion.version}`}
@@ -152,7 +165,6 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
             kind={page.assessmentRow.kind}
             partFamilyId={page.assessmentRow.partFamilyId}
             families={page.families}
-            narrative={narrative}
             raisedTo={page.assessmentRow.raisedTo}
             raiseReason={page.assessmentRow.raiseReason}
             computed={assessment.computed}
@@ -161,9 +173,12 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         ) : (
           <>
             <h3 className="text-base font-semibold">Justification and risk assessment</h3>
-            <div className="prose prose-stone prose-sm mt-1 max-w-3xl">
-              {narrative ? narrative.split("\n\n").map((p, i) => <p key={i}>{p}</p>) : <p className="text-stone-600">Not written.</p>}
-            </div>
+            {narrative ? (
+              // Sanitised on the server by the documents renderer.
+              <div className="prose prose-stone prose-sm mt-1 max-w-3xl" dangerouslySetInnerHTML={{ __html: renderRichHtml(narrative.content as RichDoc) }} />
+            ) : (
+              <p className="text-sm text-stone-600">Not written.</p>
+            )}
             <div className="mt-4 rounded-lg border border-stone-200 bg-white p-5">
               <RecipeTable content={page.to} caption={`Parameters of proposed version ${toVersion.version}`} />
             </div>
