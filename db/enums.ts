@@ -75,3 +75,6 @@ export type Role = (typeof ROLES)[number];
 export type ParameterKind = (typeof PARAMETER_KINDS)[number];
 export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
 export type SignedRecordType = (typeof SIGNED_RECORD_TYPES)[number];
+
+export const API_TOKEN_SCOPES = ["read", "read_write"] as const;
+export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];
