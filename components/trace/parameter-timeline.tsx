@@ -16,12 +16,7 @@ function valueText(v: ParameterValue | null) {
 /** Newest first: each value the parameter has had, with the change that brought it and the evidence behind it. */
 export function ParameterTimeline({ history, canExport }: { history: ParameterHistory; canExport: boolean }) {
   // Each entry's previous value is the last value in force before it (entries arrive oldest first).
-  let inForce: ParameterValue | null | undefined;
-  const rows = history.entries.map((entry) => {
-    const previous = inForce;
-    if (entry.period.kind === "in_force") inForce = entry.period.value;
-    return { entry, previous };
-  });
+  const rows = history.entries.map((entry, i) => ({ entry, previous: history.entries.slice(0, i).findLast((e) => e.period.kind === "in_force")?.period.value }));
   return (
     <ol aria-label="Parameter history" className="space-y-6">
       {rows.reverse().map(({ entry, previous }) => (

@@ -15,3 +15,12 @@ export function decodeCursor(cursor: string): { key: string; id: string } | null
   }
   return null;
 }
+
+/** A cursor the server did not issue: the caller's mistake (400), not a conflict. */
+export class BadCursorError extends Error {
+  readonly field = "cursor";
+  constructor() {
+    super("The cursor is not valid. Pass nextCursor from the previous page unchanged.");
+    this.name = "BadCursorError";
+  }
+}

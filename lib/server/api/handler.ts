@@ -1,6 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import type { z } from "zod";
+import { BadCursorError } from "@/lib/api/cursor";
 import type { Action } from "@/lib/auth/permissions";
 import { jsonError, zodFieldErrors } from "@/lib/http/json";
 import { UserFacingError } from "@/lib/server/errors";
@@ -25,6 +26,7 @@ export function apiRoute<P extends Params = Params>(rule: { action: Action; mode
     try {
       return await handler({ request, user: auth.user, params: await route.params });
     } catch (error) {
+      if (error instanceof BadCursorError) return jsonError(400, error.message, { cursor: [error.message] });
       if (error instanceof UserFacingError) return jsonError(409, error.message, error.field ? { [error.field]: [error.message] } : undefined);
       console.error(error);
       return jsonError(500, "Something went wrong on the server. Nothing was changed; try again.");
