@@ -1,9 +1,17 @@
-/** Runs once when the server starts: a timer retries queued e-mail (the outbox); another sends requalification reminders. */
+/**
+ * Runs once when the server starts: a timer retries queued e-mail (the outbox),
+ * reminds people of overdue document reviews and makes approved documents
+ * effective on their date; another sends requalification reminders.
+ */
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { deliverDueEmails } = await import("@/lib/email/deliver");
+  const { notifyOverdueReviews } = await import("@/lib/server/documents/notify-overdue-reviews");
+  const { makeDueVersionsEffective } = await import("@/lib/server/documents/make-effective");
   const timer = setInterval(() => {
-    deliverDueEmails().catch((error) => console.error("e-mail delivery failed", error));
+    Promise.all([notifyOverdueReviews(), makeDueVersionsEffective()])
+      .then(() => deliverDueEmails())
+      .catch((error) => console.error("scheduled document and e-mail pass failed", error));
   }, 30_000);
   timer.unref();
   const { sendRequalificationReminders } = await import("@/lib/server/changes/send-requalification-reminders");

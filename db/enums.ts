@@ -76,5 +76,15 @@ export type ParameterKind = (typeof PARAMETER_KINDS)[number];
 export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
 export type SignedRecordType = (typeof SIGNED_RECORD_TYPES)[number];
 
+/** Document review routing: who signs in each step, and what they decided. */
+export const REVIEW_ROLES = ["reviewer", "approver"] as const;
+export const REVIEW_DECISIONS = ["reviewed", "sent_back", "approved", "rejected", "withdrawn"] as const;
+export const ROUTING_MODES = ["sequence", "parallel"] as const;
+
+export type DocumentType = (typeof DOCUMENT_TYPES)[number];
+export type DocumentStatus = (typeof DOCUMENT_STATUSES)[number];
+export type ReviewRole = (typeof REVIEW_ROLES)[number];
+export type ReviewDecision = (typeof REVIEW_DECISIONS)[number];
+export type RoutingMode = (typeof ROUTING_MODES)[number];
 export const API_TOKEN_SCOPES = ["read", "read_write"] as const;
 export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];

@@ -14,6 +14,9 @@ import {
   OUTCOMES,
   SIGNATURE_MEANINGS,
   SIGNED_RECORD_TYPES,
+  REVIEW_ROLES,
+  REVIEW_DECISIONS,
+  ROUTING_MODES,
   CHANGE_KINDS,
   MATRIX_STATUSES,
   API_TOKEN_SCOPES,
@@ -239,6 +242,13 @@ export const documentVersions = sqliteTable(
     /** Optimistic concurrency: every save must name the counter it read. */
     lockVersion: integer("lock_version").notNull().default(0),
     effectiveDate: text("effective_date"),
+    /** Each submission opens a new review round; earlier rounds stay as history. */
+    reviewRound: integer("review_round").notNull().default(0),
+    routing: text("routing", { enum: ROUTING_MODES }),
+    submittedAt: text("submitted_at"),
+    approvedAt: text("approved_at"),
+    /** Why this version exists, required once the document was ever approved (EU GMP Annex 11 §9). */
+    changeReason: text("change_reason"),
     createdBy: text("created_by").notNull().references(() => users.id),
     createdAt: createdAt(),
     updatedAt: text("updated_at"),
@@ -356,7 +366,8 @@ export const signatures = sqliteTable(
   },
   (t) => [
     index("signatures_record_idx").on(t.recordType, t.recordId),
-    uniqueIndex("signatures_once_uq").on(t.recordType, t.recordId, t.userId, t.meaning),
+    // A version returned to draft and resubmitted is new content: the same person may sign it again.
+    uniqueIndex("signatures_once_per_content_uq").on(t.recordType, t.recordId, t.userId, t.meaning, t.contentHash),
   ],
 );
 export type Signature = typeof signatures.$inferSelect;
@@ -408,6 +419,37 @@ export const emailOutbox = sqliteTable(
 );
 export type OutboxMessage = typeof emailOutbox.$inferSelect;
 
+// ── Document review routing ───────────────────────────────────────────────
+
+/**
+ * One person's step in the routing of a document version: reviewers sign
+ * "reviewed" or send back, the approver signs "approved" or rejects. Steps with
+ * the same number run in parallel; a step becomes active (activatedAt) once
+ * every earlier step has been decided.
+ */
+export const documentReviews = sqliteTable(
+  "document_reviews",
+  {
+    id: id(),
+    versionId: text("version_id").notNull().references(() => documentVersions.id),
+    round: integer("round").notNull(),
+    step: integer("step").notNull(),
+    role: text("role", { enum: REVIEW_ROLES }).notNull(),
+    assigneeId: text("assignee_id").notNull().references(() => users.id),
+    activatedAt: text("activated_at"),
+    dueAt: text("due_at"),
+    decision: text("decision", { enum: REVIEW_DECISIONS }),
+    comment: text("comment"),
+    decidedAt: text("decided_at"),
+    overdueNotifiedAt: text("overdue_notified_at"),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("document_reviews_version_idx").on(t.versionId, t.round),
+    index("document_reviews_assignee_idx").on(t.assigneeId, t.decision),
+  ],
+);
+export type DocumentReview = typeof documentReviews.$inferSelect;
 // ── Change control: requalification ───────────────────────────────────────
 
 /** Admin-maintained, versioned: editing makes a new version; a change request keeps the version it was assessed with. */

@@ -3,6 +3,7 @@ import { pathToFileURL } from "node:url";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
 import { hashPassword } from "@/lib/auth/password";
 import { getDb, type Database } from "./client";
+import { seedDemoDocuments } from "./seed-documents";
 import {
   cleaningSystems,
   cleanlinessSpecs,
@@ -130,6 +131,13 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     }
 
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
+    const person = (email: string) => {
+      const u = DEMO_USERS.find((x) => x.email === email)!;
+      return { id: userIds.get(email)!, name: u.name };
+    };
+    if (["engineer", "reviewer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`))) {
+      await seedDemoDocuments(tx, { engineer: person("engineer@fennmoor.example"), reviewer: person("reviewer@fennmoor.example"), approver: person("approver@fennmoor.example") });
+    }
   });
   return { seeded: true };
 }

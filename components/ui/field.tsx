@@ -9,11 +9,16 @@ export interface FieldProps extends InputHTMLAttributes<HTMLInputElement> {
   hint?: ReactNode;
 }
 
+/** The server's errors for one field of the enclosing ActionForm. */
+export function useFieldErrors(name: string): string[] | undefined {
+  const { state } = useFormResult();
+  return state && !state.ok ? state.fieldErrors?.[name] : undefined;
+}
+
 /** A labelled input whose server-side error appears right beside it. */
 export function Field({ name, label, hint, className = "", ...input }: FieldProps) {
   const id = useId();
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errors = useFieldErrors(name);
   const describedBy = [hint ? `${id}-hint` : null, errors ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;
   return (
     <div className={`space-y-1 ${className}`}>
@@ -44,8 +49,24 @@ export function Field({ name, label, hint, className = "", ...input }: FieldProp
 
 /** A group error (for checkboxes and the like) shown under its fieldset. */
 export function FieldError({ name }: { name: string }) {
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errors = useFieldErrors(name);
   if (!errors) return null;
   return <p className="text-sm text-red-800">{errors.join(" ")}</p>;
+}
+
+/** Label above, control, then the server's error: the frame SelectField and TextareaField share. */
+export function FieldFrame({ id, label, errors, className = "", children }: { id: string; label: string; errors?: string[]; className?: string; children: ReactNode }) {
+  return (
+    <div className={`space-y-1 ${className}`}>
+      <label htmlFor={id} className="block text-sm font-medium text-stone-800">
+        {label}
+      </label>
+      {children}
+      {errors && (
+        <p id={`${id}-error`} className="text-sm text-red-800">
+          {errors.join(" ")}
+        </p>
+      )}
+    </div>
+  );
 }

@@ -38,6 +38,7 @@ export const PERMISSIONS = {
   "document.submit": ["engineer"],
   "document.review": ["reviewer"],
   "document.approve": ["approver"],
+  "document.export": ALL,
   // Recipes and change control
   "recipe.edit": ["engineer"],
   "recipe.make_effective": ["approver"],

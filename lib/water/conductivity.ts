@@ -76,18 +76,58 @@ export type F25Point = {
 };
 
 /**
- * ISO 7888 (EN 27888) factors f25(T) for natural water, κ25 = f25(T) · κT. Only the factors we
- * can source are tabulated; temperatures outside them are refused rather than extrapolated.
+ * ISO 7888 (EN 27888) factors f25(T) for natural water, κ25 = f25(T) · κT, at whole degrees
+ * 0–35 °C [std, ISO 7888 table as reprinted in a conductivity meter's manual; 20 °C and 30 °C
+ * also as quoted in standards.md]. Between whole degrees we interpolate linearly (the
+ * table's own tenth-degree columns differ from that by at most 0.001); outside 0–35 °C the
+ * standard gives no factor, so we refuse rather than extrapolate.
  */
-export const ISO7888_F25: readonly F25Point[] = Object.freeze([
-  { temperatureC: 20, f25: 1.116, source: "[std] ISO 7888 f25(20 °C), as quoted" },
-  {
-    temperatureC: 25,
-    f25: 1,
-    source: "[derived] reference temperature: f25(25 °C) = 1 by definition",
-  },
-  { temperatureC: 30, f25: 0.903, source: "[std] ISO 7888 f25(30 °C), as quoted" },
-]);
+const F25_WHOLE_DEGREES = [
+  1.918,
+  1.857,
+  1.8,
+  1.745,
+  1.693,
+  1.643,
+  1.596,
+  1.551,
+  1.508,
+  1.467,
+  1.428,
+  1.39,
+  1.354,
+  1.32,
+  1.287,
+  1.256,
+  1.225,
+  1.196,
+  1.168,
+  1.141,
+  1.116,
+  1.091,
+  1.067,
+  1.044,
+  1.021,
+  1.0,
+  0.979,
+  0.959,
+  0.94,
+  0.921,
+  0.903,
+  0.886,
+  0.869,
+  0.853,
+  0.837,
+  0.822,
+] as const;
+
+export const ISO7888_F25: readonly F25Point[] = Object.freeze(
+  F25_WHOLE_DEGREES.map((f25, temperatureC) => ({
+    temperatureC,
+    f25,
+    source: temperatureC === 25 ? "[std] reference temperature: f25(25 °C) = 1" : "[std] ISO 7888 table of f25(T) for natural water",
+  })),
+);
 
 /** f25(T) interpolated linearly between the tabulated temperatures. */
 export function f25NaturalWater(temperatureC: number): number {

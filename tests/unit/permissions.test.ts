@@ -28,6 +28,7 @@ const EXPECTED: Record<Action, Role[]> = {
   "document.submit": ["engineer"],
   "document.review": ["reviewer"],
   "document.approve": ["approver"],
+  "document.export": [...ROLES],
   "recipe.edit": ["engineer"],
   "recipe.make_effective": ["approver"],
   "change.draft": ["engineer"],

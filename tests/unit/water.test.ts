@@ -60,17 +60,27 @@ describe("conductivityAt25CNonLinear (ISO 7888)", () => {
     expect(conductivityAt25CNonLinear(500, 25)).toBe(500);
   });
 
-  it("interpolates linearly between tabulated temperatures", () => {
-    // [derived] halfway between 20 and 25 °C: (1.116 + 1) / 2 = 1.058
-    expect(f25NaturalWater(22.5)).toBeCloseTo(1.058, 12);
-    expect(f25NaturalWater(27.5)).toBeCloseTo(0.9515, 12);
+  it("uses the published whole-degree factors across 0–35 °C", () => {
+    // [std] ISO 7888 table of f25 for natural water (as reprinted in a meter manual): 0 → 1.918, 10 → 1.428, 15 → 1.256, 35 → 0.822
+    expect(f25NaturalWater(0)).toBe(1.918);
+    expect(f25NaturalWater(10)).toBe(1.428);
+    expect(f25NaturalWater(15)).toBe(1.256);
+    expect(f25NaturalWater(35)).toBe(0.822);
+    // [std] the same table's tenth-degree column: f25(20.5 °C) = 1.103; linear interpolation gives 1.1035
+    expect(f25NaturalWater(20.5)).toBeCloseTo(1.103, 2);
+    expect(Math.abs(f25NaturalWater(20.5) - 1.103)).toBeLessThanOrEqual(0.001);
+  });
+
+  it("interpolates linearly between whole degrees", () => {
+    // [derived] halfway between 22 °C (1.067) and 23 °C (1.044)
+    expect(f25NaturalWater(22.5)).toBeCloseTo(1.0555, 12);
   });
 
   it("states the source of every factor and refuses temperatures outside the table", () => {
+    expect(ISO7888_F25).toHaveLength(36);
     expect(ISO7888_F25.every((p) => /^\[(std|derived|memory)\]/.test(p.source))).toBe(true);
-    expect(() => conductivityAt25CNonLinear(500, 19.9)).toThrow(/outside/);
-    expect(() => conductivityAt25CNonLinear(500, 30.1)).toThrow(WaterInputError);
-    expect(() => conductivityAt25CNonLinear(500, 5)).toThrow(RangeError);
+    expect(() => conductivityAt25CNonLinear(500, 35.1)).toThrow(/outside/);
+    expect(() => conductivityAt25CNonLinear(500, -0.5)).toThrow(RangeError);
     expect(() => conductivityAt25CNonLinear(-500, 22)).toThrow(RangeError);
   });
 });

@@ -1,13 +1,14 @@
 import "server-only";
 import type { SessionUser } from "@/lib/server/auth/sessions";
 import { changesQueue } from "@/lib/server/changes/queue";
+import { documentQueue } from "@/lib/server/documents/queue-provider";
 import type { QueueItem, QueueProvider } from "./types";
 
 /**
  * Features register their providers here (documents: reviews and approvals;
  * evidence: tests to perform or verify, bath maintenance; changes: steps to act on).
  */
-const PROVIDERS: QueueProvider[] = [changesQueue];
+const PROVIDERS: QueueProvider[] = [documentQueue, changesQueue];
 
 export interface QueueEntry extends QueueItem {
   overdue: boolean;

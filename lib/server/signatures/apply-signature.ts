@@ -19,13 +19,14 @@ export interface SignatureInput {
 /**
  * Writes a signature bound to the record's content hash, inside the caller's
  * transaction (with the state change it brings about), and audits it.
- * Refuses a second signature of the same meaning and the segregated pairs.
+ * Refuses a second signature of the same meaning and the segregated pairs on
+ * the same content: a version that was sent back and changed is new content.
  */
 export async function applySignature(tx: Tx, input: SignatureInput, now = new Date()) {
   const existing = await tx
     .select()
     .from(signatures)
-    .where(and(eq(signatures.recordType, input.recordType), eq(signatures.recordId, input.recordId)));
+    .where(and(eq(signatures.recordType, input.recordType), eq(signatures.recordId, input.recordId), eq(signatures.contentHash, input.contentHash)));
   const problem = segregationProblem(existing, { userId: input.signer.id, meaning: input.meaning });
   if (problem) throw new UserFacingError(problem);
   const signedAt = now.toISOString();

@@ -1,0 +1,245 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { FileDown, GitCompare, PenLine } from "lucide-react";
+import { RoutingTable } from "@/components/documents/routing-table";
+import { StatusBadge } from "@/components/documents/status-badge";
+import { SignatureDialog } from "@/components/signatures/signature-dialog";
+import { SignatureList } from "@/components/signatures/signature-list";
+import { ActionForm } from "@/components/ui/action-form";
+import { Field, FieldError } from "@/components/ui/field";
+import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
+import { SubmitButton } from "@/components/ui/submit-button";
+import { TextareaField } from "@/components/ui/textarea-field";
+import { can } from "@/lib/auth/permissions";
+import { checkTransition, TYPE_LABELS } from "@/lib/documents/lifecycle";
+import { renderRichHtml } from "@/lib/documents/render-html";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getDocumentAndVersion, listSigners } from "@/lib/server/documents/queries";
+import { hashContent } from "@/lib/server/documents/shared";
+import { approveAction, newVersionAction, rejectAction, retireAction, sendBackAction, signReviewAction, submitAction } from "../actions";
+
+export const metadata: Metadata = { title: "Document" };
+
+const linkButton = "inline-flex items-center gap-1.5 rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100";
+
+function Panel({ title, children }: { title: string; children: React.ReactNode }) {
+  return (
+    <section aria-label={title} className="rounded-lg border border-stone-200 bg-white p-4">
+      <h2 className="mb-3 font-semibold text-stone-900">{title}</h2>
+      {children}
+    </section>
+  );
+}
+
+export default async function DocumentPage({ params, searchParams }: { params: Promise<{ documentId: string }>; searchParams: Promise<{ version?: string }> }) {
+  const user = await requirePageUser("documents.view");
+  const { documentId } = await params;
+  const found = await getDocumentAndVersion(documentId, (await searchParams).version);
+  if (!found) notFound();
+  const { document, version } = found;
+
+  const now = new Date().toISOString();
+  const label = `${document.number} version ${version.version}`;
+  const hidden = { versionId: version.id, documentId };
+  const round = version.reviews.filter((r) => r.round === version.reviewRound);
+  const myStep = round.find((r) => r.assigneeId === user.id && r.decision === null && r.activatedAt !== null);
+  const allowed = (action: Parameters<typeof checkTransition>[1]) => checkTransition(version.status, action, user.roles).ok;
+  const isLatest = version.version === document.versions[0].version;
+  const hasOpenVersion = document.versions.some((v) => ["draft", "in_review", "approved"].includes(v.status));
+  const draftHash = version.status === "draft" ? hashContent(version.content) : null;
+  const signers = version.status === "draft" && allowed("submit") ? await listSigners() : null;
+  const current = version.signatures.filter((s) => s.contentHash === version.contentHash);
+  const earlier = version.signatures.filter((s) => s.contentHash !== version.contentHash);
+
+  return (
+    <>
+      <PageHeader
+        title={`${document.number} — ${document.title}`}
+        description={[
+          TYPE_LABELS[document.type],
+          document.system && `${document.system.code} ${document.system.name}`,
+          document.family && `${document.family.code} ${document.family.name}`,
+          document.recipe && `${document.recipe.code} version ${document.recipe.version}`,
+          `owner ${document.owner}`,
+        ]
+          .filter(Boolean)
+          .join(" · ")}
+        actions={
+          <>
+            {document.versions.length > 1 && (
+              <Link href={`/documents/${documentId}/compare`} className={linkButton}>
+                <GitCompare className="h-4 w-4" aria-hidden="true" /> Compare versions
+              </Link>
+            )}
+            <a href={`/api/documents/${documentId}/versions/${version.version}/pdf`} className={linkButton}>
+              <FileDown className="h-4 w-4" aria-hidden="true" /> Download PDF
+            </a>
+          </>
+        }
+      />
+
+      <nav aria-label="Versions" className="mb-4 flex flex-wrap gap-2 text-sm">
+        {document.versions.map((v) => (
+          <Link
+            key={v.id}
+            href={`/documents/${documentId}?version=${v.version}`}
+            aria-current={v.version === version.version ? "page" : undefined}
+            className="inline-flex items-center gap-1.5 rounded-md border border-stone-200 bg-white px-2.5 py-1 hover:bg-stone-100 aria-[current=page]:border-brand-600 aria-[current=page]:font-semibold"
+          >
+            Version {v.version} <StatusBadge status={v.status} />
+          </Link>
+        ))}
+      </nav>
+
+      <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
+        <article aria-label={label} className="min-w-0 rounded-lg border border-stone-200 bg-white">
+          {version.status !== "effective" && (
+            <p className="border-b border-stone-200 bg-stone-100 px-6 py-2 text-sm font-medium text-stone-700">
+              Not in force: this version is {version.status.replace("_", " ")}. Printed copies are marked “Uncontrolled copy”.
+            </p>
+          )}
+          <div className="prose prose-stone max-w-none px-6 py-4" dangerouslySetInnerHTML={{ __html: renderRichHtml(version.content) }} />
+        </article>
+
+        <div className="space-y-4">
+          <Panel title={`Version ${version.version}`}>
+            <dl className="grid grid-cols-[max-content_1fr] gap-x-3 gap-y-1 text-sm">
+              <dt className="text-stone-500">Status</dt>
+              <dd>
+                <StatusBadge status={version.status} />
+              </dd>
+              <dt className="text-stone-500">Effective date</dt>
+              <dd>{version.effectiveDate ?? "—"}</dd>
+              <dt className="text-stone-500">Content hash</dt>
+              <dd className="font-mono text-xs break-all">{version.contentHash ?? "set when submitted"}</dd>
+              {version.changeReason && (
+                <>
+                  <dt className="text-stone-500">Reason</dt>
+                  <dd>{version.changeReason}</dd>
+                </>
+              )}
+            </dl>
+          </Panel>
+
+          {version.status === "draft" && allowed("edit") && (
+            <Panel title="Draft">
+              <div className="flex flex-wrap gap-2">
+                <Link href={`/documents/${documentId}/edit?version=${version.version}`} className={linkButton}>
+                  <PenLine className="h-4 w-4" aria-hidden="true" /> Edit draft
+                </Link>
+                {signers && draftHash && (
+                  <SignatureDialog
+                    action={submitAction}
+                    meaning="authored"
+                    signerName={user.name}
+                    recordLabel={label}
+                    contentHash={draftHash}
+                    hidden={{ ...hidden, lockVersion: String(version.lockVersion) }}
+                    buttonLabel="Submit for review"
+                  >
+                    <fieldset className="space-y-1">
+                      <legend className="text-sm font-medium text-stone-800">Reviewers</legend>
+                      {signers.reviewers
+                        .filter((r) => r.id !== user.id)
+                        .map((r) => (
+                          <label key={r.id} className="flex items-center gap-2 text-sm">
+                            <input type="checkbox" name="reviewerIds" value={r.id} /> {r.name}
+                            {r.jobTitle && <span className="text-stone-500">({r.jobTitle})</span>}
+                          </label>
+                        ))}
+                      <FieldError name="reviewerIds" />
+                    </fieldset>
+                    <SelectField
+                      name="approverId"
+                      label="Approver"
+                      placeholder="— choose —"
+                      options={signers.approvers.filter((a) => a.id !== user.id).map((a) => ({ value: a.id, label: a.jobTitle ? `${a.name} (${a.jobTitle})` : a.name }))}
+                    />
+                    <fieldset className="space-y-1">
+                      <legend className="text-sm font-medium text-stone-800">Reviewers sign</legend>
+                      <label className="flex items-center gap-2 text-sm">
+                        <input type="radio" name="routing" value="sequence" defaultChecked /> In sequence, in the order listed
+                      </label>
+                      <label className="flex items-center gap-2 text-sm">
+                        <input type="radio" name="routing" value="parallel" /> In parallel
+                      </label>
+                      <p className="text-xs text-stone-600">The approver signs after every reviewer.</p>
+                    </fieldset>
+                    <Field name="dueDate" label="Due by (optional)" type="date" hint="Without a date, each step is due a set number of days after it opens." />
+                  </SignatureDialog>
+                )}
+              </div>
+            </Panel>
+          )}
+
+          {myStep?.role === "reviewer" && version.contentHash && (
+            <Panel title="Your review">
+              <div className="space-y-4">
+                <SignatureDialog action={signReviewAction} meaning="reviewed" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden} />
+                <ActionForm action={sendBackAction} className="space-y-2" aria-label="Send back">
+                  <input type="hidden" name="versionId" value={version.id} />
+                  <input type="hidden" name="documentId" value={documentId} />
+                  <TextareaField name="comment" label="What must change" />
+                  <SubmitButton variant="secondary">Send back</SubmitButton>
+                </ActionForm>
+              </div>
+            </Panel>
+          )}
+
+          {myStep?.role === "approver" && version.contentHash && (
+            <Panel title="Your approval">
+              <div className="space-y-4">
+                <SignatureDialog action={approveAction} meaning="approved" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden}>
+                  <Field name="effectiveDate" label="Effective from" type="date" defaultValue={now.slice(0, 10)} hint="Today makes it effective at once and supersedes the version in force." />
+                </SignatureDialog>
+                <ActionForm action={rejectAction} className="space-y-2" aria-label="Reject">
+                  <input type="hidden" name="versionId" value={version.id} />
+                  <input type="hidden" name="documentId" value={documentId} />
+                  <TextareaField name="comment" label="Why it is rejected" />
+                  <SubmitButton variant="danger">Reject</SubmitButton>
+                </ActionForm>
+              </div>
+            </Panel>
+          )}
+
+          {isLatest && !hasOpenVersion && allowed("new_version") && (
+            <Panel title="Revise">
+              <ActionForm action={newVersionAction} className="space-y-2" aria-label="Start a new version">
+                <input type="hidden" name="documentId" value={documentId} />
+                <TextareaField name="reason" label="Reason for the new version" rows={2} />
+                <SubmitButton variant="secondary">Start a new version</SubmitButton>
+              </ActionForm>
+            </Panel>
+          )}
+
+          {version.status === "effective" && can(user.roles, "document.approve") && (
+            <Panel title="Retire">
+              <ActionForm action={retireAction} className="space-y-2" aria-label="Retire">
+                <input type="hidden" name="documentId" value={documentId} />
+                <TextareaField name="reason" label="Reason for retiring" rows={2} />
+                <SubmitButton variant="danger">Retire this document</SubmitButton>
+              </ActionForm>
+            </Panel>
+          )}
+
+          <Panel title="Routing">
+            <RoutingTable reviews={version.reviews} now={now} />
+          </Panel>
+
+          <Panel title="Signatures">
+            <SignatureList signatures={current} />
+            {earlier.length > 0 && (
+              <details className="mt-3 text-sm">
+                <summary className="cursor-pointer text-stone-700">Signatures on earlier submissions of this version ({earlier.length})</summary>
+                <p className="my-2 text-xs text-stone-600">These bind to text that was returned and has changed since; they do not apply to the text shown.</p>
+                <SignatureList signatures={earlier} />
+              </details>
+            )}
+          </Panel>
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,72 @@
+import { asc, eq } from "drizzle-orm";
+import { appendAudit, canonicalJson, sha256Hex, SYSTEM_ACTOR } from "@/lib/audit";
+import { successRunSampleSize } from "@/lib/stats";
+import { buildTemplate } from "@/templates/documents";
+import type { Tx } from "./client";
+import {
+  cleaningSystems,
+  cleanlinessSpecs,
+  documentReviews,
+  documents,
+  documentVersions,
+  partFamilies,
+  recipeParameters,
+  recipes,
+  recipeVersions,
+  signatures,
+  systemStages,
+} from "./schema";
+
+/**
+ * One effective, fully signed OQ protocol for the demo: Ines wrote it, Tomas
+ * reviewed it, Helena approved it. Invented text from our own template.
+ */
+export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string; name: string }; reviewer: { id: string; name: string }; approver: { id: string; name: string } }, now = new Date()) {
+  const [system] = await tx.select().from(cleaningSystems).where(eq(cleaningSystems.code, "AW-3"));
+  const stages = await tx.select().from(systemStages).where(eq(systemStages.systemId, system.id)).orderBy(asc(systemStages.position));
+  const [family] = await tx.select({ f: partFamilies, s: cleanlinessSpecs }).from(partFamilies).innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId)).where(eq(partFamilies.code, "PF-VB-210"));
+  const [recipe] = await tx.select({ r: recipes, v: recipeVersions }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(eq(recipes.code, "R-AW3-VB")).orderBy(asc(recipeVersions.version));
+  const effective = (await tx.select().from(recipeVersions).where(eq(recipeVersions.recipeId, recipe.r.id))).find((v) => v.status === "effective")!;
+  const params = await tx.select().from(recipeParameters).where(eq(recipeParameters.versionId, effective.id));
+
+  const number = "OQ-AW3-0001";
+  const title = "OQ of the three-tank aqueous washer for valve bodies";
+  const content = buildTemplate({
+    type: "oq_protocol",
+    number,
+    title,
+    system: { code: system.code, name: system.name, stages: stages.map((s) => s.name) },
+    partFamily: { code: family.f.code, name: family.f.name, material: family.f.material, wettedAreaCm2: family.f.wettedAreaCm2, spec: family.s },
+    recipe: { code: recipe.r.code, name: recipe.r.name, version: effective.version, parameters: params.map((x) => ({ name: x.name, setpoint: x.setpoint, unit: x.unit, low: x.validatedLow, high: x.validatedHigh })) },
+    sample: { confidencePct: 95, reliabilityPct: 90, size: successRunSampleSize(0.95, 0.9) },
+  });
+  const contentHash = sha256Hex(canonicalJson(content));
+  const at = now.toISOString();
+  const today = at.slice(0, 10);
+
+  const [document] = await tx
+    .insert(documents)
+    .values({ number, title, type: "oq_protocol", systemId: system.id, partFamilyId: family.f.id, recipeVersionId: effective.id, ownerId: people.engineer.id })
+    .returning();
+  const [version] = await tx
+    .insert(documentVersions)
+    .values({ documentId: document.id, version: 1, status: "effective", content, contentHash, lockVersion: 1, effectiveDate: today, reviewRound: 1, routing: "sequence", submittedAt: at, approvedAt: at, createdBy: people.engineer.id })
+    .returning();
+  await tx.insert(documentReviews).values([
+    { versionId: version.id, round: 1, step: 1, role: "reviewer", assigneeId: people.reviewer.id, activatedAt: at, dueAt: at, decision: "reviewed", decidedAt: at },
+    { versionId: version.id, round: 1, step: 2, role: "approver", assigneeId: people.approver.id, activatedAt: at, dueAt: at, decision: "approved", decidedAt: at },
+  ]);
+  await appendAudit(tx, SYSTEM_ACTOR, { action: "document.created", recordType: "document", recordId: document.id, new: { number, title, type: "oq_protocol", versionId: version.id, seeded: true } }, now);
+  for (const [person, meaning] of [
+    [people.engineer, "authored"],
+    [people.reviewer, "reviewed"],
+    [people.approver, "approved"],
+  ] as const) {
+    const [sig] = await tx
+      .insert(signatures)
+      .values({ recordType: "document_version", recordId: version.id, userId: person.id, printedName: person.name, meaning, signedAt: at, contentHash })
+      .returning();
+    await appendAudit(tx, SYSTEM_ACTOR, { action: "signature.applied", recordType: "signature", recordId: sig.id, new: { on: `document_version:${version.id}`, meaning, printedName: person.name, contentHash, signedAt: at, seeded: true } }, now);
+  }
+  await appendAudit(tx, SYSTEM_ACTOR, { action: "document.effective", recordType: "document_version", recordId: version.id, new: { status: "effective", effectiveDate: today, seeded: true } }, now);
+}

@@ -1,0 +1,223 @@
+import { join } from "node:path";
+import { Document, Font, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
+import type { ReactNode } from "react";
+import type { DocumentStatus, SignatureMeaning } from "@/db/enums";
+import { STATUS_LABELS } from "@/lib/documents/lifecycle";
+import type { RichNode } from "@/lib/documents/rich-text";
+import { MEANING_LABELS } from "@/lib/signatures/rules";
+
+// Geist ships µ ° ± ≤ ≥; react-pdf would otherwise fall back silently and drop them.
+const FONTS = join(process.cwd(), "node_modules/geist/dist/fonts/geist-sans");
+Font.register({
+  family: "Geist",
+  fonts: [
+    { src: join(FONTS, "Geist-Regular.ttf") },
+    { src: join(FONTS, "Geist-Bold.ttf"), fontWeight: "bold" },
+    { src: join(FONTS, "Geist-Italic.ttf"), fontStyle: "italic" },
+    { src: join(FONTS, "Geist-BoldItalic.ttf"), fontWeight: "bold", fontStyle: "italic" },
+  ],
+});
+Font.registerHyphenationCallback((word) => [word]);
+
+const s = StyleSheet.create({
+  page: { fontFamily: "Geist", fontSize: 9.5, paddingTop: 78, paddingBottom: 56, paddingHorizontal: 48, color: "#1c1917" },
+  // Line height on the body only: set on the page, it stops react-pdf drawing the rendered page number.
+  body: { lineHeight: 1.35 },
+  header: { position: "absolute", top: 24, left: 48, right: 48, borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 6 },
+  headerRow: { flexDirection: "row", justifyContent: "space-between" },
+  number: { fontSize: 11, fontWeight: "bold", color: "#12524d" },
+  small: { fontSize: 8, color: "#57534e" },
+  uncontrolled: { fontSize: 9, fontWeight: "bold", color: "#1c1917", borderWidth: 1, borderColor: "#1c1917", paddingHorizontal: 4, paddingVertical: 1 },
+  footerLeft: { position: "absolute", bottom: 24, left: 48, right: 160, fontSize: 7.5, color: "#57534e" },
+  footerRight: { position: "absolute", bottom: 24, right: 48, fontSize: 7.5, color: "#57534e" },
+  h1: { fontSize: 15, fontWeight: "bold", marginTop: 4, marginBottom: 6 },
+  h2: { fontSize: 12, fontWeight: "bold", marginTop: 10, marginBottom: 4, color: "#12524d" },
+  h3: { fontSize: 10.5, fontWeight: "bold", marginTop: 8, marginBottom: 3 },
+  p: { marginBottom: 4 },
+  listItem: { flexDirection: "row", marginBottom: 2 },
+  bullet: { width: 14 },
+  table: { borderWidth: 0.5, borderColor: "#a8a29e", marginVertical: 4 },
+  row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: "#d6d3d1" },
+  cell: { flex: 1, padding: 3, borderRightWidth: 0.5, borderRightColor: "#d6d3d1" },
+  headCell: { flex: 1, padding: 3, borderRightWidth: 0.5, borderRightColor: "#d6d3d1", backgroundColor: "#f5f5f4", fontWeight: "bold" },
+  quote: { borderLeftWidth: 2, borderLeftColor: "#a8a29e", paddingLeft: 6, marginVertical: 3 },
+  code: { backgroundColor: "#f5f5f4", padding: 4, marginVertical: 3 },
+  rule: { borderBottomWidth: 0.5, borderBottomColor: "#a8a29e", marginVertical: 6 },
+  sigTitle: { fontSize: 12, fontWeight: "bold", marginTop: 14, marginBottom: 4, color: "#12524d" },
+  mono: { fontSize: 7.5 },
+});
+
+function inline(nodes: RichNode[] = []): ReactNode[] {
+  return nodes.map((n, i) => {
+    if (n.type === "hardBreak") return "\n";
+    if (n.type !== "text") return null;
+    const marks = new Set((n.marks ?? []).map((m) => m.type));
+    const href = n.marks?.find((m) => m.type === "link")?.attrs?.href;
+    return (
+      <Text
+        key={i}
+        style={{
+          fontWeight: marks.has("bold") ? "bold" : undefined,
+          fontStyle: marks.has("italic") ? "italic" : undefined,
+          textDecoration: marks.has("strike") ? "line-through" : marks.has("underline") || href ? "underline" : undefined,
+        }}
+      >
+        {n.text}
+        {href ? ` (${href})` : ""}
+      </Text>
+    );
+  });
+}
+
+function block(node: RichNode, key: number | string, ordinal?: string): ReactNode {
+  const children = node.content ?? [];
+  switch (node.type) {
+    case "heading": {
+      const level = Number(node.attrs?.level) || 2;
+      return (
+        <Text key={key} style={level === 1 ? s.h1 : level === 2 ? s.h2 : s.h3} minPresenceAhead={40}>
+          {inline(children)}
+        </Text>
+      );
+    }
+    case "paragraph":
+      return (
+        <Text key={key} style={s.p}>
+          {inline(children)}
+        </Text>
+      );
+    case "bulletList":
+    case "orderedList": {
+      const start = Number(node.attrs?.start) || 1;
+      return (
+        <View key={key} style={{ marginBottom: 3 }}>
+          {children.map((item, i) => block(item, i, node.type === "orderedList" ? `${start + i}.` : "•"))}
+        </View>
+      );
+    }
+    case "listItem":
+      return (
+        <View key={key} style={s.listItem} wrap={false}>
+          <Text style={s.bullet}>{ordinal}</Text>
+          <View style={{ flex: 1 }}>{children.map((c, i) => block(c, i))}</View>
+        </View>
+      );
+    case "table":
+      return (
+        <View key={key} style={s.table}>
+          {children.map((row, r) => (
+            <View key={r} style={s.row} wrap={false}>
+              {(row.content ?? []).map((cell, c) => (
+                <View key={c} style={cell.type === "tableHeader" ? s.headCell : s.cell}>
+                  {(cell.content ?? []).map((x, i) => block(x, i))}
+                </View>
+              ))}
+            </View>
+          ))}
+        </View>
+      );
+    case "blockquote":
+      return (
+        <View key={key} style={s.quote}>
+          {children.map((c, i) => block(c, i))}
+        </View>
+      );
+    case "codeBlock":
+      return (
+        <Text key={key} style={s.code}>
+          {inline(children)}
+        </Text>
+      );
+    case "horizontalRule":
+      return <View key={key} style={s.rule} />;
+    default:
+      return null;
+  }
+}
+
+export interface PdfSignature {
+  printedName: string;
+  meaning: SignatureMeaning;
+  signedAt: string;
+  contentHash: string;
+  validity: "valid" | "invalid";
+}
+
+export interface DocumentPdfInput {
+  number: string;
+  title: string;
+  typeLabel: string;
+  version: number;
+  status: DocumentStatus;
+  effectiveDate: string | null;
+  contentHash: string | null;
+  content: RichNode;
+  signatures: PdfSignature[];
+  printedAt: string;
+  printedBy: string;
+}
+
+const utc = (iso: string) => `${iso.replace("T", " ").slice(0, 19)} UTC`;
+
+function DocumentPdf(d: DocumentPdfInput) {
+  const controlled = d.status === "effective";
+  return (
+    <Document title={`${d.number} version ${d.version} — ${d.title}`} author="Washproof" subject={d.typeLabel}>
+      <Page size="A4" style={s.page}>
+        <View style={s.header} fixed>
+          <View style={s.headerRow}>
+            <Text style={s.number}>
+              {d.number} · Version {d.version}
+            </Text>
+            {!controlled && <Text style={s.uncontrolled}>UNCONTROLLED COPY</Text>}
+          </View>
+          <Text>{d.title}</Text>
+          <Text style={s.small}>
+            {d.typeLabel} · Status: {STATUS_LABELS[d.status]} · Effective date: {d.effectiveDate ?? "none"}
+          </Text>
+        </View>
+
+        <View style={s.body}>{(d.content.content ?? []).map((n, i) => block(n, i))}</View>
+
+        <View wrap={false}>
+          <Text style={s.sigTitle}>Electronic signatures</Text>
+          {d.signatures.length === 0 ? (
+            <Text>No signatures on this version.</Text>
+          ) : (
+            <View style={s.table}>
+              <View style={s.row}>
+                {["Printed name", "Meaning", "Signed (date and time)", "Binding"].map((h) => (
+                  <Text key={h} style={s.headCell}>
+                    {h}
+                  </Text>
+                ))}
+              </View>
+              {d.signatures.map((sig, i) => (
+                <View key={i} style={s.row}>
+                  <Text style={s.cell}>{sig.printedName}</Text>
+                  <Text style={s.cell}>{MEANING_LABELS[sig.meaning]}</Text>
+                  <Text style={s.cell}>{utc(sig.signedAt)}</Text>
+                  <Text style={s.cell}>{sig.validity === "valid" ? "Valid for this content" : "Invalid: content changed"}</Text>
+                </View>
+              ))}
+            </View>
+          )}
+          <Text style={s.mono}>Content hash (SHA-256): {d.contentHash ?? "none: a draft has no frozen content"}</Text>
+          <Text style={s.small}>
+            Printed {utc(d.printedAt)} by {d.printedBy}. {controlled ? "Controlled copy as effective at printing; check Washproof for the version in force." : "Uncontrolled copy: this version is not in force."}
+          </Text>
+        </View>
+
+        <Text style={s.footerLeft} fixed>
+          {d.number} v{d.version} · {d.contentHash ? `SHA-256 ${d.contentHash.slice(0, 16)}…` : "draft"}
+          {controlled ? "" : " · Uncontrolled copy"}
+        </Text>
+        <Text style={s.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+      </Page>
+    </Document>
+  );
+}
+
+export function renderDocumentPdf(input: DocumentPdfInput): Promise<Buffer> {
+  return renderToBuffer(<DocumentPdf {...input} />);
+}

@@ -1,0 +1,45 @@
+// No "server-only" marker: the server's timer (instrumentation.ts) imports this too.
+import { and, eq, lte, ne } from "drizzle-orm";
+import { getDb, type Tx } from "@/db/client";
+import { documentVersions, type DocumentVersion } from "@/db/schema";
+import { appendAudit, SYSTEM_ACTOR, type AuditActor } from "@/lib/audit";
+
+/**
+ * Makes an approved version effective and supersedes the one it replaces, in
+ * the caller's transaction. Signatures stay with the versions they were given on.
+ */
+export async function makeEffectiveInTx(tx: Tx, actor: AuditActor, version: DocumentVersion, now: Date) {
+  const previous = await tx
+    .select()
+    .from(documentVersions)
+    .where(and(eq(documentVersions.documentId, version.documentId), eq(documentVersions.status, "effective"), ne(documentVersions.id, version.id)));
+  for (const old of previous) {
+    await tx.update(documentVersions).set({ status: "superseded" }).where(eq(documentVersions.id, old.id));
+    await appendAudit(
+      tx,
+      actor,
+      { action: "document.superseded", recordType: "document_version", recordId: old.id, old: { status: "effective", version: old.version }, new: { status: "superseded", byVersion: version.version } },
+      now,
+    );
+  }
+  await tx.update(documentVersions).set({ status: "effective" }).where(eq(documentVersions.id, version.id));
+  await appendAudit(
+    tx,
+    actor,
+    { action: "document.effective", recordType: "document_version", recordId: version.id, old: { status: "approved" }, new: { status: "effective", effectiveDate: version.effectiveDate, version: version.version } },
+    now,
+  );
+}
+
+/** Approved versions whose effective date has come: run by the server's timer. */
+export async function makeDueVersionsEffective(now = new Date()) {
+  const today = now.toISOString().slice(0, 10);
+  const due = await getDb()
+    .select()
+    .from(documentVersions)
+    .where(and(eq(documentVersions.status, "approved"), lte(documentVersions.effectiveDate, today)));
+  for (const version of due) {
+    await getDb().transaction((tx) => makeEffectiveInTx(tx, SYSTEM_ACTOR, version, now));
+  }
+  return due.length;
+}

@@ -1,0 +1,116 @@
+import "server-only";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { cleaningSystems, documentReviews, documents, documentVersions, partFamilies, recipes, recipeVersions, userRoles, users } from "@/db/schema";
+import type { RichDoc } from "@/lib/documents/rich-text";
+import { listSignatures } from "@/lib/server/signatures/queries";
+
+/** Every document with its latest version and the version in force, by number. */
+export async function listDocuments() {
+  const db = getDb();
+  const rows = await db
+    .select({ document: documents, owner: users.name, systemCode: cleaningSystems.code })
+    .from(documents)
+    .innerJoin(users, eq(users.id, documents.ownerId))
+    .leftJoin(cleaningSystems, eq(cleaningSystems.id, documents.systemId))
+    .orderBy(asc(documents.number));
+  const versions = await db
+    .select({ documentId: documentVersions.documentId, version: documentVersions.version, status: documentVersions.status, effectiveDate: documentVersions.effectiveDate })
+    .from(documentVersions)
+    .orderBy(asc(documentVersions.version));
+  return rows.map(({ document, owner, systemCode }) => {
+    const mine = versions.filter((v) => v.documentId === document.id);
+    return { ...document, owner, systemCode, latest: mine.at(-1)!, effective: mine.find((v) => v.status === "effective") ?? null };
+  });
+}
+
+export type DocumentListRow = Awaited<ReturnType<typeof listDocuments>>[number];
+
+export async function getDocument(documentId: string) {
+  const db = getDb();
+  const [row] = await db
+    .select({ document: documents, owner: users.name, system: cleaningSystems, family: partFamilies })
+    .from(documents)
+    .innerJoin(users, eq(users.id, documents.ownerId))
+    .leftJoin(cleaningSystems, eq(cleaningSystems.id, documents.systemId))
+    .leftJoin(partFamilies, eq(partFamilies.id, documents.partFamilyId))
+    .where(eq(documents.id, documentId));
+  if (!row) return null;
+  const [recipe] = row.document.recipeVersionId
+    ? await db
+        .select({ code: recipes.code, name: recipes.name, version: recipeVersions.version, status: recipeVersions.status })
+        .from(recipeVersions)
+        .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+        .where(eq(recipeVersions.id, row.document.recipeVersionId))
+    : [];
+  const versions = await db
+    .select({
+      id: documentVersions.id,
+      version: documentVersions.version,
+      status: documentVersions.status,
+      effectiveDate: documentVersions.effectiveDate,
+      submittedAt: documentVersions.submittedAt,
+      approvedAt: documentVersions.approvedAt,
+      changeReason: documentVersions.changeReason,
+      createdAt: documentVersions.createdAt,
+    })
+    .from(documentVersions)
+    .where(eq(documentVersions.documentId, documentId))
+    .orderBy(desc(documentVersions.version));
+  return { ...row.document, owner: row.owner, system: row.system, family: row.family, recipe: recipe ?? null, versions };
+}
+
+export type DocumentDetail = NonNullable<Awaited<ReturnType<typeof getDocument>>>;
+
+/** One version with its content, routing (all rounds) and signatures checked against its current hash. */
+export async function getVersion(documentId: string, versionNumber: number) {
+  const db = getDb();
+  const [version] = await db
+    .select()
+    .from(documentVersions)
+    .where(and(eq(documentVersions.documentId, documentId), eq(documentVersions.version, versionNumber)));
+  if (!version) return null;
+  const reviews = await db
+    .select({ review: documentReviews, name: users.name })
+    .from(documentReviews)
+    .innerJoin(users, eq(users.id, documentReviews.assigneeId))
+    .where(eq(documentReviews.versionId, version.id))
+    .orderBy(desc(documentReviews.round), asc(documentReviews.step), asc(documentReviews.createdAt));
+  const signatures = await listSignatures("document_version", version.id, version.contentHash);
+  return { ...version, content: version.content as RichDoc, reviews: reviews.map((r) => ({ ...r.review, name: r.name })), signatures };
+}
+
+export type VersionDetail = NonNullable<Awaited<ReturnType<typeof getVersion>>>;
+
+/** People who may be picked for routing: active holders of the reviewer and approver roles. */
+export async function listSigners() {
+  const rows = await getDb()
+    .select({ id: users.id, name: users.name, jobTitle: users.jobTitle, role: userRoles.role })
+    .from(users)
+    .innerJoin(userRoles, eq(userRoles.userId, users.id))
+    .where(and(eq(users.active, true), inArray(userRoles.role, ["reviewer", "approver"])))
+    .orderBy(asc(users.name));
+  const pick = (role: string) => rows.filter((r) => r.role === role).map(({ id, name, jobTitle }) => ({ id, name, jobTitle }));
+  return { reviewers: pick("reviewer"), approvers: pick("approver") };
+}
+
+/** Choices for a new document's links. */
+export async function listLinkOptions() {
+  const db = getDb();
+  const systems = await db.select({ id: cleaningSystems.id, code: cleaningSystems.code, name: cleaningSystems.name }).from(cleaningSystems).orderBy(asc(cleaningSystems.code));
+  const families = await db.select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code));
+  const recipeRows = await db
+    .select({ id: recipeVersions.id, code: recipes.code, name: recipes.name, version: recipeVersions.version, status: recipeVersions.status, systemId: recipes.systemId })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .orderBy(asc(recipes.code), desc(recipeVersions.version));
+  return { systems, families, recipes: recipeRows };
+}
+
+/** A document and the version a page asked for (?version=N), the latest when none; null when either is missing. */
+export async function getDocumentAndVersion(documentId: string, versionParam: string | undefined) {
+  const document = await getDocument(documentId);
+  if (!document) return null;
+  const version = await getVersion(documentId, Number(versionParam) || document.versions[0].version);
+  return version ? { document, version } : null;
+}
