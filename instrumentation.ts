@@ -1,7 +1,7 @@
 /**
- * Runs once when the server starts: a timer retries queued e-mail (the outbox),
- * reminds people of overdue document reviews and makes approved documents
- * effective on their date; another sends requalification reminders.
+ * Runs once when the server starts: timers retry queued e-mail (the outbox), remind
+ * people of overdue document reviews, make approved documents effective on their
+ * date, and queue bath-maintenance and requalification reminders.
  */
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
@@ -14,8 +14,18 @@ export async function register() {
       .catch((error) => console.error("scheduled document and e-mail pass failed", error));
   }, 30_000);
   timer.unref();
-  const { sendRequalificationReminders } = await import("@/lib/server/changes/send-requalification-reminders");
-  const remind = () => sendRequalificationReminders().catch((error) => console.error("requalification reminders failed", error));
+  const { sendMaintenanceReminders } = await import("@/lib/server/bath/send-maintenance-reminders");
+  const remind = () =>
+    sendMaintenanceReminders()
+      .then(({ queued }) => (queued > 0 ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("maintenance reminders failed", error));
   setTimeout(remind, 5_000).unref();
-  setInterval(remind, 3_600_000).unref();
+  setInterval(remind, 15 * 60_000).unref();
+  const { sendRequalificationReminders } = await import("@/lib/server/changes/send-requalification-reminders");
+  const remindRequalification = () =>
+    sendRequalificationReminders()
+      .then(() => deliverDueEmails())
+      .catch((error) => console.error("requalification reminders failed", error));
+  setTimeout(remindRequalification, 5_000).unref();
+  setInterval(remindRequalification, 3_600_000).unref();
 }

@@ -71,6 +71,12 @@ export const SIGNATURE_MEANINGS = ["authored", "reviewed", "approved", "performe
 
 export const SIGNED_RECORD_TYPES = ["document_version", "change_request", "test_run", "recipe_version"] as const;
 
+export const EVIDENCE_FILE_KINDS = ["lab_report", "membrane_image", "photo", "csv", "other"] as const;
+
+export const BATH_RECORD_KINDS = ["bath_change", "filter_change", "reading"] as const;
+
+export const MAINTENANCE_KINDS = ["bath_change", "filter_change", "reading"] as const;
+
 export type Role = (typeof ROLES)[number];
 export type ParameterKind = (typeof PARAMETER_KINDS)[number];
 export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
@@ -86,5 +92,11 @@ export type DocumentStatus = (typeof DOCUMENT_STATUSES)[number];
 export type ReviewRole = (typeof REVIEW_ROLES)[number];
 export type ReviewDecision = (typeof REVIEW_DECISIONS)[number];
 export type RoutingMode = (typeof ROUTING_MODES)[number];
+
+export type TestType = (typeof TEST_TYPES)[number];
+export type Outcome = (typeof OUTCOMES)[number];
+export type EvidenceFileKind = (typeof EVIDENCE_FILE_KINDS)[number];
+export type BathRecordKind = (typeof BATH_RECORD_KINDS)[number];
+
 export const API_TOKEN_SCOPES = ["read", "read_write"] as const;
 export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];

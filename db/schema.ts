@@ -17,6 +17,9 @@ import {
   REVIEW_ROLES,
   REVIEW_DECISIONS,
   ROUTING_MODES,
+  EVIDENCE_FILE_KINDS,
+  BATH_RECORD_KINDS,
+  MAINTENANCE_KINDS,
   CHANGE_KINDS,
   MATRIX_STATUSES,
   API_TOKEN_SCOPES,
@@ -289,7 +292,8 @@ export const testRuns = sqliteTable(
   "test_runs",
   {
     id: id(),
-    number: text("number").notNull().unique(),
+    /** Shared by every revision of a run; (number, revision) is unique. */
+    number: text("number").notNull(),
     partFamilyId: text("part_family_id").notNull().references(() => partFamilies.id),
     recipeVersionId: text("recipe_version_id").notNull().references(() => recipeVersions.id),
     changeRequestId: text("change_request_id").references(() => changeRequests.id),
@@ -300,6 +304,12 @@ export const testRuns = sqliteTable(
     outcome: text("outcome", { enum: OUTCOMES }),
     revision: integer("revision").notNull().default(1),
     supersedesId: text("supersedes_id"),
+    /** Why this revision replaced the one before (a correction). */
+    revisionReason: text("revision_reason"),
+    /** The change request's requirement this run answers, e.g. "particle_cleanliness". */
+    requirement: text("requirement"),
+    /** Run-level raw data (extraction series, blank), validated per test type. */
+    runData: text("run_data", { mode: "json" }).$type<Record<string, unknown>>(),
     technicianId: text("technician_id").references(() => users.id),
     lab: text("lab"),
     performedOn: text("performed_on"),
@@ -307,6 +317,7 @@ export const testRuns = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [
+    uniqueIndex("test_runs_number_revision_uq").on(t.number, t.revision),
     index("test_runs_family_idx").on(t.partFamilyId),
     index("test_runs_recipe_version_idx").on(t.recipeVersionId),
     index("test_runs_change_idx").on(t.changeRequestId),
@@ -340,6 +351,9 @@ export const evidenceFiles = sqliteTable(
     originalName: text("original_name").notNull(),
     mimeType: text("mime_type").notNull(),
     sizeBytes: integer("size_bytes").notNull(),
+    kind: text("kind", { enum: EVIDENCE_FILE_KINDS }).notNull().default("lab_report"),
+    /** The sample a photo or image shows, when it shows one. */
+    sampleLabel: text("sample_label"),
     uploadedBy: text("uploaded_by").notNull().references(() => users.id),
     uploadedAt: createdAt(),
   },
@@ -450,6 +464,66 @@ export const documentReviews = sqliteTable(
   ],
 );
 export type DocumentReview = typeof documentReviews.$inferSelect;
+
+// ── Bath and filter log ───────────────────────────────────────────────────
+
+/** One entry of a tank's log: a bath change, a filter change or a reading, with what was measured. */
+export const bathRecords = sqliteTable(
+  "bath_records",
+  {
+    id: id(),
+    stageId: text("stage_id").notNull().references(() => systemStages.id),
+    kind: text("kind", { enum: BATH_RECORD_KINDS }).notNull(),
+    /** When the work or measurement was done (UTC). */
+    performedAt: text("performed_at").notNull(),
+    concentrationPct: real("concentration_pct"),
+    conductivityUsPerCm: real("conductivity_us_per_cm"),
+    temperatureC: real("temperature_c"),
+    /** Particle counter results per mL at ≥ 4, ≥ 6 and ≥ 14 µm(c); the ISO 4406 code is computed. */
+    countPerMl4: real("count_per_ml_4"),
+    countPerMl6: real("count_per_ml_6"),
+    countPerMl14: real("count_per_ml_14"),
+    filterDescription: text("filter_description"),
+    notes: text("notes"),
+    recordedBy: text("recorded_by").notNull().references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [index("bath_records_stage_idx").on(t.stageId, t.performedAt)],
+);
+export type BathRecord = typeof bathRecords.$inferSelect;
+
+/** How often a tank's bath or filter must be changed (or its bath measured). */
+export const maintenanceIntervals = sqliteTable(
+  "maintenance_intervals",
+  {
+    id: id(),
+    stageId: text("stage_id").notNull().references(() => systemStages.id),
+    kind: text("kind", { enum: MAINTENANCE_KINDS }).notNull(),
+    intervalDays: integer("interval_days").notNull(),
+    /** Shown as due this many days before the date. */
+    warnDays: integer("warn_days").notNull().default(2),
+    createdBy: text("created_by").notNull().references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: text("updated_at"),
+  },
+  (t) => [uniqueIndex("maintenance_intervals_uq").on(t.stageId, t.kind)],
+);
+export type MaintenanceInterval = typeof maintenanceIntervals.$inferSelect;
+
+/** One e-mail per interval, due date and level, so a reminder is never sent twice. */
+export const maintenanceNotices = sqliteTable(
+  "maintenance_notices",
+  {
+    id: id(),
+    intervalId: text("interval_id").notNull().references(() => maintenanceIntervals.id),
+    dueAt: text("due_at").notNull(),
+    level: text("level", { enum: ["due", "overdue"] }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("maintenance_notices_uq").on(t.intervalId, t.dueAt, t.level)],
+);
+export type MaintenanceNotice = typeof maintenanceNotices.$inferSelect;
+
 // ── Change control: requalification ───────────────────────────────────────
 
 /** Admin-maintained, versioned: editing makes a new version; a change request keeps the version it was assessed with. */

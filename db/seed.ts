@@ -17,6 +17,7 @@ import {
   userRoles,
   users,
 } from "./schema";
+import { seedEvidence } from "./seed-evidence";
 import { seedChangeControl } from "./seed-changes";
 import { DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
 
@@ -130,7 +131,6 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       }
     }
 
-    await seedChangeControl(tx, { userIds, recipeIds, familyIds });
     const person = (email: string) => {
       const u = DEMO_USERS.find((x) => x.email === email)!;
       return { id: userIds.get(email)!, name: u.name };
@@ -138,6 +138,9 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     if (["engineer", "reviewer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`))) {
       await seedDemoDocuments(tx, { engineer: person("engineer@fennmoor.example"), reviewer: person("reviewer@fennmoor.example"), approver: person("approver@fennmoor.example") });
     }
+
+    await seedEvidence(tx);
+    await seedChangeControl(tx, { userIds, recipeIds, familyIds });
   });
   return { seeded: true };
 }

@@ -27,6 +27,18 @@ const envSchema = z
     REVIEW_OVERDUE_DAYS: z.coerce.number().int().positive().max(365).default(5),
     UPLOAD_DIR: z.string().default("./data/uploads"),
     UPLOAD_MAX_MB: z.coerce.number().positive().max(1024).default(25),
+    /** Where evidence bytes live: the local disk (UPLOAD_DIR) or S3-compatible object storage. */
+    STORAGE_DRIVER: z.enum(["local", "s3"]).default("local"),
+    S3_ENDPOINT: z.string().url().optional(),
+    S3_REGION: z.string().default("us-east-1"),
+    S3_BUCKET: z.string().optional(),
+    S3_ACCESS_KEY_ID: z.string().optional(),
+    S3_SECRET_ACCESS_KEY: z.string().optional(),
+    S3_FORCE_PATH_STYLE: z
+      .enum(["true", "false", "1", "0"])
+      .default("true")
+      .transform((v) => v === "true" || v === "1"),
+
     APP_URL: z.string().url().default("http://localhost:3000"),
     DEMO_MODE: z
       .enum(["true", "false", "1", "0"])
@@ -45,6 +57,9 @@ const envSchema = z
           message: "must be an absolute file: path in production (e.g. file:/var/lib/washproof/app.db)",
         });
       }
+    }
+    if (env.STORAGE_DRIVER === "s3" && !env.S3_BUCKET) {
+      ctx.addIssue({ code: "custom", path: ["S3_BUCKET"], message: "is required when STORAGE_DRIVER is s3" });
     }
     if (env.SESSION_IDLE_MINUTES > env.SESSION_ABSOLUTE_MINUTES) {
       ctx.addIssue({

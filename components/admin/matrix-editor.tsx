@@ -2,7 +2,8 @@
 
 import { Plus, Trash2 } from "lucide-react";
 import { useState } from "react";
-import { ActionForm, useFormResult } from "@/components/ui/action-form";
+import { ActionForm } from "@/components/ui/action-form";
+import { FieldError } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { TEST_TYPES } from "@/db/enums";
@@ -63,15 +64,15 @@ export function MatrixEditor({ action, rows }: { action: (prev: FormState, formD
                       </option>
                     ))}
                   </select>
-                  <RowError path={`rows.${i}.testType`} />
+                  <FieldError name={`rows.${i}.testType`} />
                 </td>
                 <td className="px-3 py-1.5">
                   <input aria-label={`Confidence of row ${i + 1}`} value={d.confidencePct} onChange={(e) => set(i, { confidencePct: e.target.value })} inputMode="decimal" className="w-20 rounded-md border border-stone-300 px-2 py-1" />
-                  <RowError path={`rows.${i}.confidencePct`} />
+                  <FieldError name={`rows.${i}.confidencePct`} />
                 </td>
                 <td className="px-3 py-1.5">
                   <input aria-label={`Reliability of row ${i + 1}`} value={d.reliabilityPct} onChange={(e) => set(i, { reliabilityPct: e.target.value })} inputMode="decimal" className="w-20 rounded-md border border-stone-300 px-2 py-1" />
-                  <RowError path={`rows.${i}.reliabilityPct`} />
+                  <FieldError name={`rows.${i}.reliabilityPct`} />
                 </td>
                 <td className="px-3 py-1.5 tabular-nums">{preview(d)}</td>
                 <td className="px-3 py-1.5">
@@ -90,15 +91,10 @@ export function MatrixEditor({ action, rows }: { action: (prev: FormState, formD
       <label className="block max-w-xl text-sm">
         <span className="font-medium">What changed and why</span>
         <input value={note} onChange={(e) => setNote(e.target.value)} className="mt-1 block w-full rounded-md border border-stone-300 px-3 py-2" />
-        <RowError path="note" />
+        <FieldError name="note" />
       </label>
       <SubmitButton>Save as new version</SubmitButton>
     </ActionForm>
   );
 }
 
-function RowError({ path }: { path: string }) {
-  const { state } = useFormResult();
-  const errors = state && !state.ok ? state.fieldErrors?.[path] : undefined;
-  return errors ? <p className="text-sm text-red-800">{errors.join(" ")}</p> : null;
-}

@@ -1,8 +1,9 @@
 "use client";
 
 import { Plus, Trash2 } from "lucide-react";
-import { useId, useState } from "react";
+import { useId, useState, type ReactNode } from "react";
 import { ActionForm, useFormResult } from "@/components/ui/action-form";
+import { FieldError } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
 import { SubmitButton } from "@/components/ui/submit-button";
@@ -180,15 +181,15 @@ export function ProposalEditor(props: ProposalEditorProps) {
                   return (
                     <tr key={p.uid}>
                       <td className="py-1 pr-2">
-                        <CellInput label={`Name of ${label}`} path={`${path}.name`} value={p.name} onChange={(v) => updateParam(i, k, { name: v })} />
+                        <TextInput cell label={`Name of ${label}`} path={`${path}.name`} value={p.name} onChange={(v) => updateParam(i, k, { name: v })} />
                         {p.isNew ? (
-                          <CellInput label={`Key of ${label}`} path={`${path}.key`} value={p.key} onChange={(v) => updateParam(i, k, { key: v })} placeholder="stage.parameter" />
+                          <TextInput cell label={`Key of ${label}`} path={`${path}.key`} value={p.key} onChange={(v) => updateParam(i, k, { key: v })} placeholder="stage.parameter" />
                         ) : (
                           <p className="mt-0.5 font-mono text-xs text-stone-500">{p.key}</p>
                         )}
                       </td>
                       <td className="py-1 pr-2">
-                        <CellSelect
+                        <SelectInput cell
                           label={`Kind of ${label}`}
                           path={`${path}.kind`}
                           value={p.kind}
@@ -197,16 +198,16 @@ export function ProposalEditor(props: ProposalEditorProps) {
                         />
                       </td>
                       <td className="py-1 pr-2">
-                        <CellInput label={`Setpoint of ${label}`} path={`${path}.setpoint`} value={p.setpoint} onChange={(v) => updateParam(i, k, { setpoint: v })} inputMode="decimal" narrow />
+                        <TextInput cell label={`Setpoint of ${label}`} path={`${path}.setpoint`} value={p.setpoint} onChange={(v) => updateParam(i, k, { setpoint: v })} inputMode="decimal" narrow />
                       </td>
                       <td className="py-1 pr-2">
-                        <CellInput label={`Unit of ${label}`} path={`${path}.unit`} value={p.unit} onChange={(v) => updateParam(i, k, { unit: v })} list={`units-${p.kind}`} narrow />
+                        <TextInput cell label={`Unit of ${label}`} path={`${path}.unit`} value={p.unit} onChange={(v) => updateParam(i, k, { unit: v })} list={`units-${p.kind}`} narrow />
                       </td>
                       <td className="py-1 pr-2">
-                        <CellInput label={`Validated low of ${label}`} path={`${path}.validatedLow`} value={p.validatedLow} onChange={(v) => updateParam(i, k, { validatedLow: v })} inputMode="decimal" narrow />
+                        <TextInput cell label={`Validated low of ${label}`} path={`${path}.validatedLow`} value={p.validatedLow} onChange={(v) => updateParam(i, k, { validatedLow: v })} inputMode="decimal" narrow />
                       </td>
                       <td className="py-1 pr-2">
-                        <CellInput label={`Validated high of ${label}`} path={`${path}.validatedHigh`} value={p.validatedHigh} onChange={(v) => updateParam(i, k, { validatedHigh: v })} inputMode="decimal" narrow />
+                        <TextInput cell label={`Validated high of ${label}`} path={`${path}.validatedHigh`} value={p.validatedHigh} onChange={(v) => updateParam(i, k, { validatedHigh: v })} inputMode="decimal" narrow />
                       </td>
                       <td className="py-1 pr-2 pt-2">
                         <input type="checkbox" aria-label={`Critical: ${label}`} checked={p.critical} onChange={(e) => updateParam(i, k, { critical: e.target.checked })} />
@@ -269,98 +270,74 @@ export function ProposalEditor(props: ProposalEditorProps) {
 
 function useError(path: string) {
   const { state } = useFormResult();
-  if (!state || state.ok) return undefined;
-  return state.fieldErrors?.[path];
-}
-
-function ErrorText({ id, errors }: { id: string; errors?: string[] }) {
-  if (!errors) return null;
-  return (
-    <p id={id} className="mt-0.5 text-sm text-red-800">
-      {errors.join(" ")}
-    </p>
-  );
+  return state && !state.ok ? state.fieldErrors?.[path] : undefined;
 }
 
 const inputClass = "block w-full rounded-md border border-stone-300 bg-white px-2.5 py-1.5 text-sm aria-invalid:border-red-700";
 
-function TextInput({ label, path, value, onChange }: { label: string; path: string; value: string; onChange: (v: string) => void }) {
-  const id = useId();
-  const errors = useError(path);
-  return (
-    <div className="space-y-1">
-      <label htmlFor={id} className="block text-sm font-medium text-stone-800">
-        {label}
-      </label>
-      <input id={id} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={errors ? true : undefined} aria-describedby={errors ? `${id}-e` : undefined} className={inputClass} />
-      <ErrorText id={`${id}-e`} errors={errors} />
-    </div>
-  );
+interface InputProps {
+  label: string;
+  path: string;
+  value: string;
+  onChange: (v: string) => void;
+  /** In a table cell the column header shows the label, so the input carries it as aria-label. */
+  cell?: boolean;
 }
 
-function TextArea({ label, path, value, onChange, rows, hint }: { label: string; path: string; value: string; onChange: (v: string) => void; rows: number; hint?: string }) {
+/** A labelled control with its server error beside it, read by the error's field path. */
+function Labelled({ label, path, cell, children }: { label: string; path: string; cell?: boolean; children: (id: string, invalid: true | undefined) => ReactNode }) {
   const id = useId();
-  const errors = useError(path);
+  const invalid = useError(path) ? true : undefined;
   return (
-    <div className="space-y-1">
-      <label htmlFor={id} className="block text-sm font-medium text-stone-800">
-        {label}
-      </label>
-      <textarea id={id} rows={rows} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={errors ? true : undefined} aria-describedby={`${id}-h ${errors ? `${id}-e` : ""}`} className={inputClass} />
-      {hint && (
-        <p id={`${id}-h`} className="text-xs text-stone-600">
-          {hint}
-        </p>
+    <div className={cell ? "max-w-56" : "space-y-1"}>
+      {!cell && (
+        <label htmlFor={id} className="block text-sm font-medium text-stone-800">
+          {label}
+        </label>
       )}
-      <ErrorText id={`${id}-e`} errors={errors} />
+      {children(id, invalid)}
+      <FieldError name={path} />
     </div>
   );
 }
 
-function SelectInput({ label, path, value, onChange, options }: { label: string; path: string; value: string; onChange: (v: string) => void; options: [string, string][] }) {
-  const id = useId();
-  const errors = useError(path);
+function TextInput({ label, path, value, onChange, cell, narrow, ...rest }: InputProps & { narrow?: boolean; inputMode?: "decimal"; placeholder?: string; list?: string }) {
   return (
-    <div className="space-y-1">
-      <label htmlFor={id} className="block text-sm font-medium text-stone-800">
-        {label}
-      </label>
-      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={errors ? true : undefined} className={inputClass}>
-        {options.map(([v, l]) => (
-          <option key={v} value={v}>
-            {l}
-          </option>
-        ))}
-      </select>
-      <ErrorText id={`${id}-e`} errors={errors} />
-    </div>
+    <Labelled label={label} path={path} cell={cell}>
+      {(id, invalid) => (
+        <input id={id} aria-label={cell ? label : undefined} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={invalid} className={`${inputClass} ${narrow ? "w-24" : cell ? "min-w-40" : ""}`} {...rest} />
+      )}
+    </Labelled>
   );
 }
 
-function CellInput({ label, path, value, onChange, narrow, ...rest }: { label: string; path: string; value: string; onChange: (v: string) => void; narrow?: boolean; inputMode?: "decimal"; placeholder?: string; list?: string }) {
-  const id = useId();
-  const errors = useError(path);
+function TextArea({ label, path, value, onChange, rows, hint }: InputProps & { rows: number; hint?: string }) {
   return (
-    <div className="max-w-56">
-      <input aria-label={label} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={errors ? true : undefined} aria-describedby={errors ? `${id}-e` : undefined} className={`${inputClass} ${narrow ? "w-24" : "min-w-40"}`} {...rest} />
-      <ErrorText id={`${id}-e`} errors={errors} />
-    </div>
+    <Labelled label={label} path={path}>
+      {(id, invalid) => (
+        <>
+          <textarea id={id} rows={rows} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={invalid} aria-describedby={`${id}-h`} className={inputClass} />
+          <p id={`${id}-h`} className="text-xs text-stone-600">
+            {hint}
+          </p>
+        </>
+      )}
+    </Labelled>
   );
 }
 
-function CellSelect({ label, path, value, onChange, options }: { label: string; path: string; value: string; onChange: (v: string) => void; options: [string, string][] }) {
-  const id = useId();
-  const errors = useError(path);
+function SelectInput({ label, path, value, onChange, options, cell }: InputProps & { options: [string, string][] }) {
   return (
-    <div>
-      <select aria-label={label} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={errors ? true : undefined} aria-describedby={errors ? `${id}-e` : undefined} className={inputClass}>
-        {options.map(([v, l]) => (
-          <option key={v} value={v}>
-            {l}
-          </option>
-        ))}
-      </select>
-      <ErrorText id={`${id}-e`} errors={errors} />
-    </div>
+    <Labelled label={label} path={path} cell={cell}>
+      {(id, invalid) => (
+        <select id={id} aria-label={cell ? label : undefined} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={invalid} className={inputClass}>
+          {options.map(([v, l]) => (
+            <option key={v} value={v}>
+              {l}
+            </option>
+          ))}
+        </select>
+      )}
+    </Labelled>
   );
 }

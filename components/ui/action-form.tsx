@@ -1,6 +1,6 @@
 "use client";
 
-import { createContext, startTransition, useActionState, useContext, type FormEvent, type ReactNode } from "react";
+import { createContext, startTransition, useActionState, useContext, useEffect, useRef, type FormEvent, type ReactNode } from "react";
 import type { FormState } from "@/lib/actions/result";
 
 const FormStateContext = createContext<{ state: FormState; pending: boolean }>({ state: null, pending: false });
@@ -15,6 +15,8 @@ export interface ActionFormProps<S extends FormState> {
   className?: string;
   /** Shown above the fields when the server accepted the submission. */
   showSuccess?: boolean;
+  /** Clear the fields once the server accepted them (forms that add one record after another). */
+  resetOnSuccess?: boolean;
   "aria-label"?: string;
 }
 
@@ -23,8 +25,12 @@ export interface ActionFormProps<S extends FormState> {
  * the form's own action, so React does not reset the fields: on a validation
  * error everything the user typed stays where it was.
  */
-export function ActionForm<S extends FormState>({ action, children, className, showSuccess = true, ...rest }: ActionFormProps<S>) {
+export function ActionForm<S extends FormState>({ action, children, className, showSuccess = true, resetOnSuccess = false, ...rest }: ActionFormProps<S>) {
   const [state, dispatch, pending] = useActionState<S, FormData>(action, null as Awaited<S>);
+  const form = useRef<HTMLFormElement>(null);
+  useEffect(() => {
+    if (resetOnSuccess && state?.ok) form.current?.reset();
+  }, [state, resetOnSuccess]);
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const data = new FormData(event.currentTarget);
@@ -32,7 +38,7 @@ export function ActionForm<S extends FormState>({ action, children, className, s
   }
   return (
     <FormStateContext.Provider value={{ state, pending }}>
-      <form onSubmit={onSubmit} className={className} noValidate aria-label={rest["aria-label"]}>
+      <form ref={form} onSubmit={onSubmit} className={className} noValidate aria-label={rest["aria-label"]}>
         {state && !state.ok && (
           <p role="alert" className="mb-4 rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900">
             {state.message}

@@ -50,6 +50,9 @@ export const PERMISSIONS = {
   "evidence.record": ["engineer", "technician"],
   "evidence.sign_performed": ["technician"],
   "evidence.verify": ["engineer", "reviewer", "approver", "technician"],
+  // Bath and filter log
+  "bath.record": ["engineer", "technician"],
+  "bath.manage_intervals": ["admin", "engineer"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;

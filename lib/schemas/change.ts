@@ -126,3 +126,9 @@ export const matrixSchema = z
       seen.add(k);
     });
   });
+
+export const intervalSchema = z.object({
+  intervalId: z.string().uuid(),
+  intervalMonths: z.coerce.number({ error: "Enter a number of months." }).int("Enter whole months.").min(1, "At least 1 month.").max(60, "At most 60 months."),
+  reason: z.string().trim().min(5, "Give the reason for the record (at least 5 characters).").max(1000),
+});

@@ -80,6 +80,15 @@ test("a wash temperature above its validated range is major, is requalified with
   await expect(approver.getByRole("table", { name: "Signatures" })).toContainText("Helena Okafor");
   await approver.close();
 
+  // The author is told by e-mail that the change may go ahead (read in the demo mailbox).
+  const number = (await page.getByRole("heading", { level: 1 }).textContent())!.split(" ")[0];
+  const mailbox = await as(browser, "admin", "/admin/email");
+  await expect(async () => {
+    await mailbox.reload();
+    await expect(mailbox.getByRole("region", { name: "Demo mailbox" }).getByText(`[Washproof] ${number} approved for implementation`)).toBeVisible({ timeout: 1000 });
+  }).toPass({ timeout: 30_000 });
+  await mailbox.close();
+
   await page.reload();
   await page.getByRole("button", { name: "Start requalification" }).click();
   await expect(page.getByRole("heading", { name: "Requalification gate: not met" })).toBeVisible();

@@ -1,4 +1,4 @@
-import { and, eq } from "drizzle-orm";
+import { and, desc, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   auditEvents,
@@ -25,6 +25,7 @@ import { openChangeRequest } from "@/lib/server/changes/open-change-request";
 import { changesQueue } from "@/lib/server/changes/queue";
 import { reopenChange } from "@/lib/server/changes/reopen-change";
 import { saveProposal } from "@/lib/server/changes/save-proposal";
+import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
 import { sendRequalificationReminders } from "@/lib/server/changes/send-requalification-reminders";
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { loadChangeState } from "@/lib/server/changes/state";
@@ -86,6 +87,19 @@ describe("periodic requalification", () => {
     const technician = { ...people.technician, email: "technician@fennmoor.example", roles: ["technician" as const], mustChangePassword: false };
     const techItems = await changesQueue(technician as never, new Date());
     expect(techItems.find((i) => i.title.startsWith("CR-2026-002"))?.kind).toBe("Requalification tests");
+  });
+});
+
+describe("requalification interval", () => {
+  it("changes with a reason, refuses the same value, and re-arms the reminder", async () => {
+    const [row] = await t.db.select().from(requalificationIntervals).where(eq(requalificationIntervals.intervalMonths, 12));
+    await expect(setRequalificationInterval(people.engineer, { intervalId: row.id, intervalMonths: 12, reason: "No change" })).rejects.toMatchObject({ field: "intervalMonths" });
+    await setRequalificationInterval(people.engineer, { intervalId: row.id, intervalMonths: 6, reason: "Customer asks for half-yearly checks" });
+    const [after] = await t.db.select().from(requalificationIntervals).where(eq(requalificationIntervals.id, row.id));
+    expect(after).toMatchObject({ intervalMonths: 6, notifiedForDue: null });
+    const [event] = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, row.id)).orderBy(desc(auditEvents.seq)).limit(1);
+    expect(event).toMatchObject({ action: "requalification_interval.set", reason: "Customer asks for half-yearly checks" });
+    await setRequalificationInterval(people.engineer, { intervalId: row.id, intervalMonths: 12, reason: "Back to yearly" });
   });
 });
 

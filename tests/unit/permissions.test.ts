@@ -38,6 +38,8 @@ const EXPECTED: Record<Action, Role[]> = {
   "evidence.record": ["engineer", "technician"],
   "evidence.sign_performed": ["technician"],
   "evidence.verify": ["engineer", "reviewer", "approver", "technician"],
+  "bath.record": ["engineer", "technician"],
+  "bath.manage_intervals": ["admin", "engineer"],
 };
 
 describe("role table", () => {

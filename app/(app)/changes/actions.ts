@@ -2,9 +2,9 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { invalid, type FormState } from "@/lib/actions/result";
+import { invalid, readJsonPayload, type FormState } from "@/lib/actions/result";
 import { deliverSoon } from "@/lib/email/deliver";
-import { changeIdSchema, endChangeSchema, linkEvidenceSchema, openChangeSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
+import { changeIdSchema, endChangeSchema, intervalSchema, linkEvidenceSchema, openChangeSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
 import { authorize } from "@/lib/server/auth/current-user";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
@@ -14,6 +14,7 @@ import { linkEvidence } from "@/lib/server/changes/link-evidence";
 import { openChangeRequest } from "@/lib/server/changes/open-change-request";
 import { reopenChange } from "@/lib/server/changes/reopen-change";
 import { saveProposal } from "@/lib/server/changes/save-proposal";
+import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import { toActionFailure } from "@/lib/server/errors";
@@ -42,13 +43,9 @@ export async function openChangeAction(_prev: FormState, formData: FormData): Pr
 export async function saveProposalAction(_prev: FormState, formData: FormData): Promise<FormState> {
   const auth = await authorize("recipe.edit");
   if (!auth.ok) return auth;
-  let payload: unknown;
-  try {
-    payload = JSON.parse(String(formData.get("payload") ?? "null"));
-  } catch {
-    return { ok: false, message: "The form could not be read. Reload the page; nothing was saved." };
-  }
-  const parsed = proposalSchema.safeParse(payload);
+  const payload = readJsonPayload(formData);
+  if (!payload.ok) return payload;
+  const parsed = proposalSchema.safeParse(payload.value);
   if (!parsed.success) return invalid(parsed.error, "Some values need attention. Nothing was saved; everything you typed is still here.");
   try {
     await saveProposal(auth.user, parsed.data);
@@ -156,4 +153,19 @@ export async function withdrawChangeAction(_prev: FormState, formData: FormData)
 }
 export async function reopenChangeAction(_prev: FormState, formData: FormData) {
   return ending("reopen", formData);
+}
+
+export async function setIntervalAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const auth = await authorize("recipe.edit");
+  if (!auth.ok) return auth;
+  const parsed = intervalSchema.safeParse({ intervalId: formData.get("intervalId"), intervalMonths: formData.get("intervalMonths"), reason: formData.get("reason") });
+  if (!parsed.success) return invalid(parsed.error);
+  try {
+    await setRequalificationInterval(auth.user, parsed.data);
+  } catch (error) {
+    return toActionFailure(error);
+  }
+  revalidatePath("/systems", "layout");
+  revalidatePath("/queue");
+  return { ok: true, message: `Requalify every ${parsed.data.intervalMonths} months.` };
 }

@@ -1,18 +1,30 @@
 import type { Metadata } from "next";
-import { EmptyState } from "@/components/ui/empty-state";
+import Link from "next/link";
+import { EvidenceTable } from "@/components/evidence/evidence-table";
 import { PageHeader } from "@/components/ui/page-header";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { runFormOptions } from "@/lib/server/evidence/queries";
 
 export const metadata: Metadata = { title: "Evidence" };
 
 export default async function EvidencePage() {
-  await requirePageUser("evidence.view");
+  const user = await requirePageUser("evidence.view");
+  const options = await runFormOptions();
   return (
     <>
-      <PageHeader title="Evidence" description="Test runs with their raw results, lab files and computed outcomes." />
-      <EmptyState title="No records yet">
-        Test runs will be listed here with their computed outcome, who performed them and who verified them once the first result is recorded.
-      </EmptyState>
+      <PageHeader
+        title="Evidence"
+        description="Test runs with their raw results, lab files and computed outcomes. A computed pass or fail supports, and never replaces, the customer's specification and the engineer's judgement."
+        actions={
+          can(user.roles, "evidence.record") ? (
+            <Link href="/evidence/runs/new" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+              New test run
+            </Link>
+          ) : undefined
+        }
+      />
+      <EvidenceTable families={options.families} versions={options.versions} />
     </>
   );
 }

@@ -1,7 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { invalid, type FormState } from "@/lib/actions/result";
+import { invalid, readJsonPayload, type FormState } from "@/lib/actions/result";
 import { matrixSchema } from "@/lib/schemas/change";
 import { authorize } from "@/lib/server/auth/current-user";
 import { toActionFailure } from "@/lib/server/errors";
@@ -10,13 +10,9 @@ import { versionMatrix } from "@/lib/server/matrix/version-matrix";
 export async function saveMatrixAction(_prev: FormState, formData: FormData): Promise<FormState> {
   const auth = await authorize("matrix.manage");
   if (!auth.ok) return auth;
-  let payload: unknown;
-  try {
-    payload = JSON.parse(String(formData.get("payload") ?? "null"));
-  } catch {
-    return { ok: false, message: "The form could not be read. Reload the page; nothing was saved." };
-  }
-  const parsed = matrixSchema.safeParse(payload);
+  const payload = readJsonPayload(formData);
+  if (!payload.ok) return payload;
+  const parsed = matrixSchema.safeParse(payload.value);
   if (!parsed.success) return invalid(parsed.error);
   try {
     const m = await versionMatrix(auth.user, parsed.data);

@@ -2,15 +2,18 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { RecipeTable } from "@/components/recipes/recipe-table";
+import { SystemEditor } from "@/components/systems/system-editor";
 import { PageHeader } from "@/components/ui/page-header";
 import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getCleaningSystem } from "@/lib/server/plant/queries";
+import { updateSystemAction } from "../actions";
 
 export const metadata: Metadata = { title: "Cleaning system" };
 
 export default async function SystemPage({ params }: { params: Promise<{ systemId: string }> }) {
-  await requirePageUser("systems.view");
+  const user = await requirePageUser("systems.view");
   const { systemId } = await params;
   const system = /^[0-9a-f-]{36}$/.test(systemId) ? await getCleaningSystem(systemId) : undefined;
   if (!system) notFound();
@@ -44,6 +47,14 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
             ))}
           </tbody>
         </table>
+        {can(user.roles, "systems.manage") && (
+          <details className="mt-4">
+            <summary className="cursor-pointer text-sm font-medium text-brand-800">Edit system and stages</summary>
+            <div className="mt-3">
+              <SystemEditor action={updateSystemAction} system={system} />
+            </div>
+          </details>
+        )}
       </section>
       {system.recipes.map((recipe) => {
         const v = recipe.effectiveVersion;

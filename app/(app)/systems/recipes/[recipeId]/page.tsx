@@ -1,23 +1,19 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { IntervalForm } from "@/components/changes/interval-form";
 import { OpenChangeForm } from "@/components/changes/open-change-form";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { humanize } from "@/lib/format/labels";
 import { OPEN_STATUSES, STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { requalificationDue } from "@/lib/recipes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRecipePage } from "@/lib/server/changes/queries";
-import { openChangeAction } from "../../../changes/actions";
+import { openChangeAction, setIntervalAction } from "../../../changes/actions";
 
 export const metadata: Metadata = { title: "Recipe" };
-
-function addMonths(iso: string, months: number) {
-  const d = new Date(iso);
-  d.setUTCMonth(d.getUTCMonth() + months);
-  return d.toISOString().slice(0, 10);
-}
 
 export default async function RecipePage({ params }: { params: Promise<{ recipeId: string }> }) {
   const user = await requirePageUser("systems.view");
@@ -95,7 +91,8 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                 {intervals.map(({ interval, family }) => (
                   <li key={interval.id} className="px-3 py-2">
                     <span className="font-medium">{family.code}</span> {family.name} · requalify every {interval.intervalMonths} months · last {interval.lastQualifiedAt.slice(0, 10)} · next due{" "}
-                    {addMonths(interval.lastQualifiedAt, interval.intervalMonths)}
+                    {requalificationDue(interval.lastQualifiedAt, interval.intervalMonths).slice(0, 10)}
+                    {can(user.roles, "recipe.edit") && <IntervalForm action={setIntervalAction} intervalId={interval.id} months={interval.intervalMonths} family={family.code} />}
                   </li>
                 ))}
               </ul>

@@ -1,0 +1,100 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { BathRecordForm, IntervalForm } from "@/components/evidence/bath-forms";
+import { ControlChart } from "@/components/evidence/control-chart";
+import { Caution } from "@/components/ui/caution";
+import { PageHeader } from "@/components/ui/page-header";
+import { can } from "@/lib/auth/permissions";
+import { iso4406Code } from "@/lib/cleanliness";
+import { bathControlChart } from "@/lib/evidence/bath-chart";
+import { BATH_VARIABLES, MAINTENANCE_LABELS, STATE_LABELS, type BathVariable } from "@/lib/evidence/maintenance";
+import { withUnit } from "@/lib/format/labels";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getTank } from "@/lib/server/bath/queries";
+import { recordBathAction, setIntervalAction } from "../../actions";
+
+export const metadata: Metadata = { title: "Tank log" };
+
+export default async function TankPage({ params }: { params: Promise<{ stageId: string }> }) {
+  const user = await requirePageUser("evidence.view");
+  const { stageId } = await params;
+  const tank = /^[0-9a-f-]{36}$/.test(stageId) ? await getTank(stageId) : undefined;
+  if (!tank) notFound();
+  const charts = (Object.keys(BATH_VARIABLES) as BathVariable[])
+    .map((v) => bathControlChart(tank.records.map((r) => ({ performedAt: r.record.performedAt, values: r.record })), v))
+    .filter((c) => c !== null);
+  return (
+    <>
+      <PageHeader title={`${tank.system.code} · ${tank.stage.name}`} description={tank.stage.tankVolumeL !== null ? `Tank volume ${tank.stage.tankVolumeL} L` : undefined} />
+      <div className="mb-6 space-y-2">
+        <Caution title="isolate the machine before a filter change">
+          Switch off, isolate and lock out the washer and let pressure and temperature fall before opening a filter housing or draining a tank; follow the site&apos;s lock-out procedure.
+        </Caution>
+        <Caution title="hot alkaline bath">
+          Bath changes and samples involve hot, alkaline detergent solution: wear eye and skin protection as the safety data sheet requires.
+        </Caution>
+      </div>
+      <section aria-labelledby="due-title" className="mb-6">
+        <h2 id="due-title" className="mb-2 text-base font-semibold">Maintenance intervals</h2>
+        {tank.maintenance.length === 0 ? (
+          <p className="text-sm text-stone-600">No interval set for this tank.</p>
+        ) : (
+          <ul className="mb-3 space-y-1 text-sm">
+            {tank.maintenance.map((m) => (
+              <li key={m.intervalId}>
+                {MAINTENANCE_LABELS[m.kind]} every {m.intervalDays} days: <strong>{STATE_LABELS[m.status.state]}</strong>, due {m.status.dueAt.slice(0, 10)} (last {m.status.lastDoneAt?.slice(0, 10) ?? "never recorded"})
+              </li>
+            ))}
+          </ul>
+        )}
+        {can(user.roles, "bath.manage_intervals") && <IntervalForm action={setIntervalAction} stageId={tank.stage.id} />}
+      </section>
+      {can(user.roles, "bath.record") && (
+        <section aria-labelledby="record-title" className="mb-6">
+          <h2 id="record-title" className="mb-2 text-base font-semibold">Record</h2>
+          <BathRecordForm action={recordBathAction} stageId={tank.stage.id} />
+        </section>
+      )}
+      <section aria-labelledby="charts-title" className="mb-6 space-y-4">
+        <h2 id="charts-title" className="text-base font-semibold">Control charts</h2>
+        {charts.length === 0 ? <p className="text-sm text-stone-600">At least two readings of a value are needed for its chart.</p> : charts.map((c) => <ControlChart key={c.title} {...c} />)}
+      </section>
+      <section aria-labelledby="log-title">
+        <h2 id="log-title" className="mb-2 text-base font-semibold">Log</h2>
+        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
+          <table className="w-full text-sm">
+            <caption className="sr-only">Bath log</caption>
+            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
+              <tr>
+                <th className="px-3 py-2 font-medium">When (UTC)</th>
+                <th className="px-3 py-2 font-medium">What</th>
+                <th className="px-3 py-2 text-right font-medium">Concentration</th>
+                <th className="px-3 py-2 text-right font-medium">Conductivity</th>
+                <th className="px-3 py-2 text-right font-medium">Temperature</th>
+                <th className="px-3 py-2 font-medium">ISO 4406</th>
+                <th className="px-3 py-2 font-medium">Notes</th>
+                <th className="px-3 py-2 font-medium">By</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-stone-100">
+              {[...tank.records].reverse().map(({ record: r, by }) => (
+                <tr key={r.id}>
+                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{r.performedAt.slice(0, 16).replace("T", " ")}</td>
+                  <td className="px-3 py-2">{MAINTENANCE_LABELS[r.kind]}</td>
+                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.concentrationPct, "%")}</td>
+                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.conductivityUsPerCm, "µS/cm")}</td>
+                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.temperatureC, "°C")}</td>
+                  <td className="px-3 py-2 font-mono text-xs">
+                    {r.countPerMl4 !== null && r.countPerMl6 !== null && r.countPerMl14 !== null ? iso4406Code([r.countPerMl4, r.countPerMl6, r.countPerMl14]) : "—"}
+                  </td>
+                  <td className="px-3 py-2">{[r.filterDescription, r.notes].filter(Boolean).join(" · ") || "—"}</td>
+                  <td className="px-3 py-2">{by}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </section>
+    </>
+  );
+}

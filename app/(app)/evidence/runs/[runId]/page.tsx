@@ -1,0 +1,196 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { CsvImport } from "@/components/evidence/csv-import";
+import { FileUpload } from "@/components/evidence/file-upload";
+import { OutcomePanel } from "@/components/evidence/outcome-panel";
+import { RemoveSampleButton, ReviseForm } from "@/components/evidence/run-actions";
+import { RunDataForm, SampleForm } from "@/components/evidence/sample-form";
+import { OutcomeWord, RunStatusWord } from "@/components/evidence/status-word";
+import { SignatureDialog } from "@/components/signatures/signature-dialog";
+import { SignatureList } from "@/components/signatures/signature-list";
+import { PageHeader } from "@/components/ui/page-header";
+import { can } from "@/lib/auth/permissions";
+import { env } from "@/lib/env";
+import { describeSample } from "@/lib/evidence/describe";
+import { humanize } from "@/lib/format/labels";
+import type { ParticleRunData } from "@/lib/schemas/evidence";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getRunDetail } from "@/lib/server/evidence/queries";
+import { addSampleAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
+
+export const metadata: Metadata = { title: "Test run" };
+
+const kb = (n: number) => (n < 1024 * 1024 ? `${(n / 1024).toFixed(1)} kB` : `${(n / 1048576).toFixed(1)} MB`);
+
+export default async function RunPage({ params }: { params: Promise<{ runId: string }> }) {
+  const user = await requirePageUser("evidence.view");
+  const { runId } = await params;
+  const detail = /^[0-9a-f-]{36}$/.test(runId) ? await getRunDetail(runId) : undefined;
+  if (!detail) notFound();
+  const { run, family, spec, recipe, version, outcome, results, files, signatures, revisions } = detail;
+  const open = run.status === "open";
+  const mayRecord = open && can(user.roles, "evidence.record");
+  const label = `${run.number} revision ${run.revision}`;
+  const performedBy = signatures.find((s) => s.meaning === "performed");
+  const runData = (run.runData ?? { extractionSeries: [], blank: null }) as ParticleRunData;
+  return (
+    <>
+      <PageHeader
+        title={`${run.number}${run.revision > 1 ? ` rev ${run.revision}` : ""} · ${humanize(run.testType)}`}
+        description={
+          <span className="flex flex-wrap gap-x-4 gap-y-1">
+            <RunStatusWord status={run.status} />
+            <span>
+              {family.code} · {family.name}
+            </span>
+            <span>
+              {recipe.code} v{version.version}
+            </span>
+          </span>
+        }
+      />
+      {run.status === "superseded" && (
+        <p className="mb-4 rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm">
+          This revision has been superseded. <Link className="font-medium text-brand-800 underline" href={`/evidence/runs/${revisions[0].id}`}>Open the current revision</Link>.
+        </p>
+      )}
+      <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
+        <div className="space-y-6">
+          <OutcomePanel outcome={outcome} />
+
+          <section aria-labelledby="samples-title" className="space-y-3">
+            <h2 id="samples-title" className="text-base font-semibold">
+              Raw data ({results.length} sample{results.length === 1 ? "" : "s"})
+            </h2>
+            {results.length > 0 && (
+              <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
+                {results.map((r) => (
+                  <li key={r.id} className="flex items-start justify-between gap-3 px-3 py-2">
+                    <div>
+                      <span className="font-medium">{r.sampleLabel}</span>
+                      {r.basketPosition && <span className="text-stone-600"> · basket {r.basketPosition}</span>}
+                      {r.worstCase && <span className="text-stone-600"> · worst case</span>}
+                      <p className="mt-0.5 text-xs text-stone-700 tabular-nums">{describeSample(run.testType, r.data)}</p>
+                    </div>
+                    {mayRecord && <RemoveSampleButton action={removeSampleAction} runId={run.id} resultId={r.id} label={r.sampleLabel} />}
+                  </li>
+                ))}
+              </ul>
+            )}
+            {mayRecord && <SampleForm action={addSampleAction} runId={run.id} testType={run.testType} />}
+            {mayRecord && run.testType === "particle_cleanliness" && (
+              <>
+                <h3 className="pt-2 text-sm font-semibold">Extraction (declining test) and blank value</h3>
+                <RunDataForm action={saveRunDataAction} runId={run.id} defaults={runData} />
+                <h3 className="pt-2 text-sm font-semibold">Import samples from a CSV file</h3>
+                <CsvImport runId={run.id} />
+              </>
+            )}
+          </section>
+
+          <section aria-labelledby="files-title" className="space-y-3">
+            <h2 id="files-title" className="text-base font-semibold">Evidence files</h2>
+            {files.length === 0 ? (
+              <p className="text-sm text-stone-600">No files attached.</p>
+            ) : (
+              <table className="w-full rounded-lg border border-stone-200 bg-white text-sm">
+                <caption className="sr-only">Evidence files</caption>
+                <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
+                  <tr>
+                    <th className="px-3 py-2 font-medium">File</th>
+                    <th className="px-3 py-2 font-medium">Kind</th>
+                    <th className="px-3 py-2 text-right font-medium">Size</th>
+                    <th className="px-3 py-2 font-medium">SHA-256</th>
+                    <th className="px-3 py-2 font-medium">Uploaded</th>
+                  </tr>
+                </thead>
+                <tbody className="divide-y divide-stone-100">
+                  {files.map(({ file, uploader }) => (
+                    <tr key={file.id}>
+                      <td className="px-3 py-2">
+                        <a href={`/api/evidence/files/${file.id}`} className="font-medium text-brand-800 hover:underline">
+                          {file.originalName}
+                        </a>
+                      </td>
+                      <td className="px-3 py-2">
+                        {humanize(file.kind)}
+                        {file.sampleLabel ? ` · ${file.sampleLabel}` : ""}
+                      </td>
+                      <td className="px-3 py-2 text-right tabular-nums">{kb(file.sizeBytes)}</td>
+                      <td className="px-3 py-2 font-mono text-xs" title={file.sha256}>
+                        {file.sha256.slice(0, 12)}…
+                      </td>
+                      <td className="px-3 py-2 text-xs">
+                        {uploader}, {file.uploadedAt.slice(0, 16).replace("T", " ")} UTC
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            )}
+            {mayRecord && <FileUpload runId={run.id} maxMb={env().UPLOAD_MAX_MB} />}
+          </section>
+        </div>
+
+        <aside className="space-y-6">
+          <section aria-labelledby="context-title" className="rounded-lg border border-stone-200 bg-white p-4 text-sm">
+            <h2 id="context-title" className="mb-2 font-semibold">Run</h2>
+            <dl className="grid grid-cols-[max-content_1fr] gap-x-3 gap-y-1">
+              <dt className="text-stone-500">Specification</dt>
+              <dd>
+                {spec.code} <span className="block font-mono text-xs">{spec.ccc}</span>
+              </dd>
+              <dt className="text-stone-500">Wetted area</dt>
+              <dd>{family.wettedAreaCm2} cm² per part</dd>
+              <dt className="text-stone-500">Technician</dt>
+              <dd>{detail.technician ?? "—"}</dd>
+              <dt className="text-stone-500">Lab</dt>
+              <dd>{run.lab ?? "—"}</dd>
+              <dt className="text-stone-500">Test date</dt>
+              <dd>{run.performedOn ?? "—"}</dd>
+              <dt className="text-stone-500">Protocol</dt>
+              <dd>{detail.protocol ? detail.protocol.number : "—"}</dd>
+              <dt className="text-stone-500">Change request</dt>
+              <dd>{detail.change ? `${detail.change.number}${run.requirement ? ` · ${run.requirement}` : ""}` : (run.requirement ?? "—")}</dd>
+              <dt className="text-stone-500">Content hash</dt>
+              <dd className="font-mono text-xs break-all">{detail.contentHash}</dd>
+            </dl>
+          </section>
+
+          <section aria-labelledby="signatures-title" className="space-y-3 rounded-lg border border-stone-200 bg-white p-4">
+            <h2 id="signatures-title" className="font-semibold">Signatures</h2>
+            <SignatureList signatures={signatures} />
+            {open && run.technicianId === user.id && can(user.roles, "evidence.sign_performed") && (
+              <SignatureDialog action={signRunAction} meaning="performed" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
+            )}
+            {run.status === "performed" && can(user.roles, "evidence.verify") && performedBy?.userId !== user.id && (
+              <SignatureDialog action={signRunAction} meaning="verified" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
+            )}
+          </section>
+
+          {(run.status === "performed" || run.status === "verified") && can(user.roles, "evidence.record") && <ReviseForm action={reviseRunAction} runId={run.id} />}
+
+          <section aria-labelledby="revisions-title" className="rounded-lg border border-stone-200 bg-white p-4 text-sm">
+            <h2 id="revisions-title" className="mb-2 font-semibold">Revisions</h2>
+            <ol className="space-y-2">
+              {revisions.map((r) => (
+                <li key={r.id}>
+                  {r.id === run.id ? (
+                    <span className="font-medium">Revision {r.revision} (this page)</span>
+                  ) : (
+                    <Link href={`/evidence/runs/${r.id}`} className="font-medium text-brand-800 hover:underline">
+                      Revision {r.revision}
+                    </Link>
+                  )}{" "}
+                  · <RunStatusWord status={r.status} /> · <OutcomeWord outcome={r.outcome} />
+                  {r.revisionReason && <span className="block text-xs text-stone-600">Reason: {r.revisionReason}</span>}
+                </li>
+              ))}
+            </ol>
+          </section>
+        </aside>
+      </div>
+    </>
+  );
+}

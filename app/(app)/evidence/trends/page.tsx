@@ -1,0 +1,100 @@
+import type { Metadata } from "next";
+import { ControlChart } from "@/components/evidence/control-chart";
+import { TrendChart } from "@/components/evidence/trend-chart";
+import { EmptyState } from "@/components/ui/empty-state";
+import { PageHeader } from "@/components/ui/page-header";
+import { bathControlChart } from "@/lib/evidence/bath-chart";
+import { BATH_VARIABLES, type BathVariable } from "@/lib/evidence/maintenance";
+import { particleTrend } from "@/lib/evidence/trends";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getTank, listTanks } from "@/lib/server/bath/queries";
+import { particleHistory, runFormOptions } from "@/lib/server/evidence/queries";
+
+export const metadata: Metadata = { title: "Trends" };
+
+const pick = (v: string | string[] | undefined) => (typeof v === "string" && /^[0-9a-f-]{36}$/.test(v) ? v : undefined);
+
+export default async function TrendsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  await requirePageUser("evidence.view");
+  const sp = await searchParams;
+  const options = await runFormOptions();
+  const familyId = pick(sp.family) ?? options.families[0]?.id;
+  const versionId = pick(sp.version);
+  const history = familyId ? await particleHistory(familyId, versionId) : null;
+  const series = history?.family ? particleTrend(history.family.spec.ccc, history.family.family, history.runs) : null;
+
+  const tanks = (await listTanks()).filter((t) => t.stage.tankVolumeL !== null);
+  const stageId = pick(sp.tank) ?? tanks[0]?.stage.id;
+  const variable: BathVariable = typeof sp.variable === "string" && sp.variable in BATH_VARIABLES ? (sp.variable as BathVariable) : "concentrationPct";
+  const tank = stageId ? await getTank(stageId) : undefined;
+  const chart = tank ? bathControlChart(tank.records.map((r) => ({ performedAt: r.record.performedAt, values: r.record })), variable) : null;
+  const select = "rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
+  return (
+    <>
+      <PageHeader title="Trends" description="Cleanliness results over time against the specification, and control charts of monitored bath values." />
+      <section aria-labelledby="particles-title" className="mb-10 space-y-3">
+        <h2 id="particles-title" className="text-base font-semibold">Particle cleanliness by part family</h2>
+        <form className="flex flex-wrap items-end gap-3" method="get" aria-label="Choose part family and recipe version">
+          <label className="text-xs text-stone-600">
+            Part family
+            <select name="family" defaultValue={familyId} className={`block ${select}`}>
+              {options.families.map((f) => (
+                <option key={f.id} value={f.id}>
+                  {f.code} · {f.name}
+                </option>
+              ))}
+            </select>
+          </label>
+          <label className="text-xs text-stone-600">
+            Recipe version
+            <select name="version" defaultValue={versionId ?? ""} className={`block ${select}`}>
+              <option value="">All versions</option>
+              {options.versions.map((v) => (
+                <option key={v.id} value={v.id}>
+                  {v.label}
+                </option>
+              ))}
+            </select>
+          </label>
+          {stageId && <input type="hidden" name="tank" value={stageId} />}
+          <input type="hidden" name="variable" value={variable} />
+          <button className="rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm hover:bg-stone-100">Show</button>
+        </form>
+        {series && series.points.length > 0 ? (
+          <TrendChart series={series} />
+        ) : (
+          <EmptyState title="No particle results yet">Particle cleanliness runs of this part family and recipe version appear here once samples are recorded.</EmptyState>
+        )}
+      </section>
+      <section aria-labelledby="bath-title" className="space-y-3">
+        <h2 id="bath-title" className="text-base font-semibold">Bath control chart</h2>
+        <form className="flex flex-wrap items-end gap-3" method="get" aria-label="Choose tank and value">
+          {familyId && <input type="hidden" name="family" value={familyId} />}
+          {versionId && <input type="hidden" name="version" value={versionId} />}
+          <label className="text-xs text-stone-600">
+            Tank
+            <select name="tank" defaultValue={stageId} className={`block ${select}`}>
+              {tanks.map((t) => (
+                <option key={t.stage.id} value={t.stage.id}>
+                  {t.system.code} · {t.stage.name}
+                </option>
+              ))}
+            </select>
+          </label>
+          <label className="text-xs text-stone-600">
+            Value
+            <select name="variable" defaultValue={variable} className={`block ${select}`}>
+              {Object.entries(BATH_VARIABLES).map(([k, v]) => (
+                <option key={k} value={k}>
+                  {v.label} ({v.unit})
+                </option>
+              ))}
+            </select>
+          </label>
+          <button className="rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm hover:bg-stone-100">Show</button>
+        </form>
+        {chart ? <ControlChart {...chart} /> : <EmptyState title="Not enough readings">A control chart needs at least two readings of this value for the tank.</EmptyState>}
+      </section>
+    </>
+  );
+}

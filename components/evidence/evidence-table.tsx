@@ -1,0 +1,202 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type PaginationState, type SortingState } from "@tanstack/react-table";
+import { ArrowDown, ArrowUp, ArrowUpDown } from "lucide-react";
+import Link from "next/link";
+import { useState } from "react";
+import { OUTCOMES, TEST_TYPES } from "@/db/enums";
+import { humanize } from "@/lib/format/labels";
+import type { EvidenceListPage, EvidenceListRow } from "@/lib/schemas/evidence-list";
+import { Button } from "@/components/ui/button";
+import { OutcomeWord, RunStatusWord } from "./status-word";
+
+const columns: ColumnDef<EvidenceListRow>[] = [
+  {
+    id: "number",
+    header: "Run",
+    accessorKey: "number",
+    cell: ({ row }) => (
+      <Link href={`/evidence/runs/${row.original.id}`} className="font-medium text-brand-800 hover:underline">
+        {row.original.number}
+        {row.original.revision > 1 ? ` rev ${row.original.revision}` : ""}
+      </Link>
+    ),
+  },
+  { id: "performedOn", header: "Date", accessorKey: "performedOn", cell: ({ row }) => row.original.performedOn ?? "—" },
+  { id: "partFamily", header: "Part family", accessorKey: "partFamily" },
+  { id: "recipe", header: "Recipe version", accessorKey: "recipe", enableSorting: false },
+  { id: "testType", header: "Test", accessorKey: "testType", cell: ({ row }) => humanize(row.original.testType) },
+  { id: "outcome", header: "Outcome", accessorKey: "outcome", cell: ({ row }) => <OutcomeWord outcome={row.original.outcome} /> },
+  { id: "status", header: "Status", accessorKey: "status", cell: ({ row }) => <RunStatusWord status={row.original.status as "open"} /> },
+  { id: "technician", header: "Technician", accessorKey: "technician", enableSorting: false, cell: ({ row }) => row.original.technician ?? "—" },
+];
+
+export interface EvidenceTableProps {
+  families: { id: string; code: string }[];
+  versions: { id: string; label: string }[];
+}
+
+type Filters = { partFamilyId: string; recipeVersionId: string; testType: string; outcome: string; from: string; to: string };
+const NO_FILTERS: Filters = { partFamilyId: "", recipeVersionId: "", testType: "", outcome: "", from: "", to: "" };
+
+async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
+  const response = await fetch(`/api/evidence/runs?${params}`, { cache: "no-store" });
+  const body = await response.json().catch(() => null);
+  if (!response.ok) throw new Error(body?.error ?? "The list could not be loaded.");
+  return body;
+}
+
+/** The evidence list: filters, sorting and paging are done by the server; the page is fetched here. */
+export function EvidenceTable({ families, versions }: EvidenceTableProps) {
+  const [filters, setFilters] = useState<Filters>(NO_FILTERS);
+  const [sorting, setSorting] = useState<SortingState>([{ id: "performedOn", desc: true }]);
+  const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 20 });
+  const params = new URLSearchParams({
+    ...Object.fromEntries(Object.entries(filters).filter(([, v]) => v !== "")),
+    sort: sorting[0]?.id ?? "performedOn",
+    dir: sorting[0]?.desc === false ? "asc" : "desc",
+    page: String(pagination.pageIndex + 1),
+    pageSize: String(pagination.pageSize),
+  });
+  const { data, error, isFetching } = useQuery({ queryKey: ["evidence", params.toString()], queryFn: () => fetchPage(params), placeholderData: (prev) => prev });
+  const table = useReactTable({
+    columns,
+    getCoreRowModel: getCoreRowModel(),
+    data: data?.rows ?? [],
+    state: { sorting, pagination },
+    onSortingChange: setSorting,
+    onPaginationChange: setPagination,
+    manualSorting: true,
+    manualPagination: true,
+    enableMultiSort: false,
+    rowCount: data?.total ?? 0,
+  });
+  const setFilter = (key: keyof Filters) => (event: { target: { value: string } }) => {
+    setFilters((f) => ({ ...f, [key]: event.target.value }));
+    setPagination((p) => ({ ...p, pageIndex: 0 }));
+  };
+  const pages = Math.max(1, Math.ceil((data?.total ?? 0) / pagination.pageSize));
+  const select = "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
+  return (
+    <section aria-label="Test runs">
+      <form className="mb-3 grid gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-3 lg:grid-cols-6" aria-label="Filter test runs" onSubmit={(e) => e.preventDefault()}>
+        <label className="text-xs text-stone-600">
+          Part family
+          <select className={select} value={filters.partFamilyId} onChange={setFilter("partFamilyId")}>
+            <option value="">All</option>
+            {families.map((f) => (
+              <option key={f.id} value={f.id}>
+                {f.code}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="text-xs text-stone-600">
+          Recipe version
+          <select className={select} value={filters.recipeVersionId} onChange={setFilter("recipeVersionId")}>
+            <option value="">All</option>
+            {versions.map((v) => (
+              <option key={v.id} value={v.id}>
+                {v.label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="text-xs text-stone-600">
+          Test type
+          <select className={select} value={filters.testType} onChange={setFilter("testType")}>
+            <option value="">All</option>
+            {TEST_TYPES.map((t) => (
+              <option key={t} value={t}>
+                {humanize(t)}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="text-xs text-stone-600">
+          Outcome
+          <select className={select} value={filters.outcome} onChange={setFilter("outcome")}>
+            <option value="">All</option>
+            {OUTCOMES.map((o) => (
+              <option key={o} value={o}>
+                {humanize(o)}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="text-xs text-stone-600">
+          From
+          <input type="date" className={select} value={filters.from} onChange={setFilter("from")} />
+        </label>
+        <label className="text-xs text-stone-600">
+          To
+          <input type="date" className={select} value={filters.to} onChange={setFilter("to")} />
+        </label>
+      </form>
+      {error && (
+        <p role="alert" className="mb-3 text-sm text-red-800">
+          {error.message}
+        </p>
+      )}
+      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white" aria-busy={isFetching}>
+        <table className="w-full text-sm">
+          <caption className="sr-only">Test runs, {data?.total ?? 0} found</caption>
+          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  const label = String(header.column.columnDef.header);
+                  return (
+                    <th key={header.id} className="px-3 py-2 font-medium" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}>
+                      {header.column.getCanSort() ? (
+                        <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-stone-900" onClick={header.column.getToggleSortingHandler()}>
+                          {label}
+                          {sorted === "asc" ? <ArrowUp className="h-3 w-3" aria-hidden="true" /> : sorted === "desc" ? <ArrowDown className="h-3 w-3" aria-hidden="true" /> : <ArrowUpDown className="h-3 w-3" aria-hidden="true" />}
+                        </button>
+                      ) : (
+                        label
+                      )}
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="divide-y divide-stone-100">
+            {table.getRowModel().rows.map((row) => (
+              <tr key={row.id}>
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id} className="px-3 py-2 whitespace-nowrap">
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  </td>
+                ))}
+              </tr>
+            ))}
+            {data && data.rows.length === 0 && (
+              <tr>
+                <td colSpan={columns.length} className="px-3 py-6 text-center text-stone-600">
+                  No test runs match these filters.
+                </td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+      <div className="mt-3 flex items-center justify-between text-sm text-stone-700">
+        <p>
+          {data ? `${data.total} run${data.total === 1 ? "" : "s"} · page ${pagination.pageIndex + 1} of ${pages}` : "Loading…"}
+        </p>
+        <div className="flex gap-2">
+          <Button variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+            Previous page
+          </Button>
+          <Button variant="secondary" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+            Next page
+          </Button>
+        </div>
+      </div>
+    </section>
+  );
+}

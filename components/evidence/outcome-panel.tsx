@@ -1,0 +1,79 @@
+import type { RunOutcome } from "@/lib/evidence/outcome";
+import { OutcomeWord } from "./status-word";
+
+function CheckWord({ pass }: { pass: boolean | null }) {
+  return <OutcomeWord outcome={pass === null ? "incomplete" : pass ? "pass" : "fail"} />;
+}
+
+/** The computed outcome with its working: every line says what was compared with what. */
+export function OutcomePanel({ outcome }: { outcome: RunOutcome }) {
+  return (
+    <section aria-labelledby="outcome-title" className="rounded-lg border border-stone-200 bg-white p-5">
+      <div className="flex flex-wrap items-baseline justify-between gap-3">
+        <h2 id="outcome-title" className="text-lg font-semibold">
+          Computed outcome: <OutcomeWord outcome={outcome.outcome} />
+        </h2>
+        {outcome.code && (
+          <p className="text-sm">
+            Run cleanliness code ({outcome.basisUnit}): <span className="font-mono font-medium" data-testid="run-ccc">{outcome.code}</span>
+          </p>
+        )}
+      </div>
+      <p className="mt-1 text-xs text-stone-600">
+        Computed from the stored raw data, never typed. It supports, and never replaces, the customer&apos;s specification and the responsible engineer&apos;s judgement.
+      </p>
+      {outcome.missing.length > 0 && (
+        <ul className="mt-3 list-disc pl-5 text-sm text-stone-800">
+          {outcome.missing.map((m) => (
+            <li key={m}>{m}</li>
+          ))}
+        </ul>
+      )}
+      {outcome.checks.map((c) => (
+        <div key={c.title} className="mt-4">
+          <h3 className="flex gap-2 text-sm font-semibold">
+            {c.title}: <CheckWord pass={c.pass} />
+          </h3>
+          <ul className="mt-1 space-y-0.5 font-mono text-xs text-stone-700">
+            {c.lines.map((l, i) => (
+              <li key={i}>{l}</li>
+            ))}
+          </ul>
+        </div>
+      ))}
+      {outcome.samples.length > 0 && (
+        <table className="mt-4 w-full text-sm">
+          <caption className="mb-1 text-left text-sm font-semibold">Samples</caption>
+          <thead className="text-left text-xs text-stone-500 uppercase">
+            <tr>
+              <th className="py-1 pr-3 font-medium">Sample</th>
+              <th className="py-1 pr-3 font-medium">Outcome</th>
+              <th className="py-1 font-medium">Working</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-stone-100 align-top">
+            {outcome.samples.map((s) => (
+              <tr key={s.sampleLabel}>
+                <td className="py-1.5 pr-3 font-medium whitespace-nowrap">
+                  {s.sampleLabel}
+                  {s.worstCase && <span className="block text-xs font-normal text-stone-600">worst-case position</span>}
+                  {s.code && <span className="block font-mono text-xs font-normal">{s.code}</span>}
+                </td>
+                <td className="py-1.5 pr-3 whitespace-nowrap">
+                  <OutcomeWord outcome={s.outcome} />
+                </td>
+                <td className="py-1.5">
+                  <ul className="space-y-0.5 font-mono text-xs text-stone-700">
+                    {s.lines.map((l, i) => (
+                      <li key={i}>{l}</li>
+                    ))}
+                  </ul>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </section>
+  );
+}

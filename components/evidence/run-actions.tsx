@@ -1,0 +1,32 @@
+"use client";
+
+import { Trash2 } from "lucide-react";
+import { ActionForm } from "@/components/ui/action-form";
+import { Field } from "@/components/ui/field";
+import { SubmitButton } from "@/components/ui/submit-button";
+import type { FormState } from "@/lib/actions/result";
+
+type Action = (prev: FormState, formData: FormData) => Promise<FormState>;
+
+export function RemoveSampleButton({ action, runId, resultId, label }: { action: Action; runId: string; resultId: string; label: string }) {
+  return (
+    <ActionForm action={action} showSuccess={false} aria-label={`Remove sample ${label}`}>
+      <input type="hidden" name="runId" value={runId} />
+      <input type="hidden" name="resultId" value={resultId} />
+      <SubmitButton variant="ghost" pendingText="Removing…" aria-label={`Remove sample ${label}`}>
+        <Trash2 className="h-4 w-4" aria-hidden="true" />
+      </SubmitButton>
+    </ActionForm>
+  );
+}
+
+/** A correction of a signed run: a new revision with its reason; the old revision stays as it was. */
+export function ReviseForm({ action, runId }: { action: Action; runId: string }) {
+  return (
+    <ActionForm action={action} className="space-y-3 rounded-lg border border-stone-200 bg-white p-4" aria-label="Correct this run">
+      <input type="hidden" name="runId" value={runId} />
+      <Field name="reason" label="Reason for the correction" hint="A new revision opens with the same data and files; this revision stays visible with its signatures." />
+      <SubmitButton variant="secondary">Make a new revision</SubmitButton>
+    </ActionForm>
+  );
+}

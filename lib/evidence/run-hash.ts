@@ -1,0 +1,46 @@
+import { canonicalJson, sha256Hex } from "@/lib/audit";
+
+export interface HashableRun {
+  number: string;
+  revision: number;
+  partFamilyId: string;
+  recipeVersionId: string;
+  testType: string;
+  technicianId: string | null;
+  lab: string | null;
+  performedOn: string | null;
+  changeRequestId: string | null;
+  protocolDocumentId: string | null;
+  requirement: string | null;
+  runData: unknown;
+}
+
+/**
+ * Exactly what a signature on a run covers: the run's identity and context, its
+ * raw data and the hashes of its files. Status is left out, so the "performed"
+ * signature stays valid when the run is verified; any change to data or files
+ * changes the hash and shows the signature as no longer valid.
+ */
+export function runContentHash(
+  run: HashableRun,
+  results: { sampleLabel: string; basketPosition: string | null; worstCase: boolean; data: unknown }[],
+  files: { sha256: string; originalName: string; kind: string; sampleLabel: string | null }[],
+) {
+  const content = {
+    number: run.number,
+    revision: run.revision,
+    partFamilyId: run.partFamilyId,
+    recipeVersionId: run.recipeVersionId,
+    testType: run.testType,
+    technicianId: run.technicianId,
+    lab: run.lab,
+    performedOn: run.performedOn,
+    changeRequestId: run.changeRequestId,
+    protocolDocumentId: run.protocolDocumentId,
+    requirement: run.requirement,
+    runData: run.runData ?? null,
+    results: results.map((r) => ({ sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data })),
+    files: files.map((f) => ({ sha256: f.sha256, name: f.originalName, kind: f.kind, sampleLabel: f.sampleLabel })),
+  };
+  return { content, hash: sha256Hex(canonicalJson(content)) };
+}

@@ -1,0 +1,41 @@
+import { z } from "zod";
+import { OUTCOMES, TEST_TYPES } from "@/db/enums";
+
+const optional = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === "" || v === null ? undefined : v), schema.optional());
+
+/** The evidence list's query string: filters, sort and page, parsed on the server. */
+export const evidenceListQuerySchema = z.object({
+  partFamilyId: optional(z.string().uuid("Unknown part family.")),
+  recipeVersionId: optional(z.string().uuid("Unknown recipe version.")),
+  testType: optional(z.enum(TEST_TYPES)),
+  outcome: optional(z.enum(OUTCOMES)),
+  from: optional(z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Dates are YYYY-MM-DD.")),
+  to: optional(z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Dates are YYYY-MM-DD.")),
+  includeSuperseded: optional(z.enum(["true", "false"])).transform((v) => v === "true"),
+  sort: z.enum(["number", "performedOn", "partFamily", "testType", "outcome", "status"]).default("performedOn"),
+  dir: z.enum(["asc", "desc"]).default("desc"),
+  page: z.coerce.number().int().min(1).max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(5).max(100).default(20),
+});
+export type EvidenceListQuery = z.output<typeof evidenceListQuerySchema>;
+
+export interface EvidenceListRow {
+  id: string;
+  number: string;
+  revision: number;
+  partFamily: string;
+  recipe: string;
+  testType: (typeof TEST_TYPES)[number];
+  status: string;
+  outcome: (typeof OUTCOMES)[number] | null;
+  performedOn: string | null;
+  technician: string | null;
+  lab: string | null;
+}
+
+export interface EvidenceListPage {
+  rows: EvidenceListRow[];
+  total: number;
+  page: number;
+  pageSize: number;
+}

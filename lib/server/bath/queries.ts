@@ -1,0 +1,76 @@
+import "server-only";
+import { and, asc, desc, eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { bathRecords, cleaningSystems, maintenanceIntervals, systemStages, users } from "@/db/schema";
+import { maintenanceStatus, type MaintenanceStatus } from "@/lib/evidence/maintenance";
+
+export interface MaintenanceItem {
+  intervalId: string;
+  stageId: string;
+  tank: string;
+  system: string;
+  systemId: string;
+  kind: (typeof maintenanceIntervals.$inferSelect)["kind"];
+  intervalDays: number;
+  warnDays: number;
+  status: MaintenanceStatus;
+}
+
+/** Every maintenance interval with when it is next due. */
+export async function listMaintenance(now = new Date()): Promise<MaintenanceItem[]> {
+  const db = getDb();
+  const intervals = await db
+    .select({ interval: maintenanceIntervals, stage: systemStages, system: cleaningSystems })
+    .from(maintenanceIntervals)
+    .innerJoin(systemStages, eq(systemStages.id, maintenanceIntervals.stageId))
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, systemStages.systemId))
+    .orderBy(asc(cleaningSystems.code), asc(systemStages.position));
+  const items: MaintenanceItem[] = [];
+  for (const { interval, stage, system } of intervals) {
+    const [last] = await db
+      .select({ at: bathRecords.performedAt })
+      .from(bathRecords)
+      .where(and(eq(bathRecords.stageId, stage.id), eq(bathRecords.kind, interval.kind)))
+      .orderBy(desc(bathRecords.performedAt))
+      .limit(1);
+    items.push({
+      intervalId: interval.id,
+      stageId: stage.id,
+      tank: stage.name,
+      system: system.code,
+      systemId: system.id,
+      kind: interval.kind,
+      intervalDays: interval.intervalDays,
+      warnDays: interval.warnDays,
+      status: maintenanceStatus({ intervalDays: interval.intervalDays, warnDays: interval.warnDays, lastDoneAt: last?.at ?? null, since: interval.createdAt }, now),
+    });
+  }
+  return items;
+}
+
+/** Tanks (stages that hold a bath) of every system, for the bath log index. */
+export async function listTanks() {
+  return getDb()
+    .select({ stage: systemStages, system: cleaningSystems })
+    .from(systemStages)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, systemStages.systemId))
+    .orderBy(asc(cleaningSystems.code), asc(systemStages.position));
+}
+
+export async function getTank(stageId: string, now = new Date()) {
+  const db = getDb();
+  const [row] = await db
+    .select({ stage: systemStages, system: cleaningSystems })
+    .from(systemStages)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, systemStages.systemId))
+    .where(eq(systemStages.id, stageId));
+  if (!row) return undefined;
+  const records = await db
+    .select({ record: bathRecords, by: users.name })
+    .from(bathRecords)
+    .innerJoin(users, eq(users.id, bathRecords.recordedBy))
+    .where(eq(bathRecords.stageId, stageId))
+    .orderBy(asc(bathRecords.performedAt));
+  const maintenance = (await listMaintenance(now)).filter((m) => m.stageId === stageId);
+  return { ...row, records, maintenance };
+}

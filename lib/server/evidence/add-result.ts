@@ -1,0 +1,37 @@
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { testResults } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import { UserFacingError } from "@/lib/server/errors";
+import { requireOpenRun } from "./guards";
+import { refreshOutcome } from "./refresh-outcome";
+
+export interface SampleRow {
+  sampleLabel: string;
+  basketPosition?: string;
+  worstCase: boolean;
+  [key: string]: unknown;
+}
+
+/** Adds one sample's validated raw data to an open run and recomputes the outcome. */
+export async function addResult(actor: AuditActor, input: { runId: string; sample: SampleRow }) {
+  return getDb().transaction(async (tx) => {
+    const run = await requireOpenRun(tx, input.runId);
+    const { sampleLabel, basketPosition, worstCase, ...data } = input.sample;
+    const [dup] = await tx.select({ id: testResults.id }).from(testResults).where(and(eq(testResults.runId, run.id), eq(testResults.sampleLabel, sampleLabel)));
+    if (dup) throw new UserFacingError(`Sample "${sampleLabel}" is already recorded in this run.`, "sampleLabel");
+    const [row] = await tx
+      .insert(testResults)
+      .values({ runId: run.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data })
+      .returning();
+    const outcome = await refreshOutcome(tx, run);
+    await appendAudit(tx, actor, {
+      action: "test_run.result_added",
+      recordType: "test_run",
+      recordId: run.id,
+      new: { resultId: row.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data, outcome: outcome.outcome },
+    });
+    return row;
+  });
+}

@@ -1,0 +1,40 @@
+import "server-only";
+import { and, eq, sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { partFamilies, recipeVersions, testRuns, userRoles } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import type { CreateRun } from "@/lib/schemas/evidence";
+import { UserFacingError } from "@/lib/server/errors";
+
+/** Opens a test run with its context; results are added afterwards. */
+export async function createRun(actor: { id: string; name: string } & AuditActor, input: CreateRun) {
+  return getDb().transaction(async (tx) => {
+    const [family] = await tx.select().from(partFamilies).where(eq(partFamilies.id, input.partFamilyId));
+    if (!family) throw new UserFacingError("Choose a part family from the list.", "partFamilyId");
+    const [version] = await tx.select().from(recipeVersions).where(eq(recipeVersions.id, input.recipeVersionId));
+    if (!version) throw new UserFacingError("Choose a recipe version from the list.", "recipeVersionId");
+    const [tech] = await tx.select().from(userRoles).where(and(eq(userRoles.userId, input.technicianId), eq(userRoles.role, "technician")));
+    if (!tech) throw new UserFacingError("Choose a technician from the list.", "technicianId");
+    const [{ n }] = await tx.select({ n: sql<number>`count(distinct ${testRuns.number})` }).from(testRuns);
+    const number = `TR-${String(Number(n) + 1).padStart(4, "0")}`;
+    const [run] = await tx
+      .insert(testRuns)
+      .values({
+        number,
+        partFamilyId: input.partFamilyId,
+        recipeVersionId: input.recipeVersionId,
+        testType: input.testType,
+        technicianId: input.technicianId,
+        lab: input.lab,
+        performedOn: input.performedOn,
+        protocolDocumentId: input.protocolDocumentId ?? null,
+        changeRequestId: input.changeRequestId ?? null,
+        requirement: input.requirement ?? null,
+        outcome: "incomplete",
+        createdBy: actor.id,
+      })
+      .returning();
+    await appendAudit(tx, actor, { action: "test_run.created", recordType: "test_run", recordId: run.id, new: { number, ...input } });
+    return run;
+  });
+}

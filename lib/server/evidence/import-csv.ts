@@ -1,0 +1,46 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { evidenceFiles, testResults } from "@/db/schema";
+import { appendAudit } from "@/lib/audit";
+import type { ParticleSample } from "@/lib/schemas/evidence";
+import { UserFacingError } from "@/lib/server/errors";
+import { getStore } from "@/lib/storage";
+import { requireOpenRun } from "./guards";
+import { refreshOutcome } from "./refresh-outcome";
+import { sha256OfBytes } from "./store-file";
+
+/**
+ * Saves the rows of a CSV file that has already been validated whole, and the
+ * file itself as evidence, in one transaction: all rows or none.
+ */
+export async function importParticleRows(
+  actor: { id: string; name: string },
+  input: { runId: string; rows: ParticleSample[]; fileName: string; bytes: Uint8Array },
+) {
+  if (input.rows.length === 0) throw new UserFacingError("The file has no rows to import.");
+  const sha256 = sha256OfBytes(input.bytes);
+  await getStore().put(sha256, input.bytes);
+  return getDb().transaction(async (tx) => {
+    const run = await requireOpenRun(tx, input.runId);
+    if (run.testType !== "particle_cleanliness") throw new UserFacingError("CSV import is for particle cleanliness runs.");
+    const labels = input.rows.map((r) => r.sampleLabel);
+    const recorded = new Set((await tx.select({ label: testResults.sampleLabel }).from(testResults).where(eq(testResults.runId, run.id))).map((e) => e.label));
+    const clash = labels.filter((l) => recorded.has(l));
+    if (clash.length > 0) throw new UserFacingError(`Already recorded in this run: ${clash.slice(0, 10).join(", ")}. Nothing was imported.`);
+    const values = input.rows.map(({ sampleLabel, basketPosition, worstCase, ...data }) => ({ runId: run.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data }));
+    for (let i = 0; i < values.length; i += 500) await tx.insert(testResults).values(values.slice(i, i + 500));
+    const [file] = await tx
+      .insert(evidenceFiles)
+      .values({ runId: run.id, sha256, originalName: input.fileName, mimeType: "text/csv", sizeBytes: input.bytes.byteLength, kind: "csv", uploadedBy: actor.id })
+      .returning();
+    const outcome = await refreshOutcome(tx, run);
+    await appendAudit(tx, actor, {
+      action: "test_run.csv_imported",
+      recordType: "test_run",
+      recordId: run.id,
+      new: { fileId: file.id, sha256, name: input.fileName, rows: values.length, samples: labels.slice(0, 50), outcome: outcome.outcome },
+    });
+    return { imported: values.length };
+  });
+}

@@ -1,0 +1,150 @@
+import "server-only";
+import { and, asc, count, desc, eq, gte, inArray, lte, ne, type SQL } from "drizzle-orm";
+import { alias } from "drizzle-orm/sqlite-core";
+import { getDb } from "@/db/client";
+import {
+  changeRequests,
+  cleanlinessSpecs,
+  documents,
+  evidenceFiles,
+  partFamilies,
+  recipes,
+  recipeVersions,
+  testResults,
+  testRuns,
+  userRoles,
+  users,
+} from "@/db/schema";
+import type { EvidenceListPage, EvidenceListQuery } from "@/lib/schemas/evidence-list";
+import { listSignatures } from "@/lib/server/signatures/queries";
+import { computeStoredOutcome } from "./refresh-outcome";
+import { runContent } from "./run-content";
+
+const tech = alias(users, "technician");
+
+/** One page of runs for the evidence table: filtered, sorted and paged in SQL. */
+export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPage> {
+  const db = getDb();
+  const where: SQL[] = [];
+  if (!q.includeSuperseded) where.push(ne(testRuns.status, "superseded"));
+  if (q.partFamilyId) where.push(eq(testRuns.partFamilyId, q.partFamilyId));
+  if (q.recipeVersionId) where.push(eq(testRuns.recipeVersionId, q.recipeVersionId));
+  if (q.testType) where.push(eq(testRuns.testType, q.testType));
+  if (q.outcome) where.push(eq(testRuns.outcome, q.outcome));
+  if (q.from) where.push(gte(testRuns.performedOn, q.from));
+  if (q.to) where.push(lte(testRuns.performedOn, q.to));
+  const filter = where.length ? and(...where) : undefined;
+  const sortColumn = {
+    number: testRuns.number,
+    performedOn: testRuns.performedOn,
+    partFamily: partFamilies.code,
+    testType: testRuns.testType,
+    outcome: testRuns.outcome,
+    status: testRuns.status,
+  }[q.sort];
+  const order = q.dir === "asc" ? asc(sortColumn) : desc(sortColumn);
+  const [{ total }] = await db.select({ total: count() }).from(testRuns).innerJoin(partFamilies, eq(partFamilies.id, testRuns.partFamilyId)).where(filter);
+  const rows = await db
+    .select({
+      id: testRuns.id,
+      number: testRuns.number,
+      revision: testRuns.revision,
+      partFamily: partFamilies.code,
+      recipeCode: recipes.code,
+      recipeVersion: recipeVersions.version,
+      testType: testRuns.testType,
+      status: testRuns.status,
+      outcome: testRuns.outcome,
+      performedOn: testRuns.performedOn,
+      technician: tech.name,
+      lab: testRuns.lab,
+    })
+    .from(testRuns)
+    .innerJoin(partFamilies, eq(partFamilies.id, testRuns.partFamilyId))
+    .innerJoin(recipeVersions, eq(recipeVersions.id, testRuns.recipeVersionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .leftJoin(tech, eq(tech.id, testRuns.technicianId))
+    .where(filter)
+    .orderBy(order, desc(testRuns.number), desc(testRuns.revision))
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize);
+  return {
+    rows: rows.map(({ recipeCode, recipeVersion, ...r }) => ({ ...r, recipe: `${recipeCode} v${recipeVersion}` })),
+    total,
+    page: q.page,
+    pageSize: q.pageSize,
+  };
+}
+
+/** Choices for the run form and the list filters. */
+export async function runFormOptions() {
+  const db = getDb();
+  const [families, versions, technicians, protocols, changes] = await Promise.all([
+    db.select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code)),
+    db
+      .select({ id: recipeVersions.id, version: recipeVersions.version, status: recipeVersions.status, code: recipes.code, name: recipes.name })
+      .from(recipeVersions)
+      .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+      .orderBy(asc(recipes.code), desc(recipeVersions.version)),
+    db.select({ id: users.id, name: users.name }).from(users).innerJoin(userRoles, eq(userRoles.userId, users.id)).where(and(eq(userRoles.role, "technician"), eq(users.active, true))).orderBy(asc(users.name)),
+    db.select({ id: documents.id, number: documents.number, title: documents.title }).from(documents).where(inArray(documents.type, ["iq_protocol", "oq_protocol", "pq_protocol"])).orderBy(asc(documents.number)),
+    db.select({ id: changeRequests.id, number: changeRequests.number, title: changeRequests.title }).from(changeRequests).where(inArray(changeRequests.status, ["approved_for_implementation", "requalification"])).orderBy(asc(changeRequests.number)),
+  ]);
+  return {
+    families,
+    versions: versions.map((v) => ({ id: v.id, label: `${v.code} v${v.version} (${v.status})`, name: v.name })),
+    technicians,
+    protocols,
+    changes,
+  };
+}
+
+/** A run with everything its page shows: context, raw data, files, signatures, computed outcome, revisions. */
+export async function getRunDetail(runId: string) {
+  const db = getDb();
+  const [row] = await db
+    .select({ run: testRuns, family: partFamilies, spec: cleanlinessSpecs, version: recipeVersions, recipe: recipes, technician: tech.name })
+    .from(testRuns)
+    .innerJoin(partFamilies, eq(partFamilies.id, testRuns.partFamilyId))
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .innerJoin(recipeVersions, eq(recipeVersions.id, testRuns.recipeVersionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .leftJoin(tech, eq(tech.id, testRuns.technicianId))
+    .where(eq(testRuns.id, runId));
+  if (!row) return undefined;
+  const { hash, results } = await runContent(db, row.run);
+  const files = await db
+    .select({ file: evidenceFiles, uploader: users.name })
+    .from(evidenceFiles)
+    .innerJoin(users, eq(users.id, evidenceFiles.uploadedBy))
+    .where(eq(evidenceFiles.runId, runId))
+    .orderBy(asc(evidenceFiles.uploadedAt));
+  const [signatures, outcome, revisions, change, protocol] = await Promise.all([
+    listSignatures("test_run", runId, hash),
+    computeStoredOutcome(db, row.run),
+    db
+      .select({ id: testRuns.id, revision: testRuns.revision, status: testRuns.status, outcome: testRuns.outcome, revisionReason: testRuns.revisionReason, createdAt: testRuns.createdAt })
+      .from(testRuns)
+      .where(eq(testRuns.number, row.run.number))
+      .orderBy(desc(testRuns.revision)),
+    row.run.changeRequestId ? db.select().from(changeRequests).where(eq(changeRequests.id, row.run.changeRequestId)).then((r) => r[0]) : undefined,
+    row.run.protocolDocumentId ? db.select().from(documents).where(eq(documents.id, row.run.protocolDocumentId)).then((r) => r[0]) : undefined,
+  ]);
+  return { ...row, contentHash: hash, results, files, signatures, outcome, revisions, change, protocol };
+}
+export type RunDetail = NonNullable<Awaited<ReturnType<typeof getRunDetail>>>;
+
+/** Particle runs of a part family (optionally one recipe version) with their samples, oldest first, for the trend chart. */
+export async function particleHistory(partFamilyId: string, recipeVersionId?: string) {
+  const db = getDb();
+  const where = [eq(testRuns.partFamilyId, partFamilyId), eq(testRuns.testType, "particle_cleanliness"), ne(testRuns.status, "superseded")];
+  if (recipeVersionId) where.push(eq(testRuns.recipeVersionId, recipeVersionId));
+  const runs = await db.select().from(testRuns).where(and(...where)).orderBy(asc(testRuns.performedOn), asc(testRuns.number));
+  const samples = runs.length ? await db.select().from(testResults).where(inArray(testResults.runId, runs.map((r) => r.id))) : [];
+  const [family] = await db
+    .select({ family: partFamilies, spec: cleanlinessSpecs })
+    .from(partFamilies)
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .where(eq(partFamilies.id, partFamilyId));
+  return { family, runs: runs.map((r) => ({ ...r, samples: samples.filter((s) => s.runId === r.id) })) };
+}

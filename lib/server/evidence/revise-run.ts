@@ -1,0 +1,37 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { evidenceFiles, testResults, testRuns } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import { UserFacingError } from "@/lib/server/errors";
+import { refreshOutcome } from "./refresh-outcome";
+import { getRunRow } from "./run-content";
+
+/**
+ * A correction of a performed or verified run: a new open revision carrying the
+ * same data and files (files are shared by hash, never copied), the reason, and
+ * a link back; the old revision is kept, marked superseded, with its signatures.
+ */
+export async function reviseRun(actor: { id: string; name: string }, input: { runId: string; reason: string }) {
+  return getDb().transaction(async (tx) => {
+    const old = await getRunRow(tx, input.runId);
+    if (!old) throw new UserFacingError("This test run does not exist.");
+    if (old.status !== "performed" && old.status !== "verified") {
+      throw new UserFacingError(old.status === "open" ? "An open run can be edited directly; no revision is needed." : "This revision is already superseded.");
+    }
+    const { id: _id, createdAt: _c, ...fields } = old;
+    const [next] = await tx
+      .insert(testRuns)
+      .values({ ...fields, revision: old.revision + 1, status: "open", supersedesId: old.id, revisionReason: input.reason, createdBy: actor.id })
+      .returning();
+    const results = await tx.select().from(testResults).where(eq(testResults.runId, old.id));
+    if (results.length) await tx.insert(testResults).values(results.map(({ id: _r, createdAt, ...r }) => ({ ...r, createdAt, runId: next.id })));
+    const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, old.id));
+    if (files.length) await tx.insert(evidenceFiles).values(files.map(({ id: _f, ...f }) => ({ ...f, runId: next.id })));
+    await tx.update(testRuns).set({ status: "superseded" }).where(eq(testRuns.id, old.id));
+    await refreshOutcome(tx, next);
+    await appendAudit(tx, actor as AuditActor, { action: "test_run.superseded", recordType: "test_run", recordId: old.id, old: { status: old.status }, new: { status: "superseded", by: next.id }, reason: input.reason });
+    await appendAudit(tx, actor as AuditActor, { action: "test_run.revised", recordType: "test_run", recordId: next.id, new: { number: next.number, revision: next.revision, supersedes: old.id }, reason: input.reason });
+    return next;
+  });
+}

@@ -1,0 +1,45 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { testRuns } from "@/db/schema";
+import { appendAudit } from "@/lib/audit";
+import { UserFacingError } from "@/lib/server/errors";
+import { applySignature } from "@/lib/server/signatures/apply-signature";
+import { verifySigner } from "@/lib/server/signatures/verify-signer";
+import { refreshOutcome } from "./refresh-outcome";
+import { getRunRow, runContent } from "./run-content";
+
+/**
+ * "Performed" by the run's technician moves an open run to performed; "verified"
+ * by a second person locks it. The signature binds to the hash the signer saw:
+ * if the run changed since, nothing is signed.
+ */
+export async function signRun(input: { userId: string; password: string; runId: string; meaning: "performed" | "verified"; contentHash: string }) {
+  const signer = await verifySigner({ userId: input.userId, password: input.password });
+  return getDb().transaction(async (tx) => {
+    const run = await getRunRow(tx, input.runId);
+    if (!run) throw new UserFacingError("This test run does not exist.");
+    const expected = input.meaning === "performed" ? "open" : "performed";
+    if (run.status !== expected) {
+      throw new UserFacingError(
+        input.meaning === "performed" ? `This run is ${run.status}; only an open run can be signed as performed.` : `This run is ${run.status}; only a performed run can be verified.`,
+      );
+    }
+    if (input.meaning === "performed" && run.technicianId !== signer.id) throw new UserFacingError("Only the technician assigned to this run signs it as performed.");
+    const { hash, results } = await runContent(tx, run);
+    if (hash !== input.contentHash) throw new UserFacingError("The run changed after you opened it. Reload the page, check the data again and sign.");
+    if (results.length === 0) throw new UserFacingError("Record at least one sample before signing.");
+    const outcome = await refreshOutcome(tx, run);
+    const status = input.meaning === "performed" ? "performed" : "verified";
+    await applySignature(tx, { signer, recordType: "test_run", recordId: run.id, meaning: input.meaning, contentHash: hash });
+    await tx.update(testRuns).set({ status }).where(eq(testRuns.id, run.id));
+    await appendAudit(tx, signer, {
+      action: input.meaning === "performed" ? "test_run.performed" : "test_run.verified",
+      recordType: "test_run",
+      recordId: run.id,
+      old: { status: run.status },
+      new: { status, contentHash: hash, outcome: outcome.outcome, code: outcome.code },
+    });
+    return { status, outcome: outcome.outcome };
+  });
+}

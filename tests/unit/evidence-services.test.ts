@@ -1,0 +1,201 @@
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { and, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { seedDemo } from "@/db/seed";
+import { DEMO_PASSWORD } from "@/db/seed-data";
+import { auditEvents, cleanlinessSpecs, emailOutbox, evidenceFiles, partFamilies, recipeVersions, testResults, testRuns, users } from "@/db/schema";
+import { parseParticleCsv } from "@/lib/evidence/csv-import";
+import { blobKey, localStore, setStore } from "@/lib/storage";
+import { particleRunDataSchema, particleSampleSchema } from "@/lib/schemas/evidence";
+import { addResult } from "@/lib/server/evidence/add-result";
+import { createRun } from "@/lib/server/evidence/create-run";
+import { importParticleRows } from "@/lib/server/evidence/import-csv";
+import { computeStoredOutcome } from "@/lib/server/evidence/refresh-outcome";
+import { readEvidenceFile } from "@/lib/server/evidence/read-file";
+import { reviseRun } from "@/lib/server/evidence/revise-run";
+import { getRunRow, runContent } from "@/lib/server/evidence/run-content";
+import { saveRunData } from "@/lib/server/evidence/save-run-data";
+import { signRun } from "@/lib/server/evidence/sign-run";
+import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
+import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
+import { bathQueueProvider } from "@/lib/server/bath/queue-provider";
+import { sendMaintenanceReminders } from "@/lib/server/bath/send-maintenance-reminders";
+import { getQueue } from "@/lib/server/queue/get-queue";
+import { getTank, listTanks } from "@/lib/server/bath/queries";
+import { bathControlChart } from "@/lib/evidence/bath-chart";
+import { listRunsPage } from "@/lib/server/evidence/queries";
+import { evidenceListQuerySchema } from "@/lib/schemas/evidence-list";
+import { createTestDatabase } from "./support/test-db";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+const storeDir = mkdtempSync(join(tmpdir(), "washproof-evidence-"));
+type Person = { id: string; name: string };
+let tech: Person;
+let engineer: Person;
+let familyId: string;
+let versionId: string;
+const PDF = new TextEncoder().encode("%PDF-1.4\n% lab report VB\n%%EOF\n");
+const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 1, 2, 3]);
+const sessionUser = (p: Person, roles: ("technician" | "engineer")[]) => ({ ...p, email: "", roles, mustChangePassword: false }) as never;
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  setStore(localStore(storeDir));
+  await seedDemo(t.db);
+  const byEmail = async (email: string) => (await t.db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, email)))[0];
+  tech = await byEmail("technician@fennmoor.example");
+  engineer = await byEmail("engineer@fennmoor.example");
+  // The worked example of ISO 16232's sample report: three parts, 112.05 cm² together.
+  const [spec] = await t.db.insert(cleanlinessSpecs).values({ code: "CS-TEST", name: "Test spec", ccc: "A(B-D18/E8/F7/G-H6/I-N00)", maxMetallicUm: 400 }).returning();
+  const [family] = await t.db.insert(partFamilies).values({ code: "PF-TEST", name: "Test part", material: "Al", wettedAreaCm2: 37.35, specId: spec.id }).returning();
+  familyId = family.id;
+  versionId = (await t.db.select().from(recipeVersions).limit(1))[0].id;
+});
+afterAll(() => {
+  t.cleanup();
+  rmSync(storeDir, { recursive: true, force: true });
+});
+
+async function newParticleRun() {
+  return createRun(engineer, { partFamilyId: familyId, recipeVersionId: versionId, testType: "particle_cleanliness", technicianId: tech.id, lab: "Lab", performedOn: "2026-03-02" });
+}
+
+describe("outcome computed from stored rows", () => {
+  it("gives the run's CCC and the class-by-class working, and says what is missing", async () => {
+    const run = await newParticleRun();
+    const sample = particleSampleSchema.parse({ sampleLabel: "P-1", components: "3", counts: { E: "14", F: "6", H: "1" }, largest: { metallicUm: "350" } });
+    await addResult(tech, { runId: run.id, sample });
+    let outcome = await computeStoredOutcome(t.db, (await getRunRow(t.db, run.id))!);
+    // [std] ISO 16232 sample report as in standards.md: E 124.94, F 53.55, H 8.92 per 1000 cm² → E7, F6, H4
+    expect(outcome.code).toMatch(/^A\(.*E7\/F6\/G00\/H4/);
+    expect(outcome.samples[0].lines).toEqual(expect.arrayContaining([expect.stringMatching(/^E: 124\.9 per 1000 cm² → level 7.*pass$/), "Largest metallic particle 350 µm, limit 400 µm: pass"]));
+    expect(outcome.outcome).toBe("incomplete");
+    expect(outcome.missing.join(" ")).toMatch(/No blank value/);
+    await saveRunData(tech, { runId: run.id, data: particleRunDataSchema.parse({ extractionSeries: "100, 30, 8", blankMeasured: "on", blankCounts: { B: "3" } }) });
+    const stored = (await t.db.select().from(testRuns).where(eq(testRuns.id, run.id)))[0];
+    outcome = await computeStoredOutcome(t.db, stored);
+    // [derived] 8 / 138 = 5.8 % → complete at extraction 3
+    expect(outcome.checks.find((c) => c.title.includes("extraction"))!.lines.at(-1)).toMatch(/at extraction 3: extraction qualified/);
+    expect(outcome.outcome).toBe("pass");
+    expect(stored.outcome).toBe("pass");
+  });
+
+  it("fails a sample above its limit and an extraction that has not declined makes the run incomplete", async () => {
+    const run = await newParticleRun();
+    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "P-2", components: "1", counts: { E: "40" }, largest: {} }) });
+    await saveRunData(tech, { runId: run.id, data: particleRunDataSchema.parse({ extractionSeries: "", blankMeasured: "on", blankCounts: {} }) });
+    expect((await computeStoredOutcome(t.db, (await getRunRow(t.db, run.id))!)).outcome).toBe("fail");
+    await saveRunData(tech, { runId: run.id, data: particleRunDataSchema.parse({ extractionSeries: "100, 40, 20", blankMeasured: "on", blankCounts: {} }) });
+    // [derived] 20 / 160 = 12.5 % → not complete
+    expect((await computeStoredOutcome(t.db, (await getRunRow(t.db, run.id))!)).outcome).toBe("incomplete");
+  });
+});
+
+describe("signing, locking and revisions", () => {
+  it("performed by the technician, verified by another person, then locked; a correction makes a new revision", async () => {
+    const run = await newParticleRun();
+    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-1", components: "3", counts: { E: "14" }, largest: {} }) });
+    const { hash } = await runContent(t.db, (await getRunRow(t.db, run.id))!);
+    await expect(signRun({ userId: engineer.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: hash })).rejects.toThrow(/Only the technician/);
+    await expect(signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: "0".repeat(64) })).rejects.toThrow(/changed after you opened it/);
+    await signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: hash });
+    await expect(addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-2", components: "1", counts: {}, largest: {} }) })).rejects.toThrow(/locked/);
+    await expect(signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "verified", contentHash: hash })).rejects.toThrow(/another person/);
+    await signRun({ userId: engineer.id, password: DEMO_PASSWORD, runId: run.id, meaning: "verified", contentHash: hash });
+    expect((await getRunRow(t.db, run.id))!.status).toBe("verified");
+
+    const next = await reviseRun(engineer, { runId: run.id, reason: "Lab corrected the E count" });
+    expect(next).toMatchObject({ number: run.number, revision: 2, status: "open", supersedesId: run.id, revisionReason: "Lab corrected the E count" });
+    expect((await getRunRow(t.db, run.id))!.status).toBe("superseded");
+    expect(await t.db.select().from(testResults).where(eq(testResults.runId, next.id))).toHaveLength(1);
+    const trail = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, next.id));
+    expect(trail.map((e) => e.action)).toContain("test_run.revised");
+  });
+});
+
+describe("evidence files", () => {
+  it("stores bytes once however often uploaded, and refuses to serve a tampered file", async () => {
+    const run = await newParticleRun();
+    const first = await storeEvidenceFile(tech, { runId: run.id, name: "Lab report.pdf", bytes: PDF, kind: "lab_report" });
+    const second = await storeEvidenceFile(tech, { runId: run.id, name: "Lab report copy.pdf", bytes: PDF, kind: "lab_report" });
+    expect(first.created).toBe(true);
+    expect(second.created).toBe(false);
+    expect(second.file.sha256).toBe(first.file.sha256);
+    const ok = await readEvidenceFile(engineer, first.file.id);
+    expect(ok.ok && Buffer.from(ok.bytes).equals(Buffer.from(PDF))).toBe(true);
+
+    writeFileSync(join(storeDir, blobKey(first.file.sha256)), "%PDF-1.4 altered");
+    const bad = await readEvidenceFile(engineer, first.file.id);
+    expect(bad).toMatchObject({ ok: false, status: 409, message: expect.stringMatching(/no longer match their SHA-256/) });
+    const events = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, first.file.id));
+    expect(events.map((e) => e.action)).toEqual(["evidence_file.uploaded", "evidence_file.downloaded", "evidence_file.integrity_failed"]);
+  });
+
+  it("stores nothing for a bad upload", async () => {
+    const run = await newParticleRun();
+    const before = await t.db.select().from(evidenceFiles);
+    await expect(storeEvidenceFile(tech, { runId: run.id, name: "report.pdf", bytes: PNG, kind: "lab_report" })).rejects.toThrow(/contents are a PNG/);
+    await expect(storeEvidenceFile(tech, { runId: run.id, name: "../../etc/passwd", bytes: PDF, kind: "lab_report" })).rejects.toThrow(/folder path/);
+    await expect(storeEvidenceFile(tech, { runId: run.id, name: "photo.pdf", bytes: PDF, kind: "photo" })).rejects.toThrow(/PNG or JPEG/);
+    expect(await t.db.select().from(evidenceFiles)).toHaveLength(before.length);
+  });
+});
+
+describe("CSV import service", () => {
+  it("saves all rows and the file in one transaction, or nothing", async () => {
+    const run = await newParticleRun();
+    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "C-2", components: "1", counts: {}, largest: {} }) });
+    const csv = "sample,components,E,F\nC-1,1,10,2\nC-2,1,11,3\n";
+    const parsed = await parseParticleCsv(csv);
+    const bytes = new TextEncoder().encode(csv);
+    await expect(importParticleRows(tech, { runId: run.id, rows: parsed.rows, fileName: "counts.csv", bytes })).rejects.toThrow(/Already recorded in this run: C-2/);
+    expect(await t.db.select().from(testResults).where(eq(testResults.runId, run.id))).toHaveLength(1);
+    const good = await parseParticleCsv("sample,components,E,F\nC-3,1,10,2\nC-4,1,11,3\n");
+    await importParticleRows(tech, { runId: run.id, rows: good.rows, fileName: "counts.csv", bytes });
+    expect(await t.db.select().from(testResults).where(eq(testResults.runId, run.id))).toHaveLength(3);
+    expect(await t.db.select().from(evidenceFiles).where(and(eq(evidenceFiles.runId, run.id), eq(evidenceFiles.kind, "csv")))).toHaveLength(1);
+  });
+});
+
+describe("demo history, list and queue", () => {
+  it("has verified runs with computed failures, filterable and sorted on the server", async () => {
+    const fails = await listRunsPage(evidenceListQuerySchema.parse({ outcome: "fail", sort: "performedOn", dir: "asc" }));
+    expect(fails.total).toBeGreaterThanOrEqual(3);
+    expect(fails.rows.every((r) => r.outcome === "fail")).toBe(true);
+    const page = await listRunsPage(evidenceListQuerySchema.parse({ pageSize: "5", page: "2", sort: "number", dir: "asc" }));
+    expect(page.rows).toHaveLength(5);
+    expect(page.rows[0].number <= page.rows[4].number).toBe(true);
+  });
+
+  it("queues tests to perform and verify, and due bath maintenance, and mails each reminder once", async () => {
+    const techItems = await evidenceQueueProvider(sessionUser(tech, ["technician"]), new Date());
+    expect(techItems.some((i) => i.kind === "Perform test")).toBe(true);
+    const engItems = await evidenceQueueProvider(sessionUser(engineer, ["engineer"]), new Date());
+    expect(engItems.some((i) => i.kind === "Verify test")).toBe(true);
+    const bath = await bathQueueProvider(sessionUser(tech, ["technician"]), new Date());
+    expect(bath.map((b) => b.kind)).toContain("Filter change");
+    expect((await getQueue(sessionUser(tech, ["technician"]))).some((i) => i.overdue)).toBe(true);
+
+    const first = await sendMaintenanceReminders();
+    expect(first.queued).toBeGreaterThan(0);
+    expect((await sendMaintenanceReminders()).queued).toBe(0);
+    const mail = await t.db.select().from(emailOutbox);
+    expect(mail.some((m) => /Overdue: filter change/.test(m.subject) && /Isolate the machine/.test(m.text))).toBe(true);
+  });
+});
+
+describe("demo wash-tank log", () => {
+  it("has exactly one out-of-control detergent reading, computed by the individuals chart", async () => {
+    const [first] = await listTanks();
+    const tank = (await getTank(first.stage.id))!;
+    const records = tank.records.map((r) => ({ performedAt: r.record.performedAt, values: r.record }));
+    const concentration = bathControlChart(records, "concentrationPct")!;
+    expect(concentration.points.filter((p) => p.outOfControl)).toEqual([expect.objectContaining({ value: 3.8, outOfControl: "beyond the 3σ limits" })]);
+    // The jump up to the overdose and back down both exceed the moving-range limit.
+    expect(concentration.movingRangeSignals).toHaveLength(2);
+    expect(bathControlChart(records, "temperatureC")!.points.filter((p) => p.outOfControl)).toEqual([]);
+    expect(bathControlChart(records, "conductivityUsPerCm")!.points.filter((p) => p.outOfControl)).toEqual([]);
+  });
+});
