@@ -12,10 +12,12 @@ import {
   recipePage,
   recipesQuery,
   recipeVersionOut,
+  resultAddedOut,
   testRunDetailOut,
   testRunPage,
   testRunsQuery,
 } from "@/lib/schemas/api";
+import { conductivitySampleSchema, gravimetricSampleSchema, observationSampleSchema, particleSampleSchema, wettingSampleSchema } from "@/lib/schemas/evidence";
 
 export interface ApiOperation {
   method: "get" | "post";
@@ -71,6 +73,18 @@ export const API_OPERATIONS: ApiOperation[] = [
     response: testRunDetailOut,
     errors: [401, 403, 404],
   },
+  {
+    method: "post",
+    path: "/test-runs/{runId}/results",
+    operationId: "addTestResult",
+    summary: "Add one sample's raw data to an open run; the outcome is recomputed from the stored results",
+    permission: "evidence.record",
+    pathParams: { runId: uuidParam("Test run id (the run must be open)") },
+    body: z.union([particleSampleSchema, gravimetricSampleSchema, wettingSampleSchema, conductivitySampleSchema, observationSampleSchema]).describe("The sample schema of the run's test type, in this order: particle cleanliness, gravimetric, wetting tension, rinse conductivity, visual / UV / dryness"),
+    response: resultAddedOut,
+    status: 201,
+    errors: [400, 401, 403, 404, 409, 415, 422],
+  },
   { method: "get", path: "/audit-events", operationId: "listAuditEvents", summary: "The audit trail, newest first", permission: "audit.view", query: auditEventsQuery, response: auditEventPage, errors: [400, 401, 403] },
 ];
 
@@ -84,11 +98,17 @@ const ERROR_TEXT: Record<number, string> = {
   422: "The body breaks the schema: wrong type, missing or unknown field",
 };
 
+/** A JSON Schema for embedding in the document: the dialect is the document's, not repeated per schema. */
+function embedded(schema: z.ZodType, io: "input" | "output") {
+  const { $schema: _dialect, ...rest } = z.toJSONSchema(schema, { io, target: "draft-2020-12", unrepresentable: "any" }) as Record<string, unknown>;
+  return rest;
+}
+
 /** The OpenAPI 3.1 description of /api/v1, generated from the zod schemas. */
 export function buildOpenApiDocument(serverUrl = "/api/v1") {
   const ref = (schema: z.ZodType) => {
     const id = apiRegistry.get(schema)?.id;
-    return id ? { $ref: `#/components/schemas/${id}` } : z.toJSONSchema(schema, { target: "draft-2020-12" });
+    return id ? { $ref: `#/components/schemas/${id}` } : embedded(schema, "output");
   };
   const components = z.toJSONSchema(apiRegistry, { target: "draft-2020-12", uri: (id) => `#/components/schemas/${id}` }).schemas;
   // Components are named by their key; a per-schema $id or $schema would only confuse tools.
@@ -116,7 +136,7 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
       summary: op.summary,
       description: `Allowed to the roles that may "${op.permission}" in the role table${op.method === "get" ? "" : ", with a read-and-write token"}.`,
       parameters,
-      ...(op.body ? { requestBody: { required: true, content: { "application/json": { schema: z.toJSONSchema(op.body, { io: "input", target: "draft-2020-12", unrepresentable: "any" }) } } } } : {}),
+      ...(op.body ? { requestBody: { required: true, content: { "application/json": { schema: embedded(op.body, "input") } } } } : {}),
       responses,
     };
   }

@@ -302,3 +302,5 @@ export type ChangeRequestDetailOut = z.infer<typeof changeRequestDetailOut>;
 export type TestRunOut = z.infer<typeof testRunOut>;
 export type TestRunDetailOut = z.infer<typeof testRunDetailOut>;
 export type AuditEventOut = z.infer<typeof auditEventOut>;
+
+export const resultAddedOut = named("ResultAdded", z.object({ resultId: z.string(), run: testRunDetailOut }));
