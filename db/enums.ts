@@ -97,3 +97,6 @@ export type TestType = (typeof TEST_TYPES)[number];
 export type Outcome = (typeof OUTCOMES)[number];
 export type EvidenceFileKind = (typeof EVIDENCE_FILE_KINDS)[number];
 export type BathRecordKind = (typeof BATH_RECORD_KINDS)[number];
+
+export const API_TOKEN_SCOPES = ["read", "read_write"] as const;
+export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];

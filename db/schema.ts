@@ -22,6 +22,7 @@ import {
   MAINTENANCE_KINDS,
   CHANGE_KINDS,
   MATRIX_STATUSES,
+  API_TOKEN_SCOPES,
 } from "./enums";
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 
@@ -618,3 +619,28 @@ export const requalificationIntervals = sqliteTable(
   (t) => [uniqueIndex("requalification_intervals_uq").on(t.recipeVersionId, t.partFamilyId)],
 );
 export type RequalificationInterval = typeof requalificationIntervals.$inferSelect;
+
+// ── API access ────────────────────────────────────────────────────────────
+
+/**
+ * A personal API token. Only its SHA-256 is stored; the token itself is shown once
+ * at creation, and afterwards only its prefix identifies it. A token acts with its
+ * owner's roles, never more, and a read token never writes.
+ */
+export const apiTokens = sqliteTable(
+  "api_tokens",
+  {
+    id: id(),
+    userId: text("user_id").notNull().references(() => users.id),
+    name: text("name").notNull(),
+    /** The first characters of the token, enough to recognise it in a list. */
+    prefix: text("prefix").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    scope: text("scope", { enum: API_TOKEN_SCOPES }).notNull(),
+    createdAt: createdAt(),
+    lastUsedAt: text("last_used_at"),
+    revokedAt: text("revoked_at"),
+  },
+  (t) => [index("api_tokens_user_idx").on(t.userId)],
+);
+export type ApiToken = typeof apiTokens.$inferSelect;

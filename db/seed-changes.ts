@@ -4,6 +4,7 @@ import { changeContentHash, narrativeDocument } from "@/lib/recipes/change-conte
 import { assess } from "@/lib/recipes/assess";
 import type { RecipeSnapshot } from "@/lib/recipes/diff";
 import { DEFAULT_MATRIX } from "@/lib/recipes/requalification";
+import { getStore } from "@/lib/storage";
 import type { Tx } from "./client";
 import { loadRecipeSnapshot, writeRecipeContent } from "./recipe-content";
 import { DEMO_USERS } from "./seed-data";
@@ -13,6 +14,7 @@ import {
   changeRequestTests,
   documents,
   documentVersions,
+  evidenceFiles,
   recipeVersions,
   requalificationIntervals,
   requalificationMatrices,
@@ -212,6 +214,17 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     }));
     await tx.insert(testResults).values(samples);
     const runHash = sha256Hex(canonicalJson({ number, testType: req.testType, samples: samples.map((s) => s.data) }));
+    // The lab's report as uploaded: stored under its SHA-256 like any evidence file.
+    const report = new TextEncoder().encode(
+      [`Larchfield cleanliness lab,${number},${req.testType},PF-SF-12,R-SC1-SF v2,2026-06-08`, "sample,basket_position,worst_case,result", ...samples.map((x) => `${x.sampleLabel},${x.basketPosition},${x.worstCase ? "yes" : "no"},${req.testType === "dryness" ? "dry" : "stain-free"}`)].join("\r\n") + "\r\n",
+    );
+    const sha256 = sha256Hex(report);
+    await getStore().put(sha256, report);
+    const [file] = await tx
+      .insert(evidenceFiles)
+      .values({ runId: run.id, sha256, originalName: `${number}-lab-report.csv`, mimeType: "text/csv", sizeBytes: report.length, kind: "lab_report", uploadedBy: technician.id, uploadedAt: "2026-06-08T14:30:00.000Z" })
+      .returning();
+    await appendAudit(tx, technician, { action: "evidence_file.uploaded", recordType: "evidence_file", recordId: file.id, new: { runId: run.id, name: file.originalName, sha256, sizeBytes: report.length } });
     await sign("test_run", run.id, technician, "performed", runHash, "2026-06-08T15:00:00.000Z");
     await sign("test_run", run.id, engineer, "verified", runHash, "2026-06-10T09:00:00.000Z");
   }

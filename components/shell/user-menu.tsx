@@ -22,6 +22,9 @@ export function UserMenu({ name, roles }: { name: string; roles: Role[] }) {
         <Link href="/account/password" className="block rounded px-3 py-2 text-sm hover:bg-stone-100">
           Change password
         </Link>
+        <Link href="/account/tokens" className="block rounded px-3 py-2 text-sm hover:bg-stone-100">
+          API tokens
+        </Link>
         <form action={signOutAction}>
           <button type="submit" className="block w-full rounded px-3 py-2 text-left text-sm hover:bg-stone-100">
             Sign out

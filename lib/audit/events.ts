@@ -91,6 +91,10 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("requalification_matrix.versioned", "requalification_matrix"),
   event("requalification_interval.set", "requalification_interval"),
   event("requalification_interval.reminder_sent", "requalification_interval"),
+  // Trace and API
+  event("audit_pack.exported", "change_request"),
+  event("api_token.created", "api_token"),
+  event("api_token.revoked", "api_token"),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

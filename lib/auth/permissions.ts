@@ -22,9 +22,11 @@ export const PERMISSIONS = {
   "trace.view": CONTROLLERS,
   "audit.view": ["admin", "auditor", "approver"],
   "audit.export": ["admin", "auditor"],
+  "trace.export": CONTROLLERS,
   "calc.view": ALL,
   // Own account
   "account.change_password": ALL,
+  "account.manage_tokens": ALL,
   // Administration (admins never sign on behalf of others)
   "admin.view": ["admin"],
   "users.manage": ["admin"],

@@ -1,26 +1,13 @@
-import { join } from "node:path";
-import { Document, Font, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
+import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import type { DocumentStatus, SignatureMeaning } from "@/db/enums";
 import { STATUS_LABELS } from "@/lib/documents/lifecycle";
 import type { RichNode } from "@/lib/documents/rich-text";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
-
-// Geist ships µ ° ± ≤ ≥; react-pdf would otherwise fall back silently and drop them.
-const FONTS = join(process.cwd(), "node_modules/geist/dist/fonts/geist-sans");
-Font.register({
-  family: "Geist",
-  fonts: [
-    { src: join(FONTS, "Geist-Regular.ttf") },
-    { src: join(FONTS, "Geist-Bold.ttf"), fontWeight: "bold" },
-    { src: join(FONTS, "Geist-Italic.ttf"), fontStyle: "italic" },
-    { src: join(FONTS, "Geist-BoldItalic.ttf"), fontWeight: "bold", fontStyle: "italic" },
-  ],
-});
-Font.registerHyphenationCallback((word) => [word]);
+import { PDF_FONT, utc } from "./fonts";
 
 const s = StyleSheet.create({
-  page: { fontFamily: "Geist", fontSize: 9.5, paddingTop: 78, paddingBottom: 56, paddingHorizontal: 48, color: "#1c1917" },
+  page: { fontFamily: PDF_FONT, fontSize: 9.5, paddingTop: 78, paddingBottom: 56, paddingHorizontal: 48, color: "#1c1917" },
   // Line height on the body only: set on the page, it stops react-pdf drawing the rendered page number.
   body: { lineHeight: 1.35 },
   header: { position: "absolute", top: 24, left: 48, right: 48, borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 6 },
@@ -156,8 +143,6 @@ export interface DocumentPdfInput {
   printedAt: string;
   printedBy: string;
 }
-
-const utc = (iso: string) => `${iso.replace("T", " ").slice(0, 19)} UTC`;
 
 function DocumentPdf(d: DocumentPdfInput) {
   const controlled = d.status === "effective";

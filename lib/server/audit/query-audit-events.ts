@@ -5,7 +5,8 @@ import { auditEvents } from "@/db/schema";
 import { describeChanges } from "@/lib/audit/describe";
 import type { AuditQuery } from "@/lib/schemas/audit";
 
-function conditions(q: Partial<AuditQuery>): SQL | undefined {
+/** The filters as SQL, shared by the browser, the CSV export and the API. */
+export function auditConditions(q: Partial<AuditQuery>): SQL | undefined {
   const where: SQL[] = [];
   if (q.actor) where.push(q.actor === "system" ? eq(auditEvents.actorName, "system") : eq(auditEvents.actorId, q.actor));
   if (q.recordType) where.push(eq(auditEvents.recordType, q.recordType));
@@ -18,7 +19,7 @@ function conditions(q: Partial<AuditQuery>): SQL | undefined {
 
 /** One page of events, newest first, with the cursor for the next (older) page. */
 export async function queryAuditEvents(q: AuditQuery) {
-  const where = conditions(q);
+  const where = auditConditions(q);
   const rows = await getDb()
     .select()
     .from(auditEvents)
@@ -48,7 +49,7 @@ export type AuditPage = Awaited<ReturnType<typeof queryAuditEvents>>;
 export async function* iterateAuditEvents(q: Partial<Omit<AuditQuery, "before" | "limit">>, pageSize = 2000) {
   let before: number | undefined;
   for (;;) {
-    const where = conditions(q);
+    const where = auditConditions(q);
     const rows = await getDb()
       .select()
       .from(auditEvents)

@@ -1,0 +1,119 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { EmptyState } from "@/components/ui/empty-state";
+import { PageHeader } from "@/components/ui/page-header";
+import { humanize } from "@/lib/format/labels";
+import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
+import { partFamilyQuerySchema } from "@/lib/schemas/trace";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { getPartFamilyHistory, listPartFamilies } from "@/lib/server/trace/part-family-history";
+import { formatUtc, OUTCOME_LABELS } from "@/lib/trace/labels";
+
+export const metadata: Metadata = { title: "Part family history" };
+
+export default async function PartFamilyTracePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  await requirePageUser("trace.view");
+  const q = partFamilyQuerySchema.safeParse(await searchParams);
+  const familyId = q.success ? q.data.family : undefined;
+  const [families, history] = await Promise.all([listPartFamilies(), familyId ? getPartFamilyHistory(familyId) : undefined]);
+  return (
+    <>
+      <PageHeader title="Part family history" description="Which recipe versions cleaned a part family, when, and with which test results." />
+      <form method="get" className="mb-8 flex flex-wrap items-end gap-3 rounded-lg border border-stone-200 bg-white p-5" aria-label="Choose a part family">
+        <div className="space-y-1">
+          <label htmlFor="family" className="block text-sm font-medium text-stone-800">
+            Part family
+          </label>
+          <select id="family" name="family" defaultValue={familyId ?? ""} className="block w-72 rounded-md border border-stone-300 bg-white px-3 py-2 text-sm">
+            <option value="">Choose…</option>
+            {families.map((f) => (
+              <option key={f.id} value={f.id}>
+                {f.code} · {f.name}
+              </option>
+            ))}
+          </select>
+        </div>
+        <button type="submit" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+          Show history
+        </button>
+      </form>
+      {!familyId ? (
+        <EmptyState title="No part family chosen">Choose a part family to see the recipe versions that cleaned it and the results of its tests.</EmptyState>
+      ) : !history ? (
+        <EmptyState title="Part family not found">Choose one from the list.</EmptyState>
+      ) : (
+        <section aria-labelledby="family-h">
+          <h2 id="family-h" className="text-lg font-semibold">
+            {history.family.code} · {history.family.name}
+          </h2>
+          <p className="mb-4 text-sm text-stone-700">
+            {history.family.material} · wetted area {history.family.wettedAreaCm2} cm² · specification {history.spec.code} {history.spec.ccc}
+          </p>
+          {history.versions.length === 0 ? (
+            <EmptyState title="No recipe version recorded">No recipe version has been validated for this family and no test run names it yet.</EmptyState>
+          ) : (
+            <ol className="space-y-4" aria-label="Recipe versions that cleaned this family">
+              {history.versions.map((v) => (
+                <li key={v.id} className="rounded-lg border border-stone-200 bg-white p-5">
+                  <h3 className="font-semibold">
+                    <Link href={`/systems/recipes/${v.recipe.id}`} className="text-brand-800 hover:underline">
+                      {v.recipe.code}
+                    </Link>{" "}
+                    version {v.version} · {humanize(v.status)}
+                  </h3>
+                  <p className="text-sm text-stone-700">
+                    {v.recipe.name} on {v.system.code} · in force {v.effectiveFrom ? `from ${formatUtc(v.effectiveFrom)} ${v.effectiveTo ? `to ${formatUtc(v.effectiveTo)}` : "until now"}` : "never (not made effective)"}
+                    {v.interval ? ` · last qualified ${v.interval.lastQualifiedAt.slice(0, 10)}, requalify every ${v.interval.intervalMonths} months` : ""}
+                  </p>
+                  {v.runs.length === 0 ? (
+                    <p className="mt-2 text-sm text-stone-600">No test run on this version for the family.</p>
+                  ) : (
+                    <table className="mt-2 w-full text-sm">
+                      <caption className="sr-only">
+                        Test runs of {history.family.code} on {v.recipe.code} version {v.version}
+                      </caption>
+                      <thead className="text-left text-xs text-stone-500 uppercase">
+                        <tr>
+                          <th className="py-1 pr-3 font-medium">Run</th>
+                          <th className="py-1 pr-3 font-medium">Test</th>
+                          <th className="py-1 pr-3 font-medium">Performed</th>
+                          <th className="py-1 pr-3 font-medium">Status</th>
+                          <th className="py-1 pr-3 font-medium">Computed outcome</th>
+                          <th className="py-1 font-medium">Change request</th>
+                        </tr>
+                      </thead>
+                      <tbody className="divide-y divide-stone-100">
+                        {v.runs.map((r) => (
+                          <tr key={r.id}>
+                            <td className="py-1 pr-3 font-medium">
+                              {r.number}
+                              {r.revision > 1 ? ` rev. ${r.revision}` : ""}
+                            </td>
+                            <td className="py-1 pr-3">{TEST_TYPE_LABELS[r.testType]}</td>
+                            <td className="py-1 pr-3">{r.performedOn ?? "—"}</td>
+                            <td className="py-1 pr-3">{humanize(r.status)}</td>
+                            <td className="py-1 pr-3 font-semibold">{r.outcome ? OUTCOME_LABELS[r.outcome] : "Not computed"}</td>
+                            <td className="py-1">
+                              {r.changeRequestId && r.changeNumber ? (
+                                <Link href={`/changes/${r.changeRequestId}`} className="text-brand-800 hover:underline">
+                                  {r.changeNumber}
+                                </Link>
+                              ) : (
+                                "—"
+                              )}
+                            </td>
+                          </tr>
+                        ))}
+                      </tbody>
+                    </table>
+                  )}
+                </li>
+              ))}
+            </ol>
+          )}
+          <p className="mt-4 text-xs text-stone-600">A computed pass supports, and never replaces, the customer&apos;s specification and the engineer&apos;s judgement.</p>
+        </section>
+      )}
+    </>
+  );
+}

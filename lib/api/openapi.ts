@@ -1,0 +1,156 @@
+import { z } from "zod";
+import {
+  apiRegistry,
+  auditEventPage,
+  auditEventsQuery,
+  changeRequestDetailOut,
+  changeRequestPage,
+  changeRequestsQuery,
+  cleaningSystemPage,
+  pageQuery,
+  recipeOut,
+  recipePage,
+  recipesQuery,
+  recipeVersionOut,
+  resultAddedOut,
+  testRunDetailOut,
+  testRunPage,
+  testRunsQuery,
+} from "@/lib/schemas/api";
+import { conductivitySampleSchema, gravimetricSampleSchema, observationSampleSchema, particleSampleSchema, wettingSampleSchema } from "@/lib/schemas/evidence";
+
+export interface ApiOperation {
+  method: "get" | "post";
+  path: string;
+  operationId: string;
+  summary: string;
+  /** The action of the role table that the caller's roles must allow. */
+  permission: string;
+  pathParams?: Record<string, { description: string; schema: Record<string, unknown> }>;
+  query?: z.ZodObject;
+  body?: z.ZodType;
+  response: z.ZodType;
+  status?: number;
+  errors: number[];
+}
+
+const uuidParam = (description: string) => ({ description, schema: { type: "string", format: "uuid" } });
+
+/** Every /api/v1 operation; the route handlers parse with the same schemas. */
+export const API_OPERATIONS: ApiOperation[] = [
+  { method: "get", path: "/cleaning-systems", operationId: "listCleaningSystems", summary: "Cleaning systems with their stages", permission: "systems.view", query: pageQuery, response: cleaningSystemPage, errors: [400, 401, 403] },
+  { method: "get", path: "/recipes", operationId: "listRecipes", summary: "Recipes with their versions", permission: "systems.view", query: recipesQuery, response: recipePage, errors: [400, 401, 403] },
+  { method: "get", path: "/recipes/{recipeId}", operationId: "getRecipe", summary: "One recipe with its versions", permission: "systems.view", pathParams: { recipeId: uuidParam("Recipe id") }, response: recipeOut, errors: [401, 403, 404] },
+  {
+    method: "get",
+    path: "/recipes/{recipeId}/versions/{version}",
+    operationId: "getRecipeVersion",
+    summary: "One recipe version: stages and parameters with setpoints and validated ranges",
+    permission: "systems.view",
+    pathParams: { recipeId: uuidParam("Recipe id"), version: { description: "Version number", schema: { type: "integer", minimum: 1 } } },
+    response: recipeVersionOut,
+    errors: [401, 403, 404],
+  },
+  { method: "get", path: "/change-requests", operationId: "listChangeRequests", summary: "Change requests", permission: "changes.view", query: changeRequestsQuery, response: changeRequestPage, errors: [400, 401, 403] },
+  {
+    method: "get",
+    path: "/change-requests/{changeRequestId}",
+    operationId: "getChangeRequest",
+    summary: "One change request: justification, parameter changes, required tests, signatures and evidence",
+    permission: "changes.view",
+    pathParams: { changeRequestId: uuidParam("Change request id") },
+    response: changeRequestDetailOut,
+    errors: [401, 403, 404],
+  },
+  { method: "get", path: "/test-runs", operationId: "listTestRuns", summary: "Test runs with their computed outcomes", permission: "evidence.view", query: testRunsQuery, response: testRunPage, errors: [400, 401, 403] },
+  {
+    method: "get",
+    path: "/test-runs/{runId}",
+    operationId: "getTestRun",
+    summary: "One test run: raw results, files with their SHA-256, signatures",
+    permission: "evidence.view",
+    pathParams: { runId: uuidParam("Test run id") },
+    response: testRunDetailOut,
+    errors: [401, 403, 404],
+  },
+  {
+    method: "post",
+    path: "/test-runs/{runId}/results",
+    operationId: "addTestResult",
+    summary: "Add one sample's raw data to an open run; the outcome is recomputed from the stored results",
+    permission: "evidence.record",
+    pathParams: { runId: uuidParam("Test run id (the run must be open)") },
+    body: z.union([particleSampleSchema, gravimetricSampleSchema, wettingSampleSchema, conductivitySampleSchema, observationSampleSchema]).describe("The sample schema of the run's test type, in this order: particle cleanliness, gravimetric, wetting tension, rinse conductivity, visual / UV / dryness"),
+    response: resultAddedOut,
+    status: 201,
+    errors: [400, 401, 403, 404, 409, 415, 422],
+  },
+  { method: "get", path: "/audit-events", operationId: "listAuditEvents", summary: "The audit trail, newest first", permission: "audit.view", query: auditEventsQuery, response: auditEventPage, errors: [400, 401, 403] },
+];
+
+const ERROR_TEXT: Record<number, string> = {
+  400: "Malformed request: bad JSON, query parameter or cursor",
+  401: "No token, an unknown token, or a revoked one",
+  403: "The token's scope or the owner's roles do not allow this",
+  404: "No such record",
+  409: "The record's state does not allow this (e.g. a signed run)",
+  415: "The body is not JSON",
+  422: "The body breaks the schema: wrong type, missing or unknown field",
+};
+
+/** A JSON Schema for embedding in the document: the dialect is the document's, not repeated per schema. */
+function embedded(schema: z.ZodType, io: "input" | "output") {
+  const { $schema: _dialect, ...rest } = z.toJSONSchema(schema, { io, target: "draft-2020-12", unrepresentable: "any" }) as Record<string, unknown>;
+  return rest;
+}
+
+/** The OpenAPI 3.1 description of /api/v1, generated from the zod schemas. */
+export function buildOpenApiDocument(serverUrl = "/api/v1") {
+  const ref = (schema: z.ZodType) => {
+    const id = apiRegistry.get(schema)?.id;
+    return id ? { $ref: `#/components/schemas/${id}` } : embedded(schema, "output");
+  };
+  const components = z.toJSONSchema(apiRegistry, { target: "draft-2020-12", uri: (id) => `#/components/schemas/${id}` }).schemas;
+  // Components are named by their key; a per-schema $id or $schema would only confuse tools.
+  for (const schema of Object.values(components)) {
+    delete (schema as { $schema?: string }).$schema;
+    delete (schema as { $id?: string }).$id;
+  }
+
+  const paths: Record<string, Record<string, unknown>> = {};
+  for (const op of API_OPERATIONS) {
+    const parameters: unknown[] = Object.entries(op.pathParams ?? {}).map(([name, p]) => ({ name, in: "path", required: true, ...p }));
+    if (op.query) {
+      const json = z.toJSONSchema(op.query, { io: "input", target: "draft-2020-12" }) as { properties?: Record<string, Record<string, unknown>>; required?: string[] };
+      for (const [name, schema] of Object.entries(json.properties ?? {})) {
+        const { description, ...rest } = schema;
+        parameters.push({ name, in: "query", required: (json.required ?? []).includes(name) && !("default" in schema), ...(description ? { description } : {}), schema: rest });
+      }
+    }
+    const responses: Record<string, unknown> = {
+      [String(op.status ?? 200)]: { description: "OK", content: { "application/json": { schema: ref(op.response) } } },
+    };
+    for (const code of op.errors) responses[String(code)] = { description: ERROR_TEXT[code], content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } };
+    (paths[op.path] ??= {})[op.method] = {
+      operationId: op.operationId,
+      summary: op.summary,
+      description: `Allowed to the roles that may "${op.permission}" in the role table${op.method === "get" ? "" : ", with a read-and-write token"}.`,
+      parameters,
+      ...(op.body ? { requestBody: { required: true, content: { "application/json": { schema: embedded(op.body, "input") } } } } : {}),
+      responses,
+    };
+  }
+  return {
+    openapi: "3.1.0",
+    info: {
+      title: "Washproof API",
+      version: "1",
+      description:
+        "Read cleaning systems, recipes and their versions, change requests, test runs and the audit trail. Authenticate with a personal API token (Account → API tokens) as `Authorization: Bearer wpk_…`. A token acts with its owner's roles; a read token never writes. Lists are paged with `limit` and `cursor` (pass back `nextCursor`). Unknown query parameters and body fields are refused.",
+    },
+    servers: [{ url: serverUrl }],
+    security: [{ bearerAuth: [] }],
+    paths,
+    components: { securitySchemes: { bearerAuth: { type: "http", scheme: "bearer", description: "A personal API token, wpk_…" } }, schemas: components },
+  };
+}

@@ -1,0 +1,242 @@
+import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
+import type { ReactNode } from "react";
+import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
+import { CHANGE_KIND_LABELS, STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
+import { MEANING_LABELS, MEANING_STATEMENTS } from "@/lib/signatures/rules";
+import { BINDING_LABELS, formatBytes, OUTCOME_LABELS } from "@/lib/trace/labels";
+import type { AuditPack } from "@/lib/server/trace/audit-pack";
+import { PDF_FONT, utc } from "./fonts";
+
+const s = StyleSheet.create({
+  page: { fontFamily: PDF_FONT, fontSize: 8.5, paddingTop: 64, paddingBottom: 50, paddingHorizontal: 40, color: "#1c1917" },
+  header: { position: "absolute", top: 22, left: 40, right: 40, borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 5 },
+  number: { fontSize: 11, fontWeight: "bold", color: "#12524d" },
+  small: { fontSize: 7.5, color: "#57534e" },
+  footerLeft: { position: "absolute", bottom: 22, left: 40, right: 150, fontSize: 7, color: "#57534e" },
+  footerRight: { position: "absolute", bottom: 22, right: 40, fontSize: 7, color: "#57534e" },
+  h2: { fontSize: 11.5, fontWeight: "bold", marginTop: 12, marginBottom: 4, color: "#12524d" },
+  h3: { fontSize: 9.5, fontWeight: "bold", marginTop: 6, marginBottom: 2 },
+  p: { marginBottom: 3, lineHeight: 1.3 },
+  table: { borderWidth: 0.5, borderColor: "#a8a29e", marginVertical: 3 },
+  row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: "#d6d3d1" },
+  cell: { padding: 2.5, borderRightWidth: 0.5, borderRightColor: "#d6d3d1" },
+  head: { backgroundColor: "#f5f5f4", fontWeight: "bold" },
+  mono: { fontSize: 7 },
+  kv: { flexDirection: "row", marginBottom: 1.5 },
+  k: { width: 120, color: "#57534e" },
+  v: { flex: 1 },
+});
+
+function Table({ widths, head, rows }: { widths: number[]; head: string[]; rows: ReactNode[][] }) {
+  return (
+    <View style={s.table}>
+      <View style={[s.row, s.head]} fixed>
+        {head.map((h, i) => (
+          <Text key={i} style={[s.cell, { flex: widths[i] }]}>
+            {h}
+          </Text>
+        ))}
+      </View>
+      {rows.map((r, ri) => (
+        <View key={ri} style={s.row} wrap={false}>
+          {r.map((c, ci) => (
+            <View key={ci} style={[s.cell, { flex: widths[ci] }]}>
+              {typeof c === "string" || typeof c === "number" ? <Text>{c}</Text> : c}
+            </View>
+          ))}
+        </View>
+      ))}
+    </View>
+  );
+}
+
+function KV({ k, children }: { k: string; children: ReactNode }) {
+  return (
+    <View style={s.kv}>
+      <Text style={s.k}>{k}</Text>
+      <Text style={s.v}>{children}</Text>
+    </View>
+  );
+}
+
+const valueOf = (p: { setpoint: number; unit: string; validatedLow: number | null; validatedHigh: number | null } | null) =>
+  p ? `${withUnit(p.setpoint, p.unit)} (validated ${rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit)})` : "—";
+
+export interface AuditPackPdfInput {
+  pack: AuditPack;
+  printedAt: string;
+  printedBy: string;
+}
+
+function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
+  const { cr } = pack;
+  const changed = pack.assessment.diff.parameters.filter((p) => p.change !== "unchanged");
+  const files = pack.evidence.flatMap((r) => r.files.map((f) => ({ run: r.number, ...f })));
+  return (
+    <Document title={`Audit pack ${cr.number}`} author="Washproof" subject={cr.title}>
+      <Page size="A4" style={s.page}>
+        <View style={s.header} fixed>
+          <Text style={s.number}>Audit pack · {cr.number}</Text>
+          <Text>{cr.title}</Text>
+        </View>
+
+        <Text style={s.h2}>1. The record</Text>
+        <KV k="Change request">
+          {cr.number} · {CHANGE_KIND_LABELS[pack.kind]} · revision {pack.revision}
+        </KV>
+        <KV k="Status">{STATUS_LABELS[cr.status]}</KV>
+        <KV k="Recipe">
+          {pack.recipe.code} {pack.recipe.name}: version {pack.fromVersion.version} ({humanize(pack.fromVersion.status)}) → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
+        </KV>
+        {pack.family && <KV k="Adds part family">{`${pack.family.code} ${pack.family.name}`}</KV>}
+        <KV k="Opened">{utc(cr.createdAt)}</KV>
+        <KV k="Closed">{cr.closedAt ? utc(cr.closedAt) : "not closed"}</KV>
+        <KV k="Version in force">{pack.toVersion.effectiveFrom ? `version ${pack.toVersion.version} from ${utc(pack.toVersion.effectiveFrom)}` : `version ${pack.fromVersion.version} (the proposal is not in force)`}</KV>
+        <KV k="Content hash (SHA-256)">{pack.contentHash}</KV>
+
+        <Text style={s.h2}>2. Justification and risk assessment</Text>
+        {pack.narrative ? (
+          pack.narrative.split("\n\n").map((para, i) => (
+            <Text key={i} style={s.p}>
+              {para}
+            </Text>
+          ))
+        ) : (
+          <Text style={s.p}>Not written.</Text>
+        )}
+
+        <Text style={s.h2}>3. Parameter diff</Text>
+        {changed.length === 0 ? (
+          <Text style={s.p}>No parameter changed.</Text>
+        ) : (
+          <Table
+            widths={[2.2, 1, 2.4, 2.4, 1, 3]}
+            head={["Parameter", "Change", `Version ${pack.fromVersion.version}`, `Version ${pack.toVersion.version}`, "Range", "Impact and reason"]}
+            rows={changed.map((p) => [
+              `${p.stage} · ${p.name} (${p.key})`,
+              humanize(p.change),
+              valueOf(p.old),
+              valueOf(p.new),
+              p.position ? (p.position === "inside" ? "inside" : "outside") : "—",
+              `${humanize(p.impact)}${p.reasons.length ? `: ${p.reasons.join("; ")}` : ""}`,
+            ])}
+          />
+        )}
+        {pack.assessment.diff.stages.map((st, i) => (
+          <Text key={`st${i}`} style={s.p}>
+            Stage {st.stage}: {humanize(st.change)} — {st.reason}
+          </Text>
+        ))}
+        {pack.assessment.diff.texts.map((t, i) => (
+          <Text key={`tx${i}`} style={s.p}>
+            {humanize(t.field)}: “{t.old}” → “{t.new}” ({humanize(t.impact)})
+          </Text>
+        ))}
+
+        <Text style={s.h2}>4. Impact</Text>
+        <KV k="Impact class">
+          {humanize(pack.impact)} (computed {pack.assessment.computed}
+          {pack.raiseReason ? `; raised by the engineer: ${pack.raiseReason}` : ""})
+        </KV>
+        {pack.assessment.triggers.map((t, i) => (
+          <Text key={i} style={s.p}>
+            • {t.reason}
+          </Text>
+        ))}
+        {pack.requirements.length > 0 ? (
+          <Table
+            widths={[2, 1, 1, 1]}
+            head={["Required test", "Samples", "Confidence", "Reliability"]}
+            rows={pack.requirements.map((r) => [TEST_TYPE_LABELS[r.testType], `${r.samples} parts`, `${r.confidencePct} %`, `${r.reliabilityPct} %`])}
+          />
+        ) : (
+          <Text style={s.p}>No requalification tests required.</Text>
+        )}
+
+        <Text style={s.h2}>5. Electronic signatures</Text>
+        {pack.signatures.length === 0 ? (
+          <Text style={s.p}>No signatures.</Text>
+        ) : (
+          <Table
+            widths={[1.6, 1.1, 1.5, 0.6, 3.4, 1.3]}
+            head={["Printed name", "Meaning", "Signed (UTC)", "Rev.", "Statement and signed content hash (SHA-256)", "Binding"]}
+            rows={pack.signatures.map((sig) => [
+              sig.printedName,
+              MEANING_LABELS[sig.meaning],
+              utc(sig.signedAt),
+              String(sig.revision),
+              <View key="st">
+                <Text>{MEANING_STATEMENTS[sig.meaning]}</Text>
+                <Text style={s.mono}>{sig.contentHash}</Text>
+              </View>,
+              BINDING_LABELS[sig.binding],
+            ])}
+          />
+        )}
+
+        <Text style={s.h2}>6. Requalification evidence</Text>
+        {pack.evidence.length === 0 ? (
+          <Text style={s.p}>No test run is linked to this change request.</Text>
+        ) : (
+          pack.evidence.map((run) => (
+            <View key={run.id} wrap={false}>
+              <Text style={s.h3}>
+                {run.number}
+                {run.revision > 1 ? ` rev. ${run.revision}` : ""} · {TEST_TYPE_LABELS[run.testType]} · computed outcome {run.outcome ? OUTCOME_LABELS[run.outcome] : "not computed"}
+              </Text>
+              <Text style={s.p}>
+                {humanize(run.status)} · {run.samples} samples{run.worstCaseSamples ? ` (${run.worstCaseSamples} at worst-case positions)` : ""} · performed {run.performedOn ?? "—"}
+                {run.lab ? ` at ${run.lab}` : ""}
+              </Text>
+              {run.signatures.map((sig) => (
+                <Text key={sig.id} style={s.p}>
+                  {MEANING_LABELS[sig.meaning]} by {sig.printedName}, {utc(sig.signedAt)} · signed hash <Text style={s.mono}>{sig.contentHash}</Text>
+                </Text>
+              ))}
+              {run.files.length === 0 && <Text style={s.p}>No files attached.</Text>}
+            </View>
+          ))
+        )}
+        <Text style={s.small}>A computed pass supports, and never replaces, the customer&apos;s specification and the responsible engineer&apos;s judgement.</Text>
+
+        <Text style={s.h2}>7. Evidence files and their hashes</Text>
+        {files.length === 0 ? (
+          <Text style={s.p}>No evidence files are attached to the linked runs.</Text>
+        ) : (
+          <>
+            <Text style={s.p}>Each file is stored under its SHA-256. To check a copy, compute its SHA-256 (for example `sha256sum FILE`) and compare it with the value here.</Text>
+            <Table
+              widths={[0.9, 2, 0.8, 4.3]}
+              head={["Run", "File", "Size", "SHA-256"]}
+              rows={files.map((f) => [f.run, f.originalName, formatBytes(f.sizeBytes), <Text key="h" style={s.mono}>{f.sha256}</Text>])}
+            />
+          </>
+        )}
+
+        <Text style={s.h2}>8. Audit extract</Text>
+        <Text style={s.p}>
+          {pack.events.length} events about this change request, its recipe versions, signatures, runs and files. Integrity of the whole audit trail at export:{" "}
+          {pack.chain.ok ? `intact (${pack.chain.events} events, last hash ${pack.chain.lastHash})` : `BROKEN at event ${pack.chain.brokenAt}: ${pack.chain.reason}`}.
+        </Text>
+        <Table
+          widths={[0.5, 1.5, 1.4, 2, 1.4, 3.2]}
+          head={["Seq", "At (UTC)", "Actor", "Action", "Record", "Event hash (SHA-256)"]}
+          rows={pack.events.map((e) => [String(e.seq), utc(e.at), e.actorName, e.action, humanize(e.recordType), <Text key="h" style={s.mono}>{e.hash}</Text>])}
+        />
+
+        <Text style={s.small}>
+          Printed {utc(printedAt)} by {printedBy} from Washproof.
+        </Text>
+        <Text style={s.footerLeft} fixed>
+          Audit pack {cr.number} · content hash {pack.contentHash.slice(0, 16)}…
+        </Text>
+        <Text style={s.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+      </Page>
+    </Document>
+  );
+}
+
+export function renderAuditPackPdf(input: AuditPackPdfInput): Promise<Buffer> {
+  return renderToBuffer(<AuditPackPdf {...input} />);
+}

@@ -1,0 +1,306 @@
+import { z } from "zod";
+import {
+  CHANGE_STATUSES,
+  IMPACT_CLASSES,
+  OUTCOMES,
+  PARAMETER_KINDS,
+  RECIPE_VERSION_STATUSES,
+  RUN_STATUSES,
+  SIGNATURE_MEANINGS,
+  STAGE_KINDS,
+  TEST_TYPES,
+} from "@/db/enums";
+
+/**
+ * The /api/v1 contract: query schemas the handlers parse with, and the shapes they
+ * answer with. The OpenAPI document is generated from these same schemas.
+ * Query schemas are strict, so a misspelt parameter is an error rather than ignored.
+ */
+
+/** The schemas the OpenAPI document lists under components, by name. */
+export const apiRegistry = z.registry<{ id: string }>();
+function named<T extends z.ZodType>(id: string, schema: T): T {
+  apiRegistry.add(schema, { id });
+  return schema;
+}
+
+const uuid = (what: string) => z.uuid(`${what} must be a UUID.`);
+
+export const pageQuery = z
+  .object({
+    limit: z.coerce
+      .number()
+      .int("limit must be a whole number.")
+      .min(1, "limit must be at least 1.")
+      .max(200, "limit must be at most 200.")
+      .default(50)
+      .describe("Items per page, 1–200."),
+    cursor: z.string().min(1).max(500).optional().describe("nextCursor from the previous page."),
+  })
+  .strict();
+
+export const recipesQuery = pageQuery
+  .extend({
+    systemId: uuid("systemId").optional().describe("Only this cleaning system's recipes."),
+  })
+  .strict();
+export const changeRequestsQuery = pageQuery
+  .extend({
+    status: z.enum(CHANGE_STATUSES).optional(),
+    recipeId: uuid("recipeId").optional(),
+  })
+  .strict();
+export const testRunsQuery = pageQuery
+  .extend({
+    changeRequestId: uuid("changeRequestId").optional(),
+    recipeVersionId: uuid("recipeVersionId").optional(),
+    partFamilyId: uuid("partFamilyId").optional(),
+    testType: z.enum(TEST_TYPES).optional(),
+  })
+  .strict();
+export const auditEventsQuery = pageQuery
+  .extend({
+    actor: z.string().trim().max(64).optional().describe('A user id, or "system".'),
+    recordType: z.string().trim().max(40).optional(),
+    recordId: z.string().trim().max(100).optional(),
+    action: z.string().trim().max(60).optional(),
+    from: z.iso.date("Use a date like 2026-01-31.").optional(),
+    to: z.iso.date("Use a date like 2026-01-31.").optional(),
+  })
+  .strict();
+
+// ── Answers ───────────────────────────────────────────────────────────────
+
+const iso = z.string().describe("ISO-8601 UTC");
+const nullableIso = iso.nullable();
+
+export const errorOut = named(
+  "Error",
+  z.object({
+    error: z.string().describe("What went wrong, in words a person can act on"),
+    fieldErrors: z.record(z.string(), z.array(z.string())).optional(),
+  }),
+);
+
+export const cleaningSystemOut = named(
+  "CleaningSystem",
+  z.object({
+    id: z.string(),
+    code: z.string(),
+    name: z.string(),
+    kind: z.string(),
+    description: z.string().nullable(),
+    active: z.boolean(),
+    site: z.string(),
+    stages: z.array(
+      z.object({
+        position: z.number().int(),
+        name: z.string(),
+        kind: z.enum(STAGE_KINDS),
+        capabilities: z.array(z.string()),
+        tankVolumeL: z.number().nullable(),
+      }),
+    ),
+  }),
+);
+
+const versionSummary = z.object({
+  id: z.string(),
+  version: z.number().int(),
+  status: z.enum(RECIPE_VERSION_STATUSES),
+  effectiveFrom: nullableIso,
+  effectiveTo: nullableIso,
+});
+
+export const recipeOut = named(
+  "Recipe",
+  z.object({
+    id: z.string(),
+    code: z.string(),
+    name: z.string(),
+    description: z.string().nullable(),
+    systemId: z.string(),
+    systemCode: z.string(),
+    versions: z.array(versionSummary),
+  }),
+);
+
+export const parameterOut = z.object({
+  key: z.string().describe('Stable across versions, e.g. "wash.temperature".'),
+  name: z.string(),
+  kind: z.enum(PARAMETER_KINDS),
+  setpoint: z.number(),
+  unit: z.string(),
+  validatedLow: z.number().nullable(),
+  validatedHigh: z.number().nullable(),
+  critical: z.boolean(),
+});
+
+export const recipeVersionOut = named(
+  "RecipeVersion",
+  versionSummary.extend({
+    recipeId: z.string(),
+    recipeCode: z.string(),
+    detergent: z.string().nullable(),
+    notes: z.string().nullable(),
+    stages: z.array(
+      z.object({
+        position: z.number().int(),
+        name: z.string(),
+        kind: z.string(),
+        mode: z.string().nullable(),
+        parameters: z.array(parameterOut),
+      }),
+    ),
+  }),
+);
+
+export const signatureOut = named(
+  "Signature",
+  z.object({
+    printedName: z.string(),
+    meaning: z.enum(SIGNATURE_MEANINGS),
+    signedAt: iso,
+    contentHash: z.string().describe("SHA-256 of exactly the content signed"),
+  }),
+);
+
+export const changeRequestOut = named(
+  "ChangeRequest",
+  z.object({
+    id: z.string(),
+    number: z.string(),
+    title: z.string(),
+    status: z.enum(CHANGE_STATUSES),
+    impact: z.enum(IMPACT_CLASSES).nullable(),
+    recipeId: z.string(),
+    recipeCode: z.string(),
+    fromVersion: z.number().int().nullable(),
+    toVersion: z.number().int().nullable(),
+    createdAt: iso,
+    closedAt: nullableIso,
+  }),
+);
+
+export const changeRequestDetailOut = named(
+  "ChangeRequestDetail",
+  changeRequestOut.extend({
+    justification: z.string(),
+    parameterChanges: z.array(
+      z.object({
+        key: z.string(),
+        name: z.string(),
+        stage: z.string(),
+        change: z.enum(["unchanged", "changed", "added", "removed"]),
+        old: parameterOut.nullable(),
+        new: parameterOut.nullable(),
+        position: z
+          .enum(["inside", "outside"])
+          .nullable()
+          .describe("The new setpoint against the old validated range"),
+        impact: z.enum(IMPACT_CLASSES),
+        reasons: z.array(z.string()),
+      }),
+    ),
+    requiredTests: z.array(
+      z.object({
+        testType: z.enum(TEST_TYPES),
+        samples: z.number().int(),
+        confidencePct: z.number(),
+        reliabilityPct: z.number(),
+      }),
+    ),
+    signatures: z.array(signatureOut.extend({ revision: z.number().int() })),
+    evidenceRunIds: z.array(z.string()),
+  }),
+);
+
+export const testRunOut = named(
+  "TestRun",
+  z.object({
+    id: z.string(),
+    number: z.string(),
+    revision: z.number().int(),
+    testType: z.enum(TEST_TYPES),
+    status: z.enum(RUN_STATUSES),
+    outcome: z.enum(OUTCOMES).nullable().describe("Computed from the stored results, never typed"),
+    partFamilyId: z.string(),
+    partFamilyCode: z.string(),
+    recipeVersionId: z.string(),
+    changeRequestId: z.string().nullable(),
+    lab: z.string().nullable(),
+    performedOn: z.string().nullable(),
+    createdAt: iso,
+  }),
+);
+
+export const testRunDetailOut = named(
+  "TestRunDetail",
+  testRunOut.extend({
+    results: z.array(
+      z.object({
+        id: z.string(),
+        sampleLabel: z.string(),
+        basketPosition: z.string().nullable(),
+        worstCase: z.boolean(),
+        data: z.record(z.string(), z.unknown()),
+      }),
+    ),
+    files: z.array(
+      z.object({
+        id: z.string(),
+        originalName: z.string(),
+        mimeType: z.string(),
+        sizeBytes: z.number().int(),
+        sha256: z.string(),
+      }),
+    ),
+    signatures: z.array(signatureOut),
+  }),
+);
+
+export const auditEventOut = named(
+  "AuditEvent",
+  z.object({
+    seq: z.number().int(),
+    at: iso,
+    actorName: z.string(),
+    action: z.string(),
+    recordType: z.string(),
+    recordId: z.string(),
+    old: z.record(z.string(), z.unknown()).nullable(),
+    new: z.record(z.string(), z.unknown()).nullable(),
+    reason: z.string().nullable(),
+    prevHash: z.string(),
+    hash: z.string(),
+  }),
+);
+
+function pageOf<T extends z.ZodType>(id: string, item: T) {
+  return named(
+    id,
+    z.object({
+      data: z.array(item),
+      nextCursor: z
+        .string()
+        .nullable()
+        .describe("Pass as cursor for the next page; null on the last page."),
+    }),
+  );
+}
+export const cleaningSystemPage = pageOf("CleaningSystemPage", cleaningSystemOut);
+export const recipePage = pageOf("RecipePage", recipeOut);
+export const changeRequestPage = pageOf("ChangeRequestPage", changeRequestOut);
+export const testRunPage = pageOf("TestRunPage", testRunOut);
+export const auditEventPage = pageOf("AuditEventPage", auditEventOut);
+
+export type CleaningSystemOut = z.infer<typeof cleaningSystemOut>;
+export type RecipeOut = z.infer<typeof recipeOut>;
+export type RecipeVersionOut = z.infer<typeof recipeVersionOut>;
+export type ChangeRequestOut = z.infer<typeof changeRequestOut>;
+export type ChangeRequestDetailOut = z.infer<typeof changeRequestDetailOut>;
+export type TestRunOut = z.infer<typeof testRunOut>;
+export type TestRunDetailOut = z.infer<typeof testRunDetailOut>;
+export type AuditEventOut = z.infer<typeof auditEventOut>;
+
+export const resultAddedOut = named("ResultAdded", z.object({ resultId: z.string(), run: testRunDetailOut }));

@@ -1,0 +1,16 @@
+import { z } from "zod";
+
+/** The trace page's query string: which recipe parameter to show. Anything else is ignored, not an error. */
+export const traceQuerySchema = z.object({
+  recipe: z.uuid().optional().catch(undefined),
+  key: z
+    .string()
+    .trim()
+    .regex(/^[a-z0-9_.]{1,80}$/)
+    .optional()
+    .catch(undefined),
+});
+
+export const partFamilyQuerySchema = z.object({ family: z.uuid().optional().catch(undefined) });
+
+export const auditPackQuerySchema = z.object({ format: z.enum(["pdf", "zip"], { error: 'Ask for format "pdf" or "zip".' }).default("pdf") }).strict();

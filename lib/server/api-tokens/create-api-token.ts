@@ -1,0 +1,23 @@
+import "server-only";
+import { and, eq, isNull } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { apiTokens } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
+import { generateApiToken } from "@/lib/auth/api-token";
+import type { CreateApiToken } from "@/lib/schemas/api-token";
+import { UserFacingError } from "@/lib/server/errors";
+
+const MAX_ACTIVE = 20;
+
+/** Makes a token for the user; the token itself is returned once and never stored. */
+export async function createApiToken(actor: { id: string; name: string } & AuditActor, input: CreateApiToken) {
+  const { token, prefix, hash } = generateApiToken();
+  const row = await getDb().transaction(async (tx) => {
+    const active = await tx.select({ id: apiTokens.id }).from(apiTokens).where(and(eq(apiTokens.userId, actor.id), isNull(apiTokens.revokedAt)));
+    if (active.length >= MAX_ACTIVE) throw new UserFacingError(`You have ${MAX_ACTIVE} active tokens. Revoke one you no longer use first.`);
+    const [created] = await tx.insert(apiTokens).values({ userId: actor.id, name: input.name, prefix, tokenHash: hash, scope: input.scope }).returning();
+    await appendAudit(tx, actor, { action: "api_token.created", recordType: "api_token", recordId: created.id, new: { name: input.name, scope: input.scope, prefix } });
+    return created;
+  });
+  return { token, id: row.id, prefix };
+}

@@ -1,0 +1,44 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { apiTokens, userRoles, users, type Role } from "@/db/schema";
+import { bearerToken, hashApiToken } from "@/lib/auth/api-token";
+import { can, type Action } from "@/lib/auth/permissions";
+
+export interface ApiUser {
+  id: string;
+  name: string;
+  email: string;
+  roles: Role[];
+  tokenId: string;
+}
+
+export type ApiAuth = { ok: true; user: ApiUser } | { ok: false; status: 401 | 403; message: string };
+
+/**
+ * Who is calling, from the bearer token, and whether they may: the token's scope
+ * limits what it may do (a read token never writes), and the owner's roles decide
+ * the rest through the same table as the screens.
+ */
+export async function authenticateApi(request: Request, action: Action, mode: "read" | "write", now = new Date()): Promise<ApiAuth> {
+  const token = bearerToken(request.headers.get("authorization"));
+  if (!token) return { ok: false, status: 401, message: "Send your API token in the Authorization header as \"Bearer wpk_…\". Create one under Account → API tokens." };
+  const db = getDb();
+  const [row] = await db
+    .select({ token: apiTokens, user: users })
+    .from(apiTokens)
+    .innerJoin(users, eq(users.id, apiTokens.userId))
+    .where(eq(apiTokens.tokenHash, hashApiToken(token)));
+  if (!row) return { ok: false, status: 401, message: "This API token is not known. Check it was copied whole, or create a new one." };
+  if (row.token.revokedAt) return { ok: false, status: 401, message: `This API token was revoked on ${row.token.revokedAt.slice(0, 10)}. Create a new one.` };
+  if (!row.user.active) return { ok: false, status: 401, message: "The account that owns this API token is deactivated." };
+  if (row.user.lockedUntil && row.user.lockedUntil > now.toISOString()) return { ok: false, status: 401, message: "The account that owns this API token is locked after failed passwords. Try again later." };
+  // Recorded before the permission check: a refused call is still a use of the token.
+  await db.update(apiTokens).set({ lastUsedAt: now.toISOString() }).where(eq(apiTokens.id, row.token.id));
+  if (mode === "write" && row.token.scope !== "read_write") {
+    return { ok: false, status: 403, message: "This API token is read-only. Create a read-and-write token to send data." };
+  }
+  const roles = (await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, row.user.id))).map((r) => r.role);
+  if (!can(roles, action)) return { ok: false, status: 403, message: "Your role does not allow this." };
+  return { ok: true, user: { id: row.user.id, name: row.user.name, email: row.user.email, roles, tokenId: row.token.id } };
+}

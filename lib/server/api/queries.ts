@@ -1,0 +1,282 @@
+import "server-only";
+import { and, asc, desc, eq, gt, inArray, lt, or, type AnyColumn, type SQL } from "drizzle-orm";
+import type { z } from "zod";
+import { getDb } from "@/db/client";
+import {
+  auditEvents,
+  changeRequests,
+  cleaningSystems,
+  evidenceFiles,
+  partFamilies,
+  recipes,
+  recipeVersions,
+  signatures,
+  sites,
+  systemStages,
+  testResults,
+  testRuns,
+} from "@/db/schema";
+import { BadCursorError, decodeCursor, encodeCursor } from "@/lib/api/cursor";
+import { narrativeText } from "@/lib/recipes/change-content";
+import type {
+  auditEventsQuery,
+  AuditEventOut,
+  ChangeRequestDetailOut,
+  ChangeRequestOut,
+  changeRequestsQuery,
+  CleaningSystemOut,
+  pageQuery,
+  RecipeOut,
+  recipesQuery,
+  RecipeVersionOut,
+  TestRunDetailOut,
+  TestRunOut,
+  testRunsQuery,
+} from "@/lib/schemas/api";
+import { auditConditions } from "@/lib/server/audit/query-audit-events";
+import { loadRecipeSnapshot } from "@/lib/server/changes/snapshot";
+import { loadChangeState } from "@/lib/server/changes/state";
+import { changeEvidence, changeSignatures } from "@/lib/server/trace/evidence-of-change";
+
+/** Rows after the cursor in (key, id) order. */
+function after(key: AnyColumn, id: AnyColumn, cursor: string | undefined): SQL | undefined {
+  if (!cursor) return undefined;
+  const c = decodeCursor(cursor);
+  if (!c) throw new BadCursorError();
+  return or(gt(key, c.key), and(eq(key, c.key), gt(id, c.id)));
+}
+
+function page<T>(rows: T[], limit: number, cursorOf: (row: T) => [string, string]) {
+  const data = rows.slice(0, limit);
+  const last = data.at(-1);
+  return { data, nextCursor: rows.length > limit && last ? encodeCursor(...cursorOf(last)) : null };
+}
+
+export async function listSystemsApi(q: z.output<typeof pageQuery>) {
+  const db = getDb();
+  const rows = await db
+    .select({ s: cleaningSystems, site: sites.name })
+    .from(cleaningSystems)
+    .innerJoin(sites, eq(sites.id, cleaningSystems.siteId))
+    .where(after(cleaningSystems.code, cleaningSystems.id, q.cursor))
+    .orderBy(asc(cleaningSystems.code), asc(cleaningSystems.id))
+    .limit(q.limit + 1);
+  const stages = rows.length ? await db.select().from(systemStages).where(inArray(systemStages.systemId, rows.map((r) => r.s.id))).orderBy(asc(systemStages.position)) : [];
+  const out = page(rows, q.limit, (r) => [r.s.code, r.s.id]);
+  return {
+    nextCursor: out.nextCursor,
+    data: out.data.map(({ s, site }): CleaningSystemOut => ({
+      id: s.id,
+      code: s.code,
+      name: s.name,
+      kind: s.kind,
+      description: s.description,
+      active: s.active,
+      site,
+      stages: stages.filter((st) => st.systemId === s.id).map((st) => ({ position: st.position, name: st.name, kind: st.kind, capabilities: st.capabilities, tankVolumeL: st.tankVolumeL })),
+    })),
+  };
+}
+
+async function recipeRows(where: SQL | undefined, limit: number) {
+  const db = getDb();
+  const rows = await db
+    .select({ r: recipes, systemCode: cleaningSystems.code })
+    .from(recipes)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .where(where)
+    .orderBy(asc(recipes.code), asc(recipes.id))
+    .limit(limit);
+  const versions = rows.length ? await db.select().from(recipeVersions).where(inArray(recipeVersions.recipeId, rows.map((r) => r.r.id))).orderBy(asc(recipeVersions.version)) : [];
+  return rows.map(({ r, systemCode }) => ({
+    row: r,
+    out: {
+      id: r.id,
+      code: r.code,
+      name: r.name,
+      description: r.description,
+      systemId: r.systemId,
+      systemCode,
+      versions: versions.filter((v) => v.recipeId === r.id).map((v) => ({ id: v.id, version: v.version, status: v.status, effectiveFrom: v.effectiveFrom, effectiveTo: v.effectiveTo })),
+    } satisfies RecipeOut,
+  }));
+}
+
+export async function listRecipesApi(q: z.output<typeof recipesQuery>) {
+  const rows = await recipeRows(and(q.systemId ? eq(recipes.systemId, q.systemId) : undefined, after(recipes.code, recipes.id, q.cursor)), q.limit + 1);
+  const out = page(rows, q.limit, (r) => [r.row.code, r.row.id]);
+  return { data: out.data.map((r) => r.out), nextCursor: out.nextCursor };
+}
+
+export async function getRecipeApi(recipeId: string) {
+  const [r] = await recipeRows(eq(recipes.id, recipeId), 1);
+  return r?.out;
+}
+
+export async function getRecipeVersionApi(recipeId: string, version: number): Promise<RecipeVersionOut | undefined> {
+  const db = getDb();
+  const [row] = await db
+    .select({ v: recipeVersions, code: recipes.code })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(and(eq(recipeVersions.recipeId, recipeId), eq(recipeVersions.version, version)));
+  if (!row) return undefined;
+  const snapshot = await loadRecipeSnapshot(db, row.v.id);
+  return {
+    id: row.v.id,
+    version: row.v.version,
+    status: row.v.status,
+    effectiveFrom: row.v.effectiveFrom,
+    effectiveTo: row.v.effectiveTo,
+    recipeId,
+    recipeCode: row.code,
+    detergent: snapshot.detergent,
+    notes: snapshot.notes,
+    stages: snapshot.stages.map((s, i) => ({ position: i + 1, name: s.name, kind: s.kind, mode: s.mode, parameters: s.parameters })),
+  };
+}
+
+async function changeRows(where: SQL | undefined, limit: number) {
+  const db = getDb();
+  const rows = await db
+    .select({ c: changeRequests, recipeCode: recipes.code })
+    .from(changeRequests)
+    .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
+    .where(where)
+    .orderBy(asc(changeRequests.number), asc(changeRequests.id))
+    .limit(limit);
+  const versionIds = rows.flatMap((r) => [r.c.fromVersionId, r.c.toVersionId]).filter((x): x is string => !!x);
+  const versions = versionIds.length ? await db.select({ id: recipeVersions.id, version: recipeVersions.version }).from(recipeVersions).where(inArray(recipeVersions.id, versionIds)) : [];
+  const num = (id: string | null) => versions.find((v) => v.id === id)?.version ?? null;
+  return rows.map(({ c, recipeCode }) => ({
+    row: c,
+    out: {
+      id: c.id,
+      number: c.number,
+      title: c.title,
+      status: c.status,
+      impact: c.impact,
+      recipeId: c.recipeId,
+      recipeCode,
+      fromVersion: num(c.fromVersionId),
+      toVersion: num(c.toVersionId),
+      createdAt: c.createdAt,
+      closedAt: c.closedAt,
+    } satisfies ChangeRequestOut,
+  }));
+}
+
+export async function listChangeRequestsApi(q: z.output<typeof changeRequestsQuery>) {
+  const where = and(q.status ? eq(changeRequests.status, q.status) : undefined, q.recipeId ? eq(changeRequests.recipeId, q.recipeId) : undefined, after(changeRequests.number, changeRequests.id, q.cursor));
+  const out = page(await changeRows(where, q.limit + 1), q.limit, (r) => [r.row.number, r.row.id]);
+  return { data: out.data.map((r) => r.out), nextCursor: out.nextCursor };
+}
+
+export async function getChangeRequestApi(changeRequestId: string): Promise<ChangeRequestDetailOut | undefined> {
+  const [head] = await changeRows(eq(changeRequests.id, changeRequestId), 1);
+  if (!head) return undefined;
+  const db = getDb();
+  const state = await loadChangeState(db, changeRequestId);
+  const [sigs, evidence] = await Promise.all([changeSignatures(db, changeRequestId), changeEvidence(db, changeRequestId)]);
+  return {
+    ...head.out,
+    impact: head.out.impact ?? state.impact,
+    justification: narrativeText(state.narrative?.content ?? null),
+    parameterChanges: state.assessment.diff.parameters
+      .filter((p) => p.change !== "unchanged")
+      .map((p) => ({ key: p.key, name: p.name, stage: p.stage, change: p.change, old: p.old, new: p.new, position: p.position, impact: p.impact, reasons: p.reasons })),
+    requiredTests: state.requirements.map((r) => ({ testType: r.testType, samples: r.samples, confidencePct: r.confidencePct, reliabilityPct: r.reliabilityPct })),
+    signatures: sigs.map((s) => ({ printedName: s.printedName, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash, revision: s.revision })),
+    evidenceRunIds: evidence.map((r) => r.id),
+  };
+}
+
+async function runRows(where: SQL | undefined, limit: number) {
+  const rows = await getDb()
+    .select({ r: testRuns, familyCode: partFamilies.code })
+    .from(testRuns)
+    .innerJoin(partFamilies, eq(partFamilies.id, testRuns.partFamilyId))
+    .where(where)
+    .orderBy(asc(testRuns.createdAt), asc(testRuns.id))
+    .limit(limit);
+  return rows.map(({ r, familyCode }) => ({
+    row: r,
+    out: {
+      id: r.id,
+      number: r.number,
+      revision: r.revision,
+      testType: r.testType,
+      status: r.status,
+      outcome: r.outcome,
+      partFamilyId: r.partFamilyId,
+      partFamilyCode: familyCode,
+      recipeVersionId: r.recipeVersionId,
+      changeRequestId: r.changeRequestId,
+      lab: r.lab,
+      performedOn: r.performedOn,
+      createdAt: r.createdAt,
+    } satisfies TestRunOut,
+  }));
+}
+
+export async function listTestRunsApi(q: z.output<typeof testRunsQuery>) {
+  const where = and(
+    q.changeRequestId ? eq(testRuns.changeRequestId, q.changeRequestId) : undefined,
+    q.recipeVersionId ? eq(testRuns.recipeVersionId, q.recipeVersionId) : undefined,
+    q.partFamilyId ? eq(testRuns.partFamilyId, q.partFamilyId) : undefined,
+    q.testType ? eq(testRuns.testType, q.testType) : undefined,
+    after(testRuns.createdAt, testRuns.id, q.cursor),
+  );
+  const out = page(await runRows(where, q.limit + 1), q.limit, (r) => [r.row.createdAt, r.row.id]);
+  return { data: out.data.map((r) => r.out), nextCursor: out.nextCursor };
+}
+
+export async function getTestRunApi(runId: string): Promise<TestRunDetailOut | undefined> {
+  const [head] = await runRows(eq(testRuns.id, runId), 1);
+  if (!head) return undefined;
+  const db = getDb();
+  const [results, files, sigs] = await Promise.all([
+    db.select().from(testResults).where(eq(testResults.runId, runId)).orderBy(asc(testResults.createdAt), asc(testResults.sampleLabel)),
+    db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, runId)).orderBy(asc(evidenceFiles.uploadedAt)),
+    db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), eq(signatures.recordId, runId))).orderBy(asc(signatures.signedAt)),
+  ]);
+  return {
+    ...head.out,
+    results: results.map((r) => ({ id: r.id, sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data as Record<string, unknown> })),
+    files: files.map((f) => ({ id: f.id, originalName: f.originalName, mimeType: f.mimeType, sizeBytes: f.sizeBytes, sha256: f.sha256 })),
+    signatures: sigs.map((s) => ({ printedName: s.printedName, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash })),
+  };
+}
+
+/** Newest first, like the audit-trail browser; the cursor is the last sequence number seen. */
+export async function listAuditEventsApi(q: z.output<typeof auditEventsQuery>) {
+  let before: number | undefined;
+  if (q.cursor) {
+    const c = decodeCursor(q.cursor);
+    if (!c || !/^\d+$/.test(c.key)) throw new BadCursorError();
+    before = Number(c.key);
+  }
+  const filters = auditConditions(q);
+  const rows = await getDb()
+    .select()
+    .from(auditEvents)
+    .where(before ? and(filters, lt(auditEvents.seq, before)) : filters)
+    .orderBy(desc(auditEvents.seq))
+    .limit(q.limit + 1);
+  const data = rows.slice(0, q.limit).map(
+    (r): AuditEventOut => ({
+      seq: r.seq,
+      at: r.at,
+      actorName: r.actorName,
+      action: r.action,
+      recordType: r.recordType,
+      recordId: r.recordId,
+      old: r.oldValue ? JSON.parse(r.oldValue) : null,
+      new: r.newValue ? JSON.parse(r.newValue) : null,
+      reason: r.reason,
+      prevHash: r.prevHash,
+      hash: r.hash,
+    }),
+  );
+  return { data, nextCursor: rows.length > q.limit ? encodeCursor(String(data.at(-1)!.seq), "") : null };
+}

@@ -1,0 +1,63 @@
+import "server-only";
+import { asc, inArray } from "drizzle-orm";
+import type { Executor } from "@/db/client";
+import { auditEvents } from "@/db/schema";
+import { verifyAuditChain } from "@/lib/audit";
+import { narrativeText } from "@/lib/recipes/change-content";
+import { signatureValidity } from "@/lib/signatures/rules";
+import { loadChangeState } from "@/lib/server/changes/state";
+import { changeEvidence, changeSignatures } from "./evidence-of-change";
+
+/**
+ * Everything an auditor needs about one change request, read once: the record,
+ * its justification, the parameter diff and impact with its working, every
+ * signature with what it binds to, the evidence with its file hashes, and the
+ * audit events of all of these, with the chain's integrity at the time of export.
+ */
+export async function loadAuditPack(db: Executor, changeRequestId: string) {
+  const state = await loadChangeState(db, changeRequestId);
+  const [signatures, evidence] = await Promise.all([changeSignatures(db, changeRequestId), changeEvidence(db, changeRequestId)]);
+  const runSignatureIds = evidence.flatMap((r) => r.signatures.map((s) => s.id));
+  const recordIds = [
+    changeRequestId,
+    state.fromVersion.id,
+    state.toVersion.id,
+    ...(state.narrative ? [state.narrative.id] : []),
+    ...signatures.map((s) => s.id),
+    ...evidence.map((r) => r.id),
+    ...runSignatureIds,
+    ...evidence.flatMap((r) => r.files.map((f) => f.id)),
+  ];
+  const [events, chain] = await Promise.all([
+    db
+      .select()
+      .from(auditEvents)
+      // Signature events are filed under the signature row, exports of this pack under the change request.
+      .where(inArray(auditEvents.recordId, recordIds))
+      .orderBy(asc(auditEvents.seq)),
+    verifyAuditChain(db),
+  ]);
+  return {
+    cr: state.cr,
+    kind: state.assessmentRow.kind,
+    revision: state.assessmentRow.revision,
+    raiseReason: state.assessmentRow.raiseReason,
+    recipe: state.recipe,
+    fromVersion: state.fromVersion,
+    toVersion: state.toVersion,
+    family: state.family,
+    contentHash: state.contentHash,
+    narrative: narrativeText(state.narrative?.content ?? null),
+    assessment: state.assessment,
+    impact: state.impact,
+    requirements: state.requirements,
+    signatures: signatures.map((s) => ({
+      ...s,
+      binding: s.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(s.contentHash, state.contentHash),
+    })),
+    evidence,
+    events,
+    chain,
+  };
+}
+export type AuditPack = Awaited<ReturnType<typeof loadAuditPack>>;

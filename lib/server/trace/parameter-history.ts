@@ -1,0 +1,145 @@
+import "server-only";
+import { asc, eq, inArray } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { changeRequests, cleaningSystems, recipeParameters, recipes, recipeStages, recipeVersions, users } from "@/db/schema";
+import { narrativeText } from "@/lib/recipes/change-content";
+import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
+import { signatureValidity } from "@/lib/signatures/rules";
+import { loadChangeState } from "@/lib/server/changes/state";
+import { changeEvidence, changeSignatures } from "./evidence-of-change";
+
+const EXCERPT = 320;
+
+/** The justification's opening words, so the timeline answers "why" without opening the change. */
+export function excerpt(text: string, max = EXCERPT) {
+  const flat = text.replace(/\s+/g, " ").trim();
+  if (flat.length <= max) return flat;
+  const cut = flat.slice(0, max);
+  return `${cut.slice(0, Math.max(cut.lastIndexOf(" "), max - 20))} …`;
+}
+
+/** Every parameter of every recipe that can be traced, one row per recipe and key, for the search. */
+export async function listTraceableParameters() {
+  const db = getDb();
+  const rows = await db
+    .select({
+      key: recipeParameters.key,
+      name: recipeParameters.name,
+      unit: recipeParameters.unit,
+      stage: recipeStages.name,
+      version: recipeVersions.version,
+      recipeId: recipes.id,
+      recipeCode: recipes.code,
+      recipeName: recipes.name,
+      systemId: cleaningSystems.id,
+      systemCode: cleaningSystems.code,
+      systemName: cleaningSystems.name,
+    })
+    .from(recipeParameters)
+    .innerJoin(recipeStages, eq(recipeStages.id, recipeParameters.stageId))
+    .innerJoin(recipeVersions, eq(recipeVersions.id, recipeParameters.versionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .orderBy(asc(cleaningSystems.code), asc(recipes.code), asc(recipeVersions.version));
+  // The latest version's name and stage win; the key is what stays the same.
+  const byKey = new Map<string, (typeof rows)[number] & { versions: number }>();
+  for (const r of rows) {
+    const id = `${r.recipeId} ${r.key}`;
+    byKey.set(id, { ...r, versions: (byKey.get(id)?.versions ?? 0) + 1 });
+  }
+  return [...byKey.values()].map(({ version: _v, ...r }) => r).sort((a, b) => a.systemCode.localeCompare(b.systemCode) || a.recipeCode.localeCompare(b.recipeCode) || a.key.localeCompare(b.key));
+}
+export type TraceableParameter = Awaited<ReturnType<typeof listTraceableParameters>>[number];
+
+/**
+ * The whole history of one recipe parameter: each value and validated range it has
+ * had, when it was in force, and for each change the request with its justification,
+ * impact, signatures and the evidence that requalified it.
+ */
+export async function getParameterHistory(input: { recipeId: string; key: string }) {
+  const db = getDb();
+  const [head] = await db
+    .select({ recipe: recipes, system: cleaningSystems })
+    .from(recipes)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .where(eq(recipes.id, input.recipeId));
+  if (!head) return undefined;
+  const versions = await db
+    .select({ v: recipeVersions, author: users.name })
+    .from(recipeVersions)
+    .leftJoin(users, eq(users.id, recipeVersions.createdBy))
+    .where(eq(recipeVersions.recipeId, input.recipeId))
+    .orderBy(asc(recipeVersions.version));
+  const ids = versions.map((v) => v.v.id);
+  const params = ids.length
+    ? await db
+        .select({ p: recipeParameters, stage: recipeStages.name })
+        .from(recipeParameters)
+        .innerJoin(recipeStages, eq(recipeStages.id, recipeParameters.stageId))
+        .where(inArray(recipeParameters.versionId, ids))
+    : [];
+  const mine = params.filter((r) => r.p.key === input.key);
+  if (mine.length === 0) return undefined;
+
+  const values: VersionValue[] = versions.map(({ v }) => {
+    const row = mine.find((r) => r.p.versionId === v.id);
+    return {
+      versionId: v.id,
+      version: v.version,
+      status: v.status,
+      effectiveFrom: v.effectiveFrom,
+      effectiveTo: v.effectiveTo,
+      value: row
+        ? { name: row.p.name, stage: row.stage, setpoint: row.p.setpoint, unit: row.p.unit, validatedLow: row.p.validatedLow, validatedHigh: row.p.validatedHigh, critical: row.p.critical }
+        : null,
+    };
+  });
+  const changes = await db.select().from(changeRequests).where(eq(changeRequests.recipeId, input.recipeId));
+  const proposedFrom = new Map(changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c.fromVersionId]));
+  const timeline = buildParameterTimeline(values, proposedFrom);
+
+  const entries = await Promise.all(
+    timeline.map(async (period) => {
+      const cr = changes.find((c) => c.toVersionId === period.introducedBy.versionId);
+      const version = versions.find((v) => v.v.id === period.introducedBy.versionId)!;
+      if (!cr) return { period, versionNote: version.v.notes, versionAuthor: version.author, versionCreatedAt: version.v.createdAt, change: null };
+      const state = await loadChangeState(db, cr.id);
+      const row = state.assessment.diff.parameters.find((p) => p.key === input.key) ?? null;
+      const [sigs, evidence] = await Promise.all([changeSignatures(db, cr.id), changeEvidence(db, cr.id)]);
+      return {
+        period,
+        versionNote: version.v.notes,
+        versionAuthor: version.author,
+        versionCreatedAt: version.v.createdAt,
+        change: {
+          id: cr.id,
+          number: cr.number,
+          title: cr.title,
+          status: cr.status,
+          impact: state.impact,
+          author: version.author,
+          openedAt: cr.createdAt,
+          closedAt: cr.closedAt,
+          justification: excerpt(narrativeText(state.narrative?.content ?? null)),
+          parameterImpact: row ? { impact: row.impact, position: row.position, reasons: row.reasons } : null,
+          requirements: state.requirements.map((r) => ({ testType: r.testType, samples: r.samples })),
+          // A signature binds only while the content still hashes to what was signed; reopening starts a new revision.
+          signatures: sigs.map((sig) => ({
+            ...sig,
+            binding: sig.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(sig.contentHash, state.contentHash),
+          })),
+          revision: state.assessmentRow.revision,
+          evidence,
+        },
+      };
+    }),
+  );
+  const latest = mine.sort((a, b) => (versions.find((v) => v.v.id === b.p.versionId)?.v.version ?? 0) - (versions.find((v) => v.v.id === a.p.versionId)?.v.version ?? 0))[0];
+  return {
+    system: head.system,
+    recipe: head.recipe,
+    parameter: { key: input.key, name: latest.p.name, stage: latest.stage, unit: latest.p.unit, critical: latest.p.critical },
+    entries,
+  };
+}
+export type ParameterHistory = NonNullable<Awaited<ReturnType<typeof getParameterHistory>>>;

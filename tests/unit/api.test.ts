@@ -1,0 +1,192 @@
+import { and, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as auditEventsRoute from "@/app/api/v1/audit-events/route";
+import * as changeRequestRoute from "@/app/api/v1/change-requests/[changeRequestId]/route";
+import * as recipesRoute from "@/app/api/v1/recipes/route";
+import * as recipeVersionRoute from "@/app/api/v1/recipes/[recipeId]/versions/[version]/route";
+import * as resultsRoute from "@/app/api/v1/test-runs/[runId]/results/route";
+import * as openapiRoute from "@/app/api/v1/openapi.json/route";
+import { apiTokens, auditEvents, changeRequests, partFamilies, recipes, recipeVersions, testResults, users } from "@/db/schema";
+import { seedDemo } from "@/db/seed";
+import { generateApiToken, hashApiToken } from "@/lib/auth/api-token";
+import { auditEventPage, changeRequestDetailOut, recipePage, recipeVersionOut, resultAddedOut } from "@/lib/schemas/api";
+import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
+import { revokeApiToken } from "@/lib/server/api-tokens/revoke-api-token";
+import { createRun } from "@/lib/server/evidence/create-run";
+import { createTestDatabase } from "./support/test-db";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+const people: Record<string, { id: string; name: string }> = {};
+const tokens: Record<string, string> = {};
+let runId = "";
+
+const BASE = "http://127.0.0.1/api/v1";
+const noParams = { params: Promise.resolve({}) };
+const get = (path: string, token?: string) => new Request(`${BASE}${path}`, { headers: token ? { authorization: `Bearer ${token}` } : {} });
+const post = (path: string, token: string | undefined, body: string, type = "application/json") =>
+  new Request(`${BASE}${path}`, { method: "POST", headers: { ...(token ? { authorization: `Bearer ${token}` } : {}), "content-type": type }, body });
+const postResult = (token: string | undefined, body: unknown, id = runId) =>
+  resultsRoute.POST(post(`/test-runs/${id}/results`, token, typeof body === "string" ? body : JSON.stringify(body)), { params: Promise.resolve({ runId: id }) });
+const count = async () => (await t.db.select().from(testResults).where(eq(testResults.runId, runId))).length;
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  await seedDemo(t.db);
+  for (const role of ["engineer", "technician", "auditor", "approver"]) {
+    const [u] = await t.db.select().from(users).where(eq(users.email, `${role}@fennmoor.example`));
+    people[role] = { id: u.id, name: u.name };
+  }
+  tokens.techWrite = (await createApiToken(people.technician, { name: "Counter", scope: "read_write" })).token;
+  tokens.techRead = (await createApiToken(people.technician, { name: "Dashboard", scope: "read" })).token;
+  tokens.auditorWrite = (await createApiToken(people.auditor, { name: "Auditor script", scope: "read_write" })).token;
+  tokens.auditorRead = (await createApiToken(people.auditor, { name: "Auditor read", scope: "read" })).token;
+  const revoked = await createApiToken(people.engineer, { name: "Old", scope: "read_write" });
+  await revokeApiToken(people.engineer, { tokenId: revoked.id });
+  tokens.revoked = revoked.token;
+  const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
+  const [version] = await t.db.select({ id: recipeVersions.id }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
+  const run = await createRun(people.technician, { partFamilyId: family.id, recipeVersionId: version.id, testType: "gravimetric", technicianId: people.technician.id, lab: "Larchfield lab", performedOn: "2026-11-20" } as never);
+  runId = run.id;
+});
+afterAll(() => t.cleanup());
+
+describe("API tokens", () => {
+  it("stores only the SHA-256 and a short prefix, never the token", async () => {
+    const rows = await t.db.select().from(apiTokens).where(eq(apiTokens.userId, people.technician.id));
+    const row = rows.find((r) => r.name === "Counter")!;
+    expect(row.tokenHash).toBe(hashApiToken(tokens.techWrite));
+    expect(tokens.techWrite.startsWith(row.prefix)).toBe(true);
+    expect(row.prefix.length).toBeLessThan(16);
+    expect(JSON.stringify(rows)).not.toContain(tokens.techWrite);
+    const a = generateApiToken();
+    const b = generateApiToken();
+    expect(a.token).not.toBe(b.token);
+    expect(a.token.length).toBeGreaterThan(40);
+  });
+
+  it("a revoked token is refused, and revoking twice or someone else's token is refused", async () => {
+    const res = await recipesRoute.GET(get("/recipes", tokens.revoked), noParams);
+    expect(res.status).toBe(401);
+    expect((await res.json()).error).toMatch(/revoked/);
+    const [row] = await t.db.select().from(apiTokens).where(eq(apiTokens.tokenHash, hashApiToken(tokens.revoked)));
+    await expect(revokeApiToken(people.engineer, { tokenId: row.id })).rejects.toThrow(/already revoked/);
+    const [other] = await t.db.select().from(apiTokens).where(eq(apiTokens.tokenHash, hashApiToken(tokens.techRead)));
+    await expect(revokeApiToken(people.engineer, { tokenId: other.id })).rejects.toThrow(/does not exist/);
+    const events = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, row.id));
+    expect(events.map((e) => e.action)).toEqual(["api_token.created", "api_token.revoked"]);
+  });
+
+  it("missing and unknown tokens get 401 with a message, and a use is recorded as last used", async () => {
+    for (const token of [undefined, "wpk_not-a-real-token-at-all-000000000000000"]) {
+      const res = await recipesRoute.GET(get("/recipes", token), noParams);
+      expect(res.status).toBe(401);
+      expect((await res.json()).error).toMatch(/token/i);
+    }
+    await recipesRoute.GET(get("/recipes", tokens.techRead), noParams);
+    const [row] = await t.db.select().from(apiTokens).where(eq(apiTokens.tokenHash, hashApiToken(tokens.techRead)));
+    expect(row.lastUsedAt).not.toBeNull();
+  });
+});
+
+describe("reading", () => {
+  it("pages recipes with a cursor until the end, every page matching its schema", async () => {
+    const seen: string[] = [];
+    let cursor: string | null = null;
+    do {
+      const res = await recipesRoute.GET(get(`/recipes?limit=1${cursor ? `&cursor=${cursor}` : ""}`, tokens.auditorRead), noParams);
+      expect(res.status).toBe(200);
+      const body = recipePage.parse(await res.json());
+      seen.push(...body.data.map((r) => r.code));
+      cursor = body.nextCursor;
+    } while (cursor);
+    expect(seen).toEqual(["R-AW3-PH", "R-AW3-VB", "R-SC1-SF"]);
+  });
+
+  it("refuses unknown query parameters, wrong types and forged cursors with 400 naming the field", async () => {
+    for (const [query, field] of [
+      ["?colour=teal", "_"],
+      ["?limit=many", "limit"],
+      ["?limit=0", "limit"],
+      ["?cursor=not-ours", "cursor"],
+    ]) {
+      const res = await recipesRoute.GET(get(`/recipes${query}`, tokens.auditorRead), noParams);
+      expect(res.status, query).toBe(400);
+      expect(Object.keys((await res.json()).fieldErrors ?? {}), query).toContain(field);
+    }
+  });
+
+  it("answers a change request with its diff, signatures and evidence, a recipe version with its parameters, and 404 for what does not exist", async () => {
+    const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.number, "CR-2026-001"));
+    const res = await changeRequestRoute.GET(get(`/change-requests/${cr.id}`, tokens.auditorRead), { params: Promise.resolve({ changeRequestId: cr.id }) });
+    const body = changeRequestDetailOut.parse(await res.json());
+    expect(body.parameterChanges.map((p) => [p.key, p.old?.setpoint, p.new?.setpoint, p.position])).toEqual([["drying.temperature", 90, 105, "outside"]]);
+    expect(body.signatures.map((s) => s.meaning)).toEqual(["authored", "approved", "verified"]);
+    expect(body.evidenceRunIds.length).toBeGreaterThan(0);
+    const [sf] = await t.db.select().from(recipes).where(eq(recipes.code, "R-SC1-SF"));
+    const v = recipeVersionOut.parse(await (await recipeVersionRoute.GET(get(`/recipes/${sf.id}/versions/2`, tokens.techRead), { params: Promise.resolve({ recipeId: sf.id, version: "2" }) })).json());
+    expect(v.stages.flatMap((s) => s.parameters).find((p) => p.key === "drying.temperature")).toMatchObject({ setpoint: 105, validatedLow: 95, validatedHigh: 110, unit: "°C" });
+    expect((await recipeVersionRoute.GET(get(`/recipes/${sf.id}/versions/9`, tokens.techRead), { params: Promise.resolve({ recipeId: sf.id, version: "9" }) })).status).toBe(404);
+    expect((await changeRequestRoute.GET(get("/change-requests/nope", tokens.auditorRead), { params: Promise.resolve({ changeRequestId: "nope" }) })).status).toBe(404);
+  });
+
+  it("applies the role table: the audit trail is for auditors, not technicians", async () => {
+    expect((await auditEventsRoute.GET(get("/audit-events?limit=5", tokens.techRead), noParams)).status).toBe(403);
+    const res = await auditEventsRoute.GET(get("/audit-events?limit=5&action=change.closed", tokens.auditorRead), noParams);
+    const page = auditEventPage.parse(await res.json());
+    expect(page.data.every((e) => e.action === "change.closed")).toBe(true);
+  });
+
+  it("publishes an OpenAPI 3.1 document whose every path answers in this API", async () => {
+    const doc = await openapiRoute.GET().json();
+    expect(doc.openapi).toBe("3.1.0");
+    expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(["/recipes", "/change-requests/{changeRequestId}", "/test-runs/{runId}/results", "/audit-events"]));
+    expect(doc.paths["/recipes"].get.parameters.map((p: { name: string }) => p.name)).toEqual(["limit", "cursor", "systemId"]);
+    expect(doc.components.schemas.ChangeRequestDetail.properties.signatures).toBeDefined();
+    expect(doc.components.schemas.RecipePage.properties.data.items.$ref).toBe("#/components/schemas/Recipe");
+  });
+});
+
+describe("posting lab results", () => {
+  const good = { sampleLabel: "VB-26-001", worstCase: true, components: 5, filterBeforeMg: 100.2, filterAfterMg: 100.9 };
+
+  it("refuses bad input with clear errors and writes nothing", async () => {
+    const cases: [string | undefined, unknown, number, RegExp | string][] = [
+      [tokens.techWrite, "{not json", 400, /not valid JSON/],
+      [tokens.techWrite, { ...good, colour: "teal" }, 422, "colour"],
+      [tokens.techWrite, { ...good, components: "five" }, 422, "components"],
+      [tokens.techWrite, { worstCase: false }, 422, "sampleLabel"],
+      [tokens.techWrite, [good], 422, /not valid/],
+      [undefined, good, 401, /token/],
+      [tokens.revoked, good, 401, /revoked/],
+      [tokens.techRead, good, 403, /read-only/],
+      [tokens.auditorWrite, good, 403, /role/],
+      [tokens.auditorRead, good, 403, /read-only/],
+    ];
+    for (const [token, body, status, expected] of cases) {
+      const res = await postResult(token, body);
+      const json = await res.json();
+      expect(res.status, JSON.stringify(body)).toBe(status);
+      if (typeof expected === "string") expect(Object.keys(json.fieldErrors ?? {})).toContain(expected);
+      else expect(json.error).toMatch(expected);
+    }
+    const bad = await resultsRoute.POST(post(`/test-runs/${runId}/results`, tokens.techWrite, "sampleLabel=x", "application/x-www-form-urlencoded"), { params: Promise.resolve({ runId }) });
+    expect(bad.status).toBe(415);
+    const missing = "00000000-0000-4000-8000-000000000000";
+    expect((await postResult(tokens.techWrite, good, missing)).status).toBe(404);
+    expect(await count()).toBe(0);
+  });
+
+  it("records a sample through the evidence service, recomputes the outcome, audits it under the token's owner, and refuses a duplicate with 409", async () => {
+    const res = await postResult(tokens.techWrite, good);
+    expect(res.status).toBe(201);
+    const body = resultAddedOut.parse(await res.json());
+    expect(body.run.results.map((r) => r.sampleLabel)).toEqual(["VB-26-001"]);
+    expect(body.run.outcome).not.toBeNull();
+    const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, runId), eq(auditEvents.action, "test_run.result_added")));
+    expect(event.actorName).toBe(people.technician.name);
+    const dup = await postResult(tokens.techWrite, good);
+    expect(dup.status).toBe(409);
+    expect((await dup.json()).error).toMatch(/already recorded/);
+    expect(await count()).toBe(1);
+  });
+});
