@@ -23,6 +23,9 @@ import { exportAuditPack } from "@/lib/server/trace/export-audit-pack";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
 import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
+import type { RichDoc } from "@/lib/documents/rich-text";
+import { narrativeDocument } from "@/lib/recipes/change-content";
+import { saveDraft } from "@/lib/server/documents/save-draft";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -48,7 +51,10 @@ async function changeWashTemperature(title: string, setpoint: string) {
     })),
   };
   const narrative = `Bath set to ${setpoint} °C after the detergent supplier's new batch.\n\nRisk: inside the range proven in the PQ; burn hazard at the tank as before.`;
-  await saveProposal(people.engineer, proposalSchema.parse({ changeRequestId: cr.id, title, kind: "parameter_change", partFamilyId: "", narrative, raiseTo: "", raiseReason: "", recipe }));
+  await saveProposal(people.engineer, proposalSchema.parse({ changeRequestId: cr.id, title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe }));
+  // The justification is a change-narrative document, saved through the documents editor's own service.
+  const drafted = await loadChangeState(t.db, cr.id);
+  await saveDraft({ ...people.engineer, roles: ["engineer"] }, { versionId: drafted.narrative!.id, lockVersion: drafted.narrative!.lockVersion, content: narrativeDocument(narrative) as RichDoc, overwrite: false });
   const signing = async () => ({ changeRequestId: cr.id, password: DEMO_PASSWORD, contentHash: (await loadChangeState(t.db, cr.id)).contentHash });
   await assessChange(people.engineer, await signing());
   await approveChange(people.approver, await signing());
