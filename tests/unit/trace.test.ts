@@ -178,7 +178,7 @@ describe("part family history", () => {
 });
 
 describe("audit pack", () => {
-  it("lists every signature and every hash in the PDF, and the ZIP holds the files whose hashes it states", async () => {
+  it("lists every signature and every hash in the PDF, and the ZIP holds the files whose hashes it states", { timeout: 90_000 }, async () => {
     const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.number, "CR-2026-001"));
     const pack = await loadAuditPack(t.db, cr.id);
     const runSigs = pack.evidence.flatMap((r) => r.signatures);
