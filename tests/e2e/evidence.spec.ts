@@ -13,7 +13,9 @@ test("a technician records a particle test with its extraction series, uploads a
   await page.goto("/evidence");
   await page.getByRole("link", { name: "New test run" }).click();
   await page.getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
-  await page.getByLabel("Recipe version").selectOption({ label: "R-AW3-VB v2 (effective)" });
+  // The change-control spec may have made a later valve-body version effective meanwhile: take whichever is in force.
+  const inForce = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-AW3-VB v\d+ \(effective\)$/ }).textContent();
+  await page.getByLabel("Recipe version").selectOption({ label: inForce! });
   await page.getByLabel("Test type").selectOption({ label: "Particle cleanliness" });
   await page.getByLabel("Analysing lab").fill("Larchfield cleanliness lab");
   await page.getByRole("button", { name: "Open test run" }).click();
