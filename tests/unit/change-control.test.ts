@@ -59,7 +59,7 @@ async function proposalFor(changeRequestId: string, edit: (p: Record<string, unk
     stages: s.to.stages.map((st) => ({ ...st, parameters: st.parameters.map((p) => ({ ...p, setpoint: String(p.setpoint), validatedLow: p.validatedLow === null ? "" : String(p.validatedLow), validatedHigh: p.validatedHigh === null ? "" : String(p.validatedHigh) })) })),
   };
   for (const st of recipe.stages) for (const p of st.parameters) edit(p as unknown as Record<string, unknown>);
-  return { changeRequestId, title: s.cr.title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe, ...extra };
+  return { changeRequestId, lockVersion: s.assessmentRow.lockVersion, title: s.cr.title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe, ...extra };
 }
 
 /** The justification, saved through the documents editor's own service. */

@@ -51,7 +51,7 @@ async function changeWashTemperature(title: string, setpoint: string) {
     })),
   };
   const narrative = `Bath set to ${setpoint} °C after the detergent supplier's new batch.\n\nRisk: inside the range proven in the PQ; burn hazard at the tank as before.`;
-  await saveProposal(people.engineer, proposalSchema.parse({ changeRequestId: cr.id, title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe }));
+  await saveProposal(people.engineer, proposalSchema.parse({ changeRequestId: cr.id, lockVersion: s.assessmentRow.lockVersion, title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe }));
   // The justification is a change-narrative document, saved through the documents editor's own service.
   const drafted = await loadChangeState(t.db, cr.id);
   await saveDraft({ ...people.engineer, roles: ["engineer"] }, { versionId: drafted.narrative!.id, lockVersion: drafted.narrative!.lockVersion, content: narrativeDocument(narrative) as RichDoc, overwrite: false });
