@@ -21,6 +21,7 @@ import { createRun } from "@/lib/server/evidence/create-run";
 import { getRunRow, runContent } from "@/lib/server/evidence/run-content";
 import { signRun } from "@/lib/server/evidence/sign-run";
 import { createUser } from "@/lib/server/users/create-user";
+import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";
 
 /**
@@ -148,29 +149,7 @@ describe("concurrent editors", () => {
     const [recipe] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB"));
     const cr = await openChangeRequest(people.engineer, { recipeId: recipe.id, title: "Two engineers, one proposal", kind: "parameter_change" });
     const s = await loadChangeState(t.db, cr.id);
-    const proposal = (washTemperature: string) =>
-      proposalSchema.parse({
-        changeRequestId: cr.id,
-        lockVersion: s.assessmentRow.lockVersion,
-        title: s.cr.title,
-        kind: "parameter_change",
-        partFamilyId: "",
-        raiseTo: "",
-        raiseReason: "",
-        recipe: {
-          detergent: s.to.detergent ?? "",
-          notes: s.to.notes ?? "",
-          stages: s.to.stages.map((st) => ({
-            ...st,
-            parameters: st.parameters.map((q) => ({
-              ...q,
-              setpoint: q.key === "wash.temperature" ? washTemperature : String(q.setpoint),
-              validatedLow: q.validatedLow === null ? "" : String(q.validatedLow),
-              validatedHigh: q.validatedHigh === null ? "" : String(q.validatedHigh),
-            })),
-          })),
-        },
-      });
+    const proposal = (setpoint: string) => proposalSchema.parse(proposalForm(s, (q) => q.key === "wash.temperature" && (q.setpoint = setpoint)));
     const { won, lost, firstWon } = await race(saveProposal(people.engineer, proposal("62")), saveProposal(people.engineer2, proposal("57")));
     expect(won).toHaveLength(1);
     expect(lost[0].reason).toBeInstanceOf(UserFacingError);
