@@ -34,7 +34,9 @@ export function serialiseWrites(client: Client, timeoutMs: number): Client {
     }
     let released = false;
     return () => {
-      if (!released) (released = true), release();
+      if (released) return;
+      released = true;
+      release();
     };
   }
 
