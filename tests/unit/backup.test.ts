@@ -1,4 +1,6 @@
 import { spawn } from "node:child_process";
+import { CreateBucketCommand, S3Client } from "@aws-sdk/client-s3";
+import S3rver from "s3rver";
 import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -8,13 +10,14 @@ import { openDatabase } from "@/db/client";
 import { seedDemo } from "@/db/seed";
 import { evidenceFiles, partFamilies, recipeVersions, users } from "@/db/schema";
 import { sha256Hex, verifyAuditChain } from "@/lib/audit";
+import { backup } from "@/lib/backup/backup";
 import { manifestSchema, sha256File, type Manifest } from "@/lib/backup/manifest";
 import { restore } from "@/lib/backup/restore";
 import { gravimetricSampleSchema } from "@/lib/schemas/evidence";
 import { addResult } from "@/lib/server/evidence/add-result";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
-import { blobKey, localStore, setStore } from "@/lib/storage";
+import { blobKey, localStore, s3Store, setStore } from "@/lib/storage";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -160,5 +163,29 @@ describe("npm run restore", () => {
     writeFileSync(join(tampered, "washproof.db"), db);
     await expect(restore({ folder: tampered, ...target })).rejects.toThrow(/database file does not match the SHA-256 in its manifest/);
     expect(existsSync(join(dir, "untouched"))).toBe(false);
+  });
+});
+
+describe("with evidence in S3-compatible storage", () => {
+  it("copies the files out of one bucket and restores them into another through the same store interface", async () => {
+    const server = new S3rver({ port: 0, address: "127.0.0.1", silent: true, directory: join(dir, "s3") });
+    const { port } = await server.run();
+    try {
+      const options = { endpoint: `http://127.0.0.1:${port}`, region: "us-east-1", forcePathStyle: true, accessKeyId: "S3RVER", secretAccessKey: "S3RVER" };
+      const client = new S3Client({ ...options, credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" } });
+      for (const bucket of ["plant-evidence", "restored-evidence"]) await client.send(new CreateBucketCommand({ Bucket: bucket }));
+      const source = s3Store({ bucket: "plant-evidence", ...options });
+      // The plant's evidence as it would be with STORAGE_DRIVER=s3: every file the live database refers to.
+      const rows = await t.db.selectDistinct({ sha256: evidenceFiles.sha256 }).from(evidenceFiles);
+      for (const { sha256 } of rows) await source.put(sha256, (await localStore(uploads).get(sha256))!);
+
+      const made = await backup({ databaseUrl: t.url, store: source, outDir: join(dir, "s3-backups") });
+      const target = s3Store({ bucket: "restored-evidence", ...options });
+      await restore({ folder: made.dir, databaseUrl: `file:${join(dir, "s3-restored", "washproof.db")}`, store: target, replace: false });
+      for (const file of made.manifest.uploads) expect(sha256Hex((await target.get(file.sha256))!)).toBe(file.sha256);
+      expect(made.manifest.uploads.map((u) => u.sha256).sort()).toEqual(rows.map((r) => r.sha256).sort());
+    } finally {
+      await server.close();
+    }
   });
 });
