@@ -26,7 +26,7 @@ import { killGroup, startChild, startNextServer, waitUntilServing, type Child } 
  */
 const BURST = 400; // requests offered; the kill comes long before they are all sent
 const CONCURRENCY = 16;
-const KILL_AFTER_ACKS = 60;
+const KILL_AFTER_ACKS = 40;
 const RESULT_RUNS = 8;
 const KILL_AFTER_SIGNATURES = 5;
 /** The lab name the signer gives its runs, to find them afterwards. */
