@@ -4,6 +4,7 @@ import { createClient, type Client } from "@libsql/client";
 import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
 import { env } from "@/lib/env";
 import * as schema from "./schema";
+import { serialiseWrites } from "./write-queue";
 
 export type Database = LibSQLDatabase<typeof schema>;
 /** A transaction or the database itself: services accept either so callers can compose them. */
@@ -18,10 +19,14 @@ function ensureFolder(url: string) {
   mkdirSync(dirname(resolve(path)), { recursive: true });
 }
 
+const BUSY_TIMEOUT_MS = 5000;
+
 export function openDatabase(url: string, authToken?: string): { db: Database; client: Client } {
   ensureFolder(url);
   // libSQL turns foreign keys on for every pooled connection; `timeout` is the busy timeout.
-  const client = createClient({ url, authToken, timeout: 5000, concurrency: 8 });
+  const raw = createClient({ url, authToken, timeout: BUSY_TIMEOUT_MS, concurrency: 8 });
+  // A server serialises its own writers; a file needs them queued in this process (see write-queue.ts).
+  const client = url.startsWith("file:") ? serialiseWrites(raw, BUSY_TIMEOUT_MS) : raw;
   return { db: drizzle(client, { schema }), client };
 }
 

@@ -566,6 +566,8 @@ export const changeRequestAssessments = sqliteTable("change_request_assessments"
   raiseReason: text("raise_reason"),
   /** Counts reopenings: signatures bind to "<change id>#<revision>", so those on an earlier revision stay with it. */
   revision: integer("revision").notNull().default(1),
+  /** Counts proposal saves: a save made from an older reading is refused, never applied over a newer one. */
+  lockVersion: integer("lock_version").notNull().default(0),
   matrixId: text("matrix_id").references(() => requalificationMatrices.id),
   /** SHA-256 of the assessed content, frozen at submission; signatures bind to it. */
   contentHash: text("content_hash"),

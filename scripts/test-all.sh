@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# The whole test suite: type-check, lint, unit tests, production build, browser tests.
+# The whole test suite: type-check, lint, unit tests, production build, crash test, browser tests.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -18,4 +18,5 @@ echo "== type-check";  npx tsc --noEmit
 echo "== lint";        npx eslint . --max-warnings=0
 echo "== unit tests";  npx vitest run
 echo "== build";       npx next build > /tmp/washproof-build.log 2>&1 || { cat /tmp/washproof-build.log; exit 1; }
+echo "== crash test (needs the build)"; npx vitest run --config vitest.build.config.ts
 echo "== browser tests"; npx playwright test

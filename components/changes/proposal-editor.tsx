@@ -39,6 +39,8 @@ interface StageDraft {
 export interface ProposalEditorProps {
   action: (prev: FormState, formData: FormData) => Promise<FormState>;
   changeRequestId: string;
+  /** Refreshed from the server after each save, so the next save is measured against it. */
+  lockVersion: number;
   title: string;
   kind: ChangeKind;
   partFamilyId: string | null;
@@ -74,6 +76,7 @@ export function ProposalEditor(props: ProposalEditorProps) {
 
   const payload = {
     changeRequestId: props.changeRequestId,
+    lockVersion: props.lockVersion,
     title,
     kind,
     partFamilyId,

@@ -59,6 +59,8 @@ export type RecipeContent = z.output<typeof recipeContentSchema>;
 export const proposalSchema = z
   .object({
     changeRequestId: z.string().uuid(),
+    /** The proposal's save counter when the editor loaded it. */
+    lockVersion: z.number().int().min(0),
     title: z.string().trim().min(5, "Give the change a title of at least 5 characters.").max(200),
     kind: z.enum(CHANGE_KINDS, { error: "Choose what kind of change this is." }),
     partFamilyId: z

@@ -16,13 +16,25 @@ async function sign(page: Page, button: string) {
   await dialog.getByRole("button", { name: "Sign", exact: true }).click();
 }
 
-test("impossible setpoints, a low above its high and a foreign unit get clear errors, and nothing typed is lost", async ({ page }) => {
+/** The engineer opens a change request on the spray-fitting recipe, and withdraws it at the end so the recipe is free again. */
+async function openOnSprayFitting(page: Page, title: string) {
   await signInAs(page, "engineer");
   await page.goto("/systems");
   await page.getByRole("link", { name: "R-SC1-SF Fitting, spray" }).click();
-  await page.getByLabel("What should change").fill("Try impossible values");
+  await page.getByLabel("What should change").fill(title);
   await page.getByRole("button", { name: /Open change request against version 2/ }).click();
-  await expect(page.getByRole("heading", { level: 1 })).toContainText("Try impossible values");
+  await expect(page.getByRole("heading", { level: 1 })).toContainText(title);
+}
+
+async function withdraw(page: Page, reason: string) {
+  await page.getByRole("button", { name: "Withdraw" }).click();
+  await page.getByRole("dialog").getByLabel("Reason").fill(reason);
+  await page.getByRole("dialog").getByRole("button", { name: "Withdraw" }).click();
+  await expect(page.getByRole("heading", { level: 1 }).locator("..")).toContainText("Withdrawn");
+}
+
+test("impossible setpoints, a low above its high and a foreign unit get clear errors, and nothing typed is lost", async ({ page }) => {
+  await openOnSprayFitting(page, "Try impossible values");
 
   await page.getByLabel("Setpoint of Wash temperature").fill("104");
   await page.getByLabel("Setpoint of Wash time").fill("-30");
@@ -38,11 +50,31 @@ test("impossible setpoints, a low above its high and a foreign unit get clear er
   await expect(page.getByLabel("Setpoint of Wash temperature")).toHaveValue("104");
   await expect(page.getByLabel("Setpoint of Wash time")).toHaveValue("-30");
 
-  // Withdrawn so the recipe is free again.
-  await page.getByRole("button", { name: "Withdraw" }).click();
-  await page.getByRole("dialog").getByLabel("Reason").fill("Only checking the input rules");
-  await page.getByRole("dialog").getByRole("button", { name: "Withdraw" }).click();
-  await expect(page.getByRole("heading", { level: 1 }).locator("..")).toContainText("Withdrawn");
+  await withdraw(page, "Only checking the input rules");
+});
+
+test("two tabs on one proposal: each tab's own saves go through, a save from an older reading is refused and keeps what was typed", async ({ page }) => {
+  await openOnSprayFitting(page, "Two tabs on one proposal");
+  const older = await page.context().newPage();
+  await older.goto(page.url());
+
+  const impact = page.getByRole("region", { name: "Computed impact" });
+  await page.getByLabel("Setpoint of Wash temperature").fill("58");
+  await page.getByRole("button", { name: "Save proposal" }).click();
+  await expect(impact).toContainText("→ 58 °C");
+  await page.getByLabel("Setpoint of Wash temperature").fill("59");
+  await page.getByRole("button", { name: "Save proposal" }).click();
+  await expect(impact).toContainText("→ 59 °C");
+
+  await older.getByLabel("Setpoint of Wash temperature").fill("61");
+  await older.getByRole("button", { name: "Save proposal" }).click();
+  await expect(older.getByRole("form", { name: "Proposed change" }).getByRole("alert")).toContainText("Someone saved this proposal after you opened it. Nothing was saved");
+  await expect(older.getByLabel("Setpoint of Wash temperature")).toHaveValue("61");
+  await older.close();
+  await page.reload();
+  await expect(page.getByLabel("Setpoint of Wash temperature")).toHaveValue("59");
+
+  await withdraw(page, "Only checking two tabs");
 });
 
 test("a wash temperature above its validated range is major, is requalified with verified evidence, and becomes effective on closure", async ({ page, browser }) => {

@@ -34,6 +34,7 @@ import { startRequalification } from "@/lib/server/changes/start-requalification
 import { loadChangeState } from "@/lib/server/changes/state";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import { versionMatrix } from "@/lib/server/matrix/version-matrix";
+import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -52,14 +53,7 @@ beforeAll(async () => {
 afterAll(() => t.cleanup());
 
 async function proposalFor(changeRequestId: string, edit: (p: Record<string, unknown>) => void, extra: Record<string, unknown> = {}) {
-  const s = await loadChangeState(t.db, changeRequestId);
-  const recipe = {
-    detergent: s.to.detergent ?? "",
-    notes: s.to.notes ?? "",
-    stages: s.to.stages.map((st) => ({ ...st, parameters: st.parameters.map((p) => ({ ...p, setpoint: String(p.setpoint), validatedLow: p.validatedLow === null ? "" : String(p.validatedLow), validatedHigh: p.validatedHigh === null ? "" : String(p.validatedHigh) })) })),
-  };
-  for (const st of recipe.stages) for (const p of st.parameters) edit(p as unknown as Record<string, unknown>);
-  return { changeRequestId, title: s.cr.title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe, ...extra };
+  return proposalForm(await loadChangeState(t.db, changeRequestId), edit, extra);
 }
 
 /** The justification, saved through the documents editor's own service. */

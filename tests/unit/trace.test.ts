@@ -26,6 +26,7 @@ import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline"
 import type { RichDoc } from "@/lib/documents/rich-text";
 import { narrativeDocument } from "@/lib/recipes/change-content";
 import { saveDraft } from "@/lib/server/documents/save-draft";
+import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -37,21 +38,8 @@ let valveBody = "";
 async function changeWashTemperature(title: string, setpoint: string) {
   const cr = await openChangeRequest(people.engineer, { recipeId: valveBody, title, kind: "parameter_change" });
   const s = await loadChangeState(t.db, cr.id);
-  const recipe = {
-    detergent: s.to.detergent ?? "",
-    notes: s.to.notes ?? "",
-    stages: s.to.stages.map((st) => ({
-      ...st,
-      parameters: st.parameters.map((p) => ({
-        ...p,
-        setpoint: p.key === "wash.temperature" ? setpoint : String(p.setpoint),
-        validatedLow: p.validatedLow === null ? "" : String(p.validatedLow),
-        validatedHigh: p.validatedHigh === null ? "" : String(p.validatedHigh),
-      })),
-    })),
-  };
   const narrative = `Bath set to ${setpoint} °C after the detergent supplier's new batch.\n\nRisk: inside the range proven in the PQ; burn hazard at the tank as before.`;
-  await saveProposal(people.engineer, proposalSchema.parse({ changeRequestId: cr.id, title, kind: "parameter_change", partFamilyId: "", raiseTo: "", raiseReason: "", recipe }));
+  await saveProposal(people.engineer, proposalSchema.parse(proposalForm(s, (p) => p.key === "wash.temperature" && (p.setpoint = setpoint), { title })));
   // The justification is a change-narrative document, saved through the documents editor's own service.
   const drafted = await loadChangeState(t.db, cr.id);
   await saveDraft({ ...people.engineer, roles: ["engineer"] }, { versionId: drafted.narrative!.id, lockVersion: drafted.narrative!.lockVersion, content: narrativeDocument(narrative) as RichDoc, overwrite: false });

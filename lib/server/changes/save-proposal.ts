@@ -1,5 +1,5 @@
 import "server-only";
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequestAssessments, changeRequests } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
@@ -13,13 +13,18 @@ import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
  * version's stages and parameters, and any raised class. The justification is a
  * change-narrative document, saved by the documents editor.
  * The audit event records the parameter rows that differ from the last save.
+ * A save made from an older reading (lock_version) is refused, never applied
+ * over the other engineer's proposal.
  */
 export async function saveProposal(actor: AuditActor & { id: string }, input: Proposal, now = new Date()) {
-  await getDb().transaction(async (tx) => {
+  return getDb().transaction(async (tx) => {
     const [cr] = await tx.select().from(changeRequests).where(eq(changeRequests.id, input.changeRequestId));
     if (!cr || !cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("That change request does not exist.");
     if (cr.status !== "draft") throw new UserFacingError("Only a draft change request can be edited: reopen it first.");
     const [a] = await tx.select().from(changeRequestAssessments).where(eq(changeRequestAssessments.changeRequestId, cr.id));
+    if (a.lockVersion !== input.lockVersion) {
+      throw new UserFacingError("Someone saved this proposal after you opened it. Nothing was saved and your edits are still here: copy what you need, reload to see their version, and save again.");
+    }
 
     const before = await loadRecipeSnapshot(tx, cr.toVersionId);
     const from = await loadRecipeSnapshot(tx, cr.fromVersionId);
@@ -30,10 +35,19 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
     await writeRecipeContent(tx, cr.toVersionId, input.recipe);
     await tx.update(changeRequests).set({ title: input.title }).where(eq(changeRequests.id, cr.id));
     const raisedTo = input.raiseTo && input.raiseTo !== computed ? input.raiseTo : null;
-    await tx
+    const saved = await tx
       .update(changeRequestAssessments)
-      .set({ kind: input.kind, partFamilyId: input.kind === "new_part_family" ? input.partFamilyId : null, raisedTo, raiseReason: raisedTo ? input.raiseReason : null, updatedAt: now.toISOString() })
-      .where(eq(changeRequestAssessments.changeRequestId, cr.id));
+      .set({
+        kind: input.kind,
+        partFamilyId: input.kind === "new_part_family" ? input.partFamilyId : null,
+        raisedTo,
+        raiseReason: raisedTo ? input.raiseReason : null,
+        lockVersion: a.lockVersion + 1,
+        updatedAt: now.toISOString(),
+      })
+      .where(and(eq(changeRequestAssessments.changeRequestId, cr.id), eq(changeRequestAssessments.lockVersion, input.lockVersion)))
+      .returning({ lockVersion: changeRequestAssessments.lockVersion });
+    if (saved.length !== 1) throw new UserFacingError("The proposal changed while saving. Nothing was saved; try again.");
 
     const changedRows = assess({ from: before, to: input.recipe, newPartFamily: null, raisedTo: null, matrix: [] }).diff.parameters.filter((p) => p.change !== "unchanged");
     await appendAudit(
@@ -43,8 +57,9 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
         action: "change.proposal_saved",
         recordType: "change_request",
         recordId: cr.id,
-        old: { title: cr.title, kind: a.kind, raisedTo: a.raisedTo },
+        old: { title: cr.title, kind: a.kind, raisedTo: a.raisedTo, lockVersion: a.lockVersion },
         new: {
+          lockVersion: saved[0].lockVersion,
           title: input.title,
           kind: input.kind,
           raisedTo,
@@ -55,5 +70,6 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
       },
       now,
     );
+    return { lockVersion: saved[0].lockVersion };
   });
 }

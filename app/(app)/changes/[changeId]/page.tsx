@@ -161,6 +161,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           <ProposalEditor
             action={saveProposalAction}
             changeRequestId={cr.id}
+            lockVersion={page.assessmentRow.lockVersion}
             title={cr.title}
             kind={page.assessmentRow.kind}
             partFamilyId={page.assessmentRow.partFamilyId}

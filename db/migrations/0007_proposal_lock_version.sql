@@ -1,0 +1,1 @@
+ALTER TABLE `change_request_assessments` ADD `lock_version` integer DEFAULT 0 NOT NULL;
