@@ -37,6 +37,7 @@ import { versionMatrix } from "@/lib/server/matrix/version-matrix";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { reviseRun } from "@/lib/server/evidence/revise-run";
 import { runContent } from "@/lib/server/evidence/run-content";
+import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -314,5 +315,12 @@ describe("evidence tied to a change request", () => {
     const next = await reviseRun(people.technician, { runId: run.id, reason: "Balance recalibrated" });
     const linked = (await loadGate(t.db, cr.id)).linked.get(gravimetric.id)!.map((r) => r.id);
     expect(linked).toEqual(expect.arrayContaining([run.id, next.id]));
+    // The part family's history names the change a linked run answers, though the run itself was not tied.
+    const history = await getPartFamilyHistory(run.partFamilyId);
+    const listed = history!.versions.flatMap((v) => v.runs).filter((r) => r.number === "T-GR");
+    expect(listed.map((r) => [r.revision, r.changeNumber])).toEqual([
+      [1, "CR-2026-002"],
+      [2, "CR-2026-002"],
+    ]);
   });
 });
