@@ -1,5 +1,7 @@
-import { eq } from "drizzle-orm";
+import { asc, eq } from "drizzle-orm";
 import { appendAudit, canonicalJson, sha256Hex, SYSTEM_ACTOR } from "@/lib/audit";
+import { computeRunOutcome } from "@/lib/evidence/outcome";
+import { runContentHash } from "@/lib/evidence/run-hash";
 import { changeContentHash, narrativeDocument } from "@/lib/recipes/change-content";
 import { assess } from "@/lib/recipes/assess";
 import type { RecipeSnapshot } from "@/lib/recipes/diff";
@@ -7,14 +9,17 @@ import { DEFAULT_MATRIX } from "@/lib/recipes/requalification";
 import { getStore } from "@/lib/storage";
 import type { Tx } from "./client";
 import { loadRecipeSnapshot, writeRecipeContent } from "./recipe-content";
+import { demoPhoto } from "./demo-photo";
 import { DEMO_USERS } from "./seed-data";
 import {
   changeRequestAssessments,
   changeRequests,
   changeRequestTests,
+  cleanlinessSpecs,
   documents,
   documentVersions,
   evidenceFiles,
+  partFamilies,
   recipeVersions,
   requalificationIntervals,
   requalificationMatrices,
@@ -184,20 +189,35 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       { meaning: "verified", by: reviewer, at: "2026-06-12T14:00:00.000Z" },
     ],
   });
+  // The requalification runs, written as the evidence feature writes them: raw data in the entry
+  // schema's shape, the lab report and a photo stored by SHA-256, the outcome computed from them,
+  // and signatures bound to the run's content hash.
+  const [fitting] = await tx
+    .select({ family: partFamilies, spec: cleanlinessSpecs })
+    .from(partFamilies)
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .where(eq(partFamilies.id, ids.familyIds.get("PF-SF-12")!));
   let runNo = 0;
   for (const req of major.tests) {
     runNo += 1;
     const number = `RQ-2026-${String(runNo).padStart(3, "0")}`;
+    const seen = req.testType === "dryness" ? "no water in the thread roots 5 min after unloading" : "no stains or discolouration";
+    const samples = Array.from({ length: req.samples }, (_, i) => ({
+      sampleLabel: `SF-12-26-${String(i + 1).padStart(3, "0")}`,
+      basketPosition: i % 5 === 0 ? "corner, bottom layer" : "centre",
+      worstCase: i % 5 === 0,
+      data: { acceptable: true, observation: seen },
+    }));
     const [run] = await tx
       .insert(testRuns)
       .values({
         number,
-        partFamilyId: ids.familyIds.get("PF-SF-12")!,
+        partFamilyId: fitting.family.id,
         recipeVersionId: sf2.id,
         changeRequestId: major.cr.id,
         testType: req.testType,
         status: "verified",
-        outcome: "pass",
+        outcome: "incomplete",
         technicianId: technician.id,
         lab: "Larchfield cleanliness lab",
         performedOn: "2026-06-08",
@@ -205,26 +225,35 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
         createdAt: "2026-06-08T12:00:00.000Z",
       })
       .returning();
-    const samples = Array.from({ length: req.samples }, (_, i) => ({
-      runId: run.id,
-      sampleLabel: `SF-12-26-${String(i + 1).padStart(3, "0")}`,
-      basketPosition: i % 5 === 0 ? "corner, bottom layer" : "centre",
-      worstCase: i % 5 === 0,
-      data: req.testType === "dryness" ? { dry: true, note: "no water in thread roots after 5 min" } : { stainFree: true },
-    }));
-    await tx.insert(testResults).values(samples);
-    const runHash = sha256Hex(canonicalJson({ number, testType: req.testType, samples: samples.map((s) => s.data) }));
-    // The lab's report as uploaded: stored under its SHA-256 like any evidence file.
+    await tx.insert(testResults).values(samples.map((x, i) => ({ ...x, runId: run.id, createdAt: `2026-06-08T12:${String(i).padStart(2, "0")}:00.000Z` })));
+    await appendAudit(tx, technician, { action: "test_run.created", recordType: "test_run", recordId: run.id, new: { number, testType: req.testType, changeRequest: major.cr.number, samples: samples.length } });
+    // The lab's report and one photo of the worst-case basket corner, as uploaded.
     const report = new TextEncoder().encode(
-      [`Larchfield cleanliness lab,${number},${req.testType},PF-SF-12,R-SC1-SF v2,2026-06-08`, "sample,basket_position,worst_case,result", ...samples.map((x) => `${x.sampleLabel},${x.basketPosition},${x.worstCase ? "yes" : "no"},${req.testType === "dryness" ? "dry" : "stain-free"}`)].join("\r\n") + "\r\n",
+      [`Larchfield cleanliness lab,${number},${req.testType},PF-SF-12,R-SC1-SF v2,2026-06-08`, "sample,basket_position,worst_case,result", ...samples.map((x) => `${x.sampleLabel},${x.basketPosition},${x.worstCase ? "yes" : "no"},${seen}`)].join("\r\n") + "\r\n",
     );
-    const sha256 = sha256Hex(report);
-    await getStore().put(sha256, report);
-    const [file] = await tx
-      .insert(evidenceFiles)
-      .values({ runId: run.id, sha256, originalName: `${number}-lab-report.csv`, mimeType: "text/csv", sizeBytes: report.length, kind: "lab_report", uploadedBy: technician.id, uploadedAt: "2026-06-08T14:30:00.000Z" })
-      .returning();
-    await appendAudit(tx, technician, { action: "evidence_file.uploaded", recordType: "evidence_file", recordId: file.id, new: { runId: run.id, name: file.originalName, sha256, sizeBytes: report.length } });
+    const uploads = [
+      { bytes: report, originalName: `${number}-lab-report.csv`, mimeType: "text/csv", kind: "lab_report" as const, sampleLabel: null, uploadedAt: "2026-06-08T14:30:00.000Z" },
+      { bytes: demoPhoto(runNo), originalName: `${number}-corner-basket.png`, mimeType: "image/png", kind: "photo" as const, sampleLabel: samples[0].sampleLabel, uploadedAt: "2026-06-08T14:35:00.000Z" },
+    ];
+    for (const { bytes, ...meta } of uploads) {
+      const sha256 = sha256Hex(bytes);
+      await getStore().put(sha256, bytes);
+      const [file] = await tx.insert(evidenceFiles).values({ ...meta, runId: run.id, sha256, sizeBytes: bytes.length, uploadedBy: technician.id }).returning();
+      await appendAudit(tx, technician, { action: "evidence_file.uploaded", recordType: "evidence_file", recordId: file.id, new: { runId: run.id, name: file.originalName, sha256, sizeBytes: bytes.length } });
+    }
+    const rows = await tx.select().from(testResults).where(eq(testResults.runId, run.id)).orderBy(asc(testResults.createdAt), asc(testResults.id));
+    const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, run.id)).orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
+    const { outcome } = computeRunOutcome({
+      testType: req.testType,
+      family: fitting.family,
+      spec: fitting.spec,
+      conductivityLimitUsPerCm: null,
+      samples: rows,
+      runData: null,
+      photoCount: files.filter((f) => f.kind === "photo").length,
+    });
+    await tx.update(testRuns).set({ outcome }).where(eq(testRuns.id, run.id));
+    const { hash: runHash } = runContentHash(run, rows, files);
     await sign("test_run", run.id, technician, "performed", runHash, "2026-06-08T15:00:00.000Z");
     await sign("test_run", run.id, engineer, "verified", runHash, "2026-06-10T09:00:00.000Z");
   }

@@ -5,7 +5,7 @@ import { FileSpreadsheet } from "lucide-react";
 import { useRouter } from "next/navigation";
 import { useId, useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
-import { autoMapping, CSV_FIELDS, mappingProblems, type ColumnMapping, type RowError } from "@/lib/evidence/csv-import";
+import { autoMapping, CSV_FORMATS, mappingProblems, type ColumnMapping, type CsvTestType, type RowError } from "@/lib/evidence/csv-import";
 
 type Result = { ok: boolean; message: string; rowErrors?: RowError[]; errorCount?: number };
 
@@ -14,7 +14,8 @@ type Result = { ok: boolean; message: string; rowErrors?: RowError[]; errorCount
  * our columns; when names differ, the user maps them. The server reads the whole
  * file again, validates every row, and saves all rows or none.
  */
-export function CsvImport({ runId }: { runId: string }) {
+export function CsvImport({ runId, testType }: { runId: string; testType: CsvTestType }) {
+  const format = CSV_FORMATS[testType];
   const router = useRouter();
   const id = useId();
   const [file, setFile] = useState<File | null>(null);
@@ -22,7 +23,7 @@ export function CsvImport({ runId }: { runId: string }) {
   const [mapping, setMapping] = useState<ColumnMapping>({});
   const [result, setResult] = useState<Result | null>(null);
   const [pending, setPending] = useState(false);
-  const problems = file ? mappingProblems(mapping, headers) : [];
+  const problems = file ? mappingProblems(mapping, headers, testType) : [];
 
   function onFile(next: File | null) {
     setFile(next);
@@ -34,7 +35,7 @@ export function CsvImport({ runId }: { runId: string }) {
       complete: (r) => {
         const found = (r.data[0] ?? []).map((h) => h.trim()).filter((h) => h !== "");
         setHeaders(found);
-        setMapping(autoMapping(found));
+        setMapping(autoMapping(found, testType));
       },
     });
   }
@@ -61,21 +62,32 @@ export function CsvImport({ runId }: { runId: string }) {
   const unmapped = headers.filter((h) => !Object.values(mapping).includes(h));
   const needsMapping = headers.length > 0 && (problems.length > 0 || unmapped.length > 0);
   return (
-    <form onSubmit={onSubmit} className="space-y-3 rounded-lg border border-stone-200 bg-white p-4" aria-label="Import particle counts from CSV">
+    <form onSubmit={onSubmit} className="space-y-3 rounded-lg border border-stone-200 bg-white p-4" aria-label={`Import ${format.what} from CSV`}>
       <div>
         <label htmlFor={`${id}-csv`} className="block text-sm font-medium text-stone-800">
-          CSV file of particle counts
+          CSV file of {format.what}
         </label>
         <input id={`${id}-csv`} type="file" accept=".csv,text/csv" onChange={(e) => onFile(e.target.files?.[0] ?? null)} className="mt-1 block text-sm" />
         <p className="mt-1 text-xs text-stone-600">
-          One row per sample. Columns: <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no), <code>components</code>, <code>B</code> … <code>N</code> (absolute counts), <code>largest_metallic_um</code>, <code>largest_non_metallic_um</code>, <code>largest_fibre_um</code>. Other names can be mapped below.
+          One row per sample. Columns:{" "}
+          {testType === "particle_cleanliness" ? (
+            <>
+              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no), <code>components</code>, <code>B</code> … <code>N</code> (absolute counts), <code>largest_metallic_um</code>, <code>largest_non_metallic_um</code>,{" "}
+              <code>largest_fibre_um</code>.
+            </>
+          ) : (
+            <>
+              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no), <code>components</code> (filtered together), <code>filter_before_mg</code>, <code>filter_after_mg</code>, <code>blank_mg</code>.
+            </>
+          )}{" "}
+          Other names can be mapped below.
         </p>
       </div>
       {needsMapping && (
         <fieldset className="space-y-2">
           <legend className="text-sm font-medium text-stone-800">Match the file&apos;s columns</legend>
           <div className="grid gap-2 sm:grid-cols-3 lg:grid-cols-4">
-            {CSV_FIELDS.map((f) => (
+            {format.fields.map((f) => (
               <label key={f.key} className="text-xs text-stone-700">
                 {f.label}
                 <select

@@ -159,7 +159,10 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
                     {change.evidence.map((run) => (
                       <li key={run.id} className="rounded-md border border-stone-200 p-3">
                         <p>
-                          <span className="font-semibold">{run.number}</span> · {TEST_TYPE_LABELS[run.testType]} · computed outcome{" "}
+                          <Link href={`/evidence/runs/${run.id}`} className="font-semibold text-brand-800 hover:underline">
+                            {run.number}
+                          </Link>{" "}
+                          · {TEST_TYPE_LABELS[run.testType]} · computed outcome{" "}
                           <span className="font-semibold">{run.outcome ? OUTCOME_LABELS[run.outcome] : "not computed"}</span> · {humanize(run.status)} · {run.samples} samples
                           {run.worstCaseSamples ? ` (${run.worstCaseSamples} at worst-case positions)` : ""} · performed {run.performedOn ?? "—"}
                           {run.lab ? ` at ${run.lab}` : ""}

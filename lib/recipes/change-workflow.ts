@@ -26,6 +26,7 @@ export const CHANGE_STEPS: Record<ChangeStep, { from: ChangeStatus[]; to: Change
 /** Why a step may not be taken from this status with this many required tests, or null when it may. */
 export function stepProblem(step: ChangeStep, status: ChangeStatus, requiredTests: number): string | null {
   const rule = CHANGE_STEPS[step];
+  if (step === "close" && status === "requalification") return "Verify the change first: a second person signs it verified, and only then is it closed and made effective.";
   if (!rule.from.includes(status)) return `A change request that is ${STATUS_LABELS[status].toLowerCase()} cannot be ${STEP_PAST[step]}.`;
   if (step === "start_requalification" && requiredTests === 0) return "This change calls for no requalification tests: verify it directly.";
   if (step === "verify" && status === "approved_for_implementation" && requiredTests > 0) return "Start requalification first: this change calls for tests.";

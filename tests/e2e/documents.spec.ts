@@ -19,8 +19,8 @@ async function createFromTemplate(page: Page, title: string) {
   await page.getByLabel("Title").fill(title);
   await page.getByLabel("Cleaning system").selectOption({ label: "AW-3 — Three-tank aqueous washer" });
   await page.getByLabel("Part family").selectOption({ label: "PF-VB-210 — Valve body VB-210" });
-  // The change-control spec may close a newer valve-body version first: take whichever is in force.
-  const inForce = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-AW3-VB version \d+ \(effective\)/ }).textContent();
+  // The change-control spec may have made a later valve-body version effective meanwhile: take whichever is in force.
+  const inForce = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-AW3-VB version \d+ \(effective\) — Valve body, ultrasonic$/ }).textContent();
   await page.getByLabel("Recipe version").selectOption({ label: inForce! });
   await page.getByRole("button", { name: "Create draft from template" }).click();
   await expect(page).toHaveURL(/\/documents\/[0-9a-f-]+\/edit/);

@@ -34,6 +34,10 @@ import { startRequalification } from "@/lib/server/changes/start-requalification
 import { loadChangeState } from "@/lib/server/changes/state";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import { versionMatrix } from "@/lib/server/matrix/version-matrix";
+import { createRun } from "@/lib/server/evidence/create-run";
+import { reviseRun } from "@/lib/server/evidence/revise-run";
+import { runContent } from "@/lib/server/evidence/run-content";
+import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";
 
@@ -193,7 +197,16 @@ describe("a major change from proposal to closure", () => {
     const { loadGate } = await import("@/lib/server/changes/snapshot");
     const particle = (await loadGate(t.db, crId)).requirements.find((r) => r.testType === "particle_cleanliness")!;
     const run = await addRun({ crId, versionId: toVersionId, testType: "particle_cleanliness", number: "T-P5", samples: 30, outcome: "pass", status: "verified", performer: people.technician.id, verifier: people.reviewer.id });
+    const signedHash = (await runContent(t.db, run)).hash;
     await linkEvidence(people.technician, { changeRequestId: crId, requirementId: particle.id, testRunId: run.id });
+    // The link is a row of its own: the signed run is not touched, so its signatures still bind.
+    const [after] = await t.db.select().from(testRuns).where(eq(testRuns.id, run.id));
+    expect(after.changeRequestId).toBeNull();
+    expect((await runContent(t.db, after)).hash).toBe(signedHash);
+    expect((await loadGate(t.db, crId)).gate.holds).toBe(true);
+    // The gate holds, but a requalifying change is closed only once a second person has verified it.
+    await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow("Verify the change first: a second person signs it verified, and only then is it closed and made effective.");
+    expect((await t.db.select().from(changeRequests).where(eq(changeRequests.id, crId)))[0].status).toBe("requalification");
     await verifyChange(people.reviewer, await signing(crId));
     await closeChange(people.approver, { changeRequestId: crId });
 
@@ -264,4 +277,44 @@ describe("requalification matrix", () => {
     expect(eff?.rows).toHaveLength(1);
   });
 
+});
+
+describe("evidence tied to a change request", () => {
+  it("a run is tied only on the proposed version of an open change, and a tie on another version does not count", async () => {
+    const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.number, "CR-2026-002"));
+    const [closed] = await t.db.select().from(changeRequests).where(eq(changeRequests.number, "CR-2026-001"));
+    const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-PH-400"));
+    const run = (recipeVersionId: string, changeRequestId: string) =>
+      createRun(people.technician, { partFamilyId: family.id, recipeVersionId, testType: "particle_cleanliness", technicianId: people.technician.id, lab: "Lab", performedOn: "2026-11-30", changeRequestId });
+    await expect(run(cr.fromVersionId!, cr.id)).rejects.toMatchObject({ field: "changeRequestId", message: "CR-2026-002 is requalified on R-AW3-PH v2: choose that recipe version, or no change request." });
+    await expect(run(closed.toVersionId!, closed.id)).rejects.toMatchObject({ field: "changeRequestId", message: /waiting for requalification evidence/ });
+
+    // A run tied on the version in force (written as data) is no evidence for the proposal.
+    await addRun({ crId: cr.id, versionId: cr.fromVersionId!, testType: "particle_cleanliness", number: "T-OLD", samples: 29, outcome: "pass", status: "verified", performer: people.technician.id, verifier: people.engineer.id }).then((r) =>
+      t.db.update(testRuns).set({ changeRequestId: cr.id }).where(eq(testRuns.id, r.id)),
+    );
+    const { loadGate } = await import("@/lib/server/changes/snapshot");
+    expect((await loadGate(t.db, cr.id)).gate.missing).toContain("Particle cleanliness (29 samples): no test run linked");
+
+    const tied = await run(cr.toVersionId!, cr.id);
+    expect((await loadGate(t.db, cr.id)).gate.missing).toContain(`Particle cleanliness (29 samples): ${tied.number} computed outcome is incomplete, not pass`);
+  });
+
+  it("a corrected run keeps the links of the revision it replaces", async () => {
+    const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.number, "CR-2026-002"));
+    const { loadGate } = await import("@/lib/server/changes/snapshot");
+    const gravimetric = (await loadGate(t.db, cr.id)).requirements.find((r) => r.testType === "gravimetric")!;
+    const run = await addRun({ crId: cr.id, versionId: cr.toVersionId!, testType: "gravimetric", number: "T-GR", samples: 29, outcome: "pass", status: "verified", performer: people.technician.id, verifier: people.engineer.id });
+    await linkEvidence(people.technician, { changeRequestId: cr.id, requirementId: gravimetric.id, testRunId: run.id });
+    const next = await reviseRun(people.technician, { runId: run.id, reason: "Balance recalibrated" });
+    const linked = (await loadGate(t.db, cr.id)).linked.get(gravimetric.id)!.map((r) => r.id);
+    expect(linked).toEqual(expect.arrayContaining([run.id, next.id]));
+    // The part family's history names the change a linked run answers, though the run itself was not tied.
+    const history = await getPartFamilyHistory(run.partFamilyId);
+    const listed = history!.versions.flatMap((v) => v.runs).filter((r) => r.number === "T-GR");
+    expect(listed.map((r) => [r.revision, r.changeNumber])).toEqual([
+      [1, "CR-2026-002"],
+      [2, "CR-2026-002"],
+    ]);
+  });
 });

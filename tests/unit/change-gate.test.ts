@@ -76,5 +76,6 @@ describe("change-request lifecycle", () => {
   it("a change with tests goes through requalification; one without skips it", () => {
     expect(stepProblem("verify", "approved_for_implementation", 2)).toMatch(/Start requalification first/);
     expect(stepProblem("start_requalification", "approved_for_implementation", 0)).toMatch(/no requalification tests/);
+    expect(stepProblem("close", "requalification", 2)).toBe("Verify the change first: a second person signs it verified, and only then is it closed and made effective.");
   });
 });

@@ -17,6 +17,8 @@ import { openChangeRequest } from "@/lib/server/changes/open-change-request";
 import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { verifyChange } from "@/lib/server/changes/verify-change";
+import { computeStoredOutcome } from "@/lib/server/evidence/refresh-outcome";
+import { runContent } from "@/lib/server/evidence/run-content";
 import { localStore, setStore } from "@/lib/storage";
 import { loadAuditPack } from "@/lib/server/trace/audit-pack";
 import { exportAuditPack } from "@/lib/server/trace/export-audit-pack";
@@ -111,10 +113,17 @@ describe("parameter history", () => {
     expect(change.evidence.length).toBe(change.requirements.length);
     for (const run of change.evidence) {
       expect(run.outcome).toBe("pass");
-      expect(run.signatures.map((s) => s.meaning).sort()).toEqual(["performed", "verified"]);
-      expect(run.files).toHaveLength(1);
-      expect(run.files[0].sha256).toMatch(/^[0-9a-f]{64}$/);
+      // The stored word is what the run's own raw data computes to, and the signatures bind to its content.
+      expect((await computeStoredOutcome(t.db, run)).outcome).toBe("pass");
+      const { hash } = await runContent(t.db, run);
+      expect(run.signatures.map((s) => [s.meaning, s.contentHash]).sort()).toEqual([
+        ["performed", hash],
+        ["verified", hash],
+      ]);
+      expect(run.files.map((f) => f.kind)).toEqual(["lab_report", "photo"]);
+      for (const f of run.files) expect(f.sha256).toMatch(/^[0-9a-f]{64}$/);
     }
+    expect(new Set(change.evidence.flatMap((r) => r.files.map((f) => f.sha256))).size).toBe(change.evidence.length * 2);
   });
 
   it("shows an open proposal after the value in force, and leaves out proposals that do not touch the parameter", async () => {
@@ -172,7 +181,7 @@ describe("audit pack", () => {
     const runSigs = pack.evidence.flatMap((r) => r.signatures);
     const fileHashes = pack.evidence.flatMap((r) => r.files.map((f) => f.sha256));
     expect(pack.signatures).toHaveLength(3);
-    expect(fileHashes.length).toBe(pack.evidence.length);
+    expect(fileHashes.length).toBe(pack.evidence.length * 2);
     expect(pack.chain.ok).toBe(true);
     expect(pack.events.map((e) => e.action)).toEqual(expect.arrayContaining(["change.opened", "change.closed", "signature.applied", "evidence_file.uploaded", "recipe_version.effective"]));
 

@@ -7,7 +7,10 @@ import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { isUniqueViolation, UserFacingError } from "@/lib/server/errors";
 import { loadChangeState } from "./state";
 
-/** Offers a test run on the proposed recipe version as the evidence for one required test. */
+/**
+ * Offers a test run on the proposed recipe version as the evidence for one required test.
+ * The link is its own row: the run is left as signed, so its signatures keep binding.
+ */
 export async function linkEvidence(actor: AuditActor & { id: string }, input: { changeRequestId: string; requirementId: string; testRunId: string }, now = new Date()) {
   try {
     await getDb().transaction(async (tx) => {
@@ -20,7 +23,6 @@ export async function linkEvidence(actor: AuditActor & { id: string }, input: { 
       if (run.recipeVersionId !== state.cr.toVersionId) throw new UserFacingError(`${run.number} was run on another recipe version, not the proposed version ${state.toVersion.version}.`, "testRunId");
       if (run.testType !== req.testType) throw new UserFacingError(`${run.number} is not a ${TEST_TYPE_LABELS[req.testType].toLowerCase()} test.`, "testRunId");
       await tx.insert(changeRequestEvidence).values({ requirementId: req.id, testRunId: run.id, linkedBy: actor.id, linkedAt: now.toISOString() });
-      if (!run.changeRequestId) await tx.update(testRuns).set({ changeRequestId: state.cr.id }).where(eq(testRuns.id, run.id));
       await appendAudit(tx, actor, { action: "change.evidence_linked", recordType: "change_request", recordId: state.cr.id, new: { requirement: req.testType, samplesRequired: req.samples, testRun: run.number } }, now);
     });
   } catch (error) {

@@ -3,6 +3,7 @@ import { and, asc, eq, inArray } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import {
   changeRequestEvidence,
+  changeRequests,
   changeRequestTests,
   documentVersions,
   signatures,
@@ -28,8 +29,11 @@ export async function loadGate(db: Executor, changeRequestId: string) {
   const requirements = await db.select().from(changeRequestTests).where(eq(changeRequestTests.changeRequestId, changeRequestId)).orderBy(asc(changeRequestTests.testType));
   const reqIds = requirements.map((r) => r.id);
   const links = reqIds.length ? await db.select().from(changeRequestEvidence).where(inArray(changeRequestEvidence.requirementId, reqIds)) : [];
-  // A run the evidence feature tied to this change request counts for the requirement of its test type.
-  const tied = await db.select({ id: testRuns.id, testType: testRuns.testType }).from(testRuns).where(eq(testRuns.changeRequestId, changeRequestId));
+  // A run the evidence feature tied to this change request counts for the requirement of its test type, if it tested the proposed version.
+  const [cr] = await db.select({ toVersionId: changeRequests.toVersionId }).from(changeRequests).where(eq(changeRequests.id, changeRequestId));
+  const tied = cr?.toVersionId
+    ? await db.select({ id: testRuns.id, testType: testRuns.testType }).from(testRuns).where(and(eq(testRuns.changeRequestId, changeRequestId), eq(testRuns.recipeVersionId, cr.toVersionId)))
+    : [];
   const runIds = [...new Set([...links.map((l) => l.testRunId), ...tied.map((t) => t.id)])];
   const runs = runIds.length ? await db.select().from(testRuns).where(inArray(testRuns.id, runIds)) : [];
   const counts = runIds.length ? await db.select({ runId: testResults.runId }).from(testResults).where(inArray(testResults.runId, runIds)) : [];

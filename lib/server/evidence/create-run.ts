@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { partFamilies, recipeVersions, testRuns, userRoles } from "@/db/schema";
+import { changeRequests, partFamilies, recipes, recipeVersions, testRuns, userRoles } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import type { CreateRun } from "@/lib/schemas/evidence";
 import { UserFacingError } from "@/lib/server/errors";
@@ -13,6 +13,15 @@ export async function createRun(actor: { id: string; name: string } & AuditActor
     if (!family) throw new UserFacingError("Choose a part family from the list.", "partFamilyId");
     const [version] = await tx.select().from(recipeVersions).where(eq(recipeVersions.id, input.recipeVersionId));
     if (!version) throw new UserFacingError("Choose a recipe version from the list.", "recipeVersionId");
+    if (input.changeRequestId) {
+      // A run tied to a change request counts in its gate, so it must test the version the change proposes.
+      const [cr] = await tx.select().from(changeRequests).where(eq(changeRequests.id, input.changeRequestId));
+      if (!cr || !["approved_for_implementation", "requalification"].includes(cr.status)) throw new UserFacingError("Choose a change request that is waiting for requalification evidence.", "changeRequestId");
+      if (cr.toVersionId !== version.id) {
+        const [proposed] = await tx.select({ code: recipes.code, version: recipeVersions.version }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(eq(recipeVersions.id, cr.toVersionId!));
+        throw new UserFacingError(`${cr.number} is requalified on ${proposed ? `${proposed.code} v${proposed.version}` : "its proposed version"}: choose that recipe version, or no change request.`, "changeRequestId");
+      }
+    }
     const [tech] = await tx.select().from(userRoles).where(and(eq(userRoles.userId, input.technicianId), eq(userRoles.role, "technician")));
     if (!tech) throw new UserFacingError("Choose a technician from the list.", "technicianId");
     const [{ n }] = await tx.select({ n: sql<number>`count(distinct ${testRuns.number})` }).from(testRuns);

@@ -3,7 +3,7 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { evidenceFiles, testResults } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
-import type { ParticleSample } from "@/lib/schemas/evidence";
+import { isCsvTestType, type CsvSample } from "@/lib/evidence/csv-import";
 import { UserFacingError } from "@/lib/server/errors";
 import { getStore } from "@/lib/storage";
 import { requireOpenRun } from "./guards";
@@ -14,16 +14,18 @@ import { sha256OfBytes } from "./store-file";
  * Saves the rows of a CSV file that has already been validated whole, and the
  * file itself as evidence, in one transaction: all rows or none.
  */
-export async function importParticleRows(
+export async function importCsvRows(
   actor: { id: string; name: string },
-  input: { runId: string; rows: ParticleSample[]; fileName: string; bytes: Uint8Array },
+  input: { runId: string; testType: string; rows: CsvSample[]; fileName: string; bytes: Uint8Array },
 ) {
   if (input.rows.length === 0) throw new UserFacingError("The file has no rows to import.");
   const sha256 = sha256OfBytes(input.bytes);
   await getStore().put(sha256, input.bytes);
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
-    if (run.testType !== "particle_cleanliness") throw new UserFacingError("CSV import is for particle cleanliness runs.");
+    if (!isCsvTestType(run.testType)) throw new UserFacingError("CSV import is for particle cleanliness and gravimetric runs.");
+    // The rows were validated for one test type; the run must be of that type.
+    if (run.testType !== input.testType) throw new UserFacingError("The file was read for another test type than this run's. Nothing was imported.");
     const labels = input.rows.map((r) => r.sampleLabel);
     const recorded = new Set((await tx.select({ label: testResults.sampleLabel }).from(testResults).where(eq(testResults.runId, run.id))).map((e) => e.label));
     const clash = labels.filter((l) => recorded.has(l));

@@ -3,7 +3,9 @@ import { and, asc, count, desc, eq, gte, inArray, lte, ne, type SQL } from "driz
 import { alias } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import {
+  changeRequestEvidence,
   changeRequests,
+  changeRequestTests,
   cleanlinessSpecs,
   documents,
   evidenceFiles,
@@ -127,7 +129,16 @@ export async function getRunDetail(runId: string) {
       .from(testRuns)
       .where(eq(testRuns.number, row.run.number))
       .orderBy(desc(testRuns.revision)),
-    row.run.changeRequestId ? db.select().from(changeRequests).where(eq(changeRequests.id, row.run.changeRequestId)).then((r) => r[0]) : undefined,
+    // Tied when the run was opened, or linked to a required test later from the change request.
+    row.run.changeRequestId
+      ? db.select().from(changeRequests).where(eq(changeRequests.id, row.run.changeRequestId)).then((r) => r[0])
+      : db
+          .select({ cr: changeRequests })
+          .from(changeRequestEvidence)
+          .innerJoin(changeRequestTests, eq(changeRequestTests.id, changeRequestEvidence.requirementId))
+          .innerJoin(changeRequests, eq(changeRequests.id, changeRequestTests.changeRequestId))
+          .where(eq(changeRequestEvidence.testRunId, runId))
+          .then((r) => r[0]?.cr),
     row.run.protocolDocumentId ? db.select().from(documents).where(eq(documents.id, row.run.protocolDocumentId)).then((r) => r[0]) : undefined,
   ]);
   return { ...row, contentHash: hash, results, files, signatures, outcome, revisions, change, protocol };

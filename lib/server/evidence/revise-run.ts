@@ -1,7 +1,7 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { evidenceFiles, testResults, testRuns } from "@/db/schema";
+import { changeRequestEvidence, evidenceFiles, testResults, testRuns } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { refreshOutcome } from "./refresh-outcome";
@@ -9,8 +9,9 @@ import { getRunRow } from "./run-content";
 
 /**
  * A correction of a performed or verified run: a new open revision carrying the
- * same data and files (files are shared by hash, never copied), the reason, and
- * a link back; the old revision is kept, marked superseded, with its signatures.
+ * same data and files (files are shared by hash, never copied), the links to the
+ * change requests it was offered to, the reason, and a link back; the old revision
+ * is kept, marked superseded, with its signatures.
  */
 export async function reviseRun(actor: { id: string; name: string }, input: { runId: string; reason: string }) {
   return getDb().transaction(async (tx) => {
@@ -28,10 +29,12 @@ export async function reviseRun(actor: { id: string; name: string }, input: { ru
     if (results.length) await tx.insert(testResults).values(results.map(({ id: _r, createdAt, ...r }) => ({ ...r, createdAt, runId: next.id })));
     const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, old.id));
     if (files.length) await tx.insert(evidenceFiles).values(files.map(({ id: _f, ...f }) => ({ ...f, runId: next.id })));
+    const links = await tx.select().from(changeRequestEvidence).where(eq(changeRequestEvidence.testRunId, old.id));
+    if (links.length) await tx.insert(changeRequestEvidence).values(links.map((l) => ({ requirementId: l.requirementId, testRunId: next.id, linkedBy: actor.id })));
     await tx.update(testRuns).set({ status: "superseded" }).where(eq(testRuns.id, old.id));
     await refreshOutcome(tx, next);
     await appendAudit(tx, actor as AuditActor, { action: "test_run.superseded", recordType: "test_run", recordId: old.id, old: { status: old.status }, new: { status: "superseded", by: next.id }, reason: input.reason });
-    await appendAudit(tx, actor as AuditActor, { action: "test_run.revised", recordType: "test_run", recordId: next.id, new: { number: next.number, revision: next.revision, supersedes: old.id }, reason: input.reason });
+    await appendAudit(tx, actor as AuditActor, { action: "test_run.revised", recordType: "test_run", recordId: next.id, new: { number: next.number, revision: next.revision, supersedes: old.id, evidenceLinks: links.length }, reason: input.reason });
     return next;
   });
 }

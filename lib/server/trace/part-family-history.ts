@@ -1,7 +1,7 @@
 import "server-only";
 import { asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { changeRequests, cleaningSystems, cleanlinessSpecs, partFamilies, recipes, recipeVersions, requalificationIntervals, testRuns } from "@/db/schema";
+import { changeRequestEvidence, changeRequests, changeRequestTests, cleaningSystems, cleanlinessSpecs, partFamilies, recipes, recipeVersions, requalificationIntervals, testRuns } from "@/db/schema";
 
 export async function listPartFamilies() {
   return getDb().select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code));
@@ -29,7 +29,16 @@ export async function getPartFamilyHistory(partFamilyId: string) {
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
     .where(inArray(recipeVersions.id, versionIds));
-  const crIds = [...new Set(runs.map((r) => r.changeRequestId).filter((x): x is string => !!x))];
+  // A run belongs to a change request when it was tied to it on opening, or linked to one of its required tests later.
+  const links = runs.length
+    ? await db
+        .select({ runId: changeRequestEvidence.testRunId, changeRequestId: changeRequestTests.changeRequestId })
+        .from(changeRequestEvidence)
+        .innerJoin(changeRequestTests, eq(changeRequestTests.id, changeRequestEvidence.requirementId))
+        .where(inArray(changeRequestEvidence.testRunId, runs.map((r) => r.id)))
+    : [];
+  const changeOf = (run: (typeof runs)[number]) => run.changeRequestId ?? links.find((l) => l.runId === run.id)?.changeRequestId ?? null;
+  const crIds = [...new Set(runs.map(changeOf).filter((x): x is string => !!x))];
   const crs = crIds.length ? await db.select({ id: changeRequests.id, number: changeRequests.number }).from(changeRequests).where(inArray(changeRequests.id, crIds)) : [];
   return {
     ...head,
@@ -45,7 +54,7 @@ export async function getPartFamilyHistory(partFamilyId: string) {
         interval: intervals.find((i) => i.recipeVersionId === v.id) ?? null,
         runs: runs
           .filter((r) => r.recipeVersionId === v.id)
-          .map((r) => ({ ...r, changeNumber: crs.find((c) => c.id === r.changeRequestId)?.number ?? null })),
+          .map((r) => ({ ...r, changeNumber: crs.find((c) => c.id === changeOf(r))?.number ?? null })),
       }))
       .sort((a, b) => (b.effectiveFrom ?? "9999").localeCompare(a.effectiveFrom ?? "9999") || a.recipe.code.localeCompare(b.recipe.code)),
   };

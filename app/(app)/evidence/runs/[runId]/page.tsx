@@ -12,6 +12,7 @@ import { SignatureList } from "@/components/signatures/signature-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
+import { isCsvTestType } from "@/lib/evidence/csv-import";
 import { describeSample } from "@/lib/evidence/describe";
 import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
@@ -83,8 +84,12 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
               <>
                 <h3 className="pt-2 text-sm font-semibold">Extraction (declining test) and blank value</h3>
                 <RunDataForm action={saveRunDataAction} runId={run.id} defaults={runData} />
+              </>
+            )}
+            {mayRecord && isCsvTestType(run.testType) && (
+              <>
                 <h3 className="pt-2 text-sm font-semibold">Import samples from a CSV file</h3>
-                <CsvImport runId={run.id} />
+                <CsvImport runId={run.id} testType={run.testType} />
               </>
             )}
           </section>

@@ -1,17 +1,19 @@
 import { Readable } from "node:stream";
 import { NextResponse, type NextRequest } from "next/server";
 import { z } from "zod";
-import { parseParticleCsv, type ColumnMapping } from "@/lib/evidence/csv-import";
+import { isCsvTestType, parseSampleCsv, type ColumnMapping } from "@/lib/evidence/csv-import";
 import { checkUpload, FileCheckError } from "@/lib/evidence/files";
 import { authorize } from "@/lib/server/auth/current-user";
 import { toActionFailure } from "@/lib/server/errors";
-import { importParticleRows } from "@/lib/server/evidence/import-csv";
+import { importCsvRows } from "@/lib/server/evidence/import-csv";
+import { getRunRow } from "@/lib/server/evidence/run-content";
+import { getDb } from "@/db/client";
 import { uploadLimitBytes } from "@/lib/server/evidence/store-file";
 
 const mappingSchema = z.record(z.string(), z.string().max(200));
 
 /**
- * Imports particle counts from a CSV file into an open run. The file is read as
+ * Imports samples (particle counts or filter weighings) from a CSV file into an open run. The file is read as
  * a stream and every row validated; nothing is saved unless the whole file is
  * valid, and then all rows are saved in one transaction with the file as evidence.
  */
@@ -20,6 +22,9 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
   if (!auth.ok) return NextResponse.json({ ok: false, message: auth.message }, { status: auth.status });
   const runId = z.string().uuid().safeParse((await params).runId);
   if (!runId.success) return NextResponse.json({ ok: false, message: "No such run." }, { status: 404 });
+  const run = await getRunRow(getDb(), runId.data);
+  if (!run) return NextResponse.json({ ok: false, message: "No such run." }, { status: 404 });
+  if (!isCsvTestType(run.testType)) return NextResponse.json({ ok: false, message: "CSV import is for particle cleanliness and gravimetric runs." }, { status: 422 });
   const form = await request.formData().catch(() => null);
   const file = form?.get("file");
   if (!(file instanceof File)) return NextResponse.json({ ok: false, message: "Choose a CSV file." }, { status: 400 });
@@ -38,7 +43,7 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
     if (!parsed.success) return NextResponse.json({ ok: false, message: "The column mapping is not valid." }, { status: 400 });
     mapping = Object.fromEntries(Object.entries(parsed.data).filter(([, v]) => v !== "")) as ColumnMapping;
   }
-  const result = await parseParticleCsv(Readable.fromWeb(file.stream() as never), { mapping, maxRows: 100_000 });
+  const result = await parseSampleCsv(Readable.fromWeb(file.stream() as never), { testType: run.testType, mapping, maxRows: 100_000 });
   if (result.fileErrors.length > 0 || result.errorCount > 0) {
     return NextResponse.json(
       {
@@ -54,7 +59,7 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
   try {
     const bytes = new Uint8Array(await file.arrayBuffer());
     const checked = checkUpload({ name: file.name, bytes, maxBytes: limit });
-    const { imported } = await importParticleRows({ id: auth.user.id, name: auth.user.name }, { runId: runId.data, rows: result.rows, fileName: checked.name, bytes });
+    const { imported } = await importCsvRows({ id: auth.user.id, name: auth.user.name }, { runId: runId.data, testType: run.testType, rows: result.rows, fileName: checked.name, bytes });
     return NextResponse.json({ ok: true, message: `${imported} sample(s) imported from ${checked.name}.` });
   } catch (error) {
     if (error instanceof FileCheckError) return NextResponse.json({ ok: false, message: error.message }, { status: 422 });
