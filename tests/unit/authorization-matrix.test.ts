@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { seedDemo } from "@/db/seed";
+import { API_OPERATIONS, endpointKey } from "@/lib/api/openapi";
 import { ENDPOINTS, type EndpointRule } from "@/lib/auth/endpoints";
 import { PERMISSIONS, ROLES, type Action, type Role } from "@/lib/auth/permissions";
 import { actAs, changedTables, describeOutcome, discoverEndpoints, invoke, peopleByRole, refusal, routeRequest, tableCounts, type Endpoint } from "./support/endpoints";
@@ -61,6 +62,12 @@ describe("the endpoint registry", () => {
     expect(registered.filter((k) => !onDisk.includes(k)), "registry entries with no endpoint").toEqual([]);
     // [derived] 41 exports of actions.ts and 21 route handler methods at the time of writing
     expect(onDisk.length).toBeGreaterThanOrEqual(62);
+  });
+
+  it("and the published API description covers exactly its token endpoints", () => {
+    const described = API_OPERATIONS.map(endpointKey).sort();
+    const tokenEndpoints = Object.entries(ENDPOINTS).filter(([, rule]) => rule.auth === "token").map(([key]) => key).sort();
+    expect(described).toEqual(tokenEndpoints);
   });
 });
 
