@@ -125,7 +125,7 @@ describe("API routes given hostile bodies answer 4xx with a message, or an audit
     const runId = fc.oneof(fc.constantFrom(...runIds), fc.uuid().map(String), text);
     const rawBody = fc.record({
       type: fc.constantFrom(...contentTypes),
-      body: fc.oneof(hostileJson(keys, words, ids).map((v) => JSON.stringify(v) ?? ""), fc.string({ maxLength: 60 }), fc.constantFrom("{", "[1,", '{"a":}', "null", "\uFEFF{}", "--x\r\nContent-Disposition: form-data\r\n\r\n")),
+      body: fc.oneof(hostileJson(keys, words, ids).map((v) => JSON.stringify(v) ?? ""), fc.string({ maxLength: 60 }), fc.integer({ min: 1, max: 4 }).map((n) => JSON.stringify({ sampleLabel: "x".repeat(n * 500_000), counts: { B: n } })), fc.constantFrom("{", "[1,", '{"a":}', "null", "\uFEFF{}", "--x\r\nContent-Disposition: form-data\r\n\r\n")),
     });
     // A CSV whose header mixes the importer's columns with anything, and whose cells are anything.
     const csv = fc
