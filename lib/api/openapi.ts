@@ -17,6 +17,7 @@ import {
   testRunPage,
   testRunsQuery,
 } from "@/lib/schemas/api";
+import { ENDPOINTS } from "@/lib/auth/endpoints";
 import { conductivitySampleSchema, gravimetricSampleSchema, observationSampleSchema, particleSampleSchema, wettingSampleSchema } from "@/lib/schemas/evidence";
 
 export interface ApiOperation {
@@ -24,8 +25,6 @@ export interface ApiOperation {
   path: string;
   operationId: string;
   summary: string;
-  /** The action of the role table that the caller's roles must allow. */
-  permission: string;
   pathParams?: Record<string, { description: string; schema: Record<string, unknown> }>;
   query?: z.ZodObject;
   body?: z.ZodType;
@@ -34,41 +33,53 @@ export interface ApiOperation {
   errors: number[];
 }
 
+/** The route file that serves an operation, as the endpoint registry names it. */
+export function endpointKey(op: Pick<ApiOperation, "method" | "path">): string {
+  return `${op.method.toUpperCase()} app/api/v1${op.path.replace(/\{(\w+)\}/g, "[$1]")}/route.ts`;
+}
+
+/** Who may call an operation comes from the endpoint registry, which the authorisation tests hold the routes to. */
+function accessText(op: ApiOperation): string {
+  const rule = ENDPOINTS[endpointKey(op)];
+  if (rule?.auth !== "token") throw new Error(`${endpointKey(op)} is not a token endpoint in lib/auth/endpoints.ts`);
+  return `Allowed to the roles that may "${rule.action}" in the role table${rule.scope === "read_write" ? ", with a read-and-write token" : ""}.`;
+}
+
 const uuidParam = (description: string) => ({ description, schema: { type: "string", format: "uuid" } });
 
 /** Every /api/v1 operation; the route handlers parse with the same schemas. */
 export const API_OPERATIONS: ApiOperation[] = [
-  { method: "get", path: "/cleaning-systems", operationId: "listCleaningSystems", summary: "Cleaning systems with their stages", permission: "systems.view", query: pageQuery, response: cleaningSystemPage, errors: [400, 401, 403] },
-  { method: "get", path: "/recipes", operationId: "listRecipes", summary: "Recipes with their versions", permission: "systems.view", query: recipesQuery, response: recipePage, errors: [400, 401, 403] },
-  { method: "get", path: "/recipes/{recipeId}", operationId: "getRecipe", summary: "One recipe with its versions", permission: "systems.view", pathParams: { recipeId: uuidParam("Recipe id") }, response: recipeOut, errors: [401, 403, 404] },
+  { method: "get", path: "/cleaning-systems", operationId: "listCleaningSystems", summary: "Cleaning systems with their stages", query: pageQuery, response: cleaningSystemPage, errors: [400, 401, 403] },
+  { method: "get", path: "/recipes", operationId: "listRecipes", summary: "Recipes with their versions", query: recipesQuery, response: recipePage, errors: [400, 401, 403] },
+  { method: "get", path: "/recipes/{recipeId}", operationId: "getRecipe", summary: "One recipe with its versions", pathParams: { recipeId: uuidParam("Recipe id") }, response: recipeOut, errors: [401, 403, 404] },
   {
     method: "get",
     path: "/recipes/{recipeId}/versions/{version}",
     operationId: "getRecipeVersion",
     summary: "One recipe version: stages and parameters with setpoints and validated ranges",
-    permission: "systems.view",
+   
     pathParams: { recipeId: uuidParam("Recipe id"), version: { description: "Version number", schema: { type: "integer", minimum: 1 } } },
     response: recipeVersionOut,
     errors: [401, 403, 404],
   },
-  { method: "get", path: "/change-requests", operationId: "listChangeRequests", summary: "Change requests", permission: "changes.view", query: changeRequestsQuery, response: changeRequestPage, errors: [400, 401, 403] },
+  { method: "get", path: "/change-requests", operationId: "listChangeRequests", summary: "Change requests", query: changeRequestsQuery, response: changeRequestPage, errors: [400, 401, 403] },
   {
     method: "get",
     path: "/change-requests/{changeRequestId}",
     operationId: "getChangeRequest",
     summary: "One change request: justification, parameter changes, required tests, signatures and evidence",
-    permission: "changes.view",
+   
     pathParams: { changeRequestId: uuidParam("Change request id") },
     response: changeRequestDetailOut,
     errors: [401, 403, 404],
   },
-  { method: "get", path: "/test-runs", operationId: "listTestRuns", summary: "Test runs with their computed outcomes", permission: "evidence.view", query: testRunsQuery, response: testRunPage, errors: [400, 401, 403] },
+  { method: "get", path: "/test-runs", operationId: "listTestRuns", summary: "Test runs with their computed outcomes", query: testRunsQuery, response: testRunPage, errors: [400, 401, 403] },
   {
     method: "get",
     path: "/test-runs/{runId}",
     operationId: "getTestRun",
     summary: "One test run: raw results, files with their SHA-256, signatures",
-    permission: "evidence.view",
+   
     pathParams: { runId: uuidParam("Test run id") },
     response: testRunDetailOut,
     errors: [401, 403, 404],
@@ -78,14 +89,14 @@ export const API_OPERATIONS: ApiOperation[] = [
     path: "/test-runs/{runId}/results",
     operationId: "addTestResult",
     summary: "Add one sample's raw data to an open run; the outcome is recomputed from the stored results",
-    permission: "evidence.record",
+   
     pathParams: { runId: uuidParam("Test run id (the run must be open)") },
     body: z.union([particleSampleSchema, gravimetricSampleSchema, wettingSampleSchema, conductivitySampleSchema, observationSampleSchema]).describe("The sample schema of the run's test type, in this order: particle cleanliness, gravimetric, wetting tension, rinse conductivity, visual / UV / dryness"),
     response: resultAddedOut,
     status: 201,
     errors: [400, 401, 403, 404, 409, 415, 422],
   },
-  { method: "get", path: "/audit-events", operationId: "listAuditEvents", summary: "The audit trail, newest first", permission: "audit.view", query: auditEventsQuery, response: auditEventPage, errors: [400, 401, 403] },
+  { method: "get", path: "/audit-events", operationId: "listAuditEvents", summary: "The audit trail, newest first", query: auditEventsQuery, response: auditEventPage, errors: [400, 401, 403] },
 ];
 
 const ERROR_TEXT: Record<number, string> = {
@@ -134,7 +145,7 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
     (paths[op.path] ??= {})[op.method] = {
       operationId: op.operationId,
       summary: op.summary,
-      description: `Allowed to the roles that may "${op.permission}" in the role table${op.method === "get" ? "" : ", with a read-and-write token"}.`,
+      description: accessText(op),
       parameters,
       ...(op.body ? { requestBody: { required: true, content: { "application/json": { schema: embedded(op.body, "input") } } } } : {}),
       responses,

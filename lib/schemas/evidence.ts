@@ -218,11 +218,17 @@ export type MaintenanceIntervalInput = z.output<typeof maintenanceIntervalSchema
 export function formToObject(formData: FormData): Record<string, unknown> {
   const out: Record<string, unknown> = {};
   for (const [name, value] of formData.entries()) {
-    if (typeof value !== "string" || name.startsWith("$ACTION")) continue;
     const path = name.split(".");
+    // A crafted name must not reach Object.prototype ("__proto__.x") or crash on a path through a value ("a" and "a.b").
+    if (typeof value !== "string" || name.startsWith("$ACTION") || path.some((p) => UNSAFE_KEYS.has(p))) continue;
     let node = out;
-    for (const part of path.slice(0, -1)) node = (node[part] ??= {}) as Record<string, unknown>;
+    for (const part of path.slice(0, -1)) {
+      const next = node[part];
+      node = (typeof next === "object" && next !== null ? next : (node[part] = {})) as Record<string, unknown>;
+    }
     node[path[path.length - 1]] = value;
   }
   return out;
 }
+
+const UNSAFE_KEYS = new Set(["__proto__", "constructor", "prototype"]);

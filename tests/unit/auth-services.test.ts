@@ -68,6 +68,13 @@ describe("sign-in", () => {
     await setUserActive(admin, { userId: u.id, active: false, reason: "left the company" });
     expect((await signIn({ email: "gone@example.test", password: u.password })).ok).toBe(false);
   });
+
+  it("refuses to deactivate an account twice, and audits nothing for it", async () => {
+    const u = await newUser("twice@example.test");
+    await setUserActive(admin, { userId: u.id, active: false, reason: "left the company" });
+    await expect(setUserActive(admin, { userId: u.id, active: false, reason: "stale page" })).rejects.toThrow(/already deactivated; nothing changed/);
+    expect((await actionsFor(u.id)).filter((a) => a === "user.deactivated")).toHaveLength(1);
+  });
 });
 
 describe("sessions", () => {
@@ -123,7 +130,7 @@ describe("user administration", () => {
     const only = await newUser("onlyadmin@example.test", ["admin"]);
     // Other admins may exist from earlier tests in this file: deactivate them first.
     const admins = await t.db.select().from(users);
-    for (const a of admins.filter((x) => x.id !== only.id)) {
+    for (const a of admins.filter((x) => x.id !== only.id && x.active)) {
       await setUserActive(admin, { userId: a.id, active: false, reason: "test" });
     }
     await expect(

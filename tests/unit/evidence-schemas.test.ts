@@ -91,4 +91,14 @@ describe("formToObject", () => {
     fd.set("sampleLabel", "A");
     expect(formToObject(fd)).toEqual({ counts: { E: "14" }, largest: { metallicUm: "350" }, sampleLabel: "A" });
   });
+
+  it("ignores names that reach the prototype, and a later nested name replaces a plain value", () => {
+    const fd = new FormData();
+    fd.append("__proto__.polluted", "yes");
+    fd.append("counts.constructor.prototype.polluted", "yes");
+    fd.append("runId", "x");
+    fd.append("runId.acceptable", "y");
+    expect(formToObject(fd)).toEqual({ runId: { acceptable: "y" } });
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+  });
 });

@@ -11,7 +11,8 @@ export async function setUserActive(actor: AuditActor, input: { userId: string; 
   await getDb().transaction(async (tx) => {
     const [user] = await tx.select().from(users).where(eq(users.id, input.userId));
     if (!user) throw new UserFacingError("That user does not exist.");
-    if (user.active === input.active) return;
+    // A stale page or a second click: say so rather than report a change that did not happen.
+    if (user.active === input.active) throw new UserFacingError(`This account is already ${input.active ? "active" : "deactivated"}; nothing changed.`);
     if (!input.active) {
       if (user.id === actor.id) throw new UserFacingError("You cannot deactivate your own account.");
       const roles = await tx.select().from(userRoles).where(eq(userRoles.userId, user.id));
