@@ -1,0 +1,98 @@
+/**
+ * Stores hostile text in every field a user can fill, through the app's own
+ * services, in the running e2e server's database; prints the ids it made as JSON.
+ * Run by hostile-content.spec.ts: `tsx --conditions=react-server` so the
+ * services' "server-only" guard lets a script import them.
+ */
+import { and, eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { partFamilies, recipes, recipeVersions, systemStages, cleaningSystems, users, type Role } from "@/db/schema";
+import { narrativeDocument } from "@/lib/recipes/change-content";
+import { createDocumentSchema, contentJsonSchema } from "@/lib/schemas/document";
+import { createRunSchema, SAMPLE_SCHEMAS, bathRecordSchema } from "@/lib/schemas/evidence";
+import { systemSchema } from "@/lib/schemas/system";
+import { createUserSchema } from "@/lib/schemas/account";
+import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
+import { recordBathEntry } from "@/lib/server/bath/record-bath-entry";
+import { endChange } from "@/lib/server/changes/end-change";
+import { openChangeRequest } from "@/lib/server/changes/open-change-request";
+import { loadChangeState } from "@/lib/server/changes/state";
+import { createDocument } from "@/lib/server/documents/create-document";
+import { saveDraft } from "@/lib/server/documents/save-draft";
+import { addResult } from "@/lib/server/evidence/add-result";
+import { createRun } from "@/lib/server/evidence/create-run";
+import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
+import { updateSystem } from "@/lib/server/systems/update-system";
+import { createUser } from "@/lib/server/users/create-user";
+import { HOSTILE, HOSTILE_SHORT, FORMULA_REASON } from "./hostile";
+
+const db = getDb();
+async function person(role: string) {
+  const [u] = await db.select().from(users).where(eq(users.email, `${role}@fennmoor.example`));
+  return { id: u.id, name: u.name, roles: [role as Role] };
+}
+const admin = await person("admin");
+const engineer = await person("engineer");
+const technician = await person("technician");
+
+// A person whose name is hostile and starts like a formula; the actor of the run below.
+const { id: hostileUserId } = await createUser(admin, createUserSchema.parse({ name: `@Hostile ${HOSTILE_SHORT}`, email: "hostile.tech@fennmoor.example", jobTitle: HOSTILE, roles: ["technician"] }));
+const hostileUser = { id: hostileUserId, name: `@Hostile ${HOSTILE_SHORT}`, roles: ["technician" as Role] };
+
+// A document: hostile title; rich text with typed markup, a javascript: link, a link whose href breaks out of its quotes, and event-handler attributes.
+const doc = await createDocument(engineer, createDocumentSchema.parse({ type: "procedure", title: `Hostile procedure ${HOSTILE}`, confidencePct: "95", reliabilityPct: "90" }));
+const rich = {
+  type: "doc",
+  content: [
+    { type: "heading", attrs: { level: 2, onclick: "window.__xss=1" }, content: [{ type: "text", text: `Heading ${HOSTILE}` }] },
+    {
+      type: "paragraph",
+      attrs: { style: "background:url(javascript:window.__xss=1)", onmouseover: "window.__xss=1" },
+      content: [
+        { type: "text", text: `Body ${HOSTILE} ` },
+        { type: "text", text: "script link", marks: [{ type: "link", attrs: { href: "javascript:window.__xss=1", target: "_self", onclick: "window.__xss=1" } }] },
+        { type: "text", text: " " },
+        { type: "text", text: "data link", marks: [{ type: "link", attrs: { href: "data:text/html,<script>window.__xss=1</script>" } }] },
+        { type: "text", text: " " },
+        { type: "text", text: "quote link", marks: [{ type: "link", attrs: { href: 'https://fennmoor.example/" onmouseover="window.__xss=1' } }] },
+      ],
+    },
+  ],
+};
+await saveDraft(engineer, { versionId: doc.versionId, lockVersion: 0, content: contentJsonSchema.parse(JSON.stringify(rich)), overwrite: false });
+
+// Change requests: hostile title and narrative; one withdrawn with a hostile reason that starts like a formula.
+const [recipe] = await db.select().from(recipes).where(eq(recipes.code, "R-SC1-SF"));
+const cr = await openChangeRequest(engineer, { recipeId: recipe.id, title: `Hostile change ${HOSTILE}`, kind: "parameter_change" });
+const state = await loadChangeState(db, cr.id);
+await saveDraft(engineer, { versionId: state.narrative!.id, lockVersion: state.narrative!.lockVersion, content: contentJsonSchema.parse(JSON.stringify(narrativeDocument(`Narrative ${HOSTILE}`))), overwrite: false });
+await endChange(engineer, { changeRequestId: cr.id, reason: FORMULA_REASON, how: "withdraw" });
+
+// A cleaning system whose description and a stage's name an admin edited to hostile text.
+const [system] = await db.select().from(cleaningSystems).where(eq(cleaningSystems.code, "AW-3"));
+const stages = await db.select().from(systemStages).where(eq(systemStages.systemId, system.id)).orderBy(systemStages.position);
+await updateSystem(
+  admin,
+  systemSchema.parse({
+    systemId: system.id,
+    name: system.name,
+    description: `Description ${HOSTILE}`,
+    stages: stages.map((s) => ({ id: s.id, name: s.name === "Dryer" ? `Dryer ${HOSTILE_SHORT}` : s.name, kind: s.kind, capabilities: s.capabilities, tankVolumeL: s.tankVolumeL })),
+  }),
+);
+const dryer = stages.find((s) => s.name === "Dryer")!;
+
+// An evidence run by the hostile person: hostile lab and requirement, a sample with hostile label and observation, a file with a hostile sample label.
+const [family] = await db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
+const [version] = await db.select({ id: recipeVersions.id }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
+const run = await createRun(hostileUser, createRunSchema.parse({ partFamilyId: family.id, recipeVersionId: version.id, testType: "visual", technicianId: hostileUserId, lab: `Lab ${HOSTILE}`.slice(0, 120), performedOn: "2026-11-30", requirement: HOSTILE_SHORT }));
+await addResult(hostileUser, { runId: run.id, sample: SAMPLE_SCHEMAS.visual.parse({ sampleLabel: HOSTILE_SHORT, basketPosition: "=1+1", acceptable: "yes", observation: `Seen ${HOSTILE}` }) as never });
+const { file } = await storeEvidenceFile(hostileUser, { runId: run.id, name: "report <b onmouseover=x>1.pdf", bytes: new TextEncoder().encode("%PDF-1.4\n%%EOF\n"), kind: "lab_report", sampleLabel: HOSTILE_SHORT });
+
+// A bath-log entry with hostile notes and filter description.
+await recordBathEntry(technician, bathRecordSchema.parse({ stageId: stages[0].id, kind: "filter_change", performedAt: "2026-11-29T08:00", filterDescription: HOSTILE_SHORT, notes: `Notes ${HOSTILE}` }));
+
+// A token for posting a result with a hostile label through the API.
+const { token } = await createApiToken(technician, { name: `Token ${HOSTILE_SHORT}`, scope: "read_write" });
+
+console.log(JSON.stringify({ documentId: doc.documentId, changeId: cr.id, runId: run.id, systemId: system.id, stageId: stages[0].id, dryerId: dryer.id, hostileUserId, fileId: file.id, token }));
