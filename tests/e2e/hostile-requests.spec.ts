@@ -16,8 +16,9 @@ async function expectNoLeak(res: APIResponse, what: string) {
 }
 
 test.describe("requests from another site", () => {
-  test("a server action posted with a foreign Origin is refused and the session stays; the same post from here works", async ({ page }) => {
+  test("a server action posted with a foreign Origin is refused and the session stays; the same post from here works", async ({ page, context }) => {
     await signInAs(page, "engineer");
+    const cookie = (await context.cookies()).find((c) => c.name === "washproof_session")!;
     let captured: { url: string; headers: Record<string, string>; body: string } | undefined;
     await page.route("**/*", async (route) => {
       const r = route.request();
@@ -45,6 +46,10 @@ test.describe("requests from another site", () => {
     expect(genuine.status()).toBeLessThan(400);
     await page.goto("/queue");
     await expect(page).toHaveURL(/\/sign-in$/);
+    // The old cookie replayed after sign-out opens nothing: the session is gone on the server.
+    await context.addCookies([cookie]);
+    expect((await page.request.get("/api/audit-events")).status()).toBe(401);
+    expect((await page.request.get("/api/queue")).status()).toBe(401);
   });
 
   test("the cookie-authenticated upload and import handlers refuse a foreign Origin before they read the body", async ({ page, baseURL }) => {
