@@ -7,7 +7,7 @@ import type { Page } from "@playwright/test";
 import { expect, signInAs, test } from "./fixtures";
 import { FORMULA_REASON, HOSTILE, HOSTILE_SHORT } from "./support/hostile";
 
-type Seeded = { documentId: string; changeId: string; runId: string; systemId: string; stageId: string; dryerId: string; hostileUserId: string; fileId: string; token: string };
+type Seeded = { documentId: string; returnedId: string; changeId: string; runId: string; systemId: string; stageId: string; dryerId: string; hostileUserId: string; fileId: string; token: string };
 let seeded: Seeded;
 const API_LABEL = `API ${HOSTILE_SHORT}`.slice(0, 60);
 
@@ -70,8 +70,9 @@ test("every screen an engineer opens shows stored hostile text as text and runs 
   await expect(page.getByRole("link", { name: "data link" })).toHaveCount(0);
   await openInert(page, `/documents/${s.documentId}/edit`, []);
   await expect(page.locator(".ProseMirror")).toContainText(`Body ${TEXT}`);
+  await openInert(page, `/documents/${s.returnedId}`, [`Sent back ${TEXT}`]);
   await openInert(page, "/changes", ["Hostile change"]);
-  await openInert(page, `/changes/${s.changeId}`, [`Hostile change ${TEXT}`, `Narrative ${TEXT}`, "withdrawn"]);
+  await openInert(page, `/changes/${s.changeId}`, [`Hostile change ${TEXT}`, `Narrative ${TEXT}`, `Notes ${TEXT}`, `Detergent ${HOSTILE_SHORT}`, "withdrawn"]);
   await openInert(page, "/evidence", [SHORT]);
   await openInert(page, `/evidence/runs/${s.runId}`, [`Lab ${TEXT}`, `Seen ${TEXT}`, API_LABEL, `API ${TEXT}`, "@Hostile"]);
   await openInert(page, "/evidence/bath", []);

@@ -6,8 +6,11 @@
  */
 import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { partFamilies, recipes, recipeVersions, systemStages, cleaningSystems, users, type Role } from "@/db/schema";
+import { cleaningSystems, documentVersions, partFamilies, recipes, recipeVersions, systemStages, users, type Role } from "@/db/schema";
+import { DEMO_PASSWORD } from "@/db/seed-data";
+import { canonicalJson, sha256Hex } from "@/lib/audit";
 import { narrativeDocument } from "@/lib/recipes/change-content";
+import { proposalSchema } from "@/lib/schemas/change";
 import { createDocumentSchema, contentJsonSchema } from "@/lib/schemas/document";
 import { createRunSchema, SAMPLE_SCHEMAS, bathRecordSchema } from "@/lib/schemas/evidence";
 import { systemSchema } from "@/lib/schemas/system";
@@ -16,9 +19,12 @@ import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { recordBathEntry } from "@/lib/server/bath/record-bath-entry";
 import { endChange } from "@/lib/server/changes/end-change";
 import { openChangeRequest } from "@/lib/server/changes/open-change-request";
+import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { createDocument } from "@/lib/server/documents/create-document";
+import { returnToAuthor } from "@/lib/server/documents/return-to-author";
 import { saveDraft } from "@/lib/server/documents/save-draft";
+import { submitForReview } from "@/lib/server/documents/submit-for-review";
 import { addResult } from "@/lib/server/evidence/add-result";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
@@ -34,6 +40,8 @@ async function person(role: string) {
 const admin = await person("admin");
 const engineer = await person("engineer");
 const technician = await person("technician");
+const reviewer = await person("reviewer");
+const approver = await person("approver");
 
 // A person whose name is hostile and starts like a formula; the actor of the run below.
 const { id: hostileUserId } = await createUser(admin, createUserSchema.parse({ name: `@Hostile ${HOSTILE_SHORT}`, email: "hostile.tech@fennmoor.example", jobTitle: HOSTILE, roles: ["technician"] }));
@@ -61,10 +69,34 @@ const rich = {
 };
 await saveDraft(engineer, { versionId: doc.versionId, lockVersion: 0, content: contentJsonSchema.parse(JSON.stringify(rich)), overwrite: false });
 
+// A second document, submitted and sent back by its reviewer with a hostile comment.
+const rejected = await createDocument(engineer, createDocumentSchema.parse({ type: "report", title: "Returned report, hostile comment", confidencePct: "95", reliabilityPct: "90" }));
+await saveDraft(engineer, { versionId: rejected.versionId, lockVersion: 0, content: contentJsonSchema.parse(JSON.stringify(narrativeDocument("Short report."))), overwrite: false });
+const [row] = await db.select().from(documentVersions).where(eq(documentVersions.id, rejected.versionId));
+await submitForReview(engineer, { versionId: rejected.versionId, lockVersion: row.lockVersion, contentHash: sha256Hex(canonicalJson(row.content)), reviewerIds: [reviewer.id], approverId: approver.id, routing: "sequence", dueDate: null, password: DEMO_PASSWORD });
+await returnToAuthor(reviewer, { versionId: rejected.versionId, comment: `Sent back ${HOSTILE}`, decision: "sent_back" });
+
 // Change requests: hostile title and narrative; one withdrawn with a hostile reason that starts like a formula.
 const [recipe] = await db.select().from(recipes).where(eq(recipes.code, "R-SC1-SF"));
 const cr = await openChangeRequest(engineer, { recipeId: recipe.id, title: `Hostile change ${HOSTILE}`, kind: "parameter_change" });
 const state = await loadChangeState(db, cr.id);
+// Proposal free text: the detergent and the recipe notes.
+await saveProposal(
+  engineer,
+  proposalSchema.parse({
+    changeRequestId: cr.id,
+    title: state.cr.title,
+    kind: "parameter_change",
+    partFamilyId: "",
+    raiseTo: "",
+    raiseReason: "",
+    recipe: {
+      detergent: `Detergent ${HOSTILE_SHORT}`,
+      notes: `Notes ${HOSTILE}`,
+      stages: state.to.stages.map((st) => ({ ...st, parameters: st.parameters.map((p) => ({ ...p, setpoint: String(p.setpoint), validatedLow: p.validatedLow === null ? "" : String(p.validatedLow), validatedHigh: p.validatedHigh === null ? "" : String(p.validatedHigh) })) })),
+    },
+  }),
+);
 await saveDraft(engineer, { versionId: state.narrative!.id, lockVersion: state.narrative!.lockVersion, content: contentJsonSchema.parse(JSON.stringify(narrativeDocument(`Narrative ${HOSTILE}`))), overwrite: false });
 await endChange(engineer, { changeRequestId: cr.id, reason: FORMULA_REASON, how: "withdraw" });
 
@@ -95,4 +127,4 @@ await recordBathEntry(technician, bathRecordSchema.parse({ stageId: stages[0].id
 // A token for posting a result with a hostile label through the API.
 const { token } = await createApiToken(technician, { name: `Token ${HOSTILE_SHORT}`, scope: "read_write" });
 
-console.log(JSON.stringify({ documentId: doc.documentId, changeId: cr.id, runId: run.id, systemId: system.id, stageId: stages[0].id, dryerId: dryer.id, hostileUserId, fileId: file.id, token }));
+console.log(JSON.stringify({ documentId: doc.documentId, returnedId: rejected.documentId, changeId: cr.id, runId: run.id, systemId: system.id, stageId: stages[0].id, dryerId: dryer.id, hostileUserId, fileId: file.id, token }));
