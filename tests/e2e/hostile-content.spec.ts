@@ -70,7 +70,7 @@ test("every screen an engineer opens shows stored hostile text as text and runs 
   await expect(page.getByRole("link", { name: "data link" })).toHaveCount(0);
   await openInert(page, `/documents/${s.documentId}/edit`, []);
   await expect(page.locator(".ProseMirror")).toContainText(`Body ${TEXT}`);
-  await openInert(page, `/documents/${s.returnedId}`, [`Sent back ${TEXT}`]);
+  await openInert(page, `/documents/${s.returnedId}`, [`Returned report ${TEXT}`, `Sent back ${TEXT}`]);
   await openInert(page, "/changes", ["Hostile change"]);
   await openInert(page, `/changes/${s.changeId}`, [`Hostile change ${TEXT}`, `Narrative ${TEXT}`, `Notes ${TEXT}`, `Detergent ${HOSTILE_SHORT}`, "withdrawn"]);
   await openInert(page, "/evidence", [SHORT]);
@@ -88,6 +88,8 @@ test("the administrator's and auditor's screens show hostile names and audit val
   await openInert(page, `/admin/users/${seeded.hostileUserId}`, []);
   await expect(page.getByLabel("Full name")).toHaveValue(`@Hostile ${HOSTILE_SHORT}`);
   await openInert(page, "/trace/audit", [SHORT]);
+  // The outbox and demo mailbox list the notifications about the hostile document and change.
+  await openInert(page, "/admin/email", []);
   const auditor = await browser.newPage();
   await signInAs(auditor, "auditor");
   await openInert(auditor, `/changes/${seeded.changeId}`, [`Hostile change ${TEXT}`]);

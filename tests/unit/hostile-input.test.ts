@@ -13,6 +13,7 @@ import { securityHeaders } from "@/lib/http/security-headers";
 import { localStore, setStore } from "@/lib/storage";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { storeEvidenceFile, uploadLimitBytes } from "@/lib/server/evidence/store-file";
+import { renderEmail } from "@/templates/email/layout";
 import { createTestDatabase } from "./support/test-db";
 
 const MB = 1024 * 1024;
@@ -92,6 +93,16 @@ describe("origin check on state-changing requests", () => {
   });
   it("leaves requests without the session cookie to their bearer token", () => {
     expect(isCrossSiteWrite({ ...base, origin: "https://evil.example", hasSessionCookie: false })).toBe(false);
+  });
+});
+
+describe("e-mail", () => {
+  it("escapes hostile titles and comments in the HTML part and keeps them whole in the text part", () => {
+    const hostile = `<script>alert(1)</script><img src=x onerror="alert(1)">`;
+    const mail = renderEmail({ subject: hostile, paragraphs: [`Sent back: ${hostile}`] });
+    expect(mail.html).not.toMatch(/<script|<img/);
+    expect(mail.html).toContain("&lt;script&gt;alert(1)&lt;/script&gt;&lt;img src=x onerror=&quot;alert(1)&quot;&gt;");
+    expect(mail.text).toContain(hostile);
   });
 });
 

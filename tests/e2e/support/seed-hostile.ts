@@ -70,7 +70,7 @@ const rich = {
 await saveDraft(engineer, { versionId: doc.versionId, lockVersion: 0, content: contentJsonSchema.parse(JSON.stringify(rich)), overwrite: false });
 
 // A second document, submitted and sent back by its reviewer with a hostile comment.
-const rejected = await createDocument(engineer, createDocumentSchema.parse({ type: "report", title: "Returned report, hostile comment", confidencePct: "95", reliabilityPct: "90" }));
+const rejected = await createDocument(engineer, createDocumentSchema.parse({ type: "report", title: `Returned report ${HOSTILE}`, confidencePct: "95", reliabilityPct: "90" }));
 await saveDraft(engineer, { versionId: rejected.versionId, lockVersion: 0, content: contentJsonSchema.parse(JSON.stringify(narrativeDocument("Short report."))), overwrite: false });
 const [row] = await db.select().from(documentVersions).where(eq(documentVersions.id, rejected.versionId));
 await submitForReview(engineer, { versionId: rejected.versionId, lockVersion: row.lockVersion, contentHash: sha256Hex(canonicalJson(row.content)), reviewerIds: [reviewer.id], approverId: approver.id, routing: "sequence", dueDate: null, password: DEMO_PASSWORD });
