@@ -121,10 +121,10 @@ const run = await createRun(hostileUser, createRunSchema.parse({ partFamilyId: f
 await addResult(hostileUser, { runId: run.id, sample: SAMPLE_SCHEMAS.visual.parse({ sampleLabel: HOSTILE_SHORT, basketPosition: "=1+1", acceptable: "yes", observation: `Seen ${HOSTILE}` }) as never });
 const { file } = await storeEvidenceFile(hostileUser, { runId: run.id, name: "report <b onmouseover=x>1.pdf", bytes: new TextEncoder().encode("%PDF-1.4\n%%EOF\n"), kind: "lab_report", sampleLabel: HOSTILE_SHORT });
 
-// A bath-log entry with hostile notes and filter description.
-await recordBathEntry(technician, bathRecordSchema.parse({ stageId: stages[0].id, kind: "filter_change", performedAt: "2026-11-29T08:00", filterDescription: HOSTILE_SHORT, notes: `Notes ${HOSTILE}` }));
+// A bath-log entry with hostile notes and filter description, on Tank 2 (no maintenance intervals, so no queue item changes).
+await recordBathEntry(technician, bathRecordSchema.parse({ stageId: stages[1].id, kind: "filter_change", performedAt: "2026-11-29T08:00", filterDescription: HOSTILE_SHORT, notes: `Notes ${HOSTILE}` }));
 
 // A token for posting a result with a hostile label through the API.
 const { token } = await createApiToken(technician, { name: `Token ${HOSTILE_SHORT}`, scope: "read_write" });
 
-console.log(JSON.stringify({ documentId: doc.documentId, returnedId: rejected.documentId, changeId: cr.id, runId: run.id, systemId: system.id, stageId: stages[0].id, dryerId: dryer.id, hostileUserId, fileId: file.id, token }));
+console.log(JSON.stringify({ documentId: doc.documentId, returnedId: rejected.documentId, changeId: cr.id, runId: run.id, systemId: system.id, stageId: stages[1].id, dryerId: dryer.id, hostileUserId, fileId: file.id, token }));
