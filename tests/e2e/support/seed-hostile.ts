@@ -8,7 +8,8 @@ import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { cleaningSystems, documentVersions, partFamilies, recipes, recipeVersions, systemStages, users, type Role } from "@/db/schema";
 import { DEMO_PASSWORD } from "@/db/seed-data";
-import { canonicalJson, sha256Hex } from "@/lib/audit";
+import { loadRecipeSnapshot, writeRecipeContent } from "@/db/recipe-content";
+import { appendAudit, canonicalJson, sha256Hex } from "@/lib/audit";
 import { narrativeDocument } from "@/lib/recipes/change-content";
 import { proposalSchema } from "@/lib/schemas/change";
 import { createDocumentSchema, contentJsonSchema } from "@/lib/schemas/document";
@@ -30,6 +31,7 @@ import { createRun } from "@/lib/server/evidence/create-run";
 import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
 import { updateSystem } from "@/lib/server/systems/update-system";
 import { createUser } from "@/lib/server/users/create-user";
+import { setUserActive } from "@/lib/server/users/set-user-active";
 import { HOSTILE, HOSTILE_SHORT, FORMULA_REASON } from "./hostile";
 
 const db = getDb();
@@ -76,8 +78,24 @@ const [row] = await db.select().from(documentVersions).where(eq(documentVersions
 await submitForReview(engineer, { versionId: rejected.versionId, lockVersion: row.lockVersion, contentHash: sha256Hex(canonicalJson(row.content)), reviewerIds: [reviewer.id], approverId: approver.id, routing: "sequence", dueDate: null, password: DEMO_PASSWORD });
 await returnToAuthor(reviewer, { versionId: rejected.versionId, comment: `Sent back ${HOSTILE}`, decision: "sent_back" });
 
+/**
+ * A recipe of this test's own (a copy of R-SC1-SF's effective version), so its
+ * change request never races another test that opens one on a demo recipe.
+ */
+async function ownRecipe() {
+  const [source] = await db.select({ recipe: recipes, version: recipeVersions }).from(recipes).innerJoin(recipeVersions, eq(recipeVersions.recipeId, recipes.id)).where(and(eq(recipes.code, "R-SC1-SF"), eq(recipeVersions.status, "effective")));
+  const snapshot = await loadRecipeSnapshot(db, source.version.id);
+  return db.transaction(async (tx) => {
+    const [recipe] = await tx.insert(recipes).values({ systemId: source.recipe.systemId, code: "R-SC1-HX", name: "Hostile-text fitting", description: "For the hostile-content browser test." }).returning();
+    const [version] = await tx.insert(recipeVersions).values({ recipeId: recipe.id, version: 1, status: "effective", detergent: source.version.detergent, notes: source.version.notes, effectiveFrom: new Date().toISOString(), createdBy: admin.id }).returning();
+    await writeRecipeContent(tx, version.id, snapshot);
+    await appendAudit(tx, admin, { action: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: recipe.code, name: recipe.name } });
+    return recipe;
+  });
+}
+
 // Change requests: hostile title and narrative; one withdrawn with a hostile reason that starts like a formula.
-const [recipe] = await db.select().from(recipes).where(eq(recipes.code, "R-SC1-SF"));
+const recipe = await ownRecipe();
 const cr = await openChangeRequest(engineer, { recipeId: recipe.id, title: `Hostile change ${HOSTILE}`, kind: "parameter_change" });
 const state = await loadChangeState(db, cr.id);
 // Proposal free text: the detergent and the recipe notes.
@@ -123,6 +141,9 @@ const { file } = await storeEvidenceFile(hostileUser, { runId: run.id, name: "re
 
 // A bath-log entry with hostile notes and filter description, on Tank 2 (no maintenance intervals, so no queue item changes).
 await recordBathEntry(technician, bathRecordSchema.parse({ stageId: stages[1].id, kind: "filter_change", performedAt: "2026-11-29T08:00", filterDescription: HOSTILE_SHORT, notes: `Notes ${HOSTILE}` }));
+
+// Deactivated (with a hostile reason) once the run is recorded, so no other test's notifications reach an extra technician.
+await setUserActive(admin, { userId: hostileUserId, active: false, reason: `Left ${HOSTILE}` });
 
 // A token for posting a result with a hostile label through the API.
 const { token } = await createApiToken(technician, { name: `Token ${HOSTILE_SHORT}`, scope: "read_write" });
