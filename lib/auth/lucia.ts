@@ -3,13 +3,14 @@ import { Lucia, TimeSpan } from "lucia";
 import { getDb } from "@/db/client";
 import { sessions, users } from "@/db/schema";
 import { env } from "@/lib/env";
+import { SESSION_COOKIE } from "./session-cookie";
 
 function createLucia() {
   const config = env();
   return new Lucia(new DrizzleSQLiteAdapter(getDb(), sessions, users), {
     sessionExpiresIn: new TimeSpan(config.SESSION_IDLE_MINUTES, "m"),
     sessionCookie: {
-      name: "washproof_session",
+      name: SESSION_COOKIE,
       // A browser-session cookie: the server alone decides when the session ends.
       expires: false,
       attributes: { secure: config.NODE_ENV === "production" && config.APP_URL.startsWith("https:"), sameSite: "lax" },

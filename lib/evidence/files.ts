@@ -48,10 +48,11 @@ const MAX_NAME = 120;
 export function sanitizeFileName(raw: string): string {
   const name = raw.normalize("NFC").trim();
   if (name === "") throw new FileCheckError("The file has no name.");
+  // Control characters first, so no message below repeats one back.
+  if (/[\u0000-\u001f\u007f]/.test(name)) throw new FileCheckError("The file name contains control characters. Rename the file and upload it again.");
   if (/[/\\]/.test(name) || name.includes("..")) {
     throw new FileCheckError(`The file name "${raw.slice(0, 80)}" contains a folder path ("/", "\\" or ".."). Rename the file and upload it again.`);
   }
-  if (/[\u0000-\u001f\u007f]/.test(name)) throw new FileCheckError("The file name contains control characters. Rename the file and upload it again.");
   if (name.startsWith(".")) throw new FileCheckError(`The file name "${raw.slice(0, 80)}" starts with a dot. Rename the file and upload it again.`);
   const cleaned = name.replace(/[^\p{L}\p{N} ._()+-]/gu, "_").replace(/\s+/g, " ");
   if (cleaned.length <= MAX_NAME) return cleaned;
@@ -84,6 +85,11 @@ export function findFormulaCells(text: string, limit = 20): string[] {
   return problems;
 }
 
+/** A file size for messages: kB below a megabyte, so a small limit never reads "0 MB". */
+export function formatSize(bytes: number): string {
+  return bytes < 1048576 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1048576).toFixed(1)} MB`;
+}
+
 export interface CheckedFile {
   type: AcceptedType;
   mime: string;
@@ -97,7 +103,7 @@ export interface CheckedFile {
  */
 export function checkUpload(input: { name: string; bytes: Uint8Array; maxBytes: number }): CheckedFile {
   if (input.bytes.byteLength > input.maxBytes) {
-    throw new FileCheckError(`The file is ${(input.bytes.byteLength / 1048576).toFixed(1)} MB; the limit is ${(input.maxBytes / 1048576).toFixed(0)} MB.`);
+    throw new FileCheckError(`The file is ${formatSize(input.bytes.byteLength)}; the limit is ${formatSize(input.maxBytes)}.`);
   }
   if (input.bytes.byteLength === 0) throw new FileCheckError("The file is empty.");
   const name = sanitizeFileName(input.name);

@@ -30,3 +30,38 @@ test("a new session id is issued at every sign-in", async ({ page, context }) =>
   expect(first).toBeTruthy();
   expect(second).not.toBe(first);
 });
+
+test("a session cookie planted before sign-in is never adopted: the planted id opens nothing and sign-in issues a fresh one", async ({ page, context, baseURL }) => {
+  const planted = "planted-by-someone-else-0123456789";
+  await context.addCookies([{ name: "washproof_session", value: planted, url: baseURL! }]);
+  await page.goto("/queue");
+  await expect(page).toHaveURL(/\/sign-in$/);
+  await signInAs(page, "technician");
+  const issued = (await context.cookies()).find((c) => c.name === "washproof_session")?.value;
+  expect(issued).toBeTruthy();
+  expect(issued).not.toBe(planted);
+  // Putting the planted id back does not ride on the technician's sign-in.
+  await context.addCookies([{ name: "washproof_session", value: planted, url: baseURL! }]);
+  await page.goto("/queue");
+  await expect(page).toHaveURL(/\/sign-in$/);
+});
+
+test("signed-in pages and API answers are never cached, carry the policy and refuse framing; plain HTTP gets no HSTS", async ({ page }) => {
+  await signInAs(page, "auditor");
+  for (const path of ["/documents", "/trace/audit", "/evidence"]) {
+    const response = await page.goto(path);
+    const headers = response!.headers();
+    expect(headers["cache-control"], path).toContain("no-store");
+    expect(headers["content-security-policy"], path).toContain("frame-ancestors 'none'");
+    expect(headers["content-security-policy"], path).not.toContain("unsafe-eval");
+    expect(headers["x-frame-options"], path).toBe("DENY");
+    // [derived] the e2e server runs on http://127.0.0.1: HSTS there would pin a plain-HTTP host.
+    expect(headers["strict-transport-security"], path).toBeUndefined();
+  }
+  for (const path of ["/api/audit-events", "/api/evidence/runs", "/api/queue"]) {
+    const response = await page.request.get(path);
+    expect(response.status(), path).toBeLessThan(500);
+    expect(response.headers()["cache-control"], path).toContain("no-store");
+    expect(response.headers()["x-content-type-options"], path).toBe("nosniff");
+  }
+});

@@ -14,6 +14,7 @@ import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
 import { isCsvTestType } from "@/lib/evidence/csv-import";
 import { describeSample } from "@/lib/evidence/describe";
+import { formatSize } from "@/lib/evidence/files";
 import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -22,7 +23,6 @@ import { addSampleAction, removeSampleAction, reviseRunAction, saveRunDataAction
 
 export const metadata: Metadata = { title: "Test run" };
 
-const kb = (n: number) => (n < 1024 * 1024 ? `${(n / 1024).toFixed(1)} kB` : `${(n / 1048576).toFixed(1)} MB`);
 
 export default async function RunPage({ params }: { params: Promise<{ runId: string }> }) {
   const user = await requirePageUser("evidence.view");
@@ -122,7 +122,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
                         {humanize(file.kind)}
                         {file.sampleLabel ? ` · ${file.sampleLabel}` : ""}
                       </td>
-                      <td className="px-3 py-2 text-right tabular-nums">{kb(file.sizeBytes)}</td>
+                      <td className="px-3 py-2 text-right tabular-nums">{formatSize(file.sizeBytes)}</td>
                       <td className="px-3 py-2 font-mono text-xs" title={file.sha256}>
                         {file.sha256.slice(0, 12)}…
                       </td>

@@ -1,5 +1,6 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { z } from "zod";
+import { formatSize } from "@/lib/evidence/files";
 import { fileKindSchema } from "@/lib/schemas/evidence";
 import { authorize } from "@/lib/server/auth/current-user";
 import { toActionFailure } from "@/lib/server/errors";
@@ -19,7 +20,7 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
   // Refuse an oversized body before reading it; the file size is checked again below.
   const declared = Number(request.headers.get("content-length") ?? 0);
   if (declared > limit + 64 * 1024) {
-    return NextResponse.json({ ok: false, message: `The file is larger than the limit of ${Math.round(limit / 1048576)} MB. Nothing was stored.` }, { status: 413 });
+    return NextResponse.json({ ok: false, message: `The file is larger than the limit of ${formatSize(limit)}. Nothing was stored.` }, { status: 413 });
   }
   let form: FormData;
   try {
@@ -32,7 +33,7 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
   if (!fields.success) return NextResponse.json({ ok: false, message: "Choose what kind of file this is.", fieldErrors: { kind: ["Choose what kind of file this is."] } }, { status: 400 });
   if (!(file instanceof File)) return NextResponse.json({ ok: false, message: "Choose a file to upload.", fieldErrors: { file: ["Choose a file to upload."] } }, { status: 400 });
   if (file.size > limit) {
-    return NextResponse.json({ ok: false, message: `The file is ${(file.size / 1048576).toFixed(1)} MB; the limit is ${Math.round(limit / 1048576)} MB. Nothing was stored.` }, { status: 413 });
+    return NextResponse.json({ ok: false, message: `The file is ${formatSize(file.size)}; the limit is ${formatSize(limit)}. Nothing was stored.` }, { status: 413 });
   }
   try {
     const bytes = new Uint8Array(await file.arrayBuffer());

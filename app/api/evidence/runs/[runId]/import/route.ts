@@ -2,7 +2,7 @@ import { Readable } from "node:stream";
 import { NextResponse, type NextRequest } from "next/server";
 import { z } from "zod";
 import { isCsvTestType, parseSampleCsv, type ColumnMapping } from "@/lib/evidence/csv-import";
-import { checkUpload, FileCheckError } from "@/lib/evidence/files";
+import { checkUpload, FileCheckError, formatSize } from "@/lib/evidence/files";
 import { authorize } from "@/lib/server/auth/current-user";
 import { toActionFailure } from "@/lib/server/errors";
 import { importCsvRows } from "@/lib/server/evidence/import-csv";
@@ -29,7 +29,7 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
   const file = form?.get("file");
   if (!(file instanceof File)) return NextResponse.json({ ok: false, message: "Choose a CSV file." }, { status: 400 });
   const limit = uploadLimitBytes();
-  if (file.size > limit) return NextResponse.json({ ok: false, message: `The file is larger than the limit of ${Math.round(limit / 1048576)} MB. Nothing was imported.` }, { status: 413 });
+  if (file.size > limit) return NextResponse.json({ ok: false, message: `The file is larger than the limit of ${formatSize(limit)}. Nothing was imported.` }, { status: 413 });
   let mapping: ColumnMapping | undefined;
   const mappingText = form?.get("mapping");
   if (typeof mappingText === "string" && mappingText !== "") {
