@@ -1,26 +1,29 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { SESSION_COOKIE } from "@/lib/auth/session-cookie";
-import { isCrossSiteWrite } from "@/lib/http/origin";
+import { isCrossSiteApiRead, isCrossSiteWrite } from "@/lib/http/origin";
 import { securityHeaders } from "@/lib/http/security-headers";
 
 /**
  * Security headers for every page: a per-request nonce so Next's own inline
  * scripts run and nothing injected does, no framing, and HTTPS pinning when
- * served over HTTPS; and a state-changing request that carries the session
- * cookie but comes from another site is refused before it reaches a server
- * action or route handler. Authorisation is not done here: every page, action
- * and route handler checks the session and role itself.
+ * served over HTTPS. A state-changing request that carries the session cookie
+ * but comes from another site is refused before it reaches a server action or
+ * route handler, and so is a cross-site read of an audited /api route.
+ * Authorisation is not done here: every page, action and route handler checks
+ * the session and role itself.
  */
 export function proxy(request: NextRequest) {
-  const crossSite = isCrossSiteWrite({
-    method: request.method,
-    origin: request.headers.get("origin"),
-    secFetchSite: request.headers.get("sec-fetch-site"),
-    host: request.headers.get("host"),
-    forwardedHost: request.headers.get("x-forwarded-host"),
-    appUrl: process.env.APP_URL,
-    hasSessionCookie: request.cookies.has(SESSION_COOKIE),
-  });
+  const hasSessionCookie = request.cookies.has(SESSION_COOKIE);
+  const crossSite =
+    isCrossSiteWrite({
+      method: request.method,
+      origin: request.headers.get("origin"),
+      secFetchSite: request.headers.get("sec-fetch-site"),
+      host: request.headers.get("host"),
+      forwardedHost: request.headers.get("x-forwarded-host"),
+      appUrl: process.env.APP_URL,
+      hasSessionCookie,
+    }) || isCrossSiteApiRead({ method: request.method, path: request.nextUrl.pathname, secFetchSite: request.headers.get("sec-fetch-site"), hasSessionCookie });
   if (crossSite) {
     return NextResponse.json({ error: "This request came from another site and was refused. Nothing was changed." }, { status: 403, headers: { "Cache-Control": "no-store" } });
   }

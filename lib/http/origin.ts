@@ -34,6 +34,18 @@ export function isCrossSiteWrite(input: OriginInput): boolean {
   return input.secFetchSite === "cross-site" || input.secFetchSite === "same-site";
 }
 
+/**
+ * A read of a cookie-authenticated route under /api (an export, a download, an
+ * audit pack) that a page on another site set off, by a link or an image. Such
+ * reads write an audit event in the user's name, so a foreign page must not be
+ * able to make one. A bookmark or a typed address sends Sec-Fetch-Site "none".
+ */
+export function isCrossSiteApiRead(input: { method: string; path: string; secFetchSite: string | null; hasSessionCookie: boolean }): boolean {
+  if (UNSAFE.has(input.method.toUpperCase()) || !input.hasSessionCookie) return false;
+  if (!input.path.startsWith("/api/") || input.path.startsWith("/api/v1/")) return false;
+  return input.secFetchSite === "cross-site" || input.secFetchSite === "same-site";
+}
+
 function safeHost(url: string): string | null {
   try {
     return new URL(url).host;

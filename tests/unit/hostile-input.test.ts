@@ -8,7 +8,7 @@ import { evidenceFiles, partFamilies, recipes, recipeVersions, users } from "@/d
 import { seedDemo } from "@/db/seed";
 import { toCsv } from "@/lib/csv/to-csv";
 import { checkUpload, sanitizeFileName } from "@/lib/evidence/files";
-import { isCrossSiteWrite, type OriginInput } from "@/lib/http/origin";
+import { isCrossSiteApiRead, isCrossSiteWrite, type OriginInput } from "@/lib/http/origin";
 import { securityHeaders } from "@/lib/http/security-headers";
 import { localStore, setStore } from "@/lib/storage";
 import { createRun } from "@/lib/server/evidence/create-run";
@@ -93,6 +93,25 @@ describe("origin check on state-changing requests", () => {
   });
   it("leaves requests without the session cookie to their bearer token", () => {
     expect(isCrossSiteWrite({ ...base, origin: "https://evil.example", hasSessionCookie: false })).toBe(false);
+  });
+});
+
+describe("cross-site reads of audited /api routes", () => {
+  const base = { method: "GET", path: "/api/audit-events/export", secFetchSite: "same-origin", hasSessionCookie: true };
+  it("refuses a link or image on another site that would export or download in the user's name", () => {
+    for (const path of ["/api/audit-events/export", "/api/audit-pack/x", "/api/evidence/files/y"]) {
+      expect(isCrossSiteApiRead({ ...base, path, secFetchSite: "cross-site" }), path).toBe(true);
+      expect(isCrossSiteApiRead({ ...base, path, secFetchSite: "same-site" }), path).toBe(true);
+    }
+  });
+  it("lets our own pages, a typed address or bookmark, token clients and pages through", () => {
+    expect(isCrossSiteApiRead(base)).toBe(false);
+    expect(isCrossSiteApiRead({ ...base, secFetchSite: "none" })).toBe(false);
+    expect(isCrossSiteApiRead({ ...base, secFetchSite: null })).toBe(false);
+    expect(isCrossSiteApiRead({ ...base, secFetchSite: "cross-site", hasSessionCookie: false })).toBe(false);
+    expect(isCrossSiteApiRead({ ...base, path: "/api/v1/recipes", secFetchSite: "cross-site" })).toBe(false);
+    expect(isCrossSiteApiRead({ ...base, path: "/changes", secFetchSite: "cross-site" })).toBe(false);
+    expect(isCrossSiteApiRead({ ...base, method: "POST", secFetchSite: "cross-site" })).toBe(false);
   });
 });
 
