@@ -67,6 +67,20 @@ test.describe("requests from another site", () => {
       expect(own.status(), path).toBeLessThan(500);
     }
   });
+
+  test("a link on another site to the audit-trail export is refused and writes no export event; the same link from here downloads", async ({ page }) => {
+    await signInAs(page, "auditor");
+    const exportPath = "/api/audit-events/export?action=audit.exported";
+    const exportEvents = async () => (await (await page.request.get("/api/audit-events?action=audit.exported&limit=200")).json()).items.length as number;
+    const before = await exportEvents();
+    const foreign = await page.request.get(exportPath, { headers: { "sec-fetch-site": "cross-site" } });
+    expect(foreign.status()).toBe(403);
+    expect((await foreign.json()).error).toMatch(/another site/);
+    expect(await exportEvents()).toBe(before);
+    const own = await page.request.get(exportPath, { headers: { "sec-fetch-site": "same-origin" } });
+    expect(own.status()).toBe(200);
+    expect(await exportEvents()).toBe(before + 1);
+  });
 });
 
 test.describe("no server insides in any answer", () => {
