@@ -7,6 +7,8 @@ test("an auditor filters the audit trail, verifies its integrity and exports it"
   await page.getByRole("navigation", { name: "Trace" }).getByRole("link", { name: "Audit trail" }).click();
   await expect(page.getByRole("heading", { name: "Audit trail" })).toBeVisible();
 
+  // The first page of events has loaded, so the browser is hydrated and filtering runs in the page.
+  await expect(page.getByRole("table").getByRole("row").nth(1)).toBeVisible({ timeout: 30_000 });
   const filters = page.getByRole("form", { name: "Filter the audit trail" });
   await filters.getByLabel("Action").selectOption("part_family.created");
   await filters.getByRole("button", { name: "Filter" }).click();

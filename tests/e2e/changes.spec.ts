@@ -188,6 +188,8 @@ test("a wash temperature above its validated range is major, is requalified with
   await upload.getByLabel("Evidence file").setInputFiles({ name: "VB210 requalification report.pdf", mimeType: "application/pdf", buffer: LAB_REPORT });
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("status")).toContainText("VB210 requalification report.pdf uploaded");
+  // The page re-reads the run after an upload; signing before that would sign the hash without the report, which the server refuses.
+  await expect(tech.getByRole("link", { name: "VB210 requalification report.pdf" })).toBeVisible();
   await expect(tech.getByRole("heading", { name: /Computed outcome: Pass/ })).toBeVisible();
   // Pooled over 29 × 420 cm²: E 404 → 33.2, F 144 → 11.8, H 14 → 1.15 per 1000 cm² → E6/F4/G00/H1 [derived, ISO 16232 area code].
   await expect(tech.getByTestId("run-ccc")).toContainText("E6/F4/G00/H1");

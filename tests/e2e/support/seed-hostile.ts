@@ -32,6 +32,7 @@ import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
 import { updateSystem } from "@/lib/server/systems/update-system";
 import { createUser } from "@/lib/server/users/create-user";
 import { setUserActive } from "@/lib/server/users/set-user-active";
+import { proposalForm } from "../../unit/support/proposal-form";
 import { HOSTILE, HOSTILE_SHORT, FORMULA_REASON } from "./hostile";
 
 const db = getDb();
@@ -99,22 +100,10 @@ const recipe = await ownRecipe();
 const cr = await openChangeRequest(engineer, { recipeId: recipe.id, title: `Hostile change ${HOSTILE}`, kind: "parameter_change" });
 const state = await loadChangeState(db, cr.id);
 // Proposal free text: the detergent and the recipe notes.
-await saveProposal(
-  engineer,
-  proposalSchema.parse({
-    changeRequestId: cr.id,
-    title: state.cr.title,
-    kind: "parameter_change",
-    partFamilyId: "",
-    raiseTo: "",
-    raiseReason: "",
-    recipe: {
-      detergent: `Detergent ${HOSTILE_SHORT}`,
-      notes: `Notes ${HOSTILE}`,
-      stages: state.to.stages.map((st) => ({ ...st, parameters: st.parameters.map((p) => ({ ...p, setpoint: String(p.setpoint), validatedLow: p.validatedLow === null ? "" : String(p.validatedLow), validatedHigh: p.validatedHigh === null ? "" : String(p.validatedHigh) })) })),
-    },
-  }),
-);
+const proposal = proposalForm(state);
+proposal.recipe.detergent = `Detergent ${HOSTILE_SHORT}`;
+proposal.recipe.notes = `Notes ${HOSTILE}`;
+await saveProposal(engineer, proposalSchema.parse(proposal));
 await saveDraft(engineer, { versionId: state.narrative!.id, lockVersion: state.narrative!.lockVersion, content: contentJsonSchema.parse(JSON.stringify(narrativeDocument(`Narrative ${HOSTILE}`))), overwrite: false });
 await endChange(engineer, { changeRequestId: cr.id, reason: FORMULA_REASON, how: "withdraw" });
 
