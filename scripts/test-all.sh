@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# The whole test suite: type-check, lint, unit tests, production build, browser tests.
+# The whole test suite: type-check, lint, unit tests, production build, browser tests, and the CI-size plant benchmark.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -19,3 +19,5 @@ echo "== lint";        npx eslint . --max-warnings=0
 echo "== unit tests";  npx vitest run
 echo "== build";       npx next build > /tmp/washproof-build.log 2>&1 || { cat /tmp/washproof-build.log; exit 1; }
 echo "== browser tests"; npx playwright test
+# Fails only if the benchmark breaks (an error or a non-2xx response); a missed target is reported.
+echo "== plant benchmark (CI size)"; npx tsx tests/bench/plant.ts --scale=ci

@@ -26,6 +26,7 @@ declare module "autocannon" {
     }
     interface Instance extends PromiseLike<Result> {
       on(event: "response", listener: (client: unknown, statusCode: number, resBytes: number, responseTime: number) => void): this;
+      on(event: "reqError", listener: (error: Error) => void): this;
     }
   }
   function autocannon(options: autocannon.Options): autocannon.Instance;

@@ -202,11 +202,13 @@ async function load(name: string, connections: number, options: autocannon.Optio
   const started = performance.now();
   const instance = autocannon(options);
   instance.on("response", (_client, _status, _bytes, ms) => latencies.push(ms));
+  const errors = new Map<string, number>();
+  instance.on("reqError", (error) => errors.set(error.message, (errors.get(error.message) ?? 0) + 1));
   const result = await instance;
   const seconds = (performance.now() - started) / 1000;
   sampleLoad();
   const bad = result.non2xx + result.errors + result.timeouts;
-  if (bad) fail(`${name} at ${connections} connections: ${result.non2xx} non-2xx, ${result.errors} errors, ${result.timeouts} timeouts of ${result.requests.total}`);
+  if (bad) fail(`${name} at ${connections} connections: ${result.non2xx} non-2xx, ${result.errors} errors, ${result.timeouts} timeouts of ${result.requests.total}${errors.size ? ` (${[...errors].map(([m, n]) => `${n}× ${m}`).join("; ")})` : ""}`);
   if (latencies.length === 0) fail(`${name} at ${connections} connections: no response`);
   latencies.sort((a, b) => a - b);
   const q = (p: number) => latencies[Math.min(latencies.length - 1, Math.ceil(p * latencies.length) - 1)] ?? NaN;
@@ -264,7 +266,7 @@ function startServer(p: PlantManifest): ChildProcess {
   };
   // Its own process group, so stopping it stops whatever it started and nothing else.
   const child = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] });
-  child.on("exit", (code) => code && fail(`next start exited with ${code}`));
+  child.on("exit", (code, signal) => !stopping && fail(`next start stopped during the run (${code ?? signal})`));
   return child;
 }
 
@@ -276,7 +278,9 @@ async function waitForServer() {
   throw new Error(`next start did not answer on ${BASE} within 60 s`);
 }
 
+let stopping = false;
 async function stopServer(child: ChildProcess) {
+  stopping = true;
   if (child.exitCode !== null) return;
   const exited = new Promise((r) => child.once("exit", r));
   process.kill(-child.pid!, "SIGTERM");
