@@ -29,6 +29,7 @@ const CONNECTIONS = [1, 10, 50];
 const dataDir = resolve("data/bench");
 const log = (s: string) => console.log(s);
 const failures: string[] = [];
+let stopping = false;
 const fail = (s: string) => {
   failures.push(s);
   console.error(`FAILED: ${s}`);
@@ -283,7 +284,6 @@ async function waitForServer() {
   throw new Error(`next start did not answer on ${BASE} within 60 s`);
 }
 
-let stopping = false;
 async function stopServer(child: ChildProcess) {
   stopping = true;
   if (child.exitCode !== null) return;
