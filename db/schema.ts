@@ -281,7 +281,7 @@ export const changeRequests = sqliteTable(
     createdAt: createdAt(),
     closedAt: text("closed_at"),
   },
-  (t) => [index("change_requests_recipe_idx").on(t.recipeId)],
+  (t) => [index("change_requests_recipe_idx").on(t.recipeId), index("change_requests_status_idx").on(t.status)],
 );
 export type ChangeRequest = typeof changeRequests.$inferSelect;
 
@@ -321,6 +321,9 @@ export const testRuns = sqliteTable(
     index("test_runs_family_idx").on(t.partFamilyId),
     index("test_runs_recipe_version_idx").on(t.recipeVersionId),
     index("test_runs_change_idx").on(t.changeRequestId),
+    // My queue reads the open and performed runs; the evidence table pages newest first.
+    index("test_runs_status_idx").on(t.status),
+    index("test_runs_performed_on_idx").on(t.performedOn, t.number, t.revision),
   ],
 );
 export type TestRun = typeof testRuns.$inferSelect;

@@ -1,5 +1,6 @@
 #!/usr/bin/env bash
-# The whole test suite: type-check, lint, unit tests, production build, crash test, browser tests.
+# The whole test suite: type-check, lint, unit tests, production build, crash test, browser tests,
+# and the CI-size plant benchmark.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -20,3 +21,5 @@ echo "== unit tests";  npx vitest run
 echo "== build";       npx next build > /tmp/washproof-build.log 2>&1 || { cat /tmp/washproof-build.log; exit 1; }
 echo "== crash test (needs the build)"; npx vitest run --config vitest.build.config.ts
 echo "== browser tests"; npx playwright test
+# Fails only if the benchmark breaks (an error or a non-2xx response); a missed target is reported.
+echo "== plant benchmark (CI size)"; npx tsx tests/bench/plant.ts --scale=ci

@@ -45,7 +45,8 @@ export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPa
     status: testRuns.status,
   }[q.sort];
   const order = q.dir === "asc" ? asc(sortColumn) : desc(sortColumn);
-  const [{ total }] = await db.select({ total: count() }).from(testRuns).innerJoin(partFamilies, eq(partFamilies.id, testRuns.partFamilyId)).where(filter);
+  // Every run has its part family (a foreign key), so the count needs no join.
+  const [{ total }] = await db.select({ total: count() }).from(testRuns).where(filter);
   const rows = await db
     .select({
       id: testRuns.id,

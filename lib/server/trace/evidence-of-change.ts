@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, like, or } from "drizzle-orm";
+import { and, asc, eq, gte, inArray, lt, or } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { changeRequestEvidence, changeRequestTests, evidenceFiles, signatures, testResults, testRuns } from "@/db/schema";
 
@@ -8,7 +8,8 @@ export async function changeSignatures(db: Executor, changeRequestId: string) {
   const rows = await db
     .select()
     .from(signatures)
-    .where(and(eq(signatures.recordType, "change_request"), like(signatures.recordId, `${changeRequestId}#%`)))
+    // "<id>#" up to "<id>$" ("$" follows "#") is every revision, as a range the record index can seek.
+    .where(and(eq(signatures.recordType, "change_request"), gte(signatures.recordId, `${changeRequestId}#`), lt(signatures.recordId, `${changeRequestId}$`)))
     .orderBy(asc(signatures.signedAt));
   return rows.map((s) => ({ ...s, revision: Number(s.recordId.split("#")[1] ?? 1) }));
 }

@@ -1,0 +1,69 @@
+/** Sizes of the generated Fennmoor plant: full size by hand, a reduced one for CI. */
+export interface PlantScale {
+  name: "full" | "ci";
+  systems: number;
+  recipes: number;
+  versionsPerRecipe: number;
+  /** The busy recipe's traced parameter changes at every one of its versions. */
+  busyVersions: number;
+  changeRequests: number;
+  testRuns: number;
+  resultsPerRun: number;
+  auditEvents: number;
+  documents: number;
+  partFamilies: number;
+  /** Requests per point of the read endpoints: this many per connection, at least readMinimum. */
+  readsPerConnection: number;
+  readMinimum: number;
+  /** The same for the slow endpoints (signing, PDF). */
+  slowPerConnection: number;
+  slowMinimum: number;
+  /** Connections at which the 40-page PDF is measured (CI leaves out 50: 50 PDFs take minutes on 2 cores). */
+  pdfConnections: number[];
+}
+
+export const SCALES: Record<PlantScale["name"], PlantScale> = {
+  full: {
+    name: "full",
+    systems: 20,
+    recipes: 500,
+    versionsPerRecipe: 10,
+    busyVersions: 30,
+    changeRequests: 20_000,
+    testRuns: 200_000,
+    resultsPerRun: 2,
+    auditEvents: 1_000_000,
+    documents: 10_000,
+    partFamilies: 100,
+    readsPerConnection: 10,
+    readMinimum: 200,
+    slowPerConnection: 3,
+    slowMinimum: 10,
+    pdfConnections: [1, 10, 50],
+  },
+  ci: {
+    name: "ci",
+    systems: 5,
+    recipes: 50,
+    versionsPerRecipe: 10,
+    busyVersions: 30,
+    changeRequests: 2_000,
+    testRuns: 20_000,
+    resultsPerRun: 2,
+    auditEvents: 100_000,
+    documents: 1_000,
+    partFamilies: 20,
+    readsPerConnection: 2,
+    readMinimum: 20,
+    slowPerConnection: 1,
+    slowMinimum: 3,
+    pdfConnections: [1, 10],
+  },
+};
+
+/** `--scale=ci` or BENCH_SCALE=ci picks the reduced size; full size otherwise. */
+export function scaleFromArgs(argv: string[], env: NodeJS.ProcessEnv): PlantScale {
+  const arg = argv.find((a) => a.startsWith("--scale="))?.slice("--scale=".length) ?? env.BENCH_SCALE ?? "full";
+  if (arg !== "full" && arg !== "ci") throw new Error(`Unknown scale "${arg}": use --scale=full or --scale=ci.`);
+  return SCALES[arg];
+}
