@@ -25,7 +25,6 @@ import { encodeSignRunBody, signRunActionId } from "./server-action";
 const scale = scaleFromArgs(process.argv.slice(2), process.env);
 const PORT = Number(process.env.BENCH_PORT ?? 3150);
 const BASE = `http://127.0.0.1:${PORT}`;
-const CONNECTIONS = [1, 10, 50];
 const dataDir = resolve("data/bench");
 const log = (s: string) => console.log(s);
 const failures: string[] = [];
@@ -52,7 +51,7 @@ sampleLoad();
 // ── Seed ───────────────────────────────────────────────────────────────
 const slowAmount = (c: number) => Math.max(scale.slowMinimum, c * scale.slowPerConnection);
 const readAmount = (c: number) => Math.max(scale.readMinimum, c * scale.readsPerConnection);
-const signings = CONNECTIONS.reduce((n, c) => n + slowAmount(c), 0) + 1;
+const signings = scale.connections.reduce((n, c) => n + slowAmount(c), 0) + 1;
 mkdirSync(dataDir, { recursive: true });
 log(`Seeding the ${scale.name}-size plant into ${dataDir}/plant.db …`);
 const seedStart = performance.now();
@@ -84,7 +83,7 @@ try {
     const res = await fetch(BASE + e.path, { headers: { cookie: cookie(e.role) }, redirect: "manual" });
     const body = await res.text();
     if (!res.ok || !e.check(body)) fail(`${e.name}: the first response (${res.status}) is not what the page shows`);
-    for (const c of CONNECTIONS) rows.push(await load(e.name, c, { url: BASE + e.path, connections: c, amount: readAmount(c), timeout: 120, headers: { cookie: cookie(e.role) } }));
+    for (const c of scale.connections) rows.push(await load(e.name, c, { url: BASE + e.path, connections: c, amount: readAmount(c), timeout: 120, headers: { cookie: cookie(e.role) } }));
   }
 
   // Signing: the run page's own server action, called as the browser calls it.
@@ -103,7 +102,7 @@ try {
   let refused = 0;
   let answered = 0;
   let taken = 0;
-  for (const c of CONNECTIONS) {
+  for (const c of scale.connections) {
     rows.push(
       await load("Sign a run as performed", c, {
         url: BASE,

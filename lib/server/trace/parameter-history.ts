@@ -1,5 +1,5 @@
 import "server-only";
-import { asc, eq, inArray } from "drizzle-orm";
+import { asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, cleaningSystems, recipeParameters, recipes, recipeStages, recipeVersions, users } from "@/db/schema";
 import { narrativeText } from "@/lib/recipes/change-content";
@@ -21,13 +21,18 @@ export function excerpt(text: string, max = EXCERPT) {
 /** Every parameter of every recipe that can be traced, one row per recipe and key, for the search. */
 export async function listTraceableParameters() {
   const db = getDb();
+  // One row per recipe and key, grouped in SQLite: with a single max() the bare
+  // columns come from the row holding the maximum (SQLite, "bare columns in an
+  // aggregate query"), so the latest version's name and
+  // stage win; the key is what stays the same.
   const rows = await db
     .select({
       key: recipeParameters.key,
       name: recipeParameters.name,
       unit: recipeParameters.unit,
       stage: recipeStages.name,
-      version: recipeVersions.version,
+      latest: sql<number>`max(${recipeVersions.version})`,
+      versions: sql<number>`count(*)`,
       recipeId: recipes.id,
       recipeCode: recipes.code,
       recipeName: recipes.name,
@@ -40,14 +45,8 @@ export async function listTraceableParameters() {
     .innerJoin(recipeVersions, eq(recipeVersions.id, recipeParameters.versionId))
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
-    .orderBy(asc(cleaningSystems.code), asc(recipes.code), asc(recipeVersions.version));
-  // The latest version's name and stage win; the key is what stays the same.
-  const byKey = new Map<string, (typeof rows)[number] & { versions: number }>();
-  for (const r of rows) {
-    const id = `${r.recipeId} ${r.key}`;
-    byKey.set(id, { ...r, versions: (byKey.get(id)?.versions ?? 0) + 1 });
-  }
-  return [...byKey.values()].map(({ version: _v, ...r }) => r).sort((a, b) => a.systemCode.localeCompare(b.systemCode) || a.recipeCode.localeCompare(b.recipeCode) || a.key.localeCompare(b.key));
+    .groupBy(recipes.id, recipeParameters.key);
+  return rows.map(({ latest: _l, ...r }) => r).sort((a, b) => a.systemCode.localeCompare(b.systemCode) || a.recipeCode.localeCompare(b.recipeCode) || a.key.localeCompare(b.key));
 }
 export type TraceableParameter = Awaited<ReturnType<typeof listTraceableParameters>>[number];
 
