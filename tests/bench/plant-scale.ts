@@ -22,6 +22,8 @@ export interface PlantScale {
   connections: number[];
   /** Connections at which the 40-page PDF is measured (CI measures one at a time only: each takes seconds on 2 cores). */
   pdfConnections: number[];
+  /** PDFs per point: one per connection, at least this many (each renders for seconds). */
+  pdfMinimum: number;
 }
 
 export const SCALES: Record<PlantScale["name"], PlantScale> = {
@@ -43,6 +45,7 @@ export const SCALES: Record<PlantScale["name"], PlantScale> = {
     slowMinimum: 10,
     connections: [1, 10, 50],
     pdfConnections: [1, 10, 50],
+    pdfMinimum: 3,
   },
   ci: {
     name: "ci",
@@ -62,6 +65,7 @@ export const SCALES: Record<PlantScale["name"], PlantScale> = {
     slowMinimum: 2,
     connections: [1, 10],
     pdfConnections: [1],
+    pdfMinimum: 2,
   },
 };
 

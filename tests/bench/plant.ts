@@ -135,7 +135,7 @@ try {
   const pages = (pdfBytes.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? []).length;
   if (!pdf.ok || pdf.headers.get("content-type") !== "application/pdf" || pages < 40) fail(`Protocol PDF: ${pdf.status}, ${pdf.headers.get("content-type")}, ${pages} pages (40 expected)`);
   for (const c of scale.pdfConnections) {
-    rows.push(await load(`PDF of the ${pages}-page protocol`, c, { url: BASE + pdfPath, connections: c, amount: slowAmount(c), timeout: 600, headers: { cookie: cookie("auditor") } }));
+    rows.push(await load(`PDF of the ${pages}-page protocol`, c, { url: BASE + pdfPath, connections: c, amount: Math.max(scale.pdfMinimum, c), timeout: 600, headers: { cookie: cookie("auditor") } }));
   }
 } catch (error) {
   fail(`the benchmark stopped: ${(error as Error).stack ?? error}`);
