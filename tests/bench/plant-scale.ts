@@ -69,9 +69,17 @@ export const SCALES: Record<PlantScale["name"], PlantScale> = {
   },
 };
 
-/** `--scale=ci` or BENCH_SCALE=ci picks the reduced size; full size otherwise. */
+/**
+ * `--scale=ci` or BENCH_SCALE=ci picks the reduced size; full size otherwise.
+ * `--points=ci` keeps the data of the chosen size but measures only the CI's
+ * points (1 and 10 connections, few requests): a full-size plant in minutes.
+ */
 export function scaleFromArgs(argv: string[], env: NodeJS.ProcessEnv): PlantScale {
-  const arg = argv.find((a) => a.startsWith("--scale="))?.slice("--scale=".length) ?? env.BENCH_SCALE ?? "full";
+  const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
+  const arg = option("scale") ?? env.BENCH_SCALE ?? "full";
   if (arg !== "full" && arg !== "ci") throw new Error(`Unknown scale "${arg}": use --scale=full or --scale=ci.`);
-  return SCALES[arg];
+  const points = option("points") ?? env.BENCH_POINTS ?? arg;
+  if (points !== "full" && points !== "ci") throw new Error(`Unknown points "${points}": use --points=full or --points=ci.`);
+  const { readsPerConnection, readMinimum, slowPerConnection, slowMinimum, connections, pdfConnections, pdfMinimum } = SCALES[points];
+  return { ...SCALES[arg], readsPerConnection, readMinimum, slowPerConnection, slowMinimum, connections, pdfConnections, pdfMinimum };
 }
