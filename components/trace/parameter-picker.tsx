@@ -1,46 +1,50 @@
 "use client";
 
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
-import { useId, useMemo, useState } from "react";
+import { useDeferredValue, useId, useState } from "react";
+import { MATCH_LIMIT, type ParameterFilter, type TraceParameter, type TraceScopes } from "@/lib/trace/parameter-search";
 
-export interface PickerParameter {
-  key: string;
-  name: string;
-  unit: string;
-  stage: string;
-  recipeId: string;
-  recipeCode: string;
-  recipeName: string;
-  systemId: string;
-  systemCode: string;
-  systemName: string;
-  versions: number;
+interface Matches {
+  total: number;
+  items: TraceParameter[];
 }
 
-const LIMIT = 40;
+interface ParameterPickerProps {
+  scopes: TraceScopes;
+  /** The matches for the first filter, rendered on the server so the list shows before any search. */
+  initial: Matches;
+  initialFilter: { systemId: string; recipeId: string };
+  selected?: { recipeId: string; key: string };
+}
 
-/** Narrow by cleaning system and recipe, then type any part of a parameter's name, key, stage or unit. */
-export function ParameterPicker({ parameters, selected }: { parameters: PickerParameter[]; selected?: { recipeId: string; key: string } }) {
+async function fetchMatches(filter: ParameterFilter): Promise<Matches> {
+  const qs = new URLSearchParams({ system: filter.systemId ?? "", recipe: filter.recipeId ?? "", q: filter.q ?? "" });
+  const response = await fetch(`/api/trace/parameters?${qs}`, { cache: "no-store" });
+  if (!response.ok) throw new Error(((await response.json().catch(() => null)) as { error?: string } | null)?.error ?? "The search failed; try again.");
+  return response.json();
+}
+
+/**
+ * Narrow by cleaning system and recipe, then type any part of a parameter's name,
+ * key, stage or unit. The server searches, so a plant's thousands of parameters
+ * never travel to the browser.
+ */
+export function ParameterPicker({ scopes, initial, initialFilter, selected }: ParameterPickerProps) {
   const id = useId();
-  const initialRecipe = selected ? parameters.find((p) => p.recipeId === selected.recipeId) : undefined;
-  const [systemId, setSystemId] = useState(initialRecipe?.systemId ?? "");
-  const [recipeId, setRecipeId] = useState(initialRecipe?.recipeId ?? "");
+  const [systemId, setSystemId] = useState(initialFilter.systemId);
+  const [recipeId, setRecipeId] = useState(initialFilter.recipeId);
   const [query, setQuery] = useState("");
-
-  const systems = useMemo(() => [...new Map(parameters.map((p) => [p.systemId, `${p.systemCode} · ${p.systemName}`])).entries()], [parameters]);
-  const recipes = useMemo(
-    () => [...new Map(parameters.filter((p) => !systemId || p.systemId === systemId).map((p) => [p.recipeId, `${p.recipeCode} · ${p.recipeName}`])).entries()],
-    [parameters, systemId],
-  );
-  const matches = useMemo(() => {
-    const words = query.toLowerCase().split(/\s+/).filter(Boolean);
-    return parameters.filter((p) => {
-      if (systemId && p.systemId !== systemId) return false;
-      if (recipeId && p.recipeId !== recipeId) return false;
-      const text = `${p.key} ${p.name} ${p.stage} ${p.unit} ${p.recipeCode} ${p.systemCode}`.toLowerCase();
-      return words.every((w) => text.includes(w));
-    });
-  }, [parameters, systemId, recipeId, query]);
+  const q = useDeferredValue(query);
+  const isInitial = systemId === initialFilter.systemId && recipeId === initialFilter.recipeId && q.trim() === "";
+  const { data, error } = useQuery({
+    queryKey: ["trace-parameters", systemId, recipeId, q.trim()],
+    queryFn: () => fetchMatches({ systemId, recipeId, q }),
+    initialData: isInitial ? initial : undefined,
+    placeholderData: keepPreviousData,
+  });
+  const matches = data ?? initial;
+  const recipes = scopes.recipes.filter((r) => !systemId || r.systemId === systemId);
 
   const select = "block w-full rounded-md border border-stone-300 bg-white px-3 py-2 text-sm";
   return (
@@ -63,9 +67,9 @@ export function ParameterPicker({ parameters, selected }: { parameters: PickerPa
             }}
           >
             <option value="">All systems</option>
-            {systems.map(([value, label]) => (
-              <option key={value} value={value}>
-                {label}
+            {scopes.systems.map((system) => (
+              <option key={system.id} value={system.id}>
+                {system.label}
               </option>
             ))}
           </select>
@@ -76,9 +80,9 @@ export function ParameterPicker({ parameters, selected }: { parameters: PickerPa
           </label>
           <select id={`${id}-recipe`} className={select} value={recipeId} onChange={(e) => setRecipeId(e.target.value)}>
             <option value="">All recipes</option>
-            {recipes.map(([value, label]) => (
-              <option key={value} value={value}>
-                {label}
+            {recipes.map((recipe) => (
+              <option key={recipe.id} value={recipe.id}>
+                {recipe.label}
               </option>
             ))}
           </select>
@@ -99,10 +103,14 @@ export function ParameterPicker({ parameters, selected }: { parameters: PickerPa
         </div>
       </div>
       <p className="mt-3 text-xs text-stone-600" aria-live="polite">
-        {matches.length === 0 ? "No parameter matches." : `${matches.length} parameter${matches.length === 1 ? "" : "s"} match${matches.length === 1 ? "es" : ""}${matches.length > LIMIT ? `; the first ${LIMIT} are shown` : ""}.`}
+        {error
+          ? error.message
+          : matches.total === 0
+            ? "No parameter matches."
+            : `${matches.total} parameter${matches.total === 1 ? "" : "s"} match${matches.total === 1 ? "es" : ""}${matches.total > MATCH_LIMIT ? `; the first ${MATCH_LIMIT} are shown` : ""}.`}
       </p>
       <ul id={`${id}-results`} aria-label="Matching parameters" className="mt-2 max-h-72 divide-y divide-stone-100 overflow-y-auto rounded-md border border-stone-200">
-        {matches.slice(0, LIMIT).map((p) => {
+        {matches.items.map((p) => {
           const current = selected?.recipeId === p.recipeId && selected.key === p.key;
           return (
             <li key={`${p.recipeId} ${p.key}`}>

@@ -81,6 +81,7 @@ export const ENDPOINTS: Record<string, EndpointRule> = {
   "GET app/api/audit-events/route.ts": session("audit.view"),
   "GET app/api/audit-events/export/route.ts": session("audit.export"),
   "GET app/api/audit-pack/[changeId]/route.ts": session("trace.export"),
+  "GET app/api/trace/parameters/route.ts": session("trace.view"),
   "GET app/api/documents/[documentId]/versions/[version]/pdf/route.ts": session("document.export"),
   "GET app/api/evidence/runs/route.ts": session("evidence.view"),
   "GET app/api/evidence/files/[fileId]/route.ts": session("evidence.view"),

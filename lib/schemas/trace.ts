@@ -14,3 +14,12 @@ export const traceQuerySchema = z.object({
 export const partFamilyQuerySchema = z.object({ family: z.uuid().optional().catch(undefined) });
 
 export const auditPackQuerySchema = z.object({ format: z.enum(["pdf", "zip"], { error: 'Ask for format "pdf" or "zip".' }).default("pdf") }).strict();
+
+/** The trace search's query string; unlike the page's, a bad value is an error the caller sees. */
+export const parameterSearchQuerySchema = z
+  .object({
+    system: z.union([z.uuid("Choose a cleaning system from the list."), z.literal("")]).optional(),
+    recipe: z.union([z.uuid("Choose a recipe from the list."), z.literal("")]).optional(),
+    q: z.string().max(200, "Search with 200 characters at most.").optional(),
+  })
+  .strict();

@@ -92,6 +92,9 @@ test.describe("no server insides in any answer", () => {
       "/api/audit-events?before=-1",
       "/api/audit-events/export?limit=abc&x=1",
       "/api/audit-pack/not-a-uuid",
+      "/api/trace/parameters?system=not-a-uuid",
+      `/api/trace/parameters?q=${"x".repeat(201)}`,
+      "/api/trace/parameters?colour=red",
       `/api/audit-pack/${UNKNOWN}`,
       `/api/audit-pack/${UNKNOWN}?format=exe`,
       "/api/documents/not-a-uuid/versions/1/pdf",
@@ -122,6 +125,11 @@ test.describe("no server insides in any answer", () => {
       "/trace/part-families?family=%27",
     ];
     for (const path of gets) await expectNoLeak(await page.request.get(path, { maxRedirects: 0 }), path);
+    for (const path of ["/api/trace/parameters?system=not-a-uuid", `/api/trace/parameters?q=${"x".repeat(201)}`, "/api/trace/parameters?colour=red"]) {
+      const res = await page.request.get(path);
+      expect(res.status(), path).toBe(400);
+      expect((await res.json()).error, path).toBe("Some search values are not valid.");
+    }
   });
 
   test("broken bodies on every route that takes one get a plain message", async ({ page }) => {

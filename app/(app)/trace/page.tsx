@@ -8,6 +8,7 @@ import { rangeWithUnit } from "@/lib/format/labels";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
 import { traceQuerySchema } from "@/lib/schemas/trace";
+import { matchParameters, traceScopes } from "@/lib/trace/parameter-search";
 
 export const metadata: Metadata = { title: "Trace" };
 
@@ -17,11 +18,13 @@ export default async function TracePage({ searchParams }: { searchParams: Promis
   const selected = query.success && query.data.recipe && query.data.key ? { recipeId: query.data.recipe, key: query.data.key } : undefined;
   const [parameters, history] = await Promise.all([listTraceableParameters(), selected ? getParameterHistory(selected) : undefined]);
   const current = history?.entries.findLast((e) => e.period.kind === "in_force")?.period.value;
+  const initialRecipe = selected ? parameters.find((p) => p.recipeId === selected.recipeId) : undefined;
+  const initialFilter = { systemId: initialRecipe?.systemId ?? "", recipeId: initialRecipe?.recipeId ?? "" };
 
   return (
     <>
       <PageHeader title="Trace" description="Every value a recipe parameter has had, who changed it, why, who approved it and which evidence requalified it." />
-      <ParameterPicker parameters={parameters} selected={selected} />
+      <ParameterPicker scopes={traceScopes(parameters)} initial={matchParameters(parameters, initialFilter)} initialFilter={initialFilter} selected={selected} />
       {!selected ? (
         <EmptyState title="No parameter chosen">Choose a cleaning system and recipe, or type part of a parameter&apos;s name, then pick it from the list to see its whole history.</EmptyState>
       ) : !history ? (
