@@ -30,18 +30,20 @@ export function openDatabase(url: string, authToken?: string): { db: Database; c
   return { db: drizzle(client, { schema }), client };
 }
 
-let opened: { db: Database; client: Client } | undefined;
+// Kept on globalThis: Next bundles instrumentation, route handlers and actions apart, each with
+// its own copy of this module, and they must share one connection pool and one write queue.
+const processWide = globalThis as typeof globalThis & { washproofDatabase?: { db: Database; client: Client } };
 
 /** The process-wide database, opened on first use so `next build` needs no data folder. */
 export function getDb(): Database {
-  if (!opened) {
+  if (!processWide.washproofDatabase) {
     const { DATABASE_URL, DATABASE_AUTH_TOKEN } = env();
-    opened = openDatabase(DATABASE_URL, DATABASE_AUTH_TOKEN);
+    processWide.washproofDatabase = openDatabase(DATABASE_URL, DATABASE_AUTH_TOKEN);
   }
-  return opened.db;
+  return processWide.washproofDatabase.db;
 }
 
 /** Tests point the process at a temporary database. */
 export function setProcessDatabase(db: Database, client: Client) {
-  opened = { db, client };
+  processWide.washproofDatabase = { db, client };
 }

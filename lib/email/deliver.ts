@@ -14,9 +14,13 @@ function mailer() {
 
 let running: Promise<{ sent: number; failed: number }> | null = null;
 
+/** How long a claimed message is left to the pass that claimed it before another may retry it. */
+const CLAIM_LEASE_MS = 5 * 60_000;
+
 /**
  * Sends every due message once. Runs after a step commits and on a timer
- * (instrumentation.ts); concurrent calls share one pass so nothing is sent twice.
+ * (instrumentation.ts); concurrent calls in one module share one pass, and each
+ * message is claimed in the database before it is sent, so nothing is sent twice.
  */
 export function deliverDueEmails(now = new Date()) {
   running ??= deliver(now).finally(() => {
@@ -36,6 +40,15 @@ async function deliver(now: Date) {
   let sent = 0;
   let failed = 0;
   for (const message of due) {
+    // Claim the message first: a timer and an action may each run a pass (Next bundles them
+    // apart, so they share no memory), and so may another server. Only the pass whose claim
+    // changed the row sends it; the lease keeps the others off it while it is on its way.
+    const claimed = await db
+      .update(emailOutbox)
+      .set({ attempts: message.attempts + 1, nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS).toISOString() })
+      .where(and(eq(emailOutbox.id, message.id), eq(emailOutbox.status, "pending"), eq(emailOutbox.attempts, message.attempts)))
+      .returning({ id: emailOutbox.id });
+    if (claimed.length === 0) continue;
     try {
       await mailer().sendMail({
         from: env().MAIL_FROM,

@@ -1,6 +1,6 @@
 import { existsSync, readFileSync } from "node:fs";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { emailOutbox, users } from "@/db/schema";
 import { startFakeSmtpServer } from "@/lib/email/fake-smtp-server";
 import { enqueueEmail, nextAttemptDelayMs } from "@/lib/email/outbox";
@@ -48,6 +48,21 @@ describe("e-mail outbox", () => {
     const captured = readFileSync(MAILBOX, "utf8").trim().split("\n").map((l) => JSON.parse(l));
     expect(captured.at(-1)).toMatchObject({ to: ["reviewer@example.test"], subject: "Review requested" });
     expect(captured.at(-1).text).toContain("Please review PQ-1.");
+  });
+
+  it("sends a message once when two delivery passes that share no memory run at the same moment", async () => {
+    // A timer and an action live in different bundles of the server, so each has its own module.
+    await t.db.transaction((tx) => enqueueEmail(tx, { to: "approver@example.test", subject: "Once only", text: "Approve PQ-2." }));
+    const first = await import("@/lib/email/deliver");
+    vi.resetModules();
+    const second = await import("@/lib/email/deliver");
+    expect(second.deliverDueEmails).not.toBe(first.deliverDueEmails);
+    const results = await Promise.all([first.deliverDueEmails(), second.deliverDueEmails()]);
+    expect(results.reduce((n, r) => n + r.sent, 0)).toBe(1);
+    const captured = readFileSync(MAILBOX, "utf8").trim().split("\n").map((l) => JSON.parse(l));
+    expect(captured.filter((m) => m.subject === "Once only")).toHaveLength(1);
+    const rows = await t.db.select().from(emailOutbox);
+    expect(rows.find((r) => r.subject === "Once only")).toMatchObject({ status: "sent", attempts: 1 });
   });
 
   it("backs off 1, 2, 4, 8 minutes between attempts", () => {
