@@ -37,7 +37,7 @@ export function ParameterPicker({ scopes, initial, initialFilter, selected }: Pa
   const [query, setQuery] = useState("");
   const q = useDeferredValue(query);
   const isInitial = systemId === initialFilter.systemId && recipeId === initialFilter.recipeId && q.trim() === "";
-  const { data, error } = useQuery({
+  const { data, error, isPlaceholderData } = useQuery({
     queryKey: ["trace-parameters", systemId, recipeId, q.trim()],
     queryFn: () => fetchMatches({ systemId, recipeId, q }),
     initialData: isInitial ? initial : undefined,
@@ -109,7 +109,7 @@ export function ParameterPicker({ scopes, initial, initialFilter, selected }: Pa
             ? "No parameter matches."
             : `${matches.total} parameter${matches.total === 1 ? "" : "s"} match${matches.total === 1 ? "es" : ""}${matches.total > MATCH_LIMIT ? `; the first ${MATCH_LIMIT} are shown` : ""}.`}
       </p>
-      <ul id={`${id}-results`} aria-label="Matching parameters" className="mt-2 max-h-72 divide-y divide-stone-100 overflow-y-auto rounded-md border border-stone-200">
+      <ul id={`${id}-results`} aria-label="Matching parameters" aria-busy={isPlaceholderData || query !== q || undefined} className="mt-2 max-h-72 divide-y divide-stone-100 overflow-y-auto rounded-md border border-stone-200">
         {matches.items.map((p) => {
           const current = selected?.recipeId === p.recipeId && selected.key === p.key;
           return (
