@@ -2,7 +2,7 @@ import { defineConfig } from "drizzle-kit";
 
 export default defineConfig({
   dialect: "sqlite",
-  schema: "./db/schema.ts",
+  schema: "./db/schema/index.ts",
   out: "./db/migrations",
   dbCredentials: { url: process.env.DATABASE_URL ?? "file:./data/washproof.db" },
 });
