@@ -7,25 +7,51 @@ export interface ExistingSignature {
 }
 
 /**
- * Meanings one person may never both give on the same record version: the author
- * does not approve their own work, the performer does not verify their own test.
+ * Segregation of duties on one record, whatever roles a person holds: the author,
+ * the reviewer, the approver and the verifier are different people, and whoever
+ * performed a test does not verify it. A person may still sign the same meaning
+ * on another record.
  */
-const EXCLUSIVE_PAIRS: [SignatureMeaning, SignatureMeaning][] = [
-  ["authored", "approved"],
+const SEPARATE_DUTIES: readonly SignatureMeaning[][] = [
+  ["authored", "reviewed", "approved", "verified"],
   ["performed", "verified"],
 ];
 
-/** Why this signature may not be applied, or null when it may. */
-export function segregationProblem(existing: ExistingSignature[], next: { userId: string; meaning: SignatureMeaning }): string | null {
-  const mine = existing.filter((s) => s.userId === next.userId).map((s) => s.meaning);
-  if (mine.includes(next.meaning)) return `You have already signed this version as "${next.meaning}".`;
-  for (const [a, b] of EXCLUSIVE_PAIRS) {
-    const other = next.meaning === a ? b : next.meaning === b ? a : null;
-    if (other && mine.includes(other)) {
-      return `You signed this version as "${other}", so another person must sign it as "${next.meaning}".`;
+/**
+ * Why this signature may not be applied, or null when it may. `existing` holds every
+ * signature on the record (all its content versions): a duty taken on an earlier
+ * hash of the same record still counts; a repeated meaning is refused on the same content.
+ */
+export function segregationProblem(existing: ExistingSignature[], next: { userId: string; meaning: SignatureMeaning; contentHash?: string }): string | null {
+  const mine = existing.filter((s) => s.userId === next.userId);
+  if (mine.some((s) => s.meaning === next.meaning && (next.contentHash === undefined || s.contentHash === next.contentHash))) {
+    return `You have already signed this version as "${next.meaning}".`;
+  }
+  for (const group of SEPARATE_DUTIES) {
+    if (!group.includes(next.meaning)) continue;
+    const other = mine.find((s) => s.meaning !== next.meaning && group.includes(s.meaning));
+    if (other) {
+      return `Segregation of duties: you signed this record as "${other.meaning}", so another person must sign it as "${next.meaning}".`;
     }
   }
   return null;
+}
+
+/**
+ * Whoever entered or changed a run's data does not verify it (the second-person check
+ * means nothing if the checker typed the numbers). `entrants` are the people whose
+ * edits to the run's data are on record.
+ */
+export function dataEntryProblem(entrants: readonly string[], verifierId: string): string | null {
+  return entrants.includes(verifierId)
+    ? "Segregation of duties: you entered data of this run, so another person must verify it."
+    : null;
+}
+
+/** The person who verified a change, or authored it, does not also make it effective. */
+export function closureProblem(signers: readonly { userId: string; meaning: SignatureMeaning }[], closerId: string): string | null {
+  const own = signers.find((s) => s.userId === closerId && (s.meaning === "verified" || s.meaning === "authored"));
+  return own ? `Segregation of duties: you signed this change as "${own.meaning}", so another person must close it.` : null;
 }
 
 /** A signature holds only while the record's content still hashes to what was signed (21 CFR 11.70). */

@@ -11,6 +11,7 @@ import {
   signatures,
   testResults,
   testRuns,
+  userRoles,
   users,
   type TestRun,
 } from "@/db/schema";
@@ -244,6 +245,22 @@ describe("reopening and revisions", () => {
     await expect(startRequalification(people.engineer, { changeRequestId: cr.id })).rejects.toThrow(/no requalification tests/);
     await verifyChange(people.reviewer, await signing(cr.id));
     await closeChange(people.approver, { changeRequestId: cr.id });
+  });
+
+  it("one person holding several roles takes one duty per change: an approver who also reviews cannot verify, a verifier cannot close", async () => {
+    await t.db.insert(userRoles).values({ userId: people.approver.id, role: "reviewer" });
+    const [recipe] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB"));
+    const cr = await openChangeRequest(people.engineer, { recipeId: recipe.id, title: "Rinse a little longer", kind: "parameter_change" });
+    await saveProposal(people.engineer, proposalSchema.parse(await proposalFor(cr.id, (p) => p.key === "rinse.time" && (p.setpoint = "95"))));
+    await writeNarrative(cr.id, "Longer rinse for the heavier chip load.");
+    await assessChange(people.engineer, await signing(cr.id));
+    await approveChange(people.approver, await signing(cr.id));
+    await expect(verifyChange(people.approver, await signing(cr.id))).rejects.toThrow('Segregation of duties: you signed this record as "approved", so another person must sign it as "verified".');
+    await verifyChange(people.reviewer, await signing(cr.id));
+    await expect(closeChange(people.reviewer, { changeRequestId: cr.id })).rejects.toThrow('Segregation of duties: you signed this change as "verified", so another person must close it.');
+    await expect(closeChange(people.engineer, { changeRequestId: cr.id })).rejects.toThrow(/as "authored"/);
+    await closeChange(people.approver, { changeRequestId: cr.id });
+    expect((await t.db.select().from(changeRequests).where(eq(changeRequests.id, cr.id)))[0].status).toBe("closed");
   });
 });
 

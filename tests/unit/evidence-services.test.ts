@@ -113,6 +113,18 @@ describe("signing, locking and revisions", () => {
     const trail = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, next.id));
     expect(trail.map((e) => e.action)).toContain("test_run.revised");
   });
+
+  it("refuses verification by whoever entered the run's data, whatever roles they hold", async () => {
+    const run = await newParticleRun();
+    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-1", components: "3", counts: { E: "14" }, largest: {} }) });
+    await addResult(engineer, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-2", components: "3", counts: { E: "12" }, largest: {} }) });
+    const { hash } = await runContent(t.db, (await getRunRow(t.db, run.id))!);
+    await signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: hash });
+    await expect(signRun({ userId: engineer.id, password: DEMO_PASSWORD, runId: run.id, meaning: "verified", contentHash: hash })).rejects.toThrow(
+      "Segregation of duties: you entered data of this run, so another person must verify it.",
+    );
+    expect((await getRunRow(t.db, run.id))!.status).toBe("performed");
+  });
 });
 
 describe("evidence files", () => {

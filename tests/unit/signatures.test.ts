@@ -2,7 +2,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { auditEvents, users } from "@/db/schema";
 import { sha256Hex, canonicalJson } from "@/lib/audit";
-import { segregationProblem, signatureValidity } from "@/lib/signatures/rules";
+import { closureProblem, dataEntryProblem, segregationProblem, signatureValidity } from "@/lib/signatures/rules";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
 import { createUser } from "@/lib/server/users/create-user";
@@ -19,9 +19,36 @@ describe("segregation of duties", () => {
   it("refuses the same meaning twice from one person", () => {
     expect(segregationProblem([{ userId: "r", meaning: "reviewed", contentHash: "h" }], { userId: "r", meaning: "reviewed" })).toMatch(/already signed/);
   });
-  it("allows another person, and other meanings from the author", () => {
+  it("allows another person for every other duty", () => {
     expect(segregationProblem([authored], { userId: "b", meaning: "approved" })).toBeNull();
-    expect(segregationProblem([authored], { userId: "a", meaning: "reviewed" })).toBeNull();
+    expect(segregationProblem([authored], { userId: "b", meaning: "reviewed" })).toBeNull();
+    expect(segregationProblem([authored], { userId: "b", meaning: "verified" })).toBeNull();
+  });
+  // Product brief: on one record, author, reviewer, approver and verifier are different people,
+  // whatever roles one person holds.
+  it("keeps author, reviewer, approver and verifier apart, naming the rule", () => {
+    expect(segregationProblem([authored], { userId: "a", meaning: "reviewed" })).toMatch(/^Segregation of duties: you signed this record as "authored"/);
+    expect(segregationProblem([{ userId: "r", meaning: "reviewed", contentHash: "h" }], { userId: "r", meaning: "approved" })).toMatch(/as "reviewed"/);
+    expect(segregationProblem([{ userId: "p", meaning: "approved", contentHash: "h" }], { userId: "p", meaning: "verified" })).toMatch(/as "approved"/);
+  });
+  it("counts a duty taken on an earlier hash of the same record", () => {
+    // A change request's content hash moves between its steps; the approver is still its approver.
+    expect(segregationProblem([{ userId: "p", meaning: "approved", contentHash: "h1" }], { userId: "p", meaning: "verified", contentHash: "h2" })).toMatch(/another person/);
+    expect(segregationProblem([{ userId: "r", meaning: "reviewed", contentHash: "h1" }], { userId: "r", meaning: "reviewed", contentHash: "h2" })).toBeNull();
+  });
+  it("refuses the verification of whoever entered the run's data", () => {
+    expect(dataEntryProblem(["t", "e"], "e")).toMatch(/you entered data of this run/);
+    expect(dataEntryProblem(["t"], "e")).toBeNull();
+  });
+  it("refuses closure by the change's verifier or author", () => {
+    const signers = [
+      { userId: "e", meaning: "authored" as const },
+      { userId: "p", meaning: "approved" as const },
+      { userId: "r", meaning: "verified" as const },
+    ];
+    expect(closureProblem(signers, "r")).toMatch(/as "verified", so another person must close it/);
+    expect(closureProblem(signers, "e")).toMatch(/as "authored"/);
+    expect(closureProblem(signers, "p")).toBeNull();
   });
 });
 

@@ -1,8 +1,10 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { changeRequests, recipeVersions, requalificationIntervals } from "@/db/schema";
+import { changeRequests, recipeVersions, requalificationIntervals, signatures } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
+import { UserFacingError } from "@/lib/server/errors";
+import { closureProblem } from "@/lib/signatures/rules";
 import { setNarrativeStatus } from "./narrative-status";
 import { assertStep } from "./guard";
 import { notifyNext } from "./notify";
@@ -16,7 +18,7 @@ import { gateRefusal } from "./verify-change";
  * recipe), and the validated part families carry over to it. A major change
  * requalified them today; a minor one keeps their last qualification date.
  */
-export async function closeChange(actor: AuditActor, input: { changeRequestId: string }, now = new Date()) {
+export async function closeChange(actor: AuditActor & { id: string }, input: { changeRequestId: string }, now = new Date()) {
   await getDb().transaction(async (tx) => {
     const state = await loadChangeState(tx, input.changeRequestId);
     // Asked to close during requalification, say what evidence is missing before saying "verify first".
@@ -24,6 +26,9 @@ export async function closeChange(actor: AuditActor, input: { changeRequestId: s
     const { gate } = await loadGate(tx, state.cr.id);
     if (!gate.holds) throw gateRefusal(gate.missing);
     assertStep(state, "close");
+    const signers = await tx.select({ userId: signatures.userId, meaning: signatures.meaning }).from(signatures).where(and(eq(signatures.recordType, "change_request"), eq(signatures.recordId, state.signatureRecordId)));
+    const problem = closureProblem(signers, actor.id);
+    if (problem) throw new UserFacingError(problem);
     const at = now.toISOString();
     const old = state.fromVersion;
     await tx.update(recipeVersions).set({ status: "superseded", effectiveTo: at }).where(and(eq(recipeVersions.id, old.id), eq(recipeVersions.status, "effective")));

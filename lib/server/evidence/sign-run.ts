@@ -1,9 +1,10 @@
 import "server-only";
-import { eq } from "drizzle-orm";
-import { getDb } from "@/db/client";
-import { testRuns } from "@/db/schema";
+import { and, eq, inArray } from "drizzle-orm";
+import { getDb, type Tx } from "@/db/client";
+import { auditEvents, testRuns } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
+import { dataEntryProblem } from "@/lib/signatures/rules";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
 import { refreshOutcome } from "./refresh-outcome";
@@ -29,6 +30,10 @@ export async function signRun(input: { userId: string; password: string; runId: 
     const { hash, results } = await runContent(tx, run);
     if (hash !== input.contentHash) throw new UserFacingError("The run changed after you opened it. Reload the page, check the data again and sign.");
     if (results.length === 0) throw new UserFacingError("Record at least one sample before signing.");
+    if (input.meaning === "verified") {
+      const problem = dataEntryProblem(await dataEntrants(tx, run.id), signer.id);
+      if (problem) throw new UserFacingError(problem);
+    }
     const outcome = await refreshOutcome(tx, run);
     const status = input.meaning === "performed" ? "performed" : "verified";
     await applySignature(tx, { signer, recordType: "test_run", recordId: run.id, meaning: input.meaning, contentHash: hash });
@@ -42,4 +47,15 @@ export async function signRun(input: { userId: string; password: string; runId: 
     });
     return { status, outcome: outcome.outcome };
   });
+}
+
+/** The audited edits of a run's data; opening the run or signing it is not data entry. */
+const DATA_EVENTS = ["test_run.result_added", "test_run.result_removed", "test_run.data_saved", "test_run.csv_imported"];
+
+async function dataEntrants(tx: Tx, runId: string): Promise<string[]> {
+  const rows = await tx
+    .selectDistinct({ actorId: auditEvents.actorId })
+    .from(auditEvents)
+    .where(and(eq(auditEvents.recordType, "test_run"), eq(auditEvents.recordId, runId), inArray(auditEvents.action, DATA_EVENTS)));
+  return rows.flatMap((r) => (r.actorId ? [r.actorId] : []));
 }

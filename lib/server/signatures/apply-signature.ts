@@ -19,15 +19,16 @@ export interface SignatureInput {
 /**
  * Writes a signature bound to the record's content hash, inside the caller's
  * transaction (with the state change it brings about), and audits it.
- * Refuses a second signature of the same meaning and the segregated pairs on
- * the same content: a version that was sent back and changed is new content.
+ * Refuses a second signature of the same meaning on the same content (a version
+ * that was sent back and changed is new content), and one person taking two
+ * separated duties on the same record.
  */
 export async function applySignature(tx: Tx, input: SignatureInput, now = new Date()) {
   const existing = await tx
     .select()
     .from(signatures)
-    .where(and(eq(signatures.recordType, input.recordType), eq(signatures.recordId, input.recordId), eq(signatures.contentHash, input.contentHash)));
-  const problem = segregationProblem(existing, { userId: input.signer.id, meaning: input.meaning });
+    .where(and(eq(signatures.recordType, input.recordType), eq(signatures.recordId, input.recordId)));
+  const problem = segregationProblem(existing, { userId: input.signer.id, meaning: input.meaning, contentHash: input.contentHash });
   if (problem) throw new UserFacingError(problem);
   const signedAt = now.toISOString();
   const [row] = await tx
