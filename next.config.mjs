@@ -1,3 +1,8 @@
+// The proxy buffers request bodies up to this size and silently truncates larger ones, so an
+// evidence file under UPLOAD_MAX_MB arrived cut short and failed as "not a multipart form".
+// Allow the upload limit plus room for the form's other fields; the route refuses a larger file itself.
+const uploadMaxMb = Number(process.env.UPLOAD_MAX_MB) > 0 ? Number(process.env.UPLOAD_MAX_MB) : 25;
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Native and Node-only packages stay outside the server bundle.
@@ -5,6 +10,7 @@ const nextConfig = {
   poweredByHeader: false,
   experimental: {
     serverActions: { bodySizeLimit: "4mb" },
+    proxyClientMaxBodySize: (uploadMaxMb + 1) * 1024 * 1024,
     // forbidden() answers 403 from a page whose role check fails.
     authInterrupts: true,
   },

@@ -84,7 +84,16 @@ test("bad files get a clear error and nothing is stored", async ({ page }) => {
   await upload.getByLabel("Evidence file").setInputFiles({ name: "counts.csv", mimeType: "text/csv", buffer: Buffer.from("sample,E\n=HYPERLINK(\"x\"),1\n") });
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("alert")).toContainText("run as formulas");
+  // Over the documented limit (UPLOAD_MAX_MB, 25 MB by default): told the limit, not a parsing error.
+  const padded = (mb: number) => Buffer.concat([PDF, Buffer.alloc(mb * 1024 * 1024, 0x20)]);
+  await upload.getByLabel("Evidence file").setInputFiles({ name: "scan-26mb.pdf", mimeType: "application/pdf", buffer: padded(26) });
+  await upload.getByRole("button", { name: "Upload" }).click();
+  await expect(upload.getByRole("alert")).toContainText(/limit (of|is) 25\.0 MB/);
   await expect(page.getByText("No files attached.")).toBeVisible();
+  // Under the limit but over the proxy's default 10 MB buffer: stored whole.
+  await upload.getByLabel("Evidence file").setInputFiles({ name: "scan-15mb.pdf", mimeType: "application/pdf", buffer: padded(15) });
+  await upload.getByRole("button", { name: "Upload" }).click();
+  await expect(upload.getByRole("status")).toContainText("scan-15mb.pdf uploaded");
 });
 
 test("an engineer verifies the run from My queue; the outcome and code appear and the run is locked", async ({ page }) => {
