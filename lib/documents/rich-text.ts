@@ -42,6 +42,30 @@ export interface RichDoc extends RichNode {
   content: RichNode[];
 }
 
+/**
+ * How deeply content may nest. A real protocol nests lists two or three levels
+ * (common practice); a draft with lists 150 levels deep made the PDF renderer fail.
+ */
+export const MAX_LIST_DEPTH = 10;
+export const MAX_NODE_DEPTH = 40;
+
+/** The deepest list nesting and node nesting of raw editor JSON, walked without recursion. */
+export function nestingDepth(root: unknown): { lists: number; nodes: number } {
+  let lists = 0;
+  let nodes = 0;
+  const stack: { node: unknown; depth: number; listDepth: number }[] = [{ node: root, depth: 1, listDepth: 0 }];
+  while (stack.length) {
+    const { node, depth, listDepth } = stack.pop()!;
+    if (typeof node !== "object" || node === null) continue;
+    const { type, content } = node as { type?: unknown; content?: unknown };
+    const inList = listDepth + (type === "bulletList" || type === "orderedList" ? 1 : 0);
+    lists = Math.max(lists, inList);
+    nodes = Math.max(nodes, depth);
+    if (Array.isArray(content)) for (const child of content) stack.push({ node: child, depth: depth + 1, listDepth: inList });
+  }
+  return { lists, nodes };
+}
+
 /** Links may point to web pages, mail addresses or places inside Washproof; never to script. */
 export function isSafeHref(href: string): boolean {
   const h = href.trim();

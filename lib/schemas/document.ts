@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { DOCUMENT_TYPES, ROUTING_MODES } from "@/db/enums";
-import { BLOCK_TYPES, isSafeHref, MARK_TYPES, type RichDoc, type RichMark, type RichNode } from "@/lib/documents/rich-text";
+import { BLOCK_TYPES, isSafeHref, MARK_TYPES, MAX_LIST_DEPTH, MAX_NODE_DEPTH, nestingDepth, type RichDoc, type RichMark, type RichNode } from "@/lib/documents/rich-text";
 
 /** A controlled document's content may be at most 2 MB of JSON. */
 export const MAX_CONTENT_BYTES = 2 * 1024 * 1024;
@@ -83,12 +83,24 @@ export const contentJsonSchema = z
     if (bytes > MAX_CONTENT_BYTES) ctx.addIssue({ code: "custom", message: contentTooLargeMessage(bytes) });
   })
   .transform((s, ctx) => {
+    let parsed: unknown;
     try {
-      return JSON.parse(s) as unknown;
+      parsed = JSON.parse(s);
     } catch {
       ctx.addIssue({ code: "custom", message: "The draft could not be read. Nothing was saved." });
       return z.NEVER;
     }
+    // Checked before the recursive schema walks it: depth, not size, is what breaks rendering.
+    const depth = nestingDepth(parsed);
+    if (depth.lists > MAX_LIST_DEPTH) {
+      ctx.addIssue({ code: "custom", message: `Lists are nested ${depth.lists} levels deep; at most ${MAX_LIST_DEPTH} levels can be saved and printed. Nothing was saved and your text is still in the editor: flatten the innermost lists.` });
+      return z.NEVER;
+    }
+    if (depth.nodes > MAX_NODE_DEPTH) {
+      ctx.addIssue({ code: "custom", message: `The content is nested ${depth.nodes} levels deep; at most ${MAX_NODE_DEPTH} can be saved and printed. Nothing was saved and your text is still in the editor.` });
+      return z.NEVER;
+    }
+    return parsed;
   })
   .pipe(richDocSchema);
 

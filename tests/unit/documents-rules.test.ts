@@ -3,7 +3,7 @@ import { DOCUMENT_STATUSES, ROLES, type DocumentStatus, type Role } from "@/db/e
 import { checkTransition, DOCUMENT_ACTIONS, documentNumber, type DocumentAction } from "@/lib/documents/lifecycle";
 import { redline } from "@/lib/documents/redline";
 import { renderRichHtml } from "@/lib/documents/render-html";
-import { doc, h, p } from "@/lib/documents/rich-text";
+import { doc, h, MAX_LIST_DEPTH, nestingDepth, p, ul, type RichNode } from "@/lib/documents/rich-text";
 import { sanitizeRichHtml } from "@/lib/documents/sanitize";
 import { contentJsonSchema, MAX_CONTENT_BYTES, richDocSchema } from "@/lib/schemas/document";
 
@@ -119,5 +119,22 @@ describe("sanitising rich text", () => {
     expect(result.success).toBe(false);
     expect(result.error?.issues[0].message).toMatch(/limit is 2 MB.*your text is still in the editor/);
     expect(contentJsonSchema.safeParse(JSON.stringify(doc(p("small")))).success).toBe(true);
+  });
+
+  const nestedLists = (levels: number): RichNode => (levels === 1 ? ul("innermost") : ul(nestedLists(levels - 1)));
+  it("measures list and node nesting without recursion, so a hostile depth cannot overflow the stack", () => {
+    expect(nestingDepth(doc(p("flat")))).toEqual({ lists: 0, nodes: 3 });
+    // doc > bulletList > listItem > bulletList > listItem > paragraph > text
+    expect(nestingDepth(doc(nestedLists(2)))).toEqual({ lists: 2, nodes: 7 });
+    let deep: unknown = { type: "text", text: "x" };
+    for (let i = 0; i < 100_000; i++) deep = { type: "paragraph", content: [deep] };
+    expect(nestingDepth(deep).nodes).toBe(100_001);
+  });
+
+  it("refuses lists nested deeper than can be printed, naming the depth and the limit", () => {
+    expect(contentJsonSchema.safeParse(JSON.stringify(doc(nestedLists(MAX_LIST_DEPTH)))).success).toBe(true);
+    const result = contentJsonSchema.safeParse(JSON.stringify(doc(nestedLists(150))));
+    expect(result.success).toBe(false);
+    expect(result.error?.issues[0].message).toMatch(/^Lists are nested 150 levels deep; at most 10 levels .* your text is still in the editor/);
   });
 });
