@@ -27,6 +27,9 @@ const envSchema = z
     REVIEW_OVERDUE_DAYS: z.coerce.number().int().positive().max(365).default(5),
     UPLOAD_DIR: z.string().default("./data/uploads"),
     UPLOAD_MAX_MB: z.coerce.number().positive().max(1024).default(25),
+    /** PDFs render in a child process with this heap cap and time limit, one at a time. */
+    PDF_MEMORY_MB: z.coerce.number().int().min(128).max(8192).default(512),
+    PDF_TIMEOUT_SECONDS: z.coerce.number().int().min(5).max(600).default(60),
     /** Where evidence bytes live: the local disk (UPLOAD_DIR) or S3-compatible object storage. */
     STORAGE_DRIVER: z.enum(["local", "s3"]).default("local"),
     S3_ENDPOINT: z.string().url().optional(),

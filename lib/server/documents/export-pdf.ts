@@ -2,29 +2,36 @@ import "server-only";
 import { getDb } from "@/db/client";
 import { appendAudit } from "@/lib/audit";
 import { TYPE_LABELS } from "@/lib/documents/lifecycle";
-import { renderDocumentPdf } from "@/lib/pdf/document-pdf";
+import { renderPdf } from "@/lib/server/pdf/render-pdf";
 import { getDocument, getVersion } from "./queries";
 import { hashContent, type DocumentActor } from "./shared";
 
 /** Renders a version to PDF and records the export in the audit trail. */
-export async function exportVersionPdf(actor: DocumentActor, input: { documentId: string; version: number }, now = new Date()) {
+export async function exportVersionPdf(
+  actor: DocumentActor,
+  input: { documentId: string; version: number },
+  now = new Date(),
+) {
   const document = await getDocument(input.documentId);
   const version = document && (await getVersion(input.documentId, input.version));
   if (!document || !version) return null;
   // The printout shows the signatures that bind to this content; earlier submissions' stay on screen.
   const signatures = version.signatures.filter((sig) => sig.contentHash === version.contentHash);
-  const bytes = await renderDocumentPdf({
-    number: document.number,
-    title: document.title,
-    typeLabel: TYPE_LABELS[document.type],
-    version: version.version,
-    status: version.status,
-    effectiveDate: version.effectiveDate,
-    contentHash: version.contentHash,
-    content: version.content,
-    signatures,
-    printedAt: now.toISOString(),
-    printedBy: actor.name,
+  const bytes = await renderPdf({
+    kind: "document",
+    input: {
+      number: document.number,
+      title: document.title,
+      typeLabel: TYPE_LABELS[document.type],
+      version: version.version,
+      status: version.status,
+      effectiveDate: version.effectiveDate,
+      contentHash: version.contentHash,
+      content: version.content,
+      signatures,
+      printedAt: now.toISOString(),
+      printedBy: actor.name,
+    },
   });
   await getDb().transaction((tx) =>
     appendAudit(
@@ -34,7 +41,14 @@ export async function exportVersionPdf(actor: DocumentActor, input: { documentId
         action: "document.exported",
         recordType: "document_version",
         recordId: version.id,
-        new: { format: "pdf", number: document.number, version: version.version, status: version.status, contentHash: version.contentHash ?? hashContent(version.content), bytes: bytes.length },
+        new: {
+          format: "pdf",
+          number: document.number,
+          version: version.version,
+          status: version.status,
+          contentHash: version.contentHash ?? hashContent(version.content),
+          bytes: bytes.length,
+        },
       },
       now,
     ),

@@ -2,7 +2,7 @@ import "server-only";
 import { strToU8, zipSync } from "fflate";
 import { getDb } from "@/db/client";
 import { appendAudit, sha256Hex } from "@/lib/audit";
-import { renderAuditPackPdf } from "@/lib/pdf/audit-pack-pdf";
+import { renderPdf } from "@/lib/server/pdf/render-pdf";
 import { readEvidenceFile } from "@/lib/server/evidence/read-file";
 import { loadAuditPack } from "./audit-pack";
 
@@ -21,7 +21,7 @@ function safeName(name: string) {
 export async function exportAuditPack(actor: Actor, input: { changeRequestId: string; format: "pdf" | "zip" }, now = new Date()) {
   const db = getDb();
   const pack = await loadAuditPack(db, input.changeRequestId);
-  const pdf = await renderAuditPackPdf({ pack, printedAt: now.toISOString(), printedBy: actor.name });
+  const pdf = await renderPdf({ kind: "audit-pack", input: { pack, printedAt: now.toISOString(), printedBy: actor.name } });
   const base = `audit-pack-${pack.cr.number}`;
   let body: Uint8Array = pdf;
   const included: string[] = [];
