@@ -9,12 +9,15 @@ import type { AuditPack } from "@/lib/server/trace/audit-pack";
 import { PDF_FONT, utc } from "./fonts";
 
 const s = StyleSheet.create({
-  page: { fontFamily: PDF_FONT, fontSize: 8.5, paddingTop: 64, paddingBottom: 50, paddingHorizontal: 40, color: "#1c1917" },
-  header: { position: "absolute", top: 22, left: 40, right: 40, borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 5 },
+  page: { fontFamily: PDF_FONT, fontSize: 8.5, paddingTop: 22, paddingBottom: 22, paddingHorizontal: 40, color: "#1c1917" },
+  frame: { flexGrow: 1 },
+  flow: { flexGrow: 1, paddingTop: 12, paddingBottom: 12 },
+  header: { borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 5 },
   number: { fontSize: 11, fontWeight: "bold", color: "#12524d" },
   small: { fontSize: 7.5, color: "#57534e" },
-  footerLeft: { position: "absolute", bottom: 22, left: 40, right: 150, fontSize: 7, color: "#57534e" },
-  footerRight: { position: "absolute", bottom: 22, right: 40, fontSize: 7, color: "#57534e" },
+  footer: { flexDirection: "row", justifyContent: "space-between" },
+  footerLeft: { flex: 1, paddingRight: 24, fontSize: 7, color: "#57534e" },
+  footerRight: { fontSize: 7, color: "#57534e" },
   h2: { fontSize: 11.5, fontWeight: "bold", marginTop: 12, marginBottom: 4, color: "#12524d" },
   h3: { fontSize: 9.5, fontWeight: "bold", marginTop: 6, marginBottom: 2 },
   p: { marginBottom: 3, lineHeight: 1.3 },
@@ -75,11 +78,24 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
   const files = pack.evidence.flatMap((r) => r.files.map((f) => ({ run: r.number, ...f })));
   return (
     <Document title={`Audit pack ${cr.number}`} author="Washproof" subject={cr.title}>
-      <Page size="A4" style={s.page}>
-        <View style={s.header} fixed>
-          <Text style={s.number}>Audit pack · {cr.number}</Text>
-          <Text>{cr.title}</Text>
-        </View>
+      <Page
+        size="A4"
+        style={s.page}
+        // Header and footer live in the page layout, which lays the content out once rather than again at every break.
+        layout={({ children, pageNumber, totalPages }) => (
+          <View style={s.frame}>
+            <View style={s.header}>
+              <Text style={s.number}>Audit pack · {cr.number}</Text>
+              <Text>{cr.title}</Text>
+            </View>
+            <View style={s.flow}>{children}</View>
+            <View style={s.footer}>
+              <Text style={s.footerLeft}>Audit pack {cr.number} · content hash {pack.contentHash.slice(0, 16)}…</Text>
+              <Text style={s.footerRight}>{`Page ${pageNumber} of ${totalPages}`}</Text>
+            </View>
+          </View>
+        )}
+      >
 
         <Text style={s.h2}>1. The record</Text>
         <KV k="Change request">
@@ -228,10 +244,6 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
         <Text style={s.small}>
           Printed {utc(printedAt)} by {printedBy} from Washproof.
         </Text>
-        <Text style={s.footerLeft} fixed>
-          Audit pack {cr.number} · content hash {pack.contentHash.slice(0, 16)}…
-        </Text>
-        <Text style={s.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
       </Page>
     </Document>
   );

@@ -7,16 +7,19 @@ import { MEANING_LABELS } from "@/lib/signatures/rules";
 import { PDF_FONT, utc } from "./fonts";
 
 const s = StyleSheet.create({
-  page: { fontFamily: PDF_FONT, fontSize: 9.5, paddingTop: 78, paddingBottom: 56, paddingHorizontal: 48, color: "#1c1917" },
+  page: { fontFamily: PDF_FONT, fontSize: 9.5, paddingTop: 24, paddingBottom: 24, paddingHorizontal: 48, color: "#1c1917" },
+  frame: { flexGrow: 1 },
+  flow: { flexGrow: 1, paddingTop: 14, paddingBottom: 14 },
   // Line height on the body only: set on the page, it stops react-pdf drawing the rendered page number.
   body: { lineHeight: 1.35 },
-  header: { position: "absolute", top: 24, left: 48, right: 48, borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 6 },
+  header: { borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 6 },
   headerRow: { flexDirection: "row", justifyContent: "space-between" },
   number: { fontSize: 11, fontWeight: "bold", color: "#12524d" },
   small: { fontSize: 8, color: "#57534e" },
   uncontrolled: { fontSize: 9, fontWeight: "bold", color: "#1c1917", borderWidth: 1, borderColor: "#1c1917", paddingHorizontal: 4, paddingVertical: 1 },
-  footerLeft: { position: "absolute", bottom: 24, left: 48, right: 160, fontSize: 7.5, color: "#57534e" },
-  footerRight: { position: "absolute", bottom: 24, right: 48, fontSize: 7.5, color: "#57534e" },
+  footer: { flexDirection: "row", justifyContent: "space-between" },
+  footerLeft: { flex: 1, paddingRight: 24, fontSize: 7.5, color: "#57534e" },
+  footerRight: { fontSize: 7.5, color: "#57534e" },
   h1: { fontSize: 15, fontWeight: "bold", marginTop: 4, marginBottom: 6 },
   h2: { fontSize: 12, fontWeight: "bold", marginTop: 10, marginBottom: 4, color: "#12524d" },
   h3: { fontSize: 10.5, fontWeight: "bold", marginTop: 8, marginBottom: 3 },
@@ -148,20 +151,36 @@ function DocumentPdf(d: DocumentPdfInput) {
   const controlled = d.status === "effective";
   return (
     <Document title={`${d.number} version ${d.version} — ${d.title}`} author="Washproof" subject={d.typeLabel}>
-      <Page size="A4" style={s.page}>
-        <View style={s.header} fixed>
-          <View style={s.headerRow}>
-            <Text style={s.number}>
-              {d.number} · Version {d.version}
-            </Text>
-            {!controlled && <Text style={s.uncontrolled}>UNCONTROLLED COPY</Text>}
+      <Page
+        size="A4"
+        style={s.page}
+        // The page layout measures content once and packs it into pages; with fixed
+        // header and footer elements every page break laid out the rest of the document again.
+        layout={({ children, pageNumber, totalPages }) => (
+          <View style={s.frame}>
+            <View style={s.header}>
+              <View style={s.headerRow}>
+                <Text style={s.number}>
+                  {d.number} · Version {d.version}
+                </Text>
+                {!controlled && <Text style={s.uncontrolled}>UNCONTROLLED COPY</Text>}
+              </View>
+              <Text>{d.title}</Text>
+              <Text style={s.small}>
+                {d.typeLabel} · Status: {STATUS_LABELS[d.status]} · Effective date: {d.effectiveDate ?? "none"}
+              </Text>
+            </View>
+            <View style={s.flow}>{children}</View>
+            <View style={s.footer}>
+              <Text style={s.footerLeft}>
+                {d.number} v{d.version} · {d.contentHash ? `SHA-256 ${d.contentHash.slice(0, 16)}…` : "draft"}
+                {controlled ? "" : " · Uncontrolled copy"}
+              </Text>
+              <Text style={s.footerRight}>{`Page ${pageNumber} of ${totalPages}`}</Text>
+            </View>
           </View>
-          <Text>{d.title}</Text>
-          <Text style={s.small}>
-            {d.typeLabel} · Status: {STATUS_LABELS[d.status]} · Effective date: {d.effectiveDate ?? "none"}
-          </Text>
-        </View>
-
+        )}
+      >
         <View style={s.body}>{(d.content.content ?? []).map((n, i) => block(n, i))}</View>
 
         <View wrap={false}>
@@ -192,12 +211,6 @@ function DocumentPdf(d: DocumentPdfInput) {
             Printed {utc(d.printedAt)} by {d.printedBy}. {controlled ? "Controlled copy as effective at printing; check Washproof for the version in force." : "Uncontrolled copy: this version is not in force."}
           </Text>
         </View>
-
-        <Text style={s.footerLeft} fixed>
-          {d.number} v{d.version} · {d.contentHash ? `SHA-256 ${d.contentHash.slice(0, 16)}…` : "draft"}
-          {controlled ? "" : " · Uncontrolled copy"}
-        </Text>
-        <Text style={s.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
       </Page>
     </Document>
   );

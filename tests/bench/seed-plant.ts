@@ -493,7 +493,7 @@ async function createSessions<T extends string>(db: Database, client: Client, us
 }
 
 /** A protocol long enough to print on about forty pages: the OQ template and its full load matrix. */
-function fortyPageProtocol(number: string): RichNode {
+export function fortyPageProtocol(number: string): RichNode {
   const base = buildTemplate({
     type: "oq_protocol",
     number,
