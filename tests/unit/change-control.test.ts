@@ -9,7 +9,7 @@ import {
   recipeVersions,
   requalificationIntervals,
   signatures,
-  testResults,
+  testSamples,
   testRuns,
   users,
   type TestRun,
@@ -74,7 +74,7 @@ async function addRun(input: { crId: string; versionId: string; testType: TestRu
     .insert(testRuns)
     .values({ number: input.number, partFamilyId: family.id, recipeVersionId: input.versionId, testType: input.testType, status: input.status, outcome: input.outcome, createdBy: people.technician.id })
     .returning();
-  await t.db.insert(testResults).values(Array.from({ length: input.samples }, (_, i) => ({ runId: run.id, sampleLabel: `S${i + 1}`, data: { counts: {} } })));
+  await t.db.insert(testSamples).values(Array.from({ length: input.samples }, (_, i) => ({ runId: run.id, sampleLabel: `S${i + 1}`, data: { counts: {} } })));
   const at = new Date().toISOString();
   if (input.performer) await t.db.insert(signatures).values({ recordType: "test_run", recordId: run.id, userId: input.performer, printedName: "p", meaning: "performed", signedAt: at, contentHash: "h" });
   if (input.verifier) await t.db.insert(signatures).values({ recordType: "test_run", recordId: run.id, userId: input.verifier, printedName: "v", meaning: "verified", signedAt: at, contentHash: "h" });

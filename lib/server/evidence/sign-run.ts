@@ -26,9 +26,9 @@ export async function signRun(input: { userId: string; password: string; runId: 
       );
     }
     if (input.meaning === "performed" && run.technicianId !== signer.id) throw new UserFacingError("Only the technician assigned to this run signs it as performed.");
-    const { hash, results } = await runContent(tx, run);
+    const { hash, samples } = await runContent(tx, run);
     if (hash !== input.contentHash) throw new UserFacingError("The run changed after you opened it. Reload the page, check the data again and sign.");
-    if (results.length === 0) throw new UserFacingError("Record at least one sample before signing.");
+    if (samples.length === 0) throw new UserFacingError("Record at least one sample before signing.");
     const outcome = await refreshOutcome(tx, run);
     const status = input.meaning === "performed" ? "performed" : "verified";
     await applySignature(tx, { signer, recordType: "test_run", recordId: run.id, meaning: input.meaning, contentHash: hash });
