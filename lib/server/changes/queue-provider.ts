@@ -9,7 +9,7 @@ import { dueRequalifications } from "./due-requalifications";
 import { loadGate } from "./snapshot";
 
 /** Change-control steps waiting for this user, and periodic requalifications falling due. */
-export const changesQueue: QueueProvider = async (user, now) => {
+export const changeQueueProvider: QueueProvider = async (user, now) => {
   const db = getDb();
   const items: QueueItem[] = [];
   const open = await db
