@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
-import { CHANGE_STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
 import type { ParameterHistory } from "@/lib/server/trace/parameter-history";
 import { BINDING_LABELS, CHANGE_LABELS, formatBytes, formatUtc, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";

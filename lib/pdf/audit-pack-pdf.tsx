@@ -1,7 +1,7 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
-import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { MEANING_LABELS, MEANING_STATEMENTS } from "@/lib/signatures/rules";
 import { BINDING_LABELS, formatBytes, OUTCOME_LABELS } from "@/lib/trace/labels";

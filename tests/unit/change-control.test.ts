@@ -17,7 +17,7 @@ import {
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
 import type { RichDoc } from "@/lib/documents/rich-text";
-import { narrativeDocument } from "@/lib/recipes/change-content";
+import { narrativeDocument } from "@/lib/changes/content";
 import { proposalSchema } from "@/lib/schemas/change";
 import { saveDraft } from "@/lib/server/documents/save-draft";
 import { approveChange } from "@/lib/server/changes/approve-change";

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { ImpactWord } from "@/components/changes/diff-view";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
-import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listChangeRequests } from "@/lib/server/changes/queries";
 

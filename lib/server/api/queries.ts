@@ -17,7 +17,7 @@ import {
   testRuns,
 } from "@/db/schema";
 import { BadCursorError, decodeCursor, encodeCursor } from "@/lib/api/cursor";
-import { narrativeText } from "@/lib/recipes/change-content";
+import { narrativeText } from "@/lib/changes/content";
 import type {
   auditEventsQuery,
   AuditEventOut,

@@ -3,7 +3,7 @@ import { eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { users, type Role } from "@/db/schema";
 import { enqueueEmail } from "@/lib/email/outbox";
-import { CHANGE_STATUS_LABELS, type ChangeStatus } from "@/lib/recipes/change-workflow";
+import { CHANGE_STATUS_LABELS, type ChangeStatus } from "@/lib/changes/workflow";
 import { changeStepEmail } from "@/templates/email/change-step";
 import { usersWithRole } from "./snapshot";
 

@@ -3,7 +3,7 @@ import { eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, changeRequestTests, recipes } from "@/db/schema";
 import { can } from "@/lib/auth/permissions";
-import { OPEN_STATUSES } from "@/lib/recipes/change-workflow";
+import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
 import { dueRequalifications } from "./due-requalifications";
 import { loadGate } from "./snapshot";

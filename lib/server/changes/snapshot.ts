@@ -13,7 +13,7 @@ import {
   userRoles,
   type Role,
 } from "@/db/schema";
-import { evaluateGate, type GateRun } from "@/lib/recipes/gate";
+import { evaluateGate, type GateRun } from "@/lib/changes/gate";
 import type { TestType } from "@/lib/recipes/test-types";
 
 export { loadRecipeSnapshot, writeRecipeContent } from "@/db/recipe-content";

@@ -10,7 +10,7 @@ import { cleaningSystems, documentVersions, partFamilies, recipes, recipeVersion
 import { DEMO_PASSWORD } from "@/db/seed-data";
 import { loadRecipeSnapshot, writeRecipeContent } from "@/db/recipe-content";
 import { appendAudit, canonicalJson, sha256Hex } from "@/lib/audit";
-import { narrativeDocument } from "@/lib/recipes/change-content";
+import { narrativeDocument } from "@/lib/changes/content";
 import { proposalSchema } from "@/lib/schemas/change";
 import { createDocumentSchema, contentJsonSchema } from "@/lib/schemas/document";
 import { createRunSchema, SAMPLE_SCHEMAS, bathRecordSchema } from "@/lib/schemas/evidence";

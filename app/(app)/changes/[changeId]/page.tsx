@@ -10,7 +10,7 @@ import { SignatureDialog } from "@/components/signatures/signature-dialog";
 import { SignatureList } from "@/components/signatures/signature-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
-import { CHANGE_KIND_LABELS, CHANGE_STEPS, CHANGE_STATUS_LABELS, stepProblem, type ChangeStep } from "@/lib/recipes/change-workflow";
+import { CHANGE_KIND_LABELS, CHANGE_STEPS, CHANGE_STATUS_LABELS, stepProblem, type ChangeStep } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getChangeRequestPage } from "@/lib/server/changes/queries";
