@@ -25,9 +25,11 @@ const EVALUATE: Record<TestType, (input: OutcomeInput) => RunOutcome> = {
 };
 
 export function computeRunOutcome(input: OutcomeInput): RunOutcome {
+  const evaluate = EVALUATE[input.testType] as ((input: OutcomeInput) => RunOutcome) | undefined;
+  if (!evaluate) return { outcome: "incomplete", code: null, basisUnit: null, samples: [], checks: [], missing: [`No evaluation is defined for the test type "${String(input.testType)}".`] };
   let result: RunOutcome;
   try {
-    result = EVALUATE[input.testType](input);
+    result = evaluate(input);
   } catch (error) {
     // A computation that refuses its input makes the run incomplete, with its reason.
     return { outcome: "incomplete", code: null, basisUnit: null, samples: [], checks: [], missing: [(error as Error).message] };

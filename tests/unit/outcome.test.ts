@@ -36,6 +36,12 @@ describe("computeRunOutcome", () => {
     expect(visual.checks.map((c) => c.title)).toEqual(["Photos"]);
   });
 
+  it("leaves a run of a test type it does not know incomplete, saying so", () => {
+    const out = computeRunOutcome({ ...base, testType: "salt_spray" as never, samples: [{ sampleLabel: "X", worstCase: false, data: {} }] });
+    expect(out.outcome).toBe("incomplete");
+    expect(out.missing).toEqual(['No evaluation is defined for the test type "salt_spray".']);
+  });
+
   it("makes the run incomplete, with the reason, when a computation refuses stored values", () => {
     const out = computeRunOutcome({ ...base, samples: [{ sampleLabel: "G", worstCase: false, data: { filterBeforeMg: 100, filterAfterMg: 99, components: 1 } }] });
     expect(out.outcome).toBe("incomplete");
