@@ -1,7 +1,7 @@
 import { asc, eq, sql } from "drizzle-orm";
 import type { Executor, Tx } from "./client";
 import { recipeParameters, recipeStages, recipeVersions } from "./schema";
-import type { RecipeSnapshot } from "@/lib/recipes/diff";
+import type { RecipeSnapshot } from "@/lib/changes/diff";
 
 /**
  * A recipe version's stages and parameters as the diff compares and signatures

@@ -2,10 +2,10 @@ import { asc, eq } from "drizzle-orm";
 import { appendAudit, canonicalJson, sha256Hex, SYSTEM_ACTOR } from "@/lib/audit";
 import { computeRunOutcome } from "@/lib/evidence/outcome";
 import { runContentHash } from "@/lib/evidence/run-hash";
-import { changeContentHash, narrativeDocument } from "@/lib/recipes/change-content";
-import { assess } from "@/lib/recipes/assess";
-import type { RecipeSnapshot } from "@/lib/recipes/diff";
-import { DEFAULT_MATRIX } from "@/lib/recipes/requalification";
+import { changeContentHash, narrativeDocument } from "@/lib/changes/content";
+import { assess } from "@/lib/changes/assess";
+import type { RecipeSnapshot } from "@/lib/changes/diff";
+import { DEFAULT_MATRIX } from "@/lib/changes/requalification";
 import { getStore } from "@/lib/storage";
 import type { Tx } from "./client";
 import { loadRecipeSnapshot, writeRecipeContent } from "./recipe-content";
@@ -25,7 +25,7 @@ import {
   requalificationMatrices,
   requalificationMatrixRows,
   signatures,
-  testResults,
+  testSamples,
   testRuns,
   type SignatureMeaning,
 } from "./schema";
@@ -225,7 +225,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
         createdAt: "2026-06-08T12:00:00.000Z",
       })
       .returning();
-    await tx.insert(testResults).values(samples.map((x, i) => ({ ...x, runId: run.id, createdAt: `2026-06-08T12:${String(i).padStart(2, "0")}:00.000Z` })));
+    await tx.insert(testSamples).values(samples.map((x, i) => ({ ...x, runId: run.id, createdAt: `2026-06-08T12:${String(i).padStart(2, "0")}:00.000Z` })));
     await appendAudit(tx, technician, { action: "test_run.created", recordType: "test_run", recordId: run.id, new: { number, testType: req.testType, changeRequest: major.cr.number, samples: samples.length } });
     // The lab's report and one photo of the worst-case basket corner, as uploaded.
     const report = new TextEncoder().encode(
@@ -241,7 +241,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       const [file] = await tx.insert(evidenceFiles).values({ ...meta, runId: run.id, sha256, sizeBytes: bytes.length, uploadedBy: technician.id }).returning();
       await appendAudit(tx, technician, { action: "evidence_file.uploaded", recordType: "evidence_file", recordId: file.id, new: { runId: run.id, name: file.originalName, sha256, sizeBytes: bytes.length } });
     }
-    const rows = await tx.select().from(testResults).where(eq(testResults.runId, run.id)).orderBy(asc(testResults.createdAt), asc(testResults.id));
+    const rows = await tx.select().from(testSamples).where(eq(testSamples.runId, run.id)).orderBy(asc(testSamples.createdAt), asc(testSamples.id));
     const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, run.id)).orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
     const { outcome } = computeRunOutcome({
       testType: req.testType,

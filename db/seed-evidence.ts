@@ -14,7 +14,7 @@ import {
   recipeVersions,
   signatures,
   systemStages,
-  testResults,
+  testSamples,
   testRuns,
   users,
   type TestType,
@@ -252,7 +252,7 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
       .returning();
     const rows = demo.samples.length
       ? await tx
-          .insert(testResults)
+          .insert(testSamples)
           .values(demo.samples.map((s, i) => ({ runId: run.id, sampleLabel: s.sampleLabel, basketPosition: s.basketPosition ?? null, worstCase: s.worstCase ?? false, data: s.data, createdAt: `${demo.performedOn}T09:0${i}:00.000Z` })))
           .returning()
       : [];

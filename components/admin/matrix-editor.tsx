@@ -8,7 +8,7 @@ import { Button } from "@/components/ui/button";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { TEST_TYPES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
-import { samplesFor, type MatrixRow } from "@/lib/recipes/requalification";
+import { samplesFor, type MatrixRow } from "@/lib/changes/requalification";
 import { MATRIX_SUBJECTS, subjectLabel, TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 
 type Draft = { uid: number; subject: string; testType: string; confidencePct: string; reliabilityPct: string };

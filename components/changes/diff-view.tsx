@@ -1,7 +1,7 @@
 import { ArrowRight } from "lucide-react";
 import { rangeWithUnit, STAGE_MODE_LABELS, withUnit } from "@/lib/format/labels";
-import type { Assessment } from "@/lib/recipes/assess";
-import type { RecipeDiff } from "@/lib/recipes/diff";
+import type { Assessment } from "@/lib/changes/assess";
+import type { RecipeDiff } from "@/lib/changes/diff";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 
 const IMPACT_TEXT = {

@@ -5,7 +5,7 @@ import { Field, FieldError } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { CHANGE_KINDS } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
-import { CHANGE_KIND_LABELS } from "@/lib/recipes/change-workflow";
+import { CHANGE_KIND_LABELS } from "@/lib/changes/workflow";
 
 export function OpenChangeForm({ action, recipeId, version }: { action: (prev: FormState, formData: FormData) => Promise<FormState>; recipeId: string; version: number }) {
   return (

@@ -10,8 +10,8 @@ import { SubmitButton } from "@/components/ui/submit-button";
 import { CHANGE_KINDS, PARAMETER_KINDS, STAGE_KINDS, STAGE_MODES, type ParameterKind } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
 import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
-import { CHANGE_KIND_LABELS, type ChangeKind } from "@/lib/recipes/change-workflow";
-import type { RecipeSnapshot } from "@/lib/recipes/diff";
+import { CHANGE_KIND_LABELS, type ChangeKind } from "@/lib/changes/workflow";
+import type { RecipeSnapshot } from "@/lib/changes/diff";
 import { hazardsOfStages } from "@/lib/recipes/hazards";
 import { PARAMETER_KIND_LABELS, UNITS_BY_KIND } from "@/lib/recipes/units";
 

@@ -1,6 +1,6 @@
 import { Archive, CircleCheck, CircleDashed, Eye, History, PenLine } from "lucide-react";
 import type { DocumentStatus } from "@/db/enums";
-import { STATUS_LABELS } from "@/lib/documents/lifecycle";
+import { DOCUMENT_STATUS_LABELS } from "@/lib/documents/lifecycle";
 
 const ICONS = { draft: PenLine, in_review: Eye, approved: CircleDashed, effective: CircleCheck, superseded: History, retired: Archive } as const;
 const TONES: Record<DocumentStatus, string> = {
@@ -18,7 +18,7 @@ export function StatusBadge({ status }: { status: DocumentStatus }) {
   return (
     <span className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-xs font-medium whitespace-nowrap ${TONES[status]}`}>
       <Icon className="h-3.5 w-3.5" aria-hidden="true" />
-      {STATUS_LABELS[status]}
+      {DOCUMENT_STATUS_LABELS[status]}
     </span>
   );
 }

@@ -8,11 +8,11 @@ import type { FormState } from "@/lib/actions/result";
 
 type Action = (prev: FormState, formData: FormData) => Promise<FormState>;
 
-export function RemoveSampleButton({ action, runId, resultId, label }: { action: Action; runId: string; resultId: string; label: string }) {
+export function RemoveSampleButton({ action, runId, sampleId, label }: { action: Action; runId: string; sampleId: string; label: string }) {
   return (
     <ActionForm action={action} showSuccess={false} aria-label={`Remove sample ${label}`}>
       <input type="hidden" name="runId" value={runId} />
-      <input type="hidden" name="resultId" value={resultId} />
+      <input type="hidden" name="sampleId" value={sampleId} />
       <SubmitButton variant="ghost" pendingText="Removing…" aria-label={`Remove sample ${label}`}>
         <Trash2 className="h-4 w-4" aria-hidden="true" />
       </SubmitButton>

@@ -1,6 +1,6 @@
 import { Caution } from "@/components/ui/caution";
 import { rangeWithUnit, STAGE_MODE_LABELS, withUnit } from "@/lib/format/labels";
-import type { RecipeSnapshot } from "@/lib/recipes/diff";
+import type { RecipeSnapshot } from "@/lib/changes/diff";
 import { hazardsOfStages } from "@/lib/recipes/hazards";
 
 /** A recipe version as a lab record: stage, parameter, setpoint, validated range, critical — with its cautions first. */

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
-import { STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
 import type { ParameterHistory } from "@/lib/server/trace/parameter-history";
 import { BINDING_LABELS, CHANGE_LABELS, formatBytes, formatUtc, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";
@@ -80,7 +80,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
               <Link href={`/changes/${change.id}`} className="font-semibold text-brand-800 hover:underline">
                 {change.number}
               </Link>{" "}
-              · {change.title} · {STATUS_LABELS[change.status]} · impact <span className="font-semibold">{humanize(change.impact)}</span> · opened by {change.author ?? "—"} on {change.openedAt.slice(0, 10)}
+              · {change.title} · {CHANGE_STATUS_LABELS[change.status]} · impact <span className="font-semibold">{humanize(change.impact)}</span> · opened by {change.author ?? "—"} on {change.openedAt.slice(0, 10)}
               {change.closedAt ? `, closed ${change.closedAt.slice(0, 10)}` : ""}
             </p>
             {change.parameterImpact && (

@@ -22,7 +22,7 @@ export const testRuns = sqliteTable(
     protocolDocumentId: text("protocol_document_id").references(() => documents.id),
     testType: text("test_type", { enum: TEST_TYPES }).notNull(),
     status: text("status", { enum: RUN_STATUSES }).notNull().default("open"),
-    /** Computed from the stored results, never typed. */
+    /** Computed from the stored samples, never typed. */
     outcome: text("outcome", { enum: OUTCOMES }),
     revision: integer("revision").notNull().default(1),
     supersedesId: text("supersedes_id"),
@@ -51,8 +51,8 @@ export const testRuns = sqliteTable(
 export type TestRun = typeof testRuns.$inferSelect;
 
 /** Raw data of one sample of a run; `data` is validated per test type. */
-export const testResults = sqliteTable(
-  "test_results",
+export const testSamples = sqliteTable(
+  "test_samples",
   {
     id: id(),
     runId: text("run_id").notNull().references(() => testRuns.id),
@@ -62,9 +62,9 @@ export const testResults = sqliteTable(
     data: text("data", { mode: "json" }).notNull(),
     createdAt: createdAt(),
   },
-  (t) => [index("test_results_run_idx").on(t.runId)],
+  (t) => [index("test_samples_run_idx").on(t.runId)],
 );
-export type TestResult = typeof testResults.$inferSelect;
+export type TestSample = typeof testSamples.$inferSelect;
 
 export const evidenceFiles = sqliteTable(
   "evidence_files",

@@ -25,7 +25,12 @@ export const cleaningSystems = sqliteTable("cleaning_systems", {
 export type CleaningSystem = typeof cleaningSystems.$inferSelect;
 
 
-/** A physical stage (tank or chamber step) of a cleaning system and what it can do. */
+/**
+ * One stage of a cleaning system: a step of its sequence and the modes it can run — a tank of a
+ * multi-tank washer, or a step of a single-chamber machine fed from its own tank (spray wash,
+ * hot-air drying). The tank is the vessel that holds the stage's bath (`tankVolumeL`, none for a
+ * dryer); the bath and filter log is kept per tank under its stage's id.
+ */
 export const systemStages = sqliteTable(
   "system_stages",
   {

@@ -98,5 +98,5 @@ export const ENDPOINTS: Record<string, EndpointRule> = {
   "GET app/api/v1/recipes/[recipeId]/versions/[version]/route.ts": token("systems.view"),
   "GET app/api/v1/test-runs/route.ts": token("evidence.view"),
   "GET app/api/v1/test-runs/[runId]/route.ts": token("evidence.view"),
-  "POST app/api/v1/test-runs/[runId]/results/route.ts": token("evidence.record", "read_write"),
+  "POST app/api/v1/test-runs/[runId]/samples/route.ts": token("evidence.record", "read_write"),
 };

@@ -30,7 +30,7 @@ export const DOCUMENT_RULES: Record<DocumentAction, Rule> = {
   retire: { from: ["effective"], to: "retired", permission: "document.approve" },
 };
 
-export const STATUS_LABELS: Record<DocumentStatus, string> = {
+export const DOCUMENT_STATUS_LABELS: Record<DocumentStatus, string> = {
   draft: "Draft",
   in_review: "In review",
   approved: "Approved",
@@ -58,7 +58,7 @@ export function checkTransition(status: DocumentStatus, action: DocumentAction, 
   const rule = DOCUMENT_RULES[action];
   if (!can(roles, rule.permission)) return { ok: false, reason: "Your role does not allow this." };
   if (!rule.from.includes(status)) {
-    return { ok: false, reason: `A version that is ${STATUS_LABELS[status].toLowerCase()} cannot be ${ACTION_WORDS[action]}.` };
+    return { ok: false, reason: `A version that is ${DOCUMENT_STATUS_LABELS[status].toLowerCase()} cannot be ${ACTION_WORDS[action]}.` };
   }
   return { ok: true, to: rule.to };
 }

@@ -5,7 +5,7 @@ import { CLASS_KEYS, gravimetricSampleSchema, particleSampleSchema, type Gravime
 import { formulaProblem } from "./files";
 
 /**
- * Our CSV formats for sample results: one row per sample, a header row with
+ * Our CSV formats for samples: one row per sample, a header row with
  * these column names (any order, case-insensitive), comma or semicolon
  * separated, UTF-8. Particle counts are absolute (as counted on the membrane),
  * whole numbers, an empty cell being 0; weighings are in mg. An empty

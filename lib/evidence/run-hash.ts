@@ -23,7 +23,7 @@ export interface HashableRun {
  */
 export function runContentHash(
   run: HashableRun,
-  results: { sampleLabel: string; basketPosition: string | null; worstCase: boolean; data: unknown }[],
+  samples: { sampleLabel: string; basketPosition: string | null; worstCase: boolean; data: unknown }[],
   files: { sha256: string; originalName: string; kind: string; sampleLabel: string | null }[],
 ) {
   const content = {
@@ -39,7 +39,8 @@ export function runContentHash(
     protocolDocumentId: run.protocolDocumentId,
     requirement: run.requirement,
     runData: run.runData ?? null,
-    results: results.map((r) => ({ sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data })),
+    // The key stays "results": every signature already given binds to content hashed under it.
+    results: samples.map((r) => ({ sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data })),
     files: files.map((f) => ({ sha256: f.sha256, name: f.originalName, kind: f.kind, sampleLabel: f.sampleLabel })),
   };
   return { content, hash: sha256Hex(canonicalJson(content)) };

@@ -1,7 +1,7 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
-import { CHANGE_KIND_LABELS, STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { MEANING_LABELS, MEANING_STATEMENTS } from "@/lib/signatures/rules";
 import { BINDING_LABELS, formatBytes, OUTCOME_LABELS } from "@/lib/trace/labels";
@@ -101,7 +101,7 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
         <KV k="Change request">
           {cr.number} · {CHANGE_KIND_LABELS[pack.kind]} · revision {pack.revision}
         </KV>
-        <KV k="Status">{STATUS_LABELS[cr.status]}</KV>
+        <KV k="Status">{CHANGE_STATUS_LABELS[cr.status]}</KV>
         <KV k="Recipe">
           {pack.recipe.code} {pack.recipe.name}: version {pack.fromVersion.version} ({humanize(pack.fromVersion.status)}) → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
         </KV>

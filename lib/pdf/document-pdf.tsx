@@ -1,7 +1,7 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import type { DocumentStatus, SignatureMeaning } from "@/db/enums";
-import { STATUS_LABELS } from "@/lib/documents/lifecycle";
+import { DOCUMENT_STATUS_LABELS } from "@/lib/documents/lifecycle";
 import type { RichNode } from "@/lib/documents/rich-text";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
 import { PDF_FONT, utc } from "./fonts";
@@ -167,7 +167,7 @@ function DocumentPdf(d: DocumentPdfInput) {
               </View>
               <Text>{d.title}</Text>
               <Text style={s.small}>
-                {d.typeLabel} · Status: {STATUS_LABELS[d.status]} · Effective date: {d.effectiveDate ?? "none"}
+                {d.typeLabel} · Status: {DOCUMENT_STATUS_LABELS[d.status]} · Effective date: {d.effectiveDate ?? "none"}
               </Text>
             </View>
             <View style={s.flow}>{children}</View>

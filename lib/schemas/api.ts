@@ -223,7 +223,7 @@ export const testRunOut = named(
     revision: z.number().int(),
     testType: z.enum(TEST_TYPES),
     status: z.enum(RUN_STATUSES),
-    outcome: z.enum(OUTCOMES).nullable().describe("Computed from the stored results, never typed"),
+    outcome: z.enum(OUTCOMES).nullable().describe("Computed from the stored samples, never typed"),
     partFamilyId: z.string(),
     partFamilyCode: z.string(),
     recipeVersionId: z.string(),
@@ -237,7 +237,7 @@ export const testRunOut = named(
 export const testRunDetailOut = named(
   "TestRunDetail",
   testRunOut.extend({
-    results: z.array(
+    samples: z.array(
       z.object({
         id: z.string(),
         sampleLabel: z.string(),
@@ -303,4 +303,4 @@ export type TestRunOut = z.infer<typeof testRunOut>;
 export type TestRunDetailOut = z.infer<typeof testRunDetailOut>;
 export type AuditEventOut = z.infer<typeof auditEventOut>;
 
-export const resultAddedOut = named("ResultAdded", z.object({ resultId: z.string(), run: testRunDetailOut }));
+export const sampleAddedOut = named("SampleAdded", z.object({ sampleId: z.string(), run: testRunDetailOut }));

@@ -161,7 +161,7 @@ export const createRunSchema = z.object({
 export type CreateRun = z.output<typeof createRunSchema>;
 
 export const runIdSchema = z.object({ runId: uuid });
-export const resultIdSchema = z.object({ runId: uuid, resultId: uuid });
+export const sampleIdSchema = z.object({ runId: uuid, sampleId: uuid });
 
 export const signRunSchema = z.object({
   runId: uuid,

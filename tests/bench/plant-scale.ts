@@ -8,7 +8,7 @@ export interface PlantScale {
   busyVersions: number;
   changeRequests: number;
   testRuns: number;
-  resultsPerRun: number;
+  samplesPerRun: number;
   auditEvents: number;
   documents: number;
   partFamilies: number;
@@ -35,7 +35,7 @@ export const SCALES: Record<PlantScale["name"], PlantScale> = {
     busyVersions: 30,
     changeRequests: 20_000,
     testRuns: 200_000,
-    resultsPerRun: 2,
+    samplesPerRun: 2,
     auditEvents: 1_000_000,
     documents: 10_000,
     partFamilies: 100,
@@ -55,7 +55,7 @@ export const SCALES: Record<PlantScale["name"], PlantScale> = {
     busyVersions: 30,
     changeRequests: 2_000,
     testRuns: 20_000,
-    resultsPerRun: 2,
+    samplesPerRun: 2,
     auditEvents: 100_000,
     documents: 1_000,
     partFamilies: 20,

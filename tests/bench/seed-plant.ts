@@ -11,9 +11,9 @@ import { chainHash, GENESIS_HASH } from "@/lib/audit/hash";
 import { hashPassword } from "@/lib/auth/password";
 import { b, doc, h, p, table, ul, type RichNode } from "@/lib/documents/rich-text";
 import { runContentHash } from "@/lib/evidence/run-hash";
-import { assess } from "@/lib/recipes/assess";
-import { changeContentHash, narrativeDocument } from "@/lib/recipes/change-content";
-import { DEFAULT_MATRIX } from "@/lib/recipes/requalification";
+import { assess } from "@/lib/changes/assess";
+import { changeContentHash, narrativeDocument } from "@/lib/changes/content";
+import { DEFAULT_MATRIX } from "@/lib/changes/requalification";
 import { buildTemplate } from "@/templates/documents";
 import { openDatabase, setProcessDatabase, type Database } from "@/db/client";
 import { loadRecipeSnapshot } from "@/db/recipe-content";
@@ -273,17 +273,17 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
       : type === "rinse_conductivity"
         ? { measuredUsPerCm: 5 + ((i + n) % 80) / 10, temperatureC: 21 + (n % 3) }
         : { readingsMNm: [38, 38 + (i % 3), 40] };
-  const result = (x: Run, n: number) => ({ id: uid(K.result, x.i * scale.resultsPerRun + n), sampleLabel: `${x.number}-${n + 1}`, basketPosition: null, worstCase: n === 0, data: sampleData(x.type, x.i, n), createdAt: iso(dayMs(x.day, 10, n)) });
+  const result = (x: Run, n: number) => ({ id: uid(K.result, x.i * scale.samplesPerRun + n), sampleLabel: `${x.number}-${n + 1}`, basketPosition: null, worstCase: n === 0, data: sampleData(x.type, x.i, n), createdAt: iso(dayMs(x.day, 10, n)) });
   await put("test_runs", ["id", "number", "part_family_id", "recipe_version_id", "change_request_id", "test_type", "status", "outcome", "revision", "technician_id", "lab", "performed_on", "created_by", "created_at"], (function* () {
     for (let i = 0; i < N; i++) {
       const x = run(i);
       yield [x.id, x.number, uid(K.family, x.family), x.version, x.cr === null ? null : uid(K.change, x.cr), x.type, x.status, x.outcome, 1, x.technician, "Larchfield cleanliness lab", iso(dayMs(x.day)).slice(0, 10), x.creator, iso(dayMs(x.day, 7))];
     }
   })());
-  await put("test_results", ["id", "run_id", "sample_label", "basket_position", "worst_case", "data", "created_at"], (function* () {
+  await put("test_samples", ["id", "run_id", "sample_label", "basket_position", "worst_case", "data", "created_at"], (function* () {
     for (let i = 0; i < N; i++) {
       const x = run(i);
-      for (let n = 0; n < scale.resultsPerRun; n++) {
+      for (let n = 0; n < scale.samplesPerRun; n++) {
         const s = result(x, n);
         yield [s.id, x.id, s.sampleLabel, null, s.worstCase ? 1 : 0, JSON.stringify(s.data), s.createdAt];
       }
@@ -291,7 +291,7 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
   })());
   const signable = Array.from({ length: signableRuns }, (_, k) => {
     const x = run(firstSignable + k);
-    const results = Array.from({ length: scale.resultsPerRun }, (_, n) => result(x, n));
+    const results = Array.from({ length: scale.samplesPerRun }, (_, n) => result(x, n));
     const hashable = { number: x.number, revision: 1, partFamilyId: uid(K.family, x.family), recipeVersionId: x.version, testType: x.type, technicianId: x.technician, lab: "Larchfield cleanliness lab", performedOn: iso(dayMs(x.day)).slice(0, 10), changeRequestId: null, protocolDocumentId: null, requirement: null, runData: null };
     return { runId: x.id, contentHash: runContentHash(hashable, results, []).hash };
   });
@@ -446,7 +446,7 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
       case 8: return { who: helena, action: change(e).status === "rejected" ? "change.rejected" : "change.withdrawn", type: "change_request", id: uid(K.change, e), now: { status: change(e).status }, reason: "The trial did not show a benefit worth a requalification." };
       case 9: return { who: helena, action: "change.closed", type: "change_request", id: uid(K.change, e), was: { status: "verified" }, now: { status: "closed" } };
       case 10: { const x = run(e); return { who: actor(x.creator), action: "test_run.created", type: "test_run", id: x.id, now: { number: x.number, testType: x.type } }; }
-      case 11: { const x = run(e); return { who: actor(x.technician), action: "test_run.csv_imported", type: "test_run", id: x.id, now: { samples: scale.resultsPerRun } }; }
+      case 11: { const x = run(e); return { who: actor(x.technician), action: "test_run.csv_imported", type: "test_run", id: x.id, now: { samples: scale.samplesPerRun } }; }
       case 12: { const x = run(e); return { who: actor(x.technician), action: "test_run.performed", type: "test_run", id: x.id, was: { status: "open" }, now: { status: "performed", outcome: x.outcome } }; }
       case 13: { const x = run(e); return { who: ines, action: "test_run.verified", type: "test_run", id: x.id, was: { status: "performed" }, now: { status: "verified" } }; }
       case 14: { const m = docMeta(e); return { who: actor(m.owner), action: "document.created", type: "document", id: uid(K.document, e), now: { number: m.number, title: m.title } }; }

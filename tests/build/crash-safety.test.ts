@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { openDatabase, setProcessDatabase } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDemo } from "@/db/seed";
-import { auditEvents, partFamilies, recipeVersions, signatures, testResults, testRuns, userRoles, users } from "@/db/schema";
+import { auditEvents, partFamilies, recipeVersions, signatures, testSamples, testRuns, userRoles, users } from "@/db/schema";
 import { verifyAuditChain } from "@/lib/audit";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { createRun } from "@/lib/server/evidence/create-run";
@@ -92,7 +92,7 @@ afterAll(async () => {
 });
 
 function postResult(runId: string, sampleLabel: string) {
-  return fetch(`${baseUrl}/api/v1/test-runs/${runId}/results`, {
+  return fetch(`${baseUrl}/api/v1/test-runs/${runId}/samples`, {
     method: "POST",
     headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
     body: JSON.stringify({ sampleLabel, worstCase: false, components: 5, filterBeforeMg: 100.2, filterAfterMg: 100.6 }),
@@ -170,7 +170,7 @@ describe("a SIGKILL in the middle of a burst of writes", () => {
       expect(chain).toMatchObject({ ok: true });
 
       // Every acknowledged result is there, and every stored result has exactly its audit event (all or nothing).
-      const rows = await db.select().from(testResults).where(inArray(testResults.runId, resultRuns));
+      const rows = await db.select().from(testSamples).where(inArray(testSamples.runId, resultRuns));
       const stored = new Set(rows.map((r) => `${r.runId}/${r.sampleLabel}`));
       expect(acked.filter((w) => !stored.has(`${w.runId}/${w.sampleLabel}`)), "acknowledged results missing after the restart").toEqual([]);
       const added = await db.select().from(auditEvents).where(and(eq(auditEvents.action, "test_run.result_added"), inArray(auditEvents.recordId, resultRuns)));

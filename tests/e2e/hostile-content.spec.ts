@@ -28,7 +28,7 @@ test.beforeAll(async ({ playwright, baseURL }) => {
   seeded = JSON.parse(out.trim().split("\n").at(-1)!);
   // A lab result posted through the API with a hostile sample label.
   const api = await playwright.request.newContext({ baseURL });
-  const res = await api.post(`/api/v1/test-runs/${seeded.runId}/results`, {
+  const res = await api.post(`/api/v1/test-runs/${seeded.runId}/samples`, {
     headers: { authorization: `Bearer ${seeded.token}` },
     data: { sampleLabel: API_LABEL, worstCase: false, acceptable: "no", observation: `API ${HOSTILE}` },
   });

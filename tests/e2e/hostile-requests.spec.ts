@@ -143,7 +143,7 @@ test.describe("no server insides in any answer", () => {
       [`/api/evidence/runs/${UNKNOWN}/import`, { headers: { "content-type": "multipart/form-data; boundary=x" }, data: "--x\r\nbroken" }],
       [`/api/evidence/runs/${UNKNOWN}/import`, { multipart: { file: { name: "c.csv", mimeType: "text/csv", buffer: Buffer.from("sample,B\nS1,1\n") }, mapping: "{not json" } }],
       [`/api/evidence/runs/${UNKNOWN}/import`, { multipart: { file: { name: "c.csv", mimeType: "text/csv", buffer: Buffer.from("sample,B\nS1,1\n") } } }],
-      [`/api/v1/test-runs/${UNKNOWN}/results`, { headers: { authorization: "Bearer wpk_forged", "content-type": "application/json" }, data: "{" }],
+      [`/api/v1/test-runs/${UNKNOWN}/samples`, { headers: { authorization: "Bearer wpk_forged", "content-type": "application/json" }, data: "{" }],
       // A server action id that does not exist, and a broken action body.
       ["/documents", { headers: { "next-action": "0".repeat(42), "content-type": "text/plain;charset=UTF-8" }, data: "[" }],
     ];

@@ -142,12 +142,12 @@ test("an auditor sees no write controls, and the API refuses a write with the au
   const headers = { Authorization: `Bearer ${token}` };
   const read = await page.request.get(`/api/v1/test-runs/${runId}`, { headers });
   expect(read.status()).toBe(200);
-  const resultsBefore = (await read.json()).results;
-  const write = await page.request.post(`/api/v1/test-runs/${runId}/results`, { headers, data: { sampleLabel: "AUDITOR-1", components: 1, counts: { E: 1 }, largest: {} } });
+  const samplesBefore = (await read.json()).samples;
+  const write = await page.request.post(`/api/v1/test-runs/${runId}/samples`, { headers, data: { sampleLabel: "AUDITOR-1", components: 1, counts: { E: 1 }, largest: {} } });
   expect(write.status()).toBe(403);
   expect(write.headers()["content-type"]).toContain("application/json");
   expect(await write.json()).toEqual({ error: "Your role does not allow this." });
-  expect((await (await page.request.get(`/api/v1/test-runs/${runId}`, { headers })).json()).results).toEqual(resultsBefore);
+  expect((await (await page.request.get(`/api/v1/test-runs/${runId}`, { headers })).json()).samples).toEqual(samplesBefore);
 });
 
 test("a token created in Account settings is shown once, reads the API, and is refused once revoked", async ({ page }) => {

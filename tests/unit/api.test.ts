@@ -4,12 +4,12 @@ import * as auditEventsRoute from "@/app/api/v1/audit-events/route";
 import * as changeRequestRoute from "@/app/api/v1/change-requests/[changeRequestId]/route";
 import * as recipesRoute from "@/app/api/v1/recipes/route";
 import * as recipeVersionRoute from "@/app/api/v1/recipes/[recipeId]/versions/[version]/route";
-import * as resultsRoute from "@/app/api/v1/test-runs/[runId]/results/route";
+import * as samplesRoute from "@/app/api/v1/test-runs/[runId]/samples/route";
 import * as openapiRoute from "@/app/api/v1/openapi.json/route";
-import { apiTokens, auditEvents, changeRequests, partFamilies, recipes, recipeVersions, testResults, users } from "@/db/schema";
+import { apiTokens, auditEvents, changeRequests, partFamilies, recipes, recipeVersions, testSamples, users } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { generateApiToken, hashApiToken } from "@/lib/auth/api-token";
-import { auditEventPage, changeRequestDetailOut, recipePage, recipeVersionOut, resultAddedOut } from "@/lib/schemas/api";
+import { auditEventPage, changeRequestDetailOut, recipePage, recipeVersionOut, sampleAddedOut } from "@/lib/schemas/api";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { revokeApiToken } from "@/lib/server/api-tokens/revoke-api-token";
 import { createRun } from "@/lib/server/evidence/create-run";
@@ -26,8 +26,8 @@ const get = (path: string, token?: string) => new Request(`${BASE}${path}`, { he
 const post = (path: string, token: string | undefined, body: string, type = "application/json") =>
   new Request(`${BASE}${path}`, { method: "POST", headers: { ...(token ? { authorization: `Bearer ${token}` } : {}), "content-type": type }, body });
 const postResult = (token: string | undefined, body: unknown, id = runId) =>
-  resultsRoute.POST(post(`/test-runs/${id}/results`, token, typeof body === "string" ? body : JSON.stringify(body)), { params: Promise.resolve({ runId: id }) });
-const count = async () => (await t.db.select().from(testResults).where(eq(testResults.runId, runId))).length;
+  samplesRoute.POST(post(`/test-runs/${id}/samples`, token, typeof body === "string" ? body : JSON.stringify(body)), { params: Promise.resolve({ runId: id }) });
+const count = async () => (await t.db.select().from(testSamples).where(eq(testSamples.runId, runId))).length;
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -139,7 +139,7 @@ describe("reading", () => {
   it("publishes an OpenAPI 3.1 document whose every path answers in this API", async () => {
     const doc = await openapiRoute.GET().json();
     expect(doc.openapi).toBe("3.1.0");
-    expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(["/recipes", "/change-requests/{changeRequestId}", "/test-runs/{runId}/results", "/audit-events"]));
+    expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(["/recipes", "/change-requests/{changeRequestId}", "/test-runs/{runId}/samples", "/audit-events"]));
     expect(doc.paths["/recipes"].get.parameters.map((p: { name: string }) => p.name)).toEqual(["limit", "cursor", "systemId"]);
     expect(doc.components.schemas.ChangeRequestDetail.properties.signatures).toBeDefined();
     expect(doc.components.schemas.RecipePage.properties.data.items.$ref).toBe("#/components/schemas/Recipe");
@@ -169,7 +169,7 @@ describe("posting lab results", () => {
       if (typeof expected === "string") expect(Object.keys(json.fieldErrors ?? {})).toContain(expected);
       else expect(json.error).toMatch(expected);
     }
-    const bad = await resultsRoute.POST(post(`/test-runs/${runId}/results`, tokens.techWrite, "sampleLabel=x", "application/x-www-form-urlencoded"), { params: Promise.resolve({ runId }) });
+    const bad = await samplesRoute.POST(post(`/test-runs/${runId}/samples`, tokens.techWrite, "sampleLabel=x", "application/x-www-form-urlencoded"), { params: Promise.resolve({ runId }) });
     expect(bad.status).toBe(415);
     const missing = "00000000-0000-4000-8000-000000000000";
     expect((await postResult(tokens.techWrite, good, missing)).status).toBe(404);
@@ -179,8 +179,8 @@ describe("posting lab results", () => {
   it("records a sample through the evidence service, recomputes the outcome, audits it under the token's owner, and refuses a duplicate with 409", async () => {
     const res = await postResult(tokens.techWrite, good);
     expect(res.status).toBe(201);
-    const body = resultAddedOut.parse(await res.json());
-    expect(body.run.results.map((r) => r.sampleLabel)).toEqual(["VB-26-001"]);
+    const body = sampleAddedOut.parse(await res.json());
+    expect(body.run.samples.map((r) => r.sampleLabel)).toEqual(["VB-26-001"]);
     expect(body.run.outcome).not.toBeNull();
     const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, runId), eq(auditEvents.action, "test_run.result_added")));
     expect(event.actorName).toBe(people.technician.name);

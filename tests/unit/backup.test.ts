@@ -14,7 +14,7 @@ import { backup } from "@/lib/backup/backup";
 import { manifestSchema, sha256File, type Manifest } from "@/lib/backup/manifest";
 import { restore } from "@/lib/backup/restore";
 import { gravimetricSampleSchema } from "@/lib/schemas/evidence";
-import { addResult } from "@/lib/server/evidence/add-result";
+import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
 import { blobKey, localStore, s3Store, setStore } from "@/lib/storage";
@@ -92,7 +92,7 @@ describe("npm run backup", () => {
     let writes = 0;
     const writer = (async () => {
       for (let i = 0; writing; i++) {
-        await addResult(tech, { runId, sample: sample(`W-${i}`) });
+        await addSample(tech, { runId, sample: sample(`W-${i}`) });
         await storeEvidenceFile(tech, { runId, name: `Balance export ${i}.csv`, bytes: new TextEncoder().encode(`sample,mg\nW-${i},${i}\n`), kind: "lab_report" });
         writes += 2;
       }

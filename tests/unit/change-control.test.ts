@@ -9,7 +9,7 @@ import {
   recipeVersions,
   requalificationIntervals,
   signatures,
-  testResults,
+  testSamples,
   testRuns,
   userRoles,
   users,
@@ -18,7 +18,7 @@ import {
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
 import type { RichDoc } from "@/lib/documents/rich-text";
-import { narrativeDocument } from "@/lib/recipes/change-content";
+import { narrativeDocument } from "@/lib/changes/content";
 import { proposalSchema } from "@/lib/schemas/change";
 import { saveDraft } from "@/lib/server/documents/save-draft";
 import { approveChange } from "@/lib/server/changes/approve-change";
@@ -26,7 +26,7 @@ import { assessChange } from "@/lib/server/changes/assess-change";
 import { closeChange } from "@/lib/server/changes/close-change";
 import { linkEvidence } from "@/lib/server/changes/link-evidence";
 import { openChangeRequest } from "@/lib/server/changes/open-change-request";
-import { changesQueue } from "@/lib/server/changes/queue";
+import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
 import { reopenChange } from "@/lib/server/changes/reopen-change";
 import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
@@ -75,7 +75,7 @@ async function addRun(input: { crId: string; versionId: string; testType: TestRu
     .insert(testRuns)
     .values({ number: input.number, partFamilyId: family.id, recipeVersionId: input.versionId, testType: input.testType, status: input.status, outcome: input.outcome, createdBy: people.technician.id })
     .returning();
-  await t.db.insert(testResults).values(Array.from({ length: input.samples }, (_, i) => ({ runId: run.id, sampleLabel: `S${i + 1}`, data: { counts: {} } })));
+  await t.db.insert(testSamples).values(Array.from({ length: input.samples }, (_, i) => ({ runId: run.id, sampleLabel: `S${i + 1}`, data: { counts: {} } })));
   const at = new Date().toISOString();
   if (input.performer) await t.db.insert(signatures).values({ recordType: "test_run", recordId: run.id, userId: input.performer, printedName: "p", meaning: "performed", signedAt: at, contentHash: "h" });
   if (input.verifier) await t.db.insert(signatures).values({ recordType: "test_run", recordId: run.id, userId: input.verifier, printedName: "v", meaning: "verified", signedAt: at, contentHash: "h" });
@@ -90,10 +90,10 @@ describe("periodic requalification", () => {
     expect(mails.some((m) => m.subject.includes("Requalification due") && m.to === "engineer@fennmoor.example")).toBe(true);
     expect(await sendRequalificationReminders()).toBe(0);
     const engineer = { ...people.engineer, email: "engineer@fennmoor.example", roles: ["engineer" as const], mustChangePassword: false };
-    const items = await changesQueue(engineer as never, new Date());
+    const items = await changeQueueProvider(engineer as never, new Date());
     expect(items.some((i) => i.kind === "Requalification due" && i.title.startsWith("R-SC1-SF") === false)).toBe(true);
     const technician = { ...people.technician, email: "technician@fennmoor.example", roles: ["technician" as const], mustChangePassword: false };
-    const techItems = await changesQueue(technician as never, new Date());
+    const techItems = await changeQueueProvider(technician as never, new Date());
     expect(techItems.find((i) => i.title.startsWith("CR-2026-002"))?.kind).toBe("Requalification tests");
   });
 });

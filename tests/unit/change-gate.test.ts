@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { CHANGE_STATUSES } from "@/db/enums";
-import { CHANGE_STEPS, stepProblem, type ChangeStep } from "@/lib/recipes/change-workflow";
-import { evaluateGate, type GateRequirement, type GateRun } from "@/lib/recipes/gate";
+import { CHANGE_STEPS, stepProblem, type ChangeStep } from "@/lib/changes/workflow";
+import { evaluateGate, type GateRequirement, type GateRun } from "@/lib/changes/gate";
 
 const particle: GateRequirement = { id: "r1", testType: "particle_cleanliness", samples: 29 };
 const gravimetric: GateRequirement = { id: "r2", testType: "gravimetric", samples: 29 };

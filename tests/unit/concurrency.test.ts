@@ -16,7 +16,7 @@ import { saveDraft } from "@/lib/server/documents/save-draft";
 import { signReview } from "@/lib/server/documents/sign-review";
 import { submitForReview } from "@/lib/server/documents/submit-for-review";
 import { UserFacingError } from "@/lib/server/errors";
-import { addResult } from "@/lib/server/evidence/add-result";
+import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { getRunRow, runContent } from "@/lib/server/evidence/run-content";
 import { signRun } from "@/lib/server/evidence/sign-run";
@@ -108,7 +108,7 @@ describe("concurrent signers", () => {
     const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
     const [version] = await t.db.select().from(recipeVersions).where(eq(recipeVersions.status, "effective")).limit(1);
     const run = await createRun(people.engineer, { partFamilyId: family.id, recipeVersionId: version.id, testType: "particle_cleanliness", technicianId: people.technician.id, lab: "Larchfield lab", performedOn: "2026-03-02" });
-    await addResult(people.technician, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "P-1", components: "1", counts: { E: "4" }, largest: {} }) });
+    await addSample(people.technician, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "P-1", components: "1", counts: { E: "4" }, largest: {} }) });
     const hash = async () => (await runContent(t.db, (await getRunRow(t.db, run.id))!)).hash;
     await signRun({ userId: people.technician.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: await hash() });
     const contentHash = await hash();

@@ -5,11 +5,11 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
-import { auditEvents, cleanlinessSpecs, emailOutbox, evidenceFiles, partFamilies, recipeVersions, testResults, testRuns, users } from "@/db/schema";
+import { auditEvents, cleanlinessSpecs, emailOutbox, evidenceFiles, partFamilies, recipeVersions, testSamples, testRuns, users } from "@/db/schema";
 import { parseSampleCsv } from "@/lib/evidence/csv-import";
 import { blobKey, localStore, setStore } from "@/lib/storage";
 import { particleRunDataSchema, particleSampleSchema } from "@/lib/schemas/evidence";
-import { addResult } from "@/lib/server/evidence/add-result";
+import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { importCsvRows } from "@/lib/server/evidence/import-csv";
 import { computeStoredOutcome } from "@/lib/server/evidence/refresh-outcome";
@@ -66,7 +66,7 @@ describe("outcome computed from stored rows", () => {
   it("gives the run's CCC and the class-by-class working, and says what is missing", async () => {
     const run = await newParticleRun();
     const sample = particleSampleSchema.parse({ sampleLabel: "P-1", components: "3", counts: { E: "14", F: "6", H: "1" }, largest: { metallicUm: "350" } });
-    await addResult(tech, { runId: run.id, sample });
+    await addSample(tech, { runId: run.id, sample });
     let outcome = await computeStoredOutcome(t.db, (await getRunRow(t.db, run.id))!);
     // [std] ISO 16232 sample report as in standards.md: E 124.94, F 53.55, H 8.92 per 1000 cm² → E7, F6, H4
     expect(outcome.code).toMatch(/^A\(.*E7\/F6\/G00\/H4/);
@@ -84,7 +84,7 @@ describe("outcome computed from stored rows", () => {
 
   it("fails a sample above its limit and an extraction that has not declined makes the run incomplete", async () => {
     const run = await newParticleRun();
-    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "P-2", components: "1", counts: { E: "40" }, largest: {} }) });
+    await addSample(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "P-2", components: "1", counts: { E: "40" }, largest: {} }) });
     await saveRunData(tech, { runId: run.id, data: particleRunDataSchema.parse({ extractionSeries: "", blankMeasured: "on", blankCounts: {} }) });
     expect((await computeStoredOutcome(t.db, (await getRunRow(t.db, run.id))!)).outcome).toBe("fail");
     await saveRunData(tech, { runId: run.id, data: particleRunDataSchema.parse({ extractionSeries: "100, 40, 20", blankMeasured: "on", blankCounts: {} }) });
@@ -96,12 +96,12 @@ describe("outcome computed from stored rows", () => {
 describe("signing, locking and revisions", () => {
   it("performed by the technician, verified by another person, then locked; a correction makes a new revision", async () => {
     const run = await newParticleRun();
-    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-1", components: "3", counts: { E: "14" }, largest: {} }) });
+    await addSample(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-1", components: "3", counts: { E: "14" }, largest: {} }) });
     const { hash } = await runContent(t.db, (await getRunRow(t.db, run.id))!);
     await expect(signRun({ userId: engineer.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: hash })).rejects.toThrow(/Only the technician/);
     await expect(signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: "0".repeat(64) })).rejects.toThrow(/changed after you opened it/);
     await signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: hash });
-    await expect(addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-2", components: "1", counts: {}, largest: {} }) })).rejects.toThrow(/locked/);
+    await expect(addSample(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-2", components: "1", counts: {}, largest: {} }) })).rejects.toThrow(/locked/);
     await expect(signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "verified", contentHash: hash })).rejects.toThrow(/another person/);
     await signRun({ userId: engineer.id, password: DEMO_PASSWORD, runId: run.id, meaning: "verified", contentHash: hash });
     expect((await getRunRow(t.db, run.id))!.status).toBe("verified");
@@ -109,15 +109,15 @@ describe("signing, locking and revisions", () => {
     const next = await reviseRun(engineer, { runId: run.id, reason: "Lab corrected the E count" });
     expect(next).toMatchObject({ number: run.number, revision: 2, status: "open", supersedesId: run.id, revisionReason: "Lab corrected the E count" });
     expect((await getRunRow(t.db, run.id))!.status).toBe("superseded");
-    expect(await t.db.select().from(testResults).where(eq(testResults.runId, next.id))).toHaveLength(1);
+    expect(await t.db.select().from(testSamples).where(eq(testSamples.runId, next.id))).toHaveLength(1);
     const trail = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, next.id));
     expect(trail.map((e) => e.action)).toContain("test_run.revised");
   });
 
   it("refuses verification by whoever entered the run's data, whatever roles they hold", async () => {
     const run = await newParticleRun();
-    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-1", components: "3", counts: { E: "14" }, largest: {} }) });
-    await addResult(engineer, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-2", components: "3", counts: { E: "12" }, largest: {} }) });
+    await addSample(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-1", components: "3", counts: { E: "14" }, largest: {} }) });
+    await addSample(engineer, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "S-2", components: "3", counts: { E: "12" }, largest: {} }) });
     const { hash } = await runContent(t.db, (await getRunRow(t.db, run.id))!);
     await signRun({ userId: tech.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: hash });
     await expect(signRun({ userId: engineer.id, password: DEMO_PASSWORD, runId: run.id, meaning: "verified", contentHash: hash })).rejects.toThrow(
@@ -158,15 +158,15 @@ describe("evidence files", () => {
 describe("CSV import service", () => {
   it("saves all rows and the file in one transaction, or nothing", async () => {
     const run = await newParticleRun();
-    await addResult(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "C-2", components: "1", counts: {}, largest: {} }) });
+    await addSample(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "C-2", components: "1", counts: {}, largest: {} }) });
     const csv = "sample,components,E,F\nC-1,1,10,2\nC-2,1,11,3\n";
     const parsed = await parseSampleCsv(csv);
     const bytes = new TextEncoder().encode(csv);
     await expect(importCsvRows(tech, { runId: run.id, testType: "particle_cleanliness", rows: parsed.rows, fileName: "counts.csv", bytes })).rejects.toThrow(/Already recorded in this run: C-2/);
-    expect(await t.db.select().from(testResults).where(eq(testResults.runId, run.id))).toHaveLength(1);
+    expect(await t.db.select().from(testSamples).where(eq(testSamples.runId, run.id))).toHaveLength(1);
     const good = await parseSampleCsv("sample,components,E,F\nC-3,1,10,2\nC-4,1,11,3\n");
     await importCsvRows(tech, { runId: run.id, testType: "particle_cleanliness", rows: good.rows, fileName: "counts.csv", bytes });
-    expect(await t.db.select().from(testResults).where(eq(testResults.runId, run.id))).toHaveLength(3);
+    expect(await t.db.select().from(testSamples).where(eq(testSamples.runId, run.id))).toHaveLength(3);
     expect(await t.db.select().from(evidenceFiles).where(and(eq(evidenceFiles.runId, run.id), eq(evidenceFiles.kind, "csv")))).toHaveLength(1);
   });
 });

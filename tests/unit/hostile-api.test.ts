@@ -7,10 +7,10 @@ import * as systemsRoute from "@/app/api/v1/cleaning-systems/route";
 import * as recipeRoute from "@/app/api/v1/recipes/[recipeId]/route";
 import * as recipeVersionRoute from "@/app/api/v1/recipes/[recipeId]/versions/[version]/route";
 import * as recipesRoute from "@/app/api/v1/recipes/route";
-import * as resultsRoute from "@/app/api/v1/test-runs/[runId]/results/route";
+import * as samplesRoute from "@/app/api/v1/test-runs/[runId]/samples/route";
 import * as testRunRoute from "@/app/api/v1/test-runs/[runId]/route";
 import * as testRunsRoute from "@/app/api/v1/test-runs/route";
-import { auditEvents, partFamilies, recipes, recipeVersions, testResults, users } from "@/db/schema";
+import { auditEvents, partFamilies, recipes, recipeVersions, testSamples, users } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { auditQuerySchema } from "@/lib/schemas/audit";
 import { evidenceListQuerySchema } from "@/lib/schemas/evidence-list";
@@ -129,11 +129,11 @@ describe("no server insides in API answers", () => {
   it("broken and hostile result bodies are refused with a message and write nothing", async () => {
     const bodies = ["{", "null", "[]", '"text"', "1e309", '{"sampleLabel":{"$gt":""}}', `{"sampleLabel":"${"x".repeat(100)}"}`, JSON.stringify({ sampleLabel: "S1", __proto__: { admin: true } }), "[".repeat(5000) + "]".repeat(5000)];
     for (const body of bodies) {
-      const res = await call(resultsRoute.POST, `/test-runs/${runId}/results`, tech, { runId }, { method: "POST", body, headers: { "content-type": "application/json" } });
+      const res = await call(samplesRoute.POST, `/test-runs/${runId}/samples`, tech, { runId }, { method: "POST", body, headers: { "content-type": "application/json" } });
       expect(res.status, body.slice(0, 40)).toBeGreaterThanOrEqual(400);
       expect(res.status, body.slice(0, 40)).toBeLessThan(500);
       await plain(res);
     }
-    expect(await t.db.select().from(testResults).where(eq(testResults.runId, runId))).toEqual([]);
+    expect(await t.db.select().from(testSamples).where(eq(testSamples.runId, runId))).toEqual([]);
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { PARAMETER_KINDS, type ParameterKind } from "@/db/enums";
-import { diffRecipes, type ParameterSnapshot, type RecipeSnapshot } from "@/lib/recipes/diff";
+import { diffRecipes, type ParameterSnapshot, type RecipeSnapshot } from "@/lib/changes/diff";
 import { UNITS_BY_KIND } from "@/lib/recipes/units";
 
 function param(kind: ParameterKind, over: Partial<ParameterSnapshot> = {}): ParameterSnapshot {

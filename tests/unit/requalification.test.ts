@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
-import { assess, raiseProblem } from "@/lib/recipes/assess";
-import type { RecipeSnapshot } from "@/lib/recipes/diff";
-import { DEFAULT_MATRIX, requiredTests, samplesFor, type MatrixRow } from "@/lib/recipes/requalification";
-import { dueState, requalificationDue } from "@/lib/recipes/periodic";
+import { assess, raiseProblem } from "@/lib/changes/assess";
+import type { RecipeSnapshot } from "@/lib/changes/diff";
+import { DEFAULT_MATRIX, requiredTests, samplesFor, type MatrixRow } from "@/lib/changes/requalification";
+import { dueState, requalificationDue } from "@/lib/changes/periodic";
 
 const base: RecipeSnapshot = {
   detergent: "Alkaline cleaner AC-14",

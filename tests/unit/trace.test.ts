@@ -26,7 +26,7 @@ import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace
 import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
 import type { RichDoc } from "@/lib/documents/rich-text";
-import { narrativeDocument } from "@/lib/recipes/change-content";
+import { narrativeDocument } from "@/lib/changes/content";
 import { saveDraft } from "@/lib/server/documents/save-draft";
 import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";

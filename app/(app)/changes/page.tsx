@@ -3,7 +3,7 @@ import Link from "next/link";
 import { ImpactWord } from "@/components/changes/diff-view";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
-import { CHANGE_KIND_LABELS, STATUS_LABELS } from "@/lib/recipes/change-workflow";
+import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listChangeRequests } from "@/lib/server/changes/queries";
 
@@ -48,7 +48,7 @@ export default async function ChangesPage() {
                   <td className="px-3 py-2">
                     <ImpactWord impact={r.impact} />
                   </td>
-                  <td className="px-3 py-2">{STATUS_LABELS[r.status]}</td>
+                  <td className="px-3 py-2">{CHANGE_STATUS_LABELS[r.status]}</td>
                   <td className="px-3 py-2 whitespace-nowrap tabular-nums">
                     {r.createdAt.slice(0, 10)} · {r.author}
                   </td>

@@ -9,7 +9,7 @@ import {
   formToObject,
   maintenanceIntervalSchema,
   particleRunDataSchema,
-  resultIdSchema,
+  sampleIdSchema,
   reviseRunSchema,
   runIdSchema,
   SAMPLE_SCHEMAS,
@@ -19,9 +19,9 @@ import { authorize } from "@/lib/server/auth/current-user";
 import { recordBathEntry } from "@/lib/server/bath/record-bath-entry";
 import { setMaintenanceInterval } from "@/lib/server/bath/set-maintenance-interval";
 import { toActionFailure, UserFacingError } from "@/lib/server/errors";
-import { addResult } from "@/lib/server/evidence/add-result";
+import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
-import { removeResult } from "@/lib/server/evidence/remove-result";
+import { removeSample } from "@/lib/server/evidence/remove-sample";
 import { reviseRun } from "@/lib/server/evidence/revise-run";
 import { getRunRow } from "@/lib/server/evidence/run-content";
 import { saveRunData } from "@/lib/server/evidence/save-run-data";
@@ -55,7 +55,7 @@ export async function addSampleAction(_prev: FormState, formData: FormData): Pro
     if (!run) throw new UserFacingError("This test run does not exist.");
     const parsed = SAMPLE_SCHEMAS[run.testType].safeParse(formToObject(formData));
     if (!parsed.success) return invalid(parsed.error);
-    await addResult(actorOf(auth.user), { runId: run.id, sample: parsed.data });
+    await addSample(actorOf(auth.user), { runId: run.id, sample: parsed.data });
     revalidatePath(`/evidence/runs/${run.id}`);
     return { ok: true, message: `Sample ${parsed.data.sampleLabel} recorded.` };
   } catch (error) {
@@ -66,10 +66,10 @@ export async function addSampleAction(_prev: FormState, formData: FormData): Pro
 export async function removeSampleAction(_prev: FormState, formData: FormData): Promise<FormState> {
   const auth = await authorize("evidence.record");
   if (!auth.ok) return auth;
-  const parsed = resultIdSchema.safeParse(formToObject(formData));
+  const parsed = sampleIdSchema.safeParse(formToObject(formData));
   if (!parsed.success) return invalid(parsed.error);
   try {
-    await removeResult(actorOf(auth.user), parsed.data);
+    await removeSample(actorOf(auth.user), parsed.data);
     revalidatePath(`/evidence/runs/${parsed.data.runId}`);
     return { ok: true, message: "Sample removed." };
   } catch (error) {

@@ -13,11 +13,11 @@ import {
   signatures,
   sites,
   systemStages,
-  testResults,
+  testSamples,
   testRuns,
 } from "@/db/schema";
 import { BadCursorError, decodeCursor, encodeCursor } from "@/lib/api/cursor";
-import { narrativeText } from "@/lib/recipes/change-content";
+import { narrativeText } from "@/lib/changes/content";
 import type {
   auditEventsQuery,
   AuditEventOut,
@@ -235,14 +235,14 @@ export async function getTestRunApi(runId: string): Promise<TestRunDetailOut | u
   const [head] = await runRows(eq(testRuns.id, runId), 1);
   if (!head) return undefined;
   const db = getDb();
-  const [results, files, sigs] = await Promise.all([
-    db.select().from(testResults).where(eq(testResults.runId, runId)).orderBy(asc(testResults.createdAt), asc(testResults.sampleLabel)),
+  const [samples, files, sigs] = await Promise.all([
+    db.select().from(testSamples).where(eq(testSamples.runId, runId)).orderBy(asc(testSamples.createdAt), asc(testSamples.sampleLabel)),
     db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, runId)).orderBy(asc(evidenceFiles.uploadedAt)),
     db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), eq(signatures.recordId, runId))).orderBy(asc(signatures.signedAt)),
   ]);
   return {
     ...head.out,
-    results: results.map((r) => ({ id: r.id, sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data as Record<string, unknown> })),
+    samples: samples.map((r) => ({ id: r.id, sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data as Record<string, unknown> })),
     files: files.map((f) => ({ id: f.id, originalName: f.originalName, mimeType: f.mimeType, sizeBytes: f.sizeBytes, sha256: f.sha256 })),
     signatures: sigs.map((s) => ({ printedName: s.printedName, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash })),
   };

@@ -48,7 +48,7 @@ export async function listMaintenance(now = new Date()): Promise<MaintenanceItem
   return items;
 }
 
-/** Tanks (stages that hold a bath) of every system, for the bath log index. */
+/** Every system stage with its tank, for the bath log index (a stage whose tank volume is unknown is still listed). */
 export async function listTanks() {
   return getDb()
     .select({ stage: systemStages, system: cleaningSystems })

@@ -2,7 +2,7 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { partFamilies, recipes, recipeVersions, requalificationIntervals } from "@/db/schema";
-import { dueState, requalificationDue } from "@/lib/recipes/periodic";
+import { dueState, requalificationDue } from "@/lib/changes/periodic";
 
 /** Validated combinations on effective recipe versions that are overdue or fall due within 30 days. */
 export async function dueRequalifications(db: Executor, now: Date) {

@@ -1,5 +1,5 @@
 import "server-only";
-import { stepProblem, type ChangeStep } from "@/lib/recipes/change-workflow";
+import { stepProblem, type ChangeStep } from "@/lib/changes/workflow";
 import { UserFacingError } from "@/lib/server/errors";
 import type { ChangeState } from "./state";
 

@@ -3,7 +3,7 @@ import { eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { users, type Role } from "@/db/schema";
 import { enqueueEmail } from "@/lib/email/outbox";
-import { STATUS_LABELS, type ChangeStatus } from "@/lib/recipes/change-workflow";
+import { CHANGE_STATUS_LABELS, type ChangeStatus } from "@/lib/changes/workflow";
 import { changeStepEmail } from "@/templates/email/change-step";
 import { usersWithRole } from "./snapshot";
 
@@ -18,6 +18,6 @@ export async function notifyNext(
     const [u] = await tx.select({ email: users.email, active: users.active }).from(users).where(eq(users.id, id));
     if (u?.active) recipients.set(id, u.email);
   }
-  const mail = changeStepEmail({ number: input.cr.number, title: input.cr.title, status: STATUS_LABELS[input.status], actorName: input.actorName, nextStep: input.nextStep, changeRequestId: input.cr.id });
+  const mail = changeStepEmail({ number: input.cr.number, title: input.cr.title, status: CHANGE_STATUS_LABELS[input.status], actorName: input.actorName, nextStep: input.nextStep, changeRequestId: input.cr.id });
   for (const to of recipients.values()) await enqueueEmail(tx, { to, ...mail });
 }

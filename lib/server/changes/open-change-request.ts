@@ -3,9 +3,9 @@ import { and, desc, eq, inArray, like } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequestAssessments, changeRequests, documents, documentVersions, recipes, recipeVersions } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
-import { OPEN_STATUSES, type ChangeKind } from "@/lib/recipes/change-workflow";
+import { OPEN_STATUSES, type ChangeKind } from "@/lib/changes/workflow";
 import { UserFacingError } from "@/lib/server/errors";
-import { narrativeDocument } from "@/lib/recipes/change-content";
+import { narrativeDocument } from "@/lib/changes/content";
 import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
 
 /**

@@ -3,7 +3,7 @@ import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequestAssessments, changeRequests } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
-import { assess, raiseProblem } from "@/lib/recipes/assess";
+import { assess, raiseProblem } from "@/lib/changes/assess";
 import type { Proposal } from "@/lib/schemas/change";
 import { UserFacingError } from "@/lib/server/errors";
 import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";

@@ -7,13 +7,13 @@ import {
   changeRequestTests,
   documentVersions,
   signatures,
-  testResults,
+  testSamples,
   testRuns,
   users,
   userRoles,
   type Role,
 } from "@/db/schema";
-import { evaluateGate, type GateRun } from "@/lib/recipes/gate";
+import { evaluateGate, type GateRun } from "@/lib/changes/gate";
 import type { TestType } from "@/lib/recipes/test-types";
 
 export { loadRecipeSnapshot, writeRecipeContent } from "@/db/recipe-content";
@@ -36,7 +36,7 @@ export async function loadGate(db: Executor, changeRequestId: string) {
     : [];
   const runIds = [...new Set([...links.map((l) => l.testRunId), ...tied.map((t) => t.id)])];
   const runs = runIds.length ? await db.select().from(testRuns).where(inArray(testRuns.id, runIds)) : [];
-  const counts = runIds.length ? await db.select({ runId: testResults.runId }).from(testResults).where(inArray(testResults.runId, runIds)) : [];
+  const counts = runIds.length ? await db.select({ runId: testSamples.runId }).from(testSamples).where(inArray(testSamples.runId, runIds)) : [];
   const sigs = runIds.length
     ? await db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, runIds)))
     : [];

@@ -11,11 +11,11 @@ import {
   requalificationMatrices,
   requalificationMatrixRows,
 } from "@/db/schema";
-import { assess } from "@/lib/recipes/assess";
-import type { MatrixRow } from "@/lib/recipes/requalification";
+import { assess } from "@/lib/changes/assess";
+import type { MatrixRow } from "@/lib/changes/requalification";
 import type { MatrixSubject, TestType } from "@/lib/recipes/test-types";
 import { UserFacingError } from "@/lib/server/errors";
-import { changeContentHash } from "@/lib/recipes/change-content";
+import { changeContentHash } from "@/lib/changes/content";
 import { loadNarrative, loadRecipeSnapshot } from "./snapshot";
 
 export async function getEffectiveMatrix(db: Executor) {

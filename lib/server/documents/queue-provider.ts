@@ -6,7 +6,7 @@ import { TYPE_LABELS } from "@/lib/documents/lifecycle";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
 
 /** Reviews and approvals whose turn has come for the user, and the user's drafts that were returned. */
-export const documentQueue: QueueProvider = async (user) => {
+export const documentQueueProvider: QueueProvider = async (user) => {
   const db = getDb();
   const steps = await db
     .select({ review: documentReviews, version: documentVersions, document: documents })

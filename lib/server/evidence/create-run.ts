@@ -6,7 +6,7 @@ import { appendAudit, type AuditActor } from "@/lib/audit";
 import type { CreateRun } from "@/lib/schemas/evidence";
 import { UserFacingError } from "@/lib/server/errors";
 
-/** Opens a test run with its context; results are added afterwards. */
+/** Opens a test run with its context; samples are added afterwards. */
 export async function createRun(actor: { id: string; name: string } & AuditActor, input: CreateRun) {
   return getDb().transaction(async (tx) => {
     const [family] = await tx.select().from(partFamilies).where(eq(partFamilies.id, input.partFamilyId));

@@ -1,7 +1,7 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { evidenceFiles, testResults } from "@/db/schema";
+import { evidenceFiles, testSamples } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { isCsvTestType, type CsvSample } from "@/lib/evidence/csv-import";
 import { UserFacingError } from "@/lib/server/errors";
@@ -27,11 +27,11 @@ export async function importCsvRows(
     // The rows were validated for one test type; the run must be of that type.
     if (run.testType !== input.testType) throw new UserFacingError("The file was read for another test type than this run's. Nothing was imported.");
     const labels = input.rows.map((r) => r.sampleLabel);
-    const recorded = new Set((await tx.select({ label: testResults.sampleLabel }).from(testResults).where(eq(testResults.runId, run.id))).map((e) => e.label));
+    const recorded = new Set((await tx.select({ label: testSamples.sampleLabel }).from(testSamples).where(eq(testSamples.runId, run.id))).map((e) => e.label));
     const clash = labels.filter((l) => recorded.has(l));
     if (clash.length > 0) throw new UserFacingError(`Already recorded in this run: ${clash.slice(0, 10).join(", ")}. Nothing was imported.`);
     const values = input.rows.map(({ sampleLabel, basketPosition, worstCase, ...data }) => ({ runId: run.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data }));
-    for (let i = 0; i < values.length; i += 500) await tx.insert(testResults).values(values.slice(i, i + 500));
+    for (let i = 0; i < values.length; i += 500) await tx.insert(testSamples).values(values.slice(i, i + 500));
     const [file] = await tx
       .insert(evidenceFiles)
       .values({ runId: run.id, sha256, originalName: input.fileName, mimeType: "text/csv", sizeBytes: input.bytes.byteLength, kind: "csv", uploadedBy: actor.id })

@@ -12,7 +12,7 @@ import {
   partFamilies,
   recipes,
   recipeVersions,
-  testResults,
+  testSamples,
   testRuns,
   userRoles,
   users,
@@ -115,7 +115,7 @@ export async function getRunDetail(runId: string) {
     .leftJoin(tech, eq(tech.id, testRuns.technicianId))
     .where(eq(testRuns.id, runId));
   if (!row) return undefined;
-  const { hash, results } = await runContent(db, row.run);
+  const { hash, samples } = await runContent(db, row.run);
   const files = await db
     .select({ file: evidenceFiles, uploader: users.name })
     .from(evidenceFiles)
@@ -142,7 +142,7 @@ export async function getRunDetail(runId: string) {
           .then((r) => r[0]?.cr),
     row.run.protocolDocumentId ? db.select().from(documents).where(eq(documents.id, row.run.protocolDocumentId)).then((r) => r[0]) : undefined,
   ]);
-  return { ...row, contentHash: hash, results, files, signatures, outcome, revisions, change, protocol };
+  return { ...row, contentHash: hash, samples, files, signatures, outcome, revisions, change, protocol };
 }
 export type RunDetail = NonNullable<Awaited<ReturnType<typeof getRunDetail>>>;
 
@@ -152,7 +152,7 @@ export async function particleHistory(partFamilyId: string, recipeVersionId?: st
   const where = [eq(testRuns.partFamilyId, partFamilyId), eq(testRuns.testType, "particle_cleanliness"), ne(testRuns.status, "superseded")];
   if (recipeVersionId) where.push(eq(testRuns.recipeVersionId, recipeVersionId));
   const runs = await db.select().from(testRuns).where(and(...where)).orderBy(asc(testRuns.performedOn), asc(testRuns.number));
-  const samples = runs.length ? await db.select().from(testResults).where(inArray(testResults.runId, runs.map((r) => r.id))) : [];
+  const samples = runs.length ? await db.select().from(testSamples).where(inArray(testSamples.runId, runs.map((r) => r.id))) : [];
   const [family] = await db
     .select({ family: partFamilies, spec: cleanlinessSpecs })
     .from(partFamilies)

@@ -21,7 +21,7 @@ export const evidenceQueueProvider: QueueProvider = async (user) => {
         id: `perform:${run.id}`,
         kind: "Perform test",
         title: `${run.number}${run.revision > 1 ? ` rev ${run.revision}` : ""} · ${humanize(run.testType)}`,
-        detail: `${family}, lab ${run.lab ?? "—"}; record the results and sign as performed`,
+        detail: `${family}, lab ${run.lab ?? "—"}; record the samples and sign as performed`,
         href: `/evidence/runs/${run.id}`,
         due: run.performedOn ? `${run.performedOn}T23:59:59.000Z` : null,
       })),

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { cleanlinessSpecs, evidenceFiles, partFamilies, recipeParameters, testResults, testRuns, type TestRun } from "@/db/schema";
+import { cleanlinessSpecs, evidenceFiles, partFamilies, recipeParameters, testSamples, testRuns, type TestRun } from "@/db/schema";
 import { computeRunOutcome, type RunOutcome } from "@/lib/evidence/outcome";
 
 /** Everything the outcome is computed from, read from the stored rows. */
@@ -15,7 +15,7 @@ export async function computeStoredOutcome(db: Executor, run: TestRun): Promise<
     .select({ setpoint: recipeParameters.setpoint })
     .from(recipeParameters)
     .where(and(eq(recipeParameters.versionId, run.recipeVersionId), eq(recipeParameters.kind, "conductivity_limit")));
-  const samples = await db.select().from(testResults).where(eq(testResults.runId, run.id));
+  const samples = await db.select().from(testSamples).where(eq(testSamples.runId, run.id));
   const photos = await db.select({ id: evidenceFiles.id }).from(evidenceFiles).where(and(eq(evidenceFiles.runId, run.id), eq(evidenceFiles.kind, "photo")));
   return computeRunOutcome({
     testType: run.testType,

@@ -1,7 +1,7 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { changeRequestEvidence, evidenceFiles, testResults, testRuns } from "@/db/schema";
+import { changeRequestEvidence, evidenceFiles, testSamples, testRuns } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { refreshOutcome } from "./refresh-outcome";
@@ -25,8 +25,8 @@ export async function reviseRun(actor: { id: string; name: string }, input: { ru
       .insert(testRuns)
       .values({ ...fields, revision: old.revision + 1, status: "open", supersedesId: old.id, revisionReason: input.reason, createdBy: actor.id })
       .returning();
-    const results = await tx.select().from(testResults).where(eq(testResults.runId, old.id));
-    if (results.length) await tx.insert(testResults).values(results.map(({ id: _r, createdAt, ...r }) => ({ ...r, createdAt, runId: next.id })));
+    const samples = await tx.select().from(testSamples).where(eq(testSamples.runId, old.id));
+    if (samples.length) await tx.insert(testSamples).values(samples.map(({ id: _r, createdAt, ...r }) => ({ ...r, createdAt, runId: next.id })));
     const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, old.id));
     if (files.length) await tx.insert(evidenceFiles).values(files.map(({ id: _f, ...f }) => ({ ...f, runId: next.id })));
     const links = await tx.select().from(changeRequestEvidence).where(eq(changeRequestEvidence.testRunId, old.id));

@@ -1,15 +1,15 @@
 import "server-only";
 import { asc, eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { evidenceFiles, testResults, testRuns, type TestRun } from "@/db/schema";
+import { evidenceFiles, testSamples, testRuns, type TestRun } from "@/db/schema";
 import { runContentHash } from "@/lib/evidence/run-hash";
 
 /** The run's stored rows in a stable order, and the hash a signature binds to. */
 export async function runContent(db: Executor, run: TestRun) {
-  const results = await db.select().from(testResults).where(eq(testResults.runId, run.id)).orderBy(asc(testResults.createdAt), asc(testResults.id));
+  const samples = await db.select().from(testSamples).where(eq(testSamples.runId, run.id)).orderBy(asc(testSamples.createdAt), asc(testSamples.id));
   const files = await db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, run.id)).orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
-  const { content, hash } = runContentHash(run, results, files);
-  return { content, hash, results, files };
+  const { content, hash } = runContentHash(run, samples, files);
+  return { content, hash, samples, files };
 }
 
 export async function getRunRow(db: Executor, runId: string) {

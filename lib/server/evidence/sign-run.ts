@@ -27,9 +27,9 @@ export async function signRun(input: { userId: string; password: string; runId: 
       );
     }
     if (input.meaning === "performed" && run.technicianId !== signer.id) throw new UserFacingError("Only the technician assigned to this run signs it as performed.");
-    const { hash, results } = await runContent(tx, run);
+    const { hash, samples } = await runContent(tx, run);
     if (hash !== input.contentHash) throw new UserFacingError("The run changed after you opened it. Reload the page, check the data again and sign.");
-    if (results.length === 0) throw new UserFacingError("Record at least one sample before signing.");
+    if (samples.length === 0) throw new UserFacingError("Record at least one sample before signing.");
     if (input.meaning === "verified") {
       const problem = dataEntryProblem(await dataEntrants(tx, run.id), signer.id);
       if (problem) throw new UserFacingError(problem);

@@ -3,7 +3,7 @@ import { desc, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { requalificationMatrices, requalificationMatrixRows } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
-import type { MatrixRow } from "@/lib/recipes/requalification";
+import type { MatrixRow } from "@/lib/changes/requalification";
 
 const line = (r: MatrixRow) => `${r.subject} → ${r.testType} @ ${r.confidencePct}/${r.reliabilityPct}`;
 

@@ -1,16 +1,16 @@
 import "server-only";
 import type { SessionUser } from "@/lib/server/auth/sessions";
-import { documentQueue } from "@/lib/server/documents/queue-provider";
+import { documentQueueProvider } from "@/lib/server/documents/queue-provider";
 import { bathQueueProvider } from "@/lib/server/bath/queue-provider";
 import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
-import { changesQueue } from "@/lib/server/changes/queue";
+import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
 import type { QueueItem, QueueProvider } from "./types";
 
 /**
  * Features register their providers here (documents: reviews and approvals;
  * evidence: tests to perform or verify, bath maintenance; changes: steps to act on).
  */
-const PROVIDERS: QueueProvider[] = [documentQueue, evidenceQueueProvider, bathQueueProvider, changesQueue];
+const PROVIDERS: QueueProvider[] = [documentQueueProvider, evidenceQueueProvider, bathQueueProvider, changeQueueProvider];
 
 export interface QueueEntry extends QueueItem {
   overdue: boolean;

@@ -3,7 +3,7 @@ import { asc, inArray } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { auditEvents } from "@/db/schema";
 import { verifyAuditChain } from "@/lib/audit";
-import { narrativeText } from "@/lib/recipes/change-content";
+import { narrativeText } from "@/lib/changes/content";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { changeEvidence, changeSignatures } from "./evidence-of-change";

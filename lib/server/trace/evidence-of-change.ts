@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, gte, inArray, lt, or } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { changeRequestEvidence, changeRequestTests, evidenceFiles, signatures, testResults, testRuns } from "@/db/schema";
+import { changeRequestEvidence, changeRequestTests, evidenceFiles, signatures, testSamples, testRuns } from "@/db/schema";
 
 /** Every signature on a change request, over all its revisions, oldest first. */
 export async function changeSignatures(db: Executor, changeRequestId: string) {
@@ -31,7 +31,7 @@ export async function changeEvidence(db: Executor, changeRequestId: string) {
   const ids = runs.map((r) => r.id);
   if (ids.length === 0) return [];
   const [results, sigs, files] = await Promise.all([
-    db.select({ runId: testResults.runId, worstCase: testResults.worstCase }).from(testResults).where(inArray(testResults.runId, ids)),
+    db.select({ runId: testSamples.runId, worstCase: testSamples.worstCase }).from(testSamples).where(inArray(testSamples.runId, ids)),
     db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, ids))).orderBy(asc(signatures.signedAt)),
     db.select().from(evidenceFiles).where(inArray(evidenceFiles.runId, ids)).orderBy(asc(evidenceFiles.uploadedAt)),
   ]);

@@ -2,7 +2,7 @@ import "server-only";
 import { asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, cleaningSystems, recipeParameters, recipes, recipeStages, recipeVersions, users } from "@/db/schema";
-import { narrativeText } from "@/lib/recipes/change-content";
+import { narrativeText } from "@/lib/changes/content";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadChangeState } from "@/lib/server/changes/state";

@@ -11,7 +11,7 @@ import { getDb } from "@/db/client";
 import { users } from "@/db/schema";
 import { DEMO_PASSWORD } from "@/db/seed-data";
 import { gravimetricSampleSchema } from "@/lib/schemas/evidence";
-import { addResult } from "@/lib/server/evidence/add-result";
+import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { getRunRow, runContent } from "@/lib/server/evidence/run-content";
 import { signRun } from "@/lib/server/evidence/sign-run";
@@ -25,7 +25,7 @@ const sample = gravimetricSampleSchema.parse({ sampleLabel: "G-1", worstCase: "o
 async function lane(): Promise<never> {
   for (;;) {
     const run = await createRun(engineer, { partFamilyId, recipeVersionId, testType: "gravimetric", technicianId: technician.id, lab, performedOn: "2026-03-02" });
-    await addResult(technician, { runId: run.id, sample });
+    await addSample(technician, { runId: run.id, sample });
     const { hash } = await runContent(getDb(), (await getRunRow(getDb(), run.id))!);
     await signRun({ userId: technician.id, password: DEMO_PASSWORD, runId: run.id, meaning: "performed", contentHash: hash });
     process.stdout.write(`signed ${run.id}\n`);

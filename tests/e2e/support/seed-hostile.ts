@@ -10,7 +10,7 @@ import { cleaningSystems, documentVersions, partFamilies, recipes, recipeVersion
 import { DEMO_PASSWORD } from "@/db/seed-data";
 import { loadRecipeSnapshot, writeRecipeContent } from "@/db/recipe-content";
 import { appendAudit, canonicalJson, sha256Hex } from "@/lib/audit";
-import { narrativeDocument } from "@/lib/recipes/change-content";
+import { narrativeDocument } from "@/lib/changes/content";
 import { proposalSchema } from "@/lib/schemas/change";
 import { createDocumentSchema, contentJsonSchema } from "@/lib/schemas/document";
 import { createRunSchema, SAMPLE_SCHEMAS, bathRecordSchema } from "@/lib/schemas/evidence";
@@ -26,7 +26,7 @@ import { createDocument } from "@/lib/server/documents/create-document";
 import { returnToAuthor } from "@/lib/server/documents/return-to-author";
 import { saveDraft } from "@/lib/server/documents/save-draft";
 import { submitForReview } from "@/lib/server/documents/submit-for-review";
-import { addResult } from "@/lib/server/evidence/add-result";
+import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
 import { updateSystem } from "@/lib/server/systems/update-system";
@@ -125,7 +125,7 @@ const dryer = stages.find((s) => s.name === "Dryer")!;
 const [family] = await db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
 const [version] = await db.select({ id: recipeVersions.id }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
 const run = await createRun(hostileUser, createRunSchema.parse({ partFamilyId: family.id, recipeVersionId: version.id, testType: "visual", technicianId: hostileUserId, lab: `Lab ${HOSTILE}`.slice(0, 120), performedOn: "2026-11-30", requirement: HOSTILE_SHORT }));
-await addResult(hostileUser, { runId: run.id, sample: SAMPLE_SCHEMAS.visual.parse({ sampleLabel: HOSTILE_SHORT, basketPosition: "=1+1", acceptable: "yes", observation: `Seen ${HOSTILE}` }) as never });
+await addSample(hostileUser, { runId: run.id, sample: SAMPLE_SCHEMAS.visual.parse({ sampleLabel: HOSTILE_SHORT, basketPosition: "=1+1", acceptable: "yes", observation: `Seen ${HOSTILE}` }) as never });
 const { file } = await storeEvidenceFile(hostileUser, { runId: run.id, name: "report <b onmouseover=x>1.pdf", bytes: new TextEncoder().encode("%PDF-1.4\n%%EOF\n"), kind: "lab_report", sampleLabel: HOSTILE_SHORT });
 
 // A bath-log entry with hostile notes and filter description, on Tank 2 (no maintenance intervals, so no queue item changes).

@@ -10,7 +10,7 @@ import { SignatureDialog } from "@/components/signatures/signature-dialog";
 import { SignatureList } from "@/components/signatures/signature-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
-import { CHANGE_KIND_LABELS, CHANGE_STEPS, STATUS_LABELS, stepProblem, type ChangeStep } from "@/lib/recipes/change-workflow";
+import { CHANGE_KIND_LABELS, CHANGE_STEPS, CHANGE_STATUS_LABELS, stepProblem, type ChangeStep } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getChangeRequestPage } from "@/lib/server/changes/queries";
@@ -51,7 +51,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         title={`${cr.number} · ${cr.title}`}
         description={
           <>
-            Status: <span className="font-semibold">{STATUS_LABELS[cr.status]}</span> · {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
+            Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[cr.status]}</span> · {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
             <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
               {recipe.code}
             </Link>{" "}
@@ -82,7 +82,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           {may("withdraw") && <ReasonStep action={withdrawChangeAction} changeRequestId={cr.id} label="Withdraw" />}
         </div>
         {cr.status === "closed" && <p className="mt-2 text-sm">Closed on {cr.closedAt?.slice(0, 10)}: version {toVersion.version} is effective.</p>}
-        {(cr.status === "rejected" || cr.status === "withdrawn") && <p className="mt-2 text-sm">{STATUS_LABELS[cr.status]} on {cr.closedAt?.slice(0, 10)}; proposed version {toVersion.version} was withdrawn.</p>}
+        {(cr.status === "rejected" || cr.status === "withdrawn") && <p className="mt-2 text-sm">{CHANGE_STATUS_LABELS[cr.status]} on {cr.closedAt?.slice(0, 10)}; proposed version {toVersion.version} was withdrawn.</p>}
       </section>
 
       {gateMatters && (

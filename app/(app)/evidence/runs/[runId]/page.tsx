@@ -29,7 +29,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
   const { runId } = await params;
   const detail = /^[0-9a-f-]{36}$/.test(runId) ? await getRunDetail(runId) : undefined;
   if (!detail) notFound();
-  const { run, family, spec, recipe, version, outcome, results, files, signatures, revisions } = detail;
+  const { run, family, spec, recipe, version, outcome, samples, files, signatures, revisions } = detail;
   const open = run.status === "open";
   const mayRecord = open && can(user.roles, "evidence.record");
   const label = `${run.number} revision ${run.revision}`;
@@ -62,11 +62,11 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
 
           <section aria-labelledby="samples-title" className="space-y-3">
             <h2 id="samples-title" className="text-base font-semibold">
-              Raw data ({results.length} sample{results.length === 1 ? "" : "s"})
+              Raw data ({samples.length} sample{samples.length === 1 ? "" : "s"})
             </h2>
-            {results.length > 0 && (
+            {samples.length > 0 && (
               <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
-                {results.map((r) => (
+                {samples.map((r) => (
                   <li key={r.id} className="flex items-start justify-between gap-3 px-3 py-2">
                     <div>
                       <span className="font-medium">{r.sampleLabel}</span>
@@ -74,7 +74,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
                       {r.worstCase && <span className="text-stone-600"> · worst case</span>}
                       <p className="mt-0.5 text-xs text-stone-700 tabular-nums">{describeSample(run.testType, r.data)}</p>
                     </div>
-                    {mayRecord && <RemoveSampleButton action={removeSampleAction} runId={run.id} resultId={r.id} label={r.sampleLabel} />}
+                    {mayRecord && <RemoveSampleButton action={removeSampleAction} runId={run.id} sampleId={r.id} label={r.sampleLabel} />}
                   </li>
                 ))}
               </ul>

@@ -7,8 +7,8 @@ import { RecipeTable } from "@/components/recipes/recipe-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { humanize } from "@/lib/format/labels";
-import { OPEN_STATUSES, STATUS_LABELS } from "@/lib/recipes/change-workflow";
-import { requalificationDue } from "@/lib/recipes/periodic";
+import { OPEN_STATUSES, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
+import { requalificationDue } from "@/lib/changes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRecipePage } from "@/lib/server/changes/queries";
 import { openChangeAction, setIntervalAction } from "../../../changes/actions";
@@ -56,7 +56,7 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                   <Link href={`/changes/${open.id}`} className="font-medium text-brand-800 hover:underline">
                     {open.number}
                   </Link>{" "}
-                  is open ({STATUS_LABELS[open.status].toLowerCase()}): finish or withdraw it before opening another.
+                  is open ({CHANGE_STATUS_LABELS[open.status].toLowerCase()}): finish or withdraw it before opening another.
                 </p>
               ) : (
                 <OpenChangeForm action={openChangeAction} recipeId={recipe.id} version={effective.version} />
@@ -112,7 +112,7 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                       <Link href={`/changes/${c.id}`} className="font-medium text-brand-800 hover:underline">
                         {c.number}
                       </Link>{" "}
-                      {c.title} · {STATUS_LABELS[c.status]}
+                      {c.title} · {CHANGE_STATUS_LABELS[c.status]}
                       {c.impact ? ` · ${c.impact}` : ""}
                     </li>
                   ))}

@@ -27,7 +27,7 @@ export const CHANGE_STEPS: Record<ChangeStep, { from: ChangeStatus[]; to: Change
 export function stepProblem(step: ChangeStep, status: ChangeStatus, requiredTests: number): string | null {
   const rule = CHANGE_STEPS[step];
   if (step === "close" && status === "requalification") return "Verify the change first: a second person signs it verified, and only then is it closed and made effective.";
-  if (!rule.from.includes(status)) return `A change request that is ${STATUS_LABELS[status].toLowerCase()} cannot be ${STEP_PAST[step]}.`;
+  if (!rule.from.includes(status)) return `A change request that is ${CHANGE_STATUS_LABELS[status].toLowerCase()} cannot be ${STEP_PAST[step]}.`;
   if (step === "start_requalification" && requiredTests === 0) return "This change calls for no requalification tests: verify it directly.";
   if (step === "verify" && status === "approved_for_implementation" && requiredTests > 0) return "Start requalification first: this change calls for tests.";
   return null;
@@ -44,7 +44,7 @@ const STEP_PAST: Record<ChangeStep, string> = {
   withdraw: "withdrawn",
 };
 
-export const STATUS_LABELS: Record<ChangeStatus, string> = {
+export const CHANGE_STATUS_LABELS: Record<ChangeStatus, string> = {
   draft: "Draft",
   impact_assessed: "Impact assessed",
   approved_for_implementation: "Approved for implementation",

@@ -1,4 +1,4 @@
-import { TEST_TYPE_LABELS, type TestType } from "./test-types";
+import { TEST_TYPE_LABELS, type TestType } from "@/lib/recipes/test-types";
 
 export interface GateRequirement {
   id: string;

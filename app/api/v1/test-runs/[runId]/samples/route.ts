@@ -5,7 +5,7 @@ import { jsonError, zodFieldErrors } from "@/lib/http/json";
 import { SAMPLE_SCHEMAS } from "@/lib/schemas/evidence";
 import { apiRoute, notFound, ok, parseBody } from "@/lib/server/api/handler";
 import { getTestRunApi } from "@/lib/server/api/queries";
-import { addResult } from "@/lib/server/evidence/add-result";
+import { addSample } from "@/lib/server/evidence/add-sample";
 import { getRunRow } from "@/lib/server/evidence/run-content";
 
 /**
@@ -24,6 +24,6 @@ export const POST = apiRoute<{ runId: string }>({ action: "evidence.record", mod
   if (extra) return jsonError(422, "The body has fields this test type does not take.", extra);
   const parsed = schema.safeParse(body.data);
   if (!parsed.success) return jsonError(422, "Some fields are not valid.", zodFieldErrors(parsed.error));
-  const row = await addResult({ id: user.id, name: user.name }, { runId: run.id, sample: parsed.data });
-  return ok({ resultId: row.id, run: await getTestRunApi(run.id) }, 201);
+  const row = await addSample({ id: user.id, name: user.name }, { runId: run.id, sample: parsed.data });
+  return ok({ sampleId: row.id, run: await getTestRunApi(run.id) }, 201);
 });

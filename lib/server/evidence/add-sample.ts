@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { testResults } from "@/db/schema";
+import { testSamples } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { requireOpenRun } from "./guards";
@@ -15,14 +15,14 @@ export interface SampleRow {
 }
 
 /** Adds one sample's validated raw data to an open run and recomputes the outcome. */
-export async function addResult(actor: AuditActor, input: { runId: string; sample: SampleRow }) {
+export async function addSample(actor: AuditActor, input: { runId: string; sample: SampleRow }) {
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
     const { sampleLabel, basketPosition, worstCase, ...data } = input.sample;
-    const [dup] = await tx.select({ id: testResults.id }).from(testResults).where(and(eq(testResults.runId, run.id), eq(testResults.sampleLabel, sampleLabel)));
+    const [dup] = await tx.select({ id: testSamples.id }).from(testSamples).where(and(eq(testSamples.runId, run.id), eq(testSamples.sampleLabel, sampleLabel)));
     if (dup) throw new UserFacingError(`Sample "${sampleLabel}" is already recorded in this run.`, "sampleLabel");
     const [row] = await tx
-      .insert(testResults)
+      .insert(testSamples)
       .values({ runId: run.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data })
       .returning();
     const outcome = await refreshOutcome(tx, run);

@@ -3,13 +3,13 @@ import { eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, changeRequestTests, recipes } from "@/db/schema";
 import { can } from "@/lib/auth/permissions";
-import { OPEN_STATUSES } from "@/lib/recipes/change-workflow";
+import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
 import { dueRequalifications } from "./due-requalifications";
 import { loadGate } from "./snapshot";
 
 /** Change-control steps waiting for this user, and periodic requalifications falling due. */
-export const changesQueue: QueueProvider = async (user, now) => {
+export const changeQueueProvider: QueueProvider = async (user, now) => {
   const db = getDb();
   const items: QueueItem[] = [];
   const open = await db

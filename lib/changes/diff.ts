@@ -1,6 +1,6 @@
 import { diffWords } from "diff";
 import type { ParameterKind } from "@/db/enums";
-import { convert } from "./units";
+import { convert } from "@/lib/recipes/units";
 
 export interface ParameterSnapshot {
   key: string;

@@ -1,7 +1,7 @@
 import type { STAGE_KINDS } from "@/db/enums";
 import { successRunSampleSize } from "@/lib/stats";
 import type { RecipeDiff } from "./diff";
-import type { MatrixSubject, TestType } from "./test-types";
+import type { MatrixSubject, TestType } from "@/lib/recipes/test-types";
 
 export interface MatrixRow {
   subject: MatrixSubject;
