@@ -12,7 +12,7 @@ export async function removeResult(actor: AuditActor, input: { runId: string; re
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
     const [row] = await tx.select().from(testResults).where(and(eq(testResults.id, input.resultId), eq(testResults.runId, run.id)));
-    if (!row) throw new UserFacingError("This sample is not part of the run.");
+    if (!row) throw new UserFacingError("This sample is not part of the run.", { kind: "not_found" });
     await tx.delete(testResults).where(eq(testResults.id, row.id));
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {
