@@ -20,10 +20,9 @@ export type RevalidateTarget = string | readonly [string, "layout" | "page"];
  */
 export type RunResult = { ok?: true; message?: string; redirect?: string } | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
 
-type Success<R> = R extends { ok: false } ? never : { ok: true; message?: string } & Omit<R, "ok" | "redirect">;
-type Refusal<R> = Extract<R, { ok: false }> | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
-/** The state a form reads with useActionState: the ActionResult shape, plus what `run` added. */
-export type ActionState<R> = Success<R> | Refusal<R> | null;
+type Extras<R> = R extends { ok: false } ? never : Omit<R, "ok" | "redirect" | "message">;
+/** The state a form reads with useActionState: the ActionResult shape, plus any fields `run` added (a new token). */
+export type ActionState<R> = (ActionResult & Partial<Extras<R>>) | null;
 
 export interface ActionContext<I> {
   input: I;
@@ -39,7 +38,8 @@ interface Common<S extends z.ZodType, R extends RunResult> {
   from?: "form" | "payload";
   /** The headline when the input fails its schema; the field errors go beside the fields. */
   invalidMessage?: string;
-  revalidate?: readonly RevalidateTarget[] | ((input: z.output<S>, result: R) => readonly RevalidateTarget[]);
+  /** Pages to refresh after a success; a function gets the parsed input, `run`'s result and the form as read. */
+  revalidate?: readonly RevalidateTarget[] | ((input: z.output<S>, result: Exclude<R, { ok: false }>, raw: unknown) => readonly RevalidateTarget[]);
   /** The step queued e-mail in its transaction: send it once the change is committed. */
   sendsMail?: boolean;
 }
@@ -103,7 +103,7 @@ async function perform<S extends z.ZodType, R extends RunResult>(
   }
   if (result.ok === false) return result as ActionState<R>;
   if (options.sendsMail) deliverSoon();
-  const targets = typeof options.revalidate === "function" ? options.revalidate(input, result) : (options.revalidate ?? []);
+  const targets = typeof options.revalidate === "function" ? options.revalidate(input, result as Exclude<R, { ok: false }>, raw) : (options.revalidate ?? []);
   refreshAll(targets);
   const { redirect: to, ...rest } = result as { redirect?: string } & Record<string, unknown>;
   // redirect() throws Next's own signal, so it comes after everything else and outside the try.

@@ -17,7 +17,7 @@ import {
   testRunPage,
   testRunsQuery,
 } from "@/lib/schemas/api";
-import { ENDPOINTS } from "@/lib/auth/endpoints";
+import { V1_ENDPOINTS } from "@/lib/api/v1-routes";
 import { conductivitySampleSchema, gravimetricSampleSchema, observationSampleSchema, particleSampleSchema, wettingSampleSchema } from "@/lib/schemas/evidence";
 
 export interface ApiOperation {
@@ -38,11 +38,11 @@ export function endpointKey(op: Pick<ApiOperation, "method" | "path">): string {
   return `${op.method.toUpperCase()} app/api/v1${op.path.replace(/\{(\w+)\}/g, "[$1]")}/route.ts`;
 }
 
-/** Who may call an operation comes from the endpoint registry, which the authorisation tests hold the routes to. */
+/** Who may call an operation is what its route handler declared (apiRoute), which the authorisation tests hold it to. */
 function accessText(op: ApiOperation): string {
-  const rule = ENDPOINTS[endpointKey(op)];
-  if (rule?.auth !== "token") throw new Error(`${endpointKey(op)} is not a token endpoint in lib/auth/endpoints.ts`);
-  return `Allowed to the roles that may "${rule.action}" in the role table${rule.scope === "read_write" ? ", with a read-and-write token" : ""}.`;
+  const rule = V1_ENDPOINTS[endpointKey(op)];
+  if (rule?.auth !== "token") throw new Error(`${endpointKey(op)} declares no token rule (apiRoute)`);
+  return `Allowed to the roles that may "${rule.permission}" in the role table${rule.scope === "read_write" ? ", with a read-and-write token" : ""}.`;
 }
 
 const uuidParam = (description: string) => ({ description, schema: { type: "string", format: "uuid" } });

@@ -39,3 +39,23 @@ export function ruleOf(fn: unknown): EndpointRule | undefined {
 export function permissionFor(rule: { permission: Permission; when?: PermissionSwitch }, read: (field: string) => unknown): Permission {
   return rule.when && read(rule.when.field) === rule.when.value ? rule.when.permission : rule.permission;
 }
+
+const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
+
+/**
+ * The rules declared by the endpoints of some modules, keyed as the registry names them:
+ * "<file>#<export>" for actions, "<METHOD> <file>" for route handlers. An export with no
+ * declaration is left out, so the registry test names it as undeclared.
+ */
+export function rulesOf(modules: Record<string, Record<string, unknown>>): Record<string, EndpointRule> {
+  const out: Record<string, EndpointRule> = {};
+  for (const [file, mod] of Object.entries(modules)) {
+    const isRoute = file.endsWith("/route.ts");
+    for (const [name, fn] of Object.entries(mod)) {
+      if (isRoute && !(METHODS as readonly string[]).includes(name)) continue;
+      const rule = ruleOf(fn);
+      if (rule) out[isRoute ? `${name} ${file}` : `${file}#${name}`] = rule;
+    }
+  }
+  return out;
+}

@@ -66,12 +66,6 @@ export function defineRoute<P extends Params = Params>(rule: { permission: Permi
   return declareEndpoint(route, { auth: "session", permission: rule.permission });
 }
 
-/** A route anyone may call (the API description). */
-export function publicRoute<P extends Params = Params>(handler: (ctx: { request: NextRequest; params: P }) => Promise<Response> | Response) {
-  const route = async (request: NextRequest, context: { params: Promise<P> }) => handler({ request, params: await context.params });
-  return declareEndpoint(route, { auth: "public" });
-}
-
 export function ok(body: unknown, status = 200) {
   return NextResponse.json(body, { status, headers: { "Cache-Control": "no-store" } });
 }
