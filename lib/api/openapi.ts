@@ -94,7 +94,7 @@ export const API_OPERATIONS: ApiOperation[] = [
     body: z.union([particleSampleSchema, gravimetricSampleSchema, wettingSampleSchema, conductivitySampleSchema, observationSampleSchema]).describe("The sample schema of the run's test type, in this order: particle cleanliness, gravimetric, wetting tension, rinse conductivity, visual / UV / dryness"),
     response: resultAddedOut,
     status: 201,
-    errors: [400, 401, 403, 404, 409, 415, 422],
+    errors: [400, 401, 403, 404, 409, 415, 422, 423, 503],
   },
   { method: "get", path: "/audit-events", operationId: "listAuditEvents", summary: "The audit trail, newest first", query: auditEventsQuery, response: auditEventPage, errors: [400, 401, 403] },
 ];
@@ -104,9 +104,11 @@ const ERROR_TEXT: Record<number, string> = {
   401: "No token, an unknown token, or a revoked one",
   403: "The token's scope or the owner's roles do not allow this",
   404: "No such record",
-  409: "The record's state does not allow this (e.g. a signed run)",
+  409: "The record's state does not allow this (e.g. the sample is already recorded)",
   415: "The body is not JSON",
   422: "The body breaks the schema: wrong type, missing or unknown field",
+  423: "The run is signed and locked: correct it through a new revision",
+  503: "The database is busy or read-only; nothing was changed, try again later",
 };
 
 /** A JSON Schema for embedding in the document: the dialect is the document's, not repeated per schema. */

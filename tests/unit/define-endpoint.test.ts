@@ -8,7 +8,7 @@ import { defineAction } from "@/lib/actions/define-action";
 import { arrayFields, readForm } from "@/lib/actions/read-form";
 import { appendAudit } from "@/lib/audit";
 import { ruleOf } from "@/lib/auth/endpoint-rule";
-import { defineRoute } from "@/lib/server/api/handler";
+import { apiRoute, defineRoute } from "@/lib/server/api/handler";
 import { describeFailure, ERROR_KINDS, ERROR_STATUS, toActionFailure, UserFacingError } from "@/lib/server/errors";
 import { actAs, invoke, peopleByRole } from "./support/endpoints";
 import { createTestDatabase } from "./support/test-db";
@@ -214,5 +214,22 @@ describe("defineRoute", () => {
     const before = await auditCount();
     expect((await call("fine")).status).toBe(200);
     expect(await auditCount()).toBe(before + 1);
+  });
+});
+
+describe("apiRoute", () => {
+  it("declares its token rule and answers a service's refusal by its kind, not always 409", async () => {
+    const route = apiRoute<{ kind: string }>({ permission: "evidence.view", scope: "read" }, async ({ params }) => {
+      throw new UserFacingError("Refused.", { kind: params.kind as "locked" });
+    });
+    expect(ruleOf(route)).toEqual({ auth: "token", permission: "evidence.view", scope: "read" });
+    await actAs(null);
+    const call = (kind: string) =>
+      route(new Request("http://127.0.0.1/api/v1/x", { headers: { authorization: `Bearer ${people.technician.readToken}` } }), { params: Promise.resolve({ kind }) });
+    for (const kind of ["not_found", "locked", "too_large", "invalid", "conflict"] as const) {
+      const res = await call(kind);
+      expect(res.status, kind).toBe(ERROR_STATUS[kind]);
+      expect(await res.json()).toEqual({ error: "Refused." });
+    }
   });
 });
