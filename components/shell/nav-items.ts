@@ -1,10 +1,10 @@
-import type { Action } from "@/lib/auth/permissions";
+import type { Permission } from "@/lib/auth/permissions";
 
 export interface NavItem {
   href: string;
   label: string;
   icon: "queue" | "systems" | "parts" | "documents" | "changes" | "evidence" | "trace" | "calc" | "admin";
-  permission: Action;
+  permission: Permission;
 }
 
 /** Screens are named for what the user does there. */

@@ -17,7 +17,7 @@ import {
   testRunPage,
   testRunsQuery,
 } from "@/lib/schemas/api";
-import { ENDPOINTS } from "@/lib/auth/endpoints";
+import { V1_ENDPOINTS } from "@/lib/api/v1-routes";
 import { conductivitySampleSchema, gravimetricSampleSchema, observationSampleSchema, particleSampleSchema, wettingSampleSchema } from "@/lib/schemas/evidence";
 
 export interface ApiOperation {
@@ -38,11 +38,11 @@ export function endpointKey(op: Pick<ApiOperation, "method" | "path">): string {
   return `${op.method.toUpperCase()} app/api/v1${op.path.replace(/\{(\w+)\}/g, "[$1]")}/route.ts`;
 }
 
-/** Who may call an operation comes from the endpoint registry, which the authorisation tests hold the routes to. */
+/** Who may call an operation is what its route handler declared (apiRoute), which the authorisation tests hold it to. */
 function accessText(op: ApiOperation): string {
-  const rule = ENDPOINTS[endpointKey(op)];
-  if (rule?.auth !== "token") throw new Error(`${endpointKey(op)} is not a token endpoint in lib/auth/endpoints.ts`);
-  return `Allowed to the roles that may "${rule.action}" in the role table${rule.scope === "read_write" ? ", with a read-and-write token" : ""}.`;
+  const rule = V1_ENDPOINTS[endpointKey(op)];
+  if (rule?.auth !== "token") throw new Error(`${endpointKey(op)} declares no token rule (apiRoute)`);
+  return `Allowed to the roles that may "${rule.permission}" in the role table${rule.scope === "read_write" ? ", with a read-and-write token" : ""}.`;
 }
 
 const uuidParam = (description: string) => ({ description, schema: { type: "string", format: "uuid" } });
@@ -94,7 +94,7 @@ export const API_OPERATIONS: ApiOperation[] = [
     body: z.union([particleSampleSchema, gravimetricSampleSchema, wettingSampleSchema, conductivitySampleSchema, observationSampleSchema]).describe("The sample schema of the run's test type, in this order: particle cleanliness, gravimetric, wetting tension, rinse conductivity, visual / UV / dryness"),
     response: sampleAddedOut,
     status: 201,
-    errors: [400, 401, 403, 404, 409, 415, 422],
+    errors: [400, 401, 403, 404, 409, 415, 422, 423, 503],
   },
   { method: "get", path: "/audit-events", operationId: "listAuditEvents", summary: "The audit trail, newest first", query: auditEventsQuery, response: auditEventPage, errors: [400, 401, 403] },
 ];
@@ -104,9 +104,11 @@ const ERROR_TEXT: Record<number, string> = {
   401: "No token, an unknown token, or a revoked one",
   403: "The token's scope or the owner's roles do not allow this",
   404: "No such record",
-  409: "The record's state does not allow this (e.g. a signed run)",
+  409: "The record's state does not allow this (e.g. the sample is already recorded)",
   415: "The body is not JSON",
   422: "The body breaks the schema: wrong type, missing or unknown field",
+  423: "The run is signed and locked: correct it through a new revision",
+  503: "The database is busy or read-only; nothing was changed, try again later",
 };
 
 /** A JSON Schema for embedding in the document: the dialect is the document's, not repeated per schema. */

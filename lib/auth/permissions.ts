@@ -7,7 +7,7 @@ const ACTORS: readonly Role[] = ["admin", "engineer", "reviewer", "approver", "t
 const CONTROLLERS: readonly Role[] = ["admin", "engineer", "reviewer", "approver", "auditor"];
 
 /**
- * Every action in Washproof and the roles allowed to take it. This table is the
+ * Every permission in Washproof and the roles allowed to take it. This table is the
  * single source of authorisation: pages, server actions and route handlers all
  * ask `can()`, and the authorisation tests read this table.
  */
@@ -55,10 +55,11 @@ export const PERMISSIONS = {
   "bath.manage_intervals": ["admin", "engineer"],
 } as const satisfies Record<string, readonly Role[]>;
 
-export type Action = keyof typeof PERMISSIONS;
+/** What the role table grants; "action" is kept for server actions. */
+export type Permission = keyof typeof PERMISSIONS;
 
-export function can(roles: readonly Role[], action: Action): boolean {
-  const allowed: readonly Role[] = PERMISSIONS[action];
+export function can(roles: readonly Role[], permission: Permission): boolean {
+  const allowed: readonly Role[] = PERMISSIONS[permission];
   return roles.some((r) => allowed.includes(r));
 }
 

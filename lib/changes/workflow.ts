@@ -1,5 +1,5 @@
 import { CHANGE_KINDS, type CHANGE_STATUSES } from "@/db/enums";
-import type { Action } from "@/lib/auth/permissions";
+import type { Permission } from "@/lib/auth/permissions";
 
 export type ChangeStatus = (typeof CHANGE_STATUSES)[number];
 export type ChangeStep = "assess" | "reopen" | "approve" | "start_requalification" | "verify" | "close" | "reject" | "withdraw";
@@ -12,7 +12,7 @@ export const OPEN_STATUSES: ChangeStatus[] = ["draft", "impact_assessed", "appro
  * withdrawn from any open step. A change with no required tests goes from
  * approval straight to verification. Enforced on the server (21 CFR 11.10(f)).
  */
-export const CHANGE_STEPS: Record<ChangeStep, { from: ChangeStatus[]; to: ChangeStatus; permission: Action; label: string }> = {
+export const CHANGE_STEPS: Record<ChangeStep, { from: ChangeStatus[]; to: ChangeStatus; permission: Permission; label: string }> = {
   assess: { from: ["draft"], to: "impact_assessed", permission: "change.draft", label: "Submit impact assessment" },
   reopen: { from: ["impact_assessed"], to: "draft", permission: "change.draft", label: "Reopen for editing" },
   approve: { from: ["impact_assessed"], to: "approved_for_implementation", permission: "change.approve", label: "Approve for implementation" },

@@ -1,5 +1,5 @@
 import type { DocumentStatus, DocumentType, Role } from "@/db/enums";
-import { can, type Action } from "@/lib/auth/permissions";
+import { can, type Permission } from "@/lib/auth/permissions";
 
 /**
  * The permitted sequence of steps for a controlled document (21 CFR 11.10(f)):
@@ -15,7 +15,7 @@ interface Rule {
   from: readonly DocumentStatus[];
   /** The version's status afterwards; null when the action starts a new version instead. */
   to: DocumentStatus | null;
-  permission: Action;
+  permission: Permission;
 }
 
 export const DOCUMENT_RULES: Record<DocumentAction, Rule> = {

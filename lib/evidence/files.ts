@@ -32,7 +32,11 @@ export function detectType(bytes: Uint8Array): AcceptedType | null {
 }
 
 export class FileCheckError extends Error {
-  constructor(message: string) {
+  constructor(
+    message: string,
+    /** An over-size file is refused as too large (413); anything else as invalid. */
+    readonly kind: "invalid" | "too_large" = "invalid",
+  ) {
     super(message);
     this.name = "FileCheckError";
   }
@@ -103,7 +107,7 @@ export interface CheckedFile {
  */
 export function checkUpload(input: { name: string; bytes: Uint8Array; maxBytes: number }): CheckedFile {
   if (input.bytes.byteLength > input.maxBytes) {
-    throw new FileCheckError(`The file is ${formatSize(input.bytes.byteLength)}; the limit is ${formatSize(input.maxBytes)}.`);
+    throw new FileCheckError(`The file is ${formatSize(input.bytes.byteLength)}; the limit is ${formatSize(input.maxBytes)}.`, "too_large");
   }
   if (input.bytes.byteLength === 0) throw new FileCheckError("The file is empty.");
   const name = sanitizeFileName(input.name);

@@ -1,8 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { seedDemo } from "@/db/seed";
 import { API_OPERATIONS, endpointKey } from "@/lib/api/openapi";
+import { ruleOf } from "@/lib/auth/endpoint-rule";
 import { ENDPOINTS, type EndpointRule } from "@/lib/auth/endpoints";
-import { PERMISSIONS, ROLES, type Action, type Role } from "@/lib/auth/permissions";
+import { PERMISSIONS, ROLES, type Permission, type Role } from "@/lib/auth/permissions";
 import { actAs, changedTables, describeOutcome, discoverEndpoints, invoke, peopleByRole, refusal, routeRequest, tableCounts, type Endpoint } from "./support/endpoints";
 import { createTestDatabase } from "./support/test-db";
 
@@ -26,18 +27,18 @@ afterAll(() => t.cleanup());
 type Caller = { role: Role | null; token?: "read" | "write" };
 
 /** What the registry and the role table say this caller must get: a 401, a 403, or through (null). */
-function expected(rule: EndpointRule, action: Action | null, caller: Caller): 401 | 403 | null {
+function expected(rule: EndpointRule, permission: Permission | null, caller: Caller): 401 | 403 | null {
   if (rule.auth === "public") return null;
   if (!caller.role) return 401;
   if (rule.auth === "token" && rule.scope === "read_write" && caller.token === "read") return 403;
-  return (PERMISSIONS[action!] as readonly Role[]).includes(caller.role) ? null : 403;
+  return (PERMISSIONS[permission!] as readonly Role[]).includes(caller.role) ? null : 403;
 }
 
 /** The inputs that pick which permission applies: empty, plus the switching field when the rule has one. */
-function variants(rule: EndpointRule): { action: Action | null; fields: Record<string, string> }[] {
-  if (rule.auth === "public") return [{ action: null, fields: {} }];
-  const base = { action: rule.action, fields: {} };
-  return rule.auth === "session" && rule.when ? [base, { action: rule.when.action, fields: { [rule.when.field]: rule.when.value } }] : [base];
+function variants(rule: EndpointRule): { permission: Permission | null; fields: Record<string, string> }[] {
+  if (rule.auth === "public") return [{ permission: null, fields: {} }];
+  const base = { permission: rule.permission, fields: {} };
+  return rule.auth === "session" && rule.when ? [base, { permission: rule.when.permission, fields: { [rule.when.field]: rule.when.value } }] : [base];
 }
 
 function call(e: Endpoint, fields: Record<string, string>, caller: Caller) {
@@ -58,7 +59,10 @@ describe("the endpoint registry", () => {
   it("names every action and route handler on disk, and nothing that is not there", () => {
     const onDisk = endpoints.map((e) => e.key).sort();
     const registered = Object.keys(ENDPOINTS).sort();
-    expect(onDisk.filter((k) => !registered.includes(k)), "endpoints missing from lib/auth/endpoints.ts").toEqual([]);
+    // Each endpoint carries its own rule (defineAction, defineRoute, apiRoute …); the registry only collects them.
+    expect(endpoints.filter((e) => ruleOf(e.fn) === undefined).map((e) => e.key), "endpoints that declare no rule").toEqual([]);
+    for (const e of endpoints) expect(ENDPOINTS[e.key], e.key).toBe(ruleOf(e.fn));
+    expect(onDisk.filter((k) => !registered.includes(k)), "endpoints that declare no rule, or whose file is missing from ENDPOINT_MODULES").toEqual([]);
     expect(registered.filter((k) => !onDisk.includes(k)), "registry entries with no endpoint").toEqual([]);
     // [derived] 41 exports of actions.ts and 21 route handler methods at the time of writing
     expect(onDisk.length).toBeGreaterThanOrEqual(62);
@@ -79,7 +83,7 @@ describe("every endpoint, called as every role and signed out, answers as the ro
       rule.auth === "token"
         ? [{ role: null }, ...ROLES.flatMap((role) => [{ role, token: "write" as const }, { role, token: "read" as const }])]
         : [{ role: null }, ...ROLES.map((role) => ({ role }))];
-    for (const { action, fields } of variants(rule)) {
+    for (const { permission, fields } of variants(rule)) {
       for (const caller of callers) {
         await actAs(caller.role && rule.auth !== "token" ? people[caller.role] : null);
         const before = await tableCounts(t.client);
@@ -88,7 +92,7 @@ describe("every endpoint, called as every role and signed out, answers as the ro
         expect(outcome.kind, label).not.toBe("threw");
         // Signing out ends at the sign-in page for everyone; for a public endpoint that is its answer, not a refusal.
         const refused = rule.auth === "public" && outcome.kind === "redirect" ? null : refusal(outcome);
-        expect(refused, label).toBe(expected(rule, action, caller));
+        expect(refused, label).toBe(expected(rule, permission, caller));
         if (refused) expect(changedTables(before, await tableCounts(t.client)), `refused but wrote: ${label}`).toEqual([]);
       }
     }

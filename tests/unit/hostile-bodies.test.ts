@@ -47,7 +47,7 @@ afterAll(() => {
 /** A role the registry allows to call this endpoint (null: public), so the body itself is what is tested. */
 function allowedRole(e: Endpoint): Role | null {
   const rule = ENDPOINTS[e.key];
-  return rule.auth === "public" ? null : (PERMISSIONS[rule.action][0] as Role);
+  return rule.auth === "public" ? null : (PERMISSIONS[rule.permission][0] as Role);
 }
 
 /** The one rule for every hostile call: a clear refusal that wrote nothing, or a success that was audited. */

@@ -1,11 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { can, PERMISSIONS, ROLES, type Action, type Role } from "@/lib/auth/permissions";
+import { can, PERMISSIONS, ROLES, type Permission, type Role } from "@/lib/auth/permissions";
 
 /**
  * The expected grants, written out independently of the table so that a change
  * to the table must be made twice, on purpose. Rows: action → roles allowed.
  */
-const EXPECTED: Record<Action, Role[]> = {
+const EXPECTED: Record<Permission, Role[]> = {
   "queue.view": ["admin", "engineer", "reviewer", "approver", "technician"],
   "systems.view": [...ROLES],
   "parts.view": [...ROLES],
@@ -47,7 +47,7 @@ describe("role table", () => {
     expect(Object.keys(PERMISSIONS).sort()).toEqual(Object.keys(EXPECTED).sort());
   });
 
-  for (const action of Object.keys(EXPECTED) as Action[]) {
+  for (const action of Object.keys(EXPECTED) as Permission[]) {
     for (const role of ROLES) {
       const allowed = EXPECTED[action].includes(role);
       it(`${role} ${allowed ? "may" : "may not"} ${action}`, () => {
@@ -57,7 +57,7 @@ describe("role table", () => {
   }
 
   it("the auditor writes nothing", () => {
-    const writes = (Object.keys(PERMISSIONS) as Action[]).filter((a) => !/\.(view|export)$/.test(a) && !a.startsWith("account."));
+    const writes = (Object.keys(PERMISSIONS) as Permission[]).filter((a) => !/\.(view|export)$/.test(a) && !a.startsWith("account."));
     expect(writes.filter((a) => can(["auditor"], a))).toEqual([]);
   });
 

@@ -1,102 +1,72 @@
 "use server";
 
-import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import { invalid, type FormState } from "@/lib/actions/result";
+import { defineAction } from "@/lib/actions/define-action";
+import type { FormState } from "@/lib/actions/result";
 import { createUserSchema, updateUserSchema, userIdSchema } from "@/lib/schemas/account";
-import { authorize } from "@/lib/server/auth/current-user";
-import { toActionFailure } from "@/lib/server/errors";
+import { sendTestEmail } from "@/lib/server/email/send-test-email";
 import { createUser } from "@/lib/server/users/create-user";
 import { resetPassword } from "@/lib/server/users/reset-password";
 import { setUserActive } from "@/lib/server/users/set-user-active";
 import { updateUser } from "@/lib/server/users/update-user";
-import { sendTestEmail } from "@/lib/server/email/send-test-email";
-import { deliverSoon } from "@/lib/email/deliver";
 
 export type TemporaryPasswordState = (FormState & { temporaryPassword?: string; email?: string }) | null;
 
-function userFields(formData: FormData) {
-  return {
-    name: formData.get("name"),
-    email: formData.get("email"),
-    jobTitle: formData.get("jobTitle") ?? undefined,
-    roles: formData.getAll("roles"),
-  };
-}
+const actorOf = (user: { id: string; name: string }) => ({ id: user.id, name: user.name });
 
-export async function createUserAction(_prev: FormState, formData: FormData): Promise<TemporaryPasswordState> {
-  const auth = await authorize("users.manage");
-  if (!auth.ok) return auth;
-  const parsed = createUserSchema.safeParse(userFields(formData));
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    const { temporaryPassword } = await createUser({ id: auth.user.id, name: auth.user.name }, parsed.data);
-    revalidatePath("/admin");
-    return { ok: true, message: `${parsed.data.name} can now sign in.`, temporaryPassword, email: parsed.data.email };
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const createUserAction = defineAction({
+  permission: "users.manage",
+  input: createUserSchema,
+  run: async ({ user, input }) => {
+    const { temporaryPassword } = await createUser(actorOf(user), input);
+    return { message: `${input.name} can now sign in.`, temporaryPassword, email: input.email };
+  },
+  revalidate: ["/admin"],
+});
 
-export async function updateUserAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("users.manage");
-  if (!auth.ok) return auth;
-  const parsed = updateUserSchema.safeParse({ ...userFields(formData), userId: formData.get("userId") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await updateUser({ id: auth.user.id, name: auth.user.name }, parsed.data);
-    revalidatePath("/admin");
-    return { ok: true, message: "Saved." };
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const updateUserAction = defineAction({
+  permission: "users.manage",
+  input: updateUserSchema,
+  run: async ({ user, input }) => {
+    await updateUser(actorOf(user), input);
+    return { message: "Saved." };
+  },
+  revalidate: ["/admin"],
+});
 
 const activeSchema = userIdSchema.extend({
   active: z.enum(["true", "false"]).transform((v) => v === "true"),
   reason: z.string().trim().min(3, "Give the reason for the audit trail.").max(500),
 });
 
-export async function setUserActiveAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("users.manage");
-  if (!auth.ok) return auth;
-  const parsed = activeSchema.safeParse({ userId: formData.get("userId"), active: formData.get("active"), reason: formData.get("reason") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await setUserActive({ id: auth.user.id, name: auth.user.name }, parsed.data);
-    revalidatePath("/admin");
-    return { ok: true, message: parsed.data.active ? "Reactivated." : "Deactivated; their sessions have ended." };
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const setUserActiveAction = defineAction({
+  permission: "users.manage",
+  input: activeSchema,
+  run: async ({ user, input }) => {
+    await setUserActive(actorOf(user), input);
+    return { message: input.active ? "Reactivated." : "Deactivated; their sessions have ended." };
+  },
+  revalidate: ["/admin"],
+});
 
-export async function resetPasswordAction(_prev: FormState, formData: FormData): Promise<TemporaryPasswordState> {
-  const auth = await authorize("users.manage");
-  if (!auth.ok) return auth;
-  const parsed = userIdSchema.safeParse({ userId: formData.get("userId") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    const { temporaryPassword } = await resetPassword({ id: auth.user.id, name: auth.user.name }, parsed.data);
-    return { ok: true, message: "Password reset; the user must choose a new one at sign-in.", temporaryPassword };
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const resetPasswordAction = defineAction({
+  permission: "users.manage",
+  input: userIdSchema,
+  run: async ({ user, input }) => {
+    const { temporaryPassword } = await resetPassword(actorOf(user), input);
+    return { message: "Password reset; the user must choose a new one at sign-in.", temporaryPassword };
+  },
+});
 
 const testEmailSchema = z.object({ to: z.string().trim().toLowerCase().email("Enter a valid e-mail address.") });
 
-export async function sendTestEmailAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("users.manage");
-  if (!auth.ok) return auth;
-  const parsed = testEmailSchema.safeParse({ to: formData.get("to") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await sendTestEmail({ id: auth.user.id, name: auth.user.name }, parsed.data);
-    deliverSoon();
-    revalidatePath("/admin/email");
-    return { ok: true, message: `Queued a test message to ${parsed.data.to}.` };
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const sendTestEmailAction = defineAction({
+  permission: "users.manage",
+  input: testEmailSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await sendTestEmail(actorOf(user), input);
+    return { message: `Queued a test message to ${input.to}.` };
+  },
+  revalidate: ["/admin/email"],
+});

@@ -1,11 +1,7 @@
 "use server";
 
-import { revalidatePath } from "next/cache";
-import { redirect } from "next/navigation";
-import { invalid, readJsonPayload, type FormState } from "@/lib/actions/result";
-import { deliverSoon } from "@/lib/email/deliver";
+import { defineAction, type RevalidateTarget } from "@/lib/actions/define-action";
 import { changeIdSchema, endChangeSchema, intervalSchema, linkEvidenceSchema, openChangeSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
-import { authorize } from "@/lib/server/auth/current-user";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
 import { closeChange } from "@/lib/server/changes/close-change";
@@ -17,155 +13,136 @@ import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { verifyChange } from "@/lib/server/changes/verify-change";
-import { toActionFailure } from "@/lib/server/errors";
 
-function refresh(changeRequestId: string) {
-  revalidatePath(`/changes/${changeRequestId}`);
-  revalidatePath("/changes");
-  revalidatePath("/systems", "layout");
-}
+const refresh = (changeRequestId: string): RevalidateTarget[] => [`/changes/${changeRequestId}`, "/changes", ["/systems", "layout"]];
+const refreshChange = (input: { changeRequestId: string }) => refresh(input.changeRequestId);
 
-export async function openChangeAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("change.draft");
-  if (!auth.ok) return auth;
-  const parsed = openChangeSchema.safeParse({ recipeId: formData.get("recipeId"), title: formData.get("title"), kind: formData.get("kind") });
-  if (!parsed.success) return invalid(parsed.error);
-  let id: string;
-  try {
-    id = (await openChangeRequest(auth.user, parsed.data)).id;
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  refresh(id);
-  redirect(`/changes/${id}`);
-}
+export const openChangeAction = defineAction({
+  permission: "change.draft",
+  input: openChangeSchema,
+  run: async ({ user, input }) => {
+    const { id } = await openChangeRequest(user, input);
+    return { redirect: `/changes/${id}`, id };
+  },
+  revalidate: (_input, result) => refresh(result.id),
+});
 
-export async function saveProposalAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("recipe.edit");
-  if (!auth.ok) return auth;
-  const payload = readJsonPayload(formData);
-  if (!payload.ok) return payload;
-  const parsed = proposalSchema.safeParse(payload.value);
-  if (!parsed.success) return invalid(parsed.error, "Some values need attention. Nothing was saved; everything you typed is still here.");
-  try {
-    await saveProposal(auth.user, parsed.data);
-    refresh(parsed.data.changeRequestId);
-    return { ok: true, message: "Saved. The parameter diff and the computed impact below are up to date." };
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const saveProposalAction = defineAction({
+  permission: "recipe.edit",
+  input: proposalSchema,
+  from: "payload",
+  invalidMessage: "Some values need attention. Nothing was saved; everything you typed is still here.",
+  run: async ({ user, input }) => {
+    await saveProposal(user, input);
+    return { message: "Saved. The parameter diff and the computed impact below are up to date." };
+  },
+  revalidate: refreshChange,
+});
 
-type SignedService = (actor: { id: string; name: string }, input: { changeRequestId: string; password: string; contentHash: string }) => Promise<unknown>;
+export const assessChangeAction = defineAction({
+  permission: "change.draft",
+  input: signedStepSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await assessChange(user, input);
+    return { message: "Signed and submitted for approval." };
+  },
+  revalidate: refreshChange,
+});
 
-async function signedStep(permission: "change.draft" | "change.approve" | "change.verify", service: SignedService, formData: FormData, message: string): Promise<FormState> {
-  const auth = await authorize(permission);
-  if (!auth.ok) return auth;
-  const parsed = signedStepSchema.safeParse({ changeRequestId: formData.get("changeRequestId"), password: formData.get("password"), contentHash: formData.get("contentHash") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await service(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(parsed.data.changeRequestId);
-  return { ok: true, message };
-}
+export const approveChangeAction = defineAction({
+  permission: "change.approve",
+  input: signedStepSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await approveChange(user, input);
+    return { message: "Signed: approved for implementation." };
+  },
+  revalidate: refreshChange,
+});
 
-export async function assessChangeAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return signedStep("change.draft", assessChange, formData, "Signed and submitted for approval.");
-}
+export const verifyChangeAction = defineAction({
+  permission: "change.verify",
+  input: signedStepSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await verifyChange(user, input);
+    return { message: "Signed: verified." };
+  },
+  revalidate: refreshChange,
+});
 
-export async function approveChangeAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return signedStep("change.approve", approveChange, formData, "Signed: approved for implementation.");
-}
+export const startRequalificationAction = defineAction({
+  permission: "change.draft",
+  input: changeIdSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await startRequalification(user, input);
+    return { message: "Requalification started; the lab has been told." };
+  },
+  revalidate: refreshChange,
+});
 
-export async function verifyChangeAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return signedStep("change.verify", verifyChange, formData, "Signed: verified.");
-}
+export const closeChangeAction = defineAction({
+  permission: "recipe.make_effective",
+  input: changeIdSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await closeChange(user, input);
+    return { message: "Closed: the new recipe version is effective." };
+  },
+  revalidate: refreshChange,
+});
 
-export async function startRequalificationAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("change.draft");
-  if (!auth.ok) return auth;
-  const parsed = changeIdSchema.safeParse({ changeRequestId: formData.get("changeRequestId") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await startRequalification(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(parsed.data.changeRequestId);
-  return { ok: true, message: "Requalification started; the lab has been told." };
-}
+export const linkEvidenceAction = defineAction({
+  permission: "evidence.record",
+  input: linkEvidenceSchema,
+  run: async ({ user, input }) => {
+    await linkEvidence(user, input);
+    return { message: "Linked." };
+  },
+  revalidate: refreshChange,
+});
 
-export async function closeChangeAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("recipe.make_effective");
-  if (!auth.ok) return auth;
-  const parsed = changeIdSchema.safeParse({ changeRequestId: formData.get("changeRequestId") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await closeChange(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(parsed.data.changeRequestId);
-  return { ok: true, message: "Closed: the new recipe version is effective." };
-}
+export const rejectChangeAction = defineAction({
+  permission: "change.approve",
+  input: endChangeSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await endChange(user, { ...input, how: "reject" });
+    return { message: "Rejected." };
+  },
+  revalidate: refreshChange,
+});
 
-export async function linkEvidenceAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("evidence.record");
-  if (!auth.ok) return auth;
-  const parsed = linkEvidenceSchema.safeParse({ changeRequestId: formData.get("changeRequestId"), requirementId: formData.get("requirementId"), testRunId: formData.get("testRunId") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await linkEvidence(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  refresh(parsed.data.changeRequestId);
-  return { ok: true, message: "Linked." };
-}
+export const withdrawChangeAction = defineAction({
+  permission: "change.draft",
+  input: endChangeSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await endChange(user, { ...input, how: "withdraw" });
+    return { message: "Withdrawn." };
+  },
+  revalidate: refreshChange,
+});
 
-async function ending(how: "reject" | "withdraw" | "reopen", formData: FormData): Promise<FormState> {
-  const auth = await authorize(how === "reject" ? "change.approve" : "change.draft");
-  if (!auth.ok) return auth;
-  const parsed = endChangeSchema.safeParse({ changeRequestId: formData.get("changeRequestId"), reason: formData.get("reason") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    if (how === "reopen") await reopenChange(auth.user, parsed.data);
-    else await endChange(auth.user, { ...parsed.data, how });
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(parsed.data.changeRequestId);
-  return { ok: true, message: how === "reopen" ? "Reopened for editing." : how === "reject" ? "Rejected." : "Withdrawn." };
-}
+export const reopenChangeAction = defineAction({
+  permission: "change.draft",
+  input: endChangeSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await reopenChange(user, input);
+    return { message: "Reopened for editing." };
+  },
+  revalidate: refreshChange,
+});
 
-export async function rejectChangeAction(_prev: FormState, formData: FormData) {
-  return ending("reject", formData);
-}
-export async function withdrawChangeAction(_prev: FormState, formData: FormData) {
-  return ending("withdraw", formData);
-}
-export async function reopenChangeAction(_prev: FormState, formData: FormData) {
-  return ending("reopen", formData);
-}
-
-export async function setIntervalAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("recipe.edit");
-  if (!auth.ok) return auth;
-  const parsed = intervalSchema.safeParse({ intervalId: formData.get("intervalId"), intervalMonths: formData.get("intervalMonths"), reason: formData.get("reason") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await setRequalificationInterval(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  revalidatePath("/systems", "layout");
-  revalidatePath("/queue");
-  return { ok: true, message: `Requalify every ${parsed.data.intervalMonths} months.` };
-}
+export const setRequalificationIntervalAction = defineAction({
+  permission: "recipe.edit",
+  input: intervalSchema,
+  run: async ({ user, input }) => {
+    await setRequalificationInterval(user, input);
+    return { message: `Requalify every ${input.intervalMonths} months.` };
+  },
+  revalidate: [["/systems", "layout"], "/queue"],
+});

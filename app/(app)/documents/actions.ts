@@ -1,12 +1,8 @@
 "use server";
 
-import { revalidatePath } from "next/cache";
-import { redirect } from "next/navigation";
 import { z } from "zod";
-import { deliverSoon } from "@/lib/email/deliver";
-import { invalid, type FormState } from "@/lib/actions/result";
+import { defineAction, defineCallAction } from "@/lib/actions/define-action";
 import { approveSchema, createDocumentSchema, reasonSchema, returnSchema, saveDraftSchema, signStepSchema, submitSchema } from "@/lib/schemas/document";
-import { authorize } from "@/lib/server/auth/current-user";
 import { approveVersion } from "@/lib/server/documents/approve-version";
 import { createDocument } from "@/lib/server/documents/create-document";
 import { retireDocument } from "@/lib/server/documents/retire-document";
@@ -15,149 +11,105 @@ import { saveDraft, type SaveDraftResult } from "@/lib/server/documents/save-dra
 import { signReview } from "@/lib/server/documents/sign-review";
 import { startNewVersion } from "@/lib/server/documents/start-new-version";
 import { submitForReview } from "@/lib/server/documents/submit-for-review";
-import { toActionFailure } from "@/lib/server/errors";
 
 function refresh(documentId?: string) {
-  revalidatePath("/documents");
-  revalidatePath("/queue");
-  if (documentId) revalidatePath(`/documents/${documentId}`);
+  return ["/documents", "/queue", ...(documentId ? [`/documents/${documentId}`] : [])];
 }
 
-const documentIdOf = (formData: FormData) => z.string().uuid().safeParse(formData.get("documentId")).data;
+/** Signing forms name the version; they also send the document's id so its page is refreshed. */
+const refreshDocumentOf = (_input: unknown, _result: unknown, raw: unknown) =>
+  refresh(z.string().uuid().safeParse((raw as Record<string, unknown> | null)?.documentId).data);
 
-export async function createDocumentAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("document.draft");
-  if (!auth.ok) return auth;
-  const parsed = createDocumentSchema.safeParse(Object.fromEntries(formData));
-  if (!parsed.success) return invalid(parsed.error);
-  let created: { documentId: string };
-  try {
-    created = await createDocument(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  refresh();
-  redirect(`/documents/${created.documentId}/edit`);
-}
+export const createDocumentAction = defineAction({
+  permission: "document.draft",
+  input: createDocumentSchema,
+  run: async ({ user, input }) => {
+    const { documentId } = await createDocument(user, input);
+    return { redirect: `/documents/${documentId}/edit` };
+  },
+  revalidate: refresh(),
+});
 
 export type SaveDraftState = SaveDraftResult | { ok: false; conflict?: false; message: string };
 
 /** Autosave from the editor: the draft's JSON and the counter it was read at. */
-export async function saveDraftAction(input: { versionId: string; lockVersion: number; content: string; overwrite?: boolean }): Promise<SaveDraftState> {
-  const auth = await authorize("document.draft");
-  if (!auth.ok) return auth;
-  const parsed = saveDraftSchema.safeParse(input);
-  if (!parsed.success) return { ok: false, message: parsed.error.issues[0]?.message ?? "The draft could not be saved." };
-  try {
-    return await saveDraft(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const saveDraftAction = defineCallAction({
+  permission: "document.draft",
+  input: saveDraftSchema,
+  run: ({ user, input }): Promise<SaveDraftState> => saveDraft(user, input),
+});
 
-export async function submitAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("document.submit");
-  if (!auth.ok) return auth;
-  const parsed = submitSchema.safeParse({
-    versionId: formData.get("versionId"),
-    lockVersion: formData.get("lockVersion"),
-    contentHash: formData.get("contentHash"),
-    reviewerIds: formData.getAll("reviewerIds"),
-    approverId: formData.get("approverId") ?? undefined,
-    routing: formData.get("routing") ?? undefined,
-    dueDate: formData.get("dueDate") ?? undefined,
-    password: formData.get("password"),
-  });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await submitForReview(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(documentIdOf(formData));
-  return { ok: true, message: "Submitted and signed as authored. The first reviewers have been e-mailed." };
-}
+export const submitAction = defineAction({
+  permission: "document.submit",
+  input: submitSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await submitForReview(user, input);
+    return { message: "Submitted and signed as authored. The first reviewers have been e-mailed." };
+  },
+  revalidate: refreshDocumentOf,
+});
 
-export async function signReviewAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("document.review");
-  if (!auth.ok) return auth;
-  const parsed = signStepSchema.safeParse(Object.fromEntries(formData));
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await signReview(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(documentIdOf(formData));
-  return { ok: true, message: "Signed as reviewed." };
-}
+export const signReviewAction = defineAction({
+  permission: "document.review",
+  input: signStepSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await signReview(user, input);
+    return { message: "Signed as reviewed." };
+  },
+  revalidate: refreshDocumentOf,
+});
 
-export async function approveAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("document.approve");
-  if (!auth.ok) return auth;
-  const parsed = approveSchema.safeParse(Object.fromEntries(formData));
-  if (!parsed.success) return invalid(parsed.error);
-  let effectiveNow: boolean;
-  try {
-    ({ effectiveNow } = await approveVersion(auth.user, parsed.data));
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(documentIdOf(formData));
-  return { ok: true, message: effectiveNow ? "Approved; the version is effective." : `Approved; it becomes effective on ${parsed.data.effectiveDate}.` };
-}
+export const approveAction = defineAction({
+  permission: "document.approve",
+  input: approveSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    const { effectiveNow } = await approveVersion(user, input);
+    return { message: effectiveNow ? "Approved; the version is effective." : `Approved; it becomes effective on ${input.effectiveDate}.` };
+  },
+  revalidate: refreshDocumentOf,
+});
 
-async function returnAction(formData: FormData, decision: "sent_back" | "rejected"): Promise<FormState> {
-  const auth = await authorize(decision === "rejected" ? "document.approve" : "document.review");
-  if (!auth.ok) return auth;
-  const parsed = returnSchema.safeParse({ versionId: formData.get("versionId"), comment: formData.get("comment") });
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await returnToAuthor(auth.user, { ...parsed.data, decision });
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  deliverSoon();
-  refresh(documentIdOf(formData));
-  return { ok: true, message: decision === "rejected" ? "Rejected; the author has been told." : "Sent back; the author has been told." };
-}
+export const sendBackAction = defineAction({
+  permission: "document.review",
+  input: returnSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await returnToAuthor(user, { ...input, decision: "sent_back" });
+    return { message: "Sent back; the author has been told." };
+  },
+  revalidate: refreshDocumentOf,
+});
 
-export async function sendBackAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return returnAction(formData, "sent_back");
-}
+export const rejectAction = defineAction({
+  permission: "document.approve",
+  input: returnSchema,
+  sendsMail: true,
+  run: async ({ user, input }) => {
+    await returnToAuthor(user, { ...input, decision: "rejected" });
+    return { message: "Rejected; the author has been told." };
+  },
+  revalidate: refreshDocumentOf,
+});
 
-export async function rejectAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return returnAction(formData, "rejected");
-}
+export const newVersionAction = defineAction({
+  permission: "document.draft",
+  input: reasonSchema,
+  run: async ({ user, input }) => {
+    const { version } = await startNewVersion(user, input);
+    return { redirect: `/documents/${input.documentId}/edit?version=${version}` };
+  },
+  revalidate: (input) => refresh(input.documentId),
+});
 
-export async function newVersionAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("document.draft");
-  if (!auth.ok) return auth;
-  const parsed = reasonSchema.safeParse(Object.fromEntries(formData));
-  if (!parsed.success) return invalid(parsed.error);
-  let version: number;
-  try {
-    ({ version } = await startNewVersion(auth.user, parsed.data));
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  refresh(parsed.data.documentId);
-  redirect(`/documents/${parsed.data.documentId}/edit?version=${version}`);
-}
-
-export async function retireAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("document.approve");
-  if (!auth.ok) return auth;
-  const parsed = reasonSchema.safeParse(Object.fromEntries(formData));
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    await retireDocument(auth.user, parsed.data);
-  } catch (error) {
-    return toActionFailure(error);
-  }
-  refresh(parsed.data.documentId);
-  return { ok: true, message: "Retired." };
-}
+export const retireAction = defineAction({
+  permission: "document.approve",
+  input: reasonSchema,
+  run: async ({ user, input }) => {
+    await retireDocument(user, input);
+    return { message: "Retired." };
+  },
+  revalidate: (input) => refresh(input.documentId),
+});

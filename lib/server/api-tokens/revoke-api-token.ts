@@ -9,7 +9,7 @@ import { UserFacingError } from "@/lib/server/errors";
 export async function revokeApiToken(actor: { id: string; name: string } & AuditActor, input: { tokenId: string }, now = new Date()) {
   await getDb().transaction(async (tx) => {
     const [token] = await tx.select().from(apiTokens).where(and(eq(apiTokens.id, input.tokenId), eq(apiTokens.userId, actor.id)));
-    if (!token) throw new UserFacingError("That token does not exist.");
+    if (!token) throw new UserFacingError("That token does not exist.", { kind: "not_found" });
     if (token.revokedAt) throw new UserFacingError(`That token was already revoked on ${token.revokedAt.slice(0, 10)}.`);
     const revokedAt = now.toISOString();
     await tx.update(apiTokens).set({ revokedAt }).where(eq(apiTokens.id, token.id));

@@ -3,7 +3,7 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { apiTokens, userRoles, users, type Role } from "@/db/schema";
 import { bearerToken, hashApiToken } from "@/lib/auth/api-token";
-import { can, type Action } from "@/lib/auth/permissions";
+import { can, type Permission } from "@/lib/auth/permissions";
 
 export interface ApiUser {
   id: string;
@@ -20,7 +20,7 @@ export type ApiAuth = { ok: true; user: ApiUser } | { ok: false; status: 401 | 4
  * limits what it may do (a read token never writes), and the owner's roles decide
  * the rest through the same table as the screens.
  */
-export async function authenticateApi(request: Request, action: Action, mode: "read" | "write", now = new Date()): Promise<ApiAuth> {
+export async function authenticateApi(request: Request, permission: Permission, mode: "read" | "write", now = new Date()): Promise<ApiAuth> {
   const token = bearerToken(request.headers.get("authorization"));
   if (!token) return { ok: false, status: 401, message: "Send your API token in the Authorization header as \"Bearer wpk_…\". Create one under Account → API tokens." };
   const db = getDb();
@@ -39,6 +39,6 @@ export async function authenticateApi(request: Request, action: Action, mode: "r
     return { ok: false, status: 403, message: "This API token is read-only. Create a read-and-write token to send data." };
   }
   const roles = (await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, row.user.id))).map((r) => r.role);
-  if (!can(roles, action)) return { ok: false, status: 403, message: "Your role does not allow this." };
+  if (!can(roles, permission)) return { ok: false, status: 403, message: "Your role does not allow this." };
   return { ok: true, user: { id: row.user.id, name: row.user.name, email: row.user.email, roles, tokenId: row.token.id } };
 }

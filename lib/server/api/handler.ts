@@ -1,10 +1,13 @@
 import "server-only";
-import { NextResponse } from "next/server";
+import { NextResponse, type NextRequest } from "next/server";
 import type { z } from "zod";
 import { BadCursorError } from "@/lib/api/cursor";
-import type { Action } from "@/lib/auth/permissions";
+import { declareEndpoint } from "@/lib/auth/endpoint-rule";
+import type { Permission } from "@/lib/auth/permissions";
 import { jsonError, zodFieldErrors } from "@/lib/http/json";
-import { UserFacingError } from "@/lib/server/errors";
+import { authorize } from "@/lib/server/auth/current-user";
+import type { SessionUser } from "@/lib/server/auth/sessions";
+import { describeFailure } from "@/lib/server/errors";
 import { authenticateApi, type ApiUser } from "./authenticate";
 
 type Params = Record<string, string>;
@@ -15,23 +18,52 @@ interface Context<P extends Params> {
 }
 
 /**
- * One shape for every /api/v1 handler: token and role first, then the handler;
- * a refusal the user can act on becomes 409 with its message, anything else a
- * 500 that says nothing was changed.
+ * One shape for every /api/v1 handler: token, scope and role first, then the handler; a refusal
+ * the user can act on answers with its kind's status (lib/server/errors.ts), anything else a 500
+ * that says nothing was changed. The rule travels with the handler for the registry and OpenAPI.
  */
-export function apiRoute<P extends Params = Params>(rule: { action: Action; mode: "read" | "write" }, handler: (ctx: Context<P>) => Promise<Response>) {
-  return async (request: Request, route: { params: Promise<P> }) => {
-    const auth = await authenticateApi(request, rule.action, rule.mode);
+export function apiRoute<P extends Params = Params>(rule: { permission: Permission; scope: "read" | "read_write" }, handler: (ctx: Context<P>) => Promise<Response>) {
+  const route = async (request: Request, context: { params: Promise<P> }) => {
+    const auth = await authenticateApi(request, rule.permission, rule.scope === "read_write" ? "write" : "read");
     if (!auth.ok) return jsonError(auth.status, auth.message);
     try {
-      return await handler({ request, user: auth.user, params: await route.params });
+      return await handler({ request, user: auth.user, params: await context.params });
     } catch (error) {
       if (error instanceof BadCursorError) return jsonError(400, error.message, { cursor: [error.message] });
-      if (error instanceof UserFacingError) return jsonError(409, error.message, error.field ? { [error.field]: [error.message] } : undefined);
-      console.error(error);
-      return jsonError(500, "Something went wrong on the server. Nothing was changed; try again.");
+      const failure = describeFailure(error);
+      return jsonError(failure.status, failure.message, failure.fieldErrors);
     }
   };
+  return declareEndpoint(route, { auth: "token", permission: rule.permission, scope: rule.scope });
+}
+
+interface SessionContext<P extends Params> {
+  request: NextRequest;
+  user: SessionUser;
+  params: P;
+}
+
+/** A refusal from a session route: `error` for JSON readers, `ok`/`message` for the browser's forms. */
+export function routeError(status: number, message: string, fieldErrors?: Record<string, string[]>) {
+  return NextResponse.json({ ok: false, error: message, message, ...(fieldErrors ? { fieldErrors } : {}) }, { status, headers: { "Cache-Control": "no-store" } });
+}
+
+/**
+ * apiRoute's twin for the browser's own routes under app/api (outside v1): the session and the
+ * permission first, then the handler; errors answer by kind with routeError.
+ */
+export function defineRoute<P extends Params = Params>(rule: { permission: Permission }, handler: (ctx: SessionContext<P>) => Promise<Response>) {
+  const route = async (request: NextRequest, context: { params: Promise<P> }) => {
+    const auth = await authorize(rule.permission);
+    if (!auth.ok) return routeError(auth.status, auth.message);
+    try {
+      return await handler({ request, user: auth.user, params: await context.params });
+    } catch (error) {
+      const failure = describeFailure(error);
+      return routeError(failure.status, failure.message, failure.fieldErrors);
+    }
+  };
+  return declareEndpoint(route, { auth: "session", permission: rule.permission });
 }
 
 export function ok(body: unknown, status = 200) {

@@ -2,7 +2,7 @@ import "server-only";
 import { cookies } from "next/headers";
 import { forbidden, redirect } from "next/navigation";
 import { cache } from "react";
-import { can, type Action } from "@/lib/auth/permissions";
+import { can, type Permission } from "@/lib/auth/permissions";
 import { lucia } from "@/lib/auth/lucia";
 import { validateSession, type SessionUser } from "./sessions";
 
@@ -14,23 +14,23 @@ export const getCurrentUser = cache(async (): Promise<SessionUser | null> => {
 });
 
 /** For pages: sign-in when there is no session, a 403 page when the role may not. */
-export async function requirePageUser(action?: Action, opts: { allowPasswordChange?: boolean } = {}): Promise<SessionUser> {
+export async function requirePageUser(permission?: Permission, opts: { allowPasswordChange?: boolean } = {}): Promise<SessionUser> {
   const user = await getCurrentUser();
   if (!user) redirect("/sign-in");
   if (user.mustChangePassword && !opts.allowPasswordChange) redirect("/account/password");
-  if (action && !can(user.roles, action)) forbidden();
+  if (permission && !can(user.roles, permission)) forbidden();
   return user;
 }
 
 export type Authorized = { ok: true; user: SessionUser } | { ok: false; message: string; status: 401 | 403 };
 
 /** For server actions and route handlers: never throws, returns a message for the caller. */
-export async function authorize(action: Action): Promise<Authorized> {
+export async function authorize(permission: Permission): Promise<Authorized> {
   const user = await getCurrentUser();
   if (!user) return { ok: false, status: 401, message: "Your session has ended. Sign in again." };
-  if (user.mustChangePassword && action !== "account.change_password") {
+  if (user.mustChangePassword && permission !== "account.change_password") {
     return { ok: false, status: 403, message: "Change your temporary password first." };
   }
-  if (!can(user.roles, action)) return { ok: false, status: 403, message: "Your role does not allow this." };
+  if (!can(user.roles, permission)) return { ok: false, status: 403, message: "Your role does not allow this." };
   return { ok: true, user };
 }

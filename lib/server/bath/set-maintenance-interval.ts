@@ -10,7 +10,7 @@ import { UserFacingError } from "@/lib/server/errors";
 export async function setMaintenanceInterval(actor: { id: string; name: string }, input: MaintenanceIntervalInput, now = new Date()) {
   return getDb().transaction(async (tx) => {
     const [stage] = await tx.select().from(systemStages).where(eq(systemStages.id, input.stageId));
-    if (!stage) throw new UserFacingError("This tank does not exist.");
+    if (!stage) throw new UserFacingError("This tank does not exist.", { kind: "not_found" });
     const [existing] = await tx
       .select()
       .from(maintenanceIntervals)

@@ -26,7 +26,7 @@ export async function assessChange(actor: AuditActor & { id: string }, input: { 
       throw new UserFacingError("The proposal is the same as the effective version: change something first.");
     }
     if (!state.narrative || !JSON.stringify(state.narrative.content).includes('"text"')) {
-      throw new UserFacingError("Write the justification and risk assessment before submitting.", "narrative");
+      throw new UserFacingError("Write the justification and risk assessment before submitting.", { kind: "invalid", field: "narrative" });
     }
     if (assessment.impact === "major" && state.matrixId === null) throw new UserFacingError("No requalification matrix is set: an administrator must set one first.");
     if (assessment.impact === "major" && state.requirements.length === 0) throw new UserFacingError("The requalification matrix maps none of these changes to a test: ask an administrator to complete it.");

@@ -16,7 +16,7 @@ import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
 export async function openChangeRequest(actor: AuditActor & { id: string }, input: { recipeId: string; title: string; kind: ChangeKind }, now = new Date()) {
   return getDb().transaction(async (tx) => {
     const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, input.recipeId));
-    if (!recipe) throw new UserFacingError("That recipe does not exist.");
+    if (!recipe) throw new UserFacingError("That recipe does not exist.", { kind: "not_found" });
     const [effective] = await tx.select().from(recipeVersions).where(and(eq(recipeVersions.recipeId, recipe.id), eq(recipeVersions.status, "effective")));
     if (!effective) throw new UserFacingError("This recipe has no effective version to change.");
     const [open] = await tx.select().from(changeRequests).where(and(eq(changeRequests.recipeId, recipe.id), inArray(changeRequests.status, OPEN_STATUSES)));

@@ -19,7 +19,7 @@ import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
 export async function saveProposal(actor: AuditActor & { id: string }, input: Proposal, now = new Date()) {
   return getDb().transaction(async (tx) => {
     const [cr] = await tx.select().from(changeRequests).where(eq(changeRequests.id, input.changeRequestId));
-    if (!cr || !cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("That change request does not exist.");
+    if (!cr || !cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
     if (cr.status !== "draft") throw new UserFacingError("Only a draft change request can be edited: reopen it first.");
     const [a] = await tx.select().from(changeRequestAssessments).where(eq(changeRequestAssessments.changeRequestId, cr.id));
     if (a.lockVersion !== input.lockVersion) {

@@ -38,7 +38,7 @@ export async function loadChangeState(db: Executor, changeRequestId: string) {
     .innerJoin(changeRequestAssessments, eq(changeRequestAssessments.changeRequestId, changeRequests.id))
     .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
     .where(eq(changeRequests.id, changeRequestId));
-  if (!row) throw new UserFacingError("That change request does not exist.");
+  if (!row) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
   const { cr, a, recipe } = row;
   if (!cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("This change request has no recipe versions to compare.");
   const [fromVersion] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, cr.fromVersionId));

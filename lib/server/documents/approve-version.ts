@@ -18,7 +18,7 @@ import { assertTransition, findMyActiveStep, loadVersion, type DocumentActor } f
  */
 export async function approveVersion(actor: DocumentActor, input: { versionId: string; contentHash: string; password: string; effectiveDate: string }, now = new Date()) {
   const today = now.toISOString().slice(0, 10);
-  if (input.effectiveDate < today) throw new UserFacingError("The effective date cannot be before today.", "effectiveDate");
+  if (input.effectiveDate < today) throw new UserFacingError("The effective date cannot be before today.", { kind: "invalid", field: "effectiveDate" });
   const signer = await verifySigner({ userId: actor.id, password: input.password }, now);
   return getDb().transaction(async (tx) => {
     const { version, document } = await loadVersion(tx, input.versionId);

@@ -13,23 +13,23 @@ import type { DocumentActor } from "./shared";
 
 /** Creates a document with its number and a first draft written from the template for its type. */
 export async function createDocument(actor: DocumentActor, input: CreateDocumentInput) {
-  if (!can(actor.roles, "document.draft")) throw new UserFacingError("Your role does not allow this.");
+  if (!can(actor.roles, "document.draft")) throw new UserFacingError("Your role does not allow this.", { kind: "forbidden" });
   const db = getDb();
   return db.transaction(async (tx) => {
     const [system] = input.systemId ? await tx.select().from(cleaningSystems).where(eq(cleaningSystems.id, input.systemId)) : [];
-    if (input.systemId && !system) throw new UserFacingError("Choose a cleaning system from the list.", "systemId");
+    if (input.systemId && !system) throw new UserFacingError("Choose a cleaning system from the list.", { kind: "invalid", field: "systemId" });
     const stages = system ? await tx.select().from(systemStages).where(eq(systemStages.systemId, system.id)).orderBy(asc(systemStages.position)) : [];
 
     const [family] = input.partFamilyId
       ? await tx.select({ f: partFamilies, s: cleanlinessSpecs }).from(partFamilies).innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId)).where(eq(partFamilies.id, input.partFamilyId))
       : [];
-    if (input.partFamilyId && !family) throw new UserFacingError("Choose a part family from the list.", "partFamilyId");
+    if (input.partFamilyId && !family) throw new UserFacingError("Choose a part family from the list.", { kind: "invalid", field: "partFamilyId" });
 
     const [recipe] = input.recipeVersionId
       ? await tx.select({ v: recipeVersions, r: recipes }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(eq(recipeVersions.id, input.recipeVersionId))
       : [];
-    if (input.recipeVersionId && !recipe) throw new UserFacingError("Choose a recipe version from the list.", "recipeVersionId");
-    if (recipe && system && recipe.r.systemId !== system.id) throw new UserFacingError("This recipe runs on another cleaning system.", "recipeVersionId");
+    if (input.recipeVersionId && !recipe) throw new UserFacingError("Choose a recipe version from the list.", { kind: "invalid", field: "recipeVersionId" });
+    if (recipe && system && recipe.r.systemId !== system.id) throw new UserFacingError("This recipe runs on another cleaning system.", { kind: "invalid", field: "recipeVersionId" });
     const params = recipe ? await tx.select().from(recipeParameters).where(eq(recipeParameters.versionId, recipe.v.id)) : [];
 
     const prefix = numberPrefix(input.type, system?.code ?? null);

@@ -28,7 +28,7 @@ export async function loadVersion(tx: Tx, versionId: string): Promise<{ version:
     .from(documentVersions)
     .innerJoin(documents, eq(documents.id, documentVersions.documentId))
     .where(eq(documentVersions.id, versionId));
-  if (!row) throw new UserFacingError("This document version does not exist.");
+  if (!row) throw new UserFacingError("This document version does not exist.", { kind: "not_found" });
   return { version: row.version as DocumentVersion & { content: RichDoc }, document: row.document };
 }
 

@@ -14,7 +14,7 @@ import { assertTransition, hashContent, type DocumentActor } from "./shared";
 export async function startNewVersion(actor: DocumentActor, input: { documentId: string; reason: string }, now = new Date()) {
   return getDb().transaction(async (tx) => {
     const [latest] = await tx.select().from(documentVersions).where(eq(documentVersions.documentId, input.documentId)).orderBy(desc(documentVersions.version)).limit(1);
-    if (!latest) throw new UserFacingError("This document does not exist.");
+    if (!latest) throw new UserFacingError("This document does not exist.", { kind: "not_found" });
     assertTransition(latest, "new_version", actor);
     const [created] = await tx
       .insert(documentVersions)

@@ -36,15 +36,15 @@ async function activeHolders(ids: string[], role: "reviewer" | "approver") {
  */
 export async function submitForReview(actor: DocumentActor, input: SubmitForReview, now = new Date()) {
   if (input.reviewerIds.includes(actor.id) || input.approverId === actor.id) {
-    throw new UserFacingError("The author cannot review or approve their own document: choose other people.", "reviewerIds");
+    throw new UserFacingError("The author cannot review or approve their own document: choose other people.", { kind: "invalid", field: "reviewerIds" });
   }
   const reviewers = await activeHolders(input.reviewerIds, "reviewer");
   const missing = input.reviewerIds.filter((id) => !reviewers.has(id));
-  if (missing.length) throw new UserFacingError("Every reviewer must be an active user with the reviewer role.", "reviewerIds");
+  if (missing.length) throw new UserFacingError("Every reviewer must be an active user with the reviewer role.", { kind: "invalid", field: "reviewerIds" });
   if (!(await activeHolders([input.approverId], "approver")).has(input.approverId)) {
-    throw new UserFacingError("The approver must be an active user with the approver role.", "approverId");
+    throw new UserFacingError("The approver must be an active user with the approver role.", { kind: "invalid", field: "approverId" });
   }
-  if (input.dueDate && input.dueDate < now.toISOString().slice(0, 10)) throw new UserFacingError("The due date cannot be in the past.", "dueDate");
+  if (input.dueDate && input.dueDate < now.toISOString().slice(0, 10)) throw new UserFacingError("The due date cannot be in the past.", { kind: "invalid", field: "dueDate" });
   const signer = await verifySigner({ userId: actor.id, password: input.password }, now);
 
   return getDb().transaction(async (tx) => {

@@ -10,20 +10,20 @@ import { UserFacingError } from "@/lib/server/errors";
 export async function createRun(actor: { id: string; name: string } & AuditActor, input: CreateRun) {
   return getDb().transaction(async (tx) => {
     const [family] = await tx.select().from(partFamilies).where(eq(partFamilies.id, input.partFamilyId));
-    if (!family) throw new UserFacingError("Choose a part family from the list.", "partFamilyId");
+    if (!family) throw new UserFacingError("Choose a part family from the list.", { kind: "invalid", field: "partFamilyId" });
     const [version] = await tx.select().from(recipeVersions).where(eq(recipeVersions.id, input.recipeVersionId));
-    if (!version) throw new UserFacingError("Choose a recipe version from the list.", "recipeVersionId");
+    if (!version) throw new UserFacingError("Choose a recipe version from the list.", { kind: "invalid", field: "recipeVersionId" });
     if (input.changeRequestId) {
       // A run tied to a change request counts in its gate, so it must test the version the change proposes.
       const [cr] = await tx.select().from(changeRequests).where(eq(changeRequests.id, input.changeRequestId));
-      if (!cr || !["approved_for_implementation", "requalification"].includes(cr.status)) throw new UserFacingError("Choose a change request that is waiting for requalification evidence.", "changeRequestId");
+      if (!cr || !["approved_for_implementation", "requalification"].includes(cr.status)) throw new UserFacingError("Choose a change request that is waiting for requalification evidence.", { kind: "invalid", field: "changeRequestId" });
       if (cr.toVersionId !== version.id) {
         const [proposed] = await tx.select({ code: recipes.code, version: recipeVersions.version }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(eq(recipeVersions.id, cr.toVersionId!));
         throw new UserFacingError(`${cr.number} is requalified on ${proposed ? `${proposed.code} v${proposed.version}` : "its proposed version"}: choose that recipe version, or no change request.`, "changeRequestId");
       }
     }
     const [tech] = await tx.select().from(userRoles).where(and(eq(userRoles.userId, input.technicianId), eq(userRoles.role, "technician")));
-    if (!tech) throw new UserFacingError("Choose a technician from the list.", "technicianId");
+    if (!tech) throw new UserFacingError("Choose a technician from the list.", { kind: "invalid", field: "technicianId" });
     const [{ n }] = await tx.select({ n: sql<number>`count(distinct ${testRuns.number})` }).from(testRuns);
     const number = `TR-${String(Number(n) + 1).padStart(4, "0")}`;
     const [run] = await tx

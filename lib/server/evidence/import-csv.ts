@@ -18,14 +18,14 @@ export async function importCsvRows(
   actor: { id: string; name: string },
   input: { runId: string; testType: string; rows: CsvSample[]; fileName: string; bytes: Uint8Array },
 ) {
-  if (input.rows.length === 0) throw new UserFacingError("The file has no rows to import.");
+  if (input.rows.length === 0) throw new UserFacingError("The file has no rows to import.", { kind: "invalid" });
   const sha256 = sha256OfBytes(input.bytes);
   await getStore().put(sha256, input.bytes);
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
-    if (!isCsvTestType(run.testType)) throw new UserFacingError("CSV import is for particle cleanliness and gravimetric runs.");
+    if (!isCsvTestType(run.testType)) throw new UserFacingError("CSV import is for particle cleanliness and gravimetric runs.", { kind: "invalid" });
     // The rows were validated for one test type; the run must be of that type.
-    if (run.testType !== input.testType) throw new UserFacingError("The file was read for another test type than this run's. Nothing was imported.");
+    if (run.testType !== input.testType) throw new UserFacingError("The file was read for another test type than this run's. Nothing was imported.", { kind: "invalid" });
     const labels = input.rows.map((r) => r.sampleLabel);
     const recorded = new Set((await tx.select({ label: testSamples.sampleLabel }).from(testSamples).where(eq(testSamples.runId, run.id))).map((e) => e.label));
     const clash = labels.filter((l) => recorded.has(l));

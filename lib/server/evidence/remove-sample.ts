@@ -12,7 +12,7 @@ export async function removeSample(actor: AuditActor, input: { runId: string; sa
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
     const [row] = await tx.select().from(testSamples).where(and(eq(testSamples.id, input.sampleId), eq(testSamples.runId, run.id)));
-    if (!row) throw new UserFacingError("This sample is not part of the run.");
+    if (!row) throw new UserFacingError("This sample is not part of the run.", { kind: "not_found" });
     await tx.delete(testSamples).where(eq(testSamples.id, row.id));
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {

@@ -16,7 +16,7 @@ import { getRunRow } from "./run-content";
 export async function reviseRun(actor: { id: string; name: string }, input: { runId: string; reason: string }) {
   return getDb().transaction(async (tx) => {
     const old = await getRunRow(tx, input.runId);
-    if (!old) throw new UserFacingError("This test run does not exist.");
+    if (!old) throw new UserFacingError("This test run does not exist.", { kind: "not_found" });
     if (old.status !== "performed" && old.status !== "verified") {
       throw new UserFacingError(old.status === "open" ? "An open run can be edited directly; no revision is needed." : "This revision is already superseded.");
     }

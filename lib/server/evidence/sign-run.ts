@@ -19,14 +19,14 @@ export async function signRun(input: { userId: string; password: string; runId: 
   const signer = await verifySigner({ userId: input.userId, password: input.password });
   return getDb().transaction(async (tx) => {
     const run = await getRunRow(tx, input.runId);
-    if (!run) throw new UserFacingError("This test run does not exist.");
+    if (!run) throw new UserFacingError("This test run does not exist.", { kind: "not_found" });
     const expected = input.meaning === "performed" ? "open" : "performed";
     if (run.status !== expected) {
       throw new UserFacingError(
         input.meaning === "performed" ? `This run is ${run.status}; only an open run can be signed as performed.` : `This run is ${run.status}; only a performed run can be verified.`,
       );
     }
-    if (input.meaning === "performed" && run.technicianId !== signer.id) throw new UserFacingError("Only the technician assigned to this run signs it as performed.");
+    if (input.meaning === "performed" && run.technicianId !== signer.id) throw new UserFacingError("Only the technician assigned to this run signs it as performed.", { kind: "forbidden" });
     const { hash, samples } = await runContent(tx, run);
     if (hash !== input.contentHash) throw new UserFacingError("The run changed after you opened it. Reload the page, check the data again and sign.");
     if (samples.length === 0) throw new UserFacingError("Record at least one sample before signing.");

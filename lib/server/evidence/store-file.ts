@@ -29,17 +29,17 @@ export async function storeEvidenceFile(
   input: { runId: string; name: string; bytes: Uint8Array; kind: EvidenceFileKind; sampleLabel?: string | null },
 ) {
   const run = await getRunRow(getDb(), input.runId);
-  if (!run) throw new UserFacingError("This test run does not exist.");
-  if (run.status !== "open") throw new UserFacingError(`This run is ${run.status} and locked; files can be added only while it is open.`);
+  if (!run) throw new UserFacingError("This test run does not exist.", { kind: "not_found" });
+  if (run.status !== "open") throw new UserFacingError(`This run is ${run.status} and locked; files can be added only while it is open.`, { kind: "locked" });
   let checked;
   try {
     checked = checkUpload({ name: input.name, bytes: input.bytes, maxBytes: uploadLimitBytes() });
   } catch (error) {
-    if (error instanceof FileCheckError) throw new UserFacingError(error.message, "file");
+    if (error instanceof FileCheckError) throw new UserFacingError(error.message, { kind: error.kind, field: "file" });
     throw error;
   }
   if ((input.kind === "photo" || input.kind === "membrane_image") && checked.type !== "png" && checked.type !== "jpeg") {
-    throw new UserFacingError("Photos and membrane images must be PNG or JPEG.", "kind");
+    throw new UserFacingError("Photos and membrane images must be PNG or JPEG.", { kind: "invalid", field: "kind" });
   }
   const sha256 = sha256OfBytes(input.bytes);
   const { created } = await getStore().put(sha256, input.bytes);

@@ -54,7 +54,7 @@ class PdfWorker {
     this.child ??= this.spawn();
     const child = this.child;
     const timer = setTimeout(() => {
-      this.fail(new UserFacingError(`This PDF took longer than ${env().PDF_TIMEOUT_SECONDS} s to render and was stopped. Other PDFs are not affected.`));
+      this.fail(new UserFacingError(`This PDF took longer than ${env().PDF_TIMEOUT_SECONDS} s to render and was stopped. Other PDFs are not affected.`, { kind: "unavailable" }));
       if (this.child === child) this.retire();
     }, env().PDF_TIMEOUT_SECONDS * 1000);
     this.current = { ...next, timer, child };
@@ -71,7 +71,7 @@ class PdfWorker {
     if (reply.ok) done.resolve(reply.bytes);
     else {
       console.error("PDF render failed:", reply.message);
-      done.reject(new UserFacingError("This record could not be rendered as a PDF. Other PDFs are not affected; the error is in the server log."));
+      done.reject(new UserFacingError("This record could not be rendered as a PDF. Other PDFs are not affected; the error is in the server log.", { kind: "invalid" }));
       // A failed layout leaves the renderer's layout engine in a broken state: start the next job afresh.
       this.retire();
     }
@@ -89,7 +89,7 @@ class PdfWorker {
     // A worker retired after a failed job exits while the next job runs in its successor.
     if (this.current?.child === child) {
       console.error(`PDF worker stopped (code ${code}, signal ${signal}) while rendering.`);
-      this.fail(new UserFacingError("This record could not be rendered as a PDF: it needs more memory than a PDF may use. Other PDFs are not affected."));
+      this.fail(new UserFacingError("This record could not be rendered as a PDF: it needs more memory than a PDF may use. Other PDFs are not affected.", { kind: "too_large" }));
     }
     this.pump();
   }

@@ -14,14 +14,15 @@ import { UserFacingError } from "@/lib/server/errors";
  */
 export async function verifySigner(input: { userId: string; password: string }, now = new Date()) {
   const [user] = await getDb().select().from(users).where(eq(users.id, input.userId));
-  if (!user || !user.active) throw new UserFacingError("Your account may not sign.");
+  if (!user || !user.active) throw new UserFacingError("Your account may not sign.", { kind: "forbidden" });
   const ok = await verifyPassword(user.passwordHash, input.password);
   if (!ok || isLocked(user, now)) {
     await recordFailedAttempt(user.id, "signing", now);
-    throw new UserFacingError(
-      isLocked(user, now) ? "Your account is locked. Ask an administrator." : "The password is not correct. Nothing was signed.",
-      "password",
-    );
+    const locked = isLocked(user, now);
+    throw new UserFacingError(locked ? "Your account is locked. Ask an administrator." : "The password is not correct. Nothing was signed.", {
+      kind: locked ? "locked" : "invalid",
+      field: "password",
+    });
   }
   return { id: user.id, name: user.name };
 }

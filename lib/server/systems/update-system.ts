@@ -10,11 +10,11 @@ import { UserFacingError } from "@/lib/server/errors";
 export async function updateSystem(actor: AuditActor, input: SystemInput) {
   await getDb().transaction(async (tx) => {
     const [system] = await tx.select().from(cleaningSystems).where(eq(cleaningSystems.id, input.systemId));
-    if (!system) throw new UserFacingError("That cleaning system does not exist.");
+    if (!system) throw new UserFacingError("That cleaning system does not exist.", { kind: "not_found" });
     const before = await tx.select().from(systemStages).where(eq(systemStages.systemId, system.id));
     const kept = input.stages.filter((s) => s.id).map((s) => s.id);
     const missing = before.filter((b) => !kept.includes(b.id));
-    if (missing.length) throw new UserFacingError(`Stages are kept once created: ${missing.map((m) => m.name).join(", ")} cannot be removed.`);
+    if (missing.length) throw new UserFacingError(`Stages are kept once created: ${missing.map((m) => m.name).join(", ")} cannot be removed.`, { kind: "invalid" });
     await tx.update(cleaningSystems).set({ name: input.name, description: input.description }).where(eq(cleaningSystems.id, system.id));
     // Positions are unique per system: park existing stages out of the way, then write the new order.
     for (const b of before) await tx.update(systemStages).set({ position: b.position + 1000 }).where(eq(systemStages.id, b.id));
@@ -22,7 +22,7 @@ export async function updateSystem(actor: AuditActor, input: SystemInput) {
       const values = { name: s.name, kind: s.kind, capabilities: s.capabilities, tankVolumeL: s.tankVolumeL, position: i + 1 };
       if (s.id) {
         const [row] = await tx.update(systemStages).set(values).where(and(eq(systemStages.id, s.id), eq(systemStages.systemId, system.id))).returning();
-        if (!row) throw new UserFacingError("A stage does not belong to this system. Reload the page.");
+        if (!row) throw new UserFacingError("A stage does not belong to this system. Reload the page.", { kind: "invalid" });
       } else {
         await tx.insert(systemStages).values({ ...values, systemId: system.id });
       }

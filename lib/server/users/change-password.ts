@@ -17,13 +17,13 @@ export async function changePassword(input: {
 }) {
   const db = getDb();
   const [user] = await db.select().from(users).where(eq(users.id, input.userId));
-  if (!user) throw new UserFacingError("That user does not exist.");
+  if (!user) throw new UserFacingError("That user does not exist.", { kind: "not_found" });
   if (!(await verifyPassword(user.passwordHash, input.currentPassword))) {
     await recordFailedAttempt(user.id, "signing");
-    throw new UserFacingError("The current password is not correct.", "currentPassword");
+    throw new UserFacingError("The current password is not correct.", { kind: "invalid", field: "currentPassword" });
   }
   if (passwordIsEmail(input.newPassword, user.email)) {
-    throw new UserFacingError("The password must not be your e-mail address.", "newPassword");
+    throw new UserFacingError("The password must not be your e-mail address.", { kind: "invalid", field: "newPassword" });
   }
   const passwordHash = await hashPassword(input.newPassword);
   await db.transaction(async (tx) => {

@@ -12,7 +12,7 @@ export async function resetPassword(actor: AuditActor, input: { userId: string }
   const passwordHash = await hashPassword(temporaryPassword);
   await getDb().transaction(async (tx) => {
     const [user] = await tx.select({ id: users.id }).from(users).where(eq(users.id, input.userId));
-    if (!user) throw new UserFacingError("That user does not exist.");
+    if (!user) throw new UserFacingError("That user does not exist.", { kind: "not_found" });
     await tx
       .update(users)
       .set({ passwordHash, mustChangePassword: true, failedAttempts: 0, lockedUntil: null })

@@ -10,7 +10,7 @@ import { assertAnotherActiveAdmin } from "./last-admin";
 export async function setUserActive(actor: AuditActor, input: { userId: string; active: boolean; reason: string }) {
   await getDb().transaction(async (tx) => {
     const [user] = await tx.select().from(users).where(eq(users.id, input.userId));
-    if (!user) throw new UserFacingError("That user does not exist.");
+    if (!user) throw new UserFacingError("That user does not exist.", { kind: "not_found" });
     // A stale page or a second click: say so rather than report a change that did not happen.
     if (user.active === input.active) throw new UserFacingError(`This account is already ${input.active ? "active" : "deactivated"}; nothing changed.`);
     if (!input.active) {

@@ -12,7 +12,7 @@ export async function updateUser(actor: AuditActor, input: NewUser & { userId: s
   try {
     await getDb().transaction(async (tx) => {
       const [before] = await tx.select().from(users).where(eq(users.id, input.userId));
-      if (!before) throw new UserFacingError("That user does not exist.");
+      if (!before) throw new UserFacingError("That user does not exist.", { kind: "not_found" });
       const oldRoles = (await tx.select().from(userRoles).where(eq(userRoles.userId, input.userId))).map((r) => r.role).sort();
       const newRoles = [...new Set(input.roles)].sort();
       if (oldRoles.includes("admin") && !newRoles.includes("admin")) {

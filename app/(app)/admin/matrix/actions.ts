@@ -1,24 +1,16 @@
 "use server";
 
-import { revalidatePath } from "next/cache";
-import { invalid, readJsonPayload, type FormState } from "@/lib/actions/result";
+import { defineAction } from "@/lib/actions/define-action";
 import { matrixSchema } from "@/lib/schemas/change";
-import { authorize } from "@/lib/server/auth/current-user";
-import { toActionFailure } from "@/lib/server/errors";
 import { versionMatrix } from "@/lib/server/matrix/version-matrix";
 
-export async function saveMatrixAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const auth = await authorize("matrix.manage");
-  if (!auth.ok) return auth;
-  const payload = readJsonPayload(formData);
-  if (!payload.ok) return payload;
-  const parsed = matrixSchema.safeParse(payload.value);
-  if (!parsed.success) return invalid(parsed.error);
-  try {
-    const m = await versionMatrix(auth.user, parsed.data);
-    revalidatePath("/admin/matrix");
-    return { ok: true, message: `Saved as version ${m.version}; it applies to change requests assessed from now on.` };
-  } catch (error) {
-    return toActionFailure(error);
-  }
-}
+export const saveMatrixAction = defineAction({
+  permission: "matrix.manage",
+  input: matrixSchema,
+  from: "payload",
+  run: async ({ user, input }) => {
+    const m = await versionMatrix(user, input);
+    return { message: `Saved as version ${m.version}; it applies to change requests assessed from now on.` };
+  },
+  revalidate: ["/admin/matrix"],
+});

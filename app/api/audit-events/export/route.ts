@@ -4,14 +4,12 @@ import { toCsv } from "@/lib/csv/to-csv";
 import { jsonError, searchParamsObject, zodFieldErrors } from "@/lib/http/json";
 import { auditQuerySchema } from "@/lib/schemas/audit";
 import { iterateAuditEvents } from "@/lib/server/audit/query-audit-events";
-import { authorize } from "@/lib/server/auth/current-user";
+import { defineRoute } from "@/lib/server/api/handler";
 
 const HEADER = ["seq", "at_utc", "actor", "action", "record_type", "record_id", "old_value", "new_value", "reason", "prev_hash", "hash"];
 
 /** The filtered audit trail as CSV; the export itself is audited. */
-export async function GET(request: Request) {
-  const auth = await authorize("audit.export");
-  if (!auth.ok) return jsonError(auth.status, auth.message);
+export const GET = defineRoute({ permission: "audit.export" }, async ({ request, user }) => {
   const parsed = auditQuerySchema.safeParse(searchParamsObject(request.url));
   if (!parsed.success) return jsonError(400, "Some filters are not valid.", zodFieldErrors(parsed.error));
   const { before: _before, limit: _limit, ...filters } = parsed.data;
@@ -35,7 +33,7 @@ export async function GET(request: Request) {
     },
   });
   await getDb().transaction((tx) =>
-    appendAudit(tx, { id: auth.user.id, name: auth.user.name }, { action: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters } }),
+    appendAudit(tx, { id: user.id, name: user.name }, { action: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters } }),
   );
   const stamp = new Date().toISOString().slice(0, 10);
   return new Response(body, {
@@ -45,4 +43,4 @@ export async function GET(request: Request) {
       "Cache-Control": "no-store",
     },
   });
-}
+});

@@ -1,17 +1,15 @@
 import { NextResponse } from "next/server";
 import { jsonError, searchParamsObject, zodFieldErrors } from "@/lib/http/json";
 import { parameterSearchQuerySchema } from "@/lib/schemas/trace";
-import { authorize } from "@/lib/server/auth/current-user";
+import { defineRoute } from "@/lib/server/api/handler";
 import { listTraceableParameters } from "@/lib/server/trace/parameter-history";
 import { matchParameters } from "@/lib/trace/parameter-search";
 
 /** The trace page's search as the user types: the first matches and how many there are. */
-export async function GET(request: Request) {
-  const auth = await authorize("trace.view");
-  if (!auth.ok) return jsonError(auth.status, auth.message);
+export const GET = defineRoute({ permission: "trace.view" }, async ({ request }) => {
   const parsed = parameterSearchQuerySchema.safeParse(searchParamsObject(request.url));
   if (!parsed.success) return jsonError(400, "Some search values are not valid.", zodFieldErrors(parsed.error));
   const { system, recipe, q } = parsed.data;
   const result = matchParameters(await listTraceableParameters(), { systemId: system || undefined, recipeId: recipe || undefined, q });
   return NextResponse.json(result, { headers: { "Cache-Control": "no-store" } });
-}
+});

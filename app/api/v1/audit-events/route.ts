@@ -2,7 +2,7 @@ import { auditEventsQuery } from "@/lib/schemas/api";
 import { listAuditEventsApi } from "@/lib/server/api/queries";
 import { apiRoute, ok, parseQuery } from "@/lib/server/api/handler";
 
-export const GET = apiRoute({ action: "audit.view", mode: "read" }, async ({ request }) => {
+export const GET = apiRoute({ permission: "audit.view", scope: "read" }, async ({ request }) => {
   const q = parseQuery(request, auditEventsQuery);
   return q.ok ? ok(await listAuditEventsApi(q.data)) : q.response;
 });

@@ -2,7 +2,7 @@ import { changeRequestsQuery } from "@/lib/schemas/api";
 import { listChangeRequestsApi } from "@/lib/server/api/queries";
 import { apiRoute, ok, parseQuery } from "@/lib/server/api/handler";
 
-export const GET = apiRoute({ action: "changes.view", mode: "read" }, async ({ request }) => {
+export const GET = apiRoute({ permission: "changes.view", scope: "read" }, async ({ request }) => {
   const q = parseQuery(request, changeRequestsQuery);
   return q.ok ? ok(await listChangeRequestsApi(q.data)) : q.response;
 });

@@ -11,7 +11,7 @@ import { BATH_VARIABLES, MAINTENANCE_LABELS, STATE_LABELS, type BathVariable } f
 import { withUnit } from "@/lib/format/labels";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getTank } from "@/lib/server/bath/queries";
-import { recordBathAction, setIntervalAction } from "../../actions";
+import { recordBathAction, setMaintenanceIntervalAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Tank log" };
 
@@ -47,7 +47,7 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
             ))}
           </ul>
         )}
-        {can(user.roles, "bath.manage_intervals") && <IntervalForm action={setIntervalAction} stageId={tank.stage.id} />}
+        {can(user.roles, "bath.manage_intervals") && <IntervalForm action={setMaintenanceIntervalAction} stageId={tank.stage.id} />}
       </section>
       {can(user.roles, "bath.record") && (
         <section aria-labelledby="record-title" className="mb-6">

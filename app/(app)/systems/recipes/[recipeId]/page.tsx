@@ -11,7 +11,7 @@ import { OPEN_STATUSES, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requalificationDue } from "@/lib/changes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRecipePage } from "@/lib/server/changes/queries";
-import { openChangeAction, setIntervalAction } from "../../../changes/actions";
+import { openChangeAction, setRequalificationIntervalAction } from "../../../changes/actions";
 
 export const metadata: Metadata = { title: "Recipe" };
 
@@ -92,7 +92,7 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                   <li key={interval.id} className="px-3 py-2">
                     <span className="font-medium">{family.code}</span> {family.name} · requalify every {interval.intervalMonths} months · last {interval.lastQualifiedAt.slice(0, 10)} · next due{" "}
                     {requalificationDue(interval.lastQualifiedAt, interval.intervalMonths).slice(0, 10)}
-                    {can(user.roles, "recipe.edit") && <IntervalForm action={setIntervalAction} intervalId={interval.id} months={interval.intervalMonths} family={family.code} />}
+                    {can(user.roles, "recipe.edit") && <IntervalForm action={setRequalificationIntervalAction} intervalId={interval.id} months={interval.intervalMonths} family={family.code} />}
                   </li>
                 ))}
               </ul>

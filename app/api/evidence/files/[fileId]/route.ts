@@ -1,16 +1,14 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { authorize } from "@/lib/server/auth/current-user";
+import { defineRoute, routeError } from "@/lib/server/api/handler";
 import { readEvidenceFile } from "@/lib/server/evidence/read-file";
 
 /** Serves an evidence file to an authorised reader after re-checking its hash; every download is audited. */
-export async function GET(_request: Request, { params }: { params: Promise<{ fileId: string }> }) {
-  const auth = await authorize("evidence.view");
-  if (!auth.ok) return NextResponse.json({ error: auth.message }, { status: auth.status });
-  const id = z.string().uuid().safeParse((await params).fileId);
-  if (!id.success) return NextResponse.json({ error: "No such file." }, { status: 404 });
-  const result = await readEvidenceFile({ id: auth.user.id, name: auth.user.name }, id.data);
-  if (!result.ok) return NextResponse.json({ error: result.message }, { status: result.status });
+export const GET = defineRoute<{ fileId: string }>({ permission: "evidence.view" }, async ({ user, params }) => {
+  const id = z.string().uuid().safeParse(params.fileId);
+  if (!id.success) return routeError(404, "No such file.");
+  const result = await readEvidenceFile({ id: user.id, name: user.name }, id.data);
+  if (!result.ok) return routeError(result.status, result.message);
   return new NextResponse(Buffer.from(result.bytes), {
     headers: {
       "Content-Type": result.mimeType,
@@ -20,4 +18,4 @@ export async function GET(_request: Request, { params }: { params: Promise<{ fil
       "Cache-Control": "private, no-store",
     },
   });
-}
+});

@@ -1,10 +1,10 @@
 import { Readable } from "node:stream";
-import { NextResponse, type NextRequest } from "next/server";
+import { NextResponse } from "next/server";
 import { z } from "zod";
 import { isCsvTestType, parseSampleCsv, type ColumnMapping } from "@/lib/evidence/csv-import";
 import { checkUpload, FileCheckError, formatSize } from "@/lib/evidence/files";
-import { authorize } from "@/lib/server/auth/current-user";
-import { toActionFailure } from "@/lib/server/errors";
+import { defineRoute, routeError } from "@/lib/server/api/handler";
+import { UserFacingError } from "@/lib/server/errors";
 import { importCsvRows } from "@/lib/server/evidence/import-csv";
 import { getRunRow } from "@/lib/server/evidence/run-content";
 import { getDb } from "@/db/client";
@@ -17,19 +17,17 @@ const mappingSchema = z.record(z.string(), z.string().max(200));
  * a stream and every row validated; nothing is saved unless the whole file is
  * valid, and then all rows are saved in one transaction with the file as evidence.
  */
-export async function POST(request: NextRequest, { params }: { params: Promise<{ runId: string }> }) {
-  const auth = await authorize("evidence.record");
-  if (!auth.ok) return NextResponse.json({ ok: false, message: auth.message }, { status: auth.status });
-  const runId = z.string().uuid().safeParse((await params).runId);
-  if (!runId.success) return NextResponse.json({ ok: false, message: "No such run." }, { status: 404 });
+export const POST = defineRoute<{ runId: string }>({ permission: "evidence.record" }, async ({ request, user, params }) => {
+  const runId = z.string().uuid().safeParse(params.runId);
+  if (!runId.success) return routeError(404, "No such run.");
   const run = await getRunRow(getDb(), runId.data);
-  if (!run) return NextResponse.json({ ok: false, message: "No such run." }, { status: 404 });
-  if (!isCsvTestType(run.testType)) return NextResponse.json({ ok: false, message: "CSV import is for particle cleanliness and gravimetric runs." }, { status: 422 });
+  if (!run) return routeError(404, "No such run.");
+  if (!isCsvTestType(run.testType)) throw new UserFacingError("CSV import is for particle cleanliness and gravimetric runs.", { kind: "invalid" });
   const form = await request.formData().catch(() => null);
   const file = form?.get("file");
-  if (!(file instanceof File)) return NextResponse.json({ ok: false, message: "Choose a CSV file." }, { status: 400 });
+  if (!(file instanceof File)) return routeError(400, "Choose a CSV file.");
   const limit = uploadLimitBytes();
-  if (file.size > limit) return NextResponse.json({ ok: false, message: `The file is larger than the limit of ${formatSize(limit)}. Nothing was imported.` }, { status: 413 });
+  if (file.size > limit) throw new UserFacingError(`The file is larger than the limit of ${formatSize(limit)}. Nothing was imported.`, { kind: "too_large" });
   let mapping: ColumnMapping | undefined;
   const mappingText = form?.get("mapping");
   if (typeof mappingText === "string" && mappingText !== "") {
@@ -40,7 +38,7 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
       // reported just below as an invalid mapping
     }
     const parsed = mappingSchema.safeParse(json);
-    if (!parsed.success) return NextResponse.json({ ok: false, message: "The column mapping is not valid." }, { status: 400 });
+    if (!parsed.success) return routeError(400, "The column mapping is not valid.");
     mapping = Object.fromEntries(Object.entries(parsed.data).filter(([, v]) => v !== "")) as ColumnMapping;
   }
   const result = await parseSampleCsv(Readable.fromWeb(file.stream() as never), { testType: run.testType, mapping, maxRows: 100_000 });
@@ -56,13 +54,14 @@ export async function POST(request: NextRequest, { params }: { params: Promise<{
       { status: 422 },
     );
   }
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  let checked: ReturnType<typeof checkUpload>;
   try {
-    const bytes = new Uint8Array(await file.arrayBuffer());
-    const checked = checkUpload({ name: file.name, bytes, maxBytes: limit });
-    const { imported } = await importCsvRows({ id: auth.user.id, name: auth.user.name }, { runId: runId.data, testType: run.testType, rows: result.rows, fileName: checked.name, bytes });
-    return NextResponse.json({ ok: true, message: `${imported} sample(s) imported from ${checked.name}.` });
+    checked = checkUpload({ name: file.name, bytes, maxBytes: limit });
   } catch (error) {
-    if (error instanceof FileCheckError) return NextResponse.json({ ok: false, message: error.message }, { status: 422 });
-    return NextResponse.json(toActionFailure(error), { status: 422 });
+    if (error instanceof FileCheckError) throw new UserFacingError(error.message, { kind: error.kind });
+    throw error;
   }
-}
+  const { imported } = await importCsvRows({ id: user.id, name: user.name }, { runId: runId.data, testType: run.testType, rows: result.rows, fileName: checked.name, bytes });
+  return NextResponse.json({ ok: true, message: `${imported} sample(s) imported from ${checked.name}.` });
+});

@@ -13,7 +13,7 @@ import { getRunRow } from "@/lib/server/evidence/run-content";
  * entry form: the run's test type picks the schema, the outcome is recomputed
  * from the stored rows, and the addition is audited under the token's owner.
  */
-export const POST = apiRoute<{ runId: string }>({ action: "evidence.record", mode: "write" }, async ({ request, user, params }) => {
+export const POST = apiRoute<{ runId: string }>({ permission: "evidence.record", scope: "read_write" }, async ({ request, user, params }) => {
   if (!z.uuid().safeParse(params.runId).success) return notFound("test run");
   const run = await getRunRow(getDb(), params.runId);
   if (!run) return notFound("test run");

@@ -1,18 +1,16 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { authorize } from "@/lib/server/auth/current-user";
+import { defineRoute, routeError } from "@/lib/server/api/handler";
 import { exportVersionPdf } from "@/lib/server/documents/export-pdf";
 
 const paramsSchema = z.object({ documentId: z.string().uuid(), version: z.coerce.number().int().min(1) });
 
 /** Any version as a PDF: signatures, content hash, page X of Y; "Uncontrolled copy" unless effective. */
-export async function GET(_request: Request, { params }: { params: Promise<{ documentId: string; version: string }> }) {
-  const auth = await authorize("document.export");
-  if (!auth.ok) return NextResponse.json({ error: auth.message }, { status: auth.status });
-  const parsed = paramsSchema.safeParse(await params);
-  if (!parsed.success) return NextResponse.json({ error: "No such document version." }, { status: 404 });
-  const pdf = await exportVersionPdf(auth.user, parsed.data);
-  if (!pdf) return NextResponse.json({ error: "No such document version." }, { status: 404 });
+export const GET = defineRoute<{ documentId: string; version: string }>({ permission: "document.export" }, async ({ user, params }) => {
+  const parsed = paramsSchema.safeParse(params);
+  if (!parsed.success) return routeError(404, "No such document version.");
+  const pdf = await exportVersionPdf(user, parsed.data);
+  if (!pdf) return routeError(404, "No such document version.");
   return new NextResponse(new Uint8Array(pdf.bytes), {
     headers: {
       "Content-Type": "application/pdf",
@@ -20,4 +18,4 @@ export async function GET(_request: Request, { params }: { params: Promise<{ doc
       "Cache-Control": "no-store",
     },
   });
-}
+});
