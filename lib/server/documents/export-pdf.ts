@@ -31,7 +31,7 @@ export async function exportVersionPdf(actor: DocumentActor, input: { documentId
       tx,
       actor,
       {
-        action: "document.exported",
+        eventType: "document.exported",
         recordType: "document_version",
         recordId: version.id,
         new: { format: "pdf", number: document.number, version: version.version, status: version.status, contentHash: version.contentHash ?? hashContent(version.content), bytes: bytes.length },

@@ -34,7 +34,7 @@ export async function signRun(input: { userId: string; password: string; runId: 
     await applySignature(tx, { signer, recordType: "test_run", recordId: run.id, meaning: input.meaning, contentHash: hash });
     await tx.update(testRuns).set({ status }).where(eq(testRuns.id, run.id));
     await appendAudit(tx, signer, {
-      action: input.meaning === "performed" ? "test_run.performed" : "test_run.verified",
+      eventType: input.meaning === "performed" ? "test_run.performed" : "test_run.verified",
       recordType: "test_run",
       recordId: run.id,
       old: { status: run.status },

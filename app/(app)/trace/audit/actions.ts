@@ -15,7 +15,7 @@ export async function verifyIntegrityAction(_prev: FormState, _formData: FormDat
   // The check itself is recorded, after it ran, so it does not verify its own event.
   await getDb().transaction((tx) =>
     appendAudit(tx, { id: auth.user.id, name: auth.user.name }, {
-      action: "audit.verified",
+      eventType: "audit.verified",
       recordType: "audit_trail",
       recordId: "chain",
       new: result.ok ? { ok: true, events: result.events } : { ok: false, brokenAt: result.brokenAt, reason: result.reason },

@@ -6,6 +6,7 @@ import { auditQuerySchema } from "@/lib/schemas/audit";
 import { iterateAuditEvents } from "@/lib/server/audit/query-audit-events";
 import { authorize } from "@/lib/server/auth/current-user";
 
+// The stored columns by their own names: a row here is what its hash covers.
 const HEADER = ["seq", "at_utc", "actor", "action", "record_type", "record_id", "old_value", "new_value", "reason", "prev_hash", "hash"];
 
 /** The filtered audit trail as CSV; the export itself is audited. */
@@ -15,6 +16,7 @@ export async function GET(request: Request) {
   const parsed = auditQuerySchema.safeParse(searchParamsObject(request.url));
   if (!parsed.success) return jsonError(400, "Some filters are not valid.", zodFieldErrors(parsed.error));
   const { before: _before, limit: _limit, ...filters } = parsed.data;
+  const given = Object.fromEntries(Object.entries(filters).filter((e): e is [string, string] => e[1] !== undefined));
 
   const encoder = new TextEncoder();
   const events = iterateAuditEvents(filters);
@@ -35,7 +37,7 @@ export async function GET(request: Request) {
     },
   });
   await getDb().transaction((tx) =>
-    appendAudit(tx, { id: auth.user.id, name: auth.user.name }, { action: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters } }),
+    appendAudit(tx, { id: auth.user.id, name: auth.user.name }, { eventType: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters: given } }),
   );
   const stamp = new Date().toISOString().slice(0, 10);
   return new Response(body, {
