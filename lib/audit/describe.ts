@@ -20,5 +20,7 @@ export function describeChanges(values: Pick<ReadAuditEvent, "old" | "new">): Fi
   const before = new Map(Object.entries(values.old ?? {}));
   const after = new Map(Object.entries(values.new ?? {}));
   const fields = [...new Set([...before.keys(), ...after.keys()])].sort();
-  return fields.map((field) => ({ field, old: show(before.get(field)), new: show(after.get(field)) })).filter((c) => c.old !== c.new);
+  return fields
+    .map((field) => ({ field, old: show(before.get(field)), new: show(after.get(field)) }))
+    .filter((c) => c.old !== c.new);
 }

@@ -38,18 +38,24 @@ const runStatus = z.enum(RUN_STATUSES);
 const changeStatus = z.enum(CHANGE_STATUSES);
 const documentStatus = z.enum(DOCUMENT_STATUSES);
 const userDetails = obj({ name: text, email: text, jobTitle: text.nullable() }).partial();
-const parameterValue = obj({ setpoint: z.number(), unit: text, low: z.number().nullable(), high: z.number().nullable() }).nullable();
+const parameterValue = obj({
+  setpoint: z.number(),
+  unit: text,
+  low: z.number().nullable(),
+  high: z.number().nullable(),
+}).nullable();
 
 /** One service writes both signing events with the same shape. */
 const signedRun = obj({ status: runStatus, contentHash: sha256, outcome, code: text.nullable() });
 
 const none = z.null().default(null);
 
-function event<const T extends string, const R extends string, O extends z.ZodType = typeof none, N extends z.ZodType = typeof none>(
-  eventType: T,
-  recordType: R,
-  values: { old?: O; new?: N } = {},
-) {
+function event<
+  const T extends string,
+  const R extends string,
+  O extends z.ZodType = typeof none,
+  N extends z.ZodType = typeof none,
+>(eventType: T, recordType: R, values: { old?: O; new?: N } = {}) {
   return z.strictObject({
     eventType: z.literal(eventType),
     recordType: z.literal(recordType),
@@ -70,18 +76,38 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   // Accounts
   event("auth.signed_in", "user"),
   event("auth.signed_out", "user"),
-  event("auth.sign_in_failed", "user", { new: obj({ reason: z.enum(["wrong password", "account locked", "account deactivated"]), during: z.enum(["sign_in", "signing"]) }) }),
-  event("auth.locked_out", "user", { new: obj({ lockedUntil: isoTime.nullable(), attempts: count }) }),
+  event("auth.sign_in_failed", "user", {
+    new: obj({
+      reason: z.enum(["wrong password", "account locked", "account deactivated"]),
+      during: z.enum(["sign_in", "signing"]),
+    }),
+  }),
+  event("auth.locked_out", "user", {
+    new: obj({ lockedUntil: isoTime.nullable(), attempts: count }),
+  }),
   event("auth.password_changed", "user"),
-  event("user.created", "user", { new: obj({ name: text, email: text, jobTitle: text.nullable(), roles: z.array(z.enum(ROLES)) }) }),
+  event("user.created", "user", {
+    new: obj({ name: text, email: text, jobTitle: text.nullable(), roles: z.array(z.enum(ROLES)) }),
+  }),
   event("user.updated", "user", { old: userDetails, new: userDetails }),
-  event("user.roles_changed", "user", { old: obj({ roles: z.array(z.enum(ROLES)) }), new: obj({ roles: z.array(z.enum(ROLES)) }) }),
-  event("user.deactivated", "user", { old: obj({ active: z.boolean() }), new: obj({ active: z.boolean() }) }),
-  event("user.reactivated", "user", { old: obj({ active: z.boolean() }), new: obj({ active: z.boolean() }) }),
+  event("user.roles_changed", "user", {
+    old: obj({ roles: z.array(z.enum(ROLES)) }),
+    new: obj({ roles: z.array(z.enum(ROLES)) }),
+  }),
+  event("user.deactivated", "user", {
+    old: obj({ active: z.boolean() }),
+    new: obj({ active: z.boolean() }),
+  }),
+  event("user.reactivated", "user", {
+    old: obj({ active: z.boolean() }),
+    new: obj({ active: z.boolean() }),
+  }),
   event("user.password_reset", "user", { new: obj({ mustChangePassword: z.literal(true) }) }),
   // Plant, parts and recipes
   event("site.created", "site", { new: obj({ name: text, location: text.nullable() }) }),
-  event("cleaning_system.created", "cleaning_system", { new: obj({ code: text, name: text, stages: z.array(text) }) }),
+  event("cleaning_system.created", "cleaning_system", {
+    new: obj({ code: text, name: text, stages: z.array(text) }),
+  }),
   event("cleaning_system.updated", "cleaning_system", {
     // Each stage as one line: "name (kind; capabilities; volume)".
     old: obj({ name: text, description: text.nullable(), stages: z.array(text) }),
@@ -100,30 +126,78 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       minWettingTensionMNm: z.number().nullable(),
       visualCriteria: text.nullable(),
       drynessCriteria: text.nullable(),
-    }).partial({ ccc: true, maxMetallicUm: true, maxNonMetallicUm: true, maxFibreUm: true, gravimetricLimitMg: true, gravimetricBasis: true, minWettingTensionMNm: true, visualCriteria: true, drynessCriteria: true }),
+    }).partial({
+      ccc: true,
+      maxMetallicUm: true,
+      maxNonMetallicUm: true,
+      maxFibreUm: true,
+      gravimetricLimitMg: true,
+      gravimetricBasis: true,
+      minWettingTensionMNm: true,
+      visualCriteria: true,
+      drynessCriteria: true,
+    }),
   }),
-  event("part_family.created", "part_family", { new: obj({ code: text, name: text, material: text, wettedAreaCm2: z.number(), wettedVolumeCm3: z.number().nullable(), spec: text }) }),
+  event("part_family.created", "part_family", {
+    new: obj({
+      code: text,
+      name: text,
+      material: text,
+      wettedAreaCm2: z.number(),
+      wettedVolumeCm3: z.number().nullable(),
+      spec: text,
+    }),
+  }),
   event("recipe.created", "recipe", { new: obj({ code: text, name: text }) }),
-  event("recipe_version.created", "recipe_version", { new: obj({ recipe: text, version, notes: text.nullable() }) }),
-  event("recipe_version.proposed", "recipe_version", { new: obj({ recipe: text, version, copiedFrom: version, changeRequest: text }) }),
+  event("recipe_version.created", "recipe_version", {
+    new: obj({ recipe: text, version, notes: text.nullable() }),
+  }),
+  event("recipe_version.proposed", "recipe_version", {
+    new: obj({ recipe: text, version, copiedFrom: version, changeRequest: text }),
+  }),
   // The first version of a seeded recipe is effective from the start: it had no earlier status.
   event("recipe_version.effective", "recipe_version", {
-    old: obj({ status: z.literal("proposed") }).nullable().default(null),
-    new: obj({ status: z.literal("effective"), effectiveFrom: isoTime, changeRequest: text.optional() }),
+    old: obj({ status: z.literal("proposed") })
+      .nullable()
+      .default(null),
+    new: obj({
+      status: z.literal("effective"),
+      effectiveFrom: isoTime,
+      changeRequest: text.optional(),
+    }),
   }),
   event("recipe_version.superseded", "recipe_version", {
     old: obj({ status: z.literal("effective") }),
-    new: obj({ status: z.literal("superseded"), effectiveTo: isoTime, by: version, changeRequest: text.optional() }),
+    new: obj({
+      status: z.literal("superseded"),
+      effectiveTo: isoTime,
+      by: version,
+      changeRequest: text.optional(),
+    }),
   }),
-  event("recipe_version.withdrawn", "recipe_version", { old: obj({ status: z.literal("proposed") }), new: obj({ status: z.literal("withdrawn"), changeRequest: text }) }),
+  event("recipe_version.withdrawn", "recipe_version", {
+    old: obj({ status: z.literal("proposed") }),
+    new: obj({ status: z.literal("withdrawn"), changeRequest: text }),
+  }),
   // Signatures, e-mail and the trail itself
   event("signature.applied", "signature", {
-    new: obj({ on: text, meaning: z.enum(SIGNATURE_MEANINGS), printedName: text, contentHash: sha256, signedAt: isoTime }),
+    new: obj({
+      on: text,
+      meaning: z.enum(SIGNATURE_MEANINGS),
+      printedName: text,
+      contentHash: sha256,
+      signedAt: isoTime,
+    }),
   }),
   event("email.test_sent", "email", { new: obj({ to: text }) }),
-  event("audit.exported", "audit_trail", { new: obj({ filters: z.record(z.string(), z.union([text, z.number()])) }) }),
+  event("audit.exported", "audit_trail", {
+    new: obj({ filters: z.record(z.string(), z.union([text, z.number()])) }),
+  }),
   event("audit.verified", "audit_trail", {
-    new: z.union([obj({ ok: z.literal(true), events: count }), obj({ ok: z.literal(false), brokenAt: z.number().int(), reason: text })]),
+    new: z.union([
+      obj({ ok: z.literal(true), events: count }),
+      obj({ ok: z.literal(false), brokenAt: z.number().int(), reason: text }),
+    ]),
   }),
   // Controlled documents: the document's life, recorded on the version it concerns
   event("document.created", "document", {
@@ -140,7 +214,11 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   }),
   event("document.edited", "document_version", {
     old: obj({ contentHash: sha256, lockVersion: count }),
-    new: obj({ contentHash: sha256, lockVersion: count, savedOverNewer: z.literal(true).optional() }),
+    new: obj({
+      contentHash: sha256,
+      lockVersion: count,
+      savedOverNewer: z.literal(true).optional(),
+    }),
   }),
   event("document.submitted", "document_version", {
     old: obj({ status: documentStatus }),
@@ -156,24 +234,51 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       due: isoTime.nullable(),
     }),
   }),
-  event("document.reviewed", "document_version", { new: obj({ step: version, round: version, contentHash: sha256, nextStep: text.nullable() }) }),
-  event("document.sent_back", "document_version", { old: obj({ status: z.literal("in_review"), contentHash: sha256.nullable() }), new: obj({ status: z.literal("draft"), round: version }) }),
-  event("document.rejected", "document_version", { old: obj({ status: z.literal("in_review"), contentHash: sha256.nullable() }), new: obj({ status: z.literal("draft"), round: version }) }),
+  event("document.reviewed", "document_version", {
+    new: obj({ step: version, round: version, contentHash: sha256, nextStep: text.nullable() }),
+  }),
+  event("document.sent_back", "document_version", {
+    old: obj({ status: z.literal("in_review"), contentHash: sha256.nullable() }),
+    new: obj({ status: z.literal("draft"), round: version }),
+  }),
+  event("document.rejected", "document_version", {
+    old: obj({ status: z.literal("in_review"), contentHash: sha256.nullable() }),
+    new: obj({ status: z.literal("draft"), round: version }),
+  }),
   event("document.approved", "document_version", {
     old: obj({ status: z.literal("in_review") }),
     new: obj({ status: z.literal("approved"), contentHash: sha256, effectiveDate: isoDate }),
   }),
   // A seeded version is effective from the start: it had no earlier status.
   event("document.effective", "document_version", {
-    old: obj({ status: z.literal("approved") }).nullable().default(null),
+    old: obj({ status: z.literal("approved") })
+      .nullable()
+      .default(null),
     new: obj({ status: z.literal("effective"), effectiveDate: isoDate.nullable(), version }),
   }),
-  event("document.superseded", "document_version", { old: obj({ status: z.literal("effective"), version }), new: obj({ status: z.literal("superseded"), byVersion: version }) }),
-  event("document.retired", "document_version", { old: obj({ status: z.literal("effective") }), new: obj({ status: z.literal("retired"), version }) }),
-  event("document.version_started", "document_version", { new: obj({ version, from: version, contentHash: sha256 }) }),
-  event("document.review_overdue", "document_review", { new: obj({ assignee: id, due: isoTime.nullable(), notifiedAt: isoTime }) }),
+  event("document.superseded", "document_version", {
+    old: obj({ status: z.literal("effective"), version }),
+    new: obj({ status: z.literal("superseded"), byVersion: version }),
+  }),
+  event("document.retired", "document_version", {
+    old: obj({ status: z.literal("effective") }),
+    new: obj({ status: z.literal("retired"), version }),
+  }),
+  event("document.version_started", "document_version", {
+    new: obj({ version, from: version, contentHash: sha256 }),
+  }),
+  event("document.review_overdue", "document_review", {
+    new: obj({ assignee: id, due: isoTime.nullable(), notifiedAt: isoTime }),
+  }),
   event("document.exported", "document_version", {
-    new: obj({ format: z.literal("pdf"), number: text, version, status: documentStatus, contentHash: sha256, bytes: count }),
+    new: obj({
+      format: z.literal("pdf"),
+      number: text,
+      version,
+      status: documentStatus,
+      contentHash: sha256,
+      bytes: count,
+    }),
   }),
   // Evidence: test runs, their samples, raw data and files, and the bath and filter log
   event("test_run.created", "test_run", {
@@ -191,17 +296,35 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     }),
   }),
   event("test_run.sample_added", "test_run", {
-    new: obj({ sampleId: id, sampleLabel: text, basketPosition: text.nullable(), worstCase: z.boolean(), data: sampleData, outcome }),
+    new: obj({
+      sampleId: id,
+      sampleLabel: text,
+      basketPosition: text.nullable(),
+      worstCase: z.boolean(),
+      data: sampleData,
+      outcome,
+    }),
   }),
-  event("test_run.sample_removed", "test_run", { old: obj({ sampleId: id, sampleLabel: text, data: sampleData }), new: obj({ outcome }) }),
-  event("test_run.data_saved", "test_run", { old: obj({ runData: jsonObject.nullable() }), new: obj({ runData: jsonObject, outcome }) }),
+  event("test_run.sample_removed", "test_run", {
+    old: obj({ sampleId: id, sampleLabel: text, data: sampleData }),
+    new: obj({ outcome }),
+  }),
+  event("test_run.data_saved", "test_run", {
+    old: obj({ runData: jsonObject.nullable() }),
+    new: obj({ runData: jsonObject, outcome }),
+  }),
   event("test_run.csv_imported", "test_run", {
     new: obj({ fileId: id, sha256, name: text, rows: count, samples: z.array(text), outcome }),
   }),
   event("test_run.performed", "test_run", { old: obj({ status: runStatus }), new: signedRun }),
   event("test_run.verified", "test_run", { old: obj({ status: runStatus }), new: signedRun }),
-  event("test_run.revised", "test_run", { new: obj({ number: text, revision: version, supersedes: id, evidenceLinks: count }) }),
-  event("test_run.superseded", "test_run", { old: obj({ status: runStatus }), new: obj({ status: z.literal("superseded"), by: id }) }),
+  event("test_run.revised", "test_run", {
+    new: obj({ number: text, revision: version, supersedes: id, evidenceLinks: count }),
+  }),
+  event("test_run.superseded", "test_run", {
+    old: obj({ status: runStatus }),
+    new: obj({ status: z.literal("superseded"), by: id }),
+  }),
   event("evidence_file.uploaded", "evidence_file", {
     new: obj({
       run: text,
@@ -215,7 +338,9 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     }),
   }),
   event("evidence_file.downloaded", "evidence_file", { new: obj({ sha256, name: text }) }),
-  event("evidence_file.integrity_failed", "evidence_file", { new: obj({ expectedSha256: sha256, actualSha256: sha256.nullable(), name: text }) }),
+  event("evidence_file.integrity_failed", "evidence_file", {
+    new: obj({ expectedSha256: sha256, actualSha256: sha256.nullable(), name: text }),
+  }),
   event("bath_record.created", "bath_record", {
     new: obj({
       tank: text,
@@ -235,13 +360,28 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     old: obj({ intervalDays: count, warnDays: count }).nullable().default(null),
     new: obj({ tank: text, kind: z.enum(MAINTENANCE_KINDS), intervalDays: count, warnDays: count }),
   }),
-  event("maintenance_interval.reminder_queued", "maintenance_interval", { new: obj({ level: z.enum(["due", "overdue"]), dueAt: isoTime, recipients: count }) }),
+  event("maintenance_interval.reminder_queued", "maintenance_interval", {
+    new: obj({ level: z.enum(["due", "overdue"]), dueAt: isoTime, recipients: count }),
+  }),
   // Change control
   event("change.opened", "change_request", {
-    new: obj({ number: text, title: text, kind: z.enum(CHANGE_KINDS), recipe: text, fromVersion: version, toVersion: version, narrativeDocument: text }),
+    new: obj({
+      number: text,
+      title: text,
+      kind: z.enum(CHANGE_KINDS),
+      recipe: text,
+      fromVersion: version,
+      toVersion: version,
+      narrativeDocument: text,
+    }),
   }),
   event("change.proposal_saved", "change_request", {
-    old: obj({ title: text, kind: z.enum(CHANGE_KINDS), raisedTo: z.enum(IMPACT_CLASSES).nullable(), lockVersion: count }),
+    old: obj({
+      title: text,
+      kind: z.enum(CHANGE_KINDS),
+      raisedTo: z.enum(IMPACT_CLASSES).nullable(),
+      lockVersion: count,
+    }),
     new: obj({
       lockVersion: count,
       title: text,
@@ -262,35 +402,78 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       contentHash: sha256,
     }),
   }),
-  event("change.reopened", "change_request", { old: obj({ status: changeStatus, revision: version }), new: obj({ status: z.literal("draft"), revision: version }) }),
+  event("change.reopened", "change_request", {
+    old: obj({ status: changeStatus, revision: version }),
+    new: obj({ status: z.literal("draft"), revision: version }),
+  }),
   event("change.approved", "change_request", {
     old: obj({ status: z.literal("impact_assessed") }),
     new: obj({ status: z.literal("approved_for_implementation"), impact: z.enum(IMPACT_CLASSES) }),
   }),
-  event("change.requalification_started", "change_request", { old: obj({ status: changeStatus }), new: obj({ status: z.literal("requalification") }) }),
-  event("change.evidence_linked", "change_request", { new: obj({ requirement: z.enum(TEST_TYPES), samplesRequired: count, testRun: text }) }),
-  event("change.verified", "change_request", { old: obj({ status: changeStatus }), new: obj({ status: z.literal("verified"), evidence: z.array(text) }) }),
-  event("change.closed", "change_request", { old: obj({ status: z.literal("verified") }), new: obj({ status: z.literal("closed"), effectiveVersion: version }) }),
-  event("change.rejected", "change_request", { old: obj({ status: changeStatus }), new: obj({ status: changeStatus }) }),
-  event("change.withdrawn", "change_request", { old: obj({ status: changeStatus }), new: obj({ status: changeStatus }) }),
+  event("change.requalification_started", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: z.literal("requalification") }),
+  }),
+  event("change.evidence_linked", "change_request", {
+    new: obj({ requirement: z.enum(TEST_TYPES), samplesRequired: count, testRun: text }),
+  }),
+  event("change.verified", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: z.literal("verified"), evidence: z.array(text) }),
+  }),
+  event("change.closed", "change_request", {
+    old: obj({ status: z.literal("verified") }),
+    new: obj({ status: z.literal("closed"), effectiveVersion: version }),
+  }),
+  event("change.rejected", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: changeStatus }),
+  }),
+  event("change.withdrawn", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: changeStatus }),
+  }),
   event("requalification_matrix.versioned", "requalification_matrix", {
-    old: obj({ version, removed: z.array(text) }).nullable().default(null),
+    old: obj({ version, removed: z.array(text) })
+      .nullable()
+      .default(null),
     new: obj({ version, added: z.array(text), rows: count }),
   }),
   // Set by closing a change (the first interval of a validated combination) or changed by hand.
   event("requalification_interval.set", "requalification_interval", {
     old: obj({ intervalMonths: count }).nullable().default(null),
-    new: obj({ intervalMonths: count, recipeVersion: version.optional(), partFamilyId: id.optional(), lastQualifiedAt: isoTime.optional() }),
+    new: obj({
+      intervalMonths: count,
+      recipeVersion: version.optional(),
+      partFamilyId: id.optional(),
+      lastQualifiedAt: isoTime.optional(),
+    }),
   }),
   event("requalification_interval.reminder_sent", "requalification_interval", {
-    new: obj({ due: isoTime, state: z.enum(["overdue", "due_soon", "not_due"]), to: z.array(text) }),
+    new: obj({
+      due: isoTime,
+      state: z.enum(["overdue", "due_soon", "not_due"]),
+      to: z.array(text),
+    }),
   }),
   // Trace and API
   event("audit_pack.exported", "change_request", {
-    new: obj({ number: text, format: z.enum(["pdf", "zip"]), pdfSha256: sha256, bytes: count, files: count, filesRefused: count.optional() }),
+    new: obj({
+      number: text,
+      format: z.enum(["pdf", "zip"]),
+      pdfSha256: sha256,
+      bytes: count,
+      files: count,
+      filesRefused: count.optional(),
+    }),
   }),
-  event("api_token.created", "api_token", { new: obj({ name: text, scope: z.enum(API_TOKEN_SCOPES), prefix: text }) }),
-  event("api_token.revoked", "api_token", { old: obj({ revokedAt: z.null() }), new: obj({ name: text, prefix: text, revokedAt: isoTime }) }),
+  event("api_token.created", "api_token", {
+    new: obj({ name: text, scope: z.enum(API_TOKEN_SCOPES), prefix: text }),
+  }),
+  event("api_token.revoked", "api_token", {
+    old: obj({ revokedAt: z.null() }),
+    new: obj({ name: text, prefix: text, revokedAt: isoTime }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;
@@ -299,7 +482,9 @@ export type AuditEventType = AuditEvent["eventType"];
 /** The old or new values of some event, whichever type it is. */
 export type AuditValues = NonNullable<AuditEvent["old"] | AuditEvent["new"]>;
 
-export const AUDIT_EVENT_TYPES: readonly AuditEventType[] = auditEventSchema.options.map((o) => o.shape.eventType.value);
+export const AUDIT_EVENT_TYPES: readonly AuditEventType[] = auditEventSchema.options.map(
+  (o) => o.shape.eventType.value,
+);
 
 /** Who did it: a signed-in user, or the system itself (seeding, scheduled jobs). */
 export type AuditActor = { id: string; name: string } | { id: null; name: string };

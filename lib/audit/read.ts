@@ -34,7 +34,12 @@ export function currentEventType(stored: string): string {
 /** Every name an event type was stored under, today's first: what a filter must match. */
 export function storedNamesOf(eventType: string): string[] {
   const now = currentEventType(eventType);
-  return [now, ...Object.entries(LEGACY_EVENT_TYPES).filter(([, l]) => l.now === now).map(([old]) => old)];
+  return [
+    now,
+    ...Object.entries(LEGACY_EVENT_TYPES)
+      .filter(([, l]) => l.now === now)
+      .map(([old]) => old),
+  ];
 }
 
 /** The audit columns a reader needs (the table's own names). */
@@ -80,7 +85,21 @@ export function readAuditEvent(row: StoredAuditRow): ReadAuditEvent {
   const eventType = legacy?.now ?? row.action;
   const old = parseValues(row.oldValue, legacy?.keys);
   const next = parseValues(row.newValue, legacy?.keys);
-  const parsed = auditEventSchema.safeParse({ eventType, recordType: row.recordType, recordId: row.recordId, old, new: next, reason: row.reason });
-  if (parsed.success) return { eventType, storedAs: row.action, old: parsed.data.old, new: parsed.data.new, event: parsed.data };
+  const parsed = auditEventSchema.safeParse({
+    eventType,
+    recordType: row.recordType,
+    recordId: row.recordId,
+    old,
+    new: next,
+    reason: row.reason,
+  });
+  if (parsed.success)
+    return {
+      eventType,
+      storedAs: row.action,
+      old: parsed.data.old,
+      new: parsed.data.new,
+      event: parsed.data,
+    };
   return { eventType, storedAs: row.action, old, new: next, event: null };
 }
