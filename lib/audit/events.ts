@@ -69,8 +69,9 @@ function event<
 /**
  * Every kind of event the audit trail records, one schema each with the shape of
  * its old and new values. The name is `<record>.<what happened>`, the record named
- * as everywhere else in the product; a renamed type keeps its old name in
- * LEGACY_EVENT_TYPES below, because stored events are never rewritten.
+ * as on the screens (or the feature, where its events span records: auth, audit,
+ * document, change). A renamed type keeps its old name in LEGACY_EVENT_TYPES
+ * (./read.ts), because stored events are never rewritten.
  */
 export const auditEventSchema = z.discriminatedUnion("eventType", [
   // Accounts

@@ -646,7 +646,7 @@ const SAMPLES = {
 const samples = Object.values(SAMPLES) as AuditEventInput[];
 
 describe("the audit event schemas", () => {
-  it("have a sample for every event type, and every type is named <record>.<what happened>", () => {
+  it("have a sample for every event type, and every type is named <record or feature>.<what happened>", () => {
     expect(Object.keys(SAMPLES).sort()).toEqual([...AUDIT_EVENT_TYPES].sort());
     for (const type of AUDIT_EVENT_TYPES) expect(type).toMatch(/^[a-z_]+\.[a-z_]+$/);
   });
