@@ -5,7 +5,7 @@ import { runContentHash } from "@/lib/evidence/run-hash";
 import { changeContentHash, narrativeDocument } from "@/lib/changes/content";
 import { assess } from "@/lib/changes/assess";
 import type { RecipeSnapshot } from "@/lib/changes/diff";
-import { DEFAULT_MATRIX } from "@/lib/changes/requalification";
+import { DEFAULT_MATRIX, matrixRowLine } from "@/lib/changes/requalification";
 import { getStore } from "@/lib/storage";
 import type { Tx } from "./client";
 import { loadRecipeSnapshot, writeRecipeContent } from "./recipe-content";
@@ -57,12 +57,12 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
 
   const [matrix] = await tx.insert(requalificationMatrices).values({ version: 1, status: "effective", note: "First matrix, after product.md \"Change impact\"; 95 % confidence, 90 % reliability.", createdAt: "2025-02-20T09:00:00.000Z" }).returning();
   await tx.insert(requalificationMatrixRows).values(DEFAULT_MATRIX.map((r) => ({ ...r, matrixId: matrix.id })));
-  await audit({ action: "requalification_matrix.versioned", recordType: "requalification_matrix", recordId: matrix.id, new: { version: 1, rows: DEFAULT_MATRIX.length } });
+  await audit({ eventType: "requalification_matrix.versioned", recordType: "requalification_matrix", recordId: matrix.id, new: { version: 1, added: DEFAULT_MATRIX.map(matrixRowLine), rows: DEFAULT_MATRIX.length } });
 
   const versionsOf = async (code: string) => tx.select().from(recipeVersions).where(eq(recipeVersions.recipeId, ids.recipeIds.get(code)!));
   const sign = async (recordType: "change_request" | "test_run", recordId: string, signer: Person, meaning: SignatureMeaning, contentHash: string, signedAt: string) => {
     const [row] = await tx.insert(signatures).values({ recordType, recordId, userId: signer.id, printedName: signer.name, meaning, signedAt, contentHash }).returning();
-    await appendAudit(tx, signer, { action: "signature.applied", recordType: "signature", recordId: row.id, new: { on: `${recordType}:${recordId}`, meaning, printedName: signer.name, contentHash, signedAt } });
+    await appendAudit(tx, signer, { eventType: "signature.applied", recordType: "signature", recordId: row.id, new: { on: `${recordType}:${recordId}`, meaning, printedName: signer.name, contentHash, signedAt } });
   };
 
   async function change(input: {
@@ -130,10 +130,16 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       requirements: result.tests.map((t) => ({ testType: t.testType, samples: t.samples })),
     });
     await tx.insert(changeRequestAssessments).values({ changeRequestId: cr.id, kind: "parameter_change", computedImpact: result.computed, matrixId: matrix.id, contentHash: hash, updatedAt: input.openedAt });
-    await audit({ action: "change.opened", recordType: "change_request", recordId: cr.id, new: { number: cr.number, title: cr.title, recipe: input.recipe } });
+    const versionNo = async (versionId: string) => (await tx.select({ version: recipeVersions.version }).from(recipeVersions).where(eq(recipeVersions.id, versionId)))[0].version;
+    await audit({
+      eventType: "change.opened",
+      recordType: "change_request",
+      recordId: cr.id,
+      new: { number: cr.number, title: cr.title, kind: "parameter_change", recipe: input.recipe, fromVersion: await versionNo(input.fromId), toVersion: await versionNo(input.toId), narrativeDocument: doc.number },
+    });
     for (const s of input.steps) await sign("change_request", `${cr.id}#1`, s.by, s.meaning, hash, s.at);
-    await audit({ action: "change.impact_assessed", recordType: "change_request", recordId: cr.id, new: { status: "impact_assessed", impact: result.impact, tests: result.tests.map((t) => `${t.testType} × ${t.samples}`) } });
-    await audit({ action: "change.approved", recordType: "change_request", recordId: cr.id, new: { status: "approved_for_implementation" } });
+    await audit({ eventType: "change.impact_assessed", recordType: "change_request", recordId: cr.id, old: { status: "draft" }, new: { status: "impact_assessed", impact: result.impact, computed: result.computed, matrixVersion: 1, tests: result.tests.map((t) => `${t.testType} × ${t.samples}`), contentHash: hash } });
+    await audit({ eventType: "change.approved", recordType: "change_request", recordId: cr.id, old: { status: "impact_assessed" }, new: { status: "approved_for_implementation", impact: result.impact } });
     return { cr, tests, result };
   }
 
@@ -156,7 +162,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       { meaning: "verified", by: reviewer, at: "2025-08-29T10:20:00.000Z" },
     ],
   });
-  await audit({ action: "change.closed", recordType: "change_request", recordId: minor.cr.id, new: { status: "closed", effectiveVersion: 2 } });
+  await audit({ eventType: "change.closed", recordType: "change_request", recordId: minor.cr.id, old: { status: "verified" }, new: { status: "closed", effectiveVersion: 2 } });
 
   // ── A closed major change with requalification evidence: fitting drying temperature above its range.
   const [sf1] = await versionsOf("R-SC1-SF");
@@ -226,7 +232,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       })
       .returning();
     await tx.insert(testSamples).values(samples.map((x, i) => ({ ...x, runId: run.id, createdAt: `2026-06-08T12:${String(i).padStart(2, "0")}:00.000Z` })));
-    await appendAudit(tx, technician, { action: "test_run.created", recordType: "test_run", recordId: run.id, new: { number, testType: req.testType, changeRequest: major.cr.number, samples: samples.length } });
+    await appendAudit(tx, technician, { eventType: "test_run.created", recordType: "test_run", recordId: run.id, new: { number, partFamilyId: run.partFamilyId, recipeVersionId: run.recipeVersionId, testType: run.testType, technicianId: technician.id, lab: "Larchfield cleanliness lab", performedOn: "2026-06-08", changeRequestId: major.cr.id } });
     // The lab's report and one photo of the worst-case basket corner, as uploaded.
     const report = new TextEncoder().encode(
       [`Larchfield cleanliness lab,${number},${req.testType},PF-SF-12,R-SC1-SF v2,2026-06-08`, "sample,basket_position,worst_case,result", ...samples.map((x) => `${x.sampleLabel},${x.basketPosition},${x.worstCase ? "yes" : "no"},${seen}`)].join("\r\n") + "\r\n",
@@ -237,9 +243,14 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     ];
     for (const { bytes, ...meta } of uploads) {
       const sha256 = sha256Hex(bytes);
-      await getStore().put(sha256, bytes);
+      const { created } = await getStore().put(sha256, bytes);
       const [file] = await tx.insert(evidenceFiles).values({ ...meta, runId: run.id, sha256, sizeBytes: bytes.length, uploadedBy: technician.id }).returning();
-      await appendAudit(tx, technician, { action: "evidence_file.uploaded", recordType: "evidence_file", recordId: file.id, new: { runId: run.id, name: file.originalName, sha256, sizeBytes: bytes.length } });
+      await appendAudit(tx, technician, {
+        eventType: "evidence_file.uploaded",
+        recordType: "evidence_file",
+        recordId: file.id,
+        new: { run: `${run.number} rev ${run.revision}`, runId: run.id, sha256, name: file.originalName, mimeType: file.mimeType, sizeBytes: bytes.length, kind: file.kind, storedNew: created },
+      });
     }
     const rows = await tx.select().from(testSamples).where(eq(testSamples.runId, run.id)).orderBy(asc(testSamples.createdAt), asc(testSamples.id));
     const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, run.id)).orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
@@ -259,9 +270,9 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
   }
   await tx.update(recipeVersions).set({ status: "superseded", effectiveTo: closedAt }).where(eq(recipeVersions.id, sf1.id));
   await tx.update(recipeVersions).set({ status: "effective", effectiveFrom: closedAt }).where(eq(recipeVersions.id, sf2.id));
-  await audit({ action: "recipe_version.superseded", recordType: "recipe_version", recordId: sf1.id, old: { status: "effective" }, new: { status: "superseded", by: 2, changeRequest: major.cr.number } });
-  await audit({ action: "recipe_version.effective", recordType: "recipe_version", recordId: sf2.id, old: { status: "proposed" }, new: { status: "effective", effectiveFrom: closedAt, changeRequest: major.cr.number } });
-  await audit({ action: "change.closed", recordType: "change_request", recordId: major.cr.id, new: { status: "closed", effectiveVersion: 2 } });
+  await audit({ eventType: "recipe_version.superseded", recordType: "recipe_version", recordId: sf1.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: closedAt, by: 2, changeRequest: major.cr.number } });
+  await audit({ eventType: "recipe_version.effective", recordType: "recipe_version", recordId: sf2.id, old: { status: "proposed" }, new: { status: "effective", effectiveFrom: closedAt, changeRequest: major.cr.number } });
+  await audit({ eventType: "change.closed", recordType: "change_request", recordId: major.cr.id, old: { status: "verified" }, new: { status: "closed", effectiveVersion: 2 } });
 
   // ── An open major change waiting for evidence: pump-housing injection pressure above its range.
   const [ph1] = await versionsOf("R-AW3-PH");
@@ -287,7 +298,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       { meaning: "approved", by: approver, at: "2026-11-18T10:15:00.000Z" },
     ],
   });
-  await audit({ action: "change.requalification_started", recordType: "change_request", recordId: open.cr.id, new: { status: "requalification" } });
+  await audit({ eventType: "change.requalification_started", recordType: "change_request", recordId: open.cr.id, old: { status: "approved_for_implementation" }, new: { status: "requalification" } });
 
   // ── Validated combinations and their periodic requalification.
   const monthsAgo = (m: number, plusDays = 0) => {
@@ -297,12 +308,13 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     return d.toISOString();
   };
   const intervals = [
-    { recipeVersionId: vb[1].id, partFamilyId: ids.familyIds.get("PF-VB-210")!, lastQualifiedAt: monthsAgo(12, 14) },
-    { recipeVersionId: ph1.id, partFamilyId: ids.familyIds.get("PF-PH-400")!, lastQualifiedAt: monthsAgo(5) },
-    { recipeVersionId: sf2.id, partFamilyId: ids.familyIds.get("PF-SF-12")!, lastQualifiedAt: closedAt },
+    { version: vb[1], partFamilyId: ids.familyIds.get("PF-VB-210")!, lastQualifiedAt: monthsAgo(12, 14) },
+    { version: ph1, partFamilyId: ids.familyIds.get("PF-PH-400")!, lastQualifiedAt: monthsAgo(5) },
+    { version: sf2, partFamilyId: ids.familyIds.get("PF-SF-12")!, lastQualifiedAt: closedAt },
   ];
-  for (const i of intervals) {
-    const [row] = await tx.insert(requalificationIntervals).values({ ...i, intervalMonths: 12 }).returning();
-    await audit({ action: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { ...i, intervalMonths: 12 } });
+  for (const { version, ...i } of intervals) {
+    const [row] = await tx.insert(requalificationIntervals).values({ ...i, recipeVersionId: version.id, intervalMonths: 12 }).returning();
+    // The same values closing a change records for the first interval of a validated combination.
+    await audit({ eventType: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { recipeVersion: version.version, partFamilyId: i.partFamilyId, intervalMonths: 12, lastQualifiedAt: i.lastQualifiedAt } });
   }
 }

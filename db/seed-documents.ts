@@ -30,6 +30,7 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
   const params = await tx.select().from(recipeParameters).where(eq(recipeParameters.versionId, effective.id));
 
   const number = "OQ-AW3-0001";
+  const sampleSize = successRunSampleSize(0.95, 0.9);
   const title = "OQ of the three-tank aqueous washer for valve bodies";
   const content = buildTemplate({
     type: "oq_protocol",
@@ -38,7 +39,7 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
     system: { code: system.code, name: system.name, stages: stages.map((s) => s.name) },
     partFamily: { code: family.f.code, name: family.f.name, material: family.f.material, wettedAreaCm2: family.f.wettedAreaCm2, spec: family.s },
     recipe: { code: recipe.r.code, name: recipe.r.name, version: effective.version, parameters: params.map((x) => ({ name: x.name, setpoint: x.setpoint, unit: x.unit, low: x.validatedLow, high: x.validatedHigh })) },
-    sample: { confidencePct: 95, reliabilityPct: 90, size: successRunSampleSize(0.95, 0.9) },
+    sample: { confidencePct: 95, reliabilityPct: 90, size: sampleSize },
   });
   const contentHash = sha256Hex(canonicalJson(content));
   const at = now.toISOString();
@@ -56,7 +57,7 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
     { versionId: version.id, round: 1, step: 1, role: "reviewer", assigneeId: people.reviewer.id, activatedAt: at, dueAt: at, decision: "reviewed", decidedAt: at },
     { versionId: version.id, round: 1, step: 2, role: "approver", assigneeId: people.approver.id, activatedAt: at, dueAt: at, decision: "approved", decidedAt: at },
   ]);
-  await appendAudit(tx, SYSTEM_ACTOR, { action: "document.created", recordType: "document", recordId: document.id, new: { number, title, type: "oq_protocol", versionId: version.id, seeded: true } }, now);
+  await appendAudit(tx, SYSTEM_ACTOR, { eventType: "document.created", recordType: "document", recordId: document.id, new: { number, title, type: "oq_protocol", system: system.code, partFamily: family.f.code, recipeVersion: `${recipe.r.code} v${effective.version}`, versionId: version.id, sampleSize } }, now);
   for (const [person, meaning] of [
     [people.engineer, "authored"],
     [people.reviewer, "reviewed"],
@@ -66,7 +67,8 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
       .insert(signatures)
       .values({ recordType: "document_version", recordId: version.id, userId: person.id, printedName: person.name, meaning, signedAt: at, contentHash })
       .returning();
-    await appendAudit(tx, SYSTEM_ACTOR, { action: "signature.applied", recordType: "signature", recordId: sig.id, new: { on: `document_version:${version.id}`, meaning, printedName: person.name, contentHash, signedAt: at, seeded: true } }, now);
+    // A signature is always recorded as its signer's act, as the signing service records it.
+    await appendAudit(tx, person, { eventType: "signature.applied", recordType: "signature", recordId: sig.id, new: { on: `document_version:${version.id}`, meaning, printedName: person.name, contentHash, signedAt: at } }, now);
   }
-  await appendAudit(tx, SYSTEM_ACTOR, { action: "document.effective", recordType: "document_version", recordId: version.id, new: { status: "effective", effectiveDate: today, seeded: true } }, now);
+  await appendAudit(tx, SYSTEM_ACTOR, { eventType: "document.effective", recordType: "document_version", recordId: version.id, new: { status: "effective", effectiveDate: today, version: version.version } }, now);
 }

@@ -256,11 +256,11 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
           .values(demo.samples.map((s, i) => ({ runId: run.id, sampleLabel: s.sampleLabel, basketPosition: s.basketPosition ?? null, worstCase: s.worstCase ?? false, data: s.data, createdAt: `${demo.performedOn}T09:0${i}:00.000Z` })))
           .returning()
       : [];
-    await audit({ action: "test_run.created", recordType: "test_run", recordId: run.id, new: { number: run.number, testType: run.testType, samples: rows.length, outcome: computed.outcome } });
+    await audit({ eventType: "test_run.created", recordType: "test_run", recordId: run.id, new: { number: run.number, partFamilyId: run.partFamilyId, recipeVersionId: run.recipeVersionId, testType: run.testType, technicianId: technician.id, lab: "Larchfield cleanliness lab", performedOn: demo.performedOn } });
     const { hash } = runContentHash(run, [...rows].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id.localeCompare(b.id)), []);
     const sign = async (signer: { id: string; name: string }, meaning: "performed" | "verified", at: string) => {
       const [sig] = await tx.insert(signatures).values({ recordType: "test_run", recordId: run.id, userId: signer.id, printedName: signer.name, meaning, signedAt: at, contentHash: hash }).returning();
-      await audit({ action: "signature.applied", recordType: "signature", recordId: sig.id, new: { on: `test_run:${run.id}`, meaning, printedName: signer.name, contentHash: hash, signedAt: at } });
+      await appendAudit(tx, signer, { eventType: "signature.applied", recordType: "signature", recordId: sig.id, new: { on: `test_run:${run.id}`, meaning, printedName: signer.name, contentHash: hash, signedAt: at } }, now);
     };
     if (demo.status !== "open") await sign(technician, "performed", `${demo.performedOn}T15:30:00.000Z`);
     if (demo.status === "verified") await sign(engineer, "verified", `${demo.performedOn}T16:45:00.000Z`);
@@ -291,17 +291,18 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
         createdAt: r.performedAt,
       })
       .returning();
-    await audit({ action: "bath_record.created", recordType: "bath_record", recordId: row.id, new: { tank: tank.stage.name, kind: row.kind, performedAt: row.performedAt } });
+    const { kind, performedAt, concentrationPct, conductivityUsPerCm, temperatureC, countPerMl4, countPerMl6, countPerMl14, notes } = row;
+    await audit({ eventType: "bath_record.created", recordType: "bath_record", recordId: row.id, new: { tank: tank.stage.name, kind, concentrationPct, conductivityUsPerCm, temperatureC, countPerMl4, countPerMl6, countPerMl14, notes, performedAt } });
   }
   // Filter changes every four weeks; the last one is now overdue, so it shows in My queue.
   for (const weeksAgo of [14, 10, 6]) {
     const at = new Date(Math.floor(now.getTime() / DAY) * DAY - weeksAgo * 7 * DAY + 10 * 3_600_000).toISOString();
     const [row] = await tx.insert(bathRecords).values({ stageId: tank.stage.id, kind: "filter_change", performedAt: at, filterDescription: "Bag filter 25 µm", recordedBy: technician.id, createdAt: at }).returning();
-    await audit({ action: "bath_record.created", recordType: "bath_record", recordId: row.id, new: { tank: tank.stage.name, kind: "filter_change", performedAt: at } });
+    await audit({ eventType: "bath_record.created", recordType: "bath_record", recordId: row.id, new: { tank: tank.stage.name, kind: "filter_change", filterDescription: row.filterDescription, performedAt: at } });
   }
   const since = new Date(now.getTime() - 20 * 7 * DAY).toISOString();
   for (const [kind, intervalDays] of [["bath_change", 56], ["filter_change", 28], ["reading", 7]] as const) {
     const [row] = await tx.insert(maintenanceIntervals).values({ stageId: tank.stage.id, kind, intervalDays, warnDays: 2, createdBy: engineer.id, createdAt: since }).returning();
-    await audit({ action: "maintenance_interval.set", recordType: "maintenance_interval", recordId: row.id, new: { tank: tank.stage.name, kind, intervalDays, warnDays: 2 } });
+    await audit({ eventType: "maintenance_interval.set", recordType: "maintenance_interval", recordId: row.id, new: { tank: tank.stage.name, kind, intervalDays, warnDays: 2 } });
   }
 }

@@ -44,12 +44,12 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       if (!row) continue; // someone already created this e-mail by hand
       userIds.set(u.email, row.id);
       await tx.insert(userRoles).values(u.roles.map((role) => ({ userId: row.id, role })));
-      await audit({ action: "user.created", recordType: "user", recordId: row.id, new: { name: u.name, email: u.email, roles: u.roles } });
+      await audit({ eventType: "user.created", recordType: "user", recordId: row.id, new: { name: u.name, email: u.email, jobTitle: u.jobTitle, roles: [...u.roles].sort() } });
     }
     const engineerId = userIds.get("engineer@fennmoor.example") ?? null;
 
     const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
-    await audit({ action: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
+    await audit({ eventType: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
 
     const systemIds = new Map<string, string>();
     for (const s of DEMO_SYSTEMS) {
@@ -59,14 +59,14 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
         .returning();
       systemIds.set(s.code, sys.id);
       await tx.insert(systemStages).values(s.stages.map((st, i) => ({ ...st, systemId: sys.id, position: i + 1 })));
-      await audit({ action: "system.created", recordType: "cleaning_system", recordId: sys.id, new: { code: s.code, name: s.name, stages: s.stages.map((st) => st.name) } });
+      await audit({ eventType: "cleaning_system.created", recordType: "cleaning_system", recordId: sys.id, new: { code: s.code, name: s.name, stages: s.stages.map((st) => st.name) } });
     }
 
     const specIds = new Map<string, string>();
     for (const spec of DEMO_SPECS) {
       const [row] = await tx.insert(cleanlinessSpecs).values(spec).returning();
       specIds.set(spec.code, row.id);
-      await audit({ action: "spec.created", recordType: "cleanliness_spec", recordId: row.id, new: spec });
+      await audit({ eventType: "cleanliness_spec.created", recordType: "cleanliness_spec", recordId: row.id, new: spec });
     }
 
     const familyIds = new Map<string, string>();
@@ -74,7 +74,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       const { spec, ...fields } = pf;
       const [row] = await tx.insert(partFamilies).values({ ...fields, specId: specIds.get(spec)! }).returning();
       familyIds.set(pf.code, row.id);
-      await audit({ action: "part_family.created", recordType: "part_family", recordId: row.id, new: pf });
+      await audit({ eventType: "part_family.created", recordType: "part_family", recordId: row.id, new: pf });
     }
 
     const recipeIds = new Map<string, string>();
@@ -84,7 +84,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
         .values({ systemId: systemIds.get(r.system)!, code: r.code, name: r.name, description: r.description })
         .returning();
       recipeIds.set(r.code, recipe.id);
-      await audit({ action: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: r.code, name: r.name } });
+      await audit({ eventType: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: r.code, name: r.name } });
       let previous: { id: string; version: number } | null = null;
       for (const [i, v] of r.versions.entries()) {
         const isLast = i === r.versions.length - 1;
@@ -122,11 +122,11 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
             })),
           );
         }
-        await audit({ action: "recipe_version.created", recordType: "recipe_version", recordId: version.id, new: { recipe: r.code, version: i + 1, notes: v.notes } });
+        await audit({ eventType: "recipe_version.created", recordType: "recipe_version", recordId: version.id, new: { recipe: r.code, version: i + 1, notes: v.notes } });
         if (previous) {
-          await audit({ action: "recipe_version.superseded", recordType: "recipe_version", recordId: previous.id, old: { status: "effective" }, new: { status: "superseded", by: i + 1 } });
+          await audit({ eventType: "recipe_version.superseded", recordType: "recipe_version", recordId: previous.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 } });
         }
-        await audit({ action: "recipe_version.effective", recordType: "recipe_version", recordId: version.id, new: { status: "effective", effectiveFrom: v.effectiveFrom } });
+        await audit({ eventType: "recipe_version.effective", recordType: "recipe_version", recordId: version.id, new: { status: "effective", effectiveFrom: v.effectiveFrom } });
         previous = { id: version.id, version: i + 1 };
       }
     }

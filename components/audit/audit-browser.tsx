@@ -8,8 +8,8 @@ import { Button } from "@/components/ui/button";
 import type { AuditPage } from "@/lib/server/audit/query-audit-events";
 
 type Row = AuditPage["items"][number];
-type Filters = Record<"actor" | "recordType" | "recordId" | "action" | "from" | "to", string>;
-const EMPTY: Filters = { actor: "", recordType: "", recordId: "", action: "", from: "", to: "" };
+type Filters = Record<"actor" | "recordType" | "recordId" | "eventType" | "from" | "to", string>;
+const EMPTY: Filters = { actor: "", recordType: "", recordId: "", eventType: "", from: "", to: "" };
 
 function queryString(filters: Filters, before?: number) {
   const params = new URLSearchParams(Object.entries(filters).filter(([, v]) => v !== ""));
@@ -32,7 +32,15 @@ const columns = [
   column.accessor("seq", { header: "#", cell: (c) => <span className="tabular-nums">{c.getValue()}</span> }),
   column.accessor("at", { header: "When (UTC)", cell: (c) => <span className="whitespace-nowrap tabular-nums">{c.getValue().replace("T", " ").slice(0, 19)}</span> }),
   column.accessor("actorName", { header: "Who" }),
-  column.accessor("action", { header: "Action", cell: (c) => <code className="text-xs">{c.getValue()}</code> }),
+  column.accessor("eventType", {
+    header: "Event",
+    cell: ({ row }) => (
+      <>
+        <code className="text-xs">{row.original.eventType}</code>
+        {row.original.storedAs !== row.original.eventType && <span className="block text-xs text-stone-500">stored as {row.original.storedAs}</span>}
+      </>
+    ),
+  }),
   column.display({
     id: "record",
     header: "Record",
@@ -66,12 +74,12 @@ const columns = [
 
 export interface AuditBrowserProps {
   actors: { id: string; name: string }[];
-  actions: string[];
+  eventTypes: string[];
   recordTypes: string[];
   canExport: boolean;
 }
 
-export function AuditBrowser({ actors, actions, recordTypes, canExport }: AuditBrowserProps) {
+export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: AuditBrowserProps) {
   const [filters, setFilters] = useState<Filters>(EMPTY);
   const [cursors, setCursors] = useState<number[]>([]); // stack of "before" cursors, newest page first
   const before = cursors.at(-1);
@@ -115,10 +123,10 @@ export function AuditBrowser({ actors, actions, recordTypes, canExport }: AuditB
           <input name="recordId" className={select} />
         </label>
         <label className="text-sm">
-          Action
-          <select name="action" className={select} defaultValue="">
+          Event
+          <select name="eventType" className={select} defaultValue="">
             <option value="">Any</option>
-            {actions.map((a) => (
+            {eventTypes.map((a) => (
               <option key={a}>{a}</option>
             ))}
           </select>

@@ -36,6 +36,7 @@ export const auditEvents = sqliteTable(
     at: text("at").notNull(),
     actorId: text("actor_id"),
     actorName: text("actor_name").notNull(),
+    /** The event type (lib/audit/events.ts). The column keeps its first name: every row's hash covers it. */
     action: text("action").notNull(),
     recordType: text("record_type").notNull(),
     recordId: text("record_id").notNull(),

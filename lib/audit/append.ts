@@ -22,7 +22,8 @@ export async function appendAudit(tx: Tx, actor: AuditActor, input: AuditEventIn
     at: now.toISOString(),
     actorId: actor.id,
     actorName: actor.name,
-    action: event.action,
+    // The stored column keeps its name: the hash of every row covers it.
+    action: event.eventType,
     recordType: event.recordType,
     recordId: event.recordId,
     oldValue: event.old === null ? null : canonicalJson(event.old),

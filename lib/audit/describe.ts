@@ -1,3 +1,5 @@
+import type { ReadAuditEvent } from "./read";
+
 /** One changed field of an audit event, readable by a person. */
 export interface FieldChange {
   field: string;
@@ -12,12 +14,13 @@ function show(value: unknown): string | null {
   return JSON.stringify(value);
 }
 
-/** Lists old → new per field from the stored canonical JSON; unchanged fields are left out. */
-export function describeChanges(oldJson: string | null, newJson: string | null): FieldChange[] {
-  const before = oldJson ? (JSON.parse(oldJson) as Record<string, unknown>) : {};
-  const after = newJson ? (JSON.parse(newJson) as Record<string, unknown>) : {};
-  const fields = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort();
+/** Lists old → new per field of a read event's values; unchanged fields are left out. */
+export function describeChanges(values: Pick<ReadAuditEvent, "old" | "new">): FieldChange[] {
+  // Every event's values are a flat-keyed object (or nothing); entries() reads any of them alike.
+  const before = new Map(Object.entries(values.old ?? {}));
+  const after = new Map(Object.entries(values.new ?? {}));
+  const fields = [...new Set([...before.keys(), ...after.keys()])].sort();
   return fields
-    .map((field) => ({ field, old: show(before[field]), new: show(after[field]) }))
+    .map((field) => ({ field, old: show(before.get(field)), new: show(after.get(field)) }))
     .filter((c) => c.old !== c.new);
 }

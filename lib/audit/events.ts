@@ -1,105 +1,491 @@
 import { z } from "zod";
+import {
+  API_TOKEN_SCOPES,
+  BATH_RECORD_KINDS,
+  CHANGE_KINDS,
+  CHANGE_STATUSES,
+  DOCUMENT_STATUSES,
+  DOCUMENT_TYPES,
+  IMPACT_CLASSES,
+  MAINTENANCE_KINDS,
+  OUTCOMES,
+  ROLES,
+  ROUTING_MODES,
+  RUN_STATUSES,
+  SIGNATURE_MEANINGS,
+  TEST_TYPES,
+  EVIDENCE_FILE_KINDS,
+} from "@/db/enums";
 
-/** A JSON object as stored in old/new values. */
+// ── Building blocks of the payloads ──────────────────────────────────────
+// Payloads are strict: a key a schema does not name is refused rather than
+// silently dropped, so nothing a service meant to record goes missing.
+
+const text = z.string();
+const id = z.string().min(1);
+const sha256 = z.string().regex(/^[0-9a-f]{64}$/);
+const isoTime = z.string().min(10);
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/);
+const count = z.number().int().nonnegative();
+const version = z.number().int().positive();
+const outcome = z.enum(OUTCOMES);
 const jsonObject = z.record(z.string(), z.unknown());
+/** A sample's raw values, as the evidence schemas (lib/schemas/evidence.ts) checked them per test type. */
+const sampleData = z.unknown();
+const obj = z.strictObject;
 
-function event<A extends string, R extends string>(action: A, recordType: R) {
-  return z.object({
-    action: z.literal(action),
+const runStatus = z.enum(RUN_STATUSES);
+const changeStatus = z.enum(CHANGE_STATUSES);
+const documentStatus = z.enum(DOCUMENT_STATUSES);
+const userDetails = obj({ name: text, email: text, jobTitle: text.nullable() }).partial();
+const parameterValue = obj({
+  setpoint: z.number(),
+  unit: text,
+  low: z.number().nullable(),
+  high: z.number().nullable(),
+}).nullable();
+
+/** One service writes both signing events with the same shape. */
+const signedRun = obj({ status: runStatus, contentHash: sha256, outcome, code: text.nullable() });
+
+const none = z.null().default(null);
+
+function event<
+  const T extends string,
+  const R extends string,
+  O extends z.ZodType = typeof none,
+  N extends z.ZodType = typeof none,
+>(eventType: T, recordType: R, values: { old?: O; new?: N } = {}) {
+  return z.strictObject({
+    eventType: z.literal(eventType),
     recordType: z.literal(recordType),
-    recordId: z.string().min(1),
-    old: jsonObject.nullable().default(null),
-    new: jsonObject.nullable().default(null),
+    recordId: id,
+    old: (values.old ?? none) as O,
+    new: (values.new ?? none) as N,
     reason: z.string().max(4000).nullable().default(null),
   });
 }
 
 /**
- * Every kind of event the audit trail records, one schema each.
- * Later features add their events here so the trail stays a closed, typed set.
+ * Every kind of event the audit trail records, one schema each with the shape of
+ * its old and new values. The name is `<record>.<what happened>`, the record named
+ * as on the screens (or the feature, where its events span records: auth, audit,
+ * document, change). A renamed type keeps its old name in LEGACY_EVENT_TYPES
+ * (./read.ts), because stored events are never rewritten.
  */
-export const auditEventSchema = z.discriminatedUnion("action", [
+export const auditEventSchema = z.discriminatedUnion("eventType", [
+  // Accounts
   event("auth.signed_in", "user"),
   event("auth.signed_out", "user"),
-  event("auth.sign_in_failed", "user"),
-  event("auth.locked_out", "user"),
+  event("auth.sign_in_failed", "user", {
+    new: obj({
+      reason: z.enum(["wrong password", "account locked", "account deactivated"]),
+      during: z.enum(["sign_in", "signing"]),
+    }),
+  }),
+  event("auth.locked_out", "user", {
+    new: obj({ lockedUntil: isoTime.nullable(), attempts: count }),
+  }),
   event("auth.password_changed", "user"),
-  event("user.created", "user"),
-  event("user.updated", "user"),
-  event("user.roles_changed", "user"),
-  event("user.deactivated", "user"),
-  event("user.reactivated", "user"),
-  event("user.password_reset", "user"),
-  event("site.created", "site"),
-  event("system.created", "cleaning_system"),
-  event("system.updated", "cleaning_system"),
-  event("spec.created", "cleanliness_spec"),
-  event("part_family.created", "part_family"),
-  event("recipe.created", "recipe"),
-  event("recipe_version.created", "recipe_version"),
-  event("recipe_version.effective", "recipe_version"),
-  event("recipe_version.superseded", "recipe_version"),
-  event("signature.applied", "signature"),
-  event("email.test_sent", "email"),
-  event("audit.exported", "audit_trail"),
-  event("audit.verified", "audit_trail"),
-  // Controlled documents
-  event("document.created", "document"),
-  event("document.edited", "document_version"),
-  event("document.submitted", "document_version"),
-  event("document.reviewed", "document_version"),
-  event("document.sent_back", "document_version"),
-  event("document.approved", "document_version"),
-  event("document.rejected", "document_version"),
-  event("document.effective", "document_version"),
-  event("document.superseded", "document_version"),
-  event("document.retired", "document_version"),
-  event("document.version_started", "document_version"),
-  event("document.review_overdue", "document_review"),
-  event("document.exported", "document_version"),
-  // Evidence: test runs, their raw data and files, and the bath and filter log
-  event("test_run.created", "test_run"),
-  event("test_run.result_added", "test_run"),
-  event("test_run.result_removed", "test_run"),
-  event("test_run.data_saved", "test_run"),
-  event("test_run.csv_imported", "test_run"),
-  event("test_run.performed", "test_run"),
-  event("test_run.verified", "test_run"),
-  event("test_run.revised", "test_run"),
-  event("test_run.superseded", "test_run"),
-  event("evidence_file.uploaded", "evidence_file"),
-  event("evidence_file.downloaded", "evidence_file"),
-  event("evidence_file.integrity_failed", "evidence_file"),
-  event("bath_record.created", "bath_record"),
-  event("maintenance_interval.set", "maintenance_interval"),
-  event("maintenance.reminder_queued", "maintenance_interval"),
+  event("user.created", "user", {
+    new: obj({ name: text, email: text, jobTitle: text.nullable(), roles: z.array(z.enum(ROLES)) }),
+  }),
+  event("user.updated", "user", { old: userDetails, new: userDetails }),
+  event("user.roles_changed", "user", {
+    old: obj({ roles: z.array(z.enum(ROLES)) }),
+    new: obj({ roles: z.array(z.enum(ROLES)) }),
+  }),
+  event("user.deactivated", "user", {
+    old: obj({ active: z.boolean() }),
+    new: obj({ active: z.boolean() }),
+  }),
+  event("user.reactivated", "user", {
+    old: obj({ active: z.boolean() }),
+    new: obj({ active: z.boolean() }),
+  }),
+  event("user.password_reset", "user", { new: obj({ mustChangePassword: z.literal(true) }) }),
+  // Plant, parts and recipes
+  event("site.created", "site", { new: obj({ name: text, location: text.nullable() }) }),
+  event("cleaning_system.created", "cleaning_system", {
+    new: obj({ code: text, name: text, stages: z.array(text) }),
+  }),
+  event("cleaning_system.updated", "cleaning_system", {
+    // Each stage as one line: "name (kind; capabilities; volume)".
+    old: obj({ name: text, description: text.nullable(), stages: z.array(text) }),
+    new: obj({ name: text, description: text.nullable(), stages: z.array(text) }),
+  }),
+  event("cleanliness_spec.created", "cleanliness_spec", {
+    new: obj({
+      code: text,
+      name: text,
+      ccc: text.nullable(),
+      maxMetallicUm: z.number().nullable(),
+      maxNonMetallicUm: z.number().nullable(),
+      maxFibreUm: z.number().nullable(),
+      gravimetricLimitMg: z.number().nullable(),
+      gravimetricBasis: z.enum(["per_component", "per_1000_cm2"]).nullable(),
+      minWettingTensionMNm: z.number().nullable(),
+      visualCriteria: text.nullable(),
+      drynessCriteria: text.nullable(),
+    }).partial({
+      ccc: true,
+      maxMetallicUm: true,
+      maxNonMetallicUm: true,
+      maxFibreUm: true,
+      gravimetricLimitMg: true,
+      gravimetricBasis: true,
+      minWettingTensionMNm: true,
+      visualCriteria: true,
+      drynessCriteria: true,
+    }),
+  }),
+  event("part_family.created", "part_family", {
+    new: obj({
+      code: text,
+      name: text,
+      material: text,
+      wettedAreaCm2: z.number(),
+      wettedVolumeCm3: z.number().nullable(),
+      spec: text,
+    }),
+  }),
+  event("recipe.created", "recipe", { new: obj({ code: text, name: text }) }),
+  event("recipe_version.created", "recipe_version", {
+    new: obj({ recipe: text, version, notes: text.nullable() }),
+  }),
+  event("recipe_version.proposed", "recipe_version", {
+    new: obj({ recipe: text, version, copiedFrom: version, changeRequest: text }),
+  }),
+  // The first version of a seeded recipe is effective from the start: it had no earlier status.
+  event("recipe_version.effective", "recipe_version", {
+    old: obj({ status: z.literal("proposed") })
+      .nullable()
+      .default(null),
+    new: obj({
+      status: z.literal("effective"),
+      effectiveFrom: isoTime,
+      changeRequest: text.optional(),
+    }),
+  }),
+  event("recipe_version.superseded", "recipe_version", {
+    old: obj({ status: z.literal("effective") }),
+    new: obj({
+      status: z.literal("superseded"),
+      effectiveTo: isoTime,
+      by: version,
+      changeRequest: text.optional(),
+    }),
+  }),
+  event("recipe_version.withdrawn", "recipe_version", {
+    old: obj({ status: z.literal("proposed") }),
+    new: obj({ status: z.literal("withdrawn"), changeRequest: text }),
+  }),
+  // Signatures, e-mail and the trail itself
+  event("signature.applied", "signature", {
+    new: obj({
+      on: text,
+      meaning: z.enum(SIGNATURE_MEANINGS),
+      printedName: text,
+      contentHash: sha256,
+      signedAt: isoTime,
+    }),
+  }),
+  event("email.test_sent", "email", { new: obj({ to: text }) }),
+  event("audit.exported", "audit_trail", {
+    new: obj({ filters: z.record(z.string(), z.union([text, z.number()])) }),
+  }),
+  event("audit.verified", "audit_trail", {
+    new: z.union([
+      obj({ ok: z.literal(true), events: count }),
+      obj({ ok: z.literal(false), brokenAt: z.number().int(), reason: text }),
+    ]),
+  }),
+  // Controlled documents: the document's life, recorded on the version it concerns
+  event("document.created", "document", {
+    new: obj({
+      number: text,
+      title: text,
+      type: z.enum(DOCUMENT_TYPES),
+      system: text.nullable(),
+      partFamily: text.nullable(),
+      recipeVersion: text.nullable(),
+      versionId: id,
+      sampleSize: count.nullable(),
+    }),
+  }),
+  event("document.edited", "document_version", {
+    old: obj({ contentHash: sha256, lockVersion: count }),
+    new: obj({
+      contentHash: sha256,
+      lockVersion: count,
+      savedOverNewer: z.literal(true).optional(),
+    }),
+  }),
+  event("document.submitted", "document_version", {
+    old: obj({ status: documentStatus }),
+    new: obj({
+      status: z.literal("in_review"),
+      number: text,
+      version,
+      contentHash: sha256,
+      round: version,
+      routing: z.enum(ROUTING_MODES),
+      reviewers: z.array(id),
+      approver: id,
+      due: isoTime.nullable(),
+    }),
+  }),
+  event("document.reviewed", "document_version", {
+    new: obj({ step: version, round: version, contentHash: sha256, nextStep: text.nullable() }),
+  }),
+  event("document.sent_back", "document_version", {
+    old: obj({ status: z.literal("in_review"), contentHash: sha256.nullable() }),
+    new: obj({ status: z.literal("draft"), round: version }),
+  }),
+  event("document.rejected", "document_version", {
+    old: obj({ status: z.literal("in_review"), contentHash: sha256.nullable() }),
+    new: obj({ status: z.literal("draft"), round: version }),
+  }),
+  event("document.approved", "document_version", {
+    old: obj({ status: z.literal("in_review") }),
+    new: obj({ status: z.literal("approved"), contentHash: sha256, effectiveDate: isoDate }),
+  }),
+  // A seeded version is effective from the start: it had no earlier status.
+  event("document.effective", "document_version", {
+    old: obj({ status: z.literal("approved") })
+      .nullable()
+      .default(null),
+    new: obj({ status: z.literal("effective"), effectiveDate: isoDate.nullable(), version }),
+  }),
+  event("document.superseded", "document_version", {
+    old: obj({ status: z.literal("effective"), version }),
+    new: obj({ status: z.literal("superseded"), byVersion: version }),
+  }),
+  event("document.retired", "document_version", {
+    old: obj({ status: z.literal("effective") }),
+    new: obj({ status: z.literal("retired"), version }),
+  }),
+  event("document.version_started", "document_version", {
+    new: obj({ version, from: version, contentHash: sha256 }),
+  }),
+  event("document.review_overdue", "document_review", {
+    new: obj({ assignee: id, due: isoTime.nullable(), notifiedAt: isoTime }),
+  }),
+  event("document.exported", "document_version", {
+    new: obj({
+      format: z.literal("pdf"),
+      number: text,
+      version,
+      status: documentStatus,
+      contentHash: sha256,
+      bytes: count,
+    }),
+  }),
+  // Evidence: test runs, their samples, raw data and files, and the bath and filter log
+  event("test_run.created", "test_run", {
+    new: obj({
+      number: text,
+      partFamilyId: id,
+      recipeVersionId: id,
+      testType: z.enum(TEST_TYPES),
+      technicianId: id,
+      lab: text,
+      performedOn: isoDate,
+      protocolDocumentId: id.optional(),
+      changeRequestId: id.optional(),
+      requirement: text.optional(),
+    }),
+  }),
+  event("test_run.sample_added", "test_run", {
+    new: obj({
+      sampleId: id,
+      sampleLabel: text,
+      basketPosition: text.nullable(),
+      worstCase: z.boolean(),
+      data: sampleData,
+      outcome,
+    }),
+  }),
+  event("test_run.sample_removed", "test_run", {
+    old: obj({ sampleId: id, sampleLabel: text, data: sampleData }),
+    new: obj({ outcome }),
+  }),
+  event("test_run.data_saved", "test_run", {
+    old: obj({ runData: jsonObject.nullable() }),
+    new: obj({ runData: jsonObject, outcome }),
+  }),
+  event("test_run.csv_imported", "test_run", {
+    new: obj({ fileId: id, sha256, name: text, rows: count, samples: z.array(text), outcome }),
+  }),
+  event("test_run.performed", "test_run", { old: obj({ status: runStatus }), new: signedRun }),
+  event("test_run.verified", "test_run", { old: obj({ status: runStatus }), new: signedRun }),
+  event("test_run.revised", "test_run", {
+    new: obj({ number: text, revision: version, supersedes: id, evidenceLinks: count }),
+  }),
+  event("test_run.superseded", "test_run", {
+    old: obj({ status: runStatus }),
+    new: obj({ status: z.literal("superseded"), by: id }),
+  }),
+  event("evidence_file.uploaded", "evidence_file", {
+    new: obj({
+      run: text,
+      runId: id,
+      sha256,
+      name: text,
+      mimeType: text,
+      sizeBytes: count,
+      kind: z.enum(EVIDENCE_FILE_KINDS),
+      storedNew: z.boolean(),
+    }),
+  }),
+  event("evidence_file.downloaded", "evidence_file", { new: obj({ sha256, name: text }) }),
+  event("evidence_file.integrity_failed", "evidence_file", {
+    new: obj({ expectedSha256: sha256, actualSha256: sha256.nullable(), name: text }),
+  }),
+  event("bath_record.created", "bath_record", {
+    new: obj({
+      tank: text,
+      kind: z.enum(BATH_RECORD_KINDS),
+      performedAt: isoTime,
+      concentrationPct: z.number().nullish(),
+      conductivityUsPerCm: z.number().nullish(),
+      temperatureC: z.number().nullish(),
+      countPerMl4: z.number().nullish(),
+      countPerMl6: z.number().nullish(),
+      countPerMl14: z.number().nullish(),
+      filterDescription: text.nullish(),
+      notes: text.nullish(),
+    }),
+  }),
+  event("maintenance_interval.set", "maintenance_interval", {
+    old: obj({ intervalDays: count, warnDays: count }).nullable().default(null),
+    new: obj({ tank: text, kind: z.enum(MAINTENANCE_KINDS), intervalDays: count, warnDays: count }),
+  }),
+  event("maintenance_interval.reminder_queued", "maintenance_interval", {
+    new: obj({ level: z.enum(["due", "overdue"]), dueAt: isoTime, recipients: count }),
+  }),
   // Change control
-  event("change.opened", "change_request"),
-  event("change.proposal_saved", "change_request"),
-  event("change.impact_assessed", "change_request"),
-  event("change.reopened", "change_request"),
-  event("change.approved", "change_request"),
-  event("change.requalification_started", "change_request"),
-  event("change.evidence_linked", "change_request"),
-  event("change.verified", "change_request"),
-  event("change.closed", "change_request"),
-  event("change.rejected", "change_request"),
-  event("change.withdrawn", "change_request"),
-  event("recipe_version.proposed", "recipe_version"),
-  event("recipe_version.withdrawn", "recipe_version"),
-  event("change_narrative.saved", "document_version"),
-  event("requalification_matrix.versioned", "requalification_matrix"),
-  event("requalification_interval.set", "requalification_interval"),
-  event("requalification_interval.reminder_sent", "requalification_interval"),
+  event("change.opened", "change_request", {
+    new: obj({
+      number: text,
+      title: text,
+      kind: z.enum(CHANGE_KINDS),
+      recipe: text,
+      fromVersion: version,
+      toVersion: version,
+      narrativeDocument: text,
+    }),
+  }),
+  event("change.proposal_saved", "change_request", {
+    old: obj({
+      title: text,
+      kind: z.enum(CHANGE_KINDS),
+      raisedTo: z.enum(IMPACT_CLASSES).nullable(),
+      lockVersion: count,
+    }),
+    new: obj({
+      lockVersion: count,
+      title: text,
+      kind: z.enum(CHANGE_KINDS),
+      raisedTo: z.enum(IMPACT_CLASSES).nullable(),
+      computedImpact: z.enum(IMPACT_CLASSES),
+      parameters: z.array(obj({ key: text, old: parameterValue, new: parameterValue })),
+    }),
+  }),
+  event("change.impact_assessed", "change_request", {
+    old: obj({ status: z.literal("draft") }),
+    new: obj({
+      status: z.literal("impact_assessed"),
+      impact: z.enum(IMPACT_CLASSES),
+      computed: z.enum(IMPACT_CLASSES),
+      matrixVersion: version.nullable(),
+      tests: z.array(text),
+      contentHash: sha256,
+    }),
+  }),
+  event("change.reopened", "change_request", {
+    old: obj({ status: changeStatus, revision: version }),
+    new: obj({ status: z.literal("draft"), revision: version }),
+  }),
+  event("change.approved", "change_request", {
+    old: obj({ status: z.literal("impact_assessed") }),
+    new: obj({ status: z.literal("approved_for_implementation"), impact: z.enum(IMPACT_CLASSES) }),
+  }),
+  event("change.requalification_started", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: z.literal("requalification") }),
+  }),
+  event("change.evidence_linked", "change_request", {
+    new: obj({ requirement: z.enum(TEST_TYPES), samplesRequired: count, testRun: text }),
+  }),
+  event("change.verified", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: z.literal("verified"), evidence: z.array(text) }),
+  }),
+  event("change.closed", "change_request", {
+    old: obj({ status: z.literal("verified") }),
+    new: obj({ status: z.literal("closed"), effectiveVersion: version }),
+  }),
+  event("change.rejected", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: changeStatus }),
+  }),
+  event("change.withdrawn", "change_request", {
+    old: obj({ status: changeStatus }),
+    new: obj({ status: changeStatus }),
+  }),
+  event("requalification_matrix.versioned", "requalification_matrix", {
+    old: obj({ version, removed: z.array(text) })
+      .nullable()
+      .default(null),
+    new: obj({ version, added: z.array(text), rows: count }),
+  }),
+  // Set by closing a change (the first interval of a validated combination) or changed by hand.
+  event("requalification_interval.set", "requalification_interval", {
+    old: obj({ intervalMonths: count }).nullable().default(null),
+    new: obj({
+      intervalMonths: count,
+      recipeVersion: version.optional(),
+      partFamilyId: id.optional(),
+      lastQualifiedAt: isoTime.optional(),
+    }),
+  }),
+  event("requalification_interval.reminder_sent", "requalification_interval", {
+    new: obj({
+      due: isoTime,
+      state: z.enum(["overdue", "due_soon", "not_due"]),
+      to: z.array(text),
+    }),
+  }),
   // Trace and API
-  event("audit_pack.exported", "change_request"),
-  event("api_token.created", "api_token"),
-  event("api_token.revoked", "api_token"),
+  event("audit_pack.exported", "change_request", {
+    new: obj({
+      number: text,
+      format: z.enum(["pdf", "zip"]),
+      pdfSha256: sha256,
+      bytes: count,
+      files: count,
+      filesRefused: count.optional(),
+    }),
+  }),
+  event("api_token.created", "api_token", {
+    new: obj({ name: text, scope: z.enum(API_TOKEN_SCOPES), prefix: text }),
+  }),
+  event("api_token.revoked", "api_token", {
+    old: obj({ revokedAt: z.null() }),
+    new: obj({ name: text, prefix: text, revokedAt: isoTime }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;
 export type AuditEvent = z.output<typeof auditEventSchema>;
-export type AuditAction = AuditEvent["action"];
+export type AuditEventType = AuditEvent["eventType"];
+/** The old or new values of some event, whichever type it is. */
+export type AuditValues = NonNullable<AuditEvent["old"] | AuditEvent["new"]>;
+
+export const AUDIT_EVENT_TYPES: readonly AuditEventType[] = auditEventSchema.options.map(
+  (o) => o.shape.eventType.value,
+);
 
 /** Who did it: a signed-in user, or the system itself (seeding, scheduled jobs). */
 export type AuditActor = { id: string; name: string } | { id: null; name: string };

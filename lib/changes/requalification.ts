@@ -21,6 +21,11 @@ export interface RequiredTest {
 }
 
 /** Sample size for zero failures (success-run theorem, n = ln(1 − C) / ln(R), rounded up). */
+/** One matrix row as a line of text, as the audit trail lists added and removed rows. */
+export function matrixRowLine(r: Pick<MatrixRow, "subject" | "testType" | "confidencePct" | "reliabilityPct">): string {
+  return `${r.subject} → ${r.testType} @ ${r.confidencePct}/${r.reliabilityPct}`;
+}
+
 export function samplesFor(row: Pick<MatrixRow, "confidencePct" | "reliabilityPct">): number {
   return successRunSampleSize(row.confidencePct / 100, row.reliabilityPct / 100);
 }

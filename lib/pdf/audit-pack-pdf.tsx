@@ -237,8 +237,8 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
         </Text>
         <Table
           widths={[0.5, 1.5, 1.4, 2, 1.4, 3.2]}
-          head={["Seq", "At (UTC)", "Actor", "Action", "Record", "Event hash (SHA-256)"]}
-          rows={pack.events.map((e) => [String(e.seq), utc(e.at), e.actorName, e.action, humanize(e.recordType), <Text key="h" style={s.mono}>{e.hash}</Text>])}
+          head={["Seq", "At (UTC)", "Actor", "Event", "Record", "Event hash (SHA-256)"]}
+          rows={pack.events.map((e) => [String(e.seq), utc(e.at), e.actorName, e.eventType, humanize(e.recordType), <Text key="h" style={s.mono}>{e.hash}</Text>])}
         />
 
         <Text style={s.small}>

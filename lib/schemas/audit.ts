@@ -14,7 +14,8 @@ export const auditQuerySchema = z
     actor: optionalText(64),
     recordType: optionalText(40),
     recordId: optionalText(100),
-    action: optionalText(60),
+    /** An event type; today's name also finds events stored under an earlier one. */
+    eventType: optionalText(60),
     from: z.iso.date("Use a date like 2026-01-31.").optional().or(z.literal("").transform(() => undefined)),
     to: z.iso.date("Use a date like 2026-01-31.").optional().or(z.literal("").transform(() => undefined)),
     /** Keyset cursor: events with a sequence number below this one. */

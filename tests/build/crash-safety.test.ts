@@ -173,8 +173,8 @@ describe("a SIGKILL in the middle of a burst of writes", () => {
       const rows = await db.select().from(testSamples).where(inArray(testSamples.runId, resultRuns));
       const stored = new Set(rows.map((r) => `${r.runId}/${r.sampleLabel}`));
       expect(acked.filter((w) => !stored.has(`${w.runId}/${w.sampleLabel}`)), "acknowledged results missing after the restart").toEqual([]);
-      const added = await db.select().from(auditEvents).where(and(eq(auditEvents.action, "test_run.result_added"), inArray(auditEvents.recordId, resultRuns)));
-      expect(added.map((e) => JSON.parse(e.newValue!).resultId).sort()).toEqual(rows.map((r) => r.id).sort());
+      const added = await db.select().from(auditEvents).where(and(eq(auditEvents.action, "test_run.sample_added"), inArray(auditEvents.recordId, resultRuns)));
+      expect(added.map((e) => JSON.parse(e.newValue!).sampleId).sort()).toEqual(rows.map((r) => r.id).sort());
 
       // Every acknowledged signature is there; a run is performed exactly when it carries its signature and its event.
       const runs = await db.select({ id: testRuns.id, status: testRuns.status }).from(testRuns).where(eq(testRuns.lab, SIGNER_LAB));

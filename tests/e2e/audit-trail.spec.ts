@@ -10,7 +10,7 @@ test("an auditor filters the audit trail, verifies its integrity and exports it"
   // The first page of events has loaded, so the browser is hydrated and filtering runs in the page.
   await expect(page.getByRole("table").getByRole("row").nth(1)).toBeVisible({ timeout: 30_000 });
   const filters = page.getByRole("form", { name: "Filter the audit trail" });
-  await filters.getByLabel("Action").selectOption("part_family.created");
+  await filters.getByLabel("Event").selectOption("part_family.created");
   await filters.getByRole("button", { name: "Filter" }).click();
   const rows = page.getByRole("table").getByRole("row");
   await expect(rows).toHaveCount(4); // header + the three seeded part families

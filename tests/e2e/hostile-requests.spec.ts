@@ -70,8 +70,8 @@ test.describe("requests from another site", () => {
 
   test("a link on another site to the audit-trail export is refused and writes no export event; the same link from here downloads", async ({ page }) => {
     await signInAs(page, "auditor");
-    const exportPath = "/api/audit-events/export?action=audit.exported";
-    const exportEvents = async () => (await (await page.request.get("/api/audit-events?action=audit.exported&limit=200")).json()).items.length as number;
+    const exportPath = "/api/audit-events/export?eventType=audit.exported";
+    const exportEvents = async () => (await (await page.request.get("/api/audit-events?eventType=audit.exported&limit=200")).json()).items.length as number;
     const before = await exportEvents();
     const foreign = await page.request.get(exportPath, { headers: { "sec-fetch-site": "cross-site" } });
     expect(foreign.status()).toBe(403);
@@ -156,12 +156,12 @@ test.describe("SQL metacharacters in every search and filter", () => {
     await signInAs(page, "admin");
     for (const value of SQL) {
       const q = encodeURIComponent(value);
-      for (const field of ["actor", "recordType", "recordId", "action"]) {
+      for (const field of ["actor", "recordType", "recordId", "eventType"]) {
         const res = await page.request.get(`/api/audit-events?${field}=${q}`);
         expect(res.status(), `${field}=${value}`).toBe(200);
         expect((await res.json()).items, `${field}=${value}`).toEqual([]);
       }
-      const page1 = await page.goto(`/trace/audit?action=${q}&recordId=${q}`);
+      const page1 = await page.goto(`/trace/audit?eventType=${q}&recordId=${q}`);
       expect(page1?.status()).toBe(200);
       await expect(page.getByRole("main")).toBeVisible();
       for (const field of ["sort", "dir", "testType", "outcome", "partFamilyId", "from"]) {
@@ -172,8 +172,8 @@ test.describe("SQL metacharacters in every search and filter", () => {
       const evidence = await page.goto(`/evidence?sort=${q}&testType=${q}&from=${q}`);
       expect(evidence?.status()).toBe(200);
     }
-    // A real filter still finds its rows: the action of the demo's sign-ins.
-    const real = await page.request.get("/api/audit-events?action=auth.signed_in&limit=5");
+    // A real filter still finds its rows: the event type of the demo's sign-ins.
+    const real = await page.request.get("/api/audit-events?eventType=auth.signed_in&limit=5");
     expect(((await real.json()).items as unknown[]).length).toBeGreaterThan(0);
   });
 

@@ -131,9 +131,9 @@ describe("reading", () => {
 
   it("applies the role table: the audit trail is for auditors, not technicians", async () => {
     expect((await auditEventsRoute.GET(get("/audit-events?limit=5", tokens.techRead), noParams)).status).toBe(403);
-    const res = await auditEventsRoute.GET(get("/audit-events?limit=5&action=change.closed", tokens.auditorRead), noParams);
+    const res = await auditEventsRoute.GET(get("/audit-events?limit=5&eventType=change.closed", tokens.auditorRead), noParams);
     const page = auditEventPage.parse(await res.json());
-    expect(page.data.every((e) => e.action === "change.closed")).toBe(true);
+    expect(page.data.every((e) => e.eventType === "change.closed")).toBe(true);
   });
 
   it("publishes an OpenAPI 3.1 document whose every path answers in this API", async () => {
@@ -182,7 +182,7 @@ describe("posting lab results", () => {
     const body = sampleAddedOut.parse(await res.json());
     expect(body.run.samples.map((r) => r.sampleLabel)).toEqual(["VB-26-001"]);
     expect(body.run.outcome).not.toBeNull();
-    const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, runId), eq(auditEvents.action, "test_run.result_added")));
+    const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, runId), eq(auditEvents.action, "test_run.sample_added")));
     expect(event.actorName).toBe(people.technician.name);
     const dup = await postResult(tokens.techWrite, good);
     expect(dup.status).toBe(409);

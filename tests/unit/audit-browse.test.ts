@@ -9,8 +9,8 @@ import { createTestDatabase } from "./support/test-db";
 
 describe("describeChanges", () => {
   it("lists changed fields old → new and leaves unchanged ones out", () => {
-    expect(describeChanges('{"name":"A","setpoint":55}', '{"name":"A","setpoint":60}')).toEqual([{ field: "setpoint", old: "55", new: "60" }]);
-    expect(describeChanges(null, '{"roles":["engineer"]}')).toEqual([{ field: "roles", old: null, new: '["engineer"]' }]);
+    expect(describeChanges({ old: { name: "A", setpoint: 55 }, new: { name: "A", setpoint: 60 } })).toEqual([{ field: "setpoint", old: "55", new: "60" }]);
+    expect(describeChanges({ old: null, new: { roles: ["engineer"] } })).toEqual([{ field: "roles", old: null, new: '["engineer"]' }]);
   });
 });
 
@@ -34,7 +34,9 @@ describe("audit query", () => {
         appendAudit(
           tx,
           actors[i % 2],
-          { action: i % 5 === 0 ? "user.created" : "user.updated", recordType: "user", recordId: `r-${i}`, new: { i } },
+          i % 5 === 0
+            ? { eventType: "user.created", recordType: "user", recordId: `r-${i}`, new: { name: `User ${i}`, email: `u${i}@example.test`, jobTitle: null, roles: ["engineer"] } }
+            : { eventType: "user.updated", recordType: "user", recordId: `r-${i}`, old: { name: `Was ${i}` }, new: { name: `User ${i}` } },
           new Date(Date.UTC(2026, 0, 1 + i)),
         ),
       );
@@ -52,8 +54,8 @@ describe("audit query", () => {
     expect(third.nextBefore).toBeNull();
   });
 
-  it("filters by user, action and date range together", async () => {
-    const page = await queryAuditEvents(auditQuerySchema.parse({ actor: "u-a", action: "user.created", from: "2026-01-01", to: "2026-01-21" }));
+  it("filters by user, event type and date range together", async () => {
+    const page = await queryAuditEvents(auditQuerySchema.parse({ actor: "u-a", eventType: "user.created", from: "2026-01-01", to: "2026-01-21" }));
     // i = 0, 10, 20 are "created" by Ann (even i); their dates are Jan 1, 11 and 21.
     expect(page.items.map((e) => e.recordId)).toEqual(["r-20", "r-10", "r-0"]);
   });

@@ -9,7 +9,7 @@ const actor = { id: "u-1", name: "Test Engineer" };
 async function appendMany(n: number) {
   for (let i = 0; i < n; i++) {
     await t.db.transaction((tx) =>
-      appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: `r-${i}`, old: { n: i }, new: { n: i + 1 }, reason: "test" }),
+      appendAudit(tx, actor, { eventType: "user.updated", recordType: "user", recordId: `r-${i}`, old: { name: `n${i}` }, new: { name: `n${i + 1}` }, reason: "test" }),
     );
   }
 }
@@ -46,10 +46,10 @@ describe("audit chain", () => {
 
   it("stores old and new values as canonical JSON", async () => {
     await t.db.transaction((tx) =>
-      appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: "x", new: { b: 1, a: { d: 2, c: 3 } } }),
+      appendAudit(tx, actor, { eventType: "audit.exported", recordType: "audit_trail", recordId: "x", new: { filters: { to: "2026-01-31", actor: "system" } } }),
     );
     const row = (await t.client.execute("SELECT new_value FROM audit_events")).rows[0];
-    expect(row.new_value).toBe('{"a":{"c":3,"d":2},"b":1}');
+    expect(row.new_value).toBe('{"filters":{"actor":"system","to":"2026-01-31"}}');
     expect(canonicalJson({ b: 1, a: [{ y: 1, x: 2 }] })).toBe('{"a":[{"x":2,"y":1}],"b":1}');
   });
 
@@ -95,7 +95,7 @@ describe("audit chain", () => {
     await appendMany(1);
     await expect(
       t.db.transaction(async (tx) => {
-        await appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: "y" });
+        await appendAudit(tx, actor, { eventType: "user.updated", recordType: "user", recordId: "y", old: { name: "a" }, new: { name: "b" } });
         throw new Error("the change failed");
       }),
     ).rejects.toThrow("the change failed");
@@ -105,8 +105,8 @@ describe("audit chain", () => {
   it("rejects an event that does not match its schema", async () => {
     await expect(
       t.db.transaction((tx) =>
-        // @ts-expect-error — a record type that does not belong to this action
-        appendAudit(tx, actor, { action: "user.updated", recordType: "document", recordId: "z" }),
+        // @ts-expect-error — a record type that does not belong to this event type
+        appendAudit(tx, actor, { eventType: "user.updated", recordType: "document", recordId: "z" }),
       ),
     ).rejects.toThrow();
   });
@@ -131,7 +131,7 @@ describe("the text SQLite builds for a page of the chain", () => {
 
   it("verifies a chain of awkward text across pages and still finds an altered row in a later page", async () => {
     for (const [i, reason] of ["tab\there", "line\nbreak", 'quote " and \\ slash', "ctrl \u0001\u001f", "µ ° € 😀", "\u2028 sep"].entries()) {
-      await t.db.transaction((tx) => appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: `w-${i}`, new: { reason }, reason }));
+      await t.db.transaction((tx) => appendAudit(tx, actor, { eventType: "user.updated", recordType: "user", recordId: `w-${i}`, old: { name: "before" }, new: { name: reason }, reason }));
     }
     expect(await verify()).toMatchObject({ ok: true, events: 6 });
     await t.client.execute("DROP TRIGGER audit_events_no_update");

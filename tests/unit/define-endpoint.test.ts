@@ -40,7 +40,7 @@ function form(fields: Record<string, string | string[]>) {
 const ran = vi.fn();
 async function record(user: { id: string; name: string }, note: string) {
   ran();
-  await getDb().transaction((tx) => appendAudit(tx, { id: user.id, name: user.name }, { action: "audit.verified", recordType: "audit_trail", recordId: "chain", new: { ok: true, note } }));
+  await getDb().transaction((tx) => appendAudit(tx, { id: user.id, name: user.name }, { eventType: "audit.verified", recordType: "audit_trail", recordId: "chain", new: { ok: true, events: note.length } }));
 }
 
 const noteAction = defineAction({

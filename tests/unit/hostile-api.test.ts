@@ -58,7 +58,7 @@ afterAll(() => t.cleanup());
 describe("SQL metacharacters in filters", () => {
   it("audit-trail filters in the API match text exactly and never widen: every hostile value finds nothing", async () => {
     for (const value of SQL) {
-      for (const field of ["actor", "recordType", "recordId", "action"]) {
+      for (const field of ["actor", "recordType", "recordId", "eventType"]) {
         const res = await call(auditEventsRoute.GET, `/audit-events?${field}=${encodeURIComponent(value)}`, auditor);
         expect(res.status, `${field}=${value}`).toBe(200);
         expect((await plain(res)).data, `${field}=${value}`).toEqual([]);
@@ -69,14 +69,14 @@ describe("SQL metacharacters in filters", () => {
   it("a real filter still finds exactly the rows it names", async () => {
     const [{ n }] = await t.db.select({ n: sql<number>`count(*)` }).from(auditEvents).where(eq(auditEvents.action, "user.created"));
     expect(n).toBeGreaterThan(0);
-    const res = await call(auditEventsRoute.GET, "/audit-events?action=user.created&limit=200", auditor);
+    const res = await call(auditEventsRoute.GET, "/audit-events?eventType=user.created&limit=200", auditor);
     expect((await plain(res)).data).toHaveLength(n);
   });
 
   it("the audit browser's service matches % and _ literally", async () => {
     // [derived] "user_created" differs from "user.created" only where _ would be a LIKE wildcard.
-    expect((await queryAuditEvents(auditQuerySchema.parse({ action: "user_created" }))).items).toEqual([]);
-    expect((await queryAuditEvents(auditQuerySchema.parse({ action: "user.%" }))).items).toEqual([]);
+    expect((await queryAuditEvents(auditQuerySchema.parse({ eventType: "user_created" }))).items).toEqual([]);
+    expect((await queryAuditEvents(auditQuerySchema.parse({ eventType: "user.%" }))).items).toEqual([]);
   });
 
   it("closed filters and sort columns refuse hostile values with 400 naming the field", async () => {

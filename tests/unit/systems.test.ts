@@ -33,7 +33,7 @@ describe("editing a cleaning system", () => {
     expect(after.map((s) => s.name)).toEqual(["Hot-air drying", "Spray rinse", "Spray wash", "Deionised rinse"]);
     expect(after.slice(0, 3).map((s) => s.id)).toEqual(stages.map((s) => s.id).reverse());
     const events = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, sys.id));
-    expect(events.at(-1)?.action).toBe("system.updated");
+    expect(events.at(-1)?.action).toBe("cleaning_system.updated");
   });
 
   it("refuses to drop a stage, and bad values name their field", async () => {

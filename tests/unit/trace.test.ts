@@ -183,7 +183,7 @@ describe("audit pack", () => {
     expect(pack.signatures).toHaveLength(3);
     expect(fileHashes.length).toBe(pack.evidence.length * 2);
     expect(pack.chain.ok).toBe(true);
-    expect(pack.events.map((e) => e.action)).toEqual(expect.arrayContaining(["change.opened", "change.closed", "signature.applied", "evidence_file.uploaded", "recipe_version.effective"]));
+    expect(pack.events.map((e) => e.eventType)).toEqual(expect.arrayContaining(["change.opened", "change.closed", "signature.applied", "evidence_file.uploaded", "recipe_version.effective"]));
 
     const pdf = await exportAuditPack(people.auditor, { changeRequestId: cr.id, format: "pdf" });
     const dir = mkdtempSync(join(tmpdir(), "washproof-pack-"));

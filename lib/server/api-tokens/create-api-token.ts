@@ -16,7 +16,7 @@ export async function createApiToken(actor: { id: string; name: string } & Audit
     const active = await tx.select({ id: apiTokens.id }).from(apiTokens).where(and(eq(apiTokens.userId, actor.id), isNull(apiTokens.revokedAt)));
     if (active.length >= MAX_ACTIVE) throw new UserFacingError(`You have ${MAX_ACTIVE} active tokens. Revoke one you no longer use first.`);
     const [created] = await tx.insert(apiTokens).values({ userId: actor.id, name: input.name, prefix, tokenHash: hash, scope: input.scope }).returning();
-    await appendAudit(tx, actor, { action: "api_token.created", recordType: "api_token", recordId: created.id, new: { name: input.name, scope: input.scope, prefix } });
+    await appendAudit(tx, actor, { eventType: "api_token.created", recordType: "api_token", recordId: created.id, new: { name: input.name, scope: input.scope, prefix } });
     return created;
   });
   return { token, id: row.id, prefix };

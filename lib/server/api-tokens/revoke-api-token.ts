@@ -13,6 +13,6 @@ export async function revokeApiToken(actor: { id: string; name: string } & Audit
     if (token.revokedAt) throw new UserFacingError(`That token was already revoked on ${token.revokedAt.slice(0, 10)}.`);
     const revokedAt = now.toISOString();
     await tx.update(apiTokens).set({ revokedAt }).where(eq(apiTokens.id, token.id));
-    await appendAudit(tx, actor, { action: "api_token.revoked", recordType: "api_token", recordId: token.id, old: { revokedAt: null }, new: { name: token.name, prefix: token.prefix, revokedAt } });
+    await appendAudit(tx, actor, { eventType: "api_token.revoked", recordType: "api_token", recordId: token.id, old: { revokedAt: null }, new: { name: token.name, prefix: token.prefix, revokedAt } });
   });
 }

@@ -16,6 +16,7 @@ import {
   testSamples,
   testRuns,
 } from "@/db/schema";
+import { currentEventType } from "@/lib/audit/read";
 import { BadCursorError, decodeCursor, encodeCursor } from "@/lib/api/cursor";
 import { narrativeText } from "@/lib/changes/content";
 import type {
@@ -268,7 +269,8 @@ export async function listAuditEventsApi(q: z.output<typeof auditEventsQuery>) {
       seq: r.seq,
       at: r.at,
       actorName: r.actorName,
-      action: r.action,
+      eventType: currentEventType(r.action),
+      storedEventType: r.action,
       recordType: r.recordType,
       recordId: r.recordId,
       old: r.oldValue ? JSON.parse(r.oldValue) : null,

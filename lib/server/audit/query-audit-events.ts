@@ -1,8 +1,9 @@
 import "server-only";
-import { and, desc, eq, gte, lt, lte, type SQL } from "drizzle-orm";
+import { and, desc, eq, gte, inArray, lt, lte, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { auditEvents } from "@/db/schema";
 import { describeChanges } from "@/lib/audit/describe";
+import { currentEventType, readAuditEvent, storedNamesOf } from "@/lib/audit/read";
 import type { AuditQuery } from "@/lib/schemas/audit";
 
 /** The filters as SQL, shared by the browser, the CSV export and the API. */
@@ -11,7 +12,7 @@ export function auditConditions(q: Partial<AuditQuery>): SQL | undefined {
   if (q.actor) where.push(q.actor === "system" ? eq(auditEvents.actorName, "system") : eq(auditEvents.actorId, q.actor));
   if (q.recordType) where.push(eq(auditEvents.recordType, q.recordType));
   if (q.recordId) where.push(eq(auditEvents.recordId, q.recordId));
-  if (q.action) where.push(eq(auditEvents.action, q.action));
+  if (q.eventType) where.push(inArray(auditEvents.action, storedNamesOf(q.eventType)));
   if (q.from) where.push(gte(auditEvents.at, `${q.from}T00:00:00.000Z`));
   if (q.to) where.push(lte(auditEvents.at, `${q.to}T23:59:59.999Z`));
   return where.length ? and(...where) : undefined;
@@ -28,17 +29,21 @@ export async function queryAuditEvents(q: AuditQuery) {
     .limit(q.limit + 1);
   const page = rows.slice(0, q.limit);
   return {
-    items: page.map((r) => ({
-      seq: r.seq,
-      at: r.at,
-      actorName: r.actorName,
-      action: r.action,
-      recordType: r.recordType,
-      recordId: r.recordId,
-      reason: r.reason,
-      changes: describeChanges(r.oldValue, r.newValue),
-      hash: r.hash,
-    })),
+    items: page.map((r) => {
+      const event = readAuditEvent(r);
+      return {
+        seq: r.seq,
+        at: r.at,
+        actorName: r.actorName,
+        eventType: event.eventType,
+        storedAs: event.storedAs,
+        recordType: r.recordType,
+        recordId: r.recordId,
+        reason: r.reason,
+        changes: describeChanges(event),
+        hash: r.hash,
+      };
+    }),
     nextBefore: rows.length > q.limit ? page[page.length - 1].seq : null,
   };
 }
@@ -62,10 +67,11 @@ export async function* iterateAuditEvents(q: Partial<Omit<AuditQuery, "before" |
   }
 }
 
-/** The distinct values the filters offer. */
+/** The distinct values the filters offer; an event type stored under an earlier name is offered once, by today's. */
 export async function auditFilterOptions() {
   const db = getDb();
-  const actions = await db.selectDistinct({ v: auditEvents.action }).from(auditEvents).orderBy(auditEvents.action);
+  const stored = await db.selectDistinct({ v: auditEvents.action }).from(auditEvents);
   const types = await db.selectDistinct({ v: auditEvents.recordType }).from(auditEvents).orderBy(auditEvents.recordType);
-  return { actions: actions.map((a) => a.v), recordTypes: types.map((t) => t.v) };
+  const eventTypes = [...new Set(stored.map((a) => currentEventType(a.v)))].sort();
+  return { eventTypes, recordTypes: types.map((t) => t.v) };
 }

@@ -35,7 +35,7 @@ export async function signIn(input: { email: string; password: string }, now = n
   if (!locked && passwordOk && user.active) {
     await db.transaction(async (tx) => {
       await tx.update(users).set({ failedAttempts: 0, lockedUntil: null }).where(eq(users.id, user.id));
-      await appendAudit(tx, { id: user.id, name: user.name }, { action: "auth.signed_in", recordType: "user", recordId: user.id }, now);
+      await appendAudit(tx, { id: user.id, name: user.name }, { eventType: "auth.signed_in", recordType: "user", recordId: user.id }, now);
     });
     const session = await createSession(user.id, now);
     return { ok: true, userId: user.id, sessionId: session.id, mustChangePassword: user.mustChangePassword };
@@ -57,12 +57,12 @@ export async function recordFailedAttempt(userId: string, during: "sign_in" | "s
     const actor = { id: user.id, name: user.name };
     const locked = isLocked(user, now);
     const reason = !user.active ? "account deactivated" : locked ? "account locked" : "wrong password";
-    await appendAudit(tx, actor, { action: "auth.sign_in_failed", recordType: "user", recordId: user.id, new: { reason, during } }, now);
+    await appendAudit(tx, actor, { eventType: "auth.sign_in_failed", recordType: "user", recordId: user.id, new: { reason, during } }, now);
     if (!user.active || locked) return;
     const next = afterFailedAttempt(user, now, lockoutPolicy());
     await tx.update(users).set({ failedAttempts: next.failedAttempts, lockedUntil: next.lockedUntil }).where(eq(users.id, user.id));
     if (next.locked) {
-      await appendAudit(tx, actor, { action: "auth.locked_out", recordType: "user", recordId: user.id, new: { lockedUntil: next.lockedUntil, attempts: lockoutPolicy().threshold } }, now);
+      await appendAudit(tx, actor, { eventType: "auth.locked_out", recordType: "user", recordId: user.id, new: { lockedUntil: next.lockedUntil, attempts: lockoutPolicy().threshold } }, now);
     }
   });
 }

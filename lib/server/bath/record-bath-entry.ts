@@ -19,7 +19,7 @@ export async function recordBathEntry(actor: { id: string; name: string }, input
       .insert(bathRecords)
       .values({ stageId, ...values, performedAt: performedAt.toISOString(), recordedBy: actor.id })
       .returning();
-    await appendAudit(tx, actor, { action: "bath_record.created", recordType: "bath_record", recordId: row.id, new: { tank: stage.name, ...values, performedAt: row.performedAt } });
+    await appendAudit(tx, actor, { eventType: "bath_record.created", recordType: "bath_record", recordId: row.id, new: { tank: stage.name, ...values, performedAt: row.performedAt } });
     return row;
   });
 }

@@ -34,7 +34,7 @@ export async function sendMaintenanceReminders(now = new Date()) {
       if (inserted.length === 0) return;
       const mail = maintenanceDueEmail({ what: MAINTENANCE_LABELS[item.kind], tank: item.tank, system: item.system, dueAt: item.status.dueAt, overdue: level === "overdue", stageId: item.stageId });
       for (const to of active) await enqueueEmail(tx, { to, ...mail }, now);
-      await appendAudit(tx, SYSTEM_ACTOR, { action: "maintenance.reminder_queued", recordType: "maintenance_interval", recordId: item.intervalId, new: { level, dueAt: item.status.dueAt, recipients: active.length } }, now);
+      await appendAudit(tx, SYSTEM_ACTOR, { eventType: "maintenance_interval.reminder_queued", recordType: "maintenance_interval", recordId: item.intervalId, new: { level, dueAt: item.status.dueAt, recipients: active.length } }, now);
       queued += active.length;
     });
   }

@@ -20,7 +20,7 @@ export async function setMaintenanceInterval(actor: { id: string; name: string }
       ? await tx.update(maintenanceIntervals).set({ ...values, updatedAt: now.toISOString() }).where(eq(maintenanceIntervals.id, existing.id)).returning()
       : await tx.insert(maintenanceIntervals).values({ stageId: input.stageId, kind: input.kind, ...values, createdBy: actor.id, createdAt: now.toISOString() }).returning();
     await appendAudit(tx, actor, {
-      action: "maintenance_interval.set",
+      eventType: "maintenance_interval.set",
       recordType: "maintenance_interval",
       recordId: row.id,
       old: existing ? { intervalDays: existing.intervalDays, warnDays: existing.warnDays } : null,

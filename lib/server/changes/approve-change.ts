@@ -20,7 +20,7 @@ export async function approveChange(actor: AuditActor & { id: string }, input: {
     await applySignature(tx, { signer, recordType: "change_request", recordId: state.signatureRecordId, meaning: "approved", contentHash: state.contentHash }, now);
     await tx.update(changeRequests).set({ status: "approved_for_implementation" }).where(eq(changeRequests.id, state.cr.id));
     await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "approved", now);
-    await appendAudit(tx, actor, { action: "change.approved", recordType: "change_request", recordId: state.cr.id, old: { status: "impact_assessed" }, new: { status: "approved_for_implementation", impact: state.impact } }, now);
+    await appendAudit(tx, actor, { eventType: "change.approved", recordType: "change_request", recordId: state.cr.id, old: { status: "impact_assessed" }, new: { status: "approved_for_implementation", impact: state.impact } }, now);
     const tests = state.requirements.length;
     await notifyNext(tx, {
       cr: state.cr,

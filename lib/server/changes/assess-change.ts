@@ -46,7 +46,7 @@ export async function assessChange(actor: AuditActor & { id: string }, input: { 
       tx,
       actor,
       {
-        action: "change.impact_assessed",
+        eventType: "change.impact_assessed",
         recordType: "change_request",
         recordId: state.cr.id,
         old: { status: "draft" },

@@ -43,12 +43,12 @@ export async function closeChange(actor: AuditActor & { id: string }, input: { c
     for (const [partFamilyId, c] of families) {
       const lastQualifiedAt = state.impact === "major" ? at : c.lastQualifiedAt;
       const [row] = await tx.insert(requalificationIntervals).values({ recipeVersionId: state.toVersion.id, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt }).returning();
-      await appendAudit(tx, actor, { action: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { recipeVersion: state.toVersion.version, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt } }, now);
+      await appendAudit(tx, actor, { eventType: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { recipeVersion: state.toVersion.version, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt } }, now);
     }
-    await appendAudit(tx, actor, { action: "recipe_version.superseded", recordType: "recipe_version", recordId: old.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: at, by: state.toVersion.version, changeRequest: state.cr.number } }, now);
-    await appendAudit(tx, actor, { action: "recipe_version.effective", recordType: "recipe_version", recordId: state.toVersion.id, old: { status: "proposed" }, new: { status: "effective", effectiveFrom: at, changeRequest: state.cr.number } }, now);
+    await appendAudit(tx, actor, { eventType: "recipe_version.superseded", recordType: "recipe_version", recordId: old.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: at, by: state.toVersion.version, changeRequest: state.cr.number } }, now);
+    await appendAudit(tx, actor, { eventType: "recipe_version.effective", recordType: "recipe_version", recordId: state.toVersion.id, old: { status: "proposed" }, new: { status: "effective", effectiveFrom: at, changeRequest: state.cr.number } }, now);
     await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "effective", now);
-    await appendAudit(tx, actor, { action: "change.closed", recordType: "change_request", recordId: state.cr.id, old: { status: "verified" }, new: { status: "closed", effectiveVersion: state.toVersion.version } }, now);
+    await appendAudit(tx, actor, { eventType: "change.closed", recordType: "change_request", recordId: state.cr.id, old: { status: "verified" }, new: { status: "closed", effectiveVersion: state.toVersion.version } }, now);
     await notifyNext(tx, { cr: state.cr, status: "closed", actorName: actor.name, nextStep: `${state.recipe.code} version ${state.toVersion.version} is effective; brief the operators on the new settings.`, userIds: [state.cr.createdBy] });
   });
 }

@@ -23,7 +23,7 @@ export async function linkEvidence(actor: AuditActor & { id: string }, input: { 
       if (run.recipeVersionId !== state.cr.toVersionId) throw new UserFacingError(`${run.number} was run on another recipe version, not the proposed version ${state.toVersion.version}.`, { kind: "invalid", field: "testRunId" });
       if (run.testType !== req.testType) throw new UserFacingError(`${run.number} is not a ${TEST_TYPE_LABELS[req.testType].toLowerCase()} test.`, { kind: "invalid", field: "testRunId" });
       await tx.insert(changeRequestEvidence).values({ requirementId: req.id, testRunId: run.id, linkedBy: actor.id, linkedAt: now.toISOString() });
-      await appendAudit(tx, actor, { action: "change.evidence_linked", recordType: "change_request", recordId: state.cr.id, new: { requirement: req.testType, samplesRequired: req.samples, testRun: run.number } }, now);
+      await appendAudit(tx, actor, { eventType: "change.evidence_linked", recordType: "change_request", recordId: state.cr.id, new: { requirement: req.testType, samplesRequired: req.samples, testRun: run.number } }, now);
     });
   } catch (error) {
     if (isUniqueViolation(error)) throw new UserFacingError("That run is already linked to this requirement.", "testRunId");

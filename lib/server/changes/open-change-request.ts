@@ -43,8 +43,8 @@ export async function openChangeRequest(actor: AuditActor & { id: string }, inpu
       .returning();
     await tx.insert(changeRequestAssessments).values({ changeRequestId: cr.id, kind: input.kind, updatedAt: now.toISOString() });
 
-    await appendAudit(tx, actor, { action: "recipe_version.proposed", recordType: "recipe_version", recordId: proposed.id, new: { recipe: recipe.code, version: proposed.version, copiedFrom: effective.version, changeRequest: number } }, now);
-    await appendAudit(tx, actor, { action: "change.opened", recordType: "change_request", recordId: cr.id, new: { number, title: input.title, kind: input.kind, recipe: recipe.code, fromVersion: effective.version, toVersion: proposed.version, narrativeDocument: doc.number } }, now);
+    await appendAudit(tx, actor, { eventType: "recipe_version.proposed", recordType: "recipe_version", recordId: proposed.id, new: { recipe: recipe.code, version: proposed.version, copiedFrom: effective.version, changeRequest: number } }, now);
+    await appendAudit(tx, actor, { eventType: "change.opened", recordType: "change_request", recordId: cr.id, new: { number, title: input.title, kind: input.kind, recipe: recipe.code, fromVersion: effective.version, toVersion: proposed.version, narrativeDocument: doc.number } }, now);
     return cr;
   });
 }

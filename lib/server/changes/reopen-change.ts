@@ -19,6 +19,6 @@ export async function reopenChange(actor: AuditActor, input: { changeRequestId: 
       .set({ revision: state.assessmentRow.revision + 1, contentHash: null, computedImpact: null, matrixId: null, updatedAt: now.toISOString() })
       .where(eq(changeRequestAssessments.changeRequestId, state.cr.id));
     await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "draft", now);
-    await appendAudit(tx, actor, { action: "change.reopened", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status, revision: state.assessmentRow.revision }, new: { status: "draft", revision: state.assessmentRow.revision + 1 }, reason: input.reason }, now);
+    await appendAudit(tx, actor, { eventType: "change.reopened", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status, revision: state.assessmentRow.revision }, new: { status: "draft", revision: state.assessmentRow.revision + 1 }, reason: input.reason }, now);
   });
 }

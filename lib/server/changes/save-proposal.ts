@@ -54,7 +54,7 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
       tx,
       actor,
       {
-        action: "change.proposal_saved",
+        eventType: "change.proposal_saved",
         recordType: "change_request",
         recordId: cr.id,
         old: { title: cr.title, kind: a.kind, raisedTo: a.raisedTo, lockVersion: a.lockVersion },

@@ -18,7 +18,7 @@ export async function sendRequalificationReminders(now = new Date()) {
       const mail = requalificationDueEmail({ recipe: d.recipe.code, version: d.version.version, partFamily: `${d.family.code} ${d.family.name}`, due: d.due, overdue: d.state === "overdue", recipeId: d.recipe.id });
       for (const e of engineers) await enqueueEmail(tx, { to: e.email, ...mail }, now);
       await tx.update(requalificationIntervals).set({ notifiedForDue: d.due }).where(eq(requalificationIntervals.id, d.interval.id));
-      await appendAudit(tx, SYSTEM_ACTOR, { action: "requalification_interval.reminder_sent", recordType: "requalification_interval", recordId: d.interval.id, new: { due: d.due, state: d.state, to: engineers.map((e) => e.email) } }, now);
+      await appendAudit(tx, SYSTEM_ACTOR, { eventType: "requalification_interval.reminder_sent", recordType: "requalification_interval", recordId: d.interval.id, new: { due: d.due, state: d.state, to: engineers.map((e) => e.email) } }, now);
     }
     return due.length;
   });

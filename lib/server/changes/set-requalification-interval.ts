@@ -13,6 +13,6 @@ export async function setRequalificationInterval(actor: AuditActor, input: { int
     if (row.intervalMonths === input.intervalMonths) throw new UserFacingError(`The interval is already ${input.intervalMonths} months.`, "intervalMonths");
     // A new interval means a new due date, so a reminder may be due again.
     await tx.update(requalificationIntervals).set({ intervalMonths: input.intervalMonths, notifiedForDue: null }).where(eq(requalificationIntervals.id, row.id));
-    await appendAudit(tx, actor, { action: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, old: { intervalMonths: row.intervalMonths }, new: { intervalMonths: input.intervalMonths }, reason: input.reason });
+    await appendAudit(tx, actor, { eventType: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, old: { intervalMonths: row.intervalMonths }, new: { intervalMonths: input.intervalMonths }, reason: input.reason });
   });
 }

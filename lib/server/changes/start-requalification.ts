@@ -14,7 +14,7 @@ export async function startRequalification(actor: AuditActor, input: { changeReq
     const state = await loadChangeState(tx, input.changeRequestId);
     assertStep(state, "start_requalification");
     await tx.update(changeRequests).set({ status: "requalification" }).where(eq(changeRequests.id, state.cr.id));
-    await appendAudit(tx, actor, { action: "change.requalification_started", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status }, new: { status: "requalification" } }, now);
+    await appendAudit(tx, actor, { eventType: "change.requalification_started", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status }, new: { status: "requalification" } }, now);
     const list = state.requirements.map((r) => `${TEST_TYPE_LABELS[r.testType]} on ${r.samples} parts`).join("; ");
     await notifyNext(tx, { cr: state.cr, status: "requalification", actorName: actor.name, nextStep: `run the requalification tests on ${state.recipe.code} version ${state.toVersion.version}: ${list}.`, roles: ["technician"] });
   });

@@ -30,7 +30,7 @@ export async function verifyChange(actor: AuditActor & { id: string }, input: { 
     await appendAudit(
       tx,
       actor,
-      { action: "change.verified", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status }, new: { status: "verified", evidence: gate.requirements.map((r) => `${r.requirement.testType}: ${r.satisfiedBy}`) } },
+      { eventType: "change.verified", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status }, new: { status: "verified", evidence: gate.requirements.map((r) => `${r.requirement.testType}: ${r.satisfiedBy}`) } },
       now,
     );
     await notifyNext(tx, { cr: state.cr, status: "verified", actorName: actor.name, nextStep: `close the change to make ${state.recipe.code} version ${state.toVersion.version} effective.`, roles: ["approver"] });

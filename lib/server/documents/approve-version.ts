@@ -37,7 +37,7 @@ export async function approveVersion(actor: DocumentActor, input: { versionId: s
     await appendAudit(
       tx,
       actor,
-      { action: "document.approved", recordType: "document_version", recordId: version.id, old: { status: "in_review" }, new: { status: "approved", contentHash: input.contentHash, effectiveDate: input.effectiveDate } },
+      { eventType: "document.approved", recordType: "document_version", recordId: version.id, old: { status: "in_review" }, new: { status: "approved", contentHash: input.contentHash, effectiveDate: input.effectiveDate } },
       now,
     );
     const effectiveNow = input.effectiveDate <= today;

@@ -60,7 +60,7 @@ export async function createDocument(actor: DocumentActor, input: CreateDocument
       .returning();
     const [version] = await tx.insert(documentVersions).values({ documentId: document.id, version: 1, content, createdBy: actor.id }).returning();
     await appendAudit(tx, actor, {
-      action: "document.created",
+      eventType: "document.created",
       recordType: "document",
       recordId: document.id,
       new: { number, title: input.title, type: input.type, system: system?.code ?? null, partFamily: family?.f.code ?? null, recipeVersion: recipe ? `${recipe.r.code} v${recipe.v.version}` : null, versionId: version.id, sampleSize: ctx.sample.size },

@@ -38,7 +38,7 @@ export async function exportVersionPdf(
       tx,
       actor,
       {
-        action: "document.exported",
+        eventType: "document.exported",
         recordType: "document_version",
         recordId: version.id,
         new: {

@@ -18,7 +18,7 @@ export async function makeEffectiveInTx(tx: Tx, actor: AuditActor, version: Docu
     await appendAudit(
       tx,
       actor,
-      { action: "document.superseded", recordType: "document_version", recordId: old.id, old: { status: "effective", version: old.version }, new: { status: "superseded", byVersion: version.version } },
+      { eventType: "document.superseded", recordType: "document_version", recordId: old.id, old: { status: "effective", version: old.version }, new: { status: "superseded", byVersion: version.version } },
       now,
     );
   }
@@ -26,7 +26,7 @@ export async function makeEffectiveInTx(tx: Tx, actor: AuditActor, version: Docu
   await appendAudit(
     tx,
     actor,
-    { action: "document.effective", recordType: "document_version", recordId: version.id, old: { status: "approved" }, new: { status: "effective", effectiveDate: version.effectiveDate, version: version.version } },
+    { eventType: "document.effective", recordType: "document_version", recordId: version.id, old: { status: "approved" }, new: { status: "effective", effectiveDate: version.effectiveDate, version: version.version } },
     now,
   );
 }

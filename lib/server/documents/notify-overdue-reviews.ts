@@ -36,7 +36,7 @@ export async function notifyOverdueReviews(now = new Date()) {
         { to: email, ...reviewOverdueEmail({ documentId: document.id, number: document.number, title: document.title, version: version.version, role: review.role, due: review.dueAt! }) },
         now,
       );
-      await appendAudit(tx, SYSTEM_ACTOR, { action: "document.review_overdue", recordType: "document_review", recordId: review.id, new: { assignee: review.assigneeId, due: review.dueAt, notifiedAt: now.toISOString() } }, now);
+      await appendAudit(tx, SYSTEM_ACTOR, { eventType: "document.review_overdue", recordType: "document_review", recordId: review.id, new: { assignee: review.assigneeId, due: review.dueAt, notifiedAt: now.toISOString() } }, now);
     });
   }
   return overdue.length;

@@ -19,7 +19,7 @@ export async function retireDocument(actor: DocumentActor, input: { documentId: 
     await appendAudit(
       tx,
       actor,
-      { action: "document.retired", recordType: "document_version", recordId: effective.id, old: { status: "effective" }, new: { status: "retired", version: effective.version }, reason: input.reason },
+      { eventType: "document.retired", recordType: "document_version", recordId: effective.id, old: { status: "effective" }, new: { status: "retired", version: effective.version }, reason: input.reason },
       now,
     );
   });

@@ -41,7 +41,7 @@ export async function returnToAuthor(actor: DocumentActor, input: { versionId: s
       tx,
       actor,
       {
-        action: rejecting ? "document.rejected" : "document.sent_back",
+        eventType: rejecting ? "document.rejected" : "document.sent_back",
         recordType: "document_version",
         recordId: version.id,
         old: { status: "in_review", contentHash: version.contentHash },

@@ -40,7 +40,7 @@ export async function saveDraft(actor: DocumentActor, input: { versionId: string
       tx,
       actor,
       {
-        action: "document.edited",
+        eventType: "document.edited",
         recordType: "document_version",
         recordId: version.id,
         old: { contentHash: hashContent(version.content), lockVersion: version.lockVersion },

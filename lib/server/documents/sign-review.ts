@@ -23,7 +23,7 @@ export async function signReview(actor: DocumentActor, input: { versionId: strin
     await appendAudit(
       tx,
       actor,
-      { action: "document.reviewed", recordType: "document_version", recordId: version.id, new: { step: step.step, round: step.round, contentHash: input.contentHash, nextStep: opened } },
+      { eventType: "document.reviewed", recordType: "document_version", recordId: version.id, new: { step: step.step, round: step.round, contentHash: input.contentHash, nextStep: opened } },
       now,
     );
   });

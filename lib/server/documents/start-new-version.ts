@@ -23,7 +23,7 @@ export async function startNewVersion(actor: DocumentActor, input: { documentId:
     await appendAudit(
       tx,
       actor,
-      { action: "document.version_started", recordType: "document_version", recordId: created.id, new: { version: created.version, from: latest.version, contentHash: hashContent(latest.content) }, reason: input.reason },
+      { eventType: "document.version_started", recordType: "document_version", recordId: created.id, new: { version: created.version, from: latest.version, contentHash: hashContent(latest.content) }, reason: input.reason },
       now,
     );
     return { version: created.version };

@@ -80,7 +80,7 @@ export async function submitForReview(actor: DocumentActor, input: SubmitForRevi
       tx,
       actor,
       {
-        action: "document.submitted",
+        eventType: "document.submitted",
         recordType: "document_version",
         recordId: version.id,
         old: { status: version.status },

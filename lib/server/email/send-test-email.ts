@@ -7,6 +7,6 @@ import { testMessageEmail } from "@/templates/email/test-message";
 export async function sendTestEmail(actor: AuditActor & { id: string }, input: { to: string }) {
   await getDb().transaction(async (tx) => {
     const id = await enqueueEmail(tx, { to: input.to, ...testMessageEmail({ requestedBy: actor.name }) });
-    await appendAudit(tx, actor, { action: "email.test_sent", recordType: "email", recordId: id, new: { to: input.to } });
+    await appendAudit(tx, actor, { eventType: "email.test_sent", recordType: "email", recordId: id, new: { to: input.to } });
   });
 }

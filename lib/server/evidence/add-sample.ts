@@ -27,10 +27,10 @@ export async function addSample(actor: AuditActor, input: { runId: string; sampl
       .returning();
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {
-      action: "test_run.result_added",
+      eventType: "test_run.sample_added",
       recordType: "test_run",
       recordId: run.id,
-      new: { resultId: row.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data, outcome: outcome.outcome },
+      new: { sampleId: row.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data, outcome: outcome.outcome },
     });
     return row;
   });

@@ -43,7 +43,7 @@ export async function createRun(actor: { id: string; name: string } & AuditActor
         createdBy: actor.id,
       })
       .returning();
-    await appendAudit(tx, actor, { action: "test_run.created", recordType: "test_run", recordId: run.id, new: { number, ...input } });
+    await appendAudit(tx, actor, { eventType: "test_run.created", recordType: "test_run", recordId: run.id, new: { number, ...input } });
     return run;
   });
 }

@@ -38,7 +38,7 @@ export async function importCsvRows(
       .returning();
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {
-      action: "test_run.csv_imported",
+      eventType: "test_run.csv_imported",
       recordType: "test_run",
       recordId: run.id,
       new: { fileId: file.id, sha256, name: input.fileName, rows: values.length, samples: labels.slice(0, 50), outcome: outcome.outcome },

@@ -23,7 +23,7 @@ export async function readEvidenceFile(actor: AuditActor, fileId: string): Promi
   if (!bytes || actual !== file.sha256) {
     await db.transaction((tx) =>
       appendAudit(tx, actor, {
-        action: "evidence_file.integrity_failed",
+        eventType: "evidence_file.integrity_failed",
         recordType: "evidence_file",
         recordId: file.id,
         new: { expectedSha256: file.sha256, actualSha256: actual, name: file.originalName },
@@ -38,7 +38,7 @@ export async function readEvidenceFile(actor: AuditActor, fileId: string): Promi
     };
   }
   await db.transaction((tx) =>
-    appendAudit(tx, actor, { action: "evidence_file.downloaded", recordType: "evidence_file", recordId: file.id, new: { sha256: file.sha256, name: file.originalName } }),
+    appendAudit(tx, actor, { eventType: "evidence_file.downloaded", recordType: "evidence_file", recordId: file.id, new: { sha256: file.sha256, name: file.originalName } }),
   );
   return { ok: true, bytes, name: file.originalName, mimeType: file.mimeType };
 }

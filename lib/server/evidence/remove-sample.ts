@@ -16,10 +16,10 @@ export async function removeSample(actor: AuditActor, input: { runId: string; sa
     await tx.delete(testSamples).where(eq(testSamples.id, row.id));
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {
-      action: "test_run.result_removed",
+      eventType: "test_run.sample_removed",
       recordType: "test_run",
       recordId: run.id,
-      old: { resultId: row.id, sampleLabel: row.sampleLabel, data: row.data as Record<string, unknown> },
+      old: { sampleId: row.id, sampleLabel: row.sampleLabel, data: row.data },
       new: { outcome: outcome.outcome },
     });
   });

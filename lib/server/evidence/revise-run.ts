@@ -33,8 +33,8 @@ export async function reviseRun(actor: { id: string; name: string }, input: { ru
     if (links.length) await tx.insert(changeRequestEvidence).values(links.map((l) => ({ requirementId: l.requirementId, testRunId: next.id, linkedBy: actor.id })));
     await tx.update(testRuns).set({ status: "superseded" }).where(eq(testRuns.id, old.id));
     await refreshOutcome(tx, next);
-    await appendAudit(tx, actor as AuditActor, { action: "test_run.superseded", recordType: "test_run", recordId: old.id, old: { status: old.status }, new: { status: "superseded", by: next.id }, reason: input.reason });
-    await appendAudit(tx, actor as AuditActor, { action: "test_run.revised", recordType: "test_run", recordId: next.id, new: { number: next.number, revision: next.revision, supersedes: old.id, evidenceLinks: links.length }, reason: input.reason });
+    await appendAudit(tx, actor as AuditActor, { eventType: "test_run.superseded", recordType: "test_run", recordId: old.id, old: { status: old.status }, new: { status: "superseded", by: next.id }, reason: input.reason });
+    await appendAudit(tx, actor as AuditActor, { eventType: "test_run.revised", recordType: "test_run", recordId: next.id, new: { number: next.number, revision: next.revision, supersedes: old.id, evidenceLinks: links.length }, reason: input.reason });
     return next;
   });
 }

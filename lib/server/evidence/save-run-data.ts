@@ -16,7 +16,7 @@ export async function saveRunData(actor: AuditActor, input: { runId: string; dat
     const [updated] = await tx.update(testRuns).set({ runData: input.data }).where(eq(testRuns.id, run.id)).returning();
     const outcome = await refreshOutcome(tx, updated);
     await appendAudit(tx, actor, {
-      action: "test_run.data_saved",
+      eventType: "test_run.data_saved",
       recordType: "test_run",
       recordId: run.id,
       old: { runData: run.runData ?? null },

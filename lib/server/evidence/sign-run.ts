@@ -2,7 +2,7 @@ import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { getDb, type Tx } from "@/db/client";
 import { auditEvents, testRuns } from "@/db/schema";
-import { appendAudit } from "@/lib/audit";
+import { appendAudit, storedNamesOf } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { dataEntryProblem } from "@/lib/signatures/rules";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
@@ -39,7 +39,7 @@ export async function signRun(input: { userId: string; password: string; runId: 
     await applySignature(tx, { signer, recordType: "test_run", recordId: run.id, meaning: input.meaning, contentHash: hash });
     await tx.update(testRuns).set({ status }).where(eq(testRuns.id, run.id));
     await appendAudit(tx, signer, {
-      action: input.meaning === "performed" ? "test_run.performed" : "test_run.verified",
+      eventType: input.meaning === "performed" ? "test_run.performed" : "test_run.verified",
       recordType: "test_run",
       recordId: run.id,
       old: { status: run.status },
@@ -50,7 +50,7 @@ export async function signRun(input: { userId: string; password: string; runId: 
 }
 
 /** The audited edits of a run's data; opening the run or signing it is not data entry. */
-const DATA_EVENTS = ["test_run.result_added", "test_run.result_removed", "test_run.data_saved", "test_run.csv_imported"];
+const DATA_EVENTS = (["test_run.sample_added", "test_run.sample_removed", "test_run.data_saved", "test_run.csv_imported"] as const).flatMap(storedNamesOf);
 
 async function dataEntrants(tx: Tx, runId: string): Promise<string[]> {
   const rows = await tx

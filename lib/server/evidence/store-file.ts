@@ -60,7 +60,7 @@ export async function storeEvidenceFile(
       .returning();
     await refreshOutcome(tx, open);
     await appendAudit(tx, actor as AuditActor, {
-      action: "evidence_file.uploaded",
+      eventType: "evidence_file.uploaded",
       recordType: "evidence_file",
       recordId: file.id,
       new: { run: `${open.number} rev ${open.revision}`, runId: open.id, sha256, name: checked.name, mimeType: checked.mime, sizeBytes: input.bytes.byteLength, kind: input.kind, storedNew: created },

@@ -3,9 +3,7 @@ import { desc, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { requalificationMatrices, requalificationMatrixRows } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
-import type { MatrixRow } from "@/lib/changes/requalification";
-
-const line = (r: MatrixRow) => `${r.subject} → ${r.testType} @ ${r.confidencePct}/${r.reliabilityPct}`;
+import { matrixRowLine as line, type MatrixRow } from "@/lib/changes/requalification";
 
 /**
  * Saves the matrix as a new version and supersedes the previous one. Change
@@ -27,7 +25,7 @@ export async function versionMatrix(actor: AuditActor & { id: string }, input: {
       tx,
       actor,
       {
-        action: "requalification_matrix.versioned",
+        eventType: "requalification_matrix.versioned",
         recordType: "requalification_matrix",
         recordId: matrix.id,
         old: current ? { version: current.version, removed: [...before].filter((l) => !after.has(l)) } : null,

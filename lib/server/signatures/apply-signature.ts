@@ -47,7 +47,7 @@ export async function applySignature(tx: Tx, input: SignatureInput, now = new Da
     tx,
     input.signer,
     {
-      action: "signature.applied",
+      eventType: "signature.applied",
       recordType: "signature",
       recordId: row.id,
       new: { on: `${input.recordType}:${input.recordId}`, meaning: input.meaning, printedName: input.signer.name, contentHash: input.contentHash, signedAt },

@@ -30,7 +30,7 @@ export async function updateSystem(actor: AuditActor, input: SystemInput) {
     const summary = (stages: { name: string; kind: string; capabilities: string[]; tankVolumeL: number | null }[]) =>
       stages.map((s) => `${s.name} (${s.kind}; ${s.capabilities.join(", ")}${s.tankVolumeL ? `; ${s.tankVolumeL} L` : ""})`);
     await appendAudit(tx, actor, {
-      action: "system.updated",
+      eventType: "cleaning_system.updated",
       recordType: "cleaning_system",
       recordId: system.id,
       old: { name: system.name, description: system.description, stages: summary(before.sort((a, b) => a.position - b.position)) },

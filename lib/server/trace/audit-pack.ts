@@ -2,7 +2,7 @@ import "server-only";
 import { asc, inArray } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { auditEvents } from "@/db/schema";
-import { verifyAuditChain } from "@/lib/audit";
+import { readAuditEvent, verifyAuditChain } from "@/lib/audit";
 import { narrativeText } from "@/lib/changes/content";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadChangeState } from "@/lib/server/changes/state";
@@ -56,7 +56,8 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
       binding: s.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(s.contentHash, state.contentHash),
     })),
     evidence,
-    events,
+    // Each row as stored (the pack lists its hash), named by today's event type.
+    events: events.map((row) => ({ ...row, eventType: readAuditEvent(row).eventType })),
     chain,
   };
 }

@@ -61,7 +61,7 @@ export async function exportAuditPack(actor: Actor, input: { changeRequestId: st
       tx,
       actor,
       {
-        action: "audit_pack.exported",
+        eventType: "audit_pack.exported",
         recordType: "change_request",
         recordId: pack.cr.id,
         new: { number: pack.cr.number, format: input.format, pdfSha256: sha256Hex(pdf), bytes: body.length, files: included.length, ...(problems.length ? { filesRefused: problems.length } : {}) },

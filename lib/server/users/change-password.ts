@@ -32,6 +32,6 @@ export async function changePassword(input: {
       .set({ passwordHash, mustChangePassword: false, passwordChangedAt: new Date().toISOString() })
       .where(eq(users.id, user.id));
     await tx.delete(sessions).where(and(eq(sessions.userId, user.id), ne(sessions.id, input.sessionId)));
-    await appendAudit(tx, { id: user.id, name: user.name }, { action: "auth.password_changed", recordType: "user", recordId: user.id });
+    await appendAudit(tx, { id: user.id, name: user.name }, { eventType: "auth.password_changed", recordType: "user", recordId: user.id });
   });
 }

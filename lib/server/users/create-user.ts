@@ -24,7 +24,7 @@ export async function createUser(actor: AuditActor, input: NewUser) {
         .returning({ id: users.id });
       await tx.insert(userRoles).values(input.roles.map((role) => ({ userId: row.id, role })));
       await appendAudit(tx, actor, {
-        action: "user.created",
+        eventType: "user.created",
         recordType: "user",
         recordId: row.id,
         new: { name: input.name, email: input.email, jobTitle: input.jobTitle, roles: [...input.roles].sort() },

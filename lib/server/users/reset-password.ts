@@ -19,7 +19,7 @@ export async function resetPassword(actor: AuditActor, input: { userId: string }
       .where(eq(users.id, input.userId));
     await tx.delete(sessions).where(eq(sessions.userId, input.userId));
     // The password itself never enters the audit trail.
-    await appendAudit(tx, actor, { action: "user.password_reset", recordType: "user", recordId: input.userId, new: { mustChangePassword: true } });
+    await appendAudit(tx, actor, { eventType: "user.password_reset", recordType: "user", recordId: input.userId, new: { mustChangePassword: true } });
   });
   return { temporaryPassword };
 }

@@ -21,7 +21,7 @@ export async function setUserActive(actor: AuditActor, input: { userId: string; 
     }
     await tx.update(users).set({ active: input.active, failedAttempts: 0, lockedUntil: null }).where(eq(users.id, user.id));
     await appendAudit(tx, actor, {
-      action: input.active ? "user.reactivated" : "user.deactivated",
+      eventType: input.active ? "user.reactivated" : "user.deactivated",
       recordType: "user",
       recordId: user.id,
       old: { active: user.active },

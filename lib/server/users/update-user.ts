@@ -24,13 +24,13 @@ export async function updateUser(actor: AuditActor, input: NewUser & { userId: s
       if (Object.keys(changed).length > 0) {
         await tx.update(users).set(changed).where(eq(users.id, input.userId));
         const oldPart = Object.fromEntries(Object.keys(changed).map((k) => [k, old[k as keyof typeof old]]));
-        await appendAudit(tx, actor, { action: "user.updated", recordType: "user", recordId: input.userId, old: oldPart, new: changed });
+        await appendAudit(tx, actor, { eventType: "user.updated", recordType: "user", recordId: input.userId, old: oldPart, new: changed });
       }
       if (oldRoles.join() !== newRoles.join()) {
         await tx.delete(userRoles).where(eq(userRoles.userId, input.userId));
         await tx.insert(userRoles).values(newRoles.map((role) => ({ userId: input.userId, role })));
         await appendAudit(tx, actor, {
-          action: "user.roles_changed",
+          eventType: "user.roles_changed",
           recordType: "user",
           recordId: input.userId,
           old: { roles: oldRoles },

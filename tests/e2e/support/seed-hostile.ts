@@ -90,7 +90,7 @@ async function ownRecipe() {
     const [recipe] = await tx.insert(recipes).values({ systemId: source.recipe.systemId, code: "R-SC1-HX", name: "Hostile-text fitting", description: "For the hostile-content browser test." }).returning();
     const [version] = await tx.insert(recipeVersions).values({ recipeId: recipe.id, version: 1, status: "effective", detergent: source.version.detergent, notes: source.version.notes, effectiveFrom: new Date().toISOString(), createdBy: admin.id }).returning();
     await writeRecipeContent(tx, version.id, snapshot);
-    await appendAudit(tx, admin, { action: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: recipe.code, name: recipe.name } });
+    await appendAudit(tx, admin, { eventType: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: recipe.code, name: recipe.name } });
     return recipe;
   });
 }

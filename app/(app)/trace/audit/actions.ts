@@ -16,7 +16,7 @@ export const verifyIntegrityAction = defineAction({
     // The check itself is recorded, after it ran, so it does not verify its own event.
     await getDb().transaction((tx) =>
       appendAudit(tx, { id: user.id, name: user.name }, {
-        action: "audit.verified",
+        eventType: "audit.verified",
         recordType: "audit_trail",
         recordId: "chain",
         new: result.ok ? { ok: true, events: result.events } : { ok: false, brokenAt: result.brokenAt, reason: result.reason },

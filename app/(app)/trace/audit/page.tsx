@@ -21,7 +21,7 @@ export default async function AuditTrailPage() {
       />
       <AuditBrowser
         actors={[{ id: "system", name: "system" }, ...users.map((u) => ({ id: u.id, name: u.name }))]}
-        actions={options.actions}
+        eventTypes={options.eventTypes}
         recordTypes={options.recordTypes}
         canExport={can(user.roles, "audit.export")}
       />

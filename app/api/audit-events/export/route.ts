@@ -6,6 +6,7 @@ import { auditQuerySchema } from "@/lib/schemas/audit";
 import { iterateAuditEvents } from "@/lib/server/audit/query-audit-events";
 import { defineRoute } from "@/lib/server/api/handler";
 
+// The stored columns by their own names: a row here is what its hash covers.
 const HEADER = ["seq", "at_utc", "actor", "action", "record_type", "record_id", "old_value", "new_value", "reason", "prev_hash", "hash"];
 
 /** The filtered audit trail as CSV; the export itself is audited. */
@@ -13,6 +14,7 @@ export const GET = defineRoute({ permission: "audit.export" }, async ({ request,
   const parsed = auditQuerySchema.safeParse(searchParamsObject(request.url));
   if (!parsed.success) return jsonError(400, "Some filters are not valid.", zodFieldErrors(parsed.error));
   const { before: _before, limit: _limit, ...filters } = parsed.data;
+  const given = Object.fromEntries(Object.entries(filters).filter((e): e is [string, string] => e[1] !== undefined));
 
   const encoder = new TextEncoder();
   const events = iterateAuditEvents(filters);
@@ -33,7 +35,7 @@ export const GET = defineRoute({ permission: "audit.export" }, async ({ request,
     },
   });
   await getDb().transaction((tx) =>
-    appendAudit(tx, { id: user.id, name: user.name }, { action: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters } }),
+    appendAudit(tx, { id: user.id, name: user.name }, { eventType: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters: given } }),
   );
   const stamp = new Date().toISOString().slice(0, 10);
   return new Response(body, {

@@ -1,0 +1,858 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { auditEvents } from "@/db/schema";
+import { seedDemo } from "@/db/seed";
+import { appendAudit, canonicalJson, verifyAuditChain } from "@/lib/audit";
+import { describeChanges } from "@/lib/audit/describe";
+import {
+  AUDIT_EVENT_TYPES,
+  auditEventSchema,
+  type AuditEventInput,
+  type AuditEventType,
+} from "@/lib/audit/events";
+import { chainHash } from "@/lib/audit/hash";
+import {
+  currentEventType,
+  LEGACY_EVENT_TYPES,
+  readAuditEvent,
+  storedNamesOf,
+} from "@/lib/audit/read";
+import { auditQuerySchema } from "@/lib/schemas/audit";
+import { auditFilterOptions, queryAuditEvents } from "@/lib/server/audit/query-audit-events";
+import { createTestDatabase } from "./support/test-db";
+
+const H = "ab".repeat(32); // a SHA-256 in hex
+const H2 = "cd".repeat(32);
+const AT = "2026-11-20T09:30:00.000Z";
+const UUID = "5b0c1f0e-2d4a-4c8e-9a51-0d3f6b7c8e90";
+
+/**
+ * One payload per event type, shaped as the service that writes it writes it
+ * (the file is named beside each). The `satisfies` makes the compiler check
+ * every sample against its own type, and the tests below check it at run time.
+ */
+const SAMPLES = {
+  // lib/server/auth/sign-in.ts
+  "auth.signed_in": { eventType: "auth.signed_in", recordType: "user", recordId: UUID },
+  // app/(app)/actions.ts
+  "auth.signed_out": { eventType: "auth.signed_out", recordType: "user", recordId: UUID },
+  "auth.sign_in_failed": {
+    eventType: "auth.sign_in_failed",
+    recordType: "user",
+    recordId: UUID,
+    new: { reason: "wrong password", during: "signing" },
+  },
+  "auth.locked_out": {
+    eventType: "auth.locked_out",
+    recordType: "user",
+    recordId: UUID,
+    new: { lockedUntil: AT, attempts: 5 },
+  },
+  // lib/server/users/change-password.ts
+  "auth.password_changed": {
+    eventType: "auth.password_changed",
+    recordType: "user",
+    recordId: UUID,
+  },
+  // lib/server/users/*.ts
+  "user.created": {
+    eventType: "user.created",
+    recordType: "user",
+    recordId: UUID,
+    new: {
+      name: "Ada Brook",
+      email: "ada@example.test",
+      jobTitle: null,
+      roles: ["auditor", "engineer"],
+    },
+  },
+  "user.updated": {
+    eventType: "user.updated",
+    recordType: "user",
+    recordId: UUID,
+    old: { jobTitle: null },
+    new: { jobTitle: "Process engineer" },
+  },
+  "user.roles_changed": {
+    eventType: "user.roles_changed",
+    recordType: "user",
+    recordId: UUID,
+    old: { roles: ["engineer"] },
+    new: { roles: ["auditor", "engineer"] },
+  },
+  "user.deactivated": {
+    eventType: "user.deactivated",
+    recordType: "user",
+    recordId: UUID,
+    old: { active: true },
+    new: { active: false },
+    reason: "Left the company",
+  },
+  "user.reactivated": {
+    eventType: "user.reactivated",
+    recordType: "user",
+    recordId: UUID,
+    old: { active: false },
+    new: { active: true },
+    reason: "Back from leave",
+  },
+  "user.password_reset": {
+    eventType: "user.password_reset",
+    recordType: "user",
+    recordId: UUID,
+    new: { mustChangePassword: true },
+  },
+  // db/seed.ts (sites, specs, part families and recipes are created by the seed only)
+  "site.created": {
+    eventType: "site.created",
+    recordType: "site",
+    recordId: UUID,
+    new: { name: "Plant", location: null },
+  },
+  "cleaning_system.created": {
+    eventType: "cleaning_system.created",
+    recordType: "cleaning_system",
+    recordId: UUID,
+    new: { code: "AW-3", name: "Washer", stages: ["Tank 1", "Dryer"] },
+  },
+  // lib/server/systems/update-system.ts
+  "cleaning_system.updated": {
+    eventType: "cleaning_system.updated",
+    recordType: "cleaning_system",
+    recordId: UUID,
+    old: { name: "Washer", description: null, stages: ["Tank 1 (wash; spray; 900 L)"] },
+    new: {
+      name: "Washer",
+      description: "Three tanks",
+      stages: ["Tank 1 (wash; spray, flood; 900 L)"],
+    },
+  },
+  "cleanliness_spec.created": {
+    eventType: "cleanliness_spec.created",
+    recordType: "cleanliness_spec",
+    recordId: UUID,
+    new: {
+      code: "CS-1",
+      name: "Spec",
+      ccc: "A(B-D18)",
+      gravimetricLimitMg: 2,
+      gravimetricBasis: "per_component",
+    },
+  },
+  "part_family.created": {
+    eventType: "part_family.created",
+    recordType: "part_family",
+    recordId: UUID,
+    new: {
+      code: "PF-1",
+      name: "Valve body",
+      material: "Aluminium",
+      wettedAreaCm2: 420,
+      wettedVolumeCm3: 35,
+      spec: "CS-1",
+    },
+  },
+  "recipe.created": {
+    eventType: "recipe.created",
+    recordType: "recipe",
+    recordId: UUID,
+    new: { code: "R-1", name: "Valve bodies" },
+  },
+  "recipe_version.created": {
+    eventType: "recipe_version.created",
+    recordType: "recipe_version",
+    recordId: UUID,
+    new: { recipe: "R-1", version: 1, notes: "First validated version." },
+  },
+  // lib/server/changes/open-change-request.ts, close-change.ts, end-change.ts
+  "recipe_version.proposed": {
+    eventType: "recipe_version.proposed",
+    recordType: "recipe_version",
+    recordId: UUID,
+    new: { recipe: "R-1", version: 3, copiedFrom: 2, changeRequest: "CR-2026-004" },
+  },
+  "recipe_version.effective": {
+    eventType: "recipe_version.effective",
+    recordType: "recipe_version",
+    recordId: UUID,
+    old: { status: "proposed" },
+    new: { status: "effective", effectiveFrom: AT, changeRequest: "CR-2026-004" },
+  },
+  "recipe_version.superseded": {
+    eventType: "recipe_version.superseded",
+    recordType: "recipe_version",
+    recordId: UUID,
+    old: { status: "effective" },
+    new: { status: "superseded", effectiveTo: AT, by: 3, changeRequest: "CR-2026-004" },
+  },
+  "recipe_version.withdrawn": {
+    eventType: "recipe_version.withdrawn",
+    recordType: "recipe_version",
+    recordId: UUID,
+    old: { status: "proposed" },
+    new: { status: "withdrawn", changeRequest: "CR-2026-004" },
+    reason: "Not needed",
+  },
+  // lib/server/signatures/apply-signature.ts
+  "signature.applied": {
+    eventType: "signature.applied",
+    recordType: "signature",
+    recordId: UUID,
+    new: {
+      on: `test_run:${UUID}`,
+      meaning: "performed",
+      printedName: "Ada Brook",
+      contentHash: H,
+      signedAt: AT,
+    },
+  },
+  // lib/server/email/send-test-email.ts
+  "email.test_sent": {
+    eventType: "email.test_sent",
+    recordType: "email",
+    recordId: UUID,
+    new: { to: "qa@example.test" },
+  },
+  // app/api/audit-events/export/route.ts, app/(app)/trace/audit/actions.ts
+  "audit.exported": {
+    eventType: "audit.exported",
+    recordType: "audit_trail",
+    recordId: "csv",
+    new: { filters: { eventType: "change.closed", from: "2026-01-01" } },
+  },
+  "audit.verified": {
+    eventType: "audit.verified",
+    recordType: "audit_trail",
+    recordId: "chain",
+    new: { ok: false, brokenAt: 12, reason: "event 12 was altered after it was written" },
+  },
+  // lib/server/documents/*.ts
+  "document.created": {
+    eventType: "document.created",
+    recordType: "document",
+    recordId: UUID,
+    new: {
+      number: "OQ-AW3-0002",
+      title: "OQ",
+      type: "oq_protocol",
+      system: "AW-3",
+      partFamily: null,
+      recipeVersion: "R-1 v2",
+      versionId: UUID,
+      sampleSize: 22,
+    },
+  },
+  "document.edited": {
+    eventType: "document.edited",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { contentHash: H, lockVersion: 3 },
+    new: { contentHash: H2, lockVersion: 4, savedOverNewer: true },
+  },
+  "document.submitted": {
+    eventType: "document.submitted",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { status: "draft" },
+    new: {
+      status: "in_review",
+      number: "OQ-AW3-0002",
+      version: 1,
+      contentHash: H,
+      round: 1,
+      routing: "sequence",
+      reviewers: [UUID],
+      approver: UUID,
+      due: AT,
+    },
+  },
+  "document.reviewed": {
+    eventType: "document.reviewed",
+    recordType: "document_version",
+    recordId: UUID,
+    new: { step: 1, round: 1, contentHash: H, nextStep: "approver" },
+  },
+  "document.sent_back": {
+    eventType: "document.sent_back",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { status: "in_review", contentHash: H },
+    new: { status: "draft", round: 1 },
+    reason: "Add the drying time",
+  },
+  "document.rejected": {
+    eventType: "document.rejected",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { status: "in_review", contentHash: null },
+    new: { status: "draft", round: 2 },
+    reason: "Wrong washer",
+  },
+  "document.approved": {
+    eventType: "document.approved",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { status: "in_review" },
+    new: { status: "approved", contentHash: H, effectiveDate: "2026-12-01" },
+  },
+  "document.effective": {
+    eventType: "document.effective",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { status: "approved" },
+    new: { status: "effective", effectiveDate: "2026-12-01", version: 2 },
+  },
+  "document.superseded": {
+    eventType: "document.superseded",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { status: "effective", version: 1 },
+    new: { status: "superseded", byVersion: 2 },
+  },
+  "document.retired": {
+    eventType: "document.retired",
+    recordType: "document_version",
+    recordId: UUID,
+    old: { status: "effective" },
+    new: { status: "retired", version: 2 },
+    reason: "Washer scrapped",
+  },
+  "document.version_started": {
+    eventType: "document.version_started",
+    recordType: "document_version",
+    recordId: UUID,
+    new: { version: 3, from: 2, contentHash: H },
+    reason: "New rinse stage",
+  },
+  "document.review_overdue": {
+    eventType: "document.review_overdue",
+    recordType: "document_review",
+    recordId: UUID,
+    new: { assignee: UUID, due: AT, notifiedAt: AT },
+  },
+  "document.exported": {
+    eventType: "document.exported",
+    recordType: "document_version",
+    recordId: UUID,
+    new: {
+      format: "pdf",
+      number: "OQ-AW3-0002",
+      version: 2,
+      status: "effective",
+      contentHash: H,
+      bytes: 48213,
+    },
+  },
+  // lib/server/evidence/*.ts
+  "test_run.created": {
+    eventType: "test_run.created",
+    recordType: "test_run",
+    recordId: UUID,
+    new: {
+      number: "TR-0042",
+      partFamilyId: UUID,
+      recipeVersionId: UUID,
+      testType: "particle_cleanliness",
+      technicianId: UUID,
+      lab: "Larchfield lab",
+      performedOn: "2026-11-20",
+      changeRequestId: UUID,
+    },
+  },
+  "test_run.sample_added": {
+    eventType: "test_run.sample_added",
+    recordType: "test_run",
+    recordId: UUID,
+    new: {
+      sampleId: UUID,
+      sampleLabel: "VB-26-001",
+      basketPosition: null,
+      worstCase: true,
+      data: { counts: { B: 1200 } },
+      outcome: "incomplete",
+    },
+  },
+  "test_run.sample_removed": {
+    eventType: "test_run.sample_removed",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { sampleId: UUID, sampleLabel: "VB-26-001", data: { counts: { B: 1200 } } },
+    new: { outcome: "incomplete" },
+  },
+  "test_run.data_saved": {
+    eventType: "test_run.data_saved",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { runData: null },
+    new: { runData: { blankCounts: { B: 10 } }, outcome: "pass" },
+  },
+  "test_run.csv_imported": {
+    eventType: "test_run.csv_imported",
+    recordType: "test_run",
+    recordId: UUID,
+    new: {
+      fileId: UUID,
+      sha256: H,
+      name: "lab.csv",
+      rows: 10,
+      samples: ["VB-1", "VB-2"],
+      outcome: "pass",
+    },
+  },
+  "test_run.performed": {
+    eventType: "test_run.performed",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { status: "open" },
+    new: { status: "performed", contentHash: H, outcome: "pass", code: "CCC = N(B14/C12)" },
+  },
+  "test_run.verified": {
+    eventType: "test_run.verified",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { status: "performed" },
+    new: { status: "verified", contentHash: H, outcome: "fail", code: null },
+  },
+  "test_run.revised": {
+    eventType: "test_run.revised",
+    recordType: "test_run",
+    recordId: UUID,
+    new: { number: "TR-0042", revision: 2, supersedes: UUID, evidenceLinks: 1 },
+    reason: "Wrong membrane",
+  },
+  "test_run.superseded": {
+    eventType: "test_run.superseded",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { status: "verified" },
+    new: { status: "superseded", by: UUID },
+    reason: "Wrong membrane",
+  },
+  "evidence_file.uploaded": {
+    eventType: "evidence_file.uploaded",
+    recordType: "evidence_file",
+    recordId: UUID,
+    new: {
+      run: "TR-0042 rev 1",
+      runId: UUID,
+      sha256: H,
+      name: "report.pdf",
+      mimeType: "application/pdf",
+      sizeBytes: 20411,
+      kind: "lab_report",
+      storedNew: true,
+    },
+  },
+  "evidence_file.downloaded": {
+    eventType: "evidence_file.downloaded",
+    recordType: "evidence_file",
+    recordId: UUID,
+    new: { sha256: H, name: "report.pdf" },
+  },
+  "evidence_file.integrity_failed": {
+    eventType: "evidence_file.integrity_failed",
+    recordType: "evidence_file",
+    recordId: UUID,
+    new: { expectedSha256: H, actualSha256: null, name: "report.pdf" },
+  },
+  // lib/server/bath/*.ts
+  "bath_record.created": {
+    eventType: "bath_record.created",
+    recordType: "bath_record",
+    recordId: UUID,
+    new: {
+      tank: "Tank 1",
+      kind: "reading",
+      concentrationPct: 2.5,
+      temperatureC: 58,
+      performedAt: AT,
+    },
+  },
+  "maintenance_interval.set": {
+    eventType: "maintenance_interval.set",
+    recordType: "maintenance_interval",
+    recordId: UUID,
+    old: null,
+    new: { tank: "Tank 1", kind: "filter_change", intervalDays: 28, warnDays: 2 },
+  },
+  "maintenance_interval.reminder_queued": {
+    eventType: "maintenance_interval.reminder_queued",
+    recordType: "maintenance_interval",
+    recordId: UUID,
+    new: { level: "overdue", dueAt: AT, recipients: 2 },
+  },
+  // lib/server/changes/*.ts
+  "change.opened": {
+    eventType: "change.opened",
+    recordType: "change_request",
+    recordId: UUID,
+    new: {
+      number: "CR-2026-004",
+      title: "Hotter wash",
+      kind: "parameter_change",
+      recipe: "R-1",
+      fromVersion: 2,
+      toVersion: 3,
+      narrativeDocument: "CN-2026-004",
+    },
+  },
+  "change.proposal_saved": {
+    eventType: "change.proposal_saved",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { title: "Hotter wash", kind: "parameter_change", raisedTo: null, lockVersion: 1 },
+    new: {
+      lockVersion: 2,
+      title: "Hotter wash",
+      kind: "parameter_change",
+      raisedTo: "major",
+      computedImpact: "minor",
+      parameters: [
+        {
+          key: "wash.temperature",
+          old: { setpoint: 55, unit: "°C", low: 50, high: 65 },
+          new: { setpoint: 60, unit: "°C", low: 50, high: 65 },
+        },
+      ],
+    },
+    reason: "Customer asked for full requalification",
+  },
+  "change.impact_assessed": {
+    eventType: "change.impact_assessed",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "draft" },
+    new: {
+      status: "impact_assessed",
+      impact: "major",
+      computed: "minor",
+      matrixVersion: 1,
+      tests: ["particle_cleanliness × 22"],
+      contentHash: H,
+    },
+    reason: "Customer asked for full requalification",
+  },
+  "change.reopened": {
+    eventType: "change.reopened",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "impact_assessed", revision: 1 },
+    new: { status: "draft", revision: 2 },
+    reason: "Wrong range",
+  },
+  "change.approved": {
+    eventType: "change.approved",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "impact_assessed" },
+    new: { status: "approved_for_implementation", impact: "major" },
+  },
+  "change.requalification_started": {
+    eventType: "change.requalification_started",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "approved_for_implementation" },
+    new: { status: "requalification" },
+  },
+  "change.evidence_linked": {
+    eventType: "change.evidence_linked",
+    recordType: "change_request",
+    recordId: UUID,
+    new: { requirement: "particle_cleanliness", samplesRequired: 22, testRun: "TR-0042" },
+  },
+  "change.verified": {
+    eventType: "change.verified",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "requalification" },
+    new: { status: "verified", evidence: ["particle_cleanliness: TR-0042"] },
+  },
+  "change.closed": {
+    eventType: "change.closed",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "verified" },
+    new: { status: "closed", effectiveVersion: 3 },
+  },
+  "change.rejected": {
+    eventType: "change.rejected",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "impact_assessed" },
+    new: { status: "rejected" },
+    reason: "Out of range",
+  },
+  "change.withdrawn": {
+    eventType: "change.withdrawn",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { status: "draft" },
+    new: { status: "withdrawn" },
+    reason: "Duplicate",
+  },
+  // lib/server/matrix/version-matrix.ts
+  "requalification_matrix.versioned": {
+    eventType: "requalification_matrix.versioned",
+    recordType: "requalification_matrix",
+    recordId: UUID,
+    old: { version: 1, removed: [] },
+    new: { version: 2, added: ["wash.temperature → particle_cleanliness @ 95/90"], rows: 12 },
+    reason: "Added the wash temperature",
+  },
+  // lib/server/changes/set-requalification-interval.ts (close-change.ts writes the first one)
+  "requalification_interval.set": {
+    eventType: "requalification_interval.set",
+    recordType: "requalification_interval",
+    recordId: UUID,
+    old: { intervalMonths: 12 },
+    new: { intervalMonths: 6 },
+    reason: "Two failures last year",
+  },
+  "requalification_interval.reminder_sent": {
+    eventType: "requalification_interval.reminder_sent",
+    recordType: "requalification_interval",
+    recordId: UUID,
+    new: { due: AT, state: "due_soon", to: ["eng@example.test"] },
+  },
+  // lib/server/trace/export-audit-pack.ts
+  "audit_pack.exported": {
+    eventType: "audit_pack.exported",
+    recordType: "change_request",
+    recordId: UUID,
+    new: {
+      number: "CR-2026-004",
+      format: "zip",
+      pdfSha256: H,
+      bytes: 90210,
+      files: 3,
+      filesRefused: 1,
+    },
+  },
+  // lib/server/api-tokens/*.ts
+  "api_token.created": {
+    eventType: "api_token.created",
+    recordType: "api_token",
+    recordId: UUID,
+    new: { name: "LIMS", scope: "read_write", prefix: "wp_ab12" },
+  },
+  "api_token.revoked": {
+    eventType: "api_token.revoked",
+    recordType: "api_token",
+    recordId: UUID,
+    old: { revokedAt: null },
+    new: { name: "LIMS", prefix: "wp_ab12", revokedAt: AT },
+  },
+} satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
+
+const samples = Object.values(SAMPLES) as AuditEventInput[];
+
+describe("the audit event schemas", () => {
+  it("have a sample for every event type, and every type is named <record or feature>.<what happened>", () => {
+    expect(Object.keys(SAMPLES).sort()).toEqual([...AUDIT_EVENT_TYPES].sort());
+    for (const type of AUDIT_EVENT_TYPES) expect(type).toMatch(/^[a-z_]+\.[a-z_]+$/);
+  });
+
+  it.each(samples.map((s) => [s.eventType, s] as const))(
+    "%s accepts its service's payload and keeps every value",
+    (_, sample) => {
+      const parsed = auditEventSchema.parse(sample);
+      expect(parsed.old ?? null).toEqual(sample.old ?? null);
+      expect(parsed.new ?? null).toEqual(sample.new ?? null);
+    },
+  );
+
+  it.each(samples.map((s) => [s.eventType, s] as const))(
+    "%s refuses a key it does not name, and another record type",
+    (_, sample) => {
+      const side = sample.new ? "new" : "old";
+      const values = (sample[side] as object | null | undefined) ?? {};
+      expect(
+        auditEventSchema.safeParse({ ...sample, [side]: { ...values, unexpected: 1 } }).success,
+      ).toBe(false);
+      expect(
+        auditEventSchema.safeParse({
+          ...sample,
+          recordType: sample.recordType === "user" ? "document" : "user",
+        }).success,
+      ).toBe(false);
+    },
+  );
+
+  it("refuses wrong values, not only wrong keys", () => {
+    const wrong = [
+      // the old name of a key: a sample is a sample
+      {
+        ...SAMPLES["test_run.sample_added"],
+        new: { ...SAMPLES["test_run.sample_added"].new, sampleId: undefined, resultId: UUID },
+      },
+      {
+        ...SAMPLES["test_run.performed"],
+        new: { ...SAMPLES["test_run.performed"].new, outcome: "passed" },
+      },
+      {
+        ...SAMPLES["signature.applied"],
+        new: { ...SAMPLES["signature.applied"].new, contentHash: "abc" },
+      },
+      { ...SAMPLES["change.closed"], old: null },
+      { ...SAMPLES["user.roles_changed"], new: { roles: ["owner"] } },
+      { ...SAMPLES["auth.signed_in"], eventType: "auth.signed_on" },
+    ];
+    for (const event of wrong)
+      expect(auditEventSchema.safeParse(event).success, JSON.stringify(event)).toBe(false);
+  });
+});
+
+describe("events stored under an earlier name", () => {
+  it("map to a current event type, and no current type is also a legacy name", () => {
+    for (const [old, legacy] of Object.entries(LEGACY_EVENT_TYPES)) {
+      expect(AUDIT_EVENT_TYPES).toContain(legacy.now);
+      expect(AUDIT_EVENT_TYPES).not.toContain(old);
+    }
+    expect(currentEventType("test_run.result_added")).toBe("test_run.sample_added");
+    expect(currentEventType("system.updated")).toBe("cleaning_system.updated");
+    expect(currentEventType("change.closed")).toBe("change.closed");
+    expect(storedNamesOf("test_run.sample_removed")).toEqual([
+      "test_run.sample_removed",
+      "test_run.result_removed",
+    ]);
+    expect(storedNamesOf("test_run.result_removed")).toEqual([
+      "test_run.sample_removed",
+      "test_run.result_removed",
+    ]);
+  });
+
+  it("read back typed, with the renamed payload key, and say what they were stored as", () => {
+    const read = readAuditEvent({
+      action: "test_run.result_added",
+      recordType: "test_run",
+      recordId: UUID,
+      oldValue: null,
+      newValue: canonicalJson({
+        resultId: UUID,
+        sampleLabel: "VB-1",
+        basketPosition: "corner",
+        worstCase: false,
+        data: { counts: { B: 3 } },
+        outcome: "pass",
+      }),
+      reason: null,
+    });
+    expect(read.eventType).toBe("test_run.sample_added");
+    expect(read.storedAs).toBe("test_run.result_added");
+    expect(read.event?.eventType).toBe("test_run.sample_added");
+    if (read.event?.eventType !== "test_run.sample_added") throw new Error("not typed");
+    expect(read.event.new.sampleId).toBe(UUID);
+    expect(describeChanges(read).map((c) => c.field)).toEqual([
+      "basketPosition",
+      "data",
+      "outcome",
+      "sampleId",
+      "sampleLabel",
+      "worstCase",
+    ]);
+  });
+
+  it("still read when the stored values predate today's schema, as plain values", () => {
+    const read = readAuditEvent({
+      action: "document.effective",
+      recordType: "document_version",
+      recordId: UUID,
+      oldValue: null,
+      newValue: '{"effectiveDate":"2026-01-02","seeded":true,"status":"effective"}',
+      reason: null,
+    });
+    expect(read.event).toBeNull();
+    expect(read.eventType).toBe("document.effective");
+    expect(describeChanges(read)).toEqual([
+      { field: "effectiveDate", old: null, new: "2026-01-02" },
+      { field: "seeded", old: null, new: "true" },
+      { field: "status", old: null, new: "effective" },
+    ]);
+    const unknown = readAuditEvent({
+      action: "thing.happened",
+      recordType: "thing",
+      recordId: "1",
+      oldValue: "not json",
+      newValue: "[1,2]",
+      reason: null,
+    });
+    expect(unknown).toMatchObject({
+      eventType: "thing.happened",
+      event: null,
+      old: { value: "not json" },
+      new: { value: [1, 2] },
+    });
+  });
+});
+
+describe("a trail holding old and new names", () => {
+  let t: Awaited<ReturnType<typeof createTestDatabase>>;
+  beforeAll(async () => {
+    t = await createTestDatabase();
+    const actor = { id: "u-1", name: "Ada Brook" };
+    await t.db.transaction((tx) =>
+      appendAudit(tx, actor, SAMPLES["test_run.created"], new Date("2026-11-20T09:00:00Z")),
+    );
+    // Written the way the earlier version wrote it: the old name and key, chained like any row.
+    const [last] = await t.db.select().from(auditEvents);
+    const fields = {
+      seq: 2,
+      at: "2026-11-20T09:05:00.000Z",
+      actorId: actor.id,
+      actorName: actor.name,
+      action: "test_run.result_added",
+      recordType: "test_run",
+      recordId: UUID,
+      oldValue: null,
+      newValue: canonicalJson({
+        resultId: "r-old",
+        sampleLabel: "VB-1",
+        basketPosition: null,
+        worstCase: false,
+        data: {},
+        outcome: "incomplete",
+      }),
+      reason: null,
+      prevHash: last.hash,
+    };
+    await t.db.insert(auditEvents).values({ ...fields, hash: chainHash(fields) });
+    await t.db.transaction((tx) =>
+      appendAudit(tx, actor, SAMPLES["test_run.sample_added"], new Date("2026-11-20T09:10:00Z")),
+    );
+  });
+  afterAll(() => t.cleanup());
+
+  it("verifies as one chain", async () => {
+    expect(await verifyAuditChain(t.db)).toMatchObject({ ok: true, events: 3 });
+  });
+
+  it("finds both names by today's name, shows them by it, and offers it once as a filter", async () => {
+    const page = await queryAuditEvents(
+      auditQuerySchema.parse({ eventType: "test_run.sample_added" }),
+    );
+    expect(page.items.map((e) => [e.seq, e.eventType, e.storedAs])).toEqual([
+      [3, "test_run.sample_added", "test_run.sample_added"],
+      [2, "test_run.sample_added", "test_run.result_added"],
+    ]);
+    expect(page.items[1].changes.find((c) => c.field === "sampleId")?.new).toBe("r-old");
+    expect((await auditFilterOptions()).eventTypes).toEqual([
+      "test_run.created",
+      "test_run.sample_added",
+    ]);
+  });
+});
+
+describe("the seeded demo", () => {
+  let t: Awaited<ReturnType<typeof createTestDatabase>>;
+  beforeAll(async () => {
+    t = await createTestDatabase();
+    await seedDemo(t.db);
+  }, 120_000);
+  afterAll(() => t.cleanup());
+
+  it("writes every event in the shape its service writes", async () => {
+    const rows = await t.db.select().from(auditEvents);
+    expect(rows.length).toBeGreaterThan(50);
+    const misfits = rows.filter((r) => readAuditEvent(r).event === null).map((r) => r.action);
+    expect(misfits).toEqual([]);
+  });
+});
