@@ -6,6 +6,7 @@ import { Download } from "lucide-react";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import type { AuditPage } from "@/lib/server/audit/query-audit-events";
+import { formatDateTime } from "@/lib/format/date";
 
 type Row = AuditPage["items"][number];
 type Filters = Record<"actor" | "recordType" | "recordId" | "action" | "from" | "to", string>;
@@ -30,7 +31,7 @@ async function fetchPage(qs: string): Promise<AuditPage> {
 const column = createColumnHelper<Row>();
 const columns = [
   column.accessor("seq", { header: "#", cell: (c) => <span className="tabular-nums">{c.getValue()}</span> }),
-  column.accessor("at", { header: "When (UTC)", cell: (c) => <span className="whitespace-nowrap tabular-nums">{c.getValue().replace("T", " ").slice(0, 19)}</span> }),
+  column.accessor("at", { header: "When (UTC)", cell: (c) => <span className="whitespace-nowrap tabular-nums">{formatDateTime(c.getValue(), { seconds: true, zone: false })}</span> }),
   column.accessor("actorName", { header: "Who" }),
   column.accessor("action", { header: "Action", cell: (c) => <code className="text-xs">{c.getValue()}</code> }),
   column.display({

@@ -1,5 +1,6 @@
 import { ArrowRight } from "lucide-react";
-import { rangeWithUnit, STAGE_MODE_LABELS, withUnit } from "@/lib/format/labels";
+import { STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { rangeWithUnit, withUnit } from "@/lib/format/number";
 import type { Assessment } from "@/lib/recipes/assess";
 import type { RecipeDiff } from "@/lib/recipes/diff";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";

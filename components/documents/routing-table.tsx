@@ -1,5 +1,6 @@
 import { AlarmClock } from "lucide-react";
 import type { DocumentReview } from "@/db/schema";
+import { formatDate } from "@/lib/format/date";
 
 const DECISION_WORDS = { reviewed: "Reviewed", sent_back: "Sent back", approved: "Approved", rejected: "Rejected", withdrawn: "Withdrawn (round closed)" } as const;
 
@@ -31,7 +32,7 @@ export function RoutingTable({ reviews, now }: { reviews: (DocumentReview & { na
                 <span className="block text-xs text-stone-500">{r.role === "approver" ? "Approver" : "Reviewer"}</span>
               </td>
               <td className="py-1.5 pr-2 whitespace-nowrap">
-                {r.dueAt ? r.dueAt.slice(0, 10) : "when its turn comes"}
+                {formatDate(r.dueAt, "when its turn comes")}
                 {overdue && (
                   <span className="flex items-center gap-1 font-medium text-red-800">
                     <AlarmClock className="h-3.5 w-3.5" aria-hidden="true" /> Overdue

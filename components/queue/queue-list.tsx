@@ -5,6 +5,7 @@ import { AlarmClock, CalendarClock } from "lucide-react";
 import Link from "next/link";
 import type { QueueEntry } from "@/lib/server/queue/get-queue";
 import { EmptyState } from "@/components/ui/empty-state";
+import { formatDate } from "@/lib/format/date";
 
 async function fetchQueue(): Promise<QueueEntry[]> {
   const response = await fetch("/api/queue", { cache: "no-store" });
@@ -56,11 +57,11 @@ export function QueueList({ initial }: { initial: QueueEntry[] }) {
                   "—"
                 ) : item.overdue ? (
                   <span className="inline-flex items-center gap-1 font-medium text-red-800">
-                    <AlarmClock className="h-4 w-4" aria-hidden="true" /> Overdue since {item.due.slice(0, 10)}
+                    <AlarmClock className="h-4 w-4" aria-hidden="true" /> Overdue since {formatDate(item.due)}
                   </span>
                 ) : (
                   <span className="inline-flex items-center gap-1">
-                    <CalendarClock className="h-4 w-4" aria-hidden="true" /> {item.due.slice(0, 10)}
+                    <CalendarClock className="h-4 w-4" aria-hidden="true" /> {formatDate(item.due)}
                   </span>
                 )}
               </td>

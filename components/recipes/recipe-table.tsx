@@ -1,5 +1,6 @@
 import { Caution } from "@/components/ui/caution";
-import { rangeWithUnit, STAGE_MODE_LABELS, withUnit } from "@/lib/format/labels";
+import { STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { rangeWithUnit, withUnit } from "@/lib/format/number";
 import type { RecipeSnapshot } from "@/lib/recipes/diff";
 import { hazardsOfStages } from "@/lib/recipes/hazards";
 

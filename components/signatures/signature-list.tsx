@@ -1,6 +1,7 @@
 import { ShieldAlert, ShieldCheck } from "lucide-react";
 import type { Signature } from "@/db/schema";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
+import { formatDateTime } from "@/lib/format/date";
 
 /** Signature manifestations (21 CFR 11.50): printed name, meaning, UTC date and time, bound hash. */
 export function SignatureList({ signatures }: { signatures: (Signature & { validity: "valid" | "invalid" })[] }) {
@@ -21,7 +22,7 @@ export function SignatureList({ signatures }: { signatures: (Signature & { valid
           <tr key={s.id}>
             <td className="py-1.5 pr-3 font-medium">{MEANING_LABELS[s.meaning]}</td>
             <td className="py-1.5 pr-3">{s.printedName}</td>
-            <td className="py-1.5 pr-3 tabular-nums">{s.signedAt.replace("T", " ").slice(0, 19)}</td>
+            <td className="py-1.5 pr-3 tabular-nums">{formatDateTime(s.signedAt, { seconds: true, zone: false })}</td>
             <td className="py-1.5" title={`Signed hash ${s.contentHash}`}>
               {s.validity === "valid" ? (
                 <span className="inline-flex items-center gap-1 text-brand-700">

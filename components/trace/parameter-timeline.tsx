@@ -1,10 +1,12 @@
 import Link from "next/link";
-import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
+import { humanize } from "@/lib/format/labels";
+import { formatBytes, rangeWithUnit, withUnit } from "@/lib/format/number";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { STATUS_LABELS } from "@/lib/recipes/change-workflow";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
 import type { ParameterHistory } from "@/lib/server/trace/parameter-history";
-import { BINDING_LABELS, CHANGE_LABELS, formatBytes, formatUtc, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";
+import { BINDING_LABELS, CHANGE_LABELS, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 import type { ParameterValue } from "@/lib/trace/timeline";
 
 type Entry = ParameterHistory["entries"][number];
@@ -68,7 +70,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
             <>
               <dt className="text-stone-600">In force</dt>
               <dd>
-                from {formatUtc(period.effectiveFrom)} {period.effectiveTo ? `to ${formatUtc(period.effectiveTo)}` : "until now"}
+                from {formatDateTime(period.effectiveFrom)} {period.effectiveTo ? `to ${formatDateTime(period.effectiveTo)}` : "until now"}
               </dd>
             </>
           )}
@@ -80,8 +82,8 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
               <Link href={`/changes/${change.id}`} className="font-semibold text-brand-800 hover:underline">
                 {change.number}
               </Link>{" "}
-              · {change.title} · {STATUS_LABELS[change.status]} · impact <span className="font-semibold">{humanize(change.impact)}</span> · opened by {change.author ?? "—"} on {change.openedAt.slice(0, 10)}
-              {change.closedAt ? `, closed ${change.closedAt.slice(0, 10)}` : ""}
+              · {change.title} · {STATUS_LABELS[change.status]} · impact <span className="font-semibold">{humanize(change.impact)}</span> · opened by {change.author ?? "—"} on {formatDate(change.openedAt)}
+              {change.closedAt ? `, closed ${formatDate(change.closedAt)}` : ""}
             </p>
             {change.parameterImpact && (
               <p className="mt-1">
@@ -133,7 +135,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
                     <tr key={s.id}>
                       <td className="py-1 pr-3 font-medium">{MEANING_LABELS[s.meaning]}</td>
                       <td className="py-1 pr-3">{s.printedName}</td>
-                      <td className="py-1 pr-3 tabular-nums">{formatUtc(s.signedAt)}</td>
+                      <td className="py-1 pr-3 tabular-nums">{formatDateTime(s.signedAt)}</td>
                       <td className="py-1 pr-3">{s.revision}</td>
                       <td className="py-1" title={`Signed hash ${s.contentHash}`}>
                         {BINDING_LABELS[s.binding]}
@@ -168,7 +170,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
                           {run.lab ? ` at ${run.lab}` : ""}
                         </p>
                         {run.signatures.length > 0 && (
-                          <p className="text-stone-700">{run.signatures.map((s) => `${MEANING_LABELS[s.meaning]} by ${s.printedName}, ${formatUtc(s.signedAt)}`).join(" · ")}</p>
+                          <p className="text-stone-700">{run.signatures.map((s) => `${MEANING_LABELS[s.meaning]} by ${s.printedName}, ${formatDateTime(s.signedAt)}`).join(" · ")}</p>
                         )}
                         {run.files.length === 0 ? (
                           <p className="text-stone-600">No files attached.</p>
@@ -192,7 +194,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
         ) : (
           <p className="mt-4 border-t border-stone-100 pt-3 text-sm text-stone-700">
             No change request: {versions[0] === 1 ? "the recipe's first validated version" : "a version recorded without change control"}
-            {entry.versionAuthor ? `, recorded by ${entry.versionAuthor}` : ""} on {entry.versionCreatedAt.slice(0, 10)}. {entry.versionNote ?? ""}
+            {entry.versionAuthor ? `, recorded by ${entry.versionAuthor}` : ""} on {formatDate(entry.versionCreatedAt)}. {entry.versionNote ?? ""}
           </p>
         )}
       </article>

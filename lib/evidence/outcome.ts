@@ -22,6 +22,7 @@ import {
   type ParticleSample,
   type WettingSample,
 } from "@/lib/schemas/evidence";
+import { formatNumber } from "@/lib/format/number";
 
 /**
  * The outcome of a test run, computed from its stored raw data with the pure
@@ -78,7 +79,7 @@ export interface RunOutcome {
   missing: string[];
 }
 
-const fmt = (n: number, digits = 1) => new Intl.NumberFormat("en-GB", { maximumFractionDigits: digits }).format(n);
+const fmt = (n: number, digits = 1) => formatNumber(n, digits);
 const word = (pass: boolean) => (pass ? "pass" : "fail");
 
 function combine(samples: SampleOutcome[], checks: Check[], missing: string[]): Outcome {

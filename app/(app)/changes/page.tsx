@@ -6,6 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { CHANGE_KIND_LABELS, STATUS_LABELS } from "@/lib/recipes/change-workflow";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listChangeRequests } from "@/lib/server/changes/queries";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Changes" };
 
@@ -50,7 +51,7 @@ export default async function ChangesPage() {
                   </td>
                   <td className="px-3 py-2">{STATUS_LABELS[r.status]}</td>
                   <td className="px-3 py-2 whitespace-nowrap tabular-nums">
-                    {r.createdAt.slice(0, 10)} · {r.author}
+                    {formatDate(r.createdAt)} · {r.author}
                   </td>
                 </tr>
               ))}

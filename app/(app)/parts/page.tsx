@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
-import { formatNumber, withUnit } from "@/lib/format/labels";
+import { formatNumber, withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listPartFamilies, listSpecs } from "@/lib/server/plant/queries";
 

@@ -6,7 +6,7 @@ import { can } from "@/lib/auth/permissions";
 import { SCOPE_LABELS } from "@/lib/schemas/api-token";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listApiTokens } from "@/lib/server/api-tokens/queries";
-import { formatUtc } from "@/lib/trace/labels";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "API tokens" };
 
@@ -61,9 +61,9 @@ export default async function ApiTokensPage() {
                   <td className="py-1.5 pr-3 font-medium">{t.name}</td>
                   <td className="py-1.5 pr-3 font-mono text-xs">{t.prefix}…</td>
                   <td className="py-1.5 pr-3">{SCOPE_LABELS[t.scope]}</td>
-                  <td className="py-1.5 pr-3">{formatUtc(t.createdAt)}</td>
-                  <td className="py-1.5 pr-3">{t.lastUsedAt ? formatUtc(t.lastUsedAt) : "Never"}</td>
-                  <td className="py-1.5 pr-3">{t.revokedAt ? `Revoked ${t.revokedAt.slice(0, 10)}` : "Active"}</td>
+                  <td className="py-1.5 pr-3">{formatDateTime(t.createdAt)}</td>
+                  <td className="py-1.5 pr-3">{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : "Never"}</td>
+                  <td className="py-1.5 pr-3">{t.revokedAt ? `Revoked ${formatDate(t.revokedAt)}` : "Active"}</td>
                   <td className="py-1.5">{!t.revokedAt && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</td>
                 </tr>
               ))}

@@ -8,6 +8,7 @@ import { env } from "@/lib/env";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listOutbox } from "@/lib/server/email/queries";
 import { sendTestEmailAction } from "../actions";
+import { formatDateTime } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Admin · E-mail" };
 
@@ -56,7 +57,7 @@ export default async function EmailAdminPage() {
               )}
               {outbox.map((m) => (
                 <tr key={m.id}>
-                  <td className="px-3 py-2 tabular-nums">{m.createdAt.replace("T", " ").slice(0, 19)}</td>
+                  <td className="px-3 py-2 tabular-nums">{formatDateTime(m.createdAt, { seconds: true, zone: false })}</td>
                   <td className="px-3 py-2">{m.to}</td>
                   <td className="px-3 py-2">{m.subject}</td>
                   <td className={`px-3 py-2 ${m.status === "failed" ? "font-medium text-red-800" : ""}`}>{STATUS_WORDS[m.status]}</td>
@@ -83,7 +84,7 @@ export default async function EmailAdminPage() {
                 <li key={m.id}>
                   <details className="rounded-lg border border-stone-200 bg-white p-3">
                     <summary className="cursor-pointer text-sm">
-                      <span className="font-medium">{m.subject}</span> <span className="text-stone-600">to {m.to.join(", ")} · {m.receivedAt.replace("T", " ").slice(0, 19)} UTC</span>
+                      <span className="font-medium">{m.subject}</span> <span className="text-stone-600">to {m.to.join(", ")} · {formatDateTime(m.receivedAt, { seconds: true })}</span>
                     </summary>
                     <pre className="mt-2 font-sans text-sm whitespace-pre-wrap text-stone-800">{m.text}</pre>
                   </details>

@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { MAINTENANCE_LABELS, STATE_LABELS } from "@/lib/evidence/maintenance";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listMaintenance, listTanks } from "@/lib/server/bath/queries";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Bath and filter log" };
 
@@ -44,7 +45,7 @@ export default async function BathIndexPage() {
                       ? "No interval set"
                       : items.map((m) => (
                           <span key={m.intervalId} className="block">
-                            {MAINTENANCE_LABELS[m.kind]}: <strong>{STATE_LABELS[m.status.state]}</strong> — due {m.status.dueAt.slice(0, 10)}
+                            {MAINTENANCE_LABELS[m.kind]}: <strong>{STATE_LABELS[m.status.state]}</strong> — due {formatDate(m.status.dueAt)}
                           </span>
                         ))}
                   </td>

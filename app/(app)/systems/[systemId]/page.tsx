@@ -9,6 +9,7 @@ import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getCleaningSystem } from "@/lib/server/plant/queries";
 import { updateSystemAction } from "../actions";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Cleaning system" };
 
@@ -66,7 +67,7 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
               </Link>
             </h2>
             <p className="text-sm text-stone-600">
-              {v ? `Effective version ${v.version} since ${v.effectiveFrom?.slice(0, 10)} · detergent: ${v.detergent ?? "none"}` : "No effective version"}
+              {v ? `Effective version ${v.version} since ${formatDate(v.effectiveFrom)} · detergent: ${v.detergent ?? "none"}` : "No effective version"}
             </p>
             {v && <RecipeTable content={v} caption={`Parameters of ${recipe.name}, version ${v.version}`} />}
           </section>

@@ -7,7 +7,8 @@ import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { partFamilyQuerySchema } from "@/lib/schemas/trace";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getPartFamilyHistory, listPartFamilies } from "@/lib/server/trace/part-family-history";
-import { formatUtc, OUTCOME_LABELS } from "@/lib/trace/labels";
+import { OUTCOME_LABELS } from "@/lib/trace/labels";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Part family history" };
 
@@ -62,8 +63,8 @@ export default async function PartFamilyTracePage({ searchParams }: { searchPara
                     version {v.version} · {humanize(v.status)}
                   </h3>
                   <p className="text-sm text-stone-700">
-                    {v.recipe.name} on {v.system.code} · in force {v.effectiveFrom ? `from ${formatUtc(v.effectiveFrom)} ${v.effectiveTo ? `to ${formatUtc(v.effectiveTo)}` : "until now"}` : "never (not made effective)"}
-                    {v.interval ? ` · last qualified ${v.interval.lastQualifiedAt.slice(0, 10)}, requalify every ${v.interval.intervalMonths} months` : ""}
+                    {v.recipe.name} on {v.system.code} · in force {v.effectiveFrom ? `from ${formatDateTime(v.effectiveFrom)} ${v.effectiveTo ? `to ${formatDateTime(v.effectiveTo)}` : "until now"}` : "never (not made effective)"}
+                    {v.interval ? ` · last qualified ${formatDate(v.interval.lastQualifiedAt)}, requalify every ${v.interval.intervalMonths} months` : ""}
                   </p>
                   {v.runs.length === 0 ? (
                     <p className="mt-2 text-sm text-stone-600">No test run on this version for the family.</p>

@@ -5,6 +5,7 @@ import { jsonError, searchParamsObject, zodFieldErrors } from "@/lib/http/json";
 import { auditQuerySchema } from "@/lib/schemas/audit";
 import { iterateAuditEvents } from "@/lib/server/audit/query-audit-events";
 import { authorize } from "@/lib/server/auth/current-user";
+import { todayUtc } from "@/lib/format/date";
 
 const HEADER = ["seq", "at_utc", "actor", "action", "record_type", "record_id", "old_value", "new_value", "reason", "prev_hash", "hash"];
 
@@ -37,7 +38,7 @@ export async function GET(request: Request) {
   await getDb().transaction((tx) =>
     appendAudit(tx, { id: auth.user.id, name: auth.user.name }, { action: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters } }),
   );
-  const stamp = new Date().toISOString().slice(0, 10);
+  const stamp = todayUtc();
   return new Response(body, {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",

@@ -8,10 +8,11 @@ import { can } from "@/lib/auth/permissions";
 import { iso4406Code } from "@/lib/cleanliness";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
 import { BATH_VARIABLES, MAINTENANCE_LABELS, STATE_LABELS, type BathVariable } from "@/lib/evidence/maintenance";
-import { withUnit } from "@/lib/format/labels";
+import { withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getTank } from "@/lib/server/bath/queries";
 import { recordBathAction, setIntervalAction } from "../../actions";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Tank log" };
 
@@ -42,7 +43,7 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
           <ul className="mb-3 space-y-1 text-sm">
             {tank.maintenance.map((m) => (
               <li key={m.intervalId}>
-                {MAINTENANCE_LABELS[m.kind]} every {m.intervalDays} days: <strong>{STATE_LABELS[m.status.state]}</strong>, due {m.status.dueAt.slice(0, 10)} (last {m.status.lastDoneAt?.slice(0, 10) ?? "never recorded"})
+                {MAINTENANCE_LABELS[m.kind]} every {m.intervalDays} days: <strong>{STATE_LABELS[m.status.state]}</strong>, due {formatDate(m.status.dueAt)} (last {formatDate(m.status.lastDoneAt, "never recorded")})
               </li>
             ))}
           </ul>
@@ -79,7 +80,7 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
             <tbody className="divide-y divide-stone-100">
               {[...tank.records].reverse().map(({ record: r, by }) => (
                 <tr key={r.id}>
-                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{r.performedAt.slice(0, 16).replace("T", " ")}</td>
+                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{formatDateTime(r.performedAt, { zone: false })}</td>
                   <td className="px-3 py-2">{MAINTENANCE_LABELS[r.kind]}</td>
                   <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.concentrationPct, "%")}</td>
                   <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.conductivityUsPerCm, "µS/cm")}</td>

@@ -20,6 +20,7 @@ import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRunDetail } from "@/lib/server/evidence/queries";
 import { addSampleAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
+import { formatDateTime } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Test run" };
 
@@ -127,7 +128,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
                         {file.sha256.slice(0, 12)}…
                       </td>
                       <td className="px-3 py-2 text-xs">
-                        {uploader}, {file.uploadedAt.slice(0, 16).replace("T", " ")} UTC
+                        {uploader}, {formatDateTime(file.uploadedAt)}
                       </td>
                     </tr>
                   ))}
