@@ -1,10 +1,11 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
 import { Download } from "lucide-react";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
+import { DataTable } from "@/components/ui/data-table";
 import type { AuditPage } from "@/lib/server/audit/query-audit-events";
 import { formatDateTime } from "@/lib/format/date";
 
@@ -78,7 +79,8 @@ export function AuditBrowser({ actors, actions, recordTypes, canExport }: AuditB
   const before = cursors.at(-1);
   const qs = queryString(filters, before);
   const { data, error, isFetching } = useQuery({ queryKey: ["audit", qs], queryFn: () => fetchPage(qs), placeholderData: keepPreviousData });
-  const table = useReactTable({ data: data?.items ?? [], columns, getCoreRowModel: getCoreRowModel() });
+  // The server pages the trail newest first; the columns do not re-sort a page.
+  const table = useReactTable({ data: data?.items ?? [], columns, getCoreRowModel: getCoreRowModel(), enableSorting: false });
 
   function apply(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -148,40 +150,13 @@ export function AuditBrowser({ actors, actions, recordTypes, canExport }: AuditB
         </p>
       )}
 
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white" aria-busy={isFetching}>
-        <table className="w-full text-sm">
-          <caption className="sr-only">Audit events, newest first</caption>
-          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id}>
-                {g.headers.map((h) => (
-                  <th key={h.id} className="px-3 py-2 font-medium">
-                    {flexRender(h.column.columnDef.header, h.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-stone-100 align-top">
-            {table.getRowModel().rows.map((r) => (
-              <tr key={r.id}>
-                {r.getVisibleCells().map((c) => (
-                  <td key={c.id} className="px-3 py-2">
-                    {flexRender(c.column.columnDef.cell, c.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-            {data && data.items.length === 0 && (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-stone-600">
-                  No events match these filters.
-                </td>
-              </tr>
-            )}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        table={table}
+        caption="Audit events, newest first"
+        busy={isFetching}
+        bodyClassName="align-top"
+        empty={data ? "No events match these filters." : undefined}
+      />
 
       <div className="flex items-center justify-between text-sm">
         <Button variant="secondary" disabled={cursors.length === 0} onClick={() => setCursors((c) => c.slice(0, -1))}>

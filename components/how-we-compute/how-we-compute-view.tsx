@@ -15,6 +15,7 @@ import { CapabilityCalculator } from "./capability-calculator";
 import { CccCalculator } from "./ccc-calculator";
 import { ExtractionCalculator } from "./extraction-calculator";
 import { SampleSizeCalculator } from "./sample-size-calculator";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 const SECTIONS = [
   ["size-classes", "Size classes and cleanliness levels"],
@@ -344,28 +345,23 @@ function Code({ children }: { children: ReactNode }) {
 
 function DataTable({ caption, head, rows }: { caption: string; head: string[]; rows: string[][] }) {
   return (
-    <table className="w-full text-left text-sm">
-      <caption className="mb-1 text-left text-xs font-semibold text-stone-700">{caption}</caption>
-      <thead className="border-b border-stone-300 text-stone-600">
-        <tr>
-          {head.map((h) => (
-            <th key={h} scope="col" className="py-1 pr-3 font-medium">
-              {h}
-            </th>
-          ))}
-        </tr>
-      </thead>
-      <tbody className="font-mono text-stone-800">
+    <Table density="compact" caption={caption} captionVisible>
+      <THead>
+        {head.map((h) => (
+          <Th key={h}>
+            {h}
+          </Th>
+        ))}
+      </THead>
+      <TBody className="font-mono text-stone-800">
         {rows.map((row) => (
-          <tr key={row[0]} className="border-b border-stone-100">
+          <tr key={row[0]}>
             {row.map((cell, i) => (
-              <td key={i} className="py-0.5 pr-3">
-                {cell}
-              </td>
+              <Td key={i}>{cell}</Td>
             ))}
           </tr>
         ))}
-      </tbody>
-    </table>
+      </TBody>
+    </Table>
   );
 }

@@ -8,6 +8,7 @@ import type { ParameterHistory } from "@/lib/server/trace/parameter-history";
 import { BINDING_LABELS, CHANGE_LABELS, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import type { ParameterValue } from "@/lib/trace/timeline";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 type Entry = ParameterHistory["entries"][number];
 
@@ -119,31 +120,26 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
             {change.signatures.length === 0 ? (
               <p className="text-stone-600">No signatures yet.</p>
             ) : (
-              <table className="mt-1 w-full text-sm">
-                <caption className="sr-only">Signatures on {change.number}</caption>
-                <thead className="text-left text-xs text-stone-500 uppercase">
-                  <tr>
-                    <th className="py-1 pr-3 font-medium">Meaning</th>
-                    <th className="py-1 pr-3 font-medium">Printed name</th>
-                    <th className="py-1 pr-3 font-medium">Signed</th>
-                    <th className="py-1 pr-3 font-medium">Revision</th>
-                    <th className="py-1 font-medium">Binding</th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-stone-100">
+              <Table density="compact" caption={<>Signatures on {change.number}</>} frameClassName="mt-1">
+                <THead>
+                  <Th>Meaning</Th>
+                  <Th>Printed name</Th>
+                  <Th>Signed</Th>
+                  <Th>Revision</Th>
+                  <Th>Binding</Th>
+                </THead>
+                <TBody>
                   {change.signatures.map((s) => (
                     <tr key={s.id}>
-                      <td className="py-1 pr-3 font-medium">{MEANING_LABELS[s.meaning]}</td>
-                      <td className="py-1 pr-3">{s.printedName}</td>
-                      <td className="py-1 pr-3 tabular-nums">{formatDateTime(s.signedAt)}</td>
-                      <td className="py-1 pr-3">{s.revision}</td>
-                      <td className="py-1" title={`Signed hash ${s.contentHash}`}>
-                        {BINDING_LABELS[s.binding]}
-                      </td>
+                      <Td className="font-medium">{MEANING_LABELS[s.meaning]}</Td>
+                      <Td>{s.printedName}</Td>
+                      <Td className="tabular-nums">{formatDateTime(s.signedAt)}</Td>
+                      <Td>{s.revision}</Td>
+                      <Td title={`Signed hash ${s.contentHash}`}>{BINDING_LABELS[s.binding]}</Td>
                     </tr>
                   ))}
-                </tbody>
-              </table>
+                </TBody>
+              </Table>
             )}
 
             <h4 className="mt-4 font-semibold">Requalification evidence</h4>

@@ -13,6 +13,7 @@ import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getTank } from "@/lib/server/bath/queries";
 import { recordBathAction, setIntervalAction } from "../../actions";
 import { formatDate, formatDateTime } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Tank log" };
 
@@ -62,39 +63,34 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
       </section>
       <section aria-labelledby="log-title">
         <h2 id="log-title" className="mb-2 text-base font-semibold">Log</h2>
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Bath log</caption>
-            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="px-3 py-2 font-medium">When (UTC)</th>
-                <th className="px-3 py-2 font-medium">What</th>
-                <th className="px-3 py-2 text-right font-medium">Concentration</th>
-                <th className="px-3 py-2 text-right font-medium">Conductivity</th>
-                <th className="px-3 py-2 text-right font-medium">Temperature</th>
-                <th className="px-3 py-2 font-medium">ISO 4406</th>
-                <th className="px-3 py-2 font-medium">Notes</th>
-                <th className="px-3 py-2 font-medium">By</th>
+        <Table caption="Bath log">
+          <THead>
+            <Th>When (UTC)</Th>
+            <Th>What</Th>
+            <Th align="right">Concentration</Th>
+            <Th align="right">Conductivity</Th>
+            <Th align="right">Temperature</Th>
+            <Th>ISO 4406</Th>
+            <Th>Notes</Th>
+            <Th>By</Th>
+          </THead>
+          <TBody>
+            {[...tank.records].reverse().map(({ record: r, by }) => (
+              <tr key={r.id}>
+                <Td className="whitespace-nowrap tabular-nums">{formatDateTime(r.performedAt, { zone: false })}</Td>
+                <Td>{MAINTENANCE_LABELS[r.kind]}</Td>
+                <Td numeric>{withUnit(r.concentrationPct, "%")}</Td>
+                <Td numeric>{withUnit(r.conductivityUsPerCm, "µS/cm")}</Td>
+                <Td numeric>{withUnit(r.temperatureC, "°C")}</Td>
+                <Td className="font-mono text-xs">
+                  {r.countPerMl4 !== null && r.countPerMl6 !== null && r.countPerMl14 !== null ? iso4406Code([r.countPerMl4, r.countPerMl6, r.countPerMl14]) : "—"}
+                </Td>
+                <Td>{[r.filterDescription, r.notes].filter(Boolean).join(" · ") || "—"}</Td>
+                <Td>{by}</Td>
               </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
-              {[...tank.records].reverse().map(({ record: r, by }) => (
-                <tr key={r.id}>
-                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{formatDateTime(r.performedAt, { zone: false })}</td>
-                  <td className="px-3 py-2">{MAINTENANCE_LABELS[r.kind]}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.concentrationPct, "%")}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.conductivityUsPerCm, "µS/cm")}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.temperatureC, "°C")}</td>
-                  <td className="px-3 py-2 font-mono text-xs">
-                    {r.countPerMl4 !== null && r.countPerMl6 !== null && r.countPerMl14 !== null ? iso4406Code([r.countPerMl4, r.countPerMl6, r.countPerMl14]) : "—"}
-                  </td>
-                  <td className="px-3 py-2">{[r.filterDescription, r.notes].filter(Boolean).join(" · ") || "—"}</td>
-                  <td className="px-3 py-2">{by}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+            ))}
+          </TBody>
+        </Table>
       </section>
     </>
   );
