@@ -26,7 +26,7 @@ const DENSITY: Record<TableDensity, string> = {
 // On a narrow screen (a tablet at 820 px) a wide table scrolls inside its frame; the first column,
 // which names the row, stays in place so a reader never loses which row a value belongs to.
 const STICKY_FIRST =
-  "[--sticky-bg:var(--color-white)] [&_tr>:first-child]:sticky [&_tr>:first-child]:left-0 [&_tr>:first-child]:z-[1] [&_tr>:first-child]:bg-(--sticky-bg)";
+  "[--sticky-bg:var(--color-white)] [&_tr>:first-child]:sticky [&_tr>:first-child]:left-0 [&_tr>:first-child]:z-[1] [&_tr>:first-child]:bg-(--sticky-bg) [&_tr>:first-child]:shadow-[inset_-1px_0_0_var(--color-stone-100)]";
 
 export interface TableProps extends TableHTMLAttributes<HTMLTableElement> {
   /** Names the table for assistive technology and for tests (`getByRole("table", { name })`). */
