@@ -54,6 +54,11 @@ export function todayUtc(now: Date = new Date()): string {
   return now.toISOString().slice(0, 10);
 }
 
+/** The value a `datetime-local` field takes for an instant, in UTC ("2026-06-15T07:00"); the form labels it "(UTC)". */
+export function dateTimeFieldValue(now: Date = new Date()): string {
+  return now.toISOString().slice(0, 16);
+}
+
 /** A file-name stamp, "20260615T070000Z". */
 export function fileStamp(now: Date = new Date()): string {
   return now.toISOString().replace(/[-:]/g, "").replace(/\.\d+Z$/, "Z");

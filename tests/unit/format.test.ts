@@ -1,5 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
-import { fileStamp, formatDate, formatDateTime, parseUtc, todayUtc } from "@/lib/format/date";
+import { dateTimeFieldValue, fileStamp, formatDate, formatDateTime, parseUtc, todayUtc } from "@/lib/format/date";
 import { formatBytes, formatNumber, rangeWithUnit, withUnit } from "@/lib/format/number";
 
 // Every stored time is ISO-8601 UTC (DEVELOPERS.md, Database) and the house date format is the
@@ -84,6 +84,7 @@ describe("parseUtc, todayUtc, fileStamp", () => {
   it("stamps file names without separators or milliseconds", () => {
     expect(fileStamp(new Date("2026-06-15T07:08:09.123Z"))).toBe("20260615T070809Z");
     expect(todayUtc(new Date("2026-12-31T23:59:59Z"))).toBe("2026-12-31");
+    expect(dateTimeFieldValue(new Date("2026-06-15T07:08:09.123Z"))).toBe("2026-06-15T07:08");
   });
 });
 
