@@ -41,7 +41,7 @@ export default async function ApiTokensPage() {
         {tokens.length === 0 ? (
           <p className="text-sm text-stone-600">You have no tokens.</p>
         ) : (
-          <Table density="compact" caption="Your API tokens">
+          <Table caption="Your API tokens">
             <THead>
               <Th>Name</Th>
               <Th>Starts with</Th>
