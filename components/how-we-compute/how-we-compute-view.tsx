@@ -73,7 +73,7 @@ export function HowWeComputeView() {
             level&apos;s upper bound up to and including its own; 00 means no particle.
           </p>
           <div className="grid items-start gap-6 lg:grid-cols-2">
-            <DataTable
+            <ReferenceTable
               caption="Size classes [std]"
               head={["Class", "From (µm, inclusive)", "To (µm, exclusive)"]}
               rows={SIZE_CLASSES.map((c) => [
@@ -82,7 +82,7 @@ export function HowWeComputeView() {
                 c.maxUm === null ? "open" : String(c.maxUm),
               ])}
             />
-            <DataTable
+            <ReferenceTable
               caption="Cleanliness levels: largest count per 1000 cm² or per 100 cm³"
               head={["Level", "Up to and including", "Source"]}
               rows={CLEANLINESS_LEVELS.map((l) => [
@@ -258,7 +258,7 @@ export function HowWeComputeView() {
           <p>
             Check value [derived]: 500 µS/cm at 20 °C with α = 0.02 per °C → 555.6 µS/cm at 25 °C.
           </p>
-          <DataTable
+          <ReferenceTable
             caption="ISO 7888 factors held by Washproof"
             head={["Temperature (°C)", "f25 (ratio)", "Source"]}
             rows={ISO7888_F25.map((p) => [String(p.temperatureC), p.f25.toFixed(3), p.source])}
@@ -343,7 +343,7 @@ function Code({ children }: { children: ReactNode }) {
   );
 }
 
-function DataTable({ caption, head, rows }: { caption: string; head: string[]; rows: string[][] }) {
+function ReferenceTable({ caption, head, rows }: { caption: string; head: string[]; rows: string[][] }) {
   return (
     <Table density="compact" caption={caption} captionVisible>
       <THead>
