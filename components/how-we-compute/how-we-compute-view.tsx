@@ -16,6 +16,7 @@ import { CccCalculator } from "./ccc-calculator";
 import { ExtractionCalculator } from "./extraction-calculator";
 import { SampleSizeCalculator } from "./sample-size-calculator";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { formatNumber } from "@/lib/format/number";
 
 const SECTIONS = [
   ["size-classes", "Size classes and cleanliness levels"],
@@ -87,7 +88,7 @@ export function HowWeComputeView() {
               head={["Level", "Up to and including", "Source"]}
               rows={CLEANLINESS_LEVELS.map((l) => [
                 l.level,
-                l.upper.toLocaleString("en"),
+                formatNumber(l.upper),
                 `[${l.source}]`,
               ])}
             />
@@ -239,8 +240,8 @@ export function HowWeComputeView() {
           </Formula>
           <p>
             The bounds are the published rounded ones ({ISO4406_SCALE[13].upperPerMl},{" "}
-            {ISO4406_SCALE[17].upperPerMl.toLocaleString("en")},{" "}
-            {ISO4406_SCALE[18].upperPerMl.toLocaleString("en")} … particles per mL for scale numbers
+            {formatNumber(ISO4406_SCALE[17].upperPerMl)},{" "}
+            {formatNumber(ISO4406_SCALE[18].upperPerMl)} … particles per mL for scale numbers
             13, 17, 18). Worked example [std]: 3000 / 500 / 7 particles per mL → 19/16/10. The
             counts are cumulative, so they cannot rise with size.
           </p>

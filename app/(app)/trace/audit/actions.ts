@@ -4,6 +4,7 @@ import { getDb } from "@/db/client";
 import type { FormState } from "@/lib/actions/result";
 import { appendAudit, verifyAuditChain } from "@/lib/audit";
 import { authorize } from "@/lib/server/auth/current-user";
+import { formatNumber } from "@/lib/format/number";
 
 /** Re-computes the whole hash chain and reports where it breaks, if it does. */
 export async function verifyIntegrityAction(_prev: FormState, _formData: FormData): Promise<FormState> {
@@ -22,6 +23,6 @@ export async function verifyIntegrityAction(_prev: FormState, _formData: FormDat
     }),
   );
   return result.ok
-    ? { ok: true, message: `Intact: all ${result.events.toLocaleString("en-GB")} events verified in ${ms} ms; each links to the one before.` }
+    ? { ok: true, message: `Intact: all ${formatNumber(result.events)} events verified in ${ms} ms; each links to the one before.` }
     : { ok: false, message: `Broken at event ${result.brokenAt}: ${result.reason}. ${result.events} events before it verified.` };
 }
