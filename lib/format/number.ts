@@ -24,3 +24,11 @@ export function formatBytes(n: number): string {
   if (n < 1024 * 1024) return `${(n / 1024).toFixed(1)} KiB`;
   return `${(n / 1024 / 1024).toFixed(1)} MiB`;
 }
+
+/**
+ * An upload size or limit for messages: kB below a megabyte, so a small limit never reads "0 MB".
+ * Kept apart from formatBytes because upload refusals have always said "kB"/"MB" (1024-based).
+ */
+export function formatSize(bytes: number): string {
+  return bytes < 1048576 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1048576).toFixed(1)} MB`;
+}

@@ -1,6 +1,6 @@
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { dateTimeFieldValue, fileStamp, formatDate, formatDateTime, parseUtc, todayUtc } from "@/lib/format/date";
-import { formatBytes, formatNumber, rangeWithUnit, withUnit } from "@/lib/format/number";
+import { formatBytes, formatNumber, formatSize, rangeWithUnit, withUnit } from "@/lib/format/number";
 
 // Every stored time is ISO-8601 UTC (DEVELOPERS.md, Database) and the house date format is the
 // ISO 8601 calendar date YYYY-MM-DD; the browser tests assert "2026-06-15 07:00 UTC" and
@@ -108,5 +108,10 @@ describe("numbers with units", () => {
     expect(formatBytes(1023)).toBe("1023 B");
     expect(formatBytes(1536)).toBe("1.5 KiB");
     expect(formatBytes(5 * 1024 * 1024)).toBe("5.0 MiB");
+  });
+
+  it("states an upload size in kB below a megabyte, so a small limit never reads 0 MB", () => {
+    expect(formatSize(10 * 1024 + 240)).toBe("10.2 kB");
+    expect(formatSize(2 * 1024 * 1024)).toBe("2.0 MB");
   });
 });

@@ -14,7 +14,7 @@ import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
 import { isCsvTestType } from "@/lib/evidence/csv-import";
 import { describeSample } from "@/lib/evidence/describe";
-import { formatSize } from "@/lib/evidence/files";
+import { formatSize } from "@/lib/format/number";
 import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";

@@ -1,6 +1,6 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { z } from "zod";
-import { formatSize } from "@/lib/evidence/files";
+import { formatSize } from "@/lib/format/number";
 import { fileKindSchema } from "@/lib/schemas/evidence";
 import { authorize } from "@/lib/server/auth/current-user";
 import { toActionFailure } from "@/lib/server/errors";
