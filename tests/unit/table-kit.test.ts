@@ -44,7 +44,7 @@ describe("Table", () => {
   });
 
   it("spans the empty message across every column", () => {
-    const empty = renderToStaticMarkup(h(Table, { caption: "x" }, h(TBody, null, h(EmptyRow, { colSpan: 4 }, "Nothing matches."))));
+    const empty = renderToStaticMarkup(h(Table, { caption: "x" }, h(TBody, null, h(EmptyRow, { colSpan: 4, children: "Nothing matches." }))));
     expect(empty).toMatch(/<td colSpan="4"[^>]*>Nothing matches.<\/td>/i);
   });
 });
