@@ -79,13 +79,13 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
               <tr key={r.id}>
                 <Td className="whitespace-nowrap tabular-nums">{formatDateTime(r.performedAt, { zone: false })}</Td>
                 <Td>{MAINTENANCE_LABELS[r.kind]}</Td>
-                <Td numeric>{withUnit(r.concentrationPct, "%")}</Td>
-                <Td numeric>{withUnit(r.conductivityUsPerCm, "µS/cm")}</Td>
-                <Td numeric>{withUnit(r.temperatureC, "°C")}</Td>
+                <Td numeric className="whitespace-nowrap">{withUnit(r.concentrationPct, "%")}</Td>
+                <Td numeric className="whitespace-nowrap">{withUnit(r.conductivityUsPerCm, "µS/cm")}</Td>
+                <Td numeric className="whitespace-nowrap">{withUnit(r.temperatureC, "°C")}</Td>
                 <Td className="font-mono text-xs">
                   {r.countPerMl4 !== null && r.countPerMl6 !== null && r.countPerMl14 !== null ? iso4406Code([r.countPerMl4, r.countPerMl6, r.countPerMl14]) : "—"}
                 </Td>
-                <Td>{[r.filterDescription, r.notes].filter(Boolean).join(" · ") || "—"}</Td>
+                <Td className="min-w-48">{[r.filterDescription, r.notes].filter(Boolean).join(" · ") || "—"}</Td>
                 <Td>{by}</Td>
               </tr>
             ))}
