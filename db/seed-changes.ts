@@ -29,6 +29,7 @@ import {
   testRuns,
   type SignatureMeaning,
 } from "./schema";
+import { formatDate } from "@/lib/format/date";
 
 interface Ids {
   userIds: Map<string, string>;
@@ -91,7 +92,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       status: input.status === "closed" ? "effective" : "approved",
       content,
       contentHash: sha256Hex(canonicalJson(content)),
-      effectiveDate: input.closedAt?.slice(0, 10) ?? null,
+      effectiveDate: input.closedAt ? formatDate(input.closedAt) : null,
       createdBy: engineer.id,
       createdAt: input.openedAt,
     });

@@ -16,6 +16,7 @@ import {
   signatures,
   systemStages,
 } from "./schema";
+import { formatDate } from "@/lib/format/date";
 
 /**
  * One effective, fully signed OQ protocol for the demo: Ines wrote it, Tomas
@@ -43,7 +44,7 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
   });
   const contentHash = sha256Hex(canonicalJson(content));
   const at = now.toISOString();
-  const today = at.slice(0, 10);
+  const today = formatDate(at);
 
   const [document] = await tx
     .insert(documents)

@@ -10,6 +10,7 @@ import { TEST_TYPES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
 import { samplesFor, type MatrixRow } from "@/lib/changes/requalification";
 import { MATRIX_SUBJECTS, subjectLabel, TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 type Draft = { uid: number; subject: string; testType: string; confidencePct: string; reliabilityPct: string };
 let n = 0;
@@ -29,62 +30,57 @@ export function MatrixEditor({ action, rows }: { action: (prev: FormState, formD
   return (
     <ActionForm action={action} className="space-y-4" aria-label="Requalification matrix">
       <input type="hidden" name="payload" value={JSON.stringify(payload)} />
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-        <table className="w-full text-sm">
-          <caption className="sr-only">Matrix rows</caption>
-          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-            <tr>
-              <th className="px-3 py-2 font-medium">When this changes (major)</th>
-              <th className="px-3 py-2 font-medium">Test</th>
-              <th className="px-3 py-2 font-medium">Confidence (%)</th>
-              <th className="px-3 py-2 font-medium">Reliability (%)</th>
-              <th className="px-3 py-2 font-medium">Samples</th>
-              <th className="px-3 py-2 font-medium">
-                <span className="sr-only">Remove</span>
-              </th>
+      <Table caption="Matrix rows">
+        <THead>
+          <Th>When this changes (major)</Th>
+          <Th>Test</Th>
+          <Th>Confidence (%)</Th>
+          <Th>Reliability (%)</Th>
+          <Th>Samples</Th>
+          <Th>
+            <span className="sr-only">Remove</span>
+          </Th>
+        </THead>
+        <TBody>
+          {drafts.map((d, i) => (
+            <tr key={d.uid}>
+              <Td className="[--cell-py:0.375rem]">
+                <select aria-label={`Subject of row ${i + 1}`} value={d.subject} onChange={(e) => set(i, { subject: e.target.value })} className="rounded-md border border-stone-300 px-2 py-1">
+                  {MATRIX_SUBJECTS.map((s) => (
+                    <option key={s} value={s}>
+                      {subjectLabel(s)}
+                    </option>
+                  ))}
+                </select>
+              </Td>
+              <Td className="[--cell-py:0.375rem]">
+                <select aria-label={`Test of row ${i + 1}`} value={d.testType} onChange={(e) => set(i, { testType: e.target.value })} className="rounded-md border border-stone-300 px-2 py-1">
+                  {TEST_TYPES.map((t) => (
+                    <option key={t} value={t}>
+                      {TEST_TYPE_LABELS[t]}
+                    </option>
+                  ))}
+                </select>
+                <FieldError name={`rows.${i}.testType`} />
+              </Td>
+              <Td className="[--cell-py:0.375rem]">
+                <input aria-label={`Confidence of row ${i + 1}`} value={d.confidencePct} onChange={(e) => set(i, { confidencePct: e.target.value })} inputMode="decimal" className="w-20 rounded-md border border-stone-300 px-2 py-1" />
+                <FieldError name={`rows.${i}.confidencePct`} />
+              </Td>
+              <Td className="[--cell-py:0.375rem]">
+                <input aria-label={`Reliability of row ${i + 1}`} value={d.reliabilityPct} onChange={(e) => set(i, { reliabilityPct: e.target.value })} inputMode="decimal" className="w-20 rounded-md border border-stone-300 px-2 py-1" />
+                <FieldError name={`rows.${i}.reliabilityPct`} />
+              </Td>
+              <Td className="tabular-nums [--cell-py:0.375rem]">{preview(d)}</Td>
+              <Td className="[--cell-py:0.375rem]">
+                <Button variant="ghost" aria-label={`Remove row ${i + 1}`} onClick={() => setDrafts((all) => all.filter((_, j) => j !== i))}>
+                  <Trash2 className="h-4 w-4" aria-hidden="true" />
+                </Button>
+              </Td>
             </tr>
-          </thead>
-          <tbody className="divide-y divide-stone-100">
-            {drafts.map((d, i) => (
-              <tr key={d.uid}>
-                <td className="px-3 py-1.5">
-                  <select aria-label={`Subject of row ${i + 1}`} value={d.subject} onChange={(e) => set(i, { subject: e.target.value })} className="rounded-md border border-stone-300 px-2 py-1">
-                    {MATRIX_SUBJECTS.map((s) => (
-                      <option key={s} value={s}>
-                        {subjectLabel(s)}
-                      </option>
-                    ))}
-                  </select>
-                </td>
-                <td className="px-3 py-1.5">
-                  <select aria-label={`Test of row ${i + 1}`} value={d.testType} onChange={(e) => set(i, { testType: e.target.value })} className="rounded-md border border-stone-300 px-2 py-1">
-                    {TEST_TYPES.map((t) => (
-                      <option key={t} value={t}>
-                        {TEST_TYPE_LABELS[t]}
-                      </option>
-                    ))}
-                  </select>
-                  <FieldError name={`rows.${i}.testType`} />
-                </td>
-                <td className="px-3 py-1.5">
-                  <input aria-label={`Confidence of row ${i + 1}`} value={d.confidencePct} onChange={(e) => set(i, { confidencePct: e.target.value })} inputMode="decimal" className="w-20 rounded-md border border-stone-300 px-2 py-1" />
-                  <FieldError name={`rows.${i}.confidencePct`} />
-                </td>
-                <td className="px-3 py-1.5">
-                  <input aria-label={`Reliability of row ${i + 1}`} value={d.reliabilityPct} onChange={(e) => set(i, { reliabilityPct: e.target.value })} inputMode="decimal" className="w-20 rounded-md border border-stone-300 px-2 py-1" />
-                  <FieldError name={`rows.${i}.reliabilityPct`} />
-                </td>
-                <td className="px-3 py-1.5 tabular-nums">{preview(d)}</td>
-                <td className="px-3 py-1.5">
-                  <Button variant="ghost" aria-label={`Remove row ${i + 1}`} onClick={() => setDrafts((all) => all.filter((_, j) => j !== i))}>
-                    <Trash2 className="h-4 w-4" aria-hidden="true" />
-                  </Button>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+          ))}
+        </TBody>
+      </Table>
       <Button variant="secondary" onClick={() => setDrafts((all) => [...all, { uid: ++n, subject: MATRIX_SUBJECTS[0], testType: TEST_TYPES[0], confidencePct: "95", reliabilityPct: "90" }])}>
         <Plus className="h-4 w-4" aria-hidden="true" /> Add row
       </Button>

@@ -1,11 +1,13 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
 import { Download } from "lucide-react";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
+import { DataTable } from "@/components/ui/data-table";
 import type { AuditPage } from "@/lib/server/audit/query-audit-events";
+import { formatDateTime } from "@/lib/format/date";
 
 type Row = AuditPage["items"][number];
 type Filters = Record<"actor" | "recordType" | "recordId" | "eventType" | "from" | "to", string>;
@@ -30,7 +32,7 @@ async function fetchPage(qs: string): Promise<AuditPage> {
 const column = createColumnHelper<Row>();
 const columns = [
   column.accessor("seq", { header: "#", cell: (c) => <span className="tabular-nums">{c.getValue()}</span> }),
-  column.accessor("at", { header: "When (UTC)", cell: (c) => <span className="whitespace-nowrap tabular-nums">{c.getValue().replace("T", " ").slice(0, 19)}</span> }),
+  column.accessor("at", { header: "When (UTC)", cell: (c) => <span className="whitespace-nowrap tabular-nums">{formatDateTime(c.getValue(), { seconds: true, zone: false })}</span> }),
   column.accessor("actorName", { header: "Who" }),
   column.accessor("eventType", {
     header: "Event",
@@ -85,7 +87,8 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
   const before = cursors.at(-1);
   const qs = queryString(filters, before);
   const { data, error, isFetching } = useQuery({ queryKey: ["audit", qs], queryFn: () => fetchPage(qs), placeholderData: keepPreviousData });
-  const table = useReactTable({ data: data?.items ?? [], columns, getCoreRowModel: getCoreRowModel() });
+  // The server pages the trail newest first; the columns do not re-sort a page.
+  const table = useReactTable({ data: data?.items ?? [], columns, getCoreRowModel: getCoreRowModel(), enableSorting: false });
 
   function apply(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -155,40 +158,13 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
         </p>
       )}
 
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white" aria-busy={isFetching}>
-        <table className="w-full text-sm">
-          <caption className="sr-only">Audit events, newest first</caption>
-          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id}>
-                {g.headers.map((h) => (
-                  <th key={h.id} className="px-3 py-2 font-medium">
-                    {flexRender(h.column.columnDef.header, h.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-stone-100 align-top">
-            {table.getRowModel().rows.map((r) => (
-              <tr key={r.id}>
-                {r.getVisibleCells().map((c) => (
-                  <td key={c.id} className="px-3 py-2">
-                    {flexRender(c.column.columnDef.cell, c.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-            {data && data.items.length === 0 && (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-stone-600">
-                  No events match these filters.
-                </td>
-              </tr>
-            )}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        table={table}
+        caption="Audit events, newest first"
+        busy={isFetching}
+        bodyClassName="align-top"
+        empty={data ? "No events match these filters." : undefined}
+      />
 
       <div className="flex items-center justify-between text-sm">
         <Button variant="secondary" disabled={cursors.length === 0} onClick={() => setCursors((c) => c.slice(0, -1))}>

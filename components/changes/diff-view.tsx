@@ -1,8 +1,10 @@
 import { ArrowRight } from "lucide-react";
-import { rangeWithUnit, STAGE_MODE_LABELS, withUnit } from "@/lib/format/labels";
+import { STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { rangeWithUnit, withUnit } from "@/lib/format/number";
 import type { Assessment } from "@/lib/changes/assess";
 import type { RecipeDiff } from "@/lib/changes/diff";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 const IMPACT_TEXT = {
   editorial: "Editorial — wording only; approval, no requalification",
@@ -26,44 +28,39 @@ export function DiffView({ diff }: { diff: RecipeDiff }) {
         <p className="text-sm text-stone-600">The proposal is the same as the effective version so far.</p>
       ) : null}
       {rows.length > 0 && (
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Parameter diff</caption>
-            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="px-3 py-2 font-medium">Stage · parameter</th>
-                <th className="px-3 py-2 text-right font-medium">Old</th>
-                <th className="px-3 py-2 font-medium" aria-hidden="true" />
-                <th className="px-3 py-2 font-medium">New</th>
-                <th className="px-3 py-2 font-medium">Validated range (effective)</th>
-                <th className="px-3 py-2 font-medium">New range</th>
-                <th className="px-3 py-2 font-medium">New setpoint</th>
-                <th className="px-3 py-2 font-medium">Class</th>
+        <Table caption="Parameter diff">
+          <THead>
+            <Th>Stage · parameter</Th>
+            <Th align="right">Old</Th>
+            <Th aria-hidden="true" />
+            <Th>New</Th>
+            <Th>Validated range (effective)</Th>
+            <Th>New range</Th>
+            <Th>New setpoint</Th>
+            <Th>Class</Th>
+          </THead>
+          <TBody>
+            {rows.map((p) => (
+              <tr key={p.key}>
+                <Td>
+                  {p.stage} · <span className="font-medium">{p.name}</span>
+                  {p.change !== "changed" && <span className="ml-1 text-xs text-stone-600">({p.change})</span>}
+                </Td>
+                <Td numeric>{p.old ? withUnit(p.old.setpoint, p.old.unit) : "—"}</Td>
+                <Td className="text-stone-400 [--cell-pl:0.25rem] [--cell-pr:0.25rem]">
+                  <ArrowRight className="h-3.5 w-3.5" aria-label="to" />
+                </Td>
+                <Td className="font-medium tabular-nums">{p.new ? withUnit(p.new.setpoint, p.new.unit) : "—"}</Td>
+                <Td className="tabular-nums">{p.old ? rangeWithUnit(p.old.validatedLow, p.old.validatedHigh, p.old.unit) : "—"}</Td>
+                <Td className="tabular-nums">{p.new ? rangeWithUnit(p.new.validatedLow, p.new.validatedHigh, p.new.unit) : "—"}</Td>
+                <Td>{p.position === null ? "—" : p.position === "inside" ? "Inside range" : "Outside range"}</Td>
+                <Td>
+                  <ImpactWord impact={p.impact} />
+                </Td>
               </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
-              {rows.map((p) => (
-                <tr key={p.key}>
-                  <td className="px-3 py-2">
-                    {p.stage} · <span className="font-medium">{p.name}</span>
-                    {p.change !== "changed" && <span className="ml-1 text-xs text-stone-600">({p.change})</span>}
-                  </td>
-                  <td className="px-3 py-2 text-right tabular-nums">{p.old ? withUnit(p.old.setpoint, p.old.unit) : "—"}</td>
-                  <td className="px-1 py-2 text-stone-400">
-                    <ArrowRight className="h-3.5 w-3.5" aria-label="to" />
-                  </td>
-                  <td className="px-3 py-2 font-medium tabular-nums">{p.new ? withUnit(p.new.setpoint, p.new.unit) : "—"}</td>
-                  <td className="px-3 py-2 tabular-nums">{p.old ? rangeWithUnit(p.old.validatedLow, p.old.validatedHigh, p.old.unit) : "—"}</td>
-                  <td className="px-3 py-2 tabular-nums">{p.new ? rangeWithUnit(p.new.validatedLow, p.new.validatedHigh, p.new.unit) : "—"}</td>
-                  <td className="px-3 py-2">{p.position === null ? "—" : p.position === "inside" ? "Inside range" : "Outside range"}</td>
-                  <td className="px-3 py-2">
-                    <ImpactWord impact={p.impact} />
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+            ))}
+          </TBody>
+        </Table>
       )}
       {diff.stages.length > 0 && (
         <ul className="list-disc pl-5 text-sm">
@@ -147,29 +144,26 @@ export function ImpactWorking({
         {requirements.length === 0 ? (
           <p className="text-stone-600">None: {impact === "major" ? "the matrix maps none of these changes to a test." : "a minor or editorial change needs approval only."}</p>
         ) : (
-          <table className="mt-1 w-full text-sm">
-            <caption className="sr-only">Required tests</caption>
-            <thead className="text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="py-1 pr-3 font-medium">Test</th>
-                <th className="py-1 pr-3 text-right font-medium">Samples</th>
-                <th className="py-1 pr-3 font-medium">Confidence / reliability</th>
-                <th className="py-1 font-medium">Because</th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
+          <Table density="compact" caption="Required tests" frameClassName="mt-1">
+            <THead>
+              <Th>Test</Th>
+              <Th align="right">Samples</Th>
+              <Th>Confidence / reliability</Th>
+              <Th>Because</Th>
+            </THead>
+            <TBody>
               {requirements.map((r) => (
                 <tr key={r.testType}>
-                  <td className="py-1.5 pr-3 font-medium">{TEST_TYPE_LABELS[r.testType]}</td>
-                  <td className="py-1.5 pr-3 text-right tabular-nums">{r.samples} parts</td>
-                  <td className="py-1.5 pr-3 tabular-nums">
+                  <Td className="font-medium">{TEST_TYPE_LABELS[r.testType]}</Td>
+                  <Td numeric>{r.samples} parts</Td>
+                  <Td className="tabular-nums">
                     {r.confidencePct} % / {r.reliabilityPct} %
-                  </td>
-                  <td className="py-1.5 text-stone-700">{r.because.join(" ")}</td>
+                  </Td>
+                  <Td className="text-stone-700">{r.because.join(" ")}</Td>
                 </tr>
               ))}
-            </tbody>
-          </table>
+            </TBody>
+          </Table>
         )}
         {requirements.length > 0 && (
           <p className="mt-1 text-xs text-stone-600">

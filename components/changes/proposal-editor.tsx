@@ -14,6 +14,7 @@ import { CHANGE_KIND_LABELS, type ChangeKind } from "@/lib/changes/workflow";
 import type { RecipeSnapshot } from "@/lib/changes/diff";
 import { hazardsOfStages } from "@/lib/recipes/hazards";
 import { PARAMETER_KIND_LABELS, UNITS_BY_KIND } from "@/lib/recipes/units";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 type Text = string;
 interface ParamDraft {
@@ -157,37 +158,34 @@ export function ProposalEditor(props: ProposalEditorProps) {
             </div>
           </div>
           <div className="mt-3 overflow-x-auto">
-            <table className="w-full text-sm">
-              <caption className="sr-only">Parameters of stage {i + 1}</caption>
-              <thead className="text-left text-xs text-stone-500 uppercase">
-                <tr>
-                  <th className="py-1 pr-2 font-medium">Parameter</th>
-                  <th className="py-1 pr-2 font-medium">Kind</th>
-                  <th className="py-1 pr-2 font-medium">Setpoint</th>
-                  <th className="py-1 pr-2 font-medium">Unit</th>
-                  <th className="py-1 pr-2 font-medium">Validated low</th>
-                  <th className="py-1 pr-2 font-medium">Validated high</th>
-                  <th className="py-1 pr-2 font-medium">Critical</th>
-                  <th className="py-1 font-medium">
-                    <span className="sr-only">Remove</span>
-                  </th>
-                </tr>
-              </thead>
-              <tbody className="align-top">
+            <Table density="compact" caption={<>Parameters of stage {i + 1}</>}>
+              <THead>
+                <Th>Parameter</Th>
+                <Th>Kind</Th>
+                <Th>Setpoint</Th>
+                <Th>Unit</Th>
+                <Th>Validated low</Th>
+                <Th>Validated high</Th>
+                <Th>Critical</Th>
+                <Th>
+                  <span className="sr-only">Remove</span>
+                </Th>
+              </THead>
+              <TBody className="align-top">
                 {stage.parameters.map((p, k) => {
                   const path = `recipe.stages.${i}.parameters.${k}`;
                   const label = p.name || `parameter ${k + 1} of stage ${i + 1}`;
                   return (
                     <tr key={p.uid}>
-                      <td className="py-1 pr-2">
+                      <Td>
                         <TextInput cell label={`Name of ${label}`} path={`${path}.name`} value={p.name} onChange={(v) => updateParam(i, k, { name: v })} />
                         {p.isNew ? (
                           <TextInput cell label={`Key of ${label}`} path={`${path}.key`} value={p.key} onChange={(v) => updateParam(i, k, { key: v })} placeholder="stage.parameter" />
                         ) : (
                           <p className="mt-0.5 font-mono text-xs text-stone-500">{p.key}</p>
                         )}
-                      </td>
-                      <td className="py-1 pr-2">
+                      </Td>
+                      <Td>
                         <SelectInput cell
                           label={`Kind of ${label}`}
                           path={`${path}.kind`}
@@ -195,32 +193,32 @@ export function ProposalEditor(props: ProposalEditorProps) {
                           onChange={(v) => updateParam(i, k, { kind: v as ParameterKind, unit: UNITS_BY_KIND[v as ParameterKind][0] ?? p.unit })}
                           options={PARAMETER_KINDS.map((x) => [x, PARAMETER_KIND_LABELS[x]])}
                         />
-                      </td>
-                      <td className="py-1 pr-2">
+                      </Td>
+                      <Td>
                         <TextInput cell label={`Setpoint of ${label}`} path={`${path}.setpoint`} value={p.setpoint} onChange={(v) => updateParam(i, k, { setpoint: v })} inputMode="decimal" narrow />
-                      </td>
-                      <td className="py-1 pr-2">
+                      </Td>
+                      <Td>
                         <TextInput cell label={`Unit of ${label}`} path={`${path}.unit`} value={p.unit} onChange={(v) => updateParam(i, k, { unit: v })} list={`units-${p.kind}`} narrow />
-                      </td>
-                      <td className="py-1 pr-2">
+                      </Td>
+                      <Td>
                         <TextInput cell label={`Validated low of ${label}`} path={`${path}.validatedLow`} value={p.validatedLow} onChange={(v) => updateParam(i, k, { validatedLow: v })} inputMode="decimal" narrow />
-                      </td>
-                      <td className="py-1 pr-2">
+                      </Td>
+                      <Td>
                         <TextInput cell label={`Validated high of ${label}`} path={`${path}.validatedHigh`} value={p.validatedHigh} onChange={(v) => updateParam(i, k, { validatedHigh: v })} inputMode="decimal" narrow />
-                      </td>
-                      <td className="py-1 pr-2 pt-2">
+                      </Td>
+                      <Td className="pt-2">
                         <input type="checkbox" aria-label={`Critical: ${label}`} checked={p.critical} onChange={(e) => updateParam(i, k, { critical: e.target.checked })} />
-                      </td>
-                      <td className="py-1">
+                      </Td>
+                      <Td>
                         <Button variant="ghost" aria-label={`Remove ${label}`} onClick={() => updateStage(i, { parameters: stage.parameters.filter((_, m) => m !== k) })}>
                           <Trash2 className="h-4 w-4" aria-hidden="true" />
                         </Button>
-                      </td>
+                      </Td>
                     </tr>
                   );
                 })}
-              </tbody>
-            </table>
+              </TBody>
+            </Table>
           </div>
           <Button
             variant="secondary"

@@ -7,6 +7,7 @@ import { SubmitButton } from "@/components/ui/submit-button";
 import { BATH_RECORD_KINDS, MAINTENANCE_KINDS } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
 import { MAINTENANCE_LABELS } from "@/lib/evidence/maintenance";
+import { dateTimeFieldValue } from "@/lib/format/date";
 
 type Action = (prev: FormState, formData: FormData) => Promise<FormState>;
 
@@ -15,7 +16,7 @@ export function BathRecordForm({ action, stageId }: { action: Action; stageId: s
     <ActionForm action={action} resetOnSuccess className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3" aria-label="Record in the bath log">
       <input type="hidden" name="stageId" value={stageId} />
       <SelectField name="kind" label="What was done" defaultValue="reading" options={BATH_RECORD_KINDS.map((k) => ({ value: k, label: MAINTENANCE_LABELS[k] }))} />
-      <Field name="performedAt" label="When (UTC)" type="datetime-local" defaultValue={new Date().toISOString().slice(0, 16)} />
+      <Field name="performedAt" label="When (UTC)" type="datetime-local" defaultValue={dateTimeFieldValue()} />
       <Field name="filterDescription" label="Filter fitted (filter changes)" placeholder="e.g. bag filter 25 µm" />
       <Field name="concentrationPct" label="Detergent concentration (%)" inputMode="decimal" />
       <Field name="conductivityUsPerCm" label="Bath conductivity (µS/cm)" inputMode="decimal" />

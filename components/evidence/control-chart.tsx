@@ -1,6 +1,8 @@
 "use client";
 
 import { CartesianGrid, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis } from "recharts";
+import { formatDate } from "@/lib/format/date";
+import { formatNumber } from "@/lib/format/number";
 
 export interface ControlChartProps {
   title: string;
@@ -14,11 +16,11 @@ export interface ControlChartProps {
   movingRangeSignals: string[];
 }
 
-const fmt = (n: number) => new Intl.NumberFormat("en-GB", { maximumFractionDigits: 2 }).format(n);
+const fmt = (n: number) => formatNumber(n, 2);
 
 /** Individuals chart: each value with the centre line and 3σ limits; out-of-control points drawn as crosses and listed in words. */
 export function ControlChart({ title, unit, points, centre, ucl, lcl, movingRangeLimit, movingRangeSignals }: ControlChartProps) {
-  const data = points.map((p) => ({ ...p, date: p.at.slice(0, 10), flagged: p.outOfControl ? p.value : null }));
+  const data = points.map((p) => ({ ...p, date: formatDate(p.at), flagged: p.outOfControl ? p.value : null }));
   const flagged = points.filter((p) => p.outOfControl);
   return (
     <figure className="rounded-lg border border-stone-200 bg-white p-4" aria-label={`Control chart: ${title}`}>
@@ -46,7 +48,7 @@ export function ControlChart({ title, unit, points, centre, ucl, lcl, movingRang
           "No point out of control."
         ) : (
           <span>
-            <strong>Out of control:</strong> {flagged.map((p) => `${p.at.slice(0, 10)} (${fmt(p.value)} ${unit}, ${p.outOfControl})`).join("; ")}.
+            <strong>Out of control:</strong> {flagged.map((p) => `${formatDate(p.at)} (${fmt(p.value)} ${unit}, ${p.outOfControl})`).join("; ")}.
           </span>
         )}{" "}
         Moving range limit {fmt(movingRangeLimit)} {unit}

@@ -1,14 +1,14 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type PaginationState, type SortingState } from "@tanstack/react-table";
-import { ArrowDown, ArrowUp, ArrowUpDown } from "lucide-react";
+import { getCoreRowModel, useReactTable, type ColumnDef, type PaginationState, type SortingState } from "@tanstack/react-table";
 import Link from "next/link";
 import { useState } from "react";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 import { humanize } from "@/lib/format/labels";
 import type { EvidenceListPage, EvidenceListRow } from "@/lib/schemas/evidence-list";
 import { Button } from "@/components/ui/button";
+import { DataTable } from "@/components/ui/data-table";
 import { OutcomeWord, RunStatusWord } from "./status-word";
 
 const columns: ColumnDef<EvidenceListRow>[] = [
@@ -139,51 +139,13 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
           {error.message}
         </p>
       )}
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white" aria-busy={isFetching}>
-        <table className="w-full text-sm">
-          <caption className="sr-only">Test runs, {data?.total ?? 0} found</caption>
-          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const sorted = header.column.getIsSorted();
-                  const label = String(header.column.columnDef.header);
-                  return (
-                    <th key={header.id} className="px-3 py-2 font-medium" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}>
-                      {header.column.getCanSort() ? (
-                        <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-stone-900" onClick={header.column.getToggleSortingHandler()}>
-                          {label}
-                          {sorted === "asc" ? <ArrowUp className="h-3 w-3" aria-hidden="true" /> : sorted === "desc" ? <ArrowDown className="h-3 w-3" aria-hidden="true" /> : <ArrowUpDown className="h-3 w-3" aria-hidden="true" />}
-                        </button>
-                      ) : (
-                        label
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-stone-100">
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id}>
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2 whitespace-nowrap">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-            {data && data.rows.length === 0 && (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-stone-600">
-                  No test runs match these filters.
-                </td>
-              </tr>
-            )}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        table={table}
+        caption={`Test runs, ${data?.total ?? 0} found`}
+        busy={isFetching}
+        bodyClassName="whitespace-nowrap"
+        empty={data ? "No test runs match these filters." : undefined}
+      />
       <div className="mt-3 flex items-center justify-between text-sm text-stone-700">
         <p>
           {data ? `${data.total} run${data.total === 1 ? "" : "s"} · page ${pagination.pageIndex + 1} of ${pages}` : "Loading…"}

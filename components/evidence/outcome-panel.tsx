@@ -1,5 +1,6 @@
 import type { RunOutcome } from "@/lib/evidence/outcome";
 import { OutcomeWord } from "./status-word";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 function CheckWord({ pass }: { pass: boolean | null }) {
   return <OutcomeWord outcome={pass === null ? "incomplete" : pass ? "pass" : "fail"} />;
@@ -42,37 +43,34 @@ export function OutcomePanel({ outcome }: { outcome: RunOutcome }) {
         </div>
       ))}
       {outcome.samples.length > 0 && (
-        <table className="mt-4 w-full text-sm">
-          <caption className="mb-1 text-left text-sm font-semibold">Samples</caption>
-          <thead className="text-left text-xs text-stone-500 uppercase">
-            <tr>
-              <th className="py-1 pr-3 font-medium">Sample</th>
-              <th className="py-1 pr-3 font-medium">Outcome</th>
-              <th className="py-1 font-medium">Working</th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-stone-100 align-top">
+        <Table density="compact" caption="Samples" captionVisible frameClassName="mt-4">
+          <THead>
+            <Th>Sample</Th>
+            <Th>Outcome</Th>
+            <Th>Working</Th>
+          </THead>
+          <TBody className="align-top">
             {outcome.samples.map((s) => (
               <tr key={s.sampleLabel}>
-                <td className="py-1.5 pr-3 font-medium whitespace-nowrap">
+                <Td className="font-medium whitespace-nowrap">
                   {s.sampleLabel}
                   {s.worstCase && <span className="block text-xs font-normal text-stone-600">worst-case position</span>}
                   {s.code && <span className="block font-mono text-xs font-normal">{s.code}</span>}
-                </td>
-                <td className="py-1.5 pr-3 whitespace-nowrap">
+                </Td>
+                <Td className="whitespace-nowrap">
                   <OutcomeWord outcome={s.outcome} />
-                </td>
-                <td className="py-1.5">
+                </Td>
+                <Td>
                   <ul className="space-y-0.5 font-mono text-xs text-stone-700">
                     {s.lines.map((l, i) => (
                       <li key={i}>{l}</li>
                     ))}
                   </ul>
-                </td>
+                </Td>
               </tr>
             ))}
-          </tbody>
-        </table>
+          </TBody>
+        </Table>
       )}
     </section>
   );

@@ -3,8 +3,9 @@
 import { useState } from "react";
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { TrendSeries } from "@/lib/evidence/trends";
+import { formatNumber } from "@/lib/format/number";
 
-const fmt = (n: number) => new Intl.NumberFormat("en-GB", { maximumFractionDigits: 1 }).format(n);
+const fmt = (n: number) => formatNumber(n, 1);
 
 /** Normalised count of one size-class limit over time, worst sample per run, with the specification limit. */
 export function TrendChart({ series }: { series: TrendSeries }) {

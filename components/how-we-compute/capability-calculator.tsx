@@ -13,6 +13,7 @@ import {
   parseInput,
   requiredInput,
 } from "./calc-kit";
+import { TBody, Table, Td, Th } from "@/components/ui/table";
 
 type Mode = "summary" | "values";
 
@@ -164,23 +165,22 @@ function CapabilityTable({ result, unit }: { result: CapabilityResult; unit: str
     ["Ppk (overall σ)", result.ppk, " (ratio)"],
   ];
   return (
-    <table className="w-full text-left text-sm">
-      <caption className="sr-only">Capability indices</caption>
-      <tbody>
+    <Table density="compact" caption="Capability indices">
+      <TBody>
         {rows
           .filter(([, value]) => value !== undefined)
           .map(([label, value, u]) => (
-            <tr key={label} className="border-b border-stone-100">
-              <th scope="row" className="py-1 font-normal text-stone-700">
+            <tr key={label}>
+              <Th scope="row">
                 {label}
-              </th>
-              <td className="py-1 text-right font-mono">
+              </Th>
+              <Td align="right" className="font-mono">
                 {fixed(value!, label.startsWith("Mean") || label.startsWith("σ") ? 4 : 2)}
                 {u}
-              </td>
+              </Td>
             </tr>
           ))}
-      </tbody>
-    </table>
+      </TBody>
+    </Table>
   );
 }

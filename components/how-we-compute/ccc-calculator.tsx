@@ -23,6 +23,7 @@ import {
   requiredInput,
   Verdict,
 } from "./calc-kit";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 type Kind = Basis["kind"];
 
@@ -129,32 +130,29 @@ export function CccCalculator() {
               <p className="break-all rounded-md bg-brand-50 px-3 py-2 font-mono text-lg text-brand-900">
                 {code.value}
               </p>
-              <table className="w-full text-left text-sm">
-                <caption className="sr-only">Normalised counts and levels per size class</caption>
-                <thead className="border-b border-stone-200 text-stone-600">
-                  <tr>
-                    <th className="py-1 font-medium">Class</th>
-                    <th className="py-1 text-right font-medium">Absolute (particles)</th>
-                    <th className="py-1 text-right font-medium">Normalised ({unit})</th>
-                    {kind !== "component" && <th className="py-1 text-right font-medium">Level</th>}
-                  </tr>
-                </thead>
-                <tbody className="font-mono">
+              <Table density="compact" caption="Normalised counts and levels per size class">
+                <THead>
+                  <Th>Class</Th>
+                  <Th align="right">Absolute (particles)</Th>
+                  <Th align="right">Normalised ({unit})</Th>
+                  {kind !== "component" && <Th align="right">Level</Th>}
+                </THead>
+                <TBody className="font-mono">
                   {SIZE_CLASSES.filter((c) => counts[c.key] !== undefined).map((c) => {
                     const normalised = normalizeCount(counts[c.key]!, basis);
                     return (
-                      <tr key={c.key} className="border-b border-stone-100">
-                        <td className="py-1">{c.key}</td>
-                        <td className="py-1 text-right">{counts[c.key]}</td>
-                        <td className="py-1 text-right">{normalised.toFixed(2)}</td>
+                      <tr key={c.key}>
+                        <Td>{c.key}</Td>
+                        <Td align="right">{counts[c.key]}</Td>
+                        <Td align="right">{normalised.toFixed(2)}</Td>
                         {kind !== "component" && (
-                          <td className="py-1 text-right">{cleanlinessLevel(normalised)}</td>
+                          <Td align="right">{cleanlinessLevel(normalised)}</Td>
                         )}
                       </tr>
                     );
                   })}
-                </tbody>
-              </table>
+                </TBody>
+              </Table>
               <p className="text-xs text-stone-600">
                 Classes not entered are not analysed; classes above the smallest one entered and
                 left blank count as 0 (level 00).

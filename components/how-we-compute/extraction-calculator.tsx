@@ -23,6 +23,7 @@ import {
   requiredInput,
   Verdict,
 } from "./calc-kit";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 const SLOTS = 8;
 const STATUS_TEXT = {
@@ -107,29 +108,26 @@ export function ExtractionCalculator() {
                   failWord={STATUS_TEXT[outcome.value.status]}
                 />
               </p>
-              <table className="w-full text-left text-sm">
-                <caption className="sr-only">Decay value after each extraction</caption>
-                <thead className="border-b border-stone-200 text-stone-600">
-                  <tr>
-                    <th className="py-1 font-medium">n</th>
-                    <th className="py-1 text-right font-medium">C_n (particles)</th>
-                    <th className="py-1 text-right font-medium">C_1 + … + C_n (particles)</th>
-                    <th className="py-1 text-right font-medium">Decay value (%)</th>
-                    <th className="py-1 text-right font-medium">≤ limit?</th>
-                  </tr>
-                </thead>
-                <tbody className="font-mono">
+              <Table density="compact" caption="Decay value after each extraction">
+                <THead>
+                  <Th>n</Th>
+                  <Th align="right">C_n (particles)</Th>
+                  <Th align="right">C_1 + … + C_n (particles)</Th>
+                  <Th align="right">Decay value (%)</Th>
+                  <Th align="right">≤ limit?</Th>
+                </THead>
+                <TBody className="font-mono">
                   {rows.map((r) => (
-                    <tr key={r.n} className="border-b border-stone-100">
-                      <td className="py-1">{r.n}</td>
-                      <td className="py-1 text-right">{r.count}</td>
-                      <td className="py-1 text-right">{r.cumulative}</td>
-                      <td className="py-1 text-right">{r.percent.toFixed(1)} %</td>
-                      <td className="py-1 text-right">{r.ratio <= limit ? "yes" : "no"}</td>
+                    <tr key={r.n}>
+                      <Td>{r.n}</Td>
+                      <Td align="right">{r.count}</Td>
+                      <Td align="right">{r.cumulative}</Td>
+                      <Td align="right">{r.percent.toFixed(1)} %</Td>
+                      <Td align="right">{r.ratio <= limit ? "yes" : "no"}</Td>
                     </tr>
                   ))}
-                </tbody>
-              </table>
+                </TBody>
+              </Table>
               <figure>
                 <div
                   className="h-56 w-full"

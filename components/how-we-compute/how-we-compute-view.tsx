@@ -15,6 +15,8 @@ import { CapabilityCalculator } from "./capability-calculator";
 import { CccCalculator } from "./ccc-calculator";
 import { ExtractionCalculator } from "./extraction-calculator";
 import { SampleSizeCalculator } from "./sample-size-calculator";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { formatNumber } from "@/lib/format/number";
 
 const SECTIONS = [
   ["size-classes", "Size classes and cleanliness levels"],
@@ -72,7 +74,7 @@ export function HowWeComputeView() {
             level&apos;s upper bound up to and including its own; 00 means no particle.
           </p>
           <div className="grid items-start gap-6 lg:grid-cols-2">
-            <DataTable
+            <ReferenceTable
               caption="Size classes [std]"
               head={["Class", "From (µm, inclusive)", "To (µm, exclusive)"]}
               rows={SIZE_CLASSES.map((c) => [
@@ -81,12 +83,12 @@ export function HowWeComputeView() {
                 c.maxUm === null ? "open" : String(c.maxUm),
               ])}
             />
-            <DataTable
+            <ReferenceTable
               caption="Cleanliness levels: largest count per 1000 cm² or per 100 cm³"
               head={["Level", "Up to and including", "Source"]}
               rows={CLEANLINESS_LEVELS.map((l) => [
                 l.level,
-                l.upper.toLocaleString("en"),
+                formatNumber(l.upper),
                 `[${l.source}]`,
               ])}
             />
@@ -238,8 +240,8 @@ export function HowWeComputeView() {
           </Formula>
           <p>
             The bounds are the published rounded ones ({ISO4406_SCALE[13].upperPerMl},{" "}
-            {ISO4406_SCALE[17].upperPerMl.toLocaleString("en")},{" "}
-            {ISO4406_SCALE[18].upperPerMl.toLocaleString("en")} … particles per mL for scale numbers
+            {formatNumber(ISO4406_SCALE[17].upperPerMl)},{" "}
+            {formatNumber(ISO4406_SCALE[18].upperPerMl)} … particles per mL for scale numbers
             13, 17, 18). Worked example [std]: 3000 / 500 / 7 particles per mL → 19/16/10. The
             counts are cumulative, so they cannot rise with size.
           </p>
@@ -257,7 +259,7 @@ export function HowWeComputeView() {
           <p>
             Check value [derived]: 500 µS/cm at 20 °C with α = 0.02 per °C → 555.6 µS/cm at 25 °C.
           </p>
-          <DataTable
+          <ReferenceTable
             caption="ISO 7888 factors held by Washproof"
             head={["Temperature (°C)", "f25 (ratio)", "Source"]}
             rows={ISO7888_F25.map((p) => [String(p.temperatureC), p.f25.toFixed(3), p.source])}
@@ -342,30 +344,25 @@ function Code({ children }: { children: ReactNode }) {
   );
 }
 
-function DataTable({ caption, head, rows }: { caption: string; head: string[]; rows: string[][] }) {
+function ReferenceTable({ caption, head, rows }: { caption: string; head: string[]; rows: string[][] }) {
   return (
-    <table className="w-full text-left text-sm">
-      <caption className="mb-1 text-left text-xs font-semibold text-stone-700">{caption}</caption>
-      <thead className="border-b border-stone-300 text-stone-600">
-        <tr>
-          {head.map((h) => (
-            <th key={h} scope="col" className="py-1 pr-3 font-medium">
-              {h}
-            </th>
-          ))}
-        </tr>
-      </thead>
-      <tbody className="font-mono text-stone-800">
+    <Table density="compact" caption={caption} captionVisible>
+      <THead>
+        {head.map((h) => (
+          <Th key={h}>
+            {h}
+          </Th>
+        ))}
+      </THead>
+      <TBody className="font-mono text-stone-800">
         {rows.map((row) => (
-          <tr key={row[0]} className="border-b border-stone-100">
+          <tr key={row[0]}>
             {row.map((cell, i) => (
-              <td key={i} className="py-0.5 pr-3">
-                {cell}
-              </td>
+              <Td key={i}>{cell}</Td>
             ))}
           </tr>
         ))}
-      </tbody>
-    </table>
+      </TBody>
+    </Table>
   );
 }

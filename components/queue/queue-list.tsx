@@ -5,6 +5,8 @@ import { AlarmClock, CalendarClock } from "lucide-react";
 import Link from "next/link";
 import type { QueueEntry } from "@/lib/server/queue/get-queue";
 import { EmptyState } from "@/components/ui/empty-state";
+import { formatDate } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 async function fetchQueue(): Promise<QueueEntry[]> {
   const response = await fetch("/api/queue", { cache: "no-store" });
@@ -31,43 +33,38 @@ export function QueueList({ initial }: { initial: QueueEntry[] }) {
     );
   }
   return (
-    <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white" aria-busy={isFetching}>
-      <table className="w-full text-sm">
-        <caption className="sr-only">Waiting for you</caption>
-        <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-          <tr>
-            <th className="px-3 py-2 font-medium">What</th>
-            <th className="px-3 py-2 font-medium">Item</th>
-            <th className="px-3 py-2 font-medium">Due</th>
+    <Table caption="Waiting for you" busy={isFetching}>
+      <THead>
+        <Th>What</Th>
+        <Th>Item</Th>
+        <Th>Due</Th>
+      </THead>
+      <TBody>
+        {data.map((item) => (
+          <tr key={item.id}>
+            <Td className="font-medium whitespace-nowrap">{item.kind}</Td>
+            <Td>
+              <Link href={item.href} className="font-medium text-brand-800 hover:underline">
+                {item.title}
+              </Link>
+              <span className="block text-xs text-stone-600">{item.detail}</span>
+            </Td>
+            <Td className="whitespace-nowrap">
+              {item.due === null ? (
+                "—"
+              ) : item.overdue ? (
+                <span className="inline-flex items-center gap-1 font-medium text-red-800">
+                  <AlarmClock className="h-4 w-4" aria-hidden="true" /> Overdue since {formatDate(item.due)}
+                </span>
+              ) : (
+                <span className="inline-flex items-center gap-1">
+                  <CalendarClock className="h-4 w-4" aria-hidden="true" /> {formatDate(item.due)}
+                </span>
+              )}
+            </Td>
           </tr>
-        </thead>
-        <tbody className="divide-y divide-stone-100">
-          {data.map((item) => (
-            <tr key={item.id}>
-              <td className="px-3 py-2 font-medium whitespace-nowrap">{item.kind}</td>
-              <td className="px-3 py-2">
-                <Link href={item.href} className="font-medium text-brand-800 hover:underline">
-                  {item.title}
-                </Link>
-                <span className="block text-xs text-stone-600">{item.detail}</span>
-              </td>
-              <td className="px-3 py-2 whitespace-nowrap">
-                {item.due === null ? (
-                  "—"
-                ) : item.overdue ? (
-                  <span className="inline-flex items-center gap-1 font-medium text-red-800">
-                    <AlarmClock className="h-4 w-4" aria-hidden="true" /> Overdue since {item.due.slice(0, 10)}
-                  </span>
-                ) : (
-                  <span className="inline-flex items-center gap-1">
-                    <CalendarClock className="h-4 w-4" aria-hidden="true" /> {item.due.slice(0, 10)}
-                  </span>
-                )}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+        ))}
+      </TBody>
+    </Table>
   );
 }

@@ -1,7 +1,9 @@
 import { Caution } from "@/components/ui/caution";
-import { rangeWithUnit, STAGE_MODE_LABELS, withUnit } from "@/lib/format/labels";
+import { STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { rangeWithUnit, withUnit } from "@/lib/format/number";
 import type { RecipeSnapshot } from "@/lib/changes/diff";
 import { hazardsOfStages } from "@/lib/recipes/hazards";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 /** A recipe version as a lab record: stage, parameter, setpoint, validated range, critical — with its cautions first. */
 export function RecipeTable({ content, caption }: { content: RecipeSnapshot; caption: string }) {
@@ -17,31 +19,28 @@ export function RecipeTable({ content, caption }: { content: RecipeSnapshot; cap
           ))}
         </div>
       )}
-      <table className="mt-4 w-full text-sm">
-        <caption className="sr-only">{caption}</caption>
-        <thead className="border-b border-stone-200 text-left text-xs text-stone-500 uppercase">
-          <tr>
-            <th className="py-1.5 pr-3 font-medium">Stage</th>
-            <th className="py-1.5 pr-3 font-medium">Parameter</th>
-            <th className="py-1.5 pr-3 text-right font-medium">Setpoint</th>
-            <th className="py-1.5 pr-3 font-medium">Validated range</th>
-            <th className="py-1.5 font-medium">Critical</th>
-          </tr>
-        </thead>
-        <tbody className="divide-y divide-stone-100">
+      <Table density="compact" caption={caption} frameClassName="mt-4">
+        <THead>
+          <Th>Stage</Th>
+          <Th>Parameter</Th>
+          <Th align="right">Setpoint</Th>
+          <Th>Validated range</Th>
+          <Th>Critical</Th>
+        </THead>
+        <TBody>
           {content.stages.flatMap((stage, si) =>
             (stage.parameters.length ? stage.parameters : [null]).map((p, i) => (
               <tr key={`${si}-${p?.key ?? "none"}`}>
-                <td className="py-1.5 pr-3 align-top">{i === 0 ? `${stage.name}${stage.mode ? ` (${STAGE_MODE_LABELS[stage.mode] ?? stage.mode})` : ""}` : ""}</td>
-                <td className="py-1.5 pr-3">{p?.name ?? "—"}</td>
-                <td className="py-1.5 pr-3 text-right tabular-nums">{p ? withUnit(p.setpoint, p.unit) : ""}</td>
-                <td className="py-1.5 pr-3 tabular-nums">{p ? rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit) : ""}</td>
-                <td className="py-1.5">{p ? (p.critical ? "Critical" : "—") : ""}</td>
+                <Td className="align-top">{i === 0 ? `${stage.name}${stage.mode ? ` (${STAGE_MODE_LABELS[stage.mode] ?? stage.mode})` : ""}` : ""}</Td>
+                <Td>{p?.name ?? "—"}</Td>
+                <Td numeric>{p ? withUnit(p.setpoint, p.unit) : ""}</Td>
+                <Td className="tabular-nums">{p ? rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit) : ""}</Td>
+                <Td>{p ? (p.critical ? "Critical" : "—") : ""}</Td>
               </tr>
             )),
           )}
-        </tbody>
-      </table>
+        </TBody>
+      </Table>
     </>
   );
 }

@@ -1,11 +1,14 @@
 import Link from "next/link";
-import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
+import { humanize } from "@/lib/format/labels";
+import { formatBytes, rangeWithUnit, withUnit } from "@/lib/format/number";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
 import type { ParameterHistory } from "@/lib/server/trace/parameter-history";
-import { BINDING_LABELS, CHANGE_LABELS, formatBytes, formatUtc, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";
+import { BINDING_LABELS, CHANGE_LABELS, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 import type { ParameterValue } from "@/lib/trace/timeline";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 type Entry = ParameterHistory["entries"][number];
 
@@ -68,7 +71,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
             <>
               <dt className="text-stone-600">In force</dt>
               <dd>
-                from {formatUtc(period.effectiveFrom)} {period.effectiveTo ? `to ${formatUtc(period.effectiveTo)}` : "until now"}
+                from {formatDateTime(period.effectiveFrom)} {period.effectiveTo ? `to ${formatDateTime(period.effectiveTo)}` : "until now"}
               </dd>
             </>
           )}
@@ -80,8 +83,8 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
               <Link href={`/changes/${change.id}`} className="font-semibold text-brand-800 hover:underline">
                 {change.number}
               </Link>{" "}
-              · {change.title} · {CHANGE_STATUS_LABELS[change.status]} · impact <span className="font-semibold">{humanize(change.impact)}</span> · opened by {change.author ?? "—"} on {change.openedAt.slice(0, 10)}
-              {change.closedAt ? `, closed ${change.closedAt.slice(0, 10)}` : ""}
+              · {change.title} · {CHANGE_STATUS_LABELS[change.status]} · impact <span className="font-semibold">{humanize(change.impact)}</span> · opened by {change.author ?? "—"} on {formatDate(change.openedAt)}
+              {change.closedAt ? `, closed ${formatDate(change.closedAt)}` : ""}
             </p>
             {change.parameterImpact && (
               <p className="mt-1">
@@ -117,31 +120,26 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
             {change.signatures.length === 0 ? (
               <p className="text-stone-600">No signatures yet.</p>
             ) : (
-              <table className="mt-1 w-full text-sm">
-                <caption className="sr-only">Signatures on {change.number}</caption>
-                <thead className="text-left text-xs text-stone-500 uppercase">
-                  <tr>
-                    <th className="py-1 pr-3 font-medium">Meaning</th>
-                    <th className="py-1 pr-3 font-medium">Printed name</th>
-                    <th className="py-1 pr-3 font-medium">Signed</th>
-                    <th className="py-1 pr-3 font-medium">Revision</th>
-                    <th className="py-1 font-medium">Binding</th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-stone-100">
+              <Table density="compact" caption={<>Signatures on {change.number}</>} frameClassName="mt-1">
+                <THead>
+                  <Th>Meaning</Th>
+                  <Th>Printed name</Th>
+                  <Th>Signed</Th>
+                  <Th>Revision</Th>
+                  <Th>Binding</Th>
+                </THead>
+                <TBody>
                   {change.signatures.map((s) => (
                     <tr key={s.id}>
-                      <td className="py-1 pr-3 font-medium">{MEANING_LABELS[s.meaning]}</td>
-                      <td className="py-1 pr-3">{s.printedName}</td>
-                      <td className="py-1 pr-3 tabular-nums">{formatUtc(s.signedAt)}</td>
-                      <td className="py-1 pr-3">{s.revision}</td>
-                      <td className="py-1" title={`Signed hash ${s.contentHash}`}>
-                        {BINDING_LABELS[s.binding]}
-                      </td>
+                      <Td className="font-medium">{MEANING_LABELS[s.meaning]}</Td>
+                      <Td>{s.printedName}</Td>
+                      <Td className="tabular-nums">{formatDateTime(s.signedAt)}</Td>
+                      <Td>{s.revision}</Td>
+                      <Td title={`Signed hash ${s.contentHash}`}>{BINDING_LABELS[s.binding]}</Td>
                     </tr>
                   ))}
-                </tbody>
-              </table>
+                </TBody>
+              </Table>
             )}
 
             <h4 className="mt-4 font-semibold">Requalification evidence</h4>
@@ -168,7 +166,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
                           {run.lab ? ` at ${run.lab}` : ""}
                         </p>
                         {run.signatures.length > 0 && (
-                          <p className="text-stone-700">{run.signatures.map((s) => `${MEANING_LABELS[s.meaning]} by ${s.printedName}, ${formatUtc(s.signedAt)}`).join(" · ")}</p>
+                          <p className="text-stone-700">{run.signatures.map((s) => `${MEANING_LABELS[s.meaning]} by ${s.printedName}, ${formatDateTime(s.signedAt)}`).join(" · ")}</p>
                         )}
                         {run.files.length === 0 ? (
                           <p className="text-stone-600">No files attached.</p>
@@ -192,7 +190,7 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
         ) : (
           <p className="mt-4 border-t border-stone-100 pt-3 text-sm text-stone-700">
             No change request: {versions[0] === 1 ? "the recipe's first validated version" : "a version recorded without change control"}
-            {entry.versionAuthor ? `, recorded by ${entry.versionAuthor}` : ""} on {entry.versionCreatedAt.slice(0, 10)}. {entry.versionNote ?? ""}
+            {entry.versionAuthor ? `, recorded by ${entry.versionAuthor}` : ""} on {formatDate(entry.versionCreatedAt)}. {entry.versionNote ?? ""}
           </p>
         )}
       </article>

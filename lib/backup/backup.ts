@@ -6,11 +6,11 @@ import { evidenceFiles } from "@/db/schema";
 import { sha256Hex, verifyAuditChain } from "@/lib/audit";
 import { localStore, type BlobStore } from "@/lib/storage";
 import { DATABASE_FILE, filePathOf, MANIFEST_FILE, sha256File, UPLOADS_FOLDER, type Manifest } from "./manifest";
+import { fileStamp } from "@/lib/format/date";
 
 export class BackupError extends Error {}
 
 /** 2026-05-04T08:00:00.000Z → 20260504T080000Z: sorts by time and is safe in a folder name. */
-const stamp = (now: Date) => now.toISOString().replace(/[-:]/g, "").replace(/\.\d+Z$/, "Z");
 
 /**
  * A consistent online copy: VACUUM INTO takes one read snapshot of the live
@@ -24,7 +24,7 @@ export async function backup(input: { databaseUrl: string; authToken?: string; s
   }
   const started = performance.now();
   const createdAt = (input.now ?? new Date()).toISOString();
-  const finalDir = resolve(input.outDir, `washproof-${stamp(new Date(createdAt))}`);
+  const finalDir = resolve(input.outDir, `washproof-${fileStamp(new Date(createdAt))}`);
   const workDir = `${finalDir}.partial`;
   rmSync(workDir, { recursive: true, force: true });
   mkdirSync(workDir, { recursive: true });

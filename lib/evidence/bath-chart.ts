@@ -1,5 +1,6 @@
 import { individualsChart, type ControlRule } from "@/lib/stats";
 import { BATH_VARIABLES, type BathVariable } from "./maintenance";
+import { formatDate } from "@/lib/format/date";
 
 const RULE_WORDS: Record<ControlRule, string> = {
   "beyond-limits": "beyond the 3σ limits",
@@ -16,7 +17,7 @@ export function bathControlChart(records: { performedAt: string; values: Partial
   const flags = new Map<number, string>();
   const movingRangeSignals: string[] = [];
   for (const o of chart.outOfControl) {
-    if (o.rule === "moving-range-above-limit") movingRangeSignals.push(`${points[o.index - 1].at.slice(0, 10)} → ${points[o.index].at.slice(0, 10)}`);
+    if (o.rule === "moving-range-above-limit") movingRangeSignals.push(`${formatDate(points[o.index - 1].at)} → ${formatDate(points[o.index].at)}`);
     else flags.set(o.index, [flags.get(o.index), RULE_WORDS[o.rule]].filter(Boolean).join("; "));
   }
   return {

@@ -1,4 +1,5 @@
 import Papa from "papaparse";
+import { formatSize } from "@/lib/format/number";
 
 /** The evidence file types we accept, recognised from their bytes. */
 export const ACCEPTED_TYPES = {
@@ -89,10 +90,6 @@ export function findFormulaCells(text: string, limit = 20): string[] {
   return problems;
 }
 
-/** A file size for messages: kB below a megabyte, so a small limit never reads "0 MB". */
-export function formatSize(bytes: number): string {
-  return bytes < 1048576 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1048576).toFixed(1)} MB`;
-}
 
 export interface CheckedFile {
   type: AcceptedType;

@@ -1,12 +1,14 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
-import { humanize, rangeWithUnit, withUnit } from "@/lib/format/labels";
+import { humanize } from "@/lib/format/labels";
+import { formatBytes, rangeWithUnit, withUnit } from "@/lib/format/number";
 import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { MEANING_LABELS, MEANING_STATEMENTS } from "@/lib/signatures/rules";
-import { BINDING_LABELS, formatBytes, OUTCOME_LABELS } from "@/lib/trace/labels";
+import { BINDING_LABELS, OUTCOME_LABELS } from "@/lib/trace/labels";
 import type { AuditPack } from "@/lib/server/trace/audit-pack";
-import { PDF_FONT, utc } from "./fonts";
+import { formatDateTime } from "@/lib/format/date";
+import { PDF_FONT } from "./fonts";
 
 const s = StyleSheet.create({
   page: { fontFamily: PDF_FONT, fontSize: 8.5, paddingTop: 22, paddingBottom: 22, paddingHorizontal: 40, color: "#1c1917" },
@@ -106,9 +108,9 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
           {pack.recipe.code} {pack.recipe.name}: version {pack.fromVersion.version} ({humanize(pack.fromVersion.status)}) → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
         </KV>
         {pack.family && <KV k="Adds part family">{`${pack.family.code} ${pack.family.name}`}</KV>}
-        <KV k="Opened">{utc(cr.createdAt)}</KV>
-        <KV k="Closed">{cr.closedAt ? utc(cr.closedAt) : "not closed"}</KV>
-        <KV k="Version in force">{pack.toVersion.effectiveFrom ? `version ${pack.toVersion.version} from ${utc(pack.toVersion.effectiveFrom)}` : `version ${pack.fromVersion.version} (the proposal is not in force)`}</KV>
+        <KV k="Opened">{formatDateTime(cr.createdAt, { seconds: true })}</KV>
+        <KV k="Closed">{cr.closedAt ? formatDateTime(cr.closedAt, { seconds: true }) : "not closed"}</KV>
+        <KV k="Version in force">{pack.toVersion.effectiveFrom ? `version ${pack.toVersion.version} from ${formatDateTime(pack.toVersion.effectiveFrom, { seconds: true })}` : `version ${pack.fromVersion.version} (the proposal is not in force)`}</KV>
         <KV k="Content hash (SHA-256)">{pack.contentHash}</KV>
 
         <Text style={s.h2}>2. Justification and risk assessment</Text>
@@ -180,7 +182,7 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
             rows={pack.signatures.map((sig) => [
               sig.printedName,
               MEANING_LABELS[sig.meaning],
-              utc(sig.signedAt),
+              formatDateTime(sig.signedAt, { seconds: true }),
               String(sig.revision),
               <View key="st">
                 <Text>{MEANING_STATEMENTS[sig.meaning]}</Text>
@@ -207,7 +209,7 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
               </Text>
               {run.signatures.map((sig) => (
                 <Text key={sig.id} style={s.p}>
-                  {MEANING_LABELS[sig.meaning]} by {sig.printedName}, {utc(sig.signedAt)} · signed hash <Text style={s.mono}>{sig.contentHash}</Text>
+                  {MEANING_LABELS[sig.meaning]} by {sig.printedName}, {formatDateTime(sig.signedAt, { seconds: true })} · signed hash <Text style={s.mono}>{sig.contentHash}</Text>
                 </Text>
               ))}
               {run.files.length === 0 && <Text style={s.p}>No files attached.</Text>}
@@ -238,11 +240,11 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
         <Table
           widths={[0.5, 1.5, 1.4, 2, 1.4, 3.2]}
           head={["Seq", "At (UTC)", "Actor", "Event", "Record", "Event hash (SHA-256)"]}
-          rows={pack.events.map((e) => [String(e.seq), utc(e.at), e.actorName, e.eventType, humanize(e.recordType), <Text key="h" style={s.mono}>{e.hash}</Text>])}
+          rows={pack.events.map((e) => [String(e.seq), formatDateTime(e.at, { seconds: true }), e.actorName, e.eventType, humanize(e.recordType), <Text key="h" style={s.mono}>{e.hash}</Text>])}
         />
 
         <Text style={s.small}>
-          Printed {utc(printedAt)} by {printedBy} from Washproof.
+          Printed {formatDateTime(printedAt, { seconds: true })} by {printedBy} from Washproof.
         </Text>
       </Page>
     </Document>

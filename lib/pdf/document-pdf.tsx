@@ -4,7 +4,8 @@ import type { DocumentStatus, SignatureMeaning } from "@/db/enums";
 import { DOCUMENT_STATUS_LABELS } from "@/lib/documents/lifecycle";
 import type { RichNode } from "@/lib/documents/rich-text";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
-import { PDF_FONT, utc } from "./fonts";
+import { formatDateTime } from "@/lib/format/date";
+import { PDF_FONT } from "./fonts";
 
 const s = StyleSheet.create({
   page: { fontFamily: PDF_FONT, fontSize: 9.5, paddingTop: 24, paddingBottom: 24, paddingHorizontal: 48, color: "#1c1917" },
@@ -200,7 +201,7 @@ function DocumentPdf(d: DocumentPdfInput) {
                 <View key={i} style={s.row}>
                   <Text style={s.cell}>{sig.printedName}</Text>
                   <Text style={s.cell}>{MEANING_LABELS[sig.meaning]}</Text>
-                  <Text style={s.cell}>{utc(sig.signedAt)}</Text>
+                  <Text style={s.cell}>{formatDateTime(sig.signedAt, { seconds: true })}</Text>
                   <Text style={s.cell}>{sig.validity === "valid" ? "Valid for this content" : "Invalid: content changed"}</Text>
                 </View>
               ))}
@@ -208,7 +209,7 @@ function DocumentPdf(d: DocumentPdfInput) {
           )}
           <Text style={s.mono}>Content hash (SHA-256): {d.contentHash ?? "none: a draft has no frozen content"}</Text>
           <Text style={s.small}>
-            Printed {utc(d.printedAt)} by {d.printedBy}. {controlled ? "Controlled copy as effective at printing; check Washproof for the version in force." : "Uncontrolled copy: this version is not in force."}
+            Printed {formatDateTime(d.printedAt, { seconds: true })} by {d.printedBy}. {controlled ? "Controlled copy as effective at printing; check Washproof for the version in force." : "Uncontrolled copy: this version is not in force."}
           </Text>
         </View>
       </Page>

@@ -17,5 +17,3 @@ Font.register({
 });
 // Hashes and codes must never be split with a hyphen.
 Font.registerHyphenationCallback((word) => [word]);
-
-export const utc = (iso: string) => `${iso.replace("T", " ").slice(0, 19)} UTC`;

@@ -28,13 +28,3 @@ export const BINDING_LABELS = {
 } as const;
 
 export const OUTCOME_LABELS: Record<string, string> = { pass: "Pass", fail: "Fail", incomplete: "Incomplete" };
-
-export function formatUtc(iso: string | null): string {
-  return iso ? `${iso.replace("T", " ").slice(0, 16)} UTC` : "—";
-}
-
-export function formatBytes(n: number): string {
-  if (n < 1024) return `${n} B`;
-  if (n < 1024 * 1024) return `${(n / 1024).toFixed(1)} KiB`;
-  return `${(n / 1024 / 1024).toFixed(1)} MiB`;
-}

@@ -1,4 +1,5 @@
 import { renderEmail } from "./layout";
+import { formatDate } from "@/lib/format/date";
 
 interface DocRef {
   documentId: string;
@@ -9,7 +10,7 @@ interface DocRef {
 
 const label = (d: DocRef) => `${d.number} version ${d.version} — ${d.title}`;
 const link = (d: DocRef) => ({ label: `Open ${d.number}`, path: `/documents/${d.documentId}?version=${d.version}` });
-const day = (iso: string | null) => (iso ? `${iso.slice(0, 10)} (UTC)` : "no date set");
+const day = (iso: string | null) => (iso ? `${formatDate(iso)} (UTC)` : "no date set");
 
 export function reviewRequestedEmail(input: DocRef & { role: "reviewer" | "approver"; author: string; due: string | null }) {
   const task = input.role === "approver" ? "approval" : "review";

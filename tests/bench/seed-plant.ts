@@ -20,6 +20,7 @@ import { loadRecipeSnapshot } from "@/db/recipe-content";
 import { migrateDatabase } from "@/db/migrate";
 import { DEMO_PASSWORD, DEMO_USERS } from "@/db/seed-data";
 import type { PlantScale } from "./plant-scale";
+import { formatDate } from "@/lib/format/date";
 
 /** A deterministic id per kind of row and index, shaped as a version-4 UUID so the zod checks accept it. */
 const uid = (kind: number, i: number) => `${kind.toString(16).padStart(8, "0")}-0000-4000-8000-${i.toString(16).padStart(12, "0")}`;
@@ -277,7 +278,7 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
   await put("test_runs", ["id", "number", "part_family_id", "recipe_version_id", "change_request_id", "test_type", "status", "outcome", "revision", "technician_id", "lab", "performed_on", "created_by", "created_at"], (function* () {
     for (let i = 0; i < N; i++) {
       const x = run(i);
-      yield [x.id, x.number, uid(K.family, x.family), x.version, x.cr === null ? null : uid(K.change, x.cr), x.type, x.status, x.outcome, 1, x.technician, "Larchfield cleanliness lab", iso(dayMs(x.day)).slice(0, 10), x.creator, iso(dayMs(x.day, 7))];
+      yield [x.id, x.number, uid(K.family, x.family), x.version, x.cr === null ? null : uid(K.change, x.cr), x.type, x.status, x.outcome, 1, x.technician, "Larchfield cleanliness lab", formatDate(iso(dayMs(x.day))), x.creator, iso(dayMs(x.day, 7))];
     }
   })());
   await put("test_samples", ["id", "run_id", "sample_label", "basket_position", "worst_case", "data", "created_at"], (function* () {
@@ -292,7 +293,7 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
   const signable = Array.from({ length: signableRuns }, (_, k) => {
     const x = run(firstSignable + k);
     const results = Array.from({ length: scale.samplesPerRun }, (_, n) => result(x, n));
-    const hashable = { number: x.number, revision: 1, partFamilyId: uid(K.family, x.family), recipeVersionId: x.version, testType: x.type, technicianId: x.technician, lab: "Larchfield cleanliness lab", performedOn: iso(dayMs(x.day)).slice(0, 10), changeRequestId: null, protocolDocumentId: null, requirement: null, runData: null };
+    const hashable = { number: x.number, revision: 1, partFamilyId: uid(K.family, x.family), recipeVersionId: x.version, testType: x.type, technicianId: x.technician, lab: "Larchfield cleanliness lab", performedOn: formatDate(iso(dayMs(x.day))), changeRequestId: null, protocolDocumentId: null, requirement: null, runData: null };
     return { runId: x.id, contentHash: runContentHash(hashable, results, []).hash };
   });
 
@@ -357,7 +358,7 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
       const status = d < firstLibrary && d > busyChanges ? (d < 1 + busyChanges + inReview ? "in_review" : "draft") : "effective";
       const at = iso(dayMs(m.day, 9));
       const frozen = status !== "draft";
-      yield [uid(K.docVersion, d), uid(K.document, d), 1, status, JSON.stringify(content), frozen ? sha256Hex(canonicalJson(content)) : null, 1, status === "effective" ? at.slice(0, 10) : null, status === "effective" && d > 0 && d <= busyChanges ? 0 : 1, "sequence", frozen ? at : null, status === "effective" ? at : null, m.owner, at];
+      yield [uid(K.docVersion, d), uid(K.document, d), 1, status, JSON.stringify(content), frozen ? sha256Hex(canonicalJson(content)) : null, 1, status === "effective" ? formatDate(at) : null, status === "effective" && d > 0 && d <= busyChanges ? 0 : 1, "sequence", frozen ? at : null, status === "effective" ? at : null, m.owner, at];
     }
   })());
   for (const n of narratives) {
@@ -386,7 +387,7 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
     }
   })());
   await put("requalification_intervals", ["id", "recipe_version_id", "part_family_id", "interval_months", "last_qualified_at", "created_at"], (function* () {
-    for (let r = 0; r < R; r++) yield [uid(K.requal, r), uid(K.version, versionIndex(r, versionsOf(r))), uid(K.family, r % scale.partFamilies), 12, iso(dayMs(versionDay(r, versionsOf(r)), 6)).slice(0, 10), created];
+    for (let r = 0; r < R; r++) yield [uid(K.requal, r), uid(K.version, versionIndex(r, versionsOf(r))), uid(K.family, r % scale.partFamilies), 12, formatDate(iso(dayMs(versionDay(r, versionsOf(r)), 6))), created];
   })());
 
   // ── The audit trail: every record's events in time order, topped up with sign-ins ──

@@ -23,6 +23,7 @@ import { signRun } from "@/lib/server/evidence/sign-run";
 import { createUser } from "@/lib/server/users/create-user";
 import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";
+import { todayUtc } from "@/lib/format/date";
 
 /**
  * Two people acting on one record at the same moment, on a real database file:
@@ -79,7 +80,7 @@ describe("concurrent signers", () => {
   it("the same approval sent twice at once signs once; the second is told the version no longer waits for it", async () => {
     const { versionId, contentHash } = await documentInReview([people.reviewer.id], "sequence");
     await signReview(people.reviewer, { versionId, contentHash, password: people.reviewer.password });
-    const approve = () => approveVersion(people.approver, { versionId, contentHash, password: people.approver.password, effectiveDate: NOW.toISOString().slice(0, 10) });
+    const approve = () => approveVersion(people.approver, { versionId, contentHash, password: people.approver.password, effectiveDate: todayUtc(NOW) });
     const { won, lost } = await race(approve(), approve());
     expect(won).toHaveLength(1);
     expect(lost).toHaveLength(1);

@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listUsers } from "@/lib/server/users/queries";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Admin · Users" };
 
@@ -22,36 +23,31 @@ export default async function AdminPage() {
           </Link>
         }
       />
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-        <table className="w-full text-sm">
-          <caption className="sr-only">Users</caption>
-          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-            <tr>
-              <th className="px-3 py-2 font-medium">Name</th>
-              <th className="px-3 py-2 font-medium">E-mail</th>
-              <th className="px-3 py-2 font-medium">Roles</th>
-              <th className="px-3 py-2 font-medium">Status</th>
+      <Table caption="Users">
+        <THead>
+          <Th>Name</Th>
+          <Th>E-mail</Th>
+          <Th>Roles</Th>
+          <Th>Status</Th>
+        </THead>
+        <TBody>
+          {users.map((u) => (
+            <tr key={u.id}>
+              <Td>
+                <Link href={`/admin/users/${u.id}`} className="font-medium text-brand-800 hover:underline">
+                  {u.name}
+                </Link>
+                {u.jobTitle && <span className="block text-xs text-stone-500">{u.jobTitle}</span>}
+              </Td>
+              <Td>{u.email}</Td>
+              <Td>{u.roles.map((r) => ROLE_LABELS[r]).join(", ")}</Td>
+              <Td>
+                <UserStatus {...u} />
+              </Td>
             </tr>
-          </thead>
-          <tbody className="divide-y divide-stone-100">
-            {users.map((u) => (
-              <tr key={u.id}>
-                <td className="px-3 py-2">
-                  <Link href={`/admin/users/${u.id}`} className="font-medium text-brand-800 hover:underline">
-                    {u.name}
-                  </Link>
-                  {u.jobTitle && <span className="block text-xs text-stone-500">{u.jobTitle}</span>}
-                </td>
-                <td className="px-3 py-2">{u.email}</td>
-                <td className="px-3 py-2">{u.roles.map((r) => ROLE_LABELS[r]).join(", ")}</td>
-                <td className="px-3 py-2">
-                  <UserStatus {...u} />
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+          ))}
+        </TBody>
+      </Table>
     </>
   );
 }

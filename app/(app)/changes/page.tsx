@@ -6,6 +6,8 @@ import { PageHeader } from "@/components/ui/page-header";
 import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listChangeRequests } from "@/lib/server/changes/queries";
+import { formatDate } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Changes" };
 
@@ -20,43 +22,38 @@ export default async function ChangesPage() {
           An engineer opens a change request from a recipe&apos;s effective version under <Link href="/systems" className="text-brand-800 underline">Cleaning systems</Link>.
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Change requests</caption>
-            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="px-3 py-2 font-medium">Number</th>
-                <th className="px-3 py-2 font-medium">Title</th>
-                <th className="px-3 py-2 font-medium">Recipe</th>
-                <th className="px-3 py-2 font-medium">Kind</th>
-                <th className="px-3 py-2 font-medium">Impact</th>
-                <th className="px-3 py-2 font-medium">Status</th>
-                <th className="px-3 py-2 font-medium">Opened</th>
+        <Table caption="Change requests">
+          <THead>
+            <Th>Number</Th>
+            <Th>Title</Th>
+            <Th>Recipe</Th>
+            <Th>Kind</Th>
+            <Th>Impact</Th>
+            <Th>Status</Th>
+            <Th>Opened</Th>
+          </THead>
+          <TBody>
+            {rows.map((r) => (
+              <tr key={r.id}>
+                <Td className="whitespace-nowrap">
+                  <Link href={`/changes/${r.id}`} className="font-medium text-brand-800 hover:underline">
+                    {r.number}
+                  </Link>
+                </Td>
+                <Td>{r.title}</Td>
+                <Td className="whitespace-nowrap">{r.recipeCode}</Td>
+                <Td>{CHANGE_KIND_LABELS[r.kind]}</Td>
+                <Td>
+                  <ImpactWord impact={r.impact} />
+                </Td>
+                <Td>{CHANGE_STATUS_LABELS[r.status]}</Td>
+                <Td className="whitespace-nowrap tabular-nums">
+                  {formatDate(r.createdAt)} · {r.author}
+                </Td>
               </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
-              {rows.map((r) => (
-                <tr key={r.id}>
-                  <td className="px-3 py-2 whitespace-nowrap">
-                    <Link href={`/changes/${r.id}`} className="font-medium text-brand-800 hover:underline">
-                      {r.number}
-                    </Link>
-                  </td>
-                  <td className="px-3 py-2">{r.title}</td>
-                  <td className="px-3 py-2 whitespace-nowrap">{r.recipeCode}</td>
-                  <td className="px-3 py-2">{CHANGE_KIND_LABELS[r.kind]}</td>
-                  <td className="px-3 py-2">
-                    <ImpactWord impact={r.impact} />
-                  </td>
-                  <td className="px-3 py-2">{CHANGE_STATUS_LABELS[r.status]}</td>
-                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">
-                    {r.createdAt.slice(0, 10)} · {r.author}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+            ))}
+          </TBody>
+        </Table>
       )}
     </>
   );

@@ -7,6 +7,7 @@ import { can } from "@/lib/auth/permissions";
 import { TYPE_LABELS } from "@/lib/documents/lifecycle";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listDocuments } from "@/lib/server/documents/queries";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Documents" };
 
@@ -32,39 +33,34 @@ export default async function DocumentsPage() {
           Controlled documents are listed here with their number, version, status and effective date once an engineer drafts the first protocol.
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Controlled documents</caption>
-            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="px-3 py-2 font-medium">Number</th>
-                <th className="px-3 py-2 font-medium">Title</th>
-                <th className="px-3 py-2 font-medium">Type</th>
-                <th className="px-3 py-2 font-medium">Latest version</th>
-                <th className="px-3 py-2 font-medium">In force</th>
-                <th className="px-3 py-2 font-medium">Owner</th>
+        <Table caption="Controlled documents">
+          <THead>
+            <Th>Number</Th>
+            <Th>Title</Th>
+            <Th>Type</Th>
+            <Th>Latest version</Th>
+            <Th>In force</Th>
+            <Th>Owner</Th>
+          </THead>
+          <TBody>
+            {rows.map((d) => (
+              <tr key={d.id}>
+                <Td className="font-mono text-xs whitespace-nowrap">
+                  <Link href={`/documents/${d.id}`} className="font-medium text-brand-800 hover:underline">
+                    {d.number}
+                  </Link>
+                </Td>
+                <Td>{d.title}</Td>
+                <Td className="whitespace-nowrap">{TYPE_LABELS[d.type]}</Td>
+                <Td className="whitespace-nowrap">
+                  v{d.latest.version} <StatusBadge status={d.latest.status} />
+                </Td>
+                <Td className="whitespace-nowrap">{d.effective ? `v${d.effective.version} since ${d.effective.effectiveDate}` : "None"}</Td>
+                <Td>{d.owner}</Td>
               </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
-              {rows.map((d) => (
-                <tr key={d.id}>
-                  <td className="px-3 py-2 font-mono text-xs whitespace-nowrap">
-                    <Link href={`/documents/${d.id}`} className="font-medium text-brand-800 hover:underline">
-                      {d.number}
-                    </Link>
-                  </td>
-                  <td className="px-3 py-2">{d.title}</td>
-                  <td className="px-3 py-2 whitespace-nowrap">{TYPE_LABELS[d.type]}</td>
-                  <td className="px-3 py-2 whitespace-nowrap">
-                    v{d.latest.version} <StatusBadge status={d.latest.status} />
-                  </td>
-                  <td className="px-3 py-2 whitespace-nowrap">{d.effective ? `v${d.effective.version} since ${d.effective.effectiveDate}` : "None"}</td>
-                  <td className="px-3 py-2">{d.owner}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+            ))}
+          </TBody>
+        </Table>
       )}
     </>
   );

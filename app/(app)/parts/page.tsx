@@ -1,9 +1,10 @@
 import type { Metadata } from "next";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
-import { formatNumber, withUnit } from "@/lib/format/labels";
+import { formatNumber, withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listPartFamilies, listSpecs } from "@/lib/server/plant/queries";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Parts & specifications" };
 
@@ -21,30 +22,26 @@ export default async function PartsPage() {
       ) : (
         <section aria-labelledby="families" className="mb-8">
           <h2 id="families" className="mb-2 text-base font-semibold">Part families</h2>
-          <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-            <table className="w-full text-sm">
-              <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-                <tr>
-                  <th className="px-3 py-2 font-medium">Code</th>
-                  <th className="px-3 py-2 font-medium">Name</th>
-                  <th className="px-3 py-2 font-medium">Material</th>
-                  <th className="px-3 py-2 text-right font-medium">Wetted area</th>
-                  <th className="px-3 py-2 font-medium">Specification</th>
+          <Table>
+            <THead>
+              <Th>Code</Th>
+              <Th>Name</Th>
+              <Th>Material</Th>
+              <Th align="right">Wetted area</Th>
+              <Th>Specification</Th>
+            </THead>
+            <TBody>
+              {families.map(({ family, spec }) => (
+                <tr key={family.id}>
+                  <Td className="font-mono text-xs">{family.code}</Td>
+                  <Td>{family.name}</Td>
+                  <Td>{family.material}</Td>
+                  <Td numeric>{formatNumber(family.wettedAreaCm2, 1)} cm²</Td>
+                  <Td>{spec.code}</Td>
                 </tr>
-              </thead>
-              <tbody className="divide-y divide-stone-100">
-                {families.map(({ family, spec }) => (
-                  <tr key={family.id}>
-                    <td className="px-3 py-2 font-mono text-xs">{family.code}</td>
-                    <td className="px-3 py-2">{family.name}</td>
-                    <td className="px-3 py-2">{family.material}</td>
-                    <td className="px-3 py-2 text-right tabular-nums">{formatNumber(family.wettedAreaCm2, 1)} cm²</td>
-                    <td className="px-3 py-2">{spec.code}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+              ))}
+            </TBody>
+          </Table>
         </section>
       )}
       <section aria-labelledby="specs">

@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listCleaningSystems } from "@/lib/server/plant/queries";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Cleaning systems" };
 
@@ -29,27 +30,24 @@ export default async function SystemsPage() {
                 <span className="text-xs text-stone-600">{s.siteName}</span>
               </div>
               {s.description && <p className="mt-1 text-sm text-stone-600">{s.description}</p>}
-              <table className="mt-4 w-full text-sm">
-                <caption className="sr-only">Stages of {s.name}</caption>
-                <thead className="text-left text-xs text-stone-500 uppercase">
-                  <tr>
-                    <th className="py-1 pr-3 font-medium">#</th>
-                    <th className="py-1 pr-3 font-medium">Stage</th>
-                    <th className="py-1 pr-3 font-medium">Kind</th>
-                    <th className="py-1 font-medium">Can run</th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-stone-100">
+              <Table density="compact" caption={<>Stages of {s.name}</>} frameClassName="mt-4">
+                <THead>
+                  <Th>#</Th>
+                  <Th>Stage</Th>
+                  <Th>Kind</Th>
+                  <Th>Can run</Th>
+                </THead>
+                <TBody>
                   {s.stages.map((st) => (
                     <tr key={st.id}>
-                      <td className="py-1.5 pr-3 tabular-nums">{st.position}</td>
-                      <td className="py-1.5 pr-3">{st.name}</td>
-                      <td className="py-1.5 pr-3">{humanize(st.kind)}</td>
-                      <td className="py-1.5">{st.capabilities.map((c) => STAGE_MODE_LABELS[c] ?? c).join(", ")}</td>
+                      <Td className="tabular-nums">{st.position}</Td>
+                      <Td>{st.name}</Td>
+                      <Td>{humanize(st.kind)}</Td>
+                      <Td>{st.capabilities.map((c) => STAGE_MODE_LABELS[c] ?? c).join(", ")}</Td>
                     </tr>
                   ))}
-                </tbody>
-              </table>
+                </TBody>
+              </Table>
               <p className="mt-3 text-sm text-stone-700">
                 Recipes:{" "}
                 {s.recipes.length === 0

@@ -4,7 +4,7 @@ import { ParameterTimeline } from "@/components/trace/parameter-timeline";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
-import { rangeWithUnit } from "@/lib/format/labels";
+import { rangeWithUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
 import { traceQuerySchema } from "@/lib/schemas/trace";

@@ -1,4 +1,5 @@
 import type { Outcome, TestType } from "@/db/enums";
+import { formatNumber } from "@/lib/format/number";
 
 /** What each test type's evaluation reads: the stored rows of one run and the limits that apply to it. */
 
@@ -60,7 +61,7 @@ export interface RunOutcome {
   missing: string[];
 }
 
-export const fmt = (n: number, digits = 1) => new Intl.NumberFormat("en-GB", { maximumFractionDigits: digits }).format(n);
+export const fmt = (n: number, digits = 1) => formatNumber(n, digits);
 export const word = (pass: boolean) => (pass ? "pass" : "fail");
 
 /**

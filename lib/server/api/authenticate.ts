@@ -4,6 +4,7 @@ import { getDb } from "@/db/client";
 import { apiTokens, userRoles, users, type Role } from "@/db/schema";
 import { bearerToken, hashApiToken } from "@/lib/auth/api-token";
 import { can, type Permission } from "@/lib/auth/permissions";
+import { formatDate } from "@/lib/format/date";
 
 export interface ApiUser {
   id: string;
@@ -30,7 +31,7 @@ export async function authenticateApi(request: Request, permission: Permission, 
     .innerJoin(users, eq(users.id, apiTokens.userId))
     .where(eq(apiTokens.tokenHash, hashApiToken(token)));
   if (!row) return { ok: false, status: 401, message: "This API token is not known. Check it was copied whole, or create a new one." };
-  if (row.token.revokedAt) return { ok: false, status: 401, message: `This API token was revoked on ${row.token.revokedAt.slice(0, 10)}. Create a new one.` };
+  if (row.token.revokedAt) return { ok: false, status: 401, message: `This API token was revoked on ${formatDate(row.token.revokedAt)}. Create a new one.` };
   if (!row.user.active) return { ok: false, status: 401, message: "The account that owns this API token is deactivated." };
   if (row.user.lockedUntil && row.user.lockedUntil > now.toISOString()) return { ok: false, status: 401, message: "The account that owns this API token is locked after failed passwords. Try again later." };
   // Recorded before the permission check: a refused call is still a use of the token.

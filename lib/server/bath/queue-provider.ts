@@ -3,6 +3,7 @@ import { can } from "@/lib/auth/permissions";
 import { MAINTENANCE_LABELS, STATE_LABELS } from "@/lib/evidence/maintenance";
 import type { QueueProvider } from "@/lib/server/queue/types";
 import { listMaintenance } from "./queries";
+import { formatDate } from "@/lib/format/date";
 
 /** Bath changes, filter changes and readings that are due or overdue, for those who keep the log. */
 export const bathQueueProvider: QueueProvider = async (user, now) => {
@@ -13,7 +14,7 @@ export const bathQueueProvider: QueueProvider = async (user, now) => {
       id: `maintenance:${m.intervalId}`,
       kind: MAINTENANCE_LABELS[m.kind],
       title: `${m.system} · ${m.tank}`,
-      detail: `${STATE_LABELS[m.status.state]}: every ${m.intervalDays} days; last ${m.status.lastDoneAt ? m.status.lastDoneAt.slice(0, 10) : "never recorded"}`,
+      detail: `${STATE_LABELS[m.status.state]}: every ${m.intervalDays} days; last ${formatDate(m.status.lastDoneAt, "never recorded")}`,
       href: `/evidence/bath/${m.stageId}`,
       due: m.status.dueAt,
     }));

@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { documentVersions, type DocumentVersion } from "@/db/schema";
 import { canonicalJson, sha256Hex } from "@/lib/audit";
+import { todayUtc } from "@/lib/format/date";
 
 /**
  * The change narrative follows its change request: frozen (in review, hashed) when
@@ -20,7 +21,7 @@ export async function setNarrativeStatus(tx: Tx, documentId: string | null, stat
     .set({
       status,
       contentHash: frozen ? sha256Hex(canonicalJson(v.content as Record<string, unknown>)) : null,
-      effectiveDate: status === "effective" ? now.toISOString().slice(0, 10) : v.effectiveDate,
+      effectiveDate: status === "effective" ? todayUtc(now) : v.effectiveDate,
       updatedAt: now.toISOString(),
     })
     .where(eq(documentVersions.id, v.id));

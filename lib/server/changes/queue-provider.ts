@@ -7,6 +7,7 @@ import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
 import { dueRequalifications } from "./due-requalifications";
 import { loadGate } from "./snapshot";
+import { formatDate } from "@/lib/format/date";
 
 /** Change-control steps waiting for this user, and periodic requalifications falling due. */
 export const changeQueueProvider: QueueProvider = async (user, now) => {
@@ -41,7 +42,7 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
         id: `requalification:${d.interval.id}`,
         kind: d.state === "overdue" ? "Requalification overdue" : "Requalification due",
         title: `${d.recipe.code} v${d.version.version} × ${d.family.code}`,
-        detail: `Periodic requalification every ${d.interval.intervalMonths} months; last ${d.interval.lastQualifiedAt.slice(0, 10)}`,
+        detail: `Periodic requalification every ${d.interval.intervalMonths} months; last ${formatDate(d.interval.lastQualifiedAt)}`,
         href: `/systems/recipes/${d.recipe.id}`,
         due: d.due,
       });

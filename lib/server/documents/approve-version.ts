@@ -10,6 +10,7 @@ import { verifySigner } from "@/lib/server/signatures/verify-signer";
 import { approvedEmail } from "@/templates/email/documents";
 import { makeEffectiveInTx } from "./make-effective";
 import { assertTransition, findMyActiveStep, loadVersion, type DocumentActor } from "./shared";
+import { todayUtc } from "@/lib/format/date";
 
 /**
  * The approver signs "approved" on exactly the hash shown. A version whose
@@ -17,7 +18,7 @@ import { assertTransition, findMyActiveStep, loadVersion, type DocumentActor } f
  * one); a later date waits for the server's timer.
  */
 export async function approveVersion(actor: DocumentActor, input: { versionId: string; contentHash: string; password: string; effectiveDate: string }, now = new Date()) {
-  const today = now.toISOString().slice(0, 10);
+  const today = todayUtc(now);
   if (input.effectiveDate < today) throw new UserFacingError("The effective date cannot be before today.", { kind: "invalid", field: "effectiveDate" });
   const signer = await verifySigner({ userId: actor.id, password: input.password }, now);
   return getDb().transaction(async (tx) => {

@@ -3,6 +3,7 @@ import { and, eq, lte, ne } from "drizzle-orm";
 import { getDb, type Tx } from "@/db/client";
 import { documentVersions, type DocumentVersion } from "@/db/schema";
 import { appendAudit, SYSTEM_ACTOR, type AuditActor } from "@/lib/audit";
+import { todayUtc } from "@/lib/format/date";
 
 /**
  * Makes an approved version effective and supersedes the one it replaces, in
@@ -33,7 +34,7 @@ export async function makeEffectiveInTx(tx: Tx, actor: AuditActor, version: Docu
 
 /** Approved versions whose effective date has come: run by the server's timer. */
 export async function makeDueVersionsEffective(now = new Date()) {
-  const today = now.toISOString().slice(0, 10);
+  const today = todayUtc(now);
   const due = await getDb()
     .select()
     .from(documentVersions)

@@ -4,6 +4,7 @@ import { getDb } from "@/db/client";
 import { documentReviews, documents, documentVersions } from "@/db/schema";
 import { TYPE_LABELS } from "@/lib/documents/lifecycle";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
+import { formatDate } from "@/lib/format/date";
 
 /** Reviews and approvals whose turn has come for the user, and the user's drafts that were returned. */
 export const documentQueueProvider: QueueProvider = async (user) => {
@@ -18,7 +19,7 @@ export const documentQueueProvider: QueueProvider = async (user) => {
     id: `document-review:${review.id}`,
     kind: review.role === "approver" ? "Approval" : "Review",
     title: `${document.number} v${version.version} — ${document.title}`,
-    detail: `${TYPE_LABELS[document.type]}, waiting for your ${review.role === "approver" ? "approval" : "review"} since ${review.activatedAt!.slice(0, 10)}`,
+    detail: `${TYPE_LABELS[document.type]}, waiting for your ${review.role === "approver" ? "approval" : "review"} since ${formatDate(review.activatedAt!)}`,
     href: `/documents/${document.id}?version=${version.version}`,
     due: review.dueAt,
   }));

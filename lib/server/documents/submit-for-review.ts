@@ -7,6 +7,7 @@ import { UserFacingError } from "@/lib/server/errors";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
 import { activateNextStep, assertTransition, hashContent, loadVersion, type DocumentActor } from "./shared";
+import { todayUtc } from "@/lib/format/date";
 
 export interface SubmitForReview {
   versionId: string;
@@ -44,7 +45,7 @@ export async function submitForReview(actor: DocumentActor, input: SubmitForRevi
   if (!(await activeHolders([input.approverId], "approver")).has(input.approverId)) {
     throw new UserFacingError("The approver must be an active user with the approver role.", { kind: "invalid", field: "approverId" });
   }
-  if (input.dueDate && input.dueDate < now.toISOString().slice(0, 10)) throw new UserFacingError("The due date cannot be in the past.", { kind: "invalid", field: "dueDate" });
+  if (input.dueDate && input.dueDate < todayUtc(now)) throw new UserFacingError("The due date cannot be in the past.", { kind: "invalid", field: "dueDate" });
   const signer = await verifySigner({ userId: actor.id, password: input.password }, now);
 
   return getDb().transaction(async (tx) => {

@@ -2,6 +2,7 @@ import { readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import type { Client } from "@libsql/client";
 import fc from "fast-check";
+import { formatDate } from "@/lib/format/date";
 
 const ROOT = resolve(__dirname, "../../..");
 const read = (file: string) => readFileSync(join(ROOT, file), "utf8");
@@ -53,7 +54,7 @@ export function hostileText(words: string[], ids: Record<string, string[]>): fc.
     fc.constantFrom(...words),
     fc.constantFrom(...Object.values(ids).flat()),
     fc.uuid().map(String),
-    fc.date({ noInvalidDate: true }).map((d) => d.toISOString().slice(0, 10)),
+    fc.date({ noInvalidDate: true }).map((d) => formatDate(d)),
     fc.json({ maxDepth: 3 }),
     // Huge: far beyond any field's limit.
     fc.tuple(fc.integer({ min: 5, max: 300 }), fc.constantFrom("x", "é", "😀", "\u0000")).map(([k, c]) => c.repeat(k * 1000)),
@@ -90,7 +91,7 @@ function plausible(key: string, words: string[], ids: Record<string, string[]>):
     ...(own.length > 0 ? [{ weight: 6, arbitrary: fc.constantFrom(...own) }] : []),
     { weight: 3, arbitrary: fc.constantFrom(...words) },
     { weight: 2, arbitrary: fc.integer({ min: -5, max: 2000 }).map(String) },
-    { weight: 1, arbitrary: fc.date({ min: new Date("2020-01-01"), max: new Date("2030-12-31"), noInvalidDate: true }).map((d) => d.toISOString().slice(0, 10)) },
+    { weight: 1, arbitrary: fc.date({ min: new Date("2020-01-01"), max: new Date("2030-12-31"), noInvalidDate: true }).map((d) => formatDate(d)) },
     { weight: 1, arbitrary: fc.constantFrom("on", "true", "Routine check after the pump was replaced.", "Fennmoor hostile-input test") },
     { weight: 1, arbitrary: hostileText(words, ids) },
   );

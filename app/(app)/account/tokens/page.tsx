@@ -6,7 +6,8 @@ import { can } from "@/lib/auth/permissions";
 import { SCOPE_LABELS } from "@/lib/schemas/api-token";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listApiTokens } from "@/lib/server/api-tokens/queries";
-import { formatUtc } from "@/lib/trace/labels";
+import { formatDate, formatDateTime } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "API tokens" };
 
@@ -40,35 +41,32 @@ export default async function ApiTokensPage() {
         {tokens.length === 0 ? (
           <p className="text-sm text-stone-600">You have no tokens.</p>
         ) : (
-          <table className="w-full text-sm">
-            <caption className="sr-only">Your API tokens</caption>
-            <thead className="text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="py-1 pr-3 font-medium">Name</th>
-                <th className="py-1 pr-3 font-medium">Starts with</th>
-                <th className="py-1 pr-3 font-medium">Scope</th>
-                <th className="py-1 pr-3 font-medium">Created</th>
-                <th className="py-1 pr-3 font-medium">Last used</th>
-                <th className="py-1 pr-3 font-medium">Status</th>
-                <th className="py-1 font-medium">
-                  <span className="sr-only">Action</span>
-                </th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
+          <Table caption="Your API tokens">
+            <THead>
+              <Th>Name</Th>
+              <Th>Starts with</Th>
+              <Th>Scope</Th>
+              <Th>Created</Th>
+              <Th>Last used</Th>
+              <Th>Status</Th>
+              <Th>
+                <span className="sr-only">Action</span>
+              </Th>
+            </THead>
+            <TBody>
               {tokens.map((t) => (
                 <tr key={t.id}>
-                  <td className="py-1.5 pr-3 font-medium">{t.name}</td>
-                  <td className="py-1.5 pr-3 font-mono text-xs">{t.prefix}…</td>
-                  <td className="py-1.5 pr-3">{SCOPE_LABELS[t.scope]}</td>
-                  <td className="py-1.5 pr-3">{formatUtc(t.createdAt)}</td>
-                  <td className="py-1.5 pr-3">{t.lastUsedAt ? formatUtc(t.lastUsedAt) : "Never"}</td>
-                  <td className="py-1.5 pr-3">{t.revokedAt ? `Revoked ${t.revokedAt.slice(0, 10)}` : "Active"}</td>
-                  <td className="py-1.5">{!t.revokedAt && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</td>
+                  <Td className="font-medium">{t.name}</Td>
+                  <Td className="font-mono text-xs">{t.prefix}…</Td>
+                  <Td>{SCOPE_LABELS[t.scope]}</Td>
+                  <Td>{formatDateTime(t.createdAt)}</Td>
+                  <Td>{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : "Never"}</Td>
+                  <Td>{t.revokedAt ? `Revoked ${formatDate(t.revokedAt)}` : "Active"}</Td>
+                  <Td>{!t.revokedAt && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</Td>
                 </tr>
               ))}
-            </tbody>
-          </table>
+            </TBody>
+          </Table>
         )}
       </section>
     </>

@@ -8,6 +8,8 @@ import { env } from "@/lib/env";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listOutbox } from "@/lib/server/email/queries";
 import { sendTestEmailAction } from "../actions";
+import { formatDateTime } from "@/lib/format/date";
+import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Admin · E-mail" };
 
@@ -34,39 +36,31 @@ export default async function EmailAdminPage() {
 
       <section aria-labelledby="outbox" className="mb-10">
         <h2 id="outbox" className="mb-2 font-semibold">Outbox</h2>
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-          <table className="w-full text-sm">
-            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="px-3 py-2 font-medium">Queued (UTC)</th>
-                <th className="px-3 py-2 font-medium">To</th>
-                <th className="px-3 py-2 font-medium">Subject</th>
-                <th className="px-3 py-2 font-medium">Status</th>
-                <th className="px-3 py-2 text-right font-medium">Attempts</th>
-                <th className="px-3 py-2 font-medium">Last error</th>
+        <Table>
+          <THead>
+            <Th>Queued (UTC)</Th>
+            <Th>To</Th>
+            <Th>Subject</Th>
+            <Th>Status</Th>
+            <Th align="right">Attempts</Th>
+            <Th>Last error</Th>
+          </THead>
+          <TBody>
+            {outbox.length === 0 && (
+              <EmptyRow colSpan={6}>No e-mail has been queued yet.</EmptyRow>
+            )}
+            {outbox.map((m) => (
+              <tr key={m.id}>
+                <Td className="tabular-nums">{formatDateTime(m.createdAt, { seconds: true, zone: false })}</Td>
+                <Td>{m.to}</Td>
+                <Td>{m.subject}</Td>
+                <Td className={m.status === "failed" ? "font-medium text-red-800" : ""}>{STATUS_WORDS[m.status]}</Td>
+                <Td numeric>{m.attempts}</Td>
+                <Td className="text-xs text-stone-600">{m.lastError ?? "—"}</Td>
               </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
-              {outbox.length === 0 && (
-                <tr>
-                  <td colSpan={6} className="px-3 py-4 text-center text-stone-600">
-                    No e-mail has been queued yet.
-                  </td>
-                </tr>
-              )}
-              {outbox.map((m) => (
-                <tr key={m.id}>
-                  <td className="px-3 py-2 tabular-nums">{m.createdAt.replace("T", " ").slice(0, 19)}</td>
-                  <td className="px-3 py-2">{m.to}</td>
-                  <td className="px-3 py-2">{m.subject}</td>
-                  <td className={`px-3 py-2 ${m.status === "failed" ? "font-medium text-red-800" : ""}`}>{STATUS_WORDS[m.status]}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{m.attempts}</td>
-                  <td className="px-3 py-2 text-xs text-stone-600">{m.lastError ?? "—"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+            ))}
+          </TBody>
+        </Table>
       </section>
 
       {demo && (
@@ -83,7 +77,7 @@ export default async function EmailAdminPage() {
                 <li key={m.id}>
                   <details className="rounded-lg border border-stone-200 bg-white p-3">
                     <summary className="cursor-pointer text-sm">
-                      <span className="font-medium">{m.subject}</span> <span className="text-stone-600">to {m.to.join(", ")} · {m.receivedAt.replace("T", " ").slice(0, 19)} UTC</span>
+                      <span className="font-medium">{m.subject}</span> <span className="text-stone-600">to {m.to.join(", ")} · {formatDateTime(m.receivedAt, { seconds: true })}</span>
                     </summary>
                     <pre className="mt-2 font-sans text-sm whitespace-pre-wrap text-stone-800">{m.text}</pre>
                   </details>

@@ -4,6 +4,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getMatrixPage } from "@/lib/server/changes/queries";
 import { saveMatrixAction } from "./actions";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Admin · Requalification matrix" };
 
@@ -24,7 +25,7 @@ export default async function MatrixPage() {
         <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
           {versions.map((v) => (
             <li key={v.id} className="px-3 py-2">
-              Version {v.version} · {v.status === "effective" ? "In force" : "Superseded"} · {v.createdAt.slice(0, 10)} · {v.note}
+              Version {v.version} · {v.status === "effective" ? "In force" : "Superseded"} · {formatDate(v.createdAt)} · {v.note}
             </li>
           ))}
         </ul>

@@ -28,6 +28,7 @@ import {
   verifyChangeAction,
   withdrawChangeAction,
 } from "../actions";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Change request" };
 
@@ -56,7 +57,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
               {recipe.code}
             </Link>{" "}
             version {fromVersion.version} → proposed version {toVersion.version}
-            {page.family ? ` · adds ${page.family.code}` : ""} · opened by {page.author} on {cr.createdAt.slice(0, 10)}
+            {page.family ? ` · adds ${page.family.code}` : ""} · opened by {page.author} on {formatDate(cr.createdAt)}
           </>
         }
       />
@@ -81,8 +82,8 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           {may("reject") && <ReasonStep action={rejectChangeAction} changeRequestId={cr.id} label="Reject" />}
           {may("withdraw") && <ReasonStep action={withdrawChangeAction} changeRequestId={cr.id} label="Withdraw" />}
         </div>
-        {cr.status === "closed" && <p className="mt-2 text-sm">Closed on {cr.closedAt?.slice(0, 10)}: version {toVersion.version} is effective.</p>}
-        {(cr.status === "rejected" || cr.status === "withdrawn") && <p className="mt-2 text-sm">{CHANGE_STATUS_LABELS[cr.status]} on {cr.closedAt?.slice(0, 10)}; proposed version {toVersion.version} was withdrawn.</p>}
+        {cr.status === "closed" && <p className="mt-2 text-sm">Closed on {formatDate(cr.closedAt)}: version {toVersion.version} is effective.</p>}
+        {(cr.status === "rejected" || cr.status === "withdrawn") && <p className="mt-2 text-sm">{CHANGE_STATUS_LABELS[cr.status]} on {formatDate(cr.closedAt)}; proposed version {toVersion.version} was withdrawn.</p>}
       </section>
 
       {gateMatters && (

@@ -19,6 +19,7 @@ import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getDocumentAndVersion, listSigners } from "@/lib/server/documents/queries";
 import { hashContent } from "@/lib/server/documents/shared";
 import { approveAction, newVersionAction, rejectAction, retireAction, sendBackAction, signReviewAction, submitAction } from "../actions";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Document" };
 
@@ -192,7 +193,7 @@ export default async function DocumentPage({ params, searchParams }: { params: P
             <Panel title="Your approval">
               <div className="space-y-4">
                 <SignatureDialog action={approveAction} meaning="approved" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden}>
-                  <Field name="effectiveDate" label="Effective from" type="date" defaultValue={now.slice(0, 10)} hint="Today makes it effective at once and supersedes the version in force." />
+                  <Field name="effectiveDate" label="Effective from" type="date" defaultValue={formatDate(now)} hint="Today makes it effective at once and supersedes the version in force." />
                 </SignatureDialog>
                 <ActionForm action={rejectAction} className="space-y-2" aria-label="Reject">
                   <input type="hidden" name="versionId" value={version.id} />

@@ -5,6 +5,8 @@ import { PageHeader } from "@/components/ui/page-header";
 import { MAINTENANCE_LABELS, STATE_LABELS } from "@/lib/evidence/maintenance";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listMaintenance, listTanks } from "@/lib/server/bath/queries";
+import { formatDate } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Bath and filter log" };
 
@@ -19,41 +21,36 @@ export default async function BathIndexPage() {
           Isolate and lock out the machine before opening a filter housing or a tank. Wash baths run hot and alkaline: wear the protective equipment the site&apos;s procedures require.
         </Caution>
       </div>
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-        <table className="w-full text-sm">
-          <caption className="sr-only">Tanks and their maintenance</caption>
-          <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-            <tr>
-              <th className="px-3 py-2 font-medium">Tank</th>
-              <th className="px-3 py-2 font-medium">Maintenance</th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-stone-100">
-            {tanks.map(({ stage, system }) => {
-              const items = maintenance.filter((m) => m.stageId === stage.id);
-              return (
-                <tr key={stage.id}>
-                  <td className="px-3 py-2">
-                    <Link href={`/evidence/bath/${stage.id}`} className="font-medium text-brand-800 hover:underline">
-                      {system.code} · {stage.name}
-                    </Link>
-                    {stage.tankVolumeL !== null && <span className="block text-xs text-stone-600">{stage.tankVolumeL} L</span>}
-                  </td>
-                  <td className="px-3 py-2">
-                    {items.length === 0
-                      ? "No interval set"
-                      : items.map((m) => (
-                          <span key={m.intervalId} className="block">
-                            {MAINTENANCE_LABELS[m.kind]}: <strong>{STATE_LABELS[m.status.state]}</strong> — due {m.status.dueAt.slice(0, 10)}
-                          </span>
-                        ))}
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <Table caption="Tanks and their maintenance">
+        <THead>
+          <Th>Tank</Th>
+          <Th>Maintenance</Th>
+        </THead>
+        <TBody>
+          {tanks.map(({ stage, system }) => {
+            const items = maintenance.filter((m) => m.stageId === stage.id);
+            return (
+              <tr key={stage.id}>
+                <Td>
+                  <Link href={`/evidence/bath/${stage.id}`} className="font-medium text-brand-800 hover:underline">
+                    {system.code} · {stage.name}
+                  </Link>
+                  {stage.tankVolumeL !== null && <span className="block text-xs text-stone-600">{stage.tankVolumeL} L</span>}
+                </Td>
+                <Td>
+                  {items.length === 0
+                    ? "No interval set"
+                    : items.map((m) => (
+                        <span key={m.intervalId} className="block">
+                          {MAINTENANCE_LABELS[m.kind]}: <strong>{STATE_LABELS[m.status.state]}</strong> — due {formatDate(m.status.dueAt)}
+                        </span>
+                      ))}
+                </Td>
+              </tr>
+            );
+          })}
+        </TBody>
+      </Table>
     </>
   );
 }

@@ -9,6 +9,8 @@ import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getCleaningSystem } from "@/lib/server/plant/queries";
 import { updateSystemAction } from "../actions";
+import { formatDate } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Cleaning system" };
 
@@ -24,29 +26,26 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
         <h2 id="stages" className="text-lg font-semibold">
           Stages
         </h2>
-        <table className="mt-2 w-full text-sm">
-          <caption className="sr-only">Stages of {system.name}</caption>
-          <thead className="text-left text-xs text-stone-500 uppercase">
-            <tr>
-              <th className="py-1 pr-3 font-medium">#</th>
-              <th className="py-1 pr-3 font-medium">Stage</th>
-              <th className="py-1 pr-3 font-medium">Kind</th>
-              <th className="py-1 pr-3 font-medium">Can run</th>
-              <th className="py-1 text-right font-medium">Tank volume</th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-stone-100">
+        <Table density="compact" caption={<>Stages of {system.name}</>} frameClassName="mt-2">
+          <THead>
+            <Th>#</Th>
+            <Th>Stage</Th>
+            <Th>Kind</Th>
+            <Th>Can run</Th>
+            <Th align="right">Tank volume</Th>
+          </THead>
+          <TBody>
             {system.stages.map((st) => (
               <tr key={st.id}>
-                <td className="py-1.5 pr-3 tabular-nums">{st.position}</td>
-                <td className="py-1.5 pr-3">{st.name}</td>
-                <td className="py-1.5 pr-3">{humanize(st.kind)}</td>
-                <td className="py-1.5 pr-3">{st.capabilities.map((c) => STAGE_MODE_LABELS[c] ?? c).join(", ")}</td>
-                <td className="py-1.5 text-right tabular-nums">{st.tankVolumeL === null ? "—" : `${st.tankVolumeL} L`}</td>
+                <Td className="tabular-nums">{st.position}</Td>
+                <Td>{st.name}</Td>
+                <Td>{humanize(st.kind)}</Td>
+                <Td>{st.capabilities.map((c) => STAGE_MODE_LABELS[c] ?? c).join(", ")}</Td>
+                <Td numeric>{st.tankVolumeL === null ? "—" : `${st.tankVolumeL} L`}</Td>
               </tr>
             ))}
-          </tbody>
-        </table>
+          </TBody>
+        </Table>
         {can(user.roles, "systems.manage") && (
           <details className="mt-4">
             <summary className="cursor-pointer text-sm font-medium text-brand-800">Edit system and stages</summary>
@@ -66,7 +65,7 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
               </Link>
             </h2>
             <p className="text-sm text-stone-600">
-              {v ? `Effective version ${v.version} since ${v.effectiveFrom?.slice(0, 10)} · detergent: ${v.detergent ?? "none"}` : "No effective version"}
+              {v ? `Effective version ${v.version} since ${formatDate(v.effectiveFrom)} · detergent: ${v.detergent ?? "none"}` : "No effective version"}
             </p>
             {v && <RecipeTable content={v} caption={`Parameters of ${recipe.name}, version ${v.version}`} />}
           </section>

@@ -4,6 +4,7 @@ import { z } from "zod";
 import { getDb } from "@/db/client";
 import { defineAction } from "@/lib/actions/define-action";
 import { appendAudit, verifyAuditChain } from "@/lib/audit";
+import { formatNumber } from "@/lib/format/number";
 
 /** Re-computes the whole hash chain and reports where it breaks, if it does. */
 export const verifyIntegrityAction = defineAction({
@@ -23,7 +24,7 @@ export const verifyIntegrityAction = defineAction({
       }),
     );
     return result.ok
-      ? { message: `Intact: all ${result.events.toLocaleString("en-GB")} events verified in ${ms} ms; each links to the one before.` }
+      ? { message: `Intact: all ${formatNumber(result.events)} events verified in ${ms} ms; each links to the one before.` }
       : { ok: false as const, message: `Broken at event ${result.brokenAt}: ${result.reason}. ${result.events} events before it verified.` };
   },
 });

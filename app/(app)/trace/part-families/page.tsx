@@ -7,7 +7,9 @@ import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { partFamilyQuerySchema } from "@/lib/schemas/trace";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getPartFamilyHistory, listPartFamilies } from "@/lib/server/trace/part-family-history";
-import { formatUtc, OUTCOME_LABELS } from "@/lib/trace/labels";
+import { OUTCOME_LABELS } from "@/lib/trace/labels";
+import { formatDate, formatDateTime } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Part family history" };
 
@@ -62,38 +64,33 @@ export default async function PartFamilyTracePage({ searchParams }: { searchPara
                     version {v.version} · {humanize(v.status)}
                   </h3>
                   <p className="text-sm text-stone-700">
-                    {v.recipe.name} on {v.system.code} · in force {v.effectiveFrom ? `from ${formatUtc(v.effectiveFrom)} ${v.effectiveTo ? `to ${formatUtc(v.effectiveTo)}` : "until now"}` : "never (not made effective)"}
-                    {v.interval ? ` · last qualified ${v.interval.lastQualifiedAt.slice(0, 10)}, requalify every ${v.interval.intervalMonths} months` : ""}
+                    {v.recipe.name} on {v.system.code} · in force {v.effectiveFrom ? `from ${formatDateTime(v.effectiveFrom)} ${v.effectiveTo ? `to ${formatDateTime(v.effectiveTo)}` : "until now"}` : "never (not made effective)"}
+                    {v.interval ? ` · last qualified ${formatDate(v.interval.lastQualifiedAt)}, requalify every ${v.interval.intervalMonths} months` : ""}
                   </p>
                   {v.runs.length === 0 ? (
                     <p className="mt-2 text-sm text-stone-600">No test run on this version for the family.</p>
                   ) : (
-                    <table className="mt-2 w-full text-sm">
-                      <caption className="sr-only">
-                        Test runs of {history.family.code} on {v.recipe.code} version {v.version}
-                      </caption>
-                      <thead className="text-left text-xs text-stone-500 uppercase">
-                        <tr>
-                          <th className="py-1 pr-3 font-medium">Run</th>
-                          <th className="py-1 pr-3 font-medium">Test</th>
-                          <th className="py-1 pr-3 font-medium">Performed</th>
-                          <th className="py-1 pr-3 font-medium">Status</th>
-                          <th className="py-1 pr-3 font-medium">Computed outcome</th>
-                          <th className="py-1 font-medium">Change request</th>
-                        </tr>
-                      </thead>
-                      <tbody className="divide-y divide-stone-100">
+                    <Table density="compact" caption={<>Test runs of {history.family.code} on {v.recipe.code} version {v.version}</>} frameClassName="mt-2">
+                      <THead>
+                        <Th>Run</Th>
+                        <Th>Test</Th>
+                        <Th>Performed</Th>
+                        <Th>Status</Th>
+                        <Th>Computed outcome</Th>
+                        <Th>Change request</Th>
+                      </THead>
+                      <TBody>
                         {v.runs.map((r) => (
                           <tr key={r.id}>
-                            <td className="py-1 pr-3 font-medium">
+                            <Td className="font-medium">
                               {r.number}
                               {r.revision > 1 ? ` rev. ${r.revision}` : ""}
-                            </td>
-                            <td className="py-1 pr-3">{TEST_TYPE_LABELS[r.testType]}</td>
-                            <td className="py-1 pr-3">{r.performedOn ?? "—"}</td>
-                            <td className="py-1 pr-3">{humanize(r.status)}</td>
-                            <td className="py-1 pr-3 font-semibold">{r.outcome ? OUTCOME_LABELS[r.outcome] : "Not computed"}</td>
-                            <td className="py-1">
+                            </Td>
+                            <Td>{TEST_TYPE_LABELS[r.testType]}</Td>
+                            <Td>{r.performedOn ?? "—"}</Td>
+                            <Td>{humanize(r.status)}</Td>
+                            <Td className="font-semibold">{r.outcome ? OUTCOME_LABELS[r.outcome] : "Not computed"}</Td>
+                            <Td>
                               {r.changeRequestId && r.changeNumber ? (
                                 <Link href={`/changes/${r.changeRequestId}`} className="text-brand-800 hover:underline">
                                   {r.changeNumber}
@@ -101,11 +98,11 @@ export default async function PartFamilyTracePage({ searchParams }: { searchPara
                               ) : (
                                 "—"
                               )}
-                            </td>
+                            </Td>
                           </tr>
                         ))}
-                      </tbody>
-                    </table>
+                      </TBody>
+                    </Table>
                   )}
                 </li>
               ))}

@@ -4,6 +4,7 @@ import { toCsv } from "@/lib/csv/to-csv";
 import { jsonError, searchParamsObject, zodFieldErrors } from "@/lib/http/json";
 import { auditQuerySchema } from "@/lib/schemas/audit";
 import { iterateAuditEvents } from "@/lib/server/audit/query-audit-events";
+import { todayUtc } from "@/lib/format/date";
 import { defineRoute } from "@/lib/server/api/handler";
 
 // The stored columns by their own names: a row here is what its hash covers.
@@ -37,7 +38,7 @@ export const GET = defineRoute({ permission: "audit.export" }, async ({ request,
   await getDb().transaction((tx) =>
     appendAudit(tx, { id: user.id, name: user.name }, { eventType: "audit.exported", recordType: "audit_trail", recordId: "csv", new: { filters: given } }),
   );
-  const stamp = new Date().toISOString().slice(0, 10);
+  const stamp = todayUtc();
   return new Response(body, {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",

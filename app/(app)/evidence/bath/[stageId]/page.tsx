@@ -8,10 +8,12 @@ import { can } from "@/lib/auth/permissions";
 import { iso4406Code } from "@/lib/cleanliness";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
 import { BATH_VARIABLES, MAINTENANCE_LABELS, STATE_LABELS, type BathVariable } from "@/lib/evidence/maintenance";
-import { withUnit } from "@/lib/format/labels";
+import { withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getTank } from "@/lib/server/bath/queries";
 import { recordBathAction, setMaintenanceIntervalAction } from "../../actions";
+import { formatDate, formatDateTime } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Tank log" };
 
@@ -42,7 +44,7 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
           <ul className="mb-3 space-y-1 text-sm">
             {tank.maintenance.map((m) => (
               <li key={m.intervalId}>
-                {MAINTENANCE_LABELS[m.kind]} every {m.intervalDays} days: <strong>{STATE_LABELS[m.status.state]}</strong>, due {m.status.dueAt.slice(0, 10)} (last {m.status.lastDoneAt?.slice(0, 10) ?? "never recorded"})
+                {MAINTENANCE_LABELS[m.kind]} every {m.intervalDays} days: <strong>{STATE_LABELS[m.status.state]}</strong>, due {formatDate(m.status.dueAt)} (last {formatDate(m.status.lastDoneAt, "never recorded")})
               </li>
             ))}
           </ul>
@@ -61,39 +63,34 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
       </section>
       <section aria-labelledby="log-title">
         <h2 id="log-title" className="mb-2 text-base font-semibold">Log</h2>
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Bath log</caption>
-            <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-              <tr>
-                <th className="px-3 py-2 font-medium">When (UTC)</th>
-                <th className="px-3 py-2 font-medium">What</th>
-                <th className="px-3 py-2 text-right font-medium">Concentration</th>
-                <th className="px-3 py-2 text-right font-medium">Conductivity</th>
-                <th className="px-3 py-2 text-right font-medium">Temperature</th>
-                <th className="px-3 py-2 font-medium">ISO 4406</th>
-                <th className="px-3 py-2 font-medium">Notes</th>
-                <th className="px-3 py-2 font-medium">By</th>
+        <Table caption="Bath log">
+          <THead>
+            <Th>When (UTC)</Th>
+            <Th>What</Th>
+            <Th align="right">Concentration</Th>
+            <Th align="right">Conductivity</Th>
+            <Th align="right">Temperature</Th>
+            <Th>ISO 4406</Th>
+            <Th>Notes</Th>
+            <Th>By</Th>
+          </THead>
+          <TBody>
+            {[...tank.records].reverse().map(({ record: r, by }) => (
+              <tr key={r.id}>
+                <Td className="whitespace-nowrap tabular-nums">{formatDateTime(r.performedAt, { zone: false })}</Td>
+                <Td>{MAINTENANCE_LABELS[r.kind]}</Td>
+                <Td numeric className="whitespace-nowrap">{withUnit(r.concentrationPct, "%")}</Td>
+                <Td numeric className="whitespace-nowrap">{withUnit(r.conductivityUsPerCm, "µS/cm")}</Td>
+                <Td numeric className="whitespace-nowrap">{withUnit(r.temperatureC, "°C")}</Td>
+                <Td className="font-mono text-xs">
+                  {r.countPerMl4 !== null && r.countPerMl6 !== null && r.countPerMl14 !== null ? iso4406Code([r.countPerMl4, r.countPerMl6, r.countPerMl14]) : "—"}
+                </Td>
+                <Td className="min-w-48">{[r.filterDescription, r.notes].filter(Boolean).join(" · ") || "—"}</Td>
+                <Td>{by}</Td>
               </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
-              {[...tank.records].reverse().map(({ record: r, by }) => (
-                <tr key={r.id}>
-                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{r.performedAt.slice(0, 16).replace("T", " ")}</td>
-                  <td className="px-3 py-2">{MAINTENANCE_LABELS[r.kind]}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.concentrationPct, "%")}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.conductivityUsPerCm, "µS/cm")}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{withUnit(r.temperatureC, "°C")}</td>
-                  <td className="px-3 py-2 font-mono text-xs">
-                    {r.countPerMl4 !== null && r.countPerMl6 !== null && r.countPerMl14 !== null ? iso4406Code([r.countPerMl4, r.countPerMl6, r.countPerMl14]) : "—"}
-                  </td>
-                  <td className="px-3 py-2">{[r.filterDescription, r.notes].filter(Boolean).join(" · ") || "—"}</td>
-                  <td className="px-3 py-2">{by}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+            ))}
+          </TBody>
+        </Table>
       </section>
     </>
   );

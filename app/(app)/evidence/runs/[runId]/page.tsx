@@ -14,12 +14,14 @@ import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
 import { isCsvTestType } from "@/lib/evidence/csv-import";
 import { describeSample } from "@/lib/evidence/describe";
-import { formatSize } from "@/lib/evidence/files";
+import { formatSize } from "@/lib/format/number";
 import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRunDetail } from "@/lib/server/evidence/queries";
 import { addSampleAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
+import { formatDateTime } from "@/lib/format/date";
+import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Test run" };
 
@@ -99,40 +101,37 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             {files.length === 0 ? (
               <p className="text-sm text-stone-600">No files attached.</p>
             ) : (
-              <table className="w-full rounded-lg border border-stone-200 bg-white text-sm">
-                <caption className="sr-only">Evidence files</caption>
-                <thead className="bg-stone-50 text-left text-xs text-stone-500 uppercase">
-                  <tr>
-                    <th className="px-3 py-2 font-medium">File</th>
-                    <th className="px-3 py-2 font-medium">Kind</th>
-                    <th className="px-3 py-2 text-right font-medium">Size</th>
-                    <th className="px-3 py-2 font-medium">SHA-256</th>
-                    <th className="px-3 py-2 font-medium">Uploaded</th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-stone-100">
+              <Table caption="Evidence files">
+                <THead>
+                  <Th>File</Th>
+                  <Th>Kind</Th>
+                  <Th align="right">Size</Th>
+                  <Th>SHA-256</Th>
+                  <Th>Uploaded</Th>
+                </THead>
+                <TBody>
                   {files.map(({ file, uploader }) => (
                     <tr key={file.id}>
-                      <td className="px-3 py-2">
+                      <Td>
                         <a href={`/api/evidence/files/${file.id}`} className="font-medium text-brand-800 hover:underline">
                           {file.originalName}
                         </a>
-                      </td>
-                      <td className="px-3 py-2">
+                      </Td>
+                      <Td>
                         {humanize(file.kind)}
                         {file.sampleLabel ? ` · ${file.sampleLabel}` : ""}
-                      </td>
-                      <td className="px-3 py-2 text-right tabular-nums">{formatSize(file.sizeBytes)}</td>
-                      <td className="px-3 py-2 font-mono text-xs" title={file.sha256}>
+                      </Td>
+                      <Td numeric>{formatSize(file.sizeBytes)}</Td>
+                      <Td className="font-mono text-xs" title={file.sha256}>
                         {file.sha256.slice(0, 12)}…
-                      </td>
-                      <td className="px-3 py-2 text-xs">
-                        {uploader}, {file.uploadedAt.slice(0, 16).replace("T", " ")} UTC
-                      </td>
+                      </Td>
+                      <Td className="text-xs">
+                        {uploader}, {formatDateTime(file.uploadedAt)}
+                      </Td>
                     </tr>
                   ))}
-                </tbody>
-              </table>
+                </TBody>
+              </Table>
             )}
             {mayRecord && <FileUpload runId={run.id} maxMb={env().UPLOAD_MAX_MB} />}
           </section>

@@ -12,6 +12,7 @@ import { requalificationDue } from "@/lib/changes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRecipePage } from "@/lib/server/changes/queries";
 import { openChangeAction, setRequalificationIntervalAction } from "../../../changes/actions";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Recipe" };
 
@@ -40,7 +41,7 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
           </h2>
           {effective && (
             <p className="text-sm text-stone-600">
-              Effective since {effective.effectiveFrom?.slice(0, 10)} · detergent: {effective.detergent ?? "none"} · {effective.notes}
+              Effective since {formatDate(effective.effectiveFrom)} · detergent: {effective.detergent ?? "none"} · {effective.notes}
             </p>
           )}
           {content && effective && <RecipeTable content={content} caption={`Parameters of version ${effective.version}`} />}
@@ -73,8 +74,8 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                   <span>Version {v.version}</span>
                   <span>
                     {humanize(v.status)}
-                    {v.effectiveFrom ? ` · from ${v.effectiveFrom.slice(0, 10)}` : ""}
-                    {v.effectiveTo ? ` to ${v.effectiveTo.slice(0, 10)}` : ""}
+                    {v.effectiveFrom ? ` · from ${formatDate(v.effectiveFrom)}` : ""}
+                    {v.effectiveTo ? ` to ${formatDate(v.effectiveTo)}` : ""}
                   </span>
                 </li>
               ))}
@@ -90,8 +91,8 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
               <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
                 {intervals.map(({ interval, family }) => (
                   <li key={interval.id} className="px-3 py-2">
-                    <span className="font-medium">{family.code}</span> {family.name} · requalify every {interval.intervalMonths} months · last {interval.lastQualifiedAt.slice(0, 10)} · next due{" "}
-                    {requalificationDue(interval.lastQualifiedAt, interval.intervalMonths).slice(0, 10)}
+                    <span className="font-medium">{family.code}</span> {family.name} · requalify every {interval.intervalMonths} months · last {formatDate(interval.lastQualifiedAt)} · next due{" "}
+                    {formatDate(requalificationDue(interval.lastQualifiedAt, interval.intervalMonths))}
                     {can(user.roles, "recipe.edit") && <IntervalForm action={setRequalificationIntervalAction} intervalId={interval.id} months={interval.intervalMonths} family={family.code} />}
                   </li>
                 ))}

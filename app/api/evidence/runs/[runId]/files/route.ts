@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { formatSize } from "@/lib/evidence/files";
+import { formatSize } from "@/lib/format/number";
 import { fileKindSchema } from "@/lib/schemas/evidence";
 import { defineRoute, routeError } from "@/lib/server/api/handler";
 import { UserFacingError } from "@/lib/server/errors";
