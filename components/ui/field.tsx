@@ -100,21 +100,33 @@ function changeHandler<E extends HTMLInputElement | HTMLSelectElement | HTMLText
 
 export interface FieldProps extends ControlProps, Omit<InputHTMLAttributes<HTMLInputElement>, "className"> {
   name?: string;
+  /** Shown after the box, e.g. "cm²"; the label names it too where a test or reader needs it. */
+  unit?: string;
 }
 
 /** A labelled single-line text input (also e-mail, password, search). */
-export function Field({ name, label, hint, hideLabel, errorKey, error, onValueChange, dense, className, onChange, ...input }: FieldProps) {
+export function Field(props: FieldProps) {
+  return <TextBox {...props} />;
+}
+
+function TextBox({ name, label, hint, hideLabel, errorKey, error, onValueChange, dense, className, onChange, unit, boxClassName = "", ...input }: FieldProps & { boxClassName?: string }) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
+  const box = <input id={id} name={name} aria-invalid={invalid} aria-describedby={describedBy(id, hint, errors)} className={`${boxClass(dense)} w-full ${boxClassName}`} onChange={changeHandler(onChange, onValueChange)} {...input} />;
   return (
     <FieldFrame id={id} label={label} hint={hint} errors={errors} hideLabel={hideLabel} className={className}>
-      <input id={id} name={name} aria-invalid={invalid} aria-describedby={describedBy(id, hint, errors)} className={`${boxClass(dense)} w-full`} onChange={changeHandler(onChange, onValueChange)} {...input} />
+      {unit ? (
+        <div className="flex items-center gap-2">
+          {box}
+          <span className="shrink-0 text-sm text-stone-600">{unit}</span>
+        </div>
+      ) : (
+        box
+      )}
     </FieldFrame>
   );
 }
 
 export interface NumberFieldProps extends FieldProps {
-  /** Shown after the box, e.g. "cm²"; the label names it too where a test or reader needs it. */
-  unit?: string;
   /** Whole numbers only (counts): the phone keyboard shows digits only. */
   integer?: boolean;
 }
@@ -123,27 +135,8 @@ export interface NumberFieldProps extends FieldProps {
  * A number typed as text, so a decimal comma and an empty "not measured" survive to the schema,
  * which parses it. The box is never narrower than six digits and a sign.
  */
-export function NumberField({ name, label, hint, hideLabel, errorKey, error, onValueChange, dense, className, onChange, unit, integer, ...input }: NumberFieldProps) {
-  const { id, errors, invalid } = useControl({ name, errorKey, error });
-  return (
-    <FieldFrame id={id} label={label} hint={hint} errors={errors} hideLabel={hideLabel} className={className}>
-      <div className="flex items-center gap-2">
-        <input
-          id={id}
-          name={name}
-          type="text"
-          inputMode={integer ? "numeric" : "decimal"}
-          autoComplete="off"
-          aria-invalid={invalid}
-          aria-describedby={describedBy(id, hint, errors)}
-          className={`${boxClass(dense)} w-full min-w-[calc(7ch+1.5rem)] tabular-nums`}
-          onChange={changeHandler(onChange, onValueChange)}
-          {...input}
-        />
-        {unit && <span className="shrink-0 text-sm text-stone-600">{unit}</span>}
-      </div>
-    </FieldFrame>
-  );
+export function NumberField({ integer, ...props }: NumberFieldProps) {
+  return <TextBox type="text" inputMode={integer ? "numeric" : "decimal"} autoComplete="off" {...props} boxClassName="min-w-[calc(7ch+1.5rem)] tabular-nums" />;
 }
 
 export interface DateFieldProps extends FieldProps {
@@ -239,10 +232,13 @@ export interface ChoiceGroupProps {
   /** Lay the options out in a row instead of one per line. */
   inline?: boolean;
   className?: string;
+  /** Controlled radios (the calculators): the picked value and its setter. */
+  value?: string;
+  onValueChange?: (value: string) => void;
 }
 
 /** A fieldset of radios or checkboxes under one name, with the server's error for that name. */
-export function ChoiceGroup({ type, name, legend, options, defaultValues = [], hint, inline, className }: ChoiceGroupProps) {
+export function ChoiceGroup({ type, name, legend, options, defaultValues = [], hint, inline, className, value, onValueChange }: ChoiceGroupProps) {
   const id = useId();
   const errors = useFieldErrors(name);
   return (
@@ -251,7 +247,13 @@ export function ChoiceGroup({ type, name, legend, options, defaultValues = [], h
       <div className={inline ? "flex flex-wrap gap-x-4 gap-y-1" : "space-y-1"}>
         {options.map((o) => (
           <label key={o.value} className="flex items-start gap-2 text-sm">
-            <input type={type} name={name} value={o.value} defaultChecked={defaultValues.includes(o.value)} className="mt-0.5" />
+            <input
+              type={type}
+              name={name}
+              value={o.value}
+              className="mt-0.5"
+              {...(value === undefined ? { defaultChecked: defaultValues.includes(o.value) } : { checked: value === o.value, onChange: () => onValueChange?.(o.value) })}
+            />
             <span>{o.label}</span>
           </label>
         ))}
