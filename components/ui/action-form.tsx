@@ -2,6 +2,7 @@
 
 import { createContext, startTransition, useActionState, useContext, useEffect, useRef, useState, useSyncExternalStore, type FormEvent, type ReactNode } from "react";
 import type { FormState } from "@/lib/actions/result";
+import { fieldKeyLabel } from "@/lib/forms/field-key-label";
 
 /**
  * The field names whose errors some control on the form shows. Controls claim their name once
@@ -38,19 +39,11 @@ function createClaims() {
 type Claims = ReturnType<typeof createClaims>;
 
 const noClaim = () => () => {};
-const FormStateContext = createContext<{ state: FormState; pending: boolean; claim: (key: string) => () => void }>({ state: null, pending: false, claim: noClaim });
+/** Exported for tests of the input kit, which render a control inside a given result. */
+export const FormStateContext = createContext<{ state: FormState; pending: boolean; claim: (key: string) => () => void }>({ state: null, pending: false, claim: noClaim });
 
 export function useFormResult() {
   return useContext(FormStateContext);
-}
-
-/** "blankCounts" → "Blank counts", "rows.0.testType" → "Rows 1 test type": a name for an error no control shows. */
-export function fieldKeyLabel(key: string): string {
-  const words = key
-    .split(".")
-    .map((part) => (/^\d+$/.test(part) ? String(Number(part) + 1) : part.replace(/([a-z0-9])([A-Z])/g, "$1 $2").toLowerCase()))
-    .join(" ");
-  return words.charAt(0).toUpperCase() + words.slice(1);
 }
 
 function UnclaimedErrors({ claims, fieldErrors, summary }: { claims: Claims; fieldErrors: Record<string, string[]>; summary: string }) {
