@@ -18,12 +18,27 @@ const TEST_OPTIONS = TEST_TYPES.map((t) => ({ value: t, label: TEST_TYPE_LABELS[
 function preview(r: Draft) {
   const c = Number(r.confidencePct);
   const rel = Number(r.reliabilityPct);
-  return c > 50 && c < 100 && rel > 50 && rel < 100 ? `${samplesFor({ confidencePct: c, reliabilityPct: rel })} parts` : "—";
+  return c > 50 && c < 100 && rel > 50 && rel < 100
+    ? `${samplesFor({ confidencePct: c, reliabilityPct: rel })} parts`
+    : "—";
 }
 
 /** The requalification matrix as an editable table; saving makes a new version. */
-export function MatrixEditor({ action, rows }: { action: (prev: FormState, formData: FormData) => Promise<FormState>; rows: MatrixRow[] }) {
-  const list = useRowList<Draft>(() => rows.map((r) => ({ subject: r.subject, testType: r.testType, confidencePct: String(r.confidencePct), reliabilityPct: String(r.reliabilityPct) })));
+export function MatrixEditor({
+  action,
+  rows,
+}: {
+  action: (prev: FormState, formData: FormData) => Promise<FormState>;
+  rows: MatrixRow[];
+}) {
+  const list = useRowList<Draft>(() =>
+    rows.map((r) => ({
+      subject: r.subject,
+      testType: r.testType,
+      confidencePct: String(r.confidencePct),
+      reliabilityPct: String(r.reliabilityPct),
+    })),
+  );
   const [note, setNote] = useState("");
   return (
     <ActionForm action={action} className="space-y-4" aria-label="Requalification matrix">
@@ -47,16 +62,46 @@ export function MatrixEditor({ action, rows }: { action: (prev: FormState, formD
             {list.rows.map(({ key, value: d }, i) => (
               <tr key={key}>
                 <td className="px-3 py-1.5">
-                  <SelectField label={`Subject of row ${i + 1}`} hideLabel dense errorKey={`rows.${i}.subject`} value={d.subject} onValueChange={(v) => list.update(i, { subject: v })} options={SUBJECT_OPTIONS} />
+                  <SelectField
+                    label={`Subject of row ${i + 1}`}
+                    hideLabel
+                    dense
+                    errorKey={`rows.${i}.subject`}
+                    value={d.subject}
+                    onValueChange={(v) => list.update(i, { subject: v })}
+                    options={SUBJECT_OPTIONS}
+                  />
                 </td>
                 <td className="px-3 py-1.5">
-                  <SelectField label={`Test of row ${i + 1}`} hideLabel dense errorKey={`rows.${i}.testType`} value={d.testType} onValueChange={(v) => list.update(i, { testType: v })} options={TEST_OPTIONS} />
+                  <SelectField
+                    label={`Test of row ${i + 1}`}
+                    hideLabel
+                    dense
+                    errorKey={`rows.${i}.testType`}
+                    value={d.testType}
+                    onValueChange={(v) => list.update(i, { testType: v })}
+                    options={TEST_OPTIONS}
+                  />
                 </td>
                 <td className="px-3 py-1.5">
-                  <NumberField label={`Confidence of row ${i + 1}`} hideLabel dense errorKey={`rows.${i}.confidencePct`} value={d.confidencePct} onValueChange={(v) => list.update(i, { confidencePct: v })} />
+                  <NumberField
+                    label={`Confidence of row ${i + 1}`}
+                    hideLabel
+                    dense
+                    errorKey={`rows.${i}.confidencePct`}
+                    value={d.confidencePct}
+                    onValueChange={(v) => list.update(i, { confidencePct: v })}
+                  />
                 </td>
                 <td className="px-3 py-1.5">
-                  <NumberField label={`Reliability of row ${i + 1}`} hideLabel dense errorKey={`rows.${i}.reliabilityPct`} value={d.reliabilityPct} onValueChange={(v) => list.update(i, { reliabilityPct: v })} />
+                  <NumberField
+                    label={`Reliability of row ${i + 1}`}
+                    hideLabel
+                    dense
+                    errorKey={`rows.${i}.reliabilityPct`}
+                    value={d.reliabilityPct}
+                    onValueChange={(v) => list.update(i, { reliabilityPct: v })}
+                  />
                 </td>
                 <td className="px-3 py-2 tabular-nums">{preview(d)}</td>
                 <td className="px-3 py-1.5">
@@ -67,8 +112,25 @@ export function MatrixEditor({ action, rows }: { action: (prev: FormState, formD
           </tbody>
         </table>
       </div>
-      <AddRowButton onAdd={() => list.add({ subject: MATRIX_SUBJECTS[0], testType: TEST_TYPES[0], confidencePct: "95", reliabilityPct: "90" })}>Add row</AddRowButton>
-      <Field label="What changed and why" errorKey="note" value={note} onValueChange={setNote} className="max-w-xl" />
+      <AddRowButton
+        onAdd={() =>
+          list.add({
+            subject: MATRIX_SUBJECTS[0],
+            testType: TEST_TYPES[0],
+            confidencePct: "95",
+            reliabilityPct: "90",
+          })
+        }
+      >
+        Add row
+      </AddRowButton>
+      <Field
+        label="What changed and why"
+        errorKey="note"
+        value={note}
+        onValueChange={setNote}
+        className="max-w-xl"
+      />
       <SubmitButton>Save as new version</SubmitButton>
     </ActionForm>
   );

@@ -2,11 +2,23 @@
 
 import { useState } from "react";
 import { ActionForm } from "@/components/ui/action-form";
-import { CheckboxField, Field, NumberField, SelectField, TextareaField } from "@/components/ui/field";
+import {
+  CheckboxField,
+  Field,
+  NumberField,
+  SelectField,
+  TextareaField,
+} from "@/components/ui/field";
 import { AddRowButton, PayloadField, RemoveRowButton, useRowList } from "@/components/ui/row-list";
 import { Caution } from "@/components/ui/caution";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { CHANGE_KINDS, PARAMETER_KINDS, STAGE_KINDS, STAGE_MODES, type ParameterKind } from "@/db/enums";
+import {
+  CHANGE_KINDS,
+  PARAMETER_KINDS,
+  STAGE_KINDS,
+  STAGE_MODES,
+  type ParameterKind,
+} from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
 import { appendRow, removeRow, rowsOf, updateRow, valuesOf, type Row } from "@/lib/forms/rows";
 import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
@@ -65,7 +77,19 @@ export function ProposalEditor(props: ProposalEditorProps) {
       name: s.name,
       kind: s.kind as StageDraft["kind"],
       mode: (s.mode ?? "") as StageDraft["mode"],
-      parameters: rowsOf(s.parameters.map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: num(p.setpoint), unit: p.unit, validatedLow: num(p.validatedLow), validatedHigh: num(p.validatedHigh), critical: p.critical, isNew: false }))),
+      parameters: rowsOf(
+        s.parameters.map((p) => ({
+          key: p.key,
+          name: p.name,
+          kind: p.kind,
+          setpoint: num(p.setpoint),
+          unit: p.unit,
+          validatedLow: num(p.validatedLow),
+          validatedHigh: num(p.validatedHigh),
+          critical: p.critical,
+          isNew: false,
+        })),
+      ),
     })),
   );
 
@@ -80,24 +104,41 @@ export function ProposalEditor(props: ProposalEditorProps) {
     recipe: {
       detergent,
       notes,
-      stages: stages.values.map((s) => ({ name: s.name, kind: s.kind, mode: s.mode || null, parameters: valuesOf(s.parameters).map(({ isNew: _n, ...p }) => p) })),
+      stages: stages.values.map((s) => ({
+        name: s.name,
+        kind: s.kind,
+        mode: s.mode || null,
+        parameters: valuesOf(s.parameters).map(({ isNew: _n, ...p }) => p),
+      })),
     },
   };
   const hazards = hazardsOfStages(
     stages.values.map((s) => ({
       mode: s.mode || null,
-      parameters: valuesOf(s.parameters).map((p) => ({ kind: p.kind, unit: p.unit, setpoint: Number(p.setpoint) || 0, validatedHigh: p.validatedHigh === "" ? null : Number(p.validatedHigh) })),
+      parameters: valuesOf(s.parameters).map((p) => ({
+        kind: p.kind,
+        unit: p.unit,
+        setpoint: Number(p.setpoint) || 0,
+        validatedHigh: p.validatedHigh === "" ? null : Number(p.validatedHigh),
+      })),
     })),
   );
 
-  const updateParam = (i: number, k: number, patch: Partial<ParamDraft>) => stages.update(i, (s) => ({ ...s, parameters: updateRow(s.parameters, k, patch) }));
+  const updateParam = (i: number, k: number, patch: Partial<ParamDraft>) =>
+    stages.update(i, (s) => ({ ...s, parameters: updateRow(s.parameters, k, patch) }));
 
   return (
     <ActionForm action={props.action} className="space-y-6" aria-label="Proposed change">
       <PayloadField value={payload} />
       <div className="grid gap-4 md:grid-cols-2">
         <Field label="Title" errorKey="title" value={title} onValueChange={setTitle} />
-        <SelectField label="Kind of change" errorKey="kind" value={kind} onValueChange={(v) => setKind(v as ChangeKind)} options={CHANGE_KINDS.map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] }))} />
+        <SelectField
+          label="Kind of change"
+          errorKey="kind"
+          value={kind}
+          onValueChange={(v) => setKind(v as ChangeKind)}
+          options={CHANGE_KINDS.map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] }))}
+        />
         {kind === "new_part_family" && (
           <SelectField
             label="Part family added to the recipe"
@@ -108,9 +149,20 @@ export function ProposalEditor(props: ProposalEditorProps) {
             options={props.families.map((f) => ({ value: f.id, label: `${f.code} ${f.name}` }))}
           />
         )}
-        <Field label="Detergent" errorKey="recipe.detergent" value={detergent} onValueChange={setDetergent} />
+        <Field
+          label="Detergent"
+          errorKey="recipe.detergent"
+          value={detergent}
+          onValueChange={setDetergent}
+        />
       </div>
-      <TextareaField label="Version notes" errorKey="recipe.notes" value={notes} onValueChange={setNotes} rows={2} />
+      <TextareaField
+        label="Version notes"
+        errorKey="recipe.notes"
+        value={notes}
+        onValueChange={setNotes}
+        rows={2}
+      />
 
       {hazards.length > 0 && (
         <div className="space-y-2">
@@ -135,9 +187,27 @@ export function ProposalEditor(props: ProposalEditorProps) {
             Stage {i + 1}: {stage.name || "unnamed"}
           </legend>
           <div className="grid gap-3 md:grid-cols-[1fr_12rem_12rem_auto]">
-            <Field label={`Name of stage ${i + 1}`} errorKey={`recipe.stages.${i}.name`} value={stage.name} onValueChange={(v) => stages.update(i, { name: v })} />
-            <SelectField label={`Kind of stage ${i + 1}`} errorKey={`recipe.stages.${i}.kind`} value={stage.kind} onValueChange={(v) => stages.update(i, { kind: v as StageDraft["kind"] })} options={STAGE_KIND_OPTIONS} />
-            <SelectField label={`Mode of stage ${i + 1}`} errorKey={`recipe.stages.${i}.mode`} value={stage.mode} onValueChange={(v) => stages.update(i, { mode: v as StageDraft["mode"] })} placeholder="None" options={STAGE_MODE_OPTIONS} />
+            <Field
+              label={`Name of stage ${i + 1}`}
+              errorKey={`recipe.stages.${i}.name`}
+              value={stage.name}
+              onValueChange={(v) => stages.update(i, { name: v })}
+            />
+            <SelectField
+              label={`Kind of stage ${i + 1}`}
+              errorKey={`recipe.stages.${i}.kind`}
+              value={stage.kind}
+              onValueChange={(v) => stages.update(i, { kind: v as StageDraft["kind"] })}
+              options={STAGE_KIND_OPTIONS}
+            />
+            <SelectField
+              label={`Mode of stage ${i + 1}`}
+              errorKey={`recipe.stages.${i}.mode`}
+              value={stage.mode}
+              onValueChange={(v) => stages.update(i, { mode: v as StageDraft["mode"] })}
+              placeholder="None"
+              options={STAGE_MODE_OPTIONS}
+            />
             <div className="flex items-end">
               <RemoveRowButton label={`Remove stage ${i + 1}`} onRemove={() => stages.remove(i)}>
                 Remove stage
@@ -169,9 +239,24 @@ export function ProposalEditor(props: ProposalEditorProps) {
                   return (
                     <tr key={rowKey}>
                       <td className="py-1 pr-2">
-                        <Field {...cell} className="max-w-56 min-w-40" label={`Name of ${label}`} errorKey={`${path}.name`} value={p.name} onValueChange={(v) => updateParam(i, k, { name: v })} />
+                        <Field
+                          {...cell}
+                          className="max-w-56 min-w-40"
+                          label={`Name of ${label}`}
+                          errorKey={`${path}.name`}
+                          value={p.name}
+                          onValueChange={(v) => updateParam(i, k, { name: v })}
+                        />
                         {p.isNew ? (
-                          <Field {...cell} className="max-w-56 min-w-40" label={`Key of ${label}`} errorKey={`${path}.key`} value={p.key} onValueChange={(v) => updateParam(i, k, { key: v })} placeholder="stage.parameter" />
+                          <Field
+                            {...cell}
+                            className="max-w-56 min-w-40"
+                            label={`Key of ${label}`}
+                            errorKey={`${path}.key`}
+                            value={p.key}
+                            onValueChange={(v) => updateParam(i, k, { key: v })}
+                            placeholder="stage.parameter"
+                          />
                         ) : (
                           <p className="mt-0.5 font-mono text-xs text-stone-500">{p.key}</p>
                         )}
@@ -182,27 +267,72 @@ export function ProposalEditor(props: ProposalEditorProps) {
                           label={`Kind of ${label}`}
                           errorKey={`${path}.kind`}
                           value={p.kind}
-                          onValueChange={(v) => updateParam(i, k, { kind: v as ParameterKind, unit: UNITS_BY_KIND[v as ParameterKind][0] ?? p.unit })}
+                          onValueChange={(v) =>
+                            updateParam(i, k, {
+                              kind: v as ParameterKind,
+                              unit: UNITS_BY_KIND[v as ParameterKind][0] ?? p.unit,
+                            })
+                          }
                           options={PARAMETER_KIND_OPTIONS}
                         />
                       </td>
                       <td className="py-1 pr-2">
-                        <NumberField {...cell} label={`Setpoint of ${label}`} errorKey={`${path}.setpoint`} value={p.setpoint} onValueChange={(v) => updateParam(i, k, { setpoint: v })} />
+                        <NumberField
+                          {...cell}
+                          label={`Setpoint of ${label}`}
+                          errorKey={`${path}.setpoint`}
+                          value={p.setpoint}
+                          onValueChange={(v) => updateParam(i, k, { setpoint: v })}
+                        />
                       </td>
                       <td className="py-1 pr-2">
-                        <Field {...cell} className="w-24" label={`Unit of ${label}`} errorKey={`${path}.unit`} value={p.unit} onValueChange={(v) => updateParam(i, k, { unit: v })} list={`units-${p.kind}`} />
+                        <Field
+                          {...cell}
+                          className="w-24"
+                          label={`Unit of ${label}`}
+                          errorKey={`${path}.unit`}
+                          value={p.unit}
+                          onValueChange={(v) => updateParam(i, k, { unit: v })}
+                          list={`units-${p.kind}`}
+                        />
                       </td>
                       <td className="py-1 pr-2">
-                        <NumberField {...cell} label={`Validated low of ${label}`} errorKey={`${path}.validatedLow`} value={p.validatedLow} onValueChange={(v) => updateParam(i, k, { validatedLow: v })} />
+                        <NumberField
+                          {...cell}
+                          label={`Validated low of ${label}`}
+                          errorKey={`${path}.validatedLow`}
+                          value={p.validatedLow}
+                          onValueChange={(v) => updateParam(i, k, { validatedLow: v })}
+                        />
                       </td>
                       <td className="py-1 pr-2">
-                        <NumberField {...cell} label={`Validated high of ${label}`} errorKey={`${path}.validatedHigh`} value={p.validatedHigh} onValueChange={(v) => updateParam(i, k, { validatedHigh: v })} />
+                        <NumberField
+                          {...cell}
+                          label={`Validated high of ${label}`}
+                          errorKey={`${path}.validatedHigh`}
+                          value={p.validatedHigh}
+                          onValueChange={(v) => updateParam(i, k, { validatedHigh: v })}
+                        />
                       </td>
                       <td className="py-1 pr-2 pt-2">
-                        <CheckboxField hideLabel label={`Critical: ${label}`} errorKey={`${path}.critical`} checked={p.critical} onCheckedChange={(on) => updateParam(i, k, { critical: on })} />
+                        <CheckboxField
+                          hideLabel
+                          label={`Critical: ${label}`}
+                          errorKey={`${path}.critical`}
+                          checked={p.critical}
+                          onCheckedChange={(on) => updateParam(i, k, { critical: on })}
+                        />
                       </td>
                       <td className="py-1">
-                        <RemoveRowButton label={`Remove ${label}`} onRemove={() => stages.update(i, (s) => ({ ...s, parameters: removeRow(s.parameters, k) }))} />
+                        <RemoveRowButton
+                          label={`Remove ${label}`}
+                          onRemove={() =>
+                            stages.update(i, (s) => ({
+                              ...s,
+                              parameters: removeRow(s.parameters, k),
+                            }))
+                          }
+                        />
                       </td>
                     </tr>
                   );
@@ -215,7 +345,17 @@ export function ProposalEditor(props: ProposalEditorProps) {
             onAdd={() =>
               stages.update(i, (s) => ({
                 ...s,
-                parameters: appendRow(s.parameters, { key: `${s.kind}.`, name: "", kind: "time", setpoint: "", unit: "s", validatedLow: "", validatedHigh: "", critical: false, isNew: true }),
+                parameters: appendRow(s.parameters, {
+                  key: `${s.kind}.`,
+                  name: "",
+                  kind: "time",
+                  setpoint: "",
+                  unit: "s",
+                  validatedLow: "",
+                  validatedHigh: "",
+                  critical: false,
+                  isNew: true,
+                }),
               }))
             }
           >
@@ -223,7 +363,9 @@ export function ProposalEditor(props: ProposalEditorProps) {
           </AddRowButton>
         </fieldset>
       ))}
-      <AddRowButton onAdd={() => stages.add({ name: "", kind: "rinse", mode: "", parameters: [] })}>Add stage</AddRowButton>
+      <AddRowButton onAdd={() => stages.add({ name: "", kind: "rinse", mode: "", parameters: [] })}>
+        Add stage
+      </AddRowButton>
 
       <div className="grid gap-4 md:grid-cols-[14rem_1fr]">
         <SelectField
@@ -237,7 +379,12 @@ export function ProposalEditor(props: ProposalEditorProps) {
             { value: "major", label: "Raise to major" },
           ]}
         />
-        <Field label="Reason for raising" errorKey="raiseReason" value={raiseReason} onValueChange={setRaiseReason} />
+        <Field
+          label="Reason for raising"
+          errorKey="raiseReason"
+          value={raiseReason}
+          onValueChange={setRaiseReason}
+        />
       </div>
       <SubmitButton pendingText="Saving…">Save proposal</SubmitButton>
     </ActionForm>
@@ -246,4 +393,7 @@ export function ProposalEditor(props: ProposalEditorProps) {
 
 const STAGE_KIND_OPTIONS = STAGE_KINDS.map((k) => ({ value: k, label: humanize(k) }));
 const STAGE_MODE_OPTIONS = STAGE_MODES.map((m) => ({ value: m, label: STAGE_MODE_LABELS[m] }));
-const PARAMETER_KIND_OPTIONS = PARAMETER_KINDS.map((x) => ({ value: x, label: PARAMETER_KIND_LABELS[x] }));
+const PARAMETER_KIND_OPTIONS = PARAMETER_KINDS.map((x) => ({
+  value: x,
+  label: PARAMETER_KIND_LABELS[x],
+}));

@@ -19,7 +19,18 @@ interface StageDraft {
 
 export interface SystemEditorProps {
   action: (prev: FormState, formData: FormData) => Promise<FormState>;
-  system: { id: string; name: string; description: string | null; stages: { id: string; name: string; kind: string; capabilities: string[]; tankVolumeL: number | null }[] };
+  system: {
+    id: string;
+    name: string;
+    description: string | null;
+    stages: {
+      id: string;
+      name: string;
+      kind: string;
+      capabilities: string[];
+      tankVolumeL: number | null;
+    }[];
+  };
 }
 
 const KIND_OPTIONS = STAGE_KINDS.map((k) => ({ value: k, label: humanize(k) }));
@@ -29,20 +40,47 @@ export function SystemEditor({ action, system }: SystemEditorProps) {
   const [name, setName] = useState(system.name);
   const [description, setDescription] = useState(system.description ?? "");
   const stages = useRowList<StageDraft>(() =>
-    system.stages.map((s) => ({ id: s.id, name: s.name, kind: s.kind, capabilities: s.capabilities, tankVolumeL: s.tankVolumeL === null ? "" : String(s.tankVolumeL) })),
+    system.stages.map((s) => ({
+      id: s.id,
+      name: s.name,
+      kind: s.kind,
+      capabilities: s.capabilities,
+      tankVolumeL: s.tankVolumeL === null ? "" : String(s.tankVolumeL),
+    })),
   );
   return (
     <ActionForm action={action} className="space-y-4" aria-label="Edit cleaning system">
       <PayloadField value={{ systemId: system.id, name, description, stages: stages.values }} />
       <Field label="System name" errorKey="name" value={name} onValueChange={setName} />
-      <Field label="Description" errorKey="description" value={description} onValueChange={setDescription} />
+      <Field
+        label="Description"
+        errorKey="description"
+        value={description}
+        onValueChange={setDescription}
+      />
       {stages.rows.map(({ key, value: s }, i) => (
         <fieldset key={key} className="rounded-md border border-stone-200 p-3">
           <legend className="px-1 text-sm font-semibold">Stage {i + 1}</legend>
           <div className="grid gap-3 md:grid-cols-3">
-            <Field label={`Name of stage ${i + 1}`} errorKey={`stages.${i}.name`} value={s.name} onValueChange={(v) => stages.update(i, { name: v })} />
-            <SelectField label={`Kind of stage ${i + 1}`} errorKey={`stages.${i}.kind`} value={s.kind} onValueChange={(v) => stages.update(i, { kind: v })} options={KIND_OPTIONS} />
-            <NumberField label={`Tank volume of stage ${i + 1} (L)`} errorKey={`stages.${i}.tankVolumeL`} value={s.tankVolumeL} onValueChange={(v) => stages.update(i, { tankVolumeL: v })} />
+            <Field
+              label={`Name of stage ${i + 1}`}
+              errorKey={`stages.${i}.name`}
+              value={s.name}
+              onValueChange={(v) => stages.update(i, { name: v })}
+            />
+            <SelectField
+              label={`Kind of stage ${i + 1}`}
+              errorKey={`stages.${i}.kind`}
+              value={s.kind}
+              onValueChange={(v) => stages.update(i, { kind: v })}
+              options={KIND_OPTIONS}
+            />
+            <NumberField
+              label={`Tank volume of stage ${i + 1} (L)`}
+              errorKey={`stages.${i}.tankVolumeL`}
+              value={s.tankVolumeL}
+              onValueChange={(v) => stages.update(i, { tankVolumeL: v })}
+            />
           </div>
           <fieldset className="mt-2">
             <legend className="text-sm font-medium">Stage {i + 1} can run</legend>
@@ -52,7 +90,14 @@ export function SystemEditor({ action, system }: SystemEditorProps) {
                   key={m}
                   label={STAGE_MODE_LABELS[m]}
                   checked={s.capabilities.includes(m)}
-                  onCheckedChange={(on) => stages.update(i, (st) => ({ ...st, capabilities: on ? [...st.capabilities, m] : st.capabilities.filter((c) => c !== m) }))}
+                  onCheckedChange={(on) =>
+                    stages.update(i, (st) => ({
+                      ...st,
+                      capabilities: on
+                        ? [...st.capabilities, m]
+                        : st.capabilities.filter((c) => c !== m),
+                    }))
+                  }
                 />
               ))}
             </div>
@@ -61,7 +106,13 @@ export function SystemEditor({ action, system }: SystemEditorProps) {
         </fieldset>
       ))}
       <div className="flex gap-2">
-        <AddRowButton onAdd={() => stages.add({ id: null, name: "", kind: "rinse", capabilities: [], tankVolumeL: "" })}>Add stage</AddRowButton>
+        <AddRowButton
+          onAdd={() =>
+            stages.add({ id: null, name: "", kind: "rinse", capabilities: [], tankVolumeL: "" })
+          }
+        >
+          Add stage
+        </AddRowButton>
         <SubmitButton>Save system</SubmitButton>
       </div>
     </ActionForm>

@@ -29,11 +29,22 @@ export function useFieldErrors(key: string | undefined): string[] | undefined {
 
 /** The ids a control's aria-describedby names: its hint and its errors. */
 export function describedBy(id: string, hint: ReactNode | undefined, errors: string[] | undefined) {
-  return [hint ? `${id}-hint` : null, errors ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;
+  return (
+    [hint ? `${id}-hint` : null, errors ? `${id}-error` : null].filter(Boolean).join(" ") ||
+    undefined
+  );
 }
 
 /** The hint and the errors under a control. */
-export function FieldMessages({ id, hint, errors }: { id: string; hint?: ReactNode; errors?: string[] }) {
+export function FieldMessages({
+  id,
+  hint,
+  errors,
+}: {
+  id: string;
+  hint?: ReactNode;
+  errors?: string[];
+}) {
   return (
     <>
       {hint && (
@@ -74,14 +85,26 @@ function useControl(props: { name?: string; errorKey?: string; error?: string })
   return { id, errors, invalid: errors ? (true as const) : undefined };
 }
 
-const box = "block rounded-md border border-stone-300 bg-white text-sm shadow-xs focus:border-brand-600 aria-invalid:border-red-700";
+const box =
+  "block rounded-md border border-stone-300 bg-white text-sm shadow-xs focus:border-brand-600 aria-invalid:border-red-700";
 const boxClass = (dense?: boolean) => `${box} ${dense ? "px-2 py-1" : "px-3 py-2"}`;
 
 /** Label above, the control, then hint and errors: the frame every field shares. */
-export function FieldFrame(props: { id: string; label: string; hint?: ReactNode; errors?: string[]; hideLabel?: boolean; className?: string; children: ReactNode }) {
+export function FieldFrame(props: {
+  id: string;
+  label: string;
+  hint?: ReactNode;
+  errors?: string[];
+  hideLabel?: boolean;
+  className?: string;
+  children: ReactNode;
+}) {
   return (
     <div className={`space-y-1 ${props.className ?? ""}`}>
-      <label htmlFor={props.id} className={props.hideLabel ? "sr-only" : "block text-sm font-medium text-stone-800"}>
+      <label
+        htmlFor={props.id}
+        className={props.hideLabel ? "sr-only" : "block text-sm font-medium text-stone-800"}
+      >
         {props.label}
       </label>
       {props.children}
@@ -90,7 +113,10 @@ export function FieldFrame(props: { id: string; label: string; hint?: ReactNode;
   );
 }
 
-function changeHandler<E extends HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>(onChange: ((e: ChangeEvent<E>) => void) | undefined, onValueChange: ((v: string) => void) | undefined) {
+function changeHandler<E extends HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>(
+  onChange: ((e: ChangeEvent<E>) => void) | undefined,
+  onValueChange: ((v: string) => void) | undefined,
+) {
   if (!onChange && !onValueChange) return undefined;
   return (e: ChangeEvent<E>) => {
     onChange?.(e);
@@ -98,7 +124,8 @@ function changeHandler<E extends HTMLInputElement | HTMLSelectElement | HTMLText
   };
 }
 
-export interface FieldProps extends ControlProps, Omit<InputHTMLAttributes<HTMLInputElement>, "className"> {
+export interface FieldProps
+  extends ControlProps, Omit<InputHTMLAttributes<HTMLInputElement>, "className"> {
   name?: string;
   /** Shown after the box, e.g. "cm²"; the label names it too where a test or reader needs it. */
   unit?: string;
@@ -109,11 +136,42 @@ export function Field(props: FieldProps) {
   return <TextBox {...props} />;
 }
 
-function TextBox({ name, label, hint, hideLabel, errorKey, error, onValueChange, dense, className, onChange, unit, boxClassName = "", ...input }: FieldProps & { boxClassName?: string }) {
+function TextBox({
+  name,
+  label,
+  hint,
+  hideLabel,
+  errorKey,
+  error,
+  onValueChange,
+  dense,
+  className,
+  onChange,
+  unit,
+  boxClassName = "",
+  ...input
+}: FieldProps & { boxClassName?: string }) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
-  const box = <input id={id} name={name} aria-invalid={invalid} aria-describedby={describedBy(id, hint, errors)} className={`${boxClass(dense)} w-full ${boxClassName}`} onChange={changeHandler(onChange, onValueChange)} {...input} />;
+  const box = (
+    <input
+      id={id}
+      name={name}
+      aria-invalid={invalid}
+      aria-describedby={describedBy(id, hint, errors)}
+      className={`${boxClass(dense)} w-full ${boxClassName}`}
+      onChange={changeHandler(onChange, onValueChange)}
+      {...input}
+    />
+  );
   return (
-    <FieldFrame id={id} label={label} hint={hint} errors={errors} hideLabel={hideLabel} className={className}>
+    <FieldFrame
+      id={id}
+      label={label}
+      hint={hint}
+      errors={errors}
+      hideLabel={hideLabel}
+      className={className}
+    >
       {unit ? (
         <div className="flex items-center gap-2">
           {box}
@@ -136,7 +194,15 @@ export interface NumberFieldProps extends FieldProps {
  * which parses it. The box is never narrower than six digits and a sign.
  */
 export function NumberField({ integer, ...props }: NumberFieldProps) {
-  return <TextBox type="text" inputMode={integer ? "numeric" : "decimal"} autoComplete="off" {...props} boxClassName="min-w-[calc(7ch+1.5rem)] tabular-nums" />;
+  return (
+    <TextBox
+      type="text"
+      inputMode={integer ? "numeric" : "decimal"}
+      autoComplete="off"
+      {...props}
+      boxClassName="min-w-[calc(7ch+1.5rem)] tabular-nums"
+    />
+  );
 }
 
 export interface DateFieldProps extends FieldProps {
@@ -146,10 +212,17 @@ export interface DateFieldProps extends FieldProps {
 
 /** A day (YYYY-MM-DD) or, with `withTime`, a date and time, in the browser's own picker. */
 export function DateField({ withTime, ...props }: DateFieldProps) {
-  return <Field type={withTime ? "datetime-local" : "date"} {...props} className={`max-w-xs ${props.className ?? ""}`} />;
+  return (
+    <Field
+      type={withTime ? "datetime-local" : "date"}
+      {...props}
+      className={`max-w-xs ${props.className ?? ""}`}
+    />
+  );
 }
 
-export interface SelectFieldProps extends ControlProps, Omit<SelectHTMLAttributes<HTMLSelectElement>, "className"> {
+export interface SelectFieldProps
+  extends ControlProps, Omit<SelectHTMLAttributes<HTMLSelectElement>, "className"> {
   name?: string;
   options: readonly { value: string; label: string }[];
   /** Text of an empty first option, e.g. "Choose…". */
@@ -157,11 +230,40 @@ export interface SelectFieldProps extends ControlProps, Omit<SelectHTMLAttribute
 }
 
 /** A labelled select. */
-export function SelectField({ name, label, hint, hideLabel, errorKey, error, onValueChange, dense, options, placeholder, className, onChange, ...select }: SelectFieldProps) {
+export function SelectField({
+  name,
+  label,
+  hint,
+  hideLabel,
+  errorKey,
+  error,
+  onValueChange,
+  dense,
+  options,
+  placeholder,
+  className,
+  onChange,
+  ...select
+}: SelectFieldProps) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
   return (
-    <FieldFrame id={id} label={label} hint={hint} errors={errors} hideLabel={hideLabel} className={className}>
-      <select id={id} name={name} aria-invalid={invalid} aria-describedby={describedBy(id, hint, errors)} className={`${boxClass(dense)} w-full`} onChange={changeHandler(onChange, onValueChange)} {...select}>
+    <FieldFrame
+      id={id}
+      label={label}
+      hint={hint}
+      errors={errors}
+      hideLabel={hideLabel}
+      className={className}
+    >
+      <select
+        id={id}
+        name={name}
+        aria-invalid={invalid}
+        aria-describedby={describedBy(id, hint, errors)}
+        className={`${boxClass(dense)} w-full`}
+        onChange={changeHandler(onChange, onValueChange)}
+        {...select}
+      >
         {placeholder !== undefined && <option value="">{placeholder}</option>}
         {options.map((o) => (
           <option key={o.value} value={o.value}>
@@ -173,28 +275,72 @@ export function SelectField({ name, label, hint, hideLabel, errorKey, error, onV
   );
 }
 
-export interface TextareaFieldProps extends ControlProps, Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, "className"> {
+export interface TextareaFieldProps
+  extends ControlProps, Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, "className"> {
   name?: string;
 }
 
 /** A labelled multi-line input. */
-export function TextareaField({ name, label, hint, hideLabel, errorKey, error, onValueChange, dense, className, rows = 3, onChange, ...textarea }: TextareaFieldProps) {
+export function TextareaField({
+  name,
+  label,
+  hint,
+  hideLabel,
+  errorKey,
+  error,
+  onValueChange,
+  dense,
+  className,
+  rows = 3,
+  onChange,
+  ...textarea
+}: TextareaFieldProps) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
   return (
-    <FieldFrame id={id} label={label} hint={hint} errors={errors} hideLabel={hideLabel} className={className}>
-      <textarea id={id} name={name} rows={rows} aria-invalid={invalid} aria-describedby={describedBy(id, hint, errors)} className={`${boxClass(dense)} w-full`} onChange={changeHandler(onChange, onValueChange)} {...textarea} />
+    <FieldFrame
+      id={id}
+      label={label}
+      hint={hint}
+      errors={errors}
+      hideLabel={hideLabel}
+      className={className}
+    >
+      <textarea
+        id={id}
+        name={name}
+        rows={rows}
+        aria-invalid={invalid}
+        aria-describedby={describedBy(id, hint, errors)}
+        className={`${boxClass(dense)} w-full`}
+        onChange={changeHandler(onChange, onValueChange)}
+        {...textarea}
+      />
     </FieldFrame>
   );
 }
 
-export interface CheckboxFieldProps extends Omit<ControlProps, "onValueChange" | "dense">, Omit<InputHTMLAttributes<HTMLInputElement>, "className" | "type"> {
+export interface CheckboxFieldProps
+  extends
+    Omit<ControlProps, "onValueChange" | "dense">,
+    Omit<InputHTMLAttributes<HTMLInputElement>, "className" | "type"> {
   name?: string;
   /** Called with the new state on every change (controlled use). */
   onCheckedChange?: (checked: boolean) => void;
 }
 
 /** A checkbox with its label to the right, and its error under it. */
-export function CheckboxField({ name, label, hint, hideLabel, errorKey, error, onCheckedChange, className, onChange, ...input }: CheckboxFieldProps) {
+export function CheckboxField({
+  name,
+  label,
+  hint,
+  hideLabel,
+  errorKey,
+  error,
+  onCheckedChange,
+  className,
+  onChange,
+  ...input
+}: CheckboxFieldProps) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
   return (
     <div className={`space-y-1 ${className ?? ""}`}>
@@ -238,11 +384,25 @@ export interface ChoiceGroupProps {
 }
 
 /** A fieldset of radios or checkboxes under one name, with the server's error for that name. */
-export function ChoiceGroup({ type, name, legend, options, defaultValues = [], hint, inline, className, value, onValueChange }: ChoiceGroupProps) {
+export function ChoiceGroup({
+  type,
+  name,
+  legend,
+  options,
+  defaultValues = [],
+  hint,
+  inline,
+  className,
+  value,
+  onValueChange,
+}: ChoiceGroupProps) {
   const id = useId();
   const errors = useFieldErrors(name);
   return (
-    <fieldset className={`space-y-1 ${className ?? ""}`} aria-describedby={describedBy(id, hint, errors)}>
+    <fieldset
+      className={`space-y-1 ${className ?? ""}`}
+      aria-describedby={describedBy(id, hint, errors)}
+    >
       <legend className="text-sm font-medium text-stone-800">{legend}</legend>
       <div className={inline ? "flex flex-wrap gap-x-4 gap-y-1" : "space-y-1"}>
         {options.map((o) => (
@@ -252,7 +412,9 @@ export function ChoiceGroup({ type, name, legend, options, defaultValues = [], h
               name={name}
               value={o.value}
               className="mt-0.5"
-              {...(value === undefined ? { defaultChecked: defaultValues.includes(o.value) } : { checked: value === o.value, onChange: () => onValueChange?.(o.value) })}
+              {...(value === undefined
+                ? { defaultChecked: defaultValues.includes(o.value) }
+                : { checked: value === o.value, onChange: () => onValueChange?.(o.value) })}
             />
             <span>{o.label}</span>
           </label>
@@ -263,16 +425,43 @@ export function ChoiceGroup({ type, name, legend, options, defaultValues = [], h
   );
 }
 
-export interface FileFieldProps extends Omit<ControlProps, "onValueChange" | "dense">, Omit<InputHTMLAttributes<HTMLInputElement>, "className" | "type"> {
+export interface FileFieldProps
+  extends
+    Omit<ControlProps, "onValueChange" | "dense">,
+    Omit<InputHTMLAttributes<HTMLInputElement>, "className" | "type"> {
   name?: string;
 }
 
 /** A labelled file picker. */
-export function FileField({ name, label, hint, hideLabel, errorKey, error, className, ...input }: FileFieldProps) {
+export function FileField({
+  name,
+  label,
+  hint,
+  hideLabel,
+  errorKey,
+  error,
+  className,
+  ...input
+}: FileFieldProps) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
   return (
-    <FieldFrame id={id} label={label} hint={hint} errors={errors} hideLabel={hideLabel} className={className}>
-      <input id={id} name={name} type="file" aria-invalid={invalid} aria-describedby={describedBy(id, hint, errors)} className="block w-full text-sm" {...input} />
+    <FieldFrame
+      id={id}
+      label={label}
+      hint={hint}
+      errors={errors}
+      hideLabel={hideLabel}
+      className={className}
+    >
+      <input
+        id={id}
+        name={name}
+        type="file"
+        aria-invalid={invalid}
+        aria-describedby={describedBy(id, hint, errors)}
+        className="block w-full text-sm"
+        {...input}
+      />
     </FieldFrame>
   );
 }

@@ -2,7 +2,15 @@
 
 import { Plus, Trash2 } from "lucide-react";
 import { useState, type ReactNode } from "react";
-import { appendRow, removeRow, rowsOf, updateRow, valuesOf, type Row, type RowChange } from "@/lib/forms/rows";
+import {
+  appendRow,
+  removeRow,
+  rowsOf,
+  updateRow,
+  valuesOf,
+  type Row,
+  type RowChange,
+} from "@/lib/forms/rows";
 import { Button } from "./button";
 
 export interface RowList<T> {
@@ -35,7 +43,15 @@ export function PayloadField({ value }: { value: unknown }) {
 }
 
 /** "Add …" under a list. */
-export function AddRowButton({ onAdd, children, className }: { onAdd: () => void; children: ReactNode; className?: string }) {
+export function AddRowButton({
+  onAdd,
+  children,
+  className,
+}: {
+  onAdd: () => void;
+  children: ReactNode;
+  className?: string;
+}) {
   return (
     <Button variant="secondary" className={className} onClick={onAdd}>
       <Plus className="h-4 w-4" aria-hidden="true" /> {children}
@@ -44,7 +60,15 @@ export function AddRowButton({ onAdd, children, className }: { onAdd: () => void
 }
 
 /** A row's remove button: `label` names the row for screen readers; `children` is any visible text. */
-export function RemoveRowButton({ onRemove, label, children }: { onRemove: () => void; label: string; children?: ReactNode }) {
+export function RemoveRowButton({
+  onRemove,
+  label,
+  children,
+}: {
+  onRemove: () => void;
+  label: string;
+  children?: ReactNode;
+}) {
   return (
     <Button variant="ghost" aria-label={label} onClick={onRemove}>
       <Trash2 className="h-4 w-4" aria-hidden="true" />

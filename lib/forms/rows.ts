@@ -36,6 +36,17 @@ export function removeRow<T>(rows: readonly Row<T>[], index: number): Row<T>[] {
 /** A patch merges into an object row; a function replaces the row's value. The key stays. */
 export type RowChange<T> = Partial<T> | ((value: T) => T);
 
-export function updateRow<T>(rows: readonly Row<T>[], index: number, change: RowChange<T>): Row<T>[] {
-  return rows.map((row, i) => (i === index ? { key: row.key, value: typeof change === "function" ? change(row.value) : { ...row.value, ...change } } : row));
+export function updateRow<T>(
+  rows: readonly Row<T>[],
+  index: number,
+  change: RowChange<T>,
+): Row<T>[] {
+  return rows.map((row, i) =>
+    i === index
+      ? {
+          key: row.key,
+          value: typeof change === "function" ? change(row.value) : { ...row.value, ...change },
+        }
+      : row,
+  );
 }

@@ -15,9 +15,11 @@ type Issue = z.core.$ZodRawIssue;
 
 const grouped = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 6 });
 const amount = (n: number | bigint) => (typeof n === "bigint" ? n.toString() : grouped.format(n));
-const plural = (n: number | bigint, one: string, many = `${one}s`) => `${amount(n)} ${Number(n) === 1 ? one : many}`;
+const plural = (n: number | bigint, one: string, many = `${one}s`) =>
+  `${amount(n)} ${Number(n) === 1 ? one : many}`;
 
-const isMissing = (input: unknown) => input === undefined || input === null || (typeof input === "string" && input.trim() === "");
+const isMissing = (input: unknown) =>
+  input === undefined || input === null || (typeof input === "string" && input.trim() === "");
 
 const TYPE_WORDS: Record<string, string> = {
   number: "Enter a number.",
@@ -73,7 +75,9 @@ function tooSmall(issue: Extract<Issue, { code: "too_small" }>): string {
       return Number(min) <= 1 ? "Fill in this field." : `At least ${plural(min, "character")}.`;
     case "array":
     case "set":
-      return Number(min) <= 1 ? "Choose or enter at least one." : `At least ${plural(min, "entry", "entries")}.`;
+      return Number(min) <= 1
+        ? "Choose or enter at least one."
+        : `At least ${plural(min, "entry", "entries")}.`;
     case "file":
       return "The file is empty.";
     case "date":
@@ -84,7 +88,9 @@ function tooSmall(issue: Extract<Issue, { code: "too_small" }>): string {
 }
 
 function invalidValue(values: readonly unknown[]): string {
-  const shown = values.filter((v) => typeof v === "string" || typeof v === "number" || typeof v === "boolean");
+  const shown = values.filter(
+    (v) => typeof v === "string" || typeof v === "number" || typeof v === "boolean",
+  );
   if (shown.length === 1) return `Must be ${String(shown[0])}.`;
   if (shown.length > 0 && shown.length <= 6) return `Choose one of: ${shown.join(", ")}.`;
   return "Choose from the list.";
@@ -101,9 +107,12 @@ export function plainMessage(issue: Issue): string {
     case "too_small":
       return tooSmall(issue);
     case "invalid_format":
-      if (issue.format === "starts_with") return `Must start with “${(issue as { prefix?: string }).prefix ?? ""}”.`;
-      if (issue.format === "ends_with") return `Must end with “${(issue as { suffix?: string }).suffix ?? ""}”.`;
-      if (issue.format === "includes") return `Must contain “${(issue as { includes?: string }).includes ?? ""}”.`;
+      if (issue.format === "starts_with")
+        return `Must start with “${(issue as { prefix?: string }).prefix ?? ""}”.`;
+      if (issue.format === "ends_with")
+        return `Must end with “${(issue as { suffix?: string }).suffix ?? ""}”.`;
+      if (issue.format === "includes")
+        return `Must contain “${(issue as { includes?: string }).includes ?? ""}”.`;
       return FORMAT_WORDS[issue.format] ?? "Check the format of this value.";
     case "not_multiple_of":
       return `Use a multiple of ${amount(issue.divisor)}.`;

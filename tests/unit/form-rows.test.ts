@@ -28,7 +28,11 @@ describe("row list of an editor", () => {
   it("merges a patch into one row, or replaces its value through a function, keeping its key", () => {
     const rows = start();
     const patched = updateRow(rows, 1, { name: "Deionised rinse" });
-    expect(valuesOf(patched)).toEqual([{ name: "Wash" }, { name: "Deionised rinse" }, { name: "Dry" }]);
+    expect(valuesOf(patched)).toEqual([
+      { name: "Wash" },
+      { name: "Deionised rinse" },
+      { name: "Dry" },
+    ]);
     expect(patched[1].key).toBe(rows[1].key);
     expect(patched[0]).toBe(rows[0]);
     const replaced = updateRow(patched, 2, (v) => ({ name: `${v.name} (vacuum)` }));

@@ -40,29 +40,50 @@ describe("the one zod error map", () => {
     expect(messageOf(z.array(z.string()).max(2), ["a", "b", "c"])).toEqual(["At most 2 entries."]);
   });
   it("explains formats and choices", () => {
-    expect(messageOf(z.string().email(), "someone")).toEqual(["Enter an e-mail address, like name@example.com."]);
+    expect(messageOf(z.string().email(), "someone")).toEqual([
+      "Enter an e-mail address, like name@example.com.",
+    ]);
     expect(messageOf(z.string().uuid(), "x")).toEqual(["Choose from the list."]);
     expect(messageOf(z.iso.date(), "2026-13-01")).toEqual(["Enter a date as YYYY-MM-DD."]);
     expect(messageOf(z.string().regex(/^CR-/), "X")).toEqual(["Check the format of this value."]);
     expect(messageOf(z.string().startsWith("wp_"), "x")).toEqual(["Must start with “wp_”."]);
     expect(messageOf(z.enum(["minor", "major"]), "huge")).toEqual(["Choose one of: minor, major."]);
     expect(messageOf(z.literal("yes"), "no")).toEqual(["Must be yes."]);
-    expect(messageOf(z.object({ a: z.string() }).strict(), { a: "x", B: 1 })).toEqual(["Not a field this form or request accepts: B."]);
+    expect(messageOf(z.object({ a: z.string() }).strict(), { a: "x", B: 1 })).toEqual([
+      "Not a field this form or request accepts: B.",
+    ]);
   });
   it("keeps a schema's own message where one was written", () => {
-    expect(messageOf(z.string().max(60, "Use at most 60 characters."), "x".repeat(61))).toEqual(["Use at most 60 characters."]);
+    expect(messageOf(z.string().max(60, "Use at most 60 characters."), "x".repeat(61))).toEqual([
+      "Use at most 60 characters.",
+    ]);
   });
   it("never lets zod's own phrasing through for any issue code", () => {
     const raw = /Too big|Too small|Invalid input|Invalid option|expected|received|<=|>=/;
     const samples: [z.ZodType, unknown][] = [
-      [z.string().max(3), "abcd"], [z.number(), "x"], [z.union([z.string(), z.number()]), true],
-      [z.record(z.enum(["a"]), z.number()), { b: 1 }], [z.map(z.string(), z.number()), new Map([["a", "x"]])],
-      [z.object({ a: z.string() }), undefined], [z.string().refine(() => false), "x"], [z.date().max(new Date(0)), new Date()],
+      [z.string().max(3), "abcd"],
+      [z.number(), "x"],
+      [z.union([z.string(), z.number()]), true],
+      [z.record(z.enum(["a"]), z.number()), { b: 1 }],
+      [z.map(z.string(), z.number()), new Map([["a", "x"]])],
+      [z.object({ a: z.string() }), undefined],
+      [z.string().refine(() => false), "x"],
+      [z.date().max(new Date(0)), new Date()],
     ];
-    for (const [schema, value] of samples) for (const message of messageOf(schema, value)) expect(message).not.toMatch(raw);
+    for (const [schema, value] of samples)
+      for (const message of messageOf(schema, value)) expect(message).not.toMatch(raw);
   });
   it("is the same function the config applies", () => {
-    expect(plainMessage({ code: "too_big", origin: "string", maximum: 200, inclusive: true, input: "", path: [] } as never)).toBe("At most 200 characters.");
+    expect(
+      plainMessage({
+        code: "too_big",
+        origin: "string",
+        maximum: 200,
+        inclusive: true,
+        input: "",
+        path: [],
+      } as never),
+    ).toBe("At most 200 characters.");
   });
 });
 
@@ -77,6 +98,8 @@ describe("extraction series without the blank", () => {
     expect(fieldErrors.blankMeasured[0]).toContain("Blank value measured");
   });
   it("saves with the box ticked and no class counted", () => {
-    expect(particleRunDataSchema.parse({ extractionSeries: "100, 30, 8", blankMeasured: "on" })).toEqual({ extractionSeries: [100, 30, 8], blank: { counts: {}, largestUm: null } });
+    expect(
+      particleRunDataSchema.parse({ extractionSeries: "100, 30, 8", blankMeasured: "on" }),
+    ).toEqual({ extractionSeries: [100, 30, 8], blank: { counts: {}, largestUm: null } });
   });
 });
