@@ -1,7 +1,7 @@
 "use client";
 
 import { ActionForm, useFormResult } from "@/components/ui/action-form";
-import { Field, FieldError } from "@/components/ui/field";
+import { ChoiceGroup, Field } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { createApiTokenAction, revokeApiTokenAction } from "@/app/(app)/account/tokens/actions";
 import { SCOPE_LABELS } from "@/lib/schemas/api-token";
@@ -27,16 +27,16 @@ export function CreateApiTokenForm({ canWrite }: { canWrite: boolean }) {
     <ActionForm action={createApiTokenAction} className="max-w-xl space-y-4" aria-label="Create API token" showSuccess={false}>
       <NewToken />
       <Field name="name" label="Name" hint="What uses it, e.g. “Particle counter, lab 2”." maxLength={80} />
-      <fieldset className="space-y-1">
-        <legend className="text-sm font-medium text-stone-800">Scope</legend>
-        <label className="flex items-center gap-2 text-sm">
-          <input type="radio" name="scope" value="read" defaultChecked /> {SCOPE_LABELS.read}: read records
-        </label>
-        <label className="flex items-center gap-2 text-sm">
-          <input type="radio" name="scope" value="read_write" /> {SCOPE_LABELS.read_write}: also post test results{canWrite ? "" : " (your role does not write, so such a token is refused when it tries)"}
-        </label>
-        <FieldError name="scope" />
-      </fieldset>
+      <ChoiceGroup
+        type="radio"
+        name="scope"
+        legend="Scope"
+        defaultValues={["read"]}
+        options={[
+          { value: "read", label: `${SCOPE_LABELS.read}: read records` },
+          { value: "read_write", label: `${SCOPE_LABELS.read_write}: also post test results${canWrite ? "" : " (your role does not write, so such a token is refused when it tries)"}` },
+        ]}
+      />
       <SubmitButton>Create token</SubmitButton>
     </ActionForm>
   );

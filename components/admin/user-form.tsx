@@ -1,7 +1,7 @@
 "use client";
 
 import { ActionForm } from "@/components/ui/action-form";
-import { Field, FieldError } from "@/components/ui/field";
+import { ChoiceGroup, Field } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { ROLES, type Role } from "@/db/enums";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
@@ -30,19 +30,21 @@ export function UserForm({ action, user, submitLabel }: UserFormProps) {
       <Field name="name" label="Full name" defaultValue={user?.name} autoComplete="off" />
       <Field name="email" label="E-mail" type="email" defaultValue={user?.email} autoComplete="off" />
       <Field name="jobTitle" label="Job title (optional)" defaultValue={user?.jobTitle ?? ""} />
-      <fieldset className="space-y-2">
-        <legend className="text-sm font-medium text-stone-800">Roles</legend>
-        <p className="text-xs text-stone-600">Nobody may sign both &quot;authored&quot; and &quot;approved&quot; on the same version, whatever their roles.</p>
-        {ROLES.map((role) => (
-          <label key={role} className="flex items-start gap-2 text-sm">
-            <input type="checkbox" name="roles" value={role} defaultChecked={user?.roles.includes(role)} className="mt-0.5" />
-            <span>
+      <ChoiceGroup
+        type="checkbox"
+        name="roles"
+        legend="Roles"
+        hint="Nobody may sign both “authored” and “approved” on the same version, whatever their roles."
+        defaultValues={user?.roles ?? []}
+        options={ROLES.map((role) => ({
+          value: role,
+          label: (
+            <>
               <span className="font-medium">{ROLE_LABELS[role]}</span> <span className="text-stone-600">— {ROLE_HINTS[role]}</span>
-            </span>
-          </label>
-        ))}
-        <FieldError name="roles" />
-      </fieldset>
+            </>
+          ),
+        }))}
+      />
       <SubmitButton>{submitLabel}</SubmitButton>
       <TemporaryPassword />
     </ActionForm>

@@ -1,7 +1,7 @@
 "use client";
 
 import { ActionForm } from "@/components/ui/action-form";
-import { Field, FieldError } from "@/components/ui/field";
+import { ChoiceGroup, Field } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { CHANGE_KINDS } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
@@ -12,17 +12,7 @@ export function OpenChangeForm({ action, recipeId, version }: { action: (prev: F
     <ActionForm action={action} className="space-y-3" aria-label="Open a change request">
       <input type="hidden" name="recipeId" value={recipeId} />
       <Field name="title" label="What should change" placeholder="e.g. Raise wash temperature for heavier chip load" />
-      <fieldset>
-        <legend className="text-sm font-medium text-stone-800">Kind of change</legend>
-        <div className="mt-1 flex flex-wrap gap-x-4 gap-y-1">
-          {CHANGE_KINDS.map((k, i) => (
-            <label key={k} className="flex items-center gap-1.5 text-sm">
-              <input type="radio" name="kind" value={k} defaultChecked={i === 0} /> {CHANGE_KIND_LABELS[k]}
-            </label>
-          ))}
-        </div>
-        <FieldError name="kind" />
-      </fieldset>
+      <ChoiceGroup type="radio" name="kind" legend="Kind of change" inline defaultValues={[CHANGE_KINDS[0]]} options={CHANGE_KINDS.map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] }))} />
       <SubmitButton>Open change request against version {version}</SubmitButton>
     </ActionForm>
   );

@@ -3,7 +3,7 @@
 import { useRef } from "react";
 import { ActionForm } from "@/components/ui/action-form";
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
+import { Field, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import type { FormState } from "@/lib/actions/result";
 
@@ -50,17 +50,14 @@ export function LinkEvidenceForm({ action, changeRequestId, requirementId, label
     <ActionForm action={action} className="mt-2 flex flex-wrap items-end gap-2" aria-label={`Link evidence for ${label}`}>
       <input type="hidden" name="changeRequestId" value={changeRequestId} />
       <input type="hidden" name="requirementId" value={requirementId} />
-      <label className="text-sm">
-        <span className="block font-medium">Test run for {label}</span>
-        <select name="testRunId" className="mt-1 rounded-md border border-stone-300 bg-white px-2.5 py-1.5 text-sm" defaultValue="">
-          <option value="">Choose…</option>
-          {runs.map((r) => (
-            <option key={r.id} value={r.id}>
-              {r.number} — {r.status}, outcome {r.outcome ?? "not computed"}
-            </option>
-          ))}
-        </select>
-      </label>
+      <SelectField
+        name="testRunId"
+        label={`Test run for ${label}`}
+        placeholder="Choose…"
+        defaultValue=""
+        dense
+        options={runs.map((r) => ({ value: r.id, label: `${r.number} — ${r.status}, outcome ${r.outcome ?? "not computed"}` }))}
+      />
       <SubmitButton variant="secondary">Link</SubmitButton>
     </ActionForm>
   );

@@ -2,8 +2,7 @@
 
 import { useState } from "react";
 import { ActionForm } from "@/components/ui/action-form";
-import { Field } from "@/components/ui/field";
-import { SelectField } from "@/components/ui/select-field";
+import { Field, NumberField, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { DOCUMENT_TYPES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
@@ -35,7 +34,7 @@ export function NewDocumentForm({ action, options }: NewDocumentFormProps) {
         label="Cleaning system"
         placeholder="— none —"
         value={systemId}
-        onChange={(e) => setSystemId(e.target.value)}
+        onValueChange={setSystemId}
         options={options.systems.map((s) => ({ value: s.id, label: `${s.code} — ${s.name}` }))}
       />
       <SelectField name="partFamilyId" label="Part family" placeholder="— none —" options={options.families.map((f) => ({ value: f.id, label: `${f.code} — ${f.name}` }))} />
@@ -49,8 +48,8 @@ export function NewDocumentForm({ action, options }: NewDocumentFormProps) {
       />
       <fieldset className="grid grid-cols-2 gap-4">
         <legend className="mb-1 text-sm font-medium text-stone-800">Sample plan (success-run, zero failures)</legend>
-        <Field name="confidencePct" label="Confidence (%)" type="number" step="0.1" defaultValue="95" />
-        <Field name="reliabilityPct" label="Reliability (%)" type="number" step="0.1" defaultValue="90" />
+        <NumberField name="confidencePct" label="Confidence (%)" defaultValue="95" />
+        <NumberField name="reliabilityPct" label="Reliability (%)" defaultValue="90" />
       </fieldset>
       <SubmitButton pendingText="Creating…">Create draft from template</SubmitButton>
     </ActionForm>

@@ -1,8 +1,7 @@
 "use client";
 
 import { ActionForm } from "@/components/ui/action-form";
-import { Field } from "@/components/ui/field";
-import { SelectField } from "@/components/ui/select-field";
+import { DateField, Field, NumberField, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { BATH_RECORD_KINDS, MAINTENANCE_KINDS } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
@@ -16,14 +15,14 @@ export function BathRecordForm({ action, stageId }: { action: Action; stageId: s
     <ActionForm action={action} resetOnSuccess className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3" aria-label="Record in the bath log">
       <input type="hidden" name="stageId" value={stageId} />
       <SelectField name="kind" label="What was done" defaultValue="reading" options={BATH_RECORD_KINDS.map((k) => ({ value: k, label: MAINTENANCE_LABELS[k] }))} />
-      <Field name="performedAt" label="When (UTC)" type="datetime-local" defaultValue={dateTimeFieldValue()} />
+      <DateField name="performedAt" label="When (UTC)" withTime defaultValue={dateTimeFieldValue()} />
       <Field name="filterDescription" label="Filter fitted (filter changes)" placeholder="e.g. bag filter 25 µm" />
-      <Field name="concentrationPct" label="Detergent concentration (%)" inputMode="decimal" />
-      <Field name="conductivityUsPerCm" label="Bath conductivity (µS/cm)" inputMode="decimal" />
-      <Field name="temperatureC" label="Bath temperature (°C)" inputMode="decimal" />
-      <Field name="countPerMl4" label="Particles ≥ 4 µm(c) per mL" inputMode="decimal" />
-      <Field name="countPerMl6" label="Particles ≥ 6 µm(c) per mL" inputMode="decimal" />
-      <Field name="countPerMl14" label="Particles ≥ 14 µm(c) per mL" inputMode="decimal" hint="The ISO 4406 code is computed from the three counts." />
+      <NumberField name="concentrationPct" label="Detergent concentration (%)" />
+      <NumberField name="conductivityUsPerCm" label="Bath conductivity (µS/cm)" />
+      <NumberField name="temperatureC" label="Bath temperature (°C)" />
+      <NumberField name="countPerMl4" label="Particles ≥ 4 µm(c) per mL" />
+      <NumberField name="countPerMl6" label="Particles ≥ 6 µm(c) per mL" />
+      <NumberField name="countPerMl14" label="Particles ≥ 14 µm(c) per mL" hint="The ISO 4406 code is computed from the three counts." />
       <Field name="notes" label="Notes" className="sm:col-span-3" />
       <div className="sm:col-span-3">
         <SubmitButton>Record</SubmitButton>
@@ -37,8 +36,8 @@ export function IntervalForm({ action, stageId }: { action: Action; stageId: str
     <ActionForm action={action} className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-4 sm:items-end" aria-label="Set a maintenance interval">
       <input type="hidden" name="stageId" value={stageId} />
       <SelectField name="kind" label="Maintenance" options={MAINTENANCE_KINDS.map((k) => ({ value: k, label: MAINTENANCE_LABELS[k] }))} />
-      <Field name="intervalDays" label="Every (days)" inputMode="numeric" />
-      <Field name="warnDays" label="Show as due (days before)" inputMode="numeric" defaultValue="2" />
+      <NumberField name="intervalDays" label="Every (days)" integer />
+      <NumberField name="warnDays" label="Show as due (days before)" integer defaultValue="2" />
       <SubmitButton variant="secondary">Save interval</SubmitButton>
     </ActionForm>
   );

@@ -3,8 +3,9 @@
 import Papa from "papaparse";
 import { FileSpreadsheet } from "lucide-react";
 import { useRouter } from "next/navigation";
-import { useId, useState, type FormEvent } from "react";
+import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
+import { FileField, SelectField } from "@/components/ui/field";
 import { autoMapping, CSV_FORMATS, mappingProblems, type ColumnMapping, type CsvTestType, type RowError } from "@/lib/evidence/csv-import";
 
 type Result = { ok: boolean; message: string; rowErrors?: RowError[]; errorCount?: number };
@@ -17,7 +18,6 @@ type Result = { ok: boolean; message: string; rowErrors?: RowError[]; errorCount
 export function CsvImport({ runId, testType }: { runId: string; testType: CsvTestType }) {
   const format = CSV_FORMATS[testType];
   const router = useRouter();
-  const id = useId();
   const [file, setFile] = useState<File | null>(null);
   const [headers, setHeaders] = useState<string[]>([]);
   const [mapping, setMapping] = useState<ColumnMapping>({});
@@ -63,12 +63,12 @@ export function CsvImport({ runId, testType }: { runId: string; testType: CsvTes
   const needsMapping = headers.length > 0 && (problems.length > 0 || unmapped.length > 0);
   return (
     <form onSubmit={onSubmit} className="space-y-3 rounded-lg border border-stone-200 bg-white p-4" aria-label={`Import ${format.what} from CSV`}>
-      <div>
-        <label htmlFor={`${id}-csv`} className="block text-sm font-medium text-stone-800">
-          CSV file of {format.what}
-        </label>
-        <input id={`${id}-csv`} type="file" accept=".csv,text/csv" onChange={(e) => onFile(e.target.files?.[0] ?? null)} className="mt-1 block text-sm" />
-        <p className="mt-1 text-xs text-stone-600">
+      <FileField
+        label={`CSV file of ${format.what}`}
+        accept=".csv,text/csv"
+        onChange={(e) => onFile(e.target.files?.[0] ?? null)}
+        hint={
+          <>
           One row per sample. Columns:{" "}
           {testType === "particle_cleanliness" ? (
             <>
@@ -81,28 +81,23 @@ export function CsvImport({ runId, testType }: { runId: string; testType: CsvTes
             </>
           )}{" "}
           Other names can be mapped below.
-        </p>
-      </div>
+          </>
+        }
+      />
       {needsMapping && (
         <fieldset className="space-y-2">
           <legend className="text-sm font-medium text-stone-800">Match the file&apos;s columns</legend>
           <div className="grid gap-2 sm:grid-cols-3 lg:grid-cols-4">
             {format.fields.map((f) => (
-              <label key={f.key} className="text-xs text-stone-700">
-                {f.label}
-                <select
-                  value={mapping[f.key] ?? ""}
-                  onChange={(e) => setMapping((m) => ({ ...m, [f.key]: e.target.value || undefined }))}
-                  className="mt-0.5 block w-full rounded border border-stone-300 bg-white px-1.5 py-1 text-sm"
-                >
-                  <option value="">(not in file)</option>
-                  {headers.map((h) => (
-                    <option key={h} value={h}>
-                      {h}
-                    </option>
-                  ))}
-                </select>
-              </label>
+              <SelectField
+                key={f.key}
+                label={f.label}
+                dense
+                value={mapping[f.key] ?? ""}
+                onValueChange={(v) => setMapping((m) => ({ ...m, [f.key]: v || undefined }))}
+                placeholder="(not in file)"
+                options={headers.map((h) => ({ value: h, label: h }))}
+              />
             ))}
           </div>
           {problems.map((p) => (

@@ -1,8 +1,7 @@
 "use client";
 
 import { ActionForm } from "@/components/ui/action-form";
-import { Field } from "@/components/ui/field";
-import { SelectField } from "@/components/ui/select-field";
+import { DateField, Field, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { TEST_TYPES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
@@ -29,7 +28,7 @@ export function RunForm({ action, options, defaultTechnicianId }: RunFormProps) 
       <SelectField name="testType" label="Test type" placeholder="Choose…" options={TEST_TYPES.map((t) => ({ value: t, label: humanize(t) }))} />
       <SelectField name="technicianId" label="Technician" placeholder="Choose…" defaultValue={defaultTechnicianId} options={options.technicians.map((t) => ({ value: t.id, label: t.name }))} />
       <Field name="lab" label="Analysing lab" placeholder="e.g. Larchfield cleanliness lab" />
-      <Field name="performedOn" label="Test date" type="date" defaultValue={todayUtc()} />
+      <DateField name="performedOn" label="Test date" defaultValue={todayUtc()} />
       <SelectField name="protocolDocumentId" label="Protocol (optional)" placeholder="None" options={options.protocols.map((p) => ({ value: p.id, label: `${p.number} · ${p.title}` }))} />
       <SelectField name="changeRequestId" label="Change request (optional)" placeholder="None" options={options.changes.map((c) => ({ value: c.id, label: `${c.number} · ${c.title}` }))} />
       <Field name="requirement" label="Requirement of the change request (optional)" className="sm:col-span-2" hint="The required requalification test this run answers, in the change request's words." />

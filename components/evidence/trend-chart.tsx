@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { SelectField } from "@/components/ui/field";
 import type { TrendSeries } from "@/lib/evidence/trends";
 import { formatNumber } from "@/lib/format/number";
 
@@ -14,16 +15,7 @@ export function TrendChart({ series }: { series: TrendSeries }) {
   const data = series.points.map((p) => ({ run: p.run, date: p.date, outcome: p.outcome, value: p.values[group] ?? 0 }));
   return (
     <figure className="rounded-lg border border-stone-200 bg-white p-4" aria-label="Particle trend chart">
-      <label className="text-sm text-stone-700">
-        Size classes{" "}
-        <select value={group} onChange={(e) => setGroup(e.target.value)} className="ml-1 rounded border border-stone-300 bg-white px-2 py-1 text-sm">
-          {series.groups.map((g) => (
-            <option key={g.key} value={g.key}>
-              {g.key}
-            </option>
-          ))}
-        </select>
-      </label>
+      <SelectField label="Size classes" dense className="max-w-40" value={group} onValueChange={setGroup} options={series.groups.map((g) => ({ value: g.key, label: g.key }))} />
       <div className="mt-3 h-72">
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={data} margin={{ left: 12, right: 24, top: 8, bottom: 8 }}>

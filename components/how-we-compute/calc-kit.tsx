@@ -1,7 +1,7 @@
 "use client";
 
 import { CircleCheck, CircleX } from "lucide-react";
-import { useId, type ReactNode } from "react";
+import type { ReactNode } from "react";
 
 /** Text typed into a calculator field as a number: blank is "not given", a decimal comma is accepted. */
 export function parseInput(text: string): number | undefined {
@@ -50,57 +50,6 @@ export function generalError(
   return outcome.field !== undefined && shownFields.includes(outcome.field)
     ? undefined
     : outcome.message;
-}
-
-export interface CalcFieldProps {
-  label: string;
-  /** Unit shown after the input, e.g. "cm²"; the label names it too where it matters. */
-  unit?: string;
-  value: string;
-  onChange: (value: string) => void;
-  error?: string;
-  hint?: ReactNode;
-  /** Stretch the input to the width of its column. */
-  wide?: boolean;
-}
-
-/** A labelled input with its unit, and the computation's error right beside it. */
-export function CalcField({ label, unit, value, onChange, error, hint, wide }: CalcFieldProps) {
-  const id = useId();
-  const describedBy =
-    [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(" ") ||
-    undefined;
-  return (
-    <div className="space-y-1">
-      <label htmlFor={id} className="block text-sm font-medium text-stone-800">
-        {label}
-      </label>
-      <div className="flex items-center gap-2">
-        <input
-          id={id}
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          value={value}
-          onChange={(e) => onChange(e.target.value)}
-          aria-invalid={error ? true : undefined}
-          aria-describedby={describedBy}
-          className={`block min-w-0 rounded-md border border-stone-300 bg-white px-2.5 py-1.5 font-mono text-sm shadow-xs focus:border-brand-600 aria-invalid:border-red-700 ${wide ? "w-full flex-1" : "w-32"}`}
-        />
-        {unit && <span className="text-sm text-stone-600">{unit}</span>}
-      </div>
-      {hint && (
-        <p id={`${id}-hint`} className="text-xs text-stone-600">
-          {hint}
-        </p>
-      )}
-      {error && (
-        <p id={`${id}-error`} className="text-sm text-red-800">
-          {error}
-        </p>
-      )}
-    </div>
-  );
 }
 
 /** Pass or fail as a word with an icon, never by colour alone. */

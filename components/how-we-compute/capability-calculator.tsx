@@ -5,7 +5,6 @@ import { capability, individualsChart, type CapabilityResult } from "@/lib/stats
 import {
   attempt,
   CalcError,
-  CalcField,
   CalcPanel,
   errorFor,
   fixed,
@@ -14,6 +13,7 @@ import {
   requiredInput,
 } from "./calc-kit";
 import { TBody, Table, Td, Th } from "@/components/ui/table";
+import { ChoiceGroup, Field, NumberField } from "@/components/ui/field";
 
 type Mode = "summary" | "values";
 
@@ -50,75 +50,63 @@ export function CapabilityCalculator() {
       title="Calculator: process capability"
       form={
         <>
-          <fieldset>
-            <legend className="text-sm font-medium text-stone-800">Input</legend>
-            <div className="mt-1 flex flex-wrap gap-4 text-sm">
-              <label className="inline-flex items-center gap-1.5">
-                <input
-                  type="radio"
-                  name="cap-mode"
-                  checked={mode === "summary"}
-                  onChange={() => setMode("summary")}
-                />
-                Mean and σ
-              </label>
-              <label className="inline-flex items-center gap-1.5">
-                <input
-                  type="radio"
-                  name="cap-mode"
-                  checked={mode === "values"}
-                  onChange={() => setMode("values")}
-                />
-                Individual measurements
-              </label>
-            </div>
-          </fieldset>
-          <CalcField
+          <ChoiceGroup
+            type="radio"
+            name="cap-mode"
+            legend="Input"
+            inline
+            value={mode}
+            onValueChange={(v) => setMode(v as typeof mode)}
+            options={[
+              { value: "summary", label: "Mean and σ" },
+              { value: "values", label: "Individual measurements" },
+            ]}
+          />
+          <Field
             label="Unit of the measurements"
             value={unit}
-            onChange={setUnit}
+            onValueChange={setUnit}
             hint="Shown with every value below, e.g. mg, µS/cm, °C."
           />
           <div className="grid grid-cols-2 gap-3">
-            <CalcField
+            <NumberField
               label="Lower specification limit (LSL, optional)"
               unit={unit}
               value={lsl}
-              onChange={setLsl}
+              onValueChange={setLsl}
               error={errorFor(outcome, "lsl")}
             />
-            <CalcField
+            <NumberField
               label="Upper specification limit (USL, optional)"
               unit={unit}
               value={usl}
-              onChange={setUsl}
+              onValueChange={setUsl}
               error={errorFor(outcome, "usl")}
             />
           </div>
           {mode === "summary" ? (
             <div className="grid grid-cols-2 gap-3">
-              <CalcField
+              <NumberField
                 label="Mean x̄"
                 unit={unit}
                 value={mean}
-                onChange={setMean}
+                onValueChange={setMean}
                 error={errorFor(outcome, "mean")}
               />
-              <CalcField
+              <NumberField
                 label="Standard deviation σ"
                 unit={unit}
                 value={sigma}
-                onChange={setSigma}
+                onValueChange={setSigma}
                 error={errorFor(outcome, "sigma")}
               />
             </div>
           ) : (
-            <CalcField
+            <Field
               label="Measurements in time order"
               unit={unit}
               value={values}
-              onChange={setValues}
-              wide
+              onValueChange={setValues}
               hint="Separated by commas, semicolons, spaces or new lines; use a decimal point."
               error={errorFor(outcome, "values")}
             />

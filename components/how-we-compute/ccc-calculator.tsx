@@ -15,7 +15,6 @@ import {
 import {
   attempt,
   CalcError,
-  CalcField,
   CalcPanel,
   errorFor,
   generalError,
@@ -24,6 +23,7 @@ import {
   Verdict,
 } from "./calc-kit";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { ChoiceGroup, Field, NumberField } from "@/components/ui/field";
 
 type Kind = Basis["kind"];
 
@@ -66,32 +66,24 @@ export function CccCalculator() {
       title="Calculator: cleanliness code and specification"
       form={
         <>
-          <fieldset>
-            <legend className="text-sm font-medium text-stone-800">Counts related to</legend>
-            <div className="mt-1 flex flex-wrap gap-4 text-sm">
-              {(["area", "volume", "component"] as const).map((k) => (
-                <label key={k} className="inline-flex items-center gap-1.5">
-                  <input
-                    type="radio"
-                    name="ccc-basis"
-                    value={k}
-                    checked={kind === k}
-                    onChange={() => setKind(k)}
-                  />
-                  {k === "area"
-                    ? "Area (A, per 1000 cm²)"
-                    : k === "volume"
-                      ? "Volume (V, per 100 cm³)"
-                      : "Component (N)"}
-                </label>
-              ))}
-            </div>
-          </fieldset>
-          <CalcField
+          <ChoiceGroup
+            type="radio"
+            name="ccc-basis"
+            legend="Counts related to"
+            inline
+            value={kind}
+            onValueChange={(v) => setKind(v as typeof kind)}
+            options={[
+              { value: "area", label: "Area (A, per 1000 cm²)" },
+              { value: "volume", label: "Volume (V, per 100 cm³)" },
+              { value: "component", label: "Component (N)" },
+            ]}
+          />
+          <NumberField
             label={AMOUNT[kind].label}
             unit={AMOUNT[kind].unit}
             value={amount}
-            onChange={setAmount}
+            onValueChange={setAmount}
             error={errorFor(code, AMOUNT[kind].field, "basis")}
           />
           <fieldset>
@@ -100,22 +92,20 @@ export function CccCalculator() {
             </legend>
             <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-3">
               {SIZE_CLASSES.map((c) => (
-                <CalcField
+                <NumberField
                   key={c.key}
                   label={`${c.key}: ${c.minUm}${c.maxUm === null ? " µm and up" : `–${c.maxUm} µm`}`}
-                  wide
                   value={countText[c.key] ?? ""}
-                  onChange={(v) => setCountText((prev) => ({ ...prev, [c.key]: v }))}
+                  onValueChange={(v) => setCountText((prev) => ({ ...prev, [c.key]: v }))}
                   error={errorFor(code, c.key)}
                 />
               ))}
             </div>
           </fieldset>
-          <CalcField
+          <Field
             label="Specification in CCC notation (optional)"
             value={spec}
-            onChange={setSpec}
-            wide
+            onValueChange={setSpec}
             hint="e.g. A(B-E17/F-G14/H-I4/J-K2/L-N00); hyphen-joined classes share one limit, letters written together (EF12) are limited each on its own."
             error={evaluation ? errorFor(evaluation, "spec", "basis") : undefined}
           />

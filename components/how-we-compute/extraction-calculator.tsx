@@ -15,7 +15,6 @@ import { evaluateExtraction } from "@/lib/cleanliness";
 import {
   attempt,
   CalcError,
-  CalcField,
   CalcPanel,
   errorFor,
   generalError,
@@ -24,6 +23,7 @@ import {
   Verdict,
 } from "./calc-kit";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { NumberField } from "@/components/ui/field";
 
 const SLOTS = 8;
 const STATUS_TEXT = {
@@ -68,12 +68,11 @@ export function ExtractionCalculator() {
             </legend>
             <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-4">
               {counts.map((value, i) => (
-                <CalcField
+                <NumberField
                   key={i}
                   label={`C${i + 1} (particles)`}
-                  wide
                   value={value}
-                  onChange={(v) => setCounts((prev) => prev.map((old, j) => (j === i ? v : old)))}
+                  onValueChange={(v) => setCounts((prev) => prev.map((old, j) => (j === i ? v : old)))}
                 />
               ))}
             </div>
@@ -81,17 +80,17 @@ export function ExtractionCalculator() {
               Up to {SLOTS} extractions; only those up to the allowed number are evaluated.
             </p>
           </fieldset>
-          <CalcField
+          <NumberField
             label="Decay-value limit (fraction; 0.10 = 10 %)"
             value={maxRatio}
-            onChange={setMaxRatio}
+            onValueChange={setMaxRatio}
             error={errorFor(outcome, "maxRatio")}
           />
-          <CalcField
+          <NumberField
             label="Extractions allowed"
             unit="extractions"
             value={maxExtractions}
-            onChange={setMaxExtractions}
+            onValueChange={setMaxExtractions}
             error={errorFor(outcome, "maxExtractions")}
           />
         </>

@@ -5,12 +5,12 @@ import { successRunSampleSize } from "@/lib/stats";
 import {
   attempt,
   CalcError,
-  CalcField,
   CalcPanel,
   errorFor,
   generalError,
   requiredInput,
 } from "./calc-kit";
+import { NumberField } from "@/components/ui/field";
 
 /** Attribute sample size: a thin wrapper over successRunSampleSize. */
 export function SampleSizeCalculator() {
@@ -28,23 +28,23 @@ export function SampleSizeCalculator() {
       title="Calculator: sample size for pass/fail tests"
       form={
         <>
-          <CalcField
+          <NumberField
             label="Confidence C (fraction; 0.95 = 95 %)"
             value={confidence}
-            onChange={setConfidence}
+            onValueChange={setConfidence}
             error={errorFor(outcome, "confidence")}
           />
-          <CalcField
+          <NumberField
             label="Reliability R (fraction; 0.90 = 90 %)"
             value={reliability}
-            onChange={setReliability}
+            onValueChange={setReliability}
             error={errorFor(outcome, "reliability")}
           />
-          <CalcField
+          <NumberField
             label="Failures allowed"
             unit="parts"
             value={failures}
-            onChange={setFailures}
+            onValueChange={setFailures}
             error={errorFor(outcome, "failures")}
           />
         </>

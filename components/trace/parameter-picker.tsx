@@ -3,6 +3,7 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { useDeferredValue, useId, useState } from "react";
+import { Field, SelectField } from "@/components/ui/field";
 import { MATCH_LIMIT, type ParameterFilter, type TraceParameter, type TraceScopes } from "@/lib/trace/parameter-search";
 
 interface Matches {
@@ -46,61 +47,24 @@ export function ParameterPicker({ scopes, initial, initialFilter, selected }: Pa
   const matches = data ?? initial;
   const recipes = scopes.recipes.filter((r) => !systemId || r.systemId === systemId);
 
-  const select = "block w-full rounded-md border border-stone-300 bg-white px-3 py-2 text-sm";
   return (
     <section aria-labelledby={`${id}-h`} className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
       <h2 id={`${id}-h`} className="mb-3 text-base font-semibold">
         Choose a parameter
       </h2>
       <div className="grid gap-3 sm:grid-cols-3">
-        <div className="space-y-1">
-          <label htmlFor={`${id}-system`} className="block text-sm font-medium text-stone-800">
-            Cleaning system
-          </label>
-          <select
-            id={`${id}-system`}
-            className={select}
-            value={systemId}
-            onChange={(e) => {
-              setSystemId(e.target.value);
-              setRecipeId("");
-            }}
-          >
-            <option value="">All systems</option>
-            {scopes.systems.map((system) => (
-              <option key={system.id} value={system.id}>
-                {system.label}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div className="space-y-1">
-          <label htmlFor={`${id}-recipe`} className="block text-sm font-medium text-stone-800">
-            Recipe
-          </label>
-          <select id={`${id}-recipe`} className={select} value={recipeId} onChange={(e) => setRecipeId(e.target.value)}>
-            <option value="">All recipes</option>
-            {recipes.map((recipe) => (
-              <option key={recipe.id} value={recipe.id}>
-                {recipe.label}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div className="space-y-1">
-          <label htmlFor={`${id}-q`} className="block text-sm font-medium text-stone-800">
-            Search parameters
-          </label>
-          <input
-            id={`${id}-q`}
-            type="search"
-            value={query}
-            onChange={(e) => setQuery(e.target.value)}
-            placeholder="e.g. drying temperature"
-            aria-controls={`${id}-results`}
-            className="block w-full rounded-md border border-stone-300 bg-white px-3 py-2 text-sm"
-          />
-        </div>
+        <SelectField
+          label="Cleaning system"
+          value={systemId}
+          onValueChange={(v) => {
+            setSystemId(v);
+            setRecipeId("");
+          }}
+          placeholder="All systems"
+          options={scopes.systems.map((system) => ({ value: system.id, label: system.label }))}
+        />
+        <SelectField label="Recipe" value={recipeId} onValueChange={setRecipeId} placeholder="All recipes" options={recipes.map((recipe) => ({ value: recipe.id, label: recipe.label }))} />
+        <Field label="Search parameters" type="search" value={query} onValueChange={setQuery} placeholder="e.g. drying temperature" aria-controls={`${id}-results`} />
       </div>
       <p className="mt-3 text-xs text-stone-600" aria-live="polite">
         {error

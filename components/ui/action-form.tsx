@@ -1,12 +1,90 @@
 "use client";
 
-import { createContext, startTransition, useActionState, useContext, useEffect, useRef, type FormEvent, type ReactNode } from "react";
+import {
+  createContext,
+  startTransition,
+  useActionState,
+  useContext,
+  useEffect,
+  useRef,
+  useState,
+  useSyncExternalStore,
+  type FormEvent,
+  type ReactNode,
+} from "react";
 import type { FormState } from "@/lib/actions/result";
+import { fieldKeyLabel } from "@/lib/forms/field-key-label";
 
-const FormStateContext = createContext<{ state: FormState; pending: boolean }>({ state: null, pending: false });
+/**
+ * The field names whose errors some control on the form shows. Controls claim their name once
+ * mounted; the form lists every error nobody claimed, so a message for a field that is not on
+ * screen (a hidden section, a group) is still read, named, beside the summary.
+ */
+function createClaims() {
+  const counts = new Map<string, number>();
+  const listeners = new Set<() => void>();
+  let version = 0;
+  const changed = () => {
+    version++;
+    listeners.forEach((l) => l());
+  };
+  return {
+    claim(key: string) {
+      counts.set(key, (counts.get(key) ?? 0) + 1);
+      changed();
+      return () => {
+        const n = (counts.get(key) ?? 1) - 1;
+        if (n <= 0) counts.delete(key);
+        else counts.set(key, n);
+        changed();
+      };
+    },
+    has: (key: string) => counts.has(key),
+    subscribe(listener: () => void) {
+      listeners.add(listener);
+      return () => void listeners.delete(listener);
+    },
+    snapshot: () => version,
+  };
+}
+type Claims = ReturnType<typeof createClaims>;
+
+const noClaim = () => () => {};
+/** Exported for tests of the input kit, which render a control inside a given result. */
+export const FormStateContext = createContext<{
+  state: FormState;
+  pending: boolean;
+  claim: (key: string) => () => void;
+}>({ state: null, pending: false, claim: noClaim });
 
 export function useFormResult() {
   return useContext(FormStateContext);
+}
+
+function UnclaimedErrors({
+  claims,
+  fieldErrors,
+  summary,
+}: {
+  claims: Claims;
+  fieldErrors: Record<string, string[]>;
+  summary: string;
+}) {
+  useSyncExternalStore(claims.subscribe, claims.snapshot, claims.snapshot);
+  // A service's error filed under a field repeats the summary word for word: say it once.
+  const rest = Object.entries(fieldErrors).filter(
+    ([key, messages]) => !claims.has(key) && messages.join(" ") !== summary,
+  );
+  if (rest.length === 0) return null;
+  return (
+    <ul className="mt-1 list-disc pl-5">
+      {rest.map(([key, messages]) => (
+        <li key={key}>
+          {key === "_form" ? messages.join(" ") : `${fieldKeyLabel(key)}: ${messages.join(" ")}`}
+        </li>
+      ))}
+    </ul>
+  );
 }
 
 export interface ActionFormProps<S extends FormState> {
@@ -25,8 +103,16 @@ export interface ActionFormProps<S extends FormState> {
  * the form's own action, so React does not reset the fields: on a validation
  * error everything the user typed stays where it was.
  */
-export function ActionForm<S extends FormState>({ action, children, className, showSuccess = true, resetOnSuccess = false, ...rest }: ActionFormProps<S>) {
+export function ActionForm<S extends FormState>({
+  action,
+  children,
+  className,
+  showSuccess = true,
+  resetOnSuccess = false,
+  ...rest
+}: ActionFormProps<S>) {
   const [state, dispatch, pending] = useActionState<S, FormData>(action, null as Awaited<S>);
+  const [claims] = useState(createClaims);
   const form = useRef<HTMLFormElement>(null);
   useEffect(() => {
     if (resetOnSuccess && state?.ok) form.current?.reset();
@@ -37,15 +123,34 @@ export function ActionForm<S extends FormState>({ action, children, className, s
     startTransition(() => dispatch(data));
   }
   return (
-    <FormStateContext.Provider value={{ state, pending }}>
-      <form ref={form} onSubmit={onSubmit} className={className} noValidate aria-label={rest["aria-label"]}>
+    <FormStateContext.Provider value={{ state, pending, claim: claims.claim }}>
+      <form
+        ref={form}
+        onSubmit={onSubmit}
+        className={className}
+        noValidate
+        aria-label={rest["aria-label"]}
+      >
         {state && !state.ok && (
-          <p role="alert" className="mb-4 rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900">
-            {state.message}
-          </p>
+          <div
+            role="alert"
+            className="mb-4 rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900"
+          >
+            <p>{state.message}</p>
+            {state.fieldErrors && (
+              <UnclaimedErrors
+                claims={claims}
+                fieldErrors={state.fieldErrors}
+                summary={state.message}
+              />
+            )}
+          </div>
         )}
         {showSuccess && state?.ok && state.message && (
-          <p role="status" className="mb-4 rounded-md border border-brand-300 bg-brand-50 px-3 py-2 text-sm text-brand-900">
+          <p
+            role="status"
+            className="mb-4 rounded-md border border-brand-300 bg-brand-50 px-3 py-2 text-sm text-brand-900"
+          >
             {state.message}
           </p>
         )}

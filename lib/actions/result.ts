@@ -1,4 +1,5 @@
 import type { z } from "zod";
+import "@/lib/schemas/messages";
 
 /** The one result shape of every server action, read by forms with useActionState. */
 export type ActionResult =

@@ -1,4 +1,5 @@
 import { NextResponse } from "next/server";
+import "@/lib/schemas/messages";
 import type { z } from "zod";
 
 /** A JSON error body every route handler uses: a message a person can act on, and field details. */

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import { ROLES } from "@/db/enums";
 
 export const PASSWORD_MIN_LENGTH = 12;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import { API_TOKEN_SCOPES } from "@/db/enums";
 
 export const createApiTokenSchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import {
   CHANGE_STATUSES,
   IMPACT_CLASSES,

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 
 const optionalText = (max: number) =>
   z

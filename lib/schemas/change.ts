@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import { CHANGE_KINDS, IMPACT_CLASSES, PARAMETER_KINDS, STAGE_KINDS, STAGE_MODES, TEST_TYPES } from "@/db/enums";
 import { MATRIX_SUBJECTS } from "@/lib/recipes/test-types";
 import { parameterProblems } from "@/lib/recipes/units";

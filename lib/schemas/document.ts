@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import { DOCUMENT_TYPES, ROUTING_MODES } from "@/db/enums";
 import { BLOCK_TYPES, isSafeHref, MARK_TYPES, MAX_LIST_DEPTH, MAX_NODE_DEPTH, nestingDepth, type RichDoc, type RichMark, type RichNode } from "@/lib/documents/rich-text";
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 
 const optional = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === "" || v === null ? undefined : v), schema.optional());

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import { BATH_RECORD_KINDS, EVIDENCE_FILE_KINDS, MAINTENANCE_KINDS, TEST_TYPES } from "@/db/enums";
 
 /** ISO 16232 size classes B…N, as form field suffixes and CSV columns. */
@@ -96,12 +97,18 @@ export type ParticleSample = z.output<typeof particleSampleSchema>;
 export const particleRunDataSchema = z.object({
   extractionSeries: numberList("extraction count", { min: 0, max: 1e9, minItems: 0, maxItems: 10, int: true }),
   blankMeasured: checkbox,
-  blankCounts: countsSchema,
+  // The form shows the blank counts only once the box is ticked, so they may be absent.
+  blankCounts: countsSchema.optional(),
   blankLargestUm: optionalNumber("Largest blank particle (µm)", { min: 5, max: 100_000 }),
-}).transform(({ blankMeasured, blankCounts, blankLargestUm, extractionSeries }) => ({
-  extractionSeries,
-  blank: blankMeasured ? { counts: blankCounts, largestUm: blankLargestUm ?? null } : null,
-}));
+})
+  .refine((d) => d.blankMeasured, {
+    path: ["blankMeasured"],
+    message: "Tick “Blank value measured” and enter the blank counts: the extraction series is saved together with its blank.",
+  })
+  .transform(({ blankMeasured, blankCounts, blankLargestUm, extractionSeries }) => ({
+    extractionSeries,
+    blank: blankMeasured ? { counts: blankCounts ?? {}, largestUm: blankLargestUm ?? null } : null,
+  }));
 export type ParticleRunData = z.output<typeof particleRunDataSchema>;
 
 export const gravimetricSampleSchema = sampleBase

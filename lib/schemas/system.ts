@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 import { STAGE_KINDS, STAGE_MODES } from "@/db/enums";
 
 const optionalLitres = z.preprocess(

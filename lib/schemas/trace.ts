@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages";
 
 /** The trace page's query string: which recipe parameter to show. Anything else is ignored, not an error. */
 export const traceQuerySchema = z.object({

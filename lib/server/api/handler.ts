@@ -1,4 +1,5 @@
 import "server-only";
+import "@/lib/schemas/messages";
 import { NextResponse, type NextRequest } from "next/server";
 import type { z } from "zod";
 import { BadCursorError } from "@/lib/api/cursor";

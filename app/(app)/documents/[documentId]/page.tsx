@@ -7,11 +7,9 @@ import { StatusBadge } from "@/components/documents/status-badge";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
 import { SignatureList } from "@/components/signatures/signature-list";
 import { ActionForm } from "@/components/ui/action-form";
-import { Field, FieldError } from "@/components/ui/field";
+import { ChoiceGroup, DateField, SelectField, TextareaField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
-import { SelectField } from "@/components/ui/select-field";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { TextareaField } from "@/components/ui/textarea-field";
 import { can } from "@/lib/auth/permissions";
 import { checkTransition, TYPE_LABELS } from "@/lib/documents/lifecycle";
 import { renderRichHtml } from "@/lib/documents/render-html";
@@ -140,35 +138,39 @@ export default async function DocumentPage({ params, searchParams }: { params: P
                     hidden={{ ...hidden, lockVersion: String(version.lockVersion) }}
                     buttonLabel="Submit for review"
                   >
-                    <fieldset className="space-y-1">
-                      <legend className="text-sm font-medium text-stone-800">Reviewers</legend>
-                      {signers.reviewers
+                    <ChoiceGroup
+                      type="checkbox"
+                      name="reviewerIds"
+                      legend="Reviewers"
+                      options={signers.reviewers
                         .filter((r) => r.id !== user.id)
-                        .map((r) => (
-                          <label key={r.id} className="flex items-center gap-2 text-sm">
-                            <input type="checkbox" name="reviewerIds" value={r.id} /> {r.name}
-                            {r.jobTitle && <span className="text-stone-500">({r.jobTitle})</span>}
-                          </label>
-                        ))}
-                      <FieldError name="reviewerIds" />
-                    </fieldset>
+                        .map((r) => ({
+                          value: r.id,
+                          label: (
+                            <>
+                              {r.name} {r.jobTitle && <span className="text-stone-500">({r.jobTitle})</span>}
+                            </>
+                          ),
+                        }))}
+                    />
                     <SelectField
                       name="approverId"
                       label="Approver"
                       placeholder="— choose —"
                       options={signers.approvers.filter((a) => a.id !== user.id).map((a) => ({ value: a.id, label: a.jobTitle ? `${a.name} (${a.jobTitle})` : a.name }))}
                     />
-                    <fieldset className="space-y-1">
-                      <legend className="text-sm font-medium text-stone-800">Reviewers sign</legend>
-                      <label className="flex items-center gap-2 text-sm">
-                        <input type="radio" name="routing" value="sequence" defaultChecked /> In sequence, in the order listed
-                      </label>
-                      <label className="flex items-center gap-2 text-sm">
-                        <input type="radio" name="routing" value="parallel" /> In parallel
-                      </label>
-                      <p className="text-xs text-stone-600">The approver signs after every reviewer.</p>
-                    </fieldset>
-                    <Field name="dueDate" label="Due by (optional)" type="date" hint="Without a date, each step is due a set number of days after it opens." />
+                    <ChoiceGroup
+                      type="radio"
+                      name="routing"
+                      legend="Reviewers sign"
+                      defaultValues={["sequence"]}
+                      options={[
+                        { value: "sequence", label: "In sequence, in the order listed" },
+                        { value: "parallel", label: "In parallel" },
+                      ]}
+                      hint="The approver signs after every reviewer."
+                    />
+                    <DateField name="dueDate" label="Due by (optional)" hint="Without a date, each step is due a set number of days after it opens." />
                   </SignatureDialog>
                 )}
               </div>
@@ -193,7 +195,7 @@ export default async function DocumentPage({ params, searchParams }: { params: P
             <Panel title="Your approval">
               <div className="space-y-4">
                 <SignatureDialog action={approveAction} meaning="approved" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden}>
-                  <Field name="effectiveDate" label="Effective from" type="date" defaultValue={formatDate(now)} hint="Today makes it effective at once and supersedes the version in force." />
+                  <DateField name="effectiveDate" label="Effective from" defaultValue={formatDate(now)} hint="Today makes it effective at once and supersedes the version in force." />
                 </SignatureDialog>
                 <ActionForm action={rejectAction} className="space-y-2" aria-label="Reject">
                   <input type="hidden" name="versionId" value={version.id} />

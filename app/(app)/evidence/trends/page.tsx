@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { ControlChart } from "@/components/evidence/control-chart";
 import { TrendChart } from "@/components/evidence/trend-chart";
 import { EmptyState } from "@/components/ui/empty-state";
+import { SelectField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
 import { BATH_VARIABLES, type BathVariable } from "@/lib/evidence/maintenance";
@@ -28,34 +29,14 @@ export default async function TrendsPage({ searchParams }: { searchParams: Promi
   const variable: BathVariable = typeof sp.variable === "string" && sp.variable in BATH_VARIABLES ? (sp.variable as BathVariable) : "concentrationPct";
   const tank = stageId ? await getTank(stageId) : undefined;
   const chart = tank ? bathControlChart(tank.records.map((r) => ({ performedAt: r.record.performedAt, values: r.record })), variable) : null;
-  const select = "rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
   return (
     <>
       <PageHeader title="Trends" description="Cleanliness results over time against the specification, and control charts of monitored bath values." />
       <section aria-labelledby="particles-title" className="mb-10 space-y-3">
         <h2 id="particles-title" className="text-base font-semibold">Particle cleanliness by part family</h2>
         <form className="flex flex-wrap items-end gap-3" method="get" aria-label="Choose part family and recipe version">
-          <label className="text-xs text-stone-600">
-            Part family
-            <select name="family" defaultValue={familyId} className={`block ${select}`}>
-              {options.families.map((f) => (
-                <option key={f.id} value={f.id}>
-                  {f.code} · {f.name}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-xs text-stone-600">
-            Recipe version
-            <select name="version" defaultValue={versionId ?? ""} className={`block ${select}`}>
-              <option value="">All versions</option>
-              {options.versions.map((v) => (
-                <option key={v.id} value={v.id}>
-                  {v.label}
-                </option>
-              ))}
-            </select>
-          </label>
+          <SelectField name="family" label="Part family" dense defaultValue={familyId} options={options.families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))} />
+          <SelectField name="version" label="Recipe version" dense defaultValue={versionId ?? ""} placeholder="All versions" options={options.versions.map((v) => ({ value: v.id, label: v.label }))} />
           {stageId && <input type="hidden" name="tank" value={stageId} />}
           <input type="hidden" name="variable" value={variable} />
           <button className="rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm hover:bg-stone-100">Show</button>
@@ -71,26 +52,8 @@ export default async function TrendsPage({ searchParams }: { searchParams: Promi
         <form className="flex flex-wrap items-end gap-3" method="get" aria-label="Choose tank and value">
           {familyId && <input type="hidden" name="family" value={familyId} />}
           {versionId && <input type="hidden" name="version" value={versionId} />}
-          <label className="text-xs text-stone-600">
-            Tank
-            <select name="tank" defaultValue={stageId} className={`block ${select}`}>
-              {tanks.map((t) => (
-                <option key={t.stage.id} value={t.stage.id}>
-                  {t.system.code} · {t.stage.name}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-xs text-stone-600">
-            Value
-            <select name="variable" defaultValue={variable} className={`block ${select}`}>
-              {Object.entries(BATH_VARIABLES).map(([k, v]) => (
-                <option key={k} value={k}>
-                  {v.label} ({v.unit})
-                </option>
-              ))}
-            </select>
-          </label>
+          <SelectField name="tank" label="Tank" dense defaultValue={stageId} options={tanks.map((t) => ({ value: t.stage.id, label: `${t.system.code} · ${t.stage.name}` }))} />
+          <SelectField name="variable" label="Value" dense defaultValue={variable} options={Object.entries(BATH_VARIABLES).map(([k, v]) => ({ value: k, label: `${v.label} (${v.unit})` }))} />
           <button className="rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm hover:bg-stone-100">Show</button>
         </form>
         {chart ? <ControlChart {...chart} /> : <EmptyState title="Not enough readings">A control chart needs at least two readings of this value for the tank.</EmptyState>}

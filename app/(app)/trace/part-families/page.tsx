@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { EmptyState } from "@/components/ui/empty-state";
+import { SelectField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { humanize } from "@/lib/format/labels";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
@@ -22,19 +23,7 @@ export default async function PartFamilyTracePage({ searchParams }: { searchPara
     <>
       <PageHeader title="Part family history" description="Which recipe versions cleaned a part family, when, and with which test results." />
       <form method="get" className="mb-8 flex flex-wrap items-end gap-3 rounded-lg border border-stone-200 bg-white p-5" aria-label="Choose a part family">
-        <div className="space-y-1">
-          <label htmlFor="family" className="block text-sm font-medium text-stone-800">
-            Part family
-          </label>
-          <select id="family" name="family" defaultValue={familyId ?? ""} className="block w-72 rounded-md border border-stone-300 bg-white px-3 py-2 text-sm">
-            <option value="">Choose…</option>
-            {families.map((f) => (
-              <option key={f.id} value={f.id}>
-                {f.code} · {f.name}
-              </option>
-            ))}
-          </select>
-        </div>
+        <SelectField name="family" label="Part family" defaultValue={familyId ?? ""} placeholder="Choose…" className="w-72" options={families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))} />
         <button type="submit" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
           Show history
         </button>

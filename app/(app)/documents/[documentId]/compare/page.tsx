@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { RedlineView } from "@/components/documents/redline-view";
 import { StatusBadge } from "@/components/documents/status-badge";
+import { SelectField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { redline } from "@/lib/documents/redline";
 import { renderRichHtml } from "@/lib/documents/render-html";
@@ -44,16 +45,14 @@ export default async function ComparePage({
       />
       <form className="mb-4 flex flex-wrap items-end gap-3 text-sm" aria-label="Choose versions">
         {(["from", "to"] as const).map((name) => (
-          <label key={name} className="space-y-1">
-            <span className="block font-medium">{name === "from" ? "From version" : "To version"}</span>
-            <select name={name} defaultValue={name === "from" ? from : to} className="rounded-md border border-stone-300 bg-white px-2 py-1.5">
-              {document.versions.map((v) => (
-                <option key={v.version} value={v.version}>
-                  {v.version} ({v.status.replace("_", " ")})
-                </option>
-              ))}
-            </select>
-          </label>
+          <SelectField
+            key={name}
+            name={name}
+            label={name === "from" ? "From version" : "To version"}
+            dense
+            defaultValue={String(name === "from" ? from : to)}
+            options={document.versions.map((v) => ({ value: String(v.version), label: `${v.version} (${v.status.replace("_", " ")})` }))}
+          />
         ))}
         <input type="hidden" name="view" value={view} />
         <button type="submit" className="rounded-md border border-stone-300 bg-white px-3 py-1.5 font-medium hover:bg-stone-100">
