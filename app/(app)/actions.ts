@@ -4,9 +4,8 @@ import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import { getDb } from "@/db/client";
 import { appendAudit } from "@/lib/audit";
-import { lucia } from "@/lib/auth/lucia";
 import { getCurrentUser } from "@/lib/server/auth/current-user";
-import { invalidateSession } from "@/lib/server/auth/sessions";
+import { cookieForSignOut, invalidateSession } from "@/lib/server/auth/sessions";
 
 /** Ends the session on the server, not only in the browser. */
 export async function signOutAction(): Promise<void> {
@@ -17,7 +16,7 @@ export async function signOutAction(): Promise<void> {
       appendAudit(tx, { id: user.id, name: user.name }, { action: "auth.signed_out", recordType: "user", recordId: user.id }),
     );
   }
-  const blank = lucia().createBlankSessionCookie();
+  const blank = cookieForSignOut();
   (await cookies()).set(blank.name, blank.value, blank.attributes);
   redirect("/sign-in");
 }

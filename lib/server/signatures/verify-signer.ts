@@ -4,24 +4,46 @@ import { getDb } from "@/db/client";
 import { users } from "@/db/schema";
 import { isLocked } from "@/lib/auth/lockout";
 import { verifyPassword } from "@/lib/auth/password";
-import { recordFailedAttempt } from "@/lib/server/auth/sign-in";
+import { countFailedAttempt, lockoutPolicy } from "@/lib/server/auth/sign-in";
 import { UserFacingError } from "@/lib/server/errors";
+
+function attemptsLeftText(n: number) {
+  return n === 1 ? "1 attempt left before your account locks." : `${n} attempts left before your account locks.`;
+}
 
 /**
  * The second signature component (21 CFR 11.200(a)): the signer re-enters their
  * password for every signing. A wrong password counts toward the lockout and is
- * audited, exactly as a failed sign-in. Call before the signing transaction.
+ * audited, exactly as a failed sign-in, and the refusal says how many attempts
+ * remain. The lock state is re-read in the same write transaction that counts the
+ * failure, so parallel attempts cannot slip past a lock. Call before the signing
+ * transaction.
  */
 export async function verifySigner(input: { userId: string; password: string }, now = new Date()) {
-  const [user] = await getDb().select().from(users).where(eq(users.id, input.userId));
+  const db = getDb();
+  const [user] = await db.select().from(users).where(eq(users.id, input.userId));
   if (!user || !user.active) throw new UserFacingError("Your account may not sign.");
   const ok = await verifyPassword(user.passwordHash, input.password);
-  if (!ok || isLocked(user, now)) {
-    await recordFailedAttempt(user.id, "signing", now);
-    throw new UserFacingError(
-      isLocked(user, now) ? "Your account is locked. Ask an administrator." : "The password is not correct. Nothing was signed.",
-      "password",
-    );
-  }
+  const refusal = await db.transaction(async (tx) => {
+    const [current] = await tx.select().from(users).where(eq(users.id, input.userId));
+    if (!current || !current.active) return "Your account may not sign.";
+    if (ok && current.passwordHash === user.passwordHash && !isLocked(current, now)) {
+      // A right password clears the count, as at sign-in.
+      if (current.failedAttempts > 0) await tx.update(users).set({ failedAttempts: 0 }).where(eq(users.id, current.id));
+      return null;
+    }
+    const counted = await countFailedAttempt(tx, current, "signing", now);
+    switch (counted.state) {
+      case "counted":
+        return `The password is not correct. Nothing was signed. ${attemptsLeftText(counted.attemptsLeft)}`;
+      case "locked_now":
+        return `The password is not correct. Nothing was signed. Your account is now locked for ${Math.round(lockoutPolicy().windowMs / 60_000)} minutes; the administrators have been told.`;
+      case "already_locked":
+        return "Your account is locked after too many wrong passwords. Nothing was signed. Wait until it unlocks or ask an administrator.";
+      default:
+        return "Your account may not sign.";
+    }
+  });
+  if (refusal) throw new UserFacingError(refusal, "password");
   return { id: user.id, name: user.name };
 }
