@@ -29,8 +29,6 @@ const envSchema = z
      * the entry the outermost trusted proxy wrote; 0 means none (the app is reached directly).
      */
     TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
-    /** The lifetime offered first when a user creates an API token. */
-    API_TOKEN_DEFAULT_DAYS: z.coerce.number().int().min(1).max(365).default(90),
     SMTP_URL: z.string().url().default("smtp://127.0.0.1:2525"),
     MAIL_FROM: z.string().default("Washproof <no-reply@washproof.local>"),
     /** Where the local capturing SMTP server (demo and tests) keeps what it receives. */

@@ -4,7 +4,7 @@ import { ActionForm, useFormResult } from "@/components/ui/action-form";
 import { Field, FieldError } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { createApiTokenAction, revokeApiTokenAction } from "@/app/(app)/account/tokens/actions";
-import { SCOPE_LABELS } from "@/lib/schemas/api-token";
+import { DEFAULT_TOKEN_DAYS, SCOPE_LABELS, TOKEN_LIFETIMES_DAYS } from "@/lib/schemas/api-token";
 
 /** Shows a new token once: only its hash is kept, so it cannot be shown again. */
 function NewToken() {
@@ -37,6 +37,22 @@ export function CreateApiTokenForm({ canWrite }: { canWrite: boolean }) {
         </label>
         <FieldError name="scope" />
       </fieldset>
+      <div className="space-y-1">
+        <label htmlFor="token-lifetime" className="block text-sm font-medium text-stone-800">
+          Works for
+        </label>
+        <select id="token-lifetime" name="expiresInDays" defaultValue={String(DEFAULT_TOKEN_DAYS)} aria-describedby="token-lifetime-hint" className="rounded-md border border-stone-300 px-2 py-1.5 text-sm">
+          {TOKEN_LIFETIMES_DAYS.map((d) => (
+            <option key={d} value={d}>
+              {d} days
+            </option>
+          ))}
+        </select>
+        <p id="token-lifetime-hint" className="text-xs text-stone-600">
+          It stops working after that, and at once if your password is reset or your account is deactivated.
+        </p>
+        <FieldError name="expiresInDays" />
+      </div>
       <SubmitButton>Create token</SubmitButton>
     </ActionForm>
   );

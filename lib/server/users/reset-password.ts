@@ -4,10 +4,11 @@ import { getDb } from "@/db/client";
 import { sessions, users } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { generateTemporaryPassword, hashPassword } from "@/lib/auth/password";
+import { suspendApiTokens } from "@/lib/server/api-tokens/suspend-api-tokens";
 import { UserFacingError } from "@/lib/server/errors";
 
-/** Issues a temporary password, ends the user's sessions and releases a lockout. */
-export async function resetPassword(actor: AuditActor, input: { userId: string }) {
+/** Issues a temporary password, ends the user's sessions, suspends their API tokens and releases a lockout. */
+export async function resetPassword(actor: AuditActor, input: { userId: string }, now = new Date()) {
   const temporaryPassword = generateTemporaryPassword();
   const passwordHash = await hashPassword(temporaryPassword);
   await getDb().transaction(async (tx) => {
@@ -18,8 +19,9 @@ export async function resetPassword(actor: AuditActor, input: { userId: string }
       .set({ passwordHash, mustChangePassword: true, failedAttempts: 0, lockedUntil: null })
       .where(eq(users.id, input.userId));
     await tx.delete(sessions).where(eq(sessions.userId, input.userId));
+    const suspendedApiTokens = await suspendApiTokens(tx, input.userId, "the owner's password was reset", now);
     // The password itself never enters the audit trail.
-    await appendAudit(tx, actor, { action: "user.password_reset", recordType: "user", recordId: input.userId, new: { mustChangePassword: true } });
+    await appendAudit(tx, actor, { action: "user.password_reset", recordType: "user", recordId: input.userId, new: { mustChangePassword: true, suspendedApiTokens } }, now);
   });
   return { temporaryPassword };
 }

@@ -13,7 +13,7 @@ export type NewTokenState = (FormState & { token?: string }) | null;
 export async function createApiTokenAction(_prev: NewTokenState, formData: FormData): Promise<NewTokenState> {
   const auth = await authorize("account.manage_tokens");
   if (!auth.ok) return auth;
-  const parsed = createApiTokenSchema.safeParse({ name: formData.get("name"), scope: formData.get("scope") ?? undefined });
+  const parsed = createApiTokenSchema.safeParse({ name: formData.get("name"), scope: formData.get("scope") ?? undefined, expiresInDays: formData.get("expiresInDays") ?? undefined });
   if (!parsed.success) return invalid(parsed.error);
   try {
     const { token } = await createApiToken({ id: auth.user.id, name: auth.user.name }, parsed.data);

@@ -10,9 +10,17 @@ import { formatUtc } from "@/lib/trace/labels";
 
 export const metadata: Metadata = { title: "API tokens" };
 
+function tokenStatus(t: { revokedAt: string | null; suspendedAt: string | null; suspendedReason: string | null; expiresAt: string | null }, now: string) {
+  if (t.revokedAt) return `Revoked ${t.revokedAt.slice(0, 10)}`;
+  if (t.suspendedAt) return `Suspended ${t.suspendedAt.slice(0, 10)}: ${t.suspendedReason ?? "access changed"}`;
+  if (!t.expiresAt || t.expiresAt <= now) return "Expired";
+  return "Active";
+}
+
 export default async function ApiTokensPage() {
   const user = await requirePageUser("account.manage_tokens");
   const tokens = await listApiTokens(user.id);
+  const now = new Date().toISOString();
   return (
     <>
       <PageHeader
@@ -49,6 +57,7 @@ export default async function ApiTokensPage() {
                 <th className="py-1 pr-3 font-medium">Scope</th>
                 <th className="py-1 pr-3 font-medium">Created</th>
                 <th className="py-1 pr-3 font-medium">Last used</th>
+                <th className="py-1 pr-3 font-medium">Expires</th>
                 <th className="py-1 pr-3 font-medium">Status</th>
                 <th className="py-1 font-medium">
                   <span className="sr-only">Action</span>
@@ -63,8 +72,9 @@ export default async function ApiTokensPage() {
                   <td className="py-1.5 pr-3">{SCOPE_LABELS[t.scope]}</td>
                   <td className="py-1.5 pr-3">{formatUtc(t.createdAt)}</td>
                   <td className="py-1.5 pr-3">{t.lastUsedAt ? formatUtc(t.lastUsedAt) : "Never"}</td>
-                  <td className="py-1.5 pr-3">{t.revokedAt ? `Revoked ${t.revokedAt.slice(0, 10)}` : "Active"}</td>
-                  <td className="py-1.5">{!t.revokedAt && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</td>
+                  <td className="py-1.5 pr-3">{t.expiresAt ? t.expiresAt.slice(0, 10) : "—"}</td>
+                  <td className="py-1.5 pr-3">{tokenStatus(t, now)}</td>
+                  <td className="py-1.5">{tokenStatus(t, now) === "Active" && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</td>
                 </tr>
               ))}
             </tbody>
