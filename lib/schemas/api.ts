@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { calendarDate } from "./date";
 import {
   CHANGE_STATUSES,
   IMPACT_CLASSES,
@@ -64,8 +65,8 @@ export const auditEventsQuery = pageQuery
     recordType: z.string().trim().max(40).optional(),
     recordId: z.string().trim().max(100).optional(),
     action: z.string().trim().max(60).optional(),
-    from: z.iso.date("Use a date like 2026-01-31.").optional(),
-    to: z.iso.date("Use a date like 2026-01-31.").optional(),
+    from: calendarDate().optional(),
+    to: calendarDate().optional(),
   })
   .strict();
 

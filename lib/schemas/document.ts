@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { calendarDate } from "./date";
 import { DOCUMENT_TYPES, ROUTING_MODES } from "@/db/enums";
 import { BLOCK_TYPES, isSafeHref, MARK_TYPES, type RichDoc, type RichMark, type RichNode } from "@/lib/documents/rich-text";
 
@@ -125,7 +126,7 @@ export const saveDraftSchema = z.object({
   overwrite: z.boolean().default(false),
 });
 
-const dateOnly = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Enter a date.");
+const dateOnly = calendarDate();
 
 export const submitSchema = z
   .object({
