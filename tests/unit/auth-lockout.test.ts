@@ -177,6 +177,16 @@ describe("signing refusals say how many attempts are left", () => {
     await expect(verifySigner({ userId: u.id, password: u.password }, now)).rejects.toThrow(/account is locked/);
   });
 
+  it("holds in a parallel burst of signings too: the right password after the lock signs nothing", async () => {
+    const u = await newUser("signer-burst@example.test");
+    const guesses = [...Array.from({ length: 19 }, (_, i) => `wrong ${i}`), u.password];
+    const settled = await Promise.allSettled(guesses.map((password) => verifySigner({ userId: u.id, password })));
+    expect(settled.at(-1)).toMatchObject({ status: "rejected", reason: { message: expect.stringMatching(/account is locked/) } });
+    const events = await eventsFor(u.id);
+    expect(events.filter((e) => e.action === "auth.locked_out")).toHaveLength(1);
+    expect(events.filter((e) => e.action === "auth.sign_in_failed" && JSON.parse(e.newValue!).reason === "wrong password")).toHaveLength(5);
+  });
+
   it("keeps the audit chain intact", async () => {
     expect((await verifyAuditChain(t.db)).ok).toBe(true);
   });
