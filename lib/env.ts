@@ -20,6 +20,15 @@ const envSchema = z
     SESSION_ABSOLUTE_MINUTES: minutes(12 * 60),
     LOCKOUT_THRESHOLD: z.coerce.number().int().min(1).max(100).default(5),
     LOCKOUT_MINUTES: minutes(15),
+    /** Failed sign-ins one source address may make within the window before it is refused for a while. */
+    SIGN_IN_ADDRESS_LIMIT: z.coerce.number().int().min(1).max(1000).default(10),
+    SIGN_IN_ADDRESS_WINDOW_MINUTES: minutes(15),
+    SIGN_IN_ADDRESS_BLOCK_MINUTES: minutes(15),
+    /**
+     * Reverse proxies in front of the app that append to X-Forwarded-For. The source address is
+     * the entry the outermost trusted proxy wrote; 0 means none (the app is reached directly).
+     */
+    TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
     SMTP_URL: z.string().url().default("smtp://127.0.0.1:2525"),
     MAIL_FROM: z.string().default("Washproof <no-reply@washproof.local>"),
     /** Where the local capturing SMTP server (demo and tests) keeps what it receives. */

@@ -5,9 +5,8 @@ import { redirect } from "next/navigation";
 import { getDb } from "@/db/client";
 import { appendAudit } from "@/lib/audit";
 import { declareEndpoint } from "@/lib/auth/endpoint-rule";
-import { lucia } from "@/lib/auth/lucia";
 import { getCurrentUser } from "@/lib/server/auth/current-user";
-import { invalidateSession } from "@/lib/server/auth/sessions";
+import { cookieForSignOut, invalidateSession } from "@/lib/server/auth/sessions";
 
 /** Ends the session on the server, not only in the browser. Anyone may call it: signed out, it only clears the cookie. */
 export const signOutAction = declareEndpoint(
@@ -19,7 +18,7 @@ export const signOutAction = declareEndpoint(
         appendAudit(tx, { id: user.id, name: user.name }, { eventType: "auth.signed_out", recordType: "user", recordId: user.id }),
       );
     }
-    const blank = lucia().createBlankSessionCookie();
+    const blank = cookieForSignOut();
     (await cookies()).set(blank.name, blank.value, blank.attributes);
     redirect("/sign-in");
   },

@@ -1,10 +1,10 @@
 "use client";
 
 import { ActionForm, useFormResult } from "@/components/ui/action-form";
-import { ChoiceGroup, Field } from "@/components/ui/field";
+import { ChoiceGroup, Field, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { createApiTokenAction, revokeApiTokenAction } from "@/app/(app)/account/tokens/actions";
-import { SCOPE_LABELS } from "@/lib/schemas/api-token";
+import { DEFAULT_TOKEN_DAYS, SCOPE_LABELS, TOKEN_LIFETIMES_DAYS } from "@/lib/schemas/api-token";
 
 /** Shows a new token once: only its hash is kept, so it cannot be shown again. */
 function NewToken() {
@@ -36,6 +36,13 @@ export function CreateApiTokenForm({ canWrite }: { canWrite: boolean }) {
           { value: "read", label: `${SCOPE_LABELS.read}: read records` },
           { value: "read_write", label: `${SCOPE_LABELS.read_write}: also post test results${canWrite ? "" : " (your role does not write, so such a token is refused when it tries)"}` },
         ]}
+      />
+      <SelectField
+        name="expiresInDays"
+        label="Works for"
+        defaultValue={String(DEFAULT_TOKEN_DAYS)}
+        options={TOKEN_LIFETIMES_DAYS.map((d) => ({ value: String(d), label: `${d} days` }))}
+        hint="It stops working after that, and at once if your password is reset or your account is deactivated."
       />
       <SubmitButton>Create token</SubmitButton>
     </ActionForm>

@@ -59,7 +59,13 @@ export function SignatureDialog({ action, meaning, signerName, recordLabel, cont
             <input type="hidden" name="meaning" value={meaning} />
             <input type="hidden" name="contentHash" value={contentHash} />
             {children}
-            <Field name="password" label="Your password" type="password" autoComplete="current-password" />
+            <Field
+              name="password"
+              label="Your password"
+              type="password"
+              autoComplete="current-password"
+              hint="A wrong password counts toward locking your account; the refusal says how many attempts are left."
+            />
             <div className="flex justify-end gap-2">
               <Button variant="secondary" onClick={() => dialog.current?.close()}>
                 Cancel

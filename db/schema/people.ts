@@ -33,6 +33,7 @@ export type UserRole = typeof userRoles.$inferSelect;
 export const sessions = sqliteTable(
   "sessions",
   {
+    /** SHA-256 (hex) of the token in the cookie: a copy of the database holds no usable session. */
     id: text("id").primaryKey(),
     userId: text("user_id").notNull().references(() => users.id),
     /** Unix seconds, as lucia's adapter writes it; moved forward on activity (idle timeout). */
@@ -43,6 +44,31 @@ export const sessions = sqliteTable(
   (t) => [index("sessions_user_idx").on(t.userId)],
 );
 export type Session = typeof sessions.$inferSelect;
+
+/**
+ * Failed sign-ins per source address. An address that keeps failing is refused
+ * before any account's counter moves, so a stranger cannot lock people out at will.
+ */
+export const signInThrottle = sqliteTable("sign_in_throttle", {
+  address: text("address").primaryKey(),
+  failures: integer("failures").notNull().default(0),
+  windowStartedAt: text("window_started_at").notNull(),
+  blockedUntil: text("blocked_until"),
+});
+export type SignInThrottle = typeof signInThrottle.$inferSelect;
+
+/** Earlier password hashes, so a user cannot cycle back to one of their last passwords. */
+export const passwordHistory = sqliteTable(
+  "password_history",
+  {
+    id: id(),
+    userId: text("user_id").notNull().references(() => users.id),
+    passwordHash: text("password_hash").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("password_history_user_idx").on(t.userId, t.createdAt)],
+);
+export type PasswordHistoryRow = typeof passwordHistory.$inferSelect;
 
 // ── API access ────────────────────────────────────────────────────────────
 
@@ -63,7 +89,12 @@ export const apiTokens = sqliteTable(
     scope: text("scope", { enum: API_TOKEN_SCOPES }).notNull(),
     createdAt: createdAt(),
     lastUsedAt: text("last_used_at"),
+    /** Chosen at creation; a token past it is refused. Null only on tokens made before expiry existed and not yet migrated. */
+    expiresAt: text("expires_at"),
     revokedAt: text("revoked_at"),
+    /** Set when the owner's password is reset or the owner is deactivated: the token stops working for good. */
+    suspendedAt: text("suspended_at"),
+    suspendedReason: text("suspended_reason"),
   },
   (t) => [index("api_tokens_user_idx").on(t.userId)],
 );

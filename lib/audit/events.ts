@@ -81,6 +81,7 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: obj({
       reason: z.enum(["wrong password", "account locked", "account deactivated"]),
       during: z.enum(["sign_in", "signing"]),
+      sourceAddress: text.optional(),
     }),
   }),
   event("auth.locked_out", "user", {
@@ -97,13 +98,14 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   }),
   event("user.deactivated", "user", {
     old: obj({ active: z.boolean() }),
-    new: obj({ active: z.boolean() }),
+    // The API tokens the deactivation suspended.
+    new: obj({ active: z.boolean(), suspendedApiTokens: z.array(text).optional() }),
   }),
   event("user.reactivated", "user", {
     old: obj({ active: z.boolean() }),
-    new: obj({ active: z.boolean() }),
+    new: obj({ active: z.boolean(), suspendedApiTokens: z.array(text).optional() }),
   }),
-  event("user.password_reset", "user", { new: obj({ mustChangePassword: z.literal(true) }) }),
+  event("user.password_reset", "user", { new: obj({ mustChangePassword: z.literal(true), suspendedApiTokens: z.array(text).optional() }) }),
   // Plant, parts and recipes
   event("site.created", "site", { new: obj({ name: text, location: text.nullable() }) }),
   event("cleaning_system.created", "cleaning_system", {
@@ -469,7 +471,8 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     }),
   }),
   event("api_token.created", "api_token", {
-    new: obj({ name: text, scope: z.enum(API_TOKEN_SCOPES), prefix: text }),
+    // Tokens expire since 2026-12; earlier events carry no expiry.
+    new: obj({ name: text, scope: z.enum(API_TOKEN_SCOPES), prefix: text, expiresAt: isoTime.optional() }),
   }),
   event("api_token.revoked", "api_token", {
     old: obj({ revokedAt: z.null() }),

@@ -9,9 +9,10 @@ function createLucia() {
   const config = env();
   return new Lucia(new DrizzleSQLiteAdapter(getDb(), sessions, users), {
     sessionExpiresIn: new TimeSpan(config.SESSION_IDLE_MINUTES, "m"),
+    // Only validation and invalidation go through lucia: sessions are stored under the hash of
+    // their token and the cookie is built in session-cookie.ts (lucia's would carry a 400-day Max-Age).
     sessionCookie: {
       name: SESSION_COOKIE,
-      // A browser-session cookie: the server alone decides when the session ends.
       expires: false,
       attributes: { secure: config.NODE_ENV === "production" && config.APP_URL.startsWith("https:"), sameSite: "lax" },
     },

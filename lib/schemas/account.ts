@@ -11,14 +11,22 @@ export const signInSchema = z.object({
   password: z.string().min(1, "Enter your password.").max(200),
 });
 
-/** The password rules, shared by the form and the server so the two cannot drift. */
+/** How many earlier passwords (the current one included) a new password must differ from. */
+export const PASSWORD_HISTORY = 5;
+
+/**
+ * The password rules that need no knowledge of the person, shared by the form and
+ * the server. The rest (name, e-mail, guessability, history) are checked by the
+ * change-password service with lib/auth/password-rules.ts.
+ */
 export const passwordChangeSchema = z
   .object({
     currentPassword: z.string().min(1, "Enter your current password."),
     newPassword: z
       .string()
       .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
-      .max(200, "Use at most 200 characters."),
+      .max(200, "Use at most 200 characters.")
+      .refine((p) => p.trim() !== "", "Use letters, digits or symbols, not only spaces."),
     confirmPassword: z.string(),
   })
   .refine((v) => v.newPassword === v.confirmPassword, {

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { calendarDate } from "./date";
 import {
   CHANGE_STATUSES,
   IMPACT_CLASSES,
@@ -65,8 +66,8 @@ export const auditEventsQuery = pageQuery
     recordType: z.string().trim().max(40).optional(),
     recordId: z.string().trim().max(100).optional(),
     eventType: z.string().trim().max(60).optional().describe("An audit event type, e.g. change.closed; also finds events stored under an earlier name of the type."),
-    from: z.iso.date("Use a date like 2026-01-31.").optional(),
-    to: z.iso.date("Use a date like 2026-01-31.").optional(),
+    from: calendarDate().optional(),
+    to: calendarDate().optional(),
   })
   .strict();
 

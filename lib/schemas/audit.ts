@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { calendarDate } from "./date";
 
 const optionalText = (max: number) =>
   z
@@ -17,8 +18,8 @@ export const auditQuerySchema = z
     recordId: optionalText(100),
     /** An event type; today's name also finds events stored under an earlier one. */
     eventType: optionalText(60),
-    from: z.iso.date("Use a date like 2026-01-31.").optional().or(z.literal("").transform(() => undefined)),
-    to: z.iso.date("Use a date like 2026-01-31.").optional().or(z.literal("").transform(() => undefined)),
+    from: z.literal("").transform(() => undefined).or(calendarDate().optional()),
+    to: z.literal("").transform(() => undefined).or(calendarDate().optional()),
     /** Keyset cursor: events with a sequence number below this one. */
     before: z.coerce.number().int().positive().optional(),
     limit: z.coerce.number().int().min(1).max(200).default(50),

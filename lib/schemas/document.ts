@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { calendarDate } from "./date";
 import { DOCUMENT_TYPES, ROUTING_MODES } from "@/db/enums";
 import { BLOCK_TYPES, isSafeHref, MARK_TYPES, MAX_LIST_DEPTH, MAX_NODE_DEPTH, nestingDepth, type RichDoc, type RichMark, type RichNode } from "@/lib/documents/rich-text";
 
@@ -138,7 +139,7 @@ export const saveDraftSchema = z.object({
   overwrite: z.boolean().default(false),
 });
 
-const dateOnly = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Enter a date.");
+const dateOnly = calendarDate();
 
 export const submitSchema = z
   .object({

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { calendarDate } from "./date";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 
 const optional = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === "" || v === null ? undefined : v), schema.optional());
@@ -10,8 +11,8 @@ export const evidenceListQuerySchema = z.object({
   recipeVersionId: optional(z.string().uuid("Unknown recipe version.")),
   testType: optional(z.enum(TEST_TYPES)),
   outcome: optional(z.enum(OUTCOMES)),
-  from: optional(z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Dates are YYYY-MM-DD.")),
-  to: optional(z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Dates are YYYY-MM-DD.")),
+  from: optional(calendarDate()),
+  to: optional(calendarDate()),
   includeSuperseded: optional(z.enum(["true", "false"])).transform((v) => v === "true"),
   sort: z.enum(["number", "performedOn", "partFamily", "testType", "outcome", "status"]).default("performedOn"),
   dir: z.enum(["asc", "desc"]).default("desc"),

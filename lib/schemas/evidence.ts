@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { calendarDate, calendarDateTime } from "./date";
 import { BATH_RECORD_KINDS, EVIDENCE_FILE_KINDS, MAINTENANCE_KINDS, TEST_TYPES } from "@/db/enums";
 
 /** ISO 16232 size classes B…N, as form field suffixes and CSV columns. */
@@ -160,7 +161,7 @@ export const createRunSchema = z.object({
   testType: z.enum(TEST_TYPES, { error: "Choose the test type." }),
   technicianId: uuid,
   lab: z.string({ error: "Name the analysing lab." }).trim().min(2, "Name the analysing lab.").max(120),
-  performedOn: z.string({ error: "Enter the test date." }).regex(/^\d{4}-\d{2}-\d{2}$/, "Enter the test date as YYYY-MM-DD."),
+  performedOn: calendarDate("Enter the test date."),
   protocolDocumentId: optionalUuid,
   changeRequestId: optionalUuid,
   requirement: optionalText(120),
@@ -190,7 +191,7 @@ export const bathRecordSchema = z
   .object({
     stageId: uuid,
     kind: z.enum(BATH_RECORD_KINDS, { error: "Choose what was done." }),
-    performedAt: z.string({ error: "Enter when it was done." }).regex(/^\d{4}-\d{2}-\d{2}(T\d{2}:\d{2})?$/, "Enter the date (and time) it was done."),
+    performedAt: calendarDateTime("Enter when it was done."),
     concentrationPct: optionalNumber("Detergent concentration (%)", { min: 0, max: 100 }),
     conductivityUsPerCm: optionalNumber("Bath conductivity (µS/cm)", { min: 0, max: 200_000 }),
     temperatureC: optionalNumber("Bath temperature (°C)", { min: 0, max: 100 }),

@@ -481,14 +481,16 @@ export async function seedPlant(scale: PlantScale, dbPath: string, signableRuns:
   };
 }
 
-/** Sessions made by lucia itself, as sign-in makes them, for the cookies the load generator sends. */
+/** Sessions stored as sign-in stores them (under the token's hash); the tokens are the cookies the load generator sends. */
 async function createSessions<T extends string>(db: Database, client: Client, users: Record<T, string>): Promise<Record<T, string>> {
   setProcessDatabase(db, client);
   const { lucia } = await import("@/lib/auth/lucia");
+  const { generateSessionToken, sessionIdFromToken } = await import("@/lib/auth/session-token");
   const out = {} as Record<T, string>;
   for (const [role, userId] of Object.entries(users) as [T, string][]) {
-    const session = await lucia().createSession(userId, { createdAt: Math.floor(Date.now() / 1000) });
-    out[role] = session.id;
+    const token = generateSessionToken();
+    await lucia().createSession(userId, { createdAt: Math.floor(Date.now() / 1000) }, { sessionId: sessionIdFromToken(token) });
+    out[role] = token;
   }
   return out;
 }

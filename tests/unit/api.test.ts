@@ -12,6 +12,9 @@ import { generateApiToken, hashApiToken } from "@/lib/auth/api-token";
 import { auditEventPage, changeRequestDetailOut, recipePage, recipeVersionOut, sampleAddedOut } from "@/lib/schemas/api";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { revokeApiToken } from "@/lib/server/api-tokens/revoke-api-token";
+import { authenticateApi } from "@/lib/server/api/authenticate";
+import { resetPassword } from "@/lib/server/users/reset-password";
+import { setUserActive } from "@/lib/server/users/set-user-active";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { createTestDatabase } from "./support/test-db";
 
@@ -176,17 +179,67 @@ describe("posting lab results", () => {
     expect(await count()).toBe(0);
   });
 
-  it("records a sample through the evidence service, recomputes the outcome, audits it under the token's owner, and refuses a duplicate with 409", async () => {
+  it("records a sample through the evidence service, recomputes the outcome, audits it under the token's owner naming the token, and refuses a duplicate with 409", async () => {
     const res = await postResult(tokens.techWrite, good);
     expect(res.status).toBe(201);
     const body = sampleAddedOut.parse(await res.json());
     expect(body.run.samples.map((r) => r.sampleLabel)).toEqual(["VB-26-001"]);
     expect(body.run.outcome).not.toBeNull();
     const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, runId), eq(auditEvents.action, "test_run.sample_added")));
-    expect(event.actorName).toBe(people.technician.name);
+    const [token] = await t.db.select().from(apiTokens).where(eq(apiTokens.tokenHash, hashApiToken(tokens.techWrite)));
+    expect(event.actorId).toBe(people.technician.id);
+    expect(event.actorName).toBe(`${people.technician.name} (API token ${token.id})`);
     const dup = await postResult(tokens.techWrite, good);
     expect(dup.status).toBe(409);
     expect((await dup.json()).error).toMatch(/already recorded/);
     expect(await count()).toBe(1);
+  });
+});
+
+describe("token lifetime and suspension", () => {
+  const bearer = (token: string) => new Request(`${BASE}/recipes`, { headers: { authorization: `Bearer ${token}` } });
+
+  it("expires after 90 days by default, or after the lifetime chosen at creation", async () => {
+    const made = new Date("2026-05-01T12:00:00.000Z");
+    const standard = await createApiToken(people.engineer, { name: "Default lifetime", scope: "read" }, made);
+    const short = await createApiToken(people.engineer, { name: "Short", scope: "read", expiresInDays: 30 }, made);
+    expect(standard.expiresAt).toBe("2026-07-30T12:00:00.000Z");
+    expect(short.expiresAt).toBe("2026-05-31T12:00:00.000Z");
+    const day29 = new Date("2026-05-30T12:00:00.000Z");
+    const day31 = new Date("2026-06-01T12:00:00.000Z");
+    expect((await authenticateApi(bearer(short.token), "trace.view", "read", day29)).ok).toBe(true);
+    expect(await authenticateApi(bearer(short.token), "trace.view", "read", day31)).toEqual({ ok: false, status: 401, message: "This API token expired on 2026-05-31. Create a new one." });
+    expect((await authenticateApi(bearer(standard.token), "trace.view", "read", day31)).ok).toBe(true);
+    expect((await authenticateApi(bearer(standard.token), "trace.view", "read", new Date("2026-07-30T12:00:00.000Z"))).ok).toBe(false);
+  });
+
+  it("refuses a lifetime that is not offered", async () => {
+    const { createApiTokenSchema } = await import("@/lib/schemas/api-token");
+    expect(createApiTokenSchema.safeParse({ name: "x", scope: "read", expiresInDays: "3650" }).success).toBe(false);
+    expect(createApiTokenSchema.parse({ name: "x", scope: "read" }).expiresInDays).toBe(90);
+  });
+
+  it("is suspended by a password reset of its owner, for good, and the reset's audit event names it", async () => {
+    const [u] = await t.db.select().from(users).where(eq(users.email, "approver@fennmoor.example"));
+    const made = await createApiToken(people.approver, { name: "Approver script", scope: "read" });
+    expect((await recipesRoute.GET(get("/recipes", made.token), noParams)).status).toBe(200);
+    const { temporaryPassword } = await resetPassword({ id: null, name: "test admin" }, { userId: u.id });
+    const res = await recipesRoute.GET(get("/recipes", made.token), noParams);
+    expect(res.status).toBe(401);
+    expect((await res.json()).error).toMatch(/^This API token was suspended on \d{4}-\d{2}-\d{2} because the owner's password was reset\. Create a new one\.$/);
+    const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, u.id), eq(auditEvents.action, "user.password_reset")));
+    expect(JSON.parse(event.newValue!).suspendedApiTokens).toContain(made.id);
+    // Signing in again with the new password does not revive it.
+    expect(temporaryPassword).toBeTruthy();
+    expect((await recipesRoute.GET(get("/recipes", made.token), noParams)).status).toBe(401);
+  });
+
+  it("is suspended when its owner is deactivated, and stays suspended after reactivation", async () => {
+    const made = await createApiToken(people.auditor, { name: "Auditor export", scope: "read" });
+    await setUserActive({ id: null, name: "test admin" }, { userId: people.auditor.id, active: false, reason: "left the plant" });
+    await setUserActive({ id: null, name: "test admin" }, { userId: people.auditor.id, active: true, reason: "came back" });
+    const res = await recipesRoute.GET(get("/recipes", made.token), noParams);
+    expect(res.status).toBe(401);
+    expect((await res.json()).error).toMatch(/suspended .* because the owner was deactivated/);
   });
 });

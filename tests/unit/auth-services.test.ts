@@ -84,11 +84,11 @@ describe("sessions", () => {
     vi.setSystemTime(new Date("2026-03-02T08:00:00.000Z"));
     const session = await createSession(u.id);
     vi.setSystemTime(new Date("2026-03-02T08:20:00.000Z"));
-    expect(await validateSession(session.id)).not.toBeNull(); // activity moves expiry to 08:50
+    expect(await validateSession(session.token)).not.toBeNull(); // activity moves expiry to 08:50
     vi.setSystemTime(new Date("2026-03-02T08:45:00.000Z"));
-    expect(await validateSession(session.id)).not.toBeNull();
+    expect(await validateSession(session.token)).not.toBeNull();
     vi.setSystemTime(new Date("2026-03-02T09:16:00.000Z"));
-    expect(await validateSession(session.id)).toBeNull();
+    expect(await validateSession(session.token)).toBeNull();
   });
 
   it("ends at the absolute lifetime (12 h) however active", async () => {
@@ -99,16 +99,16 @@ describe("sessions", () => {
     const session = await createSession(u.id);
     for (let m = 20; m < 12 * 60; m += 20) {
       vi.setSystemTime(start + m * 60_000);
-      expect(await validateSession(session.id)).not.toBeNull();
+      expect(await validateSession(session.token)).not.toBeNull();
     }
     vi.setSystemTime(start + 12 * 60 * 60_000);
-    expect(await validateSession(session.id)).toBeNull();
+    expect(await validateSession(session.token)).toBeNull();
   });
 
   it("carries the user's roles", async () => {
     const u = await newUser("roles@example.test", ["engineer", "auditor"]);
     const session = await createSession(u.id);
-    expect((await validateSession(session.id))?.roles.sort()).toEqual(["auditor", "engineer"]);
+    expect((await validateSession(session.token))?.roles.sort()).toEqual(["auditor", "engineer"]);
   });
 });
 

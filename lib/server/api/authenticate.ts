@@ -12,6 +12,11 @@ export interface ApiUser {
   email: string;
   roles: Role[];
   tokenId: string;
+  /**
+   * Who audit events caused through the API name: the owner, with the token's id in
+   * the actor's name, so the trail shows which token (instrument, script) made a change.
+   */
+  actor: { id: string; name: string };
 }
 
 export type ApiAuth = { ok: true; user: ApiUser } | { ok: false; status: 401 | 403; message: string };
@@ -32,6 +37,13 @@ export async function authenticateApi(request: Request, permission: Permission, 
     .where(eq(apiTokens.tokenHash, hashApiToken(token)));
   if (!row) return { ok: false, status: 401, message: "This API token is not known. Check it was copied whole, or create a new one." };
   if (row.token.revokedAt) return { ok: false, status: 401, message: `This API token was revoked on ${formatDate(row.token.revokedAt)}. Create a new one.` };
+  if (row.token.suspendedAt) {
+    return { ok: false, status: 401, message: `This API token was suspended on ${formatDate(row.token.suspendedAt)} because ${row.token.suspendedReason ?? "its owner's access changed"}. Create a new one.` };
+  }
+  // A token with no expiry predates expiry and was not migrated: refuse it rather than let it live for ever.
+  if (!row.token.expiresAt || row.token.expiresAt <= now.toISOString()) {
+    return { ok: false, status: 401, message: `This API token expired${row.token.expiresAt ? ` on ${formatDate(row.token.expiresAt)}` : ""}. Create a new one.` };
+  }
   if (!row.user.active) return { ok: false, status: 401, message: "The account that owns this API token is deactivated." };
   if (row.user.lockedUntil && row.user.lockedUntil > now.toISOString()) return { ok: false, status: 401, message: "The account that owns this API token is locked after failed passwords. Try again later." };
   // Recorded before the permission check: a refused call is still a use of the token.
@@ -41,5 +53,6 @@ export async function authenticateApi(request: Request, permission: Permission, 
   }
   const roles = (await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, row.user.id))).map((r) => r.role);
   if (!can(roles, permission)) return { ok: false, status: 403, message: "Your role does not allow this." };
-  return { ok: true, user: { id: row.user.id, name: row.user.name, email: row.user.email, roles, tokenId: row.token.id } };
+  const actor = { id: row.user.id, name: `${row.user.name} (API token ${row.token.id})` };
+  return { ok: true, user: { id: row.user.id, name: row.user.name, email: row.user.email, roles, tokenId: row.token.id, actor } };
 }

@@ -3,14 +3,14 @@ import { cookies } from "next/headers";
 import { forbidden, redirect } from "next/navigation";
 import { cache } from "react";
 import { can, type Permission } from "@/lib/auth/permissions";
-import { lucia } from "@/lib/auth/lucia";
+import { SESSION_COOKIE } from "@/lib/auth/session-cookie";
 import { validateSession, type SessionUser } from "./sessions";
 
 /** The signed-in user of this request, validated once per request. */
 export const getCurrentUser = cache(async (): Promise<SessionUser | null> => {
-  const sessionId = (await cookies()).get(lucia().sessionCookieName)?.value;
-  if (!sessionId) return null;
-  return validateSession(sessionId);
+  const token = (await cookies()).get(SESSION_COOKIE)?.value;
+  if (!token) return null;
+  return validateSession(token);
 });
 
 /** For pages: sign-in when there is no session, a 403 page when the role may not. */

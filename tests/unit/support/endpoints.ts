@@ -6,7 +6,7 @@ import { NextRequest } from "next/server";
 import type { Database } from "@/db/client";
 import { users } from "@/db/schema";
 import { ROLES, type Role } from "@/lib/auth/permissions";
-import { lucia } from "@/lib/auth/lucia";
+import { SESSION_COOKIE } from "@/lib/auth/session-cookie";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { createSession } from "@/lib/server/auth/sessions";
 import { setSessionCookie } from "./request-context";
@@ -110,7 +110,7 @@ export async function peopleByRole(db: Database) {
 
 /** Makes `cookies()` carry a fresh session of this user (a new one each call: signing out ends it), or none. */
 export async function actAs(user: { id: string } | null) {
-  setSessionCookie(lucia().sessionCookieName, user ? (await createSession(user.id)).id : null);
+  setSessionCookie(SESSION_COOKIE, user ? (await createSession(user.id)).token : null);
 }
 
 /** A Request to a route file, with its dynamic segments filled in. */

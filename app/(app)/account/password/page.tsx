@@ -3,7 +3,7 @@ import { ActionForm } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { PASSWORD_MIN_LENGTH } from "@/lib/schemas/account";
+import { PASSWORD_HISTORY, PASSWORD_MIN_LENGTH } from "@/lib/schemas/account";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { changePasswordAction } from "./actions";
 
@@ -28,7 +28,7 @@ export default async function ChangePasswordPage() {
           label="New password"
           type="password"
           autoComplete="new-password"
-          hint={`At least ${PASSWORD_MIN_LENGTH} characters, not your e-mail address.`}
+          hint={`At least ${PASSWORD_MIN_LENGTH} characters, hard to guess, not your name or e-mail address, and none of your last ${PASSWORD_HISTORY} passwords.`}
         />
         <Field name="confirmPassword" label="New password again" type="password" autoComplete="new-password" />
         <SubmitButton>Change password</SubmitButton>

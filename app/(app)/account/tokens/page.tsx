@@ -11,9 +11,17 @@ import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "API tokens" };
 
+function tokenStatus(t: { revokedAt: string | null; suspendedAt: string | null; suspendedReason: string | null; expiresAt: string | null }, now: string) {
+  if (t.revokedAt) return `Revoked ${formatDate(t.revokedAt)}`;
+  if (t.suspendedAt) return `Suspended ${formatDate(t.suspendedAt)}: ${t.suspendedReason ?? "access changed"}`;
+  if (!t.expiresAt || t.expiresAt <= now) return "Expired";
+  return "Active";
+}
+
 export default async function ApiTokensPage() {
   const user = await requirePageUser("account.manage_tokens");
   const tokens = await listApiTokens(user.id);
+  const now = new Date().toISOString();
   return (
     <>
       <PageHeader
@@ -48,6 +56,7 @@ export default async function ApiTokensPage() {
               <Th>Scope</Th>
               <Th>Created</Th>
               <Th>Last used</Th>
+              <Th>Expires</Th>
               <Th>Status</Th>
               <Th>
                 <span className="sr-only">Action</span>
@@ -61,8 +70,9 @@ export default async function ApiTokensPage() {
                   <Td>{SCOPE_LABELS[t.scope]}</Td>
                   <Td>{formatDateTime(t.createdAt)}</Td>
                   <Td>{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : "Never"}</Td>
-                  <Td>{t.revokedAt ? `Revoked ${formatDate(t.revokedAt)}` : "Active"}</Td>
-                  <Td>{!t.revokedAt && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</Td>
+                  <Td>{t.expiresAt ? formatDate(t.expiresAt) : "—"}</Td>
+                  <Td>{tokenStatus(t, now)}</Td>
+                  <Td>{tokenStatus(t, now) === "Active" && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</Td>
                 </tr>
               ))}
             </TBody>

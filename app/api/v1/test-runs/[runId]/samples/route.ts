@@ -11,7 +11,7 @@ import { getRunRow } from "@/lib/server/evidence/run-content";
 /**
  * One sample's raw data from a lab instrument, through the same service as the
  * entry form: the run's test type picks the schema, the outcome is recomputed
- * from the stored rows, and the addition is audited under the token's owner.
+ * from the stored rows, and the addition is audited under the token's owner, naming the token.
  */
 export const POST = apiRoute<{ runId: string }>({ permission: "evidence.record", scope: "read_write" }, async ({ request, user, params }) => {
   if (!z.uuid().safeParse(params.runId).success) return notFound("test run");
@@ -24,6 +24,6 @@ export const POST = apiRoute<{ runId: string }>({ permission: "evidence.record",
   if (extra) return jsonError(422, "The body has fields this test type does not take.", extra);
   const parsed = schema.safeParse(body.data);
   if (!parsed.success) return jsonError(422, "Some fields are not valid.", zodFieldErrors(parsed.error));
-  const row = await addSample({ id: user.id, name: user.name }, { runId: run.id, sample: parsed.data });
+  const row = await addSample(user.actor, { runId: run.id, sample: parsed.data });
   return ok({ sampleId: row.id, run: await getTestRunApi(run.id) }, 201);
 });
