@@ -2,6 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
+import { storedText } from "@/lib/schemas/text";
 import { invalid, type FormState } from "@/lib/actions/result";
 import { createUserSchema, updateUserSchema, userIdSchema } from "@/lib/schemas/account";
 import { authorize } from "@/lib/server/auth/current-user";
@@ -54,7 +55,7 @@ export async function updateUserAction(_prev: FormState, formData: FormData): Pr
 
 const activeSchema = userIdSchema.extend({
   active: z.enum(["true", "false"]).transform((v) => v === "true"),
-  reason: z.string().trim().min(3, "Give the reason for the audit trail.").max(500),
+  reason: storedText().trim().min(3, "Give the reason for the audit trail.").max(500),
 });
 
 export async function setUserActiveAction(_prev: FormState, formData: FormData): Promise<FormState> {
@@ -84,7 +85,7 @@ export async function resetPasswordAction(_prev: FormState, formData: FormData):
   }
 }
 
-const testEmailSchema = z.object({ to: z.string().trim().toLowerCase().email("Enter a valid e-mail address.") });
+const testEmailSchema = z.object({ to: storedText().trim().toLowerCase().email("Enter a valid e-mail address.") });
 
 export async function sendTestEmailAction(_prev: FormState, formData: FormData): Promise<FormState> {
   const auth = await authorize("users.manage");

@@ -1,5 +1,6 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { z } from "zod";
+import { storedText } from "@/lib/schemas/text";
 import { formatSize } from "@/lib/evidence/files";
 import { fileKindSchema } from "@/lib/schemas/evidence";
 import { authorize } from "@/lib/server/auth/current-user";
@@ -9,7 +10,7 @@ import { storeEvidenceFile, uploadLimitBytes } from "@/lib/server/evidence/store
 const fieldsSchema = z.object({
   runId: z.string().uuid(),
   kind: fileKindSchema,
-  sampleLabel: z.preprocess((v) => (v === "" || v === null ? undefined : v), z.string().trim().max(60).optional()),
+  sampleLabel: z.preprocess((v) => (v === "" || v === null ? undefined : v), storedText().trim().max(60).optional()),
 });
 
 /** Uploads one evidence file to an open run (multipart form: file, kind, sampleLabel). */
