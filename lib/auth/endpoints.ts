@@ -76,6 +76,7 @@ export const ENDPOINTS: Record<string, EndpointRule> = {
   "app/(app)/evidence/actions.ts#setIntervalAction": session("bath.manage_intervals"),
 
   "app/(app)/trace/audit/actions.ts#verifyIntegrityAction": session("audit.view"),
+  "app/(app)/trace/audit/actions.ts#writeCheckpointAction": session("audit.view"),
 
   "GET app/api/queue/route.ts": session("queue.view"),
   "GET app/api/audit-events/route.ts": session("audit.view"),

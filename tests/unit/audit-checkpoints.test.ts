@@ -103,7 +103,7 @@ describe("checkpoints outside the database", () => {
     expect(mail).toHaveLength(2);
     expect(mail[0].text).toContain(first.written ? first.checkpoint.signature : "?");
     const report = await checkIntegrity(t.db);
-    expect(report).toMatchObject({ ok: true, findings: [], checkpoints: { count: 2 }, uncovered: 0 });
+    expect(report).toMatchObject({ ok: true, findings: [], checkpoints: { count: 2, uncovered: 0 } });
   });
 
   it("detect an edit re-chained from the edited event on", async () => {

@@ -1,6 +1,6 @@
 import "server-only";
 import { createPublicKey, type KeyObject } from "node:crypto";
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { existsSync, linkSync, mkdirSync, readFileSync, unlinkSync, writeFileSync } from "node:fs";
 import { dirname, resolve } from "node:path";
 import { generateSigningKeyPem, keyIdOf, parseSigningKey } from "@/lib/audit/checkpoint";
 import { env } from "@/lib/env";
@@ -45,11 +45,15 @@ export function getSigningKey(): SigningKey {
     const path = resolve(GENERATED_KEY_PATH);
     if (!existsSync(path)) {
       mkdirSync(dirname(path), { recursive: true });
+      // Written whole, then linked into place: a parallel process sees no key or a whole one, and the first link wins.
+      const temp = `${path}.${process.pid}.part`;
+      writeFileSync(temp, generateSigningKeyPem(), { mode: 0o600 });
       try {
-        writeFileSync(path, generateSigningKeyPem(), { flag: "wx", mode: 0o600 });
+        linkSync(temp, path);
       } catch (error) {
-        // Another process made it first: use theirs.
         if ((error as NodeJS.ErrnoException).code !== "EEXIST") throw error;
+      } finally {
+        unlinkSync(temp);
       }
       console.warn(`No AUDIT_SIGNING_KEY_FILE is configured: generated an audit checkpoint key at ${path}. Configure a key kept off this machine for real use.`);
     }

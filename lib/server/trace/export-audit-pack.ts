@@ -42,6 +42,8 @@ export async function exportAuditPack(actor: Actor, input: { changeRequestId: st
         included.push(path);
       }
     }
+    // The newest checkpoint file as stored, so the auditor can check its signature with the public key.
+    if (pack.checkpoints.newest) entries["audit-checkpoint.json"] = strToU8(JSON.stringify(pack.checkpoints.newest, null, 2) + "\n");
     entries["SHA256SUMS"] = strToU8(sums.join("\n") + "\n");
     entries["README.txt"] = strToU8(
       [
