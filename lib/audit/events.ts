@@ -43,6 +43,7 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("email.test_sent", "email"),
   event("audit.exported", "audit_trail"),
   event("audit.verified", "audit_trail"),
+  event("audit.checkpointed", "audit_trail"),
   // Controlled documents
   event("document.created", "document"),
   event("document.edited", "document_version"),

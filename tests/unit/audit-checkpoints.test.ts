@@ -98,12 +98,16 @@ describe("checkpoints outside the database", () => {
     expect(readdirSync(join(dir, "audit-checkpoints"))).toHaveLength(1);
     expect(await writeCheckpoint("schedule")).toMatchObject({ written: false });
     // On demand always writes, and names who asked.
-    expect(await writeCheckpoint("Test Engineer")).toMatchObject({ written: true, checkpoint: { seq: 5, by: "Test Engineer" } });
+    expect(await writeCheckpoint(actor)).toMatchObject({ written: true, checkpoint: { seq: 5, by: "Test Engineer" } });
+    // A person's checkpoint is itself recorded, after it was signed: the next scheduled one covers that event.
+    const [event] = (await t.client.execute("SELECT seq, action, new_value FROM audit_events WHERE seq = 6")).rows;
+    expect(event).toMatchObject({ action: "audit.checkpointed" });
+    expect(await writeCheckpoint("schedule")).toMatchObject({ written: true, checkpoint: { seq: 6 } });
     const mail = await t.db.select().from(emailOutbox).where(eq(emailOutbox.to, "auditor@example.org"));
-    expect(mail).toHaveLength(2);
+    expect(mail).toHaveLength(3);
     expect(mail[0].text).toContain(first.written ? first.checkpoint.signature : "?");
     const report = await checkIntegrity(t.db);
-    expect(report).toMatchObject({ ok: true, findings: [], checkpoints: { count: 2, uncovered: 0 } });
+    expect(report).toMatchObject({ ok: true, findings: [], checkpoints: { count: 3, uncovered: 0 } });
   });
 
   it("detect an edit re-chained from the edited event on", async () => {

@@ -2,6 +2,7 @@ import "server-only";
 import { desc } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { auditEvents } from "@/db/schema";
+import { appendAudit, type AuditActor } from "@/lib/audit";
 import { signCheckpoint, type SignedCheckpoint } from "@/lib/audit/checkpoint";
 import { enqueueEmail } from "@/lib/email/outbox";
 import { env } from "@/lib/env";
@@ -16,16 +17,18 @@ export type CheckpointWrite =
 
 /**
  * Signs the chain's current head and stores it in the evidence store; a copy goes
- * to AUDITOR_EMAIL through the outbox. The scheduled pass (`by: "schedule"`) skips
- * when the newest checkpoint already holds the head, so an idle system adds none.
- * Nothing is written to the audit trail itself: an event per checkpoint would move
- * the head it has just signed.
+ * to AUDITOR_EMAIL through the outbox. The scheduled pass (`"schedule"`) skips when
+ * the newest checkpoint already holds the head, so an idle system adds none, and
+ * writes no audit event (one per pass would move the head every time). A person's
+ * checkpoint is recorded after it is signed, like a verification: the next
+ * checkpoint then covers that event too.
  */
-export async function writeCheckpoint(by: string, options: { now?: Date } = {}): Promise<CheckpointWrite> {
+export async function writeCheckpoint(requester: AuditActor | "schedule", options: { now?: Date } = {}): Promise<CheckpointWrite> {
+  const by = requester === "schedule" ? "schedule" : requester.name;
   const db = getDb();
   const [head] = await db.select({ seq: auditEvents.seq, hash: auditEvents.hash }).from(auditEvents).orderBy(desc(auditEvents.seq)).limit(1);
   if (!head) return { written: false, reason: "The audit trail is empty: there is nothing to checkpoint yet." };
-  if (by === "schedule") {
+  if (requester === "schedule") {
     const { checkpoints } = await loadCheckpoints();
     const newest = checkpoints.at(-1);
     if (newest && newest.seq === head.seq && newest.hash === head.hash) return { written: false, reason: "The newest checkpoint already holds the head." };
@@ -35,9 +38,13 @@ export async function writeCheckpoint(by: string, options: { now?: Date } = {}):
   const store = getCheckpointStore();
   await store.write(checkpointName(checkpoint.seq, checkpoint.at), JSON.stringify(checkpoint, null, 2) + "\n");
   const to = env().AUDITOR_EMAIL ?? null;
-  if (to) {
+  if (to || requester !== "schedule") {
     await db.transaction(async (tx) => {
-      await enqueueEmail(tx, { to, ...checkpointEmail({ checkpoint }) }, options.now);
+      const mailId = to ? await enqueueEmail(tx, { to, ...checkpointEmail({ checkpoint }) }, options.now) : null;
+      if (requester !== "schedule") {
+        const { seq, hash, at, keyId, signature } = checkpoint;
+        await appendAudit(tx, requester, { action: "audit.checkpointed", recordType: "audit_trail", recordId: "chain", new: { seq, hash, at, keyId, signature, emailedTo: to, mailId } }, options.now);
+      }
     });
   }
   return { written: true, checkpoint, where: store.where, emailedTo: to };

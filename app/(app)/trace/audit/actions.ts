@@ -34,7 +34,7 @@ export async function writeCheckpointAction(_prev: FormState, _formData: FormDat
   const auth = await authorize("audit.view");
   if (!auth.ok) return auth;
   try {
-    const result = await writeCheckpoint(auth.user.name);
+    const result = await writeCheckpoint({ id: auth.user.id, name: auth.user.name });
     if (!result.written) return { ok: false, message: result.reason };
     if (result.emailedTo) deliverSoon();
     const cp = result.checkpoint;
