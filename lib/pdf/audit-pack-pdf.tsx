@@ -68,11 +68,11 @@ function CheckpointAnchor({ checkpoints: c }: { checkpoints: AuditPack["checkpoi
   return (
     <View>
       <Text style={s.p}>
-        Newest signed checkpoint (kept in the evidence store, outside the database, and e-mailed to the auditor): event {cp.seq} at {utc(cp.at)}, signed for {cp.by} with
-        Ed25519 key {cp.keyId}. {verdict}
+        Newest signed checkpoint (kept in the evidence store, outside the database, and e-mailed to the auditor): event {cp.seq} at {utc(cp.at)}, signed{" "}
+        {cp.by === "schedule" ? "on schedule" : `at the request of ${cp.by}`} with Ed25519 key {cp.keyId}. {verdict}
       </Text>
       <Text style={s.mono}>hash {cp.hash}</Text>
-      <Text style={s.mono}>signature {cp.signature}</Text>
+      <Text style={[s.mono, { marginBottom: 6 }]}>signature {cp.signature}</Text>
     </View>
   );
 }
