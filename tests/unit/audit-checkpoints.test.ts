@@ -25,16 +25,6 @@ let t: TestDb;
 let dir: string;
 const actor = { id: "u-1", name: "Test Engineer" };
 
-beforeEach(async () => {
-  t = await createTestDatabase();
-  dir = mkdtempSync(join(tmpdir(), "washproof-checkpoints-"));
-  setCheckpointStore(localCheckpointStore(dir));
-  setSigningKey(generateSigningKeyPem());
-});
-afterEach(() => {
-  t.cleanup();
-  rmSync(dir, { recursive: true, force: true });
-});
 
 async function append(db: TestDb, n: number) {
   for (let i = 0; i < n; i++) {
@@ -91,6 +81,17 @@ async function expectOnlyCheckpointsCatchIt(db: TestDb, pattern: RegExp) {
 }
 
 describe("checkpoints outside the database", () => {
+  beforeEach(async () => {
+    t = await createTestDatabase();
+    dir = mkdtempSync(join(tmpdir(), "washproof-checkpoints-"));
+    setCheckpointStore(localCheckpointStore(dir));
+    setSigningKey(generateSigningKeyPem());
+  });
+  afterEach(() => {
+    t.cleanup();
+    rmSync(dir, { recursive: true, force: true });
+  });
+
   it("are signed, stored in the evidence store, e-mailed to the auditor, and skipped by the schedule when the head has not moved", async () => {
     await append(t, 5);
     const first = await writeCheckpoint("schedule");
@@ -175,7 +176,9 @@ describe("signatures re-checked against the record as stored", () => {
   let demo: TestDb;
   let blobs: string;
   beforeAll(async () => {
+    // The process database, with its own checkpoint folder, for every test below.
     demo = await createTestDatabase();
+    setSigningKey(generateSigningKeyPem());
     blobs = mkdtempSync(join(tmpdir(), "washproof-blobs-"));
     setStore(localStore(blobs));
     await seedDemo(demo.db);
@@ -195,7 +198,7 @@ describe("signatures re-checked against the record as stored", () => {
     const signedRunIds = (await demo.db.select({ id: signatures.recordId }).from(signatures).where(eq(signatures.recordType, "test_run"))).map((r) => r.id);
     const [run] = await demo.db.select().from(testRuns).where(and(inArray(testRuns.id, signedRunIds), eq(testRuns.outcome, "fail"))).limit(1);
     expect(run).toBeDefined();
-    await writeCheckpoint("schedule", {});
+    expect(await writeCheckpoint("schedule")).toMatchObject({ written: true });
     // The attacker empties the counts so the run passes, stores the new word, and re-binds the signatures.
     await demo.client.execute({ sql: "UPDATE test_results SET data = json_set(data, '$.counts', json('{}')) WHERE run_id = ?", args: [run.id] });
     await refreshOutcome(demo.db, run);
@@ -207,5 +210,23 @@ describe("signatures re-checked against the record as stored", () => {
     expect(report.chain.ok).toBe(true);
     const mine = report.signatures.findings.filter((f) => f.recordId === run.id).map((f) => f.message);
     expect(mine).toEqual(expect.arrayContaining([expect.stringMatching(/was altered after signing/), expect.stringContaining(`Test run ${run.number} was changed after`)]));
+  });
+
+  it("and when the signing events are rewritten to fit as well, the checkpoint names the rewrite", async () => {
+    // Continues the attack above: the forger now also edits the signing events and re-chains.
+    await dropTriggers(demo);
+    const sigs = (await demo.client.execute("SELECT s.id, s.content_hash FROM signatures s JOIN test_runs r ON r.id = s.record_id WHERE s.record_type = 'test_run'")).rows;
+    let first = Infinity;
+    for (const sig of sigs) {
+      const [event] = (await demo.client.execute({ sql: "SELECT seq FROM audit_events WHERE action = 'signature.applied' AND record_id = ?", args: [sig.id] })).rows;
+      await demo.client.execute({ sql: "UPDATE audit_events SET new_value = json_set(new_value, '$.contentHash', ?) WHERE seq = ?", args: [sig.content_hash, event.seq] });
+      first = Math.min(first, Number(event.seq));
+    }
+    await rechain(demo, first);
+    const report = await checkIntegrity(demo.db);
+    expect(report.chain.ok).toBe(true);
+    expect(report.signatures.findings).toEqual([]);
+    expect(report.checkpoints.breaks).toEqual([expect.objectContaining({ reason: expect.stringMatching(/were rewritten/) })]);
+    expect(report.ok).toBe(false);
   });
 });
