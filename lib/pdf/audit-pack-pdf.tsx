@@ -63,7 +63,7 @@ function CheckpointAnchor({ checkpoints: c }: { checkpoints: AuditPack["checkpoi
   const verdict = c.keyProblem
     ? `The checkpoints could not be checked: ${c.keyProblem}`
     : c.breaks.length === 0 && c.unreadable.length === 0
-      ? `The trail matches all ${c.count} signed checkpoint${c.count === 1 ? "" : "s"}${c.uncovered > 0 ? `; the ${c.uncovered} later events are covered by the chain alone` : ""}.`
+      ? `The trail matches it${c.uncovered > 0 ? `; the ${c.uncovered} later events are covered by the chain alone` : ""}.`
       : `The trail DIFFERS from its signed checkpoints: ${[...c.breaks.map((b) => b.reason), ...c.unreadable.map((n) => `${n} is not a readable checkpoint`)].join("; ")}.`;
   return (
     <View>

@@ -30,8 +30,8 @@ export interface IntegrityReport {
   findings: string[];
 }
 
-/** The chain as stored against every signed checkpoint in the evidence store. */
-export async function compareChainWithCheckpoints(db: Executor): Promise<CheckpointComparison> {
+/** The chain as stored against every signed checkpoint in the evidence store (or only the newest: see loadCheckpoints). */
+export async function compareChainWithCheckpoints(db: Executor, options: { newestOnly?: boolean } = {}): Promise<CheckpointComparison> {
   let key: SigningKey | null = null;
   let keyProblem: string | null = null;
   try {
@@ -39,7 +39,7 @@ export async function compareChainWithCheckpoints(db: Executor): Promise<Checkpo
   } catch (error) {
     keyProblem = error instanceof Error ? error.message : String(error);
   }
-  const { checkpoints, unreadable } = await loadCheckpoints();
+  const { checkpoints, unreadable } = await loadCheckpoints(options);
   const seqs = [...new Set(checkpoints.map((c) => c.seq))];
   const stored = new Map<number, string>();
   for (let i = 0; i < seqs.length; i += 500) {

@@ -29,7 +29,7 @@ export async function writeCheckpoint(requester: AuditActor | "schedule", option
   const [head] = await db.select({ seq: auditEvents.seq, hash: auditEvents.hash }).from(auditEvents).orderBy(desc(auditEvents.seq)).limit(1);
   if (!head) return { written: false, reason: "The audit trail is empty: there is nothing to checkpoint yet." };
   if (requester === "schedule") {
-    const { checkpoints } = await loadCheckpoints();
+    const { checkpoints } = await loadCheckpoints({ newestOnly: true });
     const newest = checkpoints.at(-1);
     if (newest && newest.seq === head.seq && newest.hash === head.hash) return { written: false, reason: "The newest checkpoint already holds the head." };
   }
