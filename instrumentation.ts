@@ -1,7 +1,8 @@
 /**
  * Runs once when the server starts: timers retry queued e-mail (the outbox), remind
  * people of overdue document reviews, make approved documents effective on their
- * date, and queue bath-maintenance and requalification reminders.
+ * date, queue bath-maintenance and requalification reminders, and sign a checkpoint
+ * of the audit chain's head into the evidence store (and the auditor's mailbox).
  */
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
@@ -28,4 +29,13 @@ export async function register() {
       .catch((error) => console.error("requalification reminders failed", error));
   setTimeout(remindRequalification, 5_000).unref();
   setInterval(remindRequalification, 3_600_000).unref();
+  const { env } = await import("@/lib/env");
+  const { writeCheckpoint } = await import("@/lib/server/audit/write-checkpoint");
+  // Skipped when the head has not moved, so an idle system writes nothing.
+  const checkpoint = () =>
+    writeCheckpoint("schedule")
+      .then((r) => (r.written && r.emailedTo ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("audit checkpoint failed", error));
+  setTimeout(checkpoint, 10_000).unref();
+  setInterval(checkpoint, env().AUDIT_CHECKPOINT_MINUTES * 60_000).unref();
 }

@@ -51,6 +51,17 @@ const envSchema = z
       .default("true")
       .transform((v) => v === "true" || v === "1"),
 
+    /**
+     * The Ed25519 private key (PKCS#8 PEM) that signs audit checkpoints: the PEM text
+     * itself, or a file holding it. Keep it off the database's disk and its backups.
+     */
+    AUDIT_SIGNING_KEY: z.string().optional(),
+    AUDIT_SIGNING_KEY_FILE: z.string().optional(),
+    /** How often the chain head is checkpointed when it has moved. */
+    AUDIT_CHECKPOINT_MINUTES: minutes(60),
+    /** Who receives a copy of every checkpoint by e-mail (an auditor outside the company, ideally). */
+    AUDITOR_EMAIL: z.string().trim().toLowerCase().email().optional().or(z.literal("").transform(() => undefined)),
+
     APP_URL: z.string().url().default("http://localhost:3000"),
     DEMO_MODE: z
       .enum(["true", "false", "1", "0"])
@@ -72,6 +83,9 @@ const envSchema = z
     }
     if (env.STORAGE_DRIVER === "s3" && !env.S3_BUCKET) {
       ctx.addIssue({ code: "custom", path: ["S3_BUCKET"], message: "is required when STORAGE_DRIVER is s3" });
+    }
+    if (env.AUDIT_SIGNING_KEY && env.AUDIT_SIGNING_KEY_FILE) {
+      ctx.addIssue({ code: "custom", path: ["AUDIT_SIGNING_KEY_FILE"], message: "set either AUDIT_SIGNING_KEY or AUDIT_SIGNING_KEY_FILE, not both" });
     }
     if (env.SESSION_IDLE_MINUTES > env.SESSION_ABSOLUTE_MINUTES) {
       ctx.addIssue({

@@ -26,6 +26,9 @@ console.log(seeded ? "Demo data loaded." : "Demo data already present.");
 
 const { startFakeSmtpServer } = await import("@/lib/email/fake-smtp-server");
 await startFakeSmtpServer({ port: smtpPort, mailboxFile: process.env.MAILBOX_FILE });
+if (!process.env.AUDIT_SIGNING_KEY_FILE && !process.env.AUDIT_SIGNING_KEY) {
+  console.log("Audit checkpoints are signed with a key generated in data/audit-signing-key.pem: no AUDIT_SIGNING_KEY_FILE is configured (fine for a demo, not for real records).");
+}
 console.log(`Demo e-mail is captured on 127.0.0.1:${smtpPort}; admins read it under Admin › E-mail.`);
 
 console.log("Building Washproof (about a minute)…");

@@ -3,6 +3,7 @@ import { auditEvents } from "@/db/schema";
 import type { Tx } from "@/db/client";
 import { canonicalJson } from "./canonical-json";
 import { auditEventSchema, type AuditActor, type AuditEventInput } from "./events";
+import { readsBackUnchanged } from "@/lib/schemas/text";
 import { chainHash, GENESIS_HASH } from "./hash";
 
 /**
@@ -31,6 +32,13 @@ export async function appendAudit(tx: Tx, actor: AuditActor, input: AuditEventIn
     reason: event.reason,
     prevHash: last?.hash ?? GENESIS_HASH,
   };
+  // The hash must cover the bytes the database gives back: a NUL would be read back
+  // cut short and a lone surrogate as U+FFFD, and the event would then look altered.
+  for (const [name, value] of Object.entries(fields)) {
+    if (typeof value === "string" && !readsBackUnchanged(value)) {
+      throw new Error(`appendAudit: ${name} holds a NUL or a lone surrogate, which the database cannot store as given`);
+    }
+  }
   const hash = chainHash(fields);
   await tx.insert(auditEvents).values({ ...fields, hash });
   return { seq: fields.seq, hash };

@@ -198,9 +198,15 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   }),
   event("audit.verified", "audit_trail", {
     new: z.union([
+      // Since checkpoints: the chain, the checkpoints and every signature, with what was found.
+      obj({ ok: z.boolean(), events: count, checkpoints: count, signatures: count, findings: z.array(text) }),
+      // Before them: the chain alone.
       obj({ ok: z.literal(true), events: count }),
       obj({ ok: z.literal(false), brokenAt: z.number().int(), reason: text }),
     ]),
+  }),
+  event("audit.checkpointed", "audit_trail", {
+    new: obj({ seq: count, hash: sha256, at: isoTime, keyId: text, signature: text, emailedTo: text.nullable(), mailId: text.nullable() }),
   }),
   // Controlled documents: the document's life, recorded on the version it concerns
   event("document.created", "document", {

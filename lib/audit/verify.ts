@@ -1,37 +1,70 @@
-import { asc, gt, sql } from "drizzle-orm";
+import { asc, gte, sql } from "drizzle-orm";
 import { auditEvents } from "@/db/schema";
 import type { Executor } from "@/db/client";
 import { chainHash, GENESIS_HASH, sha256Hex } from "./hash";
 
+/** One flaw in the chain: the event where it shows and what is wrong there. */
+export interface ChainBreak {
+  seq: number;
+  reason: string;
+}
+
 export type ChainVerification =
-  | { ok: true; events: number; lastHash: string }
-  | { ok: false; events: number; brokenAt: number; reason: string };
+  | { ok: true; events: number; lastHash: string; breaks: [] }
+  | { ok: false; events: number; lastHash: string; brokenAt: number; reason: string; breaks: ChainBreak[] };
 
 const PAGE = 5000;
 
 /**
- * Re-computes every link of the audit chain in order. Reports the first broken
- * link: an altered row (hash mismatch), a removed or inserted row (sequence gap
- * or a previous-hash mismatch), or removed rows at the end (the autoincrement
- * counter is ahead of the last row).
+ * Re-computes every link of the audit chain in order and reports every flaw, not
+ * only the first, so one broken event never hides a later one: an altered row
+ * (hash mismatch), a row that does not link to the one before, missing sequence
+ * numbers, or removed rows at the end (the autoincrement counter is ahead of the
+ * last row). After a flaw the walk re-anchors on the row as stored and goes on.
  *
  * Reading a million rows through the driver costs far more than hashing them,
  * so whole pages are first checked on the text SQLite builds itself
  * (`json_array` writes exactly the bytes `JSON.stringify` does for these
  * columns, which tests/unit/audit-chain.test.ts checks). A page that is short
- * or shows any flaw is re-read row by row, which names the broken link.
+ * or shows any flaw is re-read row by row, which names each broken link.
  */
 export async function verifyAuditChain(db: Executor, options: { page?: number } = {}): Promise<ChainVerification> {
   const page = options.page ?? PAGE;
+  const breaks: ChainBreak[] = [];
   let prev = GENESIS_HASH;
   let from = 1;
+  let count = 0;
   for (;;) {
     const lines = await chainTextPage(db, from, page);
     const last = lines.length === page ? pageHolds(lines, from, prev) : null;
-    if (last === null) return verifyRows(db, { from, prev, page });
-    prev = last;
-    from += page;
+    if (last !== null) {
+      prev = last;
+      from += page;
+      count += page;
+      continue;
+    }
+    const rows = await db.select().from(auditEvents).where(gte(auditEvents.seq, from)).orderBy(asc(auditEvents.seq)).limit(page);
+    for (const row of rows) {
+      if (row.seq !== from) {
+        breaks.push({ seq: from, reason: from === row.seq - 1 ? `event ${from} is missing` : `events ${from}–${row.seq - 1} are missing` });
+      } else if (row.prevHash !== prev) {
+        breaks.push({ seq: row.seq, reason: `event ${row.seq} does not link to event ${row.seq - 1}` });
+      }
+      if (chainHash(row) !== row.hash) {
+        breaks.push({ seq: row.seq, reason: `event ${row.seq} was altered after it was written` });
+      }
+      prev = row.hash;
+      from = row.seq + 1;
+      count += 1;
+    }
+    if (rows.length < page) break;
   }
+  const counter = await db.get<{ seq: number } | undefined>(sql`SELECT seq FROM sqlite_sequence WHERE name = 'audit_events'`);
+  if (counter && counter.seq >= from) {
+    breaks.push({ seq: from, reason: from === counter.seq ? `event ${from} was removed from the end` : `events ${from}–${counter.seq} were removed from the end` });
+  }
+  if (breaks.length === 0) return { ok: true, events: count, lastHash: prev, breaks: [] };
+  return { ok: false, events: count, lastHash: prev, brokenAt: breaks[0].seq, reason: breaks[0].reason, breaks };
 }
 
 /**
@@ -55,41 +88,4 @@ function pageHolds(lines: string[], from: number, prev: string): string | null {
     prev = hash;
   }
   return prev;
-}
-
-/** Row by row from `from`, given the hash the row before it must carry. */
-async function verifyRows(db: Executor, start: { from: number; prev: string; page: number }): Promise<ChainVerification> {
-  let expectedPrev = start.prev;
-  let expectedSeq = start.from;
-  let count = start.from - 1;
-  for (;;) {
-    const rows = await db
-      .select()
-      .from(auditEvents)
-      .where(gt(auditEvents.seq, expectedSeq - 1))
-      .orderBy(asc(auditEvents.seq))
-      .limit(start.page);
-    for (const row of rows) {
-      if (row.seq !== expectedSeq) {
-        return { ok: false, events: count, brokenAt: expectedSeq, reason: `event ${expectedSeq} is missing` };
-      }
-      if (row.prevHash !== expectedPrev) {
-        return { ok: false, events: count, brokenAt: row.seq, reason: `event ${row.seq} does not link to event ${row.seq - 1}` };
-      }
-      if (chainHash(row) !== row.hash) {
-        return { ok: false, events: count, brokenAt: row.seq, reason: `event ${row.seq} was altered after it was written` };
-      }
-      expectedPrev = row.hash;
-      expectedSeq += 1;
-      count += 1;
-    }
-    if (rows.length < start.page) break;
-  }
-  const counter = await db.get<{ seq: number } | undefined>(
-    sql`SELECT seq FROM sqlite_sequence WHERE name = 'audit_events'`,
-  );
-  if (counter && counter.seq > count) {
-    return { ok: false, events: count, brokenAt: count + 1, reason: `events ${count + 1}–${counter.seq} were removed` };
-  }
-  return { ok: true, events: count, lastHash: expectedPrev };
 }

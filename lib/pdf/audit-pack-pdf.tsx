@@ -56,6 +56,32 @@ function Table({ widths, head, rows }: { widths: number[]; head: string[]; rows:
   );
 }
 
+/**
+ * The newest signed checkpoint, printed in full: with the installation's public key
+ * anyone can check that the chain head it names was signed outside the database.
+ */
+function CheckpointAnchor({ checkpoints: c }: { checkpoints: AuditPack["checkpoints"] }) {
+  const cp = c.newest;
+  if (!cp) {
+    return <Text style={s.p}>No signed checkpoint of the audit trail existed at export, so the trail is anchored by its own hash chain only.</Text>;
+  }
+  const verdict = c.keyProblem
+    ? `The checkpoints could not be checked: ${c.keyProblem}`
+    : c.breaks.length === 0 && c.unreadable.length === 0
+      ? `The trail matches it${c.uncovered > 0 ? `; the ${c.uncovered} later events are covered by the chain alone` : ""}.`
+      : `The trail DIFFERS from its signed checkpoints: ${[...c.breaks.map((b) => b.reason), ...c.unreadable.map((n) => `${n} is not a readable checkpoint`)].join("; ")}.`;
+  return (
+    <View>
+      <Text style={s.p}>
+        Newest signed checkpoint (kept in the evidence store, outside the database, and e-mailed to the auditor): event {cp.seq} at {formatDateTime(cp.at, { seconds: true })}, signed{" "}
+        {cp.by === "schedule" ? "on schedule" : `at the request of ${cp.by}`} with Ed25519 key {cp.keyId}. {verdict}
+      </Text>
+      <Text style={s.mono}>hash {cp.hash}</Text>
+      <Text style={[s.mono, { marginBottom: 6 }]}>signature {cp.signature}</Text>
+    </View>
+  );
+}
+
 function KV({ k, children }: { k: string; children: ReactNode }) {
   return (
     <View style={s.kv}>
@@ -235,8 +261,12 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
         <Text style={s.h2}>8. Audit extract</Text>
         <Text style={s.p}>
           {pack.events.length} events about this change request, its recipe versions, signatures, runs and files. Integrity of the whole audit trail at export:{" "}
-          {pack.chain.ok ? `intact (${pack.chain.events} events, last hash ${pack.chain.lastHash})` : `BROKEN at event ${pack.chain.brokenAt}: ${pack.chain.reason}`}.
+          {pack.chain.ok
+            ? `intact (${pack.chain.events} events, last hash ${pack.chain.lastHash})`
+            : `BROKEN in ${pack.chain.breaks.length} place${pack.chain.breaks.length === 1 ? "" : "s"}: ${pack.chain.breaks.map((b) => b.reason).join("; ")}`}
+          .
         </Text>
+        <CheckpointAnchor checkpoints={pack.checkpoints} />
         <Table
           widths={[0.5, 1.5, 1.4, 2, 1.4, 3.2]}
           head={["Seq", "At (UTC)", "Actor", "Event", "Record", "Event hash (SHA-256)"]}

@@ -1,13 +1,14 @@
 import { z } from "zod";
 import "./messages";
+import { storedText } from "@/lib/schemas/text";
 import { ROLES } from "@/db/enums";
 
 export const PASSWORD_MIN_LENGTH = 12;
 
-const email = z.string().trim().toLowerCase().email("Enter a valid e-mail address.").max(200);
+const email = storedText().trim().toLowerCase().email("Enter a valid e-mail address.").max(200);
 
 export const signInSchema = z.object({
-  email: z.string().trim().min(1, "Enter your e-mail address.").max(200),
+  email: storedText().trim().min(1, "Enter your e-mail address.").max(200),
   password: z.string().min(1, "Enter your password.").max(200),
 });
 
@@ -43,9 +44,9 @@ export function passwordIsEmail(password: string, userEmail: string) {
 }
 
 export const userSchema = z.object({
-  name: z.string().trim().min(2, "Enter the person's full name.").max(120),
+  name: storedText().trim().min(2, "Enter the person's full name.").max(120),
   email,
-  jobTitle: z.string().trim().max(120).optional().transform((v) => v || null),
+  jobTitle: storedText().trim().max(120).optional().transform((v) => v || null),
   roles: z.array(z.enum(ROLES)).min(1, "Choose at least one role."),
 });
 

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { storedText } from "@/lib/schemas/text";
 import { API_TOKEN_SCOPES } from "@/db/enums";
 
 /** Lifetimes offered at creation; a token that never expires keeps working long after anyone remembers it. */
@@ -7,7 +8,7 @@ export const TOKEN_LIFETIMES_DAYS = [30, 90, 180, 365] as const;
 export const DEFAULT_TOKEN_DAYS = 90;
 
 export const createApiTokenSchema = z.object({
-  name: z.string({ error: "Name the token." }).trim().min(1, "Name the token, e.g. the instrument or script that uses it.").max(80, "Use at most 80 characters."),
+  name: storedText({ error: "Name the token." }).trim().min(1, "Name the token, e.g. the instrument or script that uses it.").max(80, "Use at most 80 characters."),
   scope: z.enum(API_TOKEN_SCOPES, { error: "Choose read or read and write." }),
   expiresInDays: z.coerce
     .number({ error: "Choose how long the token works." })

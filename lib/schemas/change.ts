@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { storedText } from "@/lib/schemas/text";
 import { CHANGE_KINDS, IMPACT_CLASSES, PARAMETER_KINDS, STAGE_KINDS, STAGE_MODES, TEST_TYPES } from "@/db/enums";
 import { MATRIX_SUBJECTS } from "@/lib/recipes/test-types";
 import { parameterProblems } from "@/lib/recipes/units";
@@ -19,17 +20,17 @@ export const parameterSchema = z.object({
     .string()
     .trim()
     .regex(/^[a-z][a-z0-9_]*\.[a-z0-9_.]+$/, "Use a key like wash.temperature (lower case, stage.parameter)."),
-  name: z.string().trim().min(2, "Name the parameter.").max(120),
+  name: storedText().trim().min(2, "Name the parameter.").max(120),
   kind: z.enum(PARAMETER_KINDS, { error: "Choose the kind of parameter." }),
   setpoint: requiredNumber,
-  unit: z.string().trim().min(1, "Give the unit.").max(20),
+  unit: storedText().trim().min(1, "Give the unit.").max(20),
   validatedLow: optionalNumber,
   validatedHigh: optionalNumber,
   critical: z.boolean(),
 });
 
 export const stageSchema = z.object({
-  name: z.string().trim().min(2, "Name the stage.").max(120),
+  name: storedText().trim().min(2, "Name the stage.").max(120),
   kind: z.enum(STAGE_KINDS, { error: "Choose the kind of stage." }),
   mode: z.enum(STAGE_MODES).nullable(),
   parameters: z.array(parameterSchema).max(40),
@@ -37,8 +38,8 @@ export const stageSchema = z.object({
 
 export const recipeContentSchema = z
   .object({
-    detergent: z.string().trim().max(200).transform((v) => v || null),
-    notes: z.string().trim().max(2000).transform((v) => v || null),
+    detergent: storedText().trim().max(200).transform((v) => v || null),
+    notes: storedText().trim().max(2000).transform((v) => v || null),
     stages: z.array(stageSchema).min(1, "A recipe has at least one stage.").max(12),
   })
   .superRefine((recipe, ctx) => {
@@ -62,7 +63,7 @@ export const proposalSchema = z
     changeRequestId: z.string().uuid(),
     /** The proposal's save counter when the editor loaded it. */
     lockVersion: z.number().int().min(0),
-    title: z.string().trim().min(5, "Give the change a title of at least 5 characters.").max(200),
+    title: storedText().trim().min(5, "Give the change a title of at least 5 characters.").max(200),
     kind: z.enum(CHANGE_KINDS, { error: "Choose what kind of change this is." }),
     partFamilyId: z
       .string()
@@ -74,7 +75,7 @@ export const proposalSchema = z
       .optional()
       .transform((v) => v || null)
       .pipe(z.enum(IMPACT_CLASSES).nullable()),
-    raiseReason: z.string().trim().max(2000).transform((v) => v || null),
+    raiseReason: storedText().trim().max(2000).transform((v) => v || null),
     recipe: recipeContentSchema,
   })
   .superRefine((v, ctx) => {
@@ -85,7 +86,7 @@ export type Proposal = z.output<typeof proposalSchema>;
 
 export const openChangeSchema = z.object({
   recipeId: z.string().uuid(),
-  title: z.string().trim().min(5, "Give the change a title of at least 5 characters.").max(200),
+  title: storedText().trim().min(5, "Give the change a title of at least 5 characters.").max(200),
   kind: z.enum(CHANGE_KINDS, { error: "Choose what kind of change this is." }),
 });
 
@@ -97,7 +98,7 @@ export const signedStepSchema = changeIdSchema.extend({
 });
 
 export const endChangeSchema = changeIdSchema.extend({
-  reason: z.string().trim().min(5, "Give the reason for the record (at least 5 characters).").max(2000),
+  reason: storedText().trim().min(5, "Give the reason for the record (at least 5 characters).").max(2000),
 });
 
 export const linkEvidenceSchema = z.object({
@@ -115,7 +116,7 @@ export const matrixRowSchema = z.object({
 
 export const matrixSchema = z
   .object({
-    note: z.string().trim().min(5, "Say what changed and why (at least 5 characters).").max(1000),
+    note: storedText().trim().min(5, "Say what changed and why (at least 5 characters).").max(1000),
     rows: z.array(matrixRowSchema).min(1, "Keep at least one row."),
   })
   .superRefine((m, ctx) => {
@@ -130,5 +131,5 @@ export const matrixSchema = z
 export const intervalSchema = z.object({
   intervalId: z.string().uuid(),
   intervalMonths: z.coerce.number({ error: "Enter a number of months." }).int("Enter whole months.").min(1, "At least 1 month.").max(60, "At most 60 months."),
-  reason: z.string().trim().min(5, "Give the reason for the record (at least 5 characters).").max(1000),
+  reason: storedText().trim().min(5, "Give the reason for the record (at least 5 characters).").max(1000),
 });

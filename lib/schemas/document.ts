@@ -1,6 +1,7 @@
 import { z } from "zod";
 import "./messages";
 import { calendarDate } from "./date";
+import { storedText } from "@/lib/schemas/text";
 import { DOCUMENT_TYPES, ROUTING_MODES } from "@/db/enums";
 import { BLOCK_TYPES, isSafeHref, MARK_TYPES, MAX_LIST_DEPTH, MAX_NODE_DEPTH, nestingDepth, type RichDoc, type RichMark, type RichNode } from "@/lib/documents/rich-text";
 
@@ -20,7 +21,7 @@ const nodeShape: z.ZodType<RawNode> = z.lazy(() =>
     type: z.string(),
     attrs: z.record(z.string(), z.unknown()).nullish(),
     content: z.array(nodeShape).optional(),
-    text: z.string().optional(),
+    text: storedText().optional(),
     marks: z.array(markShape).optional(),
   }),
 ) as z.ZodType<RawNode>;
@@ -121,7 +122,7 @@ const percent = (label: string) =>
 
 export const createDocumentSchema = z.object({
   type: z.enum(DOCUMENT_TYPES, { message: "Choose the kind of document." }),
-  title: z.string().trim().min(5, "Give the document a title of at least 5 characters.").max(200),
+  title: storedText().trim().min(5, "Give the document a title of at least 5 characters.").max(200),
   systemId: optionalId,
   partFamilyId: optionalId,
   recipeVersionId: optionalId,
@@ -174,10 +175,10 @@ export const approveSchema = signStepSchema.extend({
 
 export const returnSchema = z.object({
   versionId: z.string().uuid(),
-  comment: z.string().trim().min(5, "Say what must change (at least 5 characters).").max(4000),
+  comment: storedText().trim().min(5, "Say what must change (at least 5 characters).").max(4000),
 });
 
 export const reasonSchema = z.object({
   documentId: z.string().uuid(),
-  reason: z.string().trim().min(5, "Give the reason for the audit trail (at least 5 characters).").max(2000),
+  reason: storedText().trim().min(5, "Give the reason for the audit trail (at least 5 characters).").max(2000),
 });

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import "./messages";
 import { calendarDate, calendarDateTime } from "./date";
+import { storedText } from "@/lib/schemas/text";
 import { BATH_RECORD_KINDS, EVIDENCE_FILE_KINDS, MAINTENANCE_KINDS, TEST_TYPES } from "@/db/enums";
 
 /** ISO 16232 size classes B…N, as form field suffixes and CSV columns. */
@@ -26,7 +27,7 @@ function requiredNumber(label: string, opts: { min?: number; max?: number; int?:
   return z.preprocess(toNumber, n);
 }
 const optionalText = (max: number) =>
-  z.preprocess((v) => (blank(v) ? undefined : v), z.string().trim().max(max, `Use at most ${max} characters.`).optional());
+  z.preprocess((v) => (blank(v) ? undefined : v), storedText().trim().max(max, `Use at most ${max} characters.`).optional());
 const checkbox = z.preprocess((v) => v === true || v === "on" || v === "true" || v === "yes" || v === "1", z.boolean());
 
 /** A list typed as "1200, 310, 95" or one value per line. */
@@ -57,7 +58,7 @@ export const countsSchema = z
 export type Counts = z.output<typeof countsSchema>;
 
 const sampleBase = z.object({
-  sampleLabel: z.string({ error: "Enter the sample's part serial or label." }).trim().min(1, "Enter the sample's part serial or label.").max(60, "Use at most 60 characters."),
+  sampleLabel: storedText({ error: "Enter the sample's part serial or label." }).trim().min(1, "Enter the sample's part serial or label.").max(60, "Use at most 60 characters."),
   basketPosition: optionalText(60),
   worstCase: checkbox,
 });
@@ -160,7 +161,7 @@ export const createRunSchema = z.object({
   recipeVersionId: uuid,
   testType: z.enum(TEST_TYPES, { error: "Choose the test type." }),
   technicianId: uuid,
-  lab: z.string({ error: "Name the analysing lab." }).trim().min(2, "Name the analysing lab.").max(120),
+  lab: storedText({ error: "Name the analysing lab." }).trim().min(2, "Name the analysing lab.").max(120),
   performedOn: calendarDate("Enter the test date."),
   protocolDocumentId: optionalUuid,
   changeRequestId: optionalUuid,
@@ -180,7 +181,7 @@ export const signRunSchema = z.object({
 
 export const reviseRunSchema = z.object({
   runId: uuid,
-  reason: z.string({ error: "Give the reason for the correction." }).trim().min(5, "Give the reason for the correction (at least 5 characters).").max(1000),
+  reason: storedText({ error: "Give the reason for the correction." }).trim().min(5, "Give the reason for the correction (at least 5 characters).").max(1000),
 });
 
 export const fileKindSchema = z.enum(EVIDENCE_FILE_KINDS);

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import "./messages";
+import { storedText } from "@/lib/schemas/text";
 import { STAGE_KINDS, STAGE_MODES } from "@/db/enums";
 
 const optionalLitres = z.preprocess(
@@ -9,7 +10,7 @@ const optionalLitres = z.preprocess(
 
 export const systemStageSchema = z.object({
   id: z.string().uuid().nullable(),
-  name: z.string().trim().min(2, "Name the stage.").max(120),
+  name: storedText().trim().min(2, "Name the stage.").max(120),
   kind: z.enum(STAGE_KINDS, { error: "Choose the kind of stage." }),
   capabilities: z.array(z.enum(STAGE_MODES)).min(1, "Tick at least one mode the stage can run."),
   tankVolumeL: optionalLitres,
@@ -18,8 +19,8 @@ export const systemStageSchema = z.object({
 /** A cleaning system and its stages; stages are kept (never deleted) because tank records refer to them. */
 export const systemSchema = z.object({
   systemId: z.string().uuid(),
-  name: z.string().trim().min(2, "Name the system.").max(120),
-  description: z.string().trim().max(1000).transform((v) => v || null),
+  name: storedText().trim().min(2, "Name the system.").max(120),
+  description: storedText().trim().max(1000).transform((v) => v || null),
   stages: z.array(systemStageSchema).min(1, "A system has at least one stage.").max(12),
 });
 export type SystemInput = z.output<typeof systemSchema>;

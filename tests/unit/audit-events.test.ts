@@ -225,6 +225,13 @@ const SAMPLES = {
     recordId: "chain",
     new: { ok: false, brokenAt: 12, reason: "event 12 was altered after it was written" },
   },
+  // lib/server/audit/write-checkpoint.ts
+  "audit.checkpointed": {
+    eventType: "audit.checkpointed",
+    recordType: "audit_trail",
+    recordId: "chain",
+    new: { seq: 42, hash: "a".repeat(64), at: "2026-12-02T10:00:00.000Z", keyId: "k-1f2e", signature: "c2lnbmF0dXJl", emailedTo: null, mailId: null },
+  },
   // lib/server/documents/*.ts
   "document.created": {
     eventType: "document.created",

@@ -25,6 +25,15 @@ describe("particle CSV import", () => {
     expect(r.errors.find((e) => e.line === 6)!.message).toMatch(/appears twice/);
   });
 
+  it("refuses text the database would not give back as written, naming the line", async () => {
+    // A NUL would be stored but read back cut short; a lone surrogate would come back as U+FFFD.
+    const r = await parseSampleCsv(`${HEADER}\nVB-1\u0000x,,,1,,,,5,,,,,,,,,,\nVB-2,top\ud800,,1,,,,5,,,,,,,,,,\nVB-3,left \u202e,,1,,,,5,,,,,,,,,,\n`);
+    expect(r.rows).toEqual([]);
+    expect(r.errors.map((e) => e.line)).toEqual([2, 3]);
+    expect(r.errors[0].message).toMatch(/control characters/);
+    expect(r.errors[1].message).toMatch(/broken character/);
+  });
+
   it("refuses cells that a spreadsheet would run as formulas", async () => {
     const r = await parseSampleCsv(`${HEADER}\n=HYPERLINK(1),,,1,,,,5,,,,,,,,,,\n@SUM(A1),,,1,,,,5,,,,,,,,,,\nVB-3,+1,,1,,,,5,,,,,,,,,,\n`);
     expect(r.rows).toEqual([]);

@@ -22,6 +22,7 @@ import { runContent } from "@/lib/server/evidence/run-content";
 import { localStore, setStore } from "@/lib/storage";
 import { loadAuditPack } from "@/lib/server/trace/audit-pack";
 import { exportAuditPack } from "@/lib/server/trace/export-audit-pack";
+import { writeCheckpoint } from "@/lib/server/audit/write-checkpoint";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
 import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
@@ -185,6 +186,8 @@ describe("audit pack", () => {
     expect(pack.chain.ok).toBe(true);
     expect(pack.events.map((e) => e.eventType)).toEqual(expect.arrayContaining(["change.opened", "change.closed", "signature.applied", "evidence_file.uploaded", "recipe_version.effective"]));
 
+    const checkpoint = await writeCheckpoint("schedule");
+    if (!checkpoint.written) throw new Error(checkpoint.reason);
     const pdf = await exportAuditPack(people.auditor, { changeRequestId: cr.id, format: "pdf" });
     const dir = mkdtempSync(join(tmpdir(), "washproof-pack-"));
     writeFileSync(join(dir, "pack.pdf"), pdf.bytes);
@@ -195,6 +198,10 @@ describe("audit pack", () => {
       expect(text).toContain(s.contentHash);
     }
     for (const h of fileHashes) expect(text).toContain(h);
+    // The anchor outside the database is printed whole, with the verdict against it.
+    expect(text).toContain(checkpoint.checkpoint.signature);
+    expect(text).toContain(checkpoint.checkpoint.hash);
+    expect(text).toContain("The trail matches it");
     expect(text).toContain("105 °C");
     expect(text).toContain("95–110 °C");
 

@@ -3,6 +3,7 @@
 import { z } from "zod";
 import { defineAction } from "@/lib/actions/define-action";
 import type { FormState } from "@/lib/actions/result";
+import { storedText } from "@/lib/schemas/text";
 import { createUserSchema, updateUserSchema, userIdSchema } from "@/lib/schemas/account";
 import { sendTestEmail } from "@/lib/server/email/send-test-email";
 import { createUser } from "@/lib/server/users/create-user";
@@ -36,7 +37,7 @@ export const updateUserAction = defineAction({
 
 const activeSchema = userIdSchema.extend({
   active: z.enum(["true", "false"]).transform((v) => v === "true"),
-  reason: z.string().trim().min(3, "Give the reason for the audit trail.").max(500),
+  reason: storedText().trim().min(3, "Give the reason for the audit trail.").max(500),
 });
 
 export const setUserActiveAction = defineAction({
@@ -58,7 +59,7 @@ export const resetPasswordAction = defineAction({
   },
 });
 
-const testEmailSchema = z.object({ to: z.string().trim().toLowerCase().email("Enter a valid e-mail address.") });
+const testEmailSchema = z.object({ to: storedText().trim().toLowerCase().email("Enter a valid e-mail address.") });
 
 export const sendTestEmailAction = defineAction({
   permission: "users.manage",

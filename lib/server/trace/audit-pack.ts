@@ -4,6 +4,7 @@ import type { Executor } from "@/db/client";
 import { auditEvents } from "@/db/schema";
 import { readAuditEvent, verifyAuditChain } from "@/lib/audit";
 import { narrativeText } from "@/lib/changes/content";
+import { compareChainWithCheckpoints } from "@/lib/server/audit/check-integrity";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { changeEvidence, changeSignatures } from "./evidence-of-change";
@@ -12,7 +13,8 @@ import { changeEvidence, changeSignatures } from "./evidence-of-change";
  * Everything an auditor needs about one change request, read once: the record,
  * its justification, the parameter diff and impact with its working, every
  * signature with what it binds to, the evidence with its file hashes, and the
- * audit events of all of these, with the chain's integrity at the time of export.
+ * audit events of all of these, with the chain's integrity at the time of export
+ * and the newest signed checkpoint, which anchors it outside the database.
  */
 export async function loadAuditPack(db: Executor, changeRequestId: string) {
   const state = await loadChangeState(db, changeRequestId);
@@ -28,7 +30,7 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
     ...runSignatureIds,
     ...evidence.flatMap((r) => r.files.map((f) => f.id)),
   ];
-  const [events, chain] = await Promise.all([
+  const [events, chain, checkpoints] = await Promise.all([
     db
       .select()
       .from(auditEvents)
@@ -36,6 +38,8 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
       .where(inArray(auditEvents.recordId, recordIds))
       .orderBy(asc(auditEvents.seq)),
     verifyAuditChain(db),
+    // The newest checkpoint alone detects a re-chained rewrite before it; the full check on the integrity page reads them all.
+    compareChainWithCheckpoints(db, { newestOnly: true }),
   ]);
   return {
     cr: state.cr,
@@ -59,6 +63,7 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
     // Each row as stored (the pack lists its hash), named by today's event type.
     events: events.map((row) => ({ ...row, eventType: readAuditEvent(row).eventType })),
     chain,
+    checkpoints,
   };
 }
 export type AuditPack = Awaited<ReturnType<typeof loadAuditPack>>;

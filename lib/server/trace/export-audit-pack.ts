@@ -42,6 +42,8 @@ export async function exportAuditPack(actor: Actor, input: { changeRequestId: st
         included.push(path);
       }
     }
+    // The newest checkpoint file as stored, so the auditor can check its signature with the public key.
+    if (pack.checkpoints.newest) entries["audit-checkpoint.json"] = strToU8(JSON.stringify(pack.checkpoints.newest, null, 2) + "\n");
     entries["SHA256SUMS"] = strToU8(sums.join("\n") + "\n");
     entries["README.txt"] = strToU8(
       [
@@ -49,6 +51,9 @@ export async function exportAuditPack(actor: Actor, input: { changeRequestId: st
         "",
         `${base}.pdf lists the record, its signatures and the SHA-256 of every evidence file.`,
         "Check the files with: sha256sum -c SHA256SUMS",
+        ...(pack.checkpoints.newest
+          ? ["", "audit-checkpoint.json is the newest signed checkpoint of the audit trail (Ed25519 over its other fields as canonical JSON); the PDF says whether the trail still matches it."]
+          : []),
         ...(problems.length ? ["", "Files not included (their stored bytes failed the check):", ...problems] : []),
         "",
       ].join("\n"),

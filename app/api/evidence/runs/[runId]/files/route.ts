@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { formatSize } from "@/lib/format/number";
+import { storedText } from "@/lib/schemas/text";
 import { fileKindSchema } from "@/lib/schemas/evidence";
 import { defineRoute, routeError } from "@/lib/server/api/handler";
 import { UserFacingError } from "@/lib/server/errors";
@@ -9,7 +10,7 @@ import { storeEvidenceFile, uploadLimitBytes } from "@/lib/server/evidence/store
 const fieldsSchema = z.object({
   runId: z.string().uuid(),
   kind: fileKindSchema,
-  sampleLabel: z.preprocess((v) => (v === "" || v === null ? undefined : v), z.string().trim().max(60).optional()),
+  sampleLabel: z.preprocess((v) => (v === "" || v === null ? undefined : v), storedText().trim().max(60).optional()),
 });
 
 /** Uploads one evidence file to an open run (multipart form: file, kind, sampleLabel). */

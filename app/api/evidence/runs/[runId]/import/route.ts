@@ -1,6 +1,7 @@
 import { Readable } from "node:stream";
 import { NextResponse } from "next/server";
 import { z } from "zod";
+import { storedText } from "@/lib/schemas/text";
 import { isCsvTestType, parseSampleCsv, type ColumnMapping } from "@/lib/evidence/csv-import";
 import { checkUpload, FileCheckError } from "@/lib/evidence/files";
 import { formatSize } from "@/lib/format/number";
@@ -11,7 +12,7 @@ import { getRunRow } from "@/lib/server/evidence/run-content";
 import { getDb } from "@/db/client";
 import { uploadLimitBytes } from "@/lib/server/evidence/store-file";
 
-const mappingSchema = z.record(z.string(), z.string().max(200));
+const mappingSchema = z.record(z.string(), storedText().max(200));
 
 /**
  * Imports samples (particle counts or filter weighings) from a CSV file into an open run. The file is read as
