@@ -49,6 +49,14 @@ export const CHANGE_STATUSES = [
 
 export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval"] as const;
 
+/** A customer specification revision is in force until a later revision supersedes it. */
+export const SPEC_STATUSES = ["in_force", "superseded"] as const;
+
+/** How a part family's wetted surface area was determined. */
+export const WETTED_AREA_METHODS = ["cad_model", "measured", "calculated", "estimated"] as const;
+
+export const COMBINATION_STATUSES = ["qualified", "withdrawn"] as const;
+
 export const MATRIX_STATUSES = ["effective", "superseded"] as const;
 
 export const IMPACT_CLASSES = ["editorial", "minor", "major"] as const;

@@ -4,6 +4,18 @@ import { bool, createdAt, id } from "./columns";
 
 // ── Plant ─────────────────────────────────────────────────────────────────
 
+/**
+ * The installation's own name, set once by the first administrator. One row only: the
+ * fixed id makes a second set-up a primary-key clash rather than a second company.
+ */
+export const companySettings = sqliteTable("company_settings", {
+  id: text("id").primaryKey().$defaultFn(() => "company"),
+  companyName: text("company_name").notNull(),
+  createdAt: createdAt(),
+  updatedAt: text("updated_at"),
+});
+export type CompanySettings = typeof companySettings.$inferSelect;
+
 export const sites = sqliteTable("sites", {
   id: id(),
   name: text("name").notNull(),
