@@ -55,8 +55,6 @@ export const SPEC_STATUSES = ["in_force", "superseded"] as const;
 /** How a part family's wetted surface area was determined. */
 export const WETTED_AREA_METHODS = ["cad_model", "measured", "calculated", "estimated"] as const;
 
-export const COMBINATION_STATUSES = ["qualified", "withdrawn"] as const;
-
 export const MATRIX_STATUSES = ["effective", "superseded"] as const;
 
 export const IMPACT_CLASSES = ["editorial", "minor", "major"] as const;

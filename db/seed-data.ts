@@ -16,6 +16,8 @@ export const DEMO_USERS: { name: string; email: string; jobTitle: string; roles:
   { name: "Margit Olsen", email: "auditor@fennmoor.example", jobTitle: "Customer quality auditor", roles: ["auditor"] },
 ];
 
+export const DEMO_COMPANY = "Fennmoor Fluidtech";
+
 export const DEMO_SITE = { name: "Fennmoor Fluidtech — Larchfield plant", location: "Larchfield" };
 
 export const DEMO_SYSTEMS = [

@@ -1,7 +1,8 @@
-import { eq } from "drizzle-orm";
+import { count, eq } from "drizzle-orm";
 import { pathToFileURL } from "node:url";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
 import { hashPassword } from "@/lib/auth/password";
+import { setUpPlantIn } from "@/lib/server/plant/set-up-plant";
 import { getDb, type Database } from "./client";
 import { seedDemoDocuments } from "./seed-documents";
 import {
@@ -19,7 +20,7 @@ import {
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
 import { seedChangeControl } from "./seed-changes";
-import { DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
+import { DEMO_COMPANY, DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
 
 /**
  * Loads the invented demo scenario. Idempotent: a database that already holds
@@ -32,10 +33,33 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
   // Hash outside the transaction: argon2 is deliberately slow.
   const hashes = await Promise.all(DEMO_USERS.map(() => hashPassword(DEMO_PASSWORD)));
 
+  const [{ n: existingUsers }] = await db.select({ n: count() }).from(users);
+
   await db.transaction(async (tx) => {
     const audit = (input: Parameters<typeof appendAudit>[2]) => appendAudit(tx, SYSTEM_ACTOR, input);
     const userIds = new Map<string, string>();
+    // An empty installation is set up the way a plant sets itself up: first administrator, company, site.
+    const firstAdmin = DEMO_USERS.find((u) => u.roles.includes("admin"))!;
+    let siteId: string;
+    if (existingUsers === 0) {
+      const setUp = await setUpPlantIn(tx, {
+        companyName: DEMO_COMPANY,
+        siteName: DEMO_SITE.name,
+        siteLocation: DEMO_SITE.location,
+        adminName: firstAdmin.name,
+        adminEmail: firstAdmin.email,
+        jobTitle: firstAdmin.jobTitle,
+        passwordHash: hashes[DEMO_USERS.indexOf(firstAdmin)],
+      });
+      userIds.set(firstAdmin.email, setUp.adminId);
+      siteId = setUp.siteId;
+    } else {
+      const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
+      await audit({ action: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
+      siteId = site.id;
+    }
     for (const [i, u] of DEMO_USERS.entries()) {
+      if (userIds.has(u.email)) continue;
       const [row] = await tx
         .insert(users)
         .values({ name: u.name, email: u.email, jobTitle: u.jobTitle, passwordHash: hashes[i] })
@@ -48,14 +72,12 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     }
     const engineerId = userIds.get("engineer@fennmoor.example") ?? null;
 
-    const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
-    await audit({ action: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
 
     const systemIds = new Map<string, string>();
     for (const s of DEMO_SYSTEMS) {
       const [sys] = await tx
         .insert(cleaningSystems)
-        .values({ siteId: site.id, code: s.code, name: s.name, kind: s.kind, description: s.description })
+        .values({ siteId, code: s.code, name: s.name, kind: s.kind, description: s.description })
         .returning();
       systemIds.set(s.code, sys.id);
       await tx.insert(systemStages).values(s.stages.map((st, i) => ({ ...st, systemId: sys.id, position: i + 1 })));

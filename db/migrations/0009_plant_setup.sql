@@ -5,23 +5,6 @@ CREATE TABLE `company_settings` (
 	`updated_at` text
 );
 --> statement-breakpoint
-CREATE TABLE `qualified_combinations` (
-	`id` text PRIMARY KEY NOT NULL,
-	`recipe_version_id` text NOT NULL,
-	`part_family_id` text NOT NULL,
-	`status` text DEFAULT 'qualified' NOT NULL,
-	`basis` text NOT NULL,
-	`qualified_on` text NOT NULL,
-	`created_by` text,
-	`created_at` text NOT NULL,
-	`withdrawn_at` text,
-	FOREIGN KEY (`recipe_version_id`) REFERENCES `recipe_versions`(`id`) ON UPDATE no action ON DELETE no action,
-	FOREIGN KEY (`part_family_id`) REFERENCES `part_families`(`id`) ON UPDATE no action ON DELETE no action,
-	FOREIGN KEY (`created_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action
-);
---> statement-breakpoint
-CREATE UNIQUE INDEX `qualified_combinations_uq` ON `qualified_combinations` (`recipe_version_id`,`part_family_id`);--> statement-breakpoint
-CREATE INDEX `qualified_combinations_family_idx` ON `qualified_combinations` (`part_family_id`);--> statement-breakpoint
 DROP INDEX `cleanliness_specs_code_unique`;--> statement-breakpoint
 ALTER TABLE `cleanliness_specs` ADD `customer` text;--> statement-breakpoint
 ALTER TABLE `cleanliness_specs` ADD `document_number` text;--> statement-breakpoint
@@ -41,4 +24,6 @@ ALTER TABLE `part_families` ADD `drawing_number` text;--> statement-breakpoint
 ALTER TABLE `part_families` ADD `drawing_revision` text;--> statement-breakpoint
 ALTER TABLE `part_families` ADD `customer` text;--> statement-breakpoint
 ALTER TABLE `part_families` ADD `updated_at` text;--> statement-breakpoint
+ALTER TABLE `requalification_intervals` ADD `basis` text;--> statement-breakpoint
+ALTER TABLE `requalification_intervals` ADD `qualified_by` text REFERENCES users(id);--> statement-breakpoint
 ALTER TABLE `test_runs` ADD `spec_id` text REFERENCES cleanliness_specs(id);

@@ -1,9 +1,8 @@
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import { STAGE_KINDS, STAGE_MODES, RECIPE_VERSION_STATUSES, PARAMETER_KINDS, COMBINATION_STATUSES } from "../enums";
+import { STAGE_KINDS, STAGE_MODES, RECIPE_VERSION_STATUSES, PARAMETER_KINDS } from "../enums";
 import { bool, createdAt, id } from "./columns";
 import { users } from "./people";
 import { cleaningSystems } from "./plant";
-import { partFamilies } from "./parts";
 
 // ── Recipes ───────────────────────────────────────────────────────────────
 
@@ -72,24 +71,3 @@ export const recipeParameters = sqliteTable(
 );
 export type RecipeParameter = typeof recipeParameters.$inferSelect;
 
-/**
- * Which recipe version is validated for which part family. A run is opened only on a
- * qualified combination (or on the proposal that requalifies one, or under a protocol for it).
- */
-export const qualifiedCombinations = sqliteTable(
-  "qualified_combinations",
-  {
-    id: id(),
-    recipeVersionId: text("recipe_version_id").notNull().references(() => recipeVersions.id),
-    partFamilyId: text("part_family_id").notNull().references(() => partFamilies.id),
-    status: text("status", { enum: COMBINATION_STATUSES }).notNull().default("qualified"),
-    /** What proves it: the validation report, change request or run numbers, in words. */
-    basis: text("basis").notNull(),
-    qualifiedOn: text("qualified_on").notNull(),
-    createdBy: text("created_by").references(() => users.id),
-    createdAt: createdAt(),
-    withdrawnAt: text("withdrawn_at"),
-  },
-  (t) => [uniqueIndex("qualified_combinations_uq").on(t.recipeVersionId, t.partFamilyId), index("qualified_combinations_family_idx").on(t.partFamilyId)],
-);
-export type QualifiedCombination = typeof qualifiedCombinations.$inferSelect;
