@@ -6,6 +6,7 @@ import { changeContentHash, narrativeDocument } from "@/lib/recipes/change-conte
 import { assess } from "@/lib/recipes/assess";
 import type { RecipeSnapshot } from "@/lib/recipes/diff";
 import { DEFAULT_MATRIX } from "@/lib/recipes/requalification";
+import { qualifyCombinationIn } from "@/lib/server/plant/qualify-combination";
 import { getStore } from "@/lib/storage";
 import type { Tx } from "./client";
 import { loadRecipeSnapshot, writeRecipeContent } from "./recipe-content";
@@ -213,6 +214,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       .values({
         number,
         partFamilyId: fitting.family.id,
+        specId: fitting.spec.id,
         recipeVersionId: sf2.id,
         changeRequestId: major.cr.id,
         testType: req.testType,
@@ -297,12 +299,15 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     return d.toISOString();
   };
   const intervals = [
-    { recipeVersionId: vb[1].id, partFamilyId: ids.familyIds.get("PF-VB-210")!, lastQualifiedAt: monthsAgo(12, 14) },
-    { recipeVersionId: ph1.id, partFamilyId: ids.familyIds.get("PF-PH-400")!, lastQualifiedAt: monthsAgo(5) },
-    { recipeVersionId: sf2.id, partFamilyId: ids.familyIds.get("PF-SF-12")!, lastQualifiedAt: closedAt },
+    { recipeVersionId: vb[1].id, partFamilyId: ids.familyIds.get("PF-VB-210")!, lastQualifiedAt: monthsAgo(12, 14), basis: "Carried over from v1 by CR-2025-001 (minor change); periodic requalification" },
+    { recipeVersionId: ph1.id, partFamilyId: ids.familyIds.get("PF-PH-400")!, lastQualifiedAt: monthsAgo(5), basis: "Pump housing PQ and its periodic requalification" },
+    { recipeVersionId: sf2.id, partFamilyId: ids.familyIds.get("PF-SF-12")!, lastQualifiedAt: closedAt, basis: "Requalified by CR-2026-001" },
   ];
   for (const i of intervals) {
     const [row] = await tx.insert(requalificationIntervals).values({ ...i, intervalMonths: 12 }).returning();
     await audit({ action: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { ...i, intervalMonths: 12 } });
   }
+  // The superseded versions the demo's older runs were made on were qualified in their day too.
+  await qualifyCombinationIn(tx, SYSTEM_ACTOR, { recipeVersionId: vb[0].id, partFamilyId: ids.familyIds.get("PF-VB-210")!, basis: "Valve body PQ (first validation)", qualifiedOn: "2025-03-10", intervalMonths: 12 });
+  await qualifyCombinationIn(tx, SYSTEM_ACTOR, { recipeVersionId: sf1.id, partFamilyId: ids.familyIds.get("PF-SF-12")!, basis: "Fitting PQ (first validation)", qualifiedOn: "2025-06-02", intervalMonths: 12 });
 }

@@ -2,13 +2,15 @@ import { count, eq } from "drizzle-orm";
 import { pathToFileURL } from "node:url";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
 import { hashPassword } from "@/lib/auth/password";
+import { partFamilySchema } from "@/lib/schemas/part-family";
+import { specSchema } from "@/lib/schemas/spec";
+import { createPartFamilyIn } from "@/lib/server/plant/create-part-family";
+import { createSpecIn } from "@/lib/server/plant/create-spec";
 import { setUpPlantIn } from "@/lib/server/plant/set-up-plant";
 import { getDb, type Database } from "./client";
 import { seedDemoDocuments } from "./seed-documents";
 import {
   cleaningSystems,
-  cleanlinessSpecs,
-  partFamilies,
   recipeParameters,
   recipes,
   recipeStages,
@@ -84,19 +86,18 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       await audit({ action: "system.created", recordType: "cleaning_system", recordId: sys.id, new: { code: s.code, name: s.name, stages: s.stages.map((st) => st.name) } });
     }
 
+    // Specifications and part families go through the same services and schemas as a plant's own.
     const specIds = new Map<string, string>();
     for (const spec of DEMO_SPECS) {
-      const [row] = await tx.insert(cleanlinessSpecs).values(spec).returning();
+      const row = await createSpecIn(tx, SYSTEM_ACTOR, specSchema.parse(spec));
       specIds.set(spec.code, row.id);
-      await audit({ action: "spec.created", recordType: "cleanliness_spec", recordId: row.id, new: spec });
     }
 
     const familyIds = new Map<string, string>();
     for (const pf of DEMO_PART_FAMILIES) {
       const { spec, ...fields } = pf;
-      const [row] = await tx.insert(partFamilies).values({ ...fields, specId: specIds.get(spec)! }).returning();
+      const row = await createPartFamilyIn(tx, SYSTEM_ACTOR, partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }));
       familyIds.set(pf.code, row.id);
-      await audit({ action: "part_family.created", recordType: "part_family", recordId: row.id, new: pf });
     }
 
     const recipeIds = new Map<string, string>();
