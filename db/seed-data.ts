@@ -20,6 +20,7 @@ export const DEMO_COMPANY = "Fennmoor Fluidtech";
 
 export const DEMO_SITE = { name: "Fennmoor Fluidtech — Larchfield plant", location: "Larchfield" };
 
+/** Equipment figures are invented but plausible (about 10 W/L of ultrasonics, 3–15 bar pumps) [practice]. */
 export const DEMO_SYSTEMS = [
   {
     code: "AW-3",
@@ -27,9 +28,9 @@ export const DEMO_SYSTEMS = [
     kind: "multi_tank_aqueous" as const,
     description: "Alkaline ultrasonic wash with spray, flood and bore injection; tap-water rinse; deionised final rinse; hot-air and vacuum drying.",
     stages: [
-      { name: "Tank 1 — alkaline wash", kind: "wash" as const, capabilities: ["ultrasonic", "spray", "flood", "injection"], tankVolumeL: 900 },
-      { name: "Tank 2 — rinse", kind: "rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800 },
-      { name: "Tank 3 — deionised final rinse", kind: "final_rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800 },
+      { name: "Tank 1 — alkaline wash", kind: "wash" as const, capabilities: ["ultrasonic", "spray", "flood", "injection"], tankVolumeL: 900, filterRatingUm: 25, ultrasonicPowerW: 9000, ultrasonicFrequencyKHz: 40, sprayPressureBar: 4, injectionPressureBar: 15, nozzleSet: "NS-AW3-1A" },
+      { name: "Tank 2 — rinse", kind: "rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800, filterRatingUm: 50, sprayPressureBar: 4, nozzleSet: "NS-AW3-2A" },
+      { name: "Tank 3 — deionised final rinse", kind: "final_rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800, filterRatingUm: 10, sprayPressureBar: 3, nozzleSet: "NS-AW3-3A" },
       { name: "Dryer", kind: "drying" as const, capabilities: ["hot_air_drying", "vacuum_drying"], tankVolumeL: null },
     ],
   },
@@ -39,8 +40,8 @@ export const DEMO_SYSTEMS = [
     kind: "single_chamber_spray" as const,
     description: "One chamber: wash, rinse and hot-air drying in sequence, fed from two tanks.",
     stages: [
-      { name: "Spray wash", kind: "wash" as const, capabilities: ["spray"], tankVolumeL: 400 },
-      { name: "Spray rinse", kind: "rinse" as const, capabilities: ["spray"], tankVolumeL: 400 },
+      { name: "Spray wash", kind: "wash" as const, capabilities: ["spray"], tankVolumeL: 400, filterRatingUm: 50, sprayPressureBar: 5, nozzleSet: "NS-SC1-W" },
+      { name: "Spray rinse", kind: "rinse" as const, capabilities: ["spray"], tankVolumeL: 400, filterRatingUm: 50, sprayPressureBar: 5, nozzleSet: "NS-SC1-W" },
       { name: "Hot-air drying", kind: "drying" as const, capabilities: ["hot_air_drying"], tankVolumeL: null },
     ],
   },

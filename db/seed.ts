@@ -4,19 +4,19 @@ import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
 import { hashPassword } from "@/lib/auth/password";
 import { partFamilySchema } from "@/lib/schemas/part-family";
 import { specSchema } from "@/lib/schemas/spec";
+import { createSystemSchema } from "@/lib/schemas/system";
+import { createSystemIn } from "@/lib/server/systems/create-system";
 import { createPartFamilyIn } from "@/lib/server/plant/create-part-family";
 import { createSpecIn } from "@/lib/server/plant/create-spec";
 import { setUpPlantIn } from "@/lib/server/plant/set-up-plant";
 import { getDb, type Database } from "./client";
 import { seedDemoDocuments } from "./seed-documents";
 import {
-  cleaningSystems,
   recipeParameters,
   recipes,
   recipeStages,
   recipeVersions,
   sites,
-  systemStages,
   userRoles,
   users,
 } from "./schema";
@@ -77,13 +77,8 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
 
     const systemIds = new Map<string, string>();
     for (const s of DEMO_SYSTEMS) {
-      const [sys] = await tx
-        .insert(cleaningSystems)
-        .values({ siteId, code: s.code, name: s.name, kind: s.kind, description: s.description })
-        .returning();
+      const sys = await createSystemIn(tx, SYSTEM_ACTOR, siteId, createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }));
       systemIds.set(s.code, sys.id);
-      await tx.insert(systemStages).values(s.stages.map((st, i) => ({ ...st, systemId: sys.id, position: i + 1 })));
-      await audit({ action: "system.created", recordType: "cleaning_system", recordId: sys.id, new: { code: s.code, name: s.name, stages: s.stages.map((st) => st.name) } });
     }
 
     // Specifications and part families go through the same services and schemas as a plant's own.

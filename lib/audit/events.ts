@@ -34,6 +34,7 @@ export const auditEventSchema = z.discriminatedUnion("action", [
   event("site.created", "site"),
   event("system.created", "cleaning_system"),
   event("system.updated", "cleaning_system"),
+  event("system.retired", "cleaning_system"),
   event("spec.created", "cleanliness_spec"),
   event("spec.revised", "cleanliness_spec"),
   event("spec.superseded", "cleanliness_spec"),
