@@ -28,6 +28,9 @@ export const PARAMETER_KINDS = [
   "drying_temperature",
   "vacuum_pressure",
   "basket_loading",
+  // Loading as structured parameters: the numbered load-pattern sheet and the fixture a basket uses.
+  "load_pattern",
+  "fixture",
   "filter_interval",
   "other",
 ] as const;

@@ -13,6 +13,8 @@ export const UNITS_BY_KIND: Record<ParameterKind, readonly string[]> = {
   drying_temperature: ["°C"],
   vacuum_pressure: ["mbar"],
   basket_loading: ["parts/basket"],
+  load_pattern: ["pattern no."],
+  fixture: ["fixture no."],
   filter_interval: ["h", "d", "cycles"],
   other: [],
 };
@@ -29,6 +31,8 @@ export const PARAMETER_KIND_LABELS: Record<ParameterKind, string> = {
   drying_temperature: "Drying temperature",
   vacuum_pressure: "Vacuum end pressure",
   basket_loading: "Basket loading",
+  load_pattern: "Load pattern",
+  fixture: "Fixture",
   filter_interval: "Filter change interval",
   other: "Other",
 };
@@ -157,6 +161,9 @@ function impossible(p: ParameterCheckInput, value: number, label: string): strin
       return value > 1013 ? `A vacuum is below atmospheric pressure (about 1013 mbar): ${label} ${at}.` : null;
     case "basket_loading":
       return value < 1 || !Number.isInteger(value) ? `Basket loading is a whole number of parts, at least 1: ${label} ${at}.` : null;
+    case "load_pattern":
+    case "fixture":
+      return value < 1 || !Number.isInteger(value) ? `A ${PARAMETER_KIND_LABELS[p.kind].toLowerCase()} is named by its sheet number, a whole number from 1: ${label} ${at}.` : null;
     case "ultrasonic_frequency":
     case "ultrasonic_power":
     case "spray_pressure":
