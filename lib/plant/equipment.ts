@@ -24,22 +24,37 @@ export interface StageProblem {
   message: string;
 }
 
+/** Stages out of process order (wash, rinse, final rinse, drying; "other" anywhere), for washers and recipes alike. */
+export function processOrderProblems(stages: { name: string; kind: string }[]): StageProblem[] {
+  const problems: StageProblem[] = [];
+  let last: { rank: number; index: number } | null = null;
+  stages.forEach((s, index) => {
+    const rank = PROCESS_RANK[s.kind];
+    if (rank === undefined) return;
+    if (last && rank < last.rank) {
+      problems.push({ index, field: "kind", message: `Stage ${index + 1} (${s.name}) is ${KIND_WORDS[s.kind]} after stage ${last.index + 1} (${stages[last.index].name}): stages run wash, rinse, final rinse, drying.` });
+    } else last = { rank, index };
+  });
+  return problems;
+}
+
+/** Each recipe stage must run a mode a stage of the same kind on its washer can run. */
+export function recipeModeProblems(recipeStages: { name: string; kind: string; mode: string | null }[], systemStages: { kind: string; capabilities: string[] }[], systemCode: string): StageProblem[] {
+  return recipeStages.flatMap((s, index): StageProblem[] => {
+    if (s.mode === null) return [];
+    const able = systemStages.some((st) => st.kind === s.kind && st.capabilities.includes(s.mode!));
+    return able ? [] : [{ index, field: "capabilities", message: `Stage ${index + 1} (${s.name}): ${systemCode} has no ${s.kind.replace(/_/g, " ")} stage that can run ${MODE_WORDS[s.mode] ?? s.mode}.` }];
+  });
+}
+
 /**
  * Stages in process order, and each mode with what defines it: an ultrasonic stage its power and
  * frequency, a spray or injection stage its pressure, a drying stage a dryer. "Other" stages
  * (loading, a blow-off) may stand anywhere [practice].
  */
 export function stageProblems(stages: EquipmentStage[]): StageProblem[] {
-  const problems: StageProblem[] = [];
-  let last: { rank: number; index: number } | null = null;
+  const problems: StageProblem[] = processOrderProblems(stages);
   stages.forEach((s, index) => {
-    const rank = PROCESS_RANK[s.kind];
-    if (rank !== undefined) {
-      if (last && rank < last.rank) {
-        problems.push({ index, field: "kind", message: `Stage ${index + 1} (${s.name}) is ${KIND_WORDS[s.kind]} after stage ${last.index + 1} (${stages[last.index].name}): stages run wash, rinse, final rinse, drying.` });
-      }
-      if (!last || rank >= last.rank) last = { rank, index };
-    }
     const has = (mode: string) => s.capabilities.includes(mode);
     if (has("ultrasonic") && (s.ultrasonicPowerW === null || s.ultrasonicFrequencyKHz === null)) {
       problems.push({ index, field: "ultrasonicPowerW", message: `Stage ${index + 1} (${s.name}) runs ultrasonics: give the generator power (W) and frequency (kHz).` });
