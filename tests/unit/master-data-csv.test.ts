@@ -53,7 +53,7 @@ describe("specifications from CSV", () => {
       "CS-CV-07,Check valve,Ostwick Fluid Power,OFP-CL-221,B,A(B-E17/Z12),,,no\n";
     const r = parseMasterDataCsv("specifications", text);
     expect(r.rows).toEqual([]);
-    expect(r.errors).toEqual([{ line: 3, message: expect.stringMatching(/^ccc: "Z" in "Z12" is not a size class.*\(at character 10\)$/) }]);
+    expect(r.errors).toEqual([{ line: 3, message: expect.stringMatching(/^ccc: "Z" in "Z12" is not a size class.*\(at character 9\)$/) }]);
     const ok = parseMasterDataCsv("specifications", text.split("\n").slice(0, 2).join("\n"));
     expect(ok.rows[0]).toMatchObject({ code: "CS-MN-05", gravimetricLimitMg: 3.5, customerApprovesChanges: true });
   });
