@@ -5,8 +5,8 @@ export interface RunCombinationFacts {
   version: number;
   /** The version is qualified for the family. */
   qualified: boolean;
-  /** The run is tied to a change request whose proposal is this version, and the change qualifies the family:
-   * the family is qualified on the version it replaces, or the change adds this family. */
+  /** The version is the proposal of an open change request (the run tied to it or not yet linked), and the change
+   * qualifies the family: the family is qualified on the version it replaces, or the change adds this family. */
   requalifiesIt: boolean;
   /** The run cites a validation protocol written for exactly this recipe version and part family. */
   protocolForIt: boolean;

@@ -13,14 +13,15 @@ export const systemStageSchema = z.object({
   kind: z.enum(STAGE_KINDS, { error: "Choose the kind of stage." }),
   capabilities: z.array(z.enum(STAGE_MODES)).min(1, "Tick at least one mode the stage can run."),
   tankVolumeL: optionalLitres,
-  // Bounds catch typing errors, not process limits [practice]: bag and cartridge filters run about 1–200 µm,
+  // Left out (not undefined-as-empty) means "keep what is stored", so an editor that does not show these fields
+  // cannot erase them. Bounds catch typing errors, not process limits [practice]: bag and cartridge filters run about 1–200 µm,
   // industrial ultrasonic generators up to tens of kW at 20–200 kHz, washer pumps up to a few hundred bar.
-  filterRatingUm: optionalNumber("Filter rating", "µm", { above: 0, max: 1000 }).default(null),
-  ultrasonicPowerW: optionalNumber("Ultrasonic power", "W", { above: 0, max: 100_000 }).default(null),
-  ultrasonicFrequencyKHz: optionalNumber("Ultrasonic frequency", "kHz", { min: 15, max: 400 }).default(null),
-  sprayPressureBar: optionalNumber("Spray pressure", "bar", { above: 0, max: 500 }).default(null),
-  injectionPressureBar: optionalNumber("Injection pressure", "bar", { above: 0, max: 1000 }).default(null),
-  nozzleSet: optionalText(120).default(null),
+  filterRatingUm: optionalNumber("Filter rating", "µm", { above: 0, max: 1000 }).optional(),
+  ultrasonicPowerW: optionalNumber("Ultrasonic power", "W", { above: 0, max: 100_000 }).optional(),
+  ultrasonicFrequencyKHz: optionalNumber("Ultrasonic frequency", "kHz", { min: 15, max: 400 }).optional(),
+  sprayPressureBar: optionalNumber("Spray pressure", "bar", { above: 0, max: 500 }).optional(),
+  injectionPressureBar: optionalNumber("Injection pressure", "bar", { above: 0, max: 1000 }).optional(),
+  nozzleSet: optionalText(120).optional(),
 });
 
 /** A cleaning system and its stages; stages are kept (never deleted) because tank records refer to them. */

@@ -1,6 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { auditEvents, cleanlinessSpecs, documents, partFamilies, recipes, recipeVersions, testRuns, users } from "@/db/schema";
+import { auditEvents, changeRequests, cleanlinessSpecs, documents, partFamilies, recipes, recipeVersions, requalificationIntervals, testRuns, users } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { partFamilySchema, updatePartFamilySchema } from "@/lib/schemas/part-family";
 import { reviseSpecSchema, specSchema } from "@/lib/schemas/spec";
@@ -198,5 +198,21 @@ describe("qualified combinations", () => {
     const [proposed] = await t.db.select().from(recipeVersions).where(eq(recipeVersions.status, "proposed")).limit(1);
     const manifold = await family("PF-MN-05");
     await expect(qualifyCombination(engineer, { recipeVersionId: proposed.id, partFamilyId: manifold.id, basis: "Too early", qualifiedOn: "2026-12-01", intervalMonths: 12 })).rejects.toThrow(/is proposed: it is qualified when the change/);
+  });
+});
+
+describe("runs on a proposed recipe version", () => {
+  it("open for a family the change requalifies, linked or not yet; refused for a family the change does not cover", async () => {
+    const [proposed] = await t.db
+      .select({ v: recipeVersions, from: changeRequests.fromVersionId })
+      .from(changeRequests)
+      .innerJoin(recipeVersions, eq(recipeVersions.id, changeRequests.toVersionId))
+      .where(eq(recipeVersions.status, "proposed"))
+      .limit(1);
+    const [qualified] = await t.db.select().from(requalificationIntervals).where(eq(requalificationIntervals.recipeVersionId, proposed.from!));
+    const input = { recipeVersionId: proposed.v.id, testType: "gravimetric" as const, technicianId, lab: "Larchfield lab", performedOn: "2026-12-02" };
+    await expect(createRun(engineer, { ...input, partFamilyId: qualified.partFamilyId })).resolves.toMatchObject({ recipeVersionId: proposed.v.id });
+    const other = (await t.db.select().from(partFamilies)).find((f) => f.id !== qualified.partFamilyId && f.code !== "PF-MN-05")!;
+    await expect(createRun(engineer, { ...input, partFamilyId: other.id })).rejects.toThrow(`${other.code} is not qualified on`);
   });
 });

@@ -107,6 +107,10 @@ describe("editing a cleaning system", () => {
     const renamed = systemSchema.parse({ systemId: sys.id, name: "Single-chamber spray washer (hall 2)", description: "", stages: stages.map(asTyped) });
     await updateSystem(admin, renamed);
     expect((await t.db.select().from(cleaningSystems).where(eq(cleaningSystems.id, sys.id)))[0].name).toBe("Single-chamber spray washer (hall 2)");
+    // An editor that does not send the equipment fields keeps them rather than erasing them.
+    const withoutEquipment = stages.map((s) => ({ id: s.id, name: s.name, kind: s.kind, capabilities: s.capabilities, tankVolumeL: s.tankVolumeL === null ? "" : String(s.tankVolumeL) }));
+    await updateSystem(admin, systemSchema.parse({ systemId: sys.id, name: "Single-chamber spray washer", description: "", stages: withoutEquipment }));
+    expect((await stagesOf(sys.id)).map((s) => s.filterRatingUm)).toEqual(stages.map((s) => s.filterRatingUm));
   });
 });
 

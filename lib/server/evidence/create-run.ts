@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, notInArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequestAssessments, changeRequests, documents, partFamilies, recipes, recipeVersions, requalificationIntervals, testRuns, userRoles } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
@@ -27,6 +27,15 @@ export async function createRun(actor: { id: string; name: string } & AuditActor
       }
       const [assessment] = await tx.select().from(changeRequestAssessments).where(eq(changeRequestAssessments.changeRequestId, cr.id));
       requalifiesIt = (assessment?.kind === "new_part_family" && assessment.partFamilyId === family.id) || (await qualifiedOn(cr.fromVersionId));
+    }
+    if (!input.changeRequestId && version.status === "proposed") {
+      // Evidence gathered on a proposal before it is linked to its change request still requalifies that change's families.
+      const open = await tx
+        .select({ fromVersionId: changeRequests.fromVersionId, kind: changeRequestAssessments.kind, addsFamily: changeRequestAssessments.partFamilyId })
+        .from(changeRequests)
+        .leftJoin(changeRequestAssessments, eq(changeRequestAssessments.changeRequestId, changeRequests.id))
+        .where(and(eq(changeRequests.toVersionId, version.id), notInArray(changeRequests.status, ["closed", "rejected", "withdrawn"])));
+      for (const cr of open) if ((cr.kind === "new_part_family" && cr.addsFamily === family.id) || (await qualifiedOn(cr.fromVersionId))) requalifiesIt = true;
     }
     let protocolForIt = false;
     if (input.protocolDocumentId) {

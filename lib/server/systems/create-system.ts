@@ -7,7 +7,16 @@ import { stageProblems, type EquipmentStage } from "@/lib/plant/equipment";
 import type { CreateSystemInput } from "@/lib/schemas/system";
 import { UserFacingError } from "@/lib/server/errors";
 
-type StageFields = CreateSystemInput["stages"][number];
+type StageInput = CreateSystemInput["stages"][number];
+const EQUIPMENT = ["filterRatingUm", "ultrasonicPowerW", "ultrasonicFrequencyKHz", "sprayPressureBar", "injectionPressureBar", "nozzleSet"] as const;
+
+/** A stage as typed, with each equipment field left out taken from the stored stage (or empty for a new one). */
+export function completeStage(s: StageInput, stored?: Partial<EquipmentStage>): StageInput & EquipmentStage {
+  const out = { ...s } as Record<string, unknown>;
+  for (const key of EQUIPMENT) if (out[key] === undefined) out[key] = stored?.[key] ?? null;
+  return out as unknown as StageInput & EquipmentStage;
+}
+type StageFields = StageInput & EquipmentStage;
 
 /** Refuses stages out of process order or a mode without what defines it, naming the stage. */
 export function assertStages(stages: StageFields[]) {
@@ -42,7 +51,8 @@ export const stageValues = (s: StageFields, systemId: string, position: number) 
   nozzleSet: s.nozzleSet,
 });
 
-export async function createSystemIn(tx: Tx, actor: AuditActor, siteId: string, input: CreateSystemInput) {
+export async function createSystemIn(tx: Tx, actor: AuditActor, siteId: string, typed: CreateSystemInput) {
+  const input = { ...typed, stages: typed.stages.map((s) => completeStage(s)) };
   assertStages(input.stages);
   const clashes = await tx
     .select({ code: cleaningSystems.code, assetNumber: cleaningSystems.assetNumber })

@@ -6,7 +6,7 @@ import { appendAudit, type AuditActor } from "@/lib/audit";
 import { equipmentImpact } from "@/lib/plant/equipment";
 import type { SystemInput } from "@/lib/schemas/system";
 import { UserFacingError } from "@/lib/server/errors";
-import { assertStages, stageSummary, stageValues } from "./create-system";
+import { assertStages, completeStage, stageSummary, stageValues } from "./create-system";
 import { effectiveRecipesOn } from "./effective-recipes";
 
 /**
@@ -14,12 +14,13 @@ import { effectiveRecipesOn } from "./effective-recipes";
  * after. Once the system runs an effective recipe, its validation rests on the equipment as it
  * was: any change beyond wording is refused here and goes through a change request instead.
  */
-export async function updateSystem(actor: AuditActor, input: SystemInput) {
+export async function updateSystem(actor: AuditActor, typed: SystemInput) {
   await getDb().transaction(async (tx) => {
-    const [system] = await tx.select().from(cleaningSystems).where(eq(cleaningSystems.id, input.systemId));
+    const [system] = await tx.select().from(cleaningSystems).where(eq(cleaningSystems.id, typed.systemId));
     if (!system) throw new UserFacingError("That cleaning system does not exist.");
     if (!system.active) throw new UserFacingError(`${system.code} is retired: it cannot be edited.`);
     const before = (await tx.select().from(systemStages).where(eq(systemStages.systemId, system.id))).sort((a, b) => a.position - b.position);
+    const input = { ...typed, stages: typed.stages.map((s) => completeStage(s, before.find((b) => b.id === s.id))) };
     const kept = input.stages.filter((s) => s.id).map((s) => s.id);
     const missing = before.filter((b) => !kept.includes(b.id));
     if (missing.length) throw new UserFacingError(`Stages are kept once created: ${missing.map((m) => m.name).join(", ")} cannot be removed.`);
