@@ -28,6 +28,9 @@ export const PARAMETER_KINDS = [
   "drying_temperature",
   "vacuum_pressure",
   "basket_loading",
+  // Loading as structured parameters: the numbered load-pattern sheet and the fixture a basket uses.
+  "load_pattern",
+  "fixture",
   "filter_interval",
   "other",
 ] as const;
@@ -47,7 +50,13 @@ export const CHANGE_STATUSES = [
   "withdrawn",
 ] as const;
 
-export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval"] as const;
+export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval", "equipment"] as const;
+
+/** A customer specification revision is in force until a later revision supersedes it. */
+export const SPEC_STATUSES = ["in_force", "superseded"] as const;
+
+/** How a part family's wetted surface area was determined. */
+export const WETTED_AREA_METHODS = ["cad_model", "measured", "calculated", "estimated"] as const;
 
 export const MATRIX_STATUSES = ["effective", "superseded"] as const;
 

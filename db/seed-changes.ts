@@ -6,6 +6,7 @@ import { changeContentHash, narrativeDocument } from "@/lib/changes/content";
 import { assess } from "@/lib/changes/assess";
 import type { RecipeSnapshot } from "@/lib/changes/diff";
 import { DEFAULT_MATRIX, matrixRowLine } from "@/lib/changes/requalification";
+import { qualifyCombinationIn } from "@/lib/server/plant/qualify-combination";
 import { getStore } from "@/lib/storage";
 import type { Tx } from "./client";
 import { loadRecipeSnapshot, writeRecipeContent } from "./recipe-content";
@@ -220,6 +221,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       .values({
         number,
         partFamilyId: fitting.family.id,
+        specId: fitting.spec.id,
         recipeVersionId: sf2.id,
         changeRequestId: major.cr.id,
         testType: req.testType,
@@ -309,13 +311,16 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     return d.toISOString();
   };
   const intervals = [
-    { version: vb[1], partFamilyId: ids.familyIds.get("PF-VB-210")!, lastQualifiedAt: monthsAgo(12, 14) },
-    { version: ph1, partFamilyId: ids.familyIds.get("PF-PH-400")!, lastQualifiedAt: monthsAgo(5) },
-    { version: sf2, partFamilyId: ids.familyIds.get("PF-SF-12")!, lastQualifiedAt: closedAt },
+    { version: vb[1], partFamilyId: ids.familyIds.get("PF-VB-210")!, lastQualifiedAt: monthsAgo(12, 14), basis: "Carried over from v1 by CR-2025-001 (minor change); periodic requalification" },
+    { version: ph1, partFamilyId: ids.familyIds.get("PF-PH-400")!, lastQualifiedAt: monthsAgo(5), basis: "Pump housing PQ and its periodic requalification" },
+    { version: sf2, partFamilyId: ids.familyIds.get("PF-SF-12")!, lastQualifiedAt: closedAt, basis: "Requalified by CR-2026-001" },
   ];
   for (const { version, ...i } of intervals) {
     const [row] = await tx.insert(requalificationIntervals).values({ ...i, recipeVersionId: version.id, intervalMonths: 12 }).returning();
     // The same values closing a change records for the first interval of a validated combination.
     await audit({ eventType: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { recipeVersion: version.version, partFamilyId: i.partFamilyId, intervalMonths: 12, lastQualifiedAt: i.lastQualifiedAt } });
   }
+  // The superseded versions the demo's older runs were made on were qualified in their day too.
+  await qualifyCombinationIn(tx, SYSTEM_ACTOR, { recipeVersionId: vb[0].id, partFamilyId: ids.familyIds.get("PF-VB-210")!, basis: "Valve body PQ (first validation)", qualifiedOn: "2025-03-10", intervalMonths: 12 });
+  await qualifyCombinationIn(tx, SYSTEM_ACTOR, { recipeVersionId: sf1.id, partFamilyId: ids.familyIds.get("PF-SF-12")!, basis: "Fitting PQ (first validation)", qualifiedOn: "2025-06-02", intervalMonths: 12 });
 }

@@ -16,8 +16,11 @@ export const DEMO_USERS: { name: string; email: string; jobTitle: string; roles:
   { name: "Margit Olsen", email: "auditor@fennmoor.example", jobTitle: "Customer quality auditor", roles: ["auditor"] },
 ];
 
+export const DEMO_COMPANY = "Fennmoor Fluidtech";
+
 export const DEMO_SITE = { name: "Fennmoor Fluidtech — Larchfield plant", location: "Larchfield" };
 
+/** Equipment figures are invented but plausible (about 10 W/L of ultrasonics, 3–15 bar pumps) [practice]. */
 export const DEMO_SYSTEMS = [
   {
     code: "AW-3",
@@ -25,9 +28,9 @@ export const DEMO_SYSTEMS = [
     kind: "multi_tank_aqueous" as const,
     description: "Alkaline ultrasonic wash with spray, flood and bore injection; tap-water rinse; deionised final rinse; hot-air and vacuum drying.",
     stages: [
-      { name: "Tank 1 — alkaline wash", kind: "wash" as const, capabilities: ["ultrasonic", "spray", "flood", "injection"], tankVolumeL: 900 },
-      { name: "Tank 2 — rinse", kind: "rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800 },
-      { name: "Tank 3 — deionised final rinse", kind: "final_rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800 },
+      { name: "Tank 1 — alkaline wash", kind: "wash" as const, capabilities: ["ultrasonic", "spray", "flood", "injection"], tankVolumeL: 900, filterRatingUm: 25, ultrasonicPowerW: 9000, ultrasonicFrequencyKHz: 40, sprayPressureBar: 4, injectionPressureBar: 15, nozzleSet: "NS-AW3-1A" },
+      { name: "Tank 2 — rinse", kind: "rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800, filterRatingUm: 50, sprayPressureBar: 4, nozzleSet: "NS-AW3-2A" },
+      { name: "Tank 3 — deionised final rinse", kind: "final_rinse" as const, capabilities: ["spray", "flood"], tankVolumeL: 800, filterRatingUm: 10, sprayPressureBar: 3, nozzleSet: "NS-AW3-3A" },
       { name: "Dryer", kind: "drying" as const, capabilities: ["hot_air_drying", "vacuum_drying"], tankVolumeL: null },
     ],
   },
@@ -37,8 +40,8 @@ export const DEMO_SYSTEMS = [
     kind: "single_chamber_spray" as const,
     description: "One chamber: wash, rinse and hot-air drying in sequence, fed from two tanks.",
     stages: [
-      { name: "Spray wash", kind: "wash" as const, capabilities: ["spray"], tankVolumeL: 400 },
-      { name: "Spray rinse", kind: "rinse" as const, capabilities: ["spray"], tankVolumeL: 400 },
+      { name: "Spray wash", kind: "wash" as const, capabilities: ["spray"], tankVolumeL: 400, filterRatingUm: 50, sprayPressureBar: 5, nozzleSet: "NS-SC1-W" },
+      { name: "Spray rinse", kind: "rinse" as const, capabilities: ["spray"], tankVolumeL: 400, filterRatingUm: 50, sprayPressureBar: 5, nozzleSet: "NS-SC1-W" },
       { name: "Hot-air drying", kind: "drying" as const, capabilities: ["hot_air_drying"], tankVolumeL: null },
     ],
   },
@@ -48,6 +51,11 @@ export const DEMO_SPECS = [
   {
     code: "CS-VB-01",
     name: "Valve body, fuel-system grade",
+    customer: "Harrowgate Injection Systems",
+    documentNumber: "HIS-TC-0412",
+    revision: "C",
+    extraRequirements: "Report per VDA 19.1 with membrane images of the three largest particles.",
+    customerApprovesChanges: true,
     ccc: "A(B-D18/E15/F13/G11/H9/I-J3/K-N00)",
     maxMetallicUm: 400,
     maxNonMetallicUm: 600,
@@ -61,6 +69,11 @@ export const DEMO_SPECS = [
   {
     code: "CS-PH-02",
     name: "Pump housing, hydraulic grade",
+    customer: "Brackenfold Hydraulics",
+    documentNumber: "BH-QS-77",
+    revision: "2",
+    extraRequirements: null,
+    customerApprovesChanges: false,
     ccc: "A(C-E17/F-G14/H-I6/J2/K-N00)",
     maxMetallicUm: 600,
     maxNonMetallicUm: 1000,
@@ -74,6 +87,11 @@ export const DEMO_SPECS = [
   {
     code: "CS-SF-03",
     name: "Small fitting, per-component limits",
+    customer: "Brackenfold Hydraulics",
+    documentNumber: "BH-QS-81",
+    revision: "1",
+    extraRequirements: null,
+    customerApprovesChanges: false,
     ccc: "N(C-E2000/F-G120/H-I8/J-N0)",
     maxMetallicUm: 400,
     maxNonMetallicUm: 600,
@@ -87,9 +105,9 @@ export const DEMO_SPECS = [
 ];
 
 export const DEMO_PART_FAMILIES = [
-  { code: "PF-VB-210", name: "Valve body VB-210", material: "Aluminium EN AC-46000, machined", wettedAreaCm2: 420, wettedVolumeCm3: 35, spec: "CS-VB-01" },
-  { code: "PF-PH-400", name: "Pump housing PH-400", material: "Grey cast iron EN-GJL-250", wettedAreaCm2: 1850, wettedVolumeCm3: 260, spec: "CS-PH-02" },
-  { code: "PF-SF-12", name: "Straight fitting SF-12", material: "Stainless steel 1.4305", wettedAreaCm2: 38, wettedVolumeCm3: 2.5, spec: "CS-SF-03" },
+  { code: "PF-VB-210", name: "Valve body VB-210", partNumbers: ["VB-210-01", "VB-210-02"], material: "Aluminium EN AC-46000, machined", wettedAreaCm2: 420, wettedAreaMethod: "cad_model" as const, wettedVolumeCm3: 35, drawingNumber: "D-VB-210", drawingRevision: "F", customer: "Harrowgate Injection Systems", spec: "CS-VB-01" },
+  { code: "PF-PH-400", name: "Pump housing PH-400", partNumbers: ["PH-400-11"], material: "Grey cast iron EN-GJL-250", wettedAreaCm2: 1850, wettedAreaMethod: "cad_model" as const, wettedVolumeCm3: 260, drawingNumber: "D-PH-400", drawingRevision: "C", customer: "Brackenfold Hydraulics", spec: "CS-PH-02" },
+  { code: "PF-SF-12", name: "Straight fitting SF-12", partNumbers: ["SF-12-M12", "SF-12-M14"], material: "Stainless steel 1.4305", wettedAreaCm2: 38, wettedAreaMethod: "calculated" as const, wettedVolumeCm3: 2.5, drawingNumber: "D-SF-12", drawingRevision: "B", customer: "Brackenfold Hydraulics", spec: "CS-SF-03" },
 ];
 
 type P = { key: string; name: string; kind: ParameterKind; setpoint: number; unit: string; low: number | null; high: number | null; critical?: boolean };

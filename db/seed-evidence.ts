@@ -239,6 +239,7 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
         number: `TR-${String(n).padStart(4, "0")}`,
         partFamilyId: family.id,
         recipeVersionId: version.id,
+        specId: spec.id,
         testType: demo.testType,
         status: demo.status,
         outcome: computed.outcome,

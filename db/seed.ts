@@ -1,25 +1,28 @@
-import { eq } from "drizzle-orm";
+import { count, eq } from "drizzle-orm";
 import { pathToFileURL } from "node:url";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
 import { hashPassword } from "@/lib/auth/password";
+import { partFamilySchema } from "@/lib/schemas/part-family";
+import { specSchema } from "@/lib/schemas/spec";
+import { createSystemSchema } from "@/lib/schemas/system";
+import { createSystemIn } from "@/lib/server/systems/create-system";
+import { createPartFamilyIn } from "@/lib/server/plant/create-part-family";
+import { createSpecIn } from "@/lib/server/plant/create-spec";
+import { setUpPlantIn } from "@/lib/server/plant/set-up-plant";
 import { getDb, type Database } from "./client";
 import { seedDemoDocuments } from "./seed-documents";
 import {
-  cleaningSystems,
-  cleanlinessSpecs,
-  partFamilies,
   recipeParameters,
   recipes,
   recipeStages,
   recipeVersions,
   sites,
-  systemStages,
   userRoles,
   users,
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
 import { seedChangeControl } from "./seed-changes";
-import { DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
+import { DEMO_COMPANY, DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
 
 /**
  * Loads the invented demo scenario. Idempotent: a database that already holds
@@ -32,10 +35,33 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
   // Hash outside the transaction: argon2 is deliberately slow.
   const hashes = await Promise.all(DEMO_USERS.map(() => hashPassword(DEMO_PASSWORD)));
 
+  const [{ n: existingUsers }] = await db.select({ n: count() }).from(users);
+
   await db.transaction(async (tx) => {
     const audit = (input: Parameters<typeof appendAudit>[2]) => appendAudit(tx, SYSTEM_ACTOR, input);
     const userIds = new Map<string, string>();
+    // An empty installation is set up the way a plant sets itself up: first administrator, company, site.
+    const firstAdmin = DEMO_USERS.find((u) => u.roles.includes("admin"))!;
+    let siteId: string;
+    if (existingUsers === 0) {
+      const setUp = await setUpPlantIn(tx, {
+        companyName: DEMO_COMPANY,
+        siteName: DEMO_SITE.name,
+        siteLocation: DEMO_SITE.location,
+        adminName: firstAdmin.name,
+        adminEmail: firstAdmin.email,
+        jobTitle: firstAdmin.jobTitle,
+        passwordHash: hashes[DEMO_USERS.indexOf(firstAdmin)],
+      });
+      userIds.set(firstAdmin.email, setUp.adminId);
+      siteId = setUp.siteId;
+    } else {
+      const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
+      await audit({ eventType: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
+      siteId = site.id;
+    }
     for (const [i, u] of DEMO_USERS.entries()) {
+      if (userIds.has(u.email)) continue;
       const [row] = await tx
         .insert(users)
         .values({ name: u.name, email: u.email, jobTitle: u.jobTitle, passwordHash: hashes[i] })
@@ -48,33 +74,25 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     }
     const engineerId = userIds.get("engineer@fennmoor.example") ?? null;
 
-    const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
-    await audit({ eventType: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
 
     const systemIds = new Map<string, string>();
     for (const s of DEMO_SYSTEMS) {
-      const [sys] = await tx
-        .insert(cleaningSystems)
-        .values({ siteId: site.id, code: s.code, name: s.name, kind: s.kind, description: s.description })
-        .returning();
+      const sys = await createSystemIn(tx, SYSTEM_ACTOR, siteId, createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }));
       systemIds.set(s.code, sys.id);
-      await tx.insert(systemStages).values(s.stages.map((st, i) => ({ ...st, systemId: sys.id, position: i + 1 })));
-      await audit({ eventType: "cleaning_system.created", recordType: "cleaning_system", recordId: sys.id, new: { code: s.code, name: s.name, stages: s.stages.map((st) => st.name) } });
     }
 
+    // Specifications and part families go through the same services and schemas as a plant's own.
     const specIds = new Map<string, string>();
     for (const spec of DEMO_SPECS) {
-      const [row] = await tx.insert(cleanlinessSpecs).values(spec).returning();
+      const row = await createSpecIn(tx, SYSTEM_ACTOR, specSchema.parse(spec));
       specIds.set(spec.code, row.id);
-      await audit({ eventType: "cleanliness_spec.created", recordType: "cleanliness_spec", recordId: row.id, new: spec });
     }
 
     const familyIds = new Map<string, string>();
     for (const pf of DEMO_PART_FAMILIES) {
       const { spec, ...fields } = pf;
-      const [row] = await tx.insert(partFamilies).values({ ...fields, specId: specIds.get(spec)! }).returning();
+      const row = await createPartFamilyIn(tx, SYSTEM_ACTOR, partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }));
       familyIds.set(pf.code, row.id);
-      await audit({ eventType: "part_family.created", recordType: "part_family", recordId: row.id, new: pf });
     }
 
     const recipeIds = new Map<string, string>();

@@ -1,13 +1,17 @@
 /**
  * One command for a fresh machine: migrate, load the demo scenario, build, and
  * serve Washproof at http://localhost:3000 on the embedded SQLite database.
+ * With `--empty` (`npm run start:empty`) it loads no demo data and serves a plant's own
+ * database, data/plant.db, kept apart from the demo's; `npm run admin:create` sets it up.
  */
 import { spawn, spawnSync } from "node:child_process";
 import { resolve } from "node:path";
+import { PLANT_DATABASE_FILE, PLANT_UPLOAD_DIR } from "./plant-paths";
 
-process.env.DATABASE_URL ??= `file:${resolve("data/washproof.db")}`;
-process.env.UPLOAD_DIR ??= resolve("data/uploads");
-process.env.DEMO_MODE ??= "true";
+const empty = process.argv.includes("--empty");
+process.env.DATABASE_URL ??= `file:${resolve(empty ? PLANT_DATABASE_FILE : "data/washproof.db")}`;
+process.env.UPLOAD_DIR ??= resolve(empty ? PLANT_UPLOAD_DIR : "data/uploads");
+process.env.DEMO_MODE ??= empty ? "false" : "true";
 process.env.NEXT_TELEMETRY_DISABLED = "1";
 const port = process.env.PORT ?? "3000";
 process.env.APP_URL ??= `http://localhost:${port}`;
@@ -18,11 +22,17 @@ process.env.SMTP_URL ??= `smtp://127.0.0.1:${smtpPort}`;
 const { openDatabase } = await import("@/db/client");
 const { migrateDatabase } = await import("@/db/migrate");
 const { seedDemo } = await import("@/db/seed");
+const { users } = await import("@/db/schema");
 const { db, client } = openDatabase(process.env.DATABASE_URL);
 await migrateDatabase(db, client);
-const { seeded } = await seedDemo(db);
+if (empty) {
+  const someone = await db.select({ id: users.id }).from(users).limit(1);
+  console.log(someone.length ? "Starting without demo data." : "Starting without demo data. No one can sign in yet: create the first administrator with `npm run admin:create`.");
+} else {
+  const { seeded } = await seedDemo(db);
+  console.log(seeded ? "Demo data loaded." : "Demo data already present.");
+}
 client.close();
-console.log(seeded ? "Demo data loaded." : "Demo data already present.");
 
 const { startFakeSmtpServer } = await import("@/lib/email/fake-smtp-server");
 await startFakeSmtpServer({ port: smtpPort, mailboxFile: process.env.MAILBOX_FILE });
@@ -36,8 +46,10 @@ const build = spawnSync("npx", ["next", "build"], { stdio: "inherit", env: proce
 if (build.status !== 0) process.exit(build.status ?? 1);
 
 console.log(`\nWashproof is starting at http://localhost:${port}`);
-console.log("Demo sign-ins: admin@, engineer@, reviewer@, approver@, technician@, auditor@fennmoor.example");
-console.log("Password for all of them: Washproof-demo-2026\n");
+if (!empty) {
+  console.log("Demo sign-ins: admin@, engineer@, reviewer@, approver@, technician@, auditor@fennmoor.example");
+  console.log("Password for all of them: Washproof-demo-2026\n");
+}
 const server = spawn("npx", ["next", "start", "-p", port], { stdio: "inherit", env: process.env });
 for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => server.kill(signal));
 server.on("exit", (code) => process.exit(code ?? 0));

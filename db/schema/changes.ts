@@ -113,7 +113,11 @@ export const changeRequestEvidence = sqliteTable(
 );
 export type ChangeRequestEvidence = typeof changeRequestEvidence.$inferSelect;
 
-/** Each validated recipe version × part family and how often it must be requalified. */
+/**
+ * The qualified combinations: each recipe version validated for a part family, and how often it
+ * must be requalified. A run is opened only on one of these (or on the change or the validation
+ * protocol that qualifies one); closing a change carries them to the new version.
+ */
 export const requalificationIntervals = sqliteTable(
   "requalification_intervals",
   {
@@ -122,6 +126,9 @@ export const requalificationIntervals = sqliteTable(
     partFamilyId: text("part_family_id").notNull().references(() => partFamilies.id),
     intervalMonths: integer("interval_months").notNull().default(12),
     lastQualifiedAt: text("last_qualified_at").notNull(),
+    /** What proves the qualification (validation report, change request, run numbers), in words; null when carried over by a change. */
+    basis: text("basis"),
+    qualifiedBy: text("qualified_by").references(() => users.id),
     /** The due date a reminder was last e-mailed for, so each is sent once. */
     notifiedForDue: text("notified_for_due"),
     createdAt: createdAt(),

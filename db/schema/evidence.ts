@@ -3,7 +3,7 @@ import { TEST_TYPES, RUN_STATUSES, OUTCOMES, EVIDENCE_FILE_KINDS } from "../enum
 import { bool, createdAt, id } from "./columns";
 import { changeRequests } from "./changes";
 import { documents } from "./documents";
-import { partFamilies } from "./parts";
+import { cleanlinessSpecs, partFamilies } from "./parts";
 import { users } from "./people";
 import { recipeVersions } from "./recipes";
 
@@ -18,6 +18,8 @@ export const testRuns = sqliteTable(
     number: text("number").notNull(),
     partFamilyId: text("part_family_id").notNull().references(() => partFamilies.id),
     recipeVersionId: text("recipe_version_id").notNull().references(() => recipeVersions.id),
+    /** The specification revision in force when the run was opened: a later revision never re-judges it. */
+    specId: text("spec_id").references(() => cleanlinessSpecs.id),
     changeRequestId: text("change_request_id").references(() => changeRequests.id),
     protocolDocumentId: text("protocol_document_id").references(() => documents.id),
     testType: text("test_type", { enum: TEST_TYPES }).notNull(),

@@ -70,3 +70,4 @@ export const recipeParameters = sqliteTable(
   (t) => [uniqueIndex("recipe_parameters_key_uq").on(t.versionId, t.key), index("recipe_parameters_key_idx").on(t.key)],
 );
 export type RecipeParameter = typeof recipeParameters.$inferSelect;
+

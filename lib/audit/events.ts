@@ -73,6 +73,44 @@ function event<
  * document, change). A renamed type keeps its old name in LEGACY_EVENT_TYPES
  * (./read.ts), because stored events are never rewritten.
  */
+/** A part family as its services record it. */
+const familyDetails = obj({
+  code: text,
+  name: text,
+  partNumbers: z.array(text),
+  material: text,
+  wettedAreaCm2: z.number(),
+  wettedAreaMethod: text.nullable(),
+  wettedAreaNote: text.nullable(),
+  wettedVolumeCm3: z.number().nullable(),
+  drawingNumber: text.nullable(),
+  drawingRevision: text.nullable(),
+  customer: text.nullable(),
+  specification: text,
+  description: text.nullable(),
+});
+
+/** One revision of a customer's cleanliness specification as its services record it. */
+const specDetails = obj({
+  code: text,
+  name: text,
+  customer: text.nullable(),
+  documentNumber: text.nullable(),
+  revision: text,
+  sourceFileId: text.nullable(),
+  ccc: text.nullable(),
+  maxMetallicUm: z.number().nullable(),
+  maxNonMetallicUm: z.number().nullable(),
+  maxFibreUm: z.number().nullable(),
+  gravimetricLimitMg: z.number().nullable(),
+  gravimetricBasis: z.enum(["per_component", "per_1000_cm2"]).nullable(),
+  minWettingTensionMNm: z.number().nullable(),
+  visualCriteria: text.nullable(),
+  drynessCriteria: text.nullable(),
+  extraRequirements: text.nullable(),
+  customerApprovesChanges: z.boolean(),
+});
+
 export const auditEventSchema = z.discriminatedUnion("eventType", [
   // Accounts
   event("auth.signed_in", "user"),
@@ -107,17 +145,31 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   }),
   event("user.password_reset", "user", { new: obj({ mustChangePassword: z.literal(true), suspendedApiTokens: z.array(text).optional() }) }),
   // Plant, parts and recipes
+  event("company.set_up", "company", { new: obj({ companyName: text }) }),
   event("site.created", "site", { new: obj({ name: text, location: text.nullable() }) }),
   event("cleaning_system.created", "cleaning_system", {
-    new: obj({ code: text, name: text, stages: z.array(text) }),
+    new: z.union([
+      obj({ code: text, assetNumber: text.nullable(), name: text, kind: text, description: text.nullable(), stages: z.array(text) }),
+      // Before asset numbers and kinds were recorded.
+      obj({ code: text, name: text, stages: z.array(text) }),
+    ]),
+  }),
+  event("cleaning_system.retired", "cleaning_system", {
+    old: obj({ active: z.literal(true) }),
+    new: obj({ active: z.literal(false), retiredAt: isoTime }),
   }),
   event("cleaning_system.updated", "cleaning_system", {
     // Each stage as one line: "name (kind; capabilities; volume)".
     old: obj({ name: text, description: text.nullable(), stages: z.array(text) }),
     new: obj({ name: text, description: text.nullable(), stages: z.array(text) }),
   }),
+  event("cleanliness_spec.revised", "cleanliness_spec", { old: specDetails, new: specDetails }),
+  event("cleanliness_spec.superseded", "cleanliness_spec", {
+    old: obj({ status: z.literal("in_force") }),
+    new: obj({ status: z.literal("superseded"), by: text }),
+  }),
   event("cleanliness_spec.created", "cleanliness_spec", {
-    new: obj({
+    new: specDetails.or(obj({
       code: text,
       name: text,
       ccc: text.nullable(),
@@ -139,21 +191,35 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       minWettingTensionMNm: true,
       visualCriteria: true,
       drynessCriteria: true,
-    }),
+    })),
+  }),
+  event("part_family.updated", "part_family", {
+    // A whole edit, or only the specification a new revision moved it to.
+    old: familyDetails.or(obj({ specification: text })),
+    new: familyDetails.or(obj({ specification: text })),
   }),
   event("part_family.created", "part_family", {
-    new: obj({
+    new: familyDetails.or(obj({
       code: text,
       name: text,
       material: text,
       wettedAreaCm2: z.number(),
       wettedVolumeCm3: z.number().nullable(),
       spec: text,
-    }),
+    })),
   }),
-  event("recipe.created", "recipe", { new: obj({ code: text, name: text }) }),
+  event("combination.qualified", "requalification_interval", {
+    new: obj({ combination: text, basis: text, qualifiedOn: text, intervalMonths: count }),
+  }),
+  event("recipe.created", "recipe", {
+    new: obj({ code: text, name: text, system: text, description: text.nullable() }).or(obj({ code: text, name: text })),
+  }),
   event("recipe_version.created", "recipe_version", {
-    new: obj({ recipe: text, version, notes: text.nullable() }),
+    new: z.union([
+      // A new recipe's first version, with its whole content as entered.
+      obj({ recipe: text, version, status: z.literal("draft"), content: z.record(z.string(), z.unknown()) }),
+      obj({ recipe: text, version, notes: text.nullable() }),
+    ]),
   }),
   event("recipe_version.proposed", "recipe_version", {
     new: obj({ recipe: text, version, copiedFrom: version, changeRequest: text }),

@@ -1,5 +1,5 @@
 import { diffRecipes, IMPACT_ORDER, maxImpact, type Impact, type RecipeDiff, type RecipeSnapshot } from "./diff";
-import { requiredTests, triggersOf, type ImpactTrigger, type MatrixRow, type RequiredTest } from "./requalification";
+import { parameterTriggers, requiredTests, triggersOf, type ImpactTrigger, type MatrixRow, type RequiredTest } from "./requalification";
 
 export interface Assessment {
   diff: RecipeDiff;
@@ -31,7 +31,7 @@ export function assess(input: {
   // Raised to major by judgement with no major row: every changed parameter calls up its tests.
   if (impact === "major" && triggers.length === 0) {
     for (const p of diff.parameters.filter((r) => r.change !== "unchanged")) {
-      triggers.push({ subject: `parameter:${p.kind}`, reason: `${p.stage} · ${p.name}: raised to major by the engineer.` });
+      triggers.push(...parameterTriggers(p, `${p.stage} · ${p.name}: raised to major by the engineer.`));
     }
   }
   return { diff, computed, impact, triggers, tests: impact === "major" ? requiredTests(triggers, input.matrix) : [] };

@@ -38,6 +38,8 @@ export interface ParameterRow {
   name: string;
   kind: ParameterKind;
   stage: string;
+  /** The kind of stage the parameter sits in, so the matrix can key by stage and kind. */
+  stageKind?: string;
   change: "unchanged" | "changed" | "added" | "removed";
   old: ParameterSnapshot | null;
   new: ParameterSnapshot | null;
@@ -169,11 +171,14 @@ export function diffRecipes(oldV: RecipeSnapshot, newV: RecipeSnapshot): RecipeD
     }
   }
 
-  const oldParams = new Map(oldV.stages.flatMap((s) => s.parameters.map((p) => [p.key, { p, stage: s.name }] as const)));
-  const newParams = new Map(newV.stages.flatMap((s) => s.parameters.map((p) => [p.key, { p, stage: s.name }] as const)));
+  const oldParams = new Map(oldV.stages.flatMap((s) => s.parameters.map((p) => [p.key, { p, stage: s.name, stageKind: s.kind }] as const)));
+  const newParams = new Map(newV.stages.flatMap((s) => s.parameters.map((p) => [p.key, { p, stage: s.name, stageKind: s.kind }] as const)));
   const parameters: ParameterRow[] = [];
-  for (const [key, { p, stage }] of oldParams) parameters.push(compareParameter(p, newParams.get(key)?.p ?? null, newParams.get(key)?.stage ?? stage));
-  for (const [key, { p, stage }] of newParams) if (!oldParams.has(key)) parameters.push(compareParameter(null, p, stage));
+  for (const [key, { p, stage, stageKind }] of oldParams) {
+    const next = newParams.get(key);
+    parameters.push({ ...compareParameter(p, next?.p ?? null, next?.stage ?? stage), stageKind: next?.stageKind ?? stageKind });
+  }
+  for (const [key, { p, stage, stageKind }] of newParams) if (!oldParams.has(key)) parameters.push({ ...compareParameter(null, p, stage), stageKind });
 
   const texts = [textRow("detergent", oldV.detergent, newV.detergent), textRow("notes", oldV.notes, newV.notes)].filter((t): t is TextRow => t !== null);
   const impact = maxImpact(...parameters.map((p) => p.impact), ...stages.map((s) => s.impact), ...texts.map((t) => t.impact));

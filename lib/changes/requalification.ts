@@ -35,11 +35,18 @@ export interface ImpactTrigger {
   reason: string;
 }
 
+/** A changed parameter calls up the rows for its kind anywhere and for its kind in its kind of stage. */
+export function parameterTriggers(p: Pick<RecipeDiff["parameters"][number], "kind" | "stageKind">, reason: string): ImpactTrigger[] {
+  const triggers: ImpactTrigger[] = [{ subject: `parameter:${p.kind}`, reason }];
+  if (p.stageKind) triggers.push({ subject: `parameter:${p.stageKind}:${p.kind}` as MatrixSubject, reason });
+  return triggers;
+}
+
 /** The major changes of a diff, each as the matrix subject it calls up. */
 export function triggersOf(diff: RecipeDiff, extra: ImpactTrigger[] = []): ImpactTrigger[] {
   const triggers: ImpactTrigger[] = [];
   for (const p of diff.parameters) {
-    if (p.impact === "major") triggers.push({ subject: `parameter:${p.kind}`, reason: `${p.stage} · ${p.name}: ${p.reasons.join(" ")}` });
+    if (p.impact === "major") triggers.push(...parameterTriggers(p, `${p.stage} · ${p.name}: ${p.reasons.join(" ")}`));
   }
   for (const s of diff.stages) {
     if (s.impact === "major") triggers.push({ subject: `stage:${s.kind as (typeof STAGE_KINDS)[number]}`, reason: s.reason });
@@ -88,7 +95,12 @@ export const DEFAULT_MATRIX: MatrixRow[] = [
   ...(["parameter:drying_temperature", "parameter:vacuum_pressure", "stage:drying"] as const).flatMap((subject) =>
     (["dryness", "visual"] as const).map((testType) => ({ subject, testType, confidencePct: 95, reliabilityPct: 90 })),
   ),
-  { subject: "parameter:basket_loading", testType: "particle_cleanliness", confidencePct: 95, reliabilityPct: 90 },
+  // Drying is judged by dryness and stains whichever of its parameters moves, time included.
+  ...(["parameter:drying:time", "parameter:drying:other"] as const).flatMap((subject) =>
+    (["dryness", "visual"] as const).map((testType) => ({ subject, testType, confidencePct: 95, reliabilityPct: 90 })),
+  ),
+  // Loading: cleanliness at the worst-case basket position.
+  ...(["parameter:basket_loading", "parameter:load_pattern", "parameter:fixture"] as const).map((subject) => ({ subject, testType: "particle_cleanliness" as const, confidencePct: 95, reliabilityPct: 90 })),
   { subject: "parameter:filter_interval", testType: "particle_cleanliness", confidencePct: 95, reliabilityPct: 90 },
   { subject: "parameter:other", testType: "particle_cleanliness", confidencePct: 95, reliabilityPct: 90 },
   { subject: "stage:other", testType: "particle_cleanliness", confidencePct: 95, reliabilityPct: 90 },

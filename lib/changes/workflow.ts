@@ -62,4 +62,5 @@ export const CHANGE_KIND_LABELS: Record<ChangeKind, string> = {
   new_detergent: "New detergent",
   new_part_family: "New part family on the recipe",
   maintenance_interval: "Maintenance-interval change",
+  equipment: "Equipment change on the cleaning system",
 };

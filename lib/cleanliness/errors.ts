@@ -15,4 +15,11 @@ export class CleanlinessInputError extends RangeError {
 /** Raised by `parseCleanlinessSpec` for text that is not a valid specification in CCC notation. */
 export class CleanlinessSpecError extends CleanlinessInputError {
   name = "CleanlinessSpecError";
+  /** 1-based character position in the text as typed (spaces counted), when one can be named. */
+  readonly position: number | undefined;
+
+  constructor(message: string, field?: string, position?: number) {
+    super(position === undefined ? message : `${message} (at character ${position})`, field);
+    this.position = position;
+  }
 }

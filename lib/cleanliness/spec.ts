@@ -65,34 +65,36 @@ const NUMBER = /^\d+(?:\.\d+)?$/;
 export function parseCleanlinessSpec(code: string): CleanlinessSpec {
   if (typeof code !== "string")
     throw new CleanlinessSpecError("A specification must be text.", "spec");
+  // Spaces are ignored, but a position is reported in the text as typed, so keep where each kept character was.
+  const where: number[] = [];
+  for (let i = 0; i < code.length; i++) if (!/\s/.test(code[i])) where.push(i);
   const text = code.replace(/\s+/g, "");
+  const fail = (message: string, at: number): never => {
+    const original = at < where.length ? where[at] : code.length;
+    throw new CleanlinessSpecError(message, "spec", original + 1);
+  };
   const outer = /^([A-Za-z])\((.*)\)$/.exec(text);
   if (!outer) {
-    throw new CleanlinessSpecError(
-      `"${code}" is not in CCC notation: a letter A, V or N, then the limits in brackets (${EXAMPLE}).`,
-      "spec",
-    );
+    const at = !/^[A-Za-z]/.test(text) ? 0 : text[1] !== "(" ? 1 : text.endsWith(")") ? text.indexOf(")") + 1 : text.length;
+    fail(`"${code}" is not in CCC notation: a letter A, V or N, then the limits in brackets (${EXAMPLE}).`, at);
   }
-  const prefix = outer[1];
+  const [, prefix, body] = outer!;
   const basis = PREFIX_BASIS[prefix];
   if (basis === undefined) {
-    throw new CleanlinessSpecError(
-      `"${prefix}" is not a specification prefix: use A (per 1000 cm²), V (per 100 cm³) or N (per component).`,
-      "spec",
-    );
+    fail(`"${prefix}" is not a specification prefix: use A (per 1000 cm²), V (per 100 cm³) or N (per component).`, 0);
   }
-  if (outer[2] === "") throw new CleanlinessSpecError("The specification lists no limits.", "spec");
+  if (body === "") fail("The specification lists no limits.", 2);
 
   const used = new Map<SizeClassKey, string>();
-  const groups = outer[2].split("/").map((part) => {
-    const group = parseGroup(part, prefix as "A" | "V" | "N");
+  let offset = 2;
+  const groups = body.split("/").map((part) => {
+    const start = offset;
+    offset += part.length + 1;
+    const group = parseGroup(part, prefix as "A" | "V" | "N", (message, at) => fail(message, start + at));
     for (const key of group.classes) {
       const earlier = used.get(key);
       if (earlier !== undefined) {
-        throw new CleanlinessSpecError(
-          `Class ${key} is limited twice ("${earlier}" and "${part}"); each class may appear once.`,
-          "spec",
-        );
+        fail(`Class ${key} is limited twice ("${earlier}" and "${part}"); each class may appear once.`, start);
       }
       used.set(key, part);
     }
@@ -101,27 +103,25 @@ export function parseCleanlinessSpec(code: string): CleanlinessSpec {
   return Object.freeze({
     text: `${prefix}(${groups.map((g) => g.text).join("/")})`,
     prefix: prefix as "A" | "V" | "N",
-    basis,
+    basis: basis!,
     groups: Object.freeze(groups),
   });
 }
 
-function parseGroup(part: string, prefix: "A" | "V" | "N"): SpecGroup {
-  if (part === "") throw new CleanlinessSpecError("Empty limit between two slashes.", "spec");
+/** `fail` throws with the position inside the group, counted from the group's first character. */
+function parseGroup(part: string, prefix: "A" | "V" | "N", fail: (message: string, at: number) => never): SpecGroup {
+  if (part === "") fail("Empty limit between two slashes.", 0);
   const match = /^([A-Za-z]+)(?:-([A-Za-z]+))?(.*)$/.exec(part);
   if (!match) {
-    throw new CleanlinessSpecError(
-      `"${part}" must start with size-class letters (B…N), then the ${prefix === "N" ? "count" : "level"}.`,
-      "spec",
-    );
+    fail(`"${part}" must start with size-class letters (B…N), then the ${prefix === "N" ? "count" : "level"}.`, 0);
   }
-  const [, first, second, valueText] = match;
-  for (const letter of first + (second ?? "")) {
+  const [, first, second, valueText] = match!;
+  const valueAt = part.length - valueText.length;
+  const letters = first + (second ?? "");
+  for (let i = 0; i < letters.length; i++) {
+    const letter = letters[i];
     if (sizeClassIndex(letter) < 0) {
-      throw new CleanlinessSpecError(
-        `"${letter}" in "${part}" is not a size class; use the capital letters B…N.`,
-        "spec",
-      );
+      fail(`"${letter}" in "${part}" is not a size class; use the capital letters B…N.`, i < first.length ? i : i + 1);
     }
   }
 
@@ -129,17 +129,14 @@ function parseGroup(part: string, prefix: "A" | "V" | "N"): SpecGroup {
   const joined = second !== undefined;
   if (joined) {
     if (first.length !== 1 || second.length !== 1) {
-      throw new CleanlinessSpecError(
-        `"${part}": a hyphen joins exactly two letters, the first and last class of the range.`,
-        "spec",
-      );
+      fail(`"${part}": a hyphen joins exactly two letters, the first and last class of the range.`, 0);
     }
     const from = sizeClassIndex(first);
     const to = sizeClassIndex(second);
     if (to <= from) {
-      throw new CleanlinessSpecError(
+      fail(
         `"${part}": a range runs from the smaller class to the larger (e.g. ${second}-${first} is reversed, ${first}-${first} is empty).`,
-        "spec",
+        0,
       );
     }
     classes = SIZE_CLASS_KEYS.slice(from, to + 1);
@@ -147,29 +144,20 @@ function parseGroup(part: string, prefix: "A" | "V" | "N"): SpecGroup {
     classes = [...first] as SizeClassKey[];
     for (let i = 1; i < classes.length; i++) {
       if (sizeClassIndex(classes[i]) <= sizeClassIndex(classes[i - 1])) {
-        throw new CleanlinessSpecError(
-          `"${part}": write letters once each, from small to large (e.g. EF12).`,
-          "spec",
-        );
+        fail(`"${part}": write letters once each, from small to large (e.g. EF12).`, i);
       }
     }
   }
 
   if (prefix === "N") {
     if (!NUMBER.test(valueText)) {
-      throw new CleanlinessSpecError(
-        `"${part}": an N() specification gives a count per component after the letters (got "${valueText}").`,
-        "spec",
-      );
+      fail(`"${part}": an N() specification gives a count per component after the letters (got "${valueText}").`, valueAt);
     }
     const limit = Number(valueText);
     return Object.freeze({ text: part, classes, joined, level: null, limit });
   }
   if (!isCleanlinessLevel(valueText)) {
-    throw new CleanlinessSpecError(
-      `"${part}": "${valueText}" is not a cleanliness level; use 00, 0, 1 … 24.`,
-      "spec",
-    );
+    fail(`"${part}": "${valueText}" is not a cleanliness level; use 00, 0, 1 … 24.`, valueAt);
   }
   return Object.freeze({
     text: part,

@@ -19,6 +19,8 @@ export const TEST_TYPE_LABELS: Record<TestType, string> = {
  */
 export const MATRIX_SUBJECTS = [
   ...PARAMETER_KINDS.map((k) => `parameter:${k}` as const),
+  // The same kind means a different risk in another stage: drying time calls for a dryness test, wash time does not.
+  ...STAGE_KINDS.flatMap((stage) => PARAMETER_KINDS.map((k) => `parameter:${stage}:${k}` as const)),
   ...STAGE_KINDS.map((k) => `stage:${k}` as const),
   "detergent",
   "part_family",
@@ -28,7 +30,8 @@ export type MatrixSubject = (typeof MATRIX_SUBJECTS)[number];
 export function subjectLabel(subject: MatrixSubject): string {
   if (subject === "detergent") return "New detergent";
   if (subject === "part_family") return "New part family on the recipe";
-  const [group, kind] = subject.split(":");
-  return group === "stage" ? `Stage or mode added or removed: ${kind.replace(/_/g, " ")}` : `Parameter: ${kind.replace(/_/g, " ")}`;
+  const [group, first, second] = subject.split(":");
+  if (group === "stage") return `Stage or mode added or removed: ${first.replace(/_/g, " ")}`;
+  return second ? `Parameter in a ${first.replace(/_/g, " ")} stage: ${second.replace(/_/g, " ")}` : `Parameter: ${first.replace(/_/g, " ")}`;
 }
 

@@ -13,6 +13,8 @@ export const UNITS_BY_KIND: Record<ParameterKind, readonly string[]> = {
   drying_temperature: ["°C"],
   vacuum_pressure: ["mbar"],
   basket_loading: ["parts/basket"],
+  load_pattern: ["pattern no."],
+  fixture: ["fixture no."],
   filter_interval: ["h", "d", "cycles"],
   other: [],
 };
@@ -29,6 +31,8 @@ export const PARAMETER_KIND_LABELS: Record<ParameterKind, string> = {
   drying_temperature: "Drying temperature",
   vacuum_pressure: "Vacuum end pressure",
   basket_loading: "Basket loading",
+  load_pattern: "Load pattern",
+  fixture: "Fixture",
   filter_interval: "Filter change interval",
   other: "Other",
 };
@@ -63,6 +67,14 @@ export interface ParameterCheckInput {
   validatedHigh: number | null;
   /** The stage the parameter belongs to: an aqueous bath is open wash or rinse water. */
   stageKind: string;
+}
+
+/** A setpoint outside the validated range written beside it contradicts itself. */
+export function ownRangeProblem(p: Pick<ParameterCheckInput, "setpoint" | "validatedLow" | "validatedHigh" | "unit">): ParameterProblem | null {
+  const below = p.validatedLow !== null && p.setpoint < p.validatedLow;
+  const above = p.validatedHigh !== null && p.setpoint > p.validatedHigh;
+  if (!below && !above) return null;
+  return { field: "setpoint", message: `The setpoint ${p.setpoint} ${p.unit} lies outside its own validated range ${p.validatedLow ?? "−∞"}–${p.validatedHigh ?? "∞"} ${p.unit}.` };
 }
 
 export interface ParameterProblem {
@@ -104,8 +116,31 @@ export function parameterProblems(p: ParameterCheckInput): ParameterProblem[] {
   return problems;
 }
 
+/**
+ * Upper bounds beyond which a value is a typing error, not a process: no aqueous washer's dryer
+ * runs above 200 °C, no step lasts a day, ultrasonic cleaning runs at about 20–400 kHz and tens of
+ * W/L, washer pumps reach a few hundred bar (high-pressure deburring about 1000), and a rinse-water
+ * limit above 10 000 µS/cm (brackish water) limits nothing [practice].
+ */
+const UPPER: Partial<Record<ParameterKind, Record<string, number>>> = {
+  drying_temperature: { "°C": 200 },
+  time: { s: 86_400, min: 1_440 },
+  concentration: { "g/L": 1_000 },
+  ultrasonic_power: { "W/L": 100, W: 100_000 },
+  ultrasonic_frequency: { kHz: 400 },
+  spray_pressure: { bar: 1_000 },
+  flow: { "L/min": 10_000, "m³/h": 600 },
+  conductivity_limit: { "µS/cm": 10_000 },
+  basket_loading: { "parts/basket": 100_000 },
+  filter_interval: { h: 8_760, d: 365, cycles: 1_000_000 },
+};
+
 function impossible(p: ParameterCheckInput, value: number, label: string): string | null {
   const at = `${value} ${p.unit}`;
+  if (!Number.isFinite(value)) return `The ${label} must be a finite number.`;
+  const upper = UPPER[p.kind]?.[p.unit];
+  if (upper !== undefined && value > upper) return `A ${label} of ${at} is above ${upper} ${p.unit}, beyond what a parts washer can run: check the value.`;
+  if (p.kind === "ultrasonic_frequency" && value > 0 && value < 15) return `Ultrasonic cleaning runs at about 20 kHz and above: a ${label} of ${at} is audible sound, not ultrasound.`;
   switch (p.kind) {
     case "temperature":
       if (AQUEOUS_STAGES.has(p.stageKind) && value > 100) return `An open aqueous bath boils at about 100 °C: a ${label} of ${at} is not possible.`;
@@ -126,6 +161,9 @@ function impossible(p: ParameterCheckInput, value: number, label: string): strin
       return value > 1013 ? `A vacuum is below atmospheric pressure (about 1013 mbar): ${label} ${at}.` : null;
     case "basket_loading":
       return value < 1 || !Number.isInteger(value) ? `Basket loading is a whole number of parts, at least 1: ${label} ${at}.` : null;
+    case "load_pattern":
+    case "fixture":
+      return value < 1 || !Number.isInteger(value) ? `A ${PARAMETER_KIND_LABELS[p.kind].toLowerCase()} is named by its sheet number, a whole number from 1: ${label} ${at}.` : null;
     case "ultrasonic_frequency":
     case "ultrasonic_power":
     case "spray_pressure":

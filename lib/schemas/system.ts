@@ -2,6 +2,7 @@ import { z } from "zod";
 import "./messages";
 import { storedText } from "@/lib/schemas/text";
 import { STAGE_KINDS, STAGE_MODES } from "@/db/enums";
+import { optionalNumber, optionalText, requiredText } from "./fields";
 
 const optionalLitres = z.preprocess(
   (v) => (typeof v === "string" ? (v.trim() === "" ? null : Number(v.replace(",", "."))) : (v ?? null)),
@@ -14,6 +15,15 @@ export const systemStageSchema = z.object({
   kind: z.enum(STAGE_KINDS, { error: "Choose the kind of stage." }),
   capabilities: z.array(z.enum(STAGE_MODES)).min(1, "Tick at least one mode the stage can run."),
   tankVolumeL: optionalLitres,
+  // Left out (not undefined-as-empty) means "keep what is stored", so an editor that does not show these fields
+  // cannot erase them. Bounds catch typing errors, not process limits [practice]: bag and cartridge filters run about 1–200 µm,
+  // industrial ultrasonic generators up to tens of kW at 20–200 kHz, washer pumps up to a few hundred bar.
+  filterRatingUm: optionalNumber("Filter rating", "µm", { above: 0, max: 1000 }).optional(),
+  ultrasonicPowerW: optionalNumber("Ultrasonic power", "W", { above: 0, max: 100_000 }).optional(),
+  ultrasonicFrequencyKHz: optionalNumber("Ultrasonic frequency", "kHz", { min: 15, max: 400 }).optional(),
+  sprayPressureBar: optionalNumber("Spray pressure", "bar", { above: 0, max: 500 }).optional(),
+  injectionPressureBar: optionalNumber("Injection pressure", "bar", { above: 0, max: 1000 }).optional(),
+  nozzleSet: optionalText(120).optional(),
 });
 
 /** A cleaning system and its stages; stages are kept (never deleted) because tank records refer to them. */
@@ -24,3 +34,22 @@ export const systemSchema = z.object({
   stages: z.array(systemStageSchema).min(1, "A system has at least one stage.").max(12),
 });
 export type SystemInput = z.output<typeof systemSchema>;
+
+const SYSTEM_KINDS = ["multi_tank_aqueous", "single_chamber_spray", "other"] as const;
+
+/** A new cleaning system: its codes, kind and stages in process order. */
+export const createSystemSchema = z.object({
+  code: requiredText("the system's short code", 2, 20).pipe(z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._\/-]*$/, "Use letters, digits and . _ / - in the code, no spaces.")),
+  assetNumber: optionalText(40),
+  name: z.string().trim().min(2, "Name the system.").max(120),
+  kind: z.enum(SYSTEM_KINDS, { error: "Choose the kind of system." }),
+  description: z.string().trim().max(1000).transform((v) => v || null),
+  stages: z.array(systemStageSchema).min(1, "A system has at least one stage.").max(12),
+});
+export type CreateSystemInput = z.output<typeof createSystemSchema>;
+
+export const retireSystemSchema = z.object({
+  systemId: z.string().uuid(),
+  reason: requiredText("why the system is retired", 5, 1000),
+});
+export type RetireSystemInput = z.output<typeof retireSystemSchema>;

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { openDatabase, setProcessDatabase } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDemo } from "@/db/seed";
-import { auditEvents, partFamilies, recipeVersions, signatures, testSamples, testRuns, userRoles, users } from "@/db/schema";
+import { auditEvents, partFamilies, recipeVersions, requalificationIntervals, signatures, testSamples, testRuns, userRoles, users } from "@/db/schema";
 import { verifyAuditChain } from "@/lib/audit";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { createRun } from "@/lib/server/evidence/create-run";
@@ -78,7 +78,12 @@ beforeAll(async () => {
   const roles = (await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, tech.id))).map((r) => r.role);
   token = (await createApiToken({ ...tech, email: "", roles, mustChangePassword: false } as never, { name: "Crash test", scope: "read_write" })).token;
   const [family] = await db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
-  const [version] = await db.select().from(recipeVersions).where(eq(recipeVersions.status, "effective")).limit(1);
+  // The valve body's effective recipe, on which it is qualified: runs are refused off a qualified combination.
+  const [{ version }] = await db
+    .select({ version: recipeVersions })
+    .from(requalificationIntervals)
+    .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
+    .where(and(eq(requalificationIntervals.partFamilyId, family.id), eq(recipeVersions.status, "effective")));
   const open = () => createRun(engineer, { partFamilyId: family.id, recipeVersionId: version.id, testType: "gravimetric", technicianId: tech.id, lab: "Larchfield lab", performedOn: "2026-03-02" });
   for (let i = 0; i < RESULT_RUNS; i++) resultRuns.push((await open()).id);
   signerArgs = [family.id, version.id, SIGNER_LAB];

@@ -73,7 +73,9 @@ test("bad files get a clear error and nothing is stored", async ({ page }) => {
   await signInAs(page, "technician");
   await page.goto("/evidence/runs/new");
   await page.getByLabel("Part family").selectOption({ label: "PF-SF-12 · Straight fitting SF-12" });
-  await page.getByLabel("Recipe version").selectOption({ index: 1 });
+  // A run opens only on a qualified combination: the fitting's effective recipe.
+  const fittingRecipe = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-SC1-SF v\d+ \(effective\)$/ }).textContent();
+  await page.getByLabel("Recipe version").selectOption({ label: fittingRecipe! });
   await page.getByLabel("Test type").selectOption({ label: "Visual" });
   await page.getByLabel("Analysing lab").fill("Line 3 inspection");
   await page.getByRole("button", { name: "Open test run" }).click();

@@ -102,6 +102,25 @@ const SAMPLES = {
     new: { mustChangePassword: true },
   },
   // db/seed.ts (sites, specs, part families and recipes are created by the seed only)
+  // lib/server/plant/*.ts and lib/server/systems/*.ts
+  "company.set_up": { eventType: "company.set_up", recordType: "company", recordId: "company", new: { companyName: "Example Components" } },
+  "cleaning_system.retired": {
+    eventType: "cleaning_system.retired",
+    recordType: "cleaning_system",
+    recordId: UUID,
+    old: { active: true },
+    new: { active: false, retiredAt: "2026-12-02T10:00:00.000Z" },
+    reason: "Replaced by the new line",
+  },
+  "cleanliness_spec.revised": { eventType: "cleanliness_spec.revised", recordType: "cleanliness_spec", recordId: UUID, old: { code: "CS-VB", name: "Valve body grade 2", customer: "Customer A", documentNumber: "QS-114", revision: "C", sourceFileId: null, ccc: "A(B-D20/EF14/G-H11/I-J7/K-N00)", maxMetallicUm: 400, maxNonMetallicUm: 600, maxFibreUm: 1000, gravimetricLimitMg: 1.5, gravimetricBasis: "per_component" as const, minWettingTensionMNm: 36, visualCriteria: null, drynessCriteria: null, extraRequirements: null, customerApprovesChanges: true }, new: { ...{ code: "CS-VB", name: "Valve body grade 2", customer: "Customer A", documentNumber: "QS-114", revision: "C", sourceFileId: null, ccc: "A(B-D20/EF14/G-H11/I-J7/K-N00)", maxMetallicUm: 400, maxNonMetallicUm: 600, maxFibreUm: 1000, gravimetricLimitMg: 1.5, gravimetricBasis: "per_component" as const, minWettingTensionMNm: 36, visualCriteria: null, drynessCriteria: null, extraRequirements: null, customerApprovesChanges: true }, revision: "D" }, reason: "Customer tightened the fibre limit" },
+  "cleanliness_spec.superseded": { eventType: "cleanliness_spec.superseded", recordType: "cleanliness_spec", recordId: UUID, old: { status: "in_force" }, new: { status: "superseded", by: "CS-VB rev D" }, reason: "Revision D" },
+  "part_family.updated": { eventType: "part_family.updated", recordType: "part_family", recordId: UUID, old: { specification: "CS-VB rev C" }, new: { specification: "CS-VB rev D" }, reason: "Revision D" },
+  "combination.qualified": {
+    eventType: "combination.qualified",
+    recordType: "requalification_interval",
+    recordId: UUID,
+    new: { combination: "R-AW3-VB v2 × PF-VB", basis: "Valve body PQ", qualifiedOn: "2025-03-10", intervalMonths: 12 },
+  },
   "site.created": {
     eventType: "site.created",
     recordType: "site",

@@ -2,7 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
-import { auditEvents, changeRequestAssessments, documentVersions, emailOutbox, partFamilies, recipes, recipeVersions, signatures, users, type Role } from "@/db/schema";
+import { auditEvents, changeRequestAssessments, documentVersions, emailOutbox, partFamilies, recipes, recipeVersions, requalificationIntervals, signatures, users, type Role } from "@/db/schema";
 import { canonicalJson, sha256Hex, verifyAuditChain } from "@/lib/audit";
 import { doc, p } from "@/lib/documents/rich-text";
 import { proposalSchema } from "@/lib/schemas/change";
@@ -107,7 +107,12 @@ describe("concurrent signers", () => {
 
   it("two people verifying one performed run at once: one verification, the other refused with the run's state", async () => {
     const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
-    const [version] = await t.db.select().from(recipeVersions).where(eq(recipeVersions.status, "effective")).limit(1);
+    // The valve body's effective recipe, the one it is qualified on (runs are refused elsewhere).
+    const [{ version }] = await t.db
+      .select({ version: recipeVersions })
+      .from(requalificationIntervals)
+      .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
+      .where(and(eq(requalificationIntervals.partFamilyId, family.id), eq(recipeVersions.status, "effective")));
     const run = await createRun(people.engineer, { partFamilyId: family.id, recipeVersionId: version.id, testType: "particle_cleanliness", technicianId: people.technician.id, lab: "Larchfield lab", performedOn: "2026-03-02" });
     await addSample(people.technician, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "P-1", components: "1", counts: { E: "4" }, largest: {} }) });
     const hash = async () => (await runContent(t.db, (await getRunRow(t.db, run.id))!)).hash;

@@ -11,6 +11,7 @@ import { blobKey, localStore, setStore } from "@/lib/storage";
 import { particleRunDataSchema, particleSampleSchema } from "@/lib/schemas/evidence";
 import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
+import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
 import { importCsvRows } from "@/lib/server/evidence/import-csv";
 import { computeStoredOutcome } from "@/lib/server/evidence/refresh-outcome";
 import { readEvidenceFile } from "@/lib/server/evidence/read-file";
@@ -52,6 +53,8 @@ beforeAll(async () => {
   const [family] = await t.db.insert(partFamilies).values({ code: "PF-TEST", name: "Test part", material: "Al", wettedAreaCm2: 37.35, specId: spec.id }).returning();
   familyId = family.id;
   versionId = (await t.db.select().from(recipeVersions).limit(1))[0].id;
+  // Runs are opened only on a qualified combination.
+  await qualifyCombination(engineer, { recipeVersionId: versionId, partFamilyId: familyId, basis: "Test qualification", qualifiedOn: "2026-01-05", intervalMonths: 12 });
 });
 afterAll(() => {
   t.cleanup();

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, count, desc, eq, gte, inArray, lte, ne, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, gte, inArray, lte, ne, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import {
@@ -109,7 +109,7 @@ export async function getRunDetail(runId: string) {
     .select({ run: testRuns, family: partFamilies, spec: cleanlinessSpecs, version: recipeVersions, recipe: recipes, technician: tech.name })
     .from(testRuns)
     .innerJoin(partFamilies, eq(partFamilies.id, testRuns.partFamilyId))
-    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, sql`coalesce(${testRuns.specId}, ${partFamilies.specId})`))
     .innerJoin(recipeVersions, eq(recipeVersions.id, testRuns.recipeVersionId))
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .leftJoin(tech, eq(tech.id, testRuns.technicianId))

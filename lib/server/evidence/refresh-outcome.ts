@@ -9,7 +9,8 @@ export async function computeStoredOutcome(db: Executor, run: TestRun): Promise<
   const [family] = await db
     .select({ family: partFamilies, spec: cleanlinessSpecs })
     .from(partFamilies)
-    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    // The revision in force when the run was opened; older rows fall back to the family's.
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, run.specId ?? partFamilies.specId))
     .where(eq(partFamilies.id, run.partFamilyId));
   const [limit] = await db
     .select({ setpoint: recipeParameters.setpoint })
