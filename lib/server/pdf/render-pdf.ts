@@ -1,5 +1,5 @@
 import "server-only";
-import { fork, type ChildProcess } from "node:child_process";
+import { spawn, type ChildProcess } from "node:child_process";
 import { join } from "node:path";
 import { env } from "@/lib/env";
 import type { PdfJob } from "@/lib/pdf/jobs";
@@ -34,8 +34,10 @@ class PdfWorker {
 
   private spawn(): ChildProcess {
     const { PDF_MEMORY_MB } = env();
-    const child = fork(join(process.cwd(), "lib/pdf/worker.ts"), [], {
-      execArgv: ["--import", "tsx", `--max-old-space-size=${PDF_MEMORY_MB}`],
+    // spawn, not fork: the bundler treats fork's argument as a module to bundle, and the worker
+    // runs from the source tree under tsx like the scripts do.
+    const worker = join(process.cwd(), "lib", "pdf", "worker.ts");
+    const child = spawn(process.execPath, ["--import", "tsx", `--max-old-space-size=${PDF_MEMORY_MB}`, worker], {
       serialization: "advanced",
       stdio: ["ignore", "inherit", "inherit", "ipc"],
     });
