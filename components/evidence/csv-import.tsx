@@ -49,8 +49,9 @@ export function CsvImport({ runId, testType }: { runId: string; testType: CsvTes
     body.set("mapping", JSON.stringify(mapping));
     try {
       const response = await fetch(`/api/evidence/runs/${runId}/import`, { method: "POST", body });
-      const json: Result = await response.json().catch(() => ({ ok: false, message: `The import failed (HTTP ${response.status}).` }));
-      setResult(json);
+      const json: Result & { error?: string } = await response.json().catch(() => ({ ok: false, message: `The import failed (HTTP ${response.status}).` }));
+      // A refusal from the route handler carries `error`; the import's own row report carries `message`.
+      setResult({ ...json, ok: Boolean(json.ok), message: json.message ?? json.error ?? `The import failed (HTTP ${response.status}).` });
       if (json.ok) router.refresh();
     } catch {
       setResult({ ok: false, message: "The file did not reach the server. Nothing was imported." });

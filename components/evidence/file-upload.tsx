@@ -21,7 +21,8 @@ export function FileUpload({ runId, maxMb }: { runId: string; maxMb: number }) {
     try {
       const response = await fetch(`/api/evidence/runs/${runId}/files`, { method: "POST", body: new FormData(form) });
       const body = await response.json().catch(() => ({ ok: false, message: `The upload failed (HTTP ${response.status}).` }));
-      setState({ ok: Boolean(body.ok), message: body.message });
+      // A refusal carries `error` (every route handler's error shape); a success its `message`.
+      setState({ ok: Boolean(body.ok), message: body.ok ? body.message : (body.error ?? body.message) });
       if (body.ok) {
         (form.elements.namedItem("file") as HTMLInputElement).value = "";
         router.refresh();

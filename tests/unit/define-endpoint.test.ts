@@ -198,7 +198,7 @@ describe("defineRoute", () => {
     await actAs(people.approver);
     const refused = await call("a");
     expect(refused.status).toBe(403);
-    expect(await refused.json()).toEqual({ ok: false, error: "Your role does not allow this.", message: "Your role does not allow this." });
+    expect(await refused.json()).toEqual({ error: "Your role does not allow this." });
     expect(await auditCount()).toBe(before);
   });
 

@@ -17,7 +17,8 @@ vi.mock("next/server", async (original) => ({ ...(await original<typeof import("
 const ACTION_RUNS = Number(process.env.HOSTILE_RUNS ?? 30);
 const ROUTE_RUNS = Number(process.env.HOSTILE_RUNS ?? 60);
 // A run that hashes a password (argon2) takes a while; a timed-out property would go on writing under the next test.
-const timeout = (runs: number) => Math.max(20_000, runs * 250);
+// Generous: some actions do real work per run (the integrity check re-hashes the whole trail), and CI machines are shared.
+const timeout = (runs: number) => Math.max(60_000, runs * 2_000);
 const seed = process.env.HOSTILE_SEED ? { seed: Number(process.env.HOSTILE_SEED) } : {};
 
 const all = await discoverEndpoints();

@@ -44,9 +44,9 @@ interface SessionContext<P extends Params> {
   params: P;
 }
 
-/** A refusal from a session route: `error` for JSON readers, `ok`/`message` for the browser's forms. */
+/** A refusal from a session route, in the one error shape of every route handler: `{ error, fieldErrors }`. */
 export function routeError(status: number, message: string, fieldErrors?: Record<string, string[]>) {
-  return NextResponse.json({ ok: false, error: message, message, ...(fieldErrors ? { fieldErrors } : {}) }, { status, headers: { "Cache-Control": "no-store" } });
+  return jsonError(status, message, fieldErrors);
 }
 
 /**
