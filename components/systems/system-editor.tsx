@@ -5,7 +5,7 @@ import { useState } from "react";
 import { ActionForm } from "@/components/ui/action-form";
 import { Caution } from "@/components/ui/caution";
 import { CheckboxField, Field, FieldError, NumberField, SelectField } from "@/components/ui/field";
-import { AddRowButton, PayloadField, RemoveRowButton, useRowList } from "@/components/ui/row-list";
+import { AddRowButton, MoveRowButtons, PayloadField, RemoveRowButton, useRowList } from "@/components/ui/row-list";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { STAGE_KINDS, STAGE_MODES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
@@ -226,14 +226,15 @@ export function SystemEditor(props: SystemEditorProps) {
                 )}
               </div>
             )}
-            {s.id === null && (stages.rows.length > 1 || editing) && (
-              // Stored stages stay (tank logs refer to them); one not yet saved can go.
-              <div className="mt-2">
+            <div className="mt-2 flex flex-wrap items-center gap-2">
+              <MoveRowButtons label={`stage ${n}`} first={i === 0} last={i === stages.rows.length - 1} onMove={(by) => stages.move(i, by)} />
+              {s.id === null && (stages.rows.length > 1 || editing) && (
+                // Stored stages stay (tank logs refer to them); one not yet saved can go.
                 <RemoveRowButton label={`Remove stage ${n}`} onRemove={() => stages.remove(i)}>
                   Remove
                 </RemoveRowButton>
-              </div>
-            )}
+              )}
+            </div>
           </fieldset>
         );
       })}
