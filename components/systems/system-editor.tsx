@@ -9,7 +9,7 @@ import { AddRowButton, MoveRowButtons, PayloadField, RemoveRowButton, useRowList
 import { SubmitButton } from "@/components/ui/submit-button";
 import { STAGE_KINDS, STAGE_MODES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
-import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { humanize, STAGE_MODE_LABELS, SYSTEM_KIND_LABELS } from "@/lib/format/labels";
 import { hazardsOfEquipment } from "@/lib/plant/equipment-hazards";
 
 /** A stage as typed: numbers stay text until the schema parses them, so nothing typed is lost. */
@@ -58,11 +58,7 @@ export type SystemEditorProps =
     };
 
 const KIND_OPTIONS = STAGE_KINDS.map((k) => ({ value: k, label: humanize(k) }));
-const SYSTEM_KIND_OPTIONS = [
-  { value: "multi_tank_aqueous", label: "Multi-tank aqueous washer" },
-  { value: "single_chamber_spray", label: "Single-chamber spray washer" },
-  { value: "other", label: "Other" },
-];
+const SYSTEM_KIND_OPTIONS = Object.entries(SYSTEM_KIND_LABELS).map(([value, label]) => ({ value, label }));
 const DRYER_MODES = ["hot_air_drying", "vacuum_drying"];
 /** A dryer picks its kind (hot air or vacuum); a bath stage the ways it moves the liquid. */
 const modesFor = (kind: string) =>

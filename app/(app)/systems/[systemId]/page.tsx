@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { SystemEditor } from "@/components/systems/system-editor";
 import { PageHeader } from "@/components/ui/page-header";
-import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { humanize, STAGE_MODE_LABELS, SYSTEM_KIND_LABELS } from "@/lib/format/labels";
 import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getCleaningSystem } from "@/lib/server/plant/queries";
@@ -33,7 +33,7 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
         <dt className="font-medium text-stone-700">Asset number</dt>
         <dd>{system.assetNumber ?? "—"}</dd>
         <dt className="font-medium text-stone-700">Kind</dt>
-        <dd>{humanize(system.kind)}</dd>
+        <dd>{SYSTEM_KIND_LABELS[system.kind] ?? humanize(system.kind)}</dd>
         <dt className="font-medium text-stone-700">Site</dt>
         <dd>{system.siteName}</dd>
       </dl>
