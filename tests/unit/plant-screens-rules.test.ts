@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { hazardsOfEquipment } from "@/lib/plant/equipment-hazards";
 import { letterheadLine } from "@/lib/pdf/letterhead";
+import { createSystemSchema } from "@/lib/schemas/system";
+import { TEXT_CONTROL_MESSAGE, TEXT_SURROGATE_MESSAGE } from "@/lib/schemas/text";
 
 const stage = (kind: string, capabilities: string[], extra: { tankVolumeL?: number | null; filterRatingUm?: number | null } = {}) => ({
   kind,
@@ -32,5 +34,24 @@ describe("the PDF header's company and site", () => {
     expect(letterheadLine({ companyName: "Fennmoor Fluidtech", siteName: "Fennmoor Fluidtech — Larchfield plant" })).toBe("Fennmoor Fluidtech — Larchfield plant");
     expect(letterheadLine({ companyName: "Harrowgate Hydraulik GmbH", siteName: null })).toBe("Harrowgate Hydraulik GmbH");
     expect(letterheadLine({ companyName: null, siteName: null })).toBeNull();
+  });
+});
+
+describe("a washer's texts are stored as typed or refused beside their field", () => {
+  it("refuses a control character in the asset number and the nozzle set, and a lone surrogate in the name", () => {
+    const typed = {
+      code: "AW-1",
+      assetNumber: "WX\u00070001",
+      name: "Washer \ud800",
+      kind: "multi_tank_aqueous",
+      description: "",
+      stages: [{ id: null, name: "Spray wash", kind: "wash", capabilities: ["spray"], tankVolumeL: "", sprayPressureBar: "3", nozzleSet: "NS\u0000-1" }],
+    };
+    const issues = createSystemSchema.safeParse(typed).error?.issues ?? [];
+    expect(issues.map((i) => [i.path.join("."), i.message])).toEqual([
+      ["assetNumber", TEXT_CONTROL_MESSAGE],
+      ["name", TEXT_SURROGATE_MESSAGE],
+      ["stages.0.nozzleSet", TEXT_CONTROL_MESSAGE],
+    ]);
   });
 });
