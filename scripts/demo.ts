@@ -2,7 +2,8 @@
  * One command for a fresh machine: migrate, load the demo scenario, build, and
  * serve Washproof at http://localhost:3000 on the embedded SQLite database.
  * With `--empty` (`npm run start:empty`) it loads no demo data and serves a plant's own
- * database, data/plant.db, kept apart from the demo's; `npm run admin:create` sets it up.
+ * database, data/plant.db, kept apart from the demo's; its set-up page (or `npm run admin:create`)
+ * creates the first administrator.
  */
 import { spawn, spawnSync } from "node:child_process";
 import { resolve } from "node:path";
@@ -27,7 +28,7 @@ const { db, client } = openDatabase(process.env.DATABASE_URL);
 await migrateDatabase(db, client);
 if (empty) {
   const someone = await db.select({ id: users.id }).from(users).limit(1);
-  console.log(someone.length ? "Starting without demo data." : "Starting without demo data. No one can sign in yet: create the first administrator with `npm run admin:create`.");
+  console.log(someone.length ? "Starting without demo data." : `Starting without demo data. No one can sign in yet: open http://localhost:${port}/set-up (the sign-in page leads there) or run \`npm run admin:create\` to create the first administrator.`);
 } else {
   const { seeded } = await seedDemo(db);
   console.log(seeded ? "Demo data loaded." : "Demo data already present.");

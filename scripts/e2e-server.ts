@@ -1,13 +1,16 @@
 /**
  * Serves the built app for browser tests on a fresh, seeded database of its own,
  * so a test run never depends on (or changes) the demo database.
+ * `--empty` serves a fresh database with no seed at all (no user, company or site),
+ * in data/e2e-empty/, for the test that starts a plant from nothing.
  */
 import { spawn } from "node:child_process";
 import { existsSync, rmSync } from "node:fs";
 import { resolve } from "node:path";
 
-const port = process.argv[2] ?? "3100";
-const dataDir = resolve("data/e2e");
+const empty = process.argv.includes("--empty");
+const port = process.argv.slice(2).find((a) => !a.startsWith("--")) ?? "3100";
+const dataDir = resolve(empty ? "data/e2e-empty" : "data/e2e");
 rmSync(dataDir, { recursive: true, force: true });
 
 process.env.DATABASE_URL = `file:${dataDir}/washproof.db`;
@@ -23,7 +26,7 @@ const { migrateDatabase } = await import("@/db/migrate");
 const { seedDemo } = await import("@/db/seed");
 const { db, client } = openDatabase(process.env.DATABASE_URL);
 await migrateDatabase(db, client);
-await seedDemo(db);
+if (!empty) await seedDemo(db);
 client.close();
 
 const { startFakeSmtpServer } = await import("@/lib/email/fake-smtp-server");

@@ -1,9 +1,10 @@
 "use client";
 
-import { Plus, Trash2 } from "lucide-react";
+import { ArrowDown, ArrowUp, Plus, Trash2 } from "lucide-react";
 import { useState, type ReactNode } from "react";
 import {
   appendRow,
+  moveRow,
   removeRow,
   rowsOf,
   updateRow,
@@ -19,6 +20,7 @@ export interface RowList<T> {
   add: (value: T) => void;
   remove: (index: number) => void;
   update: (index: number, change: RowChange<T>) => void;
+  move: (index: number, by: -1 | 1) => void;
 }
 
 /** A list of editable rows held in the browser; the editor submits `values` in its payload. */
@@ -30,6 +32,7 @@ export function useRowList<T>(initial: () => readonly T[]): RowList<T> {
     add: (value) => setRows((all) => appendRow(all, value)),
     remove: (index) => setRows((all) => removeRow(all, index)),
     update: (index, change) => setRows((all) => updateRow(all, index, change)),
+    move: (index, by) => setRows((all) => moveRow(all, index, by)),
   };
 }
 
@@ -74,5 +77,29 @@ export function RemoveRowButton({
       <Trash2 className="h-4 w-4" aria-hidden="true" />
       {children}
     </Button>
+  );
+}
+
+/** Up and down buttons for a list whose order means something (stages in process order); `label` names the row. */
+export function MoveRowButtons({
+  onMove,
+  label,
+  first,
+  last,
+}: {
+  onMove: (by: -1 | 1) => void;
+  label: string;
+  first: boolean;
+  last: boolean;
+}) {
+  return (
+    <span className="inline-flex gap-1">
+      <Button variant="ghost" aria-label={`Move ${label} up`} disabled={first} onClick={() => onMove(-1)}>
+        <ArrowUp className="h-4 w-4" aria-hidden="true" />
+      </Button>
+      <Button variant="ghost" aria-label={`Move ${label} down`} disabled={last} onClick={() => onMove(1)}>
+        <ArrowDown className="h-4 w-4" aria-hidden="true" />
+      </Button>
+    </span>
   );
 }

@@ -10,6 +10,7 @@ import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
 import * as appTraceAuditActions from "@/app/(app)/trace/audit/actions";
+import * as authSetUpActions from "@/app/(auth)/set-up/actions";
 import * as authSignInActions from "@/app/(auth)/sign-in/actions";
 import * as apiAuditEventsExportRoute from "@/app/api/audit-events/export/route";
 import * as apiAuditEventsRoute from "@/app/api/audit-events/route";
@@ -42,6 +43,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/evidence/actions.ts": appEvidenceActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
   "app/(app)/trace/audit/actions.ts": appTraceAuditActions,
+  "app/(auth)/set-up/actions.ts": authSetUpActions,
   "app/(auth)/sign-in/actions.ts": authSignInActions,
   "app/api/audit-events/export/route.ts": apiAuditEventsExportRoute,
   "app/api/audit-events/route.ts": apiAuditEventsRoute,

@@ -13,3 +13,10 @@ export const STAGE_MODE_LABELS: Record<string, string> = {
   hot_air_drying: "Hot-air drying",
   vacuum_drying: "Vacuum drying",
 };
+
+/** The kinds of cleaning system, as the screens name them. */
+export const SYSTEM_KIND_LABELS: Record<string, string> = {
+  multi_tank_aqueous: "Multi-tank aqueous washer",
+  single_chamber_spray: "Single-chamber spray washer",
+  other: "Other",
+};

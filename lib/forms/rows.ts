@@ -50,3 +50,12 @@ export function updateRow<T>(
       : row,
   );
 }
+
+/** Swaps a row with its neighbour (`by` -1 up, +1 down); the keys travel with the rows. Off the ends it changes nothing. */
+export function moveRow<T>(rows: readonly Row<T>[], index: number, by: -1 | 1): Row<T>[] {
+  const to = index + by;
+  if (index < 0 || index >= rows.length || to < 0 || to >= rows.length) return [...rows];
+  const next = [...rows];
+  [next[index], next[to]] = [next[to], next[index]];
+  return next;
+}

@@ -9,6 +9,7 @@ import { BINDING_LABELS, OUTCOME_LABELS } from "@/lib/trace/labels";
 import type { AuditPack } from "@/lib/server/trace/audit-pack";
 import { formatDateTime } from "@/lib/format/date";
 import { PDF_FONT } from "./fonts";
+import { letterheadLine, type Letterhead } from "./letterhead";
 
 const s = StyleSheet.create({
   page: { fontFamily: PDF_FONT, fontSize: 8.5, paddingTop: 22, paddingBottom: 22, paddingHorizontal: 40, color: "#1c1917" },
@@ -98,9 +99,11 @@ export interface AuditPackPdfInput {
   pack: AuditPack;
   printedAt: string;
   printedBy: string;
+  letterhead: Letterhead;
 }
 
-function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
+function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfInput) {
+  const owner = letterheadLine(letterhead);
   const { cr } = pack;
   const changed = pack.assessment.diff.parameters.filter((p) => p.change !== "unchanged");
   const files = pack.evidence.flatMap((r) => r.files.map((f) => ({ run: r.number, ...f })));
@@ -113,6 +116,7 @@ function AuditPackPdf({ pack, printedAt, printedBy }: AuditPackPdfInput) {
         layout={({ children, pageNumber, totalPages }) => (
           <View style={s.frame}>
             <View style={s.header}>
+              {owner && <Text style={s.small}>{owner}</Text>}
               <Text style={s.number}>Audit pack · {cr.number}</Text>
               <Text>{cr.title}</Text>
             </View>

@@ -6,6 +6,7 @@ import type { RichNode } from "@/lib/documents/rich-text";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
 import { formatDateTime } from "@/lib/format/date";
 import { PDF_FONT } from "./fonts";
+import { letterheadLine, type Letterhead } from "./letterhead";
 
 const s = StyleSheet.create({
   page: { fontFamily: PDF_FONT, fontSize: 9.5, paddingTop: 24, paddingBottom: 24, paddingHorizontal: 48, color: "#1c1917" },
@@ -146,9 +147,11 @@ export interface DocumentPdfInput {
   signatures: PdfSignature[];
   printedAt: string;
   printedBy: string;
+  letterhead: Letterhead;
 }
 
 function DocumentPdf(d: DocumentPdfInput) {
+  const owner = letterheadLine(d.letterhead);
   const controlled = d.status === "effective";
   return (
     <Document title={`${d.number} version ${d.version} — ${d.title}`} author="Washproof" subject={d.typeLabel}>
@@ -160,6 +163,7 @@ function DocumentPdf(d: DocumentPdfInput) {
         layout={({ children, pageNumber, totalPages }) => (
           <View style={s.frame}>
             <View style={s.header}>
+              {owner && <Text style={s.small}>{owner}</Text>}
               <View style={s.headerRow}>
                 <Text style={s.number}>
                   {d.number} · Version {d.version}

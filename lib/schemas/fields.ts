@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { storedText } from "./text";
 
 /** Field helpers for forms and CSV rows alike: both arrive as text, so empty means "not given". */
 export const blank = (v: unknown) => v === undefined || v === null || (typeof v === "string" && v.trim() === "");
@@ -18,9 +19,9 @@ export const optionalNumber = (label: string, unit: string, rule: NumberRule = {
 export const requiredNumber = (label: string, unit: string, rule: NumberRule = {}) => z.preprocess((v) => toNumber(v) ?? undefined, numberWith(label, unit, rule));
 
 export const requiredText = (label: string, min: number, max: number) =>
-  z.preprocess((v) => (typeof v === "string" ? v.trim() : v), z.string({ error: `Enter ${label}.` }).min(min, `Enter ${label}.`).max(max, `Use at most ${max} characters.`));
+  z.preprocess((v) => (typeof v === "string" ? v.trim() : v), storedText({ error: `Enter ${label}.` }).min(min, `Enter ${label}.`).max(max, `Use at most ${max} characters.`));
 export const optionalText = (max: number) =>
-  z.preprocess((v) => (blank(v) ? null : typeof v === "string" ? v.trim() : v), z.string().max(max, `Use at most ${max} characters.`).nullable());
+  z.preprocess((v) => (blank(v) ? null : typeof v === "string" ? v.trim() : v), storedText().max(max, `Use at most ${max} characters.`).nullable());
 
 export const checkbox = z.preprocess((v) => v === true || v === "on" || v === "true" || v === "yes" || v === "1", z.boolean());
 
@@ -31,7 +32,7 @@ export const textList = (label: string, maxItems: number, maxLength: number) =>
       const items = Array.isArray(v) ? v.map(String) : blank(v) ? [] : String(v).split(/[;,\n]+/);
       return [...new Set(items.map((s) => s.trim()).filter((s) => s !== ""))];
     },
-    z.array(z.string().max(maxLength, `Each ${label} has at most ${maxLength} characters.`)).max(maxItems, `At most ${maxItems} ${label}s.`),
+    z.array(storedText().max(maxLength, `Each ${label} has at most ${maxLength} characters.`)).max(maxItems, `At most ${maxItems} ${label}s.`),
   );
 
 export const uuid = (what: string) => z.string({ error: `Choose ${what} from the list.` }).uuid(`Choose ${what} from the list.`);

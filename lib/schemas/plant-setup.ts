@@ -1,13 +1,15 @@
 import { z } from "zod";
+import "./messages";
 import { PASSWORD_MIN_LENGTH, passwordIsEmail } from "./account";
+import { storedText } from "./text";
 
 /** The one-time set-up of an empty installation: its company, its first site and its first administrator. */
 export const setUpPlantSchema = z
   .object({
-    companyName: z.string().trim().min(2, "Enter the company's name.").max(120, "Use at most 120 characters."),
-    siteName: z.string().trim().min(2, "Enter the site's name.").max(120, "Use at most 120 characters."),
-    siteLocation: z.string().trim().max(120).optional().transform((v) => v || null),
-    adminName: z.string().trim().min(2, "Enter the administrator's full name.").max(120),
+    companyName: storedText().trim().min(2, "Enter the company's name.").max(120, "Use at most 120 characters."),
+    siteName: storedText().trim().min(2, "Enter the site's name.").max(120, "Use at most 120 characters."),
+    siteLocation: storedText().trim().max(120).optional().transform((v) => v || null),
+    adminName: storedText().trim().min(2, "Enter the administrator's full name.").max(120),
     adminEmail: z.string().trim().toLowerCase().email("Enter a valid e-mail address.").max(200),
     password: z
       .string()

@@ -35,18 +35,21 @@ export const systemSchema = z.object({
 });
 export type SystemInput = z.output<typeof systemSchema>;
 
-const SYSTEM_KINDS = ["multi_tank_aqueous", "single_chamber_spray", "other"] as const;
+export const SYSTEM_KINDS = ["multi_tank_aqueous", "single_chamber_spray", "other"] as const;
 
 /** A new cleaning system: its codes, kind and stages in process order. */
 export const createSystemSchema = z.object({
   code: requiredText("the system's short code", 2, 20).pipe(z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._\/-]*$/, "Use letters, digits and . _ / - in the code, no spaces.")),
   assetNumber: optionalText(40),
-  name: z.string().trim().min(2, "Name the system.").max(120),
+  name: storedText().trim().min(2, "Name the system.").max(120),
   kind: z.enum(SYSTEM_KINDS, { error: "Choose the kind of system." }),
-  description: z.string().trim().max(1000).transform((v) => v || null),
+  description: storedText().trim().max(1000).transform((v) => v || null),
   stages: z.array(systemStageSchema).min(1, "A system has at least one stage.").max(12),
 });
 export type CreateSystemInput = z.output<typeof createSystemSchema>;
+
+/** The new-system form: the system and the site it stands at. */
+export const newSystemFormSchema = createSystemSchema.extend({ siteId: z.string({ error: "Choose the site." }).uuid("Choose the site.") });
 
 export const retireSystemSchema = z.object({
   systemId: z.string().uuid(),

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { appendRow, removeRow, rowsOf, updateRow, valuesOf } from "@/lib/forms/rows";
+import { appendRow, moveRow, removeRow, rowsOf, updateRow, valuesOf } from "@/lib/forms/rows";
 
 describe("row list of an editor", () => {
   const start = () => rowsOf([{ name: "Wash" }, { name: "Rinse" }, { name: "Dry" }]);
@@ -37,5 +37,14 @@ describe("row list of an editor", () => {
     expect(patched[0]).toBe(rows[0]);
     const replaced = updateRow(patched, 2, (v) => ({ name: `${v.name} (vacuum)` }));
     expect(replaced[2].value).toEqual({ name: "Dry (vacuum)" });
+  });
+
+  it("moves a row up or down with its key, and leaves the list as it is at either end", () => {
+    const rows = rowsOf([{ name: "Wash" }, { name: "Dry" }, { name: "Rinse" }]);
+    const moved = moveRow(rows, 2, -1);
+    expect(valuesOf(moved)).toEqual([{ name: "Wash" }, { name: "Rinse" }, { name: "Dry" }]);
+    expect(moved.map((r) => r.key)).toEqual([rows[0].key, rows[2].key, rows[1].key]);
+    expect(valuesOf(moveRow(rows, 0, -1))).toEqual(valuesOf(rows));
+    expect(valuesOf(moveRow(rows, 2, 1))).toEqual(valuesOf(rows));
   });
 });

@@ -16,6 +16,7 @@ const base: DocumentPdfInput = {
   signatures: [],
   printedAt: "2026-12-02T10:00:00.000Z",
   printedBy: "Ines Varga",
+  letterhead: { companyName: "Fennmoor Fluidtech", siteName: "Larchfield plant" },
 };
 
 const nested = (levels: number): RichNode => (levels === 1 ? ul("innermost") : ul(nested(levels - 1)));
@@ -26,6 +27,8 @@ describe("PDFs render in a worker process", () => {
     const bytes = await renderPdf({ kind: "document", input: base });
     expect(Buffer.from(bytes.subarray(0, 5)).toString("latin1")).toBe("%PDF-");
     expect(text(bytes)).toContain("VP-0042");
+    // Every page's header names whose record it is.
+    expect(text(bytes)).toContain("Fennmoor Fluidtech · Larchfield plant");
   }, 60_000);
 
   it("answers a document that cannot be rendered with its own error, and the next PDF still renders", async () => {

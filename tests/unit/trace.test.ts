@@ -7,7 +7,7 @@ import { strFromU8, unzipSync } from "fflate";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { auditEvents, changeRequests, partFamilies, recipes, users } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
-import { DEMO_PASSWORD } from "@/db/seed-data";
+import { DEMO_PASSWORD, DEMO_SITE } from "@/db/seed-data";
 import { sha256Hex } from "@/lib/audit";
 import { proposalSchema } from "@/lib/schemas/change";
 import { approveChange } from "@/lib/server/changes/approve-change";
@@ -202,6 +202,8 @@ describe("audit pack", () => {
     expect(text).toContain(checkpoint.checkpoint.signature);
     expect(text).toContain(checkpoint.checkpoint.hash);
     expect(text).toContain("The trail matches it");
+    // The header names the plant the record belongs to (its name already carries the company's).
+    expect(text).toContain(DEMO_SITE.name);
     expect(text).toContain("105 °C");
     expect(text).toContain("95–110 °C");
 

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listCleaningSystems } from "@/lib/server/plant/queries";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -10,13 +11,26 @@ import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 export const metadata: Metadata = { title: "Cleaning systems" };
 
 export default async function SystemsPage() {
-  await requirePageUser("systems.view");
+  const user = await requirePageUser("systems.view");
   const systems = await listCleaningSystems();
+  const manage = can(user.roles, "systems.manage");
   return (
     <>
-      <PageHeader title="Cleaning systems" description="The plant's washers, their stages and the recipes they run." />
+      <PageHeader
+        title="Cleaning systems"
+        description="The plant's washers, their stages and the recipes they run."
+        actions={
+          manage && (
+            <Link href="/systems/new" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+              New cleaning system
+            </Link>
+          )
+        }
+      />
       {systems.length === 0 ? (
-        <EmptyState title="No cleaning systems">An administrator adds the plant&apos;s washers and their stages.</EmptyState>
+        <EmptyState title="No cleaning systems">
+          {manage ? "Add the plant's first washer with New cleaning system." : "An administrator adds the plant's washers and their stages."}
+        </EmptyState>
       ) : (
         <div className="grid gap-4 xl:grid-cols-2">
           {systems.map((s) => (
@@ -27,7 +41,10 @@ export default async function SystemsPage() {
                     {s.code} · {s.name}
                   </Link>
                 </h2>
-                <span className="text-xs text-stone-600">{s.siteName}</span>
+                <span className="text-xs text-stone-600">
+                  {s.active ? "In service" : "Retired"} · {s.siteName}
+                  {s.assetNumber && ` · asset ${s.assetNumber}`}
+                </span>
               </div>
               {s.description && <p className="mt-1 text-sm text-stone-600">{s.description}</p>}
               <Table density="compact" caption={<>Stages of {s.name}</>} frameClassName="mt-4">

@@ -3,6 +3,7 @@ import { getDb } from "@/db/client";
 import { appendAudit } from "@/lib/audit";
 import { TYPE_LABELS } from "@/lib/documents/lifecycle";
 import { renderPdf } from "@/lib/server/pdf/render-pdf";
+import { loadLetterhead } from "@/lib/server/plant/letterhead";
 import { getDocument, getVersion } from "./queries";
 import { hashContent, type DocumentActor } from "./shared";
 
@@ -31,6 +32,8 @@ export async function exportVersionPdf(
       signatures,
       printedAt: now.toISOString(),
       printedBy: actor.name,
+      // The worker has no database: the header's company and site travel in the job.
+      letterhead: await loadLetterhead(getDb(), document.systemId),
     },
   });
   await getDb().transaction((tx) =>

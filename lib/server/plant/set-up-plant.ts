@@ -4,6 +4,7 @@ import { getDb, type Tx } from "@/db/client";
 import { companySettings, sites, userRoles, users } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { hashPassword } from "@/lib/auth/password";
+import { passwordProblem } from "@/lib/auth/password-rules";
 import type { SetUpPlantInput } from "@/lib/schemas/plant-setup";
 import { UserFacingError } from "@/lib/server/errors";
 
@@ -42,6 +43,9 @@ export async function setUpPlant(input: SetUpPlantInput): Promise<PlantSetUp> {
   // Answer before the slow hash when the installation is plainly set up already.
   const [{ n }] = await db.select({ n: count() }).from(users);
   if (n > 0) throw new UserFacingError(ALREADY_SET_UP);
+  // The same strength rule as every other new password (not the name or e-mail, not guessable).
+  const weak = passwordProblem(input.password, { name: input.adminName, email: input.adminEmail });
+  if (weak) throw new UserFacingError(weak, { kind: "invalid", field: "password" });
   const passwordHash = await hashPassword(input.password);
   return db.transaction((tx) => setUpPlantIn(tx, { ...input, passwordHash }));
 }

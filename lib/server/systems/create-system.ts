@@ -1,7 +1,7 @@
 // Not "server-only": the demo seed calls `createSystemIn` under tsx.
 import { eq, or } from "drizzle-orm";
 import { getDb, type Tx } from "@/db/client";
-import { cleaningSystems, systemStages } from "@/db/schema";
+import { cleaningSystems, sites, systemStages } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { stageProblems, type EquipmentStage } from "@/lib/plant/equipment";
 import type { CreateSystemInput } from "@/lib/schemas/system";
@@ -20,8 +20,12 @@ type StageFields = StageInput & EquipmentStage;
 
 /** Refuses stages out of process order or a mode without what defines it, naming the stage. */
 export function assertStages(stages: StageFields[]) {
-  const [problem] = stageProblems(stages);
-  if (problem) throw new UserFacingError(problem.message, `stages.${problem.index}.${problem.field}`);
+  const problems = stageProblems(stages);
+  if (!problems.length) return;
+  // Every problem beside its own field at once, so one save shows all that needs fixing.
+  const fieldErrors: Record<string, string[]> = {};
+  for (const p of problems) (fieldErrors[`stages.${p.index}.${p.field}`] ??= []).push(p.message);
+  throw new UserFacingError(problems[0].message, { kind: "invalid", field: `stages.${problems[0].index}.${problems[0].field}`, fieldErrors });
 }
 
 /** The audit trail's words for a stage: everything that defines the equipment. */
@@ -75,5 +79,9 @@ export async function createSystemIn(tx: Tx, actor: AuditActor, siteId: string, 
 
 /** A new cleaning system at a site, with its stages in process order. */
 export async function createSystem(actor: AuditActor, input: CreateSystemInput & { siteId: string }) {
-  return getDb().transaction((tx) => createSystemIn(tx, actor, input.siteId, input));
+  return getDb().transaction(async (tx) => {
+    const [site] = await tx.select({ id: sites.id }).from(sites).where(eq(sites.id, input.siteId));
+    if (!site) throw new UserFacingError("That site does not exist. Reload the page.", { kind: "invalid", field: "siteId" });
+    return createSystemIn(tx, actor, input.siteId, input);
+  });
 }

@@ -1,9 +1,9 @@
 import { and, eq } from "drizzle-orm";
-import type { Tx } from "@/db/client";
+import type { Executor } from "@/db/client";
 import { recipes, recipeVersions } from "@/db/schema";
 
 /** The effective recipe versions a system runs: while there are any, its equipment is under change control. */
-export async function effectiveRecipesOn(tx: Tx, systemId: string) {
+export async function effectiveRecipesOn(tx: Executor, systemId: string) {
   return tx
     .select({ code: recipes.code, version: recipeVersions.version })
     .from(recipes)

@@ -11,7 +11,7 @@ import { effectiveRecipesOn } from "./effective-recipes";
 export async function retireSystem(actor: AuditActor, input: RetireSystemInput) {
   await getDb().transaction(async (tx) => {
     const [system] = await tx.select().from(cleaningSystems).where(eq(cleaningSystems.id, input.systemId));
-    if (!system) throw new UserFacingError("That cleaning system does not exist.");
+    if (!system) throw new UserFacingError("That cleaning system does not exist.", { kind: "not_found" });
     if (!system.active) throw new UserFacingError(`${system.code} is already retired.`);
     const running = await effectiveRecipesOn(tx, system.id);
     if (running.length) {

@@ -4,6 +4,7 @@ import { getDb } from "@/db/client";
 import { appendAudit, sha256Hex } from "@/lib/audit";
 import { renderPdf } from "@/lib/server/pdf/render-pdf";
 import { readEvidenceFile } from "@/lib/server/evidence/read-file";
+import { loadLetterhead } from "@/lib/server/plant/letterhead";
 import { loadAuditPack } from "./audit-pack";
 
 type Actor = { id: string; name: string };
@@ -21,7 +22,8 @@ function safeName(name: string) {
 export async function exportAuditPack(actor: Actor, input: { changeRequestId: string; format: "pdf" | "zip" }, now = new Date()) {
   const db = getDb();
   const pack = await loadAuditPack(db, input.changeRequestId);
-  const pdf = await renderPdf({ kind: "audit-pack", input: { pack, printedAt: now.toISOString(), printedBy: actor.name } });
+  const letterhead = await loadLetterhead(db, pack.recipe.systemId);
+  const pdf = await renderPdf({ kind: "audit-pack", input: { pack, printedAt: now.toISOString(), printedBy: actor.name, letterhead } });
   const base = `audit-pack-${pack.cr.number}`;
   let body: Uint8Array = pdf;
   const included: string[] = [];

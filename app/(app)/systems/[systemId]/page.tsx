@@ -4,12 +4,15 @@ import { notFound } from "next/navigation";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { SystemEditor } from "@/components/systems/system-editor";
 import { PageHeader } from "@/components/ui/page-header";
-import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
+import { humanize, STAGE_MODE_LABELS, SYSTEM_KIND_LABELS } from "@/lib/format/labels";
 import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getCleaningSystem } from "@/lib/server/plant/queries";
-import { updateSystemAction } from "../actions";
+import { RetireSystemForm } from "@/components/systems/retire-system-form";
+import { effectiveRecipeNames } from "@/lib/server/systems/queries";
+import { retireSystemAction, updateSystemAction } from "../actions";
 import { formatDate } from "@/lib/format/date";
+import { withUnit } from "@/lib/format/number";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Cleaning system" };
@@ -19,9 +22,21 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
   const { systemId } = await params;
   const system = /^[0-9a-f-]{36}$/.test(systemId) ? await getCleaningSystem(systemId) : undefined;
   if (!system) notFound();
+  const manage = can(user.roles, "systems.manage");
+  const runs = manage && system.active ? await effectiveRecipeNames(system.id) : [];
   return (
     <>
       <PageHeader title={`${system.code} · ${system.name}`} description={system.description ?? undefined} />
+      <dl className="mb-6 grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
+        <dt className="font-medium text-stone-700">Status</dt>
+        <dd>{system.active ? "In service" : `Retired ${formatDate(system.retiredAt)}: ${system.retireReason ?? ""}`}</dd>
+        <dt className="font-medium text-stone-700">Asset number</dt>
+        <dd>{system.assetNumber ?? "—"}</dd>
+        <dt className="font-medium text-stone-700">Kind</dt>
+        <dd>{SYSTEM_KIND_LABELS[system.kind] ?? humanize(system.kind)}</dd>
+        <dt className="font-medium text-stone-700">Site</dt>
+        <dd>{system.siteName}</dd>
+      </dl>
       <section aria-labelledby="stages" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
         <h2 id="stages" className="text-lg font-semibold">
           Stages
@@ -33,6 +48,8 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
             <Th>Kind</Th>
             <Th>Can run</Th>
             <Th align="right">Tank volume</Th>
+            <Th align="right">Filter rating</Th>
+            <Th>Equipment</Th>
           </THead>
           <TBody>
             {system.stages.map((st) => (
@@ -41,16 +58,26 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
                 <Td>{st.name}</Td>
                 <Td>{humanize(st.kind)}</Td>
                 <Td>{st.capabilities.map((c) => STAGE_MODE_LABELS[c] ?? c).join(", ")}</Td>
-                <Td numeric>{st.tankVolumeL === null ? "—" : `${st.tankVolumeL} L`}</Td>
+                <Td numeric>{st.tankVolumeL === null ? "—" : withUnit(st.tankVolumeL, "L")}</Td>
+                <Td numeric>{st.filterRatingUm === null ? "—" : withUnit(st.filterRatingUm, "µm")}</Td>
+                <Td>{equipmentWords(st) || "—"}</Td>
               </tr>
             ))}
           </TBody>
         </Table>
-        {can(user.roles, "systems.manage") && (
+        {manage && system.active && (
           <details className="mt-4">
             <summary className="cursor-pointer text-sm font-medium text-brand-800">Edit system and stages</summary>
             <div className="mt-3">
-              <SystemEditor action={updateSystemAction} system={system} />
+              <SystemEditor mode="edit" action={updateSystemAction} system={system} runs={runs} />
+            </div>
+          </details>
+        )}
+        {manage && system.active && (
+          <details className="mt-4">
+            <summary className="cursor-pointer text-sm font-medium text-brand-800">Retire system</summary>
+            <div className="mt-3 max-w-xl">
+              <RetireSystemForm action={retireSystemAction} systemId={system.id} code={system.code} />
             </div>
           </details>
         )}
@@ -73,4 +100,14 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
       })}
     </>
   );
+}
+
+/** The figures that define a stage's modes, in words with their units. */
+function equipmentWords(st: { ultrasonicPowerW: number | null; ultrasonicFrequencyKHz: number | null; sprayPressureBar: number | null; injectionPressureBar: number | null; nozzleSet: string | null }) {
+  const parts: string[] = [];
+  if (st.ultrasonicPowerW !== null) parts.push(`ultrasonic ${withUnit(st.ultrasonicPowerW, "W")}${st.ultrasonicFrequencyKHz === null ? "" : ` at ${withUnit(st.ultrasonicFrequencyKHz, "kHz")}`}`);
+  if (st.sprayPressureBar !== null) parts.push(`spray ${withUnit(st.sprayPressureBar, "bar")}`);
+  if (st.injectionPressureBar !== null) parts.push(`injection ${withUnit(st.injectionPressureBar, "bar")}`);
+  if (st.nozzleSet) parts.push(`nozzles ${st.nozzleSet}`);
+  return parts.join("; ");
 }
