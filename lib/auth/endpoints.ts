@@ -9,6 +9,7 @@ import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
+import * as appSystemsSystemidRecipesNewActions from "@/app/(app)/systems/[systemId]/recipes/new/actions";
 import * as appTraceAuditActions from "@/app/(app)/trace/audit/actions";
 import * as authSignInActions from "@/app/(auth)/sign-in/actions";
 import * as apiAuditEventsExportRoute from "@/app/api/audit-events/export/route";
@@ -41,6 +42,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
+  "app/(app)/systems/[systemId]/recipes/new/actions.ts": appSystemsSystemidRecipesNewActions,
   "app/(app)/trace/audit/actions.ts": appTraceAuditActions,
   "app/(auth)/sign-in/actions.ts": authSignInActions,
   "app/api/audit-events/export/route.ts": apiAuditEventsExportRoute,
