@@ -16,6 +16,7 @@ import { openChangeRequest } from "@/lib/server/changes/open-change-request";
 import { openInitialValidation } from "@/lib/server/changes/open-initial-validation";
 import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { startRequalification } from "@/lib/server/changes/start-requalification";
+import { getRecipeVersionPage } from "@/lib/server/changes/queries";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import { saveDraft } from "@/lib/server/documents/save-draft";
@@ -174,6 +175,11 @@ describe("initial validation of a new recipe", () => {
     expect(await events(versionId)).toEqual(expect.arrayContaining(["recipe_version.validation_opened", "recipe_version.effective"]));
     expect(await events(versionId)).not.toContain("recipe_version.superseded");
     expect(await events(crId)).toContain("change.closed");
+    // The version opens read-only with its content in process order and the request that validated it.
+    const page = (await getRecipeVersionPage(recipeId, 1))!;
+    expect(page.content.stages.map((st) => st.kind)).toEqual(["wash", "drying"]);
+    expect(page.proposedBy.map((c) => c.id)).toEqual([crId]);
+    expect(await getRecipeVersionPage(recipeId, 2)).toBeUndefined();
     // Validated once: a second initial validation is refused; changes go through change control.
     await expect(openInitialValidation(people.engineer, { recipeId, title: "Again", partFamilyId: familyId })).rejects.toThrow(/validated already/);
   });
