@@ -128,13 +128,13 @@ describe("initial validation of a new recipe", () => {
   it("refuses every step out of order and by the wrong person, and closes only when the evidence gate holds", async () => {
     // draft: nothing past assessment, and no assessment without a written rationale.
     await expect(approveChange(people.approver, await signing(crId))).rejects.toThrow(/cannot be approved/);
-    await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow();
+    await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow(/cannot be closed/);
     await expect(assessChange(people.engineer, await signing(crId))).rejects.toMatchObject({ field: "narrative" });
     await writeNarrative(crId, "First validation of the manifold recipe on AW-3: worst-case blocks in the basket corners.");
     await assessChange(people.engineer, await signing(crId));
     // reviewed → approved: the author may not approve what they authored.
     await expect(approveChange(people.engineer, await signing(crId))).rejects.toThrow(/another person/);
-    await expect(verifyChange(people.reviewer, await signing(crId))).rejects.toThrow();
+    await expect(verifyChange(people.reviewer, await signing(crId))).rejects.toThrow(/cannot be verified/);
     await approveChange(people.approver, await signing(crId));
     await expect(verifyChange(people.reviewer, await signing(crId))).rejects.toThrow(/Start requalification first/);
     await startRequalification(people.engineer, { changeRequestId: crId });
@@ -142,7 +142,7 @@ describe("initial validation of a new recipe", () => {
     // A run on the proposal for the family under validation opens; for another family it is refused.
     await expect(
       createRun(people.technician, { partFamilyId: otherFamilyId, recipeVersionId: versionId, testType: "gravimetric", technicianId: people.technician.id, lab: "Larchfield lab", performedOn: "2026-11-20", changeRequestId: crId } as never),
-    ).rejects.toThrow();
+    ).rejects.toThrow(/is not qualified on R-AW3-IV1 v1/);
     const opened = await createRun(people.technician, { partFamilyId: familyId, recipeVersionId: versionId, testType: "gravimetric", technicianId: people.technician.id, lab: "Larchfield lab", performedOn: "2026-11-20", changeRequestId: crId } as never);
     expect(opened.id).toBeTruthy();
 
@@ -161,7 +161,8 @@ describe("initial validation of a new recipe", () => {
     await expect(verifyChange(people.approver, await signing(crId))).rejects.toThrow(/Segregation of duties/);
     await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow(/Verify the change first/);
     await verifyChange(people.reviewer, await signing(crId));
-    await expect(closeChange(people.engineer, { changeRequestId: crId })).rejects.toThrow();
+    // The author may not close what they authored.
+    await expect(closeChange(people.engineer, { changeRequestId: crId })).rejects.toThrow('Segregation of duties: you signed this change as "authored", so another person must close it.');
     await closeChange(people.approver, { changeRequestId: crId });
   });
 
