@@ -50,7 +50,7 @@ export const CHANGE_STATUSES = [
   "withdrawn",
 ] as const;
 
-export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval", "equipment"] as const;
+export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval", "equipment", "initial_validation"] as const;
 
 /** A customer specification revision is in force until a later revision supersedes it. */
 export const SPEC_STATUSES = ["in_force", "superseded"] as const;

@@ -1,4 +1,4 @@
-import { asc, eq, sql } from "drizzle-orm";
+import { asc, eq, inArray, sql } from "drizzle-orm";
 import type { Executor, Tx } from "./client";
 import { recipeParameters, recipeStages, recipeVersions } from "./schema";
 import type { RecipeSnapshot } from "@/lib/changes/diff";
@@ -24,6 +24,22 @@ export async function loadRecipeSnapshot(db: Executor, versionId: string): Promi
         .map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: p.setpoint, unit: p.unit, validatedLow: p.validatedLow, validatedHigh: p.validatedHigh, critical: p.critical })),
     })),
   };
+}
+
+/**
+ * The parameters of one or more recipe versions in process order: by their stage's place in the
+ * sequence, then as they were written within the stage — never by key or name, which would put
+ * drying before wash.
+ */
+export async function loadParametersInProcessOrder(db: Executor, versionIds: string[]) {
+  if (versionIds.length === 0) return [];
+  const rows = await db
+    .select({ p: recipeParameters, stageName: recipeStages.name, stagePosition: recipeStages.position })
+    .from(recipeParameters)
+    .innerJoin(recipeStages, eq(recipeStages.id, recipeParameters.stageId))
+    .where(inArray(recipeParameters.versionId, versionIds))
+    .orderBy(asc(recipeParameters.versionId), asc(recipeStages.position), sql`${recipeParameters}.rowid`);
+  return rows.map((r) => ({ ...r.p, stageName: r.stageName, stagePosition: r.stagePosition }));
 }
 
 /** Writes a recipe version's content, replacing what a proposed version held before. */

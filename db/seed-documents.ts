@@ -3,6 +3,7 @@ import { appendAudit, canonicalJson, sha256Hex, SYSTEM_ACTOR } from "@/lib/audit
 import { successRunSampleSize } from "@/lib/stats";
 import { buildTemplate } from "@/templates/documents";
 import type { Tx } from "./client";
+import { loadParametersInProcessOrder } from "./recipe-content";
 import {
   cleaningSystems,
   cleanlinessSpecs,
@@ -10,7 +11,6 @@ import {
   documents,
   documentVersions,
   partFamilies,
-  recipeParameters,
   recipes,
   recipeVersions,
   signatures,
@@ -28,7 +28,7 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
   const [family] = await tx.select({ f: partFamilies, s: cleanlinessSpecs }).from(partFamilies).innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId)).where(eq(partFamilies.code, "PF-VB-210"));
   const [recipe] = await tx.select({ r: recipes, v: recipeVersions }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(eq(recipes.code, "R-AW3-VB")).orderBy(asc(recipeVersions.version));
   const effective = (await tx.select().from(recipeVersions).where(eq(recipeVersions.recipeId, recipe.r.id))).find((v) => v.status === "effective")!;
-  const params = await tx.select().from(recipeParameters).where(eq(recipeParameters.versionId, effective.id));
+  const params = await loadParametersInProcessOrder(tx, [effective.id]);
 
   const number = "OQ-AW3-0001";
   const sampleSize = successRunSampleSize(0.95, 0.9);

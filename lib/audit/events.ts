@@ -244,6 +244,15 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       changeRequest: text.optional(),
     }),
   }),
+  // A new recipe's draft routed for its initial validation, and back to draft when that ends unclosed.
+  event("recipe_version.validation_opened", "recipe_version", {
+    old: obj({ status: z.literal("draft") }),
+    new: obj({ status: z.literal("proposed"), changeRequest: text, partFamily: text }),
+  }),
+  event("recipe_version.returned_to_draft", "recipe_version", {
+    old: obj({ status: z.literal("proposed") }),
+    new: obj({ status: z.literal("draft"), changeRequest: text }),
+  }),
   event("recipe_version.withdrawn", "recipe_version", {
     old: obj({ status: z.literal("proposed") }),
     new: obj({ status: z.literal("withdrawn"), changeRequest: text }),
@@ -445,7 +454,8 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       title: text,
       kind: z.enum(CHANGE_KINDS),
       recipe: text,
-      fromVersion: version,
+      // None for an initial validation: a new recipe's first version replaces nothing.
+      fromVersion: version.nullable(),
       toVersion: version,
       narrativeDocument: text,
     }),

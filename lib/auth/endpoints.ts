@@ -9,6 +9,7 @@ import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
+import * as appSystemsSystemidRecipesNewActions from "@/app/(app)/systems/[systemId]/recipes/new/actions";
 import * as appTraceAuditActions from "@/app/(app)/trace/audit/actions";
 import * as authSetUpActions from "@/app/(auth)/set-up/actions";
 import * as authSignInActions from "@/app/(auth)/sign-in/actions";
@@ -42,6 +43,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
+  "app/(app)/systems/[systemId]/recipes/new/actions.ts": appSystemsSystemidRecipesNewActions,
   "app/(app)/trace/audit/actions.ts": appTraceAuditActions,
   "app/(auth)/set-up/actions.ts": authSetUpActions,
   "app/(auth)/sign-in/actions.ts": authSignInActions,

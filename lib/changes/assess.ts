@@ -20,11 +20,15 @@ export function assess(input: {
   from: RecipeSnapshot;
   to: RecipeSnapshot;
   newPartFamily: string | null;
+  /** A new recipe's first validation: the part family is its first application, not an added one. */
+  initial?: boolean;
   raisedTo: Impact | null;
   matrix: MatrixRow[];
 }): Assessment {
   const diff = diffRecipes(input.from, input.to);
-  const extra: ImpactTrigger[] = input.newPartFamily ? [{ subject: "part_family", reason: `New part family on the recipe: ${input.newPartFamily}.` }] : [];
+  const extra: ImpactTrigger[] = input.newPartFamily
+    ? [{ subject: "part_family", reason: input.initial ? `Initial validation of the recipe for ${input.newPartFamily}.` : `New part family on the recipe: ${input.newPartFamily}.` }]
+    : [];
   const computed = maxImpact(diff.impact, extra.length ? "major" : "editorial");
   const impact = maxImpact(computed, input.raisedTo ?? "editorial");
   const triggers = impact === "major" ? triggersOf(diff, extra) : [];

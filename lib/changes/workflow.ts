@@ -63,4 +63,13 @@ export const CHANGE_KIND_LABELS: Record<ChangeKind, string> = {
   new_part_family: "New part family on the recipe",
   maintenance_interval: "Maintenance-interval change",
   equipment: "Equipment change on the cleaning system",
+  initial_validation: "Initial validation of a new recipe",
 };
+
+/** Kinds that qualify the recipe for a part family named on the change request. */
+export function addsPartFamily(kind: ChangeKind): boolean {
+  return kind === "new_part_family" || kind === "initial_validation";
+}
+
+/** Kinds an engineer may open against an effective version (an initial validation is opened on a new recipe's draft). */
+export const CHANGE_KINDS_FOR_EFFECTIVE = CHANGE_KINDS.filter((k) => k !== "initial_validation");

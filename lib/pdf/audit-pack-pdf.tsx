@@ -135,12 +135,12 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
         </KV>
         <KV k="Status">{CHANGE_STATUS_LABELS[cr.status]}</KV>
         <KV k="Recipe">
-          {pack.recipe.code} {pack.recipe.name}: version {pack.fromVersion.version} ({humanize(pack.fromVersion.status)}) → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
+          {pack.recipe.code} {pack.recipe.name}: {pack.fromVersion ? `version ${pack.fromVersion.version} (${humanize(pack.fromVersion.status)})` : "no earlier version"} → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
         </KV>
         {pack.family && <KV k="Adds part family">{`${pack.family.code} ${pack.family.name}`}</KV>}
         <KV k="Opened">{formatDateTime(cr.createdAt, { seconds: true })}</KV>
         <KV k="Closed">{cr.closedAt ? formatDateTime(cr.closedAt, { seconds: true }) : "not closed"}</KV>
-        <KV k="Version in force">{pack.toVersion.effectiveFrom ? `version ${pack.toVersion.version} from ${formatDateTime(pack.toVersion.effectiveFrom, { seconds: true })}` : `version ${pack.fromVersion.version} (the proposal is not in force)`}</KV>
+        <KV k="Version in force">{pack.toVersion.effectiveFrom ? `version ${pack.toVersion.version} from ${formatDateTime(pack.toVersion.effectiveFrom, { seconds: true })}` : pack.fromVersion ? `version ${pack.fromVersion.version} (the proposal is not in force)` : "none (the first version is not in force yet)"}</KV>
         <KV k="Content hash (SHA-256)">{pack.contentHash}</KV>
 
         <Text style={s.h2}>2. Justification and risk assessment</Text>
@@ -160,7 +160,7 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
         ) : (
           <Table
             widths={[2.2, 1, 2.4, 2.4, 1, 3]}
-            head={["Parameter", "Change", `Version ${pack.fromVersion.version}`, `Version ${pack.toVersion.version}`, "Range", "Impact and reason"]}
+            head={["Parameter", "Change", pack.fromVersion ? `Version ${pack.fromVersion.version}` : "Before", `Version ${pack.toVersion.version}`, "Range", "Impact and reason"]}
             rows={changed.map((p) => [
               `${p.stage} · ${p.name} (${p.key})`,
               humanize(p.change),

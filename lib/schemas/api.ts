@@ -9,8 +9,11 @@ import {
   RECIPE_VERSION_STATUSES,
   RUN_STATUSES,
   SIGNATURE_MEANINGS,
+  SPEC_STATUSES,
   STAGE_KINDS,
+  STAGE_MODES,
   TEST_TYPES,
+  WETTED_AREA_METHODS,
 } from "@/db/enums";
 
 /**
@@ -44,6 +47,22 @@ export const pageQuery = z
 export const recipesQuery = pageQuery
   .extend({
     systemId: uuid("systemId").optional().describe("Only this cleaning system's recipes."),
+  })
+  .strict();
+export const partFamiliesQuery = pageQuery
+  .extend({
+    specCode: z.string().trim().min(1).max(60).optional().describe("Only the families under this specification (its register code)."),
+  })
+  .strict();
+export const specificationsQuery = pageQuery
+  .extend({
+    status: z.enum(SPEC_STATUSES).optional().describe("in_force for the revisions runs are judged by now; superseded for earlier ones."),
+  })
+  .strict();
+export const qualifiedCombinationsQuery = pageQuery
+  .extend({
+    partFamilyId: uuid("partFamilyId").optional(),
+    recipeId: uuid("recipeId").optional(),
   })
   .strict();
 export const changeRequestsQuery = pageQuery
@@ -91,16 +110,25 @@ export const cleaningSystemOut = named(
     code: z.string(),
     name: z.string(),
     kind: z.string(),
+    assetNumber: z.string().nullable().describe("The plant's own asset register number"),
     description: z.string().nullable(),
     active: z.boolean(),
+    retiredAt: nullableIso,
+    retireReason: z.string().nullable(),
     site: z.string(),
     stages: z.array(
       z.object({
-        position: z.number().int(),
+        position: z.number().int().describe("Place in the process order, from 1"),
         name: z.string(),
         kind: z.enum(STAGE_KINDS),
-        capabilities: z.array(z.string()),
+        capabilities: z.array(z.enum(STAGE_MODES)),
         tankVolumeL: z.number().nullable(),
+        filterRatingUm: z.number().nullable(),
+        ultrasonicPowerW: z.number().nullable(),
+        ultrasonicFrequencyKHz: z.number().nullable(),
+        sprayPressureBar: z.number().nullable(),
+        injectionPressureBar: z.number().nullable(),
+        nozzleSet: z.string().nullable(),
       }),
     ),
   }),
@@ -123,6 +151,8 @@ export const recipeOut = named(
     description: z.string().nullable(),
     systemId: z.string(),
     systemCode: z.string(),
+    systemAssetNumber: z.string().nullable(),
+    systemRetired: z.boolean().describe("The cleaning system is retired: the recipe can no longer run"),
     versions: z.array(versionSummary),
   }),
 );
@@ -154,6 +184,73 @@ export const recipeVersionOut = named(
         parameters: z.array(parameterOut),
       }),
     ),
+  }),
+);
+
+export const specificationOut = named(
+  "Specification",
+  z.object({
+    id: z.string().describe("One revision: a new revision is a new record"),
+    code: z.string().describe("The register code, the same across revisions"),
+    name: z.string(),
+    customer: z.string().nullable(),
+    documentNumber: z.string().nullable(),
+    revision: z.string(),
+    status: z.enum(SPEC_STATUSES),
+    supersedesId: z.string().nullable(),
+    supersededAt: nullableIso,
+    ccc: z.string().describe("Cleanliness code; prefix A is per 1000 cm², N per component"),
+    maxMetallicUm: z.number().nullable(),
+    maxNonMetallicUm: z.number().nullable(),
+    maxFibreUm: z.number().nullable(),
+    gravimetricLimitMg: z.number().nullable(),
+    gravimetricBasis: z.enum(["per_component", "per_1000_cm2"]).nullable(),
+    minWettingTensionMNm: z.number().nullable(),
+    visualCriteria: z.string().nullable(),
+    drynessCriteria: z.string().nullable(),
+    extraRequirements: z.string().nullable(),
+    customerApprovesChanges: z.boolean(),
+    sourceFileSha256: z.string().nullable().describe("SHA-256 of the customer's document as uploaded"),
+    createdAt: iso,
+  }),
+);
+
+export const partFamilyOut = named(
+  "PartFamily",
+  z.object({
+    id: z.string(),
+    code: z.string(),
+    name: z.string(),
+    partNumbers: z.array(z.string()),
+    material: z.string(),
+    wettedAreaCm2: z.number(),
+    wettedAreaMethod: z.enum(WETTED_AREA_METHODS).nullable(),
+    wettedAreaNote: z.string().nullable(),
+    drawingNumber: z.string().nullable(),
+    drawingRevision: z.string().nullable(),
+    customer: z.string().nullable(),
+    description: z.string().nullable(),
+    specId: z.string().describe("The specification revision in force for the family"),
+    specCode: z.string(),
+    specRevision: z.string(),
+  }),
+);
+
+export const qualifiedCombinationOut = named(
+  "QualifiedCombination",
+  z.object({
+    id: z.string(),
+    partFamilyId: z.string(),
+    partFamilyCode: z.string(),
+    recipeId: z.string(),
+    recipeCode: z.string(),
+    recipeVersionId: z.string(),
+    recipeVersion: z.number().int(),
+    recipeVersionStatus: z.enum(RECIPE_VERSION_STATUSES),
+    lastQualifiedAt: iso,
+    intervalMonths: z.number().int(),
+    dueOn: z.string().describe("Calendar date (UTC) by which the combination must be requalified"),
+    basis: z.string().nullable().describe("What proves the qualification, in words; null when carried over by a change"),
   }),
 );
 
@@ -293,12 +390,18 @@ function pageOf<T extends z.ZodType>(id: string, item: T) {
 }
 export const cleaningSystemPage = pageOf("CleaningSystemPage", cleaningSystemOut);
 export const recipePage = pageOf("RecipePage", recipeOut);
+export const partFamilyPage = pageOf("PartFamilyPage", partFamilyOut);
+export const specificationPage = pageOf("SpecificationPage", specificationOut);
+export const qualifiedCombinationPage = pageOf("QualifiedCombinationPage", qualifiedCombinationOut);
 export const changeRequestPage = pageOf("ChangeRequestPage", changeRequestOut);
 export const testRunPage = pageOf("TestRunPage", testRunOut);
 export const auditEventPage = pageOf("AuditEventPage", auditEventOut);
 
 export type CleaningSystemOut = z.infer<typeof cleaningSystemOut>;
 export type RecipeOut = z.infer<typeof recipeOut>;
+export type PartFamilyOut = z.infer<typeof partFamilyOut>;
+export type SpecificationOut = z.infer<typeof specificationOut>;
+export type QualifiedCombinationOut = z.infer<typeof qualifiedCombinationOut>;
 export type RecipeVersionOut = z.infer<typeof recipeVersionOut>;
 export type ChangeRequestOut = z.infer<typeof changeRequestOut>;
 export type ChangeRequestDetailOut = z.infer<typeof changeRequestDetailOut>;

@@ -81,14 +81,25 @@ export const proposalSchema = z
   .superRefine((v, ctx) => {
     if (v.raiseTo && !v.raiseReason) ctx.addIssue({ code: "custom", path: ["raiseReason"], message: "Give the reason for raising the classification." });
     if (v.kind === "new_part_family" && !v.partFamilyId) ctx.addIssue({ code: "custom", path: ["partFamilyId"], message: "Choose the part family the change adds." });
+    if (v.kind === "initial_validation" && !v.partFamilyId) ctx.addIssue({ code: "custom", path: ["partFamilyId"], message: "Choose the part family the recipe is validated for." });
   });
 export type Proposal = z.output<typeof proposalSchema>;
 
 export const openChangeSchema = z.object({
   recipeId: z.string().uuid(),
   title: storedText().trim().min(5, "Give the change a title of at least 5 characters.").max(200),
-  kind: z.enum(CHANGE_KINDS, { error: "Choose what kind of change this is." }),
+  kind: z
+    .enum(CHANGE_KINDS, { error: "Choose what kind of change this is." })
+    .refine((k) => k !== "initial_validation", "A new recipe's first version is routed from its draft: use Route for initial validation."),
 });
+
+/** Routing a new recipe's draft first version through its initial validation. */
+export const openInitialValidationSchema = z.object({
+  recipeId: z.string().uuid(),
+  title: storedText().trim().min(5, "Give the validation a title of at least 5 characters.").max(200),
+  partFamilyId: z.string().uuid("Choose the part family the recipe is validated for."),
+});
+export type OpenInitialValidation = z.output<typeof openInitialValidationSchema>;
 
 export const changeIdSchema = z.object({ changeRequestId: z.string().uuid() });
 

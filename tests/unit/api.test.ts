@@ -6,10 +6,14 @@ import * as recipesRoute from "@/app/api/v1/recipes/route";
 import * as recipeVersionRoute from "@/app/api/v1/recipes/[recipeId]/versions/[version]/route";
 import * as samplesRoute from "@/app/api/v1/test-runs/[runId]/samples/route";
 import * as openapiRoute from "@/app/api/v1/openapi.json/route";
-import { apiTokens, auditEvents, changeRequests, partFamilies, recipes, recipeVersions, testSamples, users } from "@/db/schema";
+import * as systemsRoute from "@/app/api/v1/cleaning-systems/route";
+import * as partFamiliesRoute from "@/app/api/v1/part-families/route";
+import * as specificationsRoute from "@/app/api/v1/specifications/route";
+import * as combinationsRoute from "@/app/api/v1/qualified-combinations/route";
+import { apiTokens, auditEvents, changeRequests, cleanlinessSpecs, partFamilies, recipes, recipeVersions, requalificationIntervals, testSamples, users } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { generateApiToken, hashApiToken } from "@/lib/auth/api-token";
-import { auditEventPage, changeRequestDetailOut, recipePage, recipeVersionOut, sampleAddedOut } from "@/lib/schemas/api";
+import { auditEventPage, changeRequestDetailOut, cleaningSystemPage, partFamilyPage, qualifiedCombinationPage, recipePage, recipeVersionOut, sampleAddedOut, specificationPage } from "@/lib/schemas/api";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { revokeApiToken } from "@/lib/server/api-tokens/revoke-api-token";
 import { authenticateApi } from "@/lib/server/api/authenticate";
@@ -146,6 +150,75 @@ describe("reading", () => {
     expect(doc.paths["/recipes"].get.parameters.map((p: { name: string }) => p.name)).toEqual(["limit", "cursor", "systemId"]);
     expect(doc.components.schemas.ChangeRequestDetail.properties.signatures).toBeDefined();
     expect(doc.components.schemas.RecipePage.properties.data.items.$ref).toBe("#/components/schemas/Recipe");
+  });
+});
+
+describe("plant master data", () => {
+  it("answers cleaning systems with asset number, retirement and each stage's equipment, in process order", async () => {
+    const body = cleaningSystemPage.parse(await (await systemsRoute.GET(get("/cleaning-systems", tokens.techRead), noParams)).json());
+    for (const s of body.data) expect(s.stages.map((st) => st.position)).toEqual(s.stages.map((_, i) => i + 1));
+    const aw3 = body.data.find((s) => s.code === "AW-3")!;
+    expect(aw3).toHaveProperty("assetNumber");
+    expect(aw3.retiredAt).toBeNull();
+    expect(aw3.stages[0]).toHaveProperty("filterRatingUm");
+    const recipesBody = recipePage.parse(await (await recipesRoute.GET(get("/recipes", tokens.techRead), noParams)).json());
+    expect(recipesBody.data.every((r) => r.systemRetired === false)).toBe(true);
+  });
+
+  it("pages part families to the end, each naming the specification revision in force, and filters by specification", async () => {
+    const seen: string[] = [];
+    let cursor: string | null = null;
+    do {
+      const res = await partFamiliesRoute.GET(get(`/part-families?limit=1${cursor ? `&cursor=${cursor}` : ""}`, tokens.techRead), noParams);
+      expect(res.status).toBe(200);
+      const body = partFamilyPage.parse(await res.json());
+      seen.push(...body.data.map((f) => f.code));
+      cursor = body.nextCursor;
+    } while (cursor);
+    const stored = await t.db.select({ code: partFamilies.code }).from(partFamilies);
+    expect(seen).toEqual(stored.map((f) => f.code).sort());
+    const [vb] = await t.db.select({ f: partFamilies, spec: cleanlinessSpecs }).from(partFamilies).innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId)).where(eq(partFamilies.code, "PF-VB-210"));
+    const filtered = partFamilyPage.parse(await (await partFamiliesRoute.GET(get(`/part-families?specCode=${encodeURIComponent(vb.spec.code)}`, tokens.techRead), noParams)).json());
+    expect(filtered.data.map((f) => f.code)).toContain("PF-VB-210");
+    expect(filtered.data.every((f) => f.specCode === vb.spec.code)).toBe(true);
+    expect(filtered.data.find((f) => f.code === "PF-VB-210")).toMatchObject({ specId: vb.spec.id, specRevision: vb.spec.revision, wettedAreaCm2: vb.f.wettedAreaCm2 });
+    expect((await partFamiliesRoute.GET(get("/part-families?spec=x", tokens.techRead), noParams)).status).toBe(400);
+  });
+
+  it("answers specification revisions with their limits, filtered by status", async () => {
+    const all = specificationPage.parse(await (await specificationsRoute.GET(get("/specifications?limit=200", tokens.auditorRead), noParams)).json());
+    const stored = await t.db.select().from(cleanlinessSpecs);
+    expect(all.data).toHaveLength(stored.length);
+    const one = stored[0];
+    expect(all.data.find((s) => s.id === one.id)).toMatchObject({ code: one.code, revision: one.revision, ccc: one.ccc, gravimetricLimitMg: one.gravimetricLimitMg, customerApprovesChanges: one.customerApprovesChanges });
+    const inForce = specificationPage.parse(await (await specificationsRoute.GET(get("/specifications?status=in_force", tokens.auditorRead), noParams)).json());
+    expect(inForce.data.length).toBe(stored.filter((s) => s.status === "in_force").length);
+    expect((await specificationsRoute.GET(get("/specifications?status=draft", tokens.auditorRead), noParams)).status).toBe(400);
+  });
+
+  it("answers qualified combinations with their recipe version, part family and requalification due date", async () => {
+    const stored = await t.db.select().from(requalificationIntervals);
+    expect(stored.length).toBeGreaterThan(0);
+    const body = qualifiedCombinationPage.parse(await (await combinationsRoute.GET(get("/qualified-combinations?limit=200", tokens.techRead), noParams)).json());
+    expect(body.data.map((c) => c.id).sort()).toEqual(stored.map((c) => c.id).sort());
+    const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
+    const forFamily = qualifiedCombinationPage.parse(await (await combinationsRoute.GET(get(`/qualified-combinations?partFamilyId=${family.id}`, tokens.techRead), noParams)).json());
+    expect(forFamily.data.length).toBeGreaterThan(0);
+    expect(forFamily.data.every((c) => c.partFamilyCode === "PF-VB-210")).toBe(true);
+    const vb = forFamily.data.find((c) => c.recipeCode === "R-AW3-VB")!;
+    // A 12-month interval from its last qualification (the demo's interval): the due date is a calendar date a year on.
+    const interval = stored.find((s) => s.id === vb.id)!;
+    expect(vb.dueOn).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect(Number(vb.dueOn.slice(0, 4)) * 12 + Number(vb.dueOn.slice(5, 7))).toBe(Number(interval.lastQualifiedAt.slice(0, 4)) * 12 + Number(interval.lastQualifiedAt.slice(5, 7)) + interval.intervalMonths);
+    expect((await combinationsRoute.GET(get("/qualified-combinations?partFamilyId=nope", tokens.techRead), noParams)).status).toBe(400);
+    expect((await combinationsRoute.GET(get("/qualified-combinations"), noParams)).status).toBe(401);
+  });
+
+  it("lists the master-data paths in the OpenAPI description", async () => {
+    const doc = await openapiRoute.GET().json();
+    expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(["/part-families", "/specifications", "/qualified-combinations"]));
+    expect(doc.paths["/qualified-combinations"].get.parameters.map((p: { name: string }) => p.name)).toEqual(["limit", "cursor", "partFamilyId", "recipeId"]);
+    expect(doc.components.schemas.QualifiedCombinationPage.properties.data.items.$ref).toBe("#/components/schemas/QualifiedCombination");
   });
 });
 

@@ -203,6 +203,22 @@ const SAMPLES = {
     old: { status: "effective" },
     new: { status: "superseded", effectiveTo: AT, by: 3, changeRequest: "CR-2026-004" },
   },
+  // lib/server/changes/open-initial-validation.ts, end-change.ts
+  "recipe_version.validation_opened": {
+    eventType: "recipe_version.validation_opened",
+    recordType: "recipe_version",
+    recordId: UUID,
+    old: { status: "draft" },
+    new: { status: "proposed", changeRequest: "CR-2026-005", partFamily: "PF-NEW-1" },
+  },
+  "recipe_version.returned_to_draft": {
+    eventType: "recipe_version.returned_to_draft",
+    recordType: "recipe_version",
+    recordId: UUID,
+    old: { status: "proposed" },
+    new: { status: "draft", changeRequest: "CR-2026-005" },
+    reason: "Range to be narrowed first",
+  },
   "recipe_version.withdrawn": {
     eventType: "recipe_version.withdrawn",
     recordType: "recipe_version",

@@ -189,7 +189,7 @@ describe("a major change from proposal to closure", () => {
       await expect(refusal).rejects.not.toThrow(/Gravimetric/);
     }
     // Evidence on another version, or of another test type, is refused outright.
-    const other = await addRun({ crId, versionId: s.fromVersion.id, testType: "particle_cleanliness", number: "T-X1", samples: 29, outcome: "pass", status: "verified", performer: tech, verifier: eng });
+    const other = await addRun({ crId, versionId: s.fromVersion!.id, testType: "particle_cleanliness", number: "T-X1", samples: 29, outcome: "pass", status: "verified", performer: tech, verifier: eng });
     await expect(linkEvidence(people.engineer, { changeRequestId: crId, requirementId: particle.id, testRunId: other.id })).rejects.toThrow(/another recipe version/);
     await expect(linkEvidence(people.engineer, { changeRequestId: crId, requirementId: particle.id, testRunId: good.id })).rejects.toThrow(/not a particle cleanliness test/);
   });

@@ -1,13 +1,14 @@
 "use server";
 
 import { defineAction, type RevalidateTarget } from "@/lib/actions/define-action";
-import { changeIdSchema, endChangeSchema, intervalSchema, linkEvidenceSchema, openChangeSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
+import { changeIdSchema, endChangeSchema, intervalSchema, linkEvidenceSchema, openChangeSchema, openInitialValidationSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
 import { closeChange } from "@/lib/server/changes/close-change";
 import { endChange } from "@/lib/server/changes/end-change";
 import { linkEvidence } from "@/lib/server/changes/link-evidence";
 import { openChangeRequest } from "@/lib/server/changes/open-change-request";
+import { openInitialValidation } from "@/lib/server/changes/open-initial-validation";
 import { reopenChange } from "@/lib/server/changes/reopen-change";
 import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
@@ -22,6 +23,17 @@ export const openChangeAction = defineAction({
   input: openChangeSchema,
   run: async ({ user, input }) => {
     const { id } = await openChangeRequest(user, input);
+    return { redirect: `/changes/${id}`, id };
+  },
+  revalidate: (_input, result) => refresh(result.id),
+});
+
+/** A new recipe's draft first version, routed through its initial validation. */
+export const openInitialValidationAction = defineAction({
+  permission: "change.draft",
+  input: openInitialValidationSchema,
+  run: async ({ user, input }) => {
+    const { id } = await openInitialValidation(user, input);
     return { redirect: `/changes/${id}`, id };
   },
   revalidate: (_input, result) => refresh(result.id),

@@ -6,10 +6,12 @@ import {
   auditEvents,
   changeRequests,
   cleaningSystems,
+  cleanlinessSpecs,
   evidenceFiles,
   partFamilies,
   recipes,
   recipeVersions,
+  requalificationIntervals,
   signatures,
   sites,
   systemStages,
@@ -19,6 +21,8 @@ import {
 import { currentEventType } from "@/lib/audit/read";
 import { BadCursorError, decodeCursor, encodeCursor } from "@/lib/api/cursor";
 import { narrativeText } from "@/lib/changes/content";
+import { requalificationDue } from "@/lib/changes/periodic";
+import { formatDate } from "@/lib/format/date";
 import type {
   auditEventsQuery,
   AuditEventOut,
@@ -27,9 +31,15 @@ import type {
   changeRequestsQuery,
   CleaningSystemOut,
   pageQuery,
+  partFamiliesQuery,
+  PartFamilyOut,
+  qualifiedCombinationsQuery,
+  QualifiedCombinationOut,
   RecipeOut,
   recipesQuery,
   RecipeVersionOut,
+  specificationsQuery,
+  SpecificationOut,
   TestRunDetailOut,
   TestRunOut,
   testRunsQuery,
@@ -71,10 +81,27 @@ export async function listSystemsApi(q: z.output<typeof pageQuery>) {
       code: s.code,
       name: s.name,
       kind: s.kind,
+      assetNumber: s.assetNumber,
       description: s.description,
       active: s.active,
+      retiredAt: s.retiredAt,
+      retireReason: s.retireReason,
       site,
-      stages: stages.filter((st) => st.systemId === s.id).map((st) => ({ position: st.position, name: st.name, kind: st.kind, capabilities: st.capabilities, tankVolumeL: st.tankVolumeL })),
+      stages: stages
+        .filter((st) => st.systemId === s.id)
+        .map((st) => ({
+          position: st.position,
+          name: st.name,
+          kind: st.kind,
+          capabilities: st.capabilities as CleaningSystemOut["stages"][number]["capabilities"],
+          tankVolumeL: st.tankVolumeL,
+          filterRatingUm: st.filterRatingUm,
+          ultrasonicPowerW: st.ultrasonicPowerW,
+          ultrasonicFrequencyKHz: st.ultrasonicFrequencyKHz,
+          sprayPressureBar: st.sprayPressureBar,
+          injectionPressureBar: st.injectionPressureBar,
+          nozzleSet: st.nozzleSet,
+        })),
     })),
   };
 }
@@ -82,14 +109,14 @@ export async function listSystemsApi(q: z.output<typeof pageQuery>) {
 async function recipeRows(where: SQL | undefined, limit: number) {
   const db = getDb();
   const rows = await db
-    .select({ r: recipes, systemCode: cleaningSystems.code })
+    .select({ r: recipes, systemCode: cleaningSystems.code, systemAssetNumber: cleaningSystems.assetNumber, systemActive: cleaningSystems.active })
     .from(recipes)
     .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
     .where(where)
     .orderBy(asc(recipes.code), asc(recipes.id))
     .limit(limit);
   const versions = rows.length ? await db.select().from(recipeVersions).where(inArray(recipeVersions.recipeId, rows.map((r) => r.r.id))).orderBy(asc(recipeVersions.version)) : [];
-  return rows.map(({ r, systemCode }) => ({
+  return rows.map(({ r, systemCode, systemAssetNumber, systemActive }) => ({
     row: r,
     out: {
       id: r.id,
@@ -98,6 +125,8 @@ async function recipeRows(where: SQL | undefined, limit: number) {
       description: r.description,
       systemId: r.systemId,
       systemCode,
+      systemAssetNumber,
+      systemRetired: !systemActive,
       versions: versions.filter((v) => v.recipeId === r.id).map((v) => ({ id: v.id, version: v.version, status: v.status, effectiveFrom: v.effectiveFrom, effectiveTo: v.effectiveTo })),
     } satisfies RecipeOut,
   }));
@@ -134,6 +163,112 @@ export async function getRecipeVersionApi(recipeId: string, version: number): Pr
     detergent: snapshot.detergent,
     notes: snapshot.notes,
     stages: snapshot.stages.map((s, i) => ({ position: i + 1, name: s.name, kind: s.kind, mode: s.mode, parameters: s.parameters })),
+  };
+}
+
+export async function listPartFamiliesApi(q: z.output<typeof partFamiliesQuery>) {
+  const rows = await getDb()
+    .select({ f: partFamilies, specCode: cleanlinessSpecs.code, specRevision: cleanlinessSpecs.revision })
+    .from(partFamilies)
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .where(and(q.specCode ? eq(cleanlinessSpecs.code, q.specCode) : undefined, after(partFamilies.code, partFamilies.id, q.cursor)))
+    .orderBy(asc(partFamilies.code), asc(partFamilies.id))
+    .limit(q.limit + 1);
+  const out = page(rows, q.limit, (r) => [r.f.code, r.f.id]);
+  return {
+    nextCursor: out.nextCursor,
+    data: out.data.map(({ f, specCode, specRevision }): PartFamilyOut => ({
+      id: f.id,
+      code: f.code,
+      name: f.name,
+      partNumbers: f.partNumbers,
+      material: f.material,
+      wettedAreaCm2: f.wettedAreaCm2,
+      wettedAreaMethod: f.wettedAreaMethod,
+      wettedAreaNote: f.wettedAreaNote,
+      drawingNumber: f.drawingNumber,
+      drawingRevision: f.drawingRevision,
+      customer: f.customer,
+      description: f.description,
+      specId: f.specId,
+      specCode,
+      specRevision,
+    })),
+  };
+}
+
+/** Specification revisions, each its own record, ordered by their ids (stable across a new revision of another code). */
+export async function listSpecificationsApi(q: z.output<typeof specificationsQuery>) {
+  const rows = await getDb()
+    .select({ s: cleanlinessSpecs, sha256: evidenceFiles.sha256 })
+    .from(cleanlinessSpecs)
+    .leftJoin(evidenceFiles, eq(evidenceFiles.id, cleanlinessSpecs.sourceFileId))
+    .where(and(q.status ? eq(cleanlinessSpecs.status, q.status) : undefined, after(cleanlinessSpecs.code, cleanlinessSpecs.id, q.cursor)))
+    .orderBy(asc(cleanlinessSpecs.code), asc(cleanlinessSpecs.id))
+    .limit(q.limit + 1);
+  const out = page(rows, q.limit, (r) => [r.s.code, r.s.id]);
+  return {
+    nextCursor: out.nextCursor,
+    data: out.data.map(({ s, sha256 }): SpecificationOut => ({
+      id: s.id,
+      code: s.code,
+      name: s.name,
+      customer: s.customer,
+      documentNumber: s.documentNumber,
+      revision: s.revision,
+      status: s.status,
+      supersedesId: s.supersedesId,
+      supersededAt: s.supersededAt,
+      ccc: s.ccc,
+      maxMetallicUm: s.maxMetallicUm,
+      maxNonMetallicUm: s.maxNonMetallicUm,
+      maxFibreUm: s.maxFibreUm,
+      gravimetricLimitMg: s.gravimetricLimitMg,
+      gravimetricBasis: s.gravimetricBasis,
+      minWettingTensionMNm: s.minWettingTensionMNm,
+      visualCriteria: s.visualCriteria,
+      drynessCriteria: s.drynessCriteria,
+      extraRequirements: s.extraRequirements,
+      customerApprovesChanges: s.customerApprovesChanges,
+      sourceFileSha256: sha256 ?? null,
+      createdAt: s.createdAt,
+    })),
+  };
+}
+
+export async function listQualifiedCombinationsApi(q: z.output<typeof qualifiedCombinationsQuery>) {
+  const rows = await getDb()
+    .select({ i: requalificationIntervals, familyCode: partFamilies.code, v: recipeVersions, recipeCode: recipes.code })
+    .from(requalificationIntervals)
+    .innerJoin(partFamilies, eq(partFamilies.id, requalificationIntervals.partFamilyId))
+    .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(
+      and(
+        q.partFamilyId ? eq(requalificationIntervals.partFamilyId, q.partFamilyId) : undefined,
+        q.recipeId ? eq(recipeVersions.recipeId, q.recipeId) : undefined,
+        after(requalificationIntervals.id, requalificationIntervals.id, q.cursor),
+      ),
+    )
+    .orderBy(asc(requalificationIntervals.id))
+    .limit(q.limit + 1);
+  const out = page(rows, q.limit, (r) => [r.i.id, r.i.id]);
+  return {
+    nextCursor: out.nextCursor,
+    data: out.data.map(({ i, familyCode, v, recipeCode }): QualifiedCombinationOut => ({
+      id: i.id,
+      partFamilyId: i.partFamilyId,
+      partFamilyCode: familyCode,
+      recipeId: v.recipeId,
+      recipeCode,
+      recipeVersionId: v.id,
+      recipeVersion: v.version,
+      recipeVersionStatus: v.status,
+      lastQualifiedAt: i.lastQualifiedAt,
+      intervalMonths: i.intervalMonths,
+      dueOn: formatDate(requalificationDue(i.lastQualifiedAt, i.intervalMonths)),
+      basis: i.basis,
+    })),
   };
 }
 

@@ -5,6 +5,7 @@ import { changeRequests, recipeVersions, requalificationIntervals, signatures } 
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { closureProblem } from "@/lib/signatures/rules";
+import { addsPartFamily } from "@/lib/changes/workflow";
 import { setNarrativeStatus } from "./narrative-status";
 import { assertStep } from "./guard";
 import { notifyNext } from "./notify";
@@ -31,21 +32,23 @@ export async function closeChange(actor: AuditActor & { id: string }, input: { c
     if (problem) throw new UserFacingError(problem);
     const at = now.toISOString();
     const old = state.fromVersion;
-    await tx.update(recipeVersions).set({ status: "superseded", effectiveTo: at }).where(and(eq(recipeVersions.id, old.id), eq(recipeVersions.status, "effective")));
+    if (old) await tx.update(recipeVersions).set({ status: "superseded", effectiveTo: at }).where(and(eq(recipeVersions.id, old.id), eq(recipeVersions.status, "effective")));
     await tx.update(recipeVersions).set({ status: "effective", effectiveFrom: at }).where(eq(recipeVersions.id, state.toVersion.id));
     await tx.update(changeRequests).set({ status: "closed", closedAt: at }).where(eq(changeRequests.id, state.cr.id));
 
-    const carried = await tx.select().from(requalificationIntervals).where(eq(requalificationIntervals.recipeVersionId, old.id));
+    const carried = old ? await tx.select().from(requalificationIntervals).where(eq(requalificationIntervals.recipeVersionId, old.id)) : [];
     const families = new Map(carried.map((c) => [c.partFamilyId, c]));
-    if (state.assessmentRow.kind === "new_part_family" && state.assessmentRow.partFamilyId && !families.has(state.assessmentRow.partFamilyId)) {
+    // The family the change adds, or the one a new recipe was first validated for, is qualified today.
+    if (addsPartFamily(state.assessmentRow.kind) && state.assessmentRow.partFamilyId && !families.has(state.assessmentRow.partFamilyId)) {
       families.set(state.assessmentRow.partFamilyId, { partFamilyId: state.assessmentRow.partFamilyId, intervalMonths: 12, lastQualifiedAt: at } as (typeof carried)[number]);
     }
     for (const [partFamilyId, c] of families) {
       const lastQualifiedAt = state.impact === "major" ? at : c.lastQualifiedAt;
-      const [row] = await tx.insert(requalificationIntervals).values({ recipeVersionId: state.toVersion.id, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt }).returning();
+      const basis = state.assessmentRow.kind === "initial_validation" ? `Initial validation ${state.cr.number}` : null;
+      const [row] = await tx.insert(requalificationIntervals).values({ recipeVersionId: state.toVersion.id, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt, basis, qualifiedBy: basis ? actor.id : null }).returning();
       await appendAudit(tx, actor, { eventType: "requalification_interval.set", recordType: "requalification_interval", recordId: row.id, new: { recipeVersion: state.toVersion.version, partFamilyId, intervalMonths: c.intervalMonths, lastQualifiedAt } }, now);
     }
-    await appendAudit(tx, actor, { eventType: "recipe_version.superseded", recordType: "recipe_version", recordId: old.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: at, by: state.toVersion.version, changeRequest: state.cr.number } }, now);
+    if (old) await appendAudit(tx, actor, { eventType: "recipe_version.superseded", recordType: "recipe_version", recordId: old.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: at, by: state.toVersion.version, changeRequest: state.cr.number } }, now);
     await appendAudit(tx, actor, { eventType: "recipe_version.effective", recordType: "recipe_version", recordId: state.toVersion.id, old: { status: "proposed" }, new: { status: "effective", effectiveFrom: at, changeRequest: state.cr.number } }, now);
     await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "effective", now);
     await appendAudit(tx, actor, { eventType: "change.closed", recordType: "change_request", recordId: state.cr.id, old: { status: "verified" }, new: { status: "closed", effectiveVersion: state.toVersion.version } }, now);

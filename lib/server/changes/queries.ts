@@ -79,6 +79,21 @@ export async function getRecipePage(recipeId: string) {
   return { ...row, versions, effective, content, intervals, changes };
 }
 
+/** One version of a recipe as it stands (earlier, proposed or effective), for reading only, with the change requests that proposed it. */
+export async function getRecipeVersionPage(recipeId: string, version: number) {
+  const db = getDb();
+  const [row] = await db
+    .select({ recipe: recipes, system: cleaningSystems, v: recipeVersions })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .where(and(eq(recipeVersions.recipeId, recipeId), eq(recipeVersions.version, version)));
+  if (!row) return undefined;
+  const content = await loadRecipeSnapshot(db, row.v.id);
+  const proposedBy = await db.select().from(changeRequests).where(eq(changeRequests.toVersionId, row.v.id)).orderBy(desc(changeRequests.createdAt));
+  return { recipe: row.recipe, system: row.system, version: row.v, content, proposedBy };
+}
+
 export async function getMatrixPage() {
   const db = getDb();
   const [matrix, versions] = await Promise.all([getEffectiveMatrix(db), db.select().from(requalificationMatrices).orderBy(desc(requalificationMatrices.version))]);

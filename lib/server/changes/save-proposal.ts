@@ -4,9 +4,11 @@ import { getDb } from "@/db/client";
 import { changeRequestAssessments, changeRequests } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { assess, raiseProblem } from "@/lib/changes/assess";
+import { addsPartFamily } from "@/lib/changes/workflow";
 import type { Proposal } from "@/lib/schemas/change";
 import { UserFacingError } from "@/lib/server/errors";
 import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
+import { NO_RECIPE } from "./state";
 
 /**
  * Saves the engineer's proposal on a draft change request: the proposed recipe
@@ -19,16 +21,20 @@ import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
 export async function saveProposal(actor: AuditActor & { id: string }, input: Proposal, now = new Date()) {
   return getDb().transaction(async (tx) => {
     const [cr] = await tx.select().from(changeRequests).where(eq(changeRequests.id, input.changeRequestId));
-    if (!cr || !cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
+    if (!cr || !cr.toVersionId) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
     if (cr.status !== "draft") throw new UserFacingError("Only a draft change request can be edited: reopen it first.");
     const [a] = await tx.select().from(changeRequestAssessments).where(eq(changeRequestAssessments.changeRequestId, cr.id));
+    // An initial validation stays one (it has no effective version to change), and a change never becomes one.
+    if ((a.kind === "initial_validation") !== (input.kind === "initial_validation")) {
+      throw new UserFacingError(a.kind === "initial_validation" ? "This is the recipe's initial validation: its kind stays as it is." : "An initial validation is routed from a new recipe's draft, not from a change.", "kind");
+    }
     if (a.lockVersion !== input.lockVersion) {
       throw new UserFacingError("Someone saved this proposal after you opened it. Nothing was saved and your edits are still here: copy what you need, reload to see their version, and save again.");
     }
 
     const before = await loadRecipeSnapshot(tx, cr.toVersionId);
-    const from = await loadRecipeSnapshot(tx, cr.fromVersionId);
-    const computed = assess({ from, to: input.recipe, newPartFamily: input.kind === "new_part_family" ? input.partFamilyId : null, raisedTo: null, matrix: [] }).computed;
+    const from = cr.fromVersionId ? await loadRecipeSnapshot(tx, cr.fromVersionId) : NO_RECIPE;
+    const computed = assess({ from, to: input.recipe, newPartFamily: addsPartFamily(input.kind) ? input.partFamilyId : null, raisedTo: null, matrix: [] }).computed;
     const problem = raiseProblem(computed, input.raiseTo);
     if (problem) throw new UserFacingError(problem, "raiseTo");
 
@@ -39,7 +45,7 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
       .update(changeRequestAssessments)
       .set({
         kind: input.kind,
-        partFamilyId: input.kind === "new_part_family" ? input.partFamilyId : null,
+        partFamilyId: addsPartFamily(input.kind) ? input.partFamilyId : null,
         raisedTo,
         raiseReason: raisedTo ? input.raiseReason : null,
         lockVersion: a.lockVersion + 1,

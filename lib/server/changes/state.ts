@@ -12,11 +12,16 @@ import {
   requalificationMatrixRows,
 } from "@/db/schema";
 import { assess } from "@/lib/changes/assess";
+import type { RecipeSnapshot } from "@/lib/changes/diff";
+import { addsPartFamily } from "@/lib/changes/workflow";
 import type { MatrixRow } from "@/lib/changes/requalification";
 import type { MatrixSubject, TestType } from "@/lib/recipes/test-types";
 import { UserFacingError } from "@/lib/server/errors";
 import { changeContentHash } from "@/lib/changes/content";
 import { loadNarrative, loadRecipeSnapshot } from "./snapshot";
+
+/** What an initial validation compares the new recipe with: nothing was validated before it. */
+export const NO_RECIPE: RecipeSnapshot = { detergent: null, notes: null, stages: [] };
 
 export async function getEffectiveMatrix(db: Executor) {
   const [matrix] = await db.select().from(requalificationMatrices).where(eq(requalificationMatrices.status, "effective")).orderBy(desc(requalificationMatrices.version)).limit(1);
@@ -40,15 +45,17 @@ export async function loadChangeState(db: Executor, changeRequestId: string) {
     .where(eq(changeRequests.id, changeRequestId));
   if (!row) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
   const { cr, a, recipe } = row;
-  if (!cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("This change request has no recipe versions to compare.");
-  const [fromVersion] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, cr.fromVersionId));
+  // Only an initial validation has no "from": the recipe's first version is compared with nothing.
+  const initial = a.kind === "initial_validation";
+  if ((!cr.fromVersionId && !initial) || !cr.toVersionId) throw new UserFacingError("This change request has no recipe versions to compare.");
+  const fromVersion = cr.fromVersionId ? ((await db.select().from(recipeVersions).where(eq(recipeVersions.id, cr.fromVersionId)))[0] ?? null) : null;
   const [toVersion] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, cr.toVersionId));
-  const [from, to] = await Promise.all([loadRecipeSnapshot(db, cr.fromVersionId), loadRecipeSnapshot(db, cr.toVersionId)]);
+  const [from, to] = await Promise.all([cr.fromVersionId ? loadRecipeSnapshot(db, cr.fromVersionId) : NO_RECIPE, loadRecipeSnapshot(db, cr.toVersionId)]);
   const family = a.partFamilyId ? (await db.select().from(partFamilies).where(eq(partFamilies.id, a.partFamilyId)))[0] : undefined;
-  const newPartFamily = a.kind === "new_part_family" && family ? `${family.code} ${family.name}` : null;
+  const newPartFamily = addsPartFamily(a.kind) && family ? `${family.code} ${family.name}` : null;
 
   const matrix = cr.status === "draft" ? await getEffectiveMatrix(db) : null;
-  const assessment = assess({ from, to, newPartFamily, raisedTo: a.raisedTo, matrix: matrix?.rows ?? [] });
+  const assessment = assess({ from, to, newPartFamily, initial, raisedTo: a.raisedTo, matrix: matrix?.rows ?? [] });
   // Once submitted, the required tests are the ones frozen at submission, not a re-reading of a later matrix.
   const stored = cr.status === "draft" ? [] : await db.select().from(changeRequestTests).where(eq(changeRequestTests.changeRequestId, cr.id)).orderBy(asc(changeRequestTests.testType));
   const requirements =

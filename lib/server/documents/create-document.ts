@@ -1,7 +1,8 @@
 import "server-only";
 import { asc, eq, like } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { cleaningSystems, cleanlinessSpecs, documents, documentVersions, partFamilies, recipeParameters, recipes, recipeVersions, systemStages } from "@/db/schema";
+import { loadParametersInProcessOrder } from "@/db/recipe-content";
+import { cleaningSystems, cleanlinessSpecs, documents, documentVersions, partFamilies, recipes, recipeVersions, systemStages } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { can } from "@/lib/auth/permissions";
 import { documentNumber, numberPrefix } from "@/lib/documents/lifecycle";
@@ -30,7 +31,7 @@ export async function createDocument(actor: DocumentActor, input: CreateDocument
       : [];
     if (input.recipeVersionId && !recipe) throw new UserFacingError("Choose a recipe version from the list.", { kind: "invalid", field: "recipeVersionId" });
     if (recipe && system && recipe.r.systemId !== system.id) throw new UserFacingError("This recipe runs on another cleaning system.", { kind: "invalid", field: "recipeVersionId" });
-    const params = recipe ? await tx.select().from(recipeParameters).where(eq(recipeParameters.versionId, recipe.v.id)) : [];
+    const params = recipe ? await loadParametersInProcessOrder(tx, [recipe.v.id]) : [];
 
     const prefix = numberPrefix(input.type, system?.code ?? null);
     const taken = await tx.select({ number: documents.number }).from(documents).where(like(documents.number, `${prefix}%`));

@@ -5,6 +5,7 @@ import { changeRequestAssessments, changeRequests, documents, partFamilies, reci
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { runCombinationRefusal } from "@/lib/plant/combination";
 import type { CreateRun } from "@/lib/schemas/evidence";
+import { addsPartFamily } from "@/lib/changes/workflow";
 import { UserFacingError } from "@/lib/server/errors";
 
 /** Opens a test run with its context; samples are added afterwards. */
@@ -26,7 +27,7 @@ export async function createRun(actor: { id: string; name: string } & AuditActor
         throw new UserFacingError(`${cr.number} is requalified on ${proposed ? `${proposed.code} v${proposed.version}` : "its proposed version"}: choose that recipe version, or no change request.`, "changeRequestId");
       }
       const [assessment] = await tx.select().from(changeRequestAssessments).where(eq(changeRequestAssessments.changeRequestId, cr.id));
-      requalifiesIt = (assessment?.kind === "new_part_family" && assessment.partFamilyId === family.id) || (await qualifiedOn(cr.fromVersionId));
+      requalifiesIt = (!!assessment && addsPartFamily(assessment.kind) && assessment.partFamilyId === family.id) || (await qualifiedOn(cr.fromVersionId));
     }
     if (!input.changeRequestId && version.status === "proposed") {
       // Evidence gathered on a proposal before it is linked to its change request still requalifies that change's families.
@@ -35,7 +36,7 @@ export async function createRun(actor: { id: string; name: string } & AuditActor
         .from(changeRequests)
         .leftJoin(changeRequestAssessments, eq(changeRequestAssessments.changeRequestId, changeRequests.id))
         .where(and(eq(changeRequests.toVersionId, version.id), notInArray(changeRequests.status, ["closed", "rejected", "withdrawn"])));
-      for (const cr of open) if ((cr.kind === "new_part_family" && cr.addsFamily === family.id) || (await qualifiedOn(cr.fromVersionId))) requalifiesIt = true;
+      for (const cr of open) if ((!!cr.kind && addsPartFamily(cr.kind) && cr.addsFamily === family.id) || (await qualifiedOn(cr.fromVersionId))) requalifiesIt = true;
     }
     let protocolForIt = false;
     if (input.protocolDocumentId) {

@@ -1,11 +1,11 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
+import { loadParametersInProcessOrder } from "@/db/recipe-content";
 import {
   cleaningSystems,
   cleanlinessSpecs,
   partFamilies,
-  recipeParameters,
   recipes,
   recipeStages,
   recipeVersions,
@@ -51,9 +51,7 @@ export async function getCleaningSystem(systemId: string) {
   const rStages = versionIds.length
     ? await db.select().from(recipeStages).where(inArray(recipeStages.versionId, versionIds)).orderBy(asc(recipeStages.position))
     : [];
-  const params = versionIds.length
-    ? await db.select().from(recipeParameters).where(inArray(recipeParameters.versionId, versionIds))
-    : [];
+  const params = await loadParametersInProcessOrder(db, versionIds);
   return {
     ...row.system,
     siteName: row.site.name,

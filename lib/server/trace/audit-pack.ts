@@ -22,7 +22,7 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
   const runSignatureIds = evidence.flatMap((r) => r.signatures.map((s) => s.id));
   const recordIds = [
     changeRequestId,
-    state.fromVersion.id,
+    ...(state.fromVersion ? [state.fromVersion.id] : []),
     state.toVersion.id,
     ...(state.narrative ? [state.narrative.id] : []),
     ...signatures.map((s) => s.id),

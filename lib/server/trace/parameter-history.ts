@@ -31,6 +31,9 @@ export async function listTraceableParameters() {
       name: recipeParameters.name,
       unit: recipeParameters.unit,
       stage: recipeStages.name,
+      // Bare columns of the latest version's row (as name and stage above): its place in the process.
+      stagePosition: recipeStages.position,
+      order: sql<number>`${recipeParameters}.rowid`,
       latest: sql<number>`max(${recipeVersions.version})`,
       versions: sql<number>`count(*)`,
       recipeId: recipes.id,
@@ -46,7 +49,10 @@ export async function listTraceableParameters() {
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
     .groupBy(recipes.id, recipeParameters.key);
-  return rows.map(({ latest: _l, ...r }) => r).sort((a, b) => a.systemCode.localeCompare(b.systemCode) || a.recipeCode.localeCompare(b.recipeCode) || a.key.localeCompare(b.key));
+  // Parameters of a recipe in process order (wash before drying), as everywhere else.
+  return rows
+    .sort((a, b) => a.systemCode.localeCompare(b.systemCode) || a.recipeCode.localeCompare(b.recipeCode) || a.stagePosition - b.stagePosition || a.order - b.order)
+    .map(({ latest: _l, order: _o, stagePosition: _p, ...r }) => r);
 }
 export type TraceableParameter = Awaited<ReturnType<typeof listTraceableParameters>>[number];
 

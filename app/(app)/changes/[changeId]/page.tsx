@@ -56,8 +56,8 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
             <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
               {recipe.code}
             </Link>{" "}
-            version {fromVersion.version} → proposed version {toVersion.version}
-            {page.family ? ` · adds ${page.family.code}` : ""} · opened by {page.author} on {formatDate(cr.createdAt)}
+            {fromVersion ? `version ${fromVersion.version} → proposed version ${toVersion.version}` : `first version ${toVersion.version}`}
+            {page.family ? (fromVersion ? ` · adds ${page.family.code}` : ` · validated for ${page.family.code}`) : ""} · opened by {page.author} on {formatDate(cr.createdAt)}
           </>
         }
       />

@@ -82,6 +82,13 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
           </details>
         )}
       </section>
+      {can(user.roles, "recipe.edit") && system.active && (
+        <p className="mb-4">
+          <Link href={`/systems/${system.id}/recipes/new`} className="text-sm font-medium text-brand-800 hover:underline">
+            New recipe for {system.code}
+          </Link>
+        </p>
+      )}
       {system.recipes.map((recipe) => {
         const v = recipe.effectiveVersion;
         return (

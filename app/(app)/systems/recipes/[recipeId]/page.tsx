@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { IntervalForm } from "@/components/changes/interval-form";
+import { InitialValidationForm } from "@/components/changes/initial-validation-form";
 import { OpenChangeForm } from "@/components/changes/open-change-form";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { PageHeader } from "@/components/ui/page-header";
@@ -11,7 +12,8 @@ import { OPEN_STATUSES, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requalificationDue } from "@/lib/changes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRecipePage } from "@/lib/server/changes/queries";
-import { openChangeAction, setRequalificationIntervalAction } from "../../../changes/actions";
+import { listPartFamilies } from "@/lib/server/plant/queries";
+import { openChangeAction, openInitialValidationAction, setRequalificationIntervalAction } from "../../../changes/actions";
 import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Recipe" };
@@ -24,6 +26,9 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
   const { recipe, system, effective, content, versions, intervals, changes } = page;
   const open = changes.find((c) => OPEN_STATUSES.includes(c.status));
   const canSeeChanges = can(user.roles, "changes.view");
+  // A new recipe's draft first version, waiting to be routed through its initial validation.
+  const draft = !effective && !open ? versions.find((v) => v.status === "draft") : undefined;
+  const families = draft && can(user.roles, "change.draft") ? (await listPartFamilies()).map((r) => r.family) : [];
   return (
     <>
       <PageHeader
@@ -47,6 +52,17 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
           {content && effective && <RecipeTable content={content} caption={`Parameters of version ${effective.version}`} />}
         </section>
         <div className="space-y-6">
+          {draft && can(user.roles, "change.draft") && (
+            <section aria-labelledby="validate" className="rounded-lg border border-stone-200 bg-white p-5">
+              <h2 id="validate" className="mb-1 text-base font-semibold">
+                Initial validation
+              </h2>
+              <p className="mb-3 text-sm text-stone-600">
+                Version {draft.version} is a draft. It becomes effective only when its validation is approved, its evidence gate holds and a second person verifies it.
+              </p>
+              <InitialValidationForm action={openInitialValidationAction} recipeId={recipe.id} families={families} />
+            </section>
+          )}
           {effective && can(user.roles, "change.draft") && (
             <section aria-labelledby="change" className="rounded-lg border border-stone-200 bg-white p-5">
               <h2 id="change" className="mb-3 text-base font-semibold">
@@ -71,7 +87,9 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
             <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
               {versions.map((v) => (
                 <li key={v.id} className="flex justify-between px-3 py-2">
-                  <span>Version {v.version}</span>
+                  <Link href={`/systems/recipes/${recipe.id}/versions/${v.version}`} className="text-brand-800 hover:underline">
+                    Version {v.version}
+                  </Link>
                   <span>
                     {humanize(v.status)}
                     {v.effectiveFrom ? ` · from ${formatDate(v.effectiveFrom)}` : ""}
