@@ -1,7 +1,7 @@
 import "server-only";
 import { getDb } from "@/db/client";
 import { evidenceFiles } from "@/db/schema";
-import { appendAudit, type AuditActor } from "@/lib/audit";
+import { appendAudit } from "@/lib/audit";
 import { checkUpload, FileCheckError } from "@/lib/evidence/files";
 import { UserFacingError } from "@/lib/server/errors";
 import { sha256OfBytes, uploadLimitBytes } from "@/lib/server/evidence/store-file";
@@ -12,7 +12,7 @@ import { getStore } from "@/lib/storage";
  * to no run (the run-bound store requires an open run). The register row cites the file's id, so
  * an auditor downloads exactly the document the limits were typed from, re-hashed on the way out.
  */
-export async function storeSpecSource(actor: AuditActor, input: { name: string; bytes: Uint8Array }) {
+export async function storeSpecSource(actor: { id: string; name: string }, input: { name: string; bytes: Uint8Array }) {
   let checked;
   try {
     checked = checkUpload({ name: input.name, bytes: input.bytes, maxBytes: uploadLimitBytes() });
