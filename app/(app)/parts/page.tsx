@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { linkButton, PartsNav } from "@/components/parts/parts-nav";
+import { linkButton } from "@/components/parts/link-styles";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -22,7 +22,6 @@ export default async function PartsPage() {
         description="Part families with their wetted surface and the cleanliness specification each must meet."
         actions={manage ? <Link href="/parts/families/new" className={linkButton}>New part family</Link> : undefined}
       />
-      <PartsNav current="/parts" />
       {families.length === 0 ? (
         <EmptyState title="No part families">Engineers add part families with their material, wetted area and specification, by hand or from a CSV file.</EmptyState>
       ) : (

@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { PartsNav } from "@/components/parts/parts-nav";
 import { QualifyForm } from "@/components/parts/qualify-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -20,7 +19,6 @@ export default async function CombinationsPage() {
   return (
     <>
       <PageHeader title="Qualified combinations" description="Each recipe version validated for a part family, on what evidence, and when it is due for periodic requalification. A test run opens only on a qualified combination, or under a validation protocol for it." />
-      <PartsNav current="/parts/combinations" />
       <Table caption="Qualified combinations">
         <THead>
           <Th>Part family</Th>

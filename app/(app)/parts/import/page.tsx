@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { MasterDataImport } from "@/components/parts/master-data-import";
-import { PartsNav, secondaryLink } from "@/components/parts/parts-nav";
+import { secondaryLink } from "@/components/parts/link-styles";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -19,7 +19,6 @@ export default async function PartsImportPage() {
   return (
     <>
       <PageHeader title="Import and export master data" description="Bring a plant's part families and customer specifications in from a spreadsheet, and take the master data out again." />
-      <PartsNav current="/parts/import" />
       {manage && (
         <section aria-labelledby="import" className="mb-8 max-w-4xl">
           <h2 id="import" className="mb-1 text-lg font-semibold">Import from CSV</h2>

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { z } from "zod";
-import { linkButton, PartsNav, secondaryLink } from "@/components/parts/parts-nav";
+import { linkButton, secondaryLink } from "@/components/parts/link-styles";
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
@@ -32,7 +32,6 @@ export default async function SpecRegisterPage({ searchParams }: { searchParams:
         description="Customer cleanliness specifications by revision. A new revision supersedes the one in force; runs keep the revision they were tested against."
         actions={can(user.roles, "parts.manage") ? <Link href="/parts/specs/new" className={linkButton}>New specification</Link> : undefined}
       />
-      <PartsNav current="/parts/specs" />
       <form method="get" className="mb-4 flex flex-wrap items-end gap-3" aria-label="Filter specifications">
         <SelectField
           name="status"

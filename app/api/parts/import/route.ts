@@ -12,7 +12,7 @@ const kindSchema = z.enum(["part_families", "specifications"]);
 const mappingSchema = z.record(z.string().max(60), storedText().max(200));
 // Master data for one plant runs to hundreds of rows; a larger file is more likely a wrong file [practice].
 const MAX_ROWS = 5000;
-const WHAT = { part_families: "part families", specifications: "specifications" } as const;
+const WHAT = { part_families: ["part family", "part families"], specifications: ["specification", "specifications"] } as const;
 
 /**
  * Imports part families or customer specifications from a CSV file: every row is checked with the
@@ -48,5 +48,5 @@ export const POST = defineRoute({ permission: "parts.manage" }, async ({ request
   if (parsed.errors.length) return refuse(`${parsed.errors.length} problem(s) in the file. Nothing was imported.`, parsed.errors);
   const saved = kind.data === "part_families" ? await importMasterData(user, { kind: "part_families", rows: parsed.rows as never }) : await importMasterData(user, { kind: "specifications", rows: parsed.rows as never });
   if (!saved.ok) return refuse(`${saved.errors.length} row(s) clash with the register. Nothing was imported.`, saved.errors);
-  return NextResponse.json({ ok: true, message: `${saved.imported} ${WHAT[kind.data]} imported.` });
+  return NextResponse.json({ ok: true, message: `${saved.imported} ${WHAT[kind.data][saved.imported === 1 ? 0 : 1]} imported.` });
 });

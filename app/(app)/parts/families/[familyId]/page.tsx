@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { PartFamilyForm } from "@/components/parts/part-family-form";
-import { PartsNav } from "@/components/parts/parts-nav";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { withUnit } from "@/lib/format/number";
@@ -23,7 +22,6 @@ export default async function PartFamilyPage({ params }: { params: Promise<{ fam
   return (
     <>
       <PageHeader title={`${family.code} · ${family.name}`} description={`${family.material}; ${withUnit(family.wettedAreaCm2, "cm²")} wetted area per part.${inUse ? " In use: runs or qualified recipes refer to it." : ""}`} />
-      <PartsNav current="/parts" />
       {manage ? (
         <PartFamilyForm
           action={updatePartFamilyAction}

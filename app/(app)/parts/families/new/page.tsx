@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { PartFamilyForm } from "@/components/parts/part-family-form";
-import { PartsNav } from "@/components/parts/parts-nav";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -15,7 +14,6 @@ export default async function NewPartFamilyPage() {
   return (
     <>
       <PageHeader title="New part family" description="A family is the parts one recipe cleans to one specification: same material, similar geometry and wetted area." />
-      <PartsNav current="/parts" />
       {specs.length === 0 ? (
         <EmptyState title="No specification in force">Register the customer specification first: every part family must meet one.</EmptyState>
       ) : (

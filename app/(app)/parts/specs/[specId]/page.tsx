@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
-import { PartsNav } from "@/components/parts/parts-nav";
 import { SpecForm } from "@/components/parts/spec-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -44,7 +43,6 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
   return (
     <>
       <PageHeader title={`${spec.code} rev ${spec.revision} · ${spec.name}`} />
-      <PartsNav current="/parts/specs" />
       <div className="mb-8 grid gap-6 lg:grid-cols-2">
         <section aria-labelledby="limits" className="rounded-lg border border-stone-200 bg-white p-4 text-sm">
           <h2 id="limits" className="mb-2 font-semibold">Limits</h2>

@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import { PartsNav } from "@/components/parts/parts-nav";
 import { SpecForm } from "@/components/parts/spec-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -14,7 +13,6 @@ export default async function NewSpecPage() {
   return (
     <>
       <PageHeader title="New specification" description="A customer's cleanliness specification as issued: its document, revision and limits." />
-      <PartsNav current="/parts/specs" />
       <SpecForm action={createSpecAction} families={families} />
     </>
   );
