@@ -9,6 +9,7 @@ import { createPartFamilyAction, qualifyCombinationAction, reviseSpecAction, upd
 import { GET as exportMasterData } from "@/app/api/parts/export/route";
 import { POST as importMasterData } from "@/app/api/parts/import/route";
 import { POST as uploadSpecSource } from "@/app/api/parts/specs/source/route";
+import { listSpecRegister } from "@/lib/server/plant/parts-queries";
 import { localStore, setStore } from "@/lib/storage";
 import { actAs, invoke, peopleByRole } from "./support/endpoints";
 import { createTestDatabase } from "./support/test-db";
@@ -132,5 +133,16 @@ describe("master data files", () => {
     const [row] = await t.db.select().from(evidenceFiles).where(eq(evidenceFiles.id, answer.file.id));
     expect(row).toMatchObject({ runId: null, mimeType: "application/pdf", sha256: answer.file.sha256 });
     expect((await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, row.id))).map((e) => e.action)).toEqual(["evidence_file.spec_source_uploaded"]);
+  });
+});
+
+describe("the register's filter", () => {
+  it("finds revisions by status and by a word in code, title, customer or document, wildcards taken literally", async () => {
+    const superseded = await listSpecRegister({ status: "superseded", q: "vb-01" });
+    expect(superseded.map((s) => `${s.code} ${s.status}`)).toEqual(["CS-VB-01 superseded"]);
+    const byCustomer = await listSpecRegister({ status: "in_force", q: "OSTWICK" });
+    expect(byCustomer.map((s) => s.code)).toContain("CS-IM-1");
+    expect(await listSpecRegister({ status: "all", q: "%" })).toEqual([]);
+    expect((await listSpecRegister({ status: "all", q: "" })).length).toBeGreaterThan(byCustomer.length);
   });
 });

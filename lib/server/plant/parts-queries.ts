@@ -1,5 +1,6 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, like, or, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, or, sql, type SQL } from "drizzle-orm";
+import type { SQLiteColumn } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import { cleanlinessSpecs, partFamilies, recipes, recipeVersions, requalificationIntervals, testRuns, users } from "@/db/schema";
 import { requalificationDue } from "@/lib/changes/periodic";
@@ -27,8 +28,9 @@ export async function listSpecRegister({ status, q }: { status: SpecStatusFilter
   if (status !== "all") where.push(eq(cleanlinessSpecs.status, status));
   const word = q.trim();
   if (word) {
-    const pattern = `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    where.push(or(like(cleanlinessSpecs.code, pattern), like(cleanlinessSpecs.name, pattern), like(cleanlinessSpecs.customer, pattern), like(cleanlinessSpecs.documentNumber, pattern))!);
+    // instr, not LIKE: the word is matched as typed, with no wildcard characters to escape.
+    const has = (column: SQLiteColumn) => sql`instr(lower(coalesce(${column}, '')), ${word.toLowerCase()}) > 0`;
+    where.push(or(has(cleanlinessSpecs.code), has(cleanlinessSpecs.name), has(cleanlinessSpecs.customer), has(cleanlinessSpecs.documentNumber))!);
   }
   return getDb()
     .select()
