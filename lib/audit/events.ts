@@ -421,6 +421,10 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       storedNew: z.boolean(),
     }),
   }),
+  // A customer specification's source document: stored like evidence, bound to no run.
+  event("evidence_file.spec_source_uploaded", "evidence_file", {
+    new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
+  }),
   event("evidence_file.downloaded", "evidence_file", { new: obj({ sha256, name: text }) }),
   event("evidence_file.integrity_failed", "evidence_file", {
     new: obj({ expectedSha256: sha256, actualSha256: sha256.nullable(), name: text }),

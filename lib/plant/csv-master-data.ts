@@ -180,3 +180,6 @@ export function groupStages(rows: ParameterRow[]) {
   });
   return stages;
 }
+
+/** The fields a file of this kind cannot do without, for the column-mapping screen. */
+export const masterDataNeeds = (kind: MasterDataKind): readonly string[] => FORMATS[kind].needs;

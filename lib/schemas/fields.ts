@@ -29,7 +29,8 @@ export const checkbox = z.preprocess((v) => v === true || v === "on" || v === "t
 export const textList = (label: string, maxItems: number, maxLength: number) =>
   z.preprocess(
     (v) => {
-      const items = Array.isArray(v) ? v.map(String) : blank(v) ? [] : String(v).split(/[;,\n]+/);
+      // A form posts the typed text as a one-item list (the schema takes a list): split each item too.
+      const items = (Array.isArray(v) ? v.map(String) : blank(v) ? [] : [String(v)]).flatMap((s) => s.split(/[;,\n]+/));
       return [...new Set(items.map((s) => s.trim()).filter((s) => s !== ""))];
     },
     z.array(storedText().max(maxLength, `Each ${label} has at most ${maxLength} characters.`)).max(maxItems, `At most ${maxItems} ${label}s.`),

@@ -469,6 +469,12 @@ const SAMPLES = {
     new: { status: "superseded", by: UUID },
     reason: "Wrong membrane",
   },
+  "evidence_file.spec_source_uploaded": {
+    eventType: "evidence_file.spec_source_uploaded",
+    recordType: "evidence_file",
+    recordId: UUID,
+    new: { sha256: H, name: "OFP-CL-220 rev A.pdf", mimeType: "application/pdf", sizeBytes: 48211, storedNew: true },
+  },
   "evidence_file.uploaded": {
     eventType: "evidence_file.uploaded",
     recordType: "evidence_file",

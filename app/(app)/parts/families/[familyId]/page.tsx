@@ -1,0 +1,37 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { z } from "zod";
+import { PartFamilyForm } from "@/components/parts/part-family-form";
+import { PageHeader } from "@/components/ui/page-header";
+import { can } from "@/lib/auth/permissions";
+import { withUnit } from "@/lib/format/number";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { familyInUse, getPartFamily, specsInForce } from "@/lib/server/plant/parts-queries";
+import { updatePartFamilyAction } from "../../actions";
+
+export const metadata: Metadata = { title: "Part family" };
+
+export default async function PartFamilyPage({ params }: { params: Promise<{ familyId: string }> }) {
+  const user = await requirePageUser("parts.view");
+  const id = z.uuid().safeParse((await params).familyId);
+  if (!id.success) notFound();
+  const family = await getPartFamily(id.data);
+  if (!family) notFound();
+  const manage = can(user.roles, "parts.manage");
+  const [specs, inUse] = await Promise.all([specsInForce(), familyInUse(family.id)]);
+  return (
+    <>
+      <PageHeader title={`${family.code} · ${family.name}`} description={`${family.material}; ${withUnit(family.wettedAreaCm2, "cm²")} wetted area per part.${inUse ? " In use: runs or qualified recipes refer to it." : ""}`} />
+      {manage ? (
+        <PartFamilyForm
+          action={updatePartFamilyAction}
+          values={family}
+          specs={specs}
+          inUse={inUse}
+        />
+      ) : (
+        <p className="text-sm text-stone-600">Only engineers and administrators edit part families.</p>
+      )}
+    </>
+  );
+}
