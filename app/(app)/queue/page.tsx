@@ -8,7 +8,7 @@ export const metadata: Metadata = { title: "My queue" };
 
 export default async function QueuePage() {
   const user = await requirePageUser("queue.view");
-  const initial = await getQueue(user);
+  const { items: initial } = await getQueue(user);
   return (
     <>
       <PageHeader title="My queue" description={`What is waiting for you, ${user.name.split(" ")[0]}.`} />
