@@ -20,8 +20,17 @@ export { loadRecipeSnapshot, writeRecipeContent } from "@/db/recipe-content";
 
 export async function loadNarrative(db: Executor, documentId: string | null) {
   if (!documentId) return null;
-  const [v] = await db.select().from(documentVersions).where(eq(documentVersions.documentId, documentId)).orderBy(asc(documentVersions.version));
-  return v ?? null;
+  return (await loadNarratives(db, [documentId])).get(documentId) ?? null;
+}
+
+/** The first version of each narrative document (a change's narrative has one), keyed by document. */
+export async function loadNarratives(db: Executor, documentIds: (string | null)[]) {
+  const ids = [...new Set(documentIds.filter((d): d is string => d !== null))];
+  const first = new Map<string, typeof documentVersions.$inferSelect>();
+  if (ids.length === 0) return first;
+  const rows = await db.select().from(documentVersions).where(inArray(documentVersions.documentId, ids)).orderBy(asc(documentVersions.version));
+  for (const v of rows) if (!first.has(v.documentId)) first.set(v.documentId, v);
+  return first;
 }
 
 /** The gate of one change request, read from the stored runs and their signatures. */
