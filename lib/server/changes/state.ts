@@ -70,8 +70,9 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
 
   const build = (id: string) => {
     const { cr, a, recipe } = rowOf.get(id)!;
-    const fromVersion = versions.find((v) => v.id === cr.fromVersionId);
-    const toVersion = versions.find((v) => v.id === cr.toVersionId);
+    // The foreign keys guarantee both versions exist.
+    const fromVersion = versions.find((v) => v.id === cr.fromVersionId)!;
+    const toVersion = versions.find((v) => v.id === cr.toVersionId)!;
     const from = snapshots.get(cr.fromVersionId!)!;
     const to = snapshots.get(cr.toVersionId!)!;
     const family = a.partFamilyId ? families.find((f) => f.id === a.partFamilyId) : undefined;
