@@ -9,21 +9,39 @@ import type { RecipeSnapshot } from "@/lib/changes/diff";
  * Used by the server and by the seed, so both hash the same content.
  */
 export async function loadRecipeSnapshot(db: Executor, versionId: string): Promise<RecipeSnapshot> {
-  const [version] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, versionId));
-  const stages = await db.select().from(recipeStages).where(eq(recipeStages.versionId, versionId)).orderBy(asc(recipeStages.position));
-  const params = await db.select().from(recipeParameters).where(eq(recipeParameters.versionId, versionId)).orderBy(sql`rowid`);
-  return {
-    detergent: version?.detergent ?? null,
-    notes: version?.notes ?? null,
-    stages: stages.map((s) => ({
-      name: s.name,
-      kind: s.kind,
-      mode: s.mode,
-      parameters: params
-        .filter((p) => p.stageId === s.id)
-        .map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: p.setpoint, unit: p.unit, validatedLow: p.validatedLow, validatedHigh: p.validatedHigh, critical: p.critical })),
-    })),
-  };
+  return (await loadRecipeSnapshots(db, [versionId])).get(versionId)!;
+}
+
+/** Several versions' snapshots in three statements, whatever their number (a trace compares dozens). */
+export async function loadRecipeSnapshots(db: Executor, versionIds: string[]): Promise<Map<string, RecipeSnapshot>> {
+  const ids = [...new Set(versionIds)];
+  const snapshots = new Map<string, RecipeSnapshot>();
+  if (ids.length === 0) return snapshots;
+  const versions = await db.select().from(recipeVersions).where(inArray(recipeVersions.id, ids));
+  const stages = await db.select().from(recipeStages).where(inArray(recipeStages.versionId, ids)).orderBy(asc(recipeStages.position));
+  const params = await db.select().from(recipeParameters).where(inArray(recipeParameters.versionId, ids)).orderBy(sql`rowid`);
+  const paramsOfStage = new Map<string, typeof params>();
+  for (const p of params) {
+    const list = paramsOfStage.get(p.stageId);
+    if (list) list.push(p);
+    else paramsOfStage.set(p.stageId, [p]);
+  }
+  for (const id of ids) {
+    const version = versions.find((v) => v.id === id);
+    snapshots.set(id, {
+      detergent: version?.detergent ?? null,
+      notes: version?.notes ?? null,
+      stages: stages
+        .filter((s) => s.versionId === id)
+        .map((s) => ({
+          name: s.name,
+          kind: s.kind,
+          mode: s.mode,
+          parameters: (paramsOfStage.get(s.id) ?? []).map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: p.setpoint, unit: p.unit, validatedLow: p.validatedLow, validatedHigh: p.validatedHigh, critical: p.critical })),
+        })),
+    });
+  }
+  return snapshots;
 }
 
 /**

@@ -1,4 +1,4 @@
-import { count, eq } from "drizzle-orm";
+import { count, eq, sql } from "drizzle-orm";
 import { pathToFileURL } from "node:url";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
 import { hashPassword } from "@/lib/auth/password";
@@ -160,6 +160,8 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     await seedEvidence(tx);
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
   });
+  // The statistics taken at migration described empty tables: the planner needs the seeded ones.
+  await db.run(sql`ANALYZE`);
   return { seeded: true };
 }
 

@@ -3,68 +3,141 @@
 import { useQuery } from "@tanstack/react-query";
 import { AlarmClock, CalendarClock } from "lucide-react";
 import Link from "next/link";
-import type { QueueEntry } from "@/lib/server/queue/get-queue";
+import type { QueuePage } from "@/lib/server/queue/get-queue";
 import { EmptyState } from "@/components/ui/empty-state";
 import { formatDate } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
-async function fetchQueue(): Promise<QueueEntry[]> {
-  const response = await fetch("/api/queue", { cache: "no-store" });
-  if (!response.ok) throw new Error((await response.json().catch(() => null))?.error ?? "The queue could not be loaded.");
-  return (await response.json()).items;
+function pageQuery(kind: string | null, page: number) {
+  return kind === null ? "" : `?${new URLSearchParams({ kind, page: String(page) })}`;
 }
 
-/** Fetched in the client and refreshed every 30 s and whenever the tab regains focus. */
-export function QueueList({ initial }: { initial: QueueEntry[] }) {
-  const { data, error, isFetching } = useQuery({
-    queryKey: ["queue"],
-    queryFn: fetchQueue,
+async function fetchQueue(kind: string | null, page: number): Promise<QueuePage> {
+  const response = await fetch(`/api/queue${pageQuery(kind, page)}`, { cache: "no-store" });
+  if (!response.ok)
+    throw new Error(
+      (await response.json().catch(() => null))?.error ?? "The queue could not be loaded.",
+    );
+  return response.json();
+}
+
+/** Fetched in the client and refreshed every 30 s and whenever the tab regains focus; long kinds page in the URL. */
+export function QueueList({ initial }: { initial: QueuePage }) {
+  const {
+    data: queue,
+    error,
+    isFetching,
+  } = useQuery({
+    queryKey: ["queue", initial.kind, initial.page],
+    queryFn: () => fetchQueue(initial.kind, initial.page),
     initialData: initial,
     refetchInterval: 30_000,
     refetchOnWindowFocus: true,
   });
-  if (error) return <p role="alert" className="text-sm text-red-800">{error.message}</p>;
-  if (data.length === 0) {
+  if (error)
+    return (
+      <p role="alert" className="text-sm text-red-800">
+        {error.message}
+      </p>
+    );
+  const data = queue.items;
+  if (data.length === 0 && queue.kind === null) {
     return (
       <EmptyState title="Nothing is waiting for you">
-        Reviews and approvals assigned to you, drafts sent back to you, tests to perform or verify, and bath
-        maintenance that falls due appear here as they arise.
+        Reviews and approvals assigned to you, drafts sent back to you, tests to perform or verify,
+        and bath maintenance that falls due appear here as they arise.
       </EmptyState>
     );
   }
   return (
-    <Table caption="Waiting for you" busy={isFetching}>
-      <THead>
-        <Th>What</Th>
-        <Th>Item</Th>
-        <Th>Due</Th>
-      </THead>
-      <TBody>
-        {data.map((item) => (
-          <tr key={item.id}>
-            <Td className="font-medium whitespace-nowrap">{item.kind}</Td>
-            <Td>
-              <Link href={item.href} className="font-medium text-brand-800 hover:underline">
-                {item.title}
-              </Link>
-              <span className="block text-xs text-stone-600">{item.detail}</span>
-            </Td>
-            <Td className="whitespace-nowrap">
-              {item.due === null ? (
-                "—"
-              ) : item.overdue ? (
-                <span className="inline-flex items-center gap-1 font-medium text-red-800">
-                  <AlarmClock className="h-4 w-4" aria-hidden="true" /> Overdue since {formatDate(item.due)}
-                </span>
-              ) : (
-                <span className="inline-flex items-center gap-1">
-                  <CalendarClock className="h-4 w-4" aria-hidden="true" /> {formatDate(item.due)}
-                </span>
-              )}
-            </Td>
-          </tr>
-        ))}
-      </TBody>
-    </Table>
+    <>
+      <Table caption="Waiting for you" busy={isFetching}>
+        <THead>
+          <Th>What</Th>
+          <Th>Item</Th>
+          <Th>Due</Th>
+        </THead>
+        <TBody>
+          {data.map((item) => (
+            <tr key={item.id}>
+              <Td className="font-medium whitespace-nowrap">{item.kind}</Td>
+              <Td>
+                <Link href={item.href} className="font-medium text-brand-800 hover:underline">
+                  {item.title}
+                </Link>
+                <span className="block text-xs text-stone-600">{item.detail}</span>
+              </Td>
+              <Td className="whitespace-nowrap">
+                {item.due === null ? (
+                  "—"
+                ) : item.overdue ? (
+                  <span className="inline-flex items-center gap-1 font-medium text-red-800">
+                    <AlarmClock className="h-4 w-4" aria-hidden="true" /> Overdue since{" "}
+                    {formatDate(item.due)}
+                  </span>
+                ) : (
+                  <span className="inline-flex items-center gap-1">
+                    <CalendarClock className="h-4 w-4" aria-hidden="true" /> {formatDate(item.due)}
+                  </span>
+                )}
+              </Td>
+            </tr>
+          ))}
+        </TBody>
+      </Table>
+      <QueuePager queue={queue} />
+    </>
+  );
+}
+
+/** Kinds with more waiting than one page shows, each with a link to its next page (the state lives in the URL). */
+function QueuePager({ queue }: { queue: QueuePage }) {
+  const shown = (kind: string) => queue.items.filter((i) => i.kind === kind).length;
+  if (queue.kind !== null) {
+    const total = queue.kinds.find((k) => k.kind === queue.kind)?.total ?? 0;
+    const pages = Math.max(1, Math.ceil(total / queue.pageSize));
+    return (
+      <nav
+        aria-label="Pages"
+        className="mt-3 flex flex-wrap items-center gap-3 text-sm text-stone-700"
+      >
+        <span>
+          {queue.kind}: page {queue.page} of {pages} ({total} waiting)
+        </span>
+        {queue.page > 1 && (
+          <Link
+            className="text-brand-800 hover:underline"
+            href={`/queue${pageQuery(queue.kind, queue.page - 1)}`}
+          >
+            Previous page
+          </Link>
+        )}
+        {queue.page < pages && (
+          <Link
+            className="text-brand-800 hover:underline"
+            href={`/queue${pageQuery(queue.kind, queue.page + 1)}`}
+          >
+            Next page
+          </Link>
+        )}
+        <Link className="text-brand-800 hover:underline" href="/queue">
+          Everything waiting
+        </Link>
+      </nav>
+    );
+  }
+  const longer = queue.kinds.filter((k) => k.total > shown(k.kind));
+  if (longer.length === 0) return null;
+  return (
+    <ul aria-label="More waiting" className="mt-3 space-y-1 text-sm text-stone-700">
+      {longer.map((k) => (
+        <li key={k.kind}>
+          {k.kind}: {shown(k.kind)} of {k.total} shown.{" "}
+          <Link className="text-brand-800 hover:underline" href={`/queue${pageQuery(k.kind, 2)}`}>
+            Next page of {k.kind.toLowerCase()}
+          </Link>
+        </li>
+      ))}
+    </ul>
   );
 }

@@ -43,7 +43,8 @@ export type SpecRow = {
   level?: string;
   limitLevel?: string;
   pass: boolean;
-  reason: string;
+  /** Built from the row's values when read (a getter on the row's prototype; JSON includes it). */
+  readonly reason: string;
 };
 
 export type SpecEvaluation = { pass: boolean; rows: SpecRow[] };
@@ -257,6 +258,60 @@ function resolveSpec(spec: CleanlinessSpec | string): CleanlinessSpec {
   return parsed;
 }
 
+/**
+ * Rows of an A or V check. Most evaluations are read for pass/fail alone, so the reason (text for
+ * people) is built when read, from a getter on the prototype; toJSON writes it out like any field.
+ */
+class LevelRow implements SpecRow {
+  readonly classes: SizeClassKey[];
+  readonly limit: number;
+  readonly level: string;
+  readonly limitLevel: string;
+  readonly #check: Check;
+  readonly #levelAt: number;
+  constructor(
+    check: Check,
+    readonly value: number,
+    levelAt: number,
+    readonly pass: boolean,
+  ) {
+    this.classes = check.classes;
+    this.limit = check.limit;
+    this.level = LEVEL_NAMES[levelAt];
+    this.limitLevel = check.limitLevel!;
+    this.#check = check;
+    this.#levelAt = levelAt;
+  }
+  get reason() {
+    return this.#check.head + formatCount(this.value) + this.#check.tails[this.#levelAt * 2 + (this.pass ? 0 : 1)];
+  }
+  toJSON() {
+    return { classes: this.classes, value: this.value, limit: this.limit, level: this.level, limitLevel: this.limitLevel, pass: this.pass, reason: this.reason };
+  }
+}
+
+/** Rows of an N check (counts per component): no levels. */
+class CountRow implements SpecRow {
+  readonly classes: SizeClassKey[];
+  readonly limit: number;
+  readonly #check: Check;
+  constructor(
+    check: Check,
+    readonly value: number,
+    readonly pass: boolean,
+  ) {
+    this.classes = check.classes;
+    this.limit = check.limit;
+    this.#check = check;
+  }
+  get reason() {
+    return this.#check.head + formatCount(this.value) + this.#check.tails[this.pass ? 0 : 1];
+  }
+  toJSON() {
+    return { classes: this.classes, value: this.value, limit: this.limit, pass: this.pass, reason: this.reason };
+  }
+}
+
 const scratch = new Float64Array(SIZE_CLASS_KEYS.length);
 
 /**
@@ -292,24 +347,9 @@ export function evaluateAgainstSpec(
     const ok = withinBound(value, check.limit);
     if (!ok) pass = false;
     if (check.limitLevel !== null) {
-      const levelAt = levelIndex(value);
-      rows[c] = {
-        classes: check.classes,
-        value,
-        limit: check.limit,
-        level: LEVEL_NAMES[levelAt],
-        limitLevel: check.limitLevel,
-        pass: ok,
-        reason: check.head + formatCount(value) + check.tails[levelAt * 2 + (ok ? 0 : 1)],
-      };
+      rows[c] = new LevelRow(check, value, levelIndex(value), ok);
     } else {
-      rows[c] = {
-        classes: check.classes,
-        value,
-        limit: check.limit,
-        pass: ok,
-        reason: check.head + formatCount(value) + check.tails[ok ? 0 : 1],
-      };
+      rows[c] = new CountRow(check, value, ok);
     }
   }
   return { pass, rows };

@@ -90,10 +90,10 @@ describe("periodic requalification", () => {
     expect(mails.some((m) => m.subject.includes("Requalification due") && m.to === "engineer@fennmoor.example")).toBe(true);
     expect(await sendRequalificationReminders()).toBe(0);
     const engineer = { ...people.engineer, email: "engineer@fennmoor.example", roles: ["engineer" as const], mustChangePassword: false };
-    const items = await changeQueueProvider(engineer as never, new Date());
+    const items = (await changeQueueProvider(engineer as never, new Date())).items;
     expect(items.some((i) => i.kind === "Requalification due" && i.title.startsWith("R-SC1-SF") === false)).toBe(true);
     const technician = { ...people.technician, email: "technician@fennmoor.example", roles: ["technician" as const], mustChangePassword: false };
-    const techItems = await changeQueueProvider(technician as never, new Date());
+    const techItems = (await changeQueueProvider(technician as never, new Date())).items;
     expect(techItems.find((i) => i.title.startsWith("CR-2026-002"))?.kind).toBe("Requalification tests");
   });
 });

@@ -179,7 +179,7 @@ describe("routing, signatures and lifecycle", () => {
     expect(steps.map((s) => s.decision).sort()).toEqual(["sent_back", "withdrawn"]);
     expect((await outboxTo(people.author.email)).at(-1)?.subject).toMatch(/Sent back/);
 
-    const queue = await documentQueueProvider({ ...people.author, email: people.author.email, mustChangePassword: false, sessionId: "s" }, NOW);
+    const queue = (await documentQueueProvider({ ...people.author, email: people.author.email, mustChangePassword: false, sessionId: "s" }, NOW)).items;
     expect(queue.find((i) => i.kind === "Sent back")?.detail).toContain("worst-case basket position");
 
     await expect(submit(versionId)).rejects.toThrow(/submitted before and returned/);
@@ -220,7 +220,7 @@ describe("overdue reviews", () => {
     const { versionId } = await newDraft("Overdue check");
     await submit(versionId, { dueDate: "2026-05-06" });
     const later = new Date("2026-05-08T09:00:00.000Z");
-    const queue = await documentQueueProvider({ ...people.reviewer, email: people.reviewer.email, mustChangePassword: false, sessionId: "s" }, later);
+    const queue = (await documentQueueProvider({ ...people.reviewer, email: people.reviewer.email, mustChangePassword: false, sessionId: "s" }, later)).items;
     const item = queue.find((i) => i.title.includes("Overdue check"));
     expect(item).toMatchObject({ kind: "Review", due: "2026-05-06T23:59:59.999Z" });
     expect(await notifyOverdueReviews(new Date("2026-05-05T09:00:00.000Z"))).toBe(0);

@@ -185,13 +185,13 @@ describe("demo history, list and queue", () => {
   });
 
   it("queues tests to perform and verify, and due bath maintenance, and mails each reminder once", async () => {
-    const techItems = await evidenceQueueProvider(sessionUser(tech, ["technician"]), new Date());
+    const techItems = (await evidenceQueueProvider(sessionUser(tech, ["technician"]), new Date())).items;
     expect(techItems.some((i) => i.kind === "Perform test")).toBe(true);
-    const engItems = await evidenceQueueProvider(sessionUser(engineer, ["engineer"]), new Date());
+    const engItems = (await evidenceQueueProvider(sessionUser(engineer, ["engineer"]), new Date())).items;
     expect(engItems.some((i) => i.kind === "Verify test")).toBe(true);
-    const bath = await bathQueueProvider(sessionUser(tech, ["technician"]), new Date());
+    const bath = (await bathQueueProvider(sessionUser(tech, ["technician"]), new Date())).items;
     expect(bath.map((b) => b.kind)).toContain("Filter change");
-    expect((await getQueue(sessionUser(tech, ["technician"]))).some((i) => i.overdue)).toBe(true);
+    expect((await getQueue(sessionUser(tech, ["technician"]))).items.some((i) => i.overdue)).toBe(true);
 
     const first = await sendMaintenanceReminders();
     expect(first.queued).toBeGreaterThan(0);

@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { eq } from "drizzle-orm";
 import { strFromU8, unzipSync } from "fflate";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { auditEvents, changeRequests, partFamilies, recipes, users } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD, DEMO_SITE } from "@/db/seed-data";
@@ -31,6 +31,7 @@ import { narrativeDocument } from "@/lib/changes/content";
 import { saveDraft } from "@/lib/server/documents/save-draft";
 import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";
+import { referenceParameterHistory } from "./support/trace-reference";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
 const storeDir = mkdtempSync(join(tmpdir(), "washproof-trace-"));
@@ -73,6 +74,39 @@ afterAll(() => {
 });
 
 describe("parameter history", () => {
+  it("reads the same history for every parameter as the one-change-at-a-time read did", async () => {
+    const all = await listTraceableParameters();
+    expect(all.length).toBeGreaterThan(20);
+    let withChanges = 0;
+    for (const p of all) {
+      const batched = await getParameterHistory({ recipeId: p.recipeId, key: p.key });
+      expect(batched).toEqual(await referenceParameterHistory({ recipeId: p.recipeId, key: p.key }));
+      if (batched?.entries.some((e) => e.change?.signatures.length && e.change.evidence.length)) withChanges += 1;
+    }
+    // The comparison covers changes with signatures and evidence, not only parameters that never changed.
+    expect(withChanges).toBeGreaterThan(0);
+  });
+
+  it("reads a parameter's history in the same number of statements however many changes it had", async () => {
+    const statements = async (recipeId: string, key: string) => {
+      const spy = vi.spyOn(t.client, "execute");
+      try {
+        const h = (await getParameterHistory({ recipeId, key }))!;
+        return { changes: h.entries.filter((e) => e.change).length, count: spy.mock.calls.length };
+      } finally {
+        spy.mockRestore();
+      }
+    };
+    const busy = await statements(valveBody, "wash.temperature");
+    const quiet = await statements(valveBody, "wash.time");
+    expect(busy.changes).toBeGreaterThanOrEqual(2);
+    expect(quiet.changes).toBe(0);
+    // Four statements for the recipe, its versions and parameters, then a fixed set for all the changes together.
+    expect(busy.count).toBeGreaterThan(quiet.count);
+    expect(busy.count).toBeLessThanOrEqual(20);
+    expect(quiet.count).toBeLessThanOrEqual(6);
+  });
+
   it("lists every value a parameter that changed several times has had, in order, each with the change that brought it", async () => {
     const h = (await getParameterHistory({ recipeId: valveBody, key: "wash.temperature" }))!;
     expect(h.entries.map((e) => [e.period.value?.setpoint, e.period.status, e.period.change, e.change?.number ?? null])).toEqual([

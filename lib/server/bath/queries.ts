@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq } from "drizzle-orm";
+import { asc, eq, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { bathRecords, cleaningSystems, maintenanceIntervals, systemStages, users } from "@/db/schema";
 import { maintenanceStatus, type MaintenanceStatus } from "@/lib/evidence/maintenance";
@@ -19,32 +19,29 @@ export interface MaintenanceItem {
 /** Every maintenance interval with when it is next due. */
 export async function listMaintenance(now = new Date()): Promise<MaintenanceItem[]> {
   const db = getDb();
+  // The last record of each interval's kind in the same statement (one indexed look-up per interval), not a query per interval.
   const intervals = await db
-    .select({ interval: maintenanceIntervals, stage: systemStages, system: cleaningSystems })
+    .select({
+      interval: maintenanceIntervals,
+      stage: systemStages,
+      system: cleaningSystems,
+      lastAt: sql<string | null>`(select max(${bathRecords.performedAt}) from ${bathRecords} where ${bathRecords.stageId} = ${systemStages.id} and ${bathRecords.kind} = ${maintenanceIntervals.kind})`,
+    })
     .from(maintenanceIntervals)
     .innerJoin(systemStages, eq(systemStages.id, maintenanceIntervals.stageId))
     .innerJoin(cleaningSystems, eq(cleaningSystems.id, systemStages.systemId))
     .orderBy(asc(cleaningSystems.code), asc(systemStages.position));
-  const items: MaintenanceItem[] = [];
-  for (const { interval, stage, system } of intervals) {
-    const [last] = await db
-      .select({ at: bathRecords.performedAt })
-      .from(bathRecords)
-      .where(and(eq(bathRecords.stageId, stage.id), eq(bathRecords.kind, interval.kind)))
-      .orderBy(desc(bathRecords.performedAt))
-      .limit(1);
-    items.push({
-      intervalId: interval.id,
-      stageId: stage.id,
-      tank: stage.name,
-      system: system.code,
-      systemId: system.id,
-      kind: interval.kind,
-      intervalDays: interval.intervalDays,
-      warnDays: interval.warnDays,
-      status: maintenanceStatus({ intervalDays: interval.intervalDays, warnDays: interval.warnDays, lastDoneAt: last?.at ?? null, since: interval.createdAt }, now),
-    });
-  }
+  const items: MaintenanceItem[] = intervals.map(({ interval, stage, system, lastAt }) => ({
+    intervalId: interval.id,
+    stageId: stage.id,
+    tank: stage.name,
+    system: system.code,
+    systemId: system.id,
+    kind: interval.kind,
+    intervalDays: interval.intervalDays,
+    warnDays: interval.warnDays,
+    status: maintenanceStatus({ intervalDays: interval.intervalDays, warnDays: interval.warnDays, lastDoneAt: lastAt ?? null, since: interval.createdAt }, now),
+  }));
   return items;
 }
 

@@ -7,8 +7,8 @@ import { formatDate } from "@/lib/format/date";
 
 /** Bath changes, filter changes and readings that are due or overdue, for those who keep the log. */
 export const bathQueueProvider: QueueProvider = async (user, now) => {
-  if (!can(user.roles, "bath.record")) return [];
-  return (await listMaintenance(now))
+  if (!can(user.roles, "bath.record")) return { items: [] };
+  const items = (await listMaintenance(now))
     .filter((m) => m.status.state !== "ok")
     .map((m) => ({
       id: `maintenance:${m.intervalId}`,
@@ -18,4 +18,5 @@ export const bathQueueProvider: QueueProvider = async (user, now) => {
       href: `/evidence/bath/${m.stageId}`,
       due: m.status.dueAt,
     }));
+  return { items };
 };

@@ -1,13 +1,19 @@
 import "server-only";
-import { eq, inArray } from "drizzle-orm";
+import { eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, changeRequestTests, recipes } from "@/db/schema";
 import { can } from "@/lib/auth/permissions";
 import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
 import { dueRequalifications } from "./due-requalifications";
-import { loadGate } from "./snapshot";
+import { loadGates } from "./snapshot";
 import { formatDate } from "@/lib/format/date";
+
+/**
+ * Open changes are few among the plant's closed ones; without per-value statistics (no STAT4 in
+ * libSQL) the planner cannot tell and walks every change, so the status index is named.
+ */
+export const openChangeIds = sql`(select id from change_requests indexed by change_requests_status_idx where status in ${OPEN_STATUSES})`;
 
 /** Change-control steps waiting for this user, and periodic requalifications falling due. */
 export const changeQueueProvider: QueueProvider = async (user, now) => {
@@ -17,12 +23,15 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
     .select({ cr: changeRequests, recipeCode: recipes.code })
     .from(changeRequests)
     .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
-    .where(inArray(changeRequests.status, OPEN_STATUSES));
+    .where(inArray(changeRequests.id, openChangeIds));
   const tests = open.length ? await db.select().from(changeRequestTests).where(inArray(changeRequestTests.changeRequestId, open.map((o) => o.cr.id))) : [];
+  const requiredCount = new Map<string, number>();
+  for (const t of tests) requiredCount.set(t.changeRequestId, (requiredCount.get(t.changeRequestId) ?? 0) + 1);
+  const gates = await loadGates(db, open.filter((o) => o.cr.status === "requalification").map((o) => o.cr.id));
   const mine = (id: string) => id === user.id;
   for (const { cr, recipeCode } of open) {
     const push = (kind: string, detail: string) => items.push({ id: `change:${cr.id}:${kind}`, kind, title: `${cr.number} ${cr.title}`, detail: `${recipeCode} · ${detail}`, href: `/changes/${cr.id}`, due: null });
-    const required = tests.filter((t) => t.changeRequestId === cr.id).length;
+    const required = requiredCount.get(cr.id) ?? 0;
     if (cr.status === "draft" && mine(cr.createdBy)) push("Change draft", "complete the proposal and submit the impact assessment");
     if (cr.status === "impact_assessed" && can(user.roles, "change.approve")) push("Change approval", `${cr.impact} change to approve or reject`);
     if (cr.status === "approved_for_implementation") {
@@ -30,7 +39,7 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
       if (required === 0 && can(user.roles, "change.verify")) push("Change verification", "approved, no tests required: verify");
     }
     if (cr.status === "requalification") {
-      const { gate } = await loadGate(db, cr.id);
+      const { gate } = gates.get(cr.id)!;
       if (!gate.holds && can(user.roles, "evidence.record")) push("Requalification tests", `${gate.missing.length} item${gate.missing.length > 1 ? "s" : ""} missing`);
       if (gate.holds && can(user.roles, "change.verify")) push("Change verification", "requalification evidence complete: verify");
     }
@@ -48,5 +57,5 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
       });
     }
   }
-  return items;
+  return { items };
 };

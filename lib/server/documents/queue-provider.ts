@@ -49,5 +49,5 @@ export const documentQueueProvider: QueueProvider = async (user) => {
       });
     }
   }
-  return items;
+  return { items };
 };

@@ -12,5 +12,20 @@ export interface QueueItem {
   due: string | null;
 }
 
-/** Each feature contributes the items it knows about for this user. */
-export type QueueProvider = (user: SessionUser, now: Date) => Promise<QueueItem[]>;
+/** Which slice of one kind's items to return: the requested page for the kind asked for, the first page for the others. */
+export interface QueueWindow {
+  offset: number;
+  limit: number;
+}
+
+export interface QueueProviderResult {
+  items: QueueItem[];
+  /**
+   * Totals for the kinds the provider already paged in the database (their `items` are then
+   * only the window). Kinds missing here are counted and paged by getQueue from `items`.
+   */
+  totals?: Record<string, number>;
+}
+
+/** Each feature contributes the items it knows about for this user; `window` lets a long list be paged where it is read. */
+export type QueueProvider = (user: SessionUser, now: Date, window?: (kind: string) => QueueWindow) => Promise<QueueProviderResult>;

@@ -5,8 +5,8 @@ import { changeRequests, cleaningSystems, recipeParameters, recipes, recipeStage
 import { narrativeText } from "@/lib/changes/content";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
 import { signatureValidity } from "@/lib/signatures/rules";
-import { loadChangeState } from "@/lib/server/changes/state";
-import { changeEvidence, changeSignatures } from "./evidence-of-change";
+import { loadChangeStates } from "@/lib/server/changes/state";
+import { changeEvidenceOf, changeSignaturesOf } from "./evidence-of-change";
 
 const EXCERPT = 320;
 
@@ -103,42 +103,49 @@ export async function getParameterHistory(input: { recipeId: string; key: string
   const proposedFrom = new Map(changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c.fromVersionId]));
   const timeline = buildParameterTimeline(values, proposedFrom);
 
-  const entries = await Promise.all(
-    timeline.map(async (period) => {
-      const cr = changes.find((c) => c.toVersionId === period.introducedBy.versionId);
-      const version = versions.find((v) => v.v.id === period.introducedBy.versionId)!;
-      if (!cr) return { period, versionNote: version.v.notes, versionAuthor: version.author, versionCreatedAt: version.v.createdAt, change: null };
-      const state = await loadChangeState(db, cr.id);
-      const row = state.assessment.diff.parameters.find((p) => p.key === input.key) ?? null;
-      const [sigs, evidence] = await Promise.all([changeSignatures(db, cr.id), changeEvidence(db, cr.id)]);
-      return {
-        period,
-        versionNote: version.v.notes,
-        versionAuthor: version.author,
-        versionCreatedAt: version.v.createdAt,
-        change: {
-          id: cr.id,
-          number: cr.number,
-          title: cr.title,
-          status: cr.status,
-          impact: state.impact,
-          author: version.author,
-          openedAt: cr.createdAt,
-          closedAt: cr.closedAt,
-          justification: excerpt(narrativeText(state.narrative?.content ?? null)),
-          parameterImpact: row ? { impact: row.impact, position: row.position, reasons: row.reasons } : null,
-          requirements: state.requirements.map((r) => ({ testType: r.testType, samples: r.samples })),
-          // A signature binds only while the content still hashes to what was signed; reopening starts a new revision.
-          signatures: sigs.map((sig) => ({
-            ...sig,
-            binding: sig.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(sig.contentHash, state.contentHash),
-          })),
-          revision: state.assessmentRow.revision,
-          evidence,
-        },
-      };
-    }),
-  );
+  // Everything about the changes is read for all of them at once: a statement per change grew with
+  // the parameter's history (a busy parameter issued hundreds per view).
+  const byVersion = new Map(changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c]));
+  const shown = [...new Set(timeline.map((period) => byVersion.get(period.introducedBy.versionId)?.id).filter((id): id is string => id !== undefined))];
+  const states = await loadChangeStates(db, shown);
+  const signaturesOf = await changeSignaturesOf(db, shown);
+  const evidenceOf = await changeEvidenceOf(db, shown);
+  const versionById = new Map(versions.map((v) => [v.v.id, v]));
+  const entries = timeline.map((period) => {
+    const cr = changes.find((c) => c.toVersionId === period.introducedBy.versionId);
+    const version = versionById.get(period.introducedBy.versionId)!;
+    if (!cr) return { period, versionNote: version.v.notes, versionAuthor: version.author, versionCreatedAt: version.v.createdAt, change: null };
+    const state = states.get(cr.id)!;
+    const row = state.assessment.diff.parameters.find((p) => p.key === input.key) ?? null;
+    const sigs = signaturesOf.get(cr.id)!;
+    const evidence = evidenceOf.get(cr.id)!;
+    return {
+      period,
+      versionNote: version.v.notes,
+      versionAuthor: version.author,
+      versionCreatedAt: version.v.createdAt,
+      change: {
+        id: cr.id,
+        number: cr.number,
+        title: cr.title,
+        status: cr.status,
+        impact: state.impact,
+        author: version.author,
+        openedAt: cr.createdAt,
+        closedAt: cr.closedAt,
+        justification: excerpt(narrativeText(state.narrative?.content ?? null)),
+        parameterImpact: row ? { impact: row.impact, position: row.position, reasons: row.reasons } : null,
+        requirements: state.requirements.map((r) => ({ testType: r.testType, samples: r.samples })),
+        // A signature binds only while the content still hashes to what was signed; reopening starts a new revision.
+        signatures: sigs.map((sig) => ({
+          ...sig,
+          binding: sig.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(sig.contentHash, state.contentHash),
+        })),
+        revision: state.assessmentRow.revision,
+        evidence,
+      },
+    };
+  });
   const latest = mine.sort((a, b) => (versions.find((v) => v.v.id === b.p.versionId)?.v.version ?? 0) - (versions.find((v) => v.v.id === a.p.versionId)?.v.version ?? 0))[0];
   return {
     system: head.system,

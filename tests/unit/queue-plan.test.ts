@@ -1,0 +1,66 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { eq, sql, type SQL } from "drizzle-orm";
+import { seedDemo } from "@/db/seed";
+import { users } from "@/db/schema";
+import { runQueueQueries, VERIFY_KIND } from "@/lib/server/evidence/queue-provider";
+import { openChangeIds } from "@/lib/server/changes/queue-provider";
+import { getQueue, QUEUE_PAGE_SIZE } from "@/lib/server/queue/get-queue";
+import { createTestDatabase } from "./support/test-db";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+let engineer: { id: string; name: string };
+const RUNS = 6000;
+const PERFORMED_EVERY = 40; // 150 performed runs among 6,000: waiting runs are a sliver, as in a plant.
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  await seedDemo(t.db);
+  [engineer] = await t.db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, "engineer@fennmoor.example"));
+  // Thousands of settled runs copied from a demo run; every 40th is performed and waits for a second person.
+  await t.client.execute(`
+    insert into test_runs (id, number, part_family_id, recipe_version_id, test_type, status, outcome, revision, technician_id, lab, performed_on, created_by, created_at)
+    select 'plan-' || n, 'QP-' || printf('%06d', n), r.part_family_id, r.recipe_version_id, r.test_type,
+           case when n % ${PERFORMED_EVERY} = 0 then 'performed' else 'verified' end, 'pass', 1, r.technician_id, r.lab, r.performed_on, r.created_by, r.created_at
+    from (with recursive seq(n) as (select 1 union all select n + 1 from seq where n < ${RUNS}) select n from seq),
+         (select * from test_runs limit 1) r`);
+  await t.client.execute("ANALYZE");
+});
+afterAll(() => t.cleanup());
+
+async function plan(query: SQL) {
+  const rows = await t.db.all<{ detail: string }>(sql`EXPLAIN QUERY PLAN ${query}`);
+  return rows.map((r) => r.detail).join("\n");
+}
+
+describe("My queue at plant shape", () => {
+  it("reads runs waiting to be performed or verified through the status index, never a scan of every run", async () => {
+    const q = runQueueQueries(engineer.id, { offset: 0, limit: QUEUE_PAGE_SIZE });
+    for (const query of [q.perform, q.performCount, q.verify, q.verifyCount]) {
+      const detail = await plan(query);
+      expect(detail).toMatch(/SEARCH r USING (COVERING )?INDEX test_runs_status_idx \(status=\?\)/);
+      expect(detail).not.toMatch(/SCAN r\b/);
+    }
+  });
+
+  it("reads open change requests through the status index", async () => {
+    const detail = await plan(sql`select id from change_requests where id in ${openChangeIds}`);
+    expect(detail).toMatch(/SEARCH change_requests USING (COVERING )?INDEX change_requests_status_idx \(status=\?\)/);
+  });
+
+  it("pages one kind at a time and counts every kind in full", async () => {
+    const user = { ...engineer, email: "", roles: ["engineer"], mustChangePassword: false, sessionId: "s" } as never;
+    const first = await getQueue(user);
+    const verify = first.kinds.find((k) => k.kind === VERIFY_KIND)!;
+    expect(verify.total).toBeGreaterThanOrEqual(RUNS / PERFORMED_EVERY);
+    expect(first.items.filter((i) => i.kind === VERIFY_KIND)).toHaveLength(QUEUE_PAGE_SIZE);
+    // Walking every page of the kind returns each waiting run exactly once.
+    const seen: string[] = [];
+    for (let page = 1; (page - 1) * QUEUE_PAGE_SIZE < verify.total; page++) {
+      const p = await getQueue(user, { kind: VERIFY_KIND, page });
+      expect(p.items.every((i) => i.kind === VERIFY_KIND)).toBe(true);
+      seen.push(...p.items.map((i) => i.id));
+    }
+    expect(seen).toHaveLength(verify.total);
+    expect(new Set(seen).size).toBe(verify.total);
+  });
+});
