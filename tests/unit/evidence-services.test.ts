@@ -247,3 +247,31 @@ describe("changes that need a reason", () => {
     expect(events.map((e) => e.reason)).toEqual([null, "Bath lasts longer with the new skimmer"]);
   });
 });
+
+describe("a large CSV import does not hold the server", () => {
+  it("lets other work run between batches of inserts, inside its one transaction", async () => {
+    const run = await newParticleRun();
+    const rows = (await parseSampleCsv(["sample,components,E,F", ...Array.from({ length: 3000 }, (_, i) => `L-${i},1,${i % 40},${i % 9}`)].join("\n"))).rows;
+    let turns = 0;
+    let running = true;
+    const tick = () => {
+      turns += 1;
+      if (running) setImmediate(tick);
+    };
+    const bytes = new TextEncoder().encode("large.csv");
+    // A store that answers at once, so the turns counted are those of the transaction, not of a file write.
+    const memory = new Map<string, Uint8Array>();
+    setStore({ driver: "local", put: async (sha, b) => ({ created: !memory.has(sha) && !!memory.set(sha, b) }), get: async (sha) => memory.get(sha) ?? null, has: async (sha) => memory.has(sha) });
+    setImmediate(tick);
+    const before = turns;
+    try {
+      await importCsvRows(tech, { runId: run.id, testType: "particle_cleanliness", rows, fileName: "large.csv", bytes });
+    } finally {
+      running = false;
+      setStore(localStore(storeDir));
+    }
+    // 3,000 rows are six batches of 500; the loop turns between them.
+    expect(turns - before).toBeGreaterThanOrEqual(5);
+    expect(await t.db.select().from(testSamples).where(eq(testSamples.runId, run.id))).toHaveLength(3000);
+  }, 60_000);
+});
