@@ -27,7 +27,7 @@ const wire: fc.Arbitrary<Wire> = fc.oneof(
   json.map((v) => ({ text: JSON.stringify(v) })),
   fc.array(json, { maxLength: 3 }).map((v) => ({ text: JSON.stringify(v) })),
   fc.string({ maxLength: 20 }).map((text) => ({ text })),
-  fc.tuple(fc.array(json, { maxLength: 3 }), fc.boolean()).map(([v, withRoot]) => ({ fields: [...(withRoot ? [["0", JSON.stringify(v)] as [string, string]] : []), ["1_runId", "x"]] })),
+  fc.tuple(fc.array(json, { maxLength: 3 }), fc.boolean()).map(([v, withRoot]) => ({ fields: [...(withRoot ? [["0", JSON.stringify(v)] as [string, string]] : []), ["1_runId", "x"] as [string, string]] })),
 );
 
 describe("server-action bodies checked before the framework decodes them", () => {
