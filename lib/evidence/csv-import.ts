@@ -187,8 +187,9 @@ export function parseSampleCsv(
         seen.add(parsed.data.sampleLabel);
         // Once the file is known to be invalid its rows will not be saved: stop keeping them.
         if (collect && result.errorCount === 0) result.rows.push(parsed.data);
-        // A large file arrives in one chunk when it is already in memory: let other requests run between batches of rows.
-        if (result.rowCount % YIELD_EVERY_ROWS === 0) {
+        // Text already in memory is parsed in one go: let other requests run between batches of rows. A
+        // stream turns the event loop between its chunks by itself, and pausing it would read it ahead whole.
+        if (typeof input === "string" && result.rowCount % YIELD_EVERY_ROWS === 0) {
           parser.pause();
           setTimeout(() => parser.resume(), 0);
         }
