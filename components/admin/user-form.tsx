@@ -45,6 +45,7 @@ export function UserForm({ action, user, submitLabel }: UserFormProps) {
           ),
         }))}
       />
+      {user && <Field name="reason" label="Reason for a role change" hint="Needed when the roles change; kept in the audit trail." />}
       <SubmitButton>{submitLabel}</SubmitButton>
       <TemporaryPassword />
     </ActionForm>

@@ -33,11 +33,12 @@ export function BathRecordForm({ action, stageId }: { action: Action; stageId: s
 
 export function IntervalForm({ action, stageId }: { action: Action; stageId: string }) {
   return (
-    <ActionForm action={action} className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-4 sm:items-end" aria-label="Set a maintenance interval">
+    <ActionForm action={action} className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-5 sm:items-end" aria-label="Set a maintenance interval">
       <input type="hidden" name="stageId" value={stageId} />
       <SelectField name="kind" label="Maintenance" options={MAINTENANCE_KINDS.map((k) => ({ value: k, label: MAINTENANCE_LABELS[k] }))} />
       <NumberField name="intervalDays" label="Every (days)" integer />
       <NumberField name="warnDays" label="Show as due (days before)" integer defaultValue="2" />
+      <Field name="reason" label="Reason for a change" hint="Needed when the interval already exists." />
       <SubmitButton variant="secondary">Save interval</SubmitButton>
     </ActionForm>
   );

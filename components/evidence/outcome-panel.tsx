@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import type { RunOutcome } from "@/lib/evidence/outcome";
 import { OutcomeWord } from "./status-word";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -7,7 +8,8 @@ function CheckWord({ pass }: { pass: boolean | null }) {
 }
 
 /** The computed outcome with its working: every line says what was compared with what. */
-export function OutcomePanel({ outcome }: { outcome: RunOutcome }) {
+/** `outcome.samples` may be one page of them; `pager` then moves between the pages. */
+export function OutcomePanel({ outcome, pager }: { outcome: RunOutcome; pager?: ReactNode }) {
   return (
     <section aria-labelledby="outcome-title" className="rounded-lg border border-stone-200 bg-white p-5">
       <div className="flex flex-wrap items-baseline justify-between gap-3">
@@ -42,6 +44,7 @@ export function OutcomePanel({ outcome }: { outcome: RunOutcome }) {
           </ul>
         </div>
       ))}
+      {pager && <div className="mt-4">{pager}</div>}
       {outcome.samples.length > 0 && (
         <Table density="compact" caption="Samples" captionVisible frameClassName="mt-4">
           <THead>

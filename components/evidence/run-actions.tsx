@@ -8,15 +8,22 @@ import type { FormState } from "@/lib/actions/result";
 
 type Action = (prev: FormState, formData: FormData) => Promise<FormState>;
 
+/** Removing a sample changes the result: it opens a reason field first, and the reason goes to the audit trail. */
 export function RemoveSampleButton({ action, runId, sampleId, label }: { action: Action; runId: string; sampleId: string; label: string }) {
   return (
-    <ActionForm action={action} showSuccess={false} aria-label={`Remove sample ${label}`}>
-      <input type="hidden" name="runId" value={runId} />
-      <input type="hidden" name="sampleId" value={sampleId} />
-      <SubmitButton variant="ghost" pendingText="Removing…" aria-label={`Remove sample ${label}`}>
+    <details className="group text-sm">
+      <summary className="flex cursor-pointer list-none items-center rounded p-1.5 text-stone-700 hover:bg-stone-100" aria-label={`Remove sample ${label}`}>
         <Trash2 className="h-4 w-4" aria-hidden="true" />
-      </SubmitButton>
-    </ActionForm>
+      </summary>
+      <ActionForm action={action} showSuccess={false} className="mt-2 w-64 space-y-2" aria-label={`Remove sample ${label}`}>
+        <input type="hidden" name="runId" value={runId} />
+        <input type="hidden" name="sampleId" value={sampleId} />
+        <Field name="reason" label={`Reason for removing ${label}`} hint="Kept in the audit trail with the removed values." />
+        <SubmitButton variant="secondary" pendingText="Removing…">
+          Remove sample
+        </SubmitButton>
+      </ActionForm>
+    </details>
   );
 }
 

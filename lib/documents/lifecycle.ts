@@ -53,10 +53,19 @@ const ACTION_WORDS: Record<DocumentAction, string> = {
 
 export type TransitionCheck = { ok: true; to: DocumentStatus | null } | { ok: false; reason: string };
 
-/** Whether a person with these roles may take this action on a version in this status. */
-export function checkTransition(status: DocumentStatus, action: DocumentAction, roles: readonly Role[]): TransitionCheck {
+export const NARRATIVE_MOVES_WITH_CHANGE =
+  "A change narrative moves only with its change request: submit, approve or close the change request, and its narrative follows.";
+
+/**
+ * Whether a person with these roles may take this action on a version in this status. A change
+ * narrative's status is set by its change request (lib/server/changes/narrative-status.ts), so the
+ * document workflow only lets its draft be edited; a narrative approved or made effective on its own
+ * would claim an approval the change never had.
+ */
+export function checkTransition(status: DocumentStatus, action: DocumentAction, roles: readonly Role[], type?: DocumentType): TransitionCheck {
   const rule = DOCUMENT_RULES[action];
   if (!can(roles, rule.permission)) return { ok: false, reason: "Your role does not allow this." };
+  if (type === "change_narrative" && action !== "edit") return { ok: false, reason: NARRATIVE_MOVES_WITH_CHANGE };
   if (!rule.from.includes(status)) {
     return { ok: false, reason: `A version that is ${DOCUMENT_STATUS_LABELS[status].toLowerCase()} cannot be ${ACTION_WORDS[action]}.` };
   }

@@ -119,6 +119,9 @@ export function mappingProblems(mapping: ColumnMapping, headers: string[], testT
   return problems;
 }
 
+/** Rows validated between two turns of the event loop: a few milliseconds of work at a time. */
+export const YIELD_EVERY_ROWS = 500;
+
 /**
  * Reads a sample CSV (particle counts by default) as a stream, row by row, so a large file is never
  * held whole in memory; every row is validated with the same schema as the
@@ -184,6 +187,12 @@ export function parseSampleCsv(
         seen.add(parsed.data.sampleLabel);
         // Once the file is known to be invalid its rows will not be saved: stop keeping them.
         if (collect && result.errorCount === 0) result.rows.push(parsed.data);
+        // Text already in memory is parsed in one go: let other requests run between batches of rows. A
+        // stream turns the event loop between its chunks by itself, and pausing it would read it ahead whole.
+        if (typeof input === "string" && result.rowCount % YIELD_EVERY_ROWS === 0) {
+          parser.pause();
+          setTimeout(() => parser.resume(), 0);
+        }
       },
       complete() {
         if (mapping === null && result.fileErrors.length === 0) result.fileErrors.push(sawText ? "The file has a header row but no data rows." : "The file is empty: it has no header row and no data.");

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import "./messages";
-import { storedText } from "@/lib/schemas/text";
+import { optionalAuditReason, storedText } from "@/lib/schemas/text";
 import { ROLES } from "@/db/enums";
 
 export const PASSWORD_MIN_LENGTH = 12;
@@ -51,5 +51,6 @@ export const userSchema = z.object({
 });
 
 export const createUserSchema = userSchema;
-export const updateUserSchema = userSchema.extend({ userId: z.string().uuid() });
+// The reason is asked for when the roles change: what a person may sign is a controlled fact.
+export const updateUserSchema = userSchema.extend({ userId: z.string().uuid(), reason: optionalAuditReason() });
 export const userIdSchema = z.object({ userId: z.string().uuid() });

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import "./messages";
 import { calendarDate, calendarDateTime } from "./date";
-import { storedText } from "@/lib/schemas/text";
+import { auditReason, optionalAuditReason, storedText } from "@/lib/schemas/text";
 import { BATH_RECORD_KINDS, EVIDENCE_FILE_KINDS, MAINTENANCE_KINDS, TEST_TYPES } from "@/db/enums";
 
 /** ISO 16232 size classes B…N, as form field suffixes and CSV columns. */
@@ -171,6 +171,8 @@ export type CreateRun = z.output<typeof createRunSchema>;
 
 export const runIdSchema = z.object({ runId: uuid });
 export const sampleIdSchema = z.object({ runId: uuid, sampleId: uuid });
+/** A removed sample stays in the audit trail with why it went: typed in error, wrong part, damaged. */
+export const removeSampleSchema = sampleIdSchema.extend({ reason: auditReason() });
 
 export const signRunSchema = z.object({
   runId: uuid,
@@ -220,6 +222,8 @@ export const maintenanceIntervalSchema = z.object({
   kind: z.enum(MAINTENANCE_KINDS, { error: "Choose the kind of maintenance." }),
   intervalDays: requiredNumber("Interval (days)", { min: 1, max: 730, int: true }),
   warnDays: requiredNumber("Warn before (days)", { min: 0, max: 60, int: true }),
+  // Required by the service once the interval exists: the first value needs none.
+  reason: optionalAuditReason(),
 });
 export type MaintenanceIntervalInput = z.output<typeof maintenanceIntervalSchema>;
 

@@ -42,6 +42,17 @@ export function storedText(params?: Parameters<typeof z.string>[0]) {
     });
 }
 
+/** The reason a change gives the audit trail: a person reading the record later must learn why. */
+export const auditReason = () => storedText().trim().min(5, "Give the reason for the record (at least 5 characters).").max(1000);
+
+/** A reason the service may require only for some changes (a role change, an interval that already had a value). */
+export const optionalAuditReason = () =>
+  storedText()
+    .trim()
+    .max(1000)
+    .optional()
+    .transform((v) => v || null);
+
 /**
  * The narrower test the audit chain applies to every text it hashes: SQLite hands
  * back exactly this string (no NUL, no lone surrogate). Other control characters

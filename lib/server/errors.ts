@@ -51,13 +51,26 @@ const GENERIC = "Something went wrong on the server. Nothing was changed; try ag
 const UNAVAILABLE = "The database cannot take changes at the moment (it is busy or read-only). Nothing was changed; try again in a minute, and tell the administrator if it persists.";
 
 /** SQLite refusing to write for reasons outside the request: busy past the timeout, or opened read-only. */
-function isDatabaseUnavailable(error: unknown): boolean {
+export function isDatabaseUnavailable(error: unknown): boolean {
   for (let e: unknown = error, depth = 0; e && depth < 4; e = (e as { cause?: unknown }).cause, depth++) {
     const code = String((e as { code?: unknown }).code ?? "");
     if (/^SQLITE_(BUSY|READONLY|LOCKED)/.test(code)) return true;
     if (/SQLITE_(BUSY|READONLY)|database is locked|attempt to write a readonly database/i.test(String((e as { message?: unknown }).message ?? ""))) return true;
   }
   return false;
+}
+
+/**
+ * A bookkeeping write made while serving a read (a token's last use, a session's sliding expiry):
+ * when the database cannot take writes, the read still answers and the bookkeeping is skipped.
+ * Any other error is the caller's.
+ */
+export async function unlessUnavailable(write: () => Promise<unknown>): Promise<void> {
+  try {
+    await write();
+  } catch (error) {
+    if (!isDatabaseUnavailable(error)) throw error;
+  }
 }
 
 export interface Failure {

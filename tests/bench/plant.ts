@@ -21,6 +21,7 @@ import { openDatabase } from "@/db/client";
 import { scaleFromArgs } from "./plant-scale";
 import { seedPlant, type PlantManifest } from "./seed-plant";
 import { encodeSignRunBody, signRunActionId } from "./server-action";
+import { measureImportWhileReading, type ImportWhileReading } from "./import-while-reading";
 
 const scale = scaleFromArgs(process.argv.slice(2), process.env);
 const PORT = Number(process.env.BENCH_PORT ?? 3150);
@@ -55,7 +56,11 @@ const signings = scale.connections.reduce((n, c) => n + slowAmount(c), 0) + 1;
 mkdirSync(dataDir, { recursive: true });
 log(`Seeding the ${scale.name}-size plant into ${dataDir}/plant.db …`);
 const seedStart = performance.now();
-const plant = await seedPlant(scale, `${dataDir}/plant.db`, signings, log);
+// One open run more than the signings need: the large CSV import goes into it.
+const plant = await seedPlant(scale, `${dataDir}/plant.db`, signings + 1, log);
+const importRun = plant.signable.pop()!;
+const IMPORT_ROWS = 100_000;
+let imported: ImportWhileReading | null = null;
 const seedSeconds = (performance.now() - seedStart) / 1000;
 log(`Seeded in ${seedSeconds.toFixed(1)} s.`);
 sampleLoad();
@@ -85,6 +90,11 @@ try {
     if (!res.ok || !e.check(body)) fail(`${e.name}: the first response (${res.status}) is not what the page shows`);
     for (const c of scale.connections) rows.push(await load(e.name, c, { url: BASE + e.path, connections: c, amount: readAmount(c), timeout: 120, headers: { cookie: cookie(e.role) } }));
   }
+
+  // A 100,000-row CSV import with the evidence table read beside it, one request after another.
+  imported = await measureImportWhileReading({ base: BASE, runId: importRun.runId, importCookie: cookie("technician"), readCookie: cookie("engineer"), readPath: endpoints[1].path, rows: IMPORT_ROWS });
+  if (imported.importStatus !== 200) fail(`CSV import: answered ${imported.importStatus}: ${imported.importMessage}`);
+  if (imported.failedReads) fail(`CSV import: ${imported.failedReads} reads beside it failed`);
 
   // Signing: the run page's own server action, called as the browser calls it.
   const actionId = signRunActionId();
@@ -162,6 +172,9 @@ const lines = [
   "",
   `Audit chain: ${chain.events.toLocaleString("en")} events, ${(chain.bytes / 1e6).toFixed(1)} MB hashed. verifyAuditChain ${chain.verifySeconds.toFixed(2)} s (${Math.round(chain.events / chain.verifySeconds).toLocaleString("en")} events/s, ${(chain.bytes / 1e6 / chain.verifySeconds).toFixed(1)} MB/s); raw SHA-256 ${chain.rawSeconds.toFixed(2)} s (${(chain.bytes / 1e6 / chain.rawSeconds).toFixed(1)} MB/s); ratio ${(ratio * 100).toFixed(1)} %.`,
   `Server peak RSS (VmHWM, ${peak.name}, pid ${peak.pid}): ${(peak.kb / 1024).toFixed(0)} MB.`,
+  imported
+    ? `CSV import: ${imported.rows.toLocaleString("en")} rows (${imported.megabytes.toFixed(1)} MB) answered ${imported.importStatus} in ${imported.importSeconds.toFixed(1)} s; ${imported.reads} evidence-table reads beside it: p50 ${imported.p50.toFixed(0)} ms, p95 ${imported.p95.toFixed(0)} ms, longest ${imported.max.toFixed(0)} ms.`
+    : "CSV import: not measured (the benchmark stopped before it).",
   "",
   "| target | figure | |",
   "|---|---|---|",
@@ -169,6 +182,8 @@ const lines = [
   `| audit page p95 ≤ 100 ms at 10 connections | ${at10("Audit")?.p95.toFixed(1) ?? "—"} ms | ${mark(at10("Audit") && at10("Audit")!.p95 <= 100)} |`,
   `| verification ≥ 50 % of raw hashing | ${(ratio * 100).toFixed(1)} % | ${mark(ratio >= 0.5)} |`,
   `| server RSS ≤ 400 MB | ${(peak.kb / 1024).toFixed(0)} MB | ${mark(peak.kb / 1024 <= 400)} |`,
+  // [practice] our own bound: a person waiting on a list notices 2 s; the import used to hold every request for its whole length.
+  `| longest read beside a 100,000-row import ≤ 2 s | ${imported ? `${imported.max.toFixed(0)} ms` : "—"} | ${mark(imported !== null && imported.max <= 2000)} |`,
 ];
 const report = lines.join("\n");
 console.log(`\n${report}\n`);

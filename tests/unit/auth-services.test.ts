@@ -1,6 +1,7 @@
 import { eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { auditEvents, users } from "@/db/schema";
+import type { Role } from "@/db/enums";
 import { verifyAuditChain } from "@/lib/audit";
 import { signIn, SIGN_IN_FAILED } from "@/lib/server/auth/sign-in";
 import { createSession, validateSession } from "@/lib/server/auth/sessions";
@@ -118,12 +119,19 @@ describe("user administration", () => {
     await expect(newUser("dup@example.test")).rejects.toMatchObject({ field: "email" });
   });
 
-  it("audits a role change with old and new roles", async () => {
+  it("audits a role change with old and new roles and its reason, and refuses a role change without one", async () => {
     const u = await newUser("rolechange@example.test");
-    await updateUser(admin, { userId: u.id, name: "User rolechange@example.test", email: "rolechange@example.test", jobTitle: null, roles: ["engineer", "auditor"] });
+    const edit = { userId: u.id, name: "User rolechange@example.test", email: "rolechange@example.test", jobTitle: null, roles: ["engineer", "auditor"] as Role[] };
+    await expect(updateUser(admin, edit)).rejects.toMatchObject({ field: "reason" });
+    await expect(updateUser(admin, { ...edit, reason: "   " })).rejects.toMatchObject({ field: "reason" });
+    expect(await t.db.select().from(auditEvents).where(eq(auditEvents.action, "user.roles_changed"))).toEqual([]);
+    await updateUser(admin, { ...edit, reason: "Joins the audit team" });
     const [event] = await t.db.select().from(auditEvents).where(eq(auditEvents.action, "user.roles_changed"));
     expect(JSON.parse(event.oldValue!)).toEqual({ roles: ["engineer"] });
     expect(JSON.parse(event.newValue!)).toEqual({ roles: ["auditor", "engineer"] });
+    expect(event.reason).toBe("Joins the audit team");
+    // Details alone need no reason.
+    await updateUser(admin, { ...edit, jobTitle: "Auditor" });
   });
 
   it("never leaves the plant without an active administrator", async () => {

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   auditEvents,
   changeRequests,
+  documentVersions,
   emailOutbox,
   partFamilies,
   recipes,
@@ -21,6 +22,9 @@ import type { RichDoc } from "@/lib/documents/rich-text";
 import { narrativeDocument } from "@/lib/changes/content";
 import { proposalSchema } from "@/lib/schemas/change";
 import { saveDraft } from "@/lib/server/documents/save-draft";
+import { makeDueVersionsEffective } from "@/lib/server/documents/make-effective";
+import { startNewVersion } from "@/lib/server/documents/start-new-version";
+import { submitForReview } from "@/lib/server/documents/submit-for-review";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
 import { closeChange } from "@/lib/server/changes/close-change";
@@ -147,6 +151,11 @@ describe("a major change from proposal to closure", () => {
   it("signs authored at submission; the author may not approve; an approver does", async () => {
     await expect(assessChange(people.engineer, await signing(crId))).rejects.toThrow(/Write the justification/);
     await writeNarrative(crId, "Heavier chip load.\n\nRisk: burns at the tank; requalify.");
+    // Submitting the narrative as a document would route it for approval apart from its change.
+    const draft = (await loadChangeState(t.db, crId)).narrative!;
+    const [v] = await t.db.select().from(documentVersions).where(eq(documentVersions.id, draft.id));
+    const submit = { versionId: v.id, lockVersion: v.lockVersion, contentHash: v.contentHash ?? "", reviewerIds: [people.reviewer.id], approverId: people.approver.id, routing: "sequence" as const, dueDate: null, password: DEMO_PASSWORD };
+    await expect(submitForReview({ ...people.engineer, roles: ["engineer"] }, submit)).rejects.toThrow(/moves only with its change request/);
     await assessChange(people.engineer, await signing(crId));
     const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.id, crId));
     expect(cr).toMatchObject({ status: "impact_assessed", impact: "major" });
@@ -158,6 +167,20 @@ describe("a major change from proposal to closure", () => {
     const mails = await t.db.select().from(emailOutbox);
     expect(mails.some((m) => m.to === "approver@fennmoor.example" && m.subject.includes("impact assessed"))).toBe(true);
     expect(mails.some((m) => m.to === "technician@fennmoor.example" && m.text.includes("Particle cleanliness on 29 parts"))).toBe(true);
+  });
+
+  it("the change narrative moves only with its change request: the document workflow refuses to revise it, and the date timer leaves it alone", async () => {
+    const s = await loadChangeState(t.db, crId);
+    const [narrative] = await t.db.select().from(documentVersions).where(eq(documentVersions.id, s.narrative!.id));
+    expect(narrative.status).toBe("approved");
+    const engineer = { ...people.engineer, roles: ["engineer" as const] };
+    await expect(startNewVersion(engineer, { documentId: narrative.documentId, reason: "Rewrite on its own" })).rejects.toThrow(/moves only with its change request/);
+    // An effective date that has come would otherwise make it effective while the change is still being requalified.
+    await t.db.update(documentVersions).set({ effectiveDate: "2026-01-01" }).where(eq(documentVersions.id, narrative.id));
+    await makeDueVersionsEffective(new Date("2026-06-01T00:00:00Z"));
+    const [after] = await t.db.select().from(documentVersions).where(eq(documentVersions.id, narrative.id));
+    expect(after.status).toBe("approved");
+    await t.db.update(documentVersions).set({ effectiveDate: narrative.effectiveDate }).where(eq(documentVersions.id, narrative.id));
   });
 
   it("refuses verification and closure with each requirement missing in turn, naming exactly what is missing", async () => {

@@ -38,6 +38,17 @@ describe("document lifecycle (21 CFR 11.10(f))", () => {
       }
     }
   }
+  it("a change narrative is only ever edited as a draft here: every other step belongs to its change request", () => {
+    for (const action of DOCUMENT_ACTIONS) {
+      for (const status of DOCUMENT_STATUSES) {
+        const result = checkTransition(status, action, [...ROLES], "change_narrative");
+        expect(result.ok, `${action} from ${status}`).toBe(action === "edit" && status === "draft");
+        if (!result.ok && action !== "edit") expect(result.reason).toMatch(/moves only with its change request/);
+      }
+    }
+    // Other types keep their own workflow.
+    expect(checkTransition("draft", "submit", ["engineer"], "procedure").ok).toBe(true);
+  });
   it("nothing leaves superseded or retired", () => {
     for (const action of DOCUMENT_ACTIONS) {
       expect(checkTransition("superseded", action, [...ROLES]).ok).toBe(false);

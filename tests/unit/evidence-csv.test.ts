@@ -1,6 +1,6 @@
 import { Readable } from "node:stream";
 import { describe, expect, it } from "vitest";
-import { autoMapping, parseSampleCsv } from "@/lib/evidence/csv-import";
+import { autoMapping, parseSampleCsv, YIELD_EVERY_ROWS } from "@/lib/evidence/csv-import";
 
 const HEADER = "sample,basket_position,worst_case,components,B,C,D,E,F,G,H,I,J,K,L,M,N,largest_metallic_um";
 
@@ -114,5 +114,24 @@ describe("gravimetric CSV import", () => {
     expect(autoMapping(["Sample", "Tare_mg", "after_mg", "E"], "gravimetric")).toEqual({ sample: "Sample", filter_before_mg: "Tare_mg", filter_after_mg: "after_mg" });
     const mapped = await parseSampleCsv(csv, { testType: "gravimetric", mapping: { sample: "Part", filter_before_mg: "Tare (mg)", filter_after_mg: "Gross (mg)" } });
     expect(mapped.rows).toEqual([{ sampleLabel: "VB-7", worstCase: false, components: 1, filterBeforeMg: 12, filterAfterMg: 12.8 }]);
+  });
+});
+
+describe("a large file does not hold the server", () => {
+  it("lets other work run between batches of validated rows (a file already in memory is parsed in one go otherwise)", async () => {
+    const rows = 3000;
+    const csv = [HEADER, ...Array.from({ length: rows }, (_, i) => `S-${i},,no,1,${i % 5000},300,120,40,9,2,1,0,0,0,0,0,0,250`)].join("\n");
+    let turns = 0;
+    let running = true;
+    const tick = () => {
+      turns += 1;
+      if (running) setImmediate(tick);
+    };
+    setImmediate(tick);
+    const r = await parseSampleCsv(csv, { collect: false });
+    running = false;
+    expect(r.rowCount).toBe(rows);
+    // One turn of the event loop at least per batch of rows: other requests are answered meanwhile.
+    expect(turns).toBeGreaterThanOrEqual(rows / YIELD_EVERY_ROWS - 1);
   });
 });

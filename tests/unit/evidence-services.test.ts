@@ -3,13 +3,16 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { MAINTENANCE_KINDS } from "@/db/enums";
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
-import { auditEvents, cleanlinessSpecs, emailOutbox, evidenceFiles, partFamilies, recipeVersions, testSamples, testRuns, users } from "@/db/schema";
+import { auditEvents, cleanlinessSpecs, emailOutbox, evidenceFiles, maintenanceIntervals, partFamilies, recipeVersions, testSamples, testRuns, users } from "@/db/schema";
 import { parseSampleCsv } from "@/lib/evidence/csv-import";
 import { blobKey, localStore, setStore } from "@/lib/storage";
-import { particleRunDataSchema, particleSampleSchema } from "@/lib/schemas/evidence";
+import { maintenanceIntervalSchema, particleRunDataSchema, particleSampleSchema, removeSampleSchema } from "@/lib/schemas/evidence";
 import { addSample } from "@/lib/server/evidence/add-sample";
+import { removeSample } from "@/lib/server/evidence/remove-sample";
+import { setMaintenanceInterval } from "@/lib/server/bath/set-maintenance-interval";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
 import { importCsvRows } from "@/lib/server/evidence/import-csv";
@@ -213,4 +216,62 @@ describe("demo wash-tank log", () => {
     expect(bathControlChart(records, "temperatureC")!.points.filter((p) => p.outOfControl)).toEqual([]);
     expect(bathControlChart(records, "conductivityUsPerCm")!.points.filter((p) => p.outOfControl)).toEqual([]);
   });
+});
+
+describe("changes that need a reason", () => {
+  it("removes a sample only with a reason, kept in the audit event with the removed values", async () => {
+    const run = await newParticleRun();
+    await addSample(tech, { runId: run.id, sample: particleSampleSchema.parse({ sampleLabel: "R-1", components: "1", counts: { E: "4" }, largest: {} }) });
+    const [sample] = await t.db.select().from(testSamples).where(eq(testSamples.runId, run.id));
+    expect(removeSampleSchema.safeParse({ runId: run.id, sampleId: sample.id }).success).toBe(false);
+    expect(removeSampleSchema.safeParse({ runId: run.id, sampleId: sample.id, reason: "  " }).success).toBe(false);
+    await expect(removeSample(tech, { runId: run.id, sampleId: sample.id, reason: " " })).rejects.toMatchObject({ field: "reason" });
+    expect(await t.db.select().from(testSamples).where(eq(testSamples.runId, run.id))).toHaveLength(1);
+    await removeSample(tech, removeSampleSchema.parse({ runId: run.id, sampleId: sample.id, reason: "Typed against the wrong part" }));
+    const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, run.id), eq(auditEvents.action, "test_run.sample_removed")));
+    expect(event.reason).toBe("Typed against the wrong part");
+    expect(JSON.parse(event.oldValue!)).toMatchObject({ sampleLabel: "R-1" });
+  });
+
+  it("sets a tank's first maintenance interval without a reason, and changes it only with one", async () => {
+    // A tank and kind the demo has no interval for, so the first value is a first value.
+    const existing = await t.db.select().from(maintenanceIntervals);
+    const free = (await listTanks()).flatMap((tk) => MAINTENANCE_KINDS.map((kind) => ({ stageId: tk.stage.id, kind }))).find((c) => !existing.some((e) => e.stageId === c.stageId && e.kind === c.kind))!;
+    const set = (extra: Record<string, string>) => setMaintenanceInterval(engineer, maintenanceIntervalSchema.parse({ ...free, intervalDays: "30", warnDays: "2", ...extra }));
+    const first = await set({});
+    await expect(set({ intervalDays: "45" })).rejects.toMatchObject({ field: "reason" });
+    const [unchanged] = await t.db.select().from(maintenanceIntervals).where(eq(maintenanceIntervals.id, first.id));
+    expect(unchanged.intervalDays).toBe(30);
+    await set({ intervalDays: "45", reason: "Bath lasts longer with the new skimmer" });
+    const events = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, first.id), eq(auditEvents.action, "maintenance_interval.set")));
+    expect(events.map((e) => e.reason)).toEqual([null, "Bath lasts longer with the new skimmer"]);
+  });
+});
+
+describe("a large CSV import does not hold the server", () => {
+  it("lets other work run between batches of inserts, inside its one transaction", async () => {
+    const run = await newParticleRun();
+    const rows = (await parseSampleCsv(["sample,components,E,F", ...Array.from({ length: 3000 }, (_, i) => `L-${i},1,${i % 40},${i % 9}`)].join("\n"))).rows;
+    let turns = 0;
+    let running = true;
+    const tick = () => {
+      turns += 1;
+      if (running) setImmediate(tick);
+    };
+    const bytes = new TextEncoder().encode("large.csv");
+    // A store that answers at once, so the turns counted are those of the transaction, not of a file write.
+    const memory = new Map<string, Uint8Array>();
+    setStore({ driver: "local", put: async (sha, b) => ({ created: !memory.has(sha) && !!memory.set(sha, b) }), get: async (sha) => memory.get(sha) ?? null, has: async (sha) => memory.has(sha) });
+    setImmediate(tick);
+    const before = turns;
+    try {
+      await importCsvRows(tech, { runId: run.id, testType: "particle_cleanliness", rows, fileName: "large.csv", bytes });
+    } finally {
+      running = false;
+      setStore(localStore(storeDir));
+    }
+    // 3,000 rows are six batches of 500; the loop turns between them.
+    expect(turns - before).toBeGreaterThanOrEqual(5);
+    expect(await t.db.select().from(testSamples).where(eq(testSamples.runId, run.id))).toHaveLength(3000);
+  }, 60_000);
 });

@@ -7,7 +7,7 @@ import {
   createRunSchema,
   maintenanceIntervalSchema,
   particleRunDataSchema,
-  sampleIdSchema,
+  removeSampleSchema,
   reviseRunSchema,
   runIdSchema,
   SAMPLE_SCHEMAS,
@@ -53,7 +53,7 @@ export const addSampleAction = defineAction({
 
 export const removeSampleAction = defineAction({
   permission: "evidence.record",
-  input: sampleIdSchema,
+  input: removeSampleSchema,
   run: async ({ user, input }) => {
     await removeSample(actorOf(user), input);
     return { message: "Sample removed." };

@@ -5,6 +5,7 @@ import { apiTokens, userRoles, users, type Role } from "@/db/schema";
 import { bearerToken, hashApiToken } from "@/lib/auth/api-token";
 import { can, type Permission } from "@/lib/auth/permissions";
 import { formatDate } from "@/lib/format/date";
+import { unlessUnavailable } from "@/lib/server/errors";
 
 export interface ApiUser {
   id: string;
@@ -47,7 +48,7 @@ export async function authenticateApi(request: Request, permission: Permission, 
   if (!row.user.active) return { ok: false, status: 401, message: "The account that owns this API token is deactivated." };
   if (row.user.lockedUntil && row.user.lockedUntil > now.toISOString()) return { ok: false, status: 401, message: "The account that owns this API token is locked after failed passwords. Try again later." };
   // Recorded before the permission check: a refused call is still a use of the token.
-  await db.update(apiTokens).set({ lastUsedAt: now.toISOString() }).where(eq(apiTokens.id, row.token.id));
+  await unlessUnavailable(() => db.update(apiTokens).set({ lastUsedAt: now.toISOString() }).where(eq(apiTokens.id, row.token.id)));
   if (mode === "write" && row.token.scope !== "read_write") {
     return { ok: false, status: 403, message: "This API token is read-only. Create a read-and-write token to send data." };
   }

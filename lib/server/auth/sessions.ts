@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { sessions, userRoles, type Role } from "@/db/schema";
 import { env } from "@/lib/env";
+import { unlessUnavailable } from "@/lib/server/errors";
 import type { Tx } from "@/db/client";
 import { lucia } from "@/lib/auth/lucia";
 import { blankSessionCookie, sessionCookie } from "@/lib/auth/session-cookie";
@@ -55,16 +56,19 @@ export async function validateSession(token: string, now = new Date()): Promise<
   if (!session || !user) return null;
   const times = { createdAt: new Date(session.createdAt * 1000), expiresAt: session.expiresAt };
   const policy = sessionPolicy();
+  // Both writes are bookkeeping: with a read-only database the refusal and the read still stand.
   if (sessionState(times, now, policy) !== "active" || !user.active) {
-    await lucia().invalidateSession(session.id);
+    await unlessUnavailable(() => lucia().invalidateSession(session.id));
     return null;
   }
   const next = extendedExpiry(times, now, policy);
   if (next) {
-    await getDb()
-      .update(sessions)
-      .set({ expiresAt: Math.floor(next.getTime() / 1000) })
-      .where(eq(sessions.id, session.id));
+    await unlessUnavailable(() =>
+      getDb()
+        .update(sessions)
+        .set({ expiresAt: Math.floor(next.getTime() / 1000) })
+        .where(eq(sessions.id, session.id)),
+    );
   }
   const roles = await getDb().select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, user.id));
   return {

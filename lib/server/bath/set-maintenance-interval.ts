@@ -15,6 +15,8 @@ export async function setMaintenanceInterval(actor: { id: string; name: string }
       .select()
       .from(maintenanceIntervals)
       .where(and(eq(maintenanceIntervals.stageId, input.stageId), eq(maintenanceIntervals.kind, input.kind)));
+    // Changing a due date the plant works to is a decision someone must explain; the first value is not.
+    if (existing && !input.reason) throw new UserFacingError("Give the reason for changing this interval.", { kind: "invalid", field: "reason" });
     const values = { intervalDays: input.intervalDays, warnDays: input.warnDays };
     const [row] = existing
       ? await tx.update(maintenanceIntervals).set({ ...values, updatedAt: now.toISOString() }).where(eq(maintenanceIntervals.id, existing.id)).returning()
@@ -25,6 +27,7 @@ export async function setMaintenanceInterval(actor: { id: string; name: string }
       recordId: row.id,
       old: existing ? { intervalDays: existing.intervalDays, warnDays: existing.warnDays } : null,
       new: { tank: stage.name, kind: input.kind, ...values },
+      reason: input.reason ?? null,
     });
     return row;
   });

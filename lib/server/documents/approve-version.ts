@@ -23,7 +23,7 @@ export async function approveVersion(actor: DocumentActor, input: { versionId: s
   const signer = await verifySigner({ userId: actor.id, password: input.password }, now);
   return getDb().transaction(async (tx) => {
     const { version, document } = await loadVersion(tx, input.versionId);
-    assertTransition(version, "approve", actor);
+    assertTransition(version, "approve", actor, document.type);
     const step = await findMyActiveStep(tx, version, actor.id, "approver");
     if (version.contentHash !== input.contentHash) throw new UserFacingError("This version changed since you opened it. Nothing was signed; reload and check it again.");
     // Segregation of duties: the author's own "authored" signature blocks their approval here.

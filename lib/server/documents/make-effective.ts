@@ -1,7 +1,7 @@
 // No "server-only" marker: the server's timer (instrumentation.ts) imports this too.
 import { and, eq, lte, ne } from "drizzle-orm";
 import { getDb, type Tx } from "@/db/client";
-import { documentVersions, type DocumentVersion } from "@/db/schema";
+import { documents, documentVersions, type DocumentVersion } from "@/db/schema";
 import { appendAudit, SYSTEM_ACTOR, type AuditActor } from "@/lib/audit";
 import { todayUtc } from "@/lib/format/date";
 
@@ -35,11 +35,13 @@ export async function makeEffectiveInTx(tx: Tx, actor: AuditActor, version: Docu
 /** Approved versions whose effective date has come: run by the server's timer. */
 export async function makeDueVersionsEffective(now = new Date()) {
   const today = todayUtc(now);
+  // A change narrative becomes effective when its change request closes, never by date.
   const due = await getDb()
-    .select()
+    .select({ version: documentVersions })
     .from(documentVersions)
-    .where(and(eq(documentVersions.status, "approved"), lte(documentVersions.effectiveDate, today)));
-  for (const version of due) {
+    .innerJoin(documents, eq(documents.id, documentVersions.documentId))
+    .where(and(eq(documentVersions.status, "approved"), lte(documentVersions.effectiveDate, today), ne(documents.type, "change_narrative")));
+  for (const { version } of due) {
     await getDb().transaction((tx) => makeEffectiveInTx(tx, SYSTEM_ACTOR, version, now));
   }
   return due.length;

@@ -16,7 +16,7 @@ export async function returnToAuthor(actor: DocumentActor, input: { versionId: s
   const rejecting = input.decision === "rejected";
   return getDb().transaction(async (tx) => {
     const { version, document } = await loadVersion(tx, input.versionId);
-    assertTransition(version, rejecting ? "reject" : "send_back", actor);
+    assertTransition(version, rejecting ? "reject" : "send_back", actor, document.type);
     const step = await findMyActiveStep(tx, version, actor.id, rejecting ? "approver" : "reviewer");
     const at = now.toISOString();
     await tx.update(documentReviews).set({ decision: input.decision, comment: input.comment, decidedAt: at }).where(eq(documentReviews.id, step.id));

@@ -18,8 +18,8 @@ export type SaveDraftResult =
  */
 export async function saveDraft(actor: DocumentActor, input: { versionId: string; lockVersion: number; content: RichDoc; overwrite: boolean }, now = new Date()): Promise<SaveDraftResult> {
   return getDb().transaction(async (tx) => {
-    const { version } = await loadVersion(tx, input.versionId);
-    assertTransition(version, "edit", actor);
+    const { version, document } = await loadVersion(tx, input.versionId);
+    assertTransition(version, "edit", actor, document.type);
     if (version.lockVersion !== input.lockVersion) {
       return {
         ok: false,

@@ -32,9 +32,16 @@ export async function loadVersion(tx: Tx, versionId: string): Promise<{ version:
   return { version: row.version as DocumentVersion & { content: RichDoc }, document: row.document };
 }
 
-/** Throws the lifecycle's reason when this step is not permitted now (21 CFR 11.10(f)). */
-export function assertTransition(version: DocumentVersion, action: DocumentAction, actor: DocumentActor) {
-  const check = checkTransition(version.status, action, actor.roles);
+/** The document's type, for steps that find the version by document rather than through loadVersion. */
+export async function documentType(tx: Tx, documentId: string): Promise<Document["type"]> {
+  const [row] = await tx.select({ type: documents.type }).from(documents).where(eq(documents.id, documentId));
+  if (!row) throw new UserFacingError("This document does not exist.", { kind: "not_found" });
+  return row.type;
+}
+
+/** Throws the lifecycle's reason when this step is not permitted now (21 CFR 11.10(f)); the type decides whether the document moves on its own. */
+export function assertTransition(version: DocumentVersion, action: DocumentAction, actor: DocumentActor, type: Document["type"]) {
+  const check = checkTransition(version.status, action, actor.roles, type);
   if (!check.ok) throw new UserFacingError(check.reason);
   return check.to;
 }

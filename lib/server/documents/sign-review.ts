@@ -13,7 +13,7 @@ export async function signReview(actor: DocumentActor, input: { versionId: strin
   const signer = await verifySigner({ userId: actor.id, password: input.password }, now);
   return getDb().transaction(async (tx) => {
     const { version, document } = await loadVersion(tx, input.versionId);
-    assertTransition(version, "review", actor);
+    assertTransition(version, "review", actor, document.type);
     const step = await findMyActiveStep(tx, version, actor.id, "reviewer");
     if (version.contentHash !== input.contentHash) throw new UserFacingError("This version changed since you opened it. Nothing was signed; reload and review again.");
     await applySignature(tx, { signer, recordType: "document_version", recordId: version.id, meaning: "reviewed", contentHash: input.contentHash }, now);

@@ -4,7 +4,7 @@ import { getDb } from "@/db/client";
 import { documentVersions } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
-import { assertTransition, hashContent, type DocumentActor } from "./shared";
+import { assertTransition, documentType, hashContent, type DocumentActor } from "./shared";
 
 /**
  * Editing an approved text starts a new draft version copied from the latest
@@ -15,7 +15,7 @@ export async function startNewVersion(actor: DocumentActor, input: { documentId:
   return getDb().transaction(async (tx) => {
     const [latest] = await tx.select().from(documentVersions).where(eq(documentVersions.documentId, input.documentId)).orderBy(desc(documentVersions.version)).limit(1);
     if (!latest) throw new UserFacingError("This document does not exist.", { kind: "not_found" });
-    assertTransition(latest, "new_version", actor);
+    assertTransition(latest, "new_version", actor, await documentType(tx, input.documentId));
     const [created] = await tx
       .insert(documentVersions)
       .values({ documentId: input.documentId, version: latest.version + 1, content: latest.content, createdBy: actor.id, changeReason: input.reason })

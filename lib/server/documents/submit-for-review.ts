@@ -50,7 +50,7 @@ export async function submitForReview(actor: DocumentActor, input: SubmitForRevi
 
   return getDb().transaction(async (tx) => {
     const { version, document } = await loadVersion(tx, input.versionId);
-    assertTransition(version, "submit", actor);
+    assertTransition(version, "submit", actor, document.type);
     if (version.lockVersion !== input.lockVersion) {
       throw new UserFacingError("The draft was saved again after you opened this page. Reload to submit the latest text.");
     }

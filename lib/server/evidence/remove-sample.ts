@@ -7,8 +7,9 @@ import { UserFacingError } from "@/lib/server/errors";
 import { requireOpenRun } from "./guards";
 import { refreshOutcome } from "./refresh-outcome";
 
-/** Removes a sample typed in error from an open run; the audit trail keeps what it held. */
-export async function removeSample(actor: AuditActor, input: { runId: string; sampleId: string }) {
+/** Removes a sample from an open run; the audit trail keeps what it held and why it went. */
+export async function removeSample(actor: AuditActor, input: { runId: string; sampleId: string; reason: string }) {
+  if (!input.reason.trim()) throw new UserFacingError("Give the reason for removing this sample.", { kind: "invalid", field: "reason" });
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
     const [row] = await tx.select().from(testSamples).where(and(eq(testSamples.id, input.sampleId), eq(testSamples.runId, run.id)));
@@ -21,6 +22,7 @@ export async function removeSample(actor: AuditActor, input: { runId: string; sa
       recordId: run.id,
       old: { sampleId: row.id, sampleLabel: row.sampleLabel, data: row.data },
       new: { outcome: outcome.outcome },
+      reason: input.reason,
     });
   });
 }

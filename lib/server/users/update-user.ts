@@ -7,8 +7,9 @@ import { isUniqueViolation, UserFacingError } from "@/lib/server/errors";
 import type { NewUser } from "./create-user";
 import { assertAnotherActiveAdmin } from "./last-admin";
 
-/** Changes a user's details and roles; the audit event holds exactly what changed. */
-export async function updateUser(actor: AuditActor, input: NewUser & { userId: string }) {
+/** Changes a user's details and roles; the audit event holds exactly what changed, and why the roles did. */
+export async function updateUser(actor: AuditActor, input: NewUser & { userId: string; reason?: string | null }) {
+  const reason = input.reason?.trim() || null;
   try {
     await getDb().transaction(async (tx) => {
       const [before] = await tx.select().from(users).where(eq(users.id, input.userId));
@@ -24,9 +25,11 @@ export async function updateUser(actor: AuditActor, input: NewUser & { userId: s
       if (Object.keys(changed).length > 0) {
         await tx.update(users).set(changed).where(eq(users.id, input.userId));
         const oldPart = Object.fromEntries(Object.keys(changed).map((k) => [k, old[k as keyof typeof old]]));
-        await appendAudit(tx, actor, { eventType: "user.updated", recordType: "user", recordId: input.userId, old: oldPart, new: changed });
+        await appendAudit(tx, actor, { eventType: "user.updated", recordType: "user", recordId: input.userId, old: oldPart, new: changed, reason });
       }
       if (oldRoles.join() !== newRoles.join()) {
+        // A role decides what a person may sign: the change needs its reason, checked before anything is written.
+        if (!reason) throw new UserFacingError("Give the reason for changing this person's roles.", { kind: "invalid", field: "reason" });
         await tx.delete(userRoles).where(eq(userRoles.userId, input.userId));
         await tx.insert(userRoles).values(newRoles.map((role) => ({ userId: input.userId, role })));
         await appendAudit(tx, actor, {
@@ -35,6 +38,7 @@ export async function updateUser(actor: AuditActor, input: NewUser & { userId: s
           recordId: input.userId,
           old: { roles: oldRoles },
           new: { roles: newRoles },
+          reason,
         });
       }
     });

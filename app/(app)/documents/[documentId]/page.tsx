@@ -44,7 +44,7 @@ export default async function DocumentPage({ params, searchParams }: { params: P
   const hidden = { versionId: version.id, documentId };
   const round = version.reviews.filter((r) => r.round === version.reviewRound);
   const myStep = round.find((r) => r.assigneeId === user.id && r.decision === null && r.activatedAt !== null);
-  const allowed = (action: Parameters<typeof checkTransition>[1]) => checkTransition(version.status, action, user.roles).ok;
+  const allowed = (action: Parameters<typeof checkTransition>[1]) => checkTransition(version.status, action, user.roles, document.type).ok;
   const isLatest = version.version === document.versions[0].version;
   const hasOpenVersion = document.versions.some((v) => ["draft", "in_review", "approved"].includes(v.status));
   const draftHash = version.status === "draft" ? hashContent(version.content) : null;

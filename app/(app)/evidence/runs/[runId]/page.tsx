@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { CsvImport } from "@/components/evidence/csv-import";
 import { FileUpload } from "@/components/evidence/file-upload";
 import { OutcomePanel } from "@/components/evidence/outcome-panel";
+import { SamplePager } from "@/components/evidence/sample-pager";
 import { RemoveSampleButton, ReviseForm } from "@/components/evidence/run-actions";
 import { RunDataForm, SampleForm } from "@/components/evidence/sample-form";
 import { OutcomeWord, RunStatusWord } from "@/components/evidence/status-word";
@@ -14,6 +15,7 @@ import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
 import { isCsvTestType } from "@/lib/evidence/csv-import";
 import { describeSample } from "@/lib/evidence/describe";
+import { readSamplePage, samplePage } from "@/lib/evidence/sample-page";
 import { formatSize } from "@/lib/format/number";
 import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
@@ -26,9 +28,10 @@ import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 export const metadata: Metadata = { title: "Test run" };
 
 
-export default async function RunPage({ params }: { params: Promise<{ runId: string }> }) {
+export default async function RunPage({ params, searchParams }: { params: Promise<{ runId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePageUser("evidence.view");
   const { runId } = await params;
+  const requestedPage = readSamplePage((await searchParams).samples);
   const detail = /^[0-9a-f-]{36}$/.test(runId) ? await getRunDetail(runId) : undefined;
   if (!detail) notFound();
   const { run, family, spec, recipe, version, outcome, samples, files, signatures, revisions } = detail;
@@ -37,6 +40,10 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
   const label = `${run.number} revision ${run.revision}`;
   const performedBy = signatures.find((s) => s.meaning === "performed");
   const runData = (run.runData ?? { extractionSeries: [], blank: null }) as ParticleRunData;
+  // The outcome is computed over every sample; the page shows one page of them and of their working.
+  const shown = samplePage(samples, requestedPage);
+  const worked = samplePage(outcome.samples, requestedPage);
+  const runPath = `/evidence/runs/${run.id}`;
   return (
     <>
       <PageHeader
@@ -60,15 +67,16 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
       )}
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
-          <OutcomePanel outcome={outcome} />
+          <OutcomePanel outcome={{ ...outcome, samples: worked.items }} pager={<SamplePager page={worked} basePath={runPath} label="Pages of the samples' working" />} />
 
           <section aria-labelledby="samples-title" className="space-y-3">
             <h2 id="samples-title" className="text-base font-semibold">
               Raw data ({samples.length} sample{samples.length === 1 ? "" : "s"})
             </h2>
+            <SamplePager page={shown} basePath={runPath} label="Pages of raw data" />
             {samples.length > 0 && (
               <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
-                {samples.map((r) => (
+                {shown.items.map((r) => (
                   <li key={r.id} className="flex items-start justify-between gap-3 px-3 py-2">
                     <div>
                       <span className="font-medium">{r.sampleLabel}</span>

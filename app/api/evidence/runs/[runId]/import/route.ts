@@ -1,4 +1,3 @@
-import { Readable } from "node:stream";
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { storedText } from "@/lib/schemas/text";
@@ -15,9 +14,9 @@ import { uploadLimitBytes } from "@/lib/server/evidence/store-file";
 const mappingSchema = z.record(z.string(), storedText().max(200));
 
 /**
- * Imports samples (particle counts or filter weighings) from a CSV file into an open run. The file is read as
- * a stream and every row validated; nothing is saved unless the whole file is
- * valid, and then all rows are saved in one transaction with the file as evidence.
+ * Imports samples (particle counts or filter weighings) from a CSV file into an open run. Every row is
+ * validated, a batch at a time so other requests are answered meanwhile; nothing is saved unless the
+ * whole file is valid, and then all rows are saved in one transaction with the file as evidence.
  */
 export const POST = defineRoute<{ runId: string }>({ permission: "evidence.record" }, async ({ request, user, params }) => {
   const runId = z.string().uuid().safeParse(params.runId);
@@ -43,7 +42,9 @@ export const POST = defineRoute<{ runId: string }>({ permission: "evidence.recor
     if (!parsed.success) return routeError(400, "The column mapping is not valid.");
     mapping = Object.fromEntries(Object.entries(parsed.data).filter(([, v]) => v !== "")) as ColumnMapping;
   }
-  const result = await parseSampleCsv(Readable.fromWeb(file.stream() as never), { testType: run.testType, mapping, maxRows: 100_000 });
+  // The form has already buffered the file (at most the upload limit), and its web stream hands it over
+  // in one chunk: parsed as text, the rows are validated in batches with the event loop turning between them.
+  const result = await parseSampleCsv(await file.text(), { testType: run.testType, mapping, maxRows: 100_000 });
   if (result.fileErrors.length > 0 || result.errorCount > 0) {
     return NextResponse.json(
       {
