@@ -166,10 +166,10 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             <h2 id="signatures-title" className="font-semibold">Signatures</h2>
             <SignatureList signatures={signatures} />
             {open && run.technicianId === user.id && can(user.roles, "evidence.sign_performed") && (
-              <SignatureDialog action={signRunAction} meaning="performed" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
+              <SignatureDialog action={signRunAction} recordType="test_run" meaning="performed" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
             )}
             {run.status === "performed" && can(user.roles, "evidence.verify") && performedBy?.userId !== user.id && (
-              <SignatureDialog action={signRunAction} meaning="verified" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
+              <SignatureDialog action={signRunAction} recordType="test_run" meaning="verified" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
             )}
           </section>
 
