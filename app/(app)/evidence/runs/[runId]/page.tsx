@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { CsvImport } from "@/components/evidence/csv-import";
 import { FileUpload } from "@/components/evidence/file-upload";
 import { OutcomePanel } from "@/components/evidence/outcome-panel";
-import { RemoveSampleButton, ReviseForm } from "@/components/evidence/run-actions";
+import { DetachFileForm, RemoveSampleButton, ReviseForm } from "@/components/evidence/run-actions";
 import { RunDataForm, SampleForm } from "@/components/evidence/sample-form";
 import { OutcomeWord, RunStatusWord } from "@/components/evidence/status-word";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
@@ -19,7 +19,7 @@ import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRunDetail } from "@/lib/server/evidence/queries";
-import { addSampleAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
+import { addSampleAction, detachFileAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
 import { formatDateTime } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
@@ -108,6 +108,11 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
                   <Th align="right">Size</Th>
                   <Th>SHA-256</Th>
                   <Th>Uploaded</Th>
+                  {mayRecord && (
+                    <Th>
+                      <span className="sr-only">Detach</span>
+                    </Th>
+                  )}
                 </THead>
                 <TBody>
                   {files.map(({ file, uploader }) => (
@@ -128,6 +133,11 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
                       <Td className="text-xs">
                         {uploader}, {formatDateTime(file.uploadedAt)}
                       </Td>
+                      {mayRecord && (
+                        <Td>
+                          <DetachFileForm action={detachFileAction} runId={run.id} fileId={file.id} name={file.originalName} />
+                        </Td>
+                      )}
                     </tr>
                   ))}
                 </TBody>
