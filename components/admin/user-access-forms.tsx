@@ -24,7 +24,8 @@ export function UserAccessForms({ userId, active, isSelf }: { userId: string; ac
           <p className="mt-1 mb-3 text-sm text-stone-600">
             {active ? "The person can no longer sign in; their records and signatures stay." : "The person may sign in again."}
           </p>
-          <ActionForm action={setUserActiveAction} className="space-y-3" aria-label={active ? "Deactivate user" : "Reactivate user"}>
+          {/* Cleared once done: the Reactivate form must not offer the deactivation's reason as its own. */}
+          <ActionForm resetOnSuccess action={setUserActiveAction} className="space-y-3" aria-label={active ? "Deactivate user" : "Reactivate user"}>
             <input type="hidden" name="userId" value={userId} />
             <input type="hidden" name="active" value={active ? "false" : "true"} />
             <Field name="reason" label="Reason" />

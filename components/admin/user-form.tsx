@@ -25,7 +25,8 @@ const ROLE_HINTS: Record<Role, string> = {
 
 export function UserForm({ action, user, submitLabel }: UserFormProps) {
   return (
-    <ActionForm action={action} className="max-w-xl space-y-4" aria-label={user ? "Edit user" : "New user"}>
+    // A new user's form clears once created, so a second click cannot submit the same person again.
+    <ActionForm action={action} className="max-w-xl space-y-4" aria-label={user ? "Edit user" : "New user"} resetOnSuccess={!user}>
       {user && <input type="hidden" name="userId" value={user.id} />}
       <Field name="name" label="Full name" defaultValue={user?.name} autoComplete="off" />
       <Field name="email" label="E-mail" type="email" defaultValue={user?.email} autoComplete="off" />

@@ -5,6 +5,7 @@ import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/re
 import { Download } from "lucide-react";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
+import { useListParams } from "@/components/ui/use-list-params";
 import { DataTable } from "@/components/ui/data-table";
 import type { AuditPage } from "@/lib/server/audit/query-audit-events";
 import { formatDateTime } from "@/lib/format/date";
@@ -82,7 +83,8 @@ export interface AuditBrowserProps {
 }
 
 export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: AuditBrowserProps) {
-  const [filters, setFilters] = useState<Filters>(EMPTY);
+  // The filters live in the address, so a filtered trail can be linked and reloaded; paging stays on this page.
+  const [filters, setFilters] = useListParams(EMPTY);
   const [cursors, setCursors] = useState<number[]>([]); // stack of "before" cursors, newest page first
   const before = cursors.at(-1);
   const qs = queryString(filters, before);
@@ -103,7 +105,7 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
       <form onSubmit={apply} aria-label="Filter the audit trail" className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3 xl:grid-cols-7">
         <label className="text-sm">
           User
-          <select name="actor" className={select} defaultValue="">
+          <select name="actor" className={select} defaultValue={filters.actor}>
             <option value="">Anyone</option>
             {actors.map((a) => (
               <option key={a.id} value={a.id}>
@@ -114,7 +116,7 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
         </label>
         <label className="text-sm">
           Record type
-          <select name="recordType" className={select} defaultValue="">
+          <select name="recordType" className={select} defaultValue={filters.recordType}>
             <option value="">Any</option>
             {recordTypes.map((t) => (
               <option key={t}>{t}</option>
@@ -123,11 +125,11 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
         </label>
         <label className="text-sm">
           Record id
-          <input name="recordId" className={select} />
+          <input name="recordId" className={select} defaultValue={filters.recordId} />
         </label>
         <label className="text-sm">
           Event
-          <select name="eventType" className={select} defaultValue="">
+          <select name="eventType" className={select} defaultValue={filters.eventType}>
             <option value="">Any</option>
             {eventTypes.map((a) => (
               <option key={a}>{a}</option>
@@ -136,11 +138,11 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
         </label>
         <label className="text-sm">
           From
-          <input type="date" name="from" className={select} />
+          <input type="date" name="from" className={select} defaultValue={filters.from} />
         </label>
         <label className="text-sm">
           To
-          <input type="date" name="to" className={select} />
+          <input type="date" name="to" className={select} defaultValue={filters.to} />
         </label>
         <div className="flex items-end gap-2">
           <Button type="submit">Filter</Button>

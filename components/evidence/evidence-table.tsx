@@ -3,7 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { getCoreRowModel, useReactTable, type ColumnDef, type PaginationState, type SortingState } from "@tanstack/react-table";
 import Link from "next/link";
-import { useState } from "react";
+import { useListParams } from "@/components/ui/use-list-params";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 import { humanize } from "@/lib/format/labels";
 import type { EvidenceListPage, EvidenceListRow } from "@/lib/schemas/evidence-list";
@@ -38,7 +38,9 @@ export interface EvidenceTableProps {
 }
 
 type Filters = { partFamilyId: string; recipeVersionId: string; testType: string; outcome: string; from: string; to: string };
-const NO_FILTERS: Filters = { partFamilyId: "", recipeVersionId: "", testType: "", outcome: "", from: "", to: "" };
+/** Filters, sort and page live in the address (lib/url/list-params.ts), so a filtered list can be linked and reloaded. */
+const LIST_DEFAULTS = { partFamilyId: "", recipeVersionId: "", testType: "", outcome: "", from: "", to: "", sort: "performedOn", dir: "desc", page: "1" };
+const PAGE_SIZE = 20;
 
 async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
   const response = await fetch(`/api/evidence/runs?${params}`, { cache: "no-store" });
@@ -49,9 +51,19 @@ async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
 
 /** The evidence list: filters, sorting and paging are done by the server; the page is fetched here. */
 export function EvidenceTable({ families, versions }: EvidenceTableProps) {
-  const [filters, setFilters] = useState<Filters>(NO_FILTERS);
-  const [sorting, setSorting] = useState<SortingState>([{ id: "performedOn", desc: true }]);
-  const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 20 });
+  const [list, setList] = useListParams(LIST_DEFAULTS);
+  const { sort, dir, page, ...filters } = list;
+  const sorting: SortingState = [{ id: sort, desc: dir !== "asc" }];
+  const pageIndex = Math.max(0, (Number.parseInt(page, 10) || 1) - 1);
+  const pagination: PaginationState = { pageIndex, pageSize: PAGE_SIZE };
+  const setSorting = (updater: SortingState | ((old: SortingState) => SortingState)) => {
+    const next = typeof updater === "function" ? updater(sorting) : updater;
+    setList({ sort: next[0]?.id ?? LIST_DEFAULTS.sort, dir: next[0]?.desc === false ? "asc" : "desc", page: "1" });
+  };
+  const setPagination = (updater: PaginationState | ((old: PaginationState) => PaginationState)) => {
+    const next = typeof updater === "function" ? updater(pagination) : updater;
+    setList({ page: String(next.pageIndex + 1) });
+  };
   const params = new URLSearchParams({
     ...Object.fromEntries(Object.entries(filters).filter(([, v]) => v !== "")),
     sort: sorting[0]?.id ?? "performedOn",
@@ -73,8 +85,7 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
     rowCount: data?.total ?? 0,
   });
   const setFilter = (key: keyof Filters) => (event: { target: { value: string } }) => {
-    setFilters((f) => ({ ...f, [key]: event.target.value }));
-    setPagination((p) => ({ ...p, pageIndex: 0 }));
+    setList({ [key]: event.target.value, page: "1" });
   };
   const pages = Math.max(1, Math.ceil((data?.total ?? 0) / pagination.pageSize));
   const select = "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";

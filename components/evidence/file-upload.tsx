@@ -25,6 +25,8 @@ export function FileUpload({ runId, maxMb }: { runId: string; maxMb: number }) {
       setState({ ok: Boolean(body.ok), message: body.ok ? body.message : (body.error ?? body.message) });
       if (body.ok) {
         (form.elements.namedItem("file") as HTMLInputElement).value = "";
+        // The next file is usually another sample's: a carried-over label would tag it to the wrong one.
+        (form.elements.namedItem("sampleLabel") as HTMLInputElement).value = "";
         router.refresh();
       }
     } catch {

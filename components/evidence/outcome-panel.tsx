@@ -1,10 +1,13 @@
 import type { ReactNode } from "react";
+import { checkWord, type Check } from "@/lib/evidence/outcomes/common";
 import type { RunOutcome } from "@/lib/evidence/outcome";
 import { OutcomeWord } from "./status-word";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
-function CheckWord({ pass }: { pass: boolean | null }) {
-  return <OutcomeWord outcome={pass === null ? "incomplete" : pass ? "pass" : "fail"} />;
+function CheckWord({ check }: { check: Check }) {
+  const word = checkWord(check);
+  if (word === "not recorded") return <span className="font-normal text-stone-600">Not recorded</span>;
+  return <OutcomeWord outcome={word} />;
 }
 
 /** The computed outcome with its working: every line says what was compared with what. */
@@ -35,7 +38,7 @@ export function OutcomePanel({ outcome, pager }: { outcome: RunOutcome; pager?: 
       {outcome.checks.map((c) => (
         <div key={c.title} className="mt-4">
           <h3 className="flex gap-2 text-sm font-semibold">
-            {c.title}: <CheckWord pass={c.pass} />
+            {c.title}: <CheckWord check={c} />
           </h3>
           <ul className="mt-1 space-y-0.5 font-mono text-xs text-stone-700">
             {c.lines.map((l, i) => (

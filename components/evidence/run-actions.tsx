@@ -27,6 +27,23 @@ export function RemoveSampleButton({ action, runId, sampleId, label }: { action:
   );
 }
 
+/** Detaches a file attached in error, with its reason; the stored file stays. */
+export function DetachFileForm({ action, runId, fileId, name }: { action: Action; runId: string; fileId: string; name: string }) {
+  return (
+    <details className="text-xs">
+      <summary className="cursor-pointer text-brand-800 hover:underline">Detach</summary>
+      <ActionForm action={action} showSuccess={false} className="mt-2 space-y-2" aria-label={`Detach ${name}`}>
+        <input type="hidden" name="runId" value={runId} />
+        <input type="hidden" name="fileId" value={fileId} />
+        <Field name="reason" label={`Reason for detaching ${name}`} />
+        <SubmitButton variant="secondary" pendingText="Detaching…">
+          Detach file
+        </SubmitButton>
+      </ActionForm>
+    </details>
+  );
+}
+
 /** A correction of a signed run: a new revision with its reason; the old revision stays as it was. */
 export function ReviseForm({ action, runId }: { action: Action; runId: string }) {
   return (

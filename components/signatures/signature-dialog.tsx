@@ -6,14 +6,16 @@ import { ActionForm } from "@/components/ui/action-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
-import type { SignatureMeaning } from "@/db/enums";
+import type { SignatureMeaning, SignedRecordType } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
-import { MEANING_LABELS, MEANING_STATEMENTS } from "@/lib/signatures/rules";
+import { MEANING_LABELS, meaningStatement } from "@/lib/signatures/rules";
 
 export interface SignatureDialogProps {
   /** Server action that verifies the password and signs; receives the form's fields. */
   action: (prev: FormState, formData: FormData) => Promise<FormState>;
   meaning: SignatureMeaning;
+  /** The kind of record signed: each has its own wording for a meaning. */
+  recordType: SignedRecordType;
   signerName: string;
   /** What is being signed, e.g. "PQ-AW3-004 version 2". */
   recordLabel: string;
@@ -29,7 +31,7 @@ export interface SignatureDialogProps {
  * The signing ceremony: states the meaning, the signer's printed name and the
  * hash of exactly the version signed, and asks for the password every time.
  */
-export function SignatureDialog({ action, meaning, signerName, recordLabel, contentHash, hidden = {}, children, buttonLabel }: SignatureDialogProps) {
+export function SignatureDialog({ action, meaning, recordType, signerName, recordLabel, contentHash, hidden = {}, children, buttonLabel }: SignatureDialogProps) {
   const dialog = useRef<HTMLDialogElement>(null);
   const label = buttonLabel ?? `Sign as ${MEANING_LABELS[meaning].toLowerCase()}`;
   return (
@@ -43,7 +45,7 @@ export function SignatureDialog({ action, meaning, signerName, recordLabel, cont
           <h2 id={`sign-${meaning}-title`} className="text-lg font-semibold text-stone-900">
             {label}: {recordLabel}
           </h2>
-          <p className="mt-3 rounded-md bg-stone-50 p-3 text-sm text-stone-800">{MEANING_STATEMENTS[meaning]}</p>
+          <p className="mt-3 rounded-md bg-stone-50 p-3 text-sm text-stone-800">{meaningStatement(recordType, meaning)}</p>
           <dl className="mt-3 grid grid-cols-[max-content_1fr] gap-x-3 gap-y-1 text-sm">
             <dt className="text-stone-500">Printed name</dt>
             <dd>{signerName}</dd>

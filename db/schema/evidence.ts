@@ -83,6 +83,15 @@ export const evidenceFiles = sqliteTable(
     sampleLabel: text("sample_label"),
     uploadedBy: text("uploaded_by").notNull().references(() => users.id),
     uploadedAt: createdAt(),
+    /**
+     * A file attached in error is detached rather than deleted: `run_id` is cleared, so it leaves
+     * the run's content and outcome, and these say where it was, when, by whom and why. The
+     * stored bytes are kept.
+     */
+    detachedFromRunId: text("detached_from_run_id").references(() => testRuns.id),
+    detachedAt: text("detached_at"),
+    detachedBy: text("detached_by").references(() => users.id),
+    detachReason: text("detach_reason"),
   },
   (t) => [index("evidence_files_run_idx").on(t.runId), index("evidence_files_sha_idx").on(t.sha256)],
 );

@@ -2,6 +2,7 @@ import "server-only";
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import type { z } from "zod";
+import { unknownFieldErrors, unknownFieldsMessage } from "@/lib/api/strict-keys";
 import { declareEndpoint, permissionFor, type Declared, type PermissionSwitch } from "@/lib/auth/endpoint-rule";
 import type { Permission } from "@/lib/auth/permissions";
 import { deliverSoon } from "@/lib/email/deliver";
@@ -86,6 +87,12 @@ async function perform<S extends z.ZodType, R extends RunResult>(
   raw: unknown,
   run: (ctx: ActionContext<z.output<S>>) => Promise<R>,
 ): Promise<ActionState<R>> {
+  // A JSON payload is an object like an API body: a key its schema does not know is refused by
+  // name, never dropped. (A form's fields are read by name, so only what the schema asks is used.)
+  if (options.from === "payload") {
+    const extra = unknownFieldErrors(options.input, raw);
+    if (extra) return { ok: false, message: unknownFieldsMessage(extra), fieldErrors: extra } as ActionState<R>;
+  }
   const parsed = options.input.safeParse(raw);
   if (!parsed.success) return invalid(parsed.error, options.invalidMessage) as ActionState<R>;
   const input = parsed.data as z.output<S>;

@@ -426,6 +426,11 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
   }),
   event("evidence_file.downloaded", "evidence_file", { new: obj({ sha256, name: text }) }),
+  // The row stays with its bytes; only its link to the run ends.
+  event("evidence_file.detached", "evidence_file", {
+    old: obj({ run: text, runId: id }),
+    new: obj({ reason: text, sha256, name: text, outcome }),
+  }),
   event("evidence_file.integrity_failed", "evidence_file", {
     new: obj({ expectedSha256: sha256, actualSha256: sha256.nullable(), name: text }),
   }),

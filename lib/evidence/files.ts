@@ -29,7 +29,49 @@ export function detectType(bytes: Uint8Array): AcceptedType | null {
   } catch {
     return null;
   }
-  return /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/.test(text) ? null : "csv";
+  if (/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/.test(text)) return null;
+  // Markup is text too, but a browser would run it: never take it for a table.
+  return markupKind(text) ? null : "csv";
+}
+
+const HTML_START = /^\s*(<!--[\s\S]*?-->\s*)*<(!doctype\s+html|html|head|body|script|meta|iframe|div|p|a|table|style|link|title|img|form)\b/i;
+const SVG_START = /^\s*(<\?xml[^>]*>\s*)?(<!--[\s\S]*?-->\s*)*(<!doctype\s+svg[^>]*>\s*)?<svg\b/i;
+
+function markupKind(text: string): string | null {
+  const head = text.replace(/^\uFEFF/, "").slice(0, 4096);
+  if (SVG_START.test(head)) return "an SVG image";
+  if (HTML_START.test(head)) return "an HTML page";
+  if (/^\s*<\?xml\b/i.test(head)) return "an XML document";
+  return null;
+}
+
+/** Signatures of common files we do not accept, so a refusal can say what the file is. */
+const OTHER_SIGNATURES: [number[], string][] = [
+  [[0x4d, 0x5a], "a Windows program"],
+  [[0x7f, 0x45, 0x4c, 0x46], "a Linux program"],
+  [[0x50, 0x4b, 0x03, 0x04], "a ZIP archive (or an Office document)"],
+  [[0xd0, 0xcf, 0x11, 0xe0], "an older Office document"],
+  [[0x47, 0x49, 0x46, 0x38], "a GIF image"],
+  [[0x49, 0x49, 0x2a, 0x00], "a TIFF image"],
+  [[0x4d, 0x4d, 0x00, 0x2a], "a TIFF image"],
+  [[0x7b, 0x5c, 0x72, 0x74, 0x66], "an RTF document"],
+];
+
+/** What the bytes are, in words, for a refusal ("an HTML page", "plain text"); "an unrecognised kind of file" when nothing fits. */
+export function describeContents(bytes: Uint8Array): string {
+  // Signatures first: some ("GIF89a") are plain ASCII and would otherwise read as text.
+  if (startsWith(bytes, [0x52, 0x49, 0x46, 0x46]) && String.fromCharCode(...bytes.slice(8, 12)) === "WEBP") return "a WebP image";
+  for (const [sig, what] of OTHER_SIGNATURES) if (startsWith(bytes, sig)) return what;
+  const accepted = detectType(bytes);
+  if (accepted) return accepted === "csv" ? "plain text" : `a ${ACCEPTED_TYPES[accepted].label}`;
+  try {
+    const text = new TextDecoder("utf-8", { fatal: true }).decode(bytes.slice(0, 4096));
+    const markup = markupKind(text);
+    if (markup) return markup;
+  } catch {
+    // not text
+  }
+  return "an unrecognised kind of file";
 }
 
 export class FileCheckError extends Error {
@@ -113,8 +155,11 @@ export function checkUpload(input: { name: string; bytes: Uint8Array; maxBytes: 
   if (!claimed) throw new FileCheckError(`"${name}" is not a PDF, PNG, JPEG or CSV file (by its extension).`);
   const actual = detectType(input.bytes);
   if (actual !== claimed) {
+    // Name what the file is ("an HTML page"), never a type it was only mistaken for.
+    const what = describeContents(input.bytes);
+    const accepted = actual !== null && actual !== "csv";
     throw new FileCheckError(
-      `"${name}" is named as a ${ACCEPTED_TYPES[claimed].label}, but its contents are ${actual ? `a ${ACCEPTED_TYPES[actual].label}` : "not a PDF, PNG, JPEG or CSV file"}. Nothing was stored.`,
+      `"${name}" is named as a ${ACCEPTED_TYPES[claimed].label}, but its contents are ${what}${accepted ? "" : ", not a PDF, PNG, JPEG or CSV file"}. Nothing was stored.`,
     );
   }
   if (actual === "csv") {

@@ -1,8 +1,14 @@
 /** Plain words for stored codes, so screens never show an identifier where a person expects a word. */
 export function humanize(code: string): string {
-  const s = code.replace(/_/g, " ");
+  const s = code
+    .split("_")
+    .map((word) => ACRONYMS.get(word.toLowerCase()) ?? word)
+    .join(" ");
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
+
+/** Abbreviations a code holds in lower case that read wrong capitalised ("Uv inspection"). */
+const ACRONYMS = new Map(["uv", "iq", "oq", "pq", "csv", "pdf", "api", "id"].map((a) => [a, a.toUpperCase()]));
 
 export const STAGE_MODE_LABELS: Record<string, string> = {
   ultrasonic: "Ultrasonic",

@@ -4,12 +4,21 @@ import { humanize } from "@/lib/format/labels";
 import { formatBytes, rangeWithUnit, withUnit } from "@/lib/format/number";
 import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
-import { MEANING_LABELS, MEANING_STATEMENTS } from "@/lib/signatures/rules";
+import { MEANING_LABELS, meaningStatement } from "@/lib/signatures/rules";
 import { BINDING_LABELS, OUTCOME_LABELS } from "@/lib/trace/labels";
 import type { AuditPack } from "@/lib/server/trace/audit-pack";
 import { formatDateTime } from "@/lib/format/date";
-import { PDF_FONT } from "./fonts";
 import { letterheadLine, type Letterhead } from "./letterhead";
+import { MONO_ADVANCE_EM, PDF_FONT, PDF_MONO_FONT } from "./fonts";
+
+/**
+ * Hashes are set in GeistMono at this size: 64 characters take 64 × 0.6 × 6.5 = 249.6 pt, so a
+ * SHA-256 always fits on one line of any column at least that wide, and is never hyphenated or cut.
+ */
+const MONO_SIZE = 6.5;
+/** Characters of a hash per line: a whole SHA-256. Longer values (a signature) break every 64 characters, never elsewhere. */
+const HASH_LINE = 64;
+export const HASH_LINE_WIDTH_PT = HASH_LINE * MONO_ADVANCE_EM * MONO_SIZE;
 
 const s = StyleSheet.create({
   page: { fontFamily: PDF_FONT, fontSize: 8.5, paddingTop: 22, paddingBottom: 22, paddingHorizontal: 40, color: "#1c1917" },
@@ -28,13 +37,25 @@ const s = StyleSheet.create({
   row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: "#d6d3d1" },
   cell: { padding: 2.5, borderRightWidth: 0.5, borderRightColor: "#d6d3d1" },
   head: { backgroundColor: "#f5f5f4", fontWeight: "bold" },
-  mono: { fontSize: 7 },
+  mono: { fontFamily: PDF_MONO_FONT, fontSize: MONO_SIZE },
+  note: { flexDirection: "row", paddingHorizontal: 2.5, paddingBottom: 2.5 },
+  noteLabel: { color: "#57534e", marginRight: 4 },
   kv: { flexDirection: "row", marginBottom: 1.5 },
   k: { width: 120, color: "#57534e" },
   v: { flex: 1 },
 });
 
-function Table({ widths, head, rows }: { widths: number[]; head: string[]; rows: ReactNode[][] }) {
+/**
+ * A hash or signature in the monospace face, broken only every `perLine` characters (a full-width
+ * line holds 128: 128 × 3.9 pt = 499 pt of the page's 515).
+ */
+function Hash({ value, perLine = HASH_LINE }: { value: string; perLine?: number }) {
+  const lines = value.match(new RegExp(`.{1,${perLine}}`, "g")) ?? [value];
+  return <Text style={s.mono}>{lines.join("\n")}</Text>;
+}
+
+/** `notes`: a full-width line under each row, for a hash too wide to share the row with its columns. */
+function Table({ widths, head, rows, notes }: { widths: number[]; head: string[]; rows: ReactNode[][]; notes?: ReactNode[] }) {
   return (
     <View style={s.table}>
       <View style={[s.row, s.head]} fixed>
@@ -45,12 +66,15 @@ function Table({ widths, head, rows }: { widths: number[]; head: string[]; rows:
         ))}
       </View>
       {rows.map((r, ri) => (
-        <View key={ri} style={s.row} wrap={false}>
-          {r.map((c, ci) => (
-            <View key={ci} style={[s.cell, { flex: widths[ci] }]}>
-              {typeof c === "string" || typeof c === "number" ? <Text>{c}</Text> : c}
-            </View>
-          ))}
+        <View key={ri} style={[s.row, { flexDirection: "column" }]} wrap={false}>
+          <View style={{ flexDirection: "row" }}>
+            {r.map((c, ci) => (
+              <View key={ci} style={[s.cell, { flex: widths[ci] }]}>
+                {typeof c === "string" || typeof c === "number" ? <Text>{c}</Text> : c}
+              </View>
+            ))}
+          </View>
+          {notes?.[ri]}
         </View>
       ))}
     </View>
@@ -77,8 +101,12 @@ function CheckpointAnchor({ checkpoints: c }: { checkpoints: AuditPack["checkpoi
         Newest signed checkpoint (kept in the evidence store, outside the database, and e-mailed to the auditor): event {cp.seq} at {formatDateTime(cp.at, { seconds: true })}, signed{" "}
         {cp.by === "schedule" ? "on schedule" : `at the request of ${cp.by}`} with Ed25519 key {cp.keyId}. {verdict}
       </Text>
-      <Text style={s.mono}>hash {cp.hash}</Text>
-      <Text style={[s.mono, { marginBottom: 6 }]}>signature {cp.signature}</Text>
+      <Text style={s.small}>Checkpoint hash (SHA-256)</Text>
+      <Hash value={cp.hash} />
+      <Text style={s.small}>Ed25519 signature</Text>
+      <View style={{ marginBottom: 6 }}>
+        <Hash value={cp.signature} perLine={2 * HASH_LINE} />
+      </View>
     </View>
   );
 }
@@ -129,7 +157,7 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
         )}
       >
 
-        <Text style={s.h2}>1. The record</Text>
+        <Text style={s.h2} minPresenceAhead={60}>1. The record</Text>
         <KV k="Change request">
           {cr.number} · {CHANGE_KIND_LABELS[pack.kind]} · revision {pack.revision}
         </KV>
@@ -141,9 +169,12 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
         <KV k="Opened">{formatDateTime(cr.createdAt, { seconds: true })}</KV>
         <KV k="Closed">{cr.closedAt ? formatDateTime(cr.closedAt, { seconds: true }) : "not closed"}</KV>
         <KV k="Version in force">{pack.toVersion.effectiveFrom ? `version ${pack.toVersion.version} from ${formatDateTime(pack.toVersion.effectiveFrom, { seconds: true })}` : pack.fromVersion ? `version ${pack.fromVersion.version} (the proposal is not in force)` : "none (the first version is not in force yet)"}</KV>
-        <KV k="Content hash (SHA-256)">{pack.contentHash}</KV>
+        <View style={s.kv}>
+          <Text style={s.k}>Content hash (SHA-256)</Text>
+          <Hash value={pack.contentHash} />
+        </View>
 
-        <Text style={s.h2}>2. Justification and risk assessment</Text>
+        <Text style={s.h2} minPresenceAhead={60}>2. Justification and risk assessment</Text>
         {pack.narrative ? (
           pack.narrative.split("\n\n").map((para, i) => (
             <Text key={i} style={s.p}>
@@ -154,7 +185,7 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           <Text style={s.p}>Not written.</Text>
         )}
 
-        <Text style={s.h2}>3. Parameter diff</Text>
+        <Text style={s.h2} minPresenceAhead={60}>3. Parameter diff</Text>
         {changed.length === 0 ? (
           <Text style={s.p}>No parameter changed.</Text>
         ) : (
@@ -182,7 +213,7 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           </Text>
         ))}
 
-        <Text style={s.h2}>4. Impact</Text>
+        <Text style={s.h2} minPresenceAhead={60}>4. Impact</Text>
         <KV k="Impact class">
           {humanize(pack.impact)} (computed {pack.assessment.computed}
           {pack.raiseReason ? `; raised by the engineer: ${pack.raiseReason}` : ""})
@@ -202,28 +233,31 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           <Text style={s.p}>No requalification tests required.</Text>
         )}
 
-        <Text style={s.h2}>5. Electronic signatures</Text>
+        <Text style={s.h2} minPresenceAhead={60}>5. Electronic signatures</Text>
         {pack.signatures.length === 0 ? (
           <Text style={s.p}>No signatures.</Text>
         ) : (
           <Table
             widths={[1.6, 1.1, 1.5, 0.6, 3.4, 1.3]}
-            head={["Printed name", "Meaning", "Signed (UTC)", "Rev.", "Statement and signed content hash (SHA-256)", "Binding"]}
+            head={["Printed name", "Meaning", "Signed (UTC)", "Rev.", "Statement", "Binding"]}
             rows={pack.signatures.map((sig) => [
               sig.printedName,
               MEANING_LABELS[sig.meaning],
               formatDateTime(sig.signedAt, { seconds: true }),
               String(sig.revision),
-              <View key="st">
-                <Text>{MEANING_STATEMENTS[sig.meaning]}</Text>
-                <Text style={s.mono}>{sig.contentHash}</Text>
-              </View>,
+              meaningStatement("change_request", sig.meaning),
               BINDING_LABELS[sig.binding],
             ])}
+            notes={pack.signatures.map((sig) => (
+              <View key={sig.id} style={s.note}>
+                <Text style={s.noteLabel}>Signed content hash (SHA-256)</Text>
+                <Hash value={sig.contentHash} />
+              </View>
+            ))}
           />
         )}
 
-        <Text style={s.h2}>6. Requalification evidence</Text>
+        <Text style={s.h2} minPresenceAhead={60}>6. Requalification evidence</Text>
         {pack.evidence.length === 0 ? (
           <Text style={s.p}>No test run is linked to this change request.</Text>
         ) : (
@@ -238,9 +272,15 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
                 {run.lab ? ` at ${run.lab}` : ""}
               </Text>
               {run.signatures.map((sig) => (
-                <Text key={sig.id} style={s.p}>
-                  {MEANING_LABELS[sig.meaning]} by {sig.printedName}, {formatDateTime(sig.signedAt, { seconds: true })} · signed hash <Text style={s.mono}>{sig.contentHash}</Text>
-                </Text>
+                <View key={sig.id} style={s.p}>
+                  <Text>
+                    {MEANING_LABELS[sig.meaning]} by {sig.printedName}, {formatDateTime(sig.signedAt, { seconds: true })}: “{meaningStatement("test_run", sig.meaning)}”
+                  </Text>
+                  <View style={{ flexDirection: "row" }}>
+                    <Text style={s.noteLabel}>Signed hash</Text>
+                    <Hash value={sig.contentHash} />
+                  </View>
+                </View>
               ))}
               {run.files.length === 0 && <Text style={s.p}>No files attached.</Text>}
             </View>
@@ -248,7 +288,7 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
         )}
         <Text style={s.small}>A computed pass supports, and never replaces, the customer&apos;s specification and the responsible engineer&apos;s judgement.</Text>
 
-        <Text style={s.h2}>7. Evidence files and their hashes</Text>
+        <Text style={s.h2} minPresenceAhead={60}>7. Evidence files and their hashes</Text>
         {files.length === 0 ? (
           <Text style={s.p}>No evidence files are attached to the linked runs.</Text>
         ) : (
@@ -257,24 +297,36 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
             <Table
               widths={[0.9, 2, 0.8, 4.3]}
               head={["Run", "File", "Size", "SHA-256"]}
-              rows={files.map((f) => [f.run, f.originalName, formatBytes(f.sizeBytes), <Text key="h" style={s.mono}>{f.sha256}</Text>])}
+              rows={files.map((f) => [f.run, f.originalName, formatBytes(f.sizeBytes), <Hash key="h" value={f.sha256} />])}
             />
           </>
         )}
 
-        <Text style={s.h2}>8. Audit extract</Text>
+        <Text style={s.h2} minPresenceAhead={60}>8. Audit extract</Text>
         <Text style={s.p}>
           {pack.events.length} events about this change request, its recipe versions, signatures, runs and files. Integrity of the whole audit trail at export:{" "}
           {pack.chain.ok
-            ? `intact (${pack.chain.events} events, last hash ${pack.chain.lastHash})`
+            ? `intact (${pack.chain.events} events)`
             : `BROKEN in ${pack.chain.breaks.length} place${pack.chain.breaks.length === 1 ? "" : "s"}: ${pack.chain.breaks.map((b) => b.reason).join("; ")}`}
           .
         </Text>
+        {pack.chain.ok && pack.chain.lastHash && (
+          <View style={[s.kv, { marginBottom: 4 }]}>
+            <Text style={s.noteLabel}>Last event hash (SHA-256)</Text>
+            <Hash value={pack.chain.lastHash} />
+          </View>
+        )}
         <CheckpointAnchor checkpoints={pack.checkpoints} />
         <Table
-          widths={[0.5, 1.5, 1.4, 2, 1.4, 3.2]}
-          head={["Seq", "At (UTC)", "Actor", "Event", "Record", "Event hash (SHA-256)"]}
-          rows={pack.events.map((e) => [String(e.seq), formatDateTime(e.at, { seconds: true }), e.actorName, e.eventType, humanize(e.recordType), <Text key="h" style={s.mono}>{e.hash}</Text>])}
+          widths={[0.5, 1.9, 1.5, 2.4, 1.5]}
+          head={["Seq", "At (UTC)", "Actor", "Event", "Record"]}
+          rows={pack.events.map((e) => [String(e.seq), formatDateTime(e.at, { seconds: true }), e.actorName, e.eventType, humanize(e.recordType)])}
+          notes={pack.events.map((e) => (
+            <View key={e.seq} style={s.note}>
+              <Text style={s.noteLabel}>Event hash (SHA-256)</Text>
+              <Hash value={e.hash} />
+            </View>
+          ))}
         />
 
         <Text style={s.small}>

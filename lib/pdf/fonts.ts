@@ -15,5 +15,19 @@ Font.register({
     { src: join(FONTS, "Geist-BoldItalic.ttf"), fontWeight: "bold", fontStyle: "italic" },
   ],
 });
+/** The monospace family for hashes and signatures: every character the same width, so a line of it has a known width. */
+export const PDF_MONO_FONT = "GeistMono";
+const MONO = join(process.cwd(), "node_modules/geist/dist/fonts/geist-mono");
+Font.register({
+  family: PDF_MONO_FONT,
+  fonts: [
+    { src: join(MONO, "GeistMono-Regular.ttf") },
+    { src: join(MONO, "GeistMono-Bold.ttf"), fontWeight: "bold" },
+  ],
+});
+
+/** A GeistMono character is 600/1000 of the font size wide (its advance width), digits and letters alike. */
+export const MONO_ADVANCE_EM = 0.6;
+
 // Hashes and codes must never be split with a hyphen.
 Font.registerHyphenationCallback((word) => [word]);

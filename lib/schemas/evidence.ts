@@ -188,6 +188,12 @@ export const reviseRunSchema = z.object({
 
 export const fileKindSchema = z.enum(EVIDENCE_FILE_KINDS);
 
+export const detachFileSchema = z.object({
+  runId: uuid,
+  fileId: uuid,
+  reason: storedText({ error: "Give the reason for detaching the file." }).trim().min(5, "Give the reason for detaching the file (at least 5 characters).").max(500, "Use at most 500 characters."),
+});
+
 // ── Bath and filter log ─────────────────────────────────────────────────
 
 export const bathRecordSchema = z

@@ -1,4 +1,4 @@
-import type { SignatureMeaning } from "@/db/enums";
+import type { SignatureMeaning, SignedRecordType } from "@/db/enums";
 
 export interface ExistingSignature {
   userId: string;
@@ -67,11 +67,43 @@ export const MEANING_LABELS: Record<SignatureMeaning, string> = {
   verified: "Verified",
 };
 
-/** The statement the signer affirms, shown in the signing dialog and on printouts (§11.50). */
-export const MEANING_STATEMENTS: Record<SignatureMeaning, string> = {
-  authored: "I am the author of this version and submit it as written.",
-  reviewed: "I have reviewed this version and find it fit for approval.",
-  approved: "I approve this version.",
-  performed: "I performed this test as recorded, and the data entered are the data observed.",
-  verified: "I have checked the recorded data and evidence of this test against its requirements.",
+/**
+ * The statement the signer affirms, shown in the signing dialog and on printouts (21 CFR 11.50:
+ * the meaning of the signature). Each signed record type has its own wording: a change request's
+ * "Verified" affirms the change was implemented as approved, not a test's data.
+ */
+export const MEANING_STATEMENTS: Record<SignedRecordType, Record<SignatureMeaning, string>> = {
+  document_version: {
+    authored: "I am the author of this version of the document and submit it as written.",
+    reviewed: "I have reviewed this version of the document and find it fit for approval.",
+    approved: "I approve this version of the document for use.",
+    performed: "I carried out the work this document describes, as written.",
+    verified: "I have checked this version of the document against its requirements.",
+  },
+  change_request: {
+    authored: "I am the author of this change request and its impact assessment, and submit them as written.",
+    reviewed: "I have reviewed this change request and its impact assessment and find them fit for approval.",
+    approved: "I approve this change for implementation as assessed.",
+    performed: "I implemented this change as approved.",
+    verified: "I have checked that this change was implemented as approved and that its requalification evidence meets the requirements.",
+  },
+  test_run: {
+    authored: "I planned this test as recorded.",
+    reviewed: "I have reviewed the recorded data and evidence of this test.",
+    approved: "I approve the result of this test.",
+    performed: "I performed this test as recorded, and the data entered are the data observed.",
+    verified: "I have checked the recorded data and evidence of this test against its requirements.",
+  },
+  recipe_version: {
+    authored: "I am the author of this recipe version and submit it as written.",
+    reviewed: "I have reviewed this recipe version and find it fit for approval.",
+    approved: "I approve this recipe version for production.",
+    performed: "I ran this recipe version as recorded.",
+    verified: "I have checked this recipe version against its validated ranges.",
+  },
 };
+
+/** What a signature of this meaning on this kind of record affirms. */
+export function meaningStatement(recordType: SignedRecordType, meaning: SignatureMeaning): string {
+  return MEANING_STATEMENTS[recordType][meaning];
+}

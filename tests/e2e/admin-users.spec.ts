@@ -62,3 +62,30 @@ test("an admin sends a test e-mail and reads it in the demo mailbox", async ({ p
     await expect(page.getByRole("row", { name: new RegExp(to) }).getByRole("cell", { name: "Sent" })).toBeVisible({ timeout: 1000 });
   }).toPass({ timeout: 20_000 });
 });
+
+test("Create user clears the form once the user exists, and Reactivate does not carry the deactivation's reason", async ({ page }) => {
+  const email = `ines.varga-${Date.now()}@fennmoor.example`;
+  await signInAs(page, "admin");
+  await page.goto("/admin/users/new");
+  await page.getByLabel("Full name").fill("Ines Varga");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Job title (optional)").fill("Lab technician");
+  await page.getByRole("checkbox", { name: /Technician/ }).check();
+  await page.getByRole("button", { name: "Create user" }).click();
+  await expect(page.getByText("Ines Varga can now sign in.")).toBeVisible();
+  // A second click must not be able to submit the same person again.
+  await expect(page.getByLabel("Full name")).toHaveValue("");
+  await expect(page.getByLabel("E-mail")).toHaveValue("");
+  await expect(page.getByLabel("Job title (optional)")).toHaveValue("");
+  await expect(page.getByRole("checkbox", { name: /Technician/ })).not.toBeChecked();
+  await expect(page.getByTestId("temporary-password")).toBeVisible();
+
+  await page.goto("/admin");
+  await page.getByRole("link", { name: "Ines Varga" }).first().click();
+  const deactivate = page.getByRole("form", { name: "Deactivate user" });
+  await deactivate.getByLabel("Reason").fill("Left the company at the end of the contract");
+  await deactivate.getByRole("button", { name: "Deactivate" }).click();
+  const reactivate = page.getByRole("form", { name: "Reactivate user" });
+  await expect(reactivate.getByRole("button", { name: "Reactivate" })).toBeVisible();
+  await expect(reactivate.getByLabel("Reason")).toHaveValue("");
+});

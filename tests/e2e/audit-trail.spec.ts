@@ -15,6 +15,11 @@ test("an auditor filters the audit trail, verifies its integrity and exports it"
   const rows = page.getByRole("table").getByRole("row");
   await expect(rows).toHaveCount(4); // header + the three seeded part families
   await expect(page.getByRole("table")).toContainText("PF-PH-400");
+  // The filter is in the address: a reload (or a shared link) shows the same events.
+  await expect(page).toHaveURL(/[?&]eventType=part_family\.created\b/);
+  await page.reload();
+  await expect(filters.getByLabel("Event")).toHaveValue("part_family.created");
+  await expect(rows).toHaveCount(4, { timeout: 30_000 });
 
   await page.getByRole("button", { name: "Verify integrity" }).click();
   await expect(page.getByRole("status")).toContainText(/Intact: all \d+ events verified/);

@@ -264,3 +264,19 @@ test("closing without evidence is refused with the list of what is missing", asy
   );
   await expect(page.getByRole("heading", { level: 1 }).locator("..")).toContainText("Requalification");
 });
+
+test("the change list's filters are in the address, so a filtered list can be shared and reloaded", async ({ page }) => {
+  await signInAs(page, "auditor");
+  await page.goto("/changes");
+  const filters = page.getByRole("form", { name: "Filter change requests" });
+  await filters.getByLabel("Number, title, recipe or author").fill("CR-2026-002");
+  await filters.getByRole("button", { name: "Filter" }).click();
+  await expect(page).toHaveURL(/\/changes\?.*q=CR-2026-002/);
+  await expect(page.getByRole("link", { name: "CR-2026-002" })).toBeVisible();
+  await expect(page.getByRole("link", { name: "CR-2026-001" })).toHaveCount(0);
+  await page.reload();
+  await expect(page.getByRole("form", { name: "Filter change requests" }).getByLabel("Number, title, recipe or author")).toHaveValue("CR-2026-002");
+  await expect(page.getByRole("link", { name: "CR-2026-001" })).toHaveCount(0);
+  await page.getByRole("link", { name: "Clear filters" }).click();
+  await expect(page.getByRole("link", { name: "CR-2026-001" })).toBeVisible();
+});

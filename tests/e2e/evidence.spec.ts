@@ -98,6 +98,37 @@ test("bad files get a clear error and nothing is stored", async ({ page }) => {
   await expect(upload.getByRole("status")).toContainText("scan-15mb.pdf uploaded");
 });
 
+test("a file counts once per run, the Sample field clears after an upload, and a file attached in error is detached with a reason", async ({ page }) => {
+  await signInAs(page, "technician");
+  await page.goto("/evidence/runs/new");
+  await page.getByLabel("Part family").selectOption({ label: "PF-SF-12 · Straight fitting SF-12" });
+  const fittingRecipe = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-SC1-SF v\d+ \(effective\)$/ }).textContent();
+  await page.getByLabel("Recipe version").selectOption({ label: fittingRecipe! });
+  await page.getByLabel("Test type").selectOption({ label: "Visual" });
+  await page.getByLabel("Analysing lab").fill("Line 3 inspection");
+  await page.getByRole("button", { name: "Open test run" }).click();
+  const upload = page.getByRole("form", { name: "Upload evidence file" });
+  await upload.getByLabel("Evidence file").setInputFiles({ name: "SF12 report.pdf", mimeType: "application/pdf", buffer: PDF });
+  await upload.getByLabel("Sample (optional)").fill("SF12-S1");
+  await upload.getByRole("button", { name: "Upload" }).click();
+  await expect(upload.getByRole("status")).toContainText("SF12 report.pdf uploaded");
+  // The next file is usually another sample's: the label does not carry over.
+  await expect(upload.getByLabel("Sample (optional)")).toHaveValue("");
+
+  // The same bytes under another name would count twice.
+  await upload.getByLabel("Evidence file").setInputFiles({ name: "SF12 report (copy).pdf", mimeType: "application/pdf", buffer: PDF });
+  await upload.getByRole("button", { name: "Upload" }).click();
+  await expect(upload.getByRole("alert")).toContainText('already attached');
+  await expect(upload.getByRole("alert")).toContainText("counts once");
+  await expect(page.getByRole("link", { name: /^SF12 report/ })).toHaveCount(1);
+
+  await page.getByText("Detach", { exact: true }).click();
+  const detach = page.getByRole("form", { name: "Detach SF12 report.pdf" });
+  await detach.getByLabel("Reason for detaching SF12 report.pdf").fill("Report of another line, attached in error");
+  await detach.getByRole("button", { name: "Detach file" }).click();
+  await expect(page.getByText("No files attached.")).toBeVisible();
+});
+
 test("an engineer verifies the run from My queue; the outcome and code appear and the run is locked", async ({ page }) => {
   test.skip(runUrl === "", "needs the run recorded above");
   await signInAs(page, "engineer");
@@ -128,6 +159,11 @@ test("the evidence table filters on the server and the trend chart renders", asy
   await expect(page.getByText(/^\d+ runs? · page 1/)).toBeVisible();
   await expect(table.getByText("Pass")).toHaveCount(0);
   await expect(table.getByText("Fail").first()).toBeVisible();
+  // The filter lives in the address: reloaded (or shared), the list is still filtered.
+  await expect(page).toHaveURL(/[?&]outcome=fail\b/);
+  await page.reload();
+  await expect(page.getByLabel("Outcome")).toHaveValue("fail");
+  await expect(table.getByText("Pass")).toHaveCount(0);
 
   await page.getByRole("link", { name: "Trends" }).click();
   await page.getByRole("form", { name: "Choose part family and recipe version" }).getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });

@@ -229,6 +229,10 @@ describe("posting lab results", () => {
     const cases: [string | undefined, unknown, number, RegExp | string][] = [
       [tokens.techWrite, "{not json", 400, /not valid JSON/],
       [tokens.techWrite, { ...good, colour: "teal" }, 422, "colour"],
+      // A mis-cased key is refused by name, never dropped (the sample would be stored without it).
+      [tokens.techWrite, { ...good, FilterAfterMg: 101 }, 422, "FilterAfterMg"],
+      // Over the 1 MB body limit: 413 saying the limit, not "not valid JSON".
+      [tokens.techWrite, { ...good, sampleLabel: "x".repeat(1024 * 1024 + 1) }, 413, /1 MB limit/],
       [tokens.techWrite, { ...good, components: "five" }, 422, "components"],
       [tokens.techWrite, { worstCase: false }, 422, "sampleLabel"],
       [tokens.techWrite, [good], 422, /not valid/],

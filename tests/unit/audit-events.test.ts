@@ -496,6 +496,13 @@ const SAMPLES = {
     recordId: UUID,
     new: { sha256: H, name: "report.pdf" },
   },
+  "evidence_file.detached": {
+    eventType: "evidence_file.detached",
+    recordType: "evidence_file",
+    recordId: UUID,
+    old: { run: "TR-0007 rev 1", runId: UUID },
+    new: { reason: "Uploaded to the wrong run", sha256: H, name: "report.pdf", outcome: "pass" },
+  },
   "evidence_file.integrity_failed": {
     eventType: "evidence_file.integrity_failed",
     recordType: "evidence_file",

@@ -121,6 +121,11 @@ describe("defineAction", () => {
     expect(await payloadAction(null, form({ payload: "{not json" }))).toEqual({ ok: false, message: "The form could not be read. Reload the page; nothing was saved." });
     expect(await payloadAction(null, form({ payload: JSON.stringify({ rows: ["x"] }) }))).toMatchObject({ ok: false, fieldErrors: { "rows.0": [expect.any(String)] } });
     expect(await payloadAction(null, form({ payload: JSON.stringify({ rows: [1, 2] }) }))).toEqual({ ok: true, message: "ok" });
+    // A key the schema does not know is refused by name, at any depth, never silently dropped.
+    const nested = defineAction({ permission: "users.manage", input: z.object({ rows: z.array(z.object({ setpoint: z.number() })) }), from: "payload", run: async () => ({ message: "ok" }) });
+    const refused = await nested(null, form({ payload: JSON.stringify({ rows: [{ setpoint: 1, Setpoint: 2 }] }) }));
+    expect(refused).toMatchObject({ ok: false, fieldErrors: { "rows.0.Setpoint": [expect.stringMatching(/did you mean "setpoint"/)] } });
+    expect(await nested(null, form({ payload: JSON.stringify({ rows: [{ setpoint: 1 }] }) }))).toEqual({ ok: true, message: "ok" });
     expect(await noteAction(null, "note=hello" as unknown as FormData)).toMatchObject({ ok: false, message: expect.stringMatching(/could not be read/) });
   });
 

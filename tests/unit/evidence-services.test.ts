@@ -23,6 +23,7 @@ import { getRunRow, runContent } from "@/lib/server/evidence/run-content";
 import { saveRunData } from "@/lib/server/evidence/save-run-data";
 import { signRun } from "@/lib/server/evidence/sign-run";
 import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
+import { detachEvidenceFile } from "@/lib/server/evidence/detach-file";
 import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
 import { bathQueueProvider } from "@/lib/server/bath/queue-provider";
 import { sendMaintenanceReminders } from "@/lib/server/bath/send-maintenance-reminders";
@@ -136,8 +137,9 @@ describe("signing, locking and revisions", () => {
 describe("evidence files", () => {
   it("stores bytes once however often uploaded, and refuses to serve a tampered file", async () => {
     const run = await newParticleRun();
+    const other = await newParticleRun();
     const first = await storeEvidenceFile(tech, { runId: run.id, name: "Lab report.pdf", bytes: PDF, kind: "lab_report" });
-    const second = await storeEvidenceFile(tech, { runId: run.id, name: "Lab report copy.pdf", bytes: PDF, kind: "lab_report" });
+    const second = await storeEvidenceFile(tech, { runId: other.id, name: "Lab report copy.pdf", bytes: PDF, kind: "lab_report" });
     expect(first.created).toBe(true);
     expect(second.created).toBe(false);
     expect(second.file.sha256).toBe(first.file.sha256);
@@ -149,6 +151,31 @@ describe("evidence files", () => {
     expect(bad).toMatchObject({ ok: false, status: 409, message: expect.stringMatching(/no longer match their SHA-256/) });
     const events = await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, first.file.id));
     expect(events.map((e) => e.action)).toEqual(["evidence_file.uploaded", "evidence_file.downloaded", "evidence_file.integrity_failed"]);
+  });
+
+  it("counts the same file once per run, whatever name it is uploaded under", async () => {
+    const run = await newParticleRun();
+    const bytes = new TextEncoder().encode("%PDF-1.4 duplicate check " + run.id);
+    await storeEvidenceFile(tech, { runId: run.id, name: "Report.pdf", bytes, kind: "lab_report" });
+    await expect(storeEvidenceFile(tech, { runId: run.id, name: "Report (1).pdf", bytes, kind: "lab_report" })).rejects.toThrow(/already attached to .* as "Report.pdf".*counts once/);
+    expect(await t.db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, run.id))).toHaveLength(1);
+  });
+
+  it("detaches a file with its reason: it leaves the run, the row and the stored bytes stay, the audit trail says why", async () => {
+    const run = await newParticleRun();
+    const bytes = new TextEncoder().encode("%PDF-1.4 wrong run " + run.id);
+    const { file } = await storeEvidenceFile(tech, { runId: run.id, name: "Other line.pdf", bytes, kind: "lab_report" });
+    await expect(detachEvidenceFile(tech, { runId: run.id, fileId: file.id, reason: "Uploaded to the wrong run" })).resolves.toBeDefined();
+    const [row] = await t.db.select().from(evidenceFiles).where(eq(evidenceFiles.id, file.id));
+    expect(row).toMatchObject({ runId: null, detachedFromRunId: run.id, detachedBy: tech.id, detachReason: "Uploaded to the wrong run" });
+    const ok = await readEvidenceFile(engineer, file.id);
+    expect(ok.ok).toBe(true);
+    const [event] = await t.db.select().from(auditEvents).where(and(eq(auditEvents.recordId, file.id), eq(auditEvents.action, "evidence_file.detached")));
+    expect(JSON.parse(event.oldValue!)).toMatchObject({ runId: run.id });
+    expect(JSON.parse(event.newValue!)).toMatchObject({ reason: "Uploaded to the wrong run", sha256: file.sha256 });
+    // Detached, the same file may be attached again; a second detach of the old row finds nothing.
+    await storeEvidenceFile(tech, { runId: run.id, name: "Other line.pdf", bytes, kind: "lab_report" });
+    await expect(detachEvidenceFile(tech, { runId: run.id, fileId: file.id, reason: "again" })).rejects.toThrow(/not attached/);
   });
 
   it("stores nothing for a bad upload", async () => {

@@ -1,6 +1,7 @@
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { dateTimeFieldValue, fileStamp, formatDate, formatDateTime, parseUtc, todayUtc } from "@/lib/format/date";
 import { formatBytes, formatNumber, formatSize, rangeWithUnit, withUnit } from "@/lib/format/number";
+import { humanize } from "@/lib/format/labels";
 
 // Every stored time is ISO-8601 UTC (DEVELOPERS.md, Database) and the house date format is the
 // ISO 8601 calendar date YYYY-MM-DD; the browser tests assert "2026-06-15 07:00 UTC" and
@@ -113,5 +114,14 @@ describe("numbers with units", () => {
   it("states an upload size in kB below a megabyte, so a small limit never reads 0 MB", () => {
     expect(formatSize(10 * 1024 + 240)).toBe("10.2 kB");
     expect(formatSize(2 * 1024 * 1024)).toBe("2.0 MB");
+  });
+});
+
+describe("humanize", () => {
+  it("keeps abbreviations in capitals: the test type reads “UV inspection”, not “Uv inspection”", () => {
+    expect(humanize("uv_inspection")).toBe("UV inspection");
+    expect(humanize("pq_run")).toBe("PQ run");
+    expect(humanize("rinse_conductivity")).toBe("Rinse conductivity");
+    expect(humanize("particle_cleanliness")).toBe("Particle cleanliness");
   });
 });

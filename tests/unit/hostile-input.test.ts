@@ -36,14 +36,20 @@ describe("CSV export neutralises formulas", () => {
 describe("uploads that lie about their type or name", () => {
   const cases: [string, Uint8Array, RegExp][] = [
     ["report.png", PDF, /named as a PNG image, but its contents are a PDF/],
-    ["report.pdf", enc("<!doctype html><script>alert(1)</script>"), /named as a PDF, but its contents are a CSV table/],
+    ["report.pdf", enc("<!doctype html><script>alert(1)</script>"), /named as a PDF, but its contents are an HTML page/],
+    // An HTML file renamed .png was called "a CSV table": name what it is.
+    ["photo.png", enc("<html><body><script>alert(1)</script></body></html>"), /named as a PNG image, but its contents are an HTML page, not a PDF, PNG, JPEG or CSV file/],
+    ["readings.csv", enc("<!DOCTYPE html>\n<p>a,b</p>"), /named as a CSV table, but its contents are an HTML page/],
+    ["drawing.png", enc('<?xml version="1.0"?><svg xmlns="http://www.w3.org/2000/svg"/>'), /contents are an SVG image/],
+    ["notes.pdf", enc("just some words"), /named as a PDF, but its contents are plain text/],
+    ["scan.jpg", new Uint8Array([0x47, 0x49, 0x46, 0x38, 0x39, 0x61]), /contents are a GIF image/],
     ["drawing.pdf", enc('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>'), /named as a PDF/],
     ["drawing.png", enc('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), /named as a PNG image/],
     ["drawing.svg", enc("<svg/>"), /is not a PDF, PNG, JPEG or CSV file/],
     ["page.html", enc("<p>hi</p>"), /is not a PDF, PNG, JPEG or CSV file/],
     ["setup.exe", new Uint8Array([0x4d, 0x5a, 0x90, 0, 3]), /is not a PDF, PNG, JPEG or CSV file/],
-    ["setup.pdf", new Uint8Array([0x4d, 0x5a, 0x90, 0, 3]), /contents are not a PDF, PNG, JPEG or CSV file/],
-    ["archive.csv", new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0, 0]), /contents are not a PDF, PNG, JPEG or CSV file/],
+    ["setup.pdf", new Uint8Array([0x4d, 0x5a, 0x90, 0, 3]), /contents are a Windows program, not a PDF, PNG, JPEG or CSV file/],
+    ["archive.csv", new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0, 0]), /contents are a ZIP archive \(or an Office document\), not a PDF, PNG, JPEG or CSV file/],
   ];
   it.each(cases)("refuses %s", (name, bytes, message) => {
     expect(() => checkUpload({ name, bytes, maxBytes: 25 * MB })).toThrow(message);

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { checkWord } from "@/lib/evidence/outcomes/common";
 import { particleOutcome, type ParticleOutcomeInput } from "@/lib/evidence/outcomes/particle";
 import { particleRunDataSchema, particleSampleSchema } from "@/lib/schemas/evidence";
 
@@ -77,5 +78,14 @@ describe("particle cleanliness outcome", () => {
     // [derived] pooling doubles counts and area alike, so the worked example's levels stay E7/F6/H4
     expect(out.code).toMatch(/E7\/F6\/G00\/H4/);
     expect(out.basisUnit).toMatch(/1000 cm²/);
+  });
+
+  it("shows the extraction as “not recorded”, not “Pass”, when no declining test was entered", () => {
+    const out = particleOutcome(input({ samples: [worked], runData: runData({ blankMeasured: "on", blankCounts: { B: "3" } }) }));
+    const extraction = out.checks.find((c) => c.title.includes("extraction"))!;
+    expect(checkWord(extraction)).toBe("not recorded");
+    // A recorded, declined series still reads as a pass.
+    const measured = particleOutcome(input({ samples: [worked], runData: qualified })).checks.find((c) => c.title.includes("extraction"))!;
+    expect(checkWord(measured)).toBe("pass");
   });
 });

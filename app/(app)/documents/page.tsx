@@ -4,16 +4,26 @@ import { StatusBadge } from "@/components/documents/status-badge";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
-import { TYPE_LABELS } from "@/lib/documents/lifecycle";
+import { DOCUMENT_STATUS_LABELS, TYPE_LABELS } from "@/lib/documents/lifecycle";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listDocuments } from "@/lib/server/documents/queries";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { ListFilterForm } from "@/components/ui/list-filter-form";
+import { DOCUMENT_STATUSES, DOCUMENT_TYPES } from "@/db/enums";
+import { fromPageParams, readListParams, rowMatches } from "@/lib/url/list-params";
+
+/** The list's filters, read from the address so a filtered list can be linked and reloaded. */
+const FILTERS = { type: "", status: "", q: "" };
 
 export const metadata: Metadata = { title: "Documents" };
 
-export default async function DocumentsPage() {
+export default async function DocumentsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePageUser("documents.view");
-  const rows = await listDocuments();
+  const filters = readListParams(fromPageParams(await searchParams), FILTERS);
+  const all = await listDocuments();
+  const rows = all.filter((d) =>
+    rowMatches({ equals: { type: { want: filters.type, have: d.type }, status: { want: filters.status, have: d.latest.status } }, q: filters.q, text: [d.number, d.title, d.owner] }),
+  );
   const mayDraft = can(user.roles, "document.draft");
   return (
     <>
@@ -28,7 +38,20 @@ export default async function DocumentsPage() {
           )
         }
       />
-      {rows.length === 0 ? (
+      {all.length > 0 && (
+        <ListFilterForm
+          label="Filter documents"
+          action="/documents"
+          filters={[
+            { name: "type", label: "Type", value: filters.type, options: DOCUMENT_TYPES.map((t) => ({ value: t, label: TYPE_LABELS[t] })) },
+            { name: "status", label: "Latest version", value: filters.status, options: DOCUMENT_STATUSES.map((s) => ({ value: s, label: DOCUMENT_STATUS_LABELS[s] })) },
+            { name: "q", label: "Number, title or owner", value: filters.q },
+          ]}
+        />
+      )}
+      {all.length > 0 && rows.length === 0 ? (
+        <p className="text-sm text-stone-600">No documents match these filters.</p>
+      ) : rows.length === 0 ? (
         <EmptyState title="No documents yet">
           Controlled documents are listed here with their number, version, status and effective date once an engineer drafts the first protocol.
         </EmptyState>

@@ -5,6 +5,7 @@ import { defineAction } from "@/lib/actions/define-action";
 import {
   bathRecordSchema,
   createRunSchema,
+  detachFileSchema,
   maintenanceIntervalSchema,
   particleRunDataSchema,
   removeSampleSchema,
@@ -18,6 +19,7 @@ import { setMaintenanceInterval } from "@/lib/server/bath/set-maintenance-interv
 import { UserFacingError } from "@/lib/server/errors";
 import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
+import { detachEvidenceFile } from "@/lib/server/evidence/detach-file";
 import { removeSample } from "@/lib/server/evidence/remove-sample";
 import { reviseRun } from "@/lib/server/evidence/revise-run";
 import { getRunRow } from "@/lib/server/evidence/run-content";
@@ -57,6 +59,16 @@ export const removeSampleAction = defineAction({
   run: async ({ user, input }) => {
     await removeSample(actorOf(user), input);
     return { message: "Sample removed." };
+  },
+  revalidate: runPage,
+});
+
+export const detachFileAction = defineAction({
+  permission: "evidence.record",
+  input: detachFileSchema,
+  run: async ({ user, input }) => {
+    const file = await detachEvidenceFile(actorOf(user), input);
+    return { message: `${file.originalName} detached; the stored file and the reason are kept in the audit trail.` };
   },
   revalidate: runPage,
 });

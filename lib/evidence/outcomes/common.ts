@@ -39,6 +39,18 @@ export interface Check {
   title: string;
   pass: boolean | null;
   lines: string[];
+  /**
+   * false when nothing was measured for this check and it is accepted on other grounds (an
+   * extraction procedure qualified elsewhere): it does not hold the run back, but it is shown as
+   * "not recorded", never as a pass nobody measured.
+   */
+  recorded?: false;
+}
+
+/** The word a check is shown with: a check with no data is "not recorded", whatever it lets through. */
+export function checkWord(check: Pick<Check, "pass" | "recorded">): "pass" | "fail" | "incomplete" | "not recorded" {
+  if (check.recorded === false) return "not recorded";
+  return check.pass === null ? "incomplete" : check.pass ? "pass" : "fail";
 }
 
 export interface SampleOutcome {

@@ -83,7 +83,7 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
       checks.push({ kind: "measurement", title: EXTRACTION, pass: null, lines: [(error as Error).message] });
     }
   } else {
-    checks.push({ kind: "measurement", title: EXTRACTION, pass: true, lines: ["No declining test recorded with this run; the extraction procedure is taken as qualified elsewhere."] });
+    checks.push({ kind: "measurement", title: EXTRACTION, pass: true, recorded: false, lines: ["No declining test recorded with this run; the extraction procedure is taken as qualified elsewhere."] });
   }
 
   if (runData.blank) {

@@ -3,6 +3,7 @@ import "@/lib/schemas/messages";
 import { NextResponse, type NextRequest } from "next/server";
 import type { z } from "zod";
 import { BadCursorError } from "@/lib/api/cursor";
+import { unknownFieldErrors, unknownFieldsMessage } from "@/lib/api/strict-keys";
 import { declareEndpoint } from "@/lib/auth/endpoint-rule";
 import type { Permission } from "@/lib/auth/permissions";
 import { jsonError, zodFieldErrors } from "@/lib/http/json";
@@ -78,17 +79,53 @@ export function parseQuery<S extends z.ZodType>(request: Request, schema: S): { 
   return { ok: true, data: parsed.data };
 }
 
-/** A JSON body: malformed JSON is 400, a body that breaks the schema (wrong type, missing or unknown field) is 422. */
+/**
+ * The largest JSON body an /api/v1 route reads. A lab result or a reading is a few kilobytes; the
+ * proxy in front cuts a longer body short, which then failed as "not valid JSON" — so the size is
+ * checked first and answered with 413 saying the limit.
+ */
+export const JSON_BODY_LIMIT_BYTES = 1024 * 1024;
+const tooLarge = () => jsonError(413, `The body is larger than the ${JSON_BODY_LIMIT_BYTES / (1024 * 1024)} MB limit for one request. Send fewer items per request.`);
+
+/** The body's text, or null once it passes the limit (a declared length is believed first, then counted). */
+async function readLimited(request: Request, limit: number): Promise<string | null> {
+  const declared = Number(request.headers.get("content-length"));
+  if (Number.isFinite(declared) && declared > limit) return null;
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel().catch(() => undefined);
+      return null;
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks).toString("utf8");
+}
+
+/**
+ * A JSON body: over the limit is 413, malformed JSON 400, and a body that breaks the schema
+ * (wrong type, missing field, or a key the schema does not know, at any depth) 422.
+ */
 export async function parseBody<S extends z.ZodType>(request: Request, schema: S): Promise<{ ok: true; data: z.output<S> } | { ok: false; response: Response }> {
   if (!(request.headers.get("content-type") ?? "").toLowerCase().startsWith("application/json")) {
     return { ok: false, response: jsonError(415, "Send the body as JSON with Content-Type: application/json.") };
   }
+  const text = await readLimited(request, JSON_BODY_LIMIT_BYTES);
+  if (text === null) return { ok: false, response: tooLarge() };
   let raw: unknown;
   try {
-    raw = await request.json();
+    raw = JSON.parse(text);
   } catch {
     return { ok: false, response: jsonError(400, "The body is not valid JSON.") };
   }
+  const extra = unknownFieldErrors(schema, raw);
+  if (extra) return { ok: false, response: jsonError(422, unknownFieldsMessage(extra), extra) };
   const parsed = schema.safeParse(raw);
   if (!parsed.success) return { ok: false, response: jsonError(422, "Some fields are not valid.", zodFieldErrors(parsed.error)) };
   return { ok: true, data: parsed.data };

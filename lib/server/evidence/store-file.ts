@@ -1,10 +1,12 @@
 import "server-only";
 import { createHash } from "node:crypto";
+import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { evidenceFiles, type EvidenceFileKind } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { checkUpload, FileCheckError } from "@/lib/evidence/files";
 import { env } from "@/lib/env";
+import { formatDateTime } from "@/lib/format/date";
 import { UserFacingError } from "@/lib/server/errors";
 import { getStore } from "@/lib/storage";
 import { requireOpenRun } from "./guards";
@@ -22,7 +24,7 @@ export function sha256OfBytes(bytes: Uint8Array) {
 /**
  * Checks an uploaded file completely before storing a byte, stores it under its
  * SHA-256 (once, however often it is uploaded), and links it to an open run in
- * one audited transaction.
+ * one audited transaction — once per run: the same bytes again are refused.
  */
 export async function storeEvidenceFile(
   actor: { id: string; name: string },
@@ -45,6 +47,17 @@ export async function storeEvidenceFile(
   const { created } = await getStore().put(sha256, input.bytes);
   const row = await getDb().transaction(async (tx) => {
     const open = await requireOpenRun(tx, input.runId);
+    // The same bytes attached twice would count twice as evidence: once per run, whatever the name.
+    const [twin] = await tx
+      .select({ name: evidenceFiles.originalName, at: evidenceFiles.uploadedAt })
+      .from(evidenceFiles)
+      .where(and(eq(evidenceFiles.runId, open.id), eq(evidenceFiles.sha256, sha256)));
+    if (twin) {
+      throw new UserFacingError(`This file is already attached to ${open.number} as "${twin.name}" (uploaded ${formatDateTime(twin.at)}); it counts once. Nothing was added.`, {
+        kind: "conflict",
+        field: "file",
+      });
+    }
     const [file] = await tx
       .insert(evidenceFiles)
       .values({

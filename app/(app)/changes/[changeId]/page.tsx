@@ -68,14 +68,14 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         </h2>
         <div className="flex flex-wrap items-start gap-3">
           {may("assess") && (
-            <SignatureDialog action={assessChangeAction} meaning="authored" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Sign and submit impact assessment" />
+            <SignatureDialog action={assessChangeAction} recordType="change_request" meaning="authored" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Sign and submit impact assessment" />
           )}
           {may("approve") && (
-            <SignatureDialog action={approveChangeAction} meaning="approved" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Approve for implementation" />
+            <SignatureDialog action={approveChangeAction} recordType="change_request" meaning="approved" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Approve for implementation" />
           )}
           {may("start_requalification") && <StepButton action={startRequalificationAction} changeRequestId={cr.id} label="Start requalification" />}
           {may("verify") && (
-            <SignatureDialog action={verifyChangeAction} meaning="verified" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Verify change" />
+            <SignatureDialog action={verifyChangeAction} recordType="change_request" meaning="verified" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Verify change" />
           )}
           {(may("close") || (cr.status === "requalification" && can(user.roles, "recipe.make_effective"))) && <StepButton action={closeChangeAction} changeRequestId={cr.id} label="Close and make effective" />}
           {may("reopen") && <ReasonStep action={reopenChangeAction} changeRequestId={cr.id} label="Reopen for editing" variant="secondary" />}

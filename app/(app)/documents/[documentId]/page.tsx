@@ -131,6 +131,7 @@ export default async function DocumentPage({ params, searchParams }: { params: P
                 {signers && draftHash && (
                   <SignatureDialog
                     action={submitAction}
+                    recordType="document_version"
                     meaning="authored"
                     signerName={user.name}
                     recordLabel={label}
@@ -180,7 +181,7 @@ export default async function DocumentPage({ params, searchParams }: { params: P
           {myStep?.role === "reviewer" && version.contentHash && (
             <Panel title="Your review">
               <div className="space-y-4">
-                <SignatureDialog action={signReviewAction} meaning="reviewed" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden} />
+                <SignatureDialog action={signReviewAction} recordType="document_version" meaning="reviewed" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden} />
                 <ActionForm action={sendBackAction} className="space-y-2" aria-label="Send back">
                   <input type="hidden" name="versionId" value={version.id} />
                   <input type="hidden" name="documentId" value={documentId} />
@@ -194,7 +195,7 @@ export default async function DocumentPage({ params, searchParams }: { params: P
           {myStep?.role === "approver" && version.contentHash && (
             <Panel title="Your approval">
               <div className="space-y-4">
-                <SignatureDialog action={approveAction} meaning="approved" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden}>
+                <SignatureDialog action={approveAction} recordType="document_version" meaning="approved" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden}>
                   <DateField name="effectiveDate" label="Effective from" defaultValue={formatDate(now)} hint="Today makes it effective at once and supersedes the version in force." />
                 </SignatureDialog>
                 <ActionForm action={rejectAction} className="space-y-2" aria-label="Reject">

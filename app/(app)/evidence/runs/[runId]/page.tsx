@@ -5,7 +5,7 @@ import { CsvImport } from "@/components/evidence/csv-import";
 import { FileUpload } from "@/components/evidence/file-upload";
 import { OutcomePanel } from "@/components/evidence/outcome-panel";
 import { SamplePager } from "@/components/evidence/sample-pager";
-import { RemoveSampleButton, ReviseForm } from "@/components/evidence/run-actions";
+import { DetachFileForm, RemoveSampleButton, ReviseForm } from "@/components/evidence/run-actions";
 import { RunDataForm, SampleForm } from "@/components/evidence/sample-form";
 import { OutcomeWord, RunStatusWord } from "@/components/evidence/status-word";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
@@ -21,7 +21,7 @@ import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRunDetail } from "@/lib/server/evidence/queries";
-import { addSampleAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
+import { addSampleAction, detachFileAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
 import { formatDateTime } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
@@ -116,6 +116,11 @@ export default async function RunPage({ params, searchParams }: { params: Promis
                   <Th align="right">Size</Th>
                   <Th>SHA-256</Th>
                   <Th>Uploaded</Th>
+                  {mayRecord && (
+                    <Th>
+                      <span className="sr-only">Detach</span>
+                    </Th>
+                  )}
                 </THead>
                 <TBody>
                   {files.map(({ file, uploader }) => (
@@ -136,6 +141,11 @@ export default async function RunPage({ params, searchParams }: { params: Promis
                       <Td className="text-xs">
                         {uploader}, {formatDateTime(file.uploadedAt)}
                       </Td>
+                      {mayRecord && (
+                        <Td>
+                          <DetachFileForm action={detachFileAction} runId={run.id} fileId={file.id} name={file.originalName} />
+                        </Td>
+                      )}
                     </tr>
                   ))}
                 </TBody>
@@ -174,10 +184,10 @@ export default async function RunPage({ params, searchParams }: { params: Promis
             <h2 id="signatures-title" className="font-semibold">Signatures</h2>
             <SignatureList signatures={signatures} />
             {open && run.technicianId === user.id && can(user.roles, "evidence.sign_performed") && (
-              <SignatureDialog action={signRunAction} meaning="performed" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
+              <SignatureDialog action={signRunAction} recordType="test_run" meaning="performed" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
             )}
             {run.status === "performed" && can(user.roles, "evidence.verify") && performedBy?.userId !== user.id && (
-              <SignatureDialog action={signRunAction} meaning="verified" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
+              <SignatureDialog action={signRunAction} recordType="test_run" meaning="verified" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
             )}
           </section>
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { getDb } from "@/db/client";
-import { unknownFieldErrors } from "@/lib/api/strict-keys";
+import { unknownFieldErrors, unknownFieldsMessage } from "@/lib/api/strict-keys";
 import { jsonError, zodFieldErrors } from "@/lib/http/json";
 import { SAMPLE_SCHEMAS } from "@/lib/schemas/evidence";
 import { apiRoute, notFound, ok, parseBody } from "@/lib/server/api/handler";
@@ -21,7 +21,7 @@ export const POST = apiRoute<{ runId: string }>({ permission: "evidence.record",
   const body = await parseBody(request, z.unknown());
   if (!body.ok) return body.response;
   const extra = unknownFieldErrors(schema, body.data);
-  if (extra) return jsonError(422, "The body has fields this test type does not take.", extra);
+  if (extra) return jsonError(422, unknownFieldsMessage(extra), extra);
   const parsed = schema.safeParse(body.data);
   if (!parsed.success) return jsonError(422, "Some fields are not valid.", zodFieldErrors(parsed.error));
   const row = await addSample(user.actor, { runId: run.id, sample: parsed.data });
