@@ -22,7 +22,8 @@ export async function register() {
       .catch((error) => console.error("maintenance reminders failed", error));
   setTimeout(remind, 5_000).unref();
   setInterval(remind, 15 * 60_000).unref();
-  const { sendRequalificationReminders } = await import("@/lib/server/changes/send-requalification-reminders");
+  const { sendRequalificationReminders } =
+    await import("@/lib/server/changes/send-requalification-reminders");
   const remindRequalification = () =>
     sendRequalificationReminders()
       .then(() => deliverDueEmails())

@@ -6,7 +6,15 @@ const uploadMaxMb = Number(process.env.UPLOAD_MAX_MB) > 0 ? Number(process.env.U
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Native and Node-only packages stay outside the server bundle.
-  serverExternalPackages: ["@node-rs/argon2", "@libsql/client", "libsql", "nodemailer", "smtp-server", "mailparser", "@react-pdf/renderer"],
+  serverExternalPackages: [
+    "@node-rs/argon2",
+    "@libsql/client",
+    "libsql",
+    "nodemailer",
+    "smtp-server",
+    "mailparser",
+    "@react-pdf/renderer",
+  ],
   poweredByHeader: false,
   experimental: {
     serverActions: { bodySizeLimit: "4mb" },

@@ -33,13 +33,21 @@ export default defineConfig({
     },
   },
   projects: [
-    { name: "chromium", testIgnore: OWN_PLANT, use: { ...devices["Desktop Chrome"], viewport: { width: 1280, height: 900 } } },
+    {
+      name: "chromium",
+      testIgnore: OWN_PLANT,
+      use: { ...devices["Desktop Chrome"], viewport: { width: 1280, height: 900 } },
+    },
     {
       name: "own-plant",
       testMatch: OWN_PLANT,
       // The walk sets up its installation once: a retry would meet it already set up.
       retries: 0,
-      use: { ...devices["Desktop Chrome"], viewport: { width: 1280, height: 900 }, baseURL: emptyURL },
+      use: {
+        ...devices["Desktop Chrome"],
+        viewport: { width: 1280, height: 900 },
+        baseURL: emptyURL,
+      },
     },
   ],
   webServer: [

@@ -1,6 +1,10 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { SESSION_COOKIE } from "@/lib/auth/session-cookie";
-import { isDecodableActionBody, isFetchAction, MALFORMED_ACTION_BODY } from "@/lib/http/action-body";
+import {
+  isDecodableActionBody,
+  isFetchAction,
+  MALFORMED_ACTION_BODY,
+} from "@/lib/http/action-body";
 import { isCrossSiteApiRead, isCrossSiteWrite } from "@/lib/http/origin";
 import { securityHeaders } from "@/lib/http/security-headers";
 
@@ -24,15 +28,31 @@ export async function proxy(request: NextRequest) {
       forwardedHost: request.headers.get("x-forwarded-host"),
       appUrl: process.env.APP_URL,
       hasSessionCookie,
-    }) || isCrossSiteApiRead({ method: request.method, path: request.nextUrl.pathname, secFetchSite: request.headers.get("sec-fetch-site"), hasSessionCookie });
+    }) ||
+    isCrossSiteApiRead({
+      method: request.method,
+      path: request.nextUrl.pathname,
+      secFetchSite: request.headers.get("sec-fetch-site"),
+      hasSessionCookie,
+    });
   if (crossSite) {
-    return NextResponse.json({ error: "This request came from another site and was refused. Nothing was changed." }, { status: 403, headers: { "Cache-Control": "no-store" } });
+    return NextResponse.json(
+      { error: "This request came from another site and was refused. Nothing was changed." },
+      { status: 403, headers: { "Cache-Control": "no-store" } },
+    );
   }
   if (await isMalformedPagePost(request)) {
-    return NextResponse.json({ error: MALFORMED_ACTION_BODY }, { status: 400, headers: { "Cache-Control": "no-store" } });
+    return NextResponse.json(
+      { error: MALFORMED_ACTION_BODY },
+      { status: 400, headers: { "Cache-Control": "no-store" } },
+    );
   }
   const nonce = btoa(String.fromCharCode(...crypto.getRandomValues(new Uint8Array(16))));
-  const { csp, hsts } = securityHeaders({ nonce, dev: process.env.NODE_ENV !== "production", https: (process.env.APP_URL ?? "").startsWith("https:") });
+  const { csp, hsts } = securityHeaders({
+    nonce,
+    dev: process.env.NODE_ENV !== "production",
+    https: (process.env.APP_URL ?? "").startsWith("https:"),
+  });
 
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("x-nonce", nonce);
@@ -45,7 +65,8 @@ export async function proxy(request: NextRequest) {
   return response;
 }
 
-const isMultipart = (request: NextRequest) => (request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data");
+const isMultipart = (request: NextRequest) =>
+  (request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data");
 
 /**
  * A POST to a page is a server action: the framework answers a body it cannot decode with a bare
@@ -60,7 +81,10 @@ async function isMalformedPagePost(request: NextRequest): Promise<boolean> {
     if (isMultipart(request)) {
       const form = await request.clone().formData();
       // A form posted without JavaScript names its action in its fields; parsing it was the check.
-      return fetchAction && !isDecodableActionBody({ kind: "form", fields: new Map([["0", form.get("0")]]) });
+      return (
+        fetchAction &&
+        !isDecodableActionBody({ kind: "form", fields: new Map([["0", form.get("0")]]) })
+      );
     }
     return !isDecodableActionBody({ kind: "text", text: await request.clone().text() });
   } catch {

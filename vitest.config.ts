@@ -11,6 +11,8 @@ export default defineConfig({
     // Some suites seed the whole demo plant before their tests; a busy machine needs the headroom.
     hookTimeout: 60_000,
     server: { deps: { inline: ["server-only"] } },
-    alias: { "server-only": new URL("./tests/unit/support/server-only-stub.ts", import.meta.url).pathname },
+    alias: {
+      "server-only": new URL("./tests/unit/support/server-only-stub.ts", import.meta.url).pathname,
+    },
   },
 });

@@ -32,7 +32,9 @@ export function openDatabase(url: string, authToken?: string): { db: Database; c
 
 // Kept on globalThis: Next bundles instrumentation, route handlers and actions apart, each with
 // its own copy of this module, and they must share one connection pool and one write queue.
-const processWide = globalThis as typeof globalThis & { washproofDatabase?: { db: Database; client: Client } };
+const processWide = globalThis as typeof globalThis & {
+  washproofDatabase?: { db: Database; client: Client };
+};
 
 /** The process-wide database, opened on first use so `next build` needs no data folder. */
 export function getDb(): Database {

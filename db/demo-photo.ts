@@ -34,8 +34,16 @@ export function demoPhoto(variant: number, width = 32, height = 24): Uint8Array 
   const raw = Buffer.alloc(height * (1 + width * 3));
   for (let y = 0; y < height; y++) {
     const row = y * (1 + width * 3);
-    for (let x = 0; x < width; x++) raw.set(Math.abs(y - band) < 2 ? [15, 118, 110] : [168, 162, 158], row + 1 + x * 3);
+    for (let x = 0; x < width; x++)
+      raw.set(Math.abs(y - band) < 2 ? [15, 118, 110] : [168, 162, 158], row + 1 + x * 3);
   }
   const signature = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
-  return new Uint8Array(Buffer.concat([signature, chunk("IHDR", header), chunk("IDAT", deflateSync(raw)), chunk("IEND", new Uint8Array())]));
+  return new Uint8Array(
+    Buffer.concat([
+      signature,
+      chunk("IHDR", header),
+      chunk("IDAT", deflateSync(raw)),
+      chunk("IEND", new Uint8Array()),
+    ]),
+  );
 }

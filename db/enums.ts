@@ -1,6 +1,13 @@
 /** Closed sets of values, shared by the schema, zod schemas and client components. */
 
-export const ROLES = ["admin", "engineer", "reviewer", "approver", "technician", "auditor"] as const;
+export const ROLES = [
+  "admin",
+  "engineer",
+  "reviewer",
+  "approver",
+  "technician",
+  "auditor",
+] as const;
 
 export const STAGE_KINDS = ["wash", "rinse", "final_rinse", "drying", "other"] as const;
 
@@ -14,7 +21,13 @@ export const STAGE_MODES = [
   "vacuum_drying",
 ] as const;
 
-export const RECIPE_VERSION_STATUSES = ["draft", "proposed", "effective", "superseded", "withdrawn"] as const;
+export const RECIPE_VERSION_STATUSES = [
+  "draft",
+  "proposed",
+  "effective",
+  "superseded",
+  "withdrawn",
+] as const;
 
 export const PARAMETER_KINDS = [
   "temperature",
@@ -35,9 +48,23 @@ export const PARAMETER_KINDS = [
   "other",
 ] as const;
 
-export const DOCUMENT_TYPES = ["iq_protocol", "oq_protocol", "pq_protocol", "report", "procedure", "change_narrative"] as const;
+export const DOCUMENT_TYPES = [
+  "iq_protocol",
+  "oq_protocol",
+  "pq_protocol",
+  "report",
+  "procedure",
+  "change_narrative",
+] as const;
 
-export const DOCUMENT_STATUSES = ["draft", "in_review", "approved", "effective", "superseded", "retired"] as const;
+export const DOCUMENT_STATUSES = [
+  "draft",
+  "in_review",
+  "approved",
+  "effective",
+  "superseded",
+  "retired",
+] as const;
 
 export const CHANGE_STATUSES = [
   "draft",
@@ -50,7 +77,14 @@ export const CHANGE_STATUSES = [
   "withdrawn",
 ] as const;
 
-export const CHANGE_KINDS = ["parameter_change", "new_detergent", "new_part_family", "maintenance_interval", "equipment", "initial_validation"] as const;
+export const CHANGE_KINDS = [
+  "parameter_change",
+  "new_detergent",
+  "new_part_family",
+  "maintenance_interval",
+  "equipment",
+  "initial_validation",
+] as const;
 
 /** A customer specification revision is in force until a later revision supersedes it. */
 export const SPEC_STATUSES = ["in_force", "superseded"] as const;
@@ -76,11 +110,28 @@ export const RUN_STATUSES = ["open", "performed", "verified", "superseded"] as c
 
 export const OUTCOMES = ["pass", "fail", "incomplete"] as const;
 
-export const SIGNATURE_MEANINGS = ["authored", "reviewed", "approved", "performed", "verified"] as const;
+export const SIGNATURE_MEANINGS = [
+  "authored",
+  "reviewed",
+  "approved",
+  "performed",
+  "verified",
+] as const;
 
-export const SIGNED_RECORD_TYPES = ["document_version", "change_request", "test_run", "recipe_version"] as const;
+export const SIGNED_RECORD_TYPES = [
+  "document_version",
+  "change_request",
+  "test_run",
+  "recipe_version",
+] as const;
 
-export const EVIDENCE_FILE_KINDS = ["lab_report", "membrane_image", "photo", "csv", "other"] as const;
+export const EVIDENCE_FILE_KINDS = [
+  "lab_report",
+  "membrane_image",
+  "photo",
+  "csv",
+  "other",
+] as const;
 
 export const BATH_RECORD_KINDS = ["bath_change", "filter_change", "reading"] as const;
 
@@ -93,7 +144,13 @@ export type SignedRecordType = (typeof SIGNED_RECORD_TYPES)[number];
 
 /** Document review routing: who signs in each step, and what they decided. */
 export const REVIEW_ROLES = ["reviewer", "approver"] as const;
-export const REVIEW_DECISIONS = ["reviewed", "sent_back", "approved", "rejected", "withdrawn"] as const;
+export const REVIEW_DECISIONS = [
+  "reviewed",
+  "sent_back",
+  "approved",
+  "rejected",
+  "withdrawn",
+] as const;
 export const ROUTING_MODES = ["sequence", "parallel"] as const;
 
 export type DocumentType = (typeof DOCUMENT_TYPES)[number];

@@ -10,7 +10,10 @@ export const MIGRATIONS_FOLDER = resolve(process.cwd(), "db/migrations");
  * A libSQL server keeps its own journal, so the pragma is for database files only.
  */
 export async function migrateDatabase(db: Database, client: Client) {
-  if (client.protocol === "file" && (await client.execute("PRAGMA journal_mode")).rows[0]?.journal_mode !== "memory") {
+  if (
+    client.protocol === "file" &&
+    (await client.execute("PRAGMA journal_mode")).rows[0]?.journal_mode !== "memory"
+  ) {
     await client.execute("PRAGMA journal_mode = WAL");
   }
   await migrate(db, { migrationsFolder: MIGRATIONS_FOLDER });
@@ -23,7 +26,10 @@ export async function migrateDatabase(db: Database, client: Client) {
  * `PRAGMA optimize`, which re-analyses the tables whose size has changed much.
  */
 export async function refreshPlannerStatistics(client: Client) {
-  const hasStats = (await client.execute("SELECT 1 FROM sqlite_schema WHERE name = 'sqlite_stat1'")).rows.length > 0;
-  const analysed = hasStats && (await client.execute("SELECT 1 FROM sqlite_stat1 LIMIT 1")).rows.length > 0;
+  const hasStats =
+    (await client.execute("SELECT 1 FROM sqlite_schema WHERE name = 'sqlite_stat1'")).rows.length >
+    0;
+  const analysed =
+    hasStats && (await client.execute("SELECT 1 FROM sqlite_stat1 LIMIT 1")).rows.length > 0;
   await client.execute(analysed ? "PRAGMA optimize" : "ANALYZE");
 }

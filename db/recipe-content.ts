@@ -13,13 +13,24 @@ export async function loadRecipeSnapshot(db: Executor, versionId: string): Promi
 }
 
 /** Several versions' snapshots in three statements, whatever their number (a trace compares dozens). */
-export async function loadRecipeSnapshots(db: Executor, versionIds: string[]): Promise<Map<string, RecipeSnapshot>> {
+export async function loadRecipeSnapshots(
+  db: Executor,
+  versionIds: string[],
+): Promise<Map<string, RecipeSnapshot>> {
   const ids = [...new Set(versionIds)];
   const snapshots = new Map<string, RecipeSnapshot>();
   if (ids.length === 0) return snapshots;
   const versions = await db.select().from(recipeVersions).where(inArray(recipeVersions.id, ids));
-  const stages = await db.select().from(recipeStages).where(inArray(recipeStages.versionId, ids)).orderBy(asc(recipeStages.position));
-  const params = await db.select().from(recipeParameters).where(inArray(recipeParameters.versionId, ids)).orderBy(sql`rowid`);
+  const stages = await db
+    .select()
+    .from(recipeStages)
+    .where(inArray(recipeStages.versionId, ids))
+    .orderBy(asc(recipeStages.position));
+  const params = await db
+    .select()
+    .from(recipeParameters)
+    .where(inArray(recipeParameters.versionId, ids))
+    .orderBy(sql`rowid`);
   const paramsOfStage = new Map<string, typeof params>();
   for (const p of params) {
     const list = paramsOfStage.get(p.stageId);
@@ -37,7 +48,16 @@ export async function loadRecipeSnapshots(db: Executor, versionIds: string[]): P
           name: s.name,
           kind: s.kind,
           mode: s.mode,
-          parameters: (paramsOfStage.get(s.id) ?? []).map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: p.setpoint, unit: p.unit, validatedLow: p.validatedLow, validatedHigh: p.validatedHigh, critical: p.critical })),
+          parameters: (paramsOfStage.get(s.id) ?? []).map((p) => ({
+            key: p.key,
+            name: p.name,
+            kind: p.kind,
+            setpoint: p.setpoint,
+            unit: p.unit,
+            validatedLow: p.validatedLow,
+            validatedHigh: p.validatedHigh,
+            critical: p.critical,
+          })),
         })),
     });
   }
@@ -52,11 +72,19 @@ export async function loadRecipeSnapshots(db: Executor, versionIds: string[]): P
 export async function loadParametersInProcessOrder(db: Executor, versionIds: string[]) {
   if (versionIds.length === 0) return [];
   const rows = await db
-    .select({ p: recipeParameters, stageName: recipeStages.name, stagePosition: recipeStages.position })
+    .select({
+      p: recipeParameters,
+      stageName: recipeStages.name,
+      stagePosition: recipeStages.position,
+    })
     .from(recipeParameters)
     .innerJoin(recipeStages, eq(recipeStages.id, recipeParameters.stageId))
     .where(inArray(recipeParameters.versionId, versionIds))
-    .orderBy(asc(recipeParameters.versionId), asc(recipeStages.position), sql`${recipeParameters}.rowid`);
+    .orderBy(
+      asc(recipeParameters.versionId),
+      asc(recipeStages.position),
+      sql`${recipeParameters}.rowid`,
+    );
   return rows.map((r) => ({ ...r.p, stageName: r.stageName, stagePosition: r.stagePosition }));
 }
 
@@ -64,9 +92,24 @@ export async function loadParametersInProcessOrder(db: Executor, versionIds: str
 export async function writeRecipeContent(tx: Tx, versionId: string, content: RecipeSnapshot) {
   await tx.delete(recipeParameters).where(eq(recipeParameters.versionId, versionId));
   await tx.delete(recipeStages).where(eq(recipeStages.versionId, versionId));
-  await tx.update(recipeVersions).set({ detergent: content.detergent, notes: content.notes }).where(eq(recipeVersions.id, versionId));
+  await tx
+    .update(recipeVersions)
+    .set({ detergent: content.detergent, notes: content.notes })
+    .where(eq(recipeVersions.id, versionId));
   for (const [i, s] of content.stages.entries()) {
-    const [stage] = await tx.insert(recipeStages).values({ versionId, position: i + 1, name: s.name, kind: s.kind as never, mode: s.mode as never }).returning();
-    if (s.parameters.length) await tx.insert(recipeParameters).values(s.parameters.map((p) => ({ ...p, versionId, stageId: stage.id })));
+    const [stage] = await tx
+      .insert(recipeStages)
+      .values({
+        versionId,
+        position: i + 1,
+        name: s.name,
+        kind: s.kind as never,
+        mode: s.mode as never,
+      })
+      .returning();
+    if (s.parameters.length)
+      await tx
+        .insert(recipeParameters)
+        .values(s.parameters.map((p) => ({ ...p, versionId, stageId: stage.id })));
   }
 }

@@ -22,12 +22,35 @@ import { formatDate } from "@/lib/format/date";
  * One effective, fully signed OQ protocol for the demo: Ines wrote it, Tomas
  * reviewed it, Helena approved it. Invented text from our own template.
  */
-export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string; name: string }; reviewer: { id: string; name: string }; approver: { id: string; name: string } }, now = new Date()) {
+export async function seedDemoDocuments(
+  tx: Tx,
+  people: {
+    engineer: { id: string; name: string };
+    reviewer: { id: string; name: string };
+    approver: { id: string; name: string };
+  },
+  now = new Date(),
+) {
   const [system] = await tx.select().from(cleaningSystems).where(eq(cleaningSystems.code, "AW-3"));
-  const stages = await tx.select().from(systemStages).where(eq(systemStages.systemId, system.id)).orderBy(asc(systemStages.position));
-  const [family] = await tx.select({ f: partFamilies, s: cleanlinessSpecs }).from(partFamilies).innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId)).where(eq(partFamilies.code, "PF-VB-210"));
-  const [recipe] = await tx.select({ r: recipes, v: recipeVersions }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(eq(recipes.code, "R-AW3-VB")).orderBy(asc(recipeVersions.version));
-  const effective = (await tx.select().from(recipeVersions).where(eq(recipeVersions.recipeId, recipe.r.id))).find((v) => v.status === "effective")!;
+  const stages = await tx
+    .select()
+    .from(systemStages)
+    .where(eq(systemStages.systemId, system.id))
+    .orderBy(asc(systemStages.position));
+  const [family] = await tx
+    .select({ f: partFamilies, s: cleanlinessSpecs })
+    .from(partFamilies)
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .where(eq(partFamilies.code, "PF-VB-210"));
+  const [recipe] = await tx
+    .select({ r: recipes, v: recipeVersions })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(eq(recipes.code, "R-AW3-VB"))
+    .orderBy(asc(recipeVersions.version));
+  const effective = (
+    await tx.select().from(recipeVersions).where(eq(recipeVersions.recipeId, recipe.r.id))
+  ).find((v) => v.status === "effective")!;
   const params = await loadParametersInProcessOrder(tx, [effective.id]);
 
   const number = "OQ-AW3-0001";
@@ -38,8 +61,25 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
     number,
     title,
     system: { code: system.code, name: system.name, stages: stages.map((s) => s.name) },
-    partFamily: { code: family.f.code, name: family.f.name, material: family.f.material, wettedAreaCm2: family.f.wettedAreaCm2, spec: family.s },
-    recipe: { code: recipe.r.code, name: recipe.r.name, version: effective.version, parameters: params.map((x) => ({ name: x.name, setpoint: x.setpoint, unit: x.unit, low: x.validatedLow, high: x.validatedHigh })) },
+    partFamily: {
+      code: family.f.code,
+      name: family.f.name,
+      material: family.f.material,
+      wettedAreaCm2: family.f.wettedAreaCm2,
+      spec: family.s,
+    },
+    recipe: {
+      code: recipe.r.code,
+      name: recipe.r.name,
+      version: effective.version,
+      parameters: params.map((x) => ({
+        name: x.name,
+        setpoint: x.setpoint,
+        unit: x.unit,
+        low: x.validatedLow,
+        high: x.validatedHigh,
+      })),
+    },
     sample: { confidencePct: 95, reliabilityPct: 90, size: sampleSize },
   });
   const contentHash = sha256Hex(canonicalJson(content));
@@ -48,17 +88,77 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
 
   const [document] = await tx
     .insert(documents)
-    .values({ number, title, type: "oq_protocol", systemId: system.id, partFamilyId: family.f.id, recipeVersionId: effective.id, ownerId: people.engineer.id })
+    .values({
+      number,
+      title,
+      type: "oq_protocol",
+      systemId: system.id,
+      partFamilyId: family.f.id,
+      recipeVersionId: effective.id,
+      ownerId: people.engineer.id,
+    })
     .returning();
   const [version] = await tx
     .insert(documentVersions)
-    .values({ documentId: document.id, version: 1, status: "effective", content, contentHash, lockVersion: 1, effectiveDate: today, reviewRound: 1, routing: "sequence", submittedAt: at, approvedAt: at, createdBy: people.engineer.id })
+    .values({
+      documentId: document.id,
+      version: 1,
+      status: "effective",
+      content,
+      contentHash,
+      lockVersion: 1,
+      effectiveDate: today,
+      reviewRound: 1,
+      routing: "sequence",
+      submittedAt: at,
+      approvedAt: at,
+      createdBy: people.engineer.id,
+    })
     .returning();
   await tx.insert(documentReviews).values([
-    { versionId: version.id, round: 1, step: 1, role: "reviewer", assigneeId: people.reviewer.id, activatedAt: at, dueAt: at, decision: "reviewed", decidedAt: at },
-    { versionId: version.id, round: 1, step: 2, role: "approver", assigneeId: people.approver.id, activatedAt: at, dueAt: at, decision: "approved", decidedAt: at },
+    {
+      versionId: version.id,
+      round: 1,
+      step: 1,
+      role: "reviewer",
+      assigneeId: people.reviewer.id,
+      activatedAt: at,
+      dueAt: at,
+      decision: "reviewed",
+      decidedAt: at,
+    },
+    {
+      versionId: version.id,
+      round: 1,
+      step: 2,
+      role: "approver",
+      assigneeId: people.approver.id,
+      activatedAt: at,
+      dueAt: at,
+      decision: "approved",
+      decidedAt: at,
+    },
   ]);
-  await appendAudit(tx, SYSTEM_ACTOR, { eventType: "document.created", recordType: "document", recordId: document.id, new: { number, title, type: "oq_protocol", system: system.code, partFamily: family.f.code, recipeVersion: `${recipe.r.code} v${effective.version}`, versionId: version.id, sampleSize } }, now);
+  await appendAudit(
+    tx,
+    SYSTEM_ACTOR,
+    {
+      eventType: "document.created",
+      recordType: "document",
+      recordId: document.id,
+      new: {
+        number,
+        title,
+        type: "oq_protocol",
+        system: system.code,
+        partFamily: family.f.code,
+        recipeVersion: `${recipe.r.code} v${effective.version}`,
+        versionId: version.id,
+        sampleSize,
+      },
+    },
+    now,
+  );
   for (const [person, meaning] of [
     [people.engineer, "authored"],
     [people.reviewer, "reviewed"],
@@ -66,10 +166,44 @@ export async function seedDemoDocuments(tx: Tx, people: { engineer: { id: string
   ] as const) {
     const [sig] = await tx
       .insert(signatures)
-      .values({ recordType: "document_version", recordId: version.id, userId: person.id, printedName: person.name, meaning, signedAt: at, contentHash })
+      .values({
+        recordType: "document_version",
+        recordId: version.id,
+        userId: person.id,
+        printedName: person.name,
+        meaning,
+        signedAt: at,
+        contentHash,
+      })
       .returning();
     // A signature is always recorded as its signer's act, as the signing service records it.
-    await appendAudit(tx, person, { eventType: "signature.applied", recordType: "signature", recordId: sig.id, new: { on: `document_version:${version.id}`, meaning, printedName: person.name, contentHash, signedAt: at } }, now);
+    await appendAudit(
+      tx,
+      person,
+      {
+        eventType: "signature.applied",
+        recordType: "signature",
+        recordId: sig.id,
+        new: {
+          on: `document_version:${version.id}`,
+          meaning,
+          printedName: person.name,
+          contentHash,
+          signedAt: at,
+        },
+      },
+      now,
+    );
   }
-  await appendAudit(tx, SYSTEM_ACTOR, { eventType: "document.effective", recordType: "document_version", recordId: version.id, new: { status: "effective", effectiveDate: today, version: version.version } }, now);
+  await appendAudit(
+    tx,
+    SYSTEM_ACTOR,
+    {
+      eventType: "document.effective",
+      recordType: "document_version",
+      recordId: version.id,
+      new: { status: "effective", effectiveDate: today, version: version.version },
+    },
+    now,
+  );
 }

@@ -22,14 +22,26 @@ import {
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
 import { seedChangeControl } from "./seed-changes";
-import { DEMO_COMPANY, DEMO_PART_FAMILIES, DEMO_PASSWORD, DEMO_RECIPES, DEMO_SITE, DEMO_SPECS, DEMO_SYSTEMS, DEMO_USERS } from "./seed-data";
+import {
+  DEMO_COMPANY,
+  DEMO_PART_FAMILIES,
+  DEMO_PASSWORD,
+  DEMO_RECIPES,
+  DEMO_SITE,
+  DEMO_SPECS,
+  DEMO_SYSTEMS,
+  DEMO_USERS,
+} from "./seed-data";
 
 /**
  * Loads the invented demo scenario. Idempotent: a database that already holds
  * the demo site is left as it is. Every row is audited, as any other change.
  */
 export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
-  const existing = await db.select({ id: sites.id }).from(sites).where(eq(sites.name, DEMO_SITE.name));
+  const existing = await db
+    .select({ id: sites.id })
+    .from(sites)
+    .where(eq(sites.name, DEMO_SITE.name));
   if (existing.length > 0) return { seeded: false };
 
   // Hash outside the transaction: argon2 is deliberately slow.
@@ -38,7 +50,8 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
   const [{ n: existingUsers }] = await db.select({ n: count() }).from(users);
 
   await db.transaction(async (tx) => {
-    const audit = (input: Parameters<typeof appendAudit>[2]) => appendAudit(tx, SYSTEM_ACTOR, input);
+    const audit = (input: Parameters<typeof appendAudit>[2]) =>
+      appendAudit(tx, SYSTEM_ACTOR, input);
     const userIds = new Map<string, string>();
     // An empty installation is set up the way a plant sets itself up: first administrator, company, site.
     const firstAdmin = DEMO_USERS.find((u) => u.roles.includes("admin"))!;
@@ -57,7 +70,12 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       siteId = setUp.siteId;
     } else {
       const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
-      await audit({ eventType: "site.created", recordType: "site", recordId: site.id, new: DEMO_SITE });
+      await audit({
+        eventType: "site.created",
+        recordType: "site",
+        recordId: site.id,
+        new: DEMO_SITE,
+      });
       siteId = site.id;
     }
     for (const [i, u] of DEMO_USERS.entries()) {
@@ -70,14 +88,23 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       if (!row) continue; // someone already created this e-mail by hand
       userIds.set(u.email, row.id);
       await tx.insert(userRoles).values(u.roles.map((role) => ({ userId: row.id, role })));
-      await audit({ eventType: "user.created", recordType: "user", recordId: row.id, new: { name: u.name, email: u.email, jobTitle: u.jobTitle, roles: [...u.roles].sort() } });
+      await audit({
+        eventType: "user.created",
+        recordType: "user",
+        recordId: row.id,
+        new: { name: u.name, email: u.email, jobTitle: u.jobTitle, roles: [...u.roles].sort() },
+      });
     }
     const engineerId = userIds.get("engineer@fennmoor.example") ?? null;
 
-
     const systemIds = new Map<string, string>();
     for (const s of DEMO_SYSTEMS) {
-      const sys = await createSystemIn(tx, SYSTEM_ACTOR, siteId, createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }));
+      const sys = await createSystemIn(
+        tx,
+        SYSTEM_ACTOR,
+        siteId,
+        createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }),
+      );
       systemIds.set(s.code, sys.id);
     }
 
@@ -91,7 +118,11 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     const familyIds = new Map<string, string>();
     for (const pf of DEMO_PART_FAMILIES) {
       const { spec, ...fields } = pf;
-      const row = await createPartFamilyIn(tx, SYSTEM_ACTOR, partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }));
+      const row = await createPartFamilyIn(
+        tx,
+        SYSTEM_ACTOR,
+        partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }),
+      );
       familyIds.set(pf.code, row.id);
     }
 
@@ -99,10 +130,20 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     for (const r of DEMO_RECIPES) {
       const [recipe] = await tx
         .insert(recipes)
-        .values({ systemId: systemIds.get(r.system)!, code: r.code, name: r.name, description: r.description })
+        .values({
+          systemId: systemIds.get(r.system)!,
+          code: r.code,
+          name: r.name,
+          description: r.description,
+        })
         .returning();
       recipeIds.set(r.code, recipe.id);
-      await audit({ eventType: "recipe.created", recordType: "recipe", recordId: recipe.id, new: { code: r.code, name: r.name } });
+      await audit({
+        eventType: "recipe.created",
+        recordType: "recipe",
+        recordId: recipe.id,
+        new: { code: r.code, name: r.name },
+      });
       let previous: { id: string; version: number } | null = null;
       for (const [i, v] of r.versions.entries()) {
         const isLast = i === r.versions.length - 1;
@@ -123,7 +164,13 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
         for (const [si, s] of v.stages.entries()) {
           const [stage] = await tx
             .insert(recipeStages)
-            .values({ versionId: version.id, position: si + 1, name: s.name, kind: s.kind, mode: s.mode as never })
+            .values({
+              versionId: version.id,
+              position: si + 1,
+              name: s.name,
+              kind: s.kind,
+              mode: s.mode as never,
+            })
             .returning();
           await tx.insert(recipeParameters).values(
             s.parameters.map((p) => ({
@@ -140,11 +187,27 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
             })),
           );
         }
-        await audit({ eventType: "recipe_version.created", recordType: "recipe_version", recordId: version.id, new: { recipe: r.code, version: i + 1, notes: v.notes } });
+        await audit({
+          eventType: "recipe_version.created",
+          recordType: "recipe_version",
+          recordId: version.id,
+          new: { recipe: r.code, version: i + 1, notes: v.notes },
+        });
         if (previous) {
-          await audit({ eventType: "recipe_version.superseded", recordType: "recipe_version", recordId: previous.id, old: { status: "effective" }, new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 } });
+          await audit({
+            eventType: "recipe_version.superseded",
+            recordType: "recipe_version",
+            recordId: previous.id,
+            old: { status: "effective" },
+            new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 },
+          });
         }
-        await audit({ eventType: "recipe_version.effective", recordType: "recipe_version", recordId: version.id, new: { status: "effective", effectiveFrom: v.effectiveFrom } });
+        await audit({
+          eventType: "recipe_version.effective",
+          recordType: "recipe_version",
+          recordId: version.id,
+          new: { status: "effective", effectiveFrom: v.effectiveFrom },
+        });
         previous = { id: version.id, version: i + 1 };
       }
     }
@@ -154,7 +217,11 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       return { id: userIds.get(email)!, name: u.name };
     };
     if (["engineer", "reviewer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`))) {
-      await seedDemoDocuments(tx, { engineer: person("engineer@fennmoor.example"), reviewer: person("reviewer@fennmoor.example"), approver: person("approver@fennmoor.example") });
+      await seedDemoDocuments(tx, {
+        engineer: person("engineer@fennmoor.example"),
+        reviewer: person("reviewer@fennmoor.example"),
+        approver: person("approver@fennmoor.example"),
+      });
     }
 
     await seedEvidence(tx);

@@ -1,4 +1,11 @@
-import { LibsqlError, type Client, type InArgs, type InStatement, type Transaction, type TransactionMode } from "@libsql/client";
+import {
+  LibsqlError,
+  type Client,
+  type InArgs,
+  type InStatement,
+  type Transaction,
+  type TransactionMode,
+} from "@libsql/client";
 
 /**
  * One writer at a time inside this process, queued before SQLite sees it.
@@ -22,7 +29,13 @@ export function serialiseWrites(client: Client, timeoutMs: number): Client {
     tail = before.then(() => mine);
     let timer: NodeJS.Timeout | undefined;
     const timedOut = new Promise<never>((_, reject) => {
-      timer = setTimeout(() => reject(new LibsqlError(`SQLITE_BUSY: no turn to write within ${timeoutMs} ms`, "SQLITE_BUSY")), timeoutMs);
+      timer = setTimeout(
+        () =>
+          reject(
+            new LibsqlError(`SQLITE_BUSY: no turn to write within ${timeoutMs} ms`, "SQLITE_BUSY"),
+          ),
+        timeoutMs,
+      );
     });
     try {
       await Promise.race([before, timedOut]);
@@ -79,13 +92,15 @@ export function serialiseWrites(client: Client, timeoutMs: number): Client {
   }
 
   const execute = (stmt: InStatement | string, args?: InArgs) => {
-    const statement: InStatement = typeof stmt === "string" ? { sql: stmt, args: args ?? [] } : stmt;
+    const statement: InStatement =
+      typeof stmt === "string" ? { sql: stmt, args: args ?? [] } : stmt;
     return isRead(statement) ? client.execute(statement) : queued(() => client.execute(statement));
   };
 
   return {
     execute,
-    batch: (stmts, mode) => (mode === "read" ? client.batch(stmts, mode) : queued(() => client.batch(stmts, mode))),
+    batch: (stmts, mode) =>
+      mode === "read" ? client.batch(stmts, mode) : queued(() => client.batch(stmts, mode)),
     migrate: (stmts) => queued(() => client.migrate(stmts)),
     async transaction(mode: TransactionMode = "write") {
       if (mode === "read") return client.transaction(mode);

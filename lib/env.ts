@@ -60,7 +60,13 @@ const envSchema = z
     /** How often the chain head is checkpointed when it has moved. */
     AUDIT_CHECKPOINT_MINUTES: minutes(60),
     /** Who receives a copy of every checkpoint by e-mail (an auditor outside the company, ideally). */
-    AUDITOR_EMAIL: z.string().trim().toLowerCase().email().optional().or(z.literal("").transform(() => undefined)),
+    AUDITOR_EMAIL: z
+      .string()
+      .trim()
+      .toLowerCase()
+      .email()
+      .optional()
+      .or(z.literal("").transform(() => undefined)),
 
     APP_URL: z.string().url().default("http://localhost:3000"),
     DEMO_MODE: z
@@ -77,15 +83,24 @@ const envSchema = z
         ctx.addIssue({
           code: "custom",
           path: ["DATABASE_URL"],
-          message: "must be an absolute file: path in production (e.g. file:/var/lib/washproof/app.db)",
+          message:
+            "must be an absolute file: path in production (e.g. file:/var/lib/washproof/app.db)",
         });
       }
     }
     if (env.STORAGE_DRIVER === "s3" && !env.S3_BUCKET) {
-      ctx.addIssue({ code: "custom", path: ["S3_BUCKET"], message: "is required when STORAGE_DRIVER is s3" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["S3_BUCKET"],
+        message: "is required when STORAGE_DRIVER is s3",
+      });
     }
     if (env.AUDIT_SIGNING_KEY && env.AUDIT_SIGNING_KEY_FILE) {
-      ctx.addIssue({ code: "custom", path: ["AUDIT_SIGNING_KEY_FILE"], message: "set either AUDIT_SIGNING_KEY or AUDIT_SIGNING_KEY_FILE, not both" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["AUDIT_SIGNING_KEY_FILE"],
+        message: "set either AUDIT_SIGNING_KEY or AUDIT_SIGNING_KEY_FILE, not both",
+      });
     }
     if (env.SESSION_IDLE_MINUTES > env.SESSION_ABSOLUTE_MINUTES) {
       ctx.addIssue({

@@ -17,7 +17,13 @@ import { setUpPlant } from "@/lib/server/plant/set-up-plant";
 import { PLANT_DATABASE_FILE } from "./plant-paths";
 
 const { values } = parseArgs({
-  options: { company: { type: "string" }, site: { type: "string" }, location: { type: "string" }, name: { type: "string" }, email: { type: "string" } },
+  options: {
+    company: { type: "string" },
+    site: { type: "string" },
+    location: { type: "string" },
+    name: { type: "string" },
+    email: { type: "string" },
+  },
 });
 
 function ask(question: string, hidden = false): Promise<string> {
@@ -25,7 +31,8 @@ function ask(question: string, hidden = false): Promise<string> {
   if (hidden) {
     // Echo nothing of what is typed after the question itself.
     const write = (rl as unknown as { _writeToOutput: (s: string) => void })._writeToOutput;
-    (rl as unknown as { _writeToOutput: (s: string) => void })._writeToOutput = (s: string) => (s.startsWith(question) ? write.call(rl, s) : undefined);
+    (rl as unknown as { _writeToOutput: (s: string) => void })._writeToOutput = (s: string) =>
+      s.startsWith(question) ? write.call(rl, s) : undefined;
   }
   return new Promise((done) =>
     rl.question(question, (answer) => {
@@ -43,7 +50,8 @@ const { db, client } = openDatabase(DATABASE_URL, DATABASE_AUTH_TOKEN);
 await migrateDatabase(db, client);
 setProcessDatabase(db, client);
 
-const password = process.env.WASHPROOF_ADMIN_PASSWORD ?? (await ask("Password (at least 12 characters): ", true));
+const password =
+  process.env.WASHPROOF_ADMIN_PASSWORD ?? (await ask("Password (at least 12 characters): ", true));
 const input = {
   companyName: values.company ?? (await ask("Company name: ")),
   siteName: values.site ?? (await ask("Site name: ")),
@@ -55,13 +63,16 @@ const input = {
 };
 const parsed = setUpPlantSchema.safeParse(input);
 if (!parsed.success) {
-  for (const issue of parsed.error.issues) console.error(`${issue.path.join(".") || "input"}: ${issue.message}`);
+  for (const issue of parsed.error.issues)
+    console.error(`${issue.path.join(".") || "input"}: ${issue.message}`);
   client.close();
   process.exit(1);
 }
 try {
   await setUpPlant(parsed.data);
-  console.log(`${parsed.data.adminName} <${parsed.data.adminEmail}> is the administrator of ${parsed.data.companyName}, ${parsed.data.siteName}. Sign in and add the people, cleaning systems and part families.`);
+  console.log(
+    `${parsed.data.adminName} <${parsed.data.adminEmail}> is the administrator of ${parsed.data.companyName}, ${parsed.data.siteName}. Sign in and add the people, cleaning systems and part families.`,
+  );
 } catch (error) {
   console.error(error instanceof UserFacingError ? error.message : error);
   process.exitCode = 1;

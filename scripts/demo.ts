@@ -28,7 +28,11 @@ const { db, client } = openDatabase(process.env.DATABASE_URL);
 await migrateDatabase(db, client);
 if (empty) {
   const someone = await db.select({ id: users.id }).from(users).limit(1);
-  console.log(someone.length ? "Starting without demo data." : `Starting without demo data. No one can sign in yet: open http://localhost:${port}/set-up (the sign-in page leads there) or run \`npm run admin:create\` to create the first administrator.`);
+  console.log(
+    someone.length
+      ? "Starting without demo data."
+      : `Starting without demo data. No one can sign in yet: open http://localhost:${port}/set-up (the sign-in page leads there) or run \`npm run admin:create\` to create the first administrator.`,
+  );
 } else {
   const { seeded } = await seedDemo(db);
   console.log(seeded ? "Demo data loaded." : "Demo data already present.");
@@ -38,9 +42,13 @@ client.close();
 const { startFakeSmtpServer } = await import("@/lib/email/fake-smtp-server");
 await startFakeSmtpServer({ port: smtpPort, mailboxFile: process.env.MAILBOX_FILE });
 if (!process.env.AUDIT_SIGNING_KEY_FILE && !process.env.AUDIT_SIGNING_KEY) {
-  console.log("Audit checkpoints are signed with a key generated in data/audit-signing-key.pem: no AUDIT_SIGNING_KEY_FILE is configured (fine for a demo, not for real records).");
+  console.log(
+    "Audit checkpoints are signed with a key generated in data/audit-signing-key.pem: no AUDIT_SIGNING_KEY_FILE is configured (fine for a demo, not for real records).",
+  );
 }
-console.log(`Demo e-mail is captured on 127.0.0.1:${smtpPort}; admins read it under Admin › E-mail.`);
+console.log(
+  `Demo e-mail is captured on 127.0.0.1:${smtpPort}; admins read it under Admin › E-mail.`,
+);
 
 console.log("Building Washproof (about a minute)…");
 const build = spawnSync("npx", ["next", "build"], { stdio: "inherit", env: process.env });
@@ -48,7 +56,9 @@ if (build.status !== 0) process.exit(build.status ?? 1);
 
 console.log(`\nWashproof is starting at http://localhost:${port}`);
 if (!empty) {
-  console.log("Demo sign-ins: admin@, engineer@, reviewer@, approver@, technician@, auditor@fennmoor.example");
+  console.log(
+    "Demo sign-ins: admin@, engineer@, reviewer@, approver@, technician@, auditor@fennmoor.example",
+  );
   console.log("Password for all of them: Washproof-demo-2026\n");
 }
 const server = spawn("npx", ["next", "start", "-p", port], { stdio: "inherit", env: process.env });

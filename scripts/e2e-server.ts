@@ -36,6 +36,9 @@ if (!existsSync(".next/BUILD_ID")) {
   console.error("No production build found: run `npx next build` first (npm test does).");
   process.exit(1);
 }
-const server = spawn("npx", ["next", "start", "-H", "127.0.0.1", "-p", port], { stdio: "inherit", env: process.env });
+const server = spawn("npx", ["next", "start", "-H", "127.0.0.1", "-p", port], {
+  stdio: "inherit",
+  env: process.env,
+});
 for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => server.kill(signal));
 server.on("exit", (code) => process.exit(code ?? 0));

@@ -15,7 +15,11 @@ export const signOutAction = declareEndpoint(
     if (user) {
       await invalidateSession(user.sessionId);
       await getDb().transaction((tx) =>
-        appendAudit(tx, { id: user.id, name: user.name }, { eventType: "auth.signed_out", recordType: "user", recordId: user.id }),
+        appendAudit(
+          tx,
+          { id: user.id, name: user.name },
+          { eventType: "auth.signed_out", recordType: "user", recordId: user.id },
+        ),
       );
     }
     const blank = cookieForSignOut();

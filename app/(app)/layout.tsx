@@ -11,10 +11,15 @@ import { requirePageUser } from "@/lib/server/auth/current-user";
 export default async function AppLayout({ children }: { children: ReactNode }) {
   // The real checks are in every page, action and route handler; this only builds the shell.
   const user = await requirePageUser(undefined, { allowPasswordChange: true });
-  const items = user.mustChangePassword ? [] : NAV_ITEMS.filter((item) => can(user.roles, item.permission));
+  const items = user.mustChangePassword
+    ? []
+    : NAV_ITEMS.filter((item) => can(user.roles, item.permission));
   return (
     <div className="min-h-screen">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <header className="sticky top-0 z-10 flex items-center justify-between border-b border-stone-200 bg-white/95 px-4 py-2 backdrop-blur lg:px-6">

@@ -12,21 +12,38 @@ function NewToken() {
   const token = state && state.ok ? (state as { token?: string }).token : undefined;
   if (!token) return null;
   return (
-    <div role="status" aria-label="New API token" className="rounded-md border border-brand-300 bg-brand-50 p-4 text-sm">
+    <div
+      role="status"
+      aria-label="New API token"
+      className="rounded-md border border-brand-300 bg-brand-50 p-4 text-sm"
+    >
       <p className="font-medium text-brand-900">Your new token (shown once)</p>
       <p className="mt-1 font-mono text-sm break-all" data-testid="new-api-token">
         {token}
       </p>
-      <p className="mt-1 text-xs text-stone-600">Copy it now into the instrument or script that uses it. Washproof keeps only its SHA-256, so nobody can show it again; if it is lost, revoke it and create another.</p>
+      <p className="mt-1 text-xs text-stone-600">
+        Copy it now into the instrument or script that uses it. Washproof keeps only its SHA-256, so
+        nobody can show it again; if it is lost, revoke it and create another.
+      </p>
     </div>
   );
 }
 
 export function CreateApiTokenForm({ canWrite }: { canWrite: boolean }) {
   return (
-    <ActionForm action={createApiTokenAction} className="max-w-xl space-y-4" aria-label="Create API token" showSuccess={false}>
+    <ActionForm
+      action={createApiTokenAction}
+      className="max-w-xl space-y-4"
+      aria-label="Create API token"
+      showSuccess={false}
+    >
       <NewToken />
-      <Field name="name" label="Name" hint="What uses it, e.g. “Particle counter, lab 2”." maxLength={80} />
+      <Field
+        name="name"
+        label="Name"
+        hint="What uses it, e.g. “Particle counter, lab 2”."
+        maxLength={80}
+      />
       <ChoiceGroup
         type="radio"
         name="scope"
@@ -34,7 +51,10 @@ export function CreateApiTokenForm({ canWrite }: { canWrite: boolean }) {
         defaultValues={["read"]}
         options={[
           { value: "read", label: `${SCOPE_LABELS.read}: read records` },
-          { value: "read_write", label: `${SCOPE_LABELS.read_write}: also post test results${canWrite ? "" : " (your role does not write, so such a token is refused when it tries)"}` },
+          {
+            value: "read_write",
+            label: `${SCOPE_LABELS.read_write}: also post test results${canWrite ? "" : " (your role does not write, so such a token is refused when it tries)"}`,
+          },
         ]}
       />
       <SelectField
@@ -53,7 +73,11 @@ export function RevokeApiTokenForm({ tokenId, name }: { tokenId: string; name: s
   return (
     <ActionForm action={revokeApiTokenAction} aria-label={`Revoke ${name}`} showSuccess={false}>
       <input type="hidden" name="tokenId" value={tokenId} />
-      <SubmitButton variant="danger" className="px-2.5 py-1 text-xs" aria-label={`Revoke token ${name}`}>
+      <SubmitButton
+        variant="danger"
+        className="px-2.5 py-1 text-xs"
+        aria-label={`Revoke token ${name}`}
+      >
         Revoke
       </SubmitButton>
     </ActionForm>

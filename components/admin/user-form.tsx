@@ -26,10 +26,21 @@ const ROLE_HINTS: Record<Role, string> = {
 export function UserForm({ action, user, submitLabel }: UserFormProps) {
   return (
     // A new user's form clears once created, so a second click cannot submit the same person again.
-    <ActionForm action={action} className="max-w-xl space-y-4" aria-label={user ? "Edit user" : "New user"} resetOnSuccess={!user}>
+    <ActionForm
+      action={action}
+      className="max-w-xl space-y-4"
+      aria-label={user ? "Edit user" : "New user"}
+      resetOnSuccess={!user}
+    >
       {user && <input type="hidden" name="userId" value={user.id} />}
       <Field name="name" label="Full name" defaultValue={user?.name} autoComplete="off" />
-      <Field name="email" label="E-mail" type="email" defaultValue={user?.email} autoComplete="off" />
+      <Field
+        name="email"
+        label="E-mail"
+        type="email"
+        defaultValue={user?.email}
+        autoComplete="off"
+      />
       <Field name="jobTitle" label="Job title (optional)" defaultValue={user?.jobTitle ?? ""} />
       <ChoiceGroup
         type="checkbox"
@@ -41,15 +52,21 @@ export function UserForm({ action, user, submitLabel }: UserFormProps) {
           value: role,
           label: (
             <>
-              <span className="font-medium">{ROLE_LABELS[role]}</span> <span className="text-stone-600">— {ROLE_HINTS[role]}</span>
+              <span className="font-medium">{ROLE_LABELS[role]}</span>{" "}
+              <span className="text-stone-600">— {ROLE_HINTS[role]}</span>
             </>
           ),
         }))}
       />
-      {user && <Field name="reason" label="Reason for a role change" hint="Needed when the roles change; kept in the audit trail." />}
+      {user && (
+        <Field
+          name="reason"
+          label="Reason for a role change"
+          hint="Needed when the roles change; kept in the audit trail."
+        />
+      )}
       <SubmitButton>{submitLabel}</SubmitButton>
       <TemporaryPassword />
     </ActionForm>
   );
 }
-

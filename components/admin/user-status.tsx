@@ -1,7 +1,15 @@
 import { CircleCheck, CircleSlash, KeyRound, Lock } from "lucide-react";
 
 /** Status as a word with an icon, never colour alone. */
-export function UserStatus({ active, locked, mustChangePassword }: { active: boolean; locked: boolean; mustChangePassword: boolean }) {
+export function UserStatus({
+  active,
+  locked,
+  mustChangePassword,
+}: {
+  active: boolean;
+  locked: boolean;
+  mustChangePassword: boolean;
+}) {
   if (!active)
     return (
       <span className="inline-flex items-center gap-1 text-stone-600">

@@ -24,7 +24,11 @@ async function fetchPage(qs: string): Promise<AuditPage> {
   const response = await fetch(`/api/audit-events?${qs}`, { cache: "no-store" });
   const body = await response.json();
   if (!response.ok) {
-    const details = body.fieldErrors ? Object.values(body.fieldErrors as Record<string, string[]>).flat().join(" ") : "";
+    const details = body.fieldErrors
+      ? Object.values(body.fieldErrors as Record<string, string[]>)
+          .flat()
+          .join(" ")
+      : "";
     throw new Error(`${body.error ?? "The audit trail could not be loaded."} ${details}`.trim());
   }
   return body;
@@ -32,15 +36,27 @@ async function fetchPage(qs: string): Promise<AuditPage> {
 
 const column = createColumnHelper<Row>();
 const columns = [
-  column.accessor("seq", { header: "#", cell: (c) => <span className="tabular-nums">{c.getValue()}</span> }),
-  column.accessor("at", { header: "When (UTC)", cell: (c) => <span className="whitespace-nowrap tabular-nums">{formatDateTime(c.getValue(), { seconds: true, zone: false })}</span> }),
+  column.accessor("seq", {
+    header: "#",
+    cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
+  }),
+  column.accessor("at", {
+    header: "When (UTC)",
+    cell: (c) => (
+      <span className="whitespace-nowrap tabular-nums">
+        {formatDateTime(c.getValue(), { seconds: true, zone: false })}
+      </span>
+    ),
+  }),
   column.accessor("actorName", { header: "Who" }),
   column.accessor("eventType", {
     header: "Event",
     cell: ({ row }) => (
       <>
         <code className="text-xs">{row.original.eventType}</code>
-        {row.original.storedAs !== row.original.eventType && <span className="block text-xs text-stone-500">stored as {row.original.storedAs}</span>}
+        {row.original.storedAs !== row.original.eventType && (
+          <span className="block text-xs text-stone-500">stored as {row.original.storedAs}</span>
+        )}
       </>
     ),
   }),
@@ -64,7 +80,8 @@ const columns = [
         <ul className="space-y-0.5 text-xs">
           {row.original.changes.map((c) => (
             <li key={c.field}>
-              <span className="font-medium">{c.field}:</span> {c.old !== null && <del className="text-red-800">{c.old}</del>}
+              <span className="font-medium">{c.field}:</span>{" "}
+              {c.old !== null && <del className="text-red-800">{c.old}</del>}
               {c.old !== null && c.new !== null && " → "}
               {c.new !== null && <ins className="text-brand-800 no-underline">{c.new}</ins>}
             </li>
@@ -88,21 +105,36 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
   const [cursors, setCursors] = useState<number[]>([]); // stack of "before" cursors, newest page first
   const before = cursors.at(-1);
   const qs = queryString(filters, before);
-  const { data, error, isFetching } = useQuery({ queryKey: ["audit", qs], queryFn: () => fetchPage(qs), placeholderData: keepPreviousData });
+  const { data, error, isFetching } = useQuery({
+    queryKey: ["audit", qs],
+    queryFn: () => fetchPage(qs),
+    placeholderData: keepPreviousData,
+  });
   // The server pages the trail newest first; the columns do not re-sort a page.
-  const table = useReactTable({ data: data?.items ?? [], columns, getCoreRowModel: getCoreRowModel(), enableSorting: false });
+  const table = useReactTable({
+    data: data?.items ?? [],
+    columns,
+    getCoreRowModel: getCoreRowModel(),
+    enableSorting: false,
+  });
 
   function apply(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
-    setFilters(Object.fromEntries(Object.keys(EMPTY).map((k) => [k, String(form.get(k) ?? "")])) as Filters);
+    setFilters(
+      Object.fromEntries(Object.keys(EMPTY).map((k) => [k, String(form.get(k) ?? "")])) as Filters,
+    );
     setCursors([]);
   }
 
   const select = "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
   return (
     <div className="space-y-4">
-      <form onSubmit={apply} aria-label="Filter the audit trail" className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3 xl:grid-cols-7">
+      <form
+        onSubmit={apply}
+        aria-label="Filter the audit trail"
+        className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-3 xl:grid-cols-7"
+      >
         <label className="text-sm">
           User
           <select name="actor" className={select} defaultValue={filters.actor}>
@@ -147,7 +179,11 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
         <div className="flex items-end gap-2">
           <Button type="submit">Filter</Button>
           {canExport && (
-            <a href={`/api/audit-events/export?${queryString(filters)}`} className="inline-flex items-center gap-1 rounded-md border border-stone-300 bg-white px-3 py-2 text-sm hover:bg-stone-100" download>
+            <a
+              href={`/api/audit-events/export?${queryString(filters)}`}
+              className="inline-flex items-center gap-1 rounded-md border border-stone-300 bg-white px-3 py-2 text-sm hover:bg-stone-100"
+              download
+            >
               <Download className="h-4 w-4" aria-hidden="true" /> CSV
             </a>
           )}
@@ -155,7 +191,10 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
       </form>
 
       {error && (
-        <p role="alert" className="rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900">
+        <p
+          role="alert"
+          className="rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900"
+        >
           {error.message}
         </p>
       )}
@@ -169,11 +208,21 @@ export function AuditBrowser({ actors, eventTypes, recordTypes, canExport }: Aud
       />
 
       <div className="flex items-center justify-between text-sm">
-        <Button variant="secondary" disabled={cursors.length === 0} onClick={() => setCursors((c) => c.slice(0, -1))}>
+        <Button
+          variant="secondary"
+          disabled={cursors.length === 0}
+          onClick={() => setCursors((c) => c.slice(0, -1))}
+        >
           ← Newer
         </Button>
-        <span className="text-stone-600">{isFetching ? "Loading…" : `Page ${cursors.length + 1}`}</span>
-        <Button variant="secondary" disabled={!data?.nextBefore} onClick={() => data?.nextBefore && setCursors((c) => [...c, data.nextBefore!])}>
+        <span className="text-stone-600">
+          {isFetching ? "Loading…" : `Page ${cursors.length + 1}`}
+        </span>
+        <Button
+          variant="secondary"
+          disabled={!data?.nextBefore}
+          onClick={() => data?.nextBefore && setCursors((c) => [...c, data.nextBefore!])}
+        >
           Older →
         </Button>
       </div>

@@ -16,8 +16,17 @@ export function InitialValidationForm({ action, recipeId, families }: InitialVal
   return (
     <ActionForm action={action} className="space-y-3" aria-label="Route for initial validation">
       <input type="hidden" name="recipeId" value={recipeId} />
-      <Field name="title" label="Validation title" placeholder="e.g. Initial validation for manifold blocks" />
-      <SelectField name="partFamilyId" label="Part family validated for" placeholder="Choose…" options={families.map((f) => ({ value: f.id, label: `${f.code} ${f.name}` }))} />
+      <Field
+        name="title"
+        label="Validation title"
+        placeholder="e.g. Initial validation for manifold blocks"
+      />
+      <SelectField
+        name="partFamilyId"
+        label="Part family validated for"
+        placeholder="Choose…"
+        options={families.map((f) => ({ value: f.id, label: `${f.code} ${f.name}` }))}
+      />
       <SubmitButton>Route for initial validation</SubmitButton>
     </ActionForm>
   );

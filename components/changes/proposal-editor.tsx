@@ -5,9 +5,18 @@ import { ActionForm } from "@/components/ui/action-form";
 import { Field, SelectField, TextareaField } from "@/components/ui/field";
 import { PayloadField, useRowList } from "@/components/ui/row-list";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { RecipeStagesEditor, stageDraftsOf, stagesPayload, type StageDraft } from "@/components/recipes/recipe-stages-editor";
+import {
+  RecipeStagesEditor,
+  stageDraftsOf,
+  stagesPayload,
+  type StageDraft,
+} from "@/components/recipes/recipe-stages-editor";
 import type { FormState } from "@/lib/actions/result";
-import { CHANGE_KIND_LABELS, CHANGE_KINDS_FOR_EFFECTIVE, type ChangeKind } from "@/lib/changes/workflow";
+import {
+  CHANGE_KIND_LABELS,
+  CHANGE_KINDS_FOR_EFFECTIVE,
+  type ChangeKind,
+} from "@/lib/changes/workflow";
 import type { RecipeSnapshot } from "@/lib/changes/diff";
 
 export interface ProposalEditorProps {
@@ -61,11 +70,18 @@ export function ProposalEditor(props: ProposalEditorProps) {
           value={kind}
           onValueChange={(v) => setKind(v as ChangeKind)}
           // An initial validation keeps its kind; a change never becomes one.
-          options={(kind === "initial_validation" ? (["initial_validation"] as const) : CHANGE_KINDS_FOR_EFFECTIVE).map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] }))}
+          options={(kind === "initial_validation"
+            ? (["initial_validation"] as const)
+            : CHANGE_KINDS_FOR_EFFECTIVE
+          ).map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] }))}
         />
         {(kind === "new_part_family" || kind === "initial_validation") && (
           <SelectField
-            label={kind === "initial_validation" ? "Part family validated for" : "Part family added to the recipe"}
+            label={
+              kind === "initial_validation"
+                ? "Part family validated for"
+                : "Part family added to the recipe"
+            }
             errorKey="partFamilyId"
             value={partFamilyId}
             onValueChange={setPartFamilyId}
@@ -113,4 +129,3 @@ export function ProposalEditor(props: ProposalEditorProps) {
     </ActionForm>
   );
 }
-

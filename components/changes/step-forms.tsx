@@ -10,7 +10,17 @@ import type { FormState } from "@/lib/actions/result";
 type Action = (prev: FormState, formData: FormData) => Promise<FormState>;
 
 /** A step that needs no signature: one button, with the result shown beside it. */
-export function StepButton({ action, changeRequestId, label, variant = "primary" }: { action: Action; changeRequestId: string; label: string; variant?: "primary" | "secondary" }) {
+export function StepButton({
+  action,
+  changeRequestId,
+  label,
+  variant = "primary",
+}: {
+  action: Action;
+  changeRequestId: string;
+  label: string;
+  variant?: "primary" | "secondary";
+}) {
   return (
     <ActionForm action={action} aria-label={label}>
       <input type="hidden" name="changeRequestId" value={changeRequestId} />
@@ -20,14 +30,28 @@ export function StepButton({ action, changeRequestId, label, variant = "primary"
 }
 
 /** Reject, withdraw or reopen: asks for the reason that goes into the audit trail. */
-export function ReasonStep({ action, changeRequestId, label, variant = "danger" }: { action: Action; changeRequestId: string; label: string; variant?: "danger" | "secondary" }) {
+export function ReasonStep({
+  action,
+  changeRequestId,
+  label,
+  variant = "danger",
+}: {
+  action: Action;
+  changeRequestId: string;
+  label: string;
+  variant?: "danger" | "secondary";
+}) {
   const dialog = useRef<HTMLDialogElement>(null);
   return (
     <>
       <Button variant={variant} onClick={() => dialog.current?.showModal()}>
         {label}
       </Button>
-      <dialog ref={dialog} aria-label={label} className="m-auto w-full max-w-lg rounded-xl p-0 backdrop:bg-stone-900/40">
+      <dialog
+        ref={dialog}
+        aria-label={label}
+        className="m-auto w-full max-w-lg rounded-xl p-0 backdrop:bg-stone-900/40"
+      >
         <ActionForm action={action} className="space-y-4 p-6" aria-label={`${label} form`}>
           <h2 className="text-lg font-semibold">{label}</h2>
           <input type="hidden" name="changeRequestId" value={changeRequestId} />
@@ -36,7 +60,9 @@ export function ReasonStep({ action, changeRequestId, label, variant = "danger" 
             <Button variant="secondary" onClick={() => dialog.current?.close()}>
               Cancel
             </Button>
-            <SubmitButton variant={variant === "danger" ? "danger" : "primary"}>{label}</SubmitButton>
+            <SubmitButton variant={variant === "danger" ? "danger" : "primary"}>
+              {label}
+            </SubmitButton>
           </div>
         </ActionForm>
       </dialog>
@@ -45,9 +71,25 @@ export function ReasonStep({ action, changeRequestId, label, variant = "danger" 
 }
 
 /** Offer a test run as the evidence for one required test. */
-export function LinkEvidenceForm({ action, changeRequestId, requirementId, label, runs }: { action: Action; changeRequestId: string; requirementId: string; label: string; runs: { id: string; number: string; outcome: string | null; status: string }[] }) {
+export function LinkEvidenceForm({
+  action,
+  changeRequestId,
+  requirementId,
+  label,
+  runs,
+}: {
+  action: Action;
+  changeRequestId: string;
+  requirementId: string;
+  label: string;
+  runs: { id: string; number: string; outcome: string | null; status: string }[];
+}) {
   return (
-    <ActionForm action={action} className="mt-2 flex flex-wrap items-end gap-2" aria-label={`Link evidence for ${label}`}>
+    <ActionForm
+      action={action}
+      className="mt-2 flex flex-wrap items-end gap-2"
+      aria-label={`Link evidence for ${label}`}
+    >
       <input type="hidden" name="changeRequestId" value={changeRequestId} />
       <input type="hidden" name="requirementId" value={requirementId} />
       <SelectField
@@ -56,7 +98,10 @@ export function LinkEvidenceForm({ action, changeRequestId, requirementId, label
         placeholder="Choose…"
         defaultValue=""
         dense
-        options={runs.map((r) => ({ value: r.id, label: `${r.number} — ${r.status}, outcome ${r.outcome ?? "not computed"}` }))}
+        options={runs.map((r) => ({
+          value: r.id,
+          label: `${r.number} — ${r.status}, outcome ${r.outcome ?? "not computed"}`,
+        }))}
       />
       <SubmitButton variant="secondary">Link</SubmitButton>
     </ActionForm>

@@ -3,7 +3,20 @@
 import { TableKit } from "@tiptap/extension-table";
 import { EditorContent, useEditor, type Editor } from "@tiptap/react";
 import StarterKit from "@tiptap/starter-kit";
-import { Bold, Columns3, Heading2, Heading3, Italic, Link2, List, ListOrdered, Redo2, Rows3, Table, Undo2 } from "lucide-react";
+import {
+  Bold,
+  Columns3,
+  Heading2,
+  Heading3,
+  Italic,
+  Link2,
+  List,
+  ListOrdered,
+  Redo2,
+  Rows3,
+  Table,
+  Undo2,
+} from "lucide-react";
 import { useCallback, useEffect, useRef, useState, type ReactNode } from "react";
 import { saveDraftAction } from "@/app/(app)/documents/actions";
 import { Button } from "@/components/ui/button";
@@ -24,7 +37,17 @@ type SaveState =
 
 const AUTOSAVE_MS = 1500;
 
-function ToolButton({ label, onClick, active, children }: { label: string; onClick: () => void; active?: boolean; children: ReactNode }) {
+function ToolButton({
+  label,
+  onClick,
+  active,
+  children,
+}: {
+  label: string;
+  onClick: () => void;
+  active?: boolean;
+  children: ReactNode;
+}) {
   return (
     <button
       type="button"
@@ -43,42 +66,85 @@ function Toolbar({ editor }: { editor: Editor }) {
   const icon = "h-4 w-4";
   const link = () => {
     const previous = editor.getAttributes("link").href as string | undefined;
-    const href = window.prompt("Link address (https://…, mailto:… or /documents/…); leave empty to remove the link", previous ?? "");
+    const href = window.prompt(
+      "Link address (https://…, mailto:… or /documents/…); leave empty to remove the link",
+      previous ?? "",
+    );
     if (href === null) return;
     if (href.trim() === "") editor.chain().focus().unsetLink().run();
-    else if (isSafeHref(href)) editor.chain().focus().extendMarkRange("link").setLink({ href: href.trim() }).run();
-    else window.alert("Links may point to web pages (https://), e-mail addresses (mailto:) or pages inside Washproof (/…).");
+    else if (isSafeHref(href))
+      editor.chain().focus().extendMarkRange("link").setLink({ href: href.trim() }).run();
+    else
+      window.alert(
+        "Links may point to web pages (https://), e-mail addresses (mailto:) or pages inside Washproof (/…).",
+      );
   };
   return (
-    <div role="toolbar" aria-label="Formatting" className="sticky top-14 z-[5] flex flex-wrap gap-0.5 border-b border-stone-200 bg-white p-1">
-      <ToolButton label="Bold" active={editor.isActive("bold")} onClick={() => editor.chain().focus().toggleBold().run()}>
+    <div
+      role="toolbar"
+      aria-label="Formatting"
+      className="sticky top-14 z-[5] flex flex-wrap gap-0.5 border-b border-stone-200 bg-white p-1"
+    >
+      <ToolButton
+        label="Bold"
+        active={editor.isActive("bold")}
+        onClick={() => editor.chain().focus().toggleBold().run()}
+      >
         <Bold className={icon} aria-hidden="true" />
       </ToolButton>
-      <ToolButton label="Italic" active={editor.isActive("italic")} onClick={() => editor.chain().focus().toggleItalic().run()}>
+      <ToolButton
+        label="Italic"
+        active={editor.isActive("italic")}
+        onClick={() => editor.chain().focus().toggleItalic().run()}
+      >
         <Italic className={icon} aria-hidden="true" />
       </ToolButton>
-      <ToolButton label="Heading" active={editor.isActive("heading", { level: 2 })} onClick={() => editor.chain().focus().toggleHeading({ level: 2 }).run()}>
+      <ToolButton
+        label="Heading"
+        active={editor.isActive("heading", { level: 2 })}
+        onClick={() => editor.chain().focus().toggleHeading({ level: 2 }).run()}
+      >
         <Heading2 className={icon} aria-hidden="true" />
       </ToolButton>
-      <ToolButton label="Subheading" active={editor.isActive("heading", { level: 3 })} onClick={() => editor.chain().focus().toggleHeading({ level: 3 }).run()}>
+      <ToolButton
+        label="Subheading"
+        active={editor.isActive("heading", { level: 3 })}
+        onClick={() => editor.chain().focus().toggleHeading({ level: 3 }).run()}
+      >
         <Heading3 className={icon} aria-hidden="true" />
       </ToolButton>
-      <ToolButton label="Bulleted list" active={editor.isActive("bulletList")} onClick={() => editor.chain().focus().toggleBulletList().run()}>
+      <ToolButton
+        label="Bulleted list"
+        active={editor.isActive("bulletList")}
+        onClick={() => editor.chain().focus().toggleBulletList().run()}
+      >
         <List className={icon} aria-hidden="true" />
       </ToolButton>
-      <ToolButton label="Numbered list" active={editor.isActive("orderedList")} onClick={() => editor.chain().focus().toggleOrderedList().run()}>
+      <ToolButton
+        label="Numbered list"
+        active={editor.isActive("orderedList")}
+        onClick={() => editor.chain().focus().toggleOrderedList().run()}
+      >
         <ListOrdered className={icon} aria-hidden="true" />
       </ToolButton>
       <ToolButton label="Link" active={editor.isActive("link")} onClick={link}>
         <Link2 className={icon} aria-hidden="true" />
       </ToolButton>
-      <ToolButton label="Insert table" onClick={() => editor.chain().focus().insertTable({ rows: 3, cols: 3, withHeaderRow: true }).run()}>
+      <ToolButton
+        label="Insert table"
+        onClick={() =>
+          editor.chain().focus().insertTable({ rows: 3, cols: 3, withHeaderRow: true }).run()
+        }
+      >
         <Table className={icon} aria-hidden="true" />
       </ToolButton>
       <ToolButton label="Add table row" onClick={() => editor.chain().focus().addRowAfter().run()}>
         <Rows3 className={icon} aria-hidden="true" />
       </ToolButton>
-      <ToolButton label="Add table column" onClick={() => editor.chain().focus().addColumnAfter().run()}>
+      <ToolButton
+        label="Add table column"
+        onClick={() => editor.chain().focus().addColumnAfter().run()}
+      >
         <Columns3 className={icon} aria-hidden="true" />
       </ToolButton>
       <ToolButton label="Undo" onClick={() => editor.chain().focus().undo().run()}>
@@ -96,7 +162,11 @@ function Toolbar({ editor }: { editor: Editor }) {
  * naming the version counter it last read; a stale save is refused by the
  * server and the text stays here until the author decides what to do.
  */
-export default function DocumentEditor({ versionId, initialContent, initialLockVersion }: DocumentEditorProps) {
+export default function DocumentEditor({
+  versionId,
+  initialContent,
+  initialLockVersion,
+}: DocumentEditorProps) {
   const lockVersion = useRef(initialLockVersion);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const [state, setState] = useState<SaveState>({ kind: "saved", at: null });
@@ -107,7 +177,12 @@ export default function DocumentEditor({ versionId, initialContent, initialLockV
     extensions: [
       StarterKit.configure({
         heading: { levels: [1, 2, 3, 4] },
-        link: { openOnClick: false, autolink: true, defaultProtocol: "https", isAllowedUri: (url) => isSafeHref(url) },
+        link: {
+          openOnClick: false,
+          autolink: true,
+          defaultProtocol: "https",
+          isAllowedUri: (url) => isSafeHref(url),
+        },
       }),
       TableKit.configure({ table: { resizable: false } }),
     ],
@@ -137,7 +212,11 @@ export default function DocumentEditor({ versionId, initialContent, initialLockV
         lockVersion.current = result.lockVersion;
         setState({ kind: "saved", at: result.savedAt });
       } else if ("conflict" in result && result.conflict) {
-        setState({ kind: "conflict", message: result.message, currentLockVersion: result.currentLockVersion });
+        setState({
+          kind: "conflict",
+          message: result.message,
+          currentLockVersion: result.currentLockVersion,
+        });
       } else {
         setState({ kind: "error", message: result.message });
       }
@@ -171,22 +250,33 @@ export default function DocumentEditor({ versionId, initialContent, initialLockV
       {editor ? <Toolbar editor={editor} /> : null}
       <div className="flex flex-wrap items-center justify-between gap-2 border-b border-stone-100 px-3 py-2 text-sm">
         <p role="status" aria-live="polite" className="text-stone-700">
-          {state.kind === "saved" && (state.at ? `All changes saved at ${state.at.slice(11, 19)} UTC.` : "No changes yet.")}
+          {state.kind === "saved" &&
+            (state.at ? `All changes saved at ${state.at.slice(11, 19)} UTC.` : "No changes yet.")}
           {state.kind === "unsaved" && "Unsaved changes…"}
           {state.kind === "saving" && "Saving…"}
           {state.kind === "conflict" && "Not saved: conflict."}
           {state.kind === "error" && "Not saved."}
         </p>
-        <Button variant="secondary" onClick={() => void save()} disabled={blocked || state.kind === "saving"}>
+        <Button
+          variant="secondary"
+          onClick={() => void save()}
+          disabled={blocked || state.kind === "saving"}
+        >
           Save now
         </Button>
       </div>
       {(state.kind === "conflict" || state.kind === "error") && (
-        <div role="alert" className="border-b border-red-200 bg-red-50 px-3 py-2 text-sm text-red-900">
+        <div
+          role="alert"
+          className="border-b border-red-200 bg-red-50 px-3 py-2 text-sm text-red-900"
+        >
           <p>{state.message}</p>
           {state.kind === "conflict" && (
             <div className="mt-2 flex flex-wrap gap-2">
-              <Button variant="danger" onClick={() => void save({ overwrite: true, lock: state.currentLockVersion })}>
+              <Button
+                variant="danger"
+                onClick={() => void save({ overwrite: true, lock: state.currentLockVersion })}
+              >
                 Save my text over theirs
               </Button>
               <Button variant="secondary" onClick={() => window.location.reload()}>
@@ -196,7 +286,11 @@ export default function DocumentEditor({ versionId, initialContent, initialLockV
           )}
         </div>
       )}
-      {editor ? <EditorContent editor={editor} /> : <p className="px-6 py-4 text-sm text-stone-600">Loading the editor…</p>}
+      {editor ? (
+        <EditorContent editor={editor} />
+      ) : (
+        <p className="px-6 py-4 text-sm text-stone-600">Loading the editor…</p>
+      )}
     </div>
   );
 }

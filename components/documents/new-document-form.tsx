@@ -13,7 +13,14 @@ export interface NewDocumentFormProps {
   options: {
     systems: { id: string; code: string; name: string }[];
     families: { id: string; code: string; name: string }[];
-    recipes: { id: string; code: string; name: string; version: number; status: string; systemId: string }[];
+    recipes: {
+      id: string;
+      code: string;
+      name: string;
+      version: number;
+      status: string;
+      systemId: string;
+    }[];
   };
 }
 
@@ -26,9 +33,16 @@ export function NewDocumentForm({ action, options }: NewDocumentFormProps) {
         name="type"
         label="Kind of document"
         defaultValue="pq_protocol"
-        options={DOCUMENT_TYPES.filter((t) => t !== "change_narrative").map((t) => ({ value: t, label: TYPE_LABELS[t] }))}
+        options={DOCUMENT_TYPES.filter((t) => t !== "change_narrative").map((t) => ({
+          value: t,
+          label: TYPE_LABELS[t],
+        }))}
       />
-      <Field name="title" label="Title" placeholder="e.g. PQ of the valve-body recipe on the three-tank washer" />
+      <Field
+        name="title"
+        label="Title"
+        placeholder="e.g. PQ of the valve-body recipe on the three-tank washer"
+      />
       <SelectField
         name="systemId"
         label="Cleaning system"
@@ -37,17 +51,27 @@ export function NewDocumentForm({ action, options }: NewDocumentFormProps) {
         onValueChange={setSystemId}
         options={options.systems.map((s) => ({ value: s.id, label: `${s.code} — ${s.name}` }))}
       />
-      <SelectField name="partFamilyId" label="Part family" placeholder="— none —" options={options.families.map((f) => ({ value: f.id, label: `${f.code} — ${f.name}` }))} />
+      <SelectField
+        name="partFamilyId"
+        label="Part family"
+        placeholder="— none —"
+        options={options.families.map((f) => ({ value: f.id, label: `${f.code} — ${f.name}` }))}
+      />
       <SelectField
         key={systemId}
         name="recipeVersionId"
         label="Recipe version"
         placeholder={systemId ? "— none —" : "— choose a cleaning system first —"}
         disabled={!systemId}
-        options={recipes.map((r) => ({ value: r.id, label: `${r.code} version ${r.version} (${r.status}) — ${r.name}` }))}
+        options={recipes.map((r) => ({
+          value: r.id,
+          label: `${r.code} version ${r.version} (${r.status}) — ${r.name}`,
+        }))}
       />
       <fieldset className="grid grid-cols-2 gap-4">
-        <legend className="mb-1 text-sm font-medium text-stone-800">Sample plan (success-run, zero failures)</legend>
+        <legend className="mb-1 text-sm font-medium text-stone-800">
+          Sample plan (success-run, zero failures)
+        </legend>
         <NumberField name="confidencePct" label="Confidence (%)" defaultValue="95" />
         <NumberField name="reliabilityPct" label="Reliability (%)" defaultValue="90" />
       </fieldset>

@@ -3,7 +3,10 @@ import type { Redline } from "@/lib/documents/redline";
 /** Insertions underlined on a tint and deletions struck through, each also named for screen readers. */
 export function RedlineView({ redline }: { redline: Redline }) {
   return (
-    <div className="rounded-lg border border-stone-200 bg-white px-6 py-4 text-sm leading-relaxed whitespace-pre-wrap" data-testid="redline">
+    <div
+      className="rounded-lg border border-stone-200 bg-white px-6 py-4 text-sm leading-relaxed whitespace-pre-wrap"
+      data-testid="redline"
+    >
       {redline.segments.map((s, i) => {
         if (s.kind === "inserted")
           return (
@@ -23,7 +26,10 @@ export function RedlineView({ redline }: { redline: Redline }) {
           );
         if (s.collapsed)
           return (
-            <details key={i} className="my-1 inline-block w-full rounded bg-stone-50 px-2 text-stone-600">
+            <details
+              key={i}
+              className="my-1 inline-block w-full rounded bg-stone-50 px-2 text-stone-600"
+            >
               <summary className="cursor-pointer text-xs">{s.words} unchanged words</summary>
               {s.text}
             </details>

@@ -3,10 +3,22 @@ import type { DocumentReview } from "@/db/schema";
 import { formatDate } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
-const DECISION_WORDS = { reviewed: "Reviewed", sent_back: "Sent back", approved: "Approved", rejected: "Rejected", withdrawn: "Withdrawn (round closed)" } as const;
+const DECISION_WORDS = {
+  reviewed: "Reviewed",
+  sent_back: "Sent back",
+  approved: "Approved",
+  rejected: "Rejected",
+  withdrawn: "Withdrawn (round closed)",
+} as const;
 
 /** Who the version was routed to, round by round, with due dates and decisions. */
-export function RoutingTable({ reviews, now }: { reviews: (DocumentReview & { name: string })[]; now: string }) {
+export function RoutingTable({
+  reviews,
+  now,
+}: {
+  reviews: (DocumentReview & { name: string })[];
+  now: string;
+}) {
   if (reviews.length === 0) return <p className="text-sm text-stone-600">Not routed yet.</p>;
   return (
     <Table density="compact" caption="Review routing">
@@ -27,7 +39,9 @@ export function RoutingTable({ reviews, now }: { reviews: (DocumentReview & { na
               </Td>
               <Td>
                 {r.name}
-                <span className="block text-xs text-stone-500">{r.role === "approver" ? "Approver" : "Reviewer"}</span>
+                <span className="block text-xs text-stone-500">
+                  {r.role === "approver" ? "Approver" : "Reviewer"}
+                </span>
               </Td>
               <Td className="whitespace-nowrap">
                 {formatDate(r.dueAt, "when its turn comes")}
@@ -38,7 +52,11 @@ export function RoutingTable({ reviews, now }: { reviews: (DocumentReview & { na
                 )}
               </Td>
               <Td>
-                {open ? (r.activatedAt ? "Waiting for them" : "Waiting for an earlier step") : DECISION_WORDS[r.decision!]}
+                {open
+                  ? r.activatedAt
+                    ? "Waiting for them"
+                    : "Waiting for an earlier step"
+                  : DECISION_WORDS[r.decision!]}
                 {r.comment && <span className="block text-xs text-stone-700">“{r.comment}”</span>}
               </Td>
             </tr>

@@ -2,7 +2,14 @@ import { Archive, CircleCheck, CircleDashed, Eye, History, PenLine } from "lucid
 import type { DocumentStatus } from "@/db/enums";
 import { DOCUMENT_STATUS_LABELS } from "@/lib/documents/lifecycle";
 
-const ICONS = { draft: PenLine, in_review: Eye, approved: CircleDashed, effective: CircleCheck, superseded: History, retired: Archive } as const;
+const ICONS = {
+  draft: PenLine,
+  in_review: Eye,
+  approved: CircleDashed,
+  effective: CircleCheck,
+  superseded: History,
+  retired: Archive,
+} as const;
 const TONES: Record<DocumentStatus, string> = {
   draft: "border-stone-300 bg-white text-stone-700",
   in_review: "border-brand-300 bg-brand-50 text-brand-900",
@@ -16,7 +23,9 @@ const TONES: Record<DocumentStatus, string> = {
 export function StatusBadge({ status }: { status: DocumentStatus }) {
   const Icon = ICONS[status];
   return (
-    <span className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-xs font-medium whitespace-nowrap ${TONES[status]}`}>
+    <span
+      className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-xs font-medium whitespace-nowrap ${TONES[status]}`}
+    >
       <Icon className="h-3.5 w-3.5" aria-hidden="true" />
       {DOCUMENT_STATUS_LABELS[status]}
     </span>

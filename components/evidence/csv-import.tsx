@@ -1,7 +1,13 @@
 "use client";
 
 import { CsvMappingImport } from "@/components/ui/csv-mapping-import";
-import { autoMapping, CSV_FORMATS, mappingProblems, type ColumnMapping, type CsvTestType } from "@/lib/evidence/csv-import";
+import {
+  autoMapping,
+  CSV_FORMATS,
+  mappingProblems,
+  type ColumnMapping,
+  type CsvTestType,
+} from "@/lib/evidence/csv-import";
 
 /** Samples of an open run (particle counts or filter weighings) from CSV, through the shared column-mapping import. */
 export function CsvImport({ runId, testType }: { runId: string; testType: CsvTestType }) {
@@ -19,12 +25,16 @@ export function CsvImport({ runId, testType }: { runId: string; testType: CsvTes
           One row per sample. Columns:{" "}
           {testType === "particle_cleanliness" ? (
             <>
-              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no), <code>components</code>, <code>B</code> … <code>N</code> (absolute counts), <code>largest_metallic_um</code>, <code>largest_non_metallic_um</code>,{" "}
+              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no),{" "}
+              <code>components</code>, <code>B</code> … <code>N</code> (absolute counts),{" "}
+              <code>largest_metallic_um</code>, <code>largest_non_metallic_um</code>,{" "}
               <code>largest_fibre_um</code>.
             </>
           ) : (
             <>
-              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no), <code>components</code> (filtered together), <code>filter_before_mg</code>, <code>filter_after_mg</code>, <code>blank_mg</code>.
+              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no),{" "}
+              <code>components</code> (filtered together), <code>filter_before_mg</code>,{" "}
+              <code>filter_after_mg</code>, <code>blank_mg</code>.
             </>
           )}{" "}
           Other names can be mapped below.

@@ -1,7 +1,13 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { getCoreRowModel, useReactTable, type ColumnDef, type PaginationState, type SortingState } from "@tanstack/react-table";
+import {
+  getCoreRowModel,
+  useReactTable,
+  type ColumnDef,
+  type PaginationState,
+  type SortingState,
+} from "@tanstack/react-table";
 import Link from "next/link";
 import { useListParams } from "@/components/ui/use-list-params";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
@@ -17,19 +23,48 @@ const columns: ColumnDef<EvidenceListRow>[] = [
     header: "Run",
     accessorKey: "number",
     cell: ({ row }) => (
-      <Link href={`/evidence/runs/${row.original.id}`} className="font-medium text-brand-800 hover:underline">
+      <Link
+        href={`/evidence/runs/${row.original.id}`}
+        className="font-medium text-brand-800 hover:underline"
+      >
         {row.original.number}
         {row.original.revision > 1 ? ` rev ${row.original.revision}` : ""}
       </Link>
     ),
   },
-  { id: "performedOn", header: "Date", accessorKey: "performedOn", cell: ({ row }) => row.original.performedOn ?? "—" },
+  {
+    id: "performedOn",
+    header: "Date",
+    accessorKey: "performedOn",
+    cell: ({ row }) => row.original.performedOn ?? "—",
+  },
   { id: "partFamily", header: "Part family", accessorKey: "partFamily" },
   { id: "recipe", header: "Recipe version", accessorKey: "recipe", enableSorting: false },
-  { id: "testType", header: "Test", accessorKey: "testType", cell: ({ row }) => humanize(row.original.testType) },
-  { id: "outcome", header: "Outcome", accessorKey: "outcome", cell: ({ row }) => <OutcomeWord outcome={row.original.outcome} /> },
-  { id: "status", header: "Status", accessorKey: "status", cell: ({ row }) => <RunStatusWord status={row.original.status as "open"} /> },
-  { id: "technician", header: "Technician", accessorKey: "technician", enableSorting: false, cell: ({ row }) => row.original.technician ?? "—" },
+  {
+    id: "testType",
+    header: "Test",
+    accessorKey: "testType",
+    cell: ({ row }) => humanize(row.original.testType),
+  },
+  {
+    id: "outcome",
+    header: "Outcome",
+    accessorKey: "outcome",
+    cell: ({ row }) => <OutcomeWord outcome={row.original.outcome} />,
+  },
+  {
+    id: "status",
+    header: "Status",
+    accessorKey: "status",
+    cell: ({ row }) => <RunStatusWord status={row.original.status as "open"} />,
+  },
+  {
+    id: "technician",
+    header: "Technician",
+    accessorKey: "technician",
+    enableSorting: false,
+    cell: ({ row }) => row.original.technician ?? "—",
+  },
 ];
 
 export interface EvidenceTableProps {
@@ -37,9 +72,26 @@ export interface EvidenceTableProps {
   versions: { id: string; label: string }[];
 }
 
-type Filters = { partFamilyId: string; recipeVersionId: string; testType: string; outcome: string; from: string; to: string };
+type Filters = {
+  partFamilyId: string;
+  recipeVersionId: string;
+  testType: string;
+  outcome: string;
+  from: string;
+  to: string;
+};
 /** Filters, sort and page live in the address (lib/url/list-params.ts), so a filtered list can be linked and reloaded. */
-const LIST_DEFAULTS = { partFamilyId: "", recipeVersionId: "", testType: "", outcome: "", from: "", to: "", sort: "performedOn", dir: "desc", page: "1" };
+const LIST_DEFAULTS = {
+  partFamilyId: "",
+  recipeVersionId: "",
+  testType: "",
+  outcome: "",
+  from: "",
+  to: "",
+  sort: "performedOn",
+  dir: "desc",
+  page: "1",
+};
 const PAGE_SIZE = 20;
 
 async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
@@ -58,9 +110,15 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
   const pagination: PaginationState = { pageIndex, pageSize: PAGE_SIZE };
   const setSorting = (updater: SortingState | ((old: SortingState) => SortingState)) => {
     const next = typeof updater === "function" ? updater(sorting) : updater;
-    setList({ sort: next[0]?.id ?? LIST_DEFAULTS.sort, dir: next[0]?.desc === false ? "asc" : "desc", page: "1" });
+    setList({
+      sort: next[0]?.id ?? LIST_DEFAULTS.sort,
+      dir: next[0]?.desc === false ? "asc" : "desc",
+      page: "1",
+    });
   };
-  const setPagination = (updater: PaginationState | ((old: PaginationState) => PaginationState)) => {
+  const setPagination = (
+    updater: PaginationState | ((old: PaginationState) => PaginationState),
+  ) => {
     const next = typeof updater === "function" ? updater(pagination) : updater;
     setList({ page: String(next.pageIndex + 1) });
   };
@@ -71,7 +129,11 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
     page: String(pagination.pageIndex + 1),
     pageSize: String(pagination.pageSize),
   });
-  const { data, error, isFetching } = useQuery({ queryKey: ["evidence", params.toString()], queryFn: () => fetchPage(params), placeholderData: (prev) => prev });
+  const { data, error, isFetching } = useQuery({
+    queryKey: ["evidence", params.toString()],
+    queryFn: () => fetchPage(params),
+    placeholderData: (prev) => prev,
+  });
   const table = useReactTable({
     columns,
     getCoreRowModel: getCoreRowModel(),
@@ -91,10 +153,18 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
   const select = "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
   return (
     <section aria-label="Test runs">
-      <form className="mb-3 grid gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-3 lg:grid-cols-6" aria-label="Filter test runs" onSubmit={(e) => e.preventDefault()}>
+      <form
+        className="mb-3 grid gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-3 lg:grid-cols-6"
+        aria-label="Filter test runs"
+        onSubmit={(e) => e.preventDefault()}
+      >
         <label className="text-xs text-stone-600">
           Part family
-          <select className={select} value={filters.partFamilyId} onChange={setFilter("partFamilyId")}>
+          <select
+            className={select}
+            value={filters.partFamilyId}
+            onChange={setFilter("partFamilyId")}
+          >
             <option value="">All</option>
             {families.map((f) => (
               <option key={f.id} value={f.id}>
@@ -105,7 +175,11 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
         </label>
         <label className="text-xs text-stone-600">
           Recipe version
-          <select className={select} value={filters.recipeVersionId} onChange={setFilter("recipeVersionId")}>
+          <select
+            className={select}
+            value={filters.recipeVersionId}
+            onChange={setFilter("recipeVersionId")}
+          >
             <option value="">All</option>
             {versions.map((v) => (
               <option key={v.id} value={v.id}>
@@ -159,13 +233,23 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
       />
       <div className="mt-3 flex items-center justify-between text-sm text-stone-700">
         <p>
-          {data ? `${data.total} run${data.total === 1 ? "" : "s"} · page ${pagination.pageIndex + 1} of ${pages}` : "Loading…"}
+          {data
+            ? `${data.total} run${data.total === 1 ? "" : "s"} · page ${pagination.pageIndex + 1} of ${pages}`
+            : "Loading…"}
         </p>
         <div className="flex gap-2">
-          <Button variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+          <Button
+            variant="secondary"
+            onClick={() => table.previousPage()}
+            disabled={!table.getCanPreviousPage()}
+          >
             Previous page
           </Button>
-          <Button variant="secondary" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+          <Button
+            variant="secondary"
+            onClick={() => table.nextPage()}
+            disabled={!table.getCanNextPage()}
+          >
             Next page
           </Button>
         </div>

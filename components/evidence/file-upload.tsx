@@ -19,10 +19,18 @@ export function FileUpload({ runId, maxMb }: { runId: string; maxMb: number }) {
     setPending(true);
     setState(null);
     try {
-      const response = await fetch(`/api/evidence/runs/${runId}/files`, { method: "POST", body: new FormData(form) });
-      const body = await response.json().catch(() => ({ ok: false, message: `The upload failed (HTTP ${response.status}).` }));
+      const response = await fetch(`/api/evidence/runs/${runId}/files`, {
+        method: "POST",
+        body: new FormData(form),
+      });
+      const body = await response
+        .json()
+        .catch(() => ({ ok: false, message: `The upload failed (HTTP ${response.status}).` }));
       // A refusal carries `error` (every route handler's error shape); a success its `message`.
-      setState({ ok: Boolean(body.ok), message: body.ok ? body.message : (body.error ?? body.message) });
+      setState({
+        ok: Boolean(body.ok),
+        message: body.ok ? body.message : (body.error ?? body.message),
+      });
       if (body.ok) {
         (form.elements.namedItem("file") as HTMLInputElement).value = "";
         // The next file is usually another sample's: a carried-over label would tag it to the wrong one.
@@ -30,21 +38,42 @@ export function FileUpload({ runId, maxMb }: { runId: string; maxMb: number }) {
         router.refresh();
       }
     } catch {
-      setState({ ok: false, message: "The upload did not reach the server. Nothing was stored; try again." });
+      setState({
+        ok: false,
+        message: "The upload did not reach the server. Nothing was stored; try again.",
+      });
     } finally {
       setPending(false);
     }
   }
   return (
-    <form onSubmit={onSubmit} className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-[2fr_1fr_1fr_auto] sm:items-end" aria-label="Upload evidence file">
-      <FileField name="file" label="Evidence file" accept=".pdf,.png,.jpg,.jpeg,.csv" required hint={`PDF, PNG, JPEG or CSV, up to ${maxMb} MB; checked by its contents.`} />
-      <SelectField name="kind" label="Kind" defaultValue="lab_report" options={EVIDENCE_FILE_KINDS.map((k) => ({ value: k, label: humanize(k) }))} />
+    <form
+      onSubmit={onSubmit}
+      className="grid gap-3 rounded-lg border border-stone-200 bg-white p-4 sm:grid-cols-[2fr_1fr_1fr_auto] sm:items-end"
+      aria-label="Upload evidence file"
+    >
+      <FileField
+        name="file"
+        label="Evidence file"
+        accept=".pdf,.png,.jpg,.jpeg,.csv"
+        required
+        hint={`PDF, PNG, JPEG or CSV, up to ${maxMb} MB; checked by its contents.`}
+      />
+      <SelectField
+        name="kind"
+        label="Kind"
+        defaultValue="lab_report"
+        options={EVIDENCE_FILE_KINDS.map((k) => ({ value: k, label: humanize(k) }))}
+      />
       <Field name="sampleLabel" label="Sample (optional)" />
       <Button type="submit" disabled={pending}>
         <Upload className="h-4 w-4" aria-hidden="true" /> {pending ? "Uploading…" : "Upload"}
       </Button>
       {state && (
-        <p role={state.ok ? "status" : "alert"} className={`text-sm sm:col-span-4 ${state.ok ? "text-brand-900" : "text-red-800"}`}>
+        <p
+          role={state.ok ? "status" : "alert"}
+          className={`text-sm sm:col-span-4 ${state.ok ? "text-brand-900" : "text-red-800"}`}
+        >
           {state.message}
         </p>
       )}

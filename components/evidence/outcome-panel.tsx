@@ -6,7 +6,8 @@ import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 function CheckWord({ check }: { check: Check }) {
   const word = checkWord(check);
-  if (word === "not recorded") return <span className="font-normal text-stone-600">Not recorded</span>;
+  if (word === "not recorded")
+    return <span className="font-normal text-stone-600">Not recorded</span>;
   return <OutcomeWord outcome={word} />;
 }
 
@@ -14,19 +15,26 @@ function CheckWord({ check }: { check: Check }) {
 /** `outcome.samples` may be one page of them; `pager` then moves between the pages. */
 export function OutcomePanel({ outcome, pager }: { outcome: RunOutcome; pager?: ReactNode }) {
   return (
-    <section aria-labelledby="outcome-title" className="rounded-lg border border-stone-200 bg-white p-5">
+    <section
+      aria-labelledby="outcome-title"
+      className="rounded-lg border border-stone-200 bg-white p-5"
+    >
       <div className="flex flex-wrap items-baseline justify-between gap-3">
         <h2 id="outcome-title" className="text-lg font-semibold">
           Computed outcome: <OutcomeWord outcome={outcome.outcome} />
         </h2>
         {outcome.code && (
           <p className="text-sm">
-            Run cleanliness code ({outcome.basisUnit}): <span className="font-mono font-medium" data-testid="run-ccc">{outcome.code}</span>
+            Run cleanliness code ({outcome.basisUnit}):{" "}
+            <span className="font-mono font-medium" data-testid="run-ccc">
+              {outcome.code}
+            </span>
           </p>
         )}
       </div>
       <p className="mt-1 text-xs text-stone-600">
-        Computed from the stored raw data, never typed. It supports, and never replaces, the customer&apos;s specification and the responsible engineer&apos;s judgement.
+        Computed from the stored raw data, never typed. It supports, and never replaces, the
+        customer&apos;s specification and the responsible engineer&apos;s judgement.
       </p>
       {outcome.missing.length > 0 && (
         <ul className="mt-3 list-disc pl-5 text-sm text-stone-800">
@@ -60,7 +68,11 @@ export function OutcomePanel({ outcome, pager }: { outcome: RunOutcome; pager?: 
               <tr key={s.sampleLabel}>
                 <Td className="font-medium whitespace-nowrap">
                   {s.sampleLabel}
-                  {s.worstCase && <span className="block text-xs font-normal text-stone-600">worst-case position</span>}
+                  {s.worstCase && (
+                    <span className="block text-xs font-normal text-stone-600">
+                      worst-case position
+                    </span>
+                  )}
                   {s.code && <span className="block font-mono text-xs font-normal">{s.code}</span>}
                 </Td>
                 <Td className="whitespace-nowrap">

@@ -22,16 +22,56 @@ export interface RunFormProps {
 
 export function RunForm({ action, options, defaultTechnicianId }: RunFormProps) {
   return (
-    <ActionForm action={action} className="grid max-w-3xl gap-4 sm:grid-cols-2" aria-label="New test run">
-      <SelectField name="partFamilyId" label="Part family" placeholder="Choose…" options={options.families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))} />
-      <SelectField name="recipeVersionId" label="Recipe version" placeholder="Choose…" options={options.versions.map((v) => ({ value: v.id, label: v.label }))} />
-      <SelectField name="testType" label="Test type" placeholder="Choose…" options={TEST_TYPES.map((t) => ({ value: t, label: humanize(t) }))} />
-      <SelectField name="technicianId" label="Technician" placeholder="Choose…" defaultValue={defaultTechnicianId} options={options.technicians.map((t) => ({ value: t.id, label: t.name }))} />
+    <ActionForm
+      action={action}
+      className="grid max-w-3xl gap-4 sm:grid-cols-2"
+      aria-label="New test run"
+    >
+      <SelectField
+        name="partFamilyId"
+        label="Part family"
+        placeholder="Choose…"
+        options={options.families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))}
+      />
+      <SelectField
+        name="recipeVersionId"
+        label="Recipe version"
+        placeholder="Choose…"
+        options={options.versions.map((v) => ({ value: v.id, label: v.label }))}
+      />
+      <SelectField
+        name="testType"
+        label="Test type"
+        placeholder="Choose…"
+        options={TEST_TYPES.map((t) => ({ value: t, label: humanize(t) }))}
+      />
+      <SelectField
+        name="technicianId"
+        label="Technician"
+        placeholder="Choose…"
+        defaultValue={defaultTechnicianId}
+        options={options.technicians.map((t) => ({ value: t.id, label: t.name }))}
+      />
       <Field name="lab" label="Analysing lab" placeholder="e.g. Larchfield cleanliness lab" />
       <DateField name="performedOn" label="Test date" defaultValue={todayUtc()} />
-      <SelectField name="protocolDocumentId" label="Protocol (optional)" placeholder="None" options={options.protocols.map((p) => ({ value: p.id, label: `${p.number} · ${p.title}` }))} />
-      <SelectField name="changeRequestId" label="Change request (optional)" placeholder="None" options={options.changes.map((c) => ({ value: c.id, label: `${c.number} · ${c.title}` }))} />
-      <Field name="requirement" label="Requirement of the change request (optional)" className="sm:col-span-2" hint="The required requalification test this run answers, in the change request's words." />
+      <SelectField
+        name="protocolDocumentId"
+        label="Protocol (optional)"
+        placeholder="None"
+        options={options.protocols.map((p) => ({ value: p.id, label: `${p.number} · ${p.title}` }))}
+      />
+      <SelectField
+        name="changeRequestId"
+        label="Change request (optional)"
+        placeholder="None"
+        options={options.changes.map((c) => ({ value: c.id, label: `${c.number} · ${c.title}` }))}
+      />
+      <Field
+        name="requirement"
+        label="Requirement of the change request (optional)"
+        className="sm:col-span-2"
+        hint="The required requalification test this run answers, in the change request's words."
+      />
       <div className="sm:col-span-2">
         <SubmitButton>Open test run</SubmitButton>
       </div>

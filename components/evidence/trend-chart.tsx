@@ -1,7 +1,17 @@
 "use client";
 
 import { useState } from "react";
-import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import {
+  CartesianGrid,
+  Legend,
+  Line,
+  LineChart,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from "recharts";
 import { SelectField } from "@/components/ui/field";
 import type { TrendSeries } from "@/lib/evidence/trends";
 import { formatNumber } from "@/lib/format/number";
@@ -12,26 +22,80 @@ const fmt = (n: number) => formatNumber(n, 1);
 export function TrendChart({ series }: { series: TrendSeries }) {
   const [group, setGroup] = useState(series.groups[0]?.key ?? "");
   const current = series.groups.find((g) => g.key === group);
-  const data = series.points.map((p) => ({ run: p.run, date: p.date, outcome: p.outcome, value: p.values[group] ?? 0 }));
+  const data = series.points.map((p) => ({
+    run: p.run,
+    date: p.date,
+    outcome: p.outcome,
+    value: p.values[group] ?? 0,
+  }));
   return (
-    <figure className="rounded-lg border border-stone-200 bg-white p-4" aria-label="Particle trend chart">
-      <SelectField label="Size classes" dense className="max-w-40" value={group} onValueChange={setGroup} options={series.groups.map((g) => ({ value: g.key, label: g.key }))} />
+    <figure
+      className="rounded-lg border border-stone-200 bg-white p-4"
+      aria-label="Particle trend chart"
+    >
+      <SelectField
+        label="Size classes"
+        dense
+        className="max-w-40"
+        value={group}
+        onValueChange={setGroup}
+        options={series.groups.map((g) => ({ value: g.key, label: g.key }))}
+      />
       <div className="mt-3 h-72">
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={data} margin={{ left: 12, right: 24, top: 8, bottom: 8 }}>
             <CartesianGrid stroke="#e7e5e4" />
             <XAxis dataKey="date" tick={{ fontSize: 11 }} />
-            <YAxis tick={{ fontSize: 11 }} label={{ value: `particles ${series.unit}`, angle: -90, position: "insideLeft", fontSize: 11 }} />
-            <Tooltip formatter={(v) => [`${fmt(Number(v))} ${series.unit}`, `Class ${group}`]} labelFormatter={(_l, p) => (p?.[0] ? `${p[0].payload.run} · ${p[0].payload.date} · ${p[0].payload.outcome ?? ""}` : "")} />
+            <YAxis
+              tick={{ fontSize: 11 }}
+              label={{
+                value: `particles ${series.unit}`,
+                angle: -90,
+                position: "insideLeft",
+                fontSize: 11,
+              }}
+            />
+            <Tooltip
+              formatter={(v) => [`${fmt(Number(v))} ${series.unit}`, `Class ${group}`]}
+              labelFormatter={(_l, p) =>
+                p?.[0]
+                  ? `${p[0].payload.run} · ${p[0].payload.date} · ${p[0].payload.outcome ?? ""}`
+                  : ""
+              }
+            />
             <Legend />
-            {current && <ReferenceLine y={current.limit} stroke="#7f1d1d" strokeDasharray="6 3" label={{ value: `limit ${current.limitLevel !== null ? `level ${current.limitLevel} = ` : ""}${fmt(current.limit)}`, position: "insideTopRight", fontSize: 11 }} />}
-            <Line type="monotone" dataKey="value" name={`Class ${group} ${series.unit} (worst sample)`} stroke="#115e59" strokeWidth={2} dot={{ r: 3 }} isAnimationActive={false} />
+            {current && (
+              <ReferenceLine
+                y={current.limit}
+                stroke="#7f1d1d"
+                strokeDasharray="6 3"
+                label={{
+                  value: `limit ${current.limitLevel !== null ? `level ${current.limitLevel} = ` : ""}${fmt(current.limit)}`,
+                  position: "insideTopRight",
+                  fontSize: 11,
+                }}
+              />
+            )}
+            <Line
+              type="monotone"
+              dataKey="value"
+              name={`Class ${group} ${series.unit} (worst sample)`}
+              stroke="#115e59"
+              strokeWidth={2}
+              dot={{ r: 3 }}
+              isAnimationActive={false}
+            />
           </LineChart>
         </ResponsiveContainer>
       </div>
       <figcaption className="mt-2 text-xs text-stone-600">
         {data.length} run(s). Dashed line: the specification limit for class {group}
-        {current ? ` (${fmt(current.limit)} ${series.unit})` : ""}. Runs above it: {data.filter((d) => current && d.value > current.limit).map((d) => d.run).join(", ") || "none"}.
+        {current ? ` (${fmt(current.limit)} ${series.unit})` : ""}. Runs above it:{" "}
+        {data
+          .filter((d) => current && d.value > current.limit)
+          .map((d) => d.run)
+          .join(", ") || "none"}
+        .
       </figcaption>
     </figure>
   );

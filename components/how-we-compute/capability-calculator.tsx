@@ -159,9 +159,7 @@ function CapabilityTable({ result, unit }: { result: CapabilityResult; unit: str
           .filter(([, value]) => value !== undefined)
           .map(([label, value, u]) => (
             <tr key={label}>
-              <Th scope="row">
-                {label}
-              </Th>
+              <Th scope="row">{label}</Th>
               <Td align="right" className="font-mono">
                 {fixed(value!, label.startsWith("Mean") || label.startsWith("σ") ? 4 : 2)}
                 {u}

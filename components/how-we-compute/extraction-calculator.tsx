@@ -72,7 +72,9 @@ export function ExtractionCalculator() {
                   key={i}
                   label={`C${i + 1} (particles)`}
                   value={value}
-                  onValueChange={(v) => setCounts((prev) => prev.map((old, j) => (j === i ? v : old)))}
+                  onValueChange={(v) =>
+                    setCounts((prev) => prev.map((old, j) => (j === i ? v : old)))
+                  }
                 />
               ))}
             </div>

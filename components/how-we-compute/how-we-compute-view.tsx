@@ -241,9 +241,9 @@ export function HowWeComputeView() {
           <p>
             The bounds are the published rounded ones ({ISO4406_SCALE[13].upperPerMl},{" "}
             {formatNumber(ISO4406_SCALE[17].upperPerMl)},{" "}
-            {formatNumber(ISO4406_SCALE[18].upperPerMl)} … particles per mL for scale numbers
-            13, 17, 18). Worked example [std]: 3000 / 500 / 7 particles per mL → 19/16/10. The
-            counts are cumulative, so they cannot rise with size.
+            {formatNumber(ISO4406_SCALE[18].upperPerMl)} … particles per mL for scale numbers 13,
+            17, 18). Worked example [std]: 3000 / 500 / 7 particles per mL → 19/16/10. The counts
+            are cumulative, so they cannot rise with size.
           </p>
         </Section>
 
@@ -344,14 +344,20 @@ function Code({ children }: { children: ReactNode }) {
   );
 }
 
-function ReferenceTable({ caption, head, rows }: { caption: string; head: string[]; rows: string[][] }) {
+function ReferenceTable({
+  caption,
+  head,
+  rows,
+}: {
+  caption: string;
+  head: string[];
+  rows: string[][];
+}) {
   return (
     <Table density="compact" caption={caption} captionVisible>
       <THead>
         {head.map((h) => (
-          <Th key={h}>
-            {h}
-          </Th>
+          <Th key={h}>{h}</Th>
         ))}
       </THead>
       <TBody className="font-mono text-stone-800">

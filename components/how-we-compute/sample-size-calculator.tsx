@@ -2,14 +2,7 @@
 
 import { useState } from "react";
 import { successRunSampleSize } from "@/lib/stats";
-import {
-  attempt,
-  CalcError,
-  CalcPanel,
-  errorFor,
-  generalError,
-  requiredInput,
-} from "./calc-kit";
+import { attempt, CalcError, CalcPanel, errorFor, generalError, requiredInput } from "./calc-kit";
 import { NumberField } from "@/components/ui/field";
 
 /** Attribute sample size: a thin wrapper over successRunSampleSize. */

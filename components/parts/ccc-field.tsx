@@ -24,13 +24,21 @@ export function CccField({ defaultValue = "" }: { defaultValue?: string }) {
         spellCheck={false}
         hint="ISO 16232 / VDA 19.1 notation, e.g. A(B-E17/F-G14/H-I4/J-K2/L-N00) per 1000 cm² or N(C-E32000/H-I16/J-K0) per component."
       />
-      <section aria-label="Parsed specification" aria-live="polite" className="rounded-md border border-stone-200 bg-stone-50 p-3 text-sm">
+      <section
+        aria-label="Parsed specification"
+        aria-live="polite"
+        className="rounded-md border border-stone-200 bg-stone-50 p-3 text-sm"
+      >
         {preview.ok ? (
           <>
             <p className="mb-2 text-stone-700">
               Read as <span className="font-mono">{preview.text}</span>, counts {preview.basis}.
             </p>
-            <Table caption="Parsed size classes and limits" density="compact" className="[--sticky-bg:var(--color-stone-50)]">
+            <Table
+              caption="Parsed size classes and limits"
+              density="compact"
+              className="[--sticky-bg:var(--color-stone-50)]"
+            >
               <THead>
                 <Th>Classes</Th>
                 <Th>Particle size</Th>
@@ -43,7 +51,9 @@ export function CccField({ defaultValue = "" }: { defaultValue?: string }) {
                   <tr key={r.text}>
                     <Td className="font-mono">{r.classes}</Td>
                     <Td>{r.sizes}</Td>
-                    <Td>{r.applies === "sum" ? "the sum of the classes" : "each class on its own"}</Td>
+                    <Td>
+                      {r.applies === "sum" ? "the sum of the classes" : "each class on its own"}
+                    </Td>
                     <Td>{r.level ?? "—"}</Td>
                     <Td numeric>{r.limit}</Td>
                   </tr>

@@ -8,7 +8,10 @@ import { masterDataMappingProblems } from "@/lib/plant/master-data-mapping";
 
 const KINDS = {
   part_families: { what: "part families", note: "Import the specifications they cite first." },
-  specifications: { what: "specifications", note: "Each row is a specification's first revision here; revise later ones on its page." },
+  specifications: {
+    what: "specifications",
+    note: "Each row is a specification's first revision here; revise later ones on its page.",
+  },
 } as const;
 type Kind = keyof typeof KINDS;
 
@@ -42,7 +45,8 @@ export function MasterDataImport() {
         extra={{ kind }}
         hint={
           <>
-            One row per {kind === "part_families" ? "part family" : "specification"}, comma or semicolon separated, UTF-8. Columns:{" "}
+            One row per {kind === "part_families" ? "part family" : "specification"}, comma or
+            semicolon separated, UTF-8. Columns:{" "}
             {fields.map((f, i) => (
               <span key={f.key}>
                 {i > 0 && ", "}

@@ -30,7 +30,8 @@ export interface PartFamilyValues {
   description: string | null;
 }
 
-const text = (v: string | number | null | undefined) => (v === null || v === undefined ? "" : String(v));
+const text = (v: string | number | null | undefined) =>
+  v === null || v === undefined ? "" : String(v);
 
 /**
  * Creates or edits a part family. A family already used by runs or qualified combinations asks for
@@ -49,30 +50,78 @@ export function PartFamilyForm({
 }) {
   const editing = Boolean(values?.id);
   return (
-    <ActionForm action={action} className="max-w-3xl space-y-6" aria-label={editing ? "Edit part family" : "New part family"}>
+    <ActionForm
+      action={action}
+      className="max-w-3xl space-y-6"
+      aria-label={editing ? "Edit part family" : "New part family"}
+    >
       {values?.id && <input type="hidden" name="partFamilyId" value={values.id} />}
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-base font-semibold">Identity</legend>
-        <Field name="code" label="Family code" defaultValue={text(values?.code)} hint="Letters, digits and . _ / - ; unique in the plant." />
+        <Field
+          name="code"
+          label="Family code"
+          defaultValue={text(values?.code)}
+          hint="Letters, digits and . _ / - ; unique in the plant."
+        />
         <Field name="name" label="Name" defaultValue={text(values?.name)} />
-        <TextareaField name="partNumbers" label="Part numbers" rows={2} defaultValue={values?.partNumbers.join(", ") ?? ""} hint="Separated by commas or one per line. A part number belongs to one family only." className="sm:col-span-2" />
+        <TextareaField
+          name="partNumbers"
+          label="Part numbers"
+          rows={2}
+          defaultValue={values?.partNumbers.join(", ") ?? ""}
+          hint="Separated by commas or one per line. A part number belongs to one family only."
+          className="sm:col-span-2"
+        />
         <Field name="customer" label="Customer (optional)" defaultValue={text(values?.customer)} />
-        <Field name="material" label="Material" defaultValue={text(values?.material)} hint="Alloy and state, e.g. Aluminium EN AC-46000, machined." />
-        <Field name="drawingNumber" label="Drawing number (optional)" defaultValue={text(values?.drawingNumber)} />
-        <Field name="drawingRevision" label="Drawing revision (optional)" defaultValue={text(values?.drawingRevision)} />
+        <Field
+          name="material"
+          label="Material"
+          defaultValue={text(values?.material)}
+          hint="Alloy and state, e.g. Aluminium EN AC-46000, machined."
+        />
+        <Field
+          name="drawingNumber"
+          label="Drawing number (optional)"
+          defaultValue={text(values?.drawingNumber)}
+        />
+        <Field
+          name="drawingRevision"
+          label="Drawing revision (optional)"
+          defaultValue={text(values?.drawingRevision)}
+        />
       </fieldset>
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-base font-semibold">Wetted surface</legend>
-        <NumberField name="wettedAreaCm2" label="Wetted area per part (cm²)" unit="cm²" defaultValue={text(values?.wettedAreaCm2)} hint="Every per-1000 cm² limit is scaled by it." />
+        <NumberField
+          name="wettedAreaCm2"
+          label="Wetted area per part (cm²)"
+          unit="cm²"
+          defaultValue={text(values?.wettedAreaCm2)}
+          hint="Every per-1000 cm² limit is scaled by it."
+        />
         <SelectField
           name="wettedAreaMethod"
           label="How the area was determined"
           defaultValue={text(values?.wettedAreaMethod)}
           placeholder="Choose…"
-          options={WETTED_AREA_METHODS.map((m) => ({ value: m, label: WETTED_AREA_METHOD_LABELS[m] }))}
+          options={WETTED_AREA_METHODS.map((m) => ({
+            value: m,
+            label: WETTED_AREA_METHOD_LABELS[m],
+          }))}
         />
-        <NumberField name="wettedVolumeCm3" label="Wetted volume per part (cm³, optional)" unit="cm³" defaultValue={text(values?.wettedVolumeCm3)} />
-        <Field name="wettedAreaNote" label="Area note (optional)" defaultValue={text(values?.wettedAreaNote)} hint="e.g. CAD model rev F, internal bores included." />
+        <NumberField
+          name="wettedVolumeCm3"
+          label="Wetted volume per part (cm³, optional)"
+          unit="cm³"
+          defaultValue={text(values?.wettedVolumeCm3)}
+        />
+        <Field
+          name="wettedAreaNote"
+          label="Area note (optional)"
+          defaultValue={text(values?.wettedAreaNote)}
+          hint="e.g. CAD model rev F, internal bores included."
+        />
       </fieldset>
       <fieldset className="grid gap-4">
         <legend className="mb-2 text-base font-semibold">Specification</legend>
@@ -81,20 +130,34 @@ export function PartFamilyForm({
           label="Specification in force"
           defaultValue={text(values?.specId)}
           placeholder="Choose…"
-          options={specs.map((s) => ({ value: s.id, label: `${s.code} rev ${s.revision} · ${s.name}` }))}
+          options={specs.map((s) => ({
+            value: s.id,
+            label: `${s.code} rev ${s.revision} · ${s.name}`,
+          }))}
           hint="Only revisions in force can be chosen; a new revision moves its families itself."
         />
-        <TextareaField name="description" label="Description (optional)" rows={3} defaultValue={text(values?.description)} />
+        <TextareaField
+          name="description"
+          label="Description (optional)"
+          rows={3}
+          defaultValue={text(values?.description)}
+        />
       </fieldset>
       {editing && (
         <TextareaField
           name="reason"
           label={inUse ? "Reason for the change" : "Reason for the change (optional)"}
           rows={2}
-          hint={inUse ? "Test runs or qualified recipes already refer to this family: say why it changes." : undefined}
+          hint={
+            inUse
+              ? "Test runs or qualified recipes already refer to this family: say why it changes."
+              : undefined
+          }
         />
       )}
-      <SubmitButton pendingText="Saving…">{editing ? "Save part family" : "Create part family"}</SubmitButton>
+      <SubmitButton pendingText="Saving…">
+        {editing ? "Save part family" : "Create part family"}
+      </SubmitButton>
     </ActionForm>
   );
 }

@@ -31,10 +31,16 @@ export function RecipeTable({ content, caption }: { content: RecipeSnapshot; cap
           {content.stages.flatMap((stage, si) =>
             (stage.parameters.length ? stage.parameters : [null]).map((p, i) => (
               <tr key={`${si}-${p?.key ?? "none"}`}>
-                <Td className="align-top">{i === 0 ? `${stage.name}${stage.mode ? ` (${STAGE_MODE_LABELS[stage.mode] ?? stage.mode})` : ""}` : ""}</Td>
+                <Td className="align-top">
+                  {i === 0
+                    ? `${stage.name}${stage.mode ? ` (${STAGE_MODE_LABELS[stage.mode] ?? stage.mode})` : ""}`
+                    : ""}
+                </Td>
                 <Td>{p?.name ?? "—"}</Td>
                 <Td numeric>{p ? withUnit(p.setpoint, p.unit) : ""}</Td>
-                <Td className="tabular-nums">{p ? rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit) : ""}</Td>
+                <Td className="tabular-nums">
+                  {p ? rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit) : ""}
+                </Td>
                 <Td>{p ? (p.critical ? "Critical" : "—") : ""}</Td>
               </tr>
             )),

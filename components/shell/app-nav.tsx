@@ -41,7 +41,9 @@ export function AppNav({ items }: { items: NavItem[] }) {
                 href={item.href}
                 aria-current={current ? "page" : undefined}
                 className={`flex items-center gap-2.5 rounded-md px-3 py-2 text-sm ${
-                  current ? "bg-brand-700 font-medium text-white" : "text-stone-700 hover:bg-stone-200/70"
+                  current
+                    ? "bg-brand-700 font-medium text-white"
+                    : "text-stone-700 hover:bg-stone-200/70"
                 }`}
               >
                 <Icon className="h-4 w-4 shrink-0" aria-hidden="true" />

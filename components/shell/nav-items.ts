@@ -3,7 +3,16 @@ import type { Permission } from "@/lib/auth/permissions";
 export interface NavItem {
   href: string;
   label: string;
-  icon: "queue" | "systems" | "parts" | "documents" | "changes" | "evidence" | "trace" | "calc" | "admin";
+  icon:
+    | "queue"
+    | "systems"
+    | "parts"
+    | "documents"
+    | "changes"
+    | "evidence"
+    | "trace"
+    | "calc"
+    | "admin";
   permission: Permission;
 }
 

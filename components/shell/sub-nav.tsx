@@ -15,7 +15,9 @@ export function SubNav({ label, items }: { label: string; items: SubNavItem[] })
   return (
     <nav aria-label={label} className="mb-5 flex gap-1 border-b border-stone-200">
       {items.map((item) => {
-        const current = pathname === item.href || (item.alsoCurrentUnder ?? []).some((p) => pathname.startsWith(p));
+        const current =
+          pathname === item.href ||
+          (item.alsoCurrentUnder ?? []).some((p) => pathname.startsWith(p));
         return (
           <Link
             key={item.href}

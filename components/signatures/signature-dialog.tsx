@@ -31,7 +31,17 @@ export interface SignatureDialogProps {
  * The signing ceremony: states the meaning, the signer's printed name and the
  * hash of exactly the version signed, and asks for the password every time.
  */
-export function SignatureDialog({ action, meaning, recordType, signerName, recordLabel, contentHash, hidden = {}, children, buttonLabel }: SignatureDialogProps) {
+export function SignatureDialog({
+  action,
+  meaning,
+  recordType,
+  signerName,
+  recordLabel,
+  contentHash,
+  hidden = {},
+  children,
+  buttonLabel,
+}: SignatureDialogProps) {
   const dialog = useRef<HTMLDialogElement>(null);
   const label = buttonLabel ?? `Sign as ${MEANING_LABELS[meaning].toLowerCase()}`;
   return (
@@ -40,12 +50,18 @@ export function SignatureDialog({ action, meaning, recordType, signerName, recor
         <PenLine className="h-4 w-4" aria-hidden="true" />
         {label}
       </Button>
-      <dialog ref={dialog} aria-labelledby={`sign-${meaning}-title`} className="m-auto w-full max-w-lg rounded-xl p-0 backdrop:bg-stone-900/40">
+      <dialog
+        ref={dialog}
+        aria-labelledby={`sign-${meaning}-title`}
+        className="m-auto w-full max-w-lg rounded-xl p-0 backdrop:bg-stone-900/40"
+      >
         <div className="p-6">
           <h2 id={`sign-${meaning}-title`} className="text-lg font-semibold text-stone-900">
             {label}: {recordLabel}
           </h2>
-          <p className="mt-3 rounded-md bg-stone-50 p-3 text-sm text-stone-800">{meaningStatement(recordType, meaning)}</p>
+          <p className="mt-3 rounded-md bg-stone-50 p-3 text-sm text-stone-800">
+            {meaningStatement(recordType, meaning)}
+          </p>
           <dl className="mt-3 grid grid-cols-[max-content_1fr] gap-x-3 gap-y-1 text-sm">
             <dt className="text-stone-500">Printed name</dt>
             <dd>{signerName}</dd>

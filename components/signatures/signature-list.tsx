@@ -5,7 +5,11 @@ import { formatDateTime } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 /** Signature manifestations (21 CFR 11.50): printed name, meaning, UTC date and time, bound hash. */
-export function SignatureList({ signatures }: { signatures: (Signature & { validity: "valid" | "invalid" })[] }) {
+export function SignatureList({
+  signatures,
+}: {
+  signatures: (Signature & { validity: "valid" | "invalid" })[];
+}) {
   if (signatures.length === 0) return <p className="text-sm text-stone-600">No signatures yet.</p>;
   return (
     <Table density="compact" caption="Signatures">
@@ -20,7 +24,9 @@ export function SignatureList({ signatures }: { signatures: (Signature & { valid
           <tr key={s.id}>
             <Td className="font-medium">{MEANING_LABELS[s.meaning]}</Td>
             <Td>{s.printedName}</Td>
-            <Td className="tabular-nums">{formatDateTime(s.signedAt, { seconds: true, zone: false })}</Td>
+            <Td className="tabular-nums">
+              {formatDateTime(s.signedAt, { seconds: true, zone: false })}
+            </Td>
             <Td title={`Signed hash ${s.contentHash}`}>
               {s.validity === "valid" ? (
                 <span className="inline-flex items-center gap-1 text-brand-700">
@@ -28,7 +34,8 @@ export function SignatureList({ signatures }: { signatures: (Signature & { valid
                 </span>
               ) : (
                 <span className="inline-flex items-center gap-1 font-medium text-red-800">
-                  <ShieldAlert className="h-4 w-4" aria-hidden="true" /> Invalid: content changed since signing
+                  <ShieldAlert className="h-4 w-4" aria-hidden="true" /> Invalid: content changed
+                  since signing
                 </span>
               )}
             </Td>

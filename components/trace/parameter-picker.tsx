@@ -4,7 +4,12 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { useDeferredValue, useId, useState } from "react";
 import { Field, SelectField } from "@/components/ui/field";
-import { MATCH_LIMIT, type ParameterFilter, type TraceParameter, type TraceScopes } from "@/lib/trace/parameter-search";
+import {
+  MATCH_LIMIT,
+  type ParameterFilter,
+  type TraceParameter,
+  type TraceScopes,
+} from "@/lib/trace/parameter-search";
 
 interface Matches {
   total: number;
@@ -20,9 +25,17 @@ interface ParameterPickerProps {
 }
 
 async function fetchMatches(filter: ParameterFilter): Promise<Matches> {
-  const qs = new URLSearchParams({ system: filter.systemId ?? "", recipe: filter.recipeId ?? "", q: filter.q ?? "" });
+  const qs = new URLSearchParams({
+    system: filter.systemId ?? "",
+    recipe: filter.recipeId ?? "",
+    q: filter.q ?? "",
+  });
   const response = await fetch(`/api/trace/parameters?${qs}`, { cache: "no-store" });
-  if (!response.ok) throw new Error(((await response.json().catch(() => null)) as { error?: string } | null)?.error ?? "The search failed; try again.");
+  if (!response.ok)
+    throw new Error(
+      ((await response.json().catch(() => null)) as { error?: string } | null)?.error ??
+        "The search failed; try again.",
+    );
   return response.json();
 }
 
@@ -31,13 +44,19 @@ async function fetchMatches(filter: ParameterFilter): Promise<Matches> {
  * key, stage or unit. The server searches, so a plant's thousands of parameters
  * never travel to the browser.
  */
-export function ParameterPicker({ scopes, initial, initialFilter, selected }: ParameterPickerProps) {
+export function ParameterPicker({
+  scopes,
+  initial,
+  initialFilter,
+  selected,
+}: ParameterPickerProps) {
   const id = useId();
   const [systemId, setSystemId] = useState(initialFilter.systemId);
   const [recipeId, setRecipeId] = useState(initialFilter.recipeId);
   const [query, setQuery] = useState("");
   const q = useDeferredValue(query);
-  const isInitial = systemId === initialFilter.systemId && recipeId === initialFilter.recipeId && q.trim() === "";
+  const isInitial =
+    systemId === initialFilter.systemId && recipeId === initialFilter.recipeId && q.trim() === "";
   const { data, error, isPlaceholderData } = useQuery({
     queryKey: ["trace-parameters", systemId, recipeId, q.trim()],
     queryFn: () => fetchMatches({ systemId, recipeId, q }),
@@ -48,7 +67,10 @@ export function ParameterPicker({ scopes, initial, initialFilter, selected }: Pa
   const recipes = scopes.recipes.filter((r) => !systemId || r.systemId === systemId);
 
   return (
-    <section aria-labelledby={`${id}-h`} className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+    <section
+      aria-labelledby={`${id}-h`}
+      className="mb-8 rounded-lg border border-stone-200 bg-white p-5"
+    >
       <h2 id={`${id}-h`} className="mb-3 text-base font-semibold">
         Choose a parameter
       </h2>
@@ -63,8 +85,21 @@ export function ParameterPicker({ scopes, initial, initialFilter, selected }: Pa
           placeholder="All systems"
           options={scopes.systems.map((system) => ({ value: system.id, label: system.label }))}
         />
-        <SelectField label="Recipe" value={recipeId} onValueChange={setRecipeId} placeholder="All recipes" options={recipes.map((recipe) => ({ value: recipe.id, label: recipe.label }))} />
-        <Field label="Search parameters" type="search" value={query} onValueChange={setQuery} placeholder="e.g. drying temperature" aria-controls={`${id}-results`} />
+        <SelectField
+          label="Recipe"
+          value={recipeId}
+          onValueChange={setRecipeId}
+          placeholder="All recipes"
+          options={recipes.map((recipe) => ({ value: recipe.id, label: recipe.label }))}
+        />
+        <Field
+          label="Search parameters"
+          type="search"
+          value={query}
+          onValueChange={setQuery}
+          placeholder="e.g. drying temperature"
+          aria-controls={`${id}-results`}
+        />
       </div>
       <p className="mt-3 text-xs text-stone-600" aria-live="polite">
         {error
@@ -73,7 +108,12 @@ export function ParameterPicker({ scopes, initial, initialFilter, selected }: Pa
             ? "No parameter matches."
             : `${matches.total} parameter${matches.total === 1 ? "" : "s"} match${matches.total === 1 ? "es" : ""}${matches.total > MATCH_LIMIT ? `; the first ${MATCH_LIMIT} are shown` : ""}.`}
       </p>
-      <ul id={`${id}-results`} aria-label="Matching parameters" aria-busy={isPlaceholderData || query !== q || undefined} className="mt-2 max-h-72 divide-y divide-stone-100 overflow-y-auto rounded-md border border-stone-200">
+      <ul
+        id={`${id}-results`}
+        aria-label="Matching parameters"
+        aria-busy={isPlaceholderData || query !== q || undefined}
+        className="mt-2 max-h-72 divide-y divide-stone-100 overflow-y-auto rounded-md border border-stone-200"
+      >
         {matches.items.map((p) => {
           const current = selected?.recipeId === p.recipeId && selected.key === p.key;
           return (
@@ -87,7 +127,8 @@ export function ParameterPicker({ scopes, initial, initialFilter, selected }: Pa
                   {p.name} <span className="font-mono text-xs text-stone-600">{p.key}</span>
                 </span>
                 <span className="text-xs text-stone-600">
-                  {p.stage} · {p.recipeCode} · {p.systemCode} · {p.versions} version{p.versions === 1 ? "" : "s"}
+                  {p.stage} · {p.recipeCode} · {p.systemCode} · {p.versions} version
+                  {p.versions === 1 ? "" : "s"}
                 </span>
               </Link>
             </li>

@@ -17,31 +17,59 @@ function valueText(v: ParameterValue | null) {
 }
 
 /** Newest first: each value the parameter has had, with the change that brought it and the evidence behind it. */
-export function ParameterTimeline({ history, canExport }: { history: ParameterHistory; canExport: boolean }) {
+export function ParameterTimeline({
+  history,
+  canExport,
+}: {
+  history: ParameterHistory;
+  canExport: boolean;
+}) {
   // Each entry's previous value is the last value in force before it (entries arrive oldest first).
-  const rows = history.entries.map((entry, i) => ({ entry, previous: history.entries.slice(0, i).findLast((e) => e.period.kind === "in_force")?.period.value }));
+  const rows = history.entries.map((entry, i) => ({
+    entry,
+    previous: history.entries.slice(0, i).findLast((e) => e.period.kind === "in_force")?.period
+      .value,
+  }));
   return (
     <ol aria-label="Parameter history" className="space-y-6">
       {rows.reverse().map(({ entry, previous }) => (
-        <TimelineEntry key={entry.period.introducedBy.versionId} entry={entry} previous={previous} canExport={canExport} />
+        <TimelineEntry
+          key={entry.period.introducedBy.versionId}
+          entry={entry}
+          previous={previous}
+          canExport={canExport}
+        />
       ))}
     </ol>
   );
 }
 
-function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous: ParameterValue | null | undefined; canExport: boolean }) {
+function TimelineEntry({
+  entry,
+  previous,
+  canExport,
+}: {
+  entry: Entry;
+  previous: ParameterValue | null | undefined;
+  canExport: boolean;
+}) {
   const { period, change } = entry;
   const v = period.value;
   const versions = period.versions.map((x) => x.version);
-  const versionLabel = versions.length > 1 ? `Versions ${versions[0]}–${versions.at(-1)}` : `Version ${versions[0]}`;
+  const versionLabel =
+    versions.length > 1 ? `Versions ${versions[0]}–${versions.at(-1)}` : `Version ${versions[0]}`;
   const title = `${versionLabel}: ${valueText(v)}`;
   return (
     <li>
-      <article aria-label={title} className={`rounded-lg border bg-white p-5 ${period.kind === "proposal" ? "border-dashed border-stone-400" : "border-stone-200"}`}>
+      <article
+        aria-label={title}
+        className={`rounded-lg border bg-white p-5 ${period.kind === "proposal" ? "border-dashed border-stone-400" : "border-stone-200"}`}
+      >
         <header className="flex flex-wrap items-baseline justify-between gap-2">
           <h3 className="text-base font-semibold">{title}</h3>
           <p className="text-sm">
-            <span className="font-semibold">{periodStatus(period)}</span> · {CHANGE_LABELS[period.change]}
+            <span className="font-semibold">{periodStatus(period)}</span> ·{" "}
+            {CHANGE_LABELS[period.change]}
           </p>
         </header>
         <dl className="mt-3 grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[max-content_1fr]">
@@ -57,9 +85,15 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
           </dd>
           <dt className="text-stone-600">Validated range</dt>
           <dd>
-            {previous && v && (previous.validatedLow !== v.validatedLow || previous.validatedHigh !== v.validatedHigh) ? (
+            {previous &&
+            v &&
+            (previous.validatedLow !== v.validatedLow ||
+              previous.validatedHigh !== v.validatedHigh) ? (
               <>
-                {rangeWithUnit(previous.validatedLow, previous.validatedHigh, previous.unit)} → <span className="font-semibold">{rangeWithUnit(v.validatedLow, v.validatedHigh, v.unit)}</span>
+                {rangeWithUnit(previous.validatedLow, previous.validatedHigh, previous.unit)} →{" "}
+                <span className="font-semibold">
+                  {rangeWithUnit(v.validatedLow, v.validatedHigh, v.unit)}
+                </span>
               </>
             ) : v ? (
               rangeWithUnit(v.validatedLow, v.validatedHigh, v.unit)
@@ -71,26 +105,42 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
             <>
               <dt className="text-stone-600">In force</dt>
               <dd>
-                from {formatDateTime(period.effectiveFrom)} {period.effectiveTo ? `to ${formatDateTime(period.effectiveTo)}` : "until now"}
+                from {formatDateTime(period.effectiveFrom)}{" "}
+                {period.effectiveTo ? `to ${formatDateTime(period.effectiveTo)}` : "until now"}
               </dd>
             </>
           )}
         </dl>
 
         {change ? (
-          <section aria-label={`Change request ${change.number}`} className="mt-4 border-t border-stone-100 pt-3 text-sm">
+          <section
+            aria-label={`Change request ${change.number}`}
+            className="mt-4 border-t border-stone-100 pt-3 text-sm"
+          >
             <p>
-              <Link href={`/changes/${change.id}`} className="font-semibold text-brand-800 hover:underline">
+              <Link
+                href={`/changes/${change.id}`}
+                className="font-semibold text-brand-800 hover:underline"
+              >
                 {change.number}
               </Link>{" "}
-              · {change.title} · {CHANGE_STATUS_LABELS[change.status]} · impact <span className="font-semibold">{humanize(change.impact)}</span> · opened by {change.author ?? "—"} on {formatDate(change.openedAt)}
+              · {change.title} · {CHANGE_STATUS_LABELS[change.status]} · impact{" "}
+              <span className="font-semibold">{humanize(change.impact)}</span> · opened by{" "}
+              {change.author ?? "—"} on {formatDate(change.openedAt)}
               {change.closedAt ? `, closed ${formatDate(change.closedAt)}` : ""}
             </p>
             {change.parameterImpact && (
               <p className="mt-1">
-                This parameter: {change.parameterImpact.position === "outside" ? "outside" : change.parameterImpact.position === "inside" ? "inside" : "no position against"} the validated range ·{" "}
-                {humanize(change.parameterImpact.impact)}
-                {change.parameterImpact.reasons.length > 0 ? ` — ${change.parameterImpact.reasons.join("; ")}` : ""}
+                This parameter:{" "}
+                {change.parameterImpact.position === "outside"
+                  ? "outside"
+                  : change.parameterImpact.position === "inside"
+                    ? "inside"
+                    : "no position against"}{" "}
+                the validated range · {humanize(change.parameterImpact.impact)}
+                {change.parameterImpact.reasons.length > 0
+                  ? ` — ${change.parameterImpact.reasons.join("; ")}`
+                  : ""}
               </p>
             )}
             <blockquote className="mt-2 border-l-2 border-stone-300 pl-3 text-stone-700">
@@ -101,15 +151,26 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
               <Link href={`/changes/${change.id}#diff`} className="text-brand-800 hover:underline">
                 Parameter diff of {change.number}
               </Link>
-              <Link href={`/changes/${change.id}#impact`} className="text-brand-800 hover:underline">
+              <Link
+                href={`/changes/${change.id}#impact`}
+                className="text-brand-800 hover:underline"
+              >
                 Impact with its working
               </Link>
               {canExport && (
                 <>
-                  <a href={`/api/audit-pack/${change.id}?format=pdf`} className="text-brand-800 hover:underline" download>
+                  <a
+                    href={`/api/audit-pack/${change.id}?format=pdf`}
+                    className="text-brand-800 hover:underline"
+                    download
+                  >
                     Audit pack (PDF) for {change.number}
                   </a>
-                  <a href={`/api/audit-pack/${change.id}?format=zip`} className="text-brand-800 hover:underline" download>
+                  <a
+                    href={`/api/audit-pack/${change.id}?format=zip`}
+                    className="text-brand-800 hover:underline"
+                    download
+                  >
                     Audit pack with evidence files (ZIP)
                   </a>
                 </>
@@ -120,7 +181,11 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
             {change.signatures.length === 0 ? (
               <p className="text-stone-600">No signatures yet.</p>
             ) : (
-              <Table density="compact" caption={<>Signatures on {change.number}</>} frameClassName="mt-1">
+              <Table
+                density="compact"
+                caption={<>Signatures on {change.number}</>}
+                frameClassName="mt-1"
+              >
                 <THead>
                   <Th>Meaning</Th>
                   <Th>Printed name</Th>
@@ -144,11 +209,21 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
 
             <h4 className="mt-4 font-semibold">Requalification evidence</h4>
             {change.requirements.length === 0 && change.evidence.length === 0 ? (
-              <p className="text-stone-600">{change.impact === "major" ? "No required tests recorded." : "None required: the change stayed inside the validated range."}</p>
+              <p className="text-stone-600">
+                {change.impact === "major"
+                  ? "No required tests recorded."
+                  : "None required: the change stayed inside the validated range."}
+              </p>
             ) : (
               <>
                 {change.requirements.length > 0 && (
-                  <p className="text-stone-700">Required: {change.requirements.map((r) => `${TEST_TYPE_LABELS[r.testType]} on ${r.samples} parts`).join("; ")}.</p>
+                  <p className="text-stone-700">
+                    Required:{" "}
+                    {change.requirements
+                      .map((r) => `${TEST_TYPE_LABELS[r.testType]} on ${r.samples} parts`)
+                      .join("; ")}
+                    .
+                  </p>
                 )}
                 {change.evidence.length === 0 ? (
                   <p className="text-stone-600">No test run linked yet.</p>
@@ -157,16 +232,32 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
                     {change.evidence.map((run) => (
                       <li key={run.id} className="rounded-md border border-stone-200 p-3">
                         <p>
-                          <Link href={`/evidence/runs/${run.id}`} className="font-semibold text-brand-800 hover:underline">
+                          <Link
+                            href={`/evidence/runs/${run.id}`}
+                            className="font-semibold text-brand-800 hover:underline"
+                          >
                             {run.number}
                           </Link>{" "}
                           · {TEST_TYPE_LABELS[run.testType]} · computed outcome{" "}
-                          <span className="font-semibold">{run.outcome ? OUTCOME_LABELS[run.outcome] : "not computed"}</span> · {humanize(run.status)} · {run.samples} samples
-                          {run.worstCaseSamples ? ` (${run.worstCaseSamples} at worst-case positions)` : ""} · performed {run.performedOn ?? "—"}
+                          <span className="font-semibold">
+                            {run.outcome ? OUTCOME_LABELS[run.outcome] : "not computed"}
+                          </span>{" "}
+                          · {humanize(run.status)} · {run.samples} samples
+                          {run.worstCaseSamples
+                            ? ` (${run.worstCaseSamples} at worst-case positions)`
+                            : ""}{" "}
+                          · performed {run.performedOn ?? "—"}
                           {run.lab ? ` at ${run.lab}` : ""}
                         </p>
                         {run.signatures.length > 0 && (
-                          <p className="text-stone-700">{run.signatures.map((s) => `${MEANING_LABELS[s.meaning]} by ${s.printedName}, ${formatDateTime(s.signedAt)}`).join(" · ")}</p>
+                          <p className="text-stone-700">
+                            {run.signatures
+                              .map(
+                                (s) =>
+                                  `${MEANING_LABELS[s.meaning]} by ${s.printedName}, ${formatDateTime(s.signedAt)}`,
+                              )
+                              .join(" · ")}
+                          </p>
                         )}
                         {run.files.length === 0 ? (
                           <p className="text-stone-600">No files attached.</p>
@@ -174,7 +265,8 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
                           <ul className="mt-1" aria-label={`Files of ${run.number}`}>
                             {run.files.map((f) => (
                               <li key={f.id} className="break-all">
-                                {f.originalName} ({formatBytes(f.sizeBytes)}) · SHA-256 <span className="font-mono text-xs">{f.sha256}</span>
+                                {f.originalName} ({formatBytes(f.sizeBytes)}) · SHA-256{" "}
+                                <span className="font-mono text-xs">{f.sha256}</span>
                               </li>
                             ))}
                           </ul>
@@ -183,14 +275,21 @@ function TimelineEntry({ entry, previous, canExport }: { entry: Entry; previous:
                     ))}
                   </ul>
                 )}
-                <p className="mt-2 text-xs text-stone-600">A computed pass supports, and never replaces, the customer&apos;s specification and the engineer&apos;s judgement.</p>
+                <p className="mt-2 text-xs text-stone-600">
+                  A computed pass supports, and never replaces, the customer&apos;s specification
+                  and the engineer&apos;s judgement.
+                </p>
               </>
             )}
           </section>
         ) : (
           <p className="mt-4 border-t border-stone-100 pt-3 text-sm text-stone-700">
-            No change request: {versions[0] === 1 ? "the recipe's first validated version" : "a version recorded without change control"}
-            {entry.versionAuthor ? `, recorded by ${entry.versionAuthor}` : ""} on {formatDate(entry.versionCreatedAt)}. {entry.versionNote ?? ""}
+            No change request:{" "}
+            {versions[0] === 1
+              ? "the recipe's first validated version"
+              : "a version recorded without change control"}
+            {entry.versionAuthor ? `, recorded by ${entry.versionAuthor}` : ""} on{" "}
+            {formatDate(entry.versionCreatedAt)}. {entry.versionNote ?? ""}
           </p>
         )}
       </article>

@@ -4,7 +4,8 @@ type Variant = "primary" | "secondary" | "danger" | "ghost";
 
 const VARIANTS: Record<Variant, string> = {
   primary: "bg-brand-700 text-white hover:bg-brand-800 disabled:bg-stone-400",
-  secondary: "border border-stone-300 bg-white text-stone-800 hover:bg-stone-100 disabled:text-stone-400",
+  secondary:
+    "border border-stone-300 bg-white text-stone-800 hover:bg-stone-100 disabled:text-stone-400",
   danger: "border border-red-800 bg-white text-red-800 hover:bg-red-50 disabled:text-stone-400",
   ghost: "text-stone-700 hover:bg-stone-100",
 };
@@ -13,7 +14,12 @@ export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   variant?: Variant;
 }
 
-export function Button({ variant = "primary", className = "", type = "button", ...props }: ButtonProps) {
+export function Button({
+  variant = "primary",
+  className = "",
+  type = "button",
+  ...props
+}: ButtonProps) {
   return (
     <button
       type={type}

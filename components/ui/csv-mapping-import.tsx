@@ -8,7 +8,12 @@ import { Button } from "@/components/ui/button";
 import { FileField, SelectField } from "@/components/ui/field";
 
 type Mapping = Record<string, string | undefined>;
-type Result = { ok: boolean; message: string; rowErrors?: { line: number; message: string }[]; errorCount?: number };
+type Result = {
+  ok: boolean;
+  message: string;
+  rowErrors?: { line: number; message: string }[];
+  errorCount?: number;
+};
 
 export interface CsvMappingImportProps {
   /** The form's accessible name, e.g. "Import part families from CSV". */
@@ -29,7 +34,16 @@ export interface CsvMappingImportProps {
  * names differ, the user maps them. The server reads the whole file again, validates every row,
  * and saves all rows or none, answering each problem with its line.
  */
-export function CsvMappingImport({ title, fileLabel, hint, fields, autoMap, problems: findProblems, url, extra = {} }: CsvMappingImportProps) {
+export function CsvMappingImport({
+  title,
+  fileLabel,
+  hint,
+  fields,
+  autoMap,
+  problems: findProblems,
+  url,
+  extra = {},
+}: CsvMappingImportProps) {
   const router = useRouter();
   const [file, setFile] = useState<File | null>(null);
   const [headers, setHeaders] = useState<string[]>([]);
@@ -63,9 +77,15 @@ export function CsvMappingImport({ title, fileLabel, hint, fields, autoMap, prob
     for (const [k, v] of Object.entries(extra)) body.set(k, v);
     try {
       const response = await fetch(url, { method: "POST", body });
-      const raw: Result & { error?: string } = await response.json().catch(() => ({ ok: false, message: `The import failed (HTTP ${response.status}).` }));
+      const raw: Result & { error?: string } = await response
+        .json()
+        .catch(() => ({ ok: false, message: `The import failed (HTTP ${response.status}).` }));
       // A refusal from the route handler carries `error`; the import's own row report carries `message`.
-      const json: Result = { ...raw, ok: Boolean(raw.ok), message: raw.message ?? raw.error ?? `The import failed (HTTP ${response.status}).` };
+      const json: Result = {
+        ...raw,
+        ok: Boolean(raw.ok),
+        message: raw.message ?? raw.error ?? `The import failed (HTTP ${response.status}).`,
+      };
       setResult(json);
       if (json.ok) router.refresh();
     } catch {
@@ -78,11 +98,22 @@ export function CsvMappingImport({ title, fileLabel, hint, fields, autoMap, prob
   const unmapped = headers.filter((h) => !Object.values(mapping).includes(h));
   const needsMapping = headers.length > 0 && (problems.length > 0 || unmapped.length > 0);
   return (
-    <form onSubmit={onSubmit} className="space-y-3 rounded-lg border border-stone-200 bg-white p-4" aria-label={title}>
-      <FileField label={fileLabel} accept=".csv,text/csv" onChange={(e) => onFile(e.target.files?.[0] ?? null)} hint={hint} />
+    <form
+      onSubmit={onSubmit}
+      className="space-y-3 rounded-lg border border-stone-200 bg-white p-4"
+      aria-label={title}
+    >
+      <FileField
+        label={fileLabel}
+        accept=".csv,text/csv"
+        onChange={(e) => onFile(e.target.files?.[0] ?? null)}
+        hint={hint}
+      />
       {needsMapping && (
         <fieldset className="space-y-2">
-          <legend className="text-sm font-medium text-stone-800">Match the file&apos;s columns</legend>
+          <legend className="text-sm font-medium text-stone-800">
+            Match the file&apos;s columns
+          </legend>
           <div className="grid gap-2 sm:grid-cols-3 lg:grid-cols-4">
             {fields.map((f) => (
               <SelectField
@@ -104,10 +135,14 @@ export function CsvMappingImport({ title, fileLabel, hint, fields, autoMap, prob
         </fieldset>
       )}
       <Button type="submit" disabled={!file || pending || problems.length > 0}>
-        <FileSpreadsheet className="h-4 w-4" aria-hidden="true" /> {pending ? "Importing…" : "Import"}
+        <FileSpreadsheet className="h-4 w-4" aria-hidden="true" />{" "}
+        {pending ? "Importing…" : "Import"}
       </Button>
       {result && (
-        <div role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-brand-900" : "text-red-800"}`}>
+        <div
+          role={result.ok ? "status" : "alert"}
+          className={`text-sm ${result.ok ? "text-brand-900" : "text-red-800"}`}
+        >
           <p>{result.message}</p>
           {result.rowErrors && result.rowErrors.length > 0 && (
             <ul className="mt-1 list-disc pl-5">
@@ -116,7 +151,9 @@ export function CsvMappingImport({ title, fileLabel, hint, fields, autoMap, prob
                   Line {e.line}: {e.message}
                 </li>
               ))}
-              {(result.errorCount ?? 0) > result.rowErrors.length && <li>… and {(result.errorCount ?? 0) - result.rowErrors.length} more.</li>}
+              {(result.errorCount ?? 0) > result.rowErrors.length && (
+                <li>… and {(result.errorCount ?? 0) - result.rowErrors.length} more.</li>
+              )}
             </ul>
           )}
         </div>

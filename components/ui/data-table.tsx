@@ -30,7 +30,14 @@ export interface DataTableProps<T> {
  * A list that sorts, filters or pages: TanStack Table's state on the one table look. A sortable
  * column's heading is a button and the heading carries `aria-sort`, so the order is announced.
  */
-export function DataTable<T>({ table, caption, empty, busy, density = "card", bodyClassName }: DataTableProps<T>) {
+export function DataTable<T>({
+  table,
+  caption,
+  empty,
+  busy,
+  density = "card",
+  bodyClassName,
+}: DataTableProps<T>) {
   const rows = table.getRowModel().rows;
   const columnCount = table.getVisibleLeafColumns().length;
   return (
@@ -39,15 +46,23 @@ export function DataTable<T>({ table, caption, empty, busy, density = "card", bo
         <THead key={group.id}>
           {group.headers.map((header) => {
             const sorted = header.column.getIsSorted();
-            const label = header.isPlaceholder ? null : flexRender(header.column.columnDef.header, header.getContext());
+            const label = header.isPlaceholder
+              ? null
+              : flexRender(header.column.columnDef.header, header.getContext());
             return (
               <Th
                 key={header.id}
                 align={header.column.columnDef.meta?.align}
-                aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
+                aria-sort={
+                  sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined
+                }
               >
                 {header.column.getCanSort() ? (
-                  <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-stone-900" onClick={header.column.getToggleSortingHandler()}>
+                  <button
+                    type="button"
+                    className="inline-flex items-center gap-1 uppercase hover:text-stone-900"
+                    onClick={header.column.getToggleSortingHandler()}
+                  >
                     {label}
                     {sorted === "asc" ? (
                       <ArrowUp className="h-3 w-3" aria-hidden="true" />
@@ -69,13 +84,19 @@ export function DataTable<T>({ table, caption, empty, busy, density = "card", bo
         {rows.map((row) => (
           <tr key={row.id}>
             {row.getVisibleCells().map((cell) => (
-              <Td key={cell.id} align={cell.column.columnDef.meta?.align} className={cell.column.columnDef.meta?.cellClassName}>
+              <Td
+                key={cell.id}
+                align={cell.column.columnDef.meta?.align}
+                className={cell.column.columnDef.meta?.cellClassName}
+              >
                 {flexRender(cell.column.columnDef.cell, cell.getContext())}
               </Td>
             ))}
           </tr>
         ))}
-        {rows.length === 0 && empty !== undefined && <EmptyRow colSpan={columnCount}>{empty}</EmptyRow>}
+        {rows.length === 0 && empty !== undefined && (
+          <EmptyRow colSpan={columnCount}>{empty}</EmptyRow>
+        )}
       </TBody>
     </Table>
   );

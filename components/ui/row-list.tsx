@@ -94,10 +94,20 @@ export function MoveRowButtons({
 }) {
   return (
     <span className="inline-flex gap-1">
-      <Button variant="ghost" aria-label={`Move ${label} up`} disabled={first} onClick={() => onMove(-1)}>
+      <Button
+        variant="ghost"
+        aria-label={`Move ${label} up`}
+        disabled={first}
+        onClick={() => onMove(-1)}
+      >
         <ArrowUp className="h-4 w-4" aria-hidden="true" />
       </Button>
-      <Button variant="ghost" aria-label={`Move ${label} down`} disabled={last} onClick={() => onMove(1)}>
+      <Button
+        variant="ghost"
+        aria-label={`Move ${label} down`}
+        disabled={last}
+        onClick={() => onMove(1)}
+      >
         <ArrowDown className="h-4 w-4" aria-hidden="true" />
       </Button>
     </span>

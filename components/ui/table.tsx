@@ -20,7 +20,8 @@ const FRAME: Record<TableDensity, string> = {
 
 const DENSITY: Record<TableDensity, string> = {
   card: "[--cell-pl:0.75rem] [--cell-pr:0.75rem] [--cell-py:0.5rem] [&_thead]:bg-stone-50 [&_thead]:[--sticky-bg:var(--color-stone-50)]",
-  compact: "[--cell-pl:0rem] [--cell-pr:0.75rem] [--cell-py:0.375rem] [&_thead]:border-b [&_thead]:border-stone-200",
+  compact:
+    "[--cell-pl:0rem] [--cell-pr:0.75rem] [--cell-py:0.375rem] [&_thead]:border-b [&_thead]:border-stone-200",
 };
 
 // On a narrow screen (a tablet at 820 px) a wide table scrolls inside its frame; the first column,
@@ -54,8 +55,15 @@ export function Table({
 }: TableProps) {
   return (
     <div className={`${FRAME[density]} ${frameClassName}`} aria-busy={busy}>
-      <table className={`w-full text-sm ${DENSITY[density]} ${stickyFirstColumn ? STICKY_FIRST : ""} ${className}`} {...props}>
-        {caption !== undefined && <caption className={captionVisible ? "mb-1 text-left text-sm font-semibold" : "sr-only"}>{caption}</caption>}
+      <table
+        className={`w-full text-sm ${DENSITY[density]} ${stickyFirstColumn ? STICKY_FIRST : ""} ${className}`}
+        {...props}
+      >
+        {caption !== undefined && (
+          <caption className={captionVisible ? "mb-1 text-left text-sm font-semibold" : "sr-only"}>
+            {caption}
+          </caption>
+        )}
         {children}
       </table>
     </div>
@@ -72,7 +80,11 @@ export function THead({ children }: { children: ReactNode }) {
 }
 
 type Align = "left" | "right" | "center";
-const ALIGN: Record<Align, string> = { left: "text-left", right: "text-right", center: "text-center" };
+const ALIGN: Record<Align, string> = {
+  left: "text-left",
+  right: "text-right",
+  center: "text-center",
+};
 const PAD = "pl-(--cell-pl) pr-(--cell-pr) py-(--cell-py)";
 
 export interface ThProps extends ThHTMLAttributes<HTMLTableCellElement> {
@@ -81,7 +93,8 @@ export interface ThProps extends ThHTMLAttributes<HTMLTableCellElement> {
 
 /** A column heading (`scope="col"`), or with `scope="row"` the label that starts a row. */
 export function Th({ align = "left", scope = "col", className = "", ...props }: ThProps) {
-  const look = scope === "row" ? "font-normal text-stone-700" : "text-xs font-medium text-stone-500 uppercase";
+  const look =
+    scope === "row" ? "font-normal text-stone-700" : "text-xs font-medium text-stone-500 uppercase";
   return <th scope={scope} className={`${PAD} ${ALIGN[align]} ${look} ${className}`} {...props} />;
 }
 
@@ -102,7 +115,12 @@ export interface TdProps extends TdHTMLAttributes<HTMLTableCellElement> {
 
 export function Td({ align, numeric = false, className = "", ...props }: TdProps) {
   const alignment = ALIGN[align ?? (numeric ? "right" : "left")];
-  return <td className={`${PAD} ${alignment} ${numeric ? "tabular-nums" : ""} ${className}`} {...props} />;
+  return (
+    <td
+      className={`${PAD} ${alignment} ${numeric ? "tabular-nums" : ""} ${className}`}
+      {...props}
+    />
+  );
 }
 
 /** The one row a list shows when nothing matches. */

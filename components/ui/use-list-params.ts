@@ -17,7 +17,10 @@ export function useListParams<T extends ListState>(defaults: T): [T, (patch: Par
   const state = useMemo(() => readListParams(search, defaults), [search]);
   const update = useCallback(
     (patch: Partial<T>) => {
-      const next = { ...readListParams(new URLSearchParams(window.location.search), defaults), ...patch } as T;
+      const next = {
+        ...readListParams(new URLSearchParams(window.location.search), defaults),
+        ...patch,
+      } as T;
       window.history.replaceState(null, "", `${pathname}${listSearch(next, defaults)}`);
     },
     // eslint-disable-next-line react-hooks/exhaustive-deps

@@ -5,14 +5,15 @@ import { users } from "./people";
 
 // ── Signatures and audit ──────────────────────────────────────────────────
 
-
 export const signatures = sqliteTable(
   "signatures",
   {
     id: id(),
     recordType: text("record_type", { enum: SIGNED_RECORD_TYPES }).notNull(),
     recordId: text("record_id").notNull(),
-    userId: text("user_id").notNull().references(() => users.id),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id),
     /** The name as printed at the moment of signing (§11.50). */
     printedName: text("printed_name").notNull(),
     meaning: text("meaning", { enum: SIGNATURE_MEANINGS }).notNull(),
@@ -23,7 +24,13 @@ export const signatures = sqliteTable(
   (t) => [
     index("signatures_record_idx").on(t.recordType, t.recordId),
     // A version returned to draft and resubmitted is new content: the same person may sign it again.
-    uniqueIndex("signatures_once_per_content_uq").on(t.recordType, t.recordId, t.userId, t.meaning, t.contentHash),
+    uniqueIndex("signatures_once_per_content_uq").on(
+      t.recordType,
+      t.recordId,
+      t.userId,
+      t.meaning,
+      t.contentHash,
+    ),
   ],
 );
 export type Signature = typeof signatures.$inferSelect;

@@ -11,7 +11,9 @@ export const bathRecords = sqliteTable(
   "bath_records",
   {
     id: id(),
-    stageId: text("stage_id").notNull().references(() => systemStages.id),
+    stageId: text("stage_id")
+      .notNull()
+      .references(() => systemStages.id),
     kind: text("kind", { enum: BATH_RECORD_KINDS }).notNull(),
     /** When the work or measurement was done (UTC). */
     performedAt: text("performed_at").notNull(),
@@ -24,7 +26,9 @@ export const bathRecords = sqliteTable(
     countPerMl14: real("count_per_ml_14"),
     filterDescription: text("filter_description"),
     notes: text("notes"),
-    recordedBy: text("recorded_by").notNull().references(() => users.id),
+    recordedBy: text("recorded_by")
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
   },
   (t) => [index("bath_records_stage_idx").on(t.stageId, t.performedAt)],
@@ -36,12 +40,16 @@ export const maintenanceIntervals = sqliteTable(
   "maintenance_intervals",
   {
     id: id(),
-    stageId: text("stage_id").notNull().references(() => systemStages.id),
+    stageId: text("stage_id")
+      .notNull()
+      .references(() => systemStages.id),
     kind: text("kind", { enum: MAINTENANCE_KINDS }).notNull(),
     intervalDays: integer("interval_days").notNull(),
     /** Shown as due this many days before the date. */
     warnDays: integer("warn_days").notNull().default(2),
-    createdBy: text("created_by").notNull().references(() => users.id),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
     updatedAt: text("updated_at"),
   },
@@ -54,7 +62,9 @@ export const maintenanceNotices = sqliteTable(
   "maintenance_notices",
   {
     id: id(),
-    intervalId: text("interval_id").notNull().references(() => maintenanceIntervals.id),
+    intervalId: text("interval_id")
+      .notNull()
+      .references(() => maintenanceIntervals.id),
     dueAt: text("due_at").notNull(),
     level: text("level", { enum: ["due", "overdue"] }).notNull(),
     createdAt: createdAt(),

@@ -1,5 +1,11 @@
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import { CHANGE_STATUSES, IMPACT_CLASSES, TEST_TYPES, CHANGE_KINDS, MATRIX_STATUSES } from "../enums";
+import {
+  CHANGE_STATUSES,
+  IMPACT_CLASSES,
+  TEST_TYPES,
+  CHANGE_KINDS,
+  MATRIX_STATUSES,
+} from "../enums";
 import { createdAt, id } from "./columns";
 import { documents } from "./documents";
 import { testRuns } from "./evidence";
@@ -9,14 +15,15 @@ import { recipeVersions, recipes } from "./recipes";
 
 // ── Change control ────────────────────────────────────────────────────────
 
-
 export const changeRequests = sqliteTable(
   "change_requests",
   {
     id: id(),
     number: text("number").notNull().unique(),
     title: text("title").notNull(),
-    recipeId: text("recipe_id").notNull().references(() => recipes.id),
+    recipeId: text("recipe_id")
+      .notNull()
+      .references(() => recipes.id),
     fromVersionId: text("from_version_id").references(() => recipeVersions.id),
     toVersionId: text("to_version_id").references(() => recipeVersions.id),
     status: text("status", { enum: CHANGE_STATUSES }).notNull().default("draft"),
@@ -24,11 +31,16 @@ export const changeRequests = sqliteTable(
     /** The computed impact with its working, as shown to the approver. */
     impactDetails: text("impact_details", { mode: "json" }),
     narrativeDocumentId: text("narrative_document_id").references(() => documents.id),
-    createdBy: text("created_by").notNull().references(() => users.id),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
     closedAt: text("closed_at"),
   },
-  (t) => [index("change_requests_recipe_idx").on(t.recipeId), index("change_requests_status_idx").on(t.status)],
+  (t) => [
+    index("change_requests_recipe_idx").on(t.recipeId),
+    index("change_requests_status_idx").on(t.status),
+  ],
 );
 export type ChangeRequest = typeof changeRequests.$inferSelect;
 
@@ -50,7 +62,9 @@ export const requalificationMatrixRows = sqliteTable(
   "requalification_matrix_rows",
   {
     id: id(),
-    matrixId: text("matrix_id").notNull().references(() => requalificationMatrices.id),
+    matrixId: text("matrix_id")
+      .notNull()
+      .references(() => requalificationMatrices.id),
     subject: text("subject").notNull(),
     testType: text("test_type", { enum: TEST_TYPES }).notNull(),
     confidencePct: real("confidence_pct").notNull(),
@@ -88,7 +102,9 @@ export const changeRequestTests = sqliteTable(
   "change_request_tests",
   {
     id: id(),
-    changeRequestId: text("change_request_id").notNull().references(() => changeRequests.id),
+    changeRequestId: text("change_request_id")
+      .notNull()
+      .references(() => changeRequests.id),
     testType: text("test_type", { enum: TEST_TYPES }).notNull(),
     samples: integer("samples").notNull(),
     confidencePct: real("confidence_pct").notNull(),
@@ -104,9 +120,15 @@ export const changeRequestEvidence = sqliteTable(
   "change_request_evidence",
   {
     id: id(),
-    requirementId: text("requirement_id").notNull().references(() => changeRequestTests.id),
-    testRunId: text("test_run_id").notNull().references(() => testRuns.id),
-    linkedBy: text("linked_by").notNull().references(() => users.id),
+    requirementId: text("requirement_id")
+      .notNull()
+      .references(() => changeRequestTests.id),
+    testRunId: text("test_run_id")
+      .notNull()
+      .references(() => testRuns.id),
+    linkedBy: text("linked_by")
+      .notNull()
+      .references(() => users.id),
     linkedAt: createdAt(),
   },
   (t) => [uniqueIndex("change_request_evidence_uq").on(t.requirementId, t.testRunId)],
@@ -122,8 +144,12 @@ export const requalificationIntervals = sqliteTable(
   "requalification_intervals",
   {
     id: id(),
-    recipeVersionId: text("recipe_version_id").notNull().references(() => recipeVersions.id),
-    partFamilyId: text("part_family_id").notNull().references(() => partFamilies.id),
+    recipeVersionId: text("recipe_version_id")
+      .notNull()
+      .references(() => recipeVersions.id),
+    partFamilyId: text("part_family_id")
+      .notNull()
+      .references(() => partFamilies.id),
     intervalMonths: integer("interval_months").notNull().default(12),
     lastQualifiedAt: text("last_qualified_at").notNull(),
     /** What proves the qualification (validation report, change request, run numbers), in words; null when carried over by a change. */

@@ -1,5 +1,11 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import { DOCUMENT_TYPES, DOCUMENT_STATUSES, REVIEW_ROLES, REVIEW_DECISIONS, ROUTING_MODES } from "../enums";
+import {
+  DOCUMENT_TYPES,
+  DOCUMENT_STATUSES,
+  REVIEW_ROLES,
+  REVIEW_DECISIONS,
+  ROUTING_MODES,
+} from "../enums";
 import { createdAt, id } from "./columns";
 import { partFamilies } from "./parts";
 import { users } from "./people";
@@ -7,7 +13,6 @@ import { cleaningSystems } from "./plant";
 import { recipeVersions } from "./recipes";
 
 // ── Documents ─────────────────────────────────────────────────────────────
-
 
 export const documents = sqliteTable("documents", {
   id: id(),
@@ -17,7 +22,9 @@ export const documents = sqliteTable("documents", {
   systemId: text("system_id").references(() => cleaningSystems.id),
   partFamilyId: text("part_family_id").references(() => partFamilies.id),
   recipeVersionId: text("recipe_version_id").references(() => recipeVersions.id),
-  ownerId: text("owner_id").notNull().references(() => users.id),
+  ownerId: text("owner_id")
+    .notNull()
+    .references(() => users.id),
   createdAt: createdAt(),
 });
 export type Document = typeof documents.$inferSelect;
@@ -26,7 +33,9 @@ export const documentVersions = sqliteTable(
   "document_versions",
   {
     id: id(),
-    documentId: text("document_id").notNull().references(() => documents.id),
+    documentId: text("document_id")
+      .notNull()
+      .references(() => documents.id),
     version: integer("version").notNull(),
     status: text("status", { enum: DOCUMENT_STATUSES }).notNull().default("draft"),
     /** Tiptap JSON, validated and sanitised on the server. */
@@ -43,7 +52,9 @@ export const documentVersions = sqliteTable(
     approvedAt: text("approved_at"),
     /** Why this version exists, required once the document was ever approved (EU GMP Annex 11 §9). */
     changeReason: text("change_reason"),
-    createdBy: text("created_by").notNull().references(() => users.id),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
     updatedAt: text("updated_at"),
   },
@@ -63,11 +74,15 @@ export const documentReviews = sqliteTable(
   "document_reviews",
   {
     id: id(),
-    versionId: text("version_id").notNull().references(() => documentVersions.id),
+    versionId: text("version_id")
+      .notNull()
+      .references(() => documentVersions.id),
     round: integer("round").notNull(),
     step: integer("step").notNull(),
     role: text("role", { enum: REVIEW_ROLES }).notNull(),
-    assigneeId: text("assignee_id").notNull().references(() => users.id),
+    assigneeId: text("assignee_id")
+      .notNull()
+      .references(() => users.id),
     activatedAt: text("activated_at"),
     dueAt: text("due_at"),
     decision: text("decision", { enum: REVIEW_DECISIONS }),

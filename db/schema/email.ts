@@ -12,9 +12,13 @@ export const emailOutbox = sqliteTable(
     subject: text("subject").notNull(),
     text: text("text").notNull(),
     html: text("html"),
-    status: text("status", { enum: ["pending", "sent", "failed"] }).notNull().default("pending"),
+    status: text("status", { enum: ["pending", "sent", "failed"] })
+      .notNull()
+      .default("pending"),
     attempts: integer("attempts").notNull().default(0),
-    nextAttemptAt: text("next_attempt_at").notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),
+    nextAttemptAt: text("next_attempt_at")
+      .notNull()
+      .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),
     lastError: text("last_error"),
     createdAt: createdAt(),
     sentAt: text("sent_at"),

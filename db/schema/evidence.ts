@@ -9,15 +9,18 @@ import { recipeVersions } from "./recipes";
 
 // ── Evidence ──────────────────────────────────────────────────────────────
 
-
 export const testRuns = sqliteTable(
   "test_runs",
   {
     id: id(),
     /** Shared by every revision of a run; (number, revision) is unique. */
     number: text("number").notNull(),
-    partFamilyId: text("part_family_id").notNull().references(() => partFamilies.id),
-    recipeVersionId: text("recipe_version_id").notNull().references(() => recipeVersions.id),
+    partFamilyId: text("part_family_id")
+      .notNull()
+      .references(() => partFamilies.id),
+    recipeVersionId: text("recipe_version_id")
+      .notNull()
+      .references(() => recipeVersions.id),
     /** The specification revision in force when the run was opened: a later revision never re-judges it. */
     specId: text("spec_id").references(() => cleanlinessSpecs.id),
     changeRequestId: text("change_request_id").references(() => changeRequests.id),
@@ -37,7 +40,9 @@ export const testRuns = sqliteTable(
     technicianId: text("technician_id").references(() => users.id),
     lab: text("lab"),
     performedOn: text("performed_on"),
-    createdBy: text("created_by").notNull().references(() => users.id),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
   },
   (t) => [
@@ -57,7 +62,9 @@ export const testSamples = sqliteTable(
   "test_samples",
   {
     id: id(),
-    runId: text("run_id").notNull().references(() => testRuns.id),
+    runId: text("run_id")
+      .notNull()
+      .references(() => testRuns.id),
     sampleLabel: text("sample_label").notNull(),
     basketPosition: text("basket_position"),
     worstCase: bool("worst_case").notNull().default(false),
@@ -81,7 +88,9 @@ export const evidenceFiles = sqliteTable(
     kind: text("kind", { enum: EVIDENCE_FILE_KINDS }).notNull().default("lab_report"),
     /** The sample a photo or image shows, when it shows one. */
     sampleLabel: text("sample_label"),
-    uploadedBy: text("uploaded_by").notNull().references(() => users.id),
+    uploadedBy: text("uploaded_by")
+      .notNull()
+      .references(() => users.id),
     uploadedAt: createdAt(),
     /**
      * A file attached in error is detached rather than deleted: `run_id` is cleared, so it leaves
@@ -93,6 +102,9 @@ export const evidenceFiles = sqliteTable(
     detachedBy: text("detached_by").references(() => users.id),
     detachReason: text("detach_reason"),
   },
-  (t) => [index("evidence_files_run_idx").on(t.runId), index("evidence_files_sha_idx").on(t.sha256)],
+  (t) => [
+    index("evidence_files_run_idx").on(t.runId),
+    index("evidence_files_sha_idx").on(t.sha256),
+  ],
 );
 export type EvidenceFile = typeof evidenceFiles.$inferSelect;

@@ -39,7 +39,10 @@ export const cleanlinessSpecs = sqliteTable(
     customerApprovesChanges: bool("customer_approves_changes").notNull().default(false),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("cleanliness_specs_code_revision_uq").on(t.code, t.revision), index("cleanliness_specs_status_idx").on(t.status)],
+  (t) => [
+    uniqueIndex("cleanliness_specs_code_revision_uq").on(t.code, t.revision),
+    index("cleanliness_specs_status_idx").on(t.status),
+  ],
 );
 export type CleanlinessSpec = typeof cleanlinessSpecs.$inferSelect;
 
@@ -59,7 +62,9 @@ export const partFamilies = sqliteTable("part_families", {
   drawingRevision: text("drawing_revision"),
   customer: text("customer"),
   /** The specification revision in force for this family; moves to each new revision. */
-  specId: text("spec_id").notNull().references(() => cleanlinessSpecs.id),
+  specId: text("spec_id")
+    .notNull()
+    .references(() => cleanlinessSpecs.id),
   description: text("description"),
   createdAt: createdAt(),
   updatedAt: text("updated_at"),

@@ -19,11 +19,12 @@ export const users = sqliteTable("users", {
 });
 export type User = typeof users.$inferSelect;
 
-
 export const userRoles = sqliteTable(
   "user_roles",
   {
-    userId: text("user_id").notNull().references(() => users.id),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id),
     role: text("role", { enum: ROLES }).notNull(),
   },
   (t) => [primaryKey({ columns: [t.userId, t.role] })],
@@ -35,7 +36,9 @@ export const sessions = sqliteTable(
   {
     /** SHA-256 (hex) of the token in the cookie: a copy of the database holds no usable session. */
     id: text("id").primaryKey(),
-    userId: text("user_id").notNull().references(() => users.id),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id),
     /** Unix seconds, as lucia's adapter writes it; moved forward on activity (idle timeout). */
     expiresAt: integer("expires_at").notNull(),
     /** Unix seconds; the absolute lifetime counts from here. */
@@ -62,7 +65,9 @@ export const passwordHistory = sqliteTable(
   "password_history",
   {
     id: id(),
-    userId: text("user_id").notNull().references(() => users.id),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id),
     passwordHash: text("password_hash").notNull(),
     createdAt: createdAt(),
   },
@@ -81,7 +86,9 @@ export const apiTokens = sqliteTable(
   "api_tokens",
   {
     id: id(),
-    userId: text("user_id").notNull().references(() => users.id),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id),
     name: text("name").notNull(),
     /** The first characters of the token, enough to recognise it in a list. */
     prefix: text("prefix").notNull(),

@@ -9,7 +9,9 @@ import { bool, createdAt, id } from "./columns";
  * fixed id makes a second set-up a primary-key clash rather than a second company.
  */
 export const companySettings = sqliteTable("company_settings", {
-  id: text("id").primaryKey().$defaultFn(() => "company"),
+  id: text("id")
+    .primaryKey()
+    .$defaultFn(() => "company"),
   companyName: text("company_name").notNull(),
   createdAt: createdAt(),
   updatedAt: text("updated_at"),
@@ -26,7 +28,9 @@ export type Site = typeof sites.$inferSelect;
 
 export const cleaningSystems = sqliteTable("cleaning_systems", {
   id: id(),
-  siteId: text("site_id").notNull().references(() => sites.id),
+  siteId: text("site_id")
+    .notNull()
+    .references(() => sites.id),
   code: text("code").notNull().unique(),
   /** The plant's own asset register number for the washer (unique when given). */
   assetNumber: text("asset_number").unique(),
@@ -40,7 +44,6 @@ export const cleaningSystems = sqliteTable("cleaning_systems", {
 });
 export type CleaningSystem = typeof cleaningSystems.$inferSelect;
 
-
 /**
  * One stage of a cleaning system: a step of its sequence and the modes it can run — a tank of a
  * multi-tank washer, or a step of a single-chamber machine fed from its own tank (spray wash,
@@ -51,7 +54,9 @@ export const systemStages = sqliteTable(
   "system_stages",
   {
     id: id(),
-    systemId: text("system_id").notNull().references(() => cleaningSystems.id),
+    systemId: text("system_id")
+      .notNull()
+      .references(() => cleaningSystems.id),
     position: integer("position").notNull(),
     name: text("name").notNull(),
     kind: text("kind", { enum: STAGE_KINDS }).notNull(),

@@ -8,7 +8,9 @@ import { cleaningSystems } from "./plant";
 
 export const recipes = sqliteTable("recipes", {
   id: id(),
-  systemId: text("system_id").notNull().references(() => cleaningSystems.id),
+  systemId: text("system_id")
+    .notNull()
+    .references(() => cleaningSystems.id),
   code: text("code").notNull().unique(),
   name: text("name").notNull(),
   description: text("description"),
@@ -16,12 +18,13 @@ export const recipes = sqliteTable("recipes", {
 });
 export type Recipe = typeof recipes.$inferSelect;
 
-
 export const recipeVersions = sqliteTable(
   "recipe_versions",
   {
     id: id(),
-    recipeId: text("recipe_id").notNull().references(() => recipes.id),
+    recipeId: text("recipe_id")
+      .notNull()
+      .references(() => recipes.id),
     version: integer("version").notNull(),
     status: text("status", { enum: RECIPE_VERSION_STATUSES }).notNull().default("draft"),
     detergent: text("detergent"),
@@ -39,7 +42,9 @@ export const recipeStages = sqliteTable(
   "recipe_stages",
   {
     id: id(),
-    versionId: text("version_id").notNull().references(() => recipeVersions.id),
+    versionId: text("version_id")
+      .notNull()
+      .references(() => recipeVersions.id),
     position: integer("position").notNull(),
     name: text("name").notNull(),
     kind: text("kind", { enum: STAGE_KINDS }).notNull(),
@@ -49,13 +54,16 @@ export const recipeStages = sqliteTable(
 );
 export type RecipeStage = typeof recipeStages.$inferSelect;
 
-
 export const recipeParameters = sqliteTable(
   "recipe_parameters",
   {
     id: id(),
-    versionId: text("version_id").notNull().references(() => recipeVersions.id),
-    stageId: text("stage_id").notNull().references(() => recipeStages.id),
+    versionId: text("version_id")
+      .notNull()
+      .references(() => recipeVersions.id),
+    stageId: text("stage_id")
+      .notNull()
+      .references(() => recipeStages.id),
     /** Stable across versions (e.g. "wash.temperature") so a parameter can be traced. */
     key: text("key").notNull(),
     name: text("name").notNull(),
@@ -67,7 +75,9 @@ export const recipeParameters = sqliteTable(
     validatedHigh: real("validated_high"),
     critical: bool("critical").notNull().default(false),
   },
-  (t) => [uniqueIndex("recipe_parameters_key_uq").on(t.versionId, t.key), index("recipe_parameters_key_idx").on(t.key)],
+  (t) => [
+    uniqueIndex("recipe_parameters_key_uq").on(t.versionId, t.key),
+    index("recipe_parameters_key_idx").on(t.key),
+  ],
 );
 export type RecipeParameter = typeof recipeParameters.$inferSelect;
-

@@ -3,7 +3,12 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import type { z } from "zod";
 import { unknownFieldErrors, unknownFieldsMessage } from "@/lib/api/strict-keys";
-import { declareEndpoint, permissionFor, type Declared, type PermissionSwitch } from "@/lib/auth/endpoint-rule";
+import {
+  declareEndpoint,
+  permissionFor,
+  type Declared,
+  type PermissionSwitch,
+} from "@/lib/auth/endpoint-rule";
 import type { Permission } from "@/lib/auth/permissions";
 import { deliverSoon } from "@/lib/email/deliver";
 import { authorize } from "@/lib/server/auth/current-user";
@@ -19,7 +24,9 @@ export type RevalidateTarget = string | readonly [string, "layout" | "page"];
  * What `run` hands back: a message (and any extra fields the form shows, such as a new token), or
  * `redirect` to go to another page once the change is committed, or a refusal it decided itself.
  */
-export type RunResult = { ok?: true; message?: string; redirect?: string } | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
+export type RunResult =
+  | { ok?: true; message?: string; redirect?: string }
+  | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
 
 type Extras<R> = R extends { ok: false } ? never : Omit<R, "ok" | "redirect" | "message">;
 /** The state a form reads with useActionState: the ActionResult shape, plus any fields `run` added (a new token). */
@@ -40,19 +47,31 @@ interface Common<S extends z.ZodType, R extends RunResult> {
   /** The headline when the input fails its schema; the field errors go beside the fields. */
   invalidMessage?: string;
   /** Pages to refresh after a success; a function gets the parsed input, `run`'s result and the form as read. */
-  revalidate?: readonly RevalidateTarget[] | ((input: z.output<S>, result: Exclude<R, { ok: false }>, raw: unknown) => readonly RevalidateTarget[]);
+  revalidate?:
+    | readonly RevalidateTarget[]
+    | ((
+        input: z.output<S>,
+        result: Exclude<R, { ok: false }>,
+        raw: unknown,
+      ) => readonly RevalidateTarget[]);
   /** The step queued e-mail in its transaction: send it once the change is committed. */
   sendsMail?: boolean;
 }
 
-export interface DefineActionOptions<S extends z.ZodType, R extends RunResult> extends Common<S, R> {
+export interface DefineActionOptions<S extends z.ZodType, R extends RunResult> extends Common<
+  S,
+  R
+> {
   permission: Permission;
   /** A field whose value switches to another permission, declared so the registry and tests see it. */
   when?: PermissionSwitch;
   run: (ctx: ActionContext<z.output<S>> & { user: SessionUser }) => Promise<R>;
 }
 
-export interface DefinePublicActionOptions<S extends z.ZodType, R extends RunResult> extends Common<S, R> {
+export interface DefinePublicActionOptions<S extends z.ZodType, R extends RunResult> extends Common<
+  S,
+  R
+> {
   run: (ctx: ActionContext<z.output<S>>) => Promise<R>;
 }
 
@@ -64,10 +83,20 @@ class InputRefused extends Error {
   }
 }
 
-function readRaw(formData: unknown, from: "form" | "payload", schema: z.ZodType): { ok: true; value: unknown } | { ok: false; message: string } {
+function readRaw(
+  formData: unknown,
+  from: "form" | "payload",
+  schema: z.ZodType,
+): { ok: true; value: unknown } | { ok: false; message: string } {
   // A caller can post anything to an action's id: a body that is not a form is refused, never thrown on.
-  if (!(formData instanceof FormData)) return { ok: false, message: "The form could not be read. Reload the page; nothing was saved." };
-  return from === "payload" ? readJsonPayload(formData) : { ok: true, value: readForm(formData, schema) };
+  if (!(formData instanceof FormData))
+    return {
+      ok: false,
+      message: "The form could not be read. Reload the page; nothing was saved.",
+    };
+  return from === "payload"
+    ? readJsonPayload(formData)
+    : { ok: true, value: readForm(formData, schema) };
 }
 
 function field(raw: unknown, name: string): unknown {
@@ -91,7 +120,12 @@ async function perform<S extends z.ZodType, R extends RunResult>(
   // name, never dropped. (A form's fields are read by name, so only what the schema asks is used.)
   if (options.from === "payload") {
     const extra = unknownFieldErrors(options.input, raw);
-    if (extra) return { ok: false, message: unknownFieldsMessage(extra), fieldErrors: extra } as ActionState<R>;
+    if (extra)
+      return {
+        ok: false,
+        message: unknownFieldsMessage(extra),
+        fieldErrors: extra,
+      } as ActionState<R>;
   }
   const parsed = options.input.safeParse(raw);
   if (!parsed.success) return invalid(parsed.error, options.invalidMessage) as ActionState<R>;
@@ -110,7 +144,10 @@ async function perform<S extends z.ZodType, R extends RunResult>(
   }
   if (result.ok === false) return result as ActionState<R>;
   if (options.sendsMail) deliverSoon();
-  const targets = typeof options.revalidate === "function" ? options.revalidate(input, result as Exclude<R, { ok: false }>, raw) : (options.revalidate ?? []);
+  const targets =
+    typeof options.revalidate === "function"
+      ? options.revalidate(input, result as Exclude<R, { ok: false }>, raw)
+      : (options.revalidate ?? []);
   refreshAll(targets);
   const { redirect: to, ...rest } = result as { redirect?: string } & Record<string, unknown>;
   // redirect() throws Next's own signal, so it comes after everything else and outside the try.
@@ -123,22 +160,32 @@ async function perform<S extends z.ZodType, R extends RunResult>(
  * read (a refused caller learns nothing from validation), then the input is parsed with its zod
  * schema, `run` calls the service, and the pages named in `revalidate` are refreshed.
  */
-export function defineAction<S extends z.ZodType, R extends RunResult>(options: DefineActionOptions<S, R>): Declared<FormAction<R>> {
+export function defineAction<S extends z.ZodType, R extends RunResult>(
+  options: DefineActionOptions<S, R>,
+): Declared<FormAction<R>> {
   const from = options.from ?? "form";
   const action = async (_prev: ActionState<R>, formData: FormData): Promise<ActionState<R>> => {
     const raw = readRaw(formData, from, options.input);
     // Only the switching field is looked at before access is decided, never validated.
-    const permission = permissionFor(options, (name) => (raw.ok ? field(raw.value, name) : undefined));
+    const permission = permissionFor(options, (name) =>
+      raw.ok ? field(raw.value, name) : undefined,
+    );
     const auth = await authorize(permission);
     if (!auth.ok) return auth as ActionState<R>;
     if (!raw.ok) return raw as ActionState<R>;
     return perform(options, raw.value, (ctx) => options.run({ ...ctx, user: auth.user }));
   };
-  return declareEndpoint(action, { auth: "session", permission: options.permission, ...(options.when ? { when: options.when } : {}) });
+  return declareEndpoint(action, {
+    auth: "session",
+    permission: options.permission,
+    ...(options.when ? { when: options.when } : {}),
+  });
 }
 
 /** The same for the few actions anyone may call (signing in). */
-export function definePublicAction<S extends z.ZodType, R extends RunResult>(options: DefinePublicActionOptions<S, R>): Declared<FormAction<R>> {
+export function definePublicAction<S extends z.ZodType, R extends RunResult>(
+  options: DefinePublicActionOptions<S, R>,
+): Declared<FormAction<R>> {
   const from = options.from ?? "form";
   const action = async (_prev: ActionState<R>, formData: FormData): Promise<ActionState<R>> => {
     const raw = readRaw(formData, from, options.input);
@@ -156,14 +203,21 @@ export function defineCallAction<S extends z.ZodType, R>(options: {
   permission: Permission;
   input: S;
   run: (ctx: { user: SessionUser; input: z.output<S> }) => Promise<R>;
-}): Declared<(input: z.input<S>) => Promise<R | { ok: false; message: string; fieldErrors?: Record<string, string[]> }>> {
+}): Declared<
+  (
+    input: z.input<S>,
+  ) => Promise<R | { ok: false; message: string; fieldErrors?: Record<string, string[]> }>
+> {
   const action = async (input: z.input<S>) => {
     const auth = await authorize(options.permission);
     if (!auth.ok) return { ok: false as const, message: auth.message, status: auth.status };
     const parsed = options.input.safeParse(input);
     if (!parsed.success) {
       const failure = invalid(parsed.error);
-      return { ...failure, message: parsed.error.issues[0]?.message ?? "The input could not be read." } as { ok: false; message: string };
+      return {
+        ...failure,
+        message: parsed.error.issues[0]?.message ?? "The input could not be read.",
+      } as { ok: false; message: string };
     }
     try {
       return await options.run({ user: auth.user, input: parsed.data });
@@ -173,4 +227,3 @@ export function defineCallAction<S extends z.ZodType, R>(options: {
   };
   return declareEndpoint(action, { auth: "session", permission: options.permission });
 }
-

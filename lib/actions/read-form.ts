@@ -1,10 +1,25 @@
 import type { z } from "zod";
 import { formToObject } from "@/lib/schemas/evidence";
 
-type Def = { type: string; innerType?: z.ZodType; in?: z.ZodType; out?: z.ZodType; shape?: Record<string, z.ZodType> };
-const defOf = (schema: z.ZodType | undefined): Def | undefined => (schema as unknown as { _zod?: { def: Def } } | undefined)?._zod?.def;
+type Def = {
+  type: string;
+  innerType?: z.ZodType;
+  in?: z.ZodType;
+  out?: z.ZodType;
+  shape?: Record<string, z.ZodType>;
+};
+const defOf = (schema: z.ZodType | undefined): Def | undefined =>
+  (schema as unknown as { _zod?: { def: Def } } | undefined)?._zod?.def;
 
-const WRAPPERS = new Set(["optional", "nullable", "default", "prefault", "catch", "readonly", "nonoptional"]);
+const WRAPPERS = new Set([
+  "optional",
+  "nullable",
+  "default",
+  "prefault",
+  "catch",
+  "readonly",
+  "nonoptional",
+]);
 
 /** Whether a field's schema, under its optional/default/transform wrappers, takes a list. */
 function takesArray(schema: z.ZodType | undefined, depth = 0): boolean {
@@ -20,9 +35,11 @@ function takesArray(schema: z.ZodType | undefined, depth = 0): boolean {
 function shapeOf(schema: z.ZodType, depth = 0): Record<string, z.ZodType> | undefined {
   const def = defOf(schema);
   if (!def || depth > 8) return undefined;
-  if (def.type === "object") return (schema as unknown as { shape: Record<string, z.ZodType> }).shape;
+  if (def.type === "object")
+    return (schema as unknown as { shape: Record<string, z.ZodType> }).shape;
   if (WRAPPERS.has(def.type)) return def.innerType && shapeOf(def.innerType, depth + 1);
-  if (def.type === "pipe") return (def.in && shapeOf(def.in, depth + 1)) ?? (def.out && shapeOf(def.out, depth + 1));
+  if (def.type === "pipe")
+    return (def.in && shapeOf(def.in, depth + 1)) ?? (def.out && shapeOf(def.out, depth + 1));
   return undefined;
 }
 

@@ -19,10 +19,15 @@ export function invalid(error: z.ZodError, message = "Some fields need attention
 }
 
 /** Editors that keep their rows in client state submit them as one JSON field, "payload". */
-export function readJsonPayload(formData: FormData): { ok: true; value: unknown } | { ok: false; message: string } {
+export function readJsonPayload(
+  formData: FormData,
+): { ok: true; value: unknown } | { ok: false; message: string } {
   try {
     return { ok: true, value: JSON.parse(String(formData.get("payload") ?? "null")) };
   } catch {
-    return { ok: false, message: "The form could not be read. Reload the page; nothing was saved." };
+    return {
+      ok: false,
+      message: "The form could not be read. Reload the page; nothing was saved.",
+    };
   }
 }

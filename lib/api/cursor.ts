@@ -9,7 +9,13 @@ export function encodeCursor(key: string, id: string): string {
 export function decodeCursor(cursor: string): { key: string; id: string } | null {
   try {
     const value: unknown = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8"));
-    if (Array.isArray(value) && value.length === 2 && typeof value[0] === "string" && typeof value[1] === "string") return { key: value[0], id: value[1] };
+    if (
+      Array.isArray(value) &&
+      value.length === 2 &&
+      typeof value[0] === "string" &&
+      typeof value[1] === "string"
+    )
+      return { key: value[0], id: value[1] };
   } catch {
     // fall through: not a cursor we issued
   }

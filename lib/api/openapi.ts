@@ -24,7 +24,13 @@ import {
   testRunsQuery,
 } from "@/lib/schemas/api";
 import { V1_ENDPOINTS } from "@/lib/api/v1-routes";
-import { conductivitySampleSchema, gravimetricSampleSchema, observationSampleSchema, particleSampleSchema, wettingSampleSchema } from "@/lib/schemas/evidence";
+import {
+  conductivitySampleSchema,
+  gravimetricSampleSchema,
+  observationSampleSchema,
+  particleSampleSchema,
+  wettingSampleSchema,
+} from "@/lib/schemas/evidence";
 
 export interface ApiOperation {
   method: "get" | "post";
@@ -47,56 +53,121 @@ export function endpointKey(op: Pick<ApiOperation, "method" | "path">): string {
 /** Who may call an operation is what its route handler declared (apiRoute), which the authorisation tests hold it to. */
 function accessText(op: ApiOperation): string {
   const rule = V1_ENDPOINTS[endpointKey(op)];
-  if (rule?.auth !== "token") throw new Error(`${endpointKey(op)} declares no token rule (apiRoute)`);
+  if (rule?.auth !== "token")
+    throw new Error(`${endpointKey(op)} declares no token rule (apiRoute)`);
   return `Allowed to the roles that may "${rule.permission}" in the role table${rule.scope === "read_write" ? ", with a read-and-write token" : ""}.`;
 }
 
-const uuidParam = (description: string) => ({ description, schema: { type: "string", format: "uuid" } });
+const uuidParam = (description: string) => ({
+  description,
+  schema: { type: "string", format: "uuid" },
+});
 
 /** Every /api/v1 operation; the route handlers parse with the same schemas. */
 export const API_OPERATIONS: ApiOperation[] = [
-  { method: "get", path: "/cleaning-systems", operationId: "listCleaningSystems", summary: "Cleaning systems with their stages", query: pageQuery, response: cleaningSystemPage, errors: [400, 401, 403] },
-  { method: "get", path: "/recipes", operationId: "listRecipes", summary: "Recipes with their versions", query: recipesQuery, response: recipePage, errors: [400, 401, 403] },
-  { method: "get", path: "/recipes/{recipeId}", operationId: "getRecipe", summary: "One recipe with its versions", pathParams: { recipeId: uuidParam("Recipe id") }, response: recipeOut, errors: [401, 403, 404] },
+  {
+    method: "get",
+    path: "/cleaning-systems",
+    operationId: "listCleaningSystems",
+    summary: "Cleaning systems with their stages",
+    query: pageQuery,
+    response: cleaningSystemPage,
+    errors: [400, 401, 403],
+  },
+  {
+    method: "get",
+    path: "/recipes",
+    operationId: "listRecipes",
+    summary: "Recipes with their versions",
+    query: recipesQuery,
+    response: recipePage,
+    errors: [400, 401, 403],
+  },
+  {
+    method: "get",
+    path: "/recipes/{recipeId}",
+    operationId: "getRecipe",
+    summary: "One recipe with its versions",
+    pathParams: { recipeId: uuidParam("Recipe id") },
+    response: recipeOut,
+    errors: [401, 403, 404],
+  },
   {
     method: "get",
     path: "/recipes/{recipeId}/versions/{version}",
     operationId: "getRecipeVersion",
     summary: "One recipe version: stages and parameters with setpoints and validated ranges",
-   
-    pathParams: { recipeId: uuidParam("Recipe id"), version: { description: "Version number", schema: { type: "integer", minimum: 1 } } },
+
+    pathParams: {
+      recipeId: uuidParam("Recipe id"),
+      version: { description: "Version number", schema: { type: "integer", minimum: 1 } },
+    },
     response: recipeVersionOut,
     errors: [401, 403, 404],
   },
-  { method: "get", path: "/part-families", operationId: "listPartFamilies", summary: "Part families with the specification revision in force for each", query: partFamiliesQuery, response: partFamilyPage, errors: [400, 401, 403] },
-  { method: "get", path: "/specifications", operationId: "listSpecifications", summary: "Customer cleanliness specifications, one record per revision", query: specificationsQuery, response: specificationPage, errors: [400, 401, 403] },
+  {
+    method: "get",
+    path: "/part-families",
+    operationId: "listPartFamilies",
+    summary: "Part families with the specification revision in force for each",
+    query: partFamiliesQuery,
+    response: partFamilyPage,
+    errors: [400, 401, 403],
+  },
+  {
+    method: "get",
+    path: "/specifications",
+    operationId: "listSpecifications",
+    summary: "Customer cleanliness specifications, one record per revision",
+    query: specificationsQuery,
+    response: specificationPage,
+    errors: [400, 401, 403],
+  },
   {
     method: "get",
     path: "/qualified-combinations",
     operationId: "listQualifiedCombinations",
-    summary: "Which recipe version is validated for which part family, and when it is due for requalification",
+    summary:
+      "Which recipe version is validated for which part family, and when it is due for requalification",
     query: qualifiedCombinationsQuery,
     response: qualifiedCombinationPage,
     errors: [400, 401, 403],
   },
-  { method: "get", path: "/change-requests", operationId: "listChangeRequests", summary: "Change requests", query: changeRequestsQuery, response: changeRequestPage, errors: [400, 401, 403] },
+  {
+    method: "get",
+    path: "/change-requests",
+    operationId: "listChangeRequests",
+    summary: "Change requests",
+    query: changeRequestsQuery,
+    response: changeRequestPage,
+    errors: [400, 401, 403],
+  },
   {
     method: "get",
     path: "/change-requests/{changeRequestId}",
     operationId: "getChangeRequest",
-    summary: "One change request: justification, parameter changes, required tests, signatures and evidence",
-   
+    summary:
+      "One change request: justification, parameter changes, required tests, signatures and evidence",
+
     pathParams: { changeRequestId: uuidParam("Change request id") },
     response: changeRequestDetailOut,
     errors: [401, 403, 404],
   },
-  { method: "get", path: "/test-runs", operationId: "listTestRuns", summary: "Test runs with their computed outcomes", query: testRunsQuery, response: testRunPage, errors: [400, 401, 403] },
+  {
+    method: "get",
+    path: "/test-runs",
+    operationId: "listTestRuns",
+    summary: "Test runs with their computed outcomes",
+    query: testRunsQuery,
+    response: testRunPage,
+    errors: [400, 401, 403],
+  },
   {
     method: "get",
     path: "/test-runs/{runId}",
     operationId: "getTestRun",
     summary: "One test run: raw data per sample, files with their SHA-256, signatures",
-   
+
     pathParams: { runId: uuidParam("Test run id") },
     response: testRunDetailOut,
     errors: [401, 403, 404],
@@ -105,15 +176,34 @@ export const API_OPERATIONS: ApiOperation[] = [
     method: "post",
     path: "/test-runs/{runId}/samples",
     operationId: "addTestSample",
-    summary: "Add one sample's raw data to an open run; the outcome is recomputed from the stored samples",
-   
+    summary:
+      "Add one sample's raw data to an open run; the outcome is recomputed from the stored samples",
+
     pathParams: { runId: uuidParam("Test run id (the run must be open)") },
-    body: z.union([particleSampleSchema, gravimetricSampleSchema, wettingSampleSchema, conductivitySampleSchema, observationSampleSchema]).describe("The sample schema of the run's test type, in this order: particle cleanliness, gravimetric, wetting tension, rinse conductivity, visual / UV / dryness"),
+    body: z
+      .union([
+        particleSampleSchema,
+        gravimetricSampleSchema,
+        wettingSampleSchema,
+        conductivitySampleSchema,
+        observationSampleSchema,
+      ])
+      .describe(
+        "The sample schema of the run's test type, in this order: particle cleanliness, gravimetric, wetting tension, rinse conductivity, visual / UV / dryness",
+      ),
     response: sampleAddedOut,
     status: 201,
     errors: [400, 401, 403, 404, 409, 415, 422, 423, 503],
   },
-  { method: "get", path: "/audit-events", operationId: "listAuditEvents", summary: "The audit trail, newest first", query: auditEventsQuery, response: auditEventPage, errors: [400, 401, 403] },
+  {
+    method: "get",
+    path: "/audit-events",
+    operationId: "listAuditEvents",
+    summary: "The audit trail, newest first",
+    query: auditEventsQuery,
+    response: auditEventPage,
+    errors: [400, 401, 403],
+  },
 ];
 
 const ERROR_TEXT: Record<number, string> = {
@@ -130,7 +220,11 @@ const ERROR_TEXT: Record<number, string> = {
 
 /** A JSON Schema for embedding in the document: the dialect is the document's, not repeated per schema. */
 function embedded(schema: z.ZodType, io: "input" | "output") {
-  const { $schema: _dialect, ...rest } = z.toJSONSchema(schema, { io, target: "draft-2020-12", unrepresentable: "any" }) as Record<string, unknown>;
+  const { $schema: _dialect, ...rest } = z.toJSONSchema(schema, {
+    io,
+    target: "draft-2020-12",
+    unrepresentable: "any",
+  }) as Record<string, unknown>;
   return rest;
 }
 
@@ -140,7 +234,10 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
     const id = apiRegistry.get(schema)?.id;
     return id ? { $ref: `#/components/schemas/${id}` } : embedded(schema, "output");
   };
-  const components = z.toJSONSchema(apiRegistry, { target: "draft-2020-12", uri: (id) => `#/components/schemas/${id}` }).schemas;
+  const components = z.toJSONSchema(apiRegistry, {
+    target: "draft-2020-12",
+    uri: (id) => `#/components/schemas/${id}`,
+  }).schemas;
   // Components are named by their key; a per-schema $id or $schema would only confuse tools.
   for (const schema of Object.values(components)) {
     delete (schema as { $schema?: string }).$schema;
@@ -149,24 +246,52 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
 
   const paths: Record<string, Record<string, unknown>> = {};
   for (const op of API_OPERATIONS) {
-    const parameters: unknown[] = Object.entries(op.pathParams ?? {}).map(([name, p]) => ({ name, in: "path", required: true, ...p }));
+    const parameters: unknown[] = Object.entries(op.pathParams ?? {}).map(([name, p]) => ({
+      name,
+      in: "path",
+      required: true,
+      ...p,
+    }));
     if (op.query) {
-      const json = z.toJSONSchema(op.query, { io: "input", target: "draft-2020-12" }) as { properties?: Record<string, Record<string, unknown>>; required?: string[] };
+      const json = z.toJSONSchema(op.query, { io: "input", target: "draft-2020-12" }) as {
+        properties?: Record<string, Record<string, unknown>>;
+        required?: string[];
+      };
       for (const [name, schema] of Object.entries(json.properties ?? {})) {
         const { description, ...rest } = schema;
-        parameters.push({ name, in: "query", required: (json.required ?? []).includes(name) && !("default" in schema), ...(description ? { description } : {}), schema: rest });
+        parameters.push({
+          name,
+          in: "query",
+          required: (json.required ?? []).includes(name) && !("default" in schema),
+          ...(description ? { description } : {}),
+          schema: rest,
+        });
       }
     }
     const responses: Record<string, unknown> = {
-      [String(op.status ?? 200)]: { description: "OK", content: { "application/json": { schema: ref(op.response) } } },
+      [String(op.status ?? 200)]: {
+        description: "OK",
+        content: { "application/json": { schema: ref(op.response) } },
+      },
     };
-    for (const code of op.errors) responses[String(code)] = { description: ERROR_TEXT[code], content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } };
+    for (const code of op.errors)
+      responses[String(code)] = {
+        description: ERROR_TEXT[code],
+        content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } },
+      };
     (paths[op.path] ??= {})[op.method] = {
       operationId: op.operationId,
       summary: op.summary,
       description: accessText(op),
       parameters,
-      ...(op.body ? { requestBody: { required: true, content: { "application/json": { schema: embedded(op.body, "input") } } } } : {}),
+      ...(op.body
+        ? {
+            requestBody: {
+              required: true,
+              content: { "application/json": { schema: embedded(op.body, "input") } },
+            },
+          }
+        : {}),
       responses,
     };
   }
@@ -181,6 +306,11 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
     servers: [{ url: serverUrl }],
     security: [{ bearerAuth: [] }],
     paths,
-    components: { securitySchemes: { bearerAuth: { type: "http", scheme: "bearer", description: "A personal API token, wpk_…" } }, schemas: components },
+    components: {
+      securitySchemes: {
+        bearerAuth: { type: "http", scheme: "bearer", description: "A personal API token, wpk_…" },
+      },
+      schemas: components,
+    },
   };
 }

@@ -13,7 +13,8 @@ type Def = {
   left?: z.ZodType;
   right?: z.ZodType;
 };
-const defOf = (schema: z.ZodType | undefined): Def | undefined => (schema as unknown as { _zod?: { def: Def } } | undefined)?._zod?.def;
+const defOf = (schema: z.ZodType | undefined): Def | undefined =>
+  (schema as unknown as { _zod?: { def: Def } } | undefined)?._zod?.def;
 
 /**
  * The field names an object schema accepts, looking through refinements and
@@ -29,15 +30,24 @@ export function knownKeys(schema: z.ZodType): Set<string> | null {
   return inner ? knownKeys(inner) : null;
 }
 
-const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && !Array.isArray(v);
+const isPlainObject = (v: unknown): v is Record<string, unknown> =>
+  typeof v === "object" && v !== null && !Array.isArray(v);
 
 function message(key: string, known: Iterable<string>): string {
   // A mis-cased key ("b" for class "B") is the likeliest slip of an integrator: say which one was meant.
   const meant = [...known].find((k) => k !== key && k.toLowerCase() === key.toLowerCase());
-  return meant ? `Unknown field "${key}": did you mean "${meant}"? Field names are case-sensitive.` : `Unknown field "${key}".`;
+  return meant
+    ? `Unknown field "${key}": did you mean "${meant}"? Field names are case-sensitive.`
+    : `Unknown field "${key}".`;
 }
 
-function walk(schema: z.ZodType | undefined, value: unknown, path: string[], out: Record<string, string[]>, depth: number): void {
+function walk(
+  schema: z.ZodType | undefined,
+  value: unknown,
+  path: string[],
+  out: Record<string, string[]>,
+  depth: number,
+): void {
   const def = defOf(schema);
   if (!def || depth > 32 || value === undefined || value === null) return;
   switch (def.type) {
@@ -55,10 +65,13 @@ function walk(schema: z.ZodType | undefined, value: unknown, path: string[], out
     case "pipe":
       return walk(def.in, value, path, out, depth + 1);
     case "array":
-      if (Array.isArray(value)) value.forEach((item, i) => walk(def.element, item, [...path, String(i)], out, depth + 1));
+      if (Array.isArray(value))
+        value.forEach((item, i) => walk(def.element, item, [...path, String(i)], out, depth + 1));
       return;
     case "record":
-      if (isPlainObject(value)) for (const [key, child] of Object.entries(value)) walk(def.valueType, child, [...path, key], out, depth + 1);
+      if (isPlainObject(value))
+        for (const [key, child] of Object.entries(value))
+          walk(def.valueType, child, [...path, key], out, depth + 1);
       return;
     case "union": {
       // The option that fits best decides: no complaint if any option takes every key.
@@ -93,7 +106,10 @@ function walk(schema: z.ZodType | undefined, value: unknown, path: string[], out
  * its dotted path ("counts.b"). zod's plain objects drop such keys silently, so a lab result posted
  * with a lower-case class would store no counts and look clean; this refuses it instead.
  */
-export function unknownFieldErrors(schema: z.ZodType, body: unknown): Record<string, string[]> | null {
+export function unknownFieldErrors(
+  schema: z.ZodType,
+  body: unknown,
+): Record<string, string[]> | null {
   const out: Record<string, string[]> = {};
   walk(schema, body, [], out, 0);
   return Object.keys(out).length ? out : null;
@@ -102,6 +118,9 @@ export function unknownFieldErrors(schema: z.ZodType, body: unknown): Record<str
 /** The headline for a body refused for unknown keys, naming the first few. */
 export function unknownFieldsMessage(errors: Record<string, string[]>): string {
   const keys = Object.keys(errors);
-  const named = keys.slice(0, 5).map((k) => `"${k}"`).join(", ");
+  const named = keys
+    .slice(0, 5)
+    .map((k) => `"${k}"`)
+    .join(", ");
   return `${keys.length === 1 ? "This field is" : "These fields are"} not known here: ${named}${keys.length > 5 ? ` and ${keys.length - 5} more` : ""}. Nothing was saved.`;
 }

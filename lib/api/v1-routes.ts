@@ -27,7 +27,8 @@ export const V1_ROUTE_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/v1/part-families/route.ts": apiV1PartFamiliesRoute,
   "app/api/v1/qualified-combinations/route.ts": apiV1QualifiedCombinationsRoute,
   "app/api/v1/recipes/[recipeId]/route.ts": apiV1RecipesRecipeidRoute,
-  "app/api/v1/recipes/[recipeId]/versions/[version]/route.ts": apiV1RecipesRecipeidVersionsVersionRoute,
+  "app/api/v1/recipes/[recipeId]/versions/[version]/route.ts":
+    apiV1RecipesRecipeidVersionsVersionRoute,
   "app/api/v1/recipes/route.ts": apiV1RecipesRoute,
   "app/api/v1/specifications/route.ts": apiV1SpecificationsRoute,
   "app/api/v1/test-runs/[runId]/samples/route.ts": apiV1TestRunsRunidSamplesRoute,

@@ -11,7 +11,12 @@ import { chainHash, GENESIS_HASH } from "./hash";
  * the change it records, so both commit or neither does. SQLite serialises write
  * transactions, so reading the last hash here cannot race another writer.
  */
-export async function appendAudit(tx: Tx, actor: AuditActor, input: AuditEventInput, now = new Date()) {
+export async function appendAudit(
+  tx: Tx,
+  actor: AuditActor,
+  input: AuditEventInput,
+  now = new Date(),
+) {
   const event = auditEventSchema.parse(input);
   const [last] = await tx
     .select({ seq: auditEvents.seq, hash: auditEvents.hash })
@@ -36,7 +41,9 @@ export async function appendAudit(tx: Tx, actor: AuditActor, input: AuditEventIn
   // cut short and a lone surrogate as U+FFFD, and the event would then look altered.
   for (const [name, value] of Object.entries(fields)) {
     if (typeof value === "string" && !readsBackUnchanged(value)) {
-      throw new Error(`appendAudit: ${name} holds a NUL or a lone surrogate, which the database cannot store as given`);
+      throw new Error(
+        `appendAudit: ${name} holds a NUL or a lone surrogate, which the database cannot store as given`,
+      );
     }
   }
   const hash = chainHash(fields);

@@ -143,13 +143,22 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     old: obj({ active: z.boolean() }),
     new: obj({ active: z.boolean(), suspendedApiTokens: z.array(text).optional() }),
   }),
-  event("user.password_reset", "user", { new: obj({ mustChangePassword: z.literal(true), suspendedApiTokens: z.array(text).optional() }) }),
+  event("user.password_reset", "user", {
+    new: obj({ mustChangePassword: z.literal(true), suspendedApiTokens: z.array(text).optional() }),
+  }),
   // Plant, parts and recipes
   event("company.set_up", "company", { new: obj({ companyName: text }) }),
   event("site.created", "site", { new: obj({ name: text, location: text.nullable() }) }),
   event("cleaning_system.created", "cleaning_system", {
     new: z.union([
-      obj({ code: text, assetNumber: text.nullable(), name: text, kind: text, description: text.nullable(), stages: z.array(text) }),
+      obj({
+        code: text,
+        assetNumber: text.nullable(),
+        name: text,
+        kind: text,
+        description: text.nullable(),
+        stages: z.array(text),
+      }),
       // Before asset numbers and kinds were recorded.
       obj({ code: text, name: text, stages: z.array(text) }),
     ]),
@@ -169,29 +178,31 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: obj({ status: z.literal("superseded"), by: text }),
   }),
   event("cleanliness_spec.created", "cleanliness_spec", {
-    new: specDetails.or(obj({
-      code: text,
-      name: text,
-      ccc: text.nullable(),
-      maxMetallicUm: z.number().nullable(),
-      maxNonMetallicUm: z.number().nullable(),
-      maxFibreUm: z.number().nullable(),
-      gravimetricLimitMg: z.number().nullable(),
-      gravimetricBasis: z.enum(["per_component", "per_1000_cm2"]).nullable(),
-      minWettingTensionMNm: z.number().nullable(),
-      visualCriteria: text.nullable(),
-      drynessCriteria: text.nullable(),
-    }).partial({
-      ccc: true,
-      maxMetallicUm: true,
-      maxNonMetallicUm: true,
-      maxFibreUm: true,
-      gravimetricLimitMg: true,
-      gravimetricBasis: true,
-      minWettingTensionMNm: true,
-      visualCriteria: true,
-      drynessCriteria: true,
-    })),
+    new: specDetails.or(
+      obj({
+        code: text,
+        name: text,
+        ccc: text.nullable(),
+        maxMetallicUm: z.number().nullable(),
+        maxNonMetallicUm: z.number().nullable(),
+        maxFibreUm: z.number().nullable(),
+        gravimetricLimitMg: z.number().nullable(),
+        gravimetricBasis: z.enum(["per_component", "per_1000_cm2"]).nullable(),
+        minWettingTensionMNm: z.number().nullable(),
+        visualCriteria: text.nullable(),
+        drynessCriteria: text.nullable(),
+      }).partial({
+        ccc: true,
+        maxMetallicUm: true,
+        maxNonMetallicUm: true,
+        maxFibreUm: true,
+        gravimetricLimitMg: true,
+        gravimetricBasis: true,
+        minWettingTensionMNm: true,
+        visualCriteria: true,
+        drynessCriteria: true,
+      }),
+    ),
   }),
   event("part_family.updated", "part_family", {
     // A whole edit, or only the specification a new revision moved it to.
@@ -199,25 +210,34 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: familyDetails.or(obj({ specification: text })),
   }),
   event("part_family.created", "part_family", {
-    new: familyDetails.or(obj({
-      code: text,
-      name: text,
-      material: text,
-      wettedAreaCm2: z.number(),
-      wettedVolumeCm3: z.number().nullable(),
-      spec: text,
-    })),
+    new: familyDetails.or(
+      obj({
+        code: text,
+        name: text,
+        material: text,
+        wettedAreaCm2: z.number(),
+        wettedVolumeCm3: z.number().nullable(),
+        spec: text,
+      }),
+    ),
   }),
   event("combination.qualified", "requalification_interval", {
     new: obj({ combination: text, basis: text, qualifiedOn: text, intervalMonths: count }),
   }),
   event("recipe.created", "recipe", {
-    new: obj({ code: text, name: text, system: text, description: text.nullable() }).or(obj({ code: text, name: text })),
+    new: obj({ code: text, name: text, system: text, description: text.nullable() }).or(
+      obj({ code: text, name: text }),
+    ),
   }),
   event("recipe_version.created", "recipe_version", {
     new: z.union([
       // A new recipe's first version, with its whole content as entered.
-      obj({ recipe: text, version, status: z.literal("draft"), content: z.record(z.string(), z.unknown()) }),
+      obj({
+        recipe: text,
+        version,
+        status: z.literal("draft"),
+        content: z.record(z.string(), z.unknown()),
+      }),
       obj({ recipe: text, version, notes: text.nullable() }),
     ]),
   }),
@@ -274,14 +294,28 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   event("audit.verified", "audit_trail", {
     new: z.union([
       // Since checkpoints: the chain, the checkpoints and every signature, with what was found.
-      obj({ ok: z.boolean(), events: count, checkpoints: count, signatures: count, findings: z.array(text) }),
+      obj({
+        ok: z.boolean(),
+        events: count,
+        checkpoints: count,
+        signatures: count,
+        findings: z.array(text),
+      }),
       // Before them: the chain alone.
       obj({ ok: z.literal(true), events: count }),
       obj({ ok: z.literal(false), brokenAt: z.number().int(), reason: text }),
     ]),
   }),
   event("audit.checkpointed", "audit_trail", {
-    new: obj({ seq: count, hash: sha256, at: isoTime, keyId: text, signature: text, emailedTo: text.nullable(), mailId: text.nullable() }),
+    new: obj({
+      seq: count,
+      hash: sha256,
+      at: isoTime,
+      keyId: text,
+      signature: text,
+      emailedTo: text.nullable(),
+      mailId: text.nullable(),
+    }),
   }),
   // Controlled documents: the document's life, recorded on the version it concerns
   event("document.created", "document", {
@@ -563,7 +597,12 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   }),
   event("api_token.created", "api_token", {
     // Tokens expire since 2026-12; earlier events carry no expiry.
-    new: obj({ name: text, scope: z.enum(API_TOKEN_SCOPES), prefix: text, expiresAt: isoTime.optional() }),
+    new: obj({
+      name: text,
+      scope: z.enum(API_TOKEN_SCOPES),
+      prefix: text,
+      expiresAt: isoTime.optional(),
+    }),
   }),
   event("api_token.revoked", "api_token", {
     old: obj({ revokedAt: z.null() }),

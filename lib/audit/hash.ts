@@ -4,7 +4,9 @@ export const GENESIS_HASH = "0".repeat(64);
 
 // The one-shot crypto.hash (Node 20.12+, 21.7+) skips building a Hash object per call: verifying a
 // million-event chain is mostly these calls. Older runtimes fall back to createHash.
-const oneShot = (crypto as { hash?: (algorithm: string, data: string | Uint8Array, encoding: "hex") => string }).hash;
+const oneShot = (
+  crypto as { hash?: (algorithm: string, data: string | Uint8Array, encoding: "hex") => string }
+).hash;
 
 export const sha256Hex: (input: string | Uint8Array) => string = oneShot
   ? (input) => oneShot("sha256", input, "hex")

@@ -11,7 +11,14 @@ export interface ChainBreak {
 
 export type ChainVerification =
   | { ok: true; events: number; lastHash: string; breaks: [] }
-  | { ok: false; events: number; lastHash: string; brokenAt: number; reason: string; breaks: ChainBreak[] };
+  | {
+      ok: false;
+      events: number;
+      lastHash: string;
+      brokenAt: number;
+      reason: string;
+      breaks: ChainBreak[];
+    };
 
 const PAGE = 5000;
 
@@ -28,7 +35,10 @@ const PAGE = 5000;
  * columns, which tests/unit/audit-chain.test.ts checks). A page that is short
  * or shows any flaw is re-read row by row, which names each broken link.
  */
-export async function verifyAuditChain(db: Executor, options: { page?: number } = {}): Promise<ChainVerification> {
+export async function verifyAuditChain(
+  db: Executor,
+  options: { page?: number } = {},
+): Promise<ChainVerification> {
   const page = options.page ?? PAGE;
   const breaks: ChainBreak[] = [];
   let prev = GENESIS_HASH;
@@ -49,12 +59,26 @@ export async function verifyAuditChain(db: Executor, options: { page?: number } 
       continue;
     }
     ahead?.catch(() => undefined);
-    const rows = await db.select().from(auditEvents).where(gte(auditEvents.seq, from)).orderBy(asc(auditEvents.seq)).limit(page);
+    const rows = await db
+      .select()
+      .from(auditEvents)
+      .where(gte(auditEvents.seq, from))
+      .orderBy(asc(auditEvents.seq))
+      .limit(page);
     for (const row of rows) {
       if (row.seq !== from) {
-        breaks.push({ seq: from, reason: from === row.seq - 1 ? `event ${from} is missing` : `events ${from}–${row.seq - 1} are missing` });
+        breaks.push({
+          seq: from,
+          reason:
+            from === row.seq - 1
+              ? `event ${from} is missing`
+              : `events ${from}–${row.seq - 1} are missing`,
+        });
       } else if (row.prevHash !== prev) {
-        breaks.push({ seq: row.seq, reason: `event ${row.seq} does not link to event ${row.seq - 1}` });
+        breaks.push({
+          seq: row.seq,
+          reason: `event ${row.seq} does not link to event ${row.seq - 1}`,
+        });
       }
       if (chainHash(row) !== row.hash) {
         breaks.push({ seq: row.seq, reason: `event ${row.seq} was altered after it was written` });
@@ -66,12 +90,27 @@ export async function verifyAuditChain(db: Executor, options: { page?: number } 
     if (rows.length < page) break;
     next = chainTextPage(db, from, page);
   }
-  const counter = await db.get<{ seq: number } | undefined>(sql`SELECT seq FROM sqlite_sequence WHERE name = 'audit_events'`);
+  const counter = await db.get<{ seq: number } | undefined>(
+    sql`SELECT seq FROM sqlite_sequence WHERE name = 'audit_events'`,
+  );
   if (counter && counter.seq >= from) {
-    breaks.push({ seq: from, reason: from === counter.seq ? `event ${from} was removed from the end` : `events ${from}–${counter.seq} were removed from the end` });
+    breaks.push({
+      seq: from,
+      reason:
+        from === counter.seq
+          ? `event ${from} was removed from the end`
+          : `events ${from}–${counter.seq} were removed from the end`,
+    });
   }
   if (breaks.length === 0) return { ok: true, events: count, lastHash: prev, breaks: [] };
-  return { ok: false, events: count, lastHash: prev, brokenAt: breaks[0].seq, reason: breaks[0].reason, breaks };
+  return {
+    ok: false,
+    events: count,
+    lastHash: prev,
+    brokenAt: breaks[0].seq,
+    reason: breaks[0].reason,
+    breaks,
+  };
 }
 
 /**

@@ -26,18 +26,28 @@ export const ENDPOINT_RULE = "endpointRule";
 export type Declared<F> = F & { readonly [ENDPOINT_RULE]: EndpointRule };
 
 /** Attaches the rule to the function the framework calls, so the endpoint and its rule cannot drift. */
-export function declareEndpoint<F extends (...args: never[]) => unknown>(fn: F, rule: EndpointRule): Declared<F> {
+export function declareEndpoint<F extends (...args: never[]) => unknown>(
+  fn: F,
+  rule: EndpointRule,
+): Declared<F> {
   Object.defineProperty(fn, ENDPOINT_RULE, { value: rule, enumerable: false });
   return fn as Declared<F>;
 }
 
 export function ruleOf(fn: unknown): EndpointRule | undefined {
-  return typeof fn === "function" ? ((fn as unknown as Record<string, unknown>)[ENDPOINT_RULE] as EndpointRule | undefined) : undefined;
+  return typeof fn === "function"
+    ? ((fn as unknown as Record<string, unknown>)[ENDPOINT_RULE] as EndpointRule | undefined)
+    : undefined;
 }
 
 /** The permission a call needs: the switched one when the switching field holds its value. */
-export function permissionFor(rule: { permission: Permission; when?: PermissionSwitch }, read: (field: string) => unknown): Permission {
-  return rule.when && read(rule.when.field) === rule.when.value ? rule.when.permission : rule.permission;
+export function permissionFor(
+  rule: { permission: Permission; when?: PermissionSwitch },
+  read: (field: string) => unknown,
+): Permission {
+  return rule.when && read(rule.when.field) === rule.when.value
+    ? rule.when.permission
+    : rule.permission;
 }
 
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
@@ -47,7 +57,9 @@ const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
  * "<file>#<export>" for actions, "<METHOD> <file>" for route handlers. An export with no
  * declaration is left out, so the registry test names it as undeclared.
  */
-export function rulesOf(modules: Record<string, Record<string, unknown>>): Record<string, EndpointRule> {
+export function rulesOf(
+  modules: Record<string, Record<string, unknown>>,
+): Record<string, EndpointRule> {
   const out: Record<string, EndpointRule> = {};
   for (const [file, mod] of Object.entries(modules)) {
     const isRoute = file.endsWith("/route.ts");

@@ -55,7 +55,8 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/audit-events/export/route.ts": apiAuditEventsExportRoute,
   "app/api/audit-events/route.ts": apiAuditEventsRoute,
   "app/api/audit-pack/[changeId]/route.ts": apiAuditPackChangeidRoute,
-  "app/api/documents/[documentId]/versions/[version]/pdf/route.ts": apiDocumentsDocumentidVersionsVersionPdfRoute,
+  "app/api/documents/[documentId]/versions/[version]/pdf/route.ts":
+    apiDocumentsDocumentidVersionsVersionPdfRoute,
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,
   "app/api/evidence/runs/[runId]/files/route.ts": apiEvidenceRunsRunidFilesRoute,
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,

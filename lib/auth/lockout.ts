@@ -21,7 +21,11 @@ export function afterFailedAttempt(state: AttemptState, now: Date, policy: Locko
   const locked = failedAttempts >= policy.threshold;
   return {
     failedAttempts: locked ? 0 : failedAttempts,
-    lockedUntil: locked ? new Date(now.getTime() + policy.windowMs).toISOString() : expired ? null : state.lockedUntil,
+    lockedUntil: locked
+      ? new Date(now.getTime() + policy.windowMs).toISOString()
+      : expired
+        ? null
+        : state.lockedUntil,
     locked,
   };
 }

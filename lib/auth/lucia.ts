@@ -14,10 +14,18 @@ function createLucia() {
     sessionCookie: {
       name: SESSION_COOKIE,
       expires: false,
-      attributes: { secure: config.NODE_ENV === "production" && config.APP_URL.startsWith("https:"), sameSite: "lax" },
+      attributes: {
+        secure: config.NODE_ENV === "production" && config.APP_URL.startsWith("https:"),
+        sameSite: "lax",
+      },
     },
     getSessionAttributes: (a) => ({ createdAt: a.createdAt }),
-    getUserAttributes: (a) => ({ email: a.email, name: a.name, active: a.active, mustChangePassword: a.mustChangePassword }),
+    getUserAttributes: (a) => ({
+      email: a.email,
+      name: a.name,
+      active: a.active,
+      mustChangePassword: a.mustChangePassword,
+    }),
   });
 }
 
@@ -32,6 +40,11 @@ declare module "lucia" {
   interface Register {
     Lucia: ReturnType<typeof createLucia>;
     DatabaseSessionAttributes: { createdAt: number };
-    DatabaseUserAttributes: { email: string; name: string; active: boolean; mustChangePassword: boolean };
+    DatabaseUserAttributes: {
+      email: string;
+      name: string;
+      active: boolean;
+      mustChangePassword: boolean;
+    };
   }
 }

@@ -38,18 +38,33 @@ const WARNINGS: Record<string, string> = {
 function personalWords(person: { name: string; email: string }) {
   const email = person.email.trim().toLowerCase();
   const local = email.split("@")[0] ?? "";
-  const nameParts = person.name.toLowerCase().split(/[^\p{L}\p{N}]+/u).filter((p) => p.length >= 3);
-  return { email, local, name: person.name.toLowerCase().replace(/[^\p{L}\p{N}]+/gu, ""), nameParts };
+  const nameParts = person.name
+    .toLowerCase()
+    .split(/[^\p{L}\p{N}]+/u)
+    .filter((p) => p.length >= 3);
+  return {
+    email,
+    local,
+    name: person.name.toLowerCase().replace(/[^\p{L}\p{N}]+/gu, ""),
+    nameParts,
+  };
 }
 
-export function passwordProblem(password: string, person: { name: string; email: string }): string | null {
+export function passwordProblem(
+  password: string,
+  person: { name: string; email: string },
+): string | null {
   if (password.trim() === "") return "Use letters, digits or symbols, not only spaces.";
   const words = personalWords(person);
   const plain = password.toLowerCase().replace(/[^\p{L}\p{N}]+/gu, "");
-  if (password.trim().toLowerCase() === words.email || (words.local.length >= 4 && password.toLowerCase().includes(words.local))) {
+  if (
+    password.trim().toLowerCase() === words.email ||
+    (words.local.length >= 4 && password.toLowerCase().includes(words.local))
+  ) {
     return "The password must not be or contain your e-mail address.";
   }
-  if (words.name.length >= 4 && plain.includes(words.name)) return "The password must not contain your name.";
+  if (words.name.length >= 4 && plain.includes(words.name))
+    return "The password must not contain your name.";
   const result = zxcvbn().check(password, [words.email, words.local, ...words.nameParts]);
   if (result.score < MIN_SCORE) {
     const why = result.feedback.warning ? WARNINGS[result.feedback.warning] : undefined;

@@ -13,10 +13,18 @@ export interface SessionCookie {
  * ends before that. (lucia's own cookie would carry a 400-day Max-Age here.)
  */
 export function sessionCookie(token: string, secure: boolean): SessionCookie {
-  return { name: SESSION_COOKIE, value: token, attributes: { httpOnly: true, sameSite: "lax", path: "/", secure } };
+  return {
+    name: SESSION_COOKIE,
+    value: token,
+    attributes: { httpOnly: true, sameSite: "lax", path: "/", secure },
+  };
 }
 
 /** Clears the cookie at sign-out. */
 export function blankSessionCookie(secure: boolean): SessionCookie {
-  return { name: SESSION_COOKIE, value: "", attributes: { httpOnly: true, sameSite: "lax", path: "/", secure, maxAge: 0 } };
+  return {
+    name: SESSION_COOKIE,
+    value: "",
+    attributes: { httpOnly: true, sameSite: "lax", path: "/", secure, maxAge: 0 },
+  };
 }

@@ -21,8 +21,13 @@ export function isBlocked(state: ThrottleState | undefined, now: Date): boolean 
 }
 
 /** The state after one more failure from the address. */
-export function afterAddressFailure(state: ThrottleState | undefined, now: Date, policy: ThrottlePolicy): ThrottleState {
-  const windowOver = !state || now.getTime() - new Date(state.windowStartedAt).getTime() >= policy.windowMs;
+export function afterAddressFailure(
+  state: ThrottleState | undefined,
+  now: Date,
+  policy: ThrottlePolicy,
+): ThrottleState {
+  const windowOver =
+    !state || now.getTime() - new Date(state.windowStartedAt).getTime() >= policy.windowMs;
   const failures = windowOver ? 1 : state.failures + 1;
   const windowStartedAt = windowOver ? now.toISOString() : state.windowStartedAt;
   if (failures >= policy.limit) {
@@ -30,7 +35,11 @@ export function afterAddressFailure(state: ThrottleState | undefined, now: Date,
     const until = new Date(now.getTime() + policy.blockMs).toISOString();
     return { failures: 0, windowStartedAt: until, blockedUntil: until };
   }
-  return { failures, windowStartedAt, blockedUntil: isBlocked(state, now) ? state!.blockedUntil : null };
+  return {
+    failures,
+    windowStartedAt,
+    blockedUntil: isBlocked(state, now) ? state!.blockedUntil : null,
+  };
 }
 
 /**

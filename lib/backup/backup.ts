@@ -5,7 +5,14 @@ import { openDatabase } from "@/db/client";
 import { evidenceFiles } from "@/db/schema";
 import { sha256Hex, verifyAuditChain } from "@/lib/audit";
 import { localStore, type BlobStore } from "@/lib/storage";
-import { DATABASE_FILE, filePathOf, MANIFEST_FILE, sha256File, UPLOADS_FOLDER, type Manifest } from "./manifest";
+import {
+  DATABASE_FILE,
+  filePathOf,
+  MANIFEST_FILE,
+  sha256File,
+  UPLOADS_FOLDER,
+  type Manifest,
+} from "./manifest";
 import { fileStamp } from "@/lib/format/date";
 
 export class BackupError extends Error {}
@@ -18,9 +25,17 @@ export class BackupError extends Error {}
  * is copied through the store, re-hashed on the way. The folder is filled under
  * a temporary name and renamed once the manifest is written.
  */
-export async function backup(input: { databaseUrl: string; authToken?: string; store: BlobStore; outDir: string; now?: Date }) {
+export async function backup(input: {
+  databaseUrl: string;
+  authToken?: string;
+  store: BlobStore;
+  outDir: string;
+  now?: Date;
+}) {
   if (!filePathOf(input.databaseUrl)) {
-    throw new BackupError("DATABASE_URL names a libSQL server: back it up with the server's own snapshots. This command copies a database file.");
+    throw new BackupError(
+      "DATABASE_URL names a libSQL server: back it up with the server's own snapshots. This command copies a database file.",
+    );
   }
   const started = performance.now();
   const createdAt = (input.now ?? new Date()).toISOString();
@@ -40,22 +55,45 @@ export async function backup(input: { databaseUrl: string; authToken?: string; s
     const copy = openDatabase(`file:${dbPath}`);
     let manifest: Manifest;
     try {
-      const integrity = (await copy.client.execute("PRAGMA integrity_check")).rows[0]?.integrity_check;
-      if (integrity !== "ok") throw new BackupError(`The copy failed SQLite's integrity check: ${integrity}`);
+      const integrity = (await copy.client.execute("PRAGMA integrity_check")).rows[0]
+        ?.integrity_check;
+      if (integrity !== "ok")
+        throw new BackupError(`The copy failed SQLite's integrity check: ${integrity}`);
       const chain = await verifyAuditChain(copy.db);
-      if (!chain.ok) throw new BackupError(`The audit chain is broken at event ${chain.brokenAt} (${chain.reason}); fix that before backing up.`);
-      const files = await copy.db.select({ sha256: evidenceFiles.sha256, sizeBytes: sql<number>`max(${evidenceFiles.sizeBytes})` }).from(evidenceFiles).groupBy(evidenceFiles.sha256);
+      if (!chain.ok)
+        throw new BackupError(
+          `The audit chain is broken at event ${chain.brokenAt} (${chain.reason}); fix that before backing up.`,
+        );
+      const files = await copy.db
+        .select({
+          sha256: evidenceFiles.sha256,
+          sizeBytes: sql<number>`max(${evidenceFiles.sizeBytes})`,
+        })
+        .from(evidenceFiles)
+        .groupBy(evidenceFiles.sha256);
       const target = localStore(join(workDir, UPLOADS_FOLDER));
       for (const file of files) {
         const bytes = await input.store.get(file.sha256);
-        if (!bytes) throw new BackupError(`Evidence file ${file.sha256} is in the database but not in the ${input.store.driver} store.`);
-        if (sha256Hex(bytes) !== file.sha256) throw new BackupError(`Evidence file ${file.sha256} in the ${input.store.driver} store no longer matches its hash.`);
+        if (!bytes)
+          throw new BackupError(
+            `Evidence file ${file.sha256} is in the database but not in the ${input.store.driver} store.`,
+          );
+        if (sha256Hex(bytes) !== file.sha256)
+          throw new BackupError(
+            `Evidence file ${file.sha256} in the ${input.store.driver} store no longer matches its hash.`,
+          );
         await target.put(file.sha256, bytes);
       }
       manifest = {
         format: 1,
         createdAt,
-        database: { file: DATABASE_FILE, sha256: "", sizeBytes: 0, auditEvents: chain.events, auditHead: chain.lastHash },
+        database: {
+          file: DATABASE_FILE,
+          sha256: "",
+          sizeBytes: 0,
+          auditEvents: chain.events,
+          auditHead: chain.lastHash,
+        },
         uploads: files.map((f) => ({ sha256: f.sha256, sizeBytes: Number(f.sizeBytes) })),
       };
     } finally {

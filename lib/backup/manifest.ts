@@ -14,7 +14,12 @@ export const manifestSchema = z.object({
     auditHead: z.string(),
   }),
   /** Every evidence file the database refers to, by content address; stored under uploads/ab/cd/<sha256>. */
-  uploads: z.array(z.object({ sha256: z.string().regex(/^[0-9a-f]{64}$/), sizeBytes: z.number().int().nonnegative() })),
+  uploads: z.array(
+    z.object({
+      sha256: z.string().regex(/^[0-9a-f]{64}$/),
+      sizeBytes: z.number().int().nonnegative(),
+    }),
+  ),
 });
 export type Manifest = z.infer<typeof manifestSchema>;
 

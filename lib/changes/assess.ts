@@ -1,5 +1,19 @@
-import { diffRecipes, IMPACT_ORDER, maxImpact, type Impact, type RecipeDiff, type RecipeSnapshot } from "./diff";
-import { parameterTriggers, requiredTests, triggersOf, type ImpactTrigger, type MatrixRow, type RequiredTest } from "./requalification";
+import {
+  diffRecipes,
+  IMPACT_ORDER,
+  maxImpact,
+  type Impact,
+  type RecipeDiff,
+  type RecipeSnapshot,
+} from "./diff";
+import {
+  parameterTriggers,
+  requiredTests,
+  triggersOf,
+  type ImpactTrigger,
+  type MatrixRow,
+  type RequiredTest,
+} from "./requalification";
 
 export interface Assessment {
   diff: RecipeDiff;
@@ -27,7 +41,14 @@ export function assess(input: {
 }): Assessment {
   const diff = diffRecipes(input.from, input.to);
   const extra: ImpactTrigger[] = input.newPartFamily
-    ? [{ subject: "part_family", reason: input.initial ? `Initial validation of the recipe for ${input.newPartFamily}.` : `New part family on the recipe: ${input.newPartFamily}.` }]
+    ? [
+        {
+          subject: "part_family",
+          reason: input.initial
+            ? `Initial validation of the recipe for ${input.newPartFamily}.`
+            : `New part family on the recipe: ${input.newPartFamily}.`,
+        },
+      ]
     : [];
   const computed = maxImpact(diff.impact, extra.length ? "major" : "editorial");
   const impact = maxImpact(computed, input.raisedTo ?? "editorial");
@@ -35,10 +56,18 @@ export function assess(input: {
   // Raised to major by judgement with no major row: every changed parameter calls up its tests.
   if (impact === "major" && triggers.length === 0) {
     for (const p of diff.parameters.filter((r) => r.change !== "unchanged")) {
-      triggers.push(...parameterTriggers(p, `${p.stage} · ${p.name}: raised to major by the engineer.`));
+      triggers.push(
+        ...parameterTriggers(p, `${p.stage} · ${p.name}: raised to major by the engineer.`),
+      );
     }
   }
-  return { diff, computed, impact, triggers, tests: impact === "major" ? requiredTests(triggers, input.matrix) : [] };
+  return {
+    diff,
+    computed,
+    impact,
+    triggers,
+    tests: impact === "major" ? requiredTests(triggers, input.matrix) : [],
+  };
 }
 
 /** The engineer may raise the class, never lower it. */

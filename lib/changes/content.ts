@@ -19,12 +19,20 @@ export function changeContentHash(input: {
 
 /** Plain text stored as a Tiptap-shaped document, so the rich-text editor can open it unchanged. */
 export function narrativeDocument(text: string) {
-  const paragraphs = text.split(/\n\s*\n/).map((p) => p.trim()).filter(Boolean);
-  return { type: "doc", content: paragraphs.map((p) => ({ type: "paragraph", content: [{ type: "text", text: p }] })) };
+  const paragraphs = text
+    .split(/\n\s*\n/)
+    .map((p) => p.trim())
+    .filter(Boolean);
+  return {
+    type: "doc",
+    content: paragraphs.map((p) => ({ type: "paragraph", content: [{ type: "text", text: p }] })),
+  };
 }
 
 /** The narrative's text: paragraphs joined by blank lines. */
 export function narrativeText(content: unknown): string {
   const doc = content as { content?: { content?: { text?: string }[] }[] } | null;
-  return (doc?.content ?? []).map((block) => (block.content ?? []).map((n) => n.text ?? "").join("")).join("\n\n");
+  return (doc?.content ?? [])
+    .map((block) => (block.content ?? []).map((n) => n.text ?? "").join(""))
+    .join("\n\n");
 }

@@ -33,12 +33,21 @@ export interface GateResult {
 
 function runProblems(req: GateRequirement, run: GateRun): string[] {
   const problems: string[] = [];
-  if (run.testType !== req.testType) problems.push(`${run.number} is a ${TEST_TYPE_LABELS[run.testType].toLowerCase()} test, not ${TEST_TYPE_LABELS[req.testType].toLowerCase()}`);
-  if (run.outcome !== "pass") problems.push(`${run.number} computed outcome is ${run.outcome ?? "not yet computed"}, not pass`);
-  if (run.sampleCount < req.samples) problems.push(`${run.number} has ${run.sampleCount} samples, ${req.samples} required`);
+  if (run.testType !== req.testType)
+    problems.push(
+      `${run.number} is a ${TEST_TYPE_LABELS[run.testType].toLowerCase()} test, not ${TEST_TYPE_LABELS[req.testType].toLowerCase()}`,
+    );
+  if (run.outcome !== "pass")
+    problems.push(
+      `${run.number} computed outcome is ${run.outcome ?? "not yet computed"}, not pass`,
+    );
+  if (run.sampleCount < req.samples)
+    problems.push(`${run.number} has ${run.sampleCount} samples, ${req.samples} required`);
   const secondPerson = run.verifiedBy.some((v) => !run.performedBy.includes(v));
-  if (run.status === "superseded") problems.push(`${run.number} was superseded by a later revision`);
-  else if (run.status !== "verified" || !secondPerson) problems.push(`${run.number} is not verified by a second person`);
+  if (run.status === "superseded")
+    problems.push(`${run.number} was superseded by a later revision`);
+  else if (run.status !== "verified" || !secondPerson)
+    problems.push(`${run.number} is not verified by a second person`);
   return problems;
 }
 
@@ -48,15 +57,23 @@ function runProblems(req: GateRequirement, run: GateRun): string[] {
  * and that someone other than its performer verified. The computed pass supports,
  * and never replaces, the engineer's judgement; the gate only refuses.
  */
-export function evaluateGate(requirements: GateRequirement[], linked: Map<string, GateRun[]>): GateResult {
+export function evaluateGate(
+  requirements: GateRequirement[],
+  linked: Map<string, GateRun[]>,
+): GateResult {
   const states = requirements.map((requirement): RequirementState => {
     const runs = linked.get(requirement.id) ?? [];
     const label = `${TEST_TYPE_LABELS[requirement.testType]} (${requirement.samples} samples)`;
-    if (runs.length === 0) return { requirement, satisfiedBy: null, problems: [`${label}: no test run linked`] };
+    if (runs.length === 0)
+      return { requirement, satisfiedBy: null, problems: [`${label}: no test run linked`] };
     const checked = runs.map((run) => ({ run, problems: runProblems(requirement, run) }));
     const ok = checked.find((c) => c.problems.length === 0);
     if (ok) return { requirement, satisfiedBy: ok.run.number, problems: [] };
-    return { requirement, satisfiedBy: null, problems: checked.flatMap((c) => c.problems.map((p) => `${label}: ${p}`)) };
+    return {
+      requirement,
+      satisfiedBy: null,
+      problems: checked.flatMap((c) => c.problems.map((p) => `${label}: ${p}`)),
+    };
   });
   const missing = states.flatMap((s) => s.problems);
   return { holds: missing.length === 0, requirements: states, missing };

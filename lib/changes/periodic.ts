@@ -12,7 +12,11 @@ export function requalificationDue(lastQualifiedAt: string, intervalMonths: numb
   return d.toISOString();
 }
 
-export function dueState(due: string, now: Date, soonDays = DUE_SOON_DAYS): "overdue" | "due_soon" | "not_due" {
+export function dueState(
+  due: string,
+  now: Date,
+  soonDays = DUE_SOON_DAYS,
+): "overdue" | "due_soon" | "not_due" {
   if (due < now.toISOString()) return "overdue";
   return new Date(due).getTime() - now.getTime() <= soonDays * 86_400_000 ? "due_soon" : "not_due";
 }

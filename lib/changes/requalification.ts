@@ -22,7 +22,9 @@ export interface RequiredTest {
 
 /** Sample size for zero failures (success-run theorem, n = ln(1 − C) / ln(R), rounded up). */
 /** One matrix row as a line of text, as the audit trail lists added and removed rows. */
-export function matrixRowLine(r: Pick<MatrixRow, "subject" | "testType" | "confidencePct" | "reliabilityPct">): string {
+export function matrixRowLine(
+  r: Pick<MatrixRow, "subject" | "testType" | "confidencePct" | "reliabilityPct">,
+): string {
   return `${r.subject} → ${r.testType} @ ${r.confidencePct}/${r.reliabilityPct}`;
 }
 
@@ -36,9 +38,13 @@ export interface ImpactTrigger {
 }
 
 /** A changed parameter calls up the rows for its kind anywhere and for its kind in its kind of stage. */
-export function parameterTriggers(p: Pick<RecipeDiff["parameters"][number], "kind" | "stageKind">, reason: string): ImpactTrigger[] {
+export function parameterTriggers(
+  p: Pick<RecipeDiff["parameters"][number], "kind" | "stageKind">,
+  reason: string,
+): ImpactTrigger[] {
   const triggers: ImpactTrigger[] = [{ subject: `parameter:${p.kind}`, reason }];
-  if (p.stageKind) triggers.push({ subject: `parameter:${p.stageKind}:${p.kind}` as MatrixSubject, reason });
+  if (p.stageKind)
+    triggers.push({ subject: `parameter:${p.stageKind}:${p.kind}` as MatrixSubject, reason });
   return triggers;
 }
 
@@ -46,13 +52,19 @@ export function parameterTriggers(p: Pick<RecipeDiff["parameters"][number], "kin
 export function triggersOf(diff: RecipeDiff, extra: ImpactTrigger[] = []): ImpactTrigger[] {
   const triggers: ImpactTrigger[] = [];
   for (const p of diff.parameters) {
-    if (p.impact === "major") triggers.push(...parameterTriggers(p, `${p.stage} · ${p.name}: ${p.reasons.join(" ")}`));
+    if (p.impact === "major")
+      triggers.push(...parameterTriggers(p, `${p.stage} · ${p.name}: ${p.reasons.join(" ")}`));
   }
   for (const s of diff.stages) {
-    if (s.impact === "major") triggers.push({ subject: `stage:${s.kind as (typeof STAGE_KINDS)[number]}`, reason: s.reason });
+    if (s.impact === "major")
+      triggers.push({
+        subject: `stage:${s.kind as (typeof STAGE_KINDS)[number]}`,
+        reason: s.reason,
+      });
   }
   for (const t of diff.texts) {
-    if (t.field === "detergent" && t.impact === "major") triggers.push({ subject: "detergent", reason: `Detergent: "${t.old}" → "${t.new}".` });
+    if (t.field === "detergent" && t.impact === "major")
+      triggers.push({ subject: "detergent", reason: `Detergent: "${t.old}" → "${t.new}".` });
   }
   return [...triggers, ...extra];
 }
@@ -68,17 +80,38 @@ export function requiredTests(triggers: ImpactTrigger[], matrix: MatrixRow[]): R
       const samples = samplesFor(row);
       const current = byTest.get(row.testType);
       if (!current) {
-        byTest.set(row.testType, { testType: row.testType, samples, confidencePct: row.confidencePct, reliabilityPct: row.reliabilityPct, because: [trigger.reason] });
+        byTest.set(row.testType, {
+          testType: row.testType,
+          samples,
+          confidencePct: row.confidencePct,
+          reliabilityPct: row.reliabilityPct,
+          because: [trigger.reason],
+        });
         continue;
       }
       if (!current.because.includes(trigger.reason)) current.because.push(trigger.reason);
-      if (samples > current.samples) Object.assign(current, { samples, confidencePct: row.confidencePct, reliabilityPct: row.reliabilityPct });
+      if (samples > current.samples)
+        Object.assign(current, {
+          samples,
+          confidencePct: row.confidencePct,
+          reliabilityPct: row.reliabilityPct,
+        });
     }
   }
   return [...byTest.values()].sort((a, b) => (a.testType < b.testType ? -1 : 1));
 }
 
-const WASH: MatrixSubject[] = ["parameter:temperature", "parameter:time", "parameter:concentration", "parameter:ultrasonic_power", "parameter:ultrasonic_frequency", "parameter:spray_pressure", "parameter:flow", "stage:wash", "detergent"];
+const WASH: MatrixSubject[] = [
+  "parameter:temperature",
+  "parameter:time",
+  "parameter:concentration",
+  "parameter:ultrasonic_power",
+  "parameter:ultrasonic_frequency",
+  "parameter:spray_pressure",
+  "parameter:flow",
+  "stage:wash",
+  "detergent",
+];
 
 /**
  * The first matrix, as product.md "Change impact" describes it: thermal, chemical
@@ -88,21 +121,73 @@ const WASH: MatrixSubject[] = ["parameter:temperature", "parameter:time", "param
  * is a common choice [practice]; the admin sets the matrix the site uses.
  */
 export const DEFAULT_MATRIX: MatrixRow[] = [
-  ...WASH.flatMap((subject) => (["particle_cleanliness", "gravimetric"] as const).map((testType) => ({ subject, testType, confidencePct: 95, reliabilityPct: 90 }))),
-  ...(["parameter:conductivity_limit", "stage:final_rinse", "stage:rinse"] as const).flatMap((subject) =>
-    (["visual", "gravimetric"] as const).map((testType) => ({ subject, testType, confidencePct: 95, reliabilityPct: 90 })),
+  ...WASH.flatMap((subject) =>
+    (["particle_cleanliness", "gravimetric"] as const).map((testType) => ({
+      subject,
+      testType,
+      confidencePct: 95,
+      reliabilityPct: 90,
+    })),
   ),
-  ...(["parameter:drying_temperature", "parameter:vacuum_pressure", "stage:drying"] as const).flatMap((subject) =>
-    (["dryness", "visual"] as const).map((testType) => ({ subject, testType, confidencePct: 95, reliabilityPct: 90 })),
+  ...(["parameter:conductivity_limit", "stage:final_rinse", "stage:rinse"] as const).flatMap(
+    (subject) =>
+      (["visual", "gravimetric"] as const).map((testType) => ({
+        subject,
+        testType,
+        confidencePct: 95,
+        reliabilityPct: 90,
+      })),
+  ),
+  ...(
+    ["parameter:drying_temperature", "parameter:vacuum_pressure", "stage:drying"] as const
+  ).flatMap((subject) =>
+    (["dryness", "visual"] as const).map((testType) => ({
+      subject,
+      testType,
+      confidencePct: 95,
+      reliabilityPct: 90,
+    })),
   ),
   // Drying is judged by dryness and stains whichever of its parameters moves, time included.
   ...(["parameter:drying:time", "parameter:drying:other"] as const).flatMap((subject) =>
-    (["dryness", "visual"] as const).map((testType) => ({ subject, testType, confidencePct: 95, reliabilityPct: 90 })),
+    (["dryness", "visual"] as const).map((testType) => ({
+      subject,
+      testType,
+      confidencePct: 95,
+      reliabilityPct: 90,
+    })),
   ),
   // Loading: cleanliness at the worst-case basket position.
-  ...(["parameter:basket_loading", "parameter:load_pattern", "parameter:fixture"] as const).map((subject) => ({ subject, testType: "particle_cleanliness" as const, confidencePct: 95, reliabilityPct: 90 })),
-  { subject: "parameter:filter_interval", testType: "particle_cleanliness", confidencePct: 95, reliabilityPct: 90 },
-  { subject: "parameter:other", testType: "particle_cleanliness", confidencePct: 95, reliabilityPct: 90 },
-  { subject: "stage:other", testType: "particle_cleanliness", confidencePct: 95, reliabilityPct: 90 },
-  ...(["particle_cleanliness", "gravimetric", "visual", "dryness"] as const).map((testType) => ({ subject: "part_family" as const, testType, confidencePct: 95, reliabilityPct: 90 })),
+  ...(["parameter:basket_loading", "parameter:load_pattern", "parameter:fixture"] as const).map(
+    (subject) => ({
+      subject,
+      testType: "particle_cleanliness" as const,
+      confidencePct: 95,
+      reliabilityPct: 90,
+    }),
+  ),
+  {
+    subject: "parameter:filter_interval",
+    testType: "particle_cleanliness",
+    confidencePct: 95,
+    reliabilityPct: 90,
+  },
+  {
+    subject: "parameter:other",
+    testType: "particle_cleanliness",
+    confidencePct: 95,
+    reliabilityPct: 90,
+  },
+  {
+    subject: "stage:other",
+    testType: "particle_cleanliness",
+    confidencePct: 95,
+    reliabilityPct: 90,
+  },
+  ...(["particle_cleanliness", "gravimetric", "visual", "dryness"] as const).map((testType) => ({
+    subject: "part_family" as const,
+    testType,
+    confidencePct: 95,
+    reliabilityPct: 90,
+  })),
 ];

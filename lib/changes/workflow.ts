@@ -2,9 +2,23 @@ import { CHANGE_KINDS, type CHANGE_STATUSES } from "@/db/enums";
 import type { Permission } from "@/lib/auth/permissions";
 
 export type ChangeStatus = (typeof CHANGE_STATUSES)[number];
-export type ChangeStep = "assess" | "reopen" | "approve" | "start_requalification" | "verify" | "close" | "reject" | "withdraw";
+export type ChangeStep =
+  | "assess"
+  | "reopen"
+  | "approve"
+  | "start_requalification"
+  | "verify"
+  | "close"
+  | "reject"
+  | "withdraw";
 
-export const OPEN_STATUSES: ChangeStatus[] = ["draft", "impact_assessed", "approved_for_implementation", "requalification", "verified"];
+export const OPEN_STATUSES: ChangeStatus[] = [
+  "draft",
+  "impact_assessed",
+  "approved_for_implementation",
+  "requalification",
+  "verified",
+];
 
 /**
  * The change-request lifecycle (product.md): draft → impact assessed → approved
@@ -12,24 +26,65 @@ export const OPEN_STATUSES: ChangeStatus[] = ["draft", "impact_assessed", "appro
  * withdrawn from any open step. A change with no required tests goes from
  * approval straight to verification. Enforced on the server (21 CFR 11.10(f)).
  */
-export const CHANGE_STEPS: Record<ChangeStep, { from: ChangeStatus[]; to: ChangeStatus; permission: Permission; label: string }> = {
-  assess: { from: ["draft"], to: "impact_assessed", permission: "change.draft", label: "Submit impact assessment" },
-  reopen: { from: ["impact_assessed"], to: "draft", permission: "change.draft", label: "Reopen for editing" },
-  approve: { from: ["impact_assessed"], to: "approved_for_implementation", permission: "change.approve", label: "Approve for implementation" },
-  start_requalification: { from: ["approved_for_implementation"], to: "requalification", permission: "change.draft", label: "Start requalification" },
-  verify: { from: ["approved_for_implementation", "requalification"], to: "verified", permission: "change.verify", label: "Verify" },
-  close: { from: ["verified"], to: "closed", permission: "recipe.make_effective", label: "Close and make effective" },
+export const CHANGE_STEPS: Record<
+  ChangeStep,
+  { from: ChangeStatus[]; to: ChangeStatus; permission: Permission; label: string }
+> = {
+  assess: {
+    from: ["draft"],
+    to: "impact_assessed",
+    permission: "change.draft",
+    label: "Submit impact assessment",
+  },
+  reopen: {
+    from: ["impact_assessed"],
+    to: "draft",
+    permission: "change.draft",
+    label: "Reopen for editing",
+  },
+  approve: {
+    from: ["impact_assessed"],
+    to: "approved_for_implementation",
+    permission: "change.approve",
+    label: "Approve for implementation",
+  },
+  start_requalification: {
+    from: ["approved_for_implementation"],
+    to: "requalification",
+    permission: "change.draft",
+    label: "Start requalification",
+  },
+  verify: {
+    from: ["approved_for_implementation", "requalification"],
+    to: "verified",
+    permission: "change.verify",
+    label: "Verify",
+  },
+  close: {
+    from: ["verified"],
+    to: "closed",
+    permission: "recipe.make_effective",
+    label: "Close and make effective",
+  },
   reject: { from: OPEN_STATUSES, to: "rejected", permission: "change.approve", label: "Reject" },
   withdraw: { from: OPEN_STATUSES, to: "withdrawn", permission: "change.draft", label: "Withdraw" },
 };
 
 /** Why a step may not be taken from this status with this many required tests, or null when it may. */
-export function stepProblem(step: ChangeStep, status: ChangeStatus, requiredTests: number): string | null {
+export function stepProblem(
+  step: ChangeStep,
+  status: ChangeStatus,
+  requiredTests: number,
+): string | null {
   const rule = CHANGE_STEPS[step];
-  if (step === "close" && status === "requalification") return "Verify the change first: a second person signs it verified, and only then is it closed and made effective.";
-  if (!rule.from.includes(status)) return `A change request that is ${CHANGE_STATUS_LABELS[status].toLowerCase()} cannot be ${STEP_PAST[step]}.`;
-  if (step === "start_requalification" && requiredTests === 0) return "This change calls for no requalification tests: verify it directly.";
-  if (step === "verify" && status === "approved_for_implementation" && requiredTests > 0) return "Start requalification first: this change calls for tests.";
+  if (step === "close" && status === "requalification")
+    return "Verify the change first: a second person signs it verified, and only then is it closed and made effective.";
+  if (!rule.from.includes(status))
+    return `A change request that is ${CHANGE_STATUS_LABELS[status].toLowerCase()} cannot be ${STEP_PAST[step]}.`;
+  if (step === "start_requalification" && requiredTests === 0)
+    return "This change calls for no requalification tests: verify it directly.";
+  if (step === "verify" && status === "approved_for_implementation" && requiredTests > 0)
+    return "Start requalification first: this change calls for tests.";
   return null;
 }
 

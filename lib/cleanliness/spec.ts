@@ -76,13 +76,25 @@ export function parseCleanlinessSpec(code: string): CleanlinessSpec {
   };
   const outer = /^([A-Za-z])\((.*)\)$/.exec(text);
   if (!outer) {
-    const at = !/^[A-Za-z]/.test(text) ? 0 : text[1] !== "(" ? 1 : text.endsWith(")") ? text.indexOf(")") + 1 : text.length;
-    fail(`"${code}" is not in CCC notation: a letter A, V or N, then the limits in brackets (${EXAMPLE}).`, at);
+    const at = !/^[A-Za-z]/.test(text)
+      ? 0
+      : text[1] !== "("
+        ? 1
+        : text.endsWith(")")
+          ? text.indexOf(")") + 1
+          : text.length;
+    fail(
+      `"${code}" is not in CCC notation: a letter A, V or N, then the limits in brackets (${EXAMPLE}).`,
+      at,
+    );
   }
   const [, prefix, body] = outer!;
   const basis = PREFIX_BASIS[prefix];
   if (basis === undefined) {
-    fail(`"${prefix}" is not a specification prefix: use A (per 1000 cm²), V (per 100 cm³) or N (per component).`, 0);
+    fail(
+      `"${prefix}" is not a specification prefix: use A (per 1000 cm²), V (per 100 cm³) or N (per component).`,
+      0,
+    );
   }
   if (body === "") fail("The specification lists no limits.", 2);
 
@@ -91,11 +103,16 @@ export function parseCleanlinessSpec(code: string): CleanlinessSpec {
   const groups = body.split("/").map((part) => {
     const start = offset;
     offset += part.length + 1;
-    const group = parseGroup(part, prefix as "A" | "V" | "N", (message, at) => fail(message, start + at));
+    const group = parseGroup(part, prefix as "A" | "V" | "N", (message, at) =>
+      fail(message, start + at),
+    );
     for (const key of group.classes) {
       const earlier = used.get(key);
       if (earlier !== undefined) {
-        fail(`Class ${key} is limited twice ("${earlier}" and "${part}"); each class may appear once.`, start);
+        fail(
+          `Class ${key} is limited twice ("${earlier}" and "${part}"); each class may appear once.`,
+          start,
+        );
       }
       used.set(key, part);
     }
@@ -110,11 +127,18 @@ export function parseCleanlinessSpec(code: string): CleanlinessSpec {
 }
 
 /** `fail` throws with the position inside the group, counted from the group's first character. */
-function parseGroup(part: string, prefix: "A" | "V" | "N", fail: (message: string, at: number) => never): SpecGroup {
+function parseGroup(
+  part: string,
+  prefix: "A" | "V" | "N",
+  fail: (message: string, at: number) => never,
+): SpecGroup {
   if (part === "") fail("Empty limit between two slashes.", 0);
   const match = /^([A-Za-z]+)(?:-([A-Za-z]+))?(.*)$/.exec(part);
   if (!match) {
-    fail(`"${part}" must start with size-class letters (B…N), then the ${prefix === "N" ? "count" : "level"}.`, 0);
+    fail(
+      `"${part}" must start with size-class letters (B…N), then the ${prefix === "N" ? "count" : "level"}.`,
+      0,
+    );
   }
   const [, first, second, valueText] = match!;
   const valueAt = part.length - valueText.length;
@@ -122,7 +146,10 @@ function parseGroup(part: string, prefix: "A" | "V" | "N", fail: (message: strin
   for (let i = 0; i < letters.length; i++) {
     const letter = letters[i];
     if (sizeClassIndex(letter) < 0) {
-      fail(`"${letter}" in "${part}" is not a size class; use the capital letters B…N.`, i < first.length ? i : i + 1);
+      fail(
+        `"${letter}" in "${part}" is not a size class; use the capital letters B…N.`,
+        i < first.length ? i : i + 1,
+      );
     }
   }
 
@@ -130,7 +157,10 @@ function parseGroup(part: string, prefix: "A" | "V" | "N", fail: (message: strin
   const joined = second !== undefined;
   if (joined) {
     if (first.length !== 1 || second.length !== 1) {
-      fail(`"${part}": a hyphen joins exactly two letters, the first and last class of the range.`, 0);
+      fail(
+        `"${part}": a hyphen joins exactly two letters, the first and last class of the range.`,
+        0,
+      );
     }
     const from = sizeClassIndex(first);
     const to = sizeClassIndex(second);
@@ -152,7 +182,10 @@ function parseGroup(part: string, prefix: "A" | "V" | "N", fail: (message: strin
 
   if (prefix === "N") {
     if (!NUMBER.test(valueText)) {
-      fail(`"${part}": an N() specification gives a count per component after the letters (got "${valueText}").`, valueAt);
+      fail(
+        `"${part}": an N() specification gives a count per component after the letters (got "${valueText}").`,
+        valueAt,
+      );
     }
     const limit = Number(valueText);
     return Object.freeze({ text: part, classes, joined, level: null, limit });
@@ -283,10 +316,22 @@ class LevelRow implements SpecRow {
     this.#levelAt = levelAt;
   }
   get reason() {
-    return this.#check.head + formatCount(this.value) + this.#check.tails[this.#levelAt * 2 + (this.pass ? 0 : 1)];
+    return (
+      this.#check.head +
+      formatCount(this.value) +
+      this.#check.tails[this.#levelAt * 2 + (this.pass ? 0 : 1)]
+    );
   }
   toJSON() {
-    return { classes: this.classes, value: this.value, limit: this.limit, level: this.level, limitLevel: this.limitLevel, pass: this.pass, reason: this.reason };
+    return {
+      classes: this.classes,
+      value: this.value,
+      limit: this.limit,
+      level: this.level,
+      limitLevel: this.limitLevel,
+      pass: this.pass,
+      reason: this.reason,
+    };
   }
 }
 
@@ -308,7 +353,13 @@ class CountRow implements SpecRow {
     return this.#check.head + formatCount(this.value) + this.#check.tails[this.pass ? 0 : 1];
   }
   toJSON() {
-    return { classes: this.classes, value: this.value, limit: this.limit, pass: this.pass, reason: this.reason };
+    return {
+      classes: this.classes,
+      value: this.value,
+      limit: this.limit,
+      pass: this.pass,
+      reason: this.reason,
+    };
   }
 }
 

@@ -9,5 +9,8 @@ import Papa from "papaparse";
 const FORMULA_START = /^[=+\-@\t\r]/;
 
 export function toCsv(header: string[], rows: (string | number | null)[][]): string {
-  return Papa.unparse({ fields: header, data: rows.map((r) => r.map((c) => c ?? "")) }, { escapeFormulae: FORMULA_START, newline: "\r\n" });
+  return Papa.unparse(
+    { fields: header, data: rows.map((r) => r.map((c) => c ?? "")) },
+    { escapeFormulae: FORMULA_START, newline: "\r\n" },
+  );
 }

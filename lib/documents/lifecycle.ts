@@ -8,7 +8,17 @@ import { can, type Permission } from "@/lib/auth/permissions";
  * effective one. Supersession is never a user's action: it follows when the
  * next version becomes effective.
  */
-export const DOCUMENT_ACTIONS = ["edit", "submit", "review", "send_back", "approve", "reject", "make_effective", "new_version", "retire"] as const;
+export const DOCUMENT_ACTIONS = [
+  "edit",
+  "submit",
+  "review",
+  "send_back",
+  "approve",
+  "reject",
+  "make_effective",
+  "new_version",
+  "retire",
+] as const;
 export type DocumentAction = (typeof DOCUMENT_ACTIONS)[number];
 
 interface Rule {
@@ -51,7 +61,8 @@ const ACTION_WORDS: Record<DocumentAction, string> = {
   retire: "retired",
 };
 
-export type TransitionCheck = { ok: true; to: DocumentStatus | null } | { ok: false; reason: string };
+export type TransitionCheck =
+  { ok: true; to: DocumentStatus | null } | { ok: false; reason: string };
 
 export const NARRATIVE_MOVES_WITH_CHANGE =
   "A change narrative moves only with its change request: submit, approve or close the change request, and its narrative follows.";
@@ -62,12 +73,21 @@ export const NARRATIVE_MOVES_WITH_CHANGE =
  * document workflow only lets its draft be edited; a narrative approved or made effective on its own
  * would claim an approval the change never had.
  */
-export function checkTransition(status: DocumentStatus, action: DocumentAction, roles: readonly Role[], type?: DocumentType): TransitionCheck {
+export function checkTransition(
+  status: DocumentStatus,
+  action: DocumentAction,
+  roles: readonly Role[],
+  type?: DocumentType,
+): TransitionCheck {
   const rule = DOCUMENT_RULES[action];
   if (!can(roles, rule.permission)) return { ok: false, reason: "Your role does not allow this." };
-  if (type === "change_narrative" && action !== "edit") return { ok: false, reason: NARRATIVE_MOVES_WITH_CHANGE };
+  if (type === "change_narrative" && action !== "edit")
+    return { ok: false, reason: NARRATIVE_MOVES_WITH_CHANGE };
   if (!rule.from.includes(status)) {
-    return { ok: false, reason: `A version that is ${DOCUMENT_STATUS_LABELS[status].toLowerCase()} cannot be ${ACTION_WORDS[action]}.` };
+    return {
+      ok: false,
+      reason: `A version that is ${DOCUMENT_STATUS_LABELS[status].toLowerCase()} cannot be ${ACTION_WORDS[action]}.`,
+    };
   }
   return { ok: true, to: rule.to };
 }
@@ -96,6 +116,10 @@ export function numberPrefix(type: DocumentType, systemCode: string | null): str
   return `${TYPE_PREFIX[type]}-${system}-`;
 }
 
-export function documentNumber(type: DocumentType, systemCode: string | null, sequence: number): string {
+export function documentNumber(
+  type: DocumentType,
+  systemCode: string | null,
+  sequence: number,
+): string {
   return `${numberPrefix(type, systemCode)}${String(sequence).padStart(4, "0")}`;
 }

@@ -3,10 +3,19 @@ import { isSafeHref } from "./rich-text";
 import { sanitizeRichHtml } from "./sanitize";
 
 function escapeHtml(s: string) {
-  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+  return s.replace(
+    /[&<>"']/g,
+    (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!,
+  );
 }
 
-const MARK_TAGS: Record<Exclude<RichMark["type"], "link">, string> = { bold: "strong", italic: "em", strike: "s", underline: "u", code: "code" };
+const MARK_TAGS: Record<Exclude<RichMark["type"], "link">, string> = {
+  bold: "strong",
+  italic: "em",
+  strike: "s",
+  underline: "u",
+  code: "code",
+};
 
 function renderText(node: RichNode): string {
   let html = escapeHtml(node.text ?? "");

@@ -53,7 +53,9 @@ export const MAX_NODE_DEPTH = 40;
 export function nestingDepth(root: unknown): { lists: number; nodes: number } {
   let lists = 0;
   let nodes = 0;
-  const stack: { node: unknown; depth: number; listDepth: number }[] = [{ node: root, depth: 1, listDepth: 0 }];
+  const stack: { node: unknown; depth: number; listDepth: number }[] = [
+    { node: root, depth: 1, listDepth: 0 },
+  ];
   while (stack.length) {
     const { node, depth, listDepth } = stack.pop()!;
     if (typeof node !== "object" || node === null) continue;
@@ -61,7 +63,8 @@ export function nestingDepth(root: unknown): { lists: number; nodes: number } {
     const inList = listDepth + (type === "bulletList" || type === "orderedList" ? 1 : 0);
     lists = Math.max(lists, inList);
     nodes = Math.max(nodes, depth);
-    if (Array.isArray(content)) for (const child of content) stack.push({ node: child, depth: depth + 1, listDepth: inList });
+    if (Array.isArray(content))
+      for (const child of content) stack.push({ node: child, depth: depth + 1, listDepth: inList });
   }
   return { lists, nodes };
 }
@@ -75,13 +78,18 @@ export function isSafeHref(href: string): boolean {
 }
 
 // Builders, used by the document templates.
-export const text = (t: string, marks?: RichMark[]): RichNode => (marks ? { type: "text", text: t, marks } : { type: "text", text: t });
+export const text = (t: string, marks?: RichMark[]): RichNode =>
+  marks ? { type: "text", text: t, marks } : { type: "text", text: t };
 export const p = (...parts: (string | RichNode)[]): RichNode => ({
   type: "paragraph",
   content: parts.filter((x) => x !== "").map((x) => (typeof x === "string" ? text(x) : x)),
 });
 export const b = (t: string): RichNode => text(t, [{ type: "bold" }]);
-export const h = (level: 1 | 2 | 3, t: string): RichNode => ({ type: "heading", attrs: { level }, content: [text(t)] });
+export const h = (level: 1 | 2 | 3, t: string): RichNode => ({
+  type: "heading",
+  attrs: { level },
+  content: [text(t)],
+});
 export const ul = (...items: (string | RichNode)[]): RichNode => ({
   type: "bulletList",
   content: items.map((i) => ({ type: "listItem", content: [typeof i === "string" ? p(i) : i] })),
@@ -92,12 +100,19 @@ export const ol = (...items: (string | RichNode)[]): RichNode => ({
   content: items.map((i) => ({ type: "listItem", content: [typeof i === "string" ? p(i) : i] })),
 });
 export function table(header: string[], rows: string[][]): RichNode {
-  const cell = (type: "tableHeader" | "tableCell", t: string): RichNode => ({ type, attrs: { colspan: 1, rowspan: 1 }, content: [p(t)] });
+  const cell = (type: "tableHeader" | "tableCell", t: string): RichNode => ({
+    type,
+    attrs: { colspan: 1, rowspan: 1 },
+    content: [p(t)],
+  });
   return {
     type: "table",
     content: [
       { type: "tableRow", content: header.map((c) => cell("tableHeader", c)) },
-      ...rows.map((r) => ({ type: "tableRow" as const, content: r.map((c) => cell("tableCell", c)) })),
+      ...rows.map((r) => ({
+        type: "tableRow" as const,
+        content: r.map((c) => cell("tableCell", c)),
+      })),
     ],
   };
 }

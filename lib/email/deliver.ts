@@ -34,7 +34,9 @@ async function deliver(now: Date) {
   const due = await db
     .select()
     .from(emailOutbox)
-    .where(and(eq(emailOutbox.status, "pending"), lte(emailOutbox.nextAttemptAt, now.toISOString())))
+    .where(
+      and(eq(emailOutbox.status, "pending"), lte(emailOutbox.nextAttemptAt, now.toISOString())),
+    )
     .orderBy(asc(emailOutbox.createdAt))
     .limit(50);
   let sent = 0;
@@ -45,8 +47,17 @@ async function deliver(now: Date) {
     // changed the row sends it; the lease keeps the others off it while it is on its way.
     const claimed = await db
       .update(emailOutbox)
-      .set({ attempts: message.attempts + 1, nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS).toISOString() })
-      .where(and(eq(emailOutbox.id, message.id), eq(emailOutbox.status, "pending"), eq(emailOutbox.attempts, message.attempts)))
+      .set({
+        attempts: message.attempts + 1,
+        nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS).toISOString(),
+      })
+      .where(
+        and(
+          eq(emailOutbox.id, message.id),
+          eq(emailOutbox.status, "pending"),
+          eq(emailOutbox.attempts, message.attempts),
+        ),
+      )
       .returning({ id: emailOutbox.id });
     if (claimed.length === 0) continue;
     try {
@@ -57,7 +68,15 @@ async function deliver(now: Date) {
         text: message.text,
         html: message.html ?? undefined,
       });
-      await db.update(emailOutbox).set({ status: "sent", sentAt: new Date().toISOString(), attempts: message.attempts + 1, lastError: null }).where(eq(emailOutbox.id, message.id));
+      await db
+        .update(emailOutbox)
+        .set({
+          status: "sent",
+          sentAt: new Date().toISOString(),
+          attempts: message.attempts + 1,
+          lastError: null,
+        })
+        .where(eq(emailOutbox.id, message.id));
       sent += 1;
     } catch (error) {
       const attempts = message.attempts + 1;

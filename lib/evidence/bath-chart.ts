@@ -9,15 +9,23 @@ const RULE_WORDS: Record<ControlRule, string> = {
 };
 
 /** The points and limits of an individuals chart of one monitored bath value, from lib/stats. */
-export function bathControlChart(records: { performedAt: string; values: Partial<Record<BathVariable, number | null>> }[], variable: BathVariable) {
-  const points = records.filter((r) => typeof r.values[variable] === "number").map((r) => ({ at: r.performedAt, value: r.values[variable] as number }));
+export function bathControlChart(
+  records: { performedAt: string; values: Partial<Record<BathVariable, number | null>> }[],
+  variable: BathVariable,
+) {
+  const points = records
+    .filter((r) => typeof r.values[variable] === "number")
+    .map((r) => ({ at: r.performedAt, value: r.values[variable] as number }));
   if (points.length < 2) return null;
   const chart = individualsChart(points.map((p) => p.value));
   // Individual values are flagged on the chart; moving-range signals are listed beside it.
   const flags = new Map<number, string>();
   const movingRangeSignals: string[] = [];
   for (const o of chart.outOfControl) {
-    if (o.rule === "moving-range-above-limit") movingRangeSignals.push(`${formatDate(points[o.index - 1].at)} → ${formatDate(points[o.index].at)}`);
+    if (o.rule === "moving-range-above-limit")
+      movingRangeSignals.push(
+        `${formatDate(points[o.index - 1].at)} → ${formatDate(points[o.index].at)}`,
+      );
     else flags.set(o.index, [flags.get(o.index), RULE_WORDS[o.rule]].filter(Boolean).join("; "));
   }
   return {

@@ -1,7 +1,11 @@
 import type { TestType } from "@/db/enums";
 
 const list = (counts: Record<string, number> | undefined) =>
-  counts && Object.keys(counts).length ? Object.entries(counts).map(([k, v]) => `${k} ${v}`).join(", ") : "none";
+  counts && Object.keys(counts).length
+    ? Object.entries(counts)
+        .map(([k, v]) => `${k} ${v}`)
+        .join(", ")
+    : "none";
 
 /** One sample's raw data as a line of a lab record, each number with its unit. */
 export function describeSample(testType: TestType, data: unknown): string {
@@ -10,9 +14,19 @@ export function describeSample(testType: TestType, data: unknown): string {
     case "particle_cleanliness": {
       const largest = (d.largest ?? {}) as Record<string, number | undefined>;
       const split = d.split as Record<string, Record<string, number>> | null | undefined;
-      const parts = [`${d.components} component(s)`, `counts (particles): ${list(d.counts as Record<string, number>)}`];
-      if (split) parts.push(`metallic ${list(split.metallic)}; non-metallic ${list(split.nonMetallic)}; fibres ${list(split.fibre)}`);
-      const big = [["metallic", largest.metallicUm], ["non-metallic", largest.nonMetallicUm], ["fibre", largest.fibreUm]].filter(([, v]) => v !== undefined);
+      const parts = [
+        `${d.components} component(s)`,
+        `counts (particles): ${list(d.counts as Record<string, number>)}`,
+      ];
+      if (split)
+        parts.push(
+          `metallic ${list(split.metallic)}; non-metallic ${list(split.nonMetallic)}; fibres ${list(split.fibre)}`,
+        );
+      const big = [
+        ["metallic", largest.metallicUm],
+        ["non-metallic", largest.nonMetallicUm],
+        ["fibre", largest.fibreUm],
+      ].filter(([, v]) => v !== undefined);
       if (big.length) parts.push(`largest ${big.map(([t, v]) => `${t} ${v} µm`).join(", ")}`);
       return parts.join(" · ");
     }

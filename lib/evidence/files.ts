@@ -34,7 +34,8 @@ export function detectType(bytes: Uint8Array): AcceptedType | null {
   return markupKind(text) ? null : "csv";
 }
 
-const HTML_START = /^\s*(<!--[\s\S]*?-->\s*)*<(!doctype\s+html|html|head|body|script|meta|iframe|div|p|a|table|style|link|title|img|form)\b/i;
+const HTML_START =
+  /^\s*(<!--[\s\S]*?-->\s*)*<(!doctype\s+html|html|head|body|script|meta|iframe|div|p|a|table|style|link|title|img|form)\b/i;
 const SVG_START = /^\s*(<\?xml[^>]*>\s*)?(<!--[\s\S]*?-->\s*)*(<!doctype\s+svg[^>]*>\s*)?<svg\b/i;
 
 function markupKind(text: string): string | null {
@@ -60,7 +61,11 @@ const OTHER_SIGNATURES: [number[], string][] = [
 /** What the bytes are, in words, for a refusal ("an HTML page", "plain text"); "an unrecognised kind of file" when nothing fits. */
 export function describeContents(bytes: Uint8Array): string {
   // Signatures first: some ("GIF89a") are plain ASCII and would otherwise read as text.
-  if (startsWith(bytes, [0x52, 0x49, 0x46, 0x46]) && String.fromCharCode(...bytes.slice(8, 12)) === "WEBP") return "a WebP image";
+  if (
+    startsWith(bytes, [0x52, 0x49, 0x46, 0x46]) &&
+    String.fromCharCode(...bytes.slice(8, 12)) === "WEBP"
+  )
+    return "a WebP image";
   for (const [sig, what] of OTHER_SIGNATURES) if (startsWith(bytes, sig)) return what;
   const accepted = detectType(bytes);
   if (accepted) return accepted === "csv" ? "plain text" : `a ${ACCEPTED_TYPES[accepted].label}`;
@@ -96,11 +101,19 @@ export function sanitizeFileName(raw: string): string {
   const name = raw.normalize("NFC").trim();
   if (name === "") throw new FileCheckError("The file has no name.");
   // Control characters first, so no message below repeats one back.
-  if (/[\u0000-\u001f\u007f]/.test(name)) throw new FileCheckError("The file name contains control characters. Rename the file and upload it again.");
+  if (/[\u0000-\u001f\u007f]/.test(name))
+    throw new FileCheckError(
+      "The file name contains control characters. Rename the file and upload it again.",
+    );
   if (/[/\\]/.test(name) || name.includes("..")) {
-    throw new FileCheckError(`The file name "${raw.slice(0, 80)}" contains a folder path ("/", "\\" or ".."). Rename the file and upload it again.`);
+    throw new FileCheckError(
+      `The file name "${raw.slice(0, 80)}" contains a folder path ("/", "\\" or ".."). Rename the file and upload it again.`,
+    );
   }
-  if (name.startsWith(".")) throw new FileCheckError(`The file name "${raw.slice(0, 80)}" starts with a dot. Rename the file and upload it again.`);
+  if (name.startsWith("."))
+    throw new FileCheckError(
+      `The file name "${raw.slice(0, 80)}" starts with a dot. Rename the file and upload it again.`,
+    );
   const cleaned = name.replace(/[^\p{L}\p{N} ._()+-]/gu, "_").replace(/\s+/g, " ");
   if (cleaned.length <= MAX_NAME) return cleaned;
   const dot = cleaned.lastIndexOf(".");
@@ -116,7 +129,11 @@ export function extensionOf(name: string): string {
 /** A cell a spreadsheet would run as a formula (CSV injection). */
 export function formulaProblem(cell: string): string | null {
   const first = cell.trimStart().charAt(0);
-  return first && "=+-@".includes(first) ? first : /^[\t\r]/.test(cell) ? "a tab or carriage return" : null;
+  return first && "=+-@".includes(first)
+    ? first
+    : /^[\t\r]/.test(cell)
+      ? "a tab or carriage return"
+      : null;
 }
 
 /** Every cell of a CSV file that starts like a formula, with its row and column. */
@@ -126,12 +143,12 @@ export function findFormulaCells(text: string, limit = 20): string[] {
   parsed.data.forEach((row, r) =>
     row.forEach((cell, c) => {
       const mark = formulaProblem(cell);
-      if (mark && problems.length < limit) problems.push(`row ${r + 1}, column ${c + 1} starts with "${mark}"`);
+      if (mark && problems.length < limit)
+        problems.push(`row ${r + 1}, column ${c + 1} starts with "${mark}"`);
     }),
   );
   return problems;
 }
-
 
 export interface CheckedFile {
   type: AcceptedType;
@@ -144,15 +161,25 @@ export interface CheckedFile {
  * limit, a safe name, bytes of an accepted type that matches the extension, and
  * for CSV no cell that a spreadsheet would execute.
  */
-export function checkUpload(input: { name: string; bytes: Uint8Array; maxBytes: number }): CheckedFile {
+export function checkUpload(input: {
+  name: string;
+  bytes: Uint8Array;
+  maxBytes: number;
+}): CheckedFile {
   if (input.bytes.byteLength > input.maxBytes) {
-    throw new FileCheckError(`The file is ${formatSize(input.bytes.byteLength)}; the limit is ${formatSize(input.maxBytes)}.`, "too_large");
+    throw new FileCheckError(
+      `The file is ${formatSize(input.bytes.byteLength)}; the limit is ${formatSize(input.maxBytes)}.`,
+      "too_large",
+    );
   }
   if (input.bytes.byteLength === 0) throw new FileCheckError("The file is empty.");
   const name = sanitizeFileName(input.name);
   const ext = extensionOf(name);
-  const claimed = (Object.keys(ACCEPTED_TYPES) as AcceptedType[]).find((t) => (ACCEPTED_TYPES[t].extensions as readonly string[]).includes(ext));
-  if (!claimed) throw new FileCheckError(`"${name}" is not a PDF, PNG, JPEG or CSV file (by its extension).`);
+  const claimed = (Object.keys(ACCEPTED_TYPES) as AcceptedType[]).find((t) =>
+    (ACCEPTED_TYPES[t].extensions as readonly string[]).includes(ext),
+  );
+  if (!claimed)
+    throw new FileCheckError(`"${name}" is not a PDF, PNG, JPEG or CSV file (by its extension).`);
   const actual = detectType(input.bytes);
   if (actual !== claimed) {
     // Name what the file is ("an HTML page"), never a type it was only mistaken for.
@@ -165,7 +192,9 @@ export function checkUpload(input: { name: string; bytes: Uint8Array; maxBytes: 
   if (actual === "csv") {
     const formulas = findFormulaCells(new TextDecoder().decode(input.bytes));
     if (formulas.length > 0) {
-      throw new FileCheckError(`"${name}" has cells that a spreadsheet would run as formulas (${formulas.slice(0, 5).join("; ")}). Remove the leading = + - @ and upload again. Nothing was stored.`);
+      throw new FileCheckError(
+        `"${name}" has cells that a spreadsheet would run as formulas (${formulas.slice(0, 5).join("; ")}). Remove the leading = + - @ and upload again. Nothing was stored.`,
+      );
     }
   }
   return { type: actual, mime: ACCEPTED_TYPES[actual].mime, name };

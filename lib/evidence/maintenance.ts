@@ -21,7 +21,8 @@ export function maintenanceStatus(
 ): MaintenanceStatus {
   const from = new Date(input.lastDoneAt ?? input.since).getTime();
   const due = from + input.intervalDays * DAY_MS;
-  const state: MaintenanceState = now.getTime() > due ? "overdue" : now.getTime() >= due - input.warnDays * DAY_MS ? "due" : "ok";
+  const state: MaintenanceState =
+    now.getTime() > due ? "overdue" : now.getTime() >= due - input.warnDays * DAY_MS ? "due" : "ok";
   return { dueAt: new Date(due).toISOString(), state, lastDoneAt: input.lastDoneAt };
 }
 
@@ -31,7 +32,11 @@ export const MAINTENANCE_LABELS: Record<BathRecordKind, string> = {
   reading: "Bath reading",
 };
 
-export const STATE_LABELS: Record<MaintenanceState, string> = { ok: "In date", due: "Due", overdue: "Overdue" };
+export const STATE_LABELS: Record<MaintenanceState, string> = {
+  ok: "In date",
+  due: "Due",
+  overdue: "Overdue",
+};
 
 /** The monitored bath values that get a control chart, with their units. */
 export const BATH_VARIABLES = {

@@ -6,7 +6,14 @@ import { particleOutcome } from "./outcomes/particle";
 import { rinseConductivityOutcome } from "./outcomes/rinse-conductivity";
 import { wettingTensionOutcome } from "./outcomes/wetting-tension";
 
-export type { Check, CheckKind, OutcomeInput, RunOutcome, SampleOutcome, SpecForOutcome } from "./outcomes/common";
+export type {
+  Check,
+  CheckKind,
+  OutcomeInput,
+  RunOutcome,
+  SampleOutcome,
+  SpecForOutcome,
+} from "./outcomes/common";
 
 /**
  * The outcome of a test run, computed from its stored raw data by the pure evaluation of its test
@@ -26,14 +33,30 @@ const EVALUATE: Record<TestType, (input: OutcomeInput) => RunOutcome> = {
 
 export function computeRunOutcome(input: OutcomeInput): RunOutcome {
   const evaluate = EVALUATE[input.testType] as ((input: OutcomeInput) => RunOutcome) | undefined;
-  if (!evaluate) return { outcome: "incomplete", code: null, basisUnit: null, samples: [], checks: [], missing: [`No evaluation is defined for the test type "${String(input.testType)}".`] };
+  if (!evaluate)
+    return {
+      outcome: "incomplete",
+      code: null,
+      basisUnit: null,
+      samples: [],
+      checks: [],
+      missing: [`No evaluation is defined for the test type "${String(input.testType)}".`],
+    };
   let result: RunOutcome;
   try {
     result = evaluate(input);
   } catch (error) {
     // A computation that refuses its input makes the run incomplete, with its reason.
-    return { outcome: "incomplete", code: null, basisUnit: null, samples: [], checks: [], missing: [(error as Error).message] };
+    return {
+      outcome: "incomplete",
+      code: null,
+      basisUnit: null,
+      samples: [],
+      checks: [],
+      missing: [(error as Error).message],
+    };
   }
-  if (result.samples.length === 0) return { ...result, missing: ["No sample recorded yet.", ...result.missing] };
+  if (result.samples.length === 0)
+    return { ...result, missing: ["No sample recorded yet.", ...result.missing] };
   return result;
 }

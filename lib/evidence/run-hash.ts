@@ -23,7 +23,12 @@ export interface HashableRun {
  */
 export function runContentHash(
   run: HashableRun,
-  samples: { sampleLabel: string; basketPosition: string | null; worstCase: boolean; data: unknown }[],
+  samples: {
+    sampleLabel: string;
+    basketPosition: string | null;
+    worstCase: boolean;
+    data: unknown;
+  }[],
   files: { sha256: string; originalName: string; kind: string; sampleLabel: string | null }[],
 ) {
   const content = {
@@ -40,8 +45,18 @@ export function runContentHash(
     requirement: run.requirement,
     runData: run.runData ?? null,
     // The key stays "results": every signature already given binds to content hashed under it.
-    results: samples.map((r) => ({ sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data })),
-    files: files.map((f) => ({ sha256: f.sha256, name: f.originalName, kind: f.kind, sampleLabel: f.sampleLabel })),
+    results: samples.map((r) => ({
+      sampleLabel: r.sampleLabel,
+      basketPosition: r.basketPosition,
+      worstCase: r.worstCase,
+      data: r.data,
+    })),
+    files: files.map((f) => ({
+      sha256: f.sha256,
+      name: f.originalName,
+      kind: f.kind,
+      sampleLabel: f.sampleLabel,
+    })),
   };
   return { content, hash: sha256Hex(canonicalJson(content)) };
 }

@@ -21,11 +21,22 @@ export function readSamplePage(param: string | string[] | undefined): number {
   return value && /^\d{1,7}$/.test(value) ? Math.max(1, Number(value)) : 1;
 }
 
-export function samplePage<T>(all: readonly T[], requested: number, size = SAMPLES_PER_PAGE): SamplePage<T> {
+export function samplePage<T>(
+  all: readonly T[],
+  requested: number,
+  size = SAMPLES_PER_PAGE,
+): SamplePage<T> {
   const total = all.length;
   const pages = Math.max(1, Math.ceil(total / size));
   const page = Math.min(Math.max(1, Math.floor(requested) || 1), pages);
   const start = (page - 1) * size;
   const items = all.slice(start, start + size);
-  return { items, page, pages, from: items.length ? start + 1 : 0, to: start + items.length, total };
+  return {
+    items,
+    page,
+    pages,
+    from: items.length ? start + 1 : 0,
+    to: start + items.length,
+    total,
+  };
 }

@@ -22,7 +22,11 @@ const UNIT = { area: "per 1000 cm²", volume: "per 100 cm³", component: "per co
  * each run, with the limit beside it; computed with evaluateAgainstSpec so the
  * chart and the run's outcome use the same arithmetic.
  */
-export function particleTrend(ccc: string, family: { wettedAreaCm2: number; wettedVolumeCm3: number | null }, runs: TrendRunInput[]): TrendSeries {
+export function particleTrend(
+  ccc: string,
+  family: { wettedAreaCm2: number; wettedVolumeCm3: number | null },
+  runs: TrendRunInput[],
+): TrendSeries {
   const spec = parseCleanlinessSpec(ccc);
   const groups = new Map<string, { key: string; limit: number; limitLevel: string | null }>();
   const points: TrendSeries["points"] = [];
@@ -41,12 +45,21 @@ export function particleTrend(ccc: string, family: { wettedAreaCm2: number; wett
             : { kind: "component", components: data.components };
       if (!basis) continue;
       for (const row of evaluateAgainstSpec(data.counts, basis, spec).rows) {
-        const key = row.classes.length > 1 ? `${row.classes[0]}-${row.classes[row.classes.length - 1]}` : row.classes[0];
+        const key =
+          row.classes.length > 1
+            ? `${row.classes[0]}-${row.classes[row.classes.length - 1]}`
+            : row.classes[0];
         groups.set(key, { key, limit: row.limit, limitLevel: row.limitLevel ?? null });
         values[key] = Math.max(values[key] ?? 0, row.value);
       }
     }
-    if (Object.keys(values).length > 0) points.push({ run: `${run.number}${run.revision > 1 ? ` rev ${run.revision}` : ""}`, date: run.performedOn ?? "", outcome: run.outcome, values });
+    if (Object.keys(values).length > 0)
+      points.push({
+        run: `${run.number}${run.revision > 1 ? ` rev ${run.revision}` : ""}`,
+        date: run.performedOn ?? "",
+        outcome: run.outcome,
+        values,
+      });
   }
   return { groups: [...groups.values()], unit: UNIT[spec.basis], points };
 }

@@ -23,7 +23,8 @@ export function parseUtc(value: DateInput): Date | null {
   else return null; // only ISO-8601: Date's parser accepts "1" or "March 5" and guesses
   if (Number.isNaN(date.getTime())) return null;
   // Date rolls "2026-02-30" over to March; a calendar date that does not exist is invalid.
-  if (date.toISOString().slice(0, 10) !== text.slice(0, 10) && !/[+-]\d{2}:?\d{2}$/.test(text)) return null;
+  if (date.toISOString().slice(0, 10) !== text.slice(0, 10) && !/[+-]\d{2}:?\d{2}$/.test(text))
+    return null;
   return date;
 }
 
@@ -42,10 +43,16 @@ export interface DateTimeOptions {
 }
 
 /** A moment in UTC, "2026-06-15 07:00 UTC". */
-export function formatDateTime(value: DateInput, { seconds = false, zone = true, fallback = "—" }: DateTimeOptions = {}): string {
+export function formatDateTime(
+  value: DateInput,
+  { seconds = false, zone = true, fallback = "—" }: DateTimeOptions = {},
+): string {
   const date = parseUtc(value);
   if (!date) return fallback;
-  const text = date.toISOString().replace("T", " ").slice(0, seconds ? 19 : 16);
+  const text = date
+    .toISOString()
+    .replace("T", " ")
+    .slice(0, seconds ? 19 : 16);
   return zone ? `${text} UTC` : text;
 }
 
@@ -61,5 +68,8 @@ export function dateTimeFieldValue(now: Date = new Date()): string {
 
 /** A file-name stamp, "20260615T070000Z". */
 export function fileStamp(now: Date = new Date()): string {
-  return now.toISOString().replace(/[-:]/g, "").replace(/\.\d+Z$/, "Z");
+  return now
+    .toISOString()
+    .replace(/[-:]/g, "")
+    .replace(/\.\d+Z$/, "Z");
 }

@@ -8,7 +8,9 @@ export function humanize(code: string): string {
 }
 
 /** Abbreviations a code holds in lower case that read wrong capitalised ("Uv inspection"). */
-const ACRONYMS = new Map(["uv", "iq", "oq", "pq", "csv", "pdf", "api", "id"].map((a) => [a, a.toUpperCase()]));
+const ACRONYMS = new Map(
+  ["uv", "iq", "oq", "pq", "csv", "pdf", "api", "id"].map((a) => [a, a.toUpperCase()]),
+);
 
 export const STAGE_MODE_LABELS: Record<string, string> = {
   ultrasonic: "Ultrasonic",

@@ -11,21 +11,30 @@
  * a map, a stream, a server reference, a blob) is never sent by a form or by the editor's autosave.
  */
 
-export const MALFORMED_ACTION_BODY = "The request could not be read: it is not a form this application sends. Reload the page and try again; nothing was saved.";
+export const MALFORMED_ACTION_BODY =
+  "The request could not be read: it is not a form this application sends. Reload the page and try again; nothing was saved.";
 
 /** Deep enough for any form's state; deeper JSON is an attack on the decoder's recursion. */
 const MAX_DEPTH = 32;
 const SCALAR_REFS = /^\$(u|NaN|Infinity|-Infinity|-0|D.*|n-?\d+)$/s;
 const FORM_REF = /^\$K[0-9a-f]+$/;
 
-export type ActionBody = { kind: "text"; text: string } | { kind: "form"; fields: ReadonlyMap<string, unknown> };
+export type ActionBody =
+  { kind: "text"; text: string } | { kind: "form"; fields: ReadonlyMap<string, unknown> };
 
 function refsAreKnown(value: unknown, depth: number): boolean {
   if (depth > MAX_DEPTH) return false;
   // A form reference whose fields are missing decodes to an empty form: harmless, the action refuses it.
-  if (typeof value === "string") return !value.startsWith("$") || value.startsWith("$$") || SCALAR_REFS.test(value) || FORM_REF.test(value);
+  if (typeof value === "string")
+    return (
+      !value.startsWith("$") ||
+      value.startsWith("$$") ||
+      SCALAR_REFS.test(value) ||
+      FORM_REF.test(value)
+    );
   if (Array.isArray(value)) return value.every((v) => refsAreKnown(v, depth + 1));
-  if (value && typeof value === "object") return Object.values(value).every((v) => refsAreKnown(v, depth + 1));
+  if (value && typeof value === "object")
+    return Object.values(value).every((v) => refsAreKnown(v, depth + 1));
   return true;
 }
 
@@ -45,4 +54,5 @@ export function isDecodableActionBody(body: ActionBody): boolean {
 }
 
 /** A server action the page's JavaScript calls carries the action's id in this header. */
-export const isFetchAction = (method: string, headers: Headers) => method === "POST" && headers.has("next-action");
+export const isFetchAction = (method: string, headers: Headers) =>
+  method === "POST" && headers.has("next-action");

@@ -4,7 +4,10 @@ import type { z } from "zod";
 
 /** A JSON error body every route handler uses: a message a person can act on, and field details. */
 export function jsonError(status: number, message: string, fieldErrors?: Record<string, string[]>) {
-  return NextResponse.json({ error: message, ...(fieldErrors ? { fieldErrors } : {}) }, { status, headers: { "Cache-Control": "no-store" } });
+  return NextResponse.json(
+    { error: message, ...(fieldErrors ? { fieldErrors } : {}) },
+    { status, headers: { "Cache-Control": "no-store" } },
+  );
 }
 
 export function zodFieldErrors(error: z.ZodError): Record<string, string[]> {

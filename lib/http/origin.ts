@@ -28,7 +28,11 @@ export function isCrossSiteWrite(input: OriginInput): boolean {
       return true;
     }
     if (host === "") return true;
-    const own = [input.forwardedHost, input.host, input.appUrl ? safeHost(input.appUrl) : null].filter(Boolean);
+    const own = [
+      input.forwardedHost,
+      input.host,
+      input.appUrl ? safeHost(input.appUrl) : null,
+    ].filter(Boolean);
     return !own.includes(host);
   }
   return input.secFetchSite === "cross-site" || input.secFetchSite === "same-site";
@@ -40,7 +44,12 @@ export function isCrossSiteWrite(input: OriginInput): boolean {
  * reads write an audit event in the user's name, so a foreign page must not be
  * able to make one. A bookmark or a typed address sends Sec-Fetch-Site "none".
  */
-export function isCrossSiteApiRead(input: { method: string; path: string; secFetchSite: string | null; hasSessionCookie: boolean }): boolean {
+export function isCrossSiteApiRead(input: {
+  method: string;
+  path: string;
+  secFetchSite: string | null;
+  hasSessionCookie: boolean;
+}): boolean {
   if (UNSAFE.has(input.method.toUpperCase()) || !input.hasSessionCookie) return false;
   if (!input.path.startsWith("/api/") || input.path.startsWith("/api/v1/")) return false;
   return input.secFetchSite === "cross-site" || input.secFetchSite === "same-site";

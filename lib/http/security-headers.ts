@@ -3,7 +3,10 @@
  * own inline scripts run and nothing injected does, and no framing. HSTS only
  * in production over HTTPS (a development server on http must stay reachable).
  */
-export function securityHeaders(input: { nonce: string; dev: boolean; https: boolean }): { csp: string; hsts: string | null } {
+export function securityHeaders(input: { nonce: string; dev: boolean; https: boolean }): {
+  csp: string;
+  hsts: string | null;
+} {
   const csp = [
     "default-src 'self'",
     `script-src 'self' 'nonce-${input.nonce}' 'strict-dynamic'${input.dev ? " 'unsafe-eval'" : ""}`,

@@ -21,7 +21,14 @@ const HASH_LINE = 64;
 export const HASH_LINE_WIDTH_PT = HASH_LINE * MONO_ADVANCE_EM * MONO_SIZE;
 
 const s = StyleSheet.create({
-  page: { fontFamily: PDF_FONT, fontSize: 8.5, paddingTop: 22, paddingBottom: 22, paddingHorizontal: 40, color: "#1c1917" },
+  page: {
+    fontFamily: PDF_FONT,
+    fontSize: 8.5,
+    paddingTop: 22,
+    paddingBottom: 22,
+    paddingHorizontal: 40,
+    color: "#1c1917",
+  },
   frame: { flexGrow: 1 },
   flow: { flexGrow: 1, paddingTop: 12, paddingBottom: 12 },
   header: { borderBottomWidth: 1, borderBottomColor: "#12524d", paddingBottom: 5 },
@@ -55,7 +62,17 @@ function Hash({ value, perLine = HASH_LINE }: { value: string; perLine?: number 
 }
 
 /** `notes`: a full-width line under each row, for a hash too wide to share the row with its columns. */
-function Table({ widths, head, rows, notes }: { widths: number[]; head: string[]; rows: ReactNode[][]; notes?: ReactNode[] }) {
+function Table({
+  widths,
+  head,
+  rows,
+  notes,
+}: {
+  widths: number[];
+  head: string[];
+  rows: ReactNode[][];
+  notes?: ReactNode[];
+}) {
   return (
     <View style={s.table}>
       <View style={[s.row, s.head]} fixed>
@@ -88,7 +105,12 @@ function Table({ widths, head, rows, notes }: { widths: number[]; head: string[]
 function CheckpointAnchor({ checkpoints: c }: { checkpoints: AuditPack["checkpoints"] }) {
   const cp = c.newest;
   if (!cp) {
-    return <Text style={s.p}>No signed checkpoint of the audit trail existed at export, so the trail is anchored by its own hash chain only.</Text>;
+    return (
+      <Text style={s.p}>
+        No signed checkpoint of the audit trail existed at export, so the trail is anchored by its
+        own hash chain only.
+      </Text>
+    );
   }
   const verdict = c.keyProblem
     ? `The checkpoints could not be checked: ${c.keyProblem}`
@@ -98,8 +120,10 @@ function CheckpointAnchor({ checkpoints: c }: { checkpoints: AuditPack["checkpoi
   return (
     <View>
       <Text style={s.p}>
-        Newest signed checkpoint (kept in the evidence store, outside the database, and e-mailed to the auditor): event {cp.seq} at {formatDateTime(cp.at, { seconds: true })}, signed{" "}
-        {cp.by === "schedule" ? "on schedule" : `at the request of ${cp.by}`} with Ed25519 key {cp.keyId}. {verdict}
+        Newest signed checkpoint (kept in the evidence store, outside the database, and e-mailed to
+        the auditor): event {cp.seq} at {formatDateTime(cp.at, { seconds: true })}, signed{" "}
+        {cp.by === "schedule" ? "on schedule" : `at the request of ${cp.by}`} with Ed25519 key{" "}
+        {cp.keyId}. {verdict}
       </Text>
       <Text style={s.small}>Checkpoint hash (SHA-256)</Text>
       <Hash value={cp.hash} />
@@ -120,8 +144,17 @@ function KV({ k, children }: { k: string; children: ReactNode }) {
   );
 }
 
-const valueOf = (p: { setpoint: number; unit: string; validatedLow: number | null; validatedHigh: number | null } | null) =>
-  p ? `${withUnit(p.setpoint, p.unit)} (validated ${rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit)})` : "—";
+const valueOf = (
+  p: {
+    setpoint: number;
+    unit: string;
+    validatedLow: number | null;
+    validatedHigh: number | null;
+  } | null,
+) =>
+  p
+    ? `${withUnit(p.setpoint, p.unit)} (validated ${rangeWithUnit(p.validatedLow, p.validatedHigh, p.unit)})`
+    : "—";
 
 export interface AuditPackPdfInput {
   pack: AuditPack;
@@ -150,31 +183,48 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
             </View>
             <View style={s.flow}>{children}</View>
             <View style={s.footer}>
-              <Text style={s.footerLeft}>Audit pack {cr.number} · content hash {pack.contentHash.slice(0, 16)}…</Text>
+              <Text style={s.footerLeft}>
+                Audit pack {cr.number} · content hash {pack.contentHash.slice(0, 16)}…
+              </Text>
               <Text style={s.footerRight}>{`Page ${pageNumber} of ${totalPages}`}</Text>
             </View>
           </View>
         )}
       >
-
-        <Text style={s.h2} minPresenceAhead={60}>1. The record</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          1. The record
+        </Text>
         <KV k="Change request">
           {cr.number} · {CHANGE_KIND_LABELS[pack.kind]} · revision {pack.revision}
         </KV>
         <KV k="Status">{CHANGE_STATUS_LABELS[cr.status]}</KV>
         <KV k="Recipe">
-          {pack.recipe.code} {pack.recipe.name}: {pack.fromVersion ? `version ${pack.fromVersion.version} (${humanize(pack.fromVersion.status)})` : "no earlier version"} → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
+          {pack.recipe.code} {pack.recipe.name}:{" "}
+          {pack.fromVersion
+            ? `version ${pack.fromVersion.version} (${humanize(pack.fromVersion.status)})`
+            : "no earlier version"}{" "}
+          → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
         </KV>
         {pack.family && <KV k="Adds part family">{`${pack.family.code} ${pack.family.name}`}</KV>}
         <KV k="Opened">{formatDateTime(cr.createdAt, { seconds: true })}</KV>
-        <KV k="Closed">{cr.closedAt ? formatDateTime(cr.closedAt, { seconds: true }) : "not closed"}</KV>
-        <KV k="Version in force">{pack.toVersion.effectiveFrom ? `version ${pack.toVersion.version} from ${formatDateTime(pack.toVersion.effectiveFrom, { seconds: true })}` : pack.fromVersion ? `version ${pack.fromVersion.version} (the proposal is not in force)` : "none (the first version is not in force yet)"}</KV>
+        <KV k="Closed">
+          {cr.closedAt ? formatDateTime(cr.closedAt, { seconds: true }) : "not closed"}
+        </KV>
+        <KV k="Version in force">
+          {pack.toVersion.effectiveFrom
+            ? `version ${pack.toVersion.version} from ${formatDateTime(pack.toVersion.effectiveFrom, { seconds: true })}`
+            : pack.fromVersion
+              ? `version ${pack.fromVersion.version} (the proposal is not in force)`
+              : "none (the first version is not in force yet)"}
+        </KV>
         <View style={s.kv}>
           <Text style={s.k}>Content hash (SHA-256)</Text>
           <Hash value={pack.contentHash} />
         </View>
 
-        <Text style={s.h2} minPresenceAhead={60}>2. Justification and risk assessment</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          2. Justification and risk assessment
+        </Text>
         {pack.narrative ? (
           pack.narrative.split("\n\n").map((para, i) => (
             <Text key={i} style={s.p}>
@@ -185,13 +235,22 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           <Text style={s.p}>Not written.</Text>
         )}
 
-        <Text style={s.h2} minPresenceAhead={60}>3. Parameter diff</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          3. Parameter diff
+        </Text>
         {changed.length === 0 ? (
           <Text style={s.p}>No parameter changed.</Text>
         ) : (
           <Table
             widths={[2.2, 1, 2.4, 2.4, 1, 3]}
-            head={["Parameter", "Change", pack.fromVersion ? `Version ${pack.fromVersion.version}` : "Before", `Version ${pack.toVersion.version}`, "Range", "Impact and reason"]}
+            head={[
+              "Parameter",
+              "Change",
+              pack.fromVersion ? `Version ${pack.fromVersion.version}` : "Before",
+              `Version ${pack.toVersion.version}`,
+              "Range",
+              "Impact and reason",
+            ]}
             rows={changed.map((p) => [
               `${p.stage} · ${p.name} (${p.key})`,
               humanize(p.change),
@@ -213,7 +272,9 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           </Text>
         ))}
 
-        <Text style={s.h2} minPresenceAhead={60}>4. Impact</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          4. Impact
+        </Text>
         <KV k="Impact class">
           {humanize(pack.impact)} (computed {pack.assessment.computed}
           {pack.raiseReason ? `; raised by the engineer: ${pack.raiseReason}` : ""})
@@ -227,13 +288,20 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           <Table
             widths={[2, 1, 1, 1]}
             head={["Required test", "Samples", "Confidence", "Reliability"]}
-            rows={pack.requirements.map((r) => [TEST_TYPE_LABELS[r.testType], `${r.samples} parts`, `${r.confidencePct} %`, `${r.reliabilityPct} %`])}
+            rows={pack.requirements.map((r) => [
+              TEST_TYPE_LABELS[r.testType],
+              `${r.samples} parts`,
+              `${r.confidencePct} %`,
+              `${r.reliabilityPct} %`,
+            ])}
           />
         ) : (
           <Text style={s.p}>No requalification tests required.</Text>
         )}
 
-        <Text style={s.h2} minPresenceAhead={60}>5. Electronic signatures</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          5. Electronic signatures
+        </Text>
         {pack.signatures.length === 0 ? (
           <Text style={s.p}>No signatures.</Text>
         ) : (
@@ -257,7 +325,9 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           />
         )}
 
-        <Text style={s.h2} minPresenceAhead={60}>6. Requalification evidence</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          6. Requalification evidence
+        </Text>
         {pack.evidence.length === 0 ? (
           <Text style={s.p}>No test run is linked to this change request.</Text>
         ) : (
@@ -265,16 +335,21 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
             <View key={run.id} wrap={false}>
               <Text style={s.h3}>
                 {run.number}
-                {run.revision > 1 ? ` rev. ${run.revision}` : ""} · {TEST_TYPE_LABELS[run.testType]} · computed outcome {run.outcome ? OUTCOME_LABELS[run.outcome] : "not computed"}
+                {run.revision > 1 ? ` rev. ${run.revision}` : ""} · {TEST_TYPE_LABELS[run.testType]}{" "}
+                · computed outcome {run.outcome ? OUTCOME_LABELS[run.outcome] : "not computed"}
               </Text>
               <Text style={s.p}>
-                {humanize(run.status)} · {run.samples} samples{run.worstCaseSamples ? ` (${run.worstCaseSamples} at worst-case positions)` : ""} · performed {run.performedOn ?? "—"}
+                {humanize(run.status)} · {run.samples} samples
+                {run.worstCaseSamples ? ` (${run.worstCaseSamples} at worst-case positions)` : ""} ·
+                performed {run.performedOn ?? "—"}
                 {run.lab ? ` at ${run.lab}` : ""}
               </Text>
               {run.signatures.map((sig) => (
                 <View key={sig.id} style={s.p}>
                   <Text>
-                    {MEANING_LABELS[sig.meaning]} by {sig.printedName}, {formatDateTime(sig.signedAt, { seconds: true })}: “{meaningStatement("test_run", sig.meaning)}”
+                    {MEANING_LABELS[sig.meaning]} by {sig.printedName},{" "}
+                    {formatDateTime(sig.signedAt, { seconds: true })}: “
+                    {meaningStatement("test_run", sig.meaning)}”
                   </Text>
                   <View style={{ flexDirection: "row" }}>
                     <Text style={s.noteLabel}>Signed hash</Text>
@@ -286,25 +361,41 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
             </View>
           ))
         )}
-        <Text style={s.small}>A computed pass supports, and never replaces, the customer&apos;s specification and the responsible engineer&apos;s judgement.</Text>
+        <Text style={s.small}>
+          A computed pass supports, and never replaces, the customer&apos;s specification and the
+          responsible engineer&apos;s judgement.
+        </Text>
 
-        <Text style={s.h2} minPresenceAhead={60}>7. Evidence files and their hashes</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          7. Evidence files and their hashes
+        </Text>
         {files.length === 0 ? (
           <Text style={s.p}>No evidence files are attached to the linked runs.</Text>
         ) : (
           <>
-            <Text style={s.p}>Each file is stored under its SHA-256. To check a copy, compute its SHA-256 (for example `sha256sum FILE`) and compare it with the value here.</Text>
+            <Text style={s.p}>
+              Each file is stored under its SHA-256. To check a copy, compute its SHA-256 (for
+              example `sha256sum FILE`) and compare it with the value here.
+            </Text>
             <Table
               widths={[0.9, 2, 0.8, 4.3]}
               head={["Run", "File", "Size", "SHA-256"]}
-              rows={files.map((f) => [f.run, f.originalName, formatBytes(f.sizeBytes), <Hash key="h" value={f.sha256} />])}
+              rows={files.map((f) => [
+                f.run,
+                f.originalName,
+                formatBytes(f.sizeBytes),
+                <Hash key="h" value={f.sha256} />,
+              ])}
             />
           </>
         )}
 
-        <Text style={s.h2} minPresenceAhead={60}>8. Audit extract</Text>
+        <Text style={s.h2} minPresenceAhead={60}>
+          8. Audit extract
+        </Text>
         <Text style={s.p}>
-          {pack.events.length} events about this change request, its recipe versions, signatures, runs and files. Integrity of the whole audit trail at export:{" "}
+          {pack.events.length} events about this change request, its recipe versions, signatures,
+          runs and files. Integrity of the whole audit trail at export:{" "}
           {pack.chain.ok
             ? `intact (${pack.chain.events} events)`
             : `BROKEN in ${pack.chain.breaks.length} place${pack.chain.breaks.length === 1 ? "" : "s"}: ${pack.chain.breaks.map((b) => b.reason).join("; ")}`}
@@ -320,7 +411,13 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
         <Table
           widths={[0.5, 1.9, 1.5, 2.4, 1.5]}
           head={["Seq", "At (UTC)", "Actor", "Event", "Record"]}
-          rows={pack.events.map((e) => [String(e.seq), formatDateTime(e.at, { seconds: true }), e.actorName, e.eventType, humanize(e.recordType)])}
+          rows={pack.events.map((e) => [
+            String(e.seq),
+            formatDateTime(e.at, { seconds: true }),
+            e.actorName,
+            e.eventType,
+            humanize(e.recordType),
+          ])}
           notes={pack.events.map((e) => (
             <View key={e.seq} style={s.note}>
               <Text style={s.noteLabel}>Event hash (SHA-256)</Text>

@@ -9,7 +9,14 @@ import { PDF_FONT } from "./fonts";
 import { letterheadLine, type Letterhead } from "./letterhead";
 
 const s = StyleSheet.create({
-  page: { fontFamily: PDF_FONT, fontSize: 9.5, paddingTop: 24, paddingBottom: 24, paddingHorizontal: 48, color: "#1c1917" },
+  page: {
+    fontFamily: PDF_FONT,
+    fontSize: 9.5,
+    paddingTop: 24,
+    paddingBottom: 24,
+    paddingHorizontal: 48,
+    color: "#1c1917",
+  },
   frame: { flexGrow: 1 },
   flow: { flexGrow: 1, paddingTop: 14, paddingBottom: 14 },
   // Line height on the body only: set on the page, it stops react-pdf drawing the rendered page number.
@@ -18,7 +25,15 @@ const s = StyleSheet.create({
   headerRow: { flexDirection: "row", justifyContent: "space-between" },
   number: { fontSize: 11, fontWeight: "bold", color: "#12524d" },
   small: { fontSize: 8, color: "#57534e" },
-  uncontrolled: { fontSize: 9, fontWeight: "bold", color: "#1c1917", borderWidth: 1, borderColor: "#1c1917", paddingHorizontal: 4, paddingVertical: 1 },
+  uncontrolled: {
+    fontSize: 9,
+    fontWeight: "bold",
+    color: "#1c1917",
+    borderWidth: 1,
+    borderColor: "#1c1917",
+    paddingHorizontal: 4,
+    paddingVertical: 1,
+  },
   footer: { flexDirection: "row", justifyContent: "space-between" },
   footerLeft: { flex: 1, paddingRight: 24, fontSize: 7.5, color: "#57534e" },
   footerRight: { fontSize: 7.5, color: "#57534e" },
@@ -31,7 +46,14 @@ const s = StyleSheet.create({
   table: { borderWidth: 0.5, borderColor: "#a8a29e", marginVertical: 4 },
   row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: "#d6d3d1" },
   cell: { flex: 1, padding: 3, borderRightWidth: 0.5, borderRightColor: "#d6d3d1" },
-  headCell: { flex: 1, padding: 3, borderRightWidth: 0.5, borderRightColor: "#d6d3d1", backgroundColor: "#f5f5f4", fontWeight: "bold" },
+  headCell: {
+    flex: 1,
+    padding: 3,
+    borderRightWidth: 0.5,
+    borderRightColor: "#d6d3d1",
+    backgroundColor: "#f5f5f4",
+    fontWeight: "bold",
+  },
   quote: { borderLeftWidth: 2, borderLeftColor: "#a8a29e", paddingLeft: 6, marginVertical: 3 },
   code: { backgroundColor: "#f5f5f4", padding: 4, marginVertical: 3 },
   rule: { borderBottomWidth: 0.5, borderBottomColor: "#a8a29e", marginVertical: 6 },
@@ -51,7 +73,11 @@ function inline(nodes: RichNode[] = []): ReactNode[] {
         style={{
           fontWeight: marks.has("bold") ? "bold" : undefined,
           fontStyle: marks.has("italic") ? "italic" : undefined,
-          textDecoration: marks.has("strike") ? "line-through" : marks.has("underline") || href ? "underline" : undefined,
+          textDecoration: marks.has("strike")
+            ? "line-through"
+            : marks.has("underline") || href
+              ? "underline"
+              : undefined,
         }}
       >
         {n.text}
@@ -67,7 +93,11 @@ function block(node: RichNode, key: number | string, ordinal?: string): ReactNod
     case "heading": {
       const level = Number(node.attrs?.level) || 2;
       return (
-        <Text key={key} style={level === 1 ? s.h1 : level === 2 ? s.h2 : s.h3} minPresenceAhead={40}>
+        <Text
+          key={key}
+          style={level === 1 ? s.h1 : level === 2 ? s.h2 : s.h3}
+          minPresenceAhead={40}
+        >
           {inline(children)}
         </Text>
       );
@@ -83,7 +113,9 @@ function block(node: RichNode, key: number | string, ordinal?: string): ReactNod
       const start = Number(node.attrs?.start) || 1;
       return (
         <View key={key} style={{ marginBottom: 3 }}>
-          {children.map((item, i) => block(item, i, node.type === "orderedList" ? `${start + i}.` : "•"))}
+          {children.map((item, i) =>
+            block(item, i, node.type === "orderedList" ? `${start + i}.` : "•"),
+          )}
         </View>
       );
     }
@@ -154,7 +186,11 @@ function DocumentPdf(d: DocumentPdfInput) {
   const owner = letterheadLine(d.letterhead);
   const controlled = d.status === "effective";
   return (
-    <Document title={`${d.number} version ${d.version} — ${d.title}`} author="Washproof" subject={d.typeLabel}>
+    <Document
+      title={`${d.number} version ${d.version} — ${d.title}`}
+      author="Washproof"
+      subject={d.typeLabel}
+    >
       <Page
         size="A4"
         style={s.page}
@@ -172,13 +208,15 @@ function DocumentPdf(d: DocumentPdfInput) {
               </View>
               <Text>{d.title}</Text>
               <Text style={s.small}>
-                {d.typeLabel} · Status: {DOCUMENT_STATUS_LABELS[d.status]} · Effective date: {d.effectiveDate ?? "none"}
+                {d.typeLabel} · Status: {DOCUMENT_STATUS_LABELS[d.status]} · Effective date:{" "}
+                {d.effectiveDate ?? "none"}
               </Text>
             </View>
             <View style={s.flow}>{children}</View>
             <View style={s.footer}>
               <Text style={s.footerLeft}>
-                {d.number} v{d.version} · {d.contentHash ? `SHA-256 ${d.contentHash.slice(0, 16)}…` : "draft"}
+                {d.number} v{d.version} ·{" "}
+                {d.contentHash ? `SHA-256 ${d.contentHash.slice(0, 16)}…` : "draft"}
                 {controlled ? "" : " · Uncontrolled copy"}
               </Text>
               <Text style={s.footerRight}>{`Page ${pageNumber} of ${totalPages}`}</Text>
@@ -206,14 +244,23 @@ function DocumentPdf(d: DocumentPdfInput) {
                   <Text style={s.cell}>{sig.printedName}</Text>
                   <Text style={s.cell}>{MEANING_LABELS[sig.meaning]}</Text>
                   <Text style={s.cell}>{formatDateTime(sig.signedAt, { seconds: true })}</Text>
-                  <Text style={s.cell}>{sig.validity === "valid" ? "Valid for this content" : "Invalid: content changed"}</Text>
+                  <Text style={s.cell}>
+                    {sig.validity === "valid"
+                      ? "Valid for this content"
+                      : "Invalid: content changed"}
+                  </Text>
                 </View>
               ))}
             </View>
           )}
-          <Text style={s.mono}>Content hash (SHA-256): {d.contentHash ?? "none: a draft has no frozen content"}</Text>
+          <Text style={s.mono}>
+            Content hash (SHA-256): {d.contentHash ?? "none: a draft has no frozen content"}
+          </Text>
           <Text style={s.small}>
-            Printed {formatDateTime(d.printedAt, { seconds: true })} by {d.printedBy}. {controlled ? "Controlled copy as effective at printing; check Washproof for the version in force." : "Uncontrolled copy: this version is not in force."}
+            Printed {formatDateTime(d.printedAt, { seconds: true })} by {d.printedBy}.{" "}
+            {controlled
+              ? "Controlled copy as effective at printing; check Washproof for the version in force."
+              : "Uncontrolled copy: this version is not in force."}
           </Text>
         </View>
       </Page>

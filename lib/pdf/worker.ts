@@ -13,7 +13,11 @@ process.on("message", async (message: Request) => {
     const bytes = await renderJob(message.job);
     process.send!({ id: message.id, ok: true, bytes: new Uint8Array(bytes) });
   } catch (error) {
-    process.send!({ id: message.id, ok: false, message: error instanceof Error ? error.message : String(error) });
+    process.send!({
+      id: message.id,
+      ok: false,
+      message: error instanceof Error ? error.message : String(error),
+    });
   }
 });
 process.send!({ ready: true });

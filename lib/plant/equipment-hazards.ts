@@ -25,7 +25,12 @@ export function hazardsOfEquipment(stages: EquipmentHazardStage[]): Hazard[] {
   let heated = false;
   for (const s of stages) {
     if (s.kind === "wash") params.push({ kind: "concentration", setpoint: 0, unit: "" });
-    if (s.kind === "drying" || ((s.kind === "wash" || s.kind === "rinse" || s.kind === "final_rinse") && s.tankVolumeL !== null)) heated = true;
+    if (
+      s.kind === "drying" ||
+      ((s.kind === "wash" || s.kind === "rinse" || s.kind === "final_rinse") &&
+        s.tankVolumeL !== null)
+    )
+      heated = true;
     for (const mode of s.capabilities) params.push({ kind: "other", setpoint: 0, unit: "", mode });
     if (s.filterRatingUm !== null) params.push({ kind: "filter_interval", setpoint: 0, unit: "" });
   }

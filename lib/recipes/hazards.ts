@@ -25,7 +25,11 @@ export function hazardsOfParameters(params: HazardInput[]): Hazard[] {
   let maxTemperature = -Infinity;
   for (const p of params) {
     const hottest = Math.max(p.setpoint, p.validatedHigh ?? -Infinity);
-    if ((p.kind === "temperature" || p.kind === "drying_temperature") && p.unit === "°C" && hottest > BURN_THRESHOLD_C) {
+    if (
+      (p.kind === "temperature" || p.kind === "drying_temperature") &&
+      p.unit === "°C" &&
+      hottest > BURN_THRESHOLD_C
+    ) {
       maxTemperature = Math.max(maxTemperature, hottest);
       found.set("burn", {
         kind: "burn",
@@ -47,7 +51,11 @@ export function hazardsOfParameters(params: HazardInput[]): Hazard[] {
         text: "Parts leave the vacuum dryer hot. Vent the chamber fully before opening and handle baskets with gloves.",
       });
     }
-    if (p.kind === "ultrasonic_power" || p.kind === "ultrasonic_frequency" || p.mode === "ultrasonic") {
+    if (
+      p.kind === "ultrasonic_power" ||
+      p.kind === "ultrasonic_frequency" ||
+      p.mode === "ultrasonic"
+    ) {
       found.set("noise", {
         kind: "noise",
         title: "ultrasonic noise",
@@ -66,9 +74,15 @@ export function hazardsOfParameters(params: HazardInput[]): Hazard[] {
 }
 
 /** The cautions of a whole recipe version: every parameter, with its stage's mode. */
-export function hazardsOfStages(stages: { mode: string | null; parameters: Omit<HazardInput, "mode">[] }[]): Hazard[] {
-  const params: HazardInput[] = stages.flatMap((s) => s.parameters.map((p) => ({ ...p, mode: s.mode })));
+export function hazardsOfStages(
+  stages: { mode: string | null; parameters: Omit<HazardInput, "mode">[] }[],
+): Hazard[] {
+  const params: HazardInput[] = stages.flatMap((s) =>
+    s.parameters.map((p) => ({ ...p, mode: s.mode })),
+  );
   // A mode carries its own hazard even on a stage without parameters yet.
-  for (const s of stages) if (s.parameters.length === 0 && s.mode) params.push({ kind: "other", setpoint: 0, unit: "", mode: s.mode });
+  for (const s of stages)
+    if (s.parameters.length === 0 && s.mode)
+      params.push({ kind: "other", setpoint: 0, unit: "", mode: s.mode });
   return hazardsOfParameters(params);
 }

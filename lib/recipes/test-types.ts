@@ -32,6 +32,7 @@ export function subjectLabel(subject: MatrixSubject): string {
   if (subject === "part_family") return "New part family on the recipe";
   const [group, first, second] = subject.split(":");
   if (group === "stage") return `Stage or mode added or removed: ${first.replace(/_/g, " ")}`;
-  return second ? `Parameter in a ${first.replace(/_/g, " ")} stage: ${second.replace(/_/g, " ")}` : `Parameter: ${first.replace(/_/g, " ")}`;
+  return second
+    ? `Parameter in a ${first.replace(/_/g, " ")} stage: ${second.replace(/_/g, " ")}`
+    : `Parameter: ${first.replace(/_/g, " ")}`;
 }
-

@@ -70,11 +70,16 @@ export interface ParameterCheckInput {
 }
 
 /** A setpoint outside the validated range written beside it contradicts itself. */
-export function ownRangeProblem(p: Pick<ParameterCheckInput, "setpoint" | "validatedLow" | "validatedHigh" | "unit">): ParameterProblem | null {
+export function ownRangeProblem(
+  p: Pick<ParameterCheckInput, "setpoint" | "validatedLow" | "validatedHigh" | "unit">,
+): ParameterProblem | null {
   const below = p.validatedLow !== null && p.setpoint < p.validatedLow;
   const above = p.validatedHigh !== null && p.setpoint > p.validatedHigh;
   if (!below && !above) return null;
-  return { field: "setpoint", message: `The setpoint ${p.setpoint} ${p.unit} lies outside its own validated range ${p.validatedLow ?? "−∞"}–${p.validatedHigh ?? "∞"} ${p.unit}.` };
+  return {
+    field: "setpoint",
+    message: `The setpoint ${p.setpoint} ${p.unit} lies outside its own validated range ${p.validatedLow ?? "−∞"}–${p.validatedHigh ?? "∞"} ${p.unit}.`,
+  };
 }
 
 export interface ParameterProblem {
@@ -96,7 +101,9 @@ export function parameterProblems(p: ParameterCheckInput): ParameterProblem[] {
     const allowed = UNITS_BY_KIND[p.kind];
     problems.push({
       field: "unit",
-      message: allowed.length ? `${PARAMETER_KIND_LABELS[p.kind]} is given in ${allowed.join(" or ")}, not "${p.unit}".` : "Give the unit.",
+      message: allowed.length
+        ? `${PARAMETER_KIND_LABELS[p.kind]} is given in ${allowed.join(" or ")}, not "${p.unit}".`
+        : "Give the unit.",
     });
     return problems;
   }
@@ -111,7 +118,10 @@ export function parameterProblems(p: ParameterCheckInput): ParameterProblem[] {
     if (message) problems.push({ field, message });
   }
   if (p.validatedLow !== null && p.validatedHigh !== null && p.validatedLow > p.validatedHigh) {
-    problems.push({ field: "validatedLow", message: `The validated low (${p.validatedLow} ${p.unit}) is above the validated high (${p.validatedHigh} ${p.unit}).` });
+    problems.push({
+      field: "validatedLow",
+      message: `The validated low (${p.validatedLow} ${p.unit}) is above the validated high (${p.validatedHigh} ${p.unit}).`,
+    });
   }
   return problems;
 }
@@ -139,31 +149,46 @@ function impossible(p: ParameterCheckInput, value: number, label: string): strin
   const at = `${value} ${p.unit}`;
   if (!Number.isFinite(value)) return `The ${label} must be a finite number.`;
   const upper = UPPER[p.kind]?.[p.unit];
-  if (upper !== undefined && value > upper) return `A ${label} of ${at} is above ${upper} ${p.unit}, beyond what a parts washer can run: check the value.`;
-  if (p.kind === "ultrasonic_frequency" && value > 0 && value < 15) return `Ultrasonic cleaning runs at about 20 kHz and above: a ${label} of ${at} is audible sound, not ultrasound.`;
+  if (upper !== undefined && value > upper)
+    return `A ${label} of ${at} is above ${upper} ${p.unit}, beyond what a parts washer can run: check the value.`;
+  if (p.kind === "ultrasonic_frequency" && value > 0 && value < 15)
+    return `Ultrasonic cleaning runs at about 20 kHz and above: a ${label} of ${at} is audible sound, not ultrasound.`;
   switch (p.kind) {
     case "temperature":
-      if (AQUEOUS_STAGES.has(p.stageKind) && value > 100) return `An open aqueous bath boils at about 100 °C: a ${label} of ${at} is not possible.`;
-      if (value < 0) return `An aqueous bath freezes below 0 °C: a ${label} of ${at} is not possible.`;
-      if (value > 100) return `A ${label} of ${at} is above the boiling point of water in an open tank.`;
+      if (AQUEOUS_STAGES.has(p.stageKind) && value > 100)
+        return `An open aqueous bath boils at about 100 °C: a ${label} of ${at} is not possible.`;
+      if (value < 0)
+        return `An aqueous bath freezes below 0 °C: a ${label} of ${at} is not possible.`;
+      if (value > 100)
+        return `A ${label} of ${at} is above the boiling point of water in an open tank.`;
       return null;
     case "drying_temperature":
       return value < 0 ? `A ${label} of ${at} is not possible for a dryer.` : null;
     case "time":
       return value < 0 ? `A time cannot be negative: ${label} ${at}.` : null;
     case "filter_interval":
-      return value <= 0 ? `A filter change interval must be greater than zero: ${label} ${at}.` : null;
+      return value <= 0
+        ? `A filter change interval must be greater than zero: ${label} ${at}.`
+        : null;
     case "concentration":
       if (value < 0) return `A concentration cannot be negative: ${label} ${at}.`;
-      return p.unit === "%" && value > 100 ? `A concentration cannot exceed 100 %: ${label} ${at}.` : null;
+      return p.unit === "%" && value > 100
+        ? `A concentration cannot exceed 100 %: ${label} ${at}.`
+        : null;
     case "vacuum_pressure":
       if (value < 0) return `An absolute pressure cannot be negative: ${label} ${at}.`;
-      return value > 1013 ? `A vacuum is below atmospheric pressure (about 1013 mbar): ${label} ${at}.` : null;
+      return value > 1013
+        ? `A vacuum is below atmospheric pressure (about 1013 mbar): ${label} ${at}.`
+        : null;
     case "basket_loading":
-      return value < 1 || !Number.isInteger(value) ? `Basket loading is a whole number of parts, at least 1: ${label} ${at}.` : null;
+      return value < 1 || !Number.isInteger(value)
+        ? `Basket loading is a whole number of parts, at least 1: ${label} ${at}.`
+        : null;
     case "load_pattern":
     case "fixture":
-      return value < 1 || !Number.isInteger(value) ? `A ${PARAMETER_KIND_LABELS[p.kind].toLowerCase()} is named by its sheet number, a whole number from 1: ${label} ${at}.` : null;
+      return value < 1 || !Number.isInteger(value)
+        ? `A ${PARAMETER_KIND_LABELS[p.kind].toLowerCase()} is named by its sheet number, a whole number from 1: ${label} ${at}.`
+        : null;
     case "ultrasonic_frequency":
     case "ultrasonic_power":
     case "spray_pressure":

@@ -46,11 +46,18 @@ export function passwordIsEmail(password: string, userEmail: string) {
 export const userSchema = z.object({
   name: storedText().trim().min(2, "Enter the person's full name.").max(120),
   email,
-  jobTitle: storedText().trim().max(120).optional().transform((v) => v || null),
+  jobTitle: storedText()
+    .trim()
+    .max(120)
+    .optional()
+    .transform((v) => v || null),
   roles: z.array(z.enum(ROLES)).min(1, "Choose at least one role."),
 });
 
 export const createUserSchema = userSchema;
 // The reason is asked for when the roles change: what a person may sign is a controlled fact.
-export const updateUserSchema = userSchema.extend({ userId: z.string().uuid(), reason: optionalAuditReason() });
+export const updateUserSchema = userSchema.extend({
+  userId: z.string().uuid(),
+  reason: optionalAuditReason(),
+});
 export const userIdSchema = z.object({ userId: z.string().uuid() });

@@ -51,12 +51,21 @@ export const recipesQuery = pageQuery
   .strict();
 export const partFamiliesQuery = pageQuery
   .extend({
-    specCode: z.string().trim().min(1).max(60).optional().describe("Only the families under this specification (its register code)."),
+    specCode: z
+      .string()
+      .trim()
+      .min(1)
+      .max(60)
+      .optional()
+      .describe("Only the families under this specification (its register code)."),
   })
   .strict();
 export const specificationsQuery = pageQuery
   .extend({
-    status: z.enum(SPEC_STATUSES).optional().describe("in_force for the revisions runs are judged by now; superseded for earlier ones."),
+    status: z
+      .enum(SPEC_STATUSES)
+      .optional()
+      .describe("in_force for the revisions runs are judged by now; superseded for earlier ones."),
   })
   .strict();
 export const qualifiedCombinationsQuery = pageQuery
@@ -84,7 +93,14 @@ export const auditEventsQuery = pageQuery
     actor: z.string().trim().max(64).optional().describe('A user id, or "system".'),
     recordType: z.string().trim().max(40).optional(),
     recordId: z.string().trim().max(100).optional(),
-    eventType: z.string().trim().max(60).optional().describe("An audit event type, e.g. change.closed; also finds events stored under an earlier name of the type."),
+    eventType: z
+      .string()
+      .trim()
+      .max(60)
+      .optional()
+      .describe(
+        "An audit event type, e.g. change.closed; also finds events stored under an earlier name of the type.",
+      ),
     from: calendarDate().optional(),
     to: calendarDate().optional(),
   })
@@ -152,7 +168,9 @@ export const recipeOut = named(
     systemId: z.string(),
     systemCode: z.string(),
     systemAssetNumber: z.string().nullable(),
-    systemRetired: z.boolean().describe("The cleaning system is retired: the recipe can no longer run"),
+    systemRetired: z
+      .boolean()
+      .describe("The cleaning system is retired: the recipe can no longer run"),
     versions: z.array(versionSummary),
   }),
 );
@@ -210,7 +228,10 @@ export const specificationOut = named(
     drynessCriteria: z.string().nullable(),
     extraRequirements: z.string().nullable(),
     customerApprovesChanges: z.boolean(),
-    sourceFileSha256: z.string().nullable().describe("SHA-256 of the customer's document as uploaded"),
+    sourceFileSha256: z
+      .string()
+      .nullable()
+      .describe("SHA-256 of the customer's document as uploaded"),
     createdAt: iso,
   }),
 );
@@ -250,7 +271,10 @@ export const qualifiedCombinationOut = named(
     lastQualifiedAt: iso,
     intervalMonths: z.number().int(),
     dueOn: z.string().describe("Calendar date (UTC) by which the combination must be requalified"),
-    basis: z.string().nullable().describe("What proves the qualification, in words; null when carried over by a change"),
+    basis: z
+      .string()
+      .nullable()
+      .describe("What proves the qualification, in words; null when carried over by a change"),
   }),
 );
 
@@ -365,11 +389,21 @@ export const auditEventOut = named(
     at: iso,
     actorName: z.string(),
     eventType: z.string().describe("Today's name of the event type"),
-    storedEventType: z.string().describe("The name stored with the event, which its hash covers (an earlier name of the type for older events)"),
+    storedEventType: z
+      .string()
+      .describe(
+        "The name stored with the event, which its hash covers (an earlier name of the type for older events)",
+      ),
     recordType: z.string(),
     recordId: z.string(),
-    old: z.record(z.string(), z.unknown()).nullable().describe("Old values exactly as stored and hashed (canonical JSON)"),
-    new: z.record(z.string(), z.unknown()).nullable().describe("New values exactly as stored and hashed (canonical JSON)"),
+    old: z
+      .record(z.string(), z.unknown())
+      .nullable()
+      .describe("Old values exactly as stored and hashed (canonical JSON)"),
+    new: z
+      .record(z.string(), z.unknown())
+      .nullable()
+      .describe("New values exactly as stored and hashed (canonical JSON)"),
     reason: z.string().nullable(),
     prevHash: z.string(),
     hash: z.string(),
@@ -409,4 +443,7 @@ export type TestRunOut = z.infer<typeof testRunOut>;
 export type TestRunDetailOut = z.infer<typeof testRunDetailOut>;
 export type AuditEventOut = z.infer<typeof auditEventOut>;
 
-export const sampleAddedOut = named("SampleAdded", z.object({ sampleId: z.string(), run: testRunDetailOut }));
+export const sampleAddedOut = named(
+  "SampleAdded",
+  z.object({ sampleId: z.string(), run: testRunDetailOut }),
+);

@@ -18,13 +18,22 @@ export const auditQuerySchema = z
     recordId: optionalText(100),
     /** An event type; today's name also finds events stored under an earlier one. */
     eventType: optionalText(60),
-    from: z.literal("").transform(() => undefined).or(calendarDate().optional()),
-    to: z.literal("").transform(() => undefined).or(calendarDate().optional()),
+    from: z
+      .literal("")
+      .transform(() => undefined)
+      .or(calendarDate().optional()),
+    to: z
+      .literal("")
+      .transform(() => undefined)
+      .or(calendarDate().optional()),
     /** Keyset cursor: events with a sequence number below this one. */
     before: z.coerce.number().int().positive().optional(),
     limit: z.coerce.number().int().min(1).max(200).default(50),
   })
   .strict()
-  .refine((q) => !q.from || !q.to || q.from <= q.to, { path: ["to"], message: "The end date is before the start date." });
+  .refine((q) => !q.from || !q.to || q.from <= q.to, {
+    path: ["to"],
+    message: "The end date is before the start date.",
+  });
 
 export type AuditQuery = z.infer<typeof auditQuerySchema>;

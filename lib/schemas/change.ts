@@ -1,7 +1,14 @@
 import { z } from "zod";
 import "./messages";
 import { storedText } from "@/lib/schemas/text";
-import { CHANGE_KINDS, IMPACT_CLASSES, PARAMETER_KINDS, STAGE_KINDS, STAGE_MODES, TEST_TYPES } from "@/db/enums";
+import {
+  CHANGE_KINDS,
+  IMPACT_CLASSES,
+  PARAMETER_KINDS,
+  STAGE_KINDS,
+  STAGE_MODES,
+  TEST_TYPES,
+} from "@/db/enums";
 import { MATRIX_SUBJECTS } from "@/lib/recipes/test-types";
 import { parameterProblems } from "@/lib/recipes/units";
 
@@ -11,15 +18,22 @@ const requiredNumber = z.preprocess(
   z.number({ error: "Enter a number." }).finite("Enter a number."),
 );
 const optionalNumber = z.preprocess(
-  (v) => (typeof v === "string" ? (v.trim() === "" ? null : Number(v.replace(",", "."))) : (v ?? null)),
-  z.number({ error: "Enter a number or leave empty." }).finite("Enter a number or leave empty.").nullable(),
+  (v) =>
+    typeof v === "string" ? (v.trim() === "" ? null : Number(v.replace(",", "."))) : (v ?? null),
+  z
+    .number({ error: "Enter a number or leave empty." })
+    .finite("Enter a number or leave empty.")
+    .nullable(),
 );
 
 export const parameterSchema = z.object({
   key: z
     .string()
     .trim()
-    .regex(/^[a-z][a-z0-9_]*\.[a-z0-9_.]+$/, "Use a key like wash.temperature (lower case, stage.parameter)."),
+    .regex(
+      /^[a-z][a-z0-9_]*\.[a-z0-9_.]+$/,
+      "Use a key like wash.temperature (lower case, stage.parameter).",
+    ),
   name: storedText().trim().min(2, "Name the parameter.").max(120),
   kind: z.enum(PARAMETER_KINDS, { error: "Choose the kind of parameter." }),
   setpoint: requiredNumber,
@@ -38,8 +52,14 @@ export const stageSchema = z.object({
 
 export const recipeContentSchema = z
   .object({
-    detergent: storedText().trim().max(200).transform((v) => v || null),
-    notes: storedText().trim().max(2000).transform((v) => v || null),
+    detergent: storedText()
+      .trim()
+      .max(200)
+      .transform((v) => v || null),
+    notes: storedText()
+      .trim()
+      .max(2000)
+      .transform((v) => v || null),
     stages: z.array(stageSchema).min(1, "A recipe has at least one stage.").max(12),
   })
   .superRefine((recipe, ctx) => {
@@ -47,10 +67,19 @@ export const recipeContentSchema = z
     recipe.stages.forEach((stage, i) =>
       stage.parameters.forEach((p, j) => {
         const path = ["stages", i, "parameters", j];
-        if (seen.has(p.key)) ctx.addIssue({ code: "custom", path: [...path, "key"], message: `The key ${p.key} is used twice.` });
+        if (seen.has(p.key))
+          ctx.addIssue({
+            code: "custom",
+            path: [...path, "key"],
+            message: `The key ${p.key} is used twice.`,
+          });
         seen.add(p.key);
         for (const problem of parameterProblems({ ...p, stageKind: stage.kind })) {
-          ctx.addIssue({ code: "custom", path: [...path, problem.field], message: problem.message });
+          ctx.addIssue({
+            code: "custom",
+            path: [...path, problem.field],
+            message: problem.message,
+          });
         }
       }),
     );
@@ -75,13 +104,31 @@ export const proposalSchema = z
       .optional()
       .transform((v) => v || null)
       .pipe(z.enum(IMPACT_CLASSES).nullable()),
-    raiseReason: storedText().trim().max(2000).transform((v) => v || null),
+    raiseReason: storedText()
+      .trim()
+      .max(2000)
+      .transform((v) => v || null),
     recipe: recipeContentSchema,
   })
   .superRefine((v, ctx) => {
-    if (v.raiseTo && !v.raiseReason) ctx.addIssue({ code: "custom", path: ["raiseReason"], message: "Give the reason for raising the classification." });
-    if (v.kind === "new_part_family" && !v.partFamilyId) ctx.addIssue({ code: "custom", path: ["partFamilyId"], message: "Choose the part family the change adds." });
-    if (v.kind === "initial_validation" && !v.partFamilyId) ctx.addIssue({ code: "custom", path: ["partFamilyId"], message: "Choose the part family the recipe is validated for." });
+    if (v.raiseTo && !v.raiseReason)
+      ctx.addIssue({
+        code: "custom",
+        path: ["raiseReason"],
+        message: "Give the reason for raising the classification.",
+      });
+    if (v.kind === "new_part_family" && !v.partFamilyId)
+      ctx.addIssue({
+        code: "custom",
+        path: ["partFamilyId"],
+        message: "Choose the part family the change adds.",
+      });
+    if (v.kind === "initial_validation" && !v.partFamilyId)
+      ctx.addIssue({
+        code: "custom",
+        path: ["partFamilyId"],
+        message: "Choose the part family the recipe is validated for.",
+      });
   });
 export type Proposal = z.output<typeof proposalSchema>;
 
@@ -90,13 +137,19 @@ export const openChangeSchema = z.object({
   title: storedText().trim().min(5, "Give the change a title of at least 5 characters.").max(200),
   kind: z
     .enum(CHANGE_KINDS, { error: "Choose what kind of change this is." })
-    .refine((k) => k !== "initial_validation", "A new recipe's first version is routed from its draft: use Route for initial validation."),
+    .refine(
+      (k) => k !== "initial_validation",
+      "A new recipe's first version is routed from its draft: use Route for initial validation.",
+    ),
 });
 
 /** Routing a new recipe's draft first version through its initial validation. */
 export const openInitialValidationSchema = z.object({
   recipeId: z.string().uuid(),
-  title: storedText().trim().min(5, "Give the validation a title of at least 5 characters.").max(200),
+  title: storedText()
+    .trim()
+    .min(5, "Give the validation a title of at least 5 characters.")
+    .max(200),
   partFamilyId: z.string().uuid("Choose the part family the recipe is validated for."),
 });
 export type OpenInitialValidation = z.output<typeof openInitialValidationSchema>;
@@ -109,7 +162,10 @@ export const signedStepSchema = changeIdSchema.extend({
 });
 
 export const endChangeSchema = changeIdSchema.extend({
-  reason: storedText().trim().min(5, "Give the reason for the record (at least 5 characters).").max(2000),
+  reason: storedText()
+    .trim()
+    .min(5, "Give the reason for the record (at least 5 characters).")
+    .max(2000),
 });
 
 export const linkEvidenceSchema = z.object({
@@ -121,8 +177,14 @@ export const linkEvidenceSchema = z.object({
 export const matrixRowSchema = z.object({
   subject: z.enum(MATRIX_SUBJECTS),
   testType: z.enum(TEST_TYPES),
-  confidencePct: z.coerce.number({ error: "Enter a percentage." }).gt(50, "Confidence above 50 %.").lt(100, "Confidence below 100 %."),
-  reliabilityPct: z.coerce.number({ error: "Enter a percentage." }).gt(50, "Reliability above 50 %.").lt(100, "Reliability below 100 %."),
+  confidencePct: z.coerce
+    .number({ error: "Enter a percentage." })
+    .gt(50, "Confidence above 50 %.")
+    .lt(100, "Confidence below 100 %."),
+  reliabilityPct: z.coerce
+    .number({ error: "Enter a percentage." })
+    .gt(50, "Reliability above 50 %.")
+    .lt(100, "Reliability below 100 %."),
 });
 
 export const matrixSchema = z
@@ -134,13 +196,25 @@ export const matrixSchema = z
     const seen = new Set<string>();
     m.rows.forEach((r, i) => {
       const k = `${r.subject}|${r.testType}`;
-      if (seen.has(k)) ctx.addIssue({ code: "custom", path: ["rows", i, "testType"], message: "This subject already maps to this test." });
+      if (seen.has(k))
+        ctx.addIssue({
+          code: "custom",
+          path: ["rows", i, "testType"],
+          message: "This subject already maps to this test.",
+        });
       seen.add(k);
     });
   });
 
 export const intervalSchema = z.object({
   intervalId: z.string().uuid(),
-  intervalMonths: z.coerce.number({ error: "Enter a number of months." }).int("Enter whole months.").min(1, "At least 1 month.").max(60, "At most 60 months."),
-  reason: storedText().trim().min(5, "Give the reason for the record (at least 5 characters).").max(1000),
+  intervalMonths: z.coerce
+    .number({ error: "Enter a number of months." })
+    .int("Enter whole months.")
+    .min(1, "At least 1 month.")
+    .max(60, "At most 60 months."),
+  reason: storedText()
+    .trim()
+    .min(5, "Give the reason for the record (at least 5 characters).")
+    .max(1000),
 });

@@ -30,7 +30,8 @@ export function calendarDateTimeProblem(text: string): string | null {
   if (!m) return "Enter the date as YYYY-MM-DD, with the time as HH:MM if you know it.";
   const dateProblem = calendarDateProblem(m[1]);
   if (dateProblem) return dateProblem;
-  if (m[2] !== undefined && (Number(m[2]) > 23 || Number(m[3]) > 59)) return `There is no such time: ${m[2]}:${m[3]}.`;
+  if (m[2] !== undefined && (Number(m[2]) > 23 || Number(m[3]) > 59))
+    return `There is no such time: ${m[2]}:${m[3]}.`;
   return null;
 }
 
@@ -49,6 +50,7 @@ function checked(problem: (text: string) => string | null, required: string) {
 export const calendarDate = (required = "Enter a date.") => checked(calendarDateProblem, required);
 
 /** A required date with an optional time of day. */
-export const calendarDateTime = (required = "Enter a date.") => checked(calendarDateTimeProblem, required);
+export const calendarDateTime = (required = "Enter a date.") =>
+  checked(calendarDateTimeProblem, required);
 
 export const calendarDateSchema = calendarDate();

@@ -3,7 +3,17 @@ import "./messages";
 import { calendarDate } from "./date";
 import { storedText } from "@/lib/schemas/text";
 import { DOCUMENT_TYPES, ROUTING_MODES } from "@/db/enums";
-import { BLOCK_TYPES, isSafeHref, MARK_TYPES, MAX_LIST_DEPTH, MAX_NODE_DEPTH, nestingDepth, type RichDoc, type RichMark, type RichNode } from "@/lib/documents/rich-text";
+import {
+  BLOCK_TYPES,
+  isSafeHref,
+  MARK_TYPES,
+  MAX_LIST_DEPTH,
+  MAX_NODE_DEPTH,
+  nestingDepth,
+  type RichDoc,
+  type RichMark,
+  type RichNode,
+} from "@/lib/documents/rich-text";
 
 /** A controlled document's content may be at most 2 MB of JSON. */
 export const MAX_CONTENT_BYTES = 2 * 1024 * 1024;
@@ -12,9 +22,18 @@ export function contentTooLargeMessage(bytes: number) {
   return `This draft is ${(bytes / 1024 / 1024).toFixed(1)} MB of content; the limit is 2 MB. Nothing was saved and your text is still in the editor: shorten it or split it into two documents.`;
 }
 
-const markShape = z.object({ type: z.string(), attrs: z.record(z.string(), z.unknown()).nullish() });
+const markShape = z.object({
+  type: z.string(),
+  attrs: z.record(z.string(), z.unknown()).nullish(),
+});
 
-type RawNode = { type: string; attrs?: Record<string, unknown> | null; content?: RawNode[]; text?: string; marks?: z.infer<typeof markShape>[] };
+type RawNode = {
+  type: string;
+  attrs?: Record<string, unknown> | null;
+  content?: RawNode[];
+  text?: string;
+  marks?: z.infer<typeof markShape>[];
+};
 
 const nodeShape: z.ZodType<RawNode> = z.lazy(() =>
   z.object({
@@ -58,9 +77,12 @@ function cleanNode(node: RawNode, path: string, issues: string[]): RichNode | nu
   const a = node.attrs ?? {};
   if (type === "heading") out.attrs = { level: intAttr(a.level, 1, 4, 2) };
   if (type === "orderedList") out.attrs = { start: intAttr(a.start, 1, 10_000, 1) };
-  if (type === "tableCell" || type === "tableHeader") out.attrs = { colspan: intAttr(a.colspan, 1, 50, 1), rowspan: intAttr(a.rowspan, 1, 500, 1) };
+  if (type === "tableCell" || type === "tableHeader")
+    out.attrs = { colspan: intAttr(a.colspan, 1, 50, 1), rowspan: intAttr(a.rowspan, 1, 500, 1) };
   if (node.content) {
-    out.content = node.content.map((c, i) => cleanNode(c, `${path}.${i}`, issues)).filter((c): c is RichNode => c !== null);
+    out.content = node.content
+      .map((c, i) => cleanNode(c, `${path}.${i}`, issues))
+      .filter((c): c is RichNode => c !== null);
   }
   return out;
 }
@@ -83,7 +105,8 @@ export const contentJsonSchema = z
   .string()
   .superRefine((s, ctx) => {
     const bytes = new TextEncoder().encode(s).length;
-    if (bytes > MAX_CONTENT_BYTES) ctx.addIssue({ code: "custom", message: contentTooLargeMessage(bytes) });
+    if (bytes > MAX_CONTENT_BYTES)
+      ctx.addIssue({ code: "custom", message: contentTooLargeMessage(bytes) });
   })
   .transform((s, ctx) => {
     let parsed: unknown;
@@ -96,11 +119,17 @@ export const contentJsonSchema = z
     // Checked before the recursive schema walks it: depth, not size, is what breaks rendering.
     const depth = nestingDepth(parsed);
     if (depth.lists > MAX_LIST_DEPTH) {
-      ctx.addIssue({ code: "custom", message: `Lists are nested ${depth.lists} levels deep; at most ${MAX_LIST_DEPTH} levels can be saved and printed. Nothing was saved and your text is still in the editor: flatten the innermost lists.` });
+      ctx.addIssue({
+        code: "custom",
+        message: `Lists are nested ${depth.lists} levels deep; at most ${MAX_LIST_DEPTH} levels can be saved and printed. Nothing was saved and your text is still in the editor: flatten the innermost lists.`,
+      });
       return z.NEVER;
     }
     if (depth.nodes > MAX_NODE_DEPTH) {
-      ctx.addIssue({ code: "custom", message: `The content is nested ${depth.nodes} levels deep; at most ${MAX_NODE_DEPTH} can be saved and printed. Nothing was saved and your text is still in the editor.` });
+      ctx.addIssue({
+        code: "custom",
+        message: `The content is nested ${depth.nodes} levels deep; at most ${MAX_NODE_DEPTH} can be saved and printed. Nothing was saved and your text is still in the editor.`,
+      });
       return z.NEVER;
     }
     return parsed;
@@ -148,7 +177,10 @@ export const submitSchema = z
     lockVersion: z.coerce.number().int().min(0),
     /** The hash of the draft as the author saw it in the signing dialog. */
     contentHash: z.string().regex(/^[0-9a-f]{64}$/),
-    reviewerIds: z.array(z.string().uuid()).min(1, "Choose at least one reviewer.").max(6, "Choose at most six reviewers."),
+    reviewerIds: z
+      .array(z.string().uuid())
+      .min(1, "Choose at least one reviewer.")
+      .max(6, "Choose at most six reviewers."),
     approverId: z.string({ message: "Choose the approver." }).uuid("Choose the approver."),
     routing: z.enum(ROUTING_MODES, { message: "Choose in sequence or in parallel." }),
     dueDate: z
@@ -159,8 +191,14 @@ export const submitSchema = z
       .pipe(dateOnly.nullable()),
     password: z.string().min(1, "Enter your password to sign."),
   })
-  .refine((v) => new Set(v.reviewerIds).size === v.reviewerIds.length, { path: ["reviewerIds"], message: "Each reviewer once." })
-  .refine((v) => !v.reviewerIds.includes(v.approverId), { path: ["approverId"], message: "The approver must be someone other than the reviewers." });
+  .refine((v) => new Set(v.reviewerIds).size === v.reviewerIds.length, {
+    path: ["reviewerIds"],
+    message: "Each reviewer once.",
+  })
+  .refine((v) => !v.reviewerIds.includes(v.approverId), {
+    path: ["approverId"],
+    message: "The approver must be someone other than the reviewers.",
+  });
 export type SubmitInput = z.infer<typeof submitSchema>;
 
 export const signStepSchema = z.object({
@@ -180,5 +218,8 @@ export const returnSchema = z.object({
 
 export const reasonSchema = z.object({
   documentId: z.string().uuid(),
-  reason: storedText().trim().min(5, "Give the reason for the audit trail (at least 5 characters).").max(2000),
+  reason: storedText()
+    .trim()
+    .min(5, "Give the reason for the audit trail (at least 5 characters).")
+    .max(2000),
 });

@@ -3,7 +3,8 @@ import "./messages";
 import { calendarDate } from "./date";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 
-const optional = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === "" || v === null ? undefined : v), schema.optional());
+const optional = <T extends z.ZodType>(schema: T) =>
+  z.preprocess((v) => (v === "" || v === null ? undefined : v), schema.optional());
 
 /** The evidence list's query string: filters, sort and page, parsed on the server. */
 export const evidenceListQuerySchema = z.object({
@@ -14,7 +15,9 @@ export const evidenceListQuerySchema = z.object({
   from: optional(calendarDate()),
   to: optional(calendarDate()),
   includeSuperseded: optional(z.enum(["true", "false"])).transform((v) => v === "true"),
-  sort: z.enum(["number", "performedOn", "partFamily", "testType", "outcome", "status"]).default("performedOn"),
+  sort: z
+    .enum(["number", "performedOn", "partFamily", "testType", "outcome", "status"])
+    .default("performedOn"),
   dir: z.enum(["asc", "desc"]).default("desc"),
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(5).max(100).default(20),

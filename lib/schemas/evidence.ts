@@ -5,11 +5,27 @@ import { auditReason, optionalAuditReason, storedText } from "@/lib/schemas/text
 import { BATH_RECORD_KINDS, EVIDENCE_FILE_KINDS, MAINTENANCE_KINDS, TEST_TYPES } from "@/db/enums";
 
 /** ISO 16232 size classes B…N, as form field suffixes and CSV columns. */
-export const CLASS_KEYS = ["B", "C", "D", "E", "F", "G", "H", "I", "J", "K", "L", "M", "N"] as const;
+export const CLASS_KEYS = [
+  "B",
+  "C",
+  "D",
+  "E",
+  "F",
+  "G",
+  "H",
+  "I",
+  "J",
+  "K",
+  "L",
+  "M",
+  "N",
+] as const;
 export type ClassKey = (typeof CLASS_KEYS)[number];
 
-const blank = (v: unknown) => v === undefined || v === null || (typeof v === "string" && v.trim() === "");
-const toNumber = (v: unknown) => (blank(v) ? undefined : typeof v === "string" ? Number(v.trim().replace(",", ".")) : v);
+const blank = (v: unknown) =>
+  v === undefined || v === null || (typeof v === "string" && v.trim() === "");
+const toNumber = (v: unknown) =>
+  blank(v) ? undefined : typeof v === "string" ? Number(v.trim().replace(",", ".")) : v;
 
 /** An optional number typed into a form: empty means "not measured". */
 function optionalNumber(label: string, opts: { min?: number; max?: number; int?: boolean } = {}) {
@@ -27,11 +43,20 @@ function requiredNumber(label: string, opts: { min?: number; max?: number; int?:
   return z.preprocess(toNumber, n);
 }
 const optionalText = (max: number) =>
-  z.preprocess((v) => (blank(v) ? undefined : v), storedText().trim().max(max, `Use at most ${max} characters.`).optional());
-const checkbox = z.preprocess((v) => v === true || v === "on" || v === "true" || v === "yes" || v === "1", z.boolean());
+  z.preprocess(
+    (v) => (blank(v) ? undefined : v),
+    storedText().trim().max(max, `Use at most ${max} characters.`).optional(),
+  );
+const checkbox = z.preprocess(
+  (v) => v === true || v === "on" || v === "true" || v === "yes" || v === "1",
+  z.boolean(),
+);
 
 /** A list typed as "1200, 310, 95" or one value per line. */
-function numberList(label: string, opts: { min: number; max: number; minItems: number; maxItems: number; int?: boolean }) {
+function numberList(
+  label: string,
+  opts: { min: number; max: number; minItems: number; maxItems: number; int?: boolean },
+) {
   return z.preprocess(
     (v) => {
       if (Array.isArray(v)) return v.map(toNumber);
@@ -43,22 +68,43 @@ function numberList(label: string, opts: { min: number; max: number; minItems: n
     },
     z
       .array(
-        (opts.int ? z.number().int(`Each ${label} must be a whole number.`) : z.number()).refine(Number.isFinite, `Each ${label} must be a number.`).min(opts.min, `Each ${label} must be at least ${opts.min}.`).max(opts.max, `Each ${label} must be at most ${opts.max}.`),
+        (opts.int ? z.number().int(`Each ${label} must be a whole number.`) : z.number())
+          .refine(Number.isFinite, `Each ${label} must be a number.`)
+          .min(opts.min, `Each ${label} must be at least ${opts.min}.`)
+          .max(opts.max, `Each ${label} must be at most ${opts.max}.`),
         { error: `Enter the ${label}s as numbers separated by commas.` },
       )
-      .min(opts.minItems, `Enter at least ${opts.minItems} ${label}${opts.minItems === 1 ? "" : "s"}.`)
+      .min(
+        opts.minItems,
+        `Enter at least ${opts.minItems} ${label}${opts.minItems === 1 ? "" : "s"}.`,
+      )
       .max(opts.maxItems, `Enter at most ${opts.maxItems} ${label}s.`),
   );
 }
 
 /** Absolute particle counts per size class; a class left empty was counted as 0. */
 export const countsSchema = z
-  .object(Object.fromEntries(CLASS_KEYS.map((k) => [k, optionalNumber(`Class ${k} count`, { min: 0, int: true, max: 1e9 })])) as Record<ClassKey, ReturnType<typeof optionalNumber>>)
-  .transform((c) => Object.fromEntries(CLASS_KEYS.filter((k) => c[k] !== undefined && c[k] !== 0).map((k) => [k, c[k] as number])) as Partial<Record<ClassKey, number>>);
+  .object(
+    Object.fromEntries(
+      CLASS_KEYS.map((k) => [
+        k,
+        optionalNumber(`Class ${k} count`, { min: 0, int: true, max: 1e9 }),
+      ]),
+    ) as Record<ClassKey, ReturnType<typeof optionalNumber>>,
+  )
+  .transform(
+    (c) =>
+      Object.fromEntries(
+        CLASS_KEYS.filter((k) => c[k] !== undefined && c[k] !== 0).map((k) => [k, c[k] as number]),
+      ) as Partial<Record<ClassKey, number>>,
+  );
 export type Counts = z.output<typeof countsSchema>;
 
 const sampleBase = z.object({
-  sampleLabel: storedText({ error: "Enter the sample's part serial or label." }).trim().min(1, "Enter the sample's part serial or label.").max(60, "Use at most 60 characters."),
+  sampleLabel: storedText({ error: "Enter the sample's part serial or label." })
+    .trim()
+    .min(1, "Enter the sample's part serial or label.")
+    .max(60, "Use at most 60 characters."),
   basketPosition: optionalText(60),
   worstCase: checkbox,
 });
@@ -85,27 +131,41 @@ export const particleSampleSchema = sampleBase
     for (const k of CLASS_KEYS) {
       const sum = (s.metallic?.[k] ?? 0) + (s.nonMetallic?.[k] ?? 0) + (s.fibre?.[k] ?? 0);
       if (sum !== (s.counts[k] ?? 0)) {
-        ctx.addIssue({ code: "custom", path: ["counts", k], message: `Metallic + non-metallic + fibre in class ${k} is ${sum}, but the total is ${s.counts[k] ?? 0}.` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["counts", k],
+          message: `Metallic + non-metallic + fibre in class ${k} is ${sum}, but the total is ${s.counts[k] ?? 0}.`,
+        });
       }
     }
   })
   .transform(({ splitMeasured, metallic, nonMetallic, fibre, ...rest }) => ({
     ...rest,
-    split: splitMeasured ? { metallic: metallic ?? {}, nonMetallic: nonMetallic ?? {}, fibre: fibre ?? {} } : null,
+    split: splitMeasured
+      ? { metallic: metallic ?? {}, nonMetallic: nonMetallic ?? {}, fibre: fibre ?? {} }
+      : null,
   }));
 export type ParticleSample = z.output<typeof particleSampleSchema>;
 
 /** Run-level data of a particle test: the declining test (extraction series) and the blank. */
-export const particleRunDataSchema = z.object({
-  extractionSeries: numberList("extraction count", { min: 0, max: 1e9, minItems: 0, maxItems: 10, int: true }),
-  blankMeasured: checkbox,
-  // The form shows the blank counts only once the box is ticked, so they may be absent.
-  blankCounts: countsSchema.optional(),
-  blankLargestUm: optionalNumber("Largest blank particle (µm)", { min: 5, max: 100_000 }),
-})
+export const particleRunDataSchema = z
+  .object({
+    extractionSeries: numberList("extraction count", {
+      min: 0,
+      max: 1e9,
+      minItems: 0,
+      maxItems: 10,
+      int: true,
+    }),
+    blankMeasured: checkbox,
+    // The form shows the blank counts only once the box is ticked, so they may be absent.
+    blankCounts: countsSchema.optional(),
+    blankLargestUm: optionalNumber("Largest blank particle (µm)", { min: 5, max: 100_000 }),
+  })
   .refine((d) => d.blankMeasured, {
     path: ["blankMeasured"],
-    message: "Tick “Blank value measured” and enter the blank counts: the extraction series is saved together with its blank.",
+    message:
+      "Tick “Blank value measured” and enter the blank counts: the extraction series is saved together with its blank.",
   })
   .transform(({ blankMeasured, blankCounts, blankLargestUm, extractionSeries }) => ({
     extractionSeries,
@@ -120,7 +180,10 @@ export const gravimetricSampleSchema = sampleBase
     filterAfterMg: requiredNumber("Filter mass after (mg)", { min: 0, max: 100_000 }),
     blankMg: optionalNumber("Blank residue (mg)", { min: 0, max: 100_000 }),
   })
-  .refine((s) => s.filterAfterMg >= s.filterBeforeMg, { path: ["filterAfterMg"], message: "The filter after filtration cannot be lighter than before; check the weighing." });
+  .refine((s) => s.filterAfterMg >= s.filterBeforeMg, {
+    path: ["filterAfterMg"],
+    message: "The filter after filtration cannot be lighter than before; check the weighing.",
+  });
 export type GravimetricSample = z.output<typeof gravimetricSampleSchema>;
 
 export const wettingSampleSchema = sampleBase.extend({
@@ -136,7 +199,9 @@ export type ConductivitySample = z.output<typeof conductivitySampleSchema>;
 
 /** Visual (stain-free), UV (oil film) and dryness: what the technician saw, backed by photos. */
 export const observationSampleSchema = sampleBase.extend({
-  acceptable: z.enum(["yes", "no"], { error: "Say whether the sample meets the criterion." }).transform((v) => v === "yes"),
+  acceptable: z
+    .enum(["yes", "no"], { error: "Say whether the sample meets the criterion." })
+    .transform((v) => v === "yes"),
   observation: optionalText(1000),
 });
 export type ObservationSample = z.output<typeof observationSampleSchema>;
@@ -161,7 +226,10 @@ export const createRunSchema = z.object({
   recipeVersionId: uuid,
   testType: z.enum(TEST_TYPES, { error: "Choose the test type." }),
   technicianId: uuid,
-  lab: storedText({ error: "Name the analysing lab." }).trim().min(2, "Name the analysing lab.").max(120),
+  lab: storedText({ error: "Name the analysing lab." })
+    .trim()
+    .min(2, "Name the analysing lab.")
+    .max(120),
   performedOn: calendarDate("Enter the test date."),
   protocolDocumentId: optionalUuid,
   changeRequestId: optionalUuid,
@@ -183,7 +251,10 @@ export const signRunSchema = z.object({
 
 export const reviseRunSchema = z.object({
   runId: uuid,
-  reason: storedText({ error: "Give the reason for the correction." }).trim().min(5, "Give the reason for the correction (at least 5 characters).").max(1000),
+  reason: storedText({ error: "Give the reason for the correction." })
+    .trim()
+    .min(5, "Give the reason for the correction (at least 5 characters).")
+    .max(1000),
 });
 
 export const fileKindSchema = z.enum(EVIDENCE_FILE_KINDS);
@@ -191,7 +262,10 @@ export const fileKindSchema = z.enum(EVIDENCE_FILE_KINDS);
 export const detachFileSchema = z.object({
   runId: uuid,
   fileId: uuid,
-  reason: storedText({ error: "Give the reason for detaching the file." }).trim().min(5, "Give the reason for detaching the file (at least 5 characters).").max(500, "Use at most 500 characters."),
+  reason: storedText({ error: "Give the reason for detaching the file." })
+    .trim()
+    .min(5, "Give the reason for detaching the file (at least 5 characters).")
+    .max(500, "Use at most 500 characters."),
 });
 
 // ── Bath and filter log ─────────────────────────────────────────────────
@@ -213,12 +287,29 @@ export const bathRecordSchema = z
   .superRefine((r, ctx) => {
     const counts = [r.countPerMl4, r.countPerMl6, r.countPerMl14];
     const given = counts.filter((c) => c !== undefined).length;
-    if (given !== 0 && given !== 3) ctx.addIssue({ code: "custom", path: ["countPerMl4"], message: "Enter all three particle counter channels (≥ 4, ≥ 6, ≥ 14 µm(c)) or none." });
+    if (given !== 0 && given !== 3)
+      ctx.addIssue({
+        code: "custom",
+        path: ["countPerMl4"],
+        message: "Enter all three particle counter channels (≥ 4, ≥ 6, ≥ 14 µm(c)) or none.",
+      });
     if (given === 3 && !(r.countPerMl4! >= r.countPerMl6! && r.countPerMl6! >= r.countPerMl14!)) {
-      ctx.addIssue({ code: "custom", path: ["countPerMl6"], message: "Cumulative counts fall with size: ≥ 4 µm ≥ ≥ 6 µm ≥ ≥ 14 µm." });
+      ctx.addIssue({
+        code: "custom",
+        path: ["countPerMl6"],
+        message: "Cumulative counts fall with size: ≥ 4 µm ≥ ≥ 6 µm ≥ ≥ 14 µm.",
+      });
     }
-    if (r.kind === "reading" && given === 0 && [r.concentrationPct, r.conductivityUsPerCm, r.temperatureC].every((v) => v === undefined)) {
-      ctx.addIssue({ code: "custom", path: ["concentrationPct"], message: "A reading needs at least one measured value." });
+    if (
+      r.kind === "reading" &&
+      given === 0 &&
+      [r.concentrationPct, r.conductivityUsPerCm, r.temperatureC].every((v) => v === undefined)
+    ) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["concentrationPct"],
+        message: "A reading needs at least one measured value.",
+      });
     }
   });
 export type BathRecordInput = z.output<typeof bathRecordSchema>;
@@ -239,11 +330,19 @@ export function formToObject(formData: FormData): Record<string, unknown> {
   for (const [name, value] of formData.entries()) {
     const path = name.split(".");
     // A crafted name must not reach Object.prototype ("__proto__.x") or crash on a path through a value ("a" and "a.b").
-    if (typeof value !== "string" || name.startsWith("$ACTION") || path.some((p) => UNSAFE_KEYS.has(p))) continue;
+    if (
+      typeof value !== "string" ||
+      name.startsWith("$ACTION") ||
+      path.some((p) => UNSAFE_KEYS.has(p))
+    )
+      continue;
     let node = out;
     for (const part of path.slice(0, -1)) {
       const next = node[part];
-      node = (typeof next === "object" && next !== null ? next : (node[part] = {})) as Record<string, unknown>;
+      node = (typeof next === "object" && next !== null ? next : (node[part] = {})) as Record<
+        string,
+        unknown
+      >;
     }
     node[path[path.length - 1]] = value;
   }

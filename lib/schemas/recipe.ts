@@ -12,19 +12,35 @@ import { optionalText, requiredText, uuid } from "./fields";
 export const createRecipeSchema = z
   .object({
     systemId: uuid("the cleaning system"),
-    code: requiredText("the recipe's code", 2, 40).pipe(z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._\/-]*$/, "Use letters, digits and . _ / - in the code, no spaces.")),
+    code: requiredText("the recipe's code", 2, 40).pipe(
+      z
+        .string()
+        .regex(
+          /^[A-Za-z0-9][A-Za-z0-9._\/-]*$/,
+          "Use letters, digits and . _ / - in the code, no spaces.",
+        ),
+    ),
     name: requiredText("the recipe's name", 2, 120),
     description: optionalText(1000),
     content: recipeContentSchema,
   })
   .superRefine((recipe, ctx) => {
     for (const problem of processOrderProblems(recipe.content.stages)) {
-      ctx.addIssue({ code: "custom", path: ["content", "stages", problem.index, "kind"], message: problem.message });
+      ctx.addIssue({
+        code: "custom",
+        path: ["content", "stages", problem.index, "kind"],
+        message: problem.message,
+      });
     }
     recipe.content.stages.forEach((stage, i) =>
       stage.parameters.forEach((p, j) => {
         const problem = ownRangeProblem(p);
-        if (problem) ctx.addIssue({ code: "custom", path: ["content", "stages", i, "parameters", j, problem.field], message: problem.message });
+        if (problem)
+          ctx.addIssue({
+            code: "custom",
+            path: ["content", "stages", i, "parameters", j, problem.field],
+            message: problem.message,
+          });
       }),
     );
   });

@@ -7,7 +7,13 @@ const ccc = requiredText("the cleanliness-code specification", 3, 200).superRefi
   try {
     parseCleanlinessSpec(text);
   } catch (error) {
-    ctx.addIssue({ code: "custom", message: error instanceof CleanlinessSpecError ? error.message : "Not a cleanliness-code specification." });
+    ctx.addIssue({
+      code: "custom",
+      message:
+        error instanceof CleanlinessSpecError
+          ? error.message
+          : "Not a cleanliness-code specification.",
+    });
   }
 });
 
@@ -22,13 +28,24 @@ const limits = {
   documentNumber: requiredText("the customer's document number", 1, 60),
   revision: requiredText("the revision", 1, 20),
   sourceFileId: optionalUuid("the uploaded source document"),
-  partFamilyIds: z.preprocess((v) => (v === undefined || v === "" ? [] : Array.isArray(v) ? v : [v]), z.array(uuid("a part family")).max(200)),
+  partFamilyIds: z.preprocess(
+    (v) => (v === undefined || v === "" ? [] : Array.isArray(v) ? v : [v]),
+    z.array(uuid("a part family")).max(200),
+  ),
   ccc,
   maxMetallicUm: optionalNumber("Largest metallic particle", "µm", { above: 0, max: 10_000 }),
-  maxNonMetallicUm: optionalNumber("Largest non-metallic particle", "µm", { above: 0, max: 10_000 }),
+  maxNonMetallicUm: optionalNumber("Largest non-metallic particle", "µm", {
+    above: 0,
+    max: 10_000,
+  }),
   maxFibreUm: optionalNumber("Largest fibre", "µm", { above: 0, max: 50_000 }),
   gravimetricLimitMg: optionalNumber("Gravimetric limit", "mg", { min: 0, max: 10_000 }),
-  gravimetricBasis: z.preprocess((v) => (v === "" || v === undefined ? null : v), z.enum(["per_component", "per_1000_cm2"], { error: "Choose per part or per 1000 cm²." }).nullable()),
+  gravimetricBasis: z.preprocess(
+    (v) => (v === "" || v === undefined ? null : v),
+    z
+      .enum(["per_component", "per_1000_cm2"], { error: "Choose per part or per 1000 cm²." })
+      .nullable(),
+  ),
   minWettingTensionMNm: optionalNumber("Minimum wetting tension", "mN/m", { min: 18, max: 105 }),
   visualCriteria: optionalText(1000),
   drynessCriteria: optionalText(1000),
@@ -36,17 +53,37 @@ const limits = {
   customerApprovesChanges: checkbox,
 };
 
-const gravimetricNeedsBasis = (v: { gravimetricLimitMg: number | null; gravimetricBasis: string | null }) => v.gravimetricLimitMg === null || v.gravimetricBasis !== null;
-const basisRule = { path: ["gravimetricBasis"], message: "Say whether the gravimetric limit is per part or per 1000 cm²." };
+const gravimetricNeedsBasis = (v: {
+  gravimetricLimitMg: number | null;
+  gravimetricBasis: string | null;
+}) => v.gravimetricLimitMg === null || v.gravimetricBasis !== null;
+const basisRule = {
+  path: ["gravimetricBasis"],
+  message: "Say whether the gravimetric limit is per part or per 1000 cm².",
+};
 
 /** A new specification in the register; `code` names it across its revisions. */
 export const specSchema = z
-  .object({ code: requiredText("the register code", 2, 40).pipe(z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._\/-]*$/, "Use letters, digits and . _ / - in the code, no spaces.")), ...limits })
+  .object({
+    code: requiredText("the register code", 2, 40).pipe(
+      z
+        .string()
+        .regex(
+          /^[A-Za-z0-9][A-Za-z0-9._\/-]*$/,
+          "Use letters, digits and . _ / - in the code, no spaces.",
+        ),
+    ),
+    ...limits,
+  })
   .refine(gravimetricNeedsBasis, basisRule);
 export type SpecInput = z.output<typeof specSchema>;
 
 /** A new revision of the specification in force; it supersedes that one. */
 export const reviseSpecSchema = z
-  .object({ specId: uuid("the specification"), reason: requiredText("why the specification is revised", 5, 1000), ...limits })
+  .object({
+    specId: uuid("the specification"),
+    reason: requiredText("why the specification is revised", 5, 1000),
+    ...limits,
+  })
   .refine(gravimetricNeedsBasis, basisRule);
 export type ReviseSpecInput = z.output<typeof reviseSpecSchema>;

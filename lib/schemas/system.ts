@@ -5,8 +5,14 @@ import { STAGE_KINDS, STAGE_MODES } from "@/db/enums";
 import { optionalNumber, optionalText, requiredText } from "./fields";
 
 const optionalLitres = z.preprocess(
-  (v) => (typeof v === "string" ? (v.trim() === "" ? null : Number(v.replace(",", "."))) : (v ?? null)),
-  z.number({ error: "Enter the volume in litres or leave empty." }).finite("Enter the volume in litres or leave empty.").positive("A tank volume is greater than 0 L.").max(100_000, "Check the volume: over 100 000 L.").nullable(),
+  (v) =>
+    typeof v === "string" ? (v.trim() === "" ? null : Number(v.replace(",", "."))) : (v ?? null),
+  z
+    .number({ error: "Enter the volume in litres or leave empty." })
+    .finite("Enter the volume in litres or leave empty.")
+    .positive("A tank volume is greater than 0 L.")
+    .max(100_000, "Check the volume: over 100 000 L.")
+    .nullable(),
 );
 
 export const systemStageSchema = z.object({
@@ -20,9 +26,15 @@ export const systemStageSchema = z.object({
   // industrial ultrasonic generators up to tens of kW at 20–200 kHz, washer pumps up to a few hundred bar.
   filterRatingUm: optionalNumber("Filter rating", "µm", { above: 0, max: 1000 }).optional(),
   ultrasonicPowerW: optionalNumber("Ultrasonic power", "W", { above: 0, max: 100_000 }).optional(),
-  ultrasonicFrequencyKHz: optionalNumber("Ultrasonic frequency", "kHz", { min: 15, max: 400 }).optional(),
+  ultrasonicFrequencyKHz: optionalNumber("Ultrasonic frequency", "kHz", {
+    min: 15,
+    max: 400,
+  }).optional(),
   sprayPressureBar: optionalNumber("Spray pressure", "bar", { above: 0, max: 500 }).optional(),
-  injectionPressureBar: optionalNumber("Injection pressure", "bar", { above: 0, max: 1000 }).optional(),
+  injectionPressureBar: optionalNumber("Injection pressure", "bar", {
+    above: 0,
+    max: 1000,
+  }).optional(),
   nozzleSet: optionalText(120).optional(),
 });
 
@@ -30,7 +42,10 @@ export const systemStageSchema = z.object({
 export const systemSchema = z.object({
   systemId: z.string().uuid(),
   name: storedText().trim().min(2, "Name the system.").max(120),
-  description: storedText().trim().max(1000).transform((v) => v || null),
+  description: storedText()
+    .trim()
+    .max(1000)
+    .transform((v) => v || null),
   stages: z.array(systemStageSchema).min(1, "A system has at least one stage.").max(12),
 });
 export type SystemInput = z.output<typeof systemSchema>;
@@ -39,17 +54,29 @@ export const SYSTEM_KINDS = ["multi_tank_aqueous", "single_chamber_spray", "othe
 
 /** A new cleaning system: its codes, kind and stages in process order. */
 export const createSystemSchema = z.object({
-  code: requiredText("the system's short code", 2, 20).pipe(z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._\/-]*$/, "Use letters, digits and . _ / - in the code, no spaces.")),
+  code: requiredText("the system's short code", 2, 20).pipe(
+    z
+      .string()
+      .regex(
+        /^[A-Za-z0-9][A-Za-z0-9._\/-]*$/,
+        "Use letters, digits and . _ / - in the code, no spaces.",
+      ),
+  ),
   assetNumber: optionalText(40),
   name: storedText().trim().min(2, "Name the system.").max(120),
   kind: z.enum(SYSTEM_KINDS, { error: "Choose the kind of system." }),
-  description: storedText().trim().max(1000).transform((v) => v || null),
+  description: storedText()
+    .trim()
+    .max(1000)
+    .transform((v) => v || null),
   stages: z.array(systemStageSchema).min(1, "A system has at least one stage.").max(12),
 });
 export type CreateSystemInput = z.output<typeof createSystemSchema>;
 
 /** The new-system form: the system and the site it stands at. */
-export const newSystemFormSchema = createSystemSchema.extend({ siteId: z.string({ error: "Choose the site." }).uuid("Choose the site.") });
+export const newSystemFormSchema = createSystemSchema.extend({
+  siteId: z.string({ error: "Choose the site." }).uuid("Choose the site."),
+});
 
 export const retireSystemSchema = z.object({
   systemId: z.string().uuid(),

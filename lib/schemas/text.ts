@@ -8,8 +8,10 @@ import { z } from "zod";
  * refused as well; tab and line breaks are text. Format characters such as a
  * right-to-left override round-trip unchanged and are kept.
  */
-export const TEXT_CONTROL_MESSAGE = "Remove the invisible control characters: only tabs and line breaks can be stored.";
-export const TEXT_SURROGATE_MESSAGE = "Part of this text is a broken character (half of an emoji or symbol): retype it.";
+export const TEXT_CONTROL_MESSAGE =
+  "Remove the invisible control characters: only tabs and line breaks can be stored.";
+export const TEXT_SURROGATE_MESSAGE =
+  "Part of this text is a broken character (half of an emoji or symbol): retype it.";
 
 // Cc (C0, DEL, C1) apart from tab and line feed; carriage returns are normalised away first.
 const CONTROL = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/u;
@@ -43,7 +45,8 @@ export function storedText(params?: Parameters<typeof z.string>[0]) {
 }
 
 /** The reason a change gives the audit trail: a person reading the record later must learn why. */
-export const auditReason = () => storedText().trim().min(5, "Give the reason for the record (at least 5 characters).").max(1000);
+export const auditReason = () =>
+  storedText().trim().min(5, "Give the reason for the record (at least 5 characters).").max(1000);
 
 /** A reason the service may require only for some changes (a role change, an interval that already had a value). */
 export const optionalAuditReason = () =>

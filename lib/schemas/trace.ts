@@ -14,7 +14,11 @@ export const traceQuerySchema = z.object({
 
 export const partFamilyQuerySchema = z.object({ family: z.uuid().optional().catch(undefined) });
 
-export const auditPackQuerySchema = z.object({ format: z.enum(["pdf", "zip"], { error: 'Ask for format "pdf" or "zip".' }).default("pdf") }).strict();
+export const auditPackQuerySchema = z
+  .object({
+    format: z.enum(["pdf", "zip"], { error: 'Ask for format "pdf" or "zip".' }).default("pdf"),
+  })
+  .strict();
 
 /** The trace search's query string; unlike the page's, a bad value is an error the caller sees. */
 export const parameterSearchQuerySchema = z

@@ -2,7 +2,15 @@
  * What kind of refusal an error is. The kind, not the message, decides the HTTP status, so an
  * API client can tell "no such record" from "someone changed it first" without reading prose.
  */
-export const ERROR_KINDS = ["invalid", "not_found", "conflict", "forbidden", "locked", "too_large", "unavailable"] as const;
+export const ERROR_KINDS = [
+  "invalid",
+  "not_found",
+  "conflict",
+  "forbidden",
+  "locked",
+  "too_large",
+  "unavailable",
+] as const;
 export type ErrorKind = (typeof ERROR_KINDS)[number];
 
 /** The one place a kind becomes a status (RFC 9110 §15.5; 423 is WebDAV's Locked, RFC 4918 §11.3). */
@@ -36,26 +44,41 @@ export class UserFacingError extends Error {
   constructor(message: string, fieldOrOptions?: string | UserFacingErrorOptions) {
     super(message);
     this.name = "UserFacingError";
-    const options = typeof fieldOrOptions === "string" ? { field: fieldOrOptions } : (fieldOrOptions ?? {});
+    const options =
+      typeof fieldOrOptions === "string" ? { field: fieldOrOptions } : (fieldOrOptions ?? {});
     this.kind = options.kind ?? "conflict";
     this.field = options.field;
-    this.fieldErrors = options.fieldErrors ?? (options.field ? { [options.field]: [message] } : undefined);
+    this.fieldErrors =
+      options.fieldErrors ?? (options.field ? { [options.field]: [message] } : undefined);
   }
 }
 
-export const notFoundError = (message: string, field?: string) => new UserFacingError(message, { kind: "not_found", field });
-export const invalidError = (message: string, field?: string) => new UserFacingError(message, { kind: "invalid", field });
-export const lockedError = (message: string, field?: string) => new UserFacingError(message, { kind: "locked", field });
+export const notFoundError = (message: string, field?: string) =>
+  new UserFacingError(message, { kind: "not_found", field });
+export const invalidError = (message: string, field?: string) =>
+  new UserFacingError(message, { kind: "invalid", field });
+export const lockedError = (message: string, field?: string) =>
+  new UserFacingError(message, { kind: "locked", field });
 
 const GENERIC = "Something went wrong on the server. Nothing was changed; try again.";
-const UNAVAILABLE = "The database cannot take changes at the moment (it is busy or read-only). Nothing was changed; try again in a minute, and tell the administrator if it persists.";
+const UNAVAILABLE =
+  "The database cannot take changes at the moment (it is busy or read-only). Nothing was changed; try again in a minute, and tell the administrator if it persists.";
 
 /** SQLite refusing to write for reasons outside the request: busy past the timeout, or opened read-only. */
 export function isDatabaseUnavailable(error: unknown): boolean {
-  for (let e: unknown = error, depth = 0; e && depth < 4; e = (e as { cause?: unknown }).cause, depth++) {
+  for (
+    let e: unknown = error, depth = 0;
+    e && depth < 4;
+    e = (e as { cause?: unknown }).cause, depth++
+  ) {
     const code = String((e as { code?: unknown }).code ?? "");
     if (/^SQLITE_(BUSY|READONLY|LOCKED)/.test(code)) return true;
-    if (/SQLITE_(BUSY|READONLY)|database is locked|attempt to write a readonly database/i.test(String((e as { message?: unknown }).message ?? ""))) return true;
+    if (
+      /SQLITE_(BUSY|READONLY)|database is locked|attempt to write a readonly database/i.test(
+        String((e as { message?: unknown }).message ?? ""),
+      )
+    )
+      return true;
   }
   return false;
 }
@@ -83,14 +106,24 @@ export interface Failure {
 /** Any thrown value as what the caller may be told: a user-facing error as it is, anything else logged and replaced. */
 export function describeFailure(error: unknown): Failure {
   if (error instanceof UserFacingError) {
-    return { kind: error.kind, status: ERROR_STATUS[error.kind], message: error.message, fieldErrors: error.fieldErrors };
+    return {
+      kind: error.kind,
+      status: ERROR_STATUS[error.kind],
+      message: error.message,
+      fieldErrors: error.fieldErrors,
+    };
   }
   console.error(error);
-  if (isDatabaseUnavailable(error)) return { kind: "unavailable", status: ERROR_STATUS.unavailable, message: UNAVAILABLE };
+  if (isDatabaseUnavailable(error))
+    return { kind: "unavailable", status: ERROR_STATUS.unavailable, message: UNAVAILABLE };
   return { kind: "internal", status: 500, message: GENERIC };
 }
 
-export function toActionFailure(error: unknown): { ok: false; message: string; fieldErrors?: Record<string, string[]> } {
+export function toActionFailure(error: unknown): {
+  ok: false;
+  message: string;
+  fieldErrors?: Record<string, string[]>;
+} {
   const { message, fieldErrors } = describeFailure(error);
   return { ok: false, message, fieldErrors };
 }

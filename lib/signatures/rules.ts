@@ -22,9 +22,18 @@ const SEPARATE_DUTIES: readonly SignatureMeaning[][] = [
  * signature on the record (all its content versions): a duty taken on an earlier
  * hash of the same record still counts; a repeated meaning is refused on the same content.
  */
-export function segregationProblem(existing: ExistingSignature[], next: { userId: string; meaning: SignatureMeaning; contentHash?: string }): string | null {
+export function segregationProblem(
+  existing: ExistingSignature[],
+  next: { userId: string; meaning: SignatureMeaning; contentHash?: string },
+): string | null {
   const mine = existing.filter((s) => s.userId === next.userId);
-  if (mine.some((s) => s.meaning === next.meaning && (next.contentHash === undefined || s.contentHash === next.contentHash))) {
+  if (
+    mine.some(
+      (s) =>
+        s.meaning === next.meaning &&
+        (next.contentHash === undefined || s.contentHash === next.contentHash),
+    )
+  ) {
     return `You have already signed this version as "${next.meaning}".`;
   }
   for (const group of SEPARATE_DUTIES) {
@@ -49,13 +58,23 @@ export function dataEntryProblem(entrants: readonly string[], verifierId: string
 }
 
 /** The person who verified a change, or authored it, does not also make it effective. */
-export function closureProblem(signers: readonly { userId: string; meaning: SignatureMeaning }[], closerId: string): string | null {
-  const own = signers.find((s) => s.userId === closerId && (s.meaning === "verified" || s.meaning === "authored"));
-  return own ? `Segregation of duties: you signed this change as "${own.meaning}", so another person must close it.` : null;
+export function closureProblem(
+  signers: readonly { userId: string; meaning: SignatureMeaning }[],
+  closerId: string,
+): string | null {
+  const own = signers.find(
+    (s) => s.userId === closerId && (s.meaning === "verified" || s.meaning === "authored"),
+  );
+  return own
+    ? `Segregation of duties: you signed this change as "${own.meaning}", so another person must close it.`
+    : null;
 }
 
 /** A signature holds only while the record's content still hashes to what was signed (21 CFR 11.70). */
-export function signatureValidity(signedHash: string, currentHash: string | null): "valid" | "invalid" {
+export function signatureValidity(
+  signedHash: string,
+  currentHash: string | null,
+): "valid" | "invalid" {
   return currentHash !== null && signedHash === currentHash ? "valid" : "invalid";
 }
 
@@ -81,18 +100,22 @@ export const MEANING_STATEMENTS: Record<SignedRecordType, Record<SignatureMeanin
     verified: "I have checked this version of the document against its requirements.",
   },
   change_request: {
-    authored: "I am the author of this change request and its impact assessment, and submit them as written.",
-    reviewed: "I have reviewed this change request and its impact assessment and find them fit for approval.",
+    authored:
+      "I am the author of this change request and its impact assessment, and submit them as written.",
+    reviewed:
+      "I have reviewed this change request and its impact assessment and find them fit for approval.",
     approved: "I approve this change for implementation as assessed.",
     performed: "I implemented this change as approved.",
-    verified: "I have checked that this change was implemented as approved and that its requalification evidence meets the requirements.",
+    verified:
+      "I have checked that this change was implemented as approved and that its requalification evidence meets the requirements.",
   },
   test_run: {
     authored: "I planned this test as recorded.",
     reviewed: "I have reviewed the recorded data and evidence of this test.",
     approved: "I approve the result of this test.",
     performed: "I performed this test as recorded, and the data entered are the data observed.",
-    verified: "I have checked the recorded data and evidence of this test against its requirements.",
+    verified:
+      "I have checked the recorded data and evidence of this test against its requirements.",
   },
   recipe_version: {
     authored: "I am the author of this recipe version and submit it as written.",

@@ -34,7 +34,12 @@ function sizeSpan(keys: readonly SizeClassKey[]) {
  * Notation: ISO 16232:2018 / VDA 19.1:2015 cleanliness code (CCC), as read by lib/cleanliness.
  */
 export function previewCleanlinessSpec(text: string): SpecPreview {
-  if (text.trim() === "") return { ok: false, message: "Type the specification, e.g. A(B-E17/F-G14/H-I4/J-K2/L-N00).", position: null };
+  if (text.trim() === "")
+    return {
+      ok: false,
+      message: "Type the specification, e.g. A(B-E17/F-G14/H-I4/J-K2/L-N00).",
+      position: null,
+    };
   try {
     const spec = parseCleanlinessSpec(text);
     return {
@@ -43,7 +48,10 @@ export function previewCleanlinessSpec(text: string): SpecPreview {
       basis: BASIS_UNIT[spec.basis],
       rows: spec.groups.map((g) => ({
         text: g.text,
-        classes: g.joined && g.classes.length > 1 ? `${g.classes[0]}–${g.classes[g.classes.length - 1]}` : g.classes.join(", "),
+        classes:
+          g.joined && g.classes.length > 1
+            ? `${g.classes[0]}–${g.classes[g.classes.length - 1]}`
+            : g.classes.join(", "),
         sizes: sizeSpan(g.classes),
         applies: g.joined || g.classes.length === 1 ? "sum" : "each",
         level: g.level,
@@ -51,7 +59,8 @@ export function previewCleanlinessSpec(text: string): SpecPreview {
       })),
     };
   } catch (error) {
-    if (error instanceof CleanlinessSpecError) return { ok: false, message: error.message, position: error.position ?? null };
+    if (error instanceof CleanlinessSpecError)
+      return { ok: false, message: error.message, position: error.position ?? null };
     return { ok: false, message: "Not a cleanliness-code specification.", position: null };
   }
 }

@@ -1,7 +1,12 @@
 import { randomUUID } from "node:crypto";
 import { link, mkdir, readdir, readFile, unlink, writeFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
-import { GetObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import {
+  GetObjectCommand,
+  ListObjectsV2Command,
+  PutObjectCommand,
+  S3Client,
+} from "@aws-sdk/client-s3";
 import { env } from "@/lib/env";
 import type { S3StoreOptions } from "./s3";
 
@@ -65,7 +70,10 @@ export function s3CheckpointStore(options: S3StoreOptions): CheckpointStore {
     endpoint: options.endpoint,
     region: options.region,
     forcePathStyle: options.forcePathStyle,
-    credentials: options.accessKeyId && options.secretAccessKey ? { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey } : undefined,
+    credentials:
+      options.accessKeyId && options.secretAccessKey
+        ? { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey }
+        : undefined,
   });
   const prefix = "audit-checkpoints/";
   return {
@@ -73,14 +81,30 @@ export function s3CheckpointStore(options: S3StoreOptions): CheckpointStore {
     async write(name, text) {
       if (!NAME.test(name)) throw new Error(`Not a checkpoint name: ${name}`);
       // IfNoneMatch: a server that supports conditional writes refuses to replace an existing checkpoint.
-      await client.send(new PutObjectCommand({ Bucket: options.bucket, Key: prefix + name, Body: text, ContentType: "application/json", IfNoneMatch: "*" }));
+      await client.send(
+        new PutObjectCommand({
+          Bucket: options.bucket,
+          Key: prefix + name,
+          Body: text,
+          ContentType: "application/json",
+          IfNoneMatch: "*",
+        }),
+      );
     },
     async list() {
       const names: string[] = [];
       let token: string | undefined;
       do {
-        const out = await client.send(new ListObjectsV2Command({ Bucket: options.bucket, Prefix: prefix, ContinuationToken: token }));
-        for (const o of out.Contents ?? []) if (o.Key && NAME.test(o.Key.slice(prefix.length))) names.push(o.Key.slice(prefix.length));
+        const out = await client.send(
+          new ListObjectsV2Command({
+            Bucket: options.bucket,
+            Prefix: prefix,
+            ContinuationToken: token,
+          }),
+        );
+        for (const o of out.Contents ?? [])
+          if (o.Key && NAME.test(o.Key.slice(prefix.length)))
+            names.push(o.Key.slice(prefix.length));
         token = out.IsTruncated ? out.NextContinuationToken : undefined;
       } while (token);
       return names.sort();
@@ -88,10 +112,15 @@ export function s3CheckpointStore(options: S3StoreOptions): CheckpointStore {
     async read(name) {
       if (!NAME.test(name)) return null;
       try {
-        const out = await client.send(new GetObjectCommand({ Bucket: options.bucket, Key: prefix + name }));
+        const out = await client.send(
+          new GetObjectCommand({ Bucket: options.bucket, Key: prefix + name }),
+        );
         return out.Body ? await out.Body.transformToString("utf8") : null;
       } catch (error) {
-        if ((error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404) return null;
+        if (
+          (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404
+        )
+          return null;
         throw error;
       }
     },
@@ -106,7 +135,14 @@ export function getCheckpointStore(): CheckpointStore {
     const e = env();
     store =
       e.STORAGE_DRIVER === "s3"
-        ? s3CheckpointStore({ bucket: e.S3_BUCKET!, endpoint: e.S3_ENDPOINT, region: e.S3_REGION, accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY, forcePathStyle: e.S3_FORCE_PATH_STYLE })
+        ? s3CheckpointStore({
+            bucket: e.S3_BUCKET!,
+            endpoint: e.S3_ENDPOINT,
+            region: e.S3_REGION,
+            accessKeyId: e.S3_ACCESS_KEY_ID,
+            secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+            forcePathStyle: e.S3_FORCE_PATH_STYLE,
+          })
         : localCheckpointStore(e.UPLOAD_DIR);
   }
   return store;

@@ -57,13 +57,22 @@ export function s3Store(options: S3StoreOptions): BlobStore {
     async put(sha256, bytes) {
       if (await has(sha256)) return { created: false };
       const { sdk, client } = await connect();
-      await client.send(new sdk.PutObjectCommand({ Bucket: options.bucket, Key: key(sha256), Body: bytes, ContentLength: bytes.byteLength }));
+      await client.send(
+        new sdk.PutObjectCommand({
+          Bucket: options.bucket,
+          Key: key(sha256),
+          Body: bytes,
+          ContentLength: bytes.byteLength,
+        }),
+      );
       return { created: true };
     },
     async get(sha256) {
       const { sdk, client } = await connect();
       try {
-        const out = await client.send(new sdk.GetObjectCommand({ Bucket: options.bucket, Key: key(sha256) }));
+        const out = await client.send(
+          new sdk.GetObjectCommand({ Bucket: options.bucket, Key: key(sha256) }),
+        );
         return out.Body ? await out.Body.transformToByteArray() : new Uint8Array();
       } catch (error) {
         if (isMissing(sdk, error)) return null;

@@ -16,7 +16,8 @@ const SHA256 = /^[0-9a-f]{64}$/;
 
 /** Refuses anything but a lower-case hex SHA-256, so an address can never name a path. */
 export function assertSha256(sha256: string) {
-  if (!SHA256.test(sha256)) throw new Error(`Not a SHA-256 content address: ${sha256.slice(0, 80)}`);
+  if (!SHA256.test(sha256))
+    throw new Error(`Not a SHA-256 content address: ${sha256.slice(0, 80)}`);
 }
 
 /** Two-level fan-out keeps folders and listings small: ab/cd/abcd…. */

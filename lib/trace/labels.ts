@@ -27,4 +27,8 @@ export const BINDING_LABELS = {
   earlier_revision: "On an earlier revision",
 } as const;
 
-export const OUTCOME_LABELS: Record<string, string> = { pass: "Pass", fail: "Fail", incomplete: "Incomplete" };
+export const OUTCOME_LABELS: Record<string, string> = {
+  pass: "Pass",
+  fail: "Fail",
+  incomplete: "Incomplete",
+};

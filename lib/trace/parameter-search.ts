@@ -24,12 +24,17 @@ export interface ParameterFilter {
 export const MATCH_LIMIT = 40;
 
 /** The parameters a filter matches, the first `limit` of them in list order, and how many in all. */
-export function matchParameters(parameters: readonly TraceParameter[], filter: ParameterFilter, limit = MATCH_LIMIT) {
+export function matchParameters(
+  parameters: readonly TraceParameter[],
+  filter: ParameterFilter,
+  limit = MATCH_LIMIT,
+) {
   const words = (filter.q ?? "").toLowerCase().split(/\s+/).filter(Boolean);
   const matches = parameters.filter((p) => {
     if (filter.systemId && p.systemId !== filter.systemId) return false;
     if (filter.recipeId && p.recipeId !== filter.recipeId) return false;
-    const text = `${p.key} ${p.name} ${p.stage} ${p.unit} ${p.recipeCode} ${p.systemCode}`.toLowerCase();
+    const text =
+      `${p.key} ${p.name} ${p.stage} ${p.unit} ${p.recipeCode} ${p.systemCode}`.toLowerCase();
     return words.every((w) => text.includes(w));
   });
   return { total: matches.length, items: matches.slice(0, limit) };
@@ -41,7 +46,11 @@ export function traceScopes(parameters: readonly TraceParameter[]) {
   const recipes = new Map<string, { id: string; label: string; systemId: string }>();
   for (const p of parameters) {
     systems.set(p.systemId, { id: p.systemId, label: `${p.systemCode} · ${p.systemName}` });
-    recipes.set(p.recipeId, { id: p.recipeId, label: `${p.recipeCode} · ${p.recipeName}`, systemId: p.systemId });
+    recipes.set(p.recipeId, {
+      id: p.recipeId,
+      label: `${p.recipeCode} · ${p.recipeName}`,
+      systemId: p.systemId,
+    });
   }
   return { systems: [...systems.values()], recipes: [...recipes.values()] };
 }

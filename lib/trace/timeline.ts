@@ -43,10 +43,18 @@ export interface TimelinePeriod {
 
 function same(a: ParameterValue | null, b: ParameterValue | null) {
   if (a === null || b === null) return a === b;
-  return a.setpoint === b.setpoint && a.unit === b.unit && a.validatedLow === b.validatedLow && a.validatedHigh === b.validatedHigh;
+  return (
+    a.setpoint === b.setpoint &&
+    a.unit === b.unit &&
+    a.validatedLow === b.validatedLow &&
+    a.validatedHigh === b.validatedHigh
+  );
 }
 
-function changeKind(before: ParameterValue | null | undefined, now: ParameterValue | null): TimelinePeriod["change"] {
+function changeKind(
+  before: ParameterValue | null | undefined,
+  now: ParameterValue | null,
+): TimelinePeriod["change"] {
   if (before === undefined) return "first";
   if (before === null) return "added";
   if (now === null) return "removed";
@@ -54,10 +62,16 @@ function changeKind(before: ParameterValue | null | undefined, now: ParameterVal
 }
 
 /** Every value a parameter has had, oldest first; proposals follow the version they were proposed against. */
-export function buildParameterTimeline(versions: VersionValue[], proposedFrom: Map<string, string | null> = new Map()): TimelinePeriod[] {
+export function buildParameterTimeline(
+  versions: VersionValue[],
+  proposedFrom: Map<string, string | null> = new Map(),
+): TimelinePeriod[] {
   const inForce = versions
     .filter((v) => v.status === "effective" || v.status === "superseded")
-    .sort((a, b) => (a.effectiveFrom ?? "").localeCompare(b.effectiveFrom ?? "") || a.version - b.version);
+    .sort(
+      (a, b) =>
+        (a.effectiveFrom ?? "").localeCompare(b.effectiveFrom ?? "") || a.version - b.version,
+    );
   const periods: TimelinePeriod[] = [];
   for (const v of inForce) {
     const last = periods.at(-1);
@@ -82,7 +96,9 @@ export function buildParameterTimeline(versions: VersionValue[], proposedFrom: M
   }
 
   const byId = new Map(versions.map((v) => [v.versionId, v]));
-  const proposals = versions.filter((v) => v.status !== "effective" && v.status !== "superseded").sort((a, b) => a.version - b.version);
+  const proposals = versions
+    .filter((v) => v.status !== "effective" && v.status !== "superseded")
+    .sort((a, b) => a.version - b.version);
   const out = [...periods];
   for (const p of proposals) {
     const fromId = proposedFrom.get(p.versionId) ?? null;
@@ -100,7 +116,11 @@ export function buildParameterTimeline(versions: VersionValue[], proposedFrom: M
       change: "proposed_change",
     };
     // Place the proposal right after the period in force that holds the version it was proposed against.
-    const at = from ? out.findIndex((x) => x.kind === "in_force" && x.versions.some((v) => v.versionId === from.versionId)) : -1;
+    const at = from
+      ? out.findIndex(
+          (x) => x.kind === "in_force" && x.versions.some((v) => v.versionId === from.versionId),
+        )
+      : -1;
     let insert = at === -1 ? out.length : at + 1;
     while (insert < out.length && out[insert].kind === "proposal") insert += 1;
     out.splice(insert, 0, entry);

@@ -10,7 +10,10 @@ interface ParamsLike {
 }
 
 /** The state the address describes: each known key from the URL, else its default. */
-export function readListParams<T extends ListState>(search: ParamsLike | null | undefined, defaults: T): T {
+export function readListParams<T extends ListState>(
+  search: ParamsLike | null | undefined,
+  defaults: T,
+): T {
   const out: ListState = { ...defaults };
   for (const key of Object.keys(defaults)) {
     const value = search?.get(key);
@@ -33,15 +36,27 @@ export function listSearch<T extends ListState>(state: T, defaults: T): string {
 
 /** A server page's `searchParams` (each value a string or a list) read like the URL. */
 export function fromPageParams(params: Record<string, string | string[] | undefined>): ParamsLike {
-  return { get: (name) => (typeof params[name] === "string" ? (params[name] as string) : Array.isArray(params[name]) ? (params[name] as string[])[0] ?? null : null) };
+  return {
+    get: (name) =>
+      typeof params[name] === "string"
+        ? (params[name] as string)
+        : Array.isArray(params[name])
+          ? ((params[name] as string[])[0] ?? null)
+          : null,
+  };
 }
 
 /**
  * Whether a row passes a server list's filters: each non-empty `equals` filter must match its
  * value exactly, and the words of `q` must each appear (any case) in one of the `text` fields.
  */
-export function rowMatches(filters: { equals?: Record<string, { want: string; have: string | null | undefined }>; q?: string; text?: (string | null | undefined)[] }): boolean {
-  for (const { want, have } of Object.values(filters.equals ?? {})) if (want !== "" && want !== have) return false;
+export function rowMatches(filters: {
+  equals?: Record<string, { want: string; have: string | null | undefined }>;
+  q?: string;
+  text?: (string | null | undefined)[];
+}): boolean {
+  for (const { want, have } of Object.values(filters.equals ?? {}))
+    if (want !== "" && want !== have) return false;
   const words = (filters.q ?? "").toLowerCase().split(/\s+/).filter(Boolean);
   const haystack = (filters.text ?? []).filter(Boolean).join(" ").toLowerCase();
   return words.every((w) => haystack.includes(w));

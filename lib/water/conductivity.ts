@@ -83,49 +83,19 @@ export type F25Point = {
  * standard gives no factor, so we refuse rather than extrapolate.
  */
 const F25_WHOLE_DEGREES = [
-  1.918,
-  1.857,
-  1.8,
-  1.745,
-  1.693,
-  1.643,
-  1.596,
-  1.551,
-  1.508,
-  1.467,
-  1.428,
-  1.39,
-  1.354,
-  1.32,
-  1.287,
-  1.256,
-  1.225,
-  1.196,
-  1.168,
-  1.141,
-  1.116,
-  1.091,
-  1.067,
-  1.044,
-  1.021,
-  1.0,
-  0.979,
-  0.959,
-  0.94,
-  0.921,
-  0.903,
-  0.886,
-  0.869,
-  0.853,
-  0.837,
-  0.822,
+  1.918, 1.857, 1.8, 1.745, 1.693, 1.643, 1.596, 1.551, 1.508, 1.467, 1.428, 1.39, 1.354, 1.32,
+  1.287, 1.256, 1.225, 1.196, 1.168, 1.141, 1.116, 1.091, 1.067, 1.044, 1.021, 1.0, 0.979, 0.959,
+  0.94, 0.921, 0.903, 0.886, 0.869, 0.853, 0.837, 0.822,
 ] as const;
 
 export const ISO7888_F25: readonly F25Point[] = Object.freeze(
   F25_WHOLE_DEGREES.map((f25, temperatureC) => ({
     temperatureC,
     f25,
-    source: temperatureC === 25 ? "[std] reference temperature: f25(25 °C) = 1" : "[std] ISO 7888 table of f25(T) for natural water",
+    source:
+      temperatureC === 25
+        ? "[std] reference temperature: f25(25 °C) = 1"
+        : "[std] ISO 7888 table of f25(T) for natural water",
   })),
 );
 

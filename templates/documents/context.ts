@@ -24,6 +24,17 @@ export interface TemplateContext {
       drynessCriteria: string | null;
     };
   } | null;
-  recipe: { code: string; name: string; version: number; parameters: { name: string; setpoint: number; unit: string; low: number | null; high: number | null }[] } | null;
+  recipe: {
+    code: string;
+    name: string;
+    version: number;
+    parameters: {
+      name: string;
+      setpoint: number;
+      unit: string;
+      low: number | null;
+      high: number | null;
+    }[];
+  } | null;
   sample: { confidencePct: number; reliabilityPct: number; size: number };
 }

@@ -1,35 +1,72 @@
 import { doc, h, ol, p, table, ul, type RichDoc } from "@/lib/documents/rich-text";
 import { TYPE_LABELS } from "@/lib/documents/lifecycle";
-import { acceptanceCriteria, approvals, deviations, recipeTable, responsibilities, safetyNote, samplePlan, scopeFacts, testMethods } from "./common";
+import {
+  acceptanceCriteria,
+  approvals,
+  deviations,
+  recipeTable,
+  responsibilities,
+  safetyNote,
+  samplePlan,
+  scopeFacts,
+  testMethods,
+} from "./common";
 import type { TemplateContext } from "./context";
 
 export type { TemplateContext } from "./context";
 
 function heading(ctx: TemplateContext) {
-  return [h(1, `${ctx.number} — ${ctx.title}`), p(`${TYPE_LABELS[ctx.type]}. Read the whole document before the first run.`)];
+  return [
+    h(1, `${ctx.number} — ${ctx.title}`),
+    p(`${TYPE_LABELS[ctx.type]}. Read the whole document before the first run.`),
+  ];
 }
 
 function iqProtocol(ctx: TemplateContext): RichDoc {
   return doc(
     ...heading(ctx),
     h(2, "Purpose"),
-    p("Show, with documented checks, that the cleaning system is installed as specified and is connected to the utilities it needs, before its operation is qualified."),
+    p(
+      "Show, with documented checks, that the cleaning system is installed as specified and is connected to the utilities it needs, before its operation is qualified.",
+    ),
     h(2, "Scope"),
     ...scopeFacts(ctx),
     ...responsibilities(),
     h(2, "Cleaning system and equipment"),
-    ctx.system ? ul(...ctx.system.stages.map((s) => `${s}: nameplate, tank volume in L, heaters, pumps, filters and ultrasonic generators as delivered.`)) : p("List every stage (tank or chamber step) with its equipment."),
+    ctx.system
+      ? ul(
+          ...ctx.system.stages.map(
+            (s) =>
+              `${s}: nameplate, tank volume in L, heaters, pumps, filters and ultrasonic generators as delivered.`,
+          ),
+        )
+      : p("List every stage (tank or chamber step) with its equipment."),
     h(2, "Installation checks"),
     table(
       ["Check", "Expected", "Found", "Initials"],
       [
         ["Utilities: electrical supply", "As the manufacturer's installation drawing", "", ""],
         ["Utilities: compressed air, in bar", "As drawing", "", ""],
-        ["Deionised water supply to the final rinse, in µS/cm at 25 °C", "≤ the value in the water specification", "", ""],
+        [
+          "Deionised water supply to the final rinse, in µS/cm at 25 °C",
+          "≤ the value in the water specification",
+          "",
+          "",
+        ],
         ["Exhaust and vapour extraction", "Connected and running", "", ""],
-        ["Temperature, conductivity and pressure instruments", "Calibrated, certificates on file", "", ""],
+        [
+          "Temperature, conductivity and pressure instruments",
+          "Calibrated, certificates on file",
+          "",
+          "",
+        ],
         ["Filters and their housings", "Fitted, type as specified", "", ""],
-        ["Safety devices: lid interlocks, emergency stop, over-temperature cut-outs", "Present and working", "", ""],
+        [
+          "Safety devices: lid interlocks, emergency stop, over-temperature cut-outs",
+          "Present and working",
+          "",
+          "",
+        ],
         ["Manuals, drawings and spare-parts list", "On file", "", ""],
       ],
     ),
@@ -43,7 +80,9 @@ function oqProtocol(ctx: TemplateContext): RichDoc {
   return doc(
     ...heading(ctx),
     h(2, "Purpose"),
-    p("Show that the cleaning system holds each recipe parameter inside its validated range across the range, including the limits, when run without production parts or with test loads."),
+    p(
+      "Show that the cleaning system holds each recipe parameter inside its validated range across the range, including the limits, when run without production parts or with test loads.",
+    ),
     h(2, "Scope"),
     ...scopeFacts(ctx),
     ...responsibilities(),
@@ -70,7 +109,9 @@ function pqProtocol(ctx: TemplateContext): RichDoc {
   return doc(
     ...heading(ctx),
     h(2, "Purpose"),
-    p("Show that the released recipe, run by the production crew on production parts at the worst-case load, consistently leaves parts that meet the cleanliness specification."),
+    p(
+      "Show that the released recipe, run by the production crew on production parts at the worst-case load, consistently leaves parts that meet the cleanliness specification.",
+    ),
     h(2, "Scope"),
     ...scopeFacts(ctx),
     ...responsibilities(),
@@ -93,18 +134,32 @@ function validationReport(ctx: TemplateContext): RichDoc {
   return doc(
     ...heading(ctx),
     h(2, "Purpose"),
-    p("Report the results of the executed protocol, state whether the acceptance criteria were met and conclude on the validated state of the process."),
+    p(
+      "Report the results of the executed protocol, state whether the acceptance criteria were met and conclude on the validated state of the process.",
+    ),
     h(2, "Scope"),
     ...scopeFacts(ctx),
     h(2, "Protocol and execution"),
-    p("Name the protocol number and version executed, the dates of the runs and who performed them."),
+    p(
+      "Name the protocol number and version executed, the dates of the runs and who performed them.",
+    ),
     h(2, "Results"),
-    table(["Test", "Samples", "Result", "Criterion met"], [["Particle cleanliness", "", "", ""], ["Gravimetry", "", "", ""], ["Wetting tension", "", "", ""], ["Visual and dryness", "", "", ""]]),
+    table(
+      ["Test", "Samples", "Result", "Criterion met"],
+      [
+        ["Particle cleanliness", "", "", ""],
+        ["Gravimetry", "", "", ""],
+        ["Wetting tension", "", "", ""],
+        ["Visual and dryness", "", "", ""],
+      ],
+    ),
     ...acceptanceCriteria(ctx),
     h(2, "Deviations"),
     p("List each deviation raised during execution with its assessment and closure."),
     h(2, "Conclusion"),
-    p("State whether the process is validated for the part family and recipe above, and any conditions (for example a requalification interval)."),
+    p(
+      "State whether the process is validated for the part family and recipe above, and any conditions (for example a requalification interval).",
+    ),
     ...approvals(),
   );
 }
@@ -125,7 +180,14 @@ function procedure(ctx: TemplateContext): RichDoc {
 }
 
 function changeNarrative(ctx: TemplateContext): RichDoc {
-  return doc(...heading(ctx), h(2, "What changes and why"), p("Describe the change and the reason for it."), h(2, "Impact"), p("Describe the impact on the validated state."), ...approvals());
+  return doc(
+    ...heading(ctx),
+    h(2, "What changes and why"),
+    p("Describe the change and the reason for it."),
+    h(2, "Impact"),
+    p("Describe the impact on the validated state."),
+    ...approvals(),
+  );
 }
 
 const TEMPLATES: Record<TemplateContext["type"], (ctx: TemplateContext) => RichDoc> = {

@@ -1,7 +1,15 @@
 import { renderEmail } from "./layout";
 
 /** To administrators when an account locks: a lock can be an attack in progress, or a colleague stuck. */
-export function accountLockedEmail(input: { name: string; email: string; lockedUntil: string; attempts: number; during: "sign_in" | "signing"; sourceAddress: string | null; userId: string }) {
+export function accountLockedEmail(input: {
+  name: string;
+  email: string;
+  lockedUntil: string;
+  attempts: number;
+  during: "sign_in" | "signing";
+  sourceAddress: string | null;
+  userId: string;
+}) {
   const where = input.during === "signing" ? "while signing a record" : "at sign-in";
   return renderEmail({
     subject: `Account locked: ${input.name}`,

@@ -9,10 +9,15 @@ interface DocRef {
 }
 
 const label = (d: DocRef) => `${d.number} version ${d.version} — ${d.title}`;
-const link = (d: DocRef) => ({ label: `Open ${d.number}`, path: `/documents/${d.documentId}?version=${d.version}` });
+const link = (d: DocRef) => ({
+  label: `Open ${d.number}`,
+  path: `/documents/${d.documentId}?version=${d.version}`,
+});
 const day = (iso: string | null) => (iso ? `${formatDate(iso)} (UTC)` : "no date set");
 
-export function reviewRequestedEmail(input: DocRef & { role: "reviewer" | "approver"; author: string; due: string | null }) {
+export function reviewRequestedEmail(
+  input: DocRef & { role: "reviewer" | "approver"; author: string; due: string | null },
+) {
   const task = input.role === "approver" ? "approval" : "review";
   return renderEmail({
     subject: `${input.role === "approver" ? "Approval" : "Review"} requested: ${input.number}`,
@@ -35,12 +40,16 @@ export function sentBackEmail(input: DocRef & { by: string; comment: string; rej
   });
 }
 
-export function approvedEmail(input: DocRef & { by: string; effectiveDate: string; effectiveNow: boolean }) {
+export function approvedEmail(
+  input: DocRef & { by: string; effectiveDate: string; effectiveNow: boolean },
+) {
   return renderEmail({
     subject: `Approved: ${input.number}`,
     paragraphs: [
       `${input.by} approved ${label(input)}.`,
-      input.effectiveNow ? `It is effective from ${input.effectiveDate}.` : `It becomes effective on ${input.effectiveDate}.`,
+      input.effectiveNow
+        ? `It is effective from ${input.effectiveDate}.`
+        : `It becomes effective on ${input.effectiveDate}.`,
     ],
     link: link(input),
   });
@@ -49,7 +58,9 @@ export function approvedEmail(input: DocRef & { by: string; effectiveDate: strin
 export function reviewOverdueEmail(input: DocRef & { role: "reviewer" | "approver"; due: string }) {
   return renderEmail({
     subject: `Overdue ${input.role === "approver" ? "approval" : "review"}: ${input.number}`,
-    paragraphs: [`Your ${input.role === "approver" ? "approval" : "review"} of ${label(input)} was due on ${day(input.due)} and is still open.`],
+    paragraphs: [
+      `Your ${input.role === "approver" ? "approval" : "review"} of ${label(input)} was due on ${day(input.due)} and is still open.`,
+    ],
     link: link(input),
   });
 }

@@ -1,7 +1,14 @@
 import { renderEmail } from "./layout";
 import { formatDate } from "@/lib/format/date";
 
-export function maintenanceDueEmail(input: { what: string; tank: string; system: string; dueAt: string; overdue: boolean; stageId: string }) {
+export function maintenanceDueEmail(input: {
+  what: string;
+  tank: string;
+  system: string;
+  dueAt: string;
+  overdue: boolean;
+  stageId: string;
+}) {
   const date = formatDate(input.dueAt);
   return renderEmail({
     subject: `${input.overdue ? "Overdue" : "Due"}: ${input.what.toLowerCase()} on ${input.system} ${input.tank}`,

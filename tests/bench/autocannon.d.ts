@@ -25,7 +25,15 @@ declare module "autocannon" {
       requests: { total: number };
     }
     interface Instance extends PromiseLike<Result> {
-      on(event: "response", listener: (client: unknown, statusCode: number, resBytes: number, responseTime: number) => void): this;
+      on(
+        event: "response",
+        listener: (
+          client: unknown,
+          statusCode: number,
+          resBytes: number,
+          responseTime: number,
+        ) => void,
+      ): this;
       on(event: "reqError", listener: (error: Error) => void): this;
     }
   }

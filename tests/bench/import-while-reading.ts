@@ -20,13 +20,24 @@ export interface ImportWhileReading {
 /** Gravimetric rows (our CSV format's column names): invented weighings, each after ≥ before. */
 export function weighingsCsv(rows: number): string {
   const lines = ["sample,components,filter_before_mg,filter_after_mg"];
-  for (let i = 0; i < rows; i++) lines.push(`IMP-${String(i).padStart(6, "0")},1,${(100 + (i % 50) / 10).toFixed(1)},${(100.4 + (i % 50) / 10).toFixed(1)}`);
+  for (let i = 0; i < rows; i++)
+    lines.push(
+      `IMP-${String(i).padStart(6, "0")},1,${(100 + (i % 50) / 10).toFixed(1)},${(100.4 + (i % 50) / 10).toFixed(1)}`,
+    );
   return `${lines.join("\n")}\n`;
 }
 
-const quantile = (sorted: number[], q: number) => (sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] : NaN);
+const quantile = (sorted: number[], q: number) =>
+  sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] : NaN;
 
-export async function measureImportWhileReading(opts: { base: string; runId: string; importCookie: string; readCookie: string; readPath: string; rows: number }): Promise<ImportWhileReading> {
+export async function measureImportWhileReading(opts: {
+  base: string;
+  runId: string;
+  importCookie: string;
+  readCookie: string;
+  readPath: string;
+  rows: number;
+}): Promise<ImportWhileReading> {
   const csv = weighingsCsv(opts.rows);
   const form = new FormData();
   form.set("file", new File([csv], "weighings.csv", { type: "text/csv" }));
@@ -34,8 +45,15 @@ export async function measureImportWhileReading(opts: { base: string; runId: str
   let failedReads = 0;
   let importing = true;
   const started = performance.now();
-  const importDone = fetch(`${opts.base}/api/evidence/runs/${opts.runId}/import`, { method: "POST", body: form, headers: { cookie: opts.importCookie, origin: opts.base } })
-    .then(async (res) => ({ status: res.status, message: String(((await res.json()) as { message?: string; error?: string }).message ?? "") }))
+  const importDone = fetch(`${opts.base}/api/evidence/runs/${opts.runId}/import`, {
+    method: "POST",
+    body: form,
+    headers: { cookie: opts.importCookie, origin: opts.base },
+  })
+    .then(async (res) => ({
+      status: res.status,
+      message: String(((await res.json()) as { message?: string; error?: string }).message ?? ""),
+    }))
     .finally(() => {
       importing = false;
     });

@@ -75,11 +75,31 @@ export const SCALES: Record<PlantScale["name"], PlantScale> = {
  * points (1 and 10 connections, few requests): a full-size plant in minutes.
  */
 export function scaleFromArgs(argv: string[], env: NodeJS.ProcessEnv): PlantScale {
-  const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
+  const option = (name: string) =>
+    argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
   const arg = option("scale") ?? env.BENCH_SCALE ?? "full";
-  if (arg !== "full" && arg !== "ci") throw new Error(`Unknown scale "${arg}": use --scale=full or --scale=ci.`);
+  if (arg !== "full" && arg !== "ci")
+    throw new Error(`Unknown scale "${arg}": use --scale=full or --scale=ci.`);
   const points = option("points") ?? env.BENCH_POINTS ?? arg;
-  if (points !== "full" && points !== "ci") throw new Error(`Unknown points "${points}": use --points=full or --points=ci.`);
-  const { readsPerConnection, readMinimum, slowPerConnection, slowMinimum, connections, pdfConnections, pdfMinimum } = SCALES[points];
-  return { ...SCALES[arg], readsPerConnection, readMinimum, slowPerConnection, slowMinimum, connections, pdfConnections, pdfMinimum };
+  if (points !== "full" && points !== "ci")
+    throw new Error(`Unknown points "${points}": use --points=full or --points=ci.`);
+  const {
+    readsPerConnection,
+    readMinimum,
+    slowPerConnection,
+    slowMinimum,
+    connections,
+    pdfConnections,
+    pdfMinimum,
+  } = SCALES[points];
+  return {
+    ...SCALES[arg],
+    readsPerConnection,
+    readMinimum,
+    slowPerConnection,
+    slowMinimum,
+    connections,
+    pdfConnections,
+    pdfMinimum,
+  };
 }

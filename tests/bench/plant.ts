@@ -37,10 +37,17 @@ const fail = (s: string) => {
 
 // ── What the benchmark needs, said up front ────────────────────────────
 if (!existsSync(".next/BUILD_ID")) {
-  console.error("The benchmark serves the production build and found none: run `npx next build` first, then `npm run bench` again.");
+  console.error(
+    "The benchmark serves the production build and found none: run `npx next build` first, then `npm run bench` again.",
+  );
   process.exit(1);
 }
-if (await fetch(BASE).then(() => true, () => false)) {
+if (
+  await fetch(BASE).then(
+    () => true,
+    () => false,
+  )
+) {
   console.error(`Something already answers on ${BASE}; stop it or set BENCH_PORT to a free port.`);
   process.exit(1);
 }
@@ -67,7 +74,9 @@ sampleLoad();
 
 // ── Audit-chain verification beside raw SHA-256 over the same bytes ────
 const chain = await measureChain(plant.dbPath);
-log(`Chain: ${chain.events.toLocaleString("en")} events verified in ${chain.verifySeconds.toFixed(2)} s; raw SHA-256 of the same ${(chain.bytes / 1e6).toFixed(1)} MB in ${chain.rawSeconds.toFixed(2)} s.`);
+log(
+  `Chain: ${chain.events.toLocaleString("en")} events verified in ${chain.verifySeconds.toFixed(2)} s; raw SHA-256 of the same ${(chain.bytes / 1e6).toFixed(1)} MB in ${chain.rawSeconds.toFixed(2)} s.`,
+);
 sampleLoad();
 
 // ── Serve and load ─────────────────────────────────────────────────────
@@ -77,23 +86,65 @@ const rss = watchRss(server.pid!);
 const rows: Row[] = [];
 try {
   await waitForServer();
-  const cookie = (role: keyof PlantManifest["sessions"]) => `washproof_session=${plant.sessions[role]}`;
+  const cookie = (role: keyof PlantManifest["sessions"]) =>
+    `washproof_session=${plant.sessions[role]}`;
   const endpoints: Endpoint[] = [
-    { name: "My queue data", path: "/api/queue", role: "engineer", check: (b) => Array.isArray(JSON.parse(b).items) },
-    { name: "Evidence table", path: "/api/evidence/runs?sort=performedOn&dir=desc&page=1&pageSize=20", role: "engineer", check: (b) => JSON.parse(b).rows.length === 20 },
-    { name: "Trace of the busy parameter", path: `/trace?recipe=${plant.busy.recipeId}&key=${plant.busy.key}`, role: "auditor", check: (b) => b.includes(plant.busy.key) && b.includes("CR-00001") },
-    { name: "Audit-trail page data", path: "/api/audit-events?limit=50", role: "auditor", check: (b) => JSON.parse(b).items.length === 50 },
+    {
+      name: "My queue data",
+      path: "/api/queue",
+      role: "engineer",
+      check: (b) => Array.isArray(JSON.parse(b).items),
+    },
+    {
+      name: "Evidence table",
+      path: "/api/evidence/runs?sort=performedOn&dir=desc&page=1&pageSize=20",
+      role: "engineer",
+      check: (b) => JSON.parse(b).rows.length === 20,
+    },
+    {
+      name: "Trace of the busy parameter",
+      path: `/trace?recipe=${plant.busy.recipeId}&key=${plant.busy.key}`,
+      role: "auditor",
+      check: (b) => b.includes(plant.busy.key) && b.includes("CR-00001"),
+    },
+    {
+      name: "Audit-trail page data",
+      path: "/api/audit-events?limit=50",
+      role: "auditor",
+      check: (b) => JSON.parse(b).items.length === 50,
+    },
   ];
   for (const e of endpoints) {
-    const res = await fetch(BASE + e.path, { headers: { cookie: cookie(e.role) }, redirect: "manual" });
+    const res = await fetch(BASE + e.path, {
+      headers: { cookie: cookie(e.role) },
+      redirect: "manual",
+    });
     const body = await res.text();
-    if (!res.ok || !e.check(body)) fail(`${e.name}: the first response (${res.status}) is not what the page shows`);
-    for (const c of scale.connections) rows.push(await load(e.name, c, { url: BASE + e.path, connections: c, amount: readAmount(c), timeout: 120, headers: { cookie: cookie(e.role) } }));
+    if (!res.ok || !e.check(body))
+      fail(`${e.name}: the first response (${res.status}) is not what the page shows`);
+    for (const c of scale.connections)
+      rows.push(
+        await load(e.name, c, {
+          url: BASE + e.path,
+          connections: c,
+          amount: readAmount(c),
+          timeout: 120,
+          headers: { cookie: cookie(e.role) },
+        }),
+      );
   }
 
   // A 100,000-row CSV import with the evidence table read beside it, one request after another.
-  imported = await measureImportWhileReading({ base: BASE, runId: importRun.runId, importCookie: cookie("technician"), readCookie: cookie("engineer"), readPath: endpoints[1].path, rows: IMPORT_ROWS });
-  if (imported.importStatus !== 200) fail(`CSV import: answered ${imported.importStatus}: ${imported.importMessage}`);
+  imported = await measureImportWhileReading({
+    base: BASE,
+    runId: importRun.runId,
+    importCookie: cookie("technician"),
+    readCookie: cookie("engineer"),
+    readPath: endpoints[1].path,
+    rows: IMPORT_ROWS,
+  });
+  if (imported.importStatus !== 200)
+    fail(`CSV import: answered ${imported.importStatus}: ${imported.importMessage}`);
   if (imported.failedReads) fail(`CSV import: ${imported.failedReads} reads beside it failed`);
 
   // Signing: the run page's own server action, called as the browser calls it.
@@ -102,12 +153,24 @@ try {
   let next = 0;
   const signRequest = async () => {
     const body = await bodies[next++];
-    return { method: "POST" as const, path: `/evidence/runs/${plant.signable[next - 1].runId}`, headers: signHeaders(actionId, body.contentType, cookie("technician")), body: body.bytes };
+    return {
+      method: "POST" as const,
+      path: `/evidence/runs/${plant.signable[next - 1].runId}`,
+      headers: signHeaders(actionId, body.contentType, cookie("technician")),
+      body: body.bytes,
+    };
   };
   const first = await signRequest();
-  const firstRes = await fetch(BASE + first.path, { method: "POST", headers: first.headers, body: new Uint8Array(first.body) });
+  const firstRes = await fetch(BASE + first.path, {
+    method: "POST",
+    headers: first.headers,
+    body: new Uint8Array(first.body),
+  });
   const firstText = await firstRes.text();
-  if (!firstRes.ok || !firstText.includes('"ok":true')) fail(`Signing: the first signature was refused (${firstRes.status}): ${firstText.slice(0, 300)}`);
+  if (!firstRes.ok || !firstText.includes('"ok":true'))
+    fail(
+      `Signing: the first signature was refused (${firstRes.status}): ${firstText.slice(0, 300)}`,
+    );
   const prepared = await Promise.all(plant.signable.slice(1).map(() => signRequest()));
   let refused = 0;
   let answered = 0;
@@ -137,15 +200,29 @@ try {
   }
   if (refused) fail(`Signing: ${refused} signatures were refused though answered 2xx`);
   const signed = await countSignatures(plant);
-  if (signed !== answered + 1) fail(`Signing: ${signed} runs are signed in the database, ${answered + 1} signings were answered`);
+  if (signed !== answered + 1)
+    fail(
+      `Signing: ${signed} runs are signed in the database, ${answered + 1} signings were answered`,
+    );
 
   const pdfPath = `/api/documents/${plant.protocol.documentId}/versions/${plant.protocol.version}/pdf`;
   const pdf = await fetch(BASE + pdfPath, { headers: { cookie: cookie("auditor") } });
   const pdfBytes = Buffer.from(await pdf.arrayBuffer());
   const pages = (pdfBytes.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? []).length;
-  if (!pdf.ok || pdf.headers.get("content-type") !== "application/pdf" || pages < 40) fail(`Protocol PDF: ${pdf.status}, ${pdf.headers.get("content-type")}, ${pages} pages (40 expected)`);
+  if (!pdf.ok || pdf.headers.get("content-type") !== "application/pdf" || pages < 40)
+    fail(
+      `Protocol PDF: ${pdf.status}, ${pdf.headers.get("content-type")}, ${pages} pages (40 expected)`,
+    );
   for (const c of scale.pdfConnections) {
-    rows.push(await load(`PDF of the ${pages}-page protocol`, c, { url: BASE + pdfPath, connections: c, amount: Math.max(scale.pdfMinimum, c), timeout: 600, headers: { cookie: cookie("auditor") } }));
+    rows.push(
+      await load(`PDF of the ${pages}-page protocol`, c, {
+        url: BASE + pdfPath,
+        connections: c,
+        amount: Math.max(scale.pdfMinimum, c),
+        timeout: 600,
+        headers: { cookie: cookie("auditor") },
+      }),
+    );
   }
 } catch (error) {
   fail(`the benchmark stopped: ${(error as Error).stack ?? error}`);
@@ -156,7 +233,8 @@ try {
 sampleLoad();
 
 // ── Report ─────────────────────────────────────────────────────────────
-const at10 = (prefix: string) => rows.find((r) => r.name.startsWith(prefix) && r.connections === 10);
+const at10 = (prefix: string) =>
+  rows.find((r) => r.name.startsWith(prefix) && r.connections === 10);
 const mark = (ok: boolean | undefined) => (ok ? "met" : "MISSED");
 const ratio = chain.bytes / chain.verifySeconds / (chain.bytes / chain.rawSeconds);
 const peak = rss.peak();
@@ -164,11 +242,19 @@ const lines = [
   `## Plant benchmark, ${scale.name} size`,
   "",
   `Machine: ${cpus().length} CPUs (${cpus()[0]?.model ?? "unknown"}), ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, Node ${process.version}; 1-minute load average during the run ${Math.min(...loads).toFixed(2)}–${Math.max(...loads).toFixed(2)} (samples: ${loads.map((l) => l.toFixed(2)).join(", ")}).`,
-  `Data: ${Object.entries(plant.counts).filter(([, n]) => n >= 1000).map(([t, n]) => `${t} ${n.toLocaleString("en")}`).join(", ")}; seeded in ${seedSeconds.toFixed(1)} s. Busy parameter ${plant.busy.recipeCode} ${plant.busy.key}: ${plant.busy.changes} closed changes.`,
+  `Data: ${Object.entries(plant.counts)
+    .filter(([, n]) => n >= 1000)
+    .map(([t, n]) => `${t} ${n.toLocaleString("en")}`)
+    .join(
+      ", ",
+    )}; seeded in ${seedSeconds.toFixed(1)} s. Busy parameter ${plant.busy.recipeCode} ${plant.busy.key}: ${plant.busy.changes} closed changes.`,
   "",
   "| endpoint | connections | requests | p50 ms | p95 ms | p99 ms | requests/s |",
   "|---|---:|---:|---:|---:|---:|---:|",
-  ...rows.map((r) => `| ${r.name} | ${r.connections} | ${r.requests} | ${r.p50.toFixed(1)} | ${r.p95.toFixed(1)} | ${r.p99.toFixed(1)} | ${r.rps.toFixed(1)} |`),
+  ...rows.map(
+    (r) =>
+      `| ${r.name} | ${r.connections} | ${r.requests} | ${r.p50.toFixed(1)} | ${r.p95.toFixed(1)} | ${r.p99.toFixed(1)} | ${r.rps.toFixed(1)} |`,
+  ),
   "",
   `Audit chain: ${chain.events.toLocaleString("en")} events, ${(chain.bytes / 1e6).toFixed(1)} MB hashed. verifyAuditChain ${chain.verifySeconds.toFixed(2)} s (${Math.round(chain.events / chain.verifySeconds).toLocaleString("en")} events/s, ${(chain.bytes / 1e6 / chain.verifySeconds).toFixed(1)} MB/s); raw SHA-256 ${chain.rawSeconds.toFixed(2)} s (${(chain.bytes / 1e6 / chain.rawSeconds).toFixed(1)} MB/s); ratio ${(ratio * 100).toFixed(1)} %.`,
   `Server peak RSS (VmHWM, ${peak.name}, pid ${peak.pid}): ${(peak.kb / 1024).toFixed(0)} MB.`,
@@ -192,7 +278,9 @@ if (failures.length) {
   console.error(`The benchmark broke (${failures.length}):\n- ${failures.join("\n- ")}`);
   process.exit(1);
 }
-console.log(`All ${rows.reduce((n, r) => n + r.requests, 0).toLocaleString("en")} responses were 2xx. Report also in ${dataDir}/report-${scale.name}.md.`);
+console.log(
+  `All ${rows.reduce((n, r) => n + r.requests, 0).toLocaleString("en")} responses were 2xx. Report also in ${dataDir}/report-${scale.name}.md.`,
+);
 process.exit(0);
 
 // ── Helpers ────────────────────────────────────────────────────────────
@@ -222,29 +310,58 @@ async function load(name: string, connections: number, options: autocannon.Optio
     lastResponse = performance.now();
   });
   const errors = new Map<string, number>();
-  instance.on("reqError", (error) => errors.set(error.message, (errors.get(error.message) ?? 0) + 1));
+  instance.on("reqError", (error) =>
+    errors.set(error.message, (errors.get(error.message) ?? 0) + 1),
+  );
   const result = await instance;
   // Up to the last response: autocannon itself only reports done on its next one-second tick.
   const seconds = (lastResponse - started) / 1000;
   sampleLoad();
   const bad = result.non2xx + result.errors + result.timeouts;
-  if (bad) fail(`${name} at ${connections} connections: ${result.non2xx} non-2xx, ${result.errors} errors, ${result.timeouts} timeouts of ${result.requests.total}${errors.size ? ` (${[...errors].map(([m, n]) => `${n}× ${m}`).join("; ")})` : ""}`);
+  if (bad)
+    fail(
+      `${name} at ${connections} connections: ${result.non2xx} non-2xx, ${result.errors} errors, ${result.timeouts} timeouts of ${result.requests.total}${errors.size ? ` (${[...errors].map(([m, n]) => `${n}× ${m}`).join("; ")})` : ""}`,
+    );
   if (latencies.length === 0) fail(`${name} at ${connections} connections: no response`);
   latencies.sort((a, b) => a - b);
-  const q = (p: number) => latencies[Math.min(latencies.length - 1, Math.ceil(p * latencies.length) - 1)] ?? NaN;
-  const row = { name, connections, requests: latencies.length, p50: q(0.5), p95: q(0.95), p99: q(0.99), rps: latencies.length / seconds };
-  log(`  ${name}, ${connections} conn: ${row.requests} requests, p50 ${row.p50.toFixed(1)} ms, p95 ${row.p95.toFixed(1)} ms, p99 ${row.p99.toFixed(1)} ms, ${row.rps.toFixed(1)}/s`);
+  const q = (p: number) =>
+    latencies[Math.min(latencies.length - 1, Math.ceil(p * latencies.length) - 1)] ?? NaN;
+  const row = {
+    name,
+    connections,
+    requests: latencies.length,
+    p50: q(0.5),
+    p95: q(0.95),
+    p99: q(0.99),
+    rps: latencies.length / seconds,
+  };
+  log(
+    `  ${name}, ${connections} conn: ${row.requests} requests, p50 ${row.p50.toFixed(1)} ms, p95 ${row.p95.toFixed(1)} ms, p99 ${row.p99.toFixed(1)} ms, ${row.rps.toFixed(1)}/s`,
+  );
   return row;
 }
 
-function signHeaders(actionId: string, contentType: string, cookie: string): Record<string, string> {
-  return { "next-action": actionId, "content-type": contentType, accept: "text/x-component", origin: BASE, cookie };
+function signHeaders(
+  actionId: string,
+  contentType: string,
+  cookie: string,
+): Record<string, string> {
+  return {
+    "next-action": actionId,
+    "content-type": contentType,
+    accept: "text/x-component",
+    origin: BASE,
+    cookie,
+  };
 }
 
 async function countSignatures(p: PlantManifest) {
   const { client } = openDatabase(`file:${p.dbPath}`);
   const ids = p.signable.map((s) => s.runId);
-  const res = await client.execute({ sql: `SELECT count(*) AS n FROM signatures WHERE record_type = 'test_run' AND meaning = 'performed' AND record_id IN (${ids.map(() => "?").join(",")})`, args: ids });
+  const res = await client.execute({
+    sql: `SELECT count(*) AS n FROM signatures WHERE record_type = 'test_run' AND meaning = 'performed' AND record_id IN (${ids.map(() => "?").join(",")})`,
+    args: ids,
+  });
   client.close();
   return Number(res.rows[0].n);
 }
@@ -260,9 +377,26 @@ async function measureChain(dbPath: string) {
   let rawMs = 0;
   let seq = 0;
   for (;;) {
-    const page = await client.execute({ sql: "SELECT * FROM audit_events WHERE seq > ? ORDER BY seq LIMIT 5000", args: [seq] });
+    const page = await client.execute({
+      sql: "SELECT * FROM audit_events WHERE seq > ? ORDER BY seq LIMIT 5000",
+      args: [seq],
+    });
     if (page.rows.length === 0) break;
-    const texts = page.rows.map((r) => JSON.stringify([r.prev_hash, r.seq, r.at, r.actor_id, r.actor_name, r.action, r.record_type, r.record_id, r.old_value, r.new_value, r.reason]));
+    const texts = page.rows.map((r) =>
+      JSON.stringify([
+        r.prev_hash,
+        r.seq,
+        r.at,
+        r.actor_id,
+        r.actor_name,
+        r.action,
+        r.record_type,
+        r.record_id,
+        r.old_value,
+        r.new_value,
+        r.reason,
+      ]),
+    );
     const started = performance.now();
     for (const t of texts) createHash("sha256").update(t).digest("hex");
     rawMs += performance.now() - started;
@@ -285,14 +419,27 @@ function startServer(p: PlantManifest): ChildProcess {
     MAILBOX_FILE: `${dataDir}/mailbox.jsonl`,
   };
   // Its own process group, so stopping it stops whatever it started and nothing else.
-  const child = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] });
-  child.on("exit", (code, signal) => !stopping && fail(`next start stopped during the run (${code ?? signal})`));
+  const child = spawn(
+    process.execPath,
+    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
+    { env, detached: true, stdio: ["ignore", "ignore", "inherit"] },
+  );
+  child.on(
+    "exit",
+    (code, signal) => !stopping && fail(`next start stopped during the run (${code ?? signal})`),
+  );
   return child;
 }
 
 async function waitForServer() {
   for (let i = 0; i < 240; i++) {
-    if (await fetch(`${BASE}/sign-in`).then((r) => r.ok, () => false)) return;
+    if (
+      await fetch(`${BASE}/sign-in`).then(
+        (r) => r.ok,
+        () => false,
+      )
+    )
+      return;
     await new Promise((r) => setTimeout(r, 250));
   }
   throw new Error(`next start did not answer on ${BASE} within 60 s`);
@@ -312,7 +459,12 @@ function watchRss(rootPid: number) {
   const best = { pid: rootPid, name: "?", kb: 0 };
   const children = (pid: number): number[] => {
     try {
-      return readdirSync(`/proc/${pid}/task`).flatMap((t) => readFileSync(`/proc/${pid}/task/${t}/children`, "utf8").split(" ").filter(Boolean).map(Number));
+      return readdirSync(`/proc/${pid}/task`).flatMap((t) =>
+        readFileSync(`/proc/${pid}/task/${t}/children`, "utf8")
+          .split(" ")
+          .filter(Boolean)
+          .map(Number),
+      );
     } catch {
       return [];
     }
@@ -324,7 +476,8 @@ function watchRss(rootPid: number) {
       try {
         const status = readFileSync(`/proc/${pid}/status`, "utf8");
         const kb = Number(/VmHWM:\s+(\d+)/.exec(status)?.[1] ?? 0);
-        if (kb > best.kb) Object.assign(best, { pid, kb, name: /Name:\s+(.+)/.exec(status)?.[1] ?? "?" });
+        if (kb > best.kb)
+          Object.assign(best, { pid, kb, name: /Name:\s+(.+)/.exec(status)?.[1] ?? "?" });
       } catch {
         // the process ended between listing and reading
       }

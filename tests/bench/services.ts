@@ -28,7 +28,8 @@ const REPEAT = Number(process.env.BENCH_REPEAT ?? 15);
 const dir = resolve("data/bench");
 const dbPath = `${dir}/services-${scale.name}.db`;
 const loads: string[] = [];
-const load = () => loads.push(readFileSync("/proc/loadavg", "utf8").split(" ").slice(0, 3).join(" "));
+const load = () =>
+  loads.push(readFileSync("/proc/loadavg", "utf8").split(" ").slice(0, 3).join(" "));
 load();
 
 mkdirSync(dir, { recursive: true });
@@ -69,7 +70,12 @@ const [engineer] = await db
   .from(users)
   .innerJoin(userRoles, eq(userRoles.userId, users.id))
   .where(and(eq(users.email, "engineer@fennmoor.example"), eq(userRoles.role, "engineer")));
-const user = { ...engineer, roles: ["engineer" as const], mustChangePassword: false, sessionId: "bench" };
+const user = {
+  ...engineer,
+  roles: ["engineer" as const],
+  mustChangePassword: false,
+  sessionId: "bench",
+};
 
 const lines: string[] = [];
 const row = (name: string, r: { p50: number; p95: number; statements: number }, note = "") =>
@@ -78,11 +84,21 @@ const row = (name: string, r: { p50: number; p95: number; statements: number }, 
 // ── My queue: the first page of each kind, beside the raw read of the same waiting runs ──
 const queue = await time(() => getQueue(user));
 const rawQueue = await time(async () => {
-  const perform = await client.execute({ sql: "select r.id, r.number, r.revision, r.test_type, r.lab, r.performed_on, f.code from test_runs r indexed by test_runs_status_idx join part_families f on f.id = r.part_family_id where r.status = 'open' and (r.technician_id = ? or r.created_by = ?) order by r.performed_on is null, r.performed_on, r.number, r.revision limit 50", args: [user.id, user.id] });
-  const verify = await client.execute({ sql: "select r.id, r.number, r.revision, r.test_type, r.lab, r.performed_on, f.code from test_runs r indexed by test_runs_status_idx join part_families f on f.id = r.part_family_id where r.status = 'performed' and not exists (select 1 from signatures s where s.record_type = 'test_run' and s.record_id = r.id and s.user_id = ?) order by r.number, r.revision limit 50", args: [user.id] });
+  const perform = await client.execute({
+    sql: "select r.id, r.number, r.revision, r.test_type, r.lab, r.performed_on, f.code from test_runs r indexed by test_runs_status_idx join part_families f on f.id = r.part_family_id where r.status = 'open' and (r.technician_id = ? or r.created_by = ?) order by r.performed_on is null, r.performed_on, r.number, r.revision limit 50",
+    args: [user.id, user.id],
+  });
+  const verify = await client.execute({
+    sql: "select r.id, r.number, r.revision, r.test_type, r.lab, r.performed_on, f.code from test_runs r indexed by test_runs_status_idx join part_families f on f.id = r.part_family_id where r.status = 'performed' and not exists (select 1 from signatures s where s.record_type = 'test_run' and s.record_id = r.id and s.user_id = ?) order by r.number, r.revision limit 50",
+    args: [user.id],
+  });
   return perform.rows.length + verify.rows.length;
 });
-row("My queue (getQueue, first page per kind)", queue, `${queue.result.items.length} items, ${JSON.stringify(Object.fromEntries(queue.result.kinds.map((k) => [k.kind, k.total])))}`);
+row(
+  "My queue (getQueue, first page per kind)",
+  queue,
+  `${queue.result.items.length} items, ${JSON.stringify(Object.fromEntries(queue.result.kinds.map((k) => [k.kind, k.total])))}`,
+);
 row("  anchor: raw SQL, the two run pages", rawQueue);
 load();
 
@@ -92,7 +108,11 @@ const input = { recipeId: String(busy.rows[0].id), key: "wash.temperature" };
 const trace = await time(() => getParameterHistory(input));
 const before = await time(() => referenceParameterHistory(input));
 const same = JSON.stringify(trace.result) === JSON.stringify(before.result);
-row("Trace of the busy parameter (batched)", trace, `${trace.result?.entries.length} periods; same answer as before: ${same}`);
+row(
+  "Trace of the busy parameter (batched)",
+  trace,
+  `${trace.result?.entries.length} periods; same answer as before: ${same}`,
+);
 row("  anchor: the read before batching", before);
 load();
 
@@ -102,10 +122,27 @@ const verified = await verifyAuditChain(db);
 const verifySeconds = (performance.now() - t0) / 1000;
 let bytes = 0;
 let rawMs = 0;
-for (let seq = 0; ; ) {
-  const page = await execute({ sql: "SELECT * FROM audit_events WHERE seq > ? ORDER BY seq LIMIT 5000", args: [seq] });
+for (let seq = 0; ;) {
+  const page = await execute({
+    sql: "SELECT * FROM audit_events WHERE seq > ? ORDER BY seq LIMIT 5000",
+    args: [seq],
+  });
   if (page.rows.length === 0) break;
-  const texts = page.rows.map((r) => JSON.stringify([r.prev_hash, r.seq, r.at, r.actor_id, r.actor_name, r.action, r.record_type, r.record_id, r.old_value, r.new_value, r.reason]));
+  const texts = page.rows.map((r) =>
+    JSON.stringify([
+      r.prev_hash,
+      r.seq,
+      r.at,
+      r.actor_id,
+      r.actor_name,
+      r.action,
+      r.record_type,
+      r.record_id,
+      r.old_value,
+      r.new_value,
+      r.reason,
+    ]),
+  );
   const started = performance.now();
   for (const t of texts) createHash("sha256").update(t).digest("hex");
   rawMs += performance.now() - started;
@@ -114,7 +151,9 @@ for (let seq = 0; ; ) {
 }
 load();
 
-console.log(`\nServices in process, ${scale.name} size, ${REPEAT} calls each after one warm-up; load average ${loads.join(" → ")}\n`);
+console.log(
+  `\nServices in process, ${scale.name} size, ${REPEAT} calls each after one warm-up; load average ${loads.join(" → ")}\n`,
+);
 console.log("| path | p50 ms | p95 ms | statements per call | note |\n|---|---:|---:|---:|---|");
 console.log(lines.join("\n"));
 console.log(

@@ -7,11 +7,27 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { openDatabase, setProcessDatabase } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDemo } from "@/db/seed";
-import { auditEvents, partFamilies, recipeVersions, requalificationIntervals, signatures, testSamples, testRuns, userRoles, users } from "@/db/schema";
+import {
+  auditEvents,
+  partFamilies,
+  recipeVersions,
+  requalificationIntervals,
+  signatures,
+  testSamples,
+  testRuns,
+  userRoles,
+  users,
+} from "@/db/schema";
 import { verifyAuditChain } from "@/lib/audit";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { createRun } from "@/lib/server/evidence/create-run";
-import { killGroup, startChild, startNextServer, waitUntilServing, type Child } from "./support/processes";
+import {
+  killGroup,
+  startChild,
+  startNextServer,
+  waitUntilServing,
+  type Child,
+} from "./support/processes";
 
 /**
  * The production server is killed with SIGKILL in the middle of a burst of
@@ -73,18 +89,44 @@ beforeAll(async () => {
   await migrateDatabase(db, client);
   await seedDemo(db);
   setProcessDatabase(db, client);
-  const [tech] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, "technician@fennmoor.example"));
-  const [engineer] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, "engineer@fennmoor.example"));
-  const roles = (await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, tech.id))).map((r) => r.role);
-  token = (await createApiToken({ ...tech, email: "", roles, mustChangePassword: false } as never, { name: "Crash test", scope: "read_write" })).token;
+  const [tech] = await db
+    .select({ id: users.id, name: users.name })
+    .from(users)
+    .where(eq(users.email, "technician@fennmoor.example"));
+  const [engineer] = await db
+    .select({ id: users.id, name: users.name })
+    .from(users)
+    .where(eq(users.email, "engineer@fennmoor.example"));
+  const roles = (
+    await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, tech.id))
+  ).map((r) => r.role);
+  token = (
+    await createApiToken({ ...tech, email: "", roles, mustChangePassword: false } as never, {
+      name: "Crash test",
+      scope: "read_write",
+    })
+  ).token;
   const [family] = await db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
   // The valve body's effective recipe, on which it is qualified: runs are refused off a qualified combination.
   const [{ version }] = await db
     .select({ version: recipeVersions })
     .from(requalificationIntervals)
     .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
-    .where(and(eq(requalificationIntervals.partFamilyId, family.id), eq(recipeVersions.status, "effective")));
-  const open = () => createRun(engineer, { partFamilyId: family.id, recipeVersionId: version.id, testType: "gravimetric", technicianId: tech.id, lab: "Larchfield lab", performedOn: "2026-03-02" });
+    .where(
+      and(
+        eq(requalificationIntervals.partFamilyId, family.id),
+        eq(recipeVersions.status, "effective"),
+      ),
+    );
+  const open = () =>
+    createRun(engineer, {
+      partFamilyId: family.id,
+      recipeVersionId: version.id,
+      testType: "gravimetric",
+      technicianId: tech.id,
+      lab: "Larchfield lab",
+      performedOn: "2026-03-02",
+    });
   for (let i = 0; i < RESULT_RUNS; i++) resultRuns.push((await open()).id);
   signerArgs = [family.id, version.id, SIGNER_LAB];
   client.close();
@@ -100,7 +142,13 @@ function postResult(runId: string, sampleLabel: string) {
   return fetch(`${baseUrl}/api/v1/test-runs/${runId}/samples`, {
     method: "POST",
     headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
-    body: JSON.stringify({ sampleLabel, worstCase: false, components: 5, filterBeforeMg: 100.2, filterAfterMg: 100.6 }),
+    body: JSON.stringify({
+      sampleLabel,
+      worstCase: false,
+      components: 5,
+      filterBeforeMg: 100.2,
+      filterAfterMg: 100.6,
+    }),
   });
 }
 
@@ -113,10 +161,15 @@ describe("a SIGKILL in the middle of a burst of writes", () => {
     const signed = new Set<string>();
     let signerReady!: () => void;
     const ready = new Promise<void>((r) => (signerReady = r));
-    signer = startChild("npx", ["tsx", "--conditions", "react-server", "tests/build/support/sign-runs.ts", ...signerArgs], serverEnv(), (line) => {
-      if (line === "ready") signerReady();
-      if (line.startsWith("signed ")) signed.add(line.slice("signed ".length));
-    });
+    signer = startChild(
+      "npx",
+      ["tsx", "--conditions", "react-server", "tests/build/support/sign-runs.ts", ...signerArgs],
+      serverEnv(),
+      (line) => {
+        if (line === "ready") signerReady();
+        if (line.startsWith("signed ")) signed.add(line.slice("signed ".length));
+      },
+    );
     await ready;
 
     const acked: { runId: string; sampleLabel: string }[] = [];
@@ -139,14 +192,18 @@ describe("a SIGKILL in the middle of a burst of writes", () => {
     const worker = async () => {
       while (!killed && sent < BURST) {
         const i = sent++;
-        const write = { runId: resultRuns[i % RESULT_RUNS], sampleLabel: `B-${String(i).padStart(3, "0")}` };
+        const write = {
+          runId: resultRuns[i % RESULT_RUNS],
+          sampleLabel: `B-${String(i).padStart(3, "0")}`,
+        };
         inFlight++;
         try {
           const res = await postResult(write.runId, write.sampleLabel);
           // The status line is the acknowledgement: the handler answers only after its transaction committed.
           if (res.status === 201) acked.push(write);
           else refused.push(res.status);
-          if (acked.length >= KILL_AFTER_ACKS && signed.size >= KILL_AFTER_SIGNATURES && !killed) kill();
+          if (acked.length >= KILL_AFTER_ACKS && signed.size >= KILL_AFTER_SIGNATURES && !killed)
+            kill();
           await res.body?.cancel();
         } catch {
           // the connection died with the server: not acknowledged
@@ -162,7 +219,10 @@ describe("a SIGKILL in the middle of a burst of writes", () => {
 
     expect(killed, "the burst ended before the kill").toBe(true);
     expect(refused, "no write was refused before the kill").toEqual([]);
-    expect(inFlightAtKill, "writes were still in flight when the server was killed").toBeGreaterThan(0);
+    expect(
+      inFlightAtKill,
+      "writes were still in flight when the server was killed",
+    ).toBeGreaterThan(0);
     expect(signer.output(), "the signer was signing until the kill").not.toMatch(/Error/);
 
     server = startNextServer(port, serverEnv());
@@ -170,25 +230,61 @@ describe("a SIGKILL in the middle of a burst of writes", () => {
 
     const { db, client } = openDatabase(databaseUrl);
     try {
-      expect((await client.execute("PRAGMA integrity_check")).rows.map((r) => r.integrity_check)).toEqual(["ok"]);
+      expect(
+        (await client.execute("PRAGMA integrity_check")).rows.map((r) => r.integrity_check),
+      ).toEqual(["ok"]);
       const chain = await verifyAuditChain(db);
       expect(chain).toMatchObject({ ok: true });
 
       // Every acknowledged result is there, and every stored result has exactly its audit event (all or nothing).
-      const rows = await db.select().from(testSamples).where(inArray(testSamples.runId, resultRuns));
+      const rows = await db
+        .select()
+        .from(testSamples)
+        .where(inArray(testSamples.runId, resultRuns));
       const stored = new Set(rows.map((r) => `${r.runId}/${r.sampleLabel}`));
-      expect(acked.filter((w) => !stored.has(`${w.runId}/${w.sampleLabel}`)), "acknowledged results missing after the restart").toEqual([]);
-      const added = await db.select().from(auditEvents).where(and(eq(auditEvents.action, "test_run.sample_added"), inArray(auditEvents.recordId, resultRuns)));
-      expect(added.map((e) => JSON.parse(e.newValue!).sampleId).sort()).toEqual(rows.map((r) => r.id).sort());
+      expect(
+        acked.filter((w) => !stored.has(`${w.runId}/${w.sampleLabel}`)),
+        "acknowledged results missing after the restart",
+      ).toEqual([]);
+      const added = await db
+        .select()
+        .from(auditEvents)
+        .where(
+          and(
+            eq(auditEvents.action, "test_run.sample_added"),
+            inArray(auditEvents.recordId, resultRuns),
+          ),
+        );
+      expect(added.map((e) => JSON.parse(e.newValue!).sampleId).sort()).toEqual(
+        rows.map((r) => r.id).sort(),
+      );
 
       // Every acknowledged signature is there; a run is performed exactly when it carries its signature and its event.
-      const runs = await db.select({ id: testRuns.id, status: testRuns.status }).from(testRuns).where(eq(testRuns.lab, SIGNER_LAB));
+      const runs = await db
+        .select({ id: testRuns.id, status: testRuns.status })
+        .from(testRuns)
+        .where(eq(testRuns.lab, SIGNER_LAB));
       const signRuns = runs.map((r) => r.id);
-      const sigs = await db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, signRuns)));
+      const sigs = await db
+        .select()
+        .from(signatures)
+        .where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, signRuns)));
       const signedRuns = new Set(sigs.map((s) => s.recordId));
-      expect(ackedSignatures.filter((id) => !signedRuns.has(id)), "acknowledged signatures missing after the restart").toEqual([]);
-      for (const run of runs) expect(run.status, run.id).toBe(signedRuns.has(run.id) ? "performed" : "open");
-      const performed = await db.select().from(auditEvents).where(and(eq(auditEvents.action, "test_run.performed"), inArray(auditEvents.recordId, signRuns)));
+      expect(
+        ackedSignatures.filter((id) => !signedRuns.has(id)),
+        "acknowledged signatures missing after the restart",
+      ).toEqual([]);
+      for (const run of runs)
+        expect(run.status, run.id).toBe(signedRuns.has(run.id) ? "performed" : "open");
+      const performed = await db
+        .select()
+        .from(auditEvents)
+        .where(
+          and(
+            eq(auditEvents.action, "test_run.performed"),
+            inArray(auditEvents.recordId, signRuns),
+          ),
+        );
       expect(new Set(performed.map((e) => e.recordId))).toEqual(signedRuns);
 
       // The restarted server takes new writes on the recovered files.

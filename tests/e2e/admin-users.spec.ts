@@ -15,7 +15,10 @@ test("bad input shows each error beside its field and keeps what was typed", asy
   await expect(page.getByLabel("Job title (optional)")).toHaveValue("Night-shift lead");
 });
 
-test("an admin creates a user who must choose a password at first sign-in", async ({ page, browser }) => {
+test("an admin creates a user who must choose a password at first sign-in", async ({
+  page,
+  browser,
+}) => {
   await signInAs(page, "admin");
   await page.goto("/admin/users/new");
   await page.getByLabel("Full name").fill("Oskar Lindqvist");
@@ -44,7 +47,9 @@ test("an admin creates a user who must choose a password at first sign-in", asyn
   await other.getByLabel("New password again").fill("basket rinse conductivity");
   await other.getByRole("button", { name: "Change password" }).click();
   await expect(other).toHaveURL(/\/queue/);
-  await expect(other.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Evidence" })).toBeVisible();
+  await expect(
+    other.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Evidence" }),
+  ).toBeVisible();
   await other.close();
 });
 
@@ -58,12 +63,18 @@ test("an admin sends a test e-mail and reads it in the demo mailbox", async ({ p
   // Delivery happens after the response; the page shows it once it has arrived and been marked sent.
   await expect(async () => {
     await page.reload();
-    await expect(page.getByRole("region", { name: "Demo mailbox" }).getByText(`to ${to}`)).toBeVisible({ timeout: 1000 });
-    await expect(page.getByRole("row", { name: new RegExp(to) }).getByRole("cell", { name: "Sent" })).toBeVisible({ timeout: 1000 });
+    await expect(
+      page.getByRole("region", { name: "Demo mailbox" }).getByText(`to ${to}`),
+    ).toBeVisible({ timeout: 1000 });
+    await expect(
+      page.getByRole("row", { name: new RegExp(to) }).getByRole("cell", { name: "Sent" }),
+    ).toBeVisible({ timeout: 1000 });
   }).toPass({ timeout: 20_000 });
 });
 
-test("Create user clears the form once the user exists, and Reactivate does not carry the deactivation's reason", async ({ page }) => {
+test("Create user clears the form once the user exists, and Reactivate does not carry the deactivation's reason", async ({
+  page,
+}) => {
   const email = `ines.varga-${Date.now()}@fennmoor.example`;
   await signInAs(page, "admin");
   await page.goto("/admin/users/new");

@@ -1,10 +1,15 @@
 import { readFileSync } from "node:fs";
 import { expect, signInAs, test } from "./fixtures";
 
-test("an auditor filters the audit trail, verifies its integrity and exports it", async ({ page }) => {
+test("an auditor filters the audit trail, verifies its integrity and exports it", async ({
+  page,
+}) => {
   await signInAs(page, "auditor");
   await page.getByRole("link", { name: "Trace" }).click();
-  await page.getByRole("navigation", { name: "Trace" }).getByRole("link", { name: "Audit trail" }).click();
+  await page
+    .getByRole("navigation", { name: "Trace" })
+    .getByRole("link", { name: "Audit trail" })
+    .click();
   await expect(page.getByRole("heading", { name: "Audit trail" })).toBeVisible();
 
   // The first page of events has loaded, so the browser is hydrated and filtering runs in the page.
@@ -28,15 +33,25 @@ test("an auditor filters the audit trail, verifies its integrity and exports it"
   await page.getByRole("link", { name: "CSV" }).click();
   const file = await (await download).path();
   const csv = readFileSync(file, "utf8");
-  expect(csv.split("\r\n")[0]).toBe("seq,at_utc,actor,action,record_type,record_id,old_value,new_value,reason,prev_hash,hash");
+  expect(csv.split("\r\n")[0]).toBe(
+    "seq,at_utc,actor,action,record_type,record_id,old_value,new_value,reason,prev_hash,hash",
+  );
   expect(csv.match(/part_family\.created/g)).toHaveLength(3);
 });
 
-test("an engineer sees no audit-trail tab and is refused the page and its data", async ({ page }) => {
+test("an engineer sees no audit-trail tab and is refused the page and its data", async ({
+  page,
+}) => {
   await signInAs(page, "engineer");
   await page.goto("/trace");
-  await expect(page.getByRole("navigation", { name: "Trace" }).getByRole("link", { name: "Parameter history" })).toBeVisible();
-  await expect(page.getByRole("navigation", { name: "Trace" }).getByRole("link", { name: "Audit trail" })).toHaveCount(0);
+  await expect(
+    page
+      .getByRole("navigation", { name: "Trace" })
+      .getByRole("link", { name: "Parameter history" }),
+  ).toBeVisible();
+  await expect(
+    page.getByRole("navigation", { name: "Trace" }).getByRole("link", { name: "Audit trail" }),
+  ).toHaveCount(0);
   expect((await page.goto("/trace/audit"))?.status()).toBe(403);
   const api = await page.request.get("/api/audit-events");
   expect(api.status()).toBe(403);

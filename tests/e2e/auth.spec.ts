@@ -1,12 +1,64 @@
 import { DEMO, expect, signIn, signInAs, test, type DemoRole } from "./fixtures";
 
 const NAV: Record<DemoRole, string[]> = {
-  admin: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute", "Admin"],
-  engineer: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
-  reviewer: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
-  approver: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
-  technician: ["My queue", "Cleaning systems", "Parts & specifications", "Documents", "Evidence", "How we compute"],
-  auditor: ["Cleaning systems", "Parts & specifications", "Documents", "Changes", "Evidence", "Trace", "How we compute"],
+  admin: [
+    "My queue",
+    "Cleaning systems",
+    "Parts & specifications",
+    "Documents",
+    "Changes",
+    "Evidence",
+    "Trace",
+    "How we compute",
+    "Admin",
+  ],
+  engineer: [
+    "My queue",
+    "Cleaning systems",
+    "Parts & specifications",
+    "Documents",
+    "Changes",
+    "Evidence",
+    "Trace",
+    "How we compute",
+  ],
+  reviewer: [
+    "My queue",
+    "Cleaning systems",
+    "Parts & specifications",
+    "Documents",
+    "Changes",
+    "Evidence",
+    "Trace",
+    "How we compute",
+  ],
+  approver: [
+    "My queue",
+    "Cleaning systems",
+    "Parts & specifications",
+    "Documents",
+    "Changes",
+    "Evidence",
+    "Trace",
+    "How we compute",
+  ],
+  technician: [
+    "My queue",
+    "Cleaning systems",
+    "Parts & specifications",
+    "Documents",
+    "Evidence",
+    "How we compute",
+  ],
+  auditor: [
+    "Cleaning systems",
+    "Parts & specifications",
+    "Documents",
+    "Changes",
+    "Evidence",
+    "Trace",
+    "How we compute",
+  ],
 };
 
 for (const role of Object.keys(DEMO) as DemoRole[]) {
@@ -55,7 +107,9 @@ test("an auditor who opens an admin URL is refused by the server", async ({ page
   await signInAs(page, "auditor");
   const response = await page.goto("/admin");
   expect(response?.status()).toBe(403);
-  await expect(page.getByRole("heading", { name: "Your role does not open this page" })).toBeVisible();
+  await expect(
+    page.getByRole("heading", { name: "Your role does not open this page" }),
+  ).toBeVisible();
   const create = await page.goto("/admin/users/new");
   expect(create?.status()).toBe(403);
 });

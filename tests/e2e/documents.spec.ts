@@ -17,10 +17,15 @@ async function createFromTemplate(page: Page, title: string) {
   await page.getByRole("link", { name: "New document" }).click();
   await page.getByLabel("Kind of document").selectOption({ label: "PQ protocol" });
   await page.getByLabel("Title").fill(title);
-  await page.getByLabel("Cleaning system").selectOption({ label: "AW-3 — Three-tank aqueous washer" });
+  await page
+    .getByLabel("Cleaning system")
+    .selectOption({ label: "AW-3 — Three-tank aqueous washer" });
   await page.getByLabel("Part family").selectOption({ label: "PF-VB-210 — Valve body VB-210" });
   // The change-control spec may have made a later valve-body version effective meanwhile: take whichever is in force.
-  const inForce = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-AW3-VB version \d+ \(effective\) — Valve body, ultrasonic$/ }).textContent();
+  const inForce = await page
+    .getByLabel("Recipe version")
+    .locator("option", { hasText: /^R-AW3-VB version \d+ \(effective\) — Valve body, ultrasonic$/ })
+    .textContent();
   await page.getByLabel("Recipe version").selectOption({ label: inForce! });
   await page.getByRole("button", { name: "Create draft from template" }).click();
   await expect(page).toHaveURL(/\/documents\/[0-9a-f-]+\/edit/);
@@ -30,7 +35,10 @@ async function createFromTemplate(page: Page, title: string) {
 }
 
 async function downloadPdfText(page: Page) {
-  const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Download PDF" }).click()]);
+  const [download] = await Promise.all([
+    page.waitForEvent("download"),
+    page.getByRole("link", { name: "Download PDF" }).click(),
+  ]);
   const file = join(mkdtempSync(join(tmpdir(), "washproof-pdf-")), download.suggestedFilename());
   await download.saveAs(file);
   return execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
@@ -44,7 +52,10 @@ async function signInDialog(page: Page, button: string, password: string) {
   return dialog;
 }
 
-test("a PQ protocol goes from template to effective with e-mailed, signed steps and a signed PDF", async ({ page, browser }) => {
+test("a PQ protocol goes from template to effective with e-mailed, signed steps and a signed PDF", async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(240_000);
   await signInAs(page, "engineer");
   const editor = await createFromTemplate(page, "PQ of the valve-body recipe on AW-3");
@@ -52,12 +63,16 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
   await editor.getByText("Sample plan", { exact: true }).click();
   await page.keyboard.press("End");
   await page.keyboard.press("Enter");
-  await page.keyboard.type("Worst case: centre of the lowest basket layer. <script>alert('x')</script>");
+  await page.keyboard.type(
+    "Worst case: centre of the lowest basket layer. <script>alert('x')</script>",
+  );
   await expect(page.getByRole("status").filter({ hasText: "All changes saved" })).toBeVisible();
   await page.getByRole("link", { name: "Back to the document" }).click();
 
   const content = page.getByRole("article", { name: /PQ-AW3-0001 version 1/ });
-  await expect(content).toContainText("Worst case: centre of the lowest basket layer. <script>alert('x')</script>");
+  await expect(content).toContainText(
+    "Worst case: centre of the lowest basket layer. <script>alert('x')</script>",
+  );
   await expect(content.locator("script")).toHaveCount(0);
 
   await page.getByRole("button", { name: "Submit for review" }).click();
@@ -75,7 +90,9 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
   let link = "";
   await expect(async () => {
     await admin.goto("/admin/email");
-    const message = admin.getByRole("region", { name: "Demo mailbox" }).locator("details", { hasText: "Review requested: PQ-AW3-0001" });
+    const message = admin
+      .getByRole("region", { name: "Demo mailbox" })
+      .locator("details", { hasText: "Review requested: PQ-AW3-0001" });
     await expect(message).toContainText(DEMO.reviewer.email, { timeout: 1000 });
     await message.locator("summary").click();
     link = (await message.locator("pre").textContent())!.match(/https?:\/\/\S+/)![0];
@@ -84,10 +101,14 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
   const reviewer = await as(browser, "reviewer");
   await reviewer.goto(new URL(link).pathname + new URL(link).search);
   const dialog = await signInDialog(reviewer, "Sign as reviewed", "not the password");
-  await expect(dialog.getByRole("alert")).toContainText("The password is not correct. Nothing was signed.");
+  await expect(dialog.getByRole("alert")).toContainText(
+    "The password is not correct. Nothing was signed.",
+  );
   await dialog.getByLabel("Your password").fill(DEMO_PASSWORD);
   await dialog.getByRole("button", { name: "Sign", exact: true }).click();
-  await expect(reviewer.getByRole("region", { name: "Routing" }).getByRole("row", { name: /Tomas Brandt/ })).toContainText("Reviewed");
+  await expect(
+    reviewer.getByRole("region", { name: "Routing" }).getByRole("row", { name: /Tomas Brandt/ }),
+  ).toContainText("Reviewed");
 
   const approver = await as(browser, "approver");
   await approver.goto("/queue");
@@ -100,7 +121,9 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
     [DEMO.reviewer.name, "Reviewed"],
     [DEMO.approver.name, "Approved"],
   ]) {
-    await expect(signatures.getByRole("row", { name: new RegExp(`${meaning} ${name}`) })).toContainText("Valid");
+    await expect(
+      signatures.getByRole("row", { name: new RegExp(`${meaning} ${name}`) }),
+    ).toContainText("Valid");
   }
 
   const text = await downloadPdfText(approver);
@@ -110,7 +133,9 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
     [DEMO.reviewer.name, "Reviewed"],
     [DEMO.approver.name, "Approved"],
   ]) {
-    expect(text).toMatch(new RegExp(`${name}\\s+${meaning}\\s+\\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2}:\\d{2} UTC`));
+    expect(text).toMatch(
+      new RegExp(`${name}\\s+${meaning}\\s+\\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2}:\\d{2} UTC`),
+    );
   }
   expect(text).toMatch(/Content hash \(SHA-256\): [0-9a-f]{64}/);
   expect(text).toMatch(/Page 1 of \d+/);
@@ -119,7 +144,10 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
   await Promise.all([admin, reviewer, approver].map((p) => p.context().close()));
 });
 
-test("a stale save is refused with the text kept, an oversized draft is refused, and a draft prints as uncontrolled", async ({ page, browser }) => {
+test("a stale save is refused with the text kept, an oversized draft is refused, and a draft prints as uncontrolled", async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(240_000);
   await signInAs(page, "engineer");
   const editor = await createFromTemplate(page, "PQ for the concurrency check");
@@ -139,18 +167,25 @@ test("a stale save is refused with the text kept, an oversized draft is refused,
   await otherEditor.getByText("Purpose", { exact: true }).click();
   await other.keyboard.press("End");
   await other.keyboard.type(" (second tab)");
-  await expect(other.getByRole("alert").filter({ hasText: "Someone saved" })).toContainText("Someone saved this draft after you opened it. Your text is kept here");
+  await expect(other.getByRole("alert").filter({ hasText: "Someone saved" })).toContainText(
+    "Someone saved this draft after you opened it. Your text is kept here",
+  );
   await expect(otherEditor).toContainText("Purpose (second tab)");
 
   // An oversized draft: the server refuses it and the text stays in the editor.
   await editor.getByText("Scope", { exact: true }).click();
   await page.keyboard.press("End");
   await page.keyboard.insertText(` ${"rinse ".repeat(380_000)}END-OF-LONG-TEXT`);
-  await expect(page.getByRole("alert").filter({ hasText: "MB" })).toContainText("the limit is 2 MB. Nothing was saved and your text is still in the editor", { timeout: 90_000 });
+  await expect(page.getByRole("alert").filter({ hasText: "MB" })).toContainText(
+    "the limit is 2 MB. Nothing was saved and your text is still in the editor",
+    { timeout: 90_000 },
+  );
   await expect(editor).toContainText("END-OF-LONG-TEXT");
 
   await other.reload();
-  await expect(other.getByRole("textbox", { name: "Document text" })).toContainText("Purpose (first tab)");
+  await expect(other.getByRole("textbox", { name: "Document text" })).toContainText(
+    "Purpose (first tab)",
+  );
   await other.getByRole("link", { name: "Back to the document" }).click();
   const text = await downloadPdfText(other);
   expect(text).toContain("UNCONTROLLED COPY");

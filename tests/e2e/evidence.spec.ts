@@ -1,20 +1,30 @@
 import { DEMO_PASSWORD, expect, signInAs, test } from "./fixtures";
 
-const PDF = Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n");
-const PNG = Buffer.from("89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f6fd3c0000000049454e44ae426082", "hex");
+const PDF = Buffer.from(
+  "%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n",
+);
+const PNG = Buffer.from(
+  "89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f6fd3c0000000049454e44ae426082",
+  "hex",
+);
 
 test.describe.configure({ mode: "serial", timeout: 180_000 });
 
 let runUrl = "";
 let runNumber = "";
 
-test("a technician records a particle test with its extraction series, uploads a PDF and an image, and signs it performed", async ({ page }) => {
+test("a technician records a particle test with its extraction series, uploads a PDF and an image, and signs it performed", async ({
+  page,
+}) => {
   await signInAs(page, "technician");
   await page.goto("/evidence");
   await page.getByRole("link", { name: "New test run" }).click();
   await page.getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
   // The change-control spec may have made a later valve-body version effective meanwhile: take whichever is in force.
-  const inForce = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-AW3-VB v\d+ \(effective\)$/ }).textContent();
+  const inForce = await page
+    .getByLabel("Recipe version")
+    .locator("option", { hasText: /^R-AW3-VB v\d+ \(effective\)$/ })
+    .textContent();
   await page.getByLabel("Recipe version").selectOption({ label: inForce! });
   await page.getByLabel("Test type").selectOption({ label: "Particle cleanliness" });
   await page.getByLabel("Analysing lab").fill("Larchfield cleanliness lab");
@@ -45,13 +55,19 @@ test("a technician records a particle test with its extraction series, uploads a
   await page.getByLabel("Blank: class B (5–15 µm), particles").fill("3");
   await page.getByRole("button", { name: "Save extraction and blank" }).click();
   await expect(page.getByText("Extraction series and blank saved.")).toBeVisible();
-  await expect(page.getByText("Decay value ≤ 10 % at extraction 3: extraction qualified")).toBeVisible();
+  await expect(
+    page.getByText("Decay value ≤ 10 % at extraction 3: extraction qualified"),
+  ).toBeVisible();
 
   const upload = page.getByRole("form", { name: "Upload evidence file" });
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "VB210 lab report.pdf", mimeType: "application/pdf", buffer: PDF });
+  await upload
+    .getByLabel("Evidence file")
+    .setInputFiles({ name: "VB210 lab report.pdf", mimeType: "application/pdf", buffer: PDF });
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("status")).toContainText("VB210 lab report.pdf uploaded");
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "membrane-1.png", mimeType: "image/png", buffer: PNG });
+  await upload
+    .getByLabel("Evidence file")
+    .setInputFiles({ name: "membrane-1.png", mimeType: "image/png", buffer: PNG });
   await upload.getByLabel("Kind").selectOption({ label: "Membrane image" });
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("status")).toContainText("membrane-1.png uploaded");
@@ -74,41 +90,63 @@ test("bad files get a clear error and nothing is stored", async ({ page }) => {
   await page.goto("/evidence/runs/new");
   await page.getByLabel("Part family").selectOption({ label: "PF-SF-12 · Straight fitting SF-12" });
   // A run opens only on a qualified combination: the fitting's effective recipe.
-  const fittingRecipe = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-SC1-SF v\d+ \(effective\)$/ }).textContent();
+  const fittingRecipe = await page
+    .getByLabel("Recipe version")
+    .locator("option", { hasText: /^R-SC1-SF v\d+ \(effective\)$/ })
+    .textContent();
   await page.getByLabel("Recipe version").selectOption({ label: fittingRecipe! });
   await page.getByLabel("Test type").selectOption({ label: "Visual" });
   await page.getByLabel("Analysing lab").fill("Line 3 inspection");
   await page.getByRole("button", { name: "Open test run" }).click();
   const upload = page.getByRole("form", { name: "Upload evidence file" });
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "report.pdf", mimeType: "application/pdf", buffer: PNG });
+  await upload
+    .getByLabel("Evidence file")
+    .setInputFiles({ name: "report.pdf", mimeType: "application/pdf", buffer: PNG });
   await upload.getByRole("button", { name: "Upload" }).click();
-  await expect(upload.getByRole("alert")).toContainText("named as a PDF, but its contents are a PNG image");
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "counts.csv", mimeType: "text/csv", buffer: Buffer.from("sample,E\n=HYPERLINK(\"x\"),1\n") });
+  await expect(upload.getByRole("alert")).toContainText(
+    "named as a PDF, but its contents are a PNG image",
+  );
+  await upload.getByLabel("Evidence file").setInputFiles({
+    name: "counts.csv",
+    mimeType: "text/csv",
+    buffer: Buffer.from('sample,E\n=HYPERLINK("x"),1\n'),
+  });
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("alert")).toContainText("run as formulas");
   // Over the documented limit (UPLOAD_MAX_MB, 25 MB by default): told the limit, not a parsing error.
   const padded = (mb: number) => Buffer.concat([PDF, Buffer.alloc(mb * 1024 * 1024, 0x20)]);
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "scan-26mb.pdf", mimeType: "application/pdf", buffer: padded(26) });
+  await upload
+    .getByLabel("Evidence file")
+    .setInputFiles({ name: "scan-26mb.pdf", mimeType: "application/pdf", buffer: padded(26) });
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("alert")).toContainText(/limit (of|is) 25\.0 MB/);
   await expect(page.getByText("No files attached.")).toBeVisible();
   // Under the limit but over the proxy's default 10 MB buffer: stored whole.
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "scan-15mb.pdf", mimeType: "application/pdf", buffer: padded(15) });
+  await upload
+    .getByLabel("Evidence file")
+    .setInputFiles({ name: "scan-15mb.pdf", mimeType: "application/pdf", buffer: padded(15) });
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("status")).toContainText("scan-15mb.pdf uploaded");
 });
 
-test("a file counts once per run, the Sample field clears after an upload, and a file attached in error is detached with a reason", async ({ page }) => {
+test("a file counts once per run, the Sample field clears after an upload, and a file attached in error is detached with a reason", async ({
+  page,
+}) => {
   await signInAs(page, "technician");
   await page.goto("/evidence/runs/new");
   await page.getByLabel("Part family").selectOption({ label: "PF-SF-12 · Straight fitting SF-12" });
-  const fittingRecipe = await page.getByLabel("Recipe version").locator("option", { hasText: /^R-SC1-SF v\d+ \(effective\)$/ }).textContent();
+  const fittingRecipe = await page
+    .getByLabel("Recipe version")
+    .locator("option", { hasText: /^R-SC1-SF v\d+ \(effective\)$/ })
+    .textContent();
   await page.getByLabel("Recipe version").selectOption({ label: fittingRecipe! });
   await page.getByLabel("Test type").selectOption({ label: "Visual" });
   await page.getByLabel("Analysing lab").fill("Line 3 inspection");
   await page.getByRole("button", { name: "Open test run" }).click();
   const upload = page.getByRole("form", { name: "Upload evidence file" });
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "SF12 report.pdf", mimeType: "application/pdf", buffer: PDF });
+  await upload
+    .getByLabel("Evidence file")
+    .setInputFiles({ name: "SF12 report.pdf", mimeType: "application/pdf", buffer: PDF });
   await upload.getByLabel("Sample (optional)").fill("SF12-S1");
   await upload.getByRole("button", { name: "Upload" }).click();
   await expect(upload.getByRole("status")).toContainText("SF12 report.pdf uploaded");
@@ -116,30 +154,40 @@ test("a file counts once per run, the Sample field clears after an upload, and a
   await expect(upload.getByLabel("Sample (optional)")).toHaveValue("");
 
   // The same bytes under another name would count twice.
-  await upload.getByLabel("Evidence file").setInputFiles({ name: "SF12 report (copy).pdf", mimeType: "application/pdf", buffer: PDF });
+  await upload
+    .getByLabel("Evidence file")
+    .setInputFiles({ name: "SF12 report (copy).pdf", mimeType: "application/pdf", buffer: PDF });
   await upload.getByRole("button", { name: "Upload" }).click();
-  await expect(upload.getByRole("alert")).toContainText('already attached');
+  await expect(upload.getByRole("alert")).toContainText("already attached");
   await expect(upload.getByRole("alert")).toContainText("counts once");
   await expect(page.getByRole("link", { name: /^SF12 report/ })).toHaveCount(1);
 
   await page.getByText("Detach", { exact: true }).click();
   const detach = page.getByRole("form", { name: "Detach SF12 report.pdf" });
-  await detach.getByLabel("Reason for detaching SF12 report.pdf").fill("Report of another line, attached in error");
+  await detach
+    .getByLabel("Reason for detaching SF12 report.pdf")
+    .fill("Report of another line, attached in error");
   await detach.getByRole("button", { name: "Detach file" }).click();
   await expect(page.getByText("No files attached.")).toBeVisible();
 });
 
-test("an engineer verifies the run from My queue; the outcome and code appear and the run is locked", async ({ page }) => {
+test("an engineer verifies the run from My queue; the outcome and code appear and the run is locked", async ({
+  page,
+}) => {
   test.skip(runUrl === "", "needs the run recorded above");
   await signInAs(page, "engineer");
   await page.goto("/queue");
-  await page.getByRole("link", { name: new RegExp(`^${runNumber} · Particle cleanliness`) }).click();
+  await page
+    .getByRole("link", { name: new RegExp(`^${runNumber} · Particle cleanliness`) })
+    .click();
   await expect(page).toHaveURL(runUrl);
   await page.getByRole("button", { name: "Sign as verified" }).click();
   const dialog = page.getByRole("dialog");
   await dialog.getByLabel("Your password").fill(DEMO_PASSWORD);
   await dialog.getByRole("button", { name: "Sign", exact: true }).click();
-  await expect(page.getByRole("heading", { level: 1 }).locator("..")).toContainText("Verified (locked)");
+  await expect(page.getByRole("heading", { level: 1 }).locator("..")).toContainText(
+    "Verified (locked)",
+  );
   await expect(page.getByRole("heading", { name: /Computed outcome: Pass/ })).toBeVisible();
   await expect(page.getByTestId("run-ccc")).toContainText("A(");
   await expect(page.getByRole("table", { name: "Signatures" })).toContainText("Ines Varga");
@@ -166,22 +214,35 @@ test("the evidence table filters on the server and the trend chart renders", asy
   await expect(table.getByText("Pass")).toHaveCount(0);
 
   await page.getByRole("link", { name: "Trends" }).click();
-  await page.getByRole("form", { name: "Choose part family and recipe version" }).getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
-  await page.getByRole("form", { name: "Choose part family and recipe version" }).getByRole("button", { name: "Show" }).click();
+  await page
+    .getByRole("form", { name: "Choose part family and recipe version" })
+    .getByLabel("Part family")
+    .selectOption({ label: "PF-VB-210 · Valve body VB-210" });
+  await page
+    .getByRole("form", { name: "Choose part family and recipe version" })
+    .getByRole("button", { name: "Show" })
+    .click();
   await expect(page).toHaveURL(/family=/);
   const chart = page.getByRole("figure", { name: "Particle trend chart" });
-  await expect(chart).toContainText(/\d+ run\(s\)\. Dashed line: the specification limit/, { timeout: 30_000 });
+  await expect(chart).toContainText(/\d+ run\(s\)\. Dashed line: the specification limit/, {
+    timeout: 30_000,
+  });
   await expect(chart.locator("path.recharts-line-curve")).toHaveCount(1, { timeout: 30_000 });
   await expect(chart.locator(".recharts-line-dot")).not.toHaveCount(0);
   const control = page.getByRole("figure", { name: /Control chart: Detergent concentration/ });
   await expect(control).toContainText("Out of control:");
 });
 
-test("the bath log shows the isolation caution, records a reading and raises overdue maintenance", async ({ page }) => {
+test("the bath log shows the isolation caution, records a reading and raises overdue maintenance", async ({
+  page,
+}) => {
   await signInAs(page, "technician");
   await page.goto("/queue");
   await expect(page.getByRole("cell", { name: "Filter change" })).toBeVisible();
-  await page.getByRole("link", { name: /AW-3 · Tank 1/ }).first().click();
+  await page
+    .getByRole("link", { name: /AW-3 · Tank 1/ })
+    .first()
+    .click();
   await expect(page.getByRole("note").filter({ hasText: "isolate the machine" })).toBeVisible();
   const form = page.getByRole("form", { name: "Record in the bath log" });
   await form.getByLabel("Detergent concentration (%)").fill("3.05");

@@ -7,7 +7,18 @@ import type { Page } from "@playwright/test";
 import { expect, signInAs, test } from "./fixtures";
 import { FORMULA_REASON, HOSTILE, HOSTILE_SHORT } from "./support/hostile";
 
-type Seeded = { documentId: string; returnedId: string; changeId: string; runId: string; systemId: string; stageId: string; dryerId: string; hostileUserId: string; fileId: string; token: string };
+type Seeded = {
+  documentId: string;
+  returnedId: string;
+  changeId: string;
+  runId: string;
+  systemId: string;
+  stageId: string;
+  dryerId: string;
+  hostileUserId: string;
+  fileId: string;
+  token: string;
+};
 let seeded: Seeded;
 const API_LABEL = `API ${HOSTILE_SHORT}`.slice(0, 60);
 
@@ -21,16 +32,31 @@ test.beforeAll(async ({ playwright, baseURL }) => {
     seeded = JSON.parse(readFileSync(cache, "utf8"));
     return;
   }
-  const out = execFileSync("npx", ["tsx", "--conditions=react-server", "tests/e2e/support/seed-hostile.ts"], {
-    env: { ...process.env, NODE_ENV: "production", DATABASE_URL: `file:${data}/washproof.db`, UPLOAD_DIR: `${data}/uploads`, APP_URL: baseURL },
-    encoding: "utf8",
-  });
+  const out = execFileSync(
+    "npx",
+    ["tsx", "--conditions=react-server", "tests/e2e/support/seed-hostile.ts"],
+    {
+      env: {
+        ...process.env,
+        NODE_ENV: "production",
+        DATABASE_URL: `file:${data}/washproof.db`,
+        UPLOAD_DIR: `${data}/uploads`,
+        APP_URL: baseURL,
+      },
+      encoding: "utf8",
+    },
+  );
   seeded = JSON.parse(out.trim().split("\n").at(-1)!);
   // A lab result posted through the API with a hostile sample label.
   const api = await playwright.request.newContext({ baseURL });
   const res = await api.post(`/api/v1/test-runs/${seeded.runId}/samples`, {
     headers: { authorization: `Bearer ${seeded.token}` },
-    data: { sampleLabel: API_LABEL, worstCase: false, acceptable: "no", observation: `API ${HOSTILE}` },
+    data: {
+      sampleLabel: API_LABEL,
+      worstCase: false,
+      acceptable: "no",
+      observation: `API ${HOSTILE}`,
+    },
   });
   expect(res.status(), await res.text()).toBe(201);
   await api.dispose();
@@ -42,19 +68,34 @@ async function openInert(page: Page, path: string, shows: string[]) {
   const dialogs: string[] = [];
   const violations: string[] = [];
   page.on("dialog", (d) => (dialogs.push(d.message()), void d.dismiss()));
-  page.on("console", (m) => /Content Security Policy|Refused to (execute|load)/i.test(m.text()) && violations.push(m.text()));
+  page.on(
+    "console",
+    (m) =>
+      /Content Security Policy|Refused to (execute|load)/i.test(m.text()) &&
+      violations.push(m.text()),
+  );
   const response = await page.goto(path);
   expect(response?.status(), path).toBe(200);
   await page.waitForLoadState("networkidle");
-  for (const text of shows) await expect(page.locator("main"), `${path} shows "${text}" as text`).toContainText(text);
+  for (const text of shows)
+    await expect(page.locator("main"), `${path} shows "${text}" as text`).toContainText(text);
   const injected = await page.evaluate(() => {
     const found: string[] = [];
     for (const el of document.querySelectorAll("*")) {
       for (const a of el.attributes) {
         if (a.name.startsWith("on")) found.push(`${el.tagName} ${a.name}`);
-        if (/^(href|src|action|formaction|xlink:href)$/.test(a.name) && /^\s*(javascript|data:text|vbscript):?/i.test(a.value)) found.push(`${el.tagName} ${a.name}=${a.value}`);
+        if (
+          /^(href|src|action|formaction|xlink:href)$/.test(a.name) &&
+          /^\s*(javascript|data:text|vbscript):?/i.test(a.value)
+        )
+          found.push(`${el.tagName} ${a.name}=${a.value}`);
       }
-      if (el.tagName === "SCRIPT" && !(el as HTMLScriptElement).nonce && !(el as HTMLScriptElement).src) found.push(`script without nonce: ${el.textContent?.slice(0, 60)}`);
+      if (
+        el.tagName === "SCRIPT" &&
+        !(el as HTMLScriptElement).nonce &&
+        !(el as HTMLScriptElement).src
+      )
+        found.push(`script without nonce: ${el.textContent?.slice(0, 60)}`);
     }
     return { found, xss: (window as unknown as { __xss?: unknown }).__xss };
   });
@@ -65,23 +106,44 @@ async function openInert(page: Page, path: string, shows: string[]) {
 }
 
 const TEXT = "<script>window.__xss=1</script>";
-const SHORT = 'onerror=window.__xss=1>';
+const SHORT = "onerror=window.__xss=1>";
 
-test("every screen an engineer opens shows stored hostile text as text and runs none of it", async ({ page }) => {
+test("every screen an engineer opens shows stored hostile text as text and runs none of it", async ({
+  page,
+}) => {
   await signInAs(page, "engineer");
   const s = seeded;
   await openInert(page, "/documents", ["Hostile procedure"]);
-  await openInert(page, `/documents/${s.documentId}`, [`Hostile procedure ${TEXT}`, `Body ${TEXT}`, "script link"]);
+  await openInert(page, `/documents/${s.documentId}`, [
+    `Hostile procedure ${TEXT}`,
+    `Body ${TEXT}`,
+    "script link",
+  ]);
   // The javascript: and data: links were dropped when saved; the broken-out https link stays one harmless href.
   await expect(page.getByRole("link", { name: "script link" })).toHaveCount(0);
   await expect(page.getByRole("link", { name: "data link" })).toHaveCount(0);
   await openInert(page, `/documents/${s.documentId}/edit`, []);
   await expect(page.locator(".ProseMirror")).toContainText(`Body ${TEXT}`);
-  await openInert(page, `/documents/${s.returnedId}`, [`Returned report ${TEXT}`, `Sent back ${TEXT}`]);
+  await openInert(page, `/documents/${s.returnedId}`, [
+    `Returned report ${TEXT}`,
+    `Sent back ${TEXT}`,
+  ]);
   await openInert(page, "/changes", ["Hostile change"]);
-  await openInert(page, `/changes/${s.changeId}`, [`Hostile change ${TEXT}`, `Narrative ${TEXT}`, `Notes ${TEXT}`, `Detergent ${HOSTILE_SHORT}`, "withdrawn"]);
+  await openInert(page, `/changes/${s.changeId}`, [
+    `Hostile change ${TEXT}`,
+    `Narrative ${TEXT}`,
+    `Notes ${TEXT}`,
+    `Detergent ${HOSTILE_SHORT}`,
+    "withdrawn",
+  ]);
   await openInert(page, "/evidence", [SHORT]);
-  await openInert(page, `/evidence/runs/${s.runId}`, [`Lab ${TEXT}`, `Seen ${TEXT}`, API_LABEL, `API ${TEXT}`, "@Hostile"]);
+  await openInert(page, `/evidence/runs/${s.runId}`, [
+    `Lab ${TEXT}`,
+    `Seen ${TEXT}`,
+    API_LABEL,
+    `API ${TEXT}`,
+    "@Hostile",
+  ]);
   await openInert(page, "/evidence/bath", []);
   await openInert(page, `/evidence/bath/${s.stageId}`, [`Notes ${TEXT}`]);
   await openInert(page, "/systems", [`Description ${TEXT}`]);
@@ -89,7 +151,10 @@ test("every screen an engineer opens shows stored hostile text as text and runs 
   await openInert(page, "/queue", []);
 });
 
-test("the administrator's and auditor's screens show hostile names and audit values as text", async ({ page, browser }) => {
+test("the administrator's and auditor's screens show hostile names and audit values as text", async ({
+  page,
+  browser,
+}) => {
   await signInAs(page, "admin");
   await openInert(page, "/admin", ["@Hostile"]);
   await openInert(page, `/admin/users/${seeded.hostileUserId}`, []);
@@ -123,29 +188,38 @@ test("the document PDF and the audit pack carry hostile text as plain text", asy
   expect(pdfText(await pack.body())).toContain("Hostile change <script>");
 });
 
-test("the audit-trail CSV neutralises every cell a spreadsheet would run, including one over several lines", async ({ page }) => {
+test("the audit-trail CSV neutralises every cell a spreadsheet would run, including one over several lines", async ({
+  page,
+}) => {
   await signInAs(page, "auditor");
   const res = await page.request.get("/api/audit-events/export");
   expect(res.status()).toBe(200);
   expect(res.headers()["content-type"]).toMatch(/^text\/csv/);
-  expect(res.headers()["content-disposition"]).toMatch(/^attachment; filename="washproof-audit-trail-/);
+  expect(res.headers()["content-disposition"]).toMatch(
+    /^attachment; filename="washproof-audit-trail-/,
+  );
   const rows = Papa.parse<string[]>(await res.text(), { skipEmptyLines: true }).data;
   // [practice] OWASP CSV injection: a cell starting with = + - @ tab or CR is prefixed with a quote.
-  for (const row of rows) for (const cell of row) expect(cell, JSON.stringify(row)).not.toMatch(/^[=+\-@\t\r]/);
+  for (const row of rows)
+    for (const cell of row) expect(cell, JSON.stringify(row)).not.toMatch(/^[=+\-@\t\r]/);
   const header = rows[0];
   const reason = rows.find((r) => r[header.indexOf("reason")].includes("evil.example"));
   expect(reason?.[header.indexOf("reason")]).toBe(`'${FORMULA_REASON}`);
   expect(rows.some((r) => r[header.indexOf("actor")] === `'@Hostile ${HOSTILE_SHORT}`)).toBe(true);
 });
 
-test("an evidence file downloads as an attachment that the browser never sniffs or renders", async ({ page }) => {
+test("an evidence file downloads as an attachment that the browser never sniffs or renders", async ({
+  page,
+}) => {
   await signInAs(page, "technician");
   const res = await page.request.get(`/api/evidence/files/${seeded.fileId}`);
   expect(res.status()).toBe(200);
   const headers = res.headers();
   expect(headers["content-type"]).toBe("application/pdf");
   expect(headers["x-content-type-options"]).toBe("nosniff");
-  expect(headers["content-disposition"]).toMatch(/^attachment; filename="[^"<>]*"; filename\*=UTF-8''/);
+  expect(headers["content-disposition"]).toMatch(
+    /^attachment; filename="[^"<>]*"; filename\*=UTF-8''/,
+  );
   expect(headers["content-disposition"]).not.toContain("<");
   // Opening the link downloads; it never becomes a page.
   const download = page.waitForEvent("download");

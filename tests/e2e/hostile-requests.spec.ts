@@ -11,12 +11,18 @@ async function expectNoLeak(res: APIResponse, what: string) {
   const body = await res.text();
   expect(body, what).not.toMatch(/\n\s+at [^\n]+[(:]\d+:\d+\)?/);
   expect(body, what).not.toMatch(/SQLITE|LibsqlError|drizzle/i);
-  expect(body, what).not.toMatch(/\bselect\s+[\w"*.,\s]+\s+from\b|\binsert into\b|\bwhere\s+"\w+"/i);
-  if (!/text\/html/.test(res.headers()["content-type"] ?? "")) expect(body, what).not.toMatch(/\b(Type|Range|Syntax|Libsql|Zod)?Error:/);
+  expect(body, what).not.toMatch(
+    /\bselect\s+[\w"*.,\s]+\s+from\b|\binsert into\b|\bwhere\s+"\w+"/i,
+  );
+  if (!/text\/html/.test(res.headers()["content-type"] ?? ""))
+    expect(body, what).not.toMatch(/\b(Type|Range|Syntax|Libsql|Zod)?Error:/);
 }
 
 test.describe("requests from another site", () => {
-  test("a server action posted with a foreign Origin is refused and the session stays; the same post from here works", async ({ page, context }) => {
+  test("a server action posted with a foreign Origin is refused and the session stays; the same post from here works", async ({
+    page,
+    context,
+  }) => {
     await signInAs(page, "engineer");
     const cookie = (await context.cookies()).find((c) => c.name === "washproof_session")!;
     let captured: { url: string; headers: Record<string, string>; body: string } | undefined;
@@ -33,10 +39,18 @@ test.describe("requests from another site", () => {
     await expect.poll(() => captured).toBeDefined();
     await page.unrouteAll();
     const { url, headers, body } = captured!;
-    const forged = await page.request.post(url, { headers: { ...headers, origin: EVIL }, data: body, maxRedirects: 0 });
+    const forged = await page.request.post(url, {
+      headers: { ...headers, origin: EVIL },
+      data: body,
+      maxRedirects: 0,
+    });
     expect(forged.status()).toBe(403);
     await expectNoLeak(forged, "forged action");
-    const noOrigin = await page.request.post(url, { headers: { ...headers, origin: "", "sec-fetch-site": "cross-site" }, data: body, maxRedirects: 0 });
+    const noOrigin = await page.request.post(url, {
+      headers: { ...headers, origin: "", "sec-fetch-site": "cross-site" },
+      data: body,
+      maxRedirects: 0,
+    });
     expect(noOrigin.status()).toBe(403);
     // Still signed in: the forged sign-out did nothing.
     await page.goto("/queue");
@@ -52,32 +66,62 @@ test.describe("requests from another site", () => {
     expect((await page.request.get("/api/queue")).status()).toBe(401);
   });
 
-  test("the cookie-authenticated upload and import handlers refuse a foreign Origin before they read the body", async ({ page, baseURL }) => {
+  test("the cookie-authenticated upload and import handlers refuse a foreign Origin before they read the body", async ({
+    page,
+    baseURL,
+  }) => {
     await signInAs(page, "technician");
-    const multipart = { file: { name: "report.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-1.4\n%%EOF\n") }, kind: "lab_report" };
-    for (const path of [`/api/evidence/runs/${UNKNOWN}/files`, `/api/evidence/runs/${UNKNOWN}/import`]) {
+    const multipart = {
+      file: {
+        name: "report.pdf",
+        mimeType: "application/pdf",
+        buffer: Buffer.from("%PDF-1.4\n%%EOF\n"),
+      },
+      kind: "lab_report",
+    };
+    for (const path of [
+      `/api/evidence/runs/${UNKNOWN}/files`,
+      `/api/evidence/runs/${UNKNOWN}/import`,
+    ]) {
       const forged = await page.request.post(path, { headers: { origin: EVIL }, multipart });
       expect(forged.status(), path).toBe(403);
       expect((await forged.json()).error).toMatch(/another site/);
-      const sameSite = await page.request.post(path, { headers: { origin: "http://127.0.0.1.evil.example" }, multipart });
+      const sameSite = await page.request.post(path, {
+        headers: { origin: "http://127.0.0.1.evil.example" },
+        multipart,
+      });
       expect(sameSite.status(), path).toBe(403);
       // From our own origin the handler answers on the merits (no such run, or not a CSV).
-      const own = await page.request.post(path, { headers: { origin: new URL(baseURL!).origin }, multipart });
+      const own = await page.request.post(path, {
+        headers: { origin: new URL(baseURL!).origin },
+        multipart,
+      });
       expect(own.status(), path).not.toBe(403);
       expect(own.status(), path).toBeLessThan(500);
     }
   });
 
-  test("a link on another site to the audit-trail export is refused and writes no export event; the same link from here downloads", async ({ page }) => {
+  test("a link on another site to the audit-trail export is refused and writes no export event; the same link from here downloads", async ({
+    page,
+  }) => {
     await signInAs(page, "auditor");
     const exportPath = "/api/audit-events/export?eventType=audit.exported";
-    const exportEvents = async () => (await (await page.request.get("/api/audit-events?eventType=audit.exported&limit=200")).json()).items.length as number;
+    const exportEvents = async () =>
+      (
+        await (
+          await page.request.get("/api/audit-events?eventType=audit.exported&limit=200")
+        ).json()
+      ).items.length as number;
     const before = await exportEvents();
-    const foreign = await page.request.get(exportPath, { headers: { "sec-fetch-site": "cross-site" } });
+    const foreign = await page.request.get(exportPath, {
+      headers: { "sec-fetch-site": "cross-site" },
+    });
     expect(foreign.status()).toBe(403);
     expect((await foreign.json()).error).toMatch(/another site/);
     expect(await exportEvents()).toBe(before);
-    const own = await page.request.get(exportPath, { headers: { "sec-fetch-site": "same-origin" } });
+    const own = await page.request.get(exportPath, {
+      headers: { "sec-fetch-site": "same-origin" },
+    });
     expect(own.status()).toBe(200);
     expect(await exportEvents()).toBe(before + 1);
   });
@@ -124,8 +168,13 @@ test.describe("no server insides in any answer", () => {
       "/trace?recipe=x&key=%27%20OR%201=1",
       "/trace/part-families?family=%27",
     ];
-    for (const path of gets) await expectNoLeak(await page.request.get(path, { maxRedirects: 0 }), path);
-    for (const path of ["/api/trace/parameters?system=not-a-uuid", `/api/trace/parameters?q=${"x".repeat(201)}`, "/api/trace/parameters?colour=red"]) {
+    for (const path of gets)
+      await expectNoLeak(await page.request.get(path, { maxRedirects: 0 }), path);
+    for (const path of [
+      "/api/trace/parameters?system=not-a-uuid",
+      `/api/trace/parameters?q=${"x".repeat(201)}`,
+      "/api/trace/parameters?colour=red",
+    ]) {
       const res = await page.request.get(path);
       expect(res.status(), path).toBe(400);
       expect((await res.json()).error, path).toBe("Some search values are not valid.");
@@ -136,23 +185,81 @@ test.describe("no server insides in any answer", () => {
     await signInAs(page, "technician");
     const posts: [string, Parameters<Page["request"]["post"]>[1]][] = [
       [`/api/evidence/runs/not-a-uuid/files`, { multipart: { kind: "lab_report" } }],
-      [`/api/evidence/runs/${UNKNOWN}/files`, { headers: { "content-type": "multipart/form-data; boundary=x" }, data: "--x\r\nbroken" }],
-      [`/api/evidence/runs/${UNKNOWN}/files`, { headers: { "content-type": "application/json" }, data: "{not json" }],
-      [`/api/evidence/runs/${UNKNOWN}/files`, { multipart: { file: { name: "a.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-") }, kind: "virus" } }],
-      [`/api/evidence/runs/${UNKNOWN}/files`, { multipart: { file: { name: "a.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-") }, kind: "lab_report" } }],
-      [`/api/evidence/runs/${UNKNOWN}/import`, { headers: { "content-type": "multipart/form-data; boundary=x" }, data: "--x\r\nbroken" }],
-      [`/api/evidence/runs/${UNKNOWN}/import`, { multipart: { file: { name: "c.csv", mimeType: "text/csv", buffer: Buffer.from("sample,B\nS1,1\n") }, mapping: "{not json" } }],
-      [`/api/evidence/runs/${UNKNOWN}/import`, { multipart: { file: { name: "c.csv", mimeType: "text/csv", buffer: Buffer.from("sample,B\nS1,1\n") } } }],
-      [`/api/v1/test-runs/${UNKNOWN}/samples`, { headers: { authorization: "Bearer wpk_forged", "content-type": "application/json" }, data: "{" }],
+      [
+        `/api/evidence/runs/${UNKNOWN}/files`,
+        { headers: { "content-type": "multipart/form-data; boundary=x" }, data: "--x\r\nbroken" },
+      ],
+      [
+        `/api/evidence/runs/${UNKNOWN}/files`,
+        { headers: { "content-type": "application/json" }, data: "{not json" },
+      ],
+      [
+        `/api/evidence/runs/${UNKNOWN}/files`,
+        {
+          multipart: {
+            file: { name: "a.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-") },
+            kind: "virus",
+          },
+        },
+      ],
+      [
+        `/api/evidence/runs/${UNKNOWN}/files`,
+        {
+          multipart: {
+            file: { name: "a.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-") },
+            kind: "lab_report",
+          },
+        },
+      ],
+      [
+        `/api/evidence/runs/${UNKNOWN}/import`,
+        { headers: { "content-type": "multipart/form-data; boundary=x" }, data: "--x\r\nbroken" },
+      ],
+      [
+        `/api/evidence/runs/${UNKNOWN}/import`,
+        {
+          multipart: {
+            file: { name: "c.csv", mimeType: "text/csv", buffer: Buffer.from("sample,B\nS1,1\n") },
+            mapping: "{not json",
+          },
+        },
+      ],
+      [
+        `/api/evidence/runs/${UNKNOWN}/import`,
+        {
+          multipart: {
+            file: { name: "c.csv", mimeType: "text/csv", buffer: Buffer.from("sample,B\nS1,1\n") },
+          },
+        },
+      ],
+      [
+        `/api/v1/test-runs/${UNKNOWN}/samples`,
+        {
+          headers: { authorization: "Bearer wpk_forged", "content-type": "application/json" },
+          data: "{",
+        },
+      ],
       // A server action id that does not exist, and a broken action body.
-      ["/documents", { headers: { "next-action": "0".repeat(42), "content-type": "text/plain;charset=UTF-8" }, data: "[" }],
+      [
+        "/documents",
+        {
+          headers: { "next-action": "0".repeat(42), "content-type": "text/plain;charset=UTF-8" },
+          data: "[",
+        },
+      ],
     ];
-    for (const [path, options] of posts) await expectNoLeak(await page.request.post(path, { ...options, maxRedirects: 0 }), `POST ${path}`);
+    for (const [path, options] of posts)
+      await expectNoLeak(
+        await page.request.post(path, { ...options, maxRedirects: 0 }),
+        `POST ${path}`,
+      );
   });
 });
 
 test.describe("SQL metacharacters in every search and filter", () => {
-  test("the audit trail, evidence list and their APIs answer normally and never widen the match", async ({ page }) => {
+  test("the audit trail, evidence list and their APIs answer normally and never widen the match", async ({
+    page,
+  }) => {
     await signInAs(page, "admin");
     for (const value of SQL) {
       const q = encodeURIComponent(value);
@@ -177,7 +284,9 @@ test.describe("SQL metacharacters in every search and filter", () => {
     expect(((await real.json()).items as unknown[]).length).toBeGreaterThan(0);
   });
 
-  test("the parameter search matches % and _ literally and finds nothing for SQL", async ({ page }) => {
+  test("the parameter search matches % and _ literally and finds nothing for SQL", async ({
+    page,
+  }) => {
     await signInAs(page, "engineer");
     await page.goto("/trace");
     const search = page.getByLabel("Search parameters");

@@ -1,6 +1,8 @@
 import { expect, signInAs, test } from "./fixtures";
 
-test("pages carry a nonce-based content security policy, refuse framing and are not cached", async ({ page }) => {
+test("pages carry a nonce-based content security policy, refuse framing and are not cached", async ({
+  page,
+}) => {
   const response = await page.goto("/sign-in");
   const headers = response!.headers();
   const csp = headers["content-security-policy"];
@@ -31,7 +33,11 @@ test("a new session id is issued at every sign-in", async ({ page, context }) =>
   expect(second).not.toBe(first);
 });
 
-test("a session cookie planted before sign-in is never adopted: the planted id opens nothing and sign-in issues a fresh one", async ({ page, context, baseURL }) => {
+test("a session cookie planted before sign-in is never adopted: the planted id opens nothing and sign-in issues a fresh one", async ({
+  page,
+  context,
+  baseURL,
+}) => {
   const planted = "planted-by-someone-else-0123456789";
   await context.addCookies([{ name: "washproof_session", value: planted, url: baseURL! }]);
   await page.goto("/queue");
@@ -46,7 +52,9 @@ test("a session cookie planted before sign-in is never adopted: the planted id o
   await expect(page).toHaveURL(/\/sign-in$/);
 });
 
-test("signed-in pages and API answers are never cached, carry the policy and refuse framing; plain HTTP gets no HSTS", async ({ page }) => {
+test("signed-in pages and API answers are never cached, carry the policy and refuse framing; plain HTTP gets no HSTS", async ({
+  page,
+}) => {
   await signInAs(page, "auditor");
   for (const path of ["/documents", "/trace/audit", "/evidence"]) {
     const response = await page.goto(path);

@@ -8,7 +8,12 @@ import { DEMO, expect, signInAs, test, type DemoRole } from "./fixtures";
 const sha256 = (bytes: Uint8Array) => createHash("sha256").update(bytes).digest("hex");
 
 /** Through the user menu in the banner, as a person finds their tokens. */
-async function createToken(page: Page, role: DemoRole, name: string, scope: "Read" | "Read and write") {
+async function createToken(
+  page: Page,
+  role: DemoRole,
+  name: string,
+  scope: "Read" | "Read and write",
+) {
   await page.getByRole("banner").getByText(DEMO[role].name).click();
   await page.getByRole("link", { name: "API tokens" }).click();
   const form = page.getByRole("form", { name: "Create API token" });
@@ -20,11 +25,15 @@ async function createToken(page: Page, role: DemoRole, name: string, scope: "Rea
   return token;
 }
 
-test("an auditor traces the fitting's drying temperature to its change, signatures and evidence, and downloads the audit pack", async ({ page }, testInfo) => {
+test("an auditor traces the fitting's drying temperature to its change, signatures and evidence, and downloads the audit pack", async ({
+  page,
+}, testInfo) => {
   test.setTimeout(120_000);
   await signInAs(page, "auditor");
   await page.getByRole("navigation").getByRole("link", { name: "Trace" }).click();
-  await page.getByLabel("Cleaning system").selectOption({ label: "SC-1 · Single-chamber spray washer" });
+  await page
+    .getByLabel("Cleaning system")
+    .selectOption({ label: "SC-1 · Single-chamber spray washer" });
   await page.getByLabel("Recipe").selectOption({ label: "R-SC1-SF · Fitting, spray" });
   // The list narrows as each letter is typed.
   const matches = page.getByRole("list", { name: "Matching parameters" });
@@ -46,16 +55,22 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   await expect(entry).toContainText("from 2026-06-15 07:00 UTC until now");
 
   const change = entry.getByRole("region", { name: "Change request CR-2026-001" });
-  await expect(change).toContainText("Dry fittings at 105 °C to clear water from the thread roots · Closed · impact Major");
+  await expect(change).toContainText(
+    "Dry fittings at 105 °C to clear water from the thread roots · Closed · impact Major",
+  );
   await expect(change).toContainText("This parameter: outside the validated range · Major");
-  await expect(change.getByRole("blockquote")).toContainText("Customer audit found residual water in the thread roots of SF-12 fittings after 15 min.");
+  await expect(change.getByRole("blockquote")).toContainText(
+    "Customer audit found residual water in the thread roots of SF-12 fittings after 15 min.",
+  );
   const signatures = change.getByRole("table", { name: "Signatures on CR-2026-001" });
   for (const [meaning, name] of [
     ["Authored", DEMO.engineer.name],
     ["Approved", DEMO.approver.name],
     ["Verified", DEMO.reviewer.name],
   ]) {
-    await expect(signatures.getByRole("row", { name: new RegExp(`^${meaning} ${name} `) })).toContainText("Valid");
+    await expect(
+      signatures.getByRole("row", { name: new RegExp(`^${meaning} ${name} `) }),
+    ).toContainText("Valid");
   }
 
   // Drying → dryness and visual, 29 parts each at 95 % / 90 % [derived, standards.md §4].
@@ -66,9 +81,18 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   const hashes: Record<string, string[]> = {};
   for (const run of ["RQ-2026-001", "RQ-2026-002"]) {
     const item = runItems.filter({ has: page.getByRole("link", { name: run, exact: true }) });
-    await expect(item).toContainText("computed outcome Pass · Verified · 29 samples (6 at worst-case positions)");
-    await expect(item).toContainText(`Performed by ${DEMO.technician.name}, 2026-06-08 15:00 UTC · Verified by ${DEMO.engineer.name}, 2026-06-10 09:00 UTC`);
-    hashes[run] = (await item.getByRole("list", { name: `Files of ${run}` }).getByRole("listitem").allTextContents()).map((t) => t.match(/SHA-256 ([0-9a-f]{64})/)![1]);
+    await expect(item).toContainText(
+      "computed outcome Pass · Verified · 29 samples (6 at worst-case positions)",
+    );
+    await expect(item).toContainText(
+      `Performed by ${DEMO.technician.name}, 2026-06-08 15:00 UTC · Verified by ${DEMO.engineer.name}, 2026-06-10 09:00 UTC`,
+    );
+    hashes[run] = (
+      await item
+        .getByRole("list", { name: `Files of ${run}` })
+        .getByRole("listitem")
+        .allTextContents()
+    ).map((t) => t.match(/SHA-256 ([0-9a-f]{64})/)![1]);
     expect(hashes[run]).toHaveLength(2);
   }
 
@@ -77,10 +101,17 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   await expect(page.getByRole("heading", { level: 1 })).toContainText("RQ-2026-001");
   await expect(page.getByRole("heading", { name: /Computed outcome: Pass/ })).toBeVisible();
   const runSignatures = page.getByRole("table", { name: "Signatures" });
-  await expect(runSignatures.getByRole("row", { name: new RegExp(`Performed ${DEMO.technician.name} .* Valid`) })).toBeVisible();
-  await expect(runSignatures.getByRole("row", { name: new RegExp(`Verified ${DEMO.engineer.name} .* Valid`) })).toBeVisible();
+  await expect(
+    runSignatures.getByRole("row", {
+      name: new RegExp(`Performed ${DEMO.technician.name} .* Valid`),
+    }),
+  ).toBeVisible();
+  await expect(
+    runSignatures.getByRole("row", { name: new RegExp(`Verified ${DEMO.engineer.name} .* Valid`) }),
+  ).toBeVisible();
   const files = page.getByRole("table", { name: "Evidence files" });
-  for (const h of hashes["RQ-2026-001"]) await expect(files.locator(`[title="${h}"]`)).toHaveText(`${h.slice(0, 12)}…`);
+  for (const h of hashes["RQ-2026-001"])
+    await expect(files.locator(`[title="${h}"]`)).toHaveText(`${h.slice(0, 12)}…`);
   const photo = page.waitForEvent("download");
   await files.getByRole("link", { name: "RQ-2026-001-corner-basket.png" }).click();
   expect(sha256(readFileSync(await (await photo).path()))).toBe(hashes["RQ-2026-001"][1]);
@@ -92,11 +123,23 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   expect(pdf.suggestedFilename()).toBe("audit-pack-CR-2026-001.pdf");
   const pdfPath = testInfo.outputPath("audit-pack-CR-2026-001.pdf");
   await pdf.saveAs(pdfPath);
-  const text = execFileSync("pdftotext", ["-layout", pdfPath, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
+  const text = execFileSync("pdftotext", ["-layout", pdfPath, "-"], { encoding: "utf8" }).replace(
+    /\s+/g,
+    " ",
+  );
   // The change's signatures as "printed name, meaning", each run's as "meaning by printed name".
-  for (const line of [`${DEMO.engineer.name} Authored`, `${DEMO.approver.name} Approved`, `${DEMO.reviewer.name} Verified`]) expect(text).toContain(line);
-  expect(text.match(new RegExp(`Performed by ${DEMO.technician.name}, 2026-06-08 15:00:00 UTC`, "g"))).toHaveLength(2);
-  expect(text.match(new RegExp(`Verified by ${DEMO.engineer.name}, 2026-06-10 09:00:00 UTC`, "g"))).toHaveLength(2);
+  for (const line of [
+    `${DEMO.engineer.name} Authored`,
+    `${DEMO.approver.name} Approved`,
+    `${DEMO.reviewer.name} Verified`,
+  ])
+    expect(text).toContain(line);
+  expect(
+    text.match(new RegExp(`Performed by ${DEMO.technician.name}, 2026-06-08 15:00:00 UTC`, "g")),
+  ).toHaveLength(2);
+  expect(
+    text.match(new RegExp(`Verified by ${DEMO.engineer.name}, 2026-06-10 09:00:00 UTC`, "g")),
+  ).toHaveLength(2);
   for (const h of Object.values(hashes).flat()) expect(text).toContain(h);
 
   const zipDownload = page.waitForEvent("download");
@@ -104,12 +147,22 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   const zip = await zipDownload;
   expect(zip.suggestedFilename()).toBe("audit-pack-CR-2026-001.zip");
   const entries = unzipSync(new Uint8Array(readFileSync(await zip.path())));
-  const sums = strFromU8(entries.SHA256SUMS).trim().split("\n").map((line) => line.split("  "));
+  const sums = strFromU8(entries.SHA256SUMS)
+    .trim()
+    .split("\n")
+    .map((line) => line.split("  "));
   for (const [hash, path] of sums) expect(sha256(entries[path])).toBe(hash);
-  expect(sums.filter(([, path]) => path.startsWith("evidence/")).map(([hash]) => hash).sort()).toEqual(Object.values(hashes).flat().sort());
+  expect(
+    sums
+      .filter(([, path]) => path.startsWith("evidence/"))
+      .map(([hash]) => hash)
+      .sort(),
+  ).toEqual(Object.values(hashes).flat().sort());
 });
 
-test("an auditor sees no write controls, and the API refuses a write with the auditor's read-and-write token", async ({ page }) => {
+test("an auditor sees no write controls, and the API refuses a write with the auditor's read-and-write token", async ({
+  page,
+}) => {
   await signInAs(page, "auditor");
   await page.goto("/evidence");
   await expect(page.getByRole("heading", { level: 1, name: "Evidence" })).toBeVisible();
@@ -131,7 +184,10 @@ test("an auditor sees no write controls, and the API refuses a write with the au
 
   await page.goto("/evidence");
   const runs = page.getByRole("table", { name: /Test runs/ });
-  await runs.getByRole("link", { name: /^TR-\d{4}/ }).first().click();
+  await runs
+    .getByRole("link", { name: /^TR-\d{4}/ })
+    .first()
+    .click();
   await expect(page).toHaveURL(/\/evidence\/runs\/[0-9a-f-]{36}$/);
   await expect(page.getByRole("heading", { level: 1 })).toContainText(/^TR-\d{4}/);
   await expect(page.getByRole("button", { name: "Add sample" })).toHaveCount(0);
@@ -143,34 +199,49 @@ test("an auditor sees no write controls, and the API refuses a write with the au
   const read = await page.request.get(`/api/v1/test-runs/${runId}`, { headers });
   expect(read.status()).toBe(200);
   const samplesBefore = (await read.json()).samples;
-  const write = await page.request.post(`/api/v1/test-runs/${runId}/samples`, { headers, data: { sampleLabel: "AUDITOR-1", components: 1, counts: { E: 1 }, largest: {} } });
+  const write = await page.request.post(`/api/v1/test-runs/${runId}/samples`, {
+    headers,
+    data: { sampleLabel: "AUDITOR-1", components: 1, counts: { E: 1 }, largest: {} },
+  });
   expect(write.status()).toBe(403);
   expect(write.headers()["content-type"]).toContain("application/json");
   expect(await write.json()).toEqual({ error: "Your role does not allow this." });
-  expect((await (await page.request.get(`/api/v1/test-runs/${runId}`, { headers })).json()).samples).toEqual(samplesBefore);
+  expect(
+    (await (await page.request.get(`/api/v1/test-runs/${runId}`, { headers })).json()).samples,
+  ).toEqual(samplesBefore);
 });
 
-test("a token created in Account settings is shown once, reads the API, and is refused once revoked", async ({ page }) => {
+test("a token created in Account settings is shown once, reads the API, and is refused once revoked", async ({
+  page,
+}) => {
   await signInAs(page, "engineer");
   const name = `Lab script ${Date.now()}`;
   const token = await createToken(page, "engineer", name, "Read");
 
-  const ok = await page.request.get("/api/v1/cleaning-systems", { headers: { Authorization: `Bearer ${token}` } });
+  const ok = await page.request.get("/api/v1/cleaning-systems", {
+    headers: { Authorization: `Bearer ${token}` },
+  });
   expect(ok.status()).toBe(200);
   expect(JSON.stringify(await ok.json())).toContain("SC-1");
 
   // Shown once: after a reload only its first characters are listed.
   await page.reload();
   await expect(page.getByTestId("new-api-token")).toHaveCount(0);
-  const row = page.getByRole("table", { name: "Your API tokens" }).getByRole("row", { name: new RegExp(name) });
+  const row = page
+    .getByRole("table", { name: "Your API tokens" })
+    .getByRole("row", { name: new RegExp(name) });
   await expect(row).toContainText(`${token.slice(0, 12)}…`);
   await expect(row).not.toContainText(token);
   await expect(row).not.toContainText("Never");
   await row.getByRole("button", { name: `Revoke token ${name}` }).click();
   await expect(row).toContainText("Revoked");
 
-  const refused = await page.request.get("/api/v1/cleaning-systems", { headers: { Authorization: `Bearer ${token}` } });
+  const refused = await page.request.get("/api/v1/cleaning-systems", {
+    headers: { Authorization: `Bearer ${token}` },
+  });
   expect(refused.status()).toBe(401);
   expect(refused.headers()["content-type"]).toContain("application/json");
-  expect((await refused.json()).error).toMatch(/^This API token was revoked on \d{4}-\d{2}-\d{2}\. Create a new one\.$/);
+  expect((await refused.json()).error).toMatch(
+    /^This API token was revoked on \d{4}-\d{2}-\d{2}\. Create a new one\.$/,
+  );
 });

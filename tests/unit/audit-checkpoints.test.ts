@@ -9,7 +9,11 @@ import { appendAudit, verifyAuditChain } from "@/lib/audit";
 import { generateSigningKeyPem, parseSigningKey, signCheckpoint } from "@/lib/audit/checkpoint";
 import { chainHash } from "@/lib/audit/hash";
 import { localStore, setStore } from "@/lib/storage";
-import { checkpointName, localCheckpointStore, setCheckpointStore } from "@/lib/storage/checkpoints";
+import {
+  checkpointName,
+  localCheckpointStore,
+  setCheckpointStore,
+} from "@/lib/storage/checkpoints";
 import { checkIntegrity } from "@/lib/server/audit/check-integrity";
 import { setSigningKey } from "@/lib/server/audit/signing-key";
 import { writeCheckpoint } from "@/lib/server/audit/write-checkpoint";
@@ -25,10 +29,17 @@ let t: TestDb;
 let dir: string;
 const actor = { id: "u-1", name: "Test Engineer" };
 
-
 async function append(db: TestDb, n: number) {
   for (let i = 0; i < n; i++) {
-    await db.db.transaction((tx) => appendAudit(tx, actor, { eventType: "audit.exported", recordType: "audit_trail", recordId: `r-${i}`, new: { filters: { n: i } }, reason: `step ${i}` }));
+    await db.db.transaction((tx) =>
+      appendAudit(tx, actor, {
+        eventType: "audit.exported",
+        recordType: "audit_trail",
+        recordId: `r-${i}`,
+        new: { filters: { n: i } },
+        reason: `step ${i}`,
+      }),
+    );
   }
 }
 
@@ -58,7 +69,10 @@ async function rechain(db: TestDb, from: number) {
         reason: r.reason as string | null,
         prevHash: prev,
       });
-      await db.client.execute({ sql: "UPDATE audit_events SET prev_hash = ?, hash = ? WHERE seq = ?", args: [prev, hash, seq] });
+      await db.client.execute({
+        sql: "UPDATE audit_events SET prev_hash = ?, hash = ? WHERE seq = ?",
+        args: [prev, hash, seq],
+      });
       prev = hash;
     } else prev = String(r.hash);
   }
@@ -66,9 +80,17 @@ async function rechain(db: TestDb, from: number) {
 
 async function shift(db: TestDb, from: number, by: number) {
   // Two steps so no intermediate number collides with the primary key.
-  await db.client.execute({ sql: "UPDATE audit_events SET seq = seq + 1000000 WHERE seq >= ?", args: [from] });
-  await db.client.execute({ sql: "UPDATE audit_events SET seq = seq - 1000000 + ? WHERE seq >= 1000000", args: [by] });
-  await db.client.execute("UPDATE sqlite_sequence SET seq = (SELECT max(seq) FROM audit_events) WHERE name = 'audit_events'");
+  await db.client.execute({
+    sql: "UPDATE audit_events SET seq = seq + 1000000 WHERE seq >= ?",
+    args: [from],
+  });
+  await db.client.execute({
+    sql: "UPDATE audit_events SET seq = seq - 1000000 + ? WHERE seq >= 1000000",
+    args: [by],
+  });
+  await db.client.execute(
+    "UPDATE sqlite_sequence SET seq = (SELECT max(seq) FROM audit_events) WHERE name = 'audit_events'",
+  );
 }
 
 async function expectOnlyCheckpointsCatchIt(db: TestDb, pattern: RegExp) {
@@ -95,20 +117,39 @@ describe("checkpoints outside the database", () => {
   it("are signed, stored in the evidence store, e-mailed to the auditor, and skipped by the schedule when the head has not moved", async () => {
     await append(t, 5);
     const first = await writeCheckpoint("schedule");
-    expect(first).toMatchObject({ written: true, checkpoint: { seq: 5, by: "schedule" }, emailedTo: "auditor@example.org" });
+    expect(first).toMatchObject({
+      written: true,
+      checkpoint: { seq: 5, by: "schedule" },
+      emailedTo: "auditor@example.org",
+    });
     expect(readdirSync(join(dir, "audit-checkpoints"))).toHaveLength(1);
     expect(await writeCheckpoint("schedule")).toMatchObject({ written: false });
     // On demand always writes, and names who asked.
-    expect(await writeCheckpoint(actor)).toMatchObject({ written: true, checkpoint: { seq: 5, by: "Test Engineer" } });
+    expect(await writeCheckpoint(actor)).toMatchObject({
+      written: true,
+      checkpoint: { seq: 5, by: "Test Engineer" },
+    });
     // A person's checkpoint is itself recorded, after it was signed: the next scheduled one covers that event.
-    const [event] = (await t.client.execute("SELECT seq, action, new_value FROM audit_events WHERE seq = 6")).rows;
+    const [event] = (
+      await t.client.execute("SELECT seq, action, new_value FROM audit_events WHERE seq = 6")
+    ).rows;
     expect(event).toMatchObject({ action: "audit.checkpointed" });
-    expect(await writeCheckpoint("schedule")).toMatchObject({ written: true, checkpoint: { seq: 6 } });
-    const mail = await t.db.select().from(emailOutbox).where(eq(emailOutbox.to, "auditor@example.org"));
+    expect(await writeCheckpoint("schedule")).toMatchObject({
+      written: true,
+      checkpoint: { seq: 6 },
+    });
+    const mail = await t.db
+      .select()
+      .from(emailOutbox)
+      .where(eq(emailOutbox.to, "auditor@example.org"));
     expect(mail).toHaveLength(3);
     expect(mail[0].text).toContain(first.written ? first.checkpoint.signature : "?");
     const report = await checkIntegrity(t.db);
-    expect(report).toMatchObject({ ok: true, findings: [], checkpoints: { count: 3, uncovered: 0 } });
+    expect(report).toMatchObject({
+      ok: true,
+      findings: [],
+      checkpoints: { count: 3, uncovered: 0 },
+    });
   });
 
   it("detect an edit re-chained from the edited event on", async () => {
@@ -118,7 +159,10 @@ describe("checkpoints outside the database", () => {
     await dropTriggers(t);
     await t.client.execute("UPDATE audit_events SET reason = 'nothing happened' WHERE seq = 3");
     await rechain(t, 3);
-    await expectOnlyCheckpointsCatchIt(t, /event 8 no longer has the hash signed .*events 1–8 were rewritten/);
+    await expectOnlyCheckpointsCatchIt(
+      t,
+      /event 8 no longer has the hash signed .*events 1–8 were rewritten/,
+    );
   });
 
   it("detect a forged event inserted and the rest renumbered", async () => {
@@ -151,7 +195,10 @@ describe("checkpoints outside the database", () => {
     await dropTriggers(t);
     await t.client.execute("DELETE FROM audit_events WHERE seq > 5");
     await t.client.execute("UPDATE sqlite_sequence SET seq = 5 WHERE name = 'audit_events'");
-    await expectOnlyCheckpointsCatchIt(t, /holds event 8, but the trail now ends at event 5: events 6–8 at least were cut off/);
+    await expectOnlyCheckpointsCatchIt(
+      t,
+      /holds event 8, but the trail now ends at event 5: events 6–8 at least were cut off/,
+    );
   });
 
   it("refuse a checkpoint signed with another key, and pin the span between two good ones", async () => {
@@ -159,8 +206,15 @@ describe("checkpoints outside the database", () => {
     await writeCheckpoint("schedule");
     await append(t, 4);
     await writeCheckpoint("schedule");
-    const forged = signCheckpoint({ seq: 8, hash: "f".repeat(64) }, parseSigningKey(generateSigningKeyPem()), "schedule");
-    writeFileSync(join(dir, "audit-checkpoints", checkpointName(8, "2026-12-31T00:00:00.000Z")), JSON.stringify(forged));
+    const forged = signCheckpoint(
+      { seq: 8, hash: "f".repeat(64) },
+      parseSigningKey(generateSigningKeyPem()),
+      "schedule",
+    );
+    writeFileSync(
+      join(dir, "audit-checkpoints", checkpointName(8, "2026-12-31T00:00:00.000Z")),
+      JSON.stringify(forged),
+    );
     await dropTriggers(t);
     await t.client.execute("UPDATE audit_events SET reason = 'quietly changed' WHERE seq = 6");
     await rechain(t, 6);
@@ -195,38 +249,74 @@ describe("signatures re-checked against the record as stored", () => {
   });
 
   it("name a signed run whose data were changed and whose signature hash was made to fit", async () => {
-    const signedRunIds = (await demo.db.select({ id: signatures.recordId }).from(signatures).where(eq(signatures.recordType, "test_run"))).map((r) => r.id);
-    const [run] = await demo.db.select().from(testRuns).where(and(inArray(testRuns.id, signedRunIds), eq(testRuns.outcome, "fail"))).limit(1);
+    const signedRunIds = (
+      await demo.db
+        .select({ id: signatures.recordId })
+        .from(signatures)
+        .where(eq(signatures.recordType, "test_run"))
+    ).map((r) => r.id);
+    const [run] = await demo.db
+      .select()
+      .from(testRuns)
+      .where(and(inArray(testRuns.id, signedRunIds), eq(testRuns.outcome, "fail")))
+      .limit(1);
     expect(run).toBeDefined();
     expect(await writeCheckpoint("schedule")).toMatchObject({ written: true });
     // The attacker empties the counts so the run passes, stores the new word, and re-binds the signatures.
-    await demo.client.execute({ sql: "UPDATE test_samples SET data = json_set(data, '$.counts', json('{}')) WHERE run_id = ?", args: [run.id] });
+    await demo.client.execute({
+      sql: "UPDATE test_samples SET data = json_set(data, '$.counts', json('{}')) WHERE run_id = ?",
+      args: [run.id],
+    });
     await refreshOutcome(demo.db, run);
     const after = (await demo.db.select().from(testRuns).where(eq(testRuns.id, run.id)))[0];
     const { hash } = await runContent(demo.db, after);
-    await demo.client.execute({ sql: "UPDATE signatures SET content_hash = ? WHERE record_id = ?", args: [hash, run.id] });
+    await demo.client.execute({
+      sql: "UPDATE signatures SET content_hash = ? WHERE record_id = ?",
+      args: [hash, run.id],
+    });
 
     const report = await checkIntegrity(demo.db);
     expect(report.chain.ok).toBe(true);
-    const mine = report.signatures.findings.filter((f) => f.recordId === run.id).map((f) => f.message);
-    expect(mine).toEqual(expect.arrayContaining([expect.stringMatching(/was altered after signing/), expect.stringContaining(`Test run ${run.number} was changed after`)]));
+    const mine = report.signatures.findings
+      .filter((f) => f.recordId === run.id)
+      .map((f) => f.message);
+    expect(mine).toEqual(
+      expect.arrayContaining([
+        expect.stringMatching(/was altered after signing/),
+        expect.stringContaining(`Test run ${run.number} was changed after`),
+      ]),
+    );
   });
 
   it("and when the signing events are rewritten to fit as well, the checkpoint names the rewrite", async () => {
     // Continues the attack above: the forger now also edits the signing events and re-chains.
     await dropTriggers(demo);
-    const sigs = (await demo.client.execute("SELECT s.id, s.content_hash FROM signatures s JOIN test_runs r ON r.id = s.record_id WHERE s.record_type = 'test_run'")).rows;
+    const sigs = (
+      await demo.client.execute(
+        "SELECT s.id, s.content_hash FROM signatures s JOIN test_runs r ON r.id = s.record_id WHERE s.record_type = 'test_run'",
+      )
+    ).rows;
     let first = Infinity;
     for (const sig of sigs) {
-      const [event] = (await demo.client.execute({ sql: "SELECT seq FROM audit_events WHERE action = 'signature.applied' AND record_id = ?", args: [sig.id] })).rows;
-      await demo.client.execute({ sql: "UPDATE audit_events SET new_value = json_set(new_value, '$.contentHash', ?) WHERE seq = ?", args: [sig.content_hash, event.seq] });
+      const [event] = (
+        await demo.client.execute({
+          sql: "SELECT seq FROM audit_events WHERE action = 'signature.applied' AND record_id = ?",
+          args: [sig.id],
+        })
+      ).rows;
+      await demo.client.execute({
+        sql: "UPDATE audit_events SET new_value = json_set(new_value, '$.contentHash', ?) WHERE seq = ?",
+        args: [sig.content_hash, event.seq],
+      });
       first = Math.min(first, Number(event.seq));
     }
     await rechain(demo, first);
     const report = await checkIntegrity(demo.db);
     expect(report.chain.ok).toBe(true);
     expect(report.signatures.findings).toEqual([]);
-    expect(report.checkpoints.breaks).toEqual([expect.objectContaining({ reason: expect.stringMatching(/were rewritten/) })]);
+    expect(report.checkpoints.breaks).toEqual([
+      expect.objectContaining({ reason: expect.stringMatching(/were rewritten/) }),
+    ]);
     expect(report.ok).toBe(false);
   });
 });

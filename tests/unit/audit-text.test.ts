@@ -19,7 +19,26 @@ afterAll(() => t.cleanup());
 const awkward = fc.string({
   unit: fc.oneof(
     { weight: 4, arbitrary: fc.constantFrom("a", "Z", "7", " ", "µ", "°", "é", "😀") },
-    { weight: 2, arbitrary: fc.constantFrom("\u0000", "\ud800", "\udfff", "\u202e", "\u202d", "\u2066", "\u200f", "\u0001", "\u001b", "\u007f", "\u0085", "\t", "\n", "\r\n", "\r") },
+    {
+      weight: 2,
+      arbitrary: fc.constantFrom(
+        "\u0000",
+        "\ud800",
+        "\udfff",
+        "\u202e",
+        "\u202d",
+        "\u2066",
+        "\u200f",
+        "\u0001",
+        "\u001b",
+        "\u007f",
+        "\u0085",
+        "\t",
+        "\n",
+        "\r\n",
+        "\r",
+      ),
+    },
     { weight: 1, arbitrary: fc.string({ unit: "binary", maxLength: 3 }) },
   ),
   minLength: 5,
@@ -27,7 +46,9 @@ const awkward = fc.string({
 });
 
 async function storedReasonOf(seq: number) {
-  const row = (await t.client.execute({ sql: "SELECT reason FROM audit_events WHERE seq = ?", args: [seq] })).rows[0];
+  const row = (
+    await t.client.execute({ sql: "SELECT reason FROM audit_events WHERE seq = ?", args: [seq] })
+  ).rows[0];
   return row.reason as string | null;
 }
 
@@ -42,7 +63,13 @@ describe("stored text round-trips", () => {
           return;
         }
         const { seq } = await t.db.transaction((tx) =>
-          appendAudit(tx, actor, { eventType: "email.test_sent", recordType: "email", recordId: documentId, new: { to: parsed.data.reason }, reason: parsed.data.reason }),
+          appendAudit(tx, actor, {
+            eventType: "email.test_sent",
+            recordType: "email",
+            recordId: documentId,
+            new: { to: parsed.data.reason },
+            reason: parsed.data.reason,
+          }),
         );
         expect(await storedReasonOf(seq)).toBe(parsed.data.reason);
         expect(await verifyAuditChain(t.db)).toMatchObject({ ok: true });
@@ -56,7 +83,14 @@ describe("stored text round-trips", () => {
       fc.asyncProperty(awkward, async (reason) => {
         let seq: number;
         try {
-          ({ seq } = await t.db.transaction((tx) => appendAudit(tx, actor, { eventType: "auth.signed_in", recordType: "user", recordId: documentId, reason })));
+          ({ seq } = await t.db.transaction((tx) =>
+            appendAudit(tx, actor, {
+              eventType: "auth.signed_in",
+              recordType: "user",
+              recordId: documentId,
+              reason,
+            }),
+          ));
         } catch (error) {
           expect(String(error)).toMatch(/NUL or a lone surrogate/);
           return;
@@ -70,9 +104,15 @@ describe("stored text round-trips", () => {
 
   it("names the problem in plain words and keeps tabs, line breaks and right-to-left marks", () => {
     const schema = storedText().trim().max(200);
-    expect(schema.safeParse("cut at\u0000here").error?.issues[0].message).toBe(TEXT_CONTROL_MESSAGE);
-    expect(schema.safeParse("escape \u001b[31m").error?.issues[0].message).toBe(TEXT_CONTROL_MESSAGE);
-    expect(schema.safeParse("half \ud83d emoji").error?.issues[0].message).toBe(TEXT_SURROGATE_MESSAGE);
+    expect(schema.safeParse("cut at\u0000here").error?.issues[0].message).toBe(
+      TEXT_CONTROL_MESSAGE,
+    );
+    expect(schema.safeParse("escape \u001b[31m").error?.issues[0].message).toBe(
+      TEXT_CONTROL_MESSAGE,
+    );
+    expect(schema.safeParse("half \ud83d emoji").error?.issues[0].message).toBe(
+      TEXT_SURROGATE_MESSAGE,
+    );
     expect(schema.parse("a\tb\r\nc\rd")).toBe("a\tb\nc\nd");
     expect(schema.parse("abc \u202e fed")).toBe("abc \u202e fed");
   });
@@ -83,11 +123,20 @@ describe("verification reports every break", () => {
     const local = await createTestDatabase();
     try {
       for (let i = 0; i < 6; i++) {
-        await local.db.transaction((tx) => appendAudit(tx, actor, { eventType: "audit.exported", recordType: "audit_trail", recordId: `r-${i}`, new: { filters: { n: i } } }));
+        await local.db.transaction((tx) =>
+          appendAudit(tx, actor, {
+            eventType: "audit.exported",
+            recordType: "audit_trail",
+            recordId: `r-${i}`,
+            new: { filters: { n: i } },
+          }),
+        );
       }
       await local.client.execute("DROP TRIGGER audit_events_no_update");
       await local.client.execute(`UPDATE audit_events SET new_value = '{"n":99}' WHERE seq = 2`);
-      await local.client.execute(`UPDATE audit_events SET actor_name = 'Someone Else' WHERE seq = 5`);
+      await local.client.execute(
+        `UPDATE audit_events SET actor_name = 'Someone Else' WHERE seq = 5`,
+      );
       for (const page of [undefined, 1, 4]) {
         const result = await verifyAuditChain(local.db, { page });
         expect(result.ok).toBe(false);
@@ -105,7 +154,14 @@ describe("verification reports every break", () => {
     const local = await createTestDatabase();
     try {
       for (let i = 0; i < 6; i++) {
-        await local.db.transaction((tx) => appendAudit(tx, actor, { eventType: "audit.exported", recordType: "audit_trail", recordId: `r-${i}`, new: { filters: { n: i } } }));
+        await local.db.transaction((tx) =>
+          appendAudit(tx, actor, {
+            eventType: "audit.exported",
+            recordType: "audit_trail",
+            recordId: `r-${i}`,
+            new: { filters: { n: i } },
+          }),
+        );
       }
       await local.client.execute("DROP TRIGGER audit_events_no_delete");
       await local.client.execute("DELETE FROM audit_events WHERE seq IN (2, 3, 6)");

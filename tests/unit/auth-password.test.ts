@@ -11,7 +11,10 @@ describe("password hashing", () => {
   });
 
   it("salts every hash", async () => {
-    const [a, b] = await Promise.all([hashPassword("same password 1"), hashPassword("same password 1")]);
+    const [a, b] = await Promise.all([
+      hashPassword("same password 1"),
+      hashPassword("same password 1"),
+    ]);
     expect(a).not.toBe(b);
   });
 
@@ -29,17 +32,29 @@ describe("password hashing", () => {
 describe("password rules", () => {
   const base = { currentPassword: "old password 1", confirmPassword: "" };
   it("requires at least 12 characters", () => {
-    const r = passwordChangeSchema.safeParse({ ...base, newPassword: "short pass1", confirmPassword: "short pass1" });
+    const r = passwordChangeSchema.safeParse({
+      ...base,
+      newPassword: "short pass1",
+      confirmPassword: "short pass1",
+    });
     expect(r.success).toBe(false);
     expect(r.error?.issues[0].path).toEqual(["newPassword"]);
   });
   it("requires the confirmation to match", () => {
-    const r = passwordChangeSchema.safeParse({ ...base, newPassword: "long enough password", confirmPassword: "long enough passw0rd" });
+    const r = passwordChangeSchema.safeParse({
+      ...base,
+      newPassword: "long enough password",
+      confirmPassword: "long enough passw0rd",
+    });
     expect(r.success).toBe(false);
     expect(r.error?.issues[0].path).toEqual(["confirmPassword"]);
   });
   it("accepts a good change", () => {
-    const r = passwordChangeSchema.safeParse({ ...base, newPassword: "long enough password", confirmPassword: "long enough password" });
+    const r = passwordChangeSchema.safeParse({
+      ...base,
+      newPassword: "long enough password",
+      confirmPassword: "long enough password",
+    });
     expect(r.success).toBe(true);
   });
   it("refuses the e-mail address as password, whatever its case", () => {

@@ -22,7 +22,12 @@ afterAll(() => t.cleanup());
 afterEach(() => vi.useRealTimers());
 
 async function newUser(email: string, roles: ("engineer" | "admin" | "auditor")[] = ["engineer"]) {
-  const { id, temporaryPassword } = await createUser(admin, { name: `User ${email}`, email, jobTitle: null, roles });
+  const { id, temporaryPassword } = await createUser(admin, {
+    name: `User ${email}`,
+    email,
+    jobTitle: null,
+    roles,
+  });
   return { id, password: temporaryPassword };
 }
 
@@ -52,15 +57,24 @@ describe("sign-in", () => {
     const u = await newUser("lock@example.test");
     const start = new Date("2026-03-01T10:00:00.000Z");
     for (let i = 0; i < 5; i++) {
-      await signIn({ email: "lock@example.test", password: `bad guess ${i}` }, new Date(start.getTime() + i * 1000));
+      await signIn(
+        { email: "lock@example.test", password: `bad guess ${i}` },
+        new Date(start.getTime() + i * 1000),
+      );
     }
     const [row] = await t.db.select().from(users).where(eq(users.id, u.id));
     expect(row.lockedUntil).toBe(new Date(start.getTime() + 4000 + 15 * 60_000).toISOString());
     expect(await actionsFor(u.id)).toContain("auth.locked_out");
 
-    const during = await signIn({ email: "lock@example.test", password: u.password }, new Date(start.getTime() + 10 * 60_000));
+    const during = await signIn(
+      { email: "lock@example.test", password: u.password },
+      new Date(start.getTime() + 10 * 60_000),
+    );
     expect(during.ok).toBe(false);
-    const after = await signIn({ email: "lock@example.test", password: u.password }, new Date(start.getTime() + 16 * 60_000));
+    const after = await signIn(
+      { email: "lock@example.test", password: u.password },
+      new Date(start.getTime() + 16 * 60_000),
+    );
     expect(after.ok).toBe(true);
   });
 
@@ -73,7 +87,9 @@ describe("sign-in", () => {
   it("refuses to deactivate an account twice, and audits nothing for it", async () => {
     const u = await newUser("twice@example.test");
     await setUserActive(admin, { userId: u.id, active: false, reason: "left the company" });
-    await expect(setUserActive(admin, { userId: u.id, active: false, reason: "stale page" })).rejects.toThrow(/already deactivated; nothing changed/);
+    await expect(
+      setUserActive(admin, { userId: u.id, active: false, reason: "stale page" }),
+    ).rejects.toThrow(/already deactivated; nothing changed/);
     expect((await actionsFor(u.id)).filter((a) => a === "user.deactivated")).toHaveLength(1);
   });
 });
@@ -121,12 +137,25 @@ describe("user administration", () => {
 
   it("audits a role change with old and new roles and its reason, and refuses a role change without one", async () => {
     const u = await newUser("rolechange@example.test");
-    const edit = { userId: u.id, name: "User rolechange@example.test", email: "rolechange@example.test", jobTitle: null, roles: ["engineer", "auditor"] as Role[] };
+    const edit = {
+      userId: u.id,
+      name: "User rolechange@example.test",
+      email: "rolechange@example.test",
+      jobTitle: null,
+      roles: ["engineer", "auditor"] as Role[],
+    };
     await expect(updateUser(admin, edit)).rejects.toMatchObject({ field: "reason" });
-    await expect(updateUser(admin, { ...edit, reason: "   " })).rejects.toMatchObject({ field: "reason" });
-    expect(await t.db.select().from(auditEvents).where(eq(auditEvents.action, "user.roles_changed"))).toEqual([]);
+    await expect(updateUser(admin, { ...edit, reason: "   " })).rejects.toMatchObject({
+      field: "reason",
+    });
+    expect(
+      await t.db.select().from(auditEvents).where(eq(auditEvents.action, "user.roles_changed")),
+    ).toEqual([]);
     await updateUser(admin, { ...edit, reason: "Joins the audit team" });
-    const [event] = await t.db.select().from(auditEvents).where(eq(auditEvents.action, "user.roles_changed"));
+    const [event] = await t.db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.action, "user.roles_changed"));
     expect(JSON.parse(event.oldValue!)).toEqual({ roles: ["engineer"] });
     expect(JSON.parse(event.newValue!)).toEqual({ roles: ["auditor", "engineer"] });
     expect(event.reason).toBe("Joins the audit team");
@@ -142,7 +171,13 @@ describe("user administration", () => {
       await setUserActive(admin, { userId: a.id, active: false, reason: "test" });
     }
     await expect(
-      updateUser(admin, { userId: only.id, name: "Only Admin", email: "onlyadmin@example.test", jobTitle: null, roles: ["engineer"] }),
+      updateUser(admin, {
+        userId: only.id,
+        name: "Only Admin",
+        email: "onlyadmin@example.test",
+        jobTitle: null,
+        roles: ["engineer"],
+      }),
     ).rejects.toThrow(/at least one active administrator/);
   });
 
@@ -152,10 +187,22 @@ describe("user administration", () => {
     const first = await signIn({ email: "reset@example.test", password: temporaryPassword });
     expect(first).toMatchObject({ ok: true, mustChangePassword: true });
     if (!first.ok) return;
-    await changePassword({ userId: u.id, sessionId: first.sessionId, currentPassword: temporaryPassword, newPassword: "a brand new passphrase" });
-    expect(await signIn({ email: "reset@example.test", password: "a brand new passphrase" })).toMatchObject({ ok: true, mustChangePassword: false });
+    await changePassword({
+      userId: u.id,
+      sessionId: first.sessionId,
+      currentPassword: temporaryPassword,
+      newPassword: "a brand new passphrase",
+    });
+    expect(
+      await signIn({ email: "reset@example.test", password: "a brand new passphrase" }),
+    ).toMatchObject({ ok: true, mustChangePassword: false });
     await expect(
-      changePassword({ userId: u.id, sessionId: first.sessionId, currentPassword: "a brand new passphrase", newPassword: "reset@example.test" }),
+      changePassword({
+        userId: u.id,
+        sessionId: first.sessionId,
+        currentPassword: "a brand new passphrase",
+        newPassword: "reset@example.test",
+      }),
     ).rejects.toMatchObject({ field: "newPassword" });
   });
 

@@ -19,7 +19,13 @@ const good = (over: Partial<GateRun> = {}): GateRun => ({
 
 describe("requalification gate", () => {
   it("holds when every requirement has a passing, large enough run verified by a second person", () => {
-    const g = evaluateGate([particle, gravimetric], new Map([["r1", [good()]], ["r2", [good({ number: "TR-2", testType: "gravimetric", sampleCount: 30 })]]]));
+    const g = evaluateGate(
+      [particle, gravimetric],
+      new Map([
+        ["r1", [good()]],
+        ["r2", [good({ number: "TR-2", testType: "gravimetric", sampleCount: 30 })]],
+      ]),
+    );
     expect(g).toMatchObject({ holds: true, missing: [] });
     expect(g.requirements.map((r) => r.satisfiedBy)).toEqual(["TR-1", "TR-2"]);
   });
@@ -29,25 +35,70 @@ describe("requalification gate", () => {
   });
 
   const refusals: { name: string; runs: GateRun[]; missing: string }[] = [
-    { name: "no run linked", runs: [], missing: "Particle cleanliness (29 samples): no test run linked" },
-    { name: "a failing outcome", runs: [good({ outcome: "fail" })], missing: "TR-1 computed outcome is fail, not pass" },
-    { name: "an outcome not yet computed", runs: [good({ outcome: null })], missing: "TR-1 computed outcome is not yet computed, not pass" },
-    { name: "an incomplete outcome", runs: [good({ outcome: "incomplete" })], missing: "TR-1 computed outcome is incomplete, not pass" },
-    { name: "too few samples", runs: [good({ sampleCount: 28 })], missing: "TR-1 has 28 samples, 29 required" },
-    { name: "performed but not verified", runs: [good({ status: "performed", verifiedBy: [] })], missing: "TR-1 is not verified by a second person" },
-    { name: "verified by the performer only", runs: [good({ verifiedBy: ["tech"] })], missing: "TR-1 is not verified by a second person" },
-    { name: "the wrong test type", runs: [good({ testType: "visual" })], missing: "TR-1 is a visual (stains) test, not particle cleanliness" },
-    { name: "a superseded revision", runs: [good({ status: "superseded" })], missing: "TR-1 was superseded by a later revision" },
+    {
+      name: "no run linked",
+      runs: [],
+      missing: "Particle cleanliness (29 samples): no test run linked",
+    },
+    {
+      name: "a failing outcome",
+      runs: [good({ outcome: "fail" })],
+      missing: "TR-1 computed outcome is fail, not pass",
+    },
+    {
+      name: "an outcome not yet computed",
+      runs: [good({ outcome: null })],
+      missing: "TR-1 computed outcome is not yet computed, not pass",
+    },
+    {
+      name: "an incomplete outcome",
+      runs: [good({ outcome: "incomplete" })],
+      missing: "TR-1 computed outcome is incomplete, not pass",
+    },
+    {
+      name: "too few samples",
+      runs: [good({ sampleCount: 28 })],
+      missing: "TR-1 has 28 samples, 29 required",
+    },
+    {
+      name: "performed but not verified",
+      runs: [good({ status: "performed", verifiedBy: [] })],
+      missing: "TR-1 is not verified by a second person",
+    },
+    {
+      name: "verified by the performer only",
+      runs: [good({ verifiedBy: ["tech"] })],
+      missing: "TR-1 is not verified by a second person",
+    },
+    {
+      name: "the wrong test type",
+      runs: [good({ testType: "visual" })],
+      missing: "TR-1 is a visual (stains) test, not particle cleanliness",
+    },
+    {
+      name: "a superseded revision",
+      runs: [good({ status: "superseded" })],
+      missing: "TR-1 was superseded by a later revision",
+    },
   ];
   it.each(refusals)("refuses with $name and says exactly that", ({ runs, missing }) => {
-    const g = evaluateGate([particle, gravimetric], new Map([["r1", runs], ["r2", [good({ number: "TR-2", testType: "gravimetric" })]]]));
+    const g = evaluateGate(
+      [particle, gravimetric],
+      new Map([
+        ["r1", runs],
+        ["r2", [good({ number: "TR-2", testType: "gravimetric" })]],
+      ]),
+    );
     expect(g.holds).toBe(false);
     expect(g.missing).toHaveLength(1);
     expect(g.missing[0]).toContain(missing);
   });
 
   it("any one good run among several satisfies a requirement", () => {
-    const g = evaluateGate([particle], new Map([["r1", [good({ outcome: "fail" }), good({ number: "TR-3" })]]]));
+    const g = evaluateGate(
+      [particle],
+      new Map([["r1", [good({ outcome: "fail" }), good({ number: "TR-3" })]]]),
+    );
     expect(g.requirements[0].satisfiedBy).toBe("TR-3");
   });
 });
@@ -60,8 +111,20 @@ describe("change-request lifecycle", () => {
     start_requalification: ["approved_for_implementation"],
     verify: ["approved_for_implementation", "requalification"],
     close: ["verified"],
-    reject: ["draft", "impact_assessed", "approved_for_implementation", "requalification", "verified"],
-    withdraw: ["draft", "impact_assessed", "approved_for_implementation", "requalification", "verified"],
+    reject: [
+      "draft",
+      "impact_assessed",
+      "approved_for_implementation",
+      "requalification",
+      "verified",
+    ],
+    withdraw: [
+      "draft",
+      "impact_assessed",
+      "approved_for_implementation",
+      "requalification",
+      "verified",
+    ],
   };
   for (const step of Object.keys(CHANGE_STEPS) as ChangeStep[]) {
     for (const status of CHANGE_STATUSES) {
@@ -74,8 +137,14 @@ describe("change-request lifecycle", () => {
     }
   }
   it("a change with tests goes through requalification; one without skips it", () => {
-    expect(stepProblem("verify", "approved_for_implementation", 2)).toMatch(/Start requalification first/);
-    expect(stepProblem("start_requalification", "approved_for_implementation", 0)).toMatch(/no requalification tests/);
-    expect(stepProblem("close", "requalification", 2)).toBe("Verify the change first: a second person signs it verified, and only then is it closed and made effective.");
+    expect(stepProblem("verify", "approved_for_implementation", 2)).toMatch(
+      /Start requalification first/,
+    );
+    expect(stepProblem("start_requalification", "approved_for_implementation", 0)).toMatch(
+      /no requalification tests/,
+    );
+    expect(stepProblem("close", "requalification", 2)).toBe(
+      "Verify the change first: a second person signs it verified, and only then is it closed and made effective.",
+    );
   });
 });

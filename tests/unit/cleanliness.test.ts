@@ -374,9 +374,27 @@ describe("evaluateAgainstSpec", () => {
   it("keeps the reason, built when read, in the row's JSON with every other field", () => {
     // [derived] the same worked example; a stored or sent evaluation must not lose its words
     const result = evaluateAgainstSpec({ E: 14, F: 6, H: 1 }, WORKED_AREA, "A(E8/F-G7/H4)");
-    expect(JSON.parse(JSON.stringify(result.rows[0]))).toEqual({ classes: ["E"], value: result.rows[0].value, limit: 250, level: "7", limitLevel: "8", pass: true, reason: "E: 124.9 per 1000 cm² → level 7, limit 8 (≤ 250): pass" });
-    const perComponent = evaluateAgainstSpec({ C: 32000 }, { kind: "component", components: 1 }, "N(C-E32000)");
-    expect(JSON.parse(JSON.stringify(perComponent.rows[0]))).toEqual({ classes: ["C", "D", "E"], value: 32000, limit: 32000, pass: true, reason: "C-E: 32000 per component, limit 32000: pass" });
+    expect(JSON.parse(JSON.stringify(result.rows[0]))).toEqual({
+      classes: ["E"],
+      value: result.rows[0].value,
+      limit: 250,
+      level: "7",
+      limitLevel: "8",
+      pass: true,
+      reason: "E: 124.9 per 1000 cm² → level 7, limit 8 (≤ 250): pass",
+    });
+    const perComponent = evaluateAgainstSpec(
+      { C: 32000 },
+      { kind: "component", components: 1 },
+      "N(C-E32000)",
+    );
+    expect(JSON.parse(JSON.stringify(perComponent.rows[0]))).toEqual({
+      classes: ["C", "D", "E"],
+      value: 32000,
+      limit: 32000,
+      pass: true,
+      reason: "C-E: 32000 per component, limit 32000: pass",
+    });
   });
 
   it("passes a count equal to the level's upper bound and fails one just above", () => {

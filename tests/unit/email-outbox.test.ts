@@ -27,14 +27,24 @@ describe("e-mail outbox", () => {
   it("queues a message only when the step's transaction commits", async () => {
     await expect(
       t.db.transaction(async (tx) => {
-        await enqueueEmail(tx, { to: "a@example.test", subject: "rolled back", text: "never sent" });
+        await enqueueEmail(tx, {
+          to: "a@example.test",
+          subject: "rolled back",
+          text: "never sent",
+        });
         await tx.insert(users).values({ email: "dup@x.test", name: "x", passwordHash: "x" });
         await tx.insert(users).values({ email: "dup@x.test", name: "y", passwordHash: "y" }); // fails: unique e-mail
       }),
     ).rejects.toThrow();
     expect(await t.db.select().from(emailOutbox)).toHaveLength(0);
 
-    await t.db.transaction((tx) => enqueueEmail(tx, { to: "reviewer@example.test", subject: "Review requested", text: "Please review PQ-1." }));
+    await t.db.transaction((tx) =>
+      enqueueEmail(tx, {
+        to: "reviewer@example.test",
+        subject: "Review requested",
+        text: "Please review PQ-1.",
+      }),
+    );
     expect(await t.db.select().from(emailOutbox)).toHaveLength(1);
   });
 
@@ -45,24 +55,42 @@ describe("e-mail outbox", () => {
     const [row] = await t.db.select().from(emailOutbox);
     expect(row.status).toBe("sent");
     expect(existsSync(MAILBOX)).toBe(true);
-    const captured = readFileSync(MAILBOX, "utf8").trim().split("\n").map((l) => JSON.parse(l));
-    expect(captured.at(-1)).toMatchObject({ to: ["reviewer@example.test"], subject: "Review requested" });
+    const captured = readFileSync(MAILBOX, "utf8")
+      .trim()
+      .split("\n")
+      .map((l) => JSON.parse(l));
+    expect(captured.at(-1)).toMatchObject({
+      to: ["reviewer@example.test"],
+      subject: "Review requested",
+    });
     expect(captured.at(-1).text).toContain("Please review PQ-1.");
   });
 
   it("sends a message once when two delivery passes that share no memory run at the same moment", async () => {
     // A timer and an action live in different bundles of the server, so each has its own module.
-    await t.db.transaction((tx) => enqueueEmail(tx, { to: "approver@example.test", subject: "Once only", text: "Approve PQ-2." }));
+    await t.db.transaction((tx) =>
+      enqueueEmail(tx, {
+        to: "approver@example.test",
+        subject: "Once only",
+        text: "Approve PQ-2.",
+      }),
+    );
     const first = await import("@/lib/email/deliver");
     vi.resetModules();
     const second = await import("@/lib/email/deliver");
     expect(second.deliverDueEmails).not.toBe(first.deliverDueEmails);
     const results = await Promise.all([first.deliverDueEmails(), second.deliverDueEmails()]);
     expect(results.reduce((n, r) => n + r.sent, 0)).toBe(1);
-    const captured = readFileSync(MAILBOX, "utf8").trim().split("\n").map((l) => JSON.parse(l));
+    const captured = readFileSync(MAILBOX, "utf8")
+      .trim()
+      .split("\n")
+      .map((l) => JSON.parse(l));
     expect(captured.filter((m) => m.subject === "Once only")).toHaveLength(1);
     const rows = await t.db.select().from(emailOutbox);
-    expect(rows.find((r) => r.subject === "Once only")).toMatchObject({ status: "sent", attempts: 1 });
+    expect(rows.find((r) => r.subject === "Once only")).toMatchObject({
+      status: "sent",
+      attempts: 1,
+    });
   });
 
   it("backs off 1, 2, 4, 8 minutes between attempts", () => {

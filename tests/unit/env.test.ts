@@ -17,11 +17,18 @@ describe("configuration", () => {
   });
 
   it("requires an absolute database path in production", () => {
-    expect(() => parseEnv({ NODE_ENV: "production", DATABASE_URL: "file:./data/x.db" })).toThrow(/DATABASE_URL: must be an absolute/);
-    expect(parseEnv({ NODE_ENV: "production", DATABASE_URL: "file:/var/lib/washproof/x.db" }).DATABASE_URL).toBe("file:/var/lib/washproof/x.db");
+    expect(() => parseEnv({ NODE_ENV: "production", DATABASE_URL: "file:./data/x.db" })).toThrow(
+      /DATABASE_URL: must be an absolute/,
+    );
+    expect(
+      parseEnv({ NODE_ENV: "production", DATABASE_URL: "file:/var/lib/washproof/x.db" })
+        .DATABASE_URL,
+    ).toBe("file:/var/lib/washproof/x.db");
   });
 
   it("refuses an idle timeout longer than the absolute lifetime", () => {
-    expect(() => parseEnv({ SESSION_IDLE_MINUTES: "90", SESSION_ABSOLUTE_MINUTES: "60" })).toThrow(/SESSION_IDLE_MINUTES/);
+    expect(() => parseEnv({ SESSION_IDLE_MINUTES: "90", SESSION_ABSOLUTE_MINUTES: "60" })).toThrow(
+      /SESSION_IDLE_MINUTES/,
+    );
   });
 });

@@ -2,7 +2,8 @@ import { Readable } from "node:stream";
 import { describe, expect, it } from "vitest";
 import { autoMapping, parseSampleCsv, YIELD_EVERY_ROWS } from "@/lib/evidence/csv-import";
 
-const HEADER = "sample,basket_position,worst_case,components,B,C,D,E,F,G,H,I,J,K,L,M,N,largest_metallic_um";
+const HEADER =
+  "sample,basket_position,worst_case,components,B,C,D,E,F,G,H,I,J,K,L,M,N,largest_metallic_um";
 
 describe("particle CSV import", () => {
   it("reads a valid file in our format", async () => {
@@ -11,7 +12,14 @@ describe("particle CSV import", () => {
     expect(r.fileErrors).toEqual([]);
     expect(r.errors).toEqual([]);
     expect(r.rowCount).toBe(2);
-    expect(r.rows[0]).toMatchObject({ sampleLabel: "VB-1", basketPosition: "top", worstCase: true, components: 3, counts: { E: 14, F: 6, H: 1 }, largest: { metallicUm: 350 } });
+    expect(r.rows[0]).toMatchObject({
+      sampleLabel: "VB-1",
+      basketPosition: "top",
+      worstCase: true,
+      components: 3,
+      counts: { E: 14, F: 6, H: 1 },
+      largest: { metallicUm: 350 },
+    });
   });
 
   it("lists every bad row with its line and keeps no rows", async () => {
@@ -27,7 +35,9 @@ describe("particle CSV import", () => {
 
   it("refuses text the database would not give back as written, naming the line", async () => {
     // A NUL would be stored but read back cut short; a lone surrogate would come back as U+FFFD.
-    const r = await parseSampleCsv(`${HEADER}\nVB-1\u0000x,,,1,,,,5,,,,,,,,,,\nVB-2,top\ud800,,1,,,,5,,,,,,,,,,\nVB-3,left \u202e,,1,,,,5,,,,,,,,,,\n`);
+    const r = await parseSampleCsv(
+      `${HEADER}\nVB-1\u0000x,,,1,,,,5,,,,,,,,,,\nVB-2,top\ud800,,1,,,,5,,,,,,,,,,\nVB-3,left \u202e,,1,,,,5,,,,,,,,,,\n`,
+    );
     expect(r.rows).toEqual([]);
     expect(r.errors.map((e) => e.line)).toEqual([2, 3]);
     expect(r.errors[0].message).toMatch(/control characters/);
@@ -35,7 +45,9 @@ describe("particle CSV import", () => {
   });
 
   it("refuses cells that a spreadsheet would run as formulas", async () => {
-    const r = await parseSampleCsv(`${HEADER}\n=HYPERLINK(1),,,1,,,,5,,,,,,,,,,\n@SUM(A1),,,1,,,,5,,,,,,,,,,\nVB-3,+1,,1,,,,5,,,,,,,,,,\n`);
+    const r = await parseSampleCsv(
+      `${HEADER}\n=HYPERLINK(1),,,1,,,,5,,,,,,,,,,\n@SUM(A1),,,1,,,,5,,,,,,,,,,\nVB-3,+1,,1,,,,5,,,,,,,,,,\n`,
+    );
     expect(r.rows).toEqual([]);
     expect(r.errors.filter((e) => /formula/.test(e.message)).map((e) => e.line)).toEqual([2, 3, 4]);
   });
@@ -45,13 +57,23 @@ describe("particle CSV import", () => {
     const unmapped = await parseSampleCsv(csv);
     expect(unmapped.fileErrors.join(" ")).toMatch(/No column holds the sample/);
     expect(unmapped.headers).toEqual(["Part No", "Pos", "Cnt 50-100", "Cnt 100-150"]);
-    const mapped = await parseSampleCsv(csv, { mapping: { sample: "Part No", basket_position: "Pos", E: "Cnt 50-100", F: "Cnt 100-150" } });
+    const mapped = await parseSampleCsv(csv, {
+      mapping: { sample: "Part No", basket_position: "Pos", E: "Cnt 50-100", F: "Cnt 100-150" },
+    });
     expect(mapped.fileErrors).toEqual([]);
-    expect(mapped.rows[0]).toMatchObject({ sampleLabel: "VB-9", basketPosition: "top", counts: { E: 14, F: 6 } });
+    expect(mapped.rows[0]).toMatchObject({
+      sampleLabel: "VB-9",
+      basketPosition: "top",
+      counts: { E: 14, F: 6 },
+    });
   });
 
   it("maps our names case-insensitively", () => {
-    expect(autoMapping(["Sample", "e", "Largest_Fibre_um"])).toEqual({ sample: "Sample", E: "e", largest_fibre_um: "Largest_Fibre_um" });
+    expect(autoMapping(["Sample", "e", "Largest_Fibre_um"])).toEqual({
+      sample: "Sample",
+      E: "e",
+      largest_fibre_um: "Largest_Fibre_um",
+    });
   });
 
   it("reports an empty file and a file with only a header", async () => {
@@ -69,9 +91,11 @@ describe("particle CSV import", () => {
       read() {
         if (i === 0) this.push(`${HEADER}\n`);
         let chunk = "";
-        for (let k = 0; k < 1000 && i < rows; k++, i++) chunk += `S-${i},,no,1,${i % 5000},300,120,40,9,2,1,0,0,0,0,0,0,250\n`;
+        for (let k = 0; k < 1000 && i < rows; k++, i++)
+          chunk += `S-${i},,no,1,${i % 5000},300,120,40,9,2,1,0,0,0,0,0,0,250\n`;
         bytes += chunk.length;
-        if (i === rows && validatedWhenLastChunkWasRead < 0) validatedWhenLastChunkWasRead = validated;
+        if (i === rows && validatedWhenLastChunkWasRead < 0)
+          validatedWhenLastChunkWasRead = validated;
         this.push(chunk === "" ? null : chunk);
       },
     });
@@ -84,22 +108,43 @@ describe("particle CSV import", () => {
     expect(bytes).toBeGreaterThan(5_000_000);
     // Rows were validated while the file was still being read: it was never held whole.
     expect(validatedWhenLastChunkWasRead).toBeGreaterThan(rows * 0.9);
-    console.log(`100,000-row CSV (${(bytes / 1e6).toFixed(1)} MB) validated in ${seconds.toFixed(2)} s`);
+    console.log(
+      `100,000-row CSV (${(bytes / 1e6).toFixed(1)} MB) validated in ${seconds.toFixed(2)} s`,
+    );
   }, 60_000);
 });
 
 describe("gravimetric CSV import", () => {
   it("reads filter weighings in our format, with the same rules as the entry form", async () => {
-    const csv = "sample,worst_case,components,filter_before_mg,filter_after_mg,blank_mg\nVB-1,yes,1,12.40,13.30,0.05\nVB-2,no,,12.10,11.90,\n";
+    const csv =
+      "sample,worst_case,components,filter_before_mg,filter_after_mg,blank_mg\nVB-1,yes,1,12.40,13.30,0.05\nVB-2,no,,12.10,11.90,\n";
     const r = await parseSampleCsv(csv, { testType: "gravimetric" });
     expect(r.rows).toEqual([]);
-    expect(r.errors).toEqual([{ line: 3, message: "The filter after filtration cannot be lighter than before; check the weighing." }]);
+    expect(r.errors).toEqual([
+      {
+        line: 3,
+        message: "The filter after filtration cannot be lighter than before; check the weighing.",
+      },
+    ]);
     const good = await parseSampleCsv(csv.replace("11.90", "12.95"), { testType: "gravimetric" });
     expect(good.errors).toEqual([]);
     // An empty component count is 1, as in the particle format.
     expect(good.rows).toEqual([
-      { sampleLabel: "VB-1", worstCase: true, components: 1, filterBeforeMg: 12.4, filterAfterMg: 13.3, blankMg: 0.05 },
-      { sampleLabel: "VB-2", worstCase: false, components: 1, filterBeforeMg: 12.1, filterAfterMg: 12.95 },
+      {
+        sampleLabel: "VB-1",
+        worstCase: true,
+        components: 1,
+        filterBeforeMg: 12.4,
+        filterAfterMg: 13.3,
+        blankMg: 0.05,
+      },
+      {
+        sampleLabel: "VB-2",
+        worstCase: false,
+        components: 1,
+        filterBeforeMg: 12.1,
+        filterAfterMg: 12.95,
+      },
     ]);
   });
 
@@ -111,16 +156,37 @@ describe("gravimetric CSV import", () => {
       'No column holds the filter mass before filtration: name one "filter_before_mg" or map it.',
       'No column holds the filter mass after filtration: name one "filter_after_mg" or map it.',
     ]);
-    expect(autoMapping(["Sample", "Tare_mg", "after_mg", "E"], "gravimetric")).toEqual({ sample: "Sample", filter_before_mg: "Tare_mg", filter_after_mg: "after_mg" });
-    const mapped = await parseSampleCsv(csv, { testType: "gravimetric", mapping: { sample: "Part", filter_before_mg: "Tare (mg)", filter_after_mg: "Gross (mg)" } });
-    expect(mapped.rows).toEqual([{ sampleLabel: "VB-7", worstCase: false, components: 1, filterBeforeMg: 12, filterAfterMg: 12.8 }]);
+    expect(autoMapping(["Sample", "Tare_mg", "after_mg", "E"], "gravimetric")).toEqual({
+      sample: "Sample",
+      filter_before_mg: "Tare_mg",
+      filter_after_mg: "after_mg",
+    });
+    const mapped = await parseSampleCsv(csv, {
+      testType: "gravimetric",
+      mapping: { sample: "Part", filter_before_mg: "Tare (mg)", filter_after_mg: "Gross (mg)" },
+    });
+    expect(mapped.rows).toEqual([
+      {
+        sampleLabel: "VB-7",
+        worstCase: false,
+        components: 1,
+        filterBeforeMg: 12,
+        filterAfterMg: 12.8,
+      },
+    ]);
   });
 });
 
 describe("a large file does not hold the server", () => {
   it("lets other work run between batches of validated rows (a file already in memory is parsed in one go otherwise)", async () => {
     const rows = 3000;
-    const csv = [HEADER, ...Array.from({ length: rows }, (_, i) => `S-${i},,no,1,${i % 5000},300,120,40,9,2,1,0,0,0,0,0,0,250`)].join("\n");
+    const csv = [
+      HEADER,
+      ...Array.from(
+        { length: rows },
+        (_, i) => `S-${i},,no,1,${i % 5000},300,120,40,9,2,1,0,0,0,0,0,0,250`,
+      ),
+    ].join("\n");
     let turns = 0;
     let running = true;
     const tick = () => {

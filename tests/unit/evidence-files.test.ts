@@ -19,18 +19,34 @@ describe("file type from the bytes", () => {
 
 describe("upload checks", () => {
   it("accepts a file whose bytes match its extension", () => {
-    expect(checkUpload({ name: "Lab report 12.pdf", bytes: PDF, maxBytes: 25 * MB })).toEqual({ type: "pdf", mime: "application/pdf", name: "Lab report 12.pdf" });
+    expect(checkUpload({ name: "Lab report 12.pdf", bytes: PDF, maxBytes: 25 * MB })).toEqual({
+      type: "pdf",
+      mime: "application/pdf",
+      name: "Lab report 12.pdf",
+    });
     expect(checkUpload({ name: "membrane.JPG", bytes: JPEG, maxBytes: 25 * MB }).type).toBe("jpeg");
   });
   it("refuses bytes that do not match the extension", () => {
-    expect(() => checkUpload({ name: "report.pdf", bytes: PNG, maxBytes: 25 * MB })).toThrow(/named as a PDF, but its contents are a PNG image/);
-    expect(() => checkUpload({ name: "photo.png", bytes: new Uint8Array([0x4d, 0x5a, 0, 0]), maxBytes: 25 * MB })).toThrow(/not a PDF, PNG, JPEG or CSV/);
+    expect(() => checkUpload({ name: "report.pdf", bytes: PNG, maxBytes: 25 * MB })).toThrow(
+      /named as a PDF, but its contents are a PNG image/,
+    );
+    expect(() =>
+      checkUpload({
+        name: "photo.png",
+        bytes: new Uint8Array([0x4d, 0x5a, 0, 0]),
+        maxBytes: 25 * MB,
+      }),
+    ).toThrow(/not a PDF, PNG, JPEG or CSV/);
   });
   it("refuses a file over the limit", () => {
-    expect(() => checkUpload({ name: "big.pdf", bytes: new Uint8Array(2 * MB + 1), maxBytes: 2 * MB })).toThrow(/the limit is 2\.0 MB/);
+    expect(() =>
+      checkUpload({ name: "big.pdf", bytes: new Uint8Array(2 * MB + 1), maxBytes: 2 * MB }),
+    ).toThrow(/the limit is 2\.0 MB/);
   });
   it("refuses a name that leaves the folder", () => {
-    expect(() => checkUpload({ name: "../../etc/passwd", bytes: CSV, maxBytes: 25 * MB })).toThrow(/folder path/);
+    expect(() => checkUpload({ name: "../../etc/passwd", bytes: CSV, maxBytes: 25 * MB })).toThrow(
+      /folder path/,
+    );
     expect(() => sanitizeFileName("..\\..\\boot.ini")).toThrow(/folder path/);
     expect(() => sanitizeFileName(".htaccess")).toThrow(/starts with a dot/);
   });
@@ -39,7 +55,11 @@ describe("upload checks", () => {
     expect(sanitizeFileName(`${"a".repeat(300)}.pdf`)).toHaveLength(120);
   });
   it("refuses a CSV whose cells start with = + - @", () => {
-    const bytes = new TextEncoder().encode('sample,E\n=cmd|" /C calc"!A0,1\nVB-2,+5\nVB-3,-2\n@SUM(1),3\n');
-    expect(() => checkUpload({ name: "counts.csv", bytes, maxBytes: 25 * MB })).toThrow(/row 2, column 1 starts with "="; row 3, column 2 starts with "\+"; row 4, column 2 starts with "-"; row 5, column 1 starts with "@"/);
+    const bytes = new TextEncoder().encode(
+      'sample,E\n=cmd|" /C calc"!A0,1\nVB-2,+5\nVB-3,-2\n@SUM(1),3\n',
+    );
+    expect(() => checkUpload({ name: "counts.csv", bytes, maxBytes: 25 * MB })).toThrow(
+      /row 2, column 1 starts with "="; row 3, column 2 starts with "\+"; row 4, column 2 starts with "-"; row 5, column 1 starts with "@"/,
+    );
   });
 });

@@ -45,13 +45,30 @@ describe("local disk layout", () => {
 let server: S3rver;
 let endpoint = "";
 beforeAll(async () => {
-  server = new S3rver({ port: 0, address: "127.0.0.1", silent: true, directory: mkdtempSync(join(tmpdir(), "washproof-s3-")) });
+  server = new S3rver({
+    port: 0,
+    address: "127.0.0.1",
+    silent: true,
+    directory: mkdtempSync(join(tmpdir(), "washproof-s3-")),
+  });
   const { port } = await server.run();
   endpoint = `http://127.0.0.1:${port}`;
-  const client = new S3Client({ endpoint, region: "us-east-1", forcePathStyle: true, credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" } });
+  const client = new S3Client({
+    endpoint,
+    region: "us-east-1",
+    forcePathStyle: true,
+    credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" },
+  });
   await client.send(new CreateBucketCommand({ Bucket: "washproof-evidence" }));
 });
 afterAll(() => server?.close());
 storeContract("S3-compatible", () =>
-  s3Store({ bucket: "washproof-evidence", endpoint, region: "us-east-1", forcePathStyle: true, accessKeyId: "S3RVER", secretAccessKey: "S3RVER" }),
+  s3Store({
+    bucket: "washproof-evidence",
+    endpoint,
+    region: "us-east-1",
+    forcePathStyle: true,
+    accessKeyId: "S3RVER",
+    secretAccessKey: "S3RVER",
+  }),
 );

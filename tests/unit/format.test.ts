@@ -1,6 +1,19 @@
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
-import { dateTimeFieldValue, fileStamp, formatDate, formatDateTime, parseUtc, todayUtc } from "@/lib/format/date";
-import { formatBytes, formatNumber, formatSize, rangeWithUnit, withUnit } from "@/lib/format/number";
+import {
+  dateTimeFieldValue,
+  fileStamp,
+  formatDate,
+  formatDateTime,
+  parseUtc,
+  todayUtc,
+} from "@/lib/format/date";
+import {
+  formatBytes,
+  formatNumber,
+  formatSize,
+  rangeWithUnit,
+  withUnit,
+} from "@/lib/format/number";
 import { humanize } from "@/lib/format/labels";
 
 // Every stored time is ISO-8601 UTC (DEVELOPERS.md, Database) and the house date format is the
@@ -40,11 +53,15 @@ describe("formatDateTime", () => {
   });
 
   it("shows seconds for signatures and the audit trail", () => {
-    expect(formatDateTime("2026-06-10T09:00:05.250Z", { seconds: true })).toBe("2026-06-10 09:00:05 UTC");
+    expect(formatDateTime("2026-06-10T09:00:05.250Z", { seconds: true })).toBe(
+      "2026-06-10 09:00:05 UTC",
+    );
   });
 
   it("leaves the marker off where the column heading carries it", () => {
-    expect(formatDateTime("2026-06-10T09:00:05Z", { seconds: true, zone: false })).toBe("2026-06-10 09:00:05");
+    expect(formatDateTime("2026-06-10T09:00:05Z", { seconds: true, zone: false })).toBe(
+      "2026-06-10 09:00:05",
+    );
   });
 
   it("reads a time without a zone (a datetime-local field) as UTC", () => {

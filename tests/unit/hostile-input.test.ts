@@ -22,9 +22,24 @@ const PDF = enc("%PDF-1.7\n%%EOF\n");
 
 describe("CSV export neutralises formulas", () => {
   // [practice] OWASP "CSV Injection": = + - @ and a leading tab or CR start a formula in common spreadsheets.
-  const hostile = ["=1+1", "+SUM(A1)", "-2+3", "@SUM(1)", "\tcmd", "\rcmd", '=HYPERLINK("https://evil.example","x")\nsecond line', "=cmd|' /C calc'!A0\r\nmore"];
+  const hostile = [
+    "=1+1",
+    "+SUM(A1)",
+    "-2+3",
+    "@SUM(1)",
+    "\tcmd",
+    "\rcmd",
+    '=HYPERLINK("https://evil.example","x")\nsecond line',
+    "=cmd|' /C calc'!A0\r\nmore",
+  ];
   it("prefixes every formula-like cell with a quote, also when the cell runs over several lines", () => {
-    const rows = Papa.parse<string[]>(toCsv(["v"], hostile.map((h) => [h])), { newline: "\r\n" }).data.slice(1);
+    const rows = Papa.parse<string[]>(
+      toCsv(
+        ["v"],
+        hostile.map((h) => [h]),
+      ),
+      { newline: "\r\n" },
+    ).data.slice(1);
     expect(rows.map((r) => r[0])).toEqual(hostile.map((h) => `'${h}`));
   });
   it("leaves ordinary text, numbers and inner signs alone", () => {
@@ -36,20 +51,52 @@ describe("CSV export neutralises formulas", () => {
 describe("uploads that lie about their type or name", () => {
   const cases: [string, Uint8Array, RegExp][] = [
     ["report.png", PDF, /named as a PNG image, but its contents are a PDF/],
-    ["report.pdf", enc("<!doctype html><script>alert(1)</script>"), /named as a PDF, but its contents are an HTML page/],
+    [
+      "report.pdf",
+      enc("<!doctype html><script>alert(1)</script>"),
+      /named as a PDF, but its contents are an HTML page/,
+    ],
     // An HTML file renamed .png was called "a CSV table": name what it is.
-    ["photo.png", enc("<html><body><script>alert(1)</script></body></html>"), /named as a PNG image, but its contents are an HTML page, not a PDF, PNG, JPEG or CSV file/],
-    ["readings.csv", enc("<!DOCTYPE html>\n<p>a,b</p>"), /named as a CSV table, but its contents are an HTML page/],
-    ["drawing.png", enc('<?xml version="1.0"?><svg xmlns="http://www.w3.org/2000/svg"/>'), /contents are an SVG image/],
+    [
+      "photo.png",
+      enc("<html><body><script>alert(1)</script></body></html>"),
+      /named as a PNG image, but its contents are an HTML page, not a PDF, PNG, JPEG or CSV file/,
+    ],
+    [
+      "readings.csv",
+      enc("<!DOCTYPE html>\n<p>a,b</p>"),
+      /named as a CSV table, but its contents are an HTML page/,
+    ],
+    [
+      "drawing.png",
+      enc('<?xml version="1.0"?><svg xmlns="http://www.w3.org/2000/svg"/>'),
+      /contents are an SVG image/,
+    ],
     ["notes.pdf", enc("just some words"), /named as a PDF, but its contents are plain text/],
     ["scan.jpg", new Uint8Array([0x47, 0x49, 0x46, 0x38, 0x39, 0x61]), /contents are a GIF image/],
-    ["drawing.pdf", enc('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>'), /named as a PDF/],
-    ["drawing.png", enc('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), /named as a PNG image/],
+    [
+      "drawing.pdf",
+      enc('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>'),
+      /named as a PDF/,
+    ],
+    [
+      "drawing.png",
+      enc('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'),
+      /named as a PNG image/,
+    ],
     ["drawing.svg", enc("<svg/>"), /is not a PDF, PNG, JPEG or CSV file/],
     ["page.html", enc("<p>hi</p>"), /is not a PDF, PNG, JPEG or CSV file/],
     ["setup.exe", new Uint8Array([0x4d, 0x5a, 0x90, 0, 3]), /is not a PDF, PNG, JPEG or CSV file/],
-    ["setup.pdf", new Uint8Array([0x4d, 0x5a, 0x90, 0, 3]), /contents are a Windows program, not a PDF, PNG, JPEG or CSV file/],
-    ["archive.csv", new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0, 0]), /contents are a ZIP archive \(or an Office document\), not a PDF, PNG, JPEG or CSV file/],
+    [
+      "setup.pdf",
+      new Uint8Array([0x4d, 0x5a, 0x90, 0, 3]),
+      /contents are a Windows program, not a PDF, PNG, JPEG or CSV file/,
+    ],
+    [
+      "archive.csv",
+      new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0, 0]),
+      /contents are a ZIP archive \(or an Office document\), not a PDF, PNG, JPEG or CSV file/,
+    ],
   ];
   it.each(cases)("refuses %s", (name, bytes, message) => {
     expect(() => checkUpload({ name, bytes, maxBytes: 25 * MB })).toThrow(message);
@@ -76,34 +123,70 @@ describe("uploads that lie about their type or name", () => {
     expect(name.endsWith(".pdf")).toBe(true);
   });
   it("turns markup and quote characters into underscores, so a name is never markup or a header break-out", () => {
-    expect(sanitizeFileName('x"><img src=1 onerror=alert(1)>.pdf')).toBe("x___img src_1 onerror_alert(1)_.pdf");
+    expect(sanitizeFileName('x"><img src=1 onerror=alert(1)>.pdf')).toBe(
+      "x___img src_1 onerror_alert(1)_.pdf",
+    );
     expect(sanitizeFileName("a;b'c`d.pdf")).toBe("a_b_c_d.pdf");
   });
 });
 
 describe("origin check on state-changing requests", () => {
-  const base: OriginInput = { method: "POST", origin: "http://127.0.0.1:3100", secFetchSite: "same-origin", host: "127.0.0.1:3100", forwardedHost: null, appUrl: "http://127.0.0.1:3100", hasSessionCookie: true };
+  const base: OriginInput = {
+    method: "POST",
+    origin: "http://127.0.0.1:3100",
+    secFetchSite: "same-origin",
+    host: "127.0.0.1:3100",
+    forwardedHost: null,
+    appUrl: "http://127.0.0.1:3100",
+    hasSessionCookie: true,
+  };
   it("lets our own origin and safe methods through", () => {
     expect(isCrossSiteWrite(base)).toBe(false);
-    expect(isCrossSiteWrite({ ...base, method: "GET", origin: "https://evil.example", secFetchSite: "cross-site" })).toBe(false);
-    expect(isCrossSiteWrite({ ...base, host: "10.0.0.5:3000", forwardedHost: "127.0.0.1:3100" })).toBe(false);
+    expect(
+      isCrossSiteWrite({
+        ...base,
+        method: "GET",
+        origin: "https://evil.example",
+        secFetchSite: "cross-site",
+      }),
+    ).toBe(false);
+    expect(
+      isCrossSiteWrite({ ...base, host: "10.0.0.5:3000", forwardedHost: "127.0.0.1:3100" }),
+    ).toBe(false);
     expect(isCrossSiteWrite({ ...base, origin: null, secFetchSite: null })).toBe(false);
   });
   it("refuses another site, a look-alike host, another port, a null origin and a cross-site fetch without Origin", () => {
-    for (const origin of ["https://evil.example", "http://127.0.0.1.evil.example", "http://127.0.0.1:3101", "null", "file:///x", "not a url"]) {
+    for (const origin of [
+      "https://evil.example",
+      "http://127.0.0.1.evil.example",
+      "http://127.0.0.1:3101",
+      "null",
+      "file:///x",
+      "not a url",
+    ]) {
       expect(isCrossSiteWrite({ ...base, origin }), origin).toBe(true);
     }
-    for (const method of ["PUT", "PATCH", "DELETE", "post"]) expect(isCrossSiteWrite({ ...base, method, origin: "https://evil.example" }), method).toBe(true);
+    for (const method of ["PUT", "PATCH", "DELETE", "post"])
+      expect(isCrossSiteWrite({ ...base, method, origin: "https://evil.example" }), method).toBe(
+        true,
+      );
     expect(isCrossSiteWrite({ ...base, origin: null, secFetchSite: "cross-site" })).toBe(true);
     expect(isCrossSiteWrite({ ...base, origin: null, secFetchSite: "same-site" })).toBe(true);
   });
   it("leaves requests without the session cookie to their bearer token", () => {
-    expect(isCrossSiteWrite({ ...base, origin: "https://evil.example", hasSessionCookie: false })).toBe(false);
+    expect(
+      isCrossSiteWrite({ ...base, origin: "https://evil.example", hasSessionCookie: false }),
+    ).toBe(false);
   });
 });
 
 describe("cross-site reads of audited /api routes", () => {
-  const base = { method: "GET", path: "/api/audit-events/export", secFetchSite: "same-origin", hasSessionCookie: true };
+  const base = {
+    method: "GET",
+    path: "/api/audit-events/export",
+    secFetchSite: "same-origin",
+    hasSessionCookie: true,
+  };
   it("refuses a link or image on another site that would export or download in the user's name", () => {
     for (const path of ["/api/audit-events/export", "/api/audit-pack/x", "/api/evidence/files/y"]) {
       expect(isCrossSiteApiRead({ ...base, path, secFetchSite: "cross-site" }), path).toBe(true);
@@ -114,9 +197,15 @@ describe("cross-site reads of audited /api routes", () => {
     expect(isCrossSiteApiRead(base)).toBe(false);
     expect(isCrossSiteApiRead({ ...base, secFetchSite: "none" })).toBe(false);
     expect(isCrossSiteApiRead({ ...base, secFetchSite: null })).toBe(false);
-    expect(isCrossSiteApiRead({ ...base, secFetchSite: "cross-site", hasSessionCookie: false })).toBe(false);
-    expect(isCrossSiteApiRead({ ...base, path: "/api/v1/recipes", secFetchSite: "cross-site" })).toBe(false);
-    expect(isCrossSiteApiRead({ ...base, path: "/changes", secFetchSite: "cross-site" })).toBe(false);
+    expect(
+      isCrossSiteApiRead({ ...base, secFetchSite: "cross-site", hasSessionCookie: false }),
+    ).toBe(false);
+    expect(
+      isCrossSiteApiRead({ ...base, path: "/api/v1/recipes", secFetchSite: "cross-site" }),
+    ).toBe(false);
+    expect(isCrossSiteApiRead({ ...base, path: "/changes", secFetchSite: "cross-site" })).toBe(
+      false,
+    );
     expect(isCrossSiteApiRead({ ...base, method: "POST", secFetchSite: "cross-site" })).toBe(false);
   });
 });
@@ -126,14 +215,18 @@ describe("e-mail", () => {
     const hostile = `<script>alert(1)</script><img src=x onerror="alert(1)">`;
     const mail = renderEmail({ subject: hostile, paragraphs: [`Sent back: ${hostile}`] });
     expect(mail.html).not.toMatch(/<script|<img/);
-    expect(mail.html).toContain("&lt;script&gt;alert(1)&lt;/script&gt;&lt;img src=x onerror=&quot;alert(1)&quot;&gt;");
+    expect(mail.html).toContain(
+      "&lt;script&gt;alert(1)&lt;/script&gt;&lt;img src=x onerror=&quot;alert(1)&quot;&gt;",
+    );
     expect(mail.text).toContain(hostile);
   });
 });
 
 describe("security headers", () => {
   it("pins HTTPS only in production over HTTPS, and never allows eval in production", () => {
-    expect(securityHeaders({ nonce: "n", dev: false, https: true }).hsts).toBe("max-age=63072000; includeSubDomains");
+    expect(securityHeaders({ nonce: "n", dev: false, https: true }).hsts).toBe(
+      "max-age=63072000; includeSubDomains",
+    );
     expect(securityHeaders({ nonce: "n", dev: false, https: false }).hsts).toBeNull();
     expect(securityHeaders({ nonce: "n", dev: true, https: true }).hsts).toBeNull();
     const csp = securityHeaders({ nonce: "abc", dev: false, https: true }).csp;
@@ -155,10 +248,29 @@ describe("upload size at the service, with a small limit", () => {
     t = await createTestDatabase();
     setStore(localStore(storeDir));
     await seedDemo(t.db);
-    [tech] = await t.db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, "technician@fennmoor.example"));
-    const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
-    const [version] = await t.db.select({ id: recipeVersions.id }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
-    runId = (await createRun(tech, { partFamilyId: family.id, recipeVersionId: version.id, testType: "gravimetric", technicianId: tech.id, lab: "Larchfield lab", performedOn: "2026-11-20" } as never)).id;
+    [tech] = await t.db
+      .select({ id: users.id, name: users.name })
+      .from(users)
+      .where(eq(users.email, "technician@fennmoor.example"));
+    const [family] = await t.db
+      .select()
+      .from(partFamilies)
+      .where(eq(partFamilies.code, "PF-VB-210"));
+    const [version] = await t.db
+      .select({ id: recipeVersions.id })
+      .from(recipeVersions)
+      .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+      .where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
+    runId = (
+      await createRun(tech, {
+        partFamilyId: family.id,
+        recipeVersionId: version.id,
+        testType: "gravimetric",
+        technicianId: tech.id,
+        lab: "Larchfield lab",
+        performedOn: "2026-11-20",
+      } as never)
+    ).id;
   });
   afterAll(() => {
     t.cleanup();
@@ -171,11 +283,20 @@ describe("upload size at the service, with a small limit", () => {
     const over = new Uint8Array(uploadLimitBytes() + 1);
     over.set(PDF);
     const stored = readdirSync(storeDir, { recursive: true });
-    await expect(storeEvidenceFile(tech, { runId, name: "big.pdf", bytes: over, kind: "lab_report" })).rejects.toThrow("The file is 10.2 kB; the limit is 10.2 kB.");
-    expect(await t.db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, runId))).toHaveLength(0);
+    await expect(
+      storeEvidenceFile(tech, { runId, name: "big.pdf", bytes: over, kind: "lab_report" }),
+    ).rejects.toThrow("The file is 10.2 kB; the limit is 10.2 kB.");
+    expect(
+      await t.db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, runId)),
+    ).toHaveLength(0);
     expect(readdirSync(storeDir, { recursive: true })).toEqual(stored);
     const fits = over.slice(0, uploadLimitBytes());
-    const { file } = await storeEvidenceFile(tech, { runId, name: "fits.pdf", bytes: fits, kind: "lab_report" });
+    const { file } = await storeEvidenceFile(tech, {
+      runId,
+      name: "fits.pdf",
+      bytes: fits,
+      kind: "lab_report",
+    });
     expect(file.sizeBytes).toBe(uploadLimitBytes());
   });
 
@@ -183,7 +304,10 @@ describe("upload size at the service, with a small limit", () => {
     const stored = readdirSync(storeDir, { recursive: true });
     const before = (await t.db.select().from(evidenceFiles)).length;
     for (const name of ["../../etc/passwd.pdf", "..\\..\\x.pdf", "a\u0000.pdf"]) {
-      await expect(storeEvidenceFile(tech, { runId, name, bytes: PDF, kind: "lab_report" }), name).rejects.toThrow(/folder path|control characters/);
+      await expect(
+        storeEvidenceFile(tech, { runId, name, bytes: PDF, kind: "lab_report" }),
+        name,
+      ).rejects.toThrow(/folder path|control characters/);
     }
     expect(await t.db.select().from(evidenceFiles)).toHaveLength(before);
     expect(readdirSync(storeDir, { recursive: true })).toEqual(stored);

@@ -11,7 +11,12 @@ let engineer: { id: string; name: string };
 beforeAll(async () => {
   t = await createTestDatabase();
   await seedDemo(t.db);
-  engineer = (await t.db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, "engineer@fennmoor.example")))[0];
+  engineer = (
+    await t.db
+      .select({ id: users.id, name: users.name })
+      .from(users)
+      .where(eq(users.email, "engineer@fennmoor.example"))
+  )[0];
 });
 afterAll(() => t.cleanup());
 
@@ -23,18 +28,35 @@ const FAMILIES =
   "PF-IMP-1,Rail block RB-1,RB-1-01;RB-1-02,Aluminium 6082,310,cad_model,CS-IMP-01\n" +
   "PF-IMP-2,Rail block RB-2,RB-2-01,Aluminium 6082,295,measured,CS-IMP-01\n";
 
-const count = async (table: typeof partFamilies | typeof cleanlinessSpecs) => (await t.db.select().from(table)).length;
+const count = async (table: typeof partFamilies | typeof cleanlinessSpecs) =>
+  (await t.db.select().from(table)).length;
 
 describe("importing master data", () => {
   it("saves a specification and the families that cite it, each audited as if typed", async () => {
     const specs = parseMasterDataCsv("specifications", SPECS);
-    expect(await importMasterData(engineer, { kind: "specifications", rows: specs.rows })).toEqual({ ok: true, imported: 1 });
+    expect(await importMasterData(engineer, { kind: "specifications", rows: specs.rows })).toEqual({
+      ok: true,
+      imported: 1,
+    });
     const families = parseMasterDataCsv("part_families", FAMILIES);
-    expect(await importMasterData(engineer, { kind: "part_families", rows: families.rows })).toEqual({ ok: true, imported: 2 });
+    expect(
+      await importMasterData(engineer, { kind: "part_families", rows: families.rows }),
+    ).toEqual({ ok: true, imported: 2 });
     const [rb1] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-IMP-1"));
-    const [spec] = await t.db.select().from(cleanlinessSpecs).where(eq(cleanlinessSpecs.code, "CS-IMP-01"));
-    expect(rb1).toMatchObject({ specId: spec.id, wettedAreaCm2: 310, partNumbers: ["RB-1-01", "RB-1-02"] });
-    expect((await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, rb1.id))).map((e) => e.action)).toEqual(["part_family.created"]);
+    const [spec] = await t.db
+      .select()
+      .from(cleanlinessSpecs)
+      .where(eq(cleanlinessSpecs.code, "CS-IMP-01"));
+    expect(rb1).toMatchObject({
+      specId: spec.id,
+      wettedAreaCm2: 310,
+      partNumbers: ["RB-1-01", "RB-1-02"],
+    });
+    expect(
+      (await t.db.select().from(auditEvents).where(eq(auditEvents.recordId, rb1.id))).map(
+        (e) => e.action,
+      ),
+    ).toEqual(["part_family.created"]);
   });
 
   it("imports nothing when one row clashes with the register, naming the line", async () => {
@@ -50,7 +72,12 @@ describe("importing master data", () => {
     expect(r).toEqual({
       ok: false,
       errors: [
-        { line: 3, message: expect.stringMatching(/Part number RB-1-02 already belongs to part family PF-IMP-1/) },
+        {
+          line: 3,
+          message: expect.stringMatching(
+            /Part number RB-1-02 already belongs to part family PF-IMP-1/,
+          ),
+        },
         { line: 4, message: expect.stringMatching(/No specification CS-NOPE is in force/) },
       ],
     });
@@ -59,9 +86,17 @@ describe("importing master data", () => {
 
   it("refuses a specification code already in the register and keeps the file's other rows out", async () => {
     const before = await count(cleanlinessSpecs);
-    const rows = parseMasterDataCsv("specifications", SPECS.replace("CS-IMP-01", "CS-IMP-02") + SPECS.split("\n")[1].replace("CS-IMP-01", "CS-VB-01") + "\n").rows;
+    const rows = parseMasterDataCsv(
+      "specifications",
+      SPECS.replace("CS-IMP-01", "CS-IMP-02") +
+        SPECS.split("\n")[1].replace("CS-IMP-01", "CS-VB-01") +
+        "\n",
+    ).rows;
     const r = await importMasterData(engineer, { kind: "specifications", rows });
-    expect(r).toEqual({ ok: false, errors: [{ line: 3, message: expect.stringMatching(/CS-VB-01 is already in the register/) }] });
+    expect(r).toEqual({
+      ok: false,
+      errors: [{ line: 3, message: expect.stringMatching(/CS-VB-01 is already in the register/) }],
+    });
     expect(await count(cleanlinessSpecs)).toBe(before);
   });
 });

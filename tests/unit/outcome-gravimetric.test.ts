@@ -1,13 +1,43 @@
 import { describe, expect, it } from "vitest";
-import { gravimetricOutcome, type GravimetricOutcomeInput } from "@/lib/evidence/outcomes/gravimetric";
+import {
+  gravimetricOutcome,
+  type GravimetricOutcomeInput,
+} from "@/lib/evidence/outcomes/gravimetric";
 import { gravimetricSampleSchema } from "@/lib/schemas/evidence";
 
-const SPEC = { ccc: "A(E8)", maxMetallicUm: null, maxNonMetallicUm: null, maxFibreUm: null, gravimetricLimitMg: 1.5, gravimetricBasis: "per_component" as const, minWettingTensionMNm: null };
+const SPEC = {
+  ccc: "A(E8)",
+  maxMetallicUm: null,
+  maxNonMetallicUm: null,
+  maxFibreUm: null,
+  gravimetricLimitMg: 1.5,
+  gravimetricBasis: "per_component" as const,
+  minWettingTensionMNm: null,
+};
 const FAMILY = { wettedAreaCm2: 37.35, wettedVolumeCm3: null };
-const sample = (raw: Record<string, unknown>) => ({ sampleLabel: "G-1", worstCase: true, data: gravimetricSampleSchema.parse({ sampleLabel: "G-1", components: "3", filterBeforeMg: "100", filterAfterMg: "103", ...raw }) });
-const input = (over: Partial<GravimetricOutcomeInput> & { limit?: number | null; basis?: "per_component" | "per_1000_cm2" }): GravimetricOutcomeInput => ({
+const sample = (raw: Record<string, unknown>) => ({
+  sampleLabel: "G-1",
+  worstCase: true,
+  data: gravimetricSampleSchema.parse({
+    sampleLabel: "G-1",
+    components: "3",
+    filterBeforeMg: "100",
+    filterAfterMg: "103",
+    ...raw,
+  }),
+});
+const input = (
+  over: Partial<GravimetricOutcomeInput> & {
+    limit?: number | null;
+    basis?: "per_component" | "per_1000_cm2";
+  },
+): GravimetricOutcomeInput => ({
   family: FAMILY,
-  spec: { ...SPEC, gravimetricLimitMg: over.limit === undefined ? SPEC.gravimetricLimitMg : over.limit, gravimetricBasis: over.basis ?? SPEC.gravimetricBasis },
+  spec: {
+    ...SPEC,
+    gravimetricLimitMg: over.limit === undefined ? SPEC.gravimetricLimitMg : over.limit,
+    gravimetricBasis: over.basis ?? SPEC.gravimetricBasis,
+  },
   samples: over.samples ?? [sample({})],
 });
 
@@ -37,7 +67,9 @@ describe("gravimetric outcome", () => {
     expect(out.samples[0].outcome).toBe("incomplete");
     expect(out.outcome).toBe("incomplete");
     // [std] the same rule: 0.3 mg is exactly 10 % and qualifies
-    expect(gravimetricOutcome(input({ samples: [sample({ blankMg: "0.3" })] })).outcome).toBe("pass");
+    expect(gravimetricOutcome(input({ samples: [sample({ blankMg: "0.3" })] })).outcome).toBe(
+      "pass",
+    );
   });
 
   it("is incomplete when the specification sets no gravimetric limit", () => {

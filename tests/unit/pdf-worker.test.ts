@@ -12,15 +12,20 @@ const base: DocumentPdfInput = {
   status: "draft",
   effectiveDate: null,
   contentHash: null,
-  content: doc(h(1, "Purpose"), p("Show that the wash at 60 °C ± 2 °C meets CCC = A(N)B(5000)C(700)D(70)E(10)F(1).")),
+  content: doc(
+    h(1, "Purpose"),
+    p("Show that the wash at 60 °C ± 2 °C meets CCC = A(N)B(5000)C(700)D(70)E(10)F(1)."),
+  ),
   signatures: [],
   printedAt: "2026-12-02T10:00:00.000Z",
   printedBy: "Ines Varga",
   letterhead: { companyName: "Fennmoor Fluidtech", siteName: "Larchfield plant" },
 };
 
-const nested = (levels: number): RichNode => (levels === 1 ? ul("innermost") : ul(nested(levels - 1)));
-const text = (bytes: Uint8Array) => execFileSync("pdftotext", ["-", "-"], { input: bytes, encoding: "utf8" });
+const nested = (levels: number): RichNode =>
+  levels === 1 ? ul("innermost") : ul(nested(levels - 1));
+const text = (bytes: Uint8Array) =>
+  execFileSync("pdftotext", ["-", "-"], { input: bytes, encoding: "utf8" });
 
 describe("PDFs render in a worker process", () => {
   it("renders a document to PDF bytes", async () => {
@@ -34,14 +39,18 @@ describe("PDFs render in a worker process", () => {
   it("answers a document that cannot be rendered with its own error, and the next PDF still renders", async () => {
     // Saved content is limited to 10 nested lists; this is what an older or imported record could hold.
     const hostile = { ...base, content: doc(nested(400)) };
-    await expect(renderPdf({ kind: "document", input: hostile })).rejects.toThrow(/could not be rendered as a PDF.*Other PDFs are not affected/);
+    await expect(renderPdf({ kind: "document", input: hostile })).rejects.toThrow(
+      /could not be rendered as a PDF.*Other PDFs are not affected/,
+    );
     const after = await renderPdf({ kind: "document", input: { ...base, number: "VP-0043" } });
     expect(text(after)).toContain("VP-0043");
   }, 120_000);
 
   it("renders jobs one at a time, each answered with its own bytes", async () => {
     const numbers = ["VP-0101", "VP-0102", "VP-0103"];
-    const all = await Promise.all(numbers.map((number) => renderPdf({ kind: "document", input: { ...base, number } })));
+    const all = await Promise.all(
+      numbers.map((number) => renderPdf({ kind: "document", input: { ...base, number } })),
+    );
     all.forEach((bytes, i) => expect(text(bytes)).toContain(numbers[i]));
   }, 120_000);
 });

@@ -57,12 +57,16 @@ describe("role table", () => {
   }
 
   it("the auditor writes nothing", () => {
-    const writes = (Object.keys(PERMISSIONS) as Permission[]).filter((a) => !/\.(view|export)$/.test(a) && !a.startsWith("account."));
+    const writes = (Object.keys(PERMISSIONS) as Permission[]).filter(
+      (a) => !/\.(view|export)$/.test(a) && !a.startsWith("account."),
+    );
     expect(writes.filter((a) => can(["auditor"], a))).toEqual([]);
   });
 
   it("no role may both draft and approve a document by itself, but several roles combine", () => {
-    expect(ROLES.filter((r) => can([r], "document.draft") && can([r], "document.approve"))).toEqual([]);
+    expect(ROLES.filter((r) => can([r], "document.draft") && can([r], "document.approve"))).toEqual(
+      [],
+    );
     expect(can(["engineer", "approver"], "document.approve")).toBe(true);
     expect(can([], "systems.view")).toBe(false);
   });

@@ -31,9 +31,18 @@ describe("setting up an empty installation", () => {
     expect(admin.email).toBe("asha@quillan.example");
     expect(admin.mustChangePassword).toBe(false);
     expect(await verifyPassword(admin.passwordHash, typed.password)).toBe(true);
-    expect(await t.db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, adminId))).toEqual([{ role: "admin" }]);
-    expect((await t.db.select().from(companySettings))[0].companyName).toBe("Quillan Precision Ltd");
-    expect((await t.db.select().from(sites).where(eq(sites.id, siteId)))[0].name).toBe("Eastmoor works");
+    expect(
+      await t.db
+        .select({ role: userRoles.role })
+        .from(userRoles)
+        .where(eq(userRoles.userId, adminId)),
+    ).toEqual([{ role: "admin" }]);
+    expect((await t.db.select().from(companySettings))[0].companyName).toBe(
+      "Quillan Precision Ltd",
+    );
+    expect((await t.db.select().from(sites).where(eq(sites.id, siteId)))[0].name).toBe(
+      "Eastmoor works",
+    );
     const events = await t.db.select().from(auditEvents);
     expect(events.map((e) => e.action)).toEqual(["user.created", "company.set_up", "site.created"]);
     expect(events.every((e) => e.actorId === adminId)).toBe(true);
@@ -44,17 +53,28 @@ describe("setting up an empty installation", () => {
   it("is refused once any user exists, and writes nothing", async () => {
     await setUpPlant(setUpPlantSchema.parse(typed));
     const before = await t.db.select().from(auditEvents);
-    await expect(setUpPlant(setUpPlantSchema.parse({ ...typed, adminEmail: "other@quillan.example" }))).rejects.toThrow(ALREADY_SET_UP);
+    await expect(
+      setUpPlant(setUpPlantSchema.parse({ ...typed, adminEmail: "other@quillan.example" })),
+    ).rejects.toThrow(ALREADY_SET_UP);
     expect(await t.db.select().from(users)).toHaveLength(1);
     expect(await t.db.select().from(sites)).toHaveLength(1);
     expect(await t.db.select().from(auditEvents)).toHaveLength(before.length);
   });
 
   it("keeps today's password rules: at least 12 characters, typed twice alike, not the e-mail", () => {
-    const fields = (input: object) => setUpPlantSchema.safeParse({ ...typed, ...input }).error?.issues.map((i) => i.path.join("."));
-    expect(fields({ password: "short-pass1", confirmPassword: "short-pass1" })).toEqual(["password"]);
+    const fields = (input: object) =>
+      setUpPlantSchema.safeParse({ ...typed, ...input }).error?.issues.map((i) => i.path.join("."));
+    expect(fields({ password: "short-pass1", confirmPassword: "short-pass1" })).toEqual([
+      "password",
+    ]);
     expect(fields({ confirmPassword: "long-enough-pass-2027" })).toEqual(["confirmPassword"]);
-    expect(fields({ password: "asha@quillan.example", confirmPassword: "asha@quillan.example" })).toEqual(["password"]);
-    expect(fields({ companyName: " ", siteName: "", adminEmail: "not-an-address" })).toEqual(["companyName", "siteName", "adminEmail"]);
+    expect(
+      fields({ password: "asha@quillan.example", confirmPassword: "asha@quillan.example" }),
+    ).toEqual(["password"]);
+    expect(fields({ companyName: " ", siteName: "", adminEmail: "not-an-address" })).toEqual([
+      "companyName",
+      "siteName",
+      "adminEmail",
+    ]);
   });
 });

@@ -22,7 +22,11 @@ let versionId = "";
 beforeAll(async () => {
   t = await createTestDatabase();
   await seedDemo(t.db);
-  const [v] = await t.db.select({ id: recipeVersions.id }).from(recipeVersions).innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId)).where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
+  const [v] = await t.db
+    .select({ id: recipeVersions.id })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
   versionId = v.id;
 });
 afterAll(() => t.cleanup());
@@ -32,27 +36,49 @@ describe("parameters in process order", () => {
     const params = await loadParametersInProcessOrder(t.db, [versionId]);
     const keys = params.map((p) => p.key);
     expect(keys[0]).toBe("wash.temperature");
-    expect(params.map((p) => p.stagePosition)).toEqual(params.map((p) => p.stagePosition).sort((a, b) => a - b));
+    expect(params.map((p) => p.stagePosition)).toEqual(
+      params.map((p) => p.stagePosition).sort((a, b) => a - b),
+    );
     expect(inProcessOrder(keys)).toBe(true);
     // The alphabetical order this replaces would have put drying first: the check can fail.
     expect(inProcessOrder([...keys].sort())).toBe(false);
   });
 
   it("writes protocol templates with the wash parameters before the drying ones", async () => {
-    const [engineer] = await t.db.select().from(users).where(eq(users.email, "engineer@fennmoor.example"));
-    const [system] = await t.db.select().from(cleaningSystems).where(eq(cleaningSystems.code, "AW-3"));
+    const [engineer] = await t.db
+      .select()
+      .from(users)
+      .where(eq(users.email, "engineer@fennmoor.example"));
+    const [system] = await t.db
+      .select()
+      .from(cleaningSystems)
+      .where(eq(cleaningSystems.code, "AW-3"));
     const { versionId: docVersion } = await createDocument(
       { id: engineer.id, name: engineer.name, roles: ["engineer"] },
-      { type: "oq_protocol", title: "OQ in process order", systemId: system.id, partFamilyId: null, recipeVersionId: versionId, confidencePct: 95, reliabilityPct: 90 },
+      {
+        type: "oq_protocol",
+        title: "OQ in process order",
+        systemId: system.id,
+        partFamilyId: null,
+        recipeVersionId: versionId,
+        confidencePct: 95,
+        reliabilityPct: 90,
+      },
     );
-    const [row] = await t.db.select().from(documentVersions).where(eq(documentVersions.id, docVersion));
+    const [row] = await t.db
+      .select()
+      .from(documentVersions)
+      .where(eq(documentVersions.id, docVersion));
     const text = JSON.stringify(row.content);
     expect(text.indexOf("Bath temperature")).toBeGreaterThan(-1);
     expect(text.indexOf("Bath temperature")).toBeLessThan(text.indexOf("Drying temperature"));
   });
 
   it("shows a system's effective recipes and the trace search in process order", async () => {
-    const [system] = await t.db.select().from(cleaningSystems).where(eq(cleaningSystems.code, "AW-3"));
+    const [system] = await t.db
+      .select()
+      .from(cleaningSystems)
+      .where(eq(cleaningSystems.code, "AW-3"));
     const page = (await getCleaningSystem(system.id))!;
     for (const r of page.recipes) {
       const keys = r.effectiveVersion!.stages.flatMap((s) => s.parameters.map((p) => p.key));

@@ -15,7 +15,10 @@ const PERFORMED_EVERY = 40; // 150 performed runs among 6,000: waiting runs are 
 beforeAll(async () => {
   t = await createTestDatabase();
   await seedDemo(t.db);
-  [engineer] = await t.db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, "engineer@fennmoor.example"));
+  [engineer] = await t.db
+    .select({ id: users.id, name: users.name })
+    .from(users)
+    .where(eq(users.email, "engineer@fennmoor.example"));
   // Thousands of settled runs copied from a demo run; every 40th is performed and waits for a second person.
   await t.client.execute(`
     insert into test_runs (id, number, part_family_id, recipe_version_id, test_type, status, outcome, revision, technician_id, lab, performed_on, created_by, created_at)
@@ -44,11 +47,19 @@ describe("My queue at plant shape", () => {
 
   it("reads open change requests through the status index", async () => {
     const detail = await plan(sql`select id from change_requests where id in ${openChangeIds}`);
-    expect(detail).toMatch(/SEARCH change_requests USING (COVERING )?INDEX change_requests_status_idx \(status=\?\)/);
+    expect(detail).toMatch(
+      /SEARCH change_requests USING (COVERING )?INDEX change_requests_status_idx \(status=\?\)/,
+    );
   });
 
   it("pages one kind at a time and counts every kind in full", async () => {
-    const user = { ...engineer, email: "", roles: ["engineer"], mustChangePassword: false, sessionId: "s" } as never;
+    const user = {
+      ...engineer,
+      email: "",
+      roles: ["engineer"],
+      mustChangePassword: false,
+      sessionId: "s",
+    } as never;
     const first = await getQueue(user);
     const verify = first.kinds.find((k) => k.kind === VERIFY_KIND)!;
     expect(verify.total).toBeGreaterThanOrEqual(RUNS / PERFORMED_EVERY);

@@ -12,7 +12,10 @@ import { createTestDatabase } from "./support/test-db";
 
 vi.mock("next/headers", async () => (await import("./support/request-context")).nextHeadersMock);
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
-vi.mock("next/server", async (original) => ({ ...(await original<typeof import("next/server")>()), after: vi.fn() }));
+vi.mock("next/server", async (original) => ({
+  ...(await original<typeof import("next/server")>()),
+  after: vi.fn(),
+}));
 
 const { GET: listRunsApi } = await import("@/app/api/v1/test-runs/route");
 const { POST: addSampleApi } = await import("@/app/api/v1/test-runs/[runId]/samples/route");
@@ -47,7 +50,9 @@ beforeAll(async () => {
   people = await peopleByRole(t.db);
   sessionToken = (await createSession(people.engineer.id)).token;
   const runs = await t.client.execute("SELECT id, status, test_type FROM test_runs");
-  openRunId = String(runs.rows.find((r) => r.status === "open" && r.test_type === "particle_cleanliness")!.id);
+  openRunId = String(
+    runs.rows.find((r) => r.status === "open" && r.test_type === "particle_cleanliness")!.id,
+  );
   verifiedRunId = String(runs.rows.find((r) => r.status === "verified")!.id);
   // Everything written so far goes into the main file, then the file is closed and made read-only.
   await t.client.execute("PRAGMA wal_checkpoint(TRUNCATE)");
@@ -64,26 +69,39 @@ afterAll(() => {
   t.cleanup();
 });
 
-const get = (url: string, headers: Record<string, string> = {}) => new NextRequest(url, { headers });
+const get = (url: string, headers: Record<string, string> = {}) =>
+  new NextRequest(url, { headers });
 
 describe("a database file that refuses writes", () => {
   it("is really read-only: a direct write fails with SQLITE_READONLY", async () => {
-    await expect(t.client.execute("UPDATE users SET name = name")).rejects.toMatchObject({ code: expect.stringMatching(/^SQLITE_READONLY/) });
+    await expect(t.client.execute("UPDATE users SET name = name")).rejects.toMatchObject({
+      code: expect.stringMatching(/^SQLITE_READONLY/),
+    });
   });
 
   it("still answers reads, by API token and by session, though the token's last use cannot be recorded", async () => {
-    const api = await listRunsApi(get("http://127.0.0.1/api/v1/test-runs", { authorization: `Bearer ${people.engineer.readToken}` }), { params: Promise.resolve({}) });
+    const api = await listRunsApi(
+      get("http://127.0.0.1/api/v1/test-runs", {
+        authorization: `Bearer ${people.engineer.readToken}`,
+      }),
+      { params: Promise.resolve({}) },
+    );
     expect(api.status).toBe(200);
     expect(((await api.json()) as { data: unknown[] }).data.length).toBeGreaterThan(0);
     setSessionCookie(SESSION_COOKIE, sessionToken);
-    const page = await listRunsSession(get("http://127.0.0.1/api/evidence/runs"), { params: Promise.resolve({}) });
+    const page = await listRunsSession(get("http://127.0.0.1/api/evidence/runs"), {
+      params: Promise.resolve({}),
+    });
     expect(page.status).toBe(200);
   });
 
   it("answers a write through the API with 503 and a sentence that says the database is read-only", async () => {
     const request = new NextRequest(`http://127.0.0.1/api/v1/test-runs/${openRunId}/samples`, {
       method: "POST",
-      headers: { authorization: `Bearer ${people.technician.writeToken}`, "content-type": "application/json" },
+      headers: {
+        authorization: `Bearer ${people.technician.writeToken}`,
+        "content-type": "application/json",
+      },
       body: JSON.stringify({ sampleLabel: "RO-1", components: 1, counts: { E: 1 }, largest: {} }),
     });
     const res = await addSampleApi(request, { params: Promise.resolve({ runId: openRunId }) });

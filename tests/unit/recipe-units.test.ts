@@ -1,7 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { PARAMETER_KINDS } from "@/db/enums";
 import { hazardsOfParameters, hazardsOfStages } from "@/lib/recipes/hazards";
-import { parameterProblems, unitFits, UNITS_BY_KIND, type ParameterCheckInput } from "@/lib/recipes/units";
+import {
+  parameterProblems,
+  unitFits,
+  UNITS_BY_KIND,
+  type ParameterCheckInput,
+} from "@/lib/recipes/units";
 
 const ok = (over: Partial<ParameterCheckInput>): ParameterCheckInput => ({
   kind: "temperature",
@@ -14,10 +19,13 @@ const ok = (over: Partial<ParameterCheckInput>): ParameterCheckInput => ({
 });
 
 describe("units per parameter kind", () => {
-  it.each(PARAMETER_KINDS.filter((k) => k !== "other"))("%s accepts its own units and refuses a foreign one", (kind) => {
-    for (const unit of UNITS_BY_KIND[kind]) expect(unitFits(kind, unit)).toBe(true);
-    expect(unitFits(kind, kind === "spray_pressure" ? "°C" : "bar")).toBe(false);
-  });
+  it.each(PARAMETER_KINDS.filter((k) => k !== "other"))(
+    "%s accepts its own units and refuses a foreign one",
+    (kind) => {
+      for (const unit of UNITS_BY_KIND[kind]) expect(unitFits(kind, unit)).toBe(true);
+      expect(unitFits(kind, kind === "spray_pressure" ? "°C" : "bar")).toBe(false);
+    },
+  );
   it("other accepts any unit that is given", () => {
     expect(unitFits("other", "rpm")).toBe(true);
     expect(unitFits("other", " ")).toBe(false);
@@ -25,20 +33,110 @@ describe("units per parameter kind", () => {
 });
 
 describe("physically impossible values", () => {
-  const table: { name: string; input: ParameterCheckInput; field: string | null; message?: RegExp }[] = [
+  const table: {
+    name: string;
+    input: ParameterCheckInput;
+    field: string | null;
+    message?: RegExp;
+  }[] = [
     { name: "a good wash temperature", input: ok({}), field: null },
-    { name: "an open aqueous bath above 100 °C", input: ok({ setpoint: 105 }), field: "setpoint", message: /boils at about 100 °C/ },
-    { name: "a rinse range reaching above 100 °C", input: ok({ stageKind: "rinse", validatedHigh: 110 }), field: "validatedHigh", message: /boils/ },
-    { name: "a bath below freezing", input: ok({ setpoint: -5, validatedLow: -10 }), field: "setpoint", message: /freezes/ },
-    { name: "a hot-air dryer at 120 °C", input: ok({ kind: "drying_temperature", stageKind: "drying", setpoint: 120, validatedLow: 110, validatedHigh: 130 }), field: null },
-    { name: "a negative wash time", input: ok({ kind: "time", unit: "s", setpoint: -30, validatedLow: 10, validatedHigh: 60 }), field: "setpoint", message: /cannot be negative/ },
-    { name: "a negative validated low time", input: ok({ kind: "time", unit: "min", setpoint: 3, validatedLow: -1, validatedHigh: 5 }), field: "validatedLow", message: /negative/ },
-    { name: "a validated low above its high", input: ok({ validatedLow: 70, validatedHigh: 60, setpoint: 65 }), field: "validatedLow", message: /above the validated high/ },
-    { name: "a concentration over 100 %", input: ok({ kind: "concentration", unit: "%", setpoint: 120, validatedLow: 1, validatedHigh: 5 }), field: "setpoint", message: /100 %/ },
-    { name: "a vacuum above atmospheric pressure", input: ok({ kind: "vacuum_pressure", unit: "mbar", stageKind: "drying", setpoint: 1500, validatedLow: 10, validatedHigh: 50 }), field: "setpoint", message: /1013 mbar/ },
-    { name: "half a part per basket", input: ok({ kind: "basket_loading", unit: "parts/basket", stageKind: "other", setpoint: 12.5, validatedLow: 1, validatedHigh: 24 }), field: "setpoint", message: /whole number/ },
-    { name: "a unit that does not fit the kind", input: ok({ unit: "bar" }), field: "unit", message: /°C, not "bar"/ },
-    { name: "a time in degrees", input: ok({ kind: "time", unit: "°C" }), field: "unit", message: /s or min/ },
+    {
+      name: "an open aqueous bath above 100 °C",
+      input: ok({ setpoint: 105 }),
+      field: "setpoint",
+      message: /boils at about 100 °C/,
+    },
+    {
+      name: "a rinse range reaching above 100 °C",
+      input: ok({ stageKind: "rinse", validatedHigh: 110 }),
+      field: "validatedHigh",
+      message: /boils/,
+    },
+    {
+      name: "a bath below freezing",
+      input: ok({ setpoint: -5, validatedLow: -10 }),
+      field: "setpoint",
+      message: /freezes/,
+    },
+    {
+      name: "a hot-air dryer at 120 °C",
+      input: ok({
+        kind: "drying_temperature",
+        stageKind: "drying",
+        setpoint: 120,
+        validatedLow: 110,
+        validatedHigh: 130,
+      }),
+      field: null,
+    },
+    {
+      name: "a negative wash time",
+      input: ok({ kind: "time", unit: "s", setpoint: -30, validatedLow: 10, validatedHigh: 60 }),
+      field: "setpoint",
+      message: /cannot be negative/,
+    },
+    {
+      name: "a negative validated low time",
+      input: ok({ kind: "time", unit: "min", setpoint: 3, validatedLow: -1, validatedHigh: 5 }),
+      field: "validatedLow",
+      message: /negative/,
+    },
+    {
+      name: "a validated low above its high",
+      input: ok({ validatedLow: 70, validatedHigh: 60, setpoint: 65 }),
+      field: "validatedLow",
+      message: /above the validated high/,
+    },
+    {
+      name: "a concentration over 100 %",
+      input: ok({
+        kind: "concentration",
+        unit: "%",
+        setpoint: 120,
+        validatedLow: 1,
+        validatedHigh: 5,
+      }),
+      field: "setpoint",
+      message: /100 %/,
+    },
+    {
+      name: "a vacuum above atmospheric pressure",
+      input: ok({
+        kind: "vacuum_pressure",
+        unit: "mbar",
+        stageKind: "drying",
+        setpoint: 1500,
+        validatedLow: 10,
+        validatedHigh: 50,
+      }),
+      field: "setpoint",
+      message: /1013 mbar/,
+    },
+    {
+      name: "half a part per basket",
+      input: ok({
+        kind: "basket_loading",
+        unit: "parts/basket",
+        stageKind: "other",
+        setpoint: 12.5,
+        validatedLow: 1,
+        validatedHigh: 24,
+      }),
+      field: "setpoint",
+      message: /whole number/,
+    },
+    {
+      name: "a unit that does not fit the kind",
+      input: ok({ unit: "bar" }),
+      field: "unit",
+      message: /°C, not "bar"/,
+    },
+    {
+      name: "a time in degrees",
+      input: ok({ kind: "time", unit: "°C" }),
+      field: "unit",
+      message: /s or min/,
+    },
   ];
   it.each(table)("$name", ({ input, field, message }) => {
     const problems = parameterProblems(input);
@@ -58,7 +156,9 @@ describe("cautions", () => {
     expect(h[0].text).toMatch(/up to 120 °C/);
   });
   it("stays quiet for a cool rinse and names chemical, hot parts, noise and isolation where they apply", () => {
-    expect(hazardsOfParameters([{ kind: "temperature", setpoint: 30, unit: "°C", validatedHigh: 40 }])).toEqual([]);
+    expect(
+      hazardsOfParameters([{ kind: "temperature", setpoint: 30, unit: "°C", validatedHigh: 40 }]),
+    ).toEqual([]);
     const h = hazardsOfStages([
       { mode: "ultrasonic", parameters: [{ kind: "concentration", setpoint: 3, unit: "%" }] },
       { mode: "vacuum_drying", parameters: [] },

@@ -17,16 +17,27 @@ describe("a run's samples shown a page at a time", () => {
   it("shows the nearest real page for one out of range, and one page for a short run", () => {
     expect(samplePage(all, 99_999).page).toBe(2000);
     expect(samplePage(all, 0).page).toBe(1);
-    expect(samplePage(["a", "b"], 5)).toEqual({ items: ["a", "b"], page: 1, pages: 1, from: 1, to: 2, total: 2 });
+    expect(samplePage(["a", "b"], 5)).toEqual({
+      items: ["a", "b"],
+      page: 1,
+      pages: 1,
+      from: 1,
+      to: 2,
+      total: 2,
+    });
     expect(samplePage([], 1)).toEqual({ items: [], page: 1, pages: 1, from: 0, to: 0, total: 0 });
-    const partial = samplePage(Array.from({ length: 120 }, (_, i) => i), 3);
+    const partial = samplePage(
+      Array.from({ length: 120 }, (_, i) => i),
+      3,
+    );
     expect(partial).toMatchObject({ from: 101, to: 120 });
   });
 
   it("reads the page number from the URL and ignores anything else", () => {
     expect(readSamplePage("7")).toBe(7);
     expect(readSamplePage(["2", "9"])).toBe(2);
-    for (const bad of [undefined, "", "-1", "1e9", "abc", "0x10", "99999999"]) expect(readSamplePage(bad), String(bad)).toBe(1);
+    for (const bad of [undefined, "", "-1", "1e9", "abc", "0x10", "99999999"])
+      expect(readSamplePage(bad), String(bad)).toBe(1);
     expect(readSamplePage("0")).toBe(1);
   });
 });

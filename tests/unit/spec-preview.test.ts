@@ -20,15 +20,26 @@ describe("previewCleanlinessSpec", () => {
   it("reads letters written together as a limit on each class, per component for N()", () => {
     // [std] ISO 16232:2018 notation: EF12 limits E and F each; N() counts per component.
     const each = previewCleanlinessSpec("A(EF12/I0)");
-    expect(each.ok && each.rows[0]).toMatchObject({ classes: "E, F", sizes: "50–150 µm", applies: "each" });
+    expect(each.ok && each.rows[0]).toMatchObject({
+      classes: "E, F",
+      sizes: "50–150 µm",
+      applies: "each",
+    });
     const perPart = previewCleanlinessSpec("N(C-E32000/J-K0)");
     expect(perPart.ok && perPart.basis).toBe("per component");
-    expect(perPart.ok && perPart.rows.map((r) => [r.level, r.limit])).toEqual([[null, "32000"], [null, "0"]]);
+    expect(perPart.ok && perPart.rows.map((r) => [r.level, r.limit])).toEqual([
+      [null, "32000"],
+      [null, "0"],
+    ]);
   });
 
   it("names the character where a malformed specification goes wrong", () => {
     const p = previewCleanlinessSpec("A(B-E17/Z12)");
-    expect(p).toEqual({ ok: false, message: expect.stringMatching(/"Z" in "Z12" is not a size class.*\(at character 9\)$/), position: 9 });
+    expect(p).toEqual({
+      ok: false,
+      message: expect.stringMatching(/"Z" in "Z12" is not a size class.*\(at character 9\)$/),
+      position: 9,
+    });
   });
 
   it("asks for the text when the field is empty, without a position", () => {

@@ -28,14 +28,18 @@ describe("a malformed cleanliness-code specification names the position", () => 
   });
 
   it("says the position in the message a person reads", () => {
-    expect(() => parseCleanlinessSpec("A(B-E17/Z12)")).toThrow(/"Z" in "Z12" is not a size class.*\(at character 9\)/);
+    expect(() => parseCleanlinessSpec("A(B-E17/Z12)")).toThrow(
+      /"Z" in "Z12" is not a size class.*\(at character 9\)/,
+    );
   });
 });
 
 describe("comparing cleanliness codes of two revisions", () => {
   // Level upper bounds [std, ISO 16232:2018 level table]: 12 → 4000, 14 → 16000 [memory], 17 → 130000.
   it("a lower level on the same classes tightens", () => {
-    expect(compareCcc("A(B-E17/F-G14)", "A(B-E16/F-G14)")).toMatchObject({ direction: "tightened" });
+    expect(compareCcc("A(B-E17/F-G14)", "A(B-E16/F-G14)")).toMatchObject({
+      direction: "tightened",
+    });
     expect(compareCcc("A(B-E16/F-G14)", "A(B-E17/F-G14)")).toMatchObject({ direction: "loosened" });
   });
 
@@ -57,7 +61,9 @@ describe("comparing cleanliness codes of two revisions", () => {
   });
 
   it("counts per component compare as counts; a change of basis is treated as tightening", () => {
-    expect(compareCcc("N(C-E2000/F-G120)", "N(C-E2000/F-G100)")).toMatchObject({ direction: "tightened" });
+    expect(compareCcc("N(C-E2000/F-G120)", "N(C-E2000/F-G100)")).toMatchObject({
+      direction: "tightened",
+    });
     expect(compareCcc("N(C-E2000)", "A(C-E17)")).toMatchObject({ direction: "tightened" });
     expect(compareCcc("A( B-E17 )", "A(B-E17)")).toBeNull();
   });
@@ -88,7 +94,9 @@ describe("comparing specification revisions limit by limit", () => {
     expect(compareSpecRevisions(base, { ...base, minWettingTensionMNm: 40 }).tightens).toBe(true);
     expect(compareSpecRevisions(base, { ...base, maxFibreUm: null }).tightens).toBe(false);
     expect(compareSpecRevisions({ ...base, maxFibreUm: null }, base).tightens).toBe(true);
-    expect(compareSpecRevisions(base, { ...base, minWettingTensionMNm: 36 }).changes[0]).toMatchObject({ field: "minWettingTensionMNm", direction: "loosened" });
+    expect(
+      compareSpecRevisions(base, { ...base, minWettingTensionMNm: 36 }).changes[0],
+    ).toMatchObject({ field: "minWettingTensionMNm", direction: "loosened" });
   });
 
   it("a gravimetric limit moved to another basis cannot be compared and counts as tightening", () => {
@@ -98,13 +106,18 @@ describe("comparing specification revisions limit by limit", () => {
   });
 
   it("reworded criteria are listed for a person to judge, not counted as tightening", () => {
-    const result = compareSpecRevisions(base, { ...base, visualCriteria: "No water stains under 5× magnification" });
+    const result = compareSpecRevisions(base, {
+      ...base,
+      visualCriteria: "No water stains under 5× magnification",
+    });
     expect(result.changes).toHaveLength(1);
     expect(result.changes[0].direction).toBe("changed");
     expect(result.tightens).toBe(false);
   });
 
   it("a customer who now approves process changes tightens", () => {
-    expect(compareSpecRevisions(base, { ...base, customerApprovesChanges: true }).tightens).toBe(true);
+    expect(compareSpecRevisions(base, { ...base, customerApprovesChanges: true }).tightens).toBe(
+      true,
+    );
   });
 });

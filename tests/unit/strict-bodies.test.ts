@@ -4,9 +4,20 @@ import { unknownFieldErrors } from "@/lib/api/strict-keys";
 import { particleSampleSchema } from "@/lib/schemas/evidence";
 import { JSON_BODY_LIMIT_BYTES, parseBody } from "@/lib/server/api/handler";
 
-const particle = { sampleLabel: "P-1", worstCase: true, components: 1, counts: { B: 100 }, splitMeasured: false, largest: {} };
+const particle = {
+  sampleLabel: "P-1",
+  worstCase: true,
+  components: 1,
+  counts: { B: 100 },
+  splitMeasured: false,
+  largest: {},
+};
 const post = (body: string, headers: Record<string, string> = {}) =>
-  new Request("http://127.0.0.1/api/v1/x", { method: "POST", headers: { "content-type": "application/json", ...headers }, body });
+  new Request("http://127.0.0.1/api/v1/x", {
+    method: "POST",
+    headers: { "content-type": "application/json", ...headers },
+    body,
+  });
 
 describe("unknown keys are refused at any depth, named by their path", () => {
   it("a lower-case particle class is named, with the class it most likely meant", () => {
@@ -18,7 +29,14 @@ describe("unknown keys are refused at any depth, named by their path", () => {
 
   it("a well-formed sample passes, and so do the schema's own optional groups", () => {
     expect(unknownFieldErrors(particleSampleSchema, particle)).toBeNull();
-    expect(unknownFieldErrors(particleSampleSchema, { ...particle, splitMeasured: true, metallic: { B: 100 }, largest: { metallicUm: 200 } })).toBeNull();
+    expect(
+      unknownFieldErrors(particleSampleSchema, {
+        ...particle,
+        splitMeasured: true,
+        metallic: { B: 100 },
+        largest: { metallicUm: 200 },
+      }),
+    ).toBeNull();
   });
 
   it("looks into lists, records and unions", () => {
@@ -27,20 +45,30 @@ describe("unknown keys are refused at any depth, named by their path", () => {
       byName: z.record(z.string(), z.object({ v: z.number() })),
       either: z.union([z.object({ x: z.number() }), z.object({ y: z.number() })]),
     });
-    const errors = unknownFieldErrors(schema, { rows: [{ a: 1 }, { a: 1, A: 2 }], byName: { k: { v: 1, w: 2 } }, either: { y: 1 }, extra: 1 });
+    const errors = unknownFieldErrors(schema, {
+      rows: [{ a: 1 }, { a: 1, A: 2 }],
+      byName: { k: { v: 1, w: 2 } },
+      either: { y: 1 },
+      extra: 1,
+    });
     expect(Object.keys(errors ?? {}).sort()).toEqual(["byName.k.w", "extra", "rows.1.A"]);
     expect(unknownFieldErrors(schema, { rows: [], byName: {}, either: { x: 1 } })).toBeNull();
   });
 
   it("an object open by design (catchall) takes any key", () => {
-    expect(unknownFieldErrors(z.object({ a: z.number() }).catchall(z.number()), { a: 1, b: 2 })).toBeNull();
+    expect(
+      unknownFieldErrors(z.object({ a: z.number() }).catchall(z.number()), { a: 1, b: 2 }),
+    ).toBeNull();
     expect(unknownFieldErrors(z.object({ a: z.number() }).strict(), { a: 1, b: 2 })).not.toBeNull();
   });
 });
 
 describe("parseBody", () => {
   it("refuses an unknown nested key with 422 naming it, and stores nothing (the caller never sees data)", async () => {
-    const res = await parseBody(post(JSON.stringify({ ...particle, counts: { b: 100 } })), particleSampleSchema);
+    const res = await parseBody(
+      post(JSON.stringify({ ...particle, counts: { b: 100 } })),
+      particleSampleSchema,
+    );
     expect(res.ok).toBe(false);
     if (res.ok) return;
     expect(res.response.status).toBe(422);
@@ -57,7 +85,12 @@ describe("parseBody", () => {
       new Request("http://127.0.0.1/api/v1/x", {
         method: "POST",
         headers: { "content-type": "application/json" },
-        body: new ReadableStream({ start(c) { c.enqueue(new TextEncoder().encode(big)); c.close(); } }),
+        body: new ReadableStream({
+          start(c) {
+            c.enqueue(new TextEncoder().encode(big));
+            c.close();
+          },
+        }),
         duplex: "half",
       } as RequestInit),
     ]) {

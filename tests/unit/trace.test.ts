@@ -40,14 +40,35 @@ let valveBody = "";
 
 /** A minor change of the valve body's wash temperature, driven through change control as a user would. */
 async function changeWashTemperature(title: string, setpoint: string) {
-  const cr = await openChangeRequest(people.engineer, { recipeId: valveBody, title, kind: "parameter_change" });
+  const cr = await openChangeRequest(people.engineer, {
+    recipeId: valveBody,
+    title,
+    kind: "parameter_change",
+  });
   const s = await loadChangeState(t.db, cr.id);
   const narrative = `Bath set to ${setpoint} °C after the detergent supplier's new batch.\n\nRisk: inside the range proven in the PQ; burn hazard at the tank as before.`;
-  await saveProposal(people.engineer, proposalSchema.parse(proposalForm(s, (p) => p.key === "wash.temperature" && (p.setpoint = setpoint), { title })));
+  await saveProposal(
+    people.engineer,
+    proposalSchema.parse(
+      proposalForm(s, (p) => p.key === "wash.temperature" && (p.setpoint = setpoint), { title }),
+    ),
+  );
   // The justification is a change-narrative document, saved through the documents editor's own service.
   const drafted = await loadChangeState(t.db, cr.id);
-  await saveDraft({ ...people.engineer, roles: ["engineer"] }, { versionId: drafted.narrative!.id, lockVersion: drafted.narrative!.lockVersion, content: narrativeDocument(narrative) as RichDoc, overwrite: false });
-  const signing = async () => ({ changeRequestId: cr.id, password: DEMO_PASSWORD, contentHash: (await loadChangeState(t.db, cr.id)).contentHash });
+  await saveDraft(
+    { ...people.engineer, roles: ["engineer"] },
+    {
+      versionId: drafted.narrative!.id,
+      lockVersion: drafted.narrative!.lockVersion,
+      content: narrativeDocument(narrative) as RichDoc,
+      overwrite: false,
+    },
+  );
+  const signing = async () => ({
+    changeRequestId: cr.id,
+    password: DEMO_PASSWORD,
+    contentHash: (await loadChangeState(t.db, cr.id)).contentHash,
+  });
   await assessChange(people.engineer, await signing());
   await approveChange(people.approver, await signing());
   await verifyChange(people.reviewer, await signing());
@@ -60,7 +81,10 @@ beforeAll(async () => {
   t = await createTestDatabase();
   await seedDemo(t.db);
   for (const role of ["engineer", "approver", "reviewer", "auditor"]) {
-    const [u] = await t.db.select().from(users).where(eq(users.email, `${role}@fennmoor.example`));
+    const [u] = await t.db
+      .select()
+      .from(users)
+      .where(eq(users.email, `${role}@fennmoor.example`));
     people[role] = { id: u.id, name: u.name };
   }
   valveBody = (await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB")))[0].id;
@@ -80,8 +104,11 @@ describe("parameter history", () => {
     let withChanges = 0;
     for (const p of all) {
       const batched = await getParameterHistory({ recipeId: p.recipeId, key: p.key });
-      expect(batched).toEqual(await referenceParameterHistory({ recipeId: p.recipeId, key: p.key }));
-      if (batched?.entries.some((e) => e.change?.signatures.length && e.change.evidence.length)) withChanges += 1;
+      expect(batched).toEqual(
+        await referenceParameterHistory({ recipeId: p.recipeId, key: p.key }),
+      );
+      if (batched?.entries.some((e) => e.change?.signatures.length && e.change.evidence.length))
+        withChanges += 1;
     }
     // The comparison covers changes with signatures and evidence, not only parameters that never changed.
     expect(withChanges).toBeGreaterThan(0);
@@ -109,14 +136,22 @@ describe("parameter history", () => {
 
   it("lists every value a parameter that changed several times has had, in order, each with the change that brought it", async () => {
     const h = (await getParameterHistory({ recipeId: valveBody, key: "wash.temperature" }))!;
-    expect(h.entries.map((e) => [e.period.value?.setpoint, e.period.status, e.period.change, e.change?.number ?? null])).toEqual([
+    expect(
+      h.entries.map((e) => [
+        e.period.value?.setpoint,
+        e.period.status,
+        e.period.change,
+        e.change?.number ?? null,
+      ]),
+    ).toEqual([
       [55, "superseded", "first", null],
       [60, "superseded", "changed", "CR-2025-001"],
       [62, "superseded", "changed", expect.stringMatching(/^CR-\d{4}-\d{3}$/)],
       [58, "effective", "changed", expect.stringMatching(/^CR-\d{4}-\d{3}$/)],
     ]);
     // Periods follow each other without gap or overlap: each ends when the next takes effect.
-    for (let i = 1; i < h.entries.length; i++) expect(h.entries[i - 1].period.effectiveTo).toBe(h.entries[i].period.effectiveFrom);
+    for (let i = 1; i < h.entries.length; i++)
+      expect(h.entries[i - 1].period.effectiveTo).toBe(h.entries[i].period.effectiveFrom);
     expect(h.entries[3].period.effectiveTo).toBeNull();
     const last = h.entries[3].change!;
     expect(last.justification).toMatch(/^Bath set to 58 °C/);
@@ -139,12 +174,23 @@ describe("parameter history", () => {
   it("reaches from the seeded major change to its evidence: computed outcomes, signatures and file hashes", async () => {
     const [sf] = await t.db.select().from(recipes).where(eq(recipes.code, "R-SC1-SF"));
     const h = (await getParameterHistory({ recipeId: sf.id, key: "drying.temperature" }))!;
-    expect(h.entries.map((e) => [e.period.value?.setpoint, e.period.value?.validatedLow, e.period.value?.validatedHigh])).toEqual([
+    expect(
+      h.entries.map((e) => [
+        e.period.value?.setpoint,
+        e.period.value?.validatedLow,
+        e.period.value?.validatedHigh,
+      ]),
+    ).toEqual([
       [90, 80, 100],
       [105, 95, 110],
     ]);
     const change = h.entries[1].change!;
-    expect(change).toMatchObject({ number: "CR-2026-001", impact: "major", status: "closed", parameterImpact: { position: "outside", impact: "major" } });
+    expect(change).toMatchObject({
+      number: "CR-2026-001",
+      impact: "major",
+      status: "closed",
+      parameterImpact: { position: "outside", impact: "major" },
+    });
     expect(change.evidence.length).toBe(change.requirements.length);
     for (const run of change.evidence) {
       expect(run.outcome).toBe("pass");
@@ -158,13 +204,20 @@ describe("parameter history", () => {
       expect(run.files.map((f) => f.kind)).toEqual(["lab_report", "photo"]);
       for (const f of run.files) expect(f.sha256).toMatch(/^[0-9a-f]{64}$/);
     }
-    expect(new Set(change.evidence.flatMap((r) => r.files.map((f) => f.sha256))).size).toBe(change.evidence.length * 2);
+    expect(new Set(change.evidence.flatMap((r) => r.files.map((f) => f.sha256))).size).toBe(
+      change.evidence.length * 2,
+    );
   });
 
   it("shows an open proposal after the value in force, and leaves out proposals that do not touch the parameter", async () => {
     const [ph] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-PH"));
-    const pressure = (await getParameterHistory({ recipeId: ph.id, key: "wash.injection_pressure" }))!;
-    expect(pressure.entries.map((e) => [e.period.kind, e.period.value?.setpoint, e.period.status])).toEqual([
+    const pressure = (await getParameterHistory({
+      recipeId: ph.id,
+      key: "wash.injection_pressure",
+    }))!;
+    expect(
+      pressure.entries.map((e) => [e.period.kind, e.period.value?.setpoint, e.period.status]),
+    ).toEqual([
       ["in_force", 12, "effective"],
       ["proposal", 16, "proposed"],
     ]);
@@ -175,21 +228,48 @@ describe("parameter history", () => {
 
   it("offers every recipe parameter once for the search, and finds nothing for an unknown key", async () => {
     const all = await listTraceableParameters();
-    expect(all.filter((p) => p.recipeId === valveBody && p.key === "wash.temperature")).toHaveLength(1);
-    expect(all.find((p) => p.recipeId === valveBody && p.key === "wash.temperature")?.versions).toBe(4);
+    expect(
+      all.filter((p) => p.recipeId === valveBody && p.key === "wash.temperature"),
+    ).toHaveLength(1);
+    expect(
+      all.find((p) => p.recipeId === valveBody && p.key === "wash.temperature")?.versions,
+    ).toBe(4);
     expect(await getParameterHistory({ recipeId: valveBody, key: "wash.nothing" })).toBeUndefined();
   });
 
   it("timeline: a removed parameter ends a period, and a withdrawn proposal never counts as in force", () => {
-    const v = (version: number, status: VersionValue["status"], setpoint: number | null, from: string | null): VersionValue => ({
+    const v = (
+      version: number,
+      status: VersionValue["status"],
+      setpoint: number | null,
+      from: string | null,
+    ): VersionValue => ({
       versionId: `v${version}`,
       version,
       status,
       effectiveFrom: from,
       effectiveTo: null,
-      value: setpoint === null ? null : { name: "T", stage: "Wash", setpoint, unit: "°C", validatedLow: 50, validatedHigh: 70, critical: true },
+      value:
+        setpoint === null
+          ? null
+          : {
+              name: "T",
+              stage: "Wash",
+              setpoint,
+              unit: "°C",
+              validatedLow: 50,
+              validatedHigh: 70,
+              critical: true,
+            },
     });
-    const out = buildParameterTimeline([v(1, "superseded", 55, "2025-01-01"), v(2, "withdrawn", 80, null), v(3, "effective", null, "2025-06-01")], new Map([["v2", "v1"]]));
+    const out = buildParameterTimeline(
+      [
+        v(1, "superseded", 55, "2025-01-01"),
+        v(2, "withdrawn", 80, null),
+        v(3, "effective", null, "2025-06-01"),
+      ],
+      new Map([["v2", "v1"]]),
+    );
     expect(out.map((p) => [p.kind, p.change, p.value?.setpoint ?? null])).toEqual([
       ["in_force", "first", 55],
       ["proposal", "proposed_change", 80],
@@ -200,56 +280,89 @@ describe("parameter history", () => {
 
 describe("part family history", () => {
   it("names the recipe versions that cleaned a family and the runs on each", async () => {
-    const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-SF-12"));
+    const [family] = await t.db
+      .select()
+      .from(partFamilies)
+      .where(eq(partFamilies.code, "PF-SF-12"));
     const h = (await getPartFamilyHistory(family.id))!;
     const v2 = h.versions.find((v) => v.recipe.code === "R-SC1-SF" && v.version === 2)!;
     expect(v2.status).toBe("effective");
     expect(v2.runs.length).toBeGreaterThanOrEqual(2);
-    expect(v2.runs.filter((r) => r.changeNumber === "CR-2026-001").every((r) => r.outcome === "pass")).toBe(true);
+    expect(
+      v2.runs.filter((r) => r.changeNumber === "CR-2026-001").every((r) => r.outcome === "pass"),
+    ).toBe(true);
   });
 });
 
 describe("audit pack", () => {
-  it("lists every signature and every hash in the PDF, and the ZIP holds the files whose hashes it states", { timeout: 90_000 }, async () => {
-    const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.number, "CR-2026-001"));
-    const pack = await loadAuditPack(t.db, cr.id);
-    const runSigs = pack.evidence.flatMap((r) => r.signatures);
-    const fileHashes = pack.evidence.flatMap((r) => r.files.map((f) => f.sha256));
-    expect(pack.signatures).toHaveLength(3);
-    expect(fileHashes.length).toBe(pack.evidence.length * 2);
-    expect(pack.chain.ok).toBe(true);
-    expect(pack.events.map((e) => e.eventType)).toEqual(expect.arrayContaining(["change.opened", "change.closed", "signature.applied", "evidence_file.uploaded", "recipe_version.effective"]));
+  it(
+    "lists every signature and every hash in the PDF, and the ZIP holds the files whose hashes it states",
+    { timeout: 90_000 },
+    async () => {
+      const [cr] = await t.db
+        .select()
+        .from(changeRequests)
+        .where(eq(changeRequests.number, "CR-2026-001"));
+      const pack = await loadAuditPack(t.db, cr.id);
+      const runSigs = pack.evidence.flatMap((r) => r.signatures);
+      const fileHashes = pack.evidence.flatMap((r) => r.files.map((f) => f.sha256));
+      expect(pack.signatures).toHaveLength(3);
+      expect(fileHashes.length).toBe(pack.evidence.length * 2);
+      expect(pack.chain.ok).toBe(true);
+      expect(pack.events.map((e) => e.eventType)).toEqual(
+        expect.arrayContaining([
+          "change.opened",
+          "change.closed",
+          "signature.applied",
+          "evidence_file.uploaded",
+          "recipe_version.effective",
+        ]),
+      );
 
-    const checkpoint = await writeCheckpoint("schedule");
-    if (!checkpoint.written) throw new Error(checkpoint.reason);
-    const pdf = await exportAuditPack(people.auditor, { changeRequestId: cr.id, format: "pdf" });
-    const dir = mkdtempSync(join(tmpdir(), "washproof-pack-"));
-    writeFileSync(join(dir, "pack.pdf"), pdf.bytes);
-    const text = execFileSync("pdftotext", ["-layout", join(dir, "pack.pdf"), "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
-    rmSync(dir, { recursive: true, force: true });
-    for (const s of [...pack.signatures, ...runSigs]) {
-      expect(text).toContain(s.printedName);
-      expect(text).toContain(s.contentHash);
-    }
-    for (const h of fileHashes) expect(text).toContain(h);
-    // The anchor outside the database is printed whole, with the verdict against it.
-    expect(text).toContain(checkpoint.checkpoint.signature);
-    expect(text).toContain(checkpoint.checkpoint.hash);
-    expect(text).toContain("The trail matches it");
-    // The header names the plant the record belongs to (its name already carries the company's).
-    expect(text).toContain(DEMO_SITE.name);
-    expect(text).toContain("105 °C");
-    expect(text).toContain("95–110 °C");
+      const checkpoint = await writeCheckpoint("schedule");
+      if (!checkpoint.written) throw new Error(checkpoint.reason);
+      const pdf = await exportAuditPack(people.auditor, { changeRequestId: cr.id, format: "pdf" });
+      const dir = mkdtempSync(join(tmpdir(), "washproof-pack-"));
+      writeFileSync(join(dir, "pack.pdf"), pdf.bytes);
+      const text = execFileSync("pdftotext", ["-layout", join(dir, "pack.pdf"), "-"], {
+        encoding: "utf8",
+      }).replace(/\s+/g, " ");
+      rmSync(dir, { recursive: true, force: true });
+      for (const s of [...pack.signatures, ...runSigs]) {
+        expect(text).toContain(s.printedName);
+        expect(text).toContain(s.contentHash);
+      }
+      for (const h of fileHashes) expect(text).toContain(h);
+      // The anchor outside the database is printed whole, with the verdict against it.
+      expect(text).toContain(checkpoint.checkpoint.signature);
+      expect(text).toContain(checkpoint.checkpoint.hash);
+      expect(text).toContain("The trail matches it");
+      // The header names the plant the record belongs to (its name already carries the company's).
+      expect(text).toContain(DEMO_SITE.name);
+      expect(text).toContain("105 °C");
+      expect(text).toContain("95–110 °C");
 
-    const zip = await exportAuditPack(people.auditor, { changeRequestId: cr.id, format: "zip" });
-    const entries = unzipSync(zip.bytes);
-    const sums = strFromU8(entries.SHA256SUMS).trim().split("\n").map((l) => l.split("  "));
-    expect(sums.length).toBe(1 + fileHashes.length);
-    for (const [hash, path] of sums) expect(sha256Hex(entries[path])).toBe(hash);
-    expect(sums.slice(1).map(([h]) => h).sort()).toEqual([...fileHashes].sort());
+      const zip = await exportAuditPack(people.auditor, { changeRequestId: cr.id, format: "zip" });
+      const entries = unzipSync(zip.bytes);
+      const sums = strFromU8(entries.SHA256SUMS)
+        .trim()
+        .split("\n")
+        .map((l) => l.split("  "));
+      expect(sums.length).toBe(1 + fileHashes.length);
+      for (const [hash, path] of sums) expect(sha256Hex(entries[path])).toBe(hash);
+      expect(
+        sums
+          .slice(1)
+          .map(([h]) => h)
+          .sort(),
+      ).toEqual([...fileHashes].sort());
 
-    const exports = await t.db.select().from(auditEvents).where(eq(auditEvents.action, "audit_pack.exported"));
-    expect(exports.map((e) => JSON.parse(e.newValue!).format)).toEqual(["pdf", "zip"]);
-    expect(exports.every((e) => e.actorName === people.auditor.name)).toBe(true);
-  });
+      const exports = await t.db
+        .select()
+        .from(auditEvents)
+        .where(eq(auditEvents.action, "audit_pack.exported"));
+      expect(exports.map((e) => JSON.parse(e.newValue!).format)).toEqual(["pdf", "zip"]);
+      expect(exports.every((e) => e.actorName === people.auditor.name)).toBe(true);
+    },
+  );
 });

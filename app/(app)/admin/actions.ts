@@ -11,7 +11,8 @@ import { resetPassword } from "@/lib/server/users/reset-password";
 import { setUserActive } from "@/lib/server/users/set-user-active";
 import { updateUser } from "@/lib/server/users/update-user";
 
-export type TemporaryPasswordState = (FormState & { temporaryPassword?: string; email?: string }) | null;
+export type TemporaryPasswordState =
+  (FormState & { temporaryPassword?: string; email?: string }) | null;
 
 const actorOf = (user: { id: string; name: string }) => ({ id: user.id, name: user.name });
 
@@ -55,11 +56,16 @@ export const resetPasswordAction = defineAction({
   input: userIdSchema,
   run: async ({ user, input }) => {
     const { temporaryPassword } = await resetPassword(actorOf(user), input);
-    return { message: "Password reset; the user must choose a new one at sign-in.", temporaryPassword };
+    return {
+      message: "Password reset; the user must choose a new one at sign-in.",
+      temporaryPassword,
+    };
   },
 });
 
-const testEmailSchema = z.object({ to: storedText().trim().toLowerCase().email("Enter a valid e-mail address.") });
+const testEmailSchema = z.object({
+  to: storedText().trim().toLowerCase().email("Enter a valid e-mail address."),
+});
 
 export const sendTestEmailAction = defineAction({
   permission: "users.manage",

@@ -18,7 +18,10 @@ export default async function AdminPage() {
         title="Users and roles"
         description="People who use Washproof and what each may do. Users are deactivated, never deleted: their signatures and history stay theirs."
         actions={
-          <Link href="/admin/users/new" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+          <Link
+            href="/admin/users/new"
+            className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
+          >
             New user
           </Link>
         }
@@ -34,7 +37,10 @@ export default async function AdminPage() {
           {users.map((u) => (
             <tr key={u.id}>
               <Td>
-                <Link href={`/admin/users/${u.id}`} className="font-medium text-brand-800 hover:underline">
+                <Link
+                  href={`/admin/users/${u.id}`}
+                  className="font-medium text-brand-800 hover:underline"
+                >
                   {u.name}
                 </Link>
                 {u.jobTitle && <span className="block text-xs text-stone-500">{u.jobTitle}</span>}

@@ -1,7 +1,16 @@
 "use server";
 
 import { defineAction, type RevalidateTarget } from "@/lib/actions/define-action";
-import { changeIdSchema, endChangeSchema, intervalSchema, linkEvidenceSchema, openChangeSchema, openInitialValidationSchema, proposalSchema, signedStepSchema } from "@/lib/schemas/change";
+import {
+  changeIdSchema,
+  endChangeSchema,
+  intervalSchema,
+  linkEvidenceSchema,
+  openChangeSchema,
+  openInitialValidationSchema,
+  proposalSchema,
+  signedStepSchema,
+} from "@/lib/schemas/change";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
 import { closeChange } from "@/lib/server/changes/close-change";
@@ -15,7 +24,11 @@ import { setRequalificationInterval } from "@/lib/server/changes/set-requalifica
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 
-const refresh = (changeRequestId: string): RevalidateTarget[] => [`/changes/${changeRequestId}`, "/changes", ["/systems", "layout"]];
+const refresh = (changeRequestId: string): RevalidateTarget[] => [
+  `/changes/${changeRequestId}`,
+  "/changes",
+  ["/systems", "layout"],
+];
 const refreshChange = (input: { changeRequestId: string }) => refresh(input.changeRequestId);
 
 export const openChangeAction = defineAction({
@@ -43,7 +56,8 @@ export const saveProposalAction = defineAction({
   permission: "recipe.edit",
   input: proposalSchema,
   from: "payload",
-  invalidMessage: "Some values need attention. Nothing was saved; everything you typed is still here.",
+  invalidMessage:
+    "Some values need attention. Nothing was saved; everything you typed is still here.",
   run: async ({ user, input }) => {
     await saveProposal(user, input);
     return { message: "Saved. The parameter diff and the computed impact below are up to date." };

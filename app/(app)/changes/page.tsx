@@ -17,23 +17,47 @@ const FILTERS = { status: "", kind: "", q: "" };
 
 export const metadata: Metadata = { title: "Changes" };
 
-export default async function ChangesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function ChangesPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   await requirePageUser("changes.view");
   const filters = readListParams(fromPageParams(await searchParams), FILTERS);
   const all = await listChangeRequests();
   const rows = all.filter((r) =>
-    rowMatches({ equals: { status: { want: filters.status, have: r.status }, kind: { want: filters.kind, have: r.kind } }, q: filters.q, text: [r.number, r.title, r.recipeCode, r.author] }),
+    rowMatches({
+      equals: {
+        status: { want: filters.status, have: r.status },
+        kind: { want: filters.kind, have: r.kind },
+      },
+      q: filters.q,
+      text: [r.number, r.title, r.recipeCode, r.author],
+    }),
   );
   return (
     <>
-      <PageHeader title="Changes" description="Change requests against effective recipe versions: parameter diff, computed impact, approval and requalification." />
+      <PageHeader
+        title="Changes"
+        description="Change requests against effective recipe versions: parameter diff, computed impact, approval and requalification."
+      />
       {all.length > 0 && (
         <ListFilterForm
           label="Filter change requests"
           action="/changes"
           filters={[
-            { name: "status", label: "Status", value: filters.status, options: CHANGE_STATUSES.map((s) => ({ value: s, label: CHANGE_STATUS_LABELS[s] })) },
-            { name: "kind", label: "Kind", value: filters.kind, options: CHANGE_KINDS.map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] })) },
+            {
+              name: "status",
+              label: "Status",
+              value: filters.status,
+              options: CHANGE_STATUSES.map((s) => ({ value: s, label: CHANGE_STATUS_LABELS[s] })),
+            },
+            {
+              name: "kind",
+              label: "Kind",
+              value: filters.kind,
+              options: CHANGE_KINDS.map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] })),
+            },
             { name: "q", label: "Number, title, recipe or author", value: filters.q },
           ]}
         />
@@ -42,7 +66,11 @@ export default async function ChangesPage({ searchParams }: { searchParams: Prom
         <p className="text-sm text-stone-600">No change requests match these filters.</p>
       ) : rows.length === 0 ? (
         <EmptyState title="No change requests yet">
-          An engineer opens a change request from a recipe&apos;s effective version under <Link href="/systems" className="text-brand-800 underline">Cleaning systems</Link>.
+          An engineer opens a change request from a recipe&apos;s effective version under{" "}
+          <Link href="/systems" className="text-brand-800 underline">
+            Cleaning systems
+          </Link>
+          .
         </EmptyState>
       ) : (
         <Table caption="Change requests">
@@ -59,7 +87,10 @@ export default async function ChangesPage({ searchParams }: { searchParams: Prom
             {rows.map((r) => (
               <tr key={r.id}>
                 <Td className="whitespace-nowrap">
-                  <Link href={`/changes/${r.id}`} className="font-medium text-brand-800 hover:underline">
+                  <Link
+                    href={`/changes/${r.id}`}
+                    className="font-medium text-brand-800 hover:underline"
+                  >
                     {r.number}
                   </Link>
                 </Td>

@@ -2,7 +2,15 @@
 
 import { z } from "zod";
 import { defineAction, defineCallAction } from "@/lib/actions/define-action";
-import { approveSchema, createDocumentSchema, reasonSchema, returnSchema, saveDraftSchema, signStepSchema, submitSchema } from "@/lib/schemas/document";
+import {
+  approveSchema,
+  createDocumentSchema,
+  reasonSchema,
+  returnSchema,
+  saveDraftSchema,
+  signStepSchema,
+  submitSchema,
+} from "@/lib/schemas/document";
 import { approveVersion } from "@/lib/server/documents/approve-version";
 import { createDocument } from "@/lib/server/documents/create-document";
 import { retireDocument } from "@/lib/server/documents/retire-document";
@@ -18,7 +26,12 @@ function refresh(documentId?: string) {
 
 /** Signing forms name the version; they also send the document's id so its page is refreshed. */
 const refreshDocumentOf = (_input: unknown, _result: unknown, raw: unknown) =>
-  refresh(z.string().uuid().safeParse((raw as Record<string, unknown> | null)?.documentId).data);
+  refresh(
+    z
+      .string()
+      .uuid()
+      .safeParse((raw as Record<string, unknown> | null)?.documentId).data,
+  );
 
 export const createDocumentAction = defineAction({
   permission: "document.draft",
@@ -67,7 +80,11 @@ export const approveAction = defineAction({
   sendsMail: true,
   run: async ({ user, input }) => {
     const { effectiveNow } = await approveVersion(user, input);
-    return { message: effectiveNow ? "Approved; the version is effective." : `Approved; it becomes effective on ${input.effectiveDate}.` };
+    return {
+      message: effectiveNow
+        ? "Approved; the version is effective."
+        : `Approved; it becomes effective on ${input.effectiveDate}.`,
+    };
   },
   revalidate: refreshDocumentOf,
 });

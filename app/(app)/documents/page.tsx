@@ -17,12 +17,23 @@ const FILTERS = { type: "", status: "", q: "" };
 
 export const metadata: Metadata = { title: "Documents" };
 
-export default async function DocumentsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function DocumentsPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePageUser("documents.view");
   const filters = readListParams(fromPageParams(await searchParams), FILTERS);
   const all = await listDocuments();
   const rows = all.filter((d) =>
-    rowMatches({ equals: { type: { want: filters.type, have: d.type }, status: { want: filters.status, have: d.latest.status } }, q: filters.q, text: [d.number, d.title, d.owner] }),
+    rowMatches({
+      equals: {
+        type: { want: filters.type, have: d.type },
+        status: { want: filters.status, have: d.latest.status },
+      },
+      q: filters.q,
+      text: [d.number, d.title, d.owner],
+    }),
   );
   const mayDraft = can(user.roles, "document.draft");
   return (
@@ -32,7 +43,10 @@ export default async function DocumentsPage({ searchParams }: { searchParams: Pr
         description="Validation protocols (IQ, OQ, PQ), validation reports and procedures, with their versions and signatures."
         actions={
           mayDraft && (
-            <Link href="/documents/new" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+            <Link
+              href="/documents/new"
+              className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
+            >
               New document
             </Link>
           )
@@ -43,8 +57,21 @@ export default async function DocumentsPage({ searchParams }: { searchParams: Pr
           label="Filter documents"
           action="/documents"
           filters={[
-            { name: "type", label: "Type", value: filters.type, options: DOCUMENT_TYPES.map((t) => ({ value: t, label: TYPE_LABELS[t] })) },
-            { name: "status", label: "Latest version", value: filters.status, options: DOCUMENT_STATUSES.map((s) => ({ value: s, label: DOCUMENT_STATUS_LABELS[s] })) },
+            {
+              name: "type",
+              label: "Type",
+              value: filters.type,
+              options: DOCUMENT_TYPES.map((t) => ({ value: t, label: TYPE_LABELS[t] })),
+            },
+            {
+              name: "status",
+              label: "Latest version",
+              value: filters.status,
+              options: DOCUMENT_STATUSES.map((s) => ({
+                value: s,
+                label: DOCUMENT_STATUS_LABELS[s],
+              })),
+            },
             { name: "q", label: "Number, title or owner", value: filters.q },
           ]}
         />
@@ -53,7 +80,8 @@ export default async function DocumentsPage({ searchParams }: { searchParams: Pr
         <p className="text-sm text-stone-600">No documents match these filters.</p>
       ) : rows.length === 0 ? (
         <EmptyState title="No documents yet">
-          Controlled documents are listed here with their number, version, status and effective date once an engineer drafts the first protocol.
+          Controlled documents are listed here with their number, version, status and effective date
+          once an engineer drafts the first protocol.
         </EmptyState>
       ) : (
         <Table caption="Controlled documents">
@@ -69,7 +97,10 @@ export default async function DocumentsPage({ searchParams }: { searchParams: Pr
             {rows.map((d) => (
               <tr key={d.id}>
                 <Td className="font-mono text-xs whitespace-nowrap">
-                  <Link href={`/documents/${d.id}`} className="font-medium text-brand-800 hover:underline">
+                  <Link
+                    href={`/documents/${d.id}`}
+                    className="font-medium text-brand-800 hover:underline"
+                  >
                     {d.number}
                   </Link>
                 </Td>
@@ -78,7 +109,11 @@ export default async function DocumentsPage({ searchParams }: { searchParams: Pr
                 <Td className="whitespace-nowrap">
                   v{d.latest.version} <StatusBadge status={d.latest.status} />
                 </Td>
-                <Td className="whitespace-nowrap">{d.effective ? `v${d.effective.version} since ${d.effective.effectiveDate}` : "None"}</Td>
+                <Td className="whitespace-nowrap">
+                  {d.effective
+                    ? `v${d.effective.version} since ${d.effective.effectiveDate}`
+                    : "None"}
+                </Td>
                 <Td>{d.owner}</Td>
               </tr>
             ))}

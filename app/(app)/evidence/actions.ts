@@ -68,7 +68,9 @@ export const detachFileAction = defineAction({
   input: detachFileSchema,
   run: async ({ user, input }) => {
     const file = await detachEvidenceFile(actorOf(user), input);
-    return { message: `${file.originalName} detached; the stored file and the reason are kept in the audit trail.` };
+    return {
+      message: `${file.originalName} detached; the stored file and the reason are kept in the audit trail.`,
+    };
   },
   revalidate: runPage,
 });
@@ -90,7 +92,10 @@ export const signRunAction = defineAction({
   input: signRunSchema,
   run: async ({ user, input }) => {
     await signRun({ userId: user.id, ...input });
-    return { message: input.meaning === "performed" ? "Signed as performed." : "Verified; the run is locked." };
+    return {
+      message:
+        input.meaning === "performed" ? "Signed as performed." : "Verified; the run is locked.",
+    };
   },
   revalidate: runPage,
 });

@@ -9,7 +9,11 @@ export default function EvidenceLayout({ children }: { children: ReactNode }) {
         items={[
           { href: "/evidence", label: "Test runs", alsoCurrentUnder: ["/evidence/runs"] },
           { href: "/evidence/trends", label: "Trends" },
-          { href: "/evidence/bath", label: "Bath and filter log", alsoCurrentUnder: ["/evidence/bath/"] },
+          {
+            href: "/evidence/bath",
+            label: "Bath and filter log",
+            alsoCurrentUnder: ["/evidence/bath/"],
+          },
         ]}
       />
       {children}

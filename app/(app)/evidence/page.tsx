@@ -18,7 +18,10 @@ export default async function EvidencePage() {
         description="Test runs with their raw data per sample, lab files and computed outcomes. A computed pass or fail supports, and never replaces, the customer's specification and the engineer's judgement."
         actions={
           can(user.roles, "evidence.record") ? (
-            <Link href="/evidence/runs/new" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+            <Link
+              href="/evidence/runs/new"
+              className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
+            >
               New test run
             </Link>
           ) : undefined

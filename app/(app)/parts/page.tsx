@@ -20,10 +20,19 @@ export default async function PartsPage() {
       <PageHeader
         title="Parts & specifications"
         description="Part families with their wetted surface and the cleanliness specification each must meet."
-        actions={manage ? <Link href="/parts/families/new" className={linkButton}>New part family</Link> : undefined}
+        actions={
+          manage ? (
+            <Link href="/parts/families/new" className={linkButton}>
+              New part family
+            </Link>
+          ) : undefined
+        }
       />
       {families.length === 0 ? (
-        <EmptyState title="No part families">Engineers add part families with their material, wetted area and specification, by hand or from a CSV file.</EmptyState>
+        <EmptyState title="No part families">
+          Engineers add part families with their material, wetted area and specification, by hand or
+          from a CSV file.
+        </EmptyState>
       ) : (
         <Table caption="Part families">
           <THead>
@@ -49,7 +58,11 @@ export default async function PartsPage() {
                 <Td>{family.material}</Td>
                 <Td numeric>{withUnit(family.wettedAreaCm2, "cm²")}</Td>
                 <Td>{family.customer ?? "—"}</Td>
-                <Td>{family.drawingNumber ? `${family.drawingNumber}${family.drawingRevision ? ` rev ${family.drawingRevision}` : ""}` : "—"}</Td>
+                <Td>
+                  {family.drawingNumber
+                    ? `${family.drawingNumber}${family.drawingRevision ? ` rev ${family.drawingRevision}` : ""}`
+                    : "—"}
+                </Td>
                 <Td>
                   <Link href={`/parts/specs/${spec.id}`} className="text-brand-800 underline">
                     {spec.code} rev {spec.revision}

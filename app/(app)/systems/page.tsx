@@ -21,7 +21,10 @@ export default async function SystemsPage() {
         description="The plant's washers, their stages and the recipes they run."
         actions={
           manage && (
-            <Link href="/systems/new" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+            <Link
+              href="/systems/new"
+              className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
+            >
               New cleaning system
             </Link>
           )
@@ -29,12 +32,18 @@ export default async function SystemsPage() {
       />
       {systems.length === 0 ? (
         <EmptyState title="No cleaning systems">
-          {manage ? "Add the plant's first washer with New cleaning system." : "An administrator adds the plant's washers and their stages."}
+          {manage
+            ? "Add the plant's first washer with New cleaning system."
+            : "An administrator adds the plant's washers and their stages."}
         </EmptyState>
       ) : (
         <div className="grid gap-4 xl:grid-cols-2">
           {systems.map((s) => (
-            <section key={s.id} className="rounded-lg border border-stone-200 bg-white p-5" aria-labelledby={`sys-${s.id}`}>
+            <section
+              key={s.id}
+              className="rounded-lg border border-stone-200 bg-white p-5"
+              aria-labelledby={`sys-${s.id}`}
+            >
               <div className="flex items-baseline justify-between gap-3">
                 <h2 id={`sys-${s.id}`} className="text-lg font-semibold">
                   <Link href={`/systems/${s.id}`} className="text-brand-800 hover:underline">
@@ -72,7 +81,10 @@ export default async function SystemsPage() {
                   : s.recipes.map((r, i) => (
                       <span key={r.id}>
                         {i > 0 && "; "}
-                        <Link href={`/systems/recipes/${r.id}`} className="text-brand-800 hover:underline">
+                        <Link
+                          href={`/systems/recipes/${r.id}`}
+                          className="text-brand-800 hover:underline"
+                        >
                           {r.code} {r.name}
                         </Link>
                       </span>

@@ -9,7 +9,8 @@ export default async function TraceLayout({ children }: { children: ReactNode })
     { href: "/trace", label: "Parameter history" },
     { href: "/trace/part-families", label: "Part families" },
   ];
-  if (user && can(user.roles, "audit.view")) items.push({ href: "/trace/audit", label: "Audit trail" });
+  if (user && can(user.roles, "audit.view"))
+    items.push({ href: "/trace/audit", label: "Audit trail" });
   return (
     <>
       <SubNav label="Trace" items={items} />

@@ -12,33 +12,68 @@ import { matchParameters, traceScopes } from "@/lib/trace/parameter-search";
 
 export const metadata: Metadata = { title: "Trace" };
 
-export default async function TracePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function TracePage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePageUser("trace.view");
   const query = traceQuerySchema.safeParse(await searchParams);
-  const selected = query.success && query.data.recipe && query.data.key ? { recipeId: query.data.recipe, key: query.data.key } : undefined;
-  const [parameters, history] = await Promise.all([listTraceableParameters(), selected ? getParameterHistory(selected) : undefined]);
+  const selected =
+    query.success && query.data.recipe && query.data.key
+      ? { recipeId: query.data.recipe, key: query.data.key }
+      : undefined;
+  const [parameters, history] = await Promise.all([
+    listTraceableParameters(),
+    selected ? getParameterHistory(selected) : undefined,
+  ]);
   const current = history?.entries.findLast((e) => e.period.kind === "in_force")?.period.value;
-  const initialRecipe = selected ? parameters.find((p) => p.recipeId === selected.recipeId) : undefined;
-  const initialFilter = { systemId: initialRecipe?.systemId ?? "", recipeId: initialRecipe?.recipeId ?? "" };
+  const initialRecipe = selected
+    ? parameters.find((p) => p.recipeId === selected.recipeId)
+    : undefined;
+  const initialFilter = {
+    systemId: initialRecipe?.systemId ?? "",
+    recipeId: initialRecipe?.recipeId ?? "",
+  };
 
   return (
     <>
-      <PageHeader title="Trace" description="Every value a recipe parameter has had, who changed it, why, who approved it and which evidence requalified it." />
-      <ParameterPicker scopes={traceScopes(parameters)} initial={matchParameters(parameters, initialFilter)} initialFilter={initialFilter} selected={selected} />
+      <PageHeader
+        title="Trace"
+        description="Every value a recipe parameter has had, who changed it, why, who approved it and which evidence requalified it."
+      />
+      <ParameterPicker
+        scopes={traceScopes(parameters)}
+        initial={matchParameters(parameters, initialFilter)}
+        initialFilter={initialFilter}
+        selected={selected}
+      />
       {!selected ? (
-        <EmptyState title="No parameter chosen">Choose a cleaning system and recipe, or type part of a parameter&apos;s name, then pick it from the list to see its whole history.</EmptyState>
+        <EmptyState title="No parameter chosen">
+          Choose a cleaning system and recipe, or type part of a parameter&apos;s name, then pick it
+          from the list to see its whole history.
+        </EmptyState>
       ) : !history ? (
-        <EmptyState title="Parameter not found">No recipe holds a parameter with that key. Pick one from the list above.</EmptyState>
+        <EmptyState title="Parameter not found">
+          No recipe holds a parameter with that key. Pick one from the list above.
+        </EmptyState>
       ) : (
         <section aria-labelledby="history">
           <h2 id="history" className="text-lg font-semibold">
-            {history.parameter.name} <span className="font-mono text-sm font-normal text-stone-600">{history.parameter.key}</span>
+            {history.parameter.name}{" "}
+            <span className="font-mono text-sm font-normal text-stone-600">
+              {history.parameter.key}
+            </span>
           </h2>
           <p className="mb-4 text-sm text-stone-700">
-            {history.parameter.stage} stage of {history.recipe.code} ({history.recipe.name}) on {history.system.code} {history.system.name}
+            {history.parameter.stage} stage of {history.recipe.code} ({history.recipe.name}) on{" "}
+            {history.system.code} {history.system.name}
             {history.parameter.critical ? " · critical parameter" : ""}
-            {current ? ` · now ${current.setpoint} ${current.unit}, validated ${rangeWithUnit(current.validatedLow, current.validatedHigh, current.unit)}` : ""} · {history.entries.length}{" "}
-            {history.entries.length === 1 ? "entry" : "entries"}, newest first.
+            {current
+              ? ` · now ${current.setpoint} ${current.unit}, validated ${rangeWithUnit(current.validatedLow, current.validatedHigh, current.unit)}`
+              : ""}{" "}
+            · {history.entries.length} {history.entries.length === 1 ? "entry" : "entries"}, newest
+            first.
           </p>
           <ParameterTimeline history={history} canExport={can(user.roles, "trace.export")} />
         </section>

@@ -14,8 +14,9 @@ export default async function SetUpPage() {
     <>
       <h1 className="mb-1 text-xl font-semibold text-stone-900">Set up Washproof</h1>
       <p className="mb-6 text-sm text-stone-600">
-        This installation has no users yet. Name the company and its site, and create the first administrator, who then
-        adds the washers, the other users and their roles. This page closes once it has been used.
+        This installation has no users yet. Name the company and its site, and create the first
+        administrator, who then adds the washers, the other users and their roles. This page closes
+        once it has been used.
       </p>
       <SetUpForm />
     </>

@@ -7,10 +7,20 @@ import { setUpPlantAction } from "./actions";
 
 export function SetUpForm() {
   return (
-    <ActionForm action={setUpPlantAction} className="space-y-5" aria-label="Set up this installation">
+    <ActionForm
+      action={setUpPlantAction}
+      className="space-y-5"
+      aria-label="Set up this installation"
+    >
       <fieldset className="space-y-3">
         <legend className="text-sm font-semibold text-stone-900">Company and site</legend>
-        <Field name="companyName" label="Company name" required autoFocus hint="Printed in the header of every PDF." />
+        <Field
+          name="companyName"
+          label="Company name"
+          required
+          autoFocus
+          hint="Printed in the header of every PDF."
+        />
         <Field name="siteName" label="Site name" required />
         <Field name="siteLocation" label="Site location" hint="Town or address; optional." />
       </fieldset>
@@ -26,7 +36,13 @@ export function SetUpForm() {
           required
           hint="At least 12 characters, hard to guess, not your name or e-mail."
         />
-        <Field name="confirmPassword" label="Repeat the password" type="password" autoComplete="new-password" required />
+        <Field
+          name="confirmPassword"
+          label="Repeat the password"
+          type="password"
+          autoComplete="new-password"
+          required
+        />
       </fieldset>
       <SubmitButton className="w-full" pendingText="Setting up…">
         Set up and continue to sign in

@@ -11,7 +11,10 @@ import { signIn } from "@/lib/server/auth/sign-in";
 export const signInAction = definePublicAction({
   input: signInSchema,
   run: async ({ input }) => {
-    const address = sourceAddress((await headers()).get("x-forwarded-for"), env().TRUSTED_PROXY_HOPS);
+    const address = sourceAddress(
+      (await headers()).get("x-forwarded-for"),
+      env().TRUSTED_PROXY_HOPS,
+    );
     const result = await signIn({ ...input, sourceAddress: address });
     if (!result.ok) return { ok: false as const, message: result.message };
     // A fresh session id at every sign-in (no fixation).

@@ -9,7 +9,13 @@ export function SignInForm() {
   return (
     <ActionForm action={signInAction} className="space-y-4" aria-label="Sign in">
       <Field name="email" label="E-mail" type="email" autoComplete="username" required autoFocus />
-      <Field name="password" label="Password" type="password" autoComplete="current-password" required />
+      <Field
+        name="password"
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        required
+      />
       <SubmitButton className="w-full" pendingText="Signing in…">
         Sign in
       </SubmitButton>

@@ -6,5 +6,7 @@ import { getQueue, queueQuery } from "@/lib/server/queue/get-queue";
 export const GET = defineRoute({ permission: "queue.view" }, async ({ user, request }) => {
   const q = parseQuery(request, queueQuery);
   if (!q.ok) return q.response;
-  return NextResponse.json(await getQueue(user, q.data), { headers: { "Cache-Control": "no-store" } });
+  return NextResponse.json(await getQueue(user, q.data), {
+    headers: { "Cache-Control": "no-store" },
+  });
 });

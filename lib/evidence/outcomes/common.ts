@@ -48,7 +48,9 @@ export interface Check {
 }
 
 /** The word a check is shown with: a check with no data is "not recorded", whatever it lets through. */
-export function checkWord(check: Pick<Check, "pass" | "recorded">): "pass" | "fail" | "incomplete" | "not recorded" {
+export function checkWord(
+  check: Pick<Check, "pass" | "recorded">,
+): "pass" | "fail" | "incomplete" | "not recorded" {
   if (check.recorded === false) return "not recorded";
   return check.pass === null ? "incomplete" : check.pass ? "pass" : "fail";
 }
@@ -80,20 +82,46 @@ export const word = (pass: boolean) => (pass ? "pass" : "fail");
  * The run's word from its parts: no samples, anything missing, a check not made or a measurement
  * not qualified → incomplete; then any failing sample or acceptance check → fail.
  */
-export function combineOutcome(samples: SampleOutcome[], checks: Check[], missing: string[]): Outcome {
+export function combineOutcome(
+  samples: SampleOutcome[],
+  checks: Check[],
+  missing: string[],
+): Outcome {
   if (samples.length === 0) return "incomplete";
-  if (missing.length > 0 || checks.some((c) => c.pass === null || (c.pass === false && c.kind === "measurement"))) return "incomplete";
+  if (
+    missing.length > 0 ||
+    checks.some((c) => c.pass === null || (c.pass === false && c.kind === "measurement"))
+  )
+    return "incomplete";
   if (samples.some((s) => s.outcome === "incomplete")) return "incomplete";
-  if (samples.some((s) => s.outcome === "fail") || checks.some((c) => c.pass === false)) return "fail";
+  if (samples.some((s) => s.outcome === "fail") || checks.some((c) => c.pass === false))
+    return "fail";
   return "pass";
 }
 
 /** Stored rows were validated by the entry schema when written; the computations check their inputs again. */
-export function parsedSamples<T>(input: Pick<OutcomeInput, "samples">): { label: string; worstCase: boolean; data: T }[] {
-  return input.samples.map((s) => ({ label: s.sampleLabel, worstCase: s.worstCase, data: s.data as T }));
+export function parsedSamples<T>(
+  input: Pick<OutcomeInput, "samples">,
+): { label: string; worstCase: boolean; data: T }[] {
+  return input.samples.map((s) => ({
+    label: s.sampleLabel,
+    worstCase: s.worstCase,
+    data: s.data as T,
+  }));
 }
 
 /** A run outcome with no cleanliness code, as every test type but the particle test gives. */
-export function plainOutcome(samples: SampleOutcome[], checks: Check[], missing: string[]): RunOutcome {
-  return { outcome: combineOutcome(samples, checks, missing), code: null, basisUnit: null, samples, checks, missing };
+export function plainOutcome(
+  samples: SampleOutcome[],
+  checks: Check[],
+  missing: string[],
+): RunOutcome {
+  return {
+    outcome: combineOutcome(samples, checks, missing),
+    code: null,
+    basisUnit: null,
+    samples,
+    checks,
+    missing,
+  };
 }

@@ -1,6 +1,14 @@
 import { gravimetricResidue } from "@/lib/cleanliness";
 import type { GravimetricSample } from "@/lib/schemas/evidence";
-import { fmt, parsedSamples, plainOutcome, word, type OutcomeInput, type RunOutcome, type SampleOutcome } from "./common";
+import {
+  fmt,
+  parsedSamples,
+  plainOutcome,
+  word,
+  type OutcomeInput,
+  type RunOutcome,
+  type SampleOutcome,
+} from "./common";
 
 export type GravimetricOutcomeInput = Pick<OutcomeInput, "family" | "spec" | "samples">;
 
@@ -13,22 +21,33 @@ export function gravimetricOutcome(input: GravimetricOutcomeInput): RunOutcome {
   const limit = input.spec.gravimetricLimitMg;
   if (limit === null) missing.push("The specification sets no gravimetric limit.");
   const perArea = input.spec.gravimetricBasis === "per_1000_cm2";
-  const samples = parsedSamples<GravimetricSample>(input).map(({ label, worstCase, data }): SampleOutcome => {
-    const r = gravimetricResidue({
-      filterBeforeMg: data.filterBeforeMg,
-      filterAfterMg: data.filterAfterMg,
-      blankMg: data.blankMg,
-      components: data.components,
-      totalAreaCm2: data.components * input.family.wettedAreaCm2,
-    });
-    const value = perArea ? r.per1000Cm2Mg! : r.perComponentMg;
-    const unit = perArea ? "mg per 1000 cm²" : "mg per component";
-    const lines = [`Residue ${fmt(data.filterAfterMg, 2)} − ${fmt(data.filterBeforeMg, 2)} = ${fmt(r.residueMg, 2)} mg over ${data.components} component(s) → ${fmt(value, 3)} ${unit}`, ...r.notes];
-    if (r.blankOk === false) return { sampleLabel: label, worstCase, outcome: "incomplete", lines: [...lines, "Blank above 10 % of the residue: the measurement is not qualified"] };
-    if (limit === null) return { sampleLabel: label, worstCase, outcome: "incomplete", lines };
-    const ok = value <= limit;
-    lines.push(`Limit ${fmt(limit, 3)} ${unit}: ${word(ok)}`);
-    return { sampleLabel: label, worstCase, outcome: ok ? "pass" : "fail", lines };
-  });
+  const samples = parsedSamples<GravimetricSample>(input).map(
+    ({ label, worstCase, data }): SampleOutcome => {
+      const r = gravimetricResidue({
+        filterBeforeMg: data.filterBeforeMg,
+        filterAfterMg: data.filterAfterMg,
+        blankMg: data.blankMg,
+        components: data.components,
+        totalAreaCm2: data.components * input.family.wettedAreaCm2,
+      });
+      const value = perArea ? r.per1000Cm2Mg! : r.perComponentMg;
+      const unit = perArea ? "mg per 1000 cm²" : "mg per component";
+      const lines = [
+        `Residue ${fmt(data.filterAfterMg, 2)} − ${fmt(data.filterBeforeMg, 2)} = ${fmt(r.residueMg, 2)} mg over ${data.components} component(s) → ${fmt(value, 3)} ${unit}`,
+        ...r.notes,
+      ];
+      if (r.blankOk === false)
+        return {
+          sampleLabel: label,
+          worstCase,
+          outcome: "incomplete",
+          lines: [...lines, "Blank above 10 % of the residue: the measurement is not qualified"],
+        };
+      if (limit === null) return { sampleLabel: label, worstCase, outcome: "incomplete", lines };
+      const ok = value <= limit;
+      lines.push(`Limit ${fmt(limit, 3)} ${unit}: ${word(ok)}`);
+      return { sampleLabel: label, worstCase, outcome: ok ? "pass" : "fail", lines };
+    },
+  );
   return plainOutcome(samples, [], missing);
 }

@@ -10,14 +10,30 @@ import {
   type ParticleCounts,
 } from "@/lib/cleanliness";
 import { CLASS_KEYS, type ParticleRunData, type ParticleSample } from "@/lib/schemas/evidence";
-import { combineOutcome, fmt, parsedSamples, word, type Check, type OutcomeInput, type RunOutcome, type SampleOutcome } from "./common";
+import {
+  combineOutcome,
+  fmt,
+  parsedSamples,
+  word,
+  type Check,
+  type OutcomeInput,
+  type RunOutcome,
+  type SampleOutcome,
+} from "./common";
 
 /** Inputs a particle test reads; the rest of OutcomeInput does not matter to it. */
 export type ParticleOutcomeInput = Pick<OutcomeInput, "family" | "spec" | "samples" | "runData">;
 
-function basisOf(kind: Basis["kind"], components: number, family: OutcomeInput["family"]): Basis | null {
+function basisOf(
+  kind: Basis["kind"],
+  components: number,
+  family: OutcomeInput["family"],
+): Basis | null {
   if (kind === "area") return { kind, totalAreaCm2: components * family.wettedAreaCm2 };
-  if (kind === "volume") return family.wettedVolumeCm3 ? { kind, totalVolumeCm3: components * family.wettedVolumeCm3 } : null;
+  if (kind === "volume")
+    return family.wettedVolumeCm3
+      ? { kind, totalVolumeCm3: components * family.wettedVolumeCm3 }
+      : null;
   return { kind, components };
 }
 
@@ -45,7 +61,15 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
   let pooledComponents = 0;
   const out: SampleOutcome[] = samples.map(({ label, worstCase, data }) => {
     const basis = basisOf(spec.basis, data.components, input.family);
-    if (!basis) return { sampleLabel: label, worstCase, outcome: "incomplete", lines: ["The part family has no wetted volume, so a V() specification cannot be evaluated."] };
+    if (!basis)
+      return {
+        sampleLabel: label,
+        worstCase,
+        outcome: "incomplete",
+        lines: [
+          "The part family has no wetted volume, so a V() specification cannot be evaluated.",
+        ],
+      };
     for (const k of CLASS_KEYS) pooled[k] = (pooled[k] ?? 0) + (data.counts[k] ?? 0);
     pooledComponents += data.components;
     const evaluation = evaluateAgainstSpec(data.counts, basis, spec);
@@ -62,7 +86,13 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
       if (!ok) pass = false;
       lines.push(`Largest ${type} particle ${fmt(size)} µm, limit ${fmt(limit)} µm: ${word(ok)}`);
     }
-    return { sampleLabel: label, worstCase, outcome: pass ? "pass" : "fail", code: cleanlinessCode(data.counts, basis), lines };
+    return {
+      sampleLabel: label,
+      worstCase,
+      outcome: pass ? "pass" : "fail",
+      code: cleanlinessCode(data.counts, basis),
+      lines,
+    };
   });
 
   const runData = (input.runData ?? {}) as Partial<ParticleRunData>;
@@ -70,7 +100,10 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
   if (series.length > 0) {
     try {
       const ex = evaluateExtraction(series);
-      const lines = ex.ratios.map((r, i) => `Extraction ${i + 1}: ${fmt(series[i], 0)} particles, decay value ${fmt(r * 100)} %`);
+      const lines = ex.ratios.map(
+        (r, i) =>
+          `Extraction ${i + 1}: ${fmt(series[i], 0)} particles, decay value ${fmt(r * 100)} %`,
+      );
       lines.push(
         ex.complete
           ? `Decay value ≤ 10 % at extraction ${ex.step}: extraction qualified`
@@ -78,12 +111,30 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
             ? "Decay value still above 10 % after 6 extractions: change the extraction parameters and qualify again"
             : "Decay value still above 10 %: extract again",
       );
-      checks.push({ kind: "measurement", title: EXTRACTION, pass: ex.complete ? true : null, lines });
+      checks.push({
+        kind: "measurement",
+        title: EXTRACTION,
+        pass: ex.complete ? true : null,
+        lines,
+      });
     } catch (error) {
-      checks.push({ kind: "measurement", title: EXTRACTION, pass: null, lines: [(error as Error).message] });
+      checks.push({
+        kind: "measurement",
+        title: EXTRACTION,
+        pass: null,
+        lines: [(error as Error).message],
+      });
     }
   } else {
-    checks.push({ kind: "measurement", title: EXTRACTION, pass: true, recorded: false, lines: ["No declining test recorded with this run; the extraction procedure is taken as qualified elsewhere."] });
+    checks.push({
+      kind: "measurement",
+      title: EXTRACTION,
+      pass: true,
+      recorded: false,
+      lines: [
+        "No declining test recorded with this run; the extraction procedure is taken as qualified elsewhere.",
+      ],
+    });
   }
 
   if (runData.blank) {
@@ -91,17 +142,34 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
     const smallest = samples.length ? Math.min(...samples.map((s) => s.data.components)) : 1;
     const basis = basisOf(spec.basis, smallest, input.family);
     if (basis) {
-      const normalised = Object.fromEntries(Object.entries(runData.blank.counts).map(([k, v]) => [k, normalizeCount(v as number, basis)]));
-      const limits = [input.spec.maxMetallicUm, input.spec.maxNonMetallicUm, input.spec.maxFibreUm].filter((v): v is number => v !== null);
+      const normalised = Object.fromEntries(
+        Object.entries(runData.blank.counts).map(([k, v]) => [
+          k,
+          normalizeCount(v as number, basis),
+        ]),
+      );
+      const limits = [
+        input.spec.maxMetallicUm,
+        input.spec.maxNonMetallicUm,
+        input.spec.maxFibreUm,
+      ].filter((v): v is number => v !== null);
       const blank = evaluateBlank(normalised, spec, {
         largestAllowedUm: limits.length ? Math.min(...limits) : undefined,
         largestBlankParticleUm: runData.blank.largestUm ?? undefined,
       });
-      const lines = [`Blank ${unit} for ${basisLine(basis).toLowerCase()}`, ...blank.rows.map((r) => r.reason)];
+      const lines = [
+        `Blank ${unit} for ${basisLine(basis).toLowerCase()}`,
+        ...blank.rows.map((r) => r.reason),
+      ];
       if (blank.largestParticle) lines.push(blank.largestParticle.reason);
       checks.push({ kind: "measurement", title: BLANK, pass: blank.pass, lines });
     } else {
-      checks.push({ kind: "measurement", title: BLANK, pass: null, lines: ["No wetted volume for the part family."] });
+      checks.push({
+        kind: "measurement",
+        title: BLANK,
+        pass: null,
+        lines: ["No wetted volume for the part family."],
+      });
     }
   } else {
     missing.push("No blank value recorded: enter the blank counts to qualify the measurement.");
@@ -112,5 +180,12 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
     const basis = basisOf(spec.basis, pooledComponents, input.family);
     if (basis) code = cleanlinessCode(pooled, basis);
   }
-  return { outcome: combineOutcome(out, checks, missing), code, basisUnit: unit, samples: out, checks, missing };
+  return {
+    outcome: combineOutcome(out, checks, missing),
+    code,
+    basisUnit: unit,
+    samples: out,
+    checks,
+    missing,
+  };
 }

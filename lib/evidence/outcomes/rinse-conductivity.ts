@@ -1,21 +1,36 @@
 import { conductivityAt25C } from "@/lib/water";
 import type { ConductivitySample } from "@/lib/schemas/evidence";
-import { fmt, parsedSamples, plainOutcome, word, type OutcomeInput, type RunOutcome, type SampleOutcome } from "./common";
+import {
+  fmt,
+  parsedSamples,
+  plainOutcome,
+  word,
+  type OutcomeInput,
+  type RunOutcome,
+  type SampleOutcome,
+} from "./common";
 
-export type RinseConductivityOutcomeInput = Pick<OutcomeInput, "conductivityLimitUsPerCm" | "samples">;
+export type RinseConductivityOutcomeInput = Pick<
+  OutcomeInput,
+  "conductivityLimitUsPerCm" | "samples"
+>;
 
 /** Final-rinse conductivity: each reading compensated to 25 °C (linear, α = 2 %/°C) against the recipe version's limit. */
 export function rinseConductivityOutcome(input: RinseConductivityOutcomeInput): RunOutcome {
   const missing: string[] = [];
   const limit = input.conductivityLimitUsPerCm;
   if (limit === null) missing.push("The recipe version sets no rinse-water conductivity limit.");
-  const samples = parsedSamples<ConductivitySample>(input).map(({ label, worstCase, data }): SampleOutcome => {
-    const k25 = conductivityAt25C(data.measuredUsPerCm, data.temperatureC);
-    const lines = [`${fmt(data.measuredUsPerCm)} µS/cm at ${fmt(data.temperatureC)} °C → ${fmt(k25)} µS/cm at 25 °C (linear, α = 2 %/°C)`];
-    if (limit === null) return { sampleLabel: label, worstCase, outcome: "incomplete", lines };
-    const ok = k25 <= limit;
-    lines.push(`Limit ${fmt(limit)} µS/cm at 25 °C: ${word(ok)}`);
-    return { sampleLabel: label, worstCase, outcome: ok ? "pass" : "fail", lines };
-  });
+  const samples = parsedSamples<ConductivitySample>(input).map(
+    ({ label, worstCase, data }): SampleOutcome => {
+      const k25 = conductivityAt25C(data.measuredUsPerCm, data.temperatureC);
+      const lines = [
+        `${fmt(data.measuredUsPerCm)} µS/cm at ${fmt(data.temperatureC)} °C → ${fmt(k25)} µS/cm at 25 °C (linear, α = 2 %/°C)`,
+      ];
+      if (limit === null) return { sampleLabel: label, worstCase, outcome: "incomplete", lines };
+      const ok = k25 <= limit;
+      lines.push(`Limit ${fmt(limit)} µS/cm at 25 °C: ${word(ok)}`);
+      return { sampleLabel: label, worstCase, outcome: ok ? "pass" : "fail", lines };
+    },
+  );
   return plainOutcome(samples, [], missing);
 }

@@ -10,7 +10,11 @@ import { UserFacingError } from "@/lib/server/errors";
 const MAX_ACTIVE = 20;
 
 /** Makes a token for the user, valid for the chosen number of days; the token itself is returned once and never stored. */
-export async function createApiToken(actor: { id: string; name: string } & AuditActor, input: CreateApiToken, now = new Date()) {
+export async function createApiToken(
+  actor: { id: string; name: string } & AuditActor,
+  input: CreateApiToken,
+  now = new Date(),
+) {
   const { token, prefix, hash } = generateApiToken();
   const days = Number(input.expiresInDays ?? DEFAULT_TOKEN_DAYS);
   const expiresAt = new Date(now.getTime() + days * 86_400_000).toISOString();
@@ -18,10 +22,41 @@ export async function createApiToken(actor: { id: string; name: string } & Audit
     const active = await tx
       .select({ id: apiTokens.id })
       .from(apiTokens)
-      .where(and(eq(apiTokens.userId, actor.id), isNull(apiTokens.revokedAt), isNull(apiTokens.suspendedAt), gt(apiTokens.expiresAt, now.toISOString())));
-    if (active.length >= MAX_ACTIVE) throw new UserFacingError(`You have ${MAX_ACTIVE} active tokens. Revoke one you no longer use first.`);
-    const [created] = await tx.insert(apiTokens).values({ userId: actor.id, name: input.name, prefix, tokenHash: hash, scope: input.scope, createdAt: now.toISOString(), expiresAt }).returning();
-    await appendAudit(tx, actor, { eventType: "api_token.created", recordType: "api_token", recordId: created.id, new: { name: input.name, scope: input.scope, prefix, expiresAt } }, now);
+      .where(
+        and(
+          eq(apiTokens.userId, actor.id),
+          isNull(apiTokens.revokedAt),
+          isNull(apiTokens.suspendedAt),
+          gt(apiTokens.expiresAt, now.toISOString()),
+        ),
+      );
+    if (active.length >= MAX_ACTIVE)
+      throw new UserFacingError(
+        `You have ${MAX_ACTIVE} active tokens. Revoke one you no longer use first.`,
+      );
+    const [created] = await tx
+      .insert(apiTokens)
+      .values({
+        userId: actor.id,
+        name: input.name,
+        prefix,
+        tokenHash: hash,
+        scope: input.scope,
+        createdAt: now.toISOString(),
+        expiresAt,
+      })
+      .returning();
+    await appendAudit(
+      tx,
+      actor,
+      {
+        eventType: "api_token.created",
+        recordType: "api_token",
+        recordId: created.id,
+        new: { name: input.name, scope: input.scope, prefix, expiresAt },
+      },
+      now,
+    );
     return created;
   });
   return { token, id: row.id, prefix, expiresAt };

@@ -24,14 +24,22 @@ interface Context<P extends Params> {
  * the user can act on answers with its kind's status (lib/server/errors.ts), anything else a 500
  * that says nothing was changed. The rule travels with the handler for the registry and OpenAPI.
  */
-export function apiRoute<P extends Params = Params>(rule: { permission: Permission; scope: "read" | "read_write" }, handler: (ctx: Context<P>) => Promise<Response>) {
+export function apiRoute<P extends Params = Params>(
+  rule: { permission: Permission; scope: "read" | "read_write" },
+  handler: (ctx: Context<P>) => Promise<Response>,
+) {
   const route = async (request: Request, context: { params: Promise<P> }) => {
-    const auth = await authenticateApi(request, rule.permission, rule.scope === "read_write" ? "write" : "read");
+    const auth = await authenticateApi(
+      request,
+      rule.permission,
+      rule.scope === "read_write" ? "write" : "read",
+    );
     if (!auth.ok) return jsonError(auth.status, auth.message);
     try {
       return await handler({ request, user: auth.user, params: await context.params });
     } catch (error) {
-      if (error instanceof BadCursorError) return jsonError(400, error.message, { cursor: [error.message] });
+      if (error instanceof BadCursorError)
+        return jsonError(400, error.message, { cursor: [error.message] });
       const failure = describeFailure(error);
       return jsonError(failure.status, failure.message, failure.fieldErrors);
     }
@@ -46,7 +54,11 @@ interface SessionContext<P extends Params> {
 }
 
 /** A refusal from a session route, in the one error shape of every route handler: `{ error, fieldErrors }`. */
-export function routeError(status: number, message: string, fieldErrors?: Record<string, string[]>) {
+export function routeError(
+  status: number,
+  message: string,
+  fieldErrors?: Record<string, string[]>,
+) {
   return jsonError(status, message, fieldErrors);
 }
 
@@ -54,7 +66,10 @@ export function routeError(status: number, message: string, fieldErrors?: Record
  * apiRoute's twin for the browser's own routes under app/api (outside v1): the session and the
  * permission first, then the handler; errors answer by kind with routeError.
  */
-export function defineRoute<P extends Params = Params>(rule: { permission: Permission }, handler: (ctx: SessionContext<P>) => Promise<Response>) {
+export function defineRoute<P extends Params = Params>(
+  rule: { permission: Permission },
+  handler: (ctx: SessionContext<P>) => Promise<Response>,
+) {
   const route = async (request: NextRequest, context: { params: Promise<P> }) => {
     const auth = await authorize(rule.permission);
     if (!auth.ok) return routeError(auth.status, auth.message);
@@ -73,9 +88,20 @@ export function ok(body: unknown, status = 200) {
 }
 
 /** Query-string parameters checked against a strict schema: an unknown parameter is an error, not ignored. */
-export function parseQuery<S extends z.ZodType>(request: Request, schema: S): { ok: true; data: z.output<S> } | { ok: false; response: Response } {
+export function parseQuery<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+): { ok: true; data: z.output<S> } | { ok: false; response: Response } {
   const parsed = schema.safeParse(Object.fromEntries(new URL(request.url).searchParams.entries()));
-  if (!parsed.success) return { ok: false, response: jsonError(400, "Some query parameters are not valid.", zodFieldErrors(parsed.error)) };
+  if (!parsed.success)
+    return {
+      ok: false,
+      response: jsonError(
+        400,
+        "Some query parameters are not valid.",
+        zodFieldErrors(parsed.error),
+      ),
+    };
   return { ok: true, data: parsed.data };
 }
 
@@ -85,7 +111,11 @@ export function parseQuery<S extends z.ZodType>(request: Request, schema: S): { 
  * checked first and answered with 413 saying the limit.
  */
 export const JSON_BODY_LIMIT_BYTES = 1024 * 1024;
-const tooLarge = () => jsonError(413, `The body is larger than the ${JSON_BODY_LIMIT_BYTES / (1024 * 1024)} MB limit for one request. Send fewer items per request.`);
+const tooLarge = () =>
+  jsonError(
+    413,
+    `The body is larger than the ${JSON_BODY_LIMIT_BYTES / (1024 * 1024)} MB limit for one request. Send fewer items per request.`,
+  );
 
 /** The body's text, or null once it passes the limit (a declared length is believed first, then counted). */
 async function readLimited(request: Request, limit: number): Promise<string | null> {
@@ -112,9 +142,15 @@ async function readLimited(request: Request, limit: number): Promise<string | nu
  * A JSON body: over the limit is 413, malformed JSON 400, and a body that breaks the schema
  * (wrong type, missing field, or a key the schema does not know, at any depth) 422.
  */
-export async function parseBody<S extends z.ZodType>(request: Request, schema: S): Promise<{ ok: true; data: z.output<S> } | { ok: false; response: Response }> {
+export async function parseBody<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+): Promise<{ ok: true; data: z.output<S> } | { ok: false; response: Response }> {
   if (!(request.headers.get("content-type") ?? "").toLowerCase().startsWith("application/json")) {
-    return { ok: false, response: jsonError(415, "Send the body as JSON with Content-Type: application/json.") };
+    return {
+      ok: false,
+      response: jsonError(415, "Send the body as JSON with Content-Type: application/json."),
+    };
   }
   const text = await readLimited(request, JSON_BODY_LIMIT_BYTES);
   if (text === null) return { ok: false, response: tooLarge() };
@@ -127,7 +163,11 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
   const extra = unknownFieldErrors(schema, raw);
   if (extra) return { ok: false, response: jsonError(422, unknownFieldsMessage(extra), extra) };
   const parsed = schema.safeParse(raw);
-  if (!parsed.success) return { ok: false, response: jsonError(422, "Some fields are not valid.", zodFieldErrors(parsed.error)) };
+  if (!parsed.success)
+    return {
+      ok: false,
+      response: jsonError(422, "Some fields are not valid.", zodFieldErrors(parsed.error)),
+    };
   return { ok: true, data: parsed.data };
 }
 

@@ -72,7 +72,18 @@ export async function listSystemsApi(q: z.output<typeof pageQuery>) {
     .where(after(cleaningSystems.code, cleaningSystems.id, q.cursor))
     .orderBy(asc(cleaningSystems.code), asc(cleaningSystems.id))
     .limit(q.limit + 1);
-  const stages = rows.length ? await db.select().from(systemStages).where(inArray(systemStages.systemId, rows.map((r) => r.s.id))).orderBy(asc(systemStages.position)) : [];
+  const stages = rows.length
+    ? await db
+        .select()
+        .from(systemStages)
+        .where(
+          inArray(
+            systemStages.systemId,
+            rows.map((r) => r.s.id),
+          ),
+        )
+        .orderBy(asc(systemStages.position))
+    : [];
   const out = page(rows, q.limit, (r) => [r.s.code, r.s.id]);
   return {
     nextCursor: out.nextCursor,
@@ -109,13 +120,29 @@ export async function listSystemsApi(q: z.output<typeof pageQuery>) {
 async function recipeRows(where: SQL | undefined, limit: number) {
   const db = getDb();
   const rows = await db
-    .select({ r: recipes, systemCode: cleaningSystems.code, systemAssetNumber: cleaningSystems.assetNumber, systemActive: cleaningSystems.active })
+    .select({
+      r: recipes,
+      systemCode: cleaningSystems.code,
+      systemAssetNumber: cleaningSystems.assetNumber,
+      systemActive: cleaningSystems.active,
+    })
     .from(recipes)
     .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
     .where(where)
     .orderBy(asc(recipes.code), asc(recipes.id))
     .limit(limit);
-  const versions = rows.length ? await db.select().from(recipeVersions).where(inArray(recipeVersions.recipeId, rows.map((r) => r.r.id))).orderBy(asc(recipeVersions.version)) : [];
+  const versions = rows.length
+    ? await db
+        .select()
+        .from(recipeVersions)
+        .where(
+          inArray(
+            recipeVersions.recipeId,
+            rows.map((r) => r.r.id),
+          ),
+        )
+        .orderBy(asc(recipeVersions.version))
+    : [];
   return rows.map(({ r, systemCode, systemAssetNumber, systemActive }) => ({
     row: r,
     out: {
@@ -127,13 +154,27 @@ async function recipeRows(where: SQL | undefined, limit: number) {
       systemCode,
       systemAssetNumber,
       systemRetired: !systemActive,
-      versions: versions.filter((v) => v.recipeId === r.id).map((v) => ({ id: v.id, version: v.version, status: v.status, effectiveFrom: v.effectiveFrom, effectiveTo: v.effectiveTo })),
+      versions: versions
+        .filter((v) => v.recipeId === r.id)
+        .map((v) => ({
+          id: v.id,
+          version: v.version,
+          status: v.status,
+          effectiveFrom: v.effectiveFrom,
+          effectiveTo: v.effectiveTo,
+        })),
     } satisfies RecipeOut,
   }));
 }
 
 export async function listRecipesApi(q: z.output<typeof recipesQuery>) {
-  const rows = await recipeRows(and(q.systemId ? eq(recipes.systemId, q.systemId) : undefined, after(recipes.code, recipes.id, q.cursor)), q.limit + 1);
+  const rows = await recipeRows(
+    and(
+      q.systemId ? eq(recipes.systemId, q.systemId) : undefined,
+      after(recipes.code, recipes.id, q.cursor),
+    ),
+    q.limit + 1,
+  );
   const out = page(rows, q.limit, (r) => [r.row.code, r.row.id]);
   return { data: out.data.map((r) => r.out), nextCursor: out.nextCursor };
 }
@@ -143,7 +184,10 @@ export async function getRecipeApi(recipeId: string) {
   return r?.out;
 }
 
-export async function getRecipeVersionApi(recipeId: string, version: number): Promise<RecipeVersionOut | undefined> {
+export async function getRecipeVersionApi(
+  recipeId: string,
+  version: number,
+): Promise<RecipeVersionOut | undefined> {
   const db = getDb();
   const [row] = await db
     .select({ v: recipeVersions, code: recipes.code })
@@ -162,16 +206,31 @@ export async function getRecipeVersionApi(recipeId: string, version: number): Pr
     recipeCode: row.code,
     detergent: snapshot.detergent,
     notes: snapshot.notes,
-    stages: snapshot.stages.map((s, i) => ({ position: i + 1, name: s.name, kind: s.kind, mode: s.mode, parameters: s.parameters })),
+    stages: snapshot.stages.map((s, i) => ({
+      position: i + 1,
+      name: s.name,
+      kind: s.kind,
+      mode: s.mode,
+      parameters: s.parameters,
+    })),
   };
 }
 
 export async function listPartFamiliesApi(q: z.output<typeof partFamiliesQuery>) {
   const rows = await getDb()
-    .select({ f: partFamilies, specCode: cleanlinessSpecs.code, specRevision: cleanlinessSpecs.revision })
+    .select({
+      f: partFamilies,
+      specCode: cleanlinessSpecs.code,
+      specRevision: cleanlinessSpecs.revision,
+    })
     .from(partFamilies)
     .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
-    .where(and(q.specCode ? eq(cleanlinessSpecs.code, q.specCode) : undefined, after(partFamilies.code, partFamilies.id, q.cursor)))
+    .where(
+      and(
+        q.specCode ? eq(cleanlinessSpecs.code, q.specCode) : undefined,
+        after(partFamilies.code, partFamilies.id, q.cursor),
+      ),
+    )
     .orderBy(asc(partFamilies.code), asc(partFamilies.id))
     .limit(q.limit + 1);
   const out = page(rows, q.limit, (r) => [r.f.code, r.f.id]);
@@ -203,7 +262,12 @@ export async function listSpecificationsApi(q: z.output<typeof specificationsQue
     .select({ s: cleanlinessSpecs, sha256: evidenceFiles.sha256 })
     .from(cleanlinessSpecs)
     .leftJoin(evidenceFiles, eq(evidenceFiles.id, cleanlinessSpecs.sourceFileId))
-    .where(and(q.status ? eq(cleanlinessSpecs.status, q.status) : undefined, after(cleanlinessSpecs.code, cleanlinessSpecs.id, q.cursor)))
+    .where(
+      and(
+        q.status ? eq(cleanlinessSpecs.status, q.status) : undefined,
+        after(cleanlinessSpecs.code, cleanlinessSpecs.id, q.cursor),
+      ),
+    )
     .orderBy(asc(cleanlinessSpecs.code), asc(cleanlinessSpecs.id))
     .limit(q.limit + 1);
   const out = page(rows, q.limit, (r) => [r.s.code, r.s.id]);
@@ -238,7 +302,12 @@ export async function listSpecificationsApi(q: z.output<typeof specificationsQue
 
 export async function listQualifiedCombinationsApi(q: z.output<typeof qualifiedCombinationsQuery>) {
   const rows = await getDb()
-    .select({ i: requalificationIntervals, familyCode: partFamilies.code, v: recipeVersions, recipeCode: recipes.code })
+    .select({
+      i: requalificationIntervals,
+      familyCode: partFamilies.code,
+      v: recipeVersions,
+      recipeCode: recipes.code,
+    })
     .from(requalificationIntervals)
     .innerJoin(partFamilies, eq(partFamilies.id, requalificationIntervals.partFamilyId))
     .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
@@ -281,8 +350,15 @@ async function changeRows(where: SQL | undefined, limit: number) {
     .where(where)
     .orderBy(asc(changeRequests.number), asc(changeRequests.id))
     .limit(limit);
-  const versionIds = rows.flatMap((r) => [r.c.fromVersionId, r.c.toVersionId]).filter((x): x is string => !!x);
-  const versions = versionIds.length ? await db.select({ id: recipeVersions.id, version: recipeVersions.version }).from(recipeVersions).where(inArray(recipeVersions.id, versionIds)) : [];
+  const versionIds = rows
+    .flatMap((r) => [r.c.fromVersionId, r.c.toVersionId])
+    .filter((x): x is string => !!x);
+  const versions = versionIds.length
+    ? await db
+        .select({ id: recipeVersions.id, version: recipeVersions.version })
+        .from(recipeVersions)
+        .where(inArray(recipeVersions.id, versionIds))
+    : [];
   const num = (id: string | null) => versions.find((v) => v.id === id)?.version ?? null;
   return rows.map(({ c, recipeCode }) => ({
     row: c,
@@ -303,26 +379,56 @@ async function changeRows(where: SQL | undefined, limit: number) {
 }
 
 export async function listChangeRequestsApi(q: z.output<typeof changeRequestsQuery>) {
-  const where = and(q.status ? eq(changeRequests.status, q.status) : undefined, q.recipeId ? eq(changeRequests.recipeId, q.recipeId) : undefined, after(changeRequests.number, changeRequests.id, q.cursor));
+  const where = and(
+    q.status ? eq(changeRequests.status, q.status) : undefined,
+    q.recipeId ? eq(changeRequests.recipeId, q.recipeId) : undefined,
+    after(changeRequests.number, changeRequests.id, q.cursor),
+  );
   const out = page(await changeRows(where, q.limit + 1), q.limit, (r) => [r.row.number, r.row.id]);
   return { data: out.data.map((r) => r.out), nextCursor: out.nextCursor };
 }
 
-export async function getChangeRequestApi(changeRequestId: string): Promise<ChangeRequestDetailOut | undefined> {
+export async function getChangeRequestApi(
+  changeRequestId: string,
+): Promise<ChangeRequestDetailOut | undefined> {
   const [head] = await changeRows(eq(changeRequests.id, changeRequestId), 1);
   if (!head) return undefined;
   const db = getDb();
   const state = await loadChangeState(db, changeRequestId);
-  const [sigs, evidence] = await Promise.all([changeSignatures(db, changeRequestId), changeEvidence(db, changeRequestId)]);
+  const [sigs, evidence] = await Promise.all([
+    changeSignatures(db, changeRequestId),
+    changeEvidence(db, changeRequestId),
+  ]);
   return {
     ...head.out,
     impact: head.out.impact ?? state.impact,
     justification: narrativeText(state.narrative?.content ?? null),
     parameterChanges: state.assessment.diff.parameters
       .filter((p) => p.change !== "unchanged")
-      .map((p) => ({ key: p.key, name: p.name, stage: p.stage, change: p.change, old: p.old, new: p.new, position: p.position, impact: p.impact, reasons: p.reasons })),
-    requiredTests: state.requirements.map((r) => ({ testType: r.testType, samples: r.samples, confidencePct: r.confidencePct, reliabilityPct: r.reliabilityPct })),
-    signatures: sigs.map((s) => ({ printedName: s.printedName, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash, revision: s.revision })),
+      .map((p) => ({
+        key: p.key,
+        name: p.name,
+        stage: p.stage,
+        change: p.change,
+        old: p.old,
+        new: p.new,
+        position: p.position,
+        impact: p.impact,
+        reasons: p.reasons,
+      })),
+    requiredTests: state.requirements.map((r) => ({
+      testType: r.testType,
+      samples: r.samples,
+      confidencePct: r.confidencePct,
+      reliabilityPct: r.reliabilityPct,
+    })),
+    signatures: sigs.map((s) => ({
+      printedName: s.printedName,
+      meaning: s.meaning,
+      signedAt: s.signedAt,
+      contentHash: s.contentHash,
+      revision: s.revision,
+    })),
     evidenceRunIds: evidence.map((r) => r.id),
   };
 }
@@ -372,15 +478,44 @@ export async function getTestRunApi(runId: string): Promise<TestRunDetailOut | u
   if (!head) return undefined;
   const db = getDb();
   const [samples, files, sigs] = await Promise.all([
-    db.select().from(testSamples).where(eq(testSamples.runId, runId)).orderBy(asc(testSamples.createdAt), asc(testSamples.sampleLabel)),
-    db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, runId)).orderBy(asc(evidenceFiles.uploadedAt)),
-    db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), eq(signatures.recordId, runId))).orderBy(asc(signatures.signedAt)),
+    db
+      .select()
+      .from(testSamples)
+      .where(eq(testSamples.runId, runId))
+      .orderBy(asc(testSamples.createdAt), asc(testSamples.sampleLabel)),
+    db
+      .select()
+      .from(evidenceFiles)
+      .where(eq(evidenceFiles.runId, runId))
+      .orderBy(asc(evidenceFiles.uploadedAt)),
+    db
+      .select()
+      .from(signatures)
+      .where(and(eq(signatures.recordType, "test_run"), eq(signatures.recordId, runId)))
+      .orderBy(asc(signatures.signedAt)),
   ]);
   return {
     ...head.out,
-    samples: samples.map((r) => ({ id: r.id, sampleLabel: r.sampleLabel, basketPosition: r.basketPosition, worstCase: r.worstCase, data: r.data as Record<string, unknown> })),
-    files: files.map((f) => ({ id: f.id, originalName: f.originalName, mimeType: f.mimeType, sizeBytes: f.sizeBytes, sha256: f.sha256 })),
-    signatures: sigs.map((s) => ({ printedName: s.printedName, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash })),
+    samples: samples.map((r) => ({
+      id: r.id,
+      sampleLabel: r.sampleLabel,
+      basketPosition: r.basketPosition,
+      worstCase: r.worstCase,
+      data: r.data as Record<string, unknown>,
+    })),
+    files: files.map((f) => ({
+      id: f.id,
+      originalName: f.originalName,
+      mimeType: f.mimeType,
+      sizeBytes: f.sizeBytes,
+      sha256: f.sha256,
+    })),
+    signatures: sigs.map((s) => ({
+      printedName: s.printedName,
+      meaning: s.meaning,
+      signedAt: s.signedAt,
+      contentHash: s.contentHash,
+    })),
   };
 }
 
@@ -399,21 +534,22 @@ export async function listAuditEventsApi(q: z.output<typeof auditEventsQuery>) {
     .where(before ? and(filters, lt(auditEvents.seq, before)) : filters)
     .orderBy(desc(auditEvents.seq))
     .limit(q.limit + 1);
-  const data = rows.slice(0, q.limit).map(
-    (r): AuditEventOut => ({
-      seq: r.seq,
-      at: r.at,
-      actorName: r.actorName,
-      eventType: currentEventType(r.action),
-      storedEventType: r.action,
-      recordType: r.recordType,
-      recordId: r.recordId,
-      old: r.oldValue ? JSON.parse(r.oldValue) : null,
-      new: r.newValue ? JSON.parse(r.newValue) : null,
-      reason: r.reason,
-      prevHash: r.prevHash,
-      hash: r.hash,
-    }),
-  );
-  return { data, nextCursor: rows.length > q.limit ? encodeCursor(String(data.at(-1)!.seq), "") : null };
+  const data = rows.slice(0, q.limit).map((r): AuditEventOut => ({
+    seq: r.seq,
+    at: r.at,
+    actorName: r.actorName,
+    eventType: currentEventType(r.action),
+    storedEventType: r.action,
+    recordType: r.recordType,
+    recordId: r.recordId,
+    old: r.oldValue ? JSON.parse(r.oldValue) : null,
+    new: r.newValue ? JSON.parse(r.newValue) : null,
+    reason: r.reason,
+    prevHash: r.prevHash,
+    hash: r.hash,
+  }));
+  return {
+    data,
+    nextCursor: rows.length > q.limit ? encodeCursor(String(data.at(-1)!.seq), "") : null,
+  };
 }

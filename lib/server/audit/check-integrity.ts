@@ -31,7 +31,10 @@ export interface IntegrityReport {
 }
 
 /** The chain as stored against every signed checkpoint in the evidence store (or only the newest: see loadCheckpoints). */
-export async function compareChainWithCheckpoints(db: Executor, options: { newestOnly?: boolean } = {}): Promise<CheckpointComparison> {
+export async function compareChainWithCheckpoints(
+  db: Executor,
+  options: { newestOnly?: boolean } = {},
+): Promise<CheckpointComparison> {
   let key: SigningKey | null = null;
   let keyProblem: string | null = null;
   try {
@@ -43,7 +46,10 @@ export async function compareChainWithCheckpoints(db: Executor, options: { newes
   const seqs = [...new Set(checkpoints.map((c) => c.seq))];
   const stored = new Map<number, string>();
   for (let i = 0; i < seqs.length; i += 500) {
-    const rows = await db.select({ seq: auditEvents.seq, hash: auditEvents.hash }).from(auditEvents).where(inArray(auditEvents.seq, seqs.slice(i, i + 500)));
+    const rows = await db
+      .select({ seq: auditEvents.seq, hash: auditEvents.hash })
+      .from(auditEvents)
+      .where(inArray(auditEvents.seq, seqs.slice(i, i + 500)));
     for (const r of rows) stored.set(r.seq, r.hash);
   }
   const last = await db.get<{ seq: number | null }>(sql`SELECT max(seq) AS seq FROM audit_events`);
@@ -52,7 +58,9 @@ export async function compareChainWithCheckpoints(db: Executor, options: { newes
   return {
     count: checkpoints.length,
     newest,
-    breaks: key ? compareWithCheckpoints(checkpoints, (seq) => stored.get(seq), lastSeq, key.publicKey) : [],
+    breaks: key
+      ? compareWithCheckpoints(checkpoints, (seq) => stored.get(seq), lastSeq, key.publicKey)
+      : [],
     unreadable,
     uncovered: Math.max(0, lastSeq - (newest?.seq ?? 0)),
     key: key && { keyId: key.keyId, source: key.source, path: key.path },
@@ -63,9 +71,13 @@ export async function compareChainWithCheckpoints(db: Executor, options: { newes
 /** Every checkpoint flaw as one sentence each. */
 export function checkpointFindings(c: CheckpointComparison): string[] {
   return [
-    ...(c.keyProblem ? [`Checkpoint: ${c.keyProblem} The ${c.count} stored checkpoints could not be checked.`] : []),
+    ...(c.keyProblem
+      ? [`Checkpoint: ${c.keyProblem} The ${c.count} stored checkpoints could not be checked.`]
+      : []),
     ...c.breaks.map((b) => `Checkpoint: ${b.reason}.`),
-    ...c.unreadable.map((n) => `Checkpoint: the file ${n} in the evidence store is not a readable checkpoint.`),
+    ...c.unreadable.map(
+      (n) => `Checkpoint: the file ${n} in the evidence store is not a readable checkpoint.`,
+    ),
   ];
 }
 
@@ -75,7 +87,10 @@ export function checkpointFindings(c: CheckpointComparison): string[] {
  * against its signing event and the record as stored.
  */
 export async function checkIntegrity(db: Executor = getDb()): Promise<IntegrityReport> {
-  const [chain, checkpoints] = await Promise.all([verifyAuditChain(db), compareChainWithCheckpoints(db)]);
+  const [chain, checkpoints] = await Promise.all([
+    verifyAuditChain(db),
+    compareChainWithCheckpoints(db),
+  ]);
   const signatures = await checkSignatures(db);
   const findings = [
     ...chain.breaks.map((b) => `Chain: ${b.reason}.`),

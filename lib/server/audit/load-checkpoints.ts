@@ -8,7 +8,9 @@ import { getCheckpointStore } from "@/lib/storage/checkpoints";
  * from any earlier event changes the hash the newest checkpoint holds, so it alone
  * detects one (the older ones narrow down where it lies).
  */
-export async function loadCheckpoints(options: { newestOnly?: boolean } = {}): Promise<{ checkpoints: SignedCheckpoint[]; unreadable: string[] }> {
+export async function loadCheckpoints(
+  options: { newestOnly?: boolean } = {},
+): Promise<{ checkpoints: SignedCheckpoint[]; unreadable: string[] }> {
   const store = getCheckpointStore();
   const all = await store.list();
   const names = options.newestOnly ? all.slice(-1) : all;

@@ -9,7 +9,10 @@ import type { AuditQuery } from "@/lib/schemas/audit";
 /** The filters as SQL, shared by the browser, the CSV export and the API. */
 export function auditConditions(q: Partial<AuditQuery>): SQL | undefined {
   const where: SQL[] = [];
-  if (q.actor) where.push(q.actor === "system" ? eq(auditEvents.actorName, "system") : eq(auditEvents.actorId, q.actor));
+  if (q.actor)
+    where.push(
+      q.actor === "system" ? eq(auditEvents.actorName, "system") : eq(auditEvents.actorId, q.actor),
+    );
   if (q.recordType) where.push(eq(auditEvents.recordType, q.recordType));
   if (q.recordId) where.push(eq(auditEvents.recordId, q.recordId));
   if (q.eventType) where.push(inArray(auditEvents.action, storedNamesOf(q.eventType)));
@@ -51,7 +54,10 @@ export async function queryAuditEvents(q: AuditQuery) {
 export type AuditPage = Awaited<ReturnType<typeof queryAuditEvents>>;
 
 /** Every matching event for export, newest first, in pages so memory stays flat. */
-export async function* iterateAuditEvents(q: Partial<Omit<AuditQuery, "before" | "limit">>, pageSize = 2000) {
+export async function* iterateAuditEvents(
+  q: Partial<Omit<AuditQuery, "before" | "limit">>,
+  pageSize = 2000,
+) {
   let before: number | undefined;
   for (;;) {
     const where = auditConditions(q);
@@ -71,7 +77,10 @@ export async function* iterateAuditEvents(q: Partial<Omit<AuditQuery, "before" |
 export async function auditFilterOptions() {
   const db = getDb();
   const stored = await db.selectDistinct({ v: auditEvents.action }).from(auditEvents);
-  const types = await db.selectDistinct({ v: auditEvents.recordType }).from(auditEvents).orderBy(auditEvents.recordType);
+  const types = await db
+    .selectDistinct({ v: auditEvents.recordType })
+    .from(auditEvents)
+    .orderBy(auditEvents.recordType);
   const eventTypes = [...new Set(stored.map((a) => currentEventType(a.v)))].sort();
   return { eventTypes, recordTypes: types.map((t) => t.v) };
 }

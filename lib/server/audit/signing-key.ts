@@ -21,7 +21,13 @@ let cached: SigningKey | undefined;
 
 function fromPem(pem: string, source: SigningKey["source"], path?: string): SigningKey {
   const privateKey = parseSigningKey(pem);
-  return { privateKey, publicKey: createPublicKey(privateKey), keyId: keyIdOf(privateKey), source, path };
+  return {
+    privateKey,
+    publicKey: createPublicKey(privateKey),
+    keyId: keyIdOf(privateKey),
+    source,
+    path,
+  };
 }
 
 /**
@@ -40,7 +46,9 @@ export function getSigningKey(): SigningKey {
     cached = fromPem(readFileSync(path, "utf8"), "file", path);
   } else {
     if (e.NODE_ENV === "production" && !e.DEMO_MODE) {
-      throw new Error("No audit signing key is configured: set AUDIT_SIGNING_KEY_FILE (or AUDIT_SIGNING_KEY) to an Ed25519 private key in PEM form.");
+      throw new Error(
+        "No audit signing key is configured: set AUDIT_SIGNING_KEY_FILE (or AUDIT_SIGNING_KEY) to an Ed25519 private key in PEM form.",
+      );
     }
     const path = resolve(GENERATED_KEY_PATH);
     if (!existsSync(path)) {
@@ -55,7 +63,9 @@ export function getSigningKey(): SigningKey {
       } finally {
         unlinkSync(temp);
       }
-      console.warn(`No AUDIT_SIGNING_KEY_FILE is configured: generated an audit checkpoint key at ${path}. Configure a key kept off this machine for real use.`);
+      console.warn(
+        `No AUDIT_SIGNING_KEY_FILE is configured: generated an audit checkpoint key at ${path}. Configure a key kept off this machine for real use.`,
+      );
     }
     cached = fromPem(readFileSync(path, "utf8"), "generated", path);
   }

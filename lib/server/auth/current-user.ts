@@ -14,7 +14,10 @@ export const getCurrentUser = cache(async (): Promise<SessionUser | null> => {
 });
 
 /** For pages: sign-in when there is no session, a 403 page when the role may not. */
-export async function requirePageUser(permission?: Permission, opts: { allowPasswordChange?: boolean } = {}): Promise<SessionUser> {
+export async function requirePageUser(
+  permission?: Permission,
+  opts: { allowPasswordChange?: boolean } = {},
+): Promise<SessionUser> {
   const user = await getCurrentUser();
   if (!user) redirect("/sign-in");
   if (user.mustChangePassword && !opts.allowPasswordChange) redirect("/account/password");
@@ -22,7 +25,8 @@ export async function requirePageUser(permission?: Permission, opts: { allowPass
   return user;
 }
 
-export type Authorized = { ok: true; user: SessionUser } | { ok: false; message: string; status: 401 | 403 };
+export type Authorized =
+  { ok: true; user: SessionUser } | { ok: false; message: string; status: 401 | 403 };
 
 /** For server actions and route handlers: never throws, returns a message for the caller. */
 export async function authorize(permission: Permission): Promise<Authorized> {
@@ -31,6 +35,7 @@ export async function authorize(permission: Permission): Promise<Authorized> {
   if (user.mustChangePassword && permission !== "account.change_password") {
     return { ok: false, status: 403, message: "Change your temporary password first." };
   }
-  if (!can(user.roles, permission)) return { ok: false, status: 403, message: "Your role does not allow this." };
+  if (!can(user.roles, permission))
+    return { ok: false, status: 403, message: "Your role does not allow this." };
   return { ok: true, user };
 }

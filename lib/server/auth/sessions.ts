@@ -33,7 +33,12 @@ export async function createSession(userId: string, now = new Date(), tx?: Tx) {
   const token = generateSessionToken();
   const id = sessionIdFromToken(token);
   const seconds = Math.floor(now.getTime() / 1000);
-  await (tx ?? getDb()).insert(sessions).values({ id, userId, createdAt: seconds, expiresAt: seconds + env().SESSION_IDLE_MINUTES * 60 });
+  await (tx ?? getDb()).insert(sessions).values({
+    id,
+    userId,
+    createdAt: seconds,
+    expiresAt: seconds + env().SESSION_IDLE_MINUTES * 60,
+  });
   return { id, token };
 }
 
@@ -50,7 +55,10 @@ export const cookieForSignOut = () => blankSessionCookie(secureCookies());
  * precise idle timeout, and the user's current state.
  * Returns null (and removes the session) when it may no longer be used.
  */
-export async function validateSession(token: string, now = new Date()): Promise<SessionUser | null> {
+export async function validateSession(
+  token: string,
+  now = new Date(),
+): Promise<SessionUser | null> {
   if (!token || token.length > 200) return null;
   const { session, user } = await lucia().validateSession(sessionIdFromToken(token));
   if (!session || !user) return null;
@@ -70,7 +78,10 @@ export async function validateSession(token: string, now = new Date()): Promise<
         .where(eq(sessions.id, session.id)),
     );
   }
-  const roles = await getDb().select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, user.id));
+  const roles = await getDb()
+    .select({ role: userRoles.role })
+    .from(userRoles)
+    .where(eq(userRoles.userId, user.id));
   return {
     id: user.id,
     email: user.email,

@@ -12,9 +12,11 @@ import { accountLockedEmail } from "@/templates/email/account-locked";
 import { createSession } from "./sessions";
 
 /** One message for every failure, so a caller cannot learn which e-mails exist or are locked. */
-export const SIGN_IN_FAILED = "The e-mail or password is not correct, or the account is locked. Try again or ask an administrator.";
+export const SIGN_IN_FAILED =
+  "The e-mail or password is not correct, or the account is locked. Try again or ask an administrator.";
 /** Says nothing about any account: the address alone is being refused. */
-export const SIGN_IN_THROTTLED = "Too many failed sign-ins from your network. Wait a few minutes and try again.";
+export const SIGN_IN_THROTTLED =
+  "Too many failed sign-ins from your network. Wait a few minutes and try again.";
 
 export type SignInResult =
   | { ok: true; userId: string; sessionId: string; token: string; mustChangePassword: boolean }
@@ -26,8 +28,13 @@ export function lockoutPolicy(): LockoutPolicy {
 }
 
 export function throttlePolicy(): ThrottlePolicy {
-  const { SIGN_IN_ADDRESS_LIMIT, SIGN_IN_ADDRESS_WINDOW_MINUTES, SIGN_IN_ADDRESS_BLOCK_MINUTES } = env();
-  return { limit: SIGN_IN_ADDRESS_LIMIT, windowMs: SIGN_IN_ADDRESS_WINDOW_MINUTES * 60_000, blockMs: SIGN_IN_ADDRESS_BLOCK_MINUTES * 60_000 };
+  const { SIGN_IN_ADDRESS_LIMIT, SIGN_IN_ADDRESS_WINDOW_MINUTES, SIGN_IN_ADDRESS_BLOCK_MINUTES } =
+    env();
+  return {
+    limit: SIGN_IN_ADDRESS_LIMIT,
+    windowMs: SIGN_IN_ADDRESS_WINDOW_MINUTES * 60_000,
+    blockMs: SIGN_IN_ADDRESS_BLOCK_MINUTES * 60_000,
+  };
 }
 
 async function throttleOf(db: Tx | Database, address: string) {
@@ -37,7 +44,10 @@ async function throttleOf(db: Tx | Database, address: string) {
 
 async function countAddressFailure(tx: Tx, address: string, now: Date) {
   const next = afterAddressFailure(await throttleOf(tx, address), now, throttlePolicy());
-  await tx.insert(signInThrottle).values({ address, ...next }).onConflictDoUpdate({ target: signInThrottle.address, set: next });
+  await tx
+    .insert(signInThrottle)
+    .values({ address, ...next })
+    .onConflictDoUpdate({ target: signInThrottle.address, set: next });
 }
 
 /**
@@ -51,12 +61,16 @@ async function countAddressFailure(tx: Tx, address: string, now: Date) {
  * `sourceAddress` is the client's address (see `sourceAddress()` in lib/auth/throttle);
  * without one (scripts, tests) no per-address throttle applies.
  */
-export async function signIn(input: { email: string; password: string; sourceAddress?: string | null }, now = new Date()): Promise<SignInResult> {
+export async function signIn(
+  input: { email: string; password: string; sourceAddress?: string | null },
+  now = new Date(),
+): Promise<SignInResult> {
   const db = getDb();
   const email = input.email.trim().toLowerCase();
   const address = input.sourceAddress ?? null;
   // A blocked address is refused before the password is even hashed: cheap, and no account counter moves.
-  if (address && isBlocked(await throttleOf(db, address), now)) return { ok: false, message: SIGN_IN_THROTTLED };
+  if (address && isBlocked(await throttleOf(db, address), now))
+    return { ok: false, message: SIGN_IN_THROTTLED };
 
   const [user] = await db.select().from(users).where(eq(users.email, email));
   if (!user) {
@@ -75,13 +89,22 @@ export async function signIn(input: { email: string; password: string; sourceAdd
   const passwordOk = await verifyPassword(user.passwordHash, input.password);
 
   const outcome = await db.transaction(async (tx) => {
-    if (address && isBlocked(await throttleOf(tx, address), now)) return { kind: "throttled" as const };
+    if (address && isBlocked(await throttleOf(tx, address), now))
+      return { kind: "throttled" as const };
     const [current] = await tx.select().from(users).where(eq(users.id, user.id));
     if (!current) return { kind: "failed" as const };
     const stillValid = current.passwordHash === user.passwordHash;
     if (passwordOk && stillValid && current.active && !isLocked(current, now)) {
-      await tx.update(users).set({ failedAttempts: 0, lockedUntil: null }).where(eq(users.id, current.id));
-      await appendAudit(tx, { id: current.id, name: current.name }, { eventType: "auth.signed_in", recordType: "user", recordId: current.id }, now);
+      await tx
+        .update(users)
+        .set({ failedAttempts: 0, lockedUntil: null })
+        .where(eq(users.id, current.id));
+      await appendAudit(
+        tx,
+        { id: current.id, name: current.name },
+        { eventType: "auth.signed_in", recordType: "user", recordId: current.id },
+        now,
+      );
       const session = await createSession(current.id, now, tx);
       return { kind: "ok" as const, session, mustChangePassword: current.mustChangePassword };
     }
@@ -90,12 +113,20 @@ export async function signIn(input: { email: string; password: string; sourceAdd
     return { kind: "failed" as const };
   });
   if (outcome.kind === "ok") {
-    return { ok: true, userId: user.id, sessionId: outcome.session.id, token: outcome.session.token, mustChangePassword: outcome.mustChangePassword };
+    return {
+      ok: true,
+      userId: user.id,
+      sessionId: outcome.session.id,
+      token: outcome.session.token,
+      mustChangePassword: outcome.mustChangePassword,
+    };
   }
   return { ok: false, message: outcome.kind === "throttled" ? SIGN_IN_THROTTLED : SIGN_IN_FAILED };
 }
 
-export type FailedAttempt = { state: "counted"; attemptsLeft: number } | { state: "locked_now" | "already_locked" | "inactive" };
+export type FailedAttempt =
+  | { state: "counted"; attemptsLeft: number }
+  | { state: "locked_now" | "already_locked" | "inactive" };
 
 /**
  * Counts a failed password (at sign-in or when signing a record) inside the
@@ -104,30 +135,76 @@ export type FailedAttempt = { state: "counted"; attemptsLeft: number } | { state
  * Locks the account at the threshold, audits both and queues an e-mail to the
  * administrators.
  */
-export async function countFailedAttempt(tx: Tx, user: User, during: "sign_in" | "signing", now: Date, sourceAddress: string | null = null): Promise<FailedAttempt> {
+export async function countFailedAttempt(
+  tx: Tx,
+  user: User,
+  during: "sign_in" | "signing",
+  now: Date,
+  sourceAddress: string | null = null,
+): Promise<FailedAttempt> {
   const actor = { id: user.id, name: user.name };
   const locked = isLocked(user, now);
-  const reason = !user.active ? "account deactivated" : locked ? "account locked" : "wrong password";
-  await appendAudit(tx, actor, { eventType: "auth.sign_in_failed", recordType: "user", recordId: user.id, new: { reason, during, ...(sourceAddress ? { sourceAddress } : {}) } }, now);
+  const reason = !user.active
+    ? "account deactivated"
+    : locked
+      ? "account locked"
+      : "wrong password";
+  await appendAudit(
+    tx,
+    actor,
+    {
+      eventType: "auth.sign_in_failed",
+      recordType: "user",
+      recordId: user.id,
+      new: { reason, during, ...(sourceAddress ? { sourceAddress } : {}) },
+    },
+    now,
+  );
   if (!user.active) return { state: "inactive" };
   if (locked) return { state: "already_locked" };
   const policy = lockoutPolicy();
   const next = afterFailedAttempt(user, now, policy);
-  await tx.update(users).set({ failedAttempts: next.failedAttempts, lockedUntil: next.lockedUntil }).where(eq(users.id, user.id));
-  if (!next.locked) return { state: "counted", attemptsLeft: policy.threshold - next.failedAttempts };
-  await appendAudit(tx, actor, { eventType: "auth.locked_out", recordType: "user", recordId: user.id, new: { lockedUntil: next.lockedUntil, attempts: policy.threshold } }, now);
+  await tx
+    .update(users)
+    .set({ failedAttempts: next.failedAttempts, lockedUntil: next.lockedUntil })
+    .where(eq(users.id, user.id));
+  if (!next.locked)
+    return { state: "counted", attemptsLeft: policy.threshold - next.failedAttempts };
+  await appendAudit(
+    tx,
+    actor,
+    {
+      eventType: "auth.locked_out",
+      recordType: "user",
+      recordId: user.id,
+      new: { lockedUntil: next.lockedUntil, attempts: policy.threshold },
+    },
+    now,
+  );
   const admins = await tx
     .select({ email: users.email })
     .from(users)
     .innerJoin(userRoles, eq(userRoles.userId, users.id))
     .where(and(eq(userRoles.role, "admin"), eq(users.active, true)));
-  const mail = accountLockedEmail({ name: user.name, email: user.email, lockedUntil: next.lockedUntil!, attempts: policy.threshold, during, sourceAddress, userId: user.id });
+  const mail = accountLockedEmail({
+    name: user.name,
+    email: user.email,
+    lockedUntil: next.lockedUntil!,
+    attempts: policy.threshold,
+    during,
+    sourceAddress,
+    userId: user.id,
+  });
   for (const { email } of admins) await enqueueEmail(tx, { to: email, ...mail }, now);
   return { state: "locked_now" };
 }
 
 /** For callers outside a transaction (a wrong current password on the password form). */
-export async function recordFailedAttempt(userId: string, during: "sign_in" | "signing", now = new Date()) {
+export async function recordFailedAttempt(
+  userId: string,
+  during: "sign_in" | "signing",
+  now = new Date(),
+) {
   return getDb().transaction(async (tx) => {
     const [user] = await tx.select().from(users).where(eq(users.id, userId));
     return user ? countFailedAttempt(tx, user, during, now) : undefined;

@@ -1,7 +1,13 @@
 import "server-only";
 import { asc, eq, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { bathRecords, cleaningSystems, maintenanceIntervals, systemStages, users } from "@/db/schema";
+import {
+  bathRecords,
+  cleaningSystems,
+  maintenanceIntervals,
+  systemStages,
+  users,
+} from "@/db/schema";
 import { maintenanceStatus, type MaintenanceStatus } from "@/lib/evidence/maintenance";
 
 export interface MaintenanceItem {
@@ -25,7 +31,9 @@ export async function listMaintenance(now = new Date()): Promise<MaintenanceItem
       interval: maintenanceIntervals,
       stage: systemStages,
       system: cleaningSystems,
-      lastAt: sql<string | null>`(select max(${bathRecords.performedAt}) from ${bathRecords} where ${bathRecords.stageId} = ${systemStages.id} and ${bathRecords.kind} = ${maintenanceIntervals.kind})`,
+      lastAt: sql<
+        string | null
+      >`(select max(${bathRecords.performedAt}) from ${bathRecords} where ${bathRecords.stageId} = ${systemStages.id} and ${bathRecords.kind} = ${maintenanceIntervals.kind})`,
     })
     .from(maintenanceIntervals)
     .innerJoin(systemStages, eq(systemStages.id, maintenanceIntervals.stageId))
@@ -40,7 +48,15 @@ export async function listMaintenance(now = new Date()): Promise<MaintenanceItem
     kind: interval.kind,
     intervalDays: interval.intervalDays,
     warnDays: interval.warnDays,
-    status: maintenanceStatus({ intervalDays: interval.intervalDays, warnDays: interval.warnDays, lastDoneAt: lastAt ?? null, since: interval.createdAt }, now),
+    status: maintenanceStatus(
+      {
+        intervalDays: interval.intervalDays,
+        warnDays: interval.warnDays,
+        lastDoneAt: lastAt ?? null,
+        since: interval.createdAt,
+      },
+      now,
+    ),
   }));
   return items;
 }

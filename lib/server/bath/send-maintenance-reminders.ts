@@ -28,13 +28,35 @@ export async function sendMaintenanceReminders(now = new Date()) {
     await db.transaction(async (tx) => {
       const inserted = await tx
         .insert(maintenanceNotices)
-        .values({ intervalId: item.intervalId, dueAt: item.status.dueAt, level, createdAt: now.toISOString() })
+        .values({
+          intervalId: item.intervalId,
+          dueAt: item.status.dueAt,
+          level,
+          createdAt: now.toISOString(),
+        })
         .onConflictDoNothing()
         .returning({ id: maintenanceNotices.id });
       if (inserted.length === 0) return;
-      const mail = maintenanceDueEmail({ what: MAINTENANCE_LABELS[item.kind], tank: item.tank, system: item.system, dueAt: item.status.dueAt, overdue: level === "overdue", stageId: item.stageId });
+      const mail = maintenanceDueEmail({
+        what: MAINTENANCE_LABELS[item.kind],
+        tank: item.tank,
+        system: item.system,
+        dueAt: item.status.dueAt,
+        overdue: level === "overdue",
+        stageId: item.stageId,
+      });
       for (const to of active) await enqueueEmail(tx, { to, ...mail }, now);
-      await appendAudit(tx, SYSTEM_ACTOR, { eventType: "maintenance_interval.reminder_queued", recordType: "maintenance_interval", recordId: item.intervalId, new: { level, dueAt: item.status.dueAt, recipients: active.length } }, now);
+      await appendAudit(
+        tx,
+        SYSTEM_ACTOR,
+        {
+          eventType: "maintenance_interval.reminder_queued",
+          recordType: "maintenance_interval",
+          recordId: item.intervalId,
+          new: { level, dueAt: item.status.dueAt, recipients: active.length },
+        },
+        now,
+      );
       queued += active.length;
     });
   }

@@ -7,7 +7,12 @@ import { dueState, requalificationDue } from "@/lib/changes/periodic";
 /** Validated combinations on effective recipe versions that are overdue or fall due within 30 days. */
 export async function dueRequalifications(db: Executor, now: Date) {
   const rows = await db
-    .select({ interval: requalificationIntervals, version: recipeVersions, recipe: recipes, family: partFamilies })
+    .select({
+      interval: requalificationIntervals,
+      version: recipeVersions,
+      recipe: recipes,
+      family: partFamilies,
+    })
     .from(requalificationIntervals)
     .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))

@@ -12,6 +12,8 @@ export function assertStep(state: ChangeState, step: ChangeStep) {
 /** The signer must sign exactly what they saw: the hash in the dialog must still be the record's hash. */
 export function assertHash(state: ChangeState, signedHash: string) {
   if (signedHash !== state.contentHash) {
-    throw new UserFacingError("The change request changed since you opened it. Nothing was signed: reload, read it again and sign.");
+    throw new UserFacingError(
+      "The change request changed since you opened it. Nothing was signed: reload, read it again and sign.",
+    );
   }
 }

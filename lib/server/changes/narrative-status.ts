@@ -11,9 +11,17 @@ import { todayUtc } from "@/lib/format/date";
  * at closure, retired when the change is rejected or withdrawn. The change request's
  * own audit event records the step.
  */
-export async function setNarrativeStatus(tx: Tx, documentId: string | null, status: DocumentVersion["status"], now: Date) {
+export async function setNarrativeStatus(
+  tx: Tx,
+  documentId: string | null,
+  status: DocumentVersion["status"],
+  now: Date,
+) {
   if (!documentId) return;
-  const [v] = await tx.select().from(documentVersions).where(eq(documentVersions.documentId, documentId));
+  const [v] = await tx
+    .select()
+    .from(documentVersions)
+    .where(eq(documentVersions.documentId, documentId));
   if (!v) return;
   const frozen = status !== "draft";
   await tx

@@ -34,7 +34,10 @@ export async function listChangeRequests() {
       author: users.name,
     })
     .from(changeRequests)
-    .innerJoin(changeRequestAssessments, eq(changeRequestAssessments.changeRequestId, changeRequests.id))
+    .innerJoin(
+      changeRequestAssessments,
+      eq(changeRequestAssessments.changeRequestId, changeRequests.id),
+    )
     .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
     .innerJoin(users, eq(users.id, changeRequests.createdBy))
     .orderBy(desc(changeRequests.createdAt));
@@ -48,24 +51,65 @@ export async function getChangeRequestPage(changeRequestId: string) {
   const sigs = await db
     .select()
     .from(signatures)
-    .where(and(eq(signatures.recordType, "change_request"), like(signatures.recordId, `${changeRequestId}#%`)))
+    .where(
+      and(
+        eq(signatures.recordType, "change_request"),
+        like(signatures.recordId, `${changeRequestId}#%`),
+      ),
+    )
     .orderBy(asc(signatures.signedAt));
-  const current = sigs.filter((s) => s.recordId === state.signatureRecordId).map((s) => ({ ...s, validity: signatureValidity(s.contentHash, state.contentHash) }));
-  const earlier = sigs.filter((s) => s.recordId !== state.signatureRecordId).map((s) => ({ ...s, validity: "invalid" as const }));
+  const current = sigs
+    .filter((s) => s.recordId === state.signatureRecordId)
+    .map((s) => ({ ...s, validity: signatureValidity(s.contentHash, state.contentHash) }));
+  const earlier = sigs
+    .filter((s) => s.recordId !== state.signatureRecordId)
+    .map((s) => ({ ...s, validity: "invalid" as const }));
   const candidates = state.toVersion
-    ? await db.select().from(testRuns).where(and(eq(testRuns.recipeVersionId, state.toVersion.id), inArray(testRuns.testType, stored.length ? stored.map((r) => r.testType) : ["visual"])))
+    ? await db
+        .select()
+        .from(testRuns)
+        .where(
+          and(
+            eq(testRuns.recipeVersionId, state.toVersion.id),
+            inArray(testRuns.testType, stored.length ? stored.map((r) => r.testType) : ["visual"]),
+          ),
+        )
     : [];
-  const [author] = await db.select({ name: users.name }).from(users).where(eq(users.id, state.cr.createdBy));
-  const families = await db.select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code));
-  return { ...state, stored, linked, gate, signatures: current, earlierSignatures: earlier, candidates, author: author?.name ?? "", families };
+  const [author] = await db
+    .select({ name: users.name })
+    .from(users)
+    .where(eq(users.id, state.cr.createdBy));
+  const families = await db
+    .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
+    .from(partFamilies)
+    .orderBy(asc(partFamilies.code));
+  return {
+    ...state,
+    stored,
+    linked,
+    gate,
+    signatures: current,
+    earlierSignatures: earlier,
+    candidates,
+    author: author?.name ?? "",
+    families,
+  };
 }
 
 /** A recipe with every version, the effective version's content, its validated part families and its changes. */
 export async function getRecipePage(recipeId: string) {
   const db = getDb();
-  const [row] = await db.select({ recipe: recipes, system: cleaningSystems }).from(recipes).innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId)).where(eq(recipes.id, recipeId));
+  const [row] = await db
+    .select({ recipe: recipes, system: cleaningSystems })
+    .from(recipes)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .where(eq(recipes.id, recipeId));
   if (!row) return undefined;
-  const versions = await db.select().from(recipeVersions).where(eq(recipeVersions.recipeId, recipeId)).orderBy(desc(recipeVersions.version));
+  const versions = await db
+    .select()
+    .from(recipeVersions)
+    .where(eq(recipeVersions.recipeId, recipeId))
+    .orderBy(desc(recipeVersions.version));
   const effective = versions.find((v) => v.status === "effective") ?? null;
   const content = effective ? await loadRecipeSnapshot(db, effective.id) : null;
   const intervals = effective
@@ -75,7 +119,11 @@ export async function getRecipePage(recipeId: string) {
         .innerJoin(partFamilies, eq(partFamilies.id, requalificationIntervals.partFamilyId))
         .where(eq(requalificationIntervals.recipeVersionId, effective.id))
     : [];
-  const changes = await db.select().from(changeRequests).where(eq(changeRequests.recipeId, recipeId)).orderBy(desc(changeRequests.createdAt));
+  const changes = await db
+    .select()
+    .from(changeRequests)
+    .where(eq(changeRequests.recipeId, recipeId))
+    .orderBy(desc(changeRequests.createdAt));
   return { ...row, versions, effective, content, intervals, changes };
 }
 
@@ -90,12 +138,19 @@ export async function getRecipeVersionPage(recipeId: string, version: number) {
     .where(and(eq(recipeVersions.recipeId, recipeId), eq(recipeVersions.version, version)));
   if (!row) return undefined;
   const content = await loadRecipeSnapshot(db, row.v.id);
-  const proposedBy = await db.select().from(changeRequests).where(eq(changeRequests.toVersionId, row.v.id)).orderBy(desc(changeRequests.createdAt));
+  const proposedBy = await db
+    .select()
+    .from(changeRequests)
+    .where(eq(changeRequests.toVersionId, row.v.id))
+    .orderBy(desc(changeRequests.createdAt));
   return { recipe: row.recipe, system: row.system, version: row.v, content, proposedBy };
 }
 
 export async function getMatrixPage() {
   const db = getDb();
-  const [matrix, versions] = await Promise.all([getEffectiveMatrix(db), db.select().from(requalificationMatrices).orderBy(desc(requalificationMatrices.version))]);
+  const [matrix, versions] = await Promise.all([
+    getEffectiveMatrix(db),
+    db.select().from(requalificationMatrices).orderBy(desc(requalificationMatrices.version)),
+  ]);
   return { matrix, versions };
 }

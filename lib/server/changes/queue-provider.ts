@@ -24,26 +24,58 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
     .from(changeRequests)
     .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
     .where(inArray(changeRequests.id, openChangeIds));
-  const tests = open.length ? await db.select().from(changeRequestTests).where(inArray(changeRequestTests.changeRequestId, open.map((o) => o.cr.id))) : [];
+  const tests = open.length
+    ? await db
+        .select()
+        .from(changeRequestTests)
+        .where(
+          inArray(
+            changeRequestTests.changeRequestId,
+            open.map((o) => o.cr.id),
+          ),
+        )
+    : [];
   const requiredCount = new Map<string, number>();
-  for (const t of tests) requiredCount.set(t.changeRequestId, (requiredCount.get(t.changeRequestId) ?? 0) + 1);
-  const gates = await loadGates(db, open.filter((o) => o.cr.status === "requalification").map((o) => o.cr.id));
+  for (const t of tests)
+    requiredCount.set(t.changeRequestId, (requiredCount.get(t.changeRequestId) ?? 0) + 1);
+  const gates = await loadGates(
+    db,
+    open.filter((o) => o.cr.status === "requalification").map((o) => o.cr.id),
+  );
   const mine = (id: string) => id === user.id;
   for (const { cr, recipeCode } of open) {
-    const push = (kind: string, detail: string) => items.push({ id: `change:${cr.id}:${kind}`, kind, title: `${cr.number} ${cr.title}`, detail: `${recipeCode} · ${detail}`, href: `/changes/${cr.id}`, due: null });
+    const push = (kind: string, detail: string) =>
+      items.push({
+        id: `change:${cr.id}:${kind}`,
+        kind,
+        title: `${cr.number} ${cr.title}`,
+        detail: `${recipeCode} · ${detail}`,
+        href: `/changes/${cr.id}`,
+        due: null,
+      });
     const required = requiredCount.get(cr.id) ?? 0;
-    if (cr.status === "draft" && mine(cr.createdBy)) push("Change draft", "complete the proposal and submit the impact assessment");
-    if (cr.status === "impact_assessed" && can(user.roles, "change.approve")) push("Change approval", `${cr.impact} change to approve or reject`);
+    if (cr.status === "draft" && mine(cr.createdBy))
+      push("Change draft", "complete the proposal and submit the impact assessment");
+    if (cr.status === "impact_assessed" && can(user.roles, "change.approve"))
+      push("Change approval", `${cr.impact} change to approve or reject`);
     if (cr.status === "approved_for_implementation") {
-      if (required > 0 && mine(cr.createdBy)) push("Requalification", "approved: start requalification");
-      if (required === 0 && can(user.roles, "change.verify")) push("Change verification", "approved, no tests required: verify");
+      if (required > 0 && mine(cr.createdBy))
+        push("Requalification", "approved: start requalification");
+      if (required === 0 && can(user.roles, "change.verify"))
+        push("Change verification", "approved, no tests required: verify");
     }
     if (cr.status === "requalification") {
       const { gate } = gates.get(cr.id)!;
-      if (!gate.holds && can(user.roles, "evidence.record")) push("Requalification tests", `${gate.missing.length} item${gate.missing.length > 1 ? "s" : ""} missing`);
-      if (gate.holds && can(user.roles, "change.verify")) push("Change verification", "requalification evidence complete: verify");
+      if (!gate.holds && can(user.roles, "evidence.record"))
+        push(
+          "Requalification tests",
+          `${gate.missing.length} item${gate.missing.length > 1 ? "s" : ""} missing`,
+        );
+      if (gate.holds && can(user.roles, "change.verify"))
+        push("Change verification", "requalification evidence complete: verify");
     }
-    if (cr.status === "verified" && can(user.roles, "recipe.make_effective")) push("Close change", "verified: close to make the new version effective");
+    if (cr.status === "verified" && can(user.roles, "recipe.make_effective"))
+      push("Close change", "verified: close to make the new version effective");
   }
   if (can(user.roles, "change.draft")) {
     for (const d of await dueRequalifications(db, now)) {

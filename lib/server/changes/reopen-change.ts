@@ -8,17 +8,42 @@ import { assertStep } from "./guard";
 import { loadChangeState } from "./state";
 
 /** Back to draft for editing: a new revision, so the signatures already given stay with the old one. */
-export async function reopenChange(actor: AuditActor, input: { changeRequestId: string; reason: string }, now = new Date()) {
+export async function reopenChange(
+  actor: AuditActor,
+  input: { changeRequestId: string; reason: string },
+  now = new Date(),
+) {
   await getDb().transaction(async (tx) => {
     const state = await loadChangeState(tx, input.changeRequestId);
     assertStep(state, "reopen");
     await tx.delete(changeRequestTests).where(eq(changeRequestTests.changeRequestId, state.cr.id));
-    await tx.update(changeRequests).set({ status: "draft", impact: null, impactDetails: null }).where(eq(changeRequests.id, state.cr.id));
+    await tx
+      .update(changeRequests)
+      .set({ status: "draft", impact: null, impactDetails: null })
+      .where(eq(changeRequests.id, state.cr.id));
     await tx
       .update(changeRequestAssessments)
-      .set({ revision: state.assessmentRow.revision + 1, contentHash: null, computedImpact: null, matrixId: null, updatedAt: now.toISOString() })
+      .set({
+        revision: state.assessmentRow.revision + 1,
+        contentHash: null,
+        computedImpact: null,
+        matrixId: null,
+        updatedAt: now.toISOString(),
+      })
       .where(eq(changeRequestAssessments.changeRequestId, state.cr.id));
     await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "draft", now);
-    await appendAudit(tx, actor, { eventType: "change.reopened", recordType: "change_request", recordId: state.cr.id, old: { status: state.cr.status, revision: state.assessmentRow.revision }, new: { status: "draft", revision: state.assessmentRow.revision + 1 }, reason: input.reason }, now);
+    await appendAudit(
+      tx,
+      actor,
+      {
+        eventType: "change.reopened",
+        recordType: "change_request",
+        recordId: state.cr.id,
+        old: { status: state.cr.status, revision: state.assessmentRow.revision },
+        new: { status: "draft", revision: state.assessmentRow.revision + 1 },
+        reason: input.reason,
+      },
+      now,
+    );
   });
 }

@@ -18,23 +18,48 @@ import { NO_RECIPE } from "./state";
  * A save made from an older reading (lock_version) is refused, never applied
  * over the other engineer's proposal.
  */
-export async function saveProposal(actor: AuditActor & { id: string }, input: Proposal, now = new Date()) {
+export async function saveProposal(
+  actor: AuditActor & { id: string },
+  input: Proposal,
+  now = new Date(),
+) {
   return getDb().transaction(async (tx) => {
-    const [cr] = await tx.select().from(changeRequests).where(eq(changeRequests.id, input.changeRequestId));
-    if (!cr || !cr.toVersionId) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
-    if (cr.status !== "draft") throw new UserFacingError("Only a draft change request can be edited: reopen it first.");
-    const [a] = await tx.select().from(changeRequestAssessments).where(eq(changeRequestAssessments.changeRequestId, cr.id));
+    const [cr] = await tx
+      .select()
+      .from(changeRequests)
+      .where(eq(changeRequests.id, input.changeRequestId));
+    if (!cr || !cr.toVersionId)
+      throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
+    if (cr.status !== "draft")
+      throw new UserFacingError("Only a draft change request can be edited: reopen it first.");
+    const [a] = await tx
+      .select()
+      .from(changeRequestAssessments)
+      .where(eq(changeRequestAssessments.changeRequestId, cr.id));
     // An initial validation stays one (it has no effective version to change), and a change never becomes one.
     if ((a.kind === "initial_validation") !== (input.kind === "initial_validation")) {
-      throw new UserFacingError(a.kind === "initial_validation" ? "This is the recipe's initial validation: its kind stays as it is." : "An initial validation is routed from a new recipe's draft, not from a change.", "kind");
+      throw new UserFacingError(
+        a.kind === "initial_validation"
+          ? "This is the recipe's initial validation: its kind stays as it is."
+          : "An initial validation is routed from a new recipe's draft, not from a change.",
+        "kind",
+      );
     }
     if (a.lockVersion !== input.lockVersion) {
-      throw new UserFacingError("Someone saved this proposal after you opened it. Nothing was saved and your edits are still here: copy what you need, reload to see their version, and save again.");
+      throw new UserFacingError(
+        "Someone saved this proposal after you opened it. Nothing was saved and your edits are still here: copy what you need, reload to see their version, and save again.",
+      );
     }
 
     const before = await loadRecipeSnapshot(tx, cr.toVersionId);
     const from = cr.fromVersionId ? await loadRecipeSnapshot(tx, cr.fromVersionId) : NO_RECIPE;
-    const computed = assess({ from, to: input.recipe, newPartFamily: addsPartFamily(input.kind) ? input.partFamilyId : null, raisedTo: null, matrix: [] }).computed;
+    const computed = assess({
+      from,
+      to: input.recipe,
+      newPartFamily: addsPartFamily(input.kind) ? input.partFamilyId : null,
+      raisedTo: null,
+      matrix: [],
+    }).computed;
     const problem = raiseProblem(computed, input.raiseTo);
     if (problem) throw new UserFacingError(problem, "raiseTo");
 
@@ -51,11 +76,23 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
         lockVersion: a.lockVersion + 1,
         updatedAt: now.toISOString(),
       })
-      .where(and(eq(changeRequestAssessments.changeRequestId, cr.id), eq(changeRequestAssessments.lockVersion, input.lockVersion)))
+      .where(
+        and(
+          eq(changeRequestAssessments.changeRequestId, cr.id),
+          eq(changeRequestAssessments.lockVersion, input.lockVersion),
+        ),
+      )
       .returning({ lockVersion: changeRequestAssessments.lockVersion });
-    if (saved.length !== 1) throw new UserFacingError("The proposal changed while saving. Nothing was saved; try again.");
+    if (saved.length !== 1)
+      throw new UserFacingError("The proposal changed while saving. Nothing was saved; try again.");
 
-    const changedRows = assess({ from: before, to: input.recipe, newPartFamily: null, raisedTo: null, matrix: [] }).diff.parameters.filter((p) => p.change !== "unchanged");
+    const changedRows = assess({
+      from: before,
+      to: input.recipe,
+      newPartFamily: null,
+      raisedTo: null,
+      matrix: [],
+    }).diff.parameters.filter((p) => p.change !== "unchanged");
     await appendAudit(
       tx,
       actor,
@@ -70,7 +107,21 @@ export async function saveProposal(actor: AuditActor & { id: string }, input: Pr
           kind: input.kind,
           raisedTo,
           computedImpact: computed,
-          parameters: changedRows.map((p) => ({ key: p.key, old: p.old && { setpoint: p.old.setpoint, unit: p.old.unit, low: p.old.validatedLow, high: p.old.validatedHigh }, new: p.new && { setpoint: p.new.setpoint, unit: p.new.unit, low: p.new.validatedLow, high: p.new.validatedHigh } })),
+          parameters: changedRows.map((p) => ({
+            key: p.key,
+            old: p.old && {
+              setpoint: p.old.setpoint,
+              unit: p.old.unit,
+              low: p.old.validatedLow,
+              high: p.old.validatedHigh,
+            },
+            new: p.new && {
+              setpoint: p.new.setpoint,
+              unit: p.new.unit,
+              low: p.new.validatedLow,
+              high: p.new.validatedHigh,
+            },
+          })),
         },
         reason: raisedTo ? input.raiseReason : null,
       },

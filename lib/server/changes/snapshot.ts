@@ -28,7 +28,11 @@ export async function loadNarratives(db: Executor, documentIds: (string | null)[
   const ids = [...new Set(documentIds.filter((d): d is string => d !== null))];
   const first = new Map<string, typeof documentVersions.$inferSelect>();
   if (ids.length === 0) return first;
-  const rows = await db.select().from(documentVersions).where(inArray(documentVersions.documentId, ids)).orderBy(asc(documentVersions.version));
+  const rows = await db
+    .select()
+    .from(documentVersions)
+    .where(inArray(documentVersions.documentId, ids))
+    .orderBy(asc(documentVersions.version));
   for (const v of rows) if (!first.has(v.documentId)) first.set(v.documentId, v);
   return first;
 }
@@ -45,23 +49,61 @@ export async function loadGate(db: Executor, changeRequestId: string) {
 export async function loadGates(db: Executor, changeRequestIds: string[]) {
   const ids = [...new Set(changeRequestIds)];
   // Sequential awaits: the executor may be a transaction, which runs one statement at a time.
-  const allRequirements = ids.length ? await db.select().from(changeRequestTests).where(inArray(changeRequestTests.changeRequestId, ids)).orderBy(asc(changeRequestTests.testType)) : [];
-  const crs = ids.length ? await db.select({ id: changeRequests.id, toVersionId: changeRequests.toVersionId }).from(changeRequests).where(inArray(changeRequests.id, ids)) : [];
+  const allRequirements = ids.length
+    ? await db
+        .select()
+        .from(changeRequestTests)
+        .where(inArray(changeRequestTests.changeRequestId, ids))
+        .orderBy(asc(changeRequestTests.testType))
+    : [];
+  const crs = ids.length
+    ? await db
+        .select({ id: changeRequests.id, toVersionId: changeRequests.toVersionId })
+        .from(changeRequests)
+        .where(inArray(changeRequests.id, ids))
+    : [];
   const tiedCandidates = ids.length
     ? await db
-        .select({ id: testRuns.id, testType: testRuns.testType, changeRequestId: testRuns.changeRequestId, recipeVersionId: testRuns.recipeVersionId })
+        .select({
+          id: testRuns.id,
+          testType: testRuns.testType,
+          changeRequestId: testRuns.changeRequestId,
+          recipeVersionId: testRuns.recipeVersionId,
+        })
         .from(testRuns)
         .where(inArray(testRuns.changeRequestId, ids))
     : [];
   const reqIds = allRequirements.map((r) => r.id);
-  const allLinks = reqIds.length ? await db.select().from(changeRequestEvidence).where(inArray(changeRequestEvidence.requirementId, reqIds)) : [];
+  const allLinks = reqIds.length
+    ? await db
+        .select()
+        .from(changeRequestEvidence)
+        .where(inArray(changeRequestEvidence.requirementId, reqIds))
+    : [];
   // A run the evidence feature tied to a change request counts for the requirement of its test type, if it tested the proposed version.
   const toVersion = new Map(crs.map((c) => [c.id, c.toVersionId]));
-  const allTied = tiedCandidates.filter((t) => t.changeRequestId !== null && toVersion.get(t.changeRequestId) != null && t.recipeVersionId === toVersion.get(t.changeRequestId));
+  const allTied = tiedCandidates.filter(
+    (t) =>
+      t.changeRequestId !== null &&
+      toVersion.get(t.changeRequestId) != null &&
+      t.recipeVersionId === toVersion.get(t.changeRequestId),
+  );
   const runIds = [...new Set([...allLinks.map((l) => l.testRunId), ...allTied.map((t) => t.id)])];
-  const runs = runIds.length ? await db.select().from(testRuns).where(inArray(testRuns.id, runIds)) : [];
-  const counts = runIds.length ? await db.select({ runId: testSamples.runId }).from(testSamples).where(inArray(testSamples.runId, runIds)) : [];
-  const sigs = runIds.length ? await db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, runIds))) : [];
+  const runs = runIds.length
+    ? await db.select().from(testRuns).where(inArray(testRuns.id, runIds))
+    : [];
+  const counts = runIds.length
+    ? await db
+        .select({ runId: testSamples.runId })
+        .from(testSamples)
+        .where(inArray(testSamples.runId, runIds))
+    : [];
+  const sigs = runIds.length
+    ? await db
+        .select()
+        .from(signatures)
+        .where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, runIds)))
+    : [];
   const runById = new Map(runs.map((r) => [r.id, r]));
   const sampleCount = new Map<string, number>();
   for (const c of counts) sampleCount.set(c.runId, (sampleCount.get(c.runId) ?? 0) + 1);
@@ -74,17 +116,31 @@ export async function loadGates(db: Executor, changeRequestIds: string[]) {
       outcome: run.outcome,
       status: run.status,
       sampleCount: sampleCount.get(id) ?? 0,
-      performedBy: sigs.filter((s) => s.recordId === id && s.meaning === "performed").map((s) => s.userId),
-      verifiedBy: sigs.filter((s) => s.recordId === id && s.meaning === "verified").map((s) => s.userId),
+      performedBy: sigs
+        .filter((s) => s.recordId === id && s.meaning === "performed")
+        .map((s) => s.userId),
+      verifiedBy: sigs
+        .filter((s) => s.recordId === id && s.meaning === "verified")
+        .map((s) => s.userId),
     };
   };
-  const gates = new Map<string, { requirements: typeof allRequirements; linked: Map<string, (GateRun & { id: string })[]>; gate: ReturnType<typeof evaluateGate> }>();
+  const gates = new Map<
+    string,
+    {
+      requirements: typeof allRequirements;
+      linked: Map<string, (GateRun & { id: string })[]>;
+      gate: ReturnType<typeof evaluateGate>;
+    }
+  >();
   for (const id of ids) {
     const requirements = allRequirements.filter((r) => r.changeRequestId === id);
     const tied = allTied.filter((t) => t.changeRequestId === id);
     const linked = new Map<string, (GateRun & { id: string })[]>();
     for (const req of requirements) {
-      const runIdsOfReq = new Set([...allLinks.filter((l) => l.requirementId === req.id).map((l) => l.testRunId), ...tied.filter((t) => t.testType === req.testType).map((t) => t.id)]);
+      const runIdsOfReq = new Set([
+        ...allLinks.filter((l) => l.requirementId === req.id).map((l) => l.testRunId),
+        ...tied.filter((t) => t.testType === req.testType).map((t) => t.id),
+      ]);
       linked.set(req.id, [...runIdsOfReq].map(gateRun));
     }
     const gate = evaluateGate(

@@ -25,10 +25,28 @@ import { loadRecipeSnapshots } from "@/db/recipe-content";
 export const NO_RECIPE: RecipeSnapshot = { detergent: null, notes: null, stages: [] };
 
 export async function getEffectiveMatrix(db: Executor) {
-  const [matrix] = await db.select().from(requalificationMatrices).where(eq(requalificationMatrices.status, "effective")).orderBy(desc(requalificationMatrices.version)).limit(1);
+  const [matrix] = await db
+    .select()
+    .from(requalificationMatrices)
+    .where(eq(requalificationMatrices.status, "effective"))
+    .orderBy(desc(requalificationMatrices.version))
+    .limit(1);
   if (!matrix) return null;
-  const rows = await db.select().from(requalificationMatrixRows).where(eq(requalificationMatrixRows.matrixId, matrix.id)).orderBy(asc(requalificationMatrixRows.subject), asc(requalificationMatrixRows.testType));
-  return { ...matrix, rows: rows.map((r): MatrixRow & { id: string } => ({ id: r.id, subject: r.subject as MatrixSubject, testType: r.testType as TestType, confidencePct: r.confidencePct, reliabilityPct: r.reliabilityPct })) };
+  const rows = await db
+    .select()
+    .from(requalificationMatrixRows)
+    .where(eq(requalificationMatrixRows.matrixId, matrix.id))
+    .orderBy(asc(requalificationMatrixRows.subject), asc(requalificationMatrixRows.testType));
+  return {
+    ...matrix,
+    rows: rows.map((r): MatrixRow & { id: string } => ({
+      id: r.id,
+      subject: r.subject as MatrixSubject,
+      testType: r.testType as TestType,
+      confidencePct: r.confidencePct,
+      reliabilityPct: r.reliabilityPct,
+    })),
+  };
 }
 
 /**
@@ -53,27 +71,49 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
     ? await db
         .select({ cr: changeRequests, a: changeRequestAssessments, recipe: recipes })
         .from(changeRequests)
-        .innerJoin(changeRequestAssessments, eq(changeRequestAssessments.changeRequestId, changeRequests.id))
+        .innerJoin(
+          changeRequestAssessments,
+          eq(changeRequestAssessments.changeRequestId, changeRequests.id),
+        )
         .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
         .where(inArray(changeRequests.id, ids))
     : [];
   const rowOf = new Map(rows.map((r) => [r.cr.id, r]));
   for (const id of ids) {
     const row = rowOf.get(id);
-    if (!row) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
+    if (!row)
+      throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
     // Only an initial validation has no "from": the recipe's first version is compared with nothing.
     const initial = row.a.kind === "initial_validation";
-    if ((!row.cr.fromVersionId && !initial) || !row.cr.toVersionId) throw new UserFacingError("This change request has no recipe versions to compare.");
+    if ((!row.cr.fromVersionId && !initial) || !row.cr.toVersionId)
+      throw new UserFacingError("This change request has no recipe versions to compare.");
   }
-  const versionIds = rows.flatMap((r) => [r.cr.fromVersionId, r.cr.toVersionId!]).filter((v): v is string => v !== null);
-  const versions = versionIds.length ? await db.select().from(recipeVersions).where(inArray(recipeVersions.id, versionIds)) : [];
+  const versionIds = rows
+    .flatMap((r) => [r.cr.fromVersionId, r.cr.toVersionId!])
+    .filter((v): v is string => v !== null);
+  const versions = versionIds.length
+    ? await db.select().from(recipeVersions).where(inArray(recipeVersions.id, versionIds))
+    : [];
   const snapshots = await loadRecipeSnapshots(db, versionIds);
-  const familyIds = [...new Set(rows.map((r) => r.a.partFamilyId).filter((f): f is string => f !== null))];
-  const families = familyIds.length ? await db.select().from(partFamilies).where(inArray(partFamilies.id, familyIds)) : [];
+  const familyIds = [
+    ...new Set(rows.map((r) => r.a.partFamilyId).filter((f): f is string => f !== null)),
+  ];
+  const families = familyIds.length
+    ? await db.select().from(partFamilies).where(inArray(partFamilies.id, familyIds))
+    : [];
   const matrix = rows.some((r) => r.cr.status === "draft") ? await getEffectiveMatrix(db) : null;
   const submitted = rows.filter((r) => r.cr.status !== "draft").map((r) => r.cr.id);
-  const allStored = submitted.length ? await db.select().from(changeRequestTests).where(inArray(changeRequestTests.changeRequestId, submitted)).orderBy(asc(changeRequestTests.testType)) : [];
-  const narratives = await loadNarratives(db, rows.map((r) => r.cr.narrativeDocumentId));
+  const allStored = submitted.length
+    ? await db
+        .select()
+        .from(changeRequestTests)
+        .where(inArray(changeRequestTests.changeRequestId, submitted))
+        .orderBy(asc(changeRequestTests.testType))
+    : [];
+  const narratives = await loadNarratives(
+    db,
+    rows.map((r) => r.cr.narrativeDocumentId),
+  );
 
   const build = (id: string) => {
     const { cr, a, recipe } = rowOf.get(id)!;
@@ -86,14 +126,36 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
     const family = a.partFamilyId ? families.find((f) => f.id === a.partFamilyId) : undefined;
     const newPartFamily = addsPartFamily(a.kind) && family ? `${family.code} ${family.name}` : null;
     const draftMatrix = cr.status === "draft" ? matrix : null;
-    const assessment = assess({ from, to, newPartFamily, initial, raisedTo: a.raisedTo, matrix: draftMatrix?.rows ?? [] });
+    const assessment = assess({
+      from,
+      to,
+      newPartFamily,
+      initial,
+      raisedTo: a.raisedTo,
+      matrix: draftMatrix?.rows ?? [],
+    });
     // Once submitted, the required tests are the ones frozen at submission, not a re-reading of a later matrix.
-    const stored = cr.status === "draft" ? [] : allStored.filter((t) => t.changeRequestId === cr.id);
+    const stored =
+      cr.status === "draft" ? [] : allStored.filter((t) => t.changeRequestId === cr.id);
     const requirements =
       cr.status === "draft"
-        ? assessment.tests.map((t) => ({ testType: t.testType, samples: t.samples, confidencePct: t.confidencePct, reliabilityPct: t.reliabilityPct, because: t.because }))
-        : stored.map((t) => ({ testType: t.testType as TestType, samples: t.samples, confidencePct: t.confidencePct, reliabilityPct: t.reliabilityPct, because: t.because }));
-    const narrative = cr.narrativeDocumentId ? (narratives.get(cr.narrativeDocumentId) ?? null) : null;
+        ? assessment.tests.map((t) => ({
+            testType: t.testType,
+            samples: t.samples,
+            confidencePct: t.confidencePct,
+            reliabilityPct: t.reliabilityPct,
+            because: t.because,
+          }))
+        : stored.map((t) => ({
+            testType: t.testType as TestType,
+            samples: t.samples,
+            confidencePct: t.confidencePct,
+            reliabilityPct: t.reliabilityPct,
+            because: t.because,
+          }));
+    const narrative = cr.narrativeDocumentId
+      ? (narratives.get(cr.narrativeDocumentId) ?? null)
+      : null;
     const impact = cr.status === "draft" ? assessment.impact : (cr.impact ?? assessment.impact);
     const contentHash = changeContentHash({
       number: cr.number,

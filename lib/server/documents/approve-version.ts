@@ -17,19 +17,43 @@ import { todayUtc } from "@/lib/format/date";
  * effective date is today becomes effective at once (superseding the previous
  * one); a later date waits for the server's timer.
  */
-export async function approveVersion(actor: DocumentActor, input: { versionId: string; contentHash: string; password: string; effectiveDate: string }, now = new Date()) {
+export async function approveVersion(
+  actor: DocumentActor,
+  input: { versionId: string; contentHash: string; password: string; effectiveDate: string },
+  now = new Date(),
+) {
   const today = todayUtc(now);
-  if (input.effectiveDate < today) throw new UserFacingError("The effective date cannot be before today.", { kind: "invalid", field: "effectiveDate" });
+  if (input.effectiveDate < today)
+    throw new UserFacingError("The effective date cannot be before today.", {
+      kind: "invalid",
+      field: "effectiveDate",
+    });
   const signer = await verifySigner({ userId: actor.id, password: input.password }, now);
   return getDb().transaction(async (tx) => {
     const { version, document } = await loadVersion(tx, input.versionId);
     assertTransition(version, "approve", actor, document.type);
     const step = await findMyActiveStep(tx, version, actor.id, "approver");
-    if (version.contentHash !== input.contentHash) throw new UserFacingError("This version changed since you opened it. Nothing was signed; reload and check it again.");
+    if (version.contentHash !== input.contentHash)
+      throw new UserFacingError(
+        "This version changed since you opened it. Nothing was signed; reload and check it again.",
+      );
     // Segregation of duties: the author's own "authored" signature blocks their approval here.
-    await applySignature(tx, { signer, recordType: "document_version", recordId: version.id, meaning: "approved", contentHash: input.contentHash }, now);
+    await applySignature(
+      tx,
+      {
+        signer,
+        recordType: "document_version",
+        recordId: version.id,
+        meaning: "approved",
+        contentHash: input.contentHash,
+      },
+      now,
+    );
     const at = now.toISOString();
-    await tx.update(documentReviews).set({ decision: "approved", decidedAt: at }).where(eq(documentReviews.id, step.id));
+    await tx
+      .update(documentReviews)
+      .set({ decision: "approved", decidedAt: at })
+      .where(eq(documentReviews.id, step.id));
     const [approved] = await tx
       .update(documentVersions)
       .set({ status: "approved", approvedAt: at, effectiveDate: input.effectiveDate })
@@ -38,16 +62,40 @@ export async function approveVersion(actor: DocumentActor, input: { versionId: s
     await appendAudit(
       tx,
       actor,
-      { eventType: "document.approved", recordType: "document_version", recordId: version.id, old: { status: "in_review" }, new: { status: "approved", contentHash: input.contentHash, effectiveDate: input.effectiveDate } },
+      {
+        eventType: "document.approved",
+        recordType: "document_version",
+        recordId: version.id,
+        old: { status: "in_review" },
+        new: {
+          status: "approved",
+          contentHash: input.contentHash,
+          effectiveDate: input.effectiveDate,
+        },
+      },
       now,
     );
     const effectiveNow = input.effectiveDate <= today;
     if (effectiveNow) await makeEffectiveInTx(tx, actor, approved, now);
-    const [owner] = await tx.select({ email: users.email }).from(users).where(eq(users.id, document.ownerId));
+    const [owner] = await tx
+      .select({ email: users.email })
+      .from(users)
+      .where(eq(users.id, document.ownerId));
     if (owner) {
       await enqueueEmail(
         tx,
-        { to: owner.email, ...approvedEmail({ documentId: document.id, number: document.number, title: document.title, version: version.version, by: actor.name, effectiveDate: input.effectiveDate, effectiveNow }) },
+        {
+          to: owner.email,
+          ...approvedEmail({
+            documentId: document.id,
+            number: document.number,
+            title: document.title,
+            version: version.version,
+            by: actor.name,
+            effectiveDate: input.effectiveDate,
+            effectiveNow,
+          }),
+        },
         now,
       );
     }

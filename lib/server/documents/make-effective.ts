@@ -9,25 +9,54 @@ import { todayUtc } from "@/lib/format/date";
  * Makes an approved version effective and supersedes the one it replaces, in
  * the caller's transaction. Signatures stay with the versions they were given on.
  */
-export async function makeEffectiveInTx(tx: Tx, actor: AuditActor, version: DocumentVersion, now: Date) {
+export async function makeEffectiveInTx(
+  tx: Tx,
+  actor: AuditActor,
+  version: DocumentVersion,
+  now: Date,
+) {
   const previous = await tx
     .select()
     .from(documentVersions)
-    .where(and(eq(documentVersions.documentId, version.documentId), eq(documentVersions.status, "effective"), ne(documentVersions.id, version.id)));
+    .where(
+      and(
+        eq(documentVersions.documentId, version.documentId),
+        eq(documentVersions.status, "effective"),
+        ne(documentVersions.id, version.id),
+      ),
+    );
   for (const old of previous) {
-    await tx.update(documentVersions).set({ status: "superseded" }).where(eq(documentVersions.id, old.id));
+    await tx
+      .update(documentVersions)
+      .set({ status: "superseded" })
+      .where(eq(documentVersions.id, old.id));
     await appendAudit(
       tx,
       actor,
-      { eventType: "document.superseded", recordType: "document_version", recordId: old.id, old: { status: "effective", version: old.version }, new: { status: "superseded", byVersion: version.version } },
+      {
+        eventType: "document.superseded",
+        recordType: "document_version",
+        recordId: old.id,
+        old: { status: "effective", version: old.version },
+        new: { status: "superseded", byVersion: version.version },
+      },
       now,
     );
   }
-  await tx.update(documentVersions).set({ status: "effective" }).where(eq(documentVersions.id, version.id));
+  await tx
+    .update(documentVersions)
+    .set({ status: "effective" })
+    .where(eq(documentVersions.id, version.id));
   await appendAudit(
     tx,
     actor,
-    { eventType: "document.effective", recordType: "document_version", recordId: version.id, old: { status: "approved" }, new: { status: "effective", effectiveDate: version.effectiveDate, version: version.version } },
+    {
+      eventType: "document.effective",
+      recordType: "document_version",
+      recordId: version.id,
+      old: { status: "approved" },
+      new: { status: "effective", effectiveDate: version.effectiveDate, version: version.version },
+    },
     now,
   );
 }
@@ -40,7 +69,13 @@ export async function makeDueVersionsEffective(now = new Date()) {
     .select({ version: documentVersions })
     .from(documentVersions)
     .innerJoin(documents, eq(documents.id, documentVersions.documentId))
-    .where(and(eq(documentVersions.status, "approved"), lte(documentVersions.effectiveDate, today), ne(documents.type, "change_narrative")));
+    .where(
+      and(
+        eq(documentVersions.status, "approved"),
+        lte(documentVersions.effectiveDate, today),
+        ne(documents.type, "change_narrative"),
+      ),
+    );
   for (const { version } of due) {
     await getDb().transaction((tx) => makeEffectiveInTx(tx, SYSTEM_ACTOR, version, now));
   }

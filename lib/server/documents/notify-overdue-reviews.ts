@@ -14,10 +14,21 @@ import { reviewOverdueEmail } from "@/templates/email/documents";
 export async function notifyOverdueReviews(now = new Date()) {
   const db = getDb();
   const overdue = await db
-    .select({ review: documentReviews, email: users.email, version: documentVersions, document: documents })
+    .select({
+      review: documentReviews,
+      email: users.email,
+      version: documentVersions,
+      document: documents,
+    })
     .from(documentReviews)
     .innerJoin(users, eq(users.id, documentReviews.assigneeId))
-    .innerJoin(documentVersions, and(eq(documentVersions.id, documentReviews.versionId), eq(documentVersions.reviewRound, documentReviews.round)))
+    .innerJoin(
+      documentVersions,
+      and(
+        eq(documentVersions.id, documentReviews.versionId),
+        eq(documentVersions.reviewRound, documentReviews.round),
+      ),
+    )
     .innerJoin(documents, eq(documents.id, documentVersions.documentId))
     .where(
       and(
@@ -30,13 +41,36 @@ export async function notifyOverdueReviews(now = new Date()) {
     );
   for (const { review, email, version, document } of overdue) {
     await db.transaction(async (tx) => {
-      await tx.update(documentReviews).set({ overdueNotifiedAt: now.toISOString() }).where(eq(documentReviews.id, review.id));
+      await tx
+        .update(documentReviews)
+        .set({ overdueNotifiedAt: now.toISOString() })
+        .where(eq(documentReviews.id, review.id));
       await enqueueEmail(
         tx,
-        { to: email, ...reviewOverdueEmail({ documentId: document.id, number: document.number, title: document.title, version: version.version, role: review.role, due: review.dueAt! }) },
+        {
+          to: email,
+          ...reviewOverdueEmail({
+            documentId: document.id,
+            number: document.number,
+            title: document.title,
+            version: version.version,
+            role: review.role,
+            due: review.dueAt!,
+          }),
+        },
         now,
       );
-      await appendAudit(tx, SYSTEM_ACTOR, { eventType: "document.review_overdue", recordType: "document_review", recordId: review.id, new: { assignee: review.assigneeId, due: review.dueAt, notifiedAt: now.toISOString() } }, now);
+      await appendAudit(
+        tx,
+        SYSTEM_ACTOR,
+        {
+          eventType: "document.review_overdue",
+          recordType: "document_review",
+          recordId: review.id,
+          new: { assignee: review.assigneeId, due: review.dueAt, notifiedAt: now.toISOString() },
+        },
+        now,
+      );
     });
   }
   return overdue.length;

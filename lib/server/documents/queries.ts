@@ -1,7 +1,17 @@
 import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { cleaningSystems, documentReviews, documents, documentVersions, partFamilies, recipes, recipeVersions, userRoles, users } from "@/db/schema";
+import {
+  cleaningSystems,
+  documentReviews,
+  documents,
+  documentVersions,
+  partFamilies,
+  recipes,
+  recipeVersions,
+  userRoles,
+  users,
+} from "@/db/schema";
 import type { RichDoc } from "@/lib/documents/rich-text";
 import { listSignatures } from "@/lib/server/signatures/queries";
 
@@ -15,12 +25,23 @@ export async function listDocuments() {
     .leftJoin(cleaningSystems, eq(cleaningSystems.id, documents.systemId))
     .orderBy(asc(documents.number));
   const versions = await db
-    .select({ documentId: documentVersions.documentId, version: documentVersions.version, status: documentVersions.status, effectiveDate: documentVersions.effectiveDate })
+    .select({
+      documentId: documentVersions.documentId,
+      version: documentVersions.version,
+      status: documentVersions.status,
+      effectiveDate: documentVersions.effectiveDate,
+    })
     .from(documentVersions)
     .orderBy(asc(documentVersions.version));
   return rows.map(({ document, owner, systemCode }) => {
     const mine = versions.filter((v) => v.documentId === document.id);
-    return { ...document, owner, systemCode, latest: mine.at(-1)!, effective: mine.find((v) => v.status === "effective") ?? null };
+    return {
+      ...document,
+      owner,
+      systemCode,
+      latest: mine.at(-1)!,
+      effective: mine.find((v) => v.status === "effective") ?? null,
+    };
   });
 }
 
@@ -29,7 +50,12 @@ export type DocumentListRow = Awaited<ReturnType<typeof listDocuments>>[number];
 export async function getDocument(documentId: string) {
   const db = getDb();
   const [row] = await db
-    .select({ document: documents, owner: users.name, system: cleaningSystems, family: partFamilies })
+    .select({
+      document: documents,
+      owner: users.name,
+      system: cleaningSystems,
+      family: partFamilies,
+    })
     .from(documents)
     .innerJoin(users, eq(users.id, documents.ownerId))
     .leftJoin(cleaningSystems, eq(cleaningSystems.id, documents.systemId))
@@ -38,7 +64,12 @@ export async function getDocument(documentId: string) {
   if (!row) return null;
   const [recipe] = row.document.recipeVersionId
     ? await db
-        .select({ code: recipes.code, name: recipes.name, version: recipeVersions.version, status: recipeVersions.status })
+        .select({
+          code: recipes.code,
+          name: recipes.name,
+          version: recipeVersions.version,
+          status: recipeVersions.status,
+        })
         .from(recipeVersions)
         .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
         .where(eq(recipeVersions.id, row.document.recipeVersionId))
@@ -57,7 +88,14 @@ export async function getDocument(documentId: string) {
     .from(documentVersions)
     .where(eq(documentVersions.documentId, documentId))
     .orderBy(desc(documentVersions.version));
-  return { ...row.document, owner: row.owner, system: row.system, family: row.family, recipe: recipe ?? null, versions };
+  return {
+    ...row.document,
+    owner: row.owner,
+    system: row.system,
+    family: row.family,
+    recipe: recipe ?? null,
+    versions,
+  };
 }
 
 export type DocumentDetail = NonNullable<Awaited<ReturnType<typeof getDocument>>>;
@@ -68,16 +106,27 @@ export async function getVersion(documentId: string, versionNumber: number) {
   const [version] = await db
     .select()
     .from(documentVersions)
-    .where(and(eq(documentVersions.documentId, documentId), eq(documentVersions.version, versionNumber)));
+    .where(
+      and(eq(documentVersions.documentId, documentId), eq(documentVersions.version, versionNumber)),
+    );
   if (!version) return null;
   const reviews = await db
     .select({ review: documentReviews, name: users.name })
     .from(documentReviews)
     .innerJoin(users, eq(users.id, documentReviews.assigneeId))
     .where(eq(documentReviews.versionId, version.id))
-    .orderBy(desc(documentReviews.round), asc(documentReviews.step), asc(documentReviews.createdAt));
+    .orderBy(
+      desc(documentReviews.round),
+      asc(documentReviews.step),
+      asc(documentReviews.createdAt),
+    );
   const signatures = await listSignatures("document_version", version.id, version.contentHash);
-  return { ...version, content: version.content as RichDoc, reviews: reviews.map((r) => ({ ...r.review, name: r.name })), signatures };
+  return {
+    ...version,
+    content: version.content as RichDoc,
+    reviews: reviews.map((r) => ({ ...r.review, name: r.name })),
+    signatures,
+  };
 }
 
 export type VersionDetail = NonNullable<Awaited<ReturnType<typeof getVersion>>>;
@@ -90,17 +139,31 @@ export async function listSigners() {
     .innerJoin(userRoles, eq(userRoles.userId, users.id))
     .where(and(eq(users.active, true), inArray(userRoles.role, ["reviewer", "approver"])))
     .orderBy(asc(users.name));
-  const pick = (role: string) => rows.filter((r) => r.role === role).map(({ id, name, jobTitle }) => ({ id, name, jobTitle }));
+  const pick = (role: string) =>
+    rows.filter((r) => r.role === role).map(({ id, name, jobTitle }) => ({ id, name, jobTitle }));
   return { reviewers: pick("reviewer"), approvers: pick("approver") };
 }
 
 /** Choices for a new document's links. */
 export async function listLinkOptions() {
   const db = getDb();
-  const systems = await db.select({ id: cleaningSystems.id, code: cleaningSystems.code, name: cleaningSystems.name }).from(cleaningSystems).orderBy(asc(cleaningSystems.code));
-  const families = await db.select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code));
+  const systems = await db
+    .select({ id: cleaningSystems.id, code: cleaningSystems.code, name: cleaningSystems.name })
+    .from(cleaningSystems)
+    .orderBy(asc(cleaningSystems.code));
+  const families = await db
+    .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
+    .from(partFamilies)
+    .orderBy(asc(partFamilies.code));
   const recipeRows = await db
-    .select({ id: recipeVersions.id, code: recipes.code, name: recipes.name, version: recipeVersions.version, status: recipeVersions.status, systemId: recipes.systemId })
+    .select({
+      id: recipeVersions.id,
+      code: recipes.code,
+      name: recipes.name,
+      version: recipeVersions.version,
+      status: recipeVersions.status,
+      systemId: recipes.systemId,
+    })
     .from(recipeVersions)
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .orderBy(asc(recipes.code), desc(recipeVersions.version));
@@ -111,6 +174,9 @@ export async function listLinkOptions() {
 export async function getDocumentAndVersion(documentId: string, versionParam: string | undefined) {
   const document = await getDocument(documentId);
   if (!document) return null;
-  const version = await getVersion(documentId, Number(versionParam) || document.versions[0].version);
+  const version = await getVersion(
+    documentId,
+    Number(versionParam) || document.versions[0].version,
+  );
   return version ? { document, version } : null;
 }

@@ -12,9 +12,22 @@ export const documentQueueProvider: QueueProvider = async (user) => {
   const steps = await db
     .select({ review: documentReviews, version: documentVersions, document: documents })
     .from(documentReviews)
-    .innerJoin(documentVersions, and(eq(documentVersions.id, documentReviews.versionId), eq(documentVersions.reviewRound, documentReviews.round)))
+    .innerJoin(
+      documentVersions,
+      and(
+        eq(documentVersions.id, documentReviews.versionId),
+        eq(documentVersions.reviewRound, documentReviews.round),
+      ),
+    )
     .innerJoin(documents, eq(documents.id, documentVersions.documentId))
-    .where(and(eq(documentReviews.assigneeId, user.id), isNull(documentReviews.decision), isNotNull(documentReviews.activatedAt), eq(documentVersions.status, "in_review")));
+    .where(
+      and(
+        eq(documentReviews.assigneeId, user.id),
+        isNull(documentReviews.decision),
+        isNotNull(documentReviews.activatedAt),
+        eq(documentVersions.status, "in_review"),
+      ),
+    );
   const items: QueueItem[] = steps.map(({ review, version, document }) => ({
     id: `document-review:${review.id}`,
     kind: review.role === "approver" ? "Approval" : "Review",
@@ -34,10 +47,20 @@ export const documentQueueProvider: QueueProvider = async (user) => {
     const decisions = await db
       .select()
       .from(documentReviews)
-      .where(and(inArray(documentReviews.versionId, withRounds.map((r) => r.version.id)), inArray(documentReviews.decision, ["sent_back", "rejected"])))
+      .where(
+        and(
+          inArray(
+            documentReviews.versionId,
+            withRounds.map((r) => r.version.id),
+          ),
+          inArray(documentReviews.decision, ["sent_back", "rejected"]),
+        ),
+      )
       .orderBy(desc(documentReviews.decidedAt));
     for (const { version, document } of withRounds) {
-      const last = decisions.find((d) => d.versionId === version.id && d.round === version.reviewRound);
+      const last = decisions.find(
+        (d) => d.versionId === version.id && d.round === version.reviewRound,
+      );
       if (!last) continue;
       items.push({
         id: `document-returned:${version.id}`,

@@ -9,14 +9,24 @@ import { assertTransition, hashContent, loadVersion, type DocumentActor } from "
 
 export type SaveDraftResult =
   | { ok: true; lockVersion: number; savedAt: string }
-  | { ok: false; conflict: true; message: string; currentLockVersion: number; savedAt: string | null };
+  | {
+      ok: false;
+      conflict: true;
+      message: string;
+      currentLockVersion: number;
+      savedAt: string | null;
+    };
 
 /**
  * Saves a draft only if nobody saved it since the caller read it (optimistic
  * concurrency on lock_version). A stale save is refused with the current
  * counter, never applied over the other person's text.
  */
-export async function saveDraft(actor: DocumentActor, input: { versionId: string; lockVersion: number; content: RichDoc; overwrite: boolean }, now = new Date()): Promise<SaveDraftResult> {
+export async function saveDraft(
+  actor: DocumentActor,
+  input: { versionId: string; lockVersion: number; content: RichDoc; overwrite: boolean },
+  now = new Date(),
+): Promise<SaveDraftResult> {
   return getDb().transaction(async (tx) => {
     const { version, document } = await loadVersion(tx, input.versionId);
     assertTransition(version, "edit", actor, document.type);
@@ -24,7 +34,8 @@ export async function saveDraft(actor: DocumentActor, input: { versionId: string
       return {
         ok: false,
         conflict: true,
-        message: "Someone saved this draft after you opened it. Your text is kept here and was not saved: load their version, or save yours over it on purpose.",
+        message:
+          "Someone saved this draft after you opened it. Your text is kept here and was not saved: load their version, or save yours over it on purpose.",
         currentLockVersion: version.lockVersion,
         savedAt: version.updatedAt,
       };
@@ -33,9 +44,16 @@ export async function saveDraft(actor: DocumentActor, input: { versionId: string
     const updated = await tx
       .update(documentVersions)
       .set({ content: input.content, lockVersion: version.lockVersion + 1, updatedAt: savedAt })
-      .where(and(eq(documentVersions.id, version.id), eq(documentVersions.lockVersion, input.lockVersion), eq(documentVersions.status, "draft")))
+      .where(
+        and(
+          eq(documentVersions.id, version.id),
+          eq(documentVersions.lockVersion, input.lockVersion),
+          eq(documentVersions.status, "draft"),
+        ),
+      )
       .returning({ lockVersion: documentVersions.lockVersion });
-    if (updated.length !== 1) throw new UserFacingError("The draft changed while saving. Nothing was saved; try again.");
+    if (updated.length !== 1)
+      throw new UserFacingError("The draft changed while saving. Nothing was saved; try again.");
     await appendAudit(
       tx,
       actor,
@@ -44,7 +62,11 @@ export async function saveDraft(actor: DocumentActor, input: { versionId: string
         recordType: "document_version",
         recordId: version.id,
         old: { contentHash: hashContent(version.content), lockVersion: version.lockVersion },
-        new: { contentHash: hashContent(input.content), lockVersion: updated[0].lockVersion, ...(input.overwrite ? { savedOverNewer: true } : {}) },
+        new: {
+          contentHash: hashContent(input.content),
+          lockVersion: updated[0].lockVersion,
+          ...(input.overwrite ? { savedOverNewer: true } : {}),
+        },
         // Once a document was approved, every later edit carries the reason for its new version.
         reason: version.changeReason,
       },

@@ -6,7 +6,15 @@ import { testMessageEmail } from "@/templates/email/test-message";
 
 export async function sendTestEmail(actor: AuditActor & { id: string }, input: { to: string }) {
   await getDb().transaction(async (tx) => {
-    const id = await enqueueEmail(tx, { to: input.to, ...testMessageEmail({ requestedBy: actor.name }) });
-    await appendAudit(tx, actor, { eventType: "email.test_sent", recordType: "email", recordId: id, new: { to: input.to } });
+    const id = await enqueueEmail(tx, {
+      to: input.to,
+      ...testMessageEmail({ requestedBy: actor.name }),
+    });
+    await appendAudit(tx, actor, {
+      eventType: "email.test_sent",
+      recordType: "email",
+      recordId: id,
+      new: { to: input.to },
+    });
   });
 }

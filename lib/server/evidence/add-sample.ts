@@ -19,18 +19,38 @@ export async function addSample(actor: AuditActor, input: { runId: string; sampl
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
     const { sampleLabel, basketPosition, worstCase, ...data } = input.sample;
-    const [dup] = await tx.select({ id: testSamples.id }).from(testSamples).where(and(eq(testSamples.runId, run.id), eq(testSamples.sampleLabel, sampleLabel)));
-    if (dup) throw new UserFacingError(`Sample "${sampleLabel}" is already recorded in this run.`, "sampleLabel");
+    const [dup] = await tx
+      .select({ id: testSamples.id })
+      .from(testSamples)
+      .where(and(eq(testSamples.runId, run.id), eq(testSamples.sampleLabel, sampleLabel)));
+    if (dup)
+      throw new UserFacingError(
+        `Sample "${sampleLabel}" is already recorded in this run.`,
+        "sampleLabel",
+      );
     const [row] = await tx
       .insert(testSamples)
-      .values({ runId: run.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data })
+      .values({
+        runId: run.id,
+        sampleLabel,
+        basketPosition: basketPosition ?? null,
+        worstCase,
+        data,
+      })
       .returning();
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {
       eventType: "test_run.sample_added",
       recordType: "test_run",
       recordId: run.id,
-      new: { sampleId: row.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data, outcome: outcome.outcome },
+      new: {
+        sampleId: row.id,
+        sampleLabel,
+        basketPosition: basketPosition ?? null,
+        worstCase,
+        data,
+        outcome: outcome.outcome,
+      },
     });
     return row;
   });

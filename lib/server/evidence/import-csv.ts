@@ -19,21 +19,51 @@ const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resol
  */
 export async function importCsvRows(
   actor: { id: string; name: string },
-  input: { runId: string; testType: string; rows: CsvSample[]; fileName: string; bytes: Uint8Array },
+  input: {
+    runId: string;
+    testType: string;
+    rows: CsvSample[];
+    fileName: string;
+    bytes: Uint8Array;
+  },
 ) {
-  if (input.rows.length === 0) throw new UserFacingError("The file has no rows to import.", { kind: "invalid" });
+  if (input.rows.length === 0)
+    throw new UserFacingError("The file has no rows to import.", { kind: "invalid" });
   const sha256 = sha256OfBytes(input.bytes);
   await getStore().put(sha256, input.bytes);
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
-    if (!isCsvTestType(run.testType)) throw new UserFacingError("CSV import is for particle cleanliness and gravimetric runs.", { kind: "invalid" });
+    if (!isCsvTestType(run.testType))
+      throw new UserFacingError("CSV import is for particle cleanliness and gravimetric runs.", {
+        kind: "invalid",
+      });
     // The rows were validated for one test type; the run must be of that type.
-    if (run.testType !== input.testType) throw new UserFacingError("The file was read for another test type than this run's. Nothing was imported.", { kind: "invalid" });
+    if (run.testType !== input.testType)
+      throw new UserFacingError(
+        "The file was read for another test type than this run's. Nothing was imported.",
+        { kind: "invalid" },
+      );
     const labels = input.rows.map((r) => r.sampleLabel);
-    const recorded = new Set((await tx.select({ label: testSamples.sampleLabel }).from(testSamples).where(eq(testSamples.runId, run.id))).map((e) => e.label));
+    const recorded = new Set(
+      (
+        await tx
+          .select({ label: testSamples.sampleLabel })
+          .from(testSamples)
+          .where(eq(testSamples.runId, run.id))
+      ).map((e) => e.label),
+    );
     const clash = labels.filter((l) => recorded.has(l));
-    if (clash.length > 0) throw new UserFacingError(`Already recorded in this run: ${clash.slice(0, 10).join(", ")}. Nothing was imported.`);
-    const values = input.rows.map(({ sampleLabel, basketPosition, worstCase, ...data }) => ({ runId: run.id, sampleLabel, basketPosition: basketPosition ?? null, worstCase, data }));
+    if (clash.length > 0)
+      throw new UserFacingError(
+        `Already recorded in this run: ${clash.slice(0, 10).join(", ")}. Nothing was imported.`,
+      );
+    const values = input.rows.map(({ sampleLabel, basketPosition, worstCase, ...data }) => ({
+      runId: run.id,
+      sampleLabel,
+      basketPosition: basketPosition ?? null,
+      worstCase,
+      data,
+    }));
     // The file driver runs each insert synchronously: between batches, other requests (reads beside this
     // transaction) get their turn, so a 100,000-row import does not stall the server.
     for (let i = 0; i < values.length; i += INSERT_BATCH) {
@@ -42,14 +72,29 @@ export async function importCsvRows(
     }
     const [file] = await tx
       .insert(evidenceFiles)
-      .values({ runId: run.id, sha256, originalName: input.fileName, mimeType: "text/csv", sizeBytes: input.bytes.byteLength, kind: "csv", uploadedBy: actor.id })
+      .values({
+        runId: run.id,
+        sha256,
+        originalName: input.fileName,
+        mimeType: "text/csv",
+        sizeBytes: input.bytes.byteLength,
+        kind: "csv",
+        uploadedBy: actor.id,
+      })
       .returning();
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {
       eventType: "test_run.csv_imported",
       recordType: "test_run",
       recordId: run.id,
-      new: { fileId: file.id, sha256, name: input.fileName, rows: values.length, samples: labels.slice(0, 50), outcome: outcome.outcome },
+      new: {
+        fileId: file.id,
+        sha256,
+        name: input.fileName,
+        rows: values.length,
+        samples: labels.slice(0, 50),
+        outcome: outcome.outcome,
+      },
     });
     return { imported: values.length };
   });

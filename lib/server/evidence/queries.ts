@@ -72,7 +72,10 @@ export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPa
     .limit(q.pageSize)
     .offset((q.page - 1) * q.pageSize);
   return {
-    rows: rows.map(({ recipeCode, recipeVersion, ...r }) => ({ ...r, recipe: `${recipeCode} v${recipeVersion}` })),
+    rows: rows.map(({ recipeCode, recipeVersion, ...r }) => ({
+      ...r,
+      recipe: `${recipeCode} v${recipeVersion}`,
+    })),
     total,
     page: q.page,
     pageSize: q.pageSize,
@@ -83,19 +86,45 @@ export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPa
 export async function runFormOptions() {
   const db = getDb();
   const [families, versions, technicians, protocols, changes] = await Promise.all([
-    db.select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code)),
     db
-      .select({ id: recipeVersions.id, version: recipeVersions.version, status: recipeVersions.status, code: recipes.code, name: recipes.name })
+      .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
+      .from(partFamilies)
+      .orderBy(asc(partFamilies.code)),
+    db
+      .select({
+        id: recipeVersions.id,
+        version: recipeVersions.version,
+        status: recipeVersions.status,
+        code: recipes.code,
+        name: recipes.name,
+      })
       .from(recipeVersions)
       .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
       .orderBy(asc(recipes.code), desc(recipeVersions.version)),
-    db.select({ id: users.id, name: users.name }).from(users).innerJoin(userRoles, eq(userRoles.userId, users.id)).where(and(eq(userRoles.role, "technician"), eq(users.active, true))).orderBy(asc(users.name)),
-    db.select({ id: documents.id, number: documents.number, title: documents.title }).from(documents).where(inArray(documents.type, ["iq_protocol", "oq_protocol", "pq_protocol"])).orderBy(asc(documents.number)),
-    db.select({ id: changeRequests.id, number: changeRequests.number, title: changeRequests.title }).from(changeRequests).where(inArray(changeRequests.status, ["approved_for_implementation", "requalification"])).orderBy(asc(changeRequests.number)),
+    db
+      .select({ id: users.id, name: users.name })
+      .from(users)
+      .innerJoin(userRoles, eq(userRoles.userId, users.id))
+      .where(and(eq(userRoles.role, "technician"), eq(users.active, true)))
+      .orderBy(asc(users.name)),
+    db
+      .select({ id: documents.id, number: documents.number, title: documents.title })
+      .from(documents)
+      .where(inArray(documents.type, ["iq_protocol", "oq_protocol", "pq_protocol"]))
+      .orderBy(asc(documents.number)),
+    db
+      .select({ id: changeRequests.id, number: changeRequests.number, title: changeRequests.title })
+      .from(changeRequests)
+      .where(inArray(changeRequests.status, ["approved_for_implementation", "requalification"]))
+      .orderBy(asc(changeRequests.number)),
   ]);
   return {
     families,
-    versions: versions.map((v) => ({ id: v.id, label: `${v.code} v${v.version} (${v.status})`, name: v.name })),
+    versions: versions.map((v) => ({
+      id: v.id,
+      label: `${v.code} v${v.version} (${v.status})`,
+      name: v.name,
+    })),
     technicians,
     protocols,
     changes,
@@ -106,10 +135,20 @@ export async function runFormOptions() {
 export async function getRunDetail(runId: string) {
   const db = getDb();
   const [row] = await db
-    .select({ run: testRuns, family: partFamilies, spec: cleanlinessSpecs, version: recipeVersions, recipe: recipes, technician: tech.name })
+    .select({
+      run: testRuns,
+      family: partFamilies,
+      spec: cleanlinessSpecs,
+      version: recipeVersions,
+      recipe: recipes,
+      technician: tech.name,
+    })
     .from(testRuns)
     .innerJoin(partFamilies, eq(partFamilies.id, testRuns.partFamilyId))
-    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, sql`coalesce(${testRuns.specId}, ${partFamilies.specId})`))
+    .innerJoin(
+      cleanlinessSpecs,
+      eq(cleanlinessSpecs.id, sql`coalesce(${testRuns.specId}, ${partFamilies.specId})`),
+    )
     .innerJoin(recipeVersions, eq(recipeVersions.id, testRuns.recipeVersionId))
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .leftJoin(tech, eq(tech.id, testRuns.technicianId))
@@ -126,37 +165,88 @@ export async function getRunDetail(runId: string) {
     listSignatures("test_run", runId, hash),
     computeStoredOutcome(db, row.run),
     db
-      .select({ id: testRuns.id, revision: testRuns.revision, status: testRuns.status, outcome: testRuns.outcome, revisionReason: testRuns.revisionReason, createdAt: testRuns.createdAt })
+      .select({
+        id: testRuns.id,
+        revision: testRuns.revision,
+        status: testRuns.status,
+        outcome: testRuns.outcome,
+        revisionReason: testRuns.revisionReason,
+        createdAt: testRuns.createdAt,
+      })
       .from(testRuns)
       .where(eq(testRuns.number, row.run.number))
       .orderBy(desc(testRuns.revision)),
     // Tied when the run was opened, or linked to a required test later from the change request.
     row.run.changeRequestId
-      ? db.select().from(changeRequests).where(eq(changeRequests.id, row.run.changeRequestId)).then((r) => r[0])
+      ? db
+          .select()
+          .from(changeRequests)
+          .where(eq(changeRequests.id, row.run.changeRequestId))
+          .then((r) => r[0])
       : db
           .select({ cr: changeRequests })
           .from(changeRequestEvidence)
-          .innerJoin(changeRequestTests, eq(changeRequestTests.id, changeRequestEvidence.requirementId))
+          .innerJoin(
+            changeRequestTests,
+            eq(changeRequestTests.id, changeRequestEvidence.requirementId),
+          )
           .innerJoin(changeRequests, eq(changeRequests.id, changeRequestTests.changeRequestId))
           .where(eq(changeRequestEvidence.testRunId, runId))
           .then((r) => r[0]?.cr),
-    row.run.protocolDocumentId ? db.select().from(documents).where(eq(documents.id, row.run.protocolDocumentId)).then((r) => r[0]) : undefined,
+    row.run.protocolDocumentId
+      ? db
+          .select()
+          .from(documents)
+          .where(eq(documents.id, row.run.protocolDocumentId))
+          .then((r) => r[0])
+      : undefined,
   ]);
-  return { ...row, contentHash: hash, samples, files, signatures, outcome, revisions, change, protocol };
+  return {
+    ...row,
+    contentHash: hash,
+    samples,
+    files,
+    signatures,
+    outcome,
+    revisions,
+    change,
+    protocol,
+  };
 }
 export type RunDetail = NonNullable<Awaited<ReturnType<typeof getRunDetail>>>;
 
 /** Particle runs of a part family (optionally one recipe version) with their samples, oldest first, for the trend chart. */
 export async function particleHistory(partFamilyId: string, recipeVersionId?: string) {
   const db = getDb();
-  const where = [eq(testRuns.partFamilyId, partFamilyId), eq(testRuns.testType, "particle_cleanliness"), ne(testRuns.status, "superseded")];
+  const where = [
+    eq(testRuns.partFamilyId, partFamilyId),
+    eq(testRuns.testType, "particle_cleanliness"),
+    ne(testRuns.status, "superseded"),
+  ];
   if (recipeVersionId) where.push(eq(testRuns.recipeVersionId, recipeVersionId));
-  const runs = await db.select().from(testRuns).where(and(...where)).orderBy(asc(testRuns.performedOn), asc(testRuns.number));
-  const samples = runs.length ? await db.select().from(testSamples).where(inArray(testSamples.runId, runs.map((r) => r.id))) : [];
+  const runs = await db
+    .select()
+    .from(testRuns)
+    .where(and(...where))
+    .orderBy(asc(testRuns.performedOn), asc(testRuns.number));
+  const samples = runs.length
+    ? await db
+        .select()
+        .from(testSamples)
+        .where(
+          inArray(
+            testSamples.runId,
+            runs.map((r) => r.id),
+          ),
+        )
+    : [];
   const [family] = await db
     .select({ family: partFamilies, spec: cleanlinessSpecs })
     .from(partFamilies)
     .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
     .where(eq(partFamilies.id, partFamilyId));
-  return { family, runs: runs.map((r) => ({ ...r, samples: samples.filter((s) => s.runId === r.id) })) };
+  return {
+    family,
+    runs: runs.map((r) => ({ ...r, samples: samples.filter((s) => s.runId === r.id) })),
+  };
 }

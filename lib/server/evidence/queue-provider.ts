@@ -65,7 +65,8 @@ export const evidenceQueueProvider: QueueProvider = async (user, _now, window = 
   const db = getDb();
   const read = (query: SQL) => db.all<WaitingRun>(query);
   const countOf = async (query: SQL) => Number((await db.all<{ n: number }>(query))[0].n);
-  const title = (run: WaitingRun) => `${run.number}${run.revision > 1 ? ` rev ${run.revision}` : ""} · ${humanize(run.test_type)}`;
+  const title = (run: WaitingRun) =>
+    `${run.number}${run.revision > 1 ? ` rev ${run.revision}` : ""} · ${humanize(run.test_type)}`;
   if (can(user.roles, "evidence.record")) {
     const q = runQueueQueries(user.id, window(PERFORM_KIND));
     const [open, n] = await Promise.all([read(q.perform), countOf(q.performCount)]);

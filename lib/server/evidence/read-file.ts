@@ -38,7 +38,12 @@ export async function readEvidenceFile(actor: AuditActor, fileId: string): Promi
     };
   }
   await db.transaction((tx) =>
-    appendAudit(tx, actor, { eventType: "evidence_file.downloaded", recordType: "evidence_file", recordId: file.id, new: { sha256: file.sha256, name: file.originalName } }),
+    appendAudit(tx, actor, {
+      eventType: "evidence_file.downloaded",
+      recordType: "evidence_file",
+      recordId: file.id,
+      new: { sha256: file.sha256, name: file.originalName },
+    }),
   );
   return { ok: true, bytes, name: file.originalName, mimeType: file.mimeType };
 }

@@ -8,12 +8,23 @@ import { requireOpenRun } from "./guards";
 import { refreshOutcome } from "./refresh-outcome";
 
 /** Removes a sample from an open run; the audit trail keeps what it held and why it went. */
-export async function removeSample(actor: AuditActor, input: { runId: string; sampleId: string; reason: string }) {
-  if (!input.reason.trim()) throw new UserFacingError("Give the reason for removing this sample.", { kind: "invalid", field: "reason" });
+export async function removeSample(
+  actor: AuditActor,
+  input: { runId: string; sampleId: string; reason: string },
+) {
+  if (!input.reason.trim())
+    throw new UserFacingError("Give the reason for removing this sample.", {
+      kind: "invalid",
+      field: "reason",
+    });
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
-    const [row] = await tx.select().from(testSamples).where(and(eq(testSamples.id, input.sampleId), eq(testSamples.runId, run.id)));
-    if (!row) throw new UserFacingError("This sample is not part of the run.", { kind: "not_found" });
+    const [row] = await tx
+      .select()
+      .from(testSamples)
+      .where(and(eq(testSamples.id, input.sampleId), eq(testSamples.runId, run.id)));
+    if (!row)
+      throw new UserFacingError("This sample is not part of the run.", { kind: "not_found" });
     await tx.delete(testSamples).where(eq(testSamples.id, row.id));
     const outcome = await refreshOutcome(tx, run);
     await appendAudit(tx, actor, {

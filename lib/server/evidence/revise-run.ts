@@ -13,28 +13,78 @@ import { getRunRow } from "./run-content";
  * change requests it was offered to, the reason, and a link back; the old revision
  * is kept, marked superseded, with its signatures.
  */
-export async function reviseRun(actor: { id: string; name: string }, input: { runId: string; reason: string }) {
+export async function reviseRun(
+  actor: { id: string; name: string },
+  input: { runId: string; reason: string },
+) {
   return getDb().transaction(async (tx) => {
     const old = await getRunRow(tx, input.runId);
     if (!old) throw new UserFacingError("This test run does not exist.", { kind: "not_found" });
     if (old.status !== "performed" && old.status !== "verified") {
-      throw new UserFacingError(old.status === "open" ? "An open run can be edited directly; no revision is needed." : "This revision is already superseded.");
+      throw new UserFacingError(
+        old.status === "open"
+          ? "An open run can be edited directly; no revision is needed."
+          : "This revision is already superseded.",
+      );
     }
     const { id: _id, createdAt: _c, ...fields } = old;
     const [next] = await tx
       .insert(testRuns)
-      .values({ ...fields, revision: old.revision + 1, status: "open", supersedesId: old.id, revisionReason: input.reason, createdBy: actor.id })
+      .values({
+        ...fields,
+        revision: old.revision + 1,
+        status: "open",
+        supersedesId: old.id,
+        revisionReason: input.reason,
+        createdBy: actor.id,
+      })
       .returning();
     const samples = await tx.select().from(testSamples).where(eq(testSamples.runId, old.id));
-    if (samples.length) await tx.insert(testSamples).values(samples.map(({ id: _r, createdAt, ...r }) => ({ ...r, createdAt, runId: next.id })));
+    if (samples.length)
+      await tx
+        .insert(testSamples)
+        .values(
+          samples.map(({ id: _r, createdAt, ...r }) => ({ ...r, createdAt, runId: next.id })),
+        );
     const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, old.id));
-    if (files.length) await tx.insert(evidenceFiles).values(files.map(({ id: _f, ...f }) => ({ ...f, runId: next.id })));
-    const links = await tx.select().from(changeRequestEvidence).where(eq(changeRequestEvidence.testRunId, old.id));
-    if (links.length) await tx.insert(changeRequestEvidence).values(links.map((l) => ({ requirementId: l.requirementId, testRunId: next.id, linkedBy: actor.id })));
+    if (files.length)
+      await tx
+        .insert(evidenceFiles)
+        .values(files.map(({ id: _f, ...f }) => ({ ...f, runId: next.id })));
+    const links = await tx
+      .select()
+      .from(changeRequestEvidence)
+      .where(eq(changeRequestEvidence.testRunId, old.id));
+    if (links.length)
+      await tx.insert(changeRequestEvidence).values(
+        links.map((l) => ({
+          requirementId: l.requirementId,
+          testRunId: next.id,
+          linkedBy: actor.id,
+        })),
+      );
     await tx.update(testRuns).set({ status: "superseded" }).where(eq(testRuns.id, old.id));
     await refreshOutcome(tx, next);
-    await appendAudit(tx, actor as AuditActor, { eventType: "test_run.superseded", recordType: "test_run", recordId: old.id, old: { status: old.status }, new: { status: "superseded", by: next.id }, reason: input.reason });
-    await appendAudit(tx, actor as AuditActor, { eventType: "test_run.revised", recordType: "test_run", recordId: next.id, new: { number: next.number, revision: next.revision, supersedes: old.id, evidenceLinks: links.length }, reason: input.reason });
+    await appendAudit(tx, actor as AuditActor, {
+      eventType: "test_run.superseded",
+      recordType: "test_run",
+      recordId: old.id,
+      old: { status: old.status },
+      new: { status: "superseded", by: next.id },
+      reason: input.reason,
+    });
+    await appendAudit(tx, actor as AuditActor, {
+      eventType: "test_run.revised",
+      recordType: "test_run",
+      recordId: next.id,
+      new: {
+        number: next.number,
+        revision: next.revision,
+        supersedes: old.id,
+        evidenceLinks: links.length,
+      },
+      reason: input.reason,
+    });
     return next;
   });
 }

@@ -6,8 +6,16 @@ import { runContentHash } from "@/lib/evidence/run-hash";
 
 /** The run's stored rows in a stable order, and the hash a signature binds to. */
 export async function runContent(db: Executor, run: TestRun) {
-  const samples = await db.select().from(testSamples).where(eq(testSamples.runId, run.id)).orderBy(asc(testSamples.createdAt), asc(testSamples.id));
-  const files = await db.select().from(evidenceFiles).where(eq(evidenceFiles.runId, run.id)).orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
+  const samples = await db
+    .select()
+    .from(testSamples)
+    .where(eq(testSamples.runId, run.id))
+    .orderBy(asc(testSamples.createdAt), asc(testSamples.id));
+  const files = await db
+    .select()
+    .from(evidenceFiles)
+    .where(eq(evidenceFiles.runId, run.id))
+    .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
   const { content, hash } = runContentHash(run, samples, files);
   return { content, hash, samples, files };
 }

@@ -15,7 +15,13 @@ import { getRunRow, runContent } from "./run-content";
  * by a second person locks it. The signature binds to the hash the signer saw:
  * if the run changed since, nothing is signed.
  */
-export async function signRun(input: { userId: string; password: string; runId: string; meaning: "performed" | "verified"; contentHash: string }) {
+export async function signRun(input: {
+  userId: string;
+  password: string;
+  runId: string;
+  meaning: "performed" | "verified";
+  contentHash: string;
+}) {
   const signer = await verifySigner({ userId: input.userId, password: input.password });
   return getDb().transaction(async (tx) => {
     const run = await getRunRow(tx, input.runId);
@@ -23,20 +29,35 @@ export async function signRun(input: { userId: string; password: string; runId: 
     const expected = input.meaning === "performed" ? "open" : "performed";
     if (run.status !== expected) {
       throw new UserFacingError(
-        input.meaning === "performed" ? `This run is ${run.status}; only an open run can be signed as performed.` : `This run is ${run.status}; only a performed run can be verified.`,
+        input.meaning === "performed"
+          ? `This run is ${run.status}; only an open run can be signed as performed.`
+          : `This run is ${run.status}; only a performed run can be verified.`,
       );
     }
-    if (input.meaning === "performed" && run.technicianId !== signer.id) throw new UserFacingError("Only the technician assigned to this run signs it as performed.", { kind: "forbidden" });
+    if (input.meaning === "performed" && run.technicianId !== signer.id)
+      throw new UserFacingError("Only the technician assigned to this run signs it as performed.", {
+        kind: "forbidden",
+      });
     const { hash, samples } = await runContent(tx, run);
-    if (hash !== input.contentHash) throw new UserFacingError("The run changed after you opened it. Reload the page, check the data again and sign.");
-    if (samples.length === 0) throw new UserFacingError("Record at least one sample before signing.");
+    if (hash !== input.contentHash)
+      throw new UserFacingError(
+        "The run changed after you opened it. Reload the page, check the data again and sign.",
+      );
+    if (samples.length === 0)
+      throw new UserFacingError("Record at least one sample before signing.");
     if (input.meaning === "verified") {
       const problem = dataEntryProblem(await dataEntrants(tx, run.id), signer.id);
       if (problem) throw new UserFacingError(problem);
     }
     const outcome = await refreshOutcome(tx, run);
     const status = input.meaning === "performed" ? "performed" : "verified";
-    await applySignature(tx, { signer, recordType: "test_run", recordId: run.id, meaning: input.meaning, contentHash: hash });
+    await applySignature(tx, {
+      signer,
+      recordType: "test_run",
+      recordId: run.id,
+      meaning: input.meaning,
+      contentHash: hash,
+    });
     await tx.update(testRuns).set({ status }).where(eq(testRuns.id, run.id));
     await appendAudit(tx, signer, {
       eventType: input.meaning === "performed" ? "test_run.performed" : "test_run.verified",
@@ -50,12 +71,25 @@ export async function signRun(input: { userId: string; password: string; runId: 
 }
 
 /** The audited edits of a run's data; opening the run or signing it is not data entry. */
-const DATA_EVENTS = (["test_run.sample_added", "test_run.sample_removed", "test_run.data_saved", "test_run.csv_imported"] as const).flatMap(storedNamesOf);
+const DATA_EVENTS = (
+  [
+    "test_run.sample_added",
+    "test_run.sample_removed",
+    "test_run.data_saved",
+    "test_run.csv_imported",
+  ] as const
+).flatMap(storedNamesOf);
 
 async function dataEntrants(tx: Tx, runId: string): Promise<string[]> {
   const rows = await tx
     .selectDistinct({ actorId: auditEvents.actorId })
     .from(auditEvents)
-    .where(and(eq(auditEvents.recordType, "test_run"), eq(auditEvents.recordId, runId), inArray(auditEvents.action, DATA_EVENTS)));
+    .where(
+      and(
+        eq(auditEvents.recordType, "test_run"),
+        eq(auditEvents.recordId, runId),
+        inArray(auditEvents.action, DATA_EVENTS),
+      ),
+    );
   return rows.flatMap((r) => (r.actorId ? [r.actorId] : []));
 }

@@ -28,20 +28,38 @@ export function sha256OfBytes(bytes: Uint8Array) {
  */
 export async function storeEvidenceFile(
   actor: { id: string; name: string },
-  input: { runId: string; name: string; bytes: Uint8Array; kind: EvidenceFileKind; sampleLabel?: string | null },
+  input: {
+    runId: string;
+    name: string;
+    bytes: Uint8Array;
+    kind: EvidenceFileKind;
+    sampleLabel?: string | null;
+  },
 ) {
   const run = await getRunRow(getDb(), input.runId);
   if (!run) throw new UserFacingError("This test run does not exist.", { kind: "not_found" });
-  if (run.status !== "open") throw new UserFacingError(`This run is ${run.status} and locked; files can be added only while it is open.`, { kind: "locked" });
+  if (run.status !== "open")
+    throw new UserFacingError(
+      `This run is ${run.status} and locked; files can be added only while it is open.`,
+      { kind: "locked" },
+    );
   let checked;
   try {
     checked = checkUpload({ name: input.name, bytes: input.bytes, maxBytes: uploadLimitBytes() });
   } catch (error) {
-    if (error instanceof FileCheckError) throw new UserFacingError(error.message, { kind: error.kind, field: "file" });
+    if (error instanceof FileCheckError)
+      throw new UserFacingError(error.message, { kind: error.kind, field: "file" });
     throw error;
   }
-  if ((input.kind === "photo" || input.kind === "membrane_image") && checked.type !== "png" && checked.type !== "jpeg") {
-    throw new UserFacingError("Photos and membrane images must be PNG or JPEG.", { kind: "invalid", field: "kind" });
+  if (
+    (input.kind === "photo" || input.kind === "membrane_image") &&
+    checked.type !== "png" &&
+    checked.type !== "jpeg"
+  ) {
+    throw new UserFacingError("Photos and membrane images must be PNG or JPEG.", {
+      kind: "invalid",
+      field: "kind",
+    });
   }
   const sha256 = sha256OfBytes(input.bytes);
   const { created } = await getStore().put(sha256, input.bytes);
@@ -53,10 +71,13 @@ export async function storeEvidenceFile(
       .from(evidenceFiles)
       .where(and(eq(evidenceFiles.runId, open.id), eq(evidenceFiles.sha256, sha256)));
     if (twin) {
-      throw new UserFacingError(`This file is already attached to ${open.number} as "${twin.name}" (uploaded ${formatDateTime(twin.at)}); it counts once. Nothing was added.`, {
-        kind: "conflict",
-        field: "file",
-      });
+      throw new UserFacingError(
+        `This file is already attached to ${open.number} as "${twin.name}" (uploaded ${formatDateTime(twin.at)}); it counts once. Nothing was added.`,
+        {
+          kind: "conflict",
+          field: "file",
+        },
+      );
     }
     const [file] = await tx
       .insert(evidenceFiles)
@@ -76,7 +97,16 @@ export async function storeEvidenceFile(
       eventType: "evidence_file.uploaded",
       recordType: "evidence_file",
       recordId: file.id,
-      new: { run: `${open.number} rev ${open.revision}`, runId: open.id, sha256, name: checked.name, mimeType: checked.mime, sizeBytes: input.bytes.byteLength, kind: input.kind, storedNew: created },
+      new: {
+        run: `${open.number} rev ${open.revision}`,
+        runId: open.id,
+        sha256,
+        name: checked.name,
+        mimeType: checked.mime,
+        sizeBytes: input.bytes.byteLength,
+        kind: input.kind,
+        storedNew: created,
+      },
     });
     return file;
   });

@@ -5,7 +5,10 @@ import { env } from "@/lib/env";
 import type { PdfJob } from "@/lib/pdf/jobs";
 import { UserFacingError } from "@/lib/server/errors";
 
-type Reply = { ready: true } | { id: number; ok: true; bytes: Uint8Array } | { id: number; ok: false; message: string };
+type Reply =
+  | { ready: true }
+  | { id: number; ok: true; bytes: Uint8Array }
+  | { id: number; ok: false; message: string };
 
 interface Pending {
   id: number;
@@ -37,10 +40,14 @@ class PdfWorker {
     // spawn, not fork: the bundler treats fork's argument as a module to bundle, and the worker
     // runs from the source tree under tsx like the scripts do.
     const worker = join(process.cwd(), "lib", "pdf", "worker.ts");
-    const child = spawn(process.execPath, ["--import", "tsx", `--max-old-space-size=${PDF_MEMORY_MB}`, worker], {
-      serialization: "advanced",
-      stdio: ["ignore", "inherit", "inherit", "ipc"],
-    });
+    const child = spawn(
+      process.execPath,
+      ["--import", "tsx", `--max-old-space-size=${PDF_MEMORY_MB}`, worker],
+      {
+        serialization: "advanced",
+        stdio: ["ignore", "inherit", "inherit", "ipc"],
+      },
+    );
     child.on("message", (reply: Reply) => this.onReply(reply));
     child.on("exit", (code, signal) => this.onExit(child, code, signal));
     child.on("error", (error) => console.error("PDF worker:", error));
@@ -56,7 +63,12 @@ class PdfWorker {
     this.child ??= this.spawn();
     const child = this.child;
     const timer = setTimeout(() => {
-      this.fail(new UserFacingError(`This PDF took longer than ${env().PDF_TIMEOUT_SECONDS} s to render and was stopped. Other PDFs are not affected.`, { kind: "unavailable" }));
+      this.fail(
+        new UserFacingError(
+          `This PDF took longer than ${env().PDF_TIMEOUT_SECONDS} s to render and was stopped. Other PDFs are not affected.`,
+          { kind: "unavailable" },
+        ),
+      );
       if (this.child === child) this.retire();
     }, env().PDF_TIMEOUT_SECONDS * 1000);
     this.current = { ...next, timer, child };
@@ -73,7 +85,12 @@ class PdfWorker {
     if (reply.ok) done.resolve(reply.bytes);
     else {
       console.error("PDF render failed:", reply.message);
-      done.reject(new UserFacingError("This record could not be rendered as a PDF. Other PDFs are not affected; the error is in the server log.", { kind: "invalid" }));
+      done.reject(
+        new UserFacingError(
+          "This record could not be rendered as a PDF. Other PDFs are not affected; the error is in the server log.",
+          { kind: "invalid" },
+        ),
+      );
       // A failed layout leaves the renderer's layout engine in a broken state: start the next job afresh.
       this.retire();
     }
@@ -91,7 +108,12 @@ class PdfWorker {
     // A worker retired after a failed job exits while the next job runs in its successor.
     if (this.current?.child === child) {
       console.error(`PDF worker stopped (code ${code}, signal ${signal}) while rendering.`);
-      this.fail(new UserFacingError("This record could not be rendered as a PDF: it needs more memory than a PDF may use. Other PDFs are not affected.", { kind: "too_large" }));
+      this.fail(
+        new UserFacingError(
+          "This record could not be rendered as a PDF: it needs more memory than a PDF may use. Other PDFs are not affected.",
+          { kind: "too_large" },
+        ),
+      );
     }
     this.pump();
   }

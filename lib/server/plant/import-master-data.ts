@@ -11,10 +11,10 @@ import { createSpecIn } from "./create-spec";
 export type RowProblem = { line: number; message: string };
 
 export type MasterDataImport =
-  | { kind: "part_families"; rows: PartFamilyRow[] }
-  | { kind: "specifications"; rows: SpecRow[] };
+  { kind: "part_families"; rows: PartFamilyRow[] } | { kind: "specifications"; rows: SpecRow[] };
 
-export type MasterDataImportResult = { ok: true; imported: number } | { ok: false; errors: RowProblem[] };
+export type MasterDataImportResult =
+  { ok: true; imported: number } | { ok: false; errors: RowProblem[] };
 
 class RowsRefused extends Error {
   constructor(readonly errors: RowProblem[]) {
@@ -27,7 +27,10 @@ async function specIdFor(tx: Tx, code: string) {
     .select({ id: cleanlinessSpecs.id })
     .from(cleanlinessSpecs)
     .where(and(eq(cleanlinessSpecs.code, code), eq(cleanlinessSpecs.status, "in_force")));
-  if (!spec) throw new UserFacingError(`No specification ${code} is in force: register it first, or import the specifications file before the families.`);
+  if (!spec)
+    throw new UserFacingError(
+      `No specification ${code} is in force: register it first, or import the specifications file before the families.`,
+    );
   return spec.id;
 }
 
@@ -36,7 +39,10 @@ async function specIdFor(tx: Tx, code: string) {
  * checked for clashes and audited exactly as if typed. One transaction: a row the database refuses
  * (a code already in the register) rolls back every row, and each refusal is reported by line.
  */
-export async function importMasterData(actor: AuditActor, input: MasterDataImport): Promise<MasterDataImportResult> {
+export async function importMasterData(
+  actor: AuditActor,
+  input: MasterDataImport,
+): Promise<MasterDataImportResult> {
   try {
     await getDb().transaction(async (tx) => {
       const errors: RowProblem[] = [];
@@ -47,7 +53,10 @@ export async function importMasterData(actor: AuditActor, input: MasterDataImpor
             await createSpecIn(tx, actor, row as SpecRow);
           } else {
             const { specCode, ...family } = row as PartFamilyRow;
-            await createPartFamilyIn(tx, actor, { ...family, specId: await specIdFor(tx, specCode) });
+            await createPartFamilyIn(tx, actor, {
+              ...family,
+              specId: await specIdFor(tx, specCode),
+            });
           }
         } catch (error) {
           if (!(error instanceof UserFacingError)) throw error;

@@ -9,10 +9,17 @@ import type { Letterhead } from "@/lib/pdf/letterhead";
  * at; a record tied to no washer names the site only when the plant has just one.
  */
 export async function loadLetterhead(db: Executor, systemId: string | null): Promise<Letterhead> {
-  const [company] = await db.select({ name: companySettings.companyName }).from(companySettings).limit(1);
+  const [company] = await db
+    .select({ name: companySettings.companyName })
+    .from(companySettings)
+    .limit(1);
   let siteName: string | null = null;
   if (systemId) {
-    const [row] = await db.select({ name: sites.name }).from(cleaningSystems).innerJoin(sites, eq(sites.id, cleaningSystems.siteId)).where(eq(cleaningSystems.id, systemId));
+    const [row] = await db
+      .select({ name: sites.name })
+      .from(cleaningSystems)
+      .innerJoin(sites, eq(sites.id, cleaningSystems.siteId))
+      .where(eq(cleaningSystems.id, systemId));
     siteName = row?.name ?? null;
   }
   if (!siteName) {

@@ -39,17 +39,37 @@ export async function getCleaningSystem(systemId: string) {
     .innerJoin(sites, eq(sites.id, cleaningSystems.siteId))
     .where(eq(cleaningSystems.id, systemId));
   if (!row) return undefined;
-  const stages = await db.select().from(systemStages).where(eq(systemStages.systemId, systemId)).orderBy(asc(systemStages.position));
-  const recipeRows = await db.select().from(recipes).where(eq(recipes.systemId, systemId)).orderBy(asc(recipes.code));
+  const stages = await db
+    .select()
+    .from(systemStages)
+    .where(eq(systemStages.systemId, systemId))
+    .orderBy(asc(systemStages.position));
+  const recipeRows = await db
+    .select()
+    .from(recipes)
+    .where(eq(recipes.systemId, systemId))
+    .orderBy(asc(recipes.code));
   const effective = recipeRows.length
     ? await db
         .select()
         .from(recipeVersions)
-        .where(and(inArray(recipeVersions.recipeId, recipeRows.map((r) => r.id)), eq(recipeVersions.status, "effective")))
+        .where(
+          and(
+            inArray(
+              recipeVersions.recipeId,
+              recipeRows.map((r) => r.id),
+            ),
+            eq(recipeVersions.status, "effective"),
+          ),
+        )
     : [];
   const versionIds = effective.map((v) => v.id);
   const rStages = versionIds.length
-    ? await db.select().from(recipeStages).where(inArray(recipeStages.versionId, versionIds)).orderBy(asc(recipeStages.position))
+    ? await db
+        .select()
+        .from(recipeStages)
+        .where(inArray(recipeStages.versionId, versionIds))
+        .orderBy(asc(recipeStages.position))
     : [];
   const params = await loadParametersInProcessOrder(db, versionIds);
   return {

@@ -1,7 +1,13 @@
 import "server-only";
 import { and, eq, inArray, notInArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { cleanlinessSpecs, partFamilies, requalificationIntervals, recipes, recipeVersions } from "@/db/schema";
+import {
+  cleanlinessSpecs,
+  partFamilies,
+  requalificationIntervals,
+  recipes,
+  recipeVersions,
+} from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import type { ReviseSpecInput } from "@/lib/schemas/spec";
 import { UserFacingError } from "@/lib/server/errors";
@@ -12,7 +18,10 @@ export interface SpecRevision {
   specId: string;
   comparison: SpecComparison;
   /** When the revision tightens a limit: the families it governs and the recipe versions qualified for them. */
-  affected: { partFamilies: { id: string; code: string; name: string }[]; recipes: { recipeVersionId: string; code: string; version: number; status: string }[] };
+  affected: {
+    partFamilies: { id: string; code: string; name: string }[];
+    recipes: { recipeVersionId: string; code: string; version: number; status: string }[];
+  };
 }
 
 /**
@@ -23,17 +32,38 @@ export interface SpecRevision {
  */
 export async function reviseSpec(actor: AuditActor, input: ReviseSpecInput): Promise<SpecRevision> {
   return getDb().transaction(async (tx) => {
-    const [old] = await tx.select().from(cleanlinessSpecs).where(eq(cleanlinessSpecs.id, input.specId));
+    const [old] = await tx
+      .select()
+      .from(cleanlinessSpecs)
+      .where(eq(cleanlinessSpecs.id, input.specId));
     if (!old) throw new UserFacingError("That specification does not exist.");
-    if (old.status !== "in_force") throw new UserFacingError(`${old.code} revision ${old.revision} is already superseded: revise the revision in force.`);
-    const [clash] = await tx.select().from(cleanlinessSpecs).where(and(eq(cleanlinessSpecs.code, old.code), eq(cleanlinessSpecs.revision, input.revision)));
-    if (clash) throw new UserFacingError(`${old.code} already has a revision ${input.revision}: name the new revision.`, "revision");
+    if (old.status !== "in_force")
+      throw new UserFacingError(
+        `${old.code} revision ${old.revision} is already superseded: revise the revision in force.`,
+      );
+    const [clash] = await tx
+      .select()
+      .from(cleanlinessSpecs)
+      .where(
+        and(eq(cleanlinessSpecs.code, old.code), eq(cleanlinessSpecs.revision, input.revision)),
+      );
+    if (clash)
+      throw new UserFacingError(
+        `${old.code} already has a revision ${input.revision}: name the new revision.`,
+        "revision",
+      );
     await checkSourceFile(tx, input.sourceFileId);
     const { specId, reason, partFamilyIds, ...limits } = input;
 
     const now = new Date().toISOString();
-    const [spec] = await tx.insert(cleanlinessSpecs).values({ ...specValues(old.code, limits), supersedesId: old.id }).returning();
-    await tx.update(cleanlinessSpecs).set({ status: "superseded", supersededAt: now }).where(eq(cleanlinessSpecs.id, specId));
+    const [spec] = await tx
+      .insert(cleanlinessSpecs)
+      .values({ ...specValues(old.code, limits), supersedesId: old.id })
+      .returning();
+    await tx
+      .update(cleanlinessSpecs)
+      .set({ status: "superseded", supersededAt: now })
+      .where(eq(cleanlinessSpecs.id, specId));
     const comparison = compareSpecRevisions(old, spec);
     await appendAudit(tx, actor, {
       eventType: "cleanliness_spec.revised",
@@ -43,21 +73,51 @@ export async function reviseSpec(actor: AuditActor, input: ReviseSpecInput): Pro
       new: specRecord({ ...limits, code: old.code, ccc: spec.ccc }),
       reason,
     });
-    await appendAudit(tx, actor, { eventType: "cleanliness_spec.superseded", recordType: "cleanliness_spec", recordId: old.id, old: { status: "in_force" }, new: { status: "superseded", by: `${spec.code} rev ${spec.revision}` }, reason });
+    await appendAudit(tx, actor, {
+      eventType: "cleanliness_spec.superseded",
+      recordType: "cleanliness_spec",
+      recordId: old.id,
+      old: { status: "in_force" },
+      new: { status: "superseded", by: `${spec.code} rev ${spec.revision}` },
+      reason,
+    });
 
-    const onOld = await tx.select({ id: partFamilies.id }).from(partFamilies).where(eq(partFamilies.specId, old.id));
+    const onOld = await tx
+      .select({ id: partFamilies.id })
+      .from(partFamilies)
+      .where(eq(partFamilies.specId, old.id));
     const familyIds = [...new Set([...onOld.map((f) => f.id), ...partFamilyIds])];
-    await applySpecToFamilies(tx, actor, spec, familyIds, `${old.code} revised to rev ${spec.revision}: ${reason}`);
+    await applySpecToFamilies(
+      tx,
+      actor,
+      spec,
+      familyIds,
+      `${old.code} revised to rev ${spec.revision}: ${reason}`,
+    );
 
     const affected: SpecRevision["affected"] = { partFamilies: [], recipes: [] };
     if (comparison.tightens && familyIds.length) {
-      affected.partFamilies = await tx.select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).where(inArray(partFamilies.id, familyIds)).orderBy(partFamilies.code);
+      affected.partFamilies = await tx
+        .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
+        .from(partFamilies)
+        .where(inArray(partFamilies.id, familyIds))
+        .orderBy(partFamilies.code);
       const rows = await tx
-        .selectDistinct({ recipeVersionId: recipeVersions.id, code: recipes.code, version: recipeVersions.version, status: recipeVersions.status })
+        .selectDistinct({
+          recipeVersionId: recipeVersions.id,
+          code: recipes.code,
+          version: recipeVersions.version,
+          status: recipeVersions.status,
+        })
         .from(requalificationIntervals)
         .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
         .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
-        .where(and(inArray(requalificationIntervals.partFamilyId, familyIds), notInArray(recipeVersions.status, ["superseded", "withdrawn"])))
+        .where(
+          and(
+            inArray(requalificationIntervals.partFamilyId, familyIds),
+            notInArray(recipeVersions.status, ["superseded", "withdrawn"]),
+          ),
+        )
         .orderBy(recipes.code, recipeVersions.version);
       affected.recipes = rows;
     }

@@ -8,7 +8,8 @@ import { passwordProblem } from "@/lib/auth/password-rules";
 import type { SetUpPlantInput } from "@/lib/schemas/plant-setup";
 import { UserFacingError } from "@/lib/server/errors";
 
-export const ALREADY_SET_UP = "This installation is already set up: an administrator exists. Sign in, or ask an administrator for an account.";
+export const ALREADY_SET_UP =
+  "This installation is already set up: an administrator exists. Sign in, or ask an administrator for an account.";
 
 export type PlantSetUp = { adminId: string; siteId: string };
 
@@ -19,21 +20,49 @@ export type PlantSetUp = { adminId: string; siteId: string };
  */
 export async function setUpPlantIn(
   tx: Tx,
-  input: Omit<SetUpPlantInput, "password" | "confirmPassword"> & { passwordHash: string; jobTitle?: string | null },
+  input: Omit<SetUpPlantInput, "password" | "confirmPassword"> & {
+    passwordHash: string;
+    jobTitle?: string | null;
+  },
 ): Promise<PlantSetUp> {
   const [{ n }] = await tx.select({ n: count() }).from(users);
   if (n > 0) throw new UserFacingError(ALREADY_SET_UP);
   const [admin] = await tx
     .insert(users)
-    .values({ name: input.adminName, email: input.adminEmail, jobTitle: input.jobTitle ?? null, passwordHash: input.passwordHash, passwordChangedAt: new Date().toISOString() })
+    .values({
+      name: input.adminName,
+      email: input.adminEmail,
+      jobTitle: input.jobTitle ?? null,
+      passwordHash: input.passwordHash,
+      passwordChangedAt: new Date().toISOString(),
+    })
     .returning({ id: users.id });
   await tx.insert(userRoles).values({ userId: admin.id, role: "admin" });
   const actor = { id: admin.id, name: input.adminName };
-  await appendAudit(tx, actor, { eventType: "user.created", recordType: "user", recordId: admin.id, new: { name: input.adminName, email: input.adminEmail, jobTitle: null, roles: ["admin"] }, reason: "First administrator of a new installation." });
+  await appendAudit(tx, actor, {
+    eventType: "user.created",
+    recordType: "user",
+    recordId: admin.id,
+    new: { name: input.adminName, email: input.adminEmail, jobTitle: null, roles: ["admin"] },
+    reason: "First administrator of a new installation.",
+  });
   await tx.insert(companySettings).values({ companyName: input.companyName });
-  await appendAudit(tx, actor, { eventType: "company.set_up", recordType: "company", recordId: "company", new: { companyName: input.companyName } });
-  const [site] = await tx.insert(sites).values({ name: input.siteName, location: input.siteLocation }).returning({ id: sites.id });
-  await appendAudit(tx, actor, { eventType: "site.created", recordType: "site", recordId: site.id, new: { name: input.siteName, location: input.siteLocation } });
+  await appendAudit(tx, actor, {
+    eventType: "company.set_up",
+    recordType: "company",
+    recordId: "company",
+    new: { companyName: input.companyName },
+  });
+  const [site] = await tx
+    .insert(sites)
+    .values({ name: input.siteName, location: input.siteLocation })
+    .returning({ id: sites.id });
+  await appendAudit(tx, actor, {
+    eventType: "site.created",
+    recordType: "site",
+    recordId: site.id,
+    new: { name: input.siteName, location: input.siteLocation },
+  });
   return { adminId: admin.id, siteId: site.id };
 }
 

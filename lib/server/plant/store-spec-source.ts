@@ -12,12 +12,16 @@ import { getStore } from "@/lib/storage";
  * to no run (the run-bound store requires an open run). The register row cites the file's id, so
  * an auditor downloads exactly the document the limits were typed from, re-hashed on the way out.
  */
-export async function storeSpecSource(actor: { id: string; name: string }, input: { name: string; bytes: Uint8Array }) {
+export async function storeSpecSource(
+  actor: { id: string; name: string },
+  input: { name: string; bytes: Uint8Array },
+) {
   let checked;
   try {
     checked = checkUpload({ name: input.name, bytes: input.bytes, maxBytes: uploadLimitBytes() });
   } catch (error) {
-    if (error instanceof FileCheckError) throw new UserFacingError(error.message, { kind: error.kind, field: "file" });
+    if (error instanceof FileCheckError)
+      throw new UserFacingError(error.message, { kind: error.kind, field: "file" });
     throw error;
   }
   const sha256 = sha256OfBytes(input.bytes);
@@ -25,13 +29,27 @@ export async function storeSpecSource(actor: { id: string; name: string }, input
   return getDb().transaction(async (tx) => {
     const [file] = await tx
       .insert(evidenceFiles)
-      .values({ runId: null, sha256, originalName: checked.name, mimeType: checked.mime, sizeBytes: input.bytes.byteLength, kind: "other", uploadedBy: actor.id })
+      .values({
+        runId: null,
+        sha256,
+        originalName: checked.name,
+        mimeType: checked.mime,
+        sizeBytes: input.bytes.byteLength,
+        kind: "other",
+        uploadedBy: actor.id,
+      })
       .returning();
     await appendAudit(tx, actor, {
       eventType: "evidence_file.spec_source_uploaded",
       recordType: "evidence_file",
       recordId: file.id,
-      new: { sha256, name: checked.name, mimeType: checked.mime, sizeBytes: input.bytes.byteLength, storedNew: created },
+      new: {
+        sha256,
+        name: checked.name,
+        mimeType: checked.mime,
+        sizeBytes: input.bytes.byteLength,
+        storedNew: created,
+      },
     });
     return { id: file.id, name: checked.name, sha256 };
   });

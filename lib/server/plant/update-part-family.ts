@@ -13,15 +13,30 @@ import { checkFamilyClashes, familyRecord, specInForce } from "./create-part-fam
  */
 export async function updatePartFamily(actor: AuditActor, input: UpdatePartFamilyInput) {
   return getDb().transaction(async (tx) => {
-    const [family] = await tx.select().from(partFamilies).where(eq(partFamilies.id, input.partFamilyId));
+    const [family] = await tx
+      .select()
+      .from(partFamilies)
+      .where(eq(partFamilies.id, input.partFamilyId));
     if (!family) throw new UserFacingError("That part family does not exist.");
     await checkFamilyClashes(tx, input, family.id);
-    const [oldSpec] = await tx.select().from(cleanlinessSpecs).where(eq(cleanlinessSpecs.id, family.specId));
+    const [oldSpec] = await tx
+      .select()
+      .from(cleanlinessSpecs)
+      .where(eq(cleanlinessSpecs.id, family.specId));
     const spec = input.specId === family.specId ? oldSpec : await specInForce(tx, input.specId);
-    const [{ runs }] = await tx.select({ runs: count() }).from(testRuns).where(eq(testRuns.partFamilyId, family.id));
-    const [{ combos }] = await tx.select({ combos: count() }).from(requalificationIntervals).where(eq(requalificationIntervals.partFamilyId, family.id));
+    const [{ runs }] = await tx
+      .select({ runs: count() })
+      .from(testRuns)
+      .where(eq(testRuns.partFamilyId, family.id));
+    const [{ combos }] = await tx
+      .select({ combos: count() })
+      .from(requalificationIntervals)
+      .where(eq(requalificationIntervals.partFamilyId, family.id));
     if ((runs > 0 || combos > 0) && !input.reason) {
-      throw new UserFacingError(`${family.code} is in use (${runs} test run${runs === 1 ? "" : "s"}, ${combos} qualified recipe${combos === 1 ? "" : "s"}): give the reason for the change.`, "reason");
+      throw new UserFacingError(
+        `${family.code} is in use (${runs} test run${runs === 1 ? "" : "s"}, ${combos} qualified recipe${combos === 1 ? "" : "s"}): give the reason for the change.`,
+        "reason",
+      );
     }
     const { partFamilyId, reason, ...fields } = input;
     const [row] = await tx

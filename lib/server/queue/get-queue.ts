@@ -11,7 +11,12 @@ import type { QueueItem, QueueProvider, QueueWindow } from "./types";
  * Features register their providers here (documents: reviews and approvals;
  * evidence: tests to perform or verify, bath maintenance; changes: steps to act on).
  */
-const PROVIDERS: QueueProvider[] = [documentQueueProvider, evidenceQueueProvider, bathQueueProvider, changeQueueProvider];
+const PROVIDERS: QueueProvider[] = [
+  documentQueueProvider,
+  evidenceQueueProvider,
+  bathQueueProvider,
+  changeQueueProvider,
+];
 
 export const QUEUE_PAGE_SIZE = 50;
 
@@ -38,10 +43,17 @@ export interface QueuePage {
 const byDue = (a: QueueItem, b: QueueItem) => (a.due ?? "9999").localeCompare(b.due ?? "9999");
 
 /** Everything waiting for the user, paged per kind: overdue first, then by due date, undated last. */
-export async function getQueue(user: SessionUser, query: QueueQuery = {}, now = new Date()): Promise<QueuePage> {
+export async function getQueue(
+  user: SessionUser,
+  query: QueueQuery = {},
+  now = new Date(),
+): Promise<QueuePage> {
   const { kind, page } = queueQuery.parse(query);
   const pageSize = QUEUE_PAGE_SIZE;
-  const window = (k: string): QueueWindow => ({ offset: k === kind ? (page - 1) * pageSize : 0, limit: pageSize });
+  const window = (k: string): QueueWindow => ({
+    offset: k === kind ? (page - 1) * pageSize : 0,
+    limit: pageSize,
+  });
   const results = await Promise.all(PROVIDERS.map((p) => p(user, now, window)));
 
   const totals = new Map<string, number>();
@@ -69,7 +81,9 @@ export async function getQueue(user: SessionUser, query: QueueQuery = {}, now = 
       .filter((item) => kind === undefined || item.kind === kind)
       .map((item) => ({ ...item, overdue: item.due !== null && item.due < iso }))
       .sort(byDue),
-    kinds: [...totals].map(([k, total]) => ({ kind: k, total })).sort((a, b) => a.kind.localeCompare(b.kind)),
+    kinds: [...totals]
+      .map(([k, total]) => ({ kind: k, total }))
+      .sort((a, b) => a.kind.localeCompare(b.kind)),
     kind: kind ?? null,
     page,
     pageSize,

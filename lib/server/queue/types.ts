@@ -28,4 +28,8 @@ export interface QueueProviderResult {
 }
 
 /** Each feature contributes the items it knows about for this user; `window` lets a long list be paged where it is read. */
-export type QueueProvider = (user: SessionUser, now: Date, window?: (kind: string) => QueueWindow) => Promise<QueueProviderResult>;
+export type QueueProvider = (
+  user: SessionUser,
+  now: Date,
+  window?: (kind: string) => QueueWindow,
+) => Promise<QueueProviderResult>;

@@ -27,8 +27,14 @@ export async function applySignature(tx: Tx, input: SignatureInput, now = new Da
   const existing = await tx
     .select()
     .from(signatures)
-    .where(and(eq(signatures.recordType, input.recordType), eq(signatures.recordId, input.recordId)));
-  const problem = segregationProblem(existing, { userId: input.signer.id, meaning: input.meaning, contentHash: input.contentHash });
+    .where(
+      and(eq(signatures.recordType, input.recordType), eq(signatures.recordId, input.recordId)),
+    );
+  const problem = segregationProblem(existing, {
+    userId: input.signer.id,
+    meaning: input.meaning,
+    contentHash: input.contentHash,
+  });
   if (problem) throw new UserFacingError(problem);
   const signedAt = now.toISOString();
   const [row] = await tx
@@ -50,7 +56,13 @@ export async function applySignature(tx: Tx, input: SignatureInput, now = new Da
       eventType: "signature.applied",
       recordType: "signature",
       recordId: row.id,
-      new: { on: `${input.recordType}:${input.recordId}`, meaning: input.meaning, printedName: input.signer.name, contentHash: input.contentHash, signedAt },
+      new: {
+        on: `${input.recordType}:${input.recordId}`,
+        meaning: input.meaning,
+        printedName: input.signer.name,
+        contentHash: input.contentHash,
+        signedAt,
+      },
       reason: input.comment ?? null,
     },
     now,

@@ -5,7 +5,11 @@ import { signatures, type SignedRecordType } from "@/db/schema";
 import { signatureValidity } from "@/lib/signatures/rules";
 
 /** The signatures on a record, each marked valid or invalid against the record's current hash. */
-export async function listSignatures(recordType: SignedRecordType, recordId: string, currentHash: string | null) {
+export async function listSignatures(
+  recordType: SignedRecordType,
+  recordId: string,
+  currentHash: string | null,
+) {
   const rows = await getDb()
     .select()
     .from(signatures)

@@ -7,7 +7,10 @@ export async function effectiveRecipesOn(tx: Executor, systemId: string) {
   return tx
     .select({ code: recipes.code, version: recipeVersions.version })
     .from(recipes)
-    .innerJoin(recipeVersions, and(eq(recipeVersions.recipeId, recipes.id), eq(recipeVersions.status, "effective")))
+    .innerJoin(
+      recipeVersions,
+      and(eq(recipeVersions.recipeId, recipes.id), eq(recipeVersions.status, "effective")),
+    )
     .where(eq(recipes.systemId, systemId))
     .orderBy(recipes.code);
 }

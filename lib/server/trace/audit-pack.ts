@@ -18,7 +18,10 @@ import { changeEvidence, changeSignatures } from "./evidence-of-change";
  */
 export async function loadAuditPack(db: Executor, changeRequestId: string) {
   const state = await loadChangeState(db, changeRequestId);
-  const [signatures, evidence] = await Promise.all([changeSignatures(db, changeRequestId), changeEvidence(db, changeRequestId)]);
+  const [signatures, evidence] = await Promise.all([
+    changeSignatures(db, changeRequestId),
+    changeEvidence(db, changeRequestId),
+  ]);
   const runSignatureIds = evidence.flatMap((r) => r.signatures.map((s) => s.id));
   const recordIds = [
     changeRequestId,
@@ -57,7 +60,10 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
     requirements: state.requirements,
     signatures: signatures.map((s) => ({
       ...s,
-      binding: s.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(s.contentHash, state.contentHash),
+      binding:
+        s.revision !== state.assessmentRow.revision
+          ? ("earlier_revision" as const)
+          : signatureValidity(s.contentHash, state.contentHash),
     })),
     evidence,
     // Each row as stored (the pack lists its hash), named by today's event type.

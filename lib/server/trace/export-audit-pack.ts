@@ -19,11 +19,18 @@ function safeName(name: string) {
  * back and re-hashed, as any download) and a SHA256SUMS list. The export is audited
  * with the PDF's own hash, so a printed pack can be matched to its export.
  */
-export async function exportAuditPack(actor: Actor, input: { changeRequestId: string; format: "pdf" | "zip" }, now = new Date()) {
+export async function exportAuditPack(
+  actor: Actor,
+  input: { changeRequestId: string; format: "pdf" | "zip" },
+  now = new Date(),
+) {
   const db = getDb();
   const pack = await loadAuditPack(db, input.changeRequestId);
   const letterhead = await loadLetterhead(db, pack.recipe.systemId);
-  const pdf = await renderPdf({ kind: "audit-pack", input: { pack, printedAt: now.toISOString(), printedBy: actor.name, letterhead } });
+  const pdf = await renderPdf({
+    kind: "audit-pack",
+    input: { pack, printedAt: now.toISOString(), printedBy: actor.name, letterhead },
+  });
   const base = `audit-pack-${pack.cr.number}`;
   let body: Uint8Array = pdf;
   const included: string[] = [];
@@ -45,7 +52,10 @@ export async function exportAuditPack(actor: Actor, input: { changeRequestId: st
       }
     }
     // The newest checkpoint file as stored, so the auditor can check its signature with the public key.
-    if (pack.checkpoints.newest) entries["audit-checkpoint.json"] = strToU8(JSON.stringify(pack.checkpoints.newest, null, 2) + "\n");
+    if (pack.checkpoints.newest)
+      entries["audit-checkpoint.json"] = strToU8(
+        JSON.stringify(pack.checkpoints.newest, null, 2) + "\n",
+      );
     entries["SHA256SUMS"] = strToU8(sums.join("\n") + "\n");
     entries["README.txt"] = strToU8(
       [
@@ -54,9 +64,14 @@ export async function exportAuditPack(actor: Actor, input: { changeRequestId: st
         `${base}.pdf lists the record, its signatures and the SHA-256 of every evidence file.`,
         "Check the files with: sha256sum -c SHA256SUMS",
         ...(pack.checkpoints.newest
-          ? ["", "audit-checkpoint.json is the newest signed checkpoint of the audit trail (Ed25519 over its other fields as canonical JSON); the PDF says whether the trail still matches it."]
+          ? [
+              "",
+              "audit-checkpoint.json is the newest signed checkpoint of the audit trail (Ed25519 over its other fields as canonical JSON); the PDF says whether the trail still matches it.",
+            ]
           : []),
-        ...(problems.length ? ["", "Files not included (their stored bytes failed the check):", ...problems] : []),
+        ...(problems.length
+          ? ["", "Files not included (their stored bytes failed the check):", ...problems]
+          : []),
         "",
       ].join("\n"),
     );
@@ -71,10 +86,22 @@ export async function exportAuditPack(actor: Actor, input: { changeRequestId: st
         eventType: "audit_pack.exported",
         recordType: "change_request",
         recordId: pack.cr.id,
-        new: { number: pack.cr.number, format: input.format, pdfSha256: sha256Hex(pdf), bytes: body.length, files: included.length, ...(problems.length ? { filesRefused: problems.length } : {}) },
+        new: {
+          number: pack.cr.number,
+          format: input.format,
+          pdfSha256: sha256Hex(pdf),
+          bytes: body.length,
+          files: included.length,
+          ...(problems.length ? { filesRefused: problems.length } : {}),
+        },
       },
       now,
     ),
   );
-  return { bytes: body, filename: `${base}.${input.format}`, contentType: input.format === "zip" ? "application/zip" : "application/pdf", pack };
+  return {
+    bytes: body,
+    filename: `${base}.${input.format}`,
+    contentType: input.format === "zip" ? "application/zip" : "application/pdf",
+    pack,
+  };
 }

@@ -1,7 +1,15 @@
 import "server-only";
 import { asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { changeRequests, cleaningSystems, recipeParameters, recipes, recipeStages, recipeVersions, users } from "@/db/schema";
+import {
+  changeRequests,
+  cleaningSystems,
+  recipeParameters,
+  recipes,
+  recipeStages,
+  recipeVersions,
+  users,
+} from "@/db/schema";
 import { narrativeText } from "@/lib/changes/content";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
 import { signatureValidity } from "@/lib/signatures/rules";
@@ -51,7 +59,13 @@ export async function listTraceableParameters() {
     .groupBy(recipes.id, recipeParameters.key);
   // Parameters of a recipe in process order (wash before drying), as everywhere else.
   return rows
-    .sort((a, b) => a.systemCode.localeCompare(b.systemCode) || a.recipeCode.localeCompare(b.recipeCode) || a.stagePosition - b.stagePosition || a.order - b.order)
+    .sort(
+      (a, b) =>
+        a.systemCode.localeCompare(b.systemCode) ||
+        a.recipeCode.localeCompare(b.recipeCode) ||
+        a.stagePosition - b.stagePosition ||
+        a.order - b.order,
+    )
     .map(({ latest: _l, order: _o, stagePosition: _p, ...r }) => r);
 }
 export type TraceableParameter = Awaited<ReturnType<typeof listTraceableParameters>>[number];
@@ -95,18 +109,37 @@ export async function getParameterHistory(input: { recipeId: string; key: string
       effectiveFrom: v.effectiveFrom,
       effectiveTo: v.effectiveTo,
       value: row
-        ? { name: row.p.name, stage: row.stage, setpoint: row.p.setpoint, unit: row.p.unit, validatedLow: row.p.validatedLow, validatedHigh: row.p.validatedHigh, critical: row.p.critical }
+        ? {
+            name: row.p.name,
+            stage: row.stage,
+            setpoint: row.p.setpoint,
+            unit: row.p.unit,
+            validatedLow: row.p.validatedLow,
+            validatedHigh: row.p.validatedHigh,
+            critical: row.p.critical,
+          }
         : null,
     };
   });
-  const changes = await db.select().from(changeRequests).where(eq(changeRequests.recipeId, input.recipeId));
-  const proposedFrom = new Map(changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c.fromVersionId]));
+  const changes = await db
+    .select()
+    .from(changeRequests)
+    .where(eq(changeRequests.recipeId, input.recipeId));
+  const proposedFrom = new Map(
+    changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c.fromVersionId]),
+  );
   const timeline = buildParameterTimeline(values, proposedFrom);
 
   // Everything about the changes is read for all of them at once: a statement per change grew with
   // the parameter's history (a busy parameter issued hundreds per view).
   const byVersion = new Map(changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c]));
-  const shown = [...new Set(timeline.map((period) => byVersion.get(period.introducedBy.versionId)?.id).filter((id): id is string => id !== undefined))];
+  const shown = [
+    ...new Set(
+      timeline
+        .map((period) => byVersion.get(period.introducedBy.versionId)?.id)
+        .filter((id): id is string => id !== undefined),
+    ),
+  ];
   const states = await loadChangeStates(db, shown);
   const signaturesOf = await changeSignaturesOf(db, shown);
   const evidenceOf = await changeEvidenceOf(db, shown);
@@ -114,7 +147,14 @@ export async function getParameterHistory(input: { recipeId: string; key: string
   const entries = timeline.map((period) => {
     const cr = changes.find((c) => c.toVersionId === period.introducedBy.versionId);
     const version = versionById.get(period.introducedBy.versionId)!;
-    if (!cr) return { period, versionNote: version.v.notes, versionAuthor: version.author, versionCreatedAt: version.v.createdAt, change: null };
+    if (!cr)
+      return {
+        period,
+        versionNote: version.v.notes,
+        versionAuthor: version.author,
+        versionCreatedAt: version.v.createdAt,
+        change: null,
+      };
     const state = states.get(cr.id)!;
     const row = state.assessment.diff.parameters.find((p) => p.key === input.key) ?? null;
     const sigs = signaturesOf.get(cr.id)!;
@@ -134,23 +174,38 @@ export async function getParameterHistory(input: { recipeId: string; key: string
         openedAt: cr.createdAt,
         closedAt: cr.closedAt,
         justification: excerpt(narrativeText(state.narrative?.content ?? null)),
-        parameterImpact: row ? { impact: row.impact, position: row.position, reasons: row.reasons } : null,
+        parameterImpact: row
+          ? { impact: row.impact, position: row.position, reasons: row.reasons }
+          : null,
         requirements: state.requirements.map((r) => ({ testType: r.testType, samples: r.samples })),
         // A signature binds only while the content still hashes to what was signed; reopening starts a new revision.
         signatures: sigs.map((sig) => ({
           ...sig,
-          binding: sig.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(sig.contentHash, state.contentHash),
+          binding:
+            sig.revision !== state.assessmentRow.revision
+              ? ("earlier_revision" as const)
+              : signatureValidity(sig.contentHash, state.contentHash),
         })),
         revision: state.assessmentRow.revision,
         evidence,
       },
     };
   });
-  const latest = mine.sort((a, b) => (versions.find((v) => v.v.id === b.p.versionId)?.v.version ?? 0) - (versions.find((v) => v.v.id === a.p.versionId)?.v.version ?? 0))[0];
+  const latest = mine.sort(
+    (a, b) =>
+      (versions.find((v) => v.v.id === b.p.versionId)?.v.version ?? 0) -
+      (versions.find((v) => v.v.id === a.p.versionId)?.v.version ?? 0),
+  )[0];
   return {
     system: head.system,
     recipe: head.recipe,
-    parameter: { key: input.key, name: latest.p.name, stage: latest.stage, unit: latest.p.unit, critical: latest.p.critical },
+    parameter: {
+      key: input.key,
+      name: latest.p.name,
+      stage: latest.stage,
+      unit: latest.p.unit,
+      critical: latest.p.critical,
+    },
     entries,
   };
 }

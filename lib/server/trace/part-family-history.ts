@@ -1,10 +1,24 @@
 import "server-only";
 import { asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { changeRequestEvidence, changeRequests, changeRequestTests, cleaningSystems, cleanlinessSpecs, partFamilies, recipes, recipeVersions, requalificationIntervals, testRuns } from "@/db/schema";
+import {
+  changeRequestEvidence,
+  changeRequests,
+  changeRequestTests,
+  cleaningSystems,
+  cleanlinessSpecs,
+  partFamilies,
+  recipes,
+  recipeVersions,
+  requalificationIntervals,
+  testRuns,
+} from "@/db/schema";
 
 export async function listPartFamilies() {
-  return getDb().select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name }).from(partFamilies).orderBy(asc(partFamilies.code));
+  return getDb()
+    .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
+    .from(partFamilies)
+    .orderBy(asc(partFamilies.code));
 }
 
 /**
@@ -15,13 +29,26 @@ export async function listPartFamilies() {
  */
 export async function getPartFamilyHistory(partFamilyId: string) {
   const db = getDb();
-  const [head] = await db.select({ family: partFamilies, spec: cleanlinessSpecs }).from(partFamilies).innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId)).where(eq(partFamilies.id, partFamilyId));
+  const [head] = await db
+    .select({ family: partFamilies, spec: cleanlinessSpecs })
+    .from(partFamilies)
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .where(eq(partFamilies.id, partFamilyId));
   if (!head) return undefined;
   const [intervals, runs] = await Promise.all([
-    db.select().from(requalificationIntervals).where(eq(requalificationIntervals.partFamilyId, partFamilyId)),
-    db.select().from(testRuns).where(eq(testRuns.partFamilyId, partFamilyId)).orderBy(desc(testRuns.performedOn), asc(testRuns.number)),
+    db
+      .select()
+      .from(requalificationIntervals)
+      .where(eq(requalificationIntervals.partFamilyId, partFamilyId)),
+    db
+      .select()
+      .from(testRuns)
+      .where(eq(testRuns.partFamilyId, partFamilyId))
+      .orderBy(desc(testRuns.performedOn), asc(testRuns.number)),
   ]);
-  const versionIds = [...new Set([...intervals.map((i) => i.recipeVersionId), ...runs.map((r) => r.recipeVersionId)])];
+  const versionIds = [
+    ...new Set([...intervals.map((i) => i.recipeVersionId), ...runs.map((r) => r.recipeVersionId)]),
+  ];
   if (versionIds.length === 0) return { ...head, versions: [] };
   const versions = await db
     .select({ v: recipeVersions, recipe: recipes, system: cleaningSystems })
@@ -32,14 +59,31 @@ export async function getPartFamilyHistory(partFamilyId: string) {
   // A run belongs to a change request when it was tied to it on opening, or linked to one of its required tests later.
   const links = runs.length
     ? await db
-        .select({ runId: changeRequestEvidence.testRunId, changeRequestId: changeRequestTests.changeRequestId })
+        .select({
+          runId: changeRequestEvidence.testRunId,
+          changeRequestId: changeRequestTests.changeRequestId,
+        })
         .from(changeRequestEvidence)
-        .innerJoin(changeRequestTests, eq(changeRequestTests.id, changeRequestEvidence.requirementId))
-        .where(inArray(changeRequestEvidence.testRunId, runs.map((r) => r.id)))
+        .innerJoin(
+          changeRequestTests,
+          eq(changeRequestTests.id, changeRequestEvidence.requirementId),
+        )
+        .where(
+          inArray(
+            changeRequestEvidence.testRunId,
+            runs.map((r) => r.id),
+          ),
+        )
     : [];
-  const changeOf = (run: (typeof runs)[number]) => run.changeRequestId ?? links.find((l) => l.runId === run.id)?.changeRequestId ?? null;
+  const changeOf = (run: (typeof runs)[number]) =>
+    run.changeRequestId ?? links.find((l) => l.runId === run.id)?.changeRequestId ?? null;
   const crIds = [...new Set(runs.map(changeOf).filter((x): x is string => !!x))];
-  const crs = crIds.length ? await db.select({ id: changeRequests.id, number: changeRequests.number }).from(changeRequests).where(inArray(changeRequests.id, crIds)) : [];
+  const crs = crIds.length
+    ? await db
+        .select({ id: changeRequests.id, number: changeRequests.number })
+        .from(changeRequests)
+        .where(inArray(changeRequests.id, crIds))
+    : [];
   return {
     ...head,
     versions: versions
@@ -54,9 +98,16 @@ export async function getPartFamilyHistory(partFamilyId: string) {
         interval: intervals.find((i) => i.recipeVersionId === v.id) ?? null,
         runs: runs
           .filter((r) => r.recipeVersionId === v.id)
-          .map((r) => ({ ...r, changeNumber: crs.find((c) => c.id === changeOf(r))?.number ?? null })),
+          .map((r) => ({
+            ...r,
+            changeNumber: crs.find((c) => c.id === changeOf(r))?.number ?? null,
+          })),
       }))
-      .sort((a, b) => (b.effectiveFrom ?? "9999").localeCompare(a.effectiveFrom ?? "9999") || a.recipe.code.localeCompare(b.recipe.code)),
+      .sort(
+        (a, b) =>
+          (b.effectiveFrom ?? "9999").localeCompare(a.effectiveFrom ?? "9999") ||
+          a.recipe.code.localeCompare(b.recipe.code),
+      ),
   };
 }
 export type PartFamilyHistory = NonNullable<Awaited<ReturnType<typeof getPartFamilyHistory>>>;

@@ -20,20 +20,32 @@ export async function createUser(actor: AuditActor, input: NewUser) {
     const id = await getDb().transaction(async (tx) => {
       const [row] = await tx
         .insert(users)
-        .values({ name: input.name, email: input.email, jobTitle: input.jobTitle, passwordHash, mustChangePassword: true })
+        .values({
+          name: input.name,
+          email: input.email,
+          jobTitle: input.jobTitle,
+          passwordHash,
+          mustChangePassword: true,
+        })
         .returning({ id: users.id });
       await tx.insert(userRoles).values(input.roles.map((role) => ({ userId: row.id, role })));
       await appendAudit(tx, actor, {
         eventType: "user.created",
         recordType: "user",
         recordId: row.id,
-        new: { name: input.name, email: input.email, jobTitle: input.jobTitle, roles: [...input.roles].sort() },
+        new: {
+          name: input.name,
+          email: input.email,
+          jobTitle: input.jobTitle,
+          roles: [...input.roles].sort(),
+        },
       });
       return row.id;
     });
     return { id, temporaryPassword };
   } catch (error) {
-    if (isUniqueViolation(error)) throw new UserFacingError("A user with this e-mail address already exists.", "email");
+    if (isUniqueViolation(error))
+      throw new UserFacingError("A user with this e-mail address already exists.", "email");
     throw error;
   }
 }

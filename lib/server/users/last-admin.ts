@@ -12,5 +12,6 @@ export async function assertAnotherActiveAdmin(tx: Tx, exceptUserId: string) {
     .innerJoin(userRoles, eq(userRoles.userId, users.id))
     .where(and(eq(userRoles.role, "admin"), eq(users.active, true), ne(users.id, exceptUserId)))
     .limit(1);
-  if (others.length === 0) throw new UserFacingError("Washproof needs at least one active administrator.");
+  if (others.length === 0)
+    throw new UserFacingError("Washproof needs at least one active administrator.");
 }

@@ -6,7 +6,11 @@ import { verifyPassword } from "@/lib/auth/password";
 import { PASSWORD_HISTORY } from "@/lib/schemas/account";
 
 /** True when the password is the current one or one of the earlier ones kept (the last PASSWORD_HISTORY in all). */
-export async function usedRecently(db: Database | Tx, user: { id: string; passwordHash: string }, password: string): Promise<boolean> {
+export async function usedRecently(
+  db: Database | Tx,
+  user: { id: string; passwordHash: string },
+  password: string,
+): Promise<boolean> {
   const earlier = await db
     .select({ hash: passwordHistory.passwordHash })
     .from(passwordHistory)
@@ -24,12 +28,22 @@ export async function usedRecently(db: Database | Tx, user: { id: string; passwo
  * an old hash is still a secret worth not keeping for ever.
  */
 export async function rememberPassword(tx: Tx, userId: string, oldHash: string, now: Date) {
-  await tx.insert(passwordHistory).values({ userId, passwordHash: oldHash, createdAt: now.toISOString() });
+  await tx
+    .insert(passwordHistory)
+    .values({ userId, passwordHash: oldHash, createdAt: now.toISOString() });
   const keep = await tx
     .select({ id: passwordHistory.id })
     .from(passwordHistory)
     .where(eq(passwordHistory.userId, userId))
     .orderBy(desc(passwordHistory.createdAt), desc(passwordHistory.id))
     .limit(PASSWORD_HISTORY - 1);
-  await tx.delete(passwordHistory).where(and(eq(passwordHistory.userId, userId), notInArray(passwordHistory.id, keep.map((k) => k.id))));
+  await tx.delete(passwordHistory).where(
+    and(
+      eq(passwordHistory.userId, userId),
+      notInArray(
+        passwordHistory.id,
+        keep.map((k) => k.id),
+      ),
+    ),
+  );
 }

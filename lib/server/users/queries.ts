@@ -31,7 +31,13 @@ export async function listUsers(now = new Date()): Promise<UserRow[]> {
   const db = getDb();
   const rows = await db.select().from(users).orderBy(asc(users.name));
   const roles = await db.select().from(userRoles);
-  return rows.map((u) => toRow(u, roles.filter((r) => r.userId === u.id).map((r) => r.role), now));
+  return rows.map((u) =>
+    toRow(
+      u,
+      roles.filter((r) => r.userId === u.id).map((r) => r.role),
+      now,
+    ),
+  );
 }
 
 export async function getUser(userId: string, now = new Date()): Promise<UserRow | undefined> {
@@ -39,5 +45,9 @@ export async function getUser(userId: string, now = new Date()): Promise<UserRow
   const [u] = await db.select().from(users).where(eq(users.id, userId));
   if (!u) return undefined;
   const roles = await db.select().from(userRoles).where(eq(userRoles.userId, userId));
-  return toRow(u, roles.map((r) => r.role), now);
+  return toRow(
+    u,
+    roles.map((r) => r.role),
+    now,
+  );
 }

@@ -8,7 +8,12 @@ export interface Child {
   exited: Promise<number | null>;
 }
 
-export function startChild(command: string, args: string[], env: NodeJS.ProcessEnv, onLine?: (line: string) => void): Child {
+export function startChild(
+  command: string,
+  args: string[],
+  env: NodeJS.ProcessEnv,
+  onLine?: (line: string) => void,
+): Child {
   const child = spawn(command, args, { env, detached: true, stdio: ["ignore", "pipe", "pipe"] });
   let output = "";
   let partial = "";
@@ -44,7 +49,8 @@ export function killGroup(child: Child, signal: NodeJS.Signals) {
 export async function waitUntilServing(baseUrl: string, child: Child, timeoutMs = 60_000) {
   const started = performance.now();
   while (performance.now() - started < timeoutMs) {
-    if (child.process.exitCode !== null) throw new Error(`The server exited before serving:\n${child.output()}`);
+    if (child.process.exitCode !== null)
+      throw new Error(`The server exited before serving:\n${child.output()}`);
     try {
       if ((await fetch(`${baseUrl}/sign-in`)).ok) return performance.now() - started;
     } catch {

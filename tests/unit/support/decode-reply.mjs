@@ -15,7 +15,10 @@ process.stdin.on("end", async () => {
       for (const [k, v] of body.fields) value.append(k, v);
     }
     try {
-      const decoded = await Promise.race([decodeReply(value, {}, {}), new Promise((_, reject) => setTimeout(() => reject(new Error("no answer")), 200))]);
+      const decoded = await Promise.race([
+        decodeReply(value, {}, {}),
+        new Promise((_, reject) => setTimeout(() => reject(new Error("no answer")), 200)),
+      ]);
       results.push(Array.isArray(decoded) ? "arguments" : "not a list");
     } catch (error) {
       results.push(`threw: ${String(error && error.message).slice(0, 80)}`);

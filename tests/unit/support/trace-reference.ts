@@ -73,22 +73,45 @@ export async function referenceParameterHistory(input: { recipeId: string; key: 
       effectiveFrom: v.effectiveFrom,
       effectiveTo: v.effectiveTo,
       value: row
-        ? { name: row.p.name, stage: row.stage, setpoint: row.p.setpoint, unit: row.p.unit, validatedLow: row.p.validatedLow, validatedHigh: row.p.validatedHigh, critical: row.p.critical }
+        ? {
+            name: row.p.name,
+            stage: row.stage,
+            setpoint: row.p.setpoint,
+            unit: row.p.unit,
+            validatedLow: row.p.validatedLow,
+            validatedHigh: row.p.validatedHigh,
+            critical: row.p.critical,
+          }
         : null,
     };
   });
-  const changes = await db.select().from(changeRequests).where(eq(changeRequests.recipeId, input.recipeId));
-  const proposedFrom = new Map(changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c.fromVersionId]));
+  const changes = await db
+    .select()
+    .from(changeRequests)
+    .where(eq(changeRequests.recipeId, input.recipeId));
+  const proposedFrom = new Map(
+    changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c.fromVersionId]),
+  );
   const timeline = buildParameterTimeline(values, proposedFrom);
 
   const entries = await Promise.all(
     timeline.map(async (period) => {
       const cr = changes.find((c) => c.toVersionId === period.introducedBy.versionId);
       const version = versions.find((v) => v.v.id === period.introducedBy.versionId)!;
-      if (!cr) return { period, versionNote: version.v.notes, versionAuthor: version.author, versionCreatedAt: version.v.createdAt, change: null };
+      if (!cr)
+        return {
+          period,
+          versionNote: version.v.notes,
+          versionAuthor: version.author,
+          versionCreatedAt: version.v.createdAt,
+          change: null,
+        };
       const state = await loadChangeState(db, cr.id);
       const row = state.assessment.diff.parameters.find((p) => p.key === input.key) ?? null;
-      const [sigs, evidence] = await Promise.all([changeSignatures(db, cr.id), changeEvidence(db, cr.id)]);
+      const [sigs, evidence] = await Promise.all([
+        changeSignatures(db, cr.id),
+        changeEvidence(db, cr.id),
+      ]);
       return {
         period,
         versionNote: version.v.notes,
@@ -104,12 +127,20 @@ export async function referenceParameterHistory(input: { recipeId: string; key: 
           openedAt: cr.createdAt,
           closedAt: cr.closedAt,
           justification: excerpt(narrativeText(state.narrative?.content ?? null)),
-          parameterImpact: row ? { impact: row.impact, position: row.position, reasons: row.reasons } : null,
-          requirements: state.requirements.map((r) => ({ testType: r.testType, samples: r.samples })),
+          parameterImpact: row
+            ? { impact: row.impact, position: row.position, reasons: row.reasons }
+            : null,
+          requirements: state.requirements.map((r) => ({
+            testType: r.testType,
+            samples: r.samples,
+          })),
           // A signature binds only while the content still hashes to what was signed; reopening starts a new revision.
           signatures: sigs.map((sig) => ({
             ...sig,
-            binding: sig.revision !== state.assessmentRow.revision ? ("earlier_revision" as const) : signatureValidity(sig.contentHash, state.contentHash),
+            binding:
+              sig.revision !== state.assessmentRow.revision
+                ? ("earlier_revision" as const)
+                : signatureValidity(sig.contentHash, state.contentHash),
           })),
           revision: state.assessmentRow.revision,
           evidence,
@@ -117,11 +148,21 @@ export async function referenceParameterHistory(input: { recipeId: string; key: 
       };
     }),
   );
-  const latest = mine.sort((a, b) => (versions.find((v) => v.v.id === b.p.versionId)?.v.version ?? 0) - (versions.find((v) => v.v.id === a.p.versionId)?.v.version ?? 0))[0];
+  const latest = mine.sort(
+    (a, b) =>
+      (versions.find((v) => v.v.id === b.p.versionId)?.v.version ?? 0) -
+      (versions.find((v) => v.v.id === a.p.versionId)?.v.version ?? 0),
+  )[0];
   return {
     system: head.system,
     recipe: head.recipe,
-    parameter: { key: input.key, name: latest.p.name, stage: latest.stage, unit: latest.p.unit, critical: latest.p.critical },
+    parameter: {
+      key: input.key,
+      name: latest.p.name,
+      stage: latest.stage,
+      unit: latest.p.unit,
+      critical: latest.p.critical,
+    },
     entries,
   };
 }
@@ -130,8 +171,16 @@ export async function referenceParameterHistory(input: { recipeId: string; key: 
 
 async function loadRecipeSnapshot(db: Executor, versionId: string): Promise<RecipeSnapshot> {
   const [version] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, versionId));
-  const stages = await db.select().from(recipeStages).where(eq(recipeStages.versionId, versionId)).orderBy(asc(recipeStages.position));
-  const params = await db.select().from(recipeParameters).where(eq(recipeParameters.versionId, versionId)).orderBy(sql`rowid`);
+  const stages = await db
+    .select()
+    .from(recipeStages)
+    .where(eq(recipeStages.versionId, versionId))
+    .orderBy(asc(recipeStages.position));
+  const params = await db
+    .select()
+    .from(recipeParameters)
+    .where(eq(recipeParameters.versionId, versionId))
+    .orderBy(sql`rowid`);
   return {
     detergent: version?.detergent ?? null,
     notes: version?.notes ?? null,
@@ -141,22 +190,53 @@ async function loadRecipeSnapshot(db: Executor, versionId: string): Promise<Reci
       mode: s.mode,
       parameters: params
         .filter((p) => p.stageId === s.id)
-        .map((p) => ({ key: p.key, name: p.name, kind: p.kind, setpoint: p.setpoint, unit: p.unit, validatedLow: p.validatedLow, validatedHigh: p.validatedHigh, critical: p.critical })),
+        .map((p) => ({
+          key: p.key,
+          name: p.name,
+          kind: p.kind,
+          setpoint: p.setpoint,
+          unit: p.unit,
+          validatedLow: p.validatedLow,
+          validatedHigh: p.validatedHigh,
+          critical: p.critical,
+        })),
     })),
   };
 }
 
 async function loadNarrative(db: Executor, documentId: string | null) {
   if (!documentId) return null;
-  const [v] = await db.select().from(documentVersions).where(eq(documentVersions.documentId, documentId)).orderBy(asc(documentVersions.version));
+  const [v] = await db
+    .select()
+    .from(documentVersions)
+    .where(eq(documentVersions.documentId, documentId))
+    .orderBy(asc(documentVersions.version));
   return v ?? null;
 }
 
 async function getEffectiveMatrix(db: Executor) {
-  const [matrix] = await db.select().from(requalificationMatrices).where(eq(requalificationMatrices.status, "effective")).orderBy(desc(requalificationMatrices.version)).limit(1);
+  const [matrix] = await db
+    .select()
+    .from(requalificationMatrices)
+    .where(eq(requalificationMatrices.status, "effective"))
+    .orderBy(desc(requalificationMatrices.version))
+    .limit(1);
   if (!matrix) return null;
-  const rows = await db.select().from(requalificationMatrixRows).where(eq(requalificationMatrixRows.matrixId, matrix.id)).orderBy(asc(requalificationMatrixRows.subject), asc(requalificationMatrixRows.testType));
-  return { ...matrix, rows: rows.map((r): MatrixRow & { id: string } => ({ id: r.id, subject: r.subject as MatrixSubject, testType: r.testType as TestType, confidencePct: r.confidencePct, reliabilityPct: r.reliabilityPct })) };
+  const rows = await db
+    .select()
+    .from(requalificationMatrixRows)
+    .where(eq(requalificationMatrixRows.matrixId, matrix.id))
+    .orderBy(asc(requalificationMatrixRows.subject), asc(requalificationMatrixRows.testType));
+  return {
+    ...matrix,
+    rows: rows.map((r): MatrixRow & { id: string } => ({
+      id: r.id,
+      subject: r.subject as MatrixSubject,
+      testType: r.testType as TestType,
+      confidencePct: r.confidencePct,
+      reliabilityPct: r.reliabilityPct,
+    })),
+  };
 }
 
 /**
@@ -169,26 +249,67 @@ async function loadChangeState(db: Executor, changeRequestId: string) {
   const [row] = await db
     .select({ cr: changeRequests, a: changeRequestAssessments, recipe: recipes })
     .from(changeRequests)
-    .innerJoin(changeRequestAssessments, eq(changeRequestAssessments.changeRequestId, changeRequests.id))
+    .innerJoin(
+      changeRequestAssessments,
+      eq(changeRequestAssessments.changeRequestId, changeRequests.id),
+    )
     .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
     .where(eq(changeRequests.id, changeRequestId));
   if (!row) throw new UserFacingError("That change request does not exist.", { kind: "not_found" });
   const { cr, a, recipe } = row;
-  if (!cr.fromVersionId || !cr.toVersionId) throw new UserFacingError("This change request has no recipe versions to compare.");
-  const [fromVersion] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, cr.fromVersionId));
-  const [toVersion] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, cr.toVersionId));
-  const [from, to] = await Promise.all([loadRecipeSnapshot(db, cr.fromVersionId), loadRecipeSnapshot(db, cr.toVersionId)]);
-  const family = a.partFamilyId ? (await db.select().from(partFamilies).where(eq(partFamilies.id, a.partFamilyId)))[0] : undefined;
-  const newPartFamily = a.kind === "new_part_family" && family ? `${family.code} ${family.name}` : null;
+  if (!cr.fromVersionId || !cr.toVersionId)
+    throw new UserFacingError("This change request has no recipe versions to compare.");
+  const [fromVersion] = await db
+    .select()
+    .from(recipeVersions)
+    .where(eq(recipeVersions.id, cr.fromVersionId));
+  const [toVersion] = await db
+    .select()
+    .from(recipeVersions)
+    .where(eq(recipeVersions.id, cr.toVersionId));
+  const [from, to] = await Promise.all([
+    loadRecipeSnapshot(db, cr.fromVersionId),
+    loadRecipeSnapshot(db, cr.toVersionId),
+  ]);
+  const family = a.partFamilyId
+    ? (await db.select().from(partFamilies).where(eq(partFamilies.id, a.partFamilyId)))[0]
+    : undefined;
+  const newPartFamily =
+    a.kind === "new_part_family" && family ? `${family.code} ${family.name}` : null;
 
   const matrix = cr.status === "draft" ? await getEffectiveMatrix(db) : null;
-  const assessment = assess({ from, to, newPartFamily, raisedTo: a.raisedTo, matrix: matrix?.rows ?? [] });
+  const assessment = assess({
+    from,
+    to,
+    newPartFamily,
+    raisedTo: a.raisedTo,
+    matrix: matrix?.rows ?? [],
+  });
   // Once submitted, the required tests are the ones frozen at submission, not a re-reading of a later matrix.
-  const stored = cr.status === "draft" ? [] : await db.select().from(changeRequestTests).where(eq(changeRequestTests.changeRequestId, cr.id)).orderBy(asc(changeRequestTests.testType));
+  const stored =
+    cr.status === "draft"
+      ? []
+      : await db
+          .select()
+          .from(changeRequestTests)
+          .where(eq(changeRequestTests.changeRequestId, cr.id))
+          .orderBy(asc(changeRequestTests.testType));
   const requirements =
     cr.status === "draft"
-      ? assessment.tests.map((t) => ({ testType: t.testType, samples: t.samples, confidencePct: t.confidencePct, reliabilityPct: t.reliabilityPct, because: t.because }))
-      : stored.map((t) => ({ testType: t.testType as TestType, samples: t.samples, confidencePct: t.confidencePct, reliabilityPct: t.reliabilityPct, because: t.because }));
+      ? assessment.tests.map((t) => ({
+          testType: t.testType,
+          samples: t.samples,
+          confidencePct: t.confidencePct,
+          reliabilityPct: t.reliabilityPct,
+          because: t.because,
+        }))
+      : stored.map((t) => ({
+          testType: t.testType as TestType,
+          samples: t.samples,
+          confidencePct: t.confidencePct,
+          reliabilityPct: t.reliabilityPct,
+          because: t.because,
+        }));
   const narrative = await loadNarrative(db, cr.narrativeDocumentId);
   const impact = cr.status === "draft" ? assessment.impact : (cr.impact ?? assessment.impact);
   const contentHash = changeContentHash({
@@ -229,7 +350,13 @@ async function changeSignatures(db: Executor, changeRequestId: string) {
     .select()
     .from(signatures)
     // "<id>#" up to "<id>$" ("$" follows "#") is every revision, as a range the record index can seek.
-    .where(and(eq(signatures.recordType, "change_request"), gte(signatures.recordId, `${changeRequestId}#`), lt(signatures.recordId, `${changeRequestId}$`)))
+    .where(
+      and(
+        eq(signatures.recordType, "change_request"),
+        gte(signatures.recordId, `${changeRequestId}#`),
+        lt(signatures.recordId, `${changeRequestId}$`),
+      ),
+    )
     .orderBy(asc(signatures.signedAt));
   return rows.map((s) => ({ ...s, revision: Number(s.recordId.split("#")[1] ?? 1) }));
 }
@@ -239,21 +366,53 @@ async function changeSignatures(db: Executor, changeRequestId: string) {
  * one of its required tests), each with its sample count, signatures and files.
  */
 async function changeEvidence(db: Executor, changeRequestId: string) {
-  const reqs = await db.select({ id: changeRequestTests.id }).from(changeRequestTests).where(eq(changeRequestTests.changeRequestId, changeRequestId));
+  const reqs = await db
+    .select({ id: changeRequestTests.id })
+    .from(changeRequestTests)
+    .where(eq(changeRequestTests.changeRequestId, changeRequestId));
   const linked = reqs.length
-    ? await db.select({ runId: changeRequestEvidence.testRunId }).from(changeRequestEvidence).where(inArray(changeRequestEvidence.requirementId, reqs.map((r) => r.id)))
+    ? await db
+        .select({ runId: changeRequestEvidence.testRunId })
+        .from(changeRequestEvidence)
+        .where(
+          inArray(
+            changeRequestEvidence.requirementId,
+            reqs.map((r) => r.id),
+          ),
+        )
     : [];
   const runs = await db
     .select()
     .from(testRuns)
-    .where(linked.length ? or(eq(testRuns.changeRequestId, changeRequestId), inArray(testRuns.id, linked.map((l) => l.runId))) : eq(testRuns.changeRequestId, changeRequestId))
+    .where(
+      linked.length
+        ? or(
+            eq(testRuns.changeRequestId, changeRequestId),
+            inArray(
+              testRuns.id,
+              linked.map((l) => l.runId),
+            ),
+          )
+        : eq(testRuns.changeRequestId, changeRequestId),
+    )
     .orderBy(asc(testRuns.number), asc(testRuns.revision));
   const ids = runs.map((r) => r.id);
   if (ids.length === 0) return [];
   const [results, sigs, files] = await Promise.all([
-    db.select({ runId: testSamples.runId, worstCase: testSamples.worstCase }).from(testSamples).where(inArray(testSamples.runId, ids)),
-    db.select().from(signatures).where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, ids))).orderBy(asc(signatures.signedAt)),
-    db.select().from(evidenceFiles).where(inArray(evidenceFiles.runId, ids)).orderBy(asc(evidenceFiles.uploadedAt)),
+    db
+      .select({ runId: testSamples.runId, worstCase: testSamples.worstCase })
+      .from(testSamples)
+      .where(inArray(testSamples.runId, ids)),
+    db
+      .select()
+      .from(signatures)
+      .where(and(eq(signatures.recordType, "test_run"), inArray(signatures.recordId, ids)))
+      .orderBy(asc(signatures.signedAt)),
+    db
+      .select()
+      .from(evidenceFiles)
+      .where(inArray(evidenceFiles.runId, ids))
+      .orderBy(asc(evidenceFiles.uploadedAt)),
   ]);
   return runs.map((run) => ({
     ...run,

@@ -21,8 +21,17 @@ export default async function ChangePasswordPage() {
             : "Your password is also your signature's second component: keep it to yourself."
         }
       />
-      <ActionForm action={changePasswordAction} className="max-w-md space-y-4" aria-label="Change password">
-        <Field name="currentPassword" label="Current password" type="password" autoComplete="current-password" />
+      <ActionForm
+        action={changePasswordAction}
+        className="max-w-md space-y-4"
+        aria-label="Change password"
+      >
+        <Field
+          name="currentPassword"
+          label="Current password"
+          type="password"
+          autoComplete="current-password"
+        />
         <Field
           name="newPassword"
           label="New password"
@@ -30,7 +39,12 @@ export default async function ChangePasswordPage() {
           autoComplete="new-password"
           hint={`At least ${PASSWORD_MIN_LENGTH} characters, hard to guess, not your name or e-mail address, and none of your last ${PASSWORD_HISTORY} passwords.`}
         />
-        <Field name="confirmPassword" label="New password again" type="password" autoComplete="new-password" />
+        <Field
+          name="confirmPassword"
+          label="New password again"
+          type="password"
+          autoComplete="new-password"
+        />
         <SubmitButton>Change password</SubmitButton>
       </ActionForm>
     </>

@@ -11,9 +11,18 @@ import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "API tokens" };
 
-function tokenStatus(t: { revokedAt: string | null; suspendedAt: string | null; suspendedReason: string | null; expiresAt: string | null }, now: string) {
+function tokenStatus(
+  t: {
+    revokedAt: string | null;
+    suspendedAt: string | null;
+    suspendedReason: string | null;
+    expiresAt: string | null;
+  },
+  now: string,
+) {
   if (t.revokedAt) return `Revoked ${formatDate(t.revokedAt)}`;
-  if (t.suspendedAt) return `Suspended ${formatDate(t.suspendedAt)}: ${t.suspendedReason ?? "access changed"}`;
+  if (t.suspendedAt)
+    return `Suspended ${formatDate(t.suspendedAt)}: ${t.suspendedReason ?? "access changed"}`;
   if (!t.expiresAt || t.expiresAt <= now) return "Expired";
   return "Active";
 }
@@ -28,7 +37,8 @@ export default async function ApiTokensPage() {
         title="API tokens"
         description={
           <>
-            Tokens let lab instruments and scripts use the Washproof API as you, with your roles and never more. A read token never writes. See the{" "}
+            Tokens let lab instruments and scripts use the Washproof API as you, with your roles and
+            never more. A read token never writes. See the{" "}
             <Link href="/api/v1/openapi.json" className="text-brand-800 hover:underline">
               OpenAPI description
             </Link>
@@ -36,7 +46,10 @@ export default async function ApiTokensPage() {
           </>
         }
       />
-      <section aria-labelledby="new" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+      <section
+        aria-labelledby="new"
+        className="mb-8 rounded-lg border border-stone-200 bg-white p-5"
+      >
         <h2 id="new" className="mb-3 text-base font-semibold">
           Create a token
         </h2>
@@ -72,7 +85,11 @@ export default async function ApiTokensPage() {
                   <Td>{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : "Never"}</Td>
                   <Td>{t.expiresAt ? formatDate(t.expiresAt) : "—"}</Td>
                   <Td>{tokenStatus(t, now)}</Td>
-                  <Td>{tokenStatus(t, now) === "Active" && <RevokeApiTokenForm tokenId={t.id} name={t.name} />}</Td>
+                  <Td>
+                    {tokenStatus(t, now) === "Active" && (
+                      <RevokeApiTokenForm tokenId={t.id} name={t.name} />
+                    )}
+                  </Td>
                 </tr>
               ))}
             </TBody>

@@ -27,15 +27,23 @@ export default async function EmailAdminPage() {
         description="Notifications are queued with the step that causes them and sent after it is saved; failed sends are retried with growing delays, then shown here as failed."
       />
       <section aria-labelledby="test-mail" className="mb-8 max-w-md">
-        <h2 id="test-mail" className="mb-2 font-semibold">Send a test message</h2>
-        <ActionForm action={sendTestEmailAction} className="flex items-end gap-2" aria-label="Send a test message">
+        <h2 id="test-mail" className="mb-2 font-semibold">
+          Send a test message
+        </h2>
+        <ActionForm
+          action={sendTestEmailAction}
+          className="flex items-end gap-2"
+          aria-label="Send a test message"
+        >
           <Field name="to" label="To" type="email" defaultValue={user.email} className="flex-1" />
           <SubmitButton variant="secondary">Send</SubmitButton>
         </ActionForm>
       </section>
 
       <section aria-labelledby="outbox" className="mb-10">
-        <h2 id="outbox" className="mb-2 font-semibold">Outbox</h2>
+        <h2 id="outbox" className="mb-2 font-semibold">
+          Outbox
+        </h2>
         <Table>
           <THead>
             <Th>Queued (UTC)</Th>
@@ -46,15 +54,17 @@ export default async function EmailAdminPage() {
             <Th>Last error</Th>
           </THead>
           <TBody>
-            {outbox.length === 0 && (
-              <EmptyRow colSpan={6}>No e-mail has been queued yet.</EmptyRow>
-            )}
+            {outbox.length === 0 && <EmptyRow colSpan={6}>No e-mail has been queued yet.</EmptyRow>}
             {outbox.map((m) => (
               <tr key={m.id}>
-                <Td className="tabular-nums">{formatDateTime(m.createdAt, { seconds: true, zone: false })}</Td>
+                <Td className="tabular-nums">
+                  {formatDateTime(m.createdAt, { seconds: true, zone: false })}
+                </Td>
                 <Td>{m.to}</Td>
                 <Td>{m.subject}</Td>
-                <Td className={m.status === "failed" ? "font-medium text-red-800" : ""}>{STATUS_WORDS[m.status]}</Td>
+                <Td className={m.status === "failed" ? "font-medium text-red-800" : ""}>
+                  {STATUS_WORDS[m.status]}
+                </Td>
                 <Td numeric>{m.attempts}</Td>
                 <Td className="text-xs text-stone-600">{m.lastError ?? "—"}</Td>
               </tr>
@@ -65,9 +75,12 @@ export default async function EmailAdminPage() {
 
       {demo && (
         <section aria-labelledby="mailbox">
-          <h2 id="mailbox" className="mb-1 font-semibold">Demo mailbox</h2>
+          <h2 id="mailbox" className="mb-1 font-semibold">
+            Demo mailbox
+          </h2>
           <p className="mb-3 text-sm text-stone-600">
-            In demo mode e-mail goes to a capturing server on this machine instead of real inboxes. Everything it received:
+            In demo mode e-mail goes to a capturing server on this machine instead of real inboxes.
+            Everything it received:
           </p>
           {mailbox.length === 0 ? (
             <p className="text-sm text-stone-600">The demo mailbox is empty.</p>
@@ -77,9 +90,14 @@ export default async function EmailAdminPage() {
                 <li key={m.id}>
                   <details className="rounded-lg border border-stone-200 bg-white p-3">
                     <summary className="cursor-pointer text-sm">
-                      <span className="font-medium">{m.subject}</span> <span className="text-stone-600">to {m.to.join(", ")} · {formatDateTime(m.receivedAt, { seconds: true })}</span>
+                      <span className="font-medium">{m.subject}</span>{" "}
+                      <span className="text-stone-600">
+                        to {m.to.join(", ")} · {formatDateTime(m.receivedAt, { seconds: true })}
+                      </span>
                     </summary>
-                    <pre className="mt-2 font-sans text-sm whitespace-pre-wrap text-stone-800">{m.text}</pre>
+                    <pre className="mt-2 font-sans text-sm whitespace-pre-wrap text-stone-800">
+                      {m.text}
+                    </pre>
                   </details>
                 </li>
               ))}

@@ -10,7 +10,9 @@ export const saveMatrixAction = defineAction({
   from: "payload",
   run: async ({ user, input }) => {
     const m = await versionMatrix(user, input);
-    return { message: `Saved as version ${m.version}; it applies to change requests assessed from now on.` };
+    return {
+      message: `Saved as version ${m.version}; it applies to change requests assessed from now on.`,
+    };
   },
   revalidate: ["/admin/matrix"],
 });

@@ -25,7 +25,8 @@ export default async function MatrixPage() {
         <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
           {versions.map((v) => (
             <li key={v.id} className="px-3 py-2">
-              Version {v.version} · {v.status === "effective" ? "In force" : "Superseded"} · {formatDate(v.createdAt)} · {v.note}
+              Version {v.version} · {v.status === "effective" ? "In force" : "Superseded"} ·{" "}
+              {formatDate(v.createdAt)} · {v.note}
             </li>
           ))}
         </ul>

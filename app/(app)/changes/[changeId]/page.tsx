@@ -10,7 +10,13 @@ import { SignatureDialog } from "@/components/signatures/signature-dialog";
 import { SignatureList } from "@/components/signatures/signature-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
-import { CHANGE_KIND_LABELS, CHANGE_STEPS, CHANGE_STATUS_LABELS, stepProblem, type ChangeStep } from "@/lib/changes/workflow";
+import {
+  CHANGE_KIND_LABELS,
+  CHANGE_STEPS,
+  CHANGE_STATUS_LABELS,
+  stepProblem,
+  type ChangeStep,
+} from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getChangeRequestPage } from "@/lib/server/changes/queries";
@@ -35,16 +41,34 @@ export const metadata: Metadata = { title: "Change request" };
 export default async function ChangePage({ params }: { params: Promise<{ changeId: string }> }) {
   const user = await requirePageUser("changes.view");
   const { changeId } = await params;
-  const page = /^[0-9a-f-]{36}$/.test(changeId) ? await getChangeRequestPage(changeId).catch(() => undefined) : undefined;
+  const page = /^[0-9a-f-]{36}$/.test(changeId)
+    ? await getChangeRequestPage(changeId).catch(() => undefined)
+    : undefined;
   if (!page) notFound();
-  const { cr, recipe, fromVersion, toVersion, assessment, impact, requirements, gate, linked, candidates } = page;
-  const may = (step: ChangeStep) => can(user.roles, CHANGE_STEPS[step].permission) && stepProblem(step, cr.status, requirements.length) === null;
+  const {
+    cr,
+    recipe,
+    fromVersion,
+    toVersion,
+    assessment,
+    impact,
+    requirements,
+    gate,
+    linked,
+    candidates,
+  } = page;
+  const may = (step: ChangeStep) =>
+    can(user.roles, CHANGE_STEPS[step].permission) &&
+    stepProblem(step, cr.status, requirements.length) === null;
   const hidden = { changeRequestId: cr.id };
   const label = `${cr.number} revision ${page.assessmentRow.revision}`;
   const editing = cr.status === "draft" && can(user.roles, "recipe.edit");
   const narrative = page.narrative;
-  const editNarrative = editing && narrative?.status === "draft" && can(user.roles, "document.draft");
-  const gateMatters = ["approved_for_implementation", "requalification", "verified"].includes(cr.status) && requirements.length > 0;
+  const editNarrative =
+    editing && narrative?.status === "draft" && can(user.roles, "document.draft");
+  const gateMatters =
+    ["approved_for_implementation", "requalification", "verified"].includes(cr.status) &&
+    requirements.length > 0;
 
   return (
     <>
@@ -52,42 +76,116 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         title={`${cr.number} · ${cr.title}`}
         description={
           <>
-            Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[cr.status]}</span> · {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
+            Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[cr.status]}</span> ·{" "}
+            {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
             <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
               {recipe.code}
             </Link>{" "}
-            {fromVersion ? `version ${fromVersion.version} → proposed version ${toVersion.version}` : `first version ${toVersion.version}`}
-            {page.family ? (fromVersion ? ` · adds ${page.family.code}` : ` · validated for ${page.family.code}`) : ""} · opened by {page.author} on {formatDate(cr.createdAt)}
+            {fromVersion
+              ? `version ${fromVersion.version} → proposed version ${toVersion.version}`
+              : `first version ${toVersion.version}`}
+            {page.family
+              ? fromVersion
+                ? ` · adds ${page.family.code}`
+                : ` · validated for ${page.family.code}`
+              : ""}{" "}
+            · opened by {page.author} on {formatDate(cr.createdAt)}
           </>
         }
       />
 
-      <section aria-labelledby="next" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+      <section
+        aria-labelledby="next"
+        className="mb-8 rounded-lg border border-stone-200 bg-white p-5"
+      >
         <h2 id="next" className="mb-3 text-base font-semibold">
           Next step
         </h2>
         <div className="flex flex-wrap items-start gap-3">
           {may("assess") && (
-            <SignatureDialog action={assessChangeAction} recordType="change_request" meaning="authored" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Sign and submit impact assessment" />
+            <SignatureDialog
+              action={assessChangeAction}
+              recordType="change_request"
+              meaning="authored"
+              signerName={user.name}
+              recordLabel={label}
+              contentHash={page.contentHash}
+              hidden={hidden}
+              buttonLabel="Sign and submit impact assessment"
+            />
           )}
           {may("approve") && (
-            <SignatureDialog action={approveChangeAction} recordType="change_request" meaning="approved" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Approve for implementation" />
+            <SignatureDialog
+              action={approveChangeAction}
+              recordType="change_request"
+              meaning="approved"
+              signerName={user.name}
+              recordLabel={label}
+              contentHash={page.contentHash}
+              hidden={hidden}
+              buttonLabel="Approve for implementation"
+            />
           )}
-          {may("start_requalification") && <StepButton action={startRequalificationAction} changeRequestId={cr.id} label="Start requalification" />}
+          {may("start_requalification") && (
+            <StepButton
+              action={startRequalificationAction}
+              changeRequestId={cr.id}
+              label="Start requalification"
+            />
+          )}
           {may("verify") && (
-            <SignatureDialog action={verifyChangeAction} recordType="change_request" meaning="verified" signerName={user.name} recordLabel={label} contentHash={page.contentHash} hidden={hidden} buttonLabel="Verify change" />
+            <SignatureDialog
+              action={verifyChangeAction}
+              recordType="change_request"
+              meaning="verified"
+              signerName={user.name}
+              recordLabel={label}
+              contentHash={page.contentHash}
+              hidden={hidden}
+              buttonLabel="Verify change"
+            />
           )}
-          {(may("close") || (cr.status === "requalification" && can(user.roles, "recipe.make_effective"))) && <StepButton action={closeChangeAction} changeRequestId={cr.id} label="Close and make effective" />}
-          {may("reopen") && <ReasonStep action={reopenChangeAction} changeRequestId={cr.id} label="Reopen for editing" variant="secondary" />}
-          {may("reject") && <ReasonStep action={rejectChangeAction} changeRequestId={cr.id} label="Reject" />}
-          {may("withdraw") && <ReasonStep action={withdrawChangeAction} changeRequestId={cr.id} label="Withdraw" />}
+          {(may("close") ||
+            (cr.status === "requalification" && can(user.roles, "recipe.make_effective"))) && (
+            <StepButton
+              action={closeChangeAction}
+              changeRequestId={cr.id}
+              label="Close and make effective"
+            />
+          )}
+          {may("reopen") && (
+            <ReasonStep
+              action={reopenChangeAction}
+              changeRequestId={cr.id}
+              label="Reopen for editing"
+              variant="secondary"
+            />
+          )}
+          {may("reject") && (
+            <ReasonStep action={rejectChangeAction} changeRequestId={cr.id} label="Reject" />
+          )}
+          {may("withdraw") && (
+            <ReasonStep action={withdrawChangeAction} changeRequestId={cr.id} label="Withdraw" />
+          )}
         </div>
-        {cr.status === "closed" && <p className="mt-2 text-sm">Closed on {formatDate(cr.closedAt)}: version {toVersion.version} is effective.</p>}
-        {(cr.status === "rejected" || cr.status === "withdrawn") && <p className="mt-2 text-sm">{CHANGE_STATUS_LABELS[cr.status]} on {formatDate(cr.closedAt)}; proposed version {toVersion.version} was withdrawn.</p>}
+        {cr.status === "closed" && (
+          <p className="mt-2 text-sm">
+            Closed on {formatDate(cr.closedAt)}: version {toVersion.version} is effective.
+          </p>
+        )}
+        {(cr.status === "rejected" || cr.status === "withdrawn") && (
+          <p className="mt-2 text-sm">
+            {CHANGE_STATUS_LABELS[cr.status]} on {formatDate(cr.closedAt)}; proposed version{" "}
+            {toVersion.version} was withdrawn.
+          </p>
+        )}
       </section>
 
       {gateMatters && (
-        <section aria-labelledby="gate" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+        <section
+          aria-labelledby="gate"
+          className="mb-8 rounded-lg border border-stone-200 bg-white p-5"
+        >
           <h2 id="gate" className="text-base font-semibold">
             Requalification gate: {gate.holds ? "met" : "not met"}
           </h2>
@@ -105,27 +203,46 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
             {gate.requirements.map(({ requirement, satisfiedBy }) => {
               const label = TEST_TYPE_LABELS[requirement.testType];
               const runs = linked.get(requirement.id) ?? [];
-              const offer = candidates.filter((c) => c.testType === requirement.testType && !runs.some((r) => r.id === c.id));
+              const offer = candidates.filter(
+                (c) => c.testType === requirement.testType && !runs.some((r) => r.id === c.id),
+              );
               return (
                 <li key={requirement.id} className="rounded-md border border-stone-200 p-3">
                   <p>
-                    <span className="font-medium">{label}</span> on {requirement.samples} parts: {satisfiedBy ? `met by ${satisfiedBy}` : "not met"}
+                    <span className="font-medium">{label}</span> on {requirement.samples} parts:{" "}
+                    {satisfiedBy ? `met by ${satisfiedBy}` : "not met"}
                   </p>
                   {runs.length > 0 && (
                     <p className="text-stone-700">
-                      Linked: {runs.map((r) => `${r.number} (${r.status}, outcome ${r.outcome ?? "not computed"}, ${r.sampleCount} samples)`).join("; ")}
+                      Linked:{" "}
+                      {runs
+                        .map(
+                          (r) =>
+                            `${r.number} (${r.status}, outcome ${r.outcome ?? "not computed"}, ${r.sampleCount} samples)`,
+                        )
+                        .join("; ")}
                     </p>
                   )}
-                  {cr.status === "requalification" && can(user.roles, "evidence.record") && offer.length > 0 && (
-                    <LinkEvidenceForm action={linkEvidenceAction} changeRequestId={cr.id} requirementId={requirement.id} label={label} runs={offer} />
-                  )}
+                  {cr.status === "requalification" &&
+                    can(user.roles, "evidence.record") &&
+                    offer.length > 0 && (
+                      <LinkEvidenceForm
+                        action={linkEvidenceAction}
+                        changeRequestId={cr.id}
+                        requirementId={requirement.id}
+                        label={label}
+                        runs={offer}
+                      />
+                    )}
                 </li>
               );
             })}
           </ul>
           <p className="mt-3 text-xs text-stone-600">
-            Runs count when they are on proposed version {toVersion.version}, their computed outcome passes, they hold at least the required samples and a second person verified them. A computed pass supports, and never replaces,
-            the customer&apos;s specification and the engineer&apos;s judgement.
+            Runs count when they are on proposed version {toVersion.version}, their computed outcome
+            passes, they hold at least the required samples and a second person verified them. A
+            computed pass supports, and never replaces, the customer&apos;s specification and the
+            engineer&apos;s judgement.
           </p>
         </section>
       )}
@@ -134,7 +251,13 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         <h2 id="impact" className="mb-2 text-lg font-semibold">
           Computed impact
         </h2>
-        <ImpactWorking assessment={assessment} impact={impact} raiseReason={page.assessmentRow.raiseReason} requirements={requirements} matrixVersion={page.matrixVersion} />
+        <ImpactWorking
+          assessment={assessment}
+          impact={impact}
+          raiseReason={page.assessmentRow.raiseReason}
+          requirements={requirements}
+          matrixVersion={page.matrixVersion}
+        />
       </section>
 
       <section aria-labelledby="diff" className="mb-8">
@@ -149,8 +272,15 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           <h2 id="narrative" className="mb-1 text-lg font-semibold">
             Justification and risk assessment
           </h2>
-          <p className="mb-2 text-sm text-stone-600">Why the change, what could go wrong and how the risk is controlled. Saved as you type; frozen when you sign the impact assessment.</p>
-          <DocumentEditorLoader versionId={narrative.id} initialContent={narrative.content as RichDoc} initialLockVersion={narrative.lockVersion} />
+          <p className="mb-2 text-sm text-stone-600">
+            Why the change, what could go wrong and how the risk is controlled. Saved as you type;
+            frozen when you sign the impact assessment.
+          </p>
+          <DocumentEditorLoader
+            versionId={narrative.id}
+            initialContent={narrative.content as RichDoc}
+            initialLockVersion={narrative.lockVersion}
+          />
         </section>
       )}
 
@@ -177,12 +307,18 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
             <h3 className="text-base font-semibold">Justification and risk assessment</h3>
             {narrative ? (
               // Sanitised on the server by the documents renderer.
-              <div className="prose prose-stone prose-sm mt-1 max-w-3xl" dangerouslySetInnerHTML={{ __html: renderRichHtml(narrative.content as RichDoc) }} />
+              <div
+                className="prose prose-stone prose-sm mt-1 max-w-3xl"
+                dangerouslySetInnerHTML={{ __html: renderRichHtml(narrative.content as RichDoc) }}
+              />
             ) : (
               <p className="text-sm text-stone-600">Not written.</p>
             )}
             <div className="mt-4 rounded-lg border border-stone-200 bg-white p-5">
-              <RecipeTable content={page.to} caption={`Parameters of proposed version ${toVersion.version}`} />
+              <RecipeTable
+                content={page.to}
+                caption={`Parameters of proposed version ${toVersion.version}`}
+              />
             </div>
           </>
         )}
@@ -199,7 +335,9 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
             <SignatureList signatures={page.earlierSignatures} />
           </details>
         )}
-        <p className="mt-2 font-mono text-xs break-all text-stone-500">Content hash of this revision: {page.contentHash}</p>
+        <p className="mt-2 font-mono text-xs break-all text-stone-500">
+          Content hash of this revision: {page.contentHash}
+        </p>
       </section>
     </>
   );

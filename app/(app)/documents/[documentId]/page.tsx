@@ -16,12 +16,21 @@ import { renderRichHtml } from "@/lib/documents/render-html";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getDocumentAndVersion, listSigners } from "@/lib/server/documents/queries";
 import { hashContent } from "@/lib/server/documents/shared";
-import { approveAction, newVersionAction, rejectAction, retireAction, sendBackAction, signReviewAction, submitAction } from "../actions";
+import {
+  approveAction,
+  newVersionAction,
+  rejectAction,
+  retireAction,
+  sendBackAction,
+  signReviewAction,
+  submitAction,
+} from "../actions";
 import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Document" };
 
-const linkButton = "inline-flex items-center gap-1.5 rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100";
+const linkButton =
+  "inline-flex items-center gap-1.5 rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100";
 
 function Panel({ title, children }: { title: string; children: React.ReactNode }) {
   return (
@@ -32,7 +41,13 @@ function Panel({ title, children }: { title: string; children: React.ReactNode }
   );
 }
 
-export default async function DocumentPage({ params, searchParams }: { params: Promise<{ documentId: string }>; searchParams: Promise<{ version?: string }> }) {
+export default async function DocumentPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ documentId: string }>;
+  searchParams: Promise<{ version?: string }>;
+}) {
   const user = await requirePageUser("documents.view");
   const { documentId } = await params;
   const found = await getDocumentAndVersion(documentId, (await searchParams).version);
@@ -43,10 +58,15 @@ export default async function DocumentPage({ params, searchParams }: { params: P
   const label = `${document.number} version ${version.version}`;
   const hidden = { versionId: version.id, documentId };
   const round = version.reviews.filter((r) => r.round === version.reviewRound);
-  const myStep = round.find((r) => r.assigneeId === user.id && r.decision === null && r.activatedAt !== null);
-  const allowed = (action: Parameters<typeof checkTransition>[1]) => checkTransition(version.status, action, user.roles, document.type).ok;
+  const myStep = round.find(
+    (r) => r.assigneeId === user.id && r.decision === null && r.activatedAt !== null,
+  );
+  const allowed = (action: Parameters<typeof checkTransition>[1]) =>
+    checkTransition(version.status, action, user.roles, document.type).ok;
   const isLatest = version.version === document.versions[0].version;
-  const hasOpenVersion = document.versions.some((v) => ["draft", "in_review", "approved"].includes(v.status));
+  const hasOpenVersion = document.versions.some((v) =>
+    ["draft", "in_review", "approved"].includes(v.status),
+  );
   const draftHash = version.status === "draft" ? hashContent(version.content) : null;
   const signers = version.status === "draft" && allowed("submit") ? await listSigners() : null;
   const current = version.signatures.filter((s) => s.contentHash === version.contentHash);
@@ -72,7 +92,10 @@ export default async function DocumentPage({ params, searchParams }: { params: P
                 <GitCompare className="h-4 w-4" aria-hidden="true" /> Compare versions
               </Link>
             )}
-            <a href={`/api/documents/${documentId}/versions/${version.version}/pdf`} className={linkButton}>
+            <a
+              href={`/api/documents/${documentId}/versions/${version.version}/pdf`}
+              className={linkButton}
+            >
               <FileDown className="h-4 w-4" aria-hidden="true" /> Download PDF
             </a>
           </>
@@ -96,10 +119,14 @@ export default async function DocumentPage({ params, searchParams }: { params: P
         <article aria-label={label} className="min-w-0 rounded-lg border border-stone-200 bg-white">
           {version.status !== "effective" && (
             <p className="border-b border-stone-200 bg-stone-100 px-6 py-2 text-sm font-medium text-stone-700">
-              Not in force: this version is {version.status.replace("_", " ")}. Printed copies are marked “Uncontrolled copy”.
+              Not in force: this version is {version.status.replace("_", " ")}. Printed copies are
+              marked “Uncontrolled copy”.
             </p>
           )}
-          <div className="prose prose-stone max-w-none px-6 py-4" dangerouslySetInnerHTML={{ __html: renderRichHtml(version.content) }} />
+          <div
+            className="prose prose-stone max-w-none px-6 py-4"
+            dangerouslySetInnerHTML={{ __html: renderRichHtml(version.content) }}
+          />
         </article>
 
         <div className="space-y-4">
@@ -112,7 +139,9 @@ export default async function DocumentPage({ params, searchParams }: { params: P
               <dt className="text-stone-500">Effective date</dt>
               <dd>{version.effectiveDate ?? "—"}</dd>
               <dt className="text-stone-500">Content hash</dt>
-              <dd className="font-mono text-xs break-all">{version.contentHash ?? "set when submitted"}</dd>
+              <dd className="font-mono text-xs break-all">
+                {version.contentHash ?? "set when submitted"}
+              </dd>
               {version.changeReason && (
                 <>
                   <dt className="text-stone-500">Reason</dt>
@@ -125,7 +154,10 @@ export default async function DocumentPage({ params, searchParams }: { params: P
           {version.status === "draft" && allowed("edit") && (
             <Panel title="Draft">
               <div className="flex flex-wrap gap-2">
-                <Link href={`/documents/${documentId}/edit?version=${version.version}`} className={linkButton}>
+                <Link
+                  href={`/documents/${documentId}/edit?version=${version.version}`}
+                  className={linkButton}
+                >
                   <PenLine className="h-4 w-4" aria-hidden="true" /> Edit draft
                 </Link>
                 {signers && draftHash && (
@@ -149,7 +181,8 @@ export default async function DocumentPage({ params, searchParams }: { params: P
                           value: r.id,
                           label: (
                             <>
-                              {r.name} {r.jobTitle && <span className="text-stone-500">({r.jobTitle})</span>}
+                              {r.name}{" "}
+                              {r.jobTitle && <span className="text-stone-500">({r.jobTitle})</span>}
                             </>
                           ),
                         }))}
@@ -158,7 +191,12 @@ export default async function DocumentPage({ params, searchParams }: { params: P
                       name="approverId"
                       label="Approver"
                       placeholder="— choose —"
-                      options={signers.approvers.filter((a) => a.id !== user.id).map((a) => ({ value: a.id, label: a.jobTitle ? `${a.name} (${a.jobTitle})` : a.name }))}
+                      options={signers.approvers
+                        .filter((a) => a.id !== user.id)
+                        .map((a) => ({
+                          value: a.id,
+                          label: a.jobTitle ? `${a.name} (${a.jobTitle})` : a.name,
+                        }))}
                     />
                     <ChoiceGroup
                       type="radio"
@@ -171,7 +209,11 @@ export default async function DocumentPage({ params, searchParams }: { params: P
                       ]}
                       hint="The approver signs after every reviewer."
                     />
-                    <DateField name="dueDate" label="Due by (optional)" hint="Without a date, each step is due a set number of days after it opens." />
+                    <DateField
+                      name="dueDate"
+                      label="Due by (optional)"
+                      hint="Without a date, each step is due a set number of days after it opens."
+                    />
                   </SignatureDialog>
                 )}
               </div>
@@ -181,7 +223,15 @@ export default async function DocumentPage({ params, searchParams }: { params: P
           {myStep?.role === "reviewer" && version.contentHash && (
             <Panel title="Your review">
               <div className="space-y-4">
-                <SignatureDialog action={signReviewAction} recordType="document_version" meaning="reviewed" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden} />
+                <SignatureDialog
+                  action={signReviewAction}
+                  recordType="document_version"
+                  meaning="reviewed"
+                  signerName={user.name}
+                  recordLabel={label}
+                  contentHash={version.contentHash}
+                  hidden={hidden}
+                />
                 <ActionForm action={sendBackAction} className="space-y-2" aria-label="Send back">
                   <input type="hidden" name="versionId" value={version.id} />
                   <input type="hidden" name="documentId" value={documentId} />
@@ -195,8 +245,21 @@ export default async function DocumentPage({ params, searchParams }: { params: P
           {myStep?.role === "approver" && version.contentHash && (
             <Panel title="Your approval">
               <div className="space-y-4">
-                <SignatureDialog action={approveAction} recordType="document_version" meaning="approved" signerName={user.name} recordLabel={label} contentHash={version.contentHash} hidden={hidden}>
-                  <DateField name="effectiveDate" label="Effective from" defaultValue={formatDate(now)} hint="Today makes it effective at once and supersedes the version in force." />
+                <SignatureDialog
+                  action={approveAction}
+                  recordType="document_version"
+                  meaning="approved"
+                  signerName={user.name}
+                  recordLabel={label}
+                  contentHash={version.contentHash}
+                  hidden={hidden}
+                >
+                  <DateField
+                    name="effectiveDate"
+                    label="Effective from"
+                    defaultValue={formatDate(now)}
+                    hint="Today makes it effective at once and supersedes the version in force."
+                  />
                 </SignatureDialog>
                 <ActionForm action={rejectAction} className="space-y-2" aria-label="Reject">
                   <input type="hidden" name="versionId" value={version.id} />
@@ -210,7 +273,11 @@ export default async function DocumentPage({ params, searchParams }: { params: P
 
           {isLatest && !hasOpenVersion && allowed("new_version") && (
             <Panel title="Revise">
-              <ActionForm action={newVersionAction} className="space-y-2" aria-label="Start a new version">
+              <ActionForm
+                action={newVersionAction}
+                className="space-y-2"
+                aria-label="Start a new version"
+              >
                 <input type="hidden" name="documentId" value={documentId} />
                 <TextareaField name="reason" label="Reason for the new version" rows={2} />
                 <SubmitButton variant="secondary">Start a new version</SubmitButton>
@@ -236,8 +303,13 @@ export default async function DocumentPage({ params, searchParams }: { params: P
             <SignatureList signatures={current} />
             {earlier.length > 0 && (
               <details className="mt-3 text-sm">
-                <summary className="cursor-pointer text-stone-700">Signatures on earlier submissions of this version ({earlier.length})</summary>
-                <p className="my-2 text-xs text-stone-600">These bind to text that was returned and has changed since; they do not apply to the text shown.</p>
+                <summary className="cursor-pointer text-stone-700">
+                  Signatures on earlier submissions of this version ({earlier.length})
+                </summary>
+                <p className="my-2 text-xs text-stone-600">
+                  These bind to text that was returned and has changed since; they do not apply to
+                  the text shown.
+                </p>
                 <SignatureList signatures={earlier} />
               </details>
             )}

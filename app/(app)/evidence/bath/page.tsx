@@ -15,10 +15,14 @@ export default async function BathIndexPage() {
   const [tanks, maintenance] = await Promise.all([listTanks(), listMaintenance()]);
   return (
     <>
-      <PageHeader title="Bath and filter log" description="Bath changes, filter changes and bath readings per tank, with the maintenance intervals that fall due." />
+      <PageHeader
+        title="Bath and filter log"
+        description="Bath changes, filter changes and bath readings per tank, with the maintenance intervals that fall due."
+      />
       <div className="mb-6">
         <Caution title="hot, alkaline baths and filter changes">
-          Isolate and lock out the machine before opening a filter housing or a tank. Wash baths run hot and alkaline: wear the protective equipment the site&apos;s procedures require.
+          Isolate and lock out the machine before opening a filter housing or a tank. Wash baths run
+          hot and alkaline: wear the protective equipment the site&apos;s procedures require.
         </Caution>
       </div>
       <Table caption="Tanks and their maintenance">
@@ -32,17 +36,24 @@ export default async function BathIndexPage() {
             return (
               <tr key={stage.id}>
                 <Td>
-                  <Link href={`/evidence/bath/${stage.id}`} className="font-medium text-brand-800 hover:underline">
+                  <Link
+                    href={`/evidence/bath/${stage.id}`}
+                    className="font-medium text-brand-800 hover:underline"
+                  >
                     {system.code} · {stage.name}
                   </Link>
-                  {stage.tankVolumeL !== null && <span className="block text-xs text-stone-600">{stage.tankVolumeL} L</span>}
+                  {stage.tankVolumeL !== null && (
+                    <span className="block text-xs text-stone-600">{stage.tankVolumeL} L</span>
+                  )}
                 </Td>
                 <Td>
                   {items.length === 0
                     ? "No interval set"
                     : items.map((m) => (
                         <span key={m.intervalId} className="block">
-                          {MAINTENANCE_LABELS[m.kind]}: <strong>{STATE_LABELS[m.status.state]}</strong> — due {formatDate(m.status.dueAt)}
+                          {MAINTENANCE_LABELS[m.kind]}:{" "}
+                          <strong>{STATE_LABELS[m.status.state]}</strong> — due{" "}
+                          {formatDate(m.status.dueAt)}
                         </span>
                       ))}
                 </Td>

@@ -6,7 +6,11 @@ import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
 import { can } from "@/lib/auth/permissions";
 import { formatDate, todayUtc } from "@/lib/format/date";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { familyOptions, listCombinations, qualifiableVersions } from "@/lib/server/plant/parts-queries";
+import {
+  familyOptions,
+  listCombinations,
+  qualifiableVersions,
+} from "@/lib/server/plant/parts-queries";
 import { qualifyCombinationAction } from "../actions";
 
 export const metadata: Metadata = { title: "Qualified combinations" };
@@ -15,10 +19,17 @@ export const metadata: Metadata = { title: "Qualified combinations" };
 export default async function CombinationsPage() {
   const user = await requirePageUser("parts.view");
   const manage = can(user.roles, "parts.manage");
-  const [combos, versions, families] = await Promise.all([listCombinations(), manage ? qualifiableVersions() : [], manage ? familyOptions() : []]);
+  const [combos, versions, families] = await Promise.all([
+    listCombinations(),
+    manage ? qualifiableVersions() : [],
+    manage ? familyOptions() : [],
+  ]);
   return (
     <>
-      <PageHeader title="Qualified combinations" description="Each recipe version validated for a part family, on what evidence, and when it is due for periodic requalification. A test run opens only on a qualified combination, or under a validation protocol for it." />
+      <PageHeader
+        title="Qualified combinations"
+        description="Each recipe version validated for a part family, on what evidence, and when it is due for periodic requalification. A test run opens only on a qualified combination, or under a validation protocol for it."
+      />
       <Table caption="Qualified combinations">
         <THead>
           <Th>Part family</Th>
@@ -53,11 +64,20 @@ export default async function CombinationsPage() {
       </Table>
       {manage && (
         <section aria-labelledby="qualify" className="mt-8">
-          <h2 id="qualify" className="mb-1 text-lg font-semibold">Qualify a combination by hand</h2>
+          <h2 id="qualify" className="mb-1 text-lg font-semibold">
+            Qualify a combination by hand
+          </h2>
           <p className="mb-4 max-w-3xl text-sm text-stone-600">
-            For a recipe version already in use whose validation for this family is on record elsewhere (a report from before Washproof). New versions are qualified when their change request or initial validation closes.
+            For a recipe version already in use whose validation for this family is on record
+            elsewhere (a report from before Washproof). New versions are qualified when their change
+            request or initial validation closes.
           </p>
-          <QualifyForm action={qualifyCombinationAction} versions={versions} families={families} today={todayUtc()} />
+          <QualifyForm
+            action={qualifyCombinationAction}
+            versions={versions}
+            families={families}
+            today={todayUtc()}
+          />
         </section>
       )}
     </>

@@ -20,19 +20,36 @@ const querySchema = z.object({
 const STATUS_WORDS = { in_force: "In force", superseded: "Superseded" } as const;
 
 /** The customer specification register; the filter lives in the URL so a filtered list can be linked. */
-export default async function SpecRegisterPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function SpecRegisterPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePageUser("parts.view");
   const raw = await searchParams;
-  const query = querySchema.parse({ status: raw.status ?? "in_force", q: typeof raw.q === "string" ? raw.q : "" });
+  const query = querySchema.parse({
+    status: raw.status ?? "in_force",
+    q: typeof raw.q === "string" ? raw.q : "",
+  });
   const specs = await listSpecRegister(query);
   return (
     <>
       <PageHeader
         title="Specification register"
         description="Customer cleanliness specifications by revision. A new revision supersedes the one in force; runs keep the revision they were tested against."
-        actions={can(user.roles, "parts.manage") ? <Link href="/parts/specs/new" className={linkButton}>New specification</Link> : undefined}
+        actions={
+          can(user.roles, "parts.manage") ? (
+            <Link href="/parts/specs/new" className={linkButton}>
+              New specification
+            </Link>
+          ) : undefined
+        }
       />
-      <form method="get" className="mb-4 flex flex-wrap items-end gap-3" aria-label="Filter specifications">
+      <form
+        method="get"
+        className="mb-4 flex flex-wrap items-end gap-3"
+        aria-label="Filter specifications"
+      >
         <SelectField
           name="status"
           label="Status"
@@ -44,10 +61,20 @@ export default async function SpecRegisterPage({ searchParams }: { searchParams:
             { value: "all", label: "All revisions" },
           ]}
         />
-        <Field name="q" type="search" label="Word in code, title, customer or document" dense defaultValue={query.q} />
-        <Button type="submit" variant="secondary">Filter</Button>
+        <Field
+          name="q"
+          type="search"
+          label="Word in code, title, customer or document"
+          dense
+          defaultValue={query.q}
+        />
+        <Button type="submit" variant="secondary">
+          Filter
+        </Button>
         {(query.q || query.status !== "in_force") && (
-          <Link href="/parts/specs" className={secondaryLink}>Clear</Link>
+          <Link href="/parts/specs" className={secondaryLink}>
+            Clear
+          </Link>
         )}
       </form>
       <Table caption="Specifications">

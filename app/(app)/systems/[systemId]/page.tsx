@@ -26,10 +26,17 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
   const runs = manage && system.active ? await effectiveRecipeNames(system.id) : [];
   return (
     <>
-      <PageHeader title={`${system.code} · ${system.name}`} description={system.description ?? undefined} />
+      <PageHeader
+        title={`${system.code} · ${system.name}`}
+        description={system.description ?? undefined}
+      />
       <dl className="mb-6 grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
         <dt className="font-medium text-stone-700">Status</dt>
-        <dd>{system.active ? "In service" : `Retired ${formatDate(system.retiredAt)}: ${system.retireReason ?? ""}`}</dd>
+        <dd>
+          {system.active
+            ? "In service"
+            : `Retired ${formatDate(system.retiredAt)}: ${system.retireReason ?? ""}`}
+        </dd>
         <dt className="font-medium text-stone-700">Asset number</dt>
         <dd>{system.assetNumber ?? "—"}</dd>
         <dt className="font-medium text-stone-700">Kind</dt>
@@ -37,7 +44,10 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
         <dt className="font-medium text-stone-700">Site</dt>
         <dd>{system.siteName}</dd>
       </dl>
-      <section aria-labelledby="stages" className="mb-8 rounded-lg border border-stone-200 bg-white p-5">
+      <section
+        aria-labelledby="stages"
+        className="mb-8 rounded-lg border border-stone-200 bg-white p-5"
+      >
         <h2 id="stages" className="text-lg font-semibold">
           Stages
         </h2>
@@ -59,7 +69,9 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
                 <Td>{humanize(st.kind)}</Td>
                 <Td>{st.capabilities.map((c) => STAGE_MODE_LABELS[c] ?? c).join(", ")}</Td>
                 <Td numeric>{st.tankVolumeL === null ? "—" : withUnit(st.tankVolumeL, "L")}</Td>
-                <Td numeric>{st.filterRatingUm === null ? "—" : withUnit(st.filterRatingUm, "µm")}</Td>
+                <Td numeric>
+                  {st.filterRatingUm === null ? "—" : withUnit(st.filterRatingUm, "µm")}
+                </Td>
                 <Td>{equipmentWords(st) || "—"}</Td>
               </tr>
             ))}
@@ -67,7 +79,9 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
         </Table>
         {manage && system.active && (
           <details className="mt-4">
-            <summary className="cursor-pointer text-sm font-medium text-brand-800">Edit system and stages</summary>
+            <summary className="cursor-pointer text-sm font-medium text-brand-800">
+              Edit system and stages
+            </summary>
             <div className="mt-3">
               <SystemEditor mode="edit" action={updateSystemAction} system={system} runs={runs} />
             </div>
@@ -75,16 +89,25 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
         )}
         {manage && system.active && (
           <details className="mt-4">
-            <summary className="cursor-pointer text-sm font-medium text-brand-800">Retire system</summary>
+            <summary className="cursor-pointer text-sm font-medium text-brand-800">
+              Retire system
+            </summary>
             <div className="mt-3 max-w-xl">
-              <RetireSystemForm action={retireSystemAction} systemId={system.id} code={system.code} />
+              <RetireSystemForm
+                action={retireSystemAction}
+                systemId={system.id}
+                code={system.code}
+              />
             </div>
           </details>
         )}
       </section>
       {can(user.roles, "recipe.edit") && system.active && (
         <p className="mb-4">
-          <Link href={`/systems/${system.id}/recipes/new`} className="text-sm font-medium text-brand-800 hover:underline">
+          <Link
+            href={`/systems/${system.id}/recipes/new`}
+            className="text-sm font-medium text-brand-800 hover:underline"
+          >
             New recipe for {system.code}
           </Link>
         </p>
@@ -92,16 +115,30 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
       {system.recipes.map((recipe) => {
         const v = recipe.effectiveVersion;
         return (
-          <section key={recipe.id} className="mb-8 rounded-lg border border-stone-200 bg-white p-5" aria-labelledby={`r-${recipe.id}`}>
+          <section
+            key={recipe.id}
+            className="mb-8 rounded-lg border border-stone-200 bg-white p-5"
+            aria-labelledby={`r-${recipe.id}`}
+          >
             <h2 id={`r-${recipe.id}`} className="text-lg font-semibold">
-              <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
+              <Link
+                href={`/systems/recipes/${recipe.id}`}
+                className="text-brand-800 hover:underline"
+              >
                 {recipe.code} · {recipe.name}
               </Link>
             </h2>
             <p className="text-sm text-stone-600">
-              {v ? `Effective version ${v.version} since ${formatDate(v.effectiveFrom)} · detergent: ${v.detergent ?? "none"}` : "No effective version"}
+              {v
+                ? `Effective version ${v.version} since ${formatDate(v.effectiveFrom)} · detergent: ${v.detergent ?? "none"}`
+                : "No effective version"}
             </p>
-            {v && <RecipeTable content={v} caption={`Parameters of ${recipe.name}, version ${v.version}`} />}
+            {v && (
+              <RecipeTable
+                content={v}
+                caption={`Parameters of ${recipe.name}, version ${v.version}`}
+              />
+            )}
           </section>
         );
       })}
@@ -110,11 +147,21 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
 }
 
 /** The figures that define a stage's modes, in words with their units. */
-function equipmentWords(st: { ultrasonicPowerW: number | null; ultrasonicFrequencyKHz: number | null; sprayPressureBar: number | null; injectionPressureBar: number | null; nozzleSet: string | null }) {
+function equipmentWords(st: {
+  ultrasonicPowerW: number | null;
+  ultrasonicFrequencyKHz: number | null;
+  sprayPressureBar: number | null;
+  injectionPressureBar: number | null;
+  nozzleSet: string | null;
+}) {
   const parts: string[] = [];
-  if (st.ultrasonicPowerW !== null) parts.push(`ultrasonic ${withUnit(st.ultrasonicPowerW, "W")}${st.ultrasonicFrequencyKHz === null ? "" : ` at ${withUnit(st.ultrasonicFrequencyKHz, "kHz")}`}`);
+  if (st.ultrasonicPowerW !== null)
+    parts.push(
+      `ultrasonic ${withUnit(st.ultrasonicPowerW, "W")}${st.ultrasonicFrequencyKHz === null ? "" : ` at ${withUnit(st.ultrasonicFrequencyKHz, "kHz")}`}`,
+    );
   if (st.sprayPressureBar !== null) parts.push(`spray ${withUnit(st.sprayPressureBar, "bar")}`);
-  if (st.injectionPressureBar !== null) parts.push(`injection ${withUnit(st.injectionPressureBar, "bar")}`);
+  if (st.injectionPressureBar !== null)
+    parts.push(`injection ${withUnit(st.injectionPressureBar, "bar")}`);
   if (st.nozzleSet) parts.push(`nozzles ${st.nozzleSet}`);
   return parts.join("; ");
 }

@@ -18,15 +18,27 @@ export const verifyIntegrityAction = defineAction({
     const ms = Math.round(performance.now() - started);
     // The check itself is recorded, after it ran, so it does not verify its own event.
     await getDb().transaction((tx) =>
-      appendAudit(tx, { id: user.id, name: user.name }, {
-        eventType: "audit.verified",
-        recordType: "audit_trail",
-        recordId: "chain",
-        new: { ok: report.ok, events: report.chain.events, checkpoints: report.checkpoints.count, signatures: report.signatures.checked, findings: report.findings.slice(0, 50) },
-      }),
+      appendAudit(
+        tx,
+        { id: user.id, name: user.name },
+        {
+          eventType: "audit.verified",
+          recordType: "audit_trail",
+          recordId: "chain",
+          new: {
+            ok: report.ok,
+            events: report.chain.events,
+            checkpoints: report.checkpoints.count,
+            signatures: report.signatures.checked,
+            findings: report.findings.slice(0, 50),
+          },
+        },
+      ),
     );
     const summary = integritySummary(report, ms);
-    return summary.ok ? { message: summary.message, findings: summary.findings } : { ok: false as const, message: summary.message, findings: summary.findings };
+    return summary.ok
+      ? { message: summary.message, findings: summary.findings }
+      : { ok: false as const, message: summary.message, findings: summary.findings };
   },
 });
 

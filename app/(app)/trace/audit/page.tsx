@@ -20,7 +20,10 @@ export default async function AuditTrailPage() {
         actions={<VerifyIntegrity />}
       />
       <AuditBrowser
-        actors={[{ id: "system", name: "system" }, ...users.map((u) => ({ id: u.id, name: u.name }))]}
+        actors={[
+          { id: "system", name: "system" },
+          ...users.map((u) => ({ id: u.id, name: u.name })),
+        ]}
         eventTypes={options.eventTypes}
         recordTypes={options.recordTypes}
         canExport={can(user.roles, "audit.export")}

@@ -14,22 +14,49 @@ import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Part family history" };
 
-export default async function PartFamilyTracePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function PartFamilyTracePage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   await requirePageUser("trace.view");
   const q = partFamilyQuerySchema.safeParse(await searchParams);
   const familyId = q.success ? q.data.family : undefined;
-  const [families, history] = await Promise.all([listPartFamilies(), familyId ? getPartFamilyHistory(familyId) : undefined]);
+  const [families, history] = await Promise.all([
+    listPartFamilies(),
+    familyId ? getPartFamilyHistory(familyId) : undefined,
+  ]);
   return (
     <>
-      <PageHeader title="Part family history" description="Which recipe versions cleaned a part family, when, and with which test results." />
-      <form method="get" className="mb-8 flex flex-wrap items-end gap-3 rounded-lg border border-stone-200 bg-white p-5" aria-label="Choose a part family">
-        <SelectField name="family" label="Part family" defaultValue={familyId ?? ""} placeholder="Choose…" className="w-72" options={families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))} />
-        <button type="submit" className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800">
+      <PageHeader
+        title="Part family history"
+        description="Which recipe versions cleaned a part family, when, and with which test results."
+      />
+      <form
+        method="get"
+        className="mb-8 flex flex-wrap items-end gap-3 rounded-lg border border-stone-200 bg-white p-5"
+        aria-label="Choose a part family"
+      >
+        <SelectField
+          name="family"
+          label="Part family"
+          defaultValue={familyId ?? ""}
+          placeholder="Choose…"
+          className="w-72"
+          options={families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))}
+        />
+        <button
+          type="submit"
+          className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
+        >
           Show history
         </button>
       </form>
       {!familyId ? (
-        <EmptyState title="No part family chosen">Choose a part family to see the recipe versions that cleaned it and the results of its tests.</EmptyState>
+        <EmptyState title="No part family chosen">
+          Choose a part family to see the recipe versions that cleaned it and the results of its
+          tests.
+        </EmptyState>
       ) : !history ? (
         <EmptyState title="Part family not found">Choose one from the list.</EmptyState>
       ) : (
@@ -38,28 +65,49 @@ export default async function PartFamilyTracePage({ searchParams }: { searchPara
             {history.family.code} · {history.family.name}
           </h2>
           <p className="mb-4 text-sm text-stone-700">
-            {history.family.material} · wetted area {history.family.wettedAreaCm2} cm² · specification {history.spec.code} {history.spec.ccc}
+            {history.family.material} · wetted area {history.family.wettedAreaCm2} cm² ·
+            specification {history.spec.code} {history.spec.ccc}
           </p>
           {history.versions.length === 0 ? (
-            <EmptyState title="No recipe version recorded">No recipe version has been validated for this family and no test run names it yet.</EmptyState>
+            <EmptyState title="No recipe version recorded">
+              No recipe version has been validated for this family and no test run names it yet.
+            </EmptyState>
           ) : (
             <ol className="space-y-4" aria-label="Recipe versions that cleaned this family">
               {history.versions.map((v) => (
                 <li key={v.id} className="rounded-lg border border-stone-200 bg-white p-5">
                   <h3 className="font-semibold">
-                    <Link href={`/systems/recipes/${v.recipe.id}`} className="text-brand-800 hover:underline">
+                    <Link
+                      href={`/systems/recipes/${v.recipe.id}`}
+                      className="text-brand-800 hover:underline"
+                    >
                       {v.recipe.code}
                     </Link>{" "}
                     version {v.version} · {humanize(v.status)}
                   </h3>
                   <p className="text-sm text-stone-700">
-                    {v.recipe.name} on {v.system.code} · in force {v.effectiveFrom ? `from ${formatDateTime(v.effectiveFrom)} ${v.effectiveTo ? `to ${formatDateTime(v.effectiveTo)}` : "until now"}` : "never (not made effective)"}
-                    {v.interval ? ` · last qualified ${formatDate(v.interval.lastQualifiedAt)}, requalify every ${v.interval.intervalMonths} months` : ""}
+                    {v.recipe.name} on {v.system.code} · in force{" "}
+                    {v.effectiveFrom
+                      ? `from ${formatDateTime(v.effectiveFrom)} ${v.effectiveTo ? `to ${formatDateTime(v.effectiveTo)}` : "until now"}`
+                      : "never (not made effective)"}
+                    {v.interval
+                      ? ` · last qualified ${formatDate(v.interval.lastQualifiedAt)}, requalify every ${v.interval.intervalMonths} months`
+                      : ""}
                   </p>
                   {v.runs.length === 0 ? (
-                    <p className="mt-2 text-sm text-stone-600">No test run on this version for the family.</p>
+                    <p className="mt-2 text-sm text-stone-600">
+                      No test run on this version for the family.
+                    </p>
                   ) : (
-                    <Table density="compact" caption={<>Test runs of {history.family.code} on {v.recipe.code} version {v.version}</>} frameClassName="mt-2">
+                    <Table
+                      density="compact"
+                      caption={
+                        <>
+                          Test runs of {history.family.code} on {v.recipe.code} version {v.version}
+                        </>
+                      }
+                      frameClassName="mt-2"
+                    >
                       <THead>
                         <Th>Run</Th>
                         <Th>Test</Th>
@@ -78,10 +126,15 @@ export default async function PartFamilyTracePage({ searchParams }: { searchPara
                             <Td>{TEST_TYPE_LABELS[r.testType]}</Td>
                             <Td>{r.performedOn ?? "—"}</Td>
                             <Td>{humanize(r.status)}</Td>
-                            <Td className="font-semibold">{r.outcome ? OUTCOME_LABELS[r.outcome] : "Not computed"}</Td>
+                            <Td className="font-semibold">
+                              {r.outcome ? OUTCOME_LABELS[r.outcome] : "Not computed"}
+                            </Td>
                             <Td>
                               {r.changeRequestId && r.changeNumber ? (
-                                <Link href={`/changes/${r.changeRequestId}`} className="text-brand-800 hover:underline">
+                                <Link
+                                  href={`/changes/${r.changeRequestId}`}
+                                  className="text-brand-800 hover:underline"
+                                >
                                   {r.changeNumber}
                                 </Link>
                               ) : (
@@ -97,7 +150,10 @@ export default async function PartFamilyTracePage({ searchParams }: { searchPara
               ))}
             </ol>
           )}
-          <p className="mt-4 text-xs text-stone-600">A computed pass supports, and never replaces, the customer&apos;s specification and the engineer&apos;s judgement.</p>
+          <p className="mt-4 text-xs text-stone-600">
+            A computed pass supports, and never replaces, the customer&apos;s specification and the
+            engineer&apos;s judgement.
+          </p>
         </section>
       )}
     </>

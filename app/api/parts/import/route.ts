@@ -12,7 +12,10 @@ const kindSchema = z.enum(["part_families", "specifications"]);
 const mappingSchema = z.record(z.string().max(60), storedText().max(200));
 // Master data for one plant runs to hundreds of rows; a larger file is more likely a wrong file [practice].
 const MAX_ROWS = 5000;
-const WHAT = { part_families: ["part family", "part families"], specifications: ["specification", "specifications"] } as const;
+const WHAT = {
+  part_families: ["part family", "part families"],
+  specifications: ["specification", "specifications"],
+} as const;
 
 /**
  * Imports part families or customer specifications from a CSV file: every row is checked with the
@@ -22,11 +25,16 @@ const WHAT = { part_families: ["part family", "part families"], specifications: 
 export const POST = defineRoute({ permission: "parts.manage" }, async ({ request, user }) => {
   const form = await request.formData().catch(() => null);
   const kind = kindSchema.safeParse(form?.get("kind"));
-  if (!kind.success) return routeError(400, "Choose what the file holds: part families or specifications.");
+  if (!kind.success)
+    return routeError(400, "Choose what the file holds: part families or specifications.");
   const file = form?.get("file");
   if (!(file instanceof File)) return routeError(400, "Choose a CSV file.");
   const limit = uploadLimitBytes();
-  if (file.size > limit) throw new UserFacingError(`The file is larger than the limit of ${formatSize(limit)}. Nothing was imported.`, { kind: "too_large" });
+  if (file.size > limit)
+    throw new UserFacingError(
+      `The file is larger than the limit of ${formatSize(limit)}. Nothing was imported.`,
+      { kind: "too_large" },
+    );
   let mapping: MasterDataMapping | undefined;
   const mappingText = form?.get("mapping");
   if (typeof mappingText === "string" && mappingText !== "") {
@@ -40,13 +48,38 @@ export const POST = defineRoute({ permission: "parts.manage" }, async ({ request
     if (!parsed.success) return routeError(400, "The column mapping is not valid.");
     mapping = Object.fromEntries(Object.entries(parsed.data).filter(([, v]) => v !== ""));
   }
-  const text = new TextDecoder("utf-8", { fatal: false }).decode(await file.arrayBuffer()).replace(/^\uFEFF/, "");
+  const text = new TextDecoder("utf-8", { fatal: false })
+    .decode(await file.arrayBuffer())
+    .replace(/^\uFEFF/, "");
   const parsed = parseMasterDataCsv(kind.data, text, { mapping, maxRows: MAX_ROWS });
   const refuse = (message: string, rowErrors: { line: number; message: string }[]) =>
-    NextResponse.json({ ok: false, message, headers: parsed.headers, rowErrors: rowErrors.slice(0, 50), errorCount: rowErrors.length }, { status: 422 });
+    NextResponse.json(
+      {
+        ok: false,
+        message,
+        headers: parsed.headers,
+        rowErrors: rowErrors.slice(0, 50),
+        errorCount: rowErrors.length,
+      },
+      { status: 422 },
+    );
   if (parsed.fileErrors.length) return refuse(parsed.fileErrors.join(" "), []);
-  if (parsed.errors.length) return refuse(`${parsed.errors.length} problem(s) in the file. Nothing was imported.`, parsed.errors);
-  const saved = kind.data === "part_families" ? await importMasterData(user, { kind: "part_families", rows: parsed.rows as never }) : await importMasterData(user, { kind: "specifications", rows: parsed.rows as never });
-  if (!saved.ok) return refuse(`${saved.errors.length} row(s) clash with the register. Nothing was imported.`, saved.errors);
-  return NextResponse.json({ ok: true, message: `${saved.imported} ${WHAT[kind.data][saved.imported === 1 ? 0 : 1]} imported.` });
+  if (parsed.errors.length)
+    return refuse(
+      `${parsed.errors.length} problem(s) in the file. Nothing was imported.`,
+      parsed.errors,
+    );
+  const saved =
+    kind.data === "part_families"
+      ? await importMasterData(user, { kind: "part_families", rows: parsed.rows as never })
+      : await importMasterData(user, { kind: "specifications", rows: parsed.rows as never });
+  if (!saved.ok)
+    return refuse(
+      `${saved.errors.length} row(s) clash with the register. Nothing was imported.`,
+      saved.errors,
+    );
+  return NextResponse.json({
+    ok: true,
+    message: `${saved.imported} ${WHAT[kind.data][saved.imported === 1 ? 0 : 1]} imported.`,
+  });
 });

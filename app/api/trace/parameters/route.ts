@@ -8,8 +8,13 @@ import { matchParameters } from "@/lib/trace/parameter-search";
 /** The trace page's search as the user types: the first matches and how many there are. */
 export const GET = defineRoute({ permission: "trace.view" }, async ({ request }) => {
   const parsed = parameterSearchQuerySchema.safeParse(searchParamsObject(request.url));
-  if (!parsed.success) return jsonError(400, "Some search values are not valid.", zodFieldErrors(parsed.error));
+  if (!parsed.success)
+    return jsonError(400, "Some search values are not valid.", zodFieldErrors(parsed.error));
   const { system, recipe, q } = parsed.data;
-  const result = matchParameters(await listTraceableParameters(), { systemId: system || undefined, recipeId: recipe || undefined, q });
+  const result = matchParameters(await listTraceableParameters(), {
+    systemId: system || undefined,
+    recipeId: recipe || undefined,
+    q,
+  });
   return NextResponse.json(result, { headers: { "Cache-Control": "no-store" } });
 });

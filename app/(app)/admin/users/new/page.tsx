@@ -10,7 +10,10 @@ export default async function NewUserPage() {
   await requirePageUser("users.manage");
   return (
     <>
-      <PageHeader title="New user" description="Washproof issues a temporary password; the person chooses their own at first sign-in." />
+      <PageHeader
+        title="New user"
+        description="Washproof issues a temporary password; the person chooses their own at first sign-in."
+      />
       <UserForm action={createUserAction} submitLabel="Create user" />
     </>
   );

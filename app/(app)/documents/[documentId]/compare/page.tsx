@@ -38,7 +38,10 @@ export default async function ComparePage({
         title={`Compare ${document.number}: version ${from} → version ${to}`}
         description={`${result.insertedWords} words inserted, ${result.deletedWords} words deleted.`}
         actions={
-          <Link href={`/documents/${documentId}`} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100">
+          <Link
+            href={`/documents/${documentId}`}
+            className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100"
+          >
             Back to the document
           </Link>
         }
@@ -51,18 +54,32 @@ export default async function ComparePage({
             label={name === "from" ? "From version" : "To version"}
             dense
             defaultValue={String(name === "from" ? from : to)}
-            options={document.versions.map((v) => ({ value: String(v.version), label: `${v.version} (${v.status.replace("_", " ")})` }))}
+            options={document.versions.map((v) => ({
+              value: String(v.version),
+              label: `${v.version} (${v.status.replace("_", " ")})`,
+            }))}
           />
         ))}
         <input type="hidden" name="view" value={view} />
-        <button type="submit" className="rounded-md border border-stone-300 bg-white px-3 py-1.5 font-medium hover:bg-stone-100">
+        <button
+          type="submit"
+          className="rounded-md border border-stone-300 bg-white px-3 py-1.5 font-medium hover:bg-stone-100"
+        >
           Compare
         </button>
         <span className="ml-auto flex gap-2">
-          <Link href={href("redline")} aria-current={view === "redline" ? "page" : undefined} className="rounded-md px-2 py-1 aria-[current=page]:bg-brand-100 aria-[current=page]:font-semibold">
+          <Link
+            href={href("redline")}
+            aria-current={view === "redline" ? "page" : undefined}
+            className="rounded-md px-2 py-1 aria-[current=page]:bg-brand-100 aria-[current=page]:font-semibold"
+          >
             Redline
           </Link>
-          <Link href={href("side")} aria-current={view === "side" ? "page" : undefined} className="rounded-md px-2 py-1 aria-[current=page]:bg-brand-100 aria-[current=page]:font-semibold">
+          <Link
+            href={href("side")}
+            aria-current={view === "side" ? "page" : undefined}
+            className="rounded-md px-2 py-1 aria-[current=page]:bg-brand-100 aria-[current=page]:font-semibold"
+          >
             Side by side
           </Link>
         </span>
@@ -72,11 +89,18 @@ export default async function ComparePage({
       ) : (
         <div className="grid gap-4 lg:grid-cols-2">
           {[a, b].map((v) => (
-            <article key={v.id} aria-label={`Version ${v.version}`} className="min-w-0 rounded-lg border border-stone-200 bg-white">
+            <article
+              key={v.id}
+              aria-label={`Version ${v.version}`}
+              className="min-w-0 rounded-lg border border-stone-200 bg-white"
+            >
               <h2 className="flex items-center gap-2 border-b border-stone-200 px-4 py-2 text-sm font-semibold">
                 Version {v.version} <StatusBadge status={v.status} />
               </h2>
-              <div className="prose prose-sm prose-stone max-w-none px-4 py-3" dangerouslySetInnerHTML={{ __html: renderRichHtml(v.content) }} />
+              <div
+                className="prose prose-sm prose-stone max-w-none px-4 py-3"
+                dangerouslySetInnerHTML={{ __html: renderRichHtml(v.content) }}
+              />
             </article>
           ))}
         </div>

@@ -10,7 +10,13 @@ import { getDocumentAndVersion } from "@/lib/server/documents/queries";
 
 export const metadata: Metadata = { title: "Edit draft" };
 
-export default async function EditDocumentPage({ params, searchParams }: { params: Promise<{ documentId: string }>; searchParams: Promise<{ version?: string }> }) {
+export default async function EditDocumentPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ documentId: string }>;
+  searchParams: Promise<{ version?: string }>;
+}) {
   await requirePageUser("document.draft");
   const { documentId } = await params;
   const found = await getDocumentAndVersion(documentId, (await searchParams).version);
@@ -24,20 +30,30 @@ export default async function EditDocumentPage({ params, searchParams }: { param
         description={
           <>
             Version {version.version} <StatusBadge status={version.status} />
-            {version.changeReason && <span className="ml-2">Reason for this version: {version.changeReason}</span>}
+            {version.changeReason && (
+              <span className="ml-2">Reason for this version: {version.changeReason}</span>
+            )}
           </>
         }
         actions={
-          <Link href={back} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100">
+          <Link
+            href={back}
+            className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100"
+          >
             Back to the document
           </Link>
         }
       />
       {version.status === "draft" ? (
-        <DocumentEditorLoader versionId={version.id} initialContent={version.content} initialLockVersion={version.lockVersion} />
+        <DocumentEditorLoader
+          versionId={version.id}
+          initialContent={version.content}
+          initialLockVersion={version.lockVersion}
+        />
       ) : (
         <EmptyState title="This version is not a draft">
-          Only a draft can be edited. To change an approved or effective text, start a new version from the document page.
+          Only a draft can be edited. To change an approved or effective text, start a new version
+          from the document page.
         </EmptyState>
       )}
     </>

@@ -21,20 +21,33 @@ import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRunDetail } from "@/lib/server/evidence/queries";
-import { addSampleAction, detachFileAction, removeSampleAction, reviseRunAction, saveRunDataAction, signRunAction } from "../../actions";
+import {
+  addSampleAction,
+  detachFileAction,
+  removeSampleAction,
+  reviseRunAction,
+  saveRunDataAction,
+  signRunAction,
+} from "../../actions";
 import { formatDateTime } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Test run" };
 
-
-export default async function RunPage({ params, searchParams }: { params: Promise<{ runId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function RunPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ runId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePageUser("evidence.view");
   const { runId } = await params;
   const requestedPage = readSamplePage((await searchParams).samples);
   const detail = /^[0-9a-f-]{36}$/.test(runId) ? await getRunDetail(runId) : undefined;
   if (!detail) notFound();
-  const { run, family, spec, recipe, version, outcome, samples, files, signatures, revisions } = detail;
+  const { run, family, spec, recipe, version, outcome, samples, files, signatures, revisions } =
+    detail;
   const open = run.status === "open";
   const mayRecord = open && can(user.roles, "evidence.record");
   const label = `${run.number} revision ${run.revision}`;
@@ -62,12 +75,24 @@ export default async function RunPage({ params, searchParams }: { params: Promis
       />
       {run.status === "superseded" && (
         <p className="mb-4 rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm">
-          This revision has been superseded. <Link className="font-medium text-brand-800 underline" href={`/evidence/runs/${revisions[0].id}`}>Open the current revision</Link>.
+          This revision has been superseded.{" "}
+          <Link
+            className="font-medium text-brand-800 underline"
+            href={`/evidence/runs/${revisions[0].id}`}
+          >
+            Open the current revision
+          </Link>
+          .
         </p>
       )}
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
-          <OutcomePanel outcome={{ ...outcome, samples: worked.items }} pager={<SamplePager page={worked} basePath={runPath} label="Pages of the samples' working" />} />
+          <OutcomePanel
+            outcome={{ ...outcome, samples: worked.items }}
+            pager={
+              <SamplePager page={worked} basePath={runPath} label="Pages of the samples' working" />
+            }
+          />
 
           <section aria-labelledby="samples-title" className="space-y-3">
             <h2 id="samples-title" className="text-base font-semibold">
@@ -80,19 +105,34 @@ export default async function RunPage({ params, searchParams }: { params: Promis
                   <li key={r.id} className="flex items-start justify-between gap-3 px-3 py-2">
                     <div>
                       <span className="font-medium">{r.sampleLabel}</span>
-                      {r.basketPosition && <span className="text-stone-600"> · basket {r.basketPosition}</span>}
+                      {r.basketPosition && (
+                        <span className="text-stone-600"> · basket {r.basketPosition}</span>
+                      )}
                       {r.worstCase && <span className="text-stone-600"> · worst case</span>}
-                      <p className="mt-0.5 text-xs text-stone-700 tabular-nums">{describeSample(run.testType, r.data)}</p>
+                      <p className="mt-0.5 text-xs text-stone-700 tabular-nums">
+                        {describeSample(run.testType, r.data)}
+                      </p>
                     </div>
-                    {mayRecord && <RemoveSampleButton action={removeSampleAction} runId={run.id} sampleId={r.id} label={r.sampleLabel} />}
+                    {mayRecord && (
+                      <RemoveSampleButton
+                        action={removeSampleAction}
+                        runId={run.id}
+                        sampleId={r.id}
+                        label={r.sampleLabel}
+                      />
+                    )}
                   </li>
                 ))}
               </ul>
             )}
-            {mayRecord && <SampleForm action={addSampleAction} runId={run.id} testType={run.testType} />}
+            {mayRecord && (
+              <SampleForm action={addSampleAction} runId={run.id} testType={run.testType} />
+            )}
             {mayRecord && run.testType === "particle_cleanliness" && (
               <>
-                <h3 className="pt-2 text-sm font-semibold">Extraction (declining test) and blank value</h3>
+                <h3 className="pt-2 text-sm font-semibold">
+                  Extraction (declining test) and blank value
+                </h3>
                 <RunDataForm action={saveRunDataAction} runId={run.id} defaults={runData} />
               </>
             )}
@@ -105,7 +145,9 @@ export default async function RunPage({ params, searchParams }: { params: Promis
           </section>
 
           <section aria-labelledby="files-title" className="space-y-3">
-            <h2 id="files-title" className="text-base font-semibold">Evidence files</h2>
+            <h2 id="files-title" className="text-base font-semibold">
+              Evidence files
+            </h2>
             {files.length === 0 ? (
               <p className="text-sm text-stone-600">No files attached.</p>
             ) : (
@@ -126,7 +168,10 @@ export default async function RunPage({ params, searchParams }: { params: Promis
                   {files.map(({ file, uploader }) => (
                     <tr key={file.id}>
                       <Td>
-                        <a href={`/api/evidence/files/${file.id}`} className="font-medium text-brand-800 hover:underline">
+                        <a
+                          href={`/api/evidence/files/${file.id}`}
+                          className="font-medium text-brand-800 hover:underline"
+                        >
                           {file.originalName}
                         </a>
                       </Td>
@@ -143,7 +188,12 @@ export default async function RunPage({ params, searchParams }: { params: Promis
                       </Td>
                       {mayRecord && (
                         <Td>
-                          <DetachFileForm action={detachFileAction} runId={run.id} fileId={file.id} name={file.originalName} />
+                          <DetachFileForm
+                            action={detachFileAction}
+                            runId={run.id}
+                            fileId={file.id}
+                            name={file.originalName}
+                          />
                         </Td>
                       )}
                     </tr>
@@ -156,8 +206,13 @@ export default async function RunPage({ params, searchParams }: { params: Promis
         </div>
 
         <aside className="space-y-6">
-          <section aria-labelledby="context-title" className="rounded-lg border border-stone-200 bg-white p-4 text-sm">
-            <h2 id="context-title" className="mb-2 font-semibold">Run</h2>
+          <section
+            aria-labelledby="context-title"
+            className="rounded-lg border border-stone-200 bg-white p-4 text-sm"
+          >
+            <h2 id="context-title" className="mb-2 font-semibold">
+              Run
+            </h2>
             <dl className="grid grid-cols-[max-content_1fr] gap-x-3 gap-y-1">
               <dt className="text-stone-500">Specification</dt>
               <dd>
@@ -174,39 +229,79 @@ export default async function RunPage({ params, searchParams }: { params: Promis
               <dt className="text-stone-500">Protocol</dt>
               <dd>{detail.protocol ? detail.protocol.number : "—"}</dd>
               <dt className="text-stone-500">Change request</dt>
-              <dd>{detail.change ? `${detail.change.number}${run.requirement ? ` · ${run.requirement}` : ""}` : (run.requirement ?? "—")}</dd>
+              <dd>
+                {detail.change
+                  ? `${detail.change.number}${run.requirement ? ` · ${run.requirement}` : ""}`
+                  : (run.requirement ?? "—")}
+              </dd>
               <dt className="text-stone-500">Content hash</dt>
               <dd className="font-mono text-xs break-all">{detail.contentHash}</dd>
             </dl>
           </section>
 
-          <section aria-labelledby="signatures-title" className="space-y-3 rounded-lg border border-stone-200 bg-white p-4">
-            <h2 id="signatures-title" className="font-semibold">Signatures</h2>
+          <section
+            aria-labelledby="signatures-title"
+            className="space-y-3 rounded-lg border border-stone-200 bg-white p-4"
+          >
+            <h2 id="signatures-title" className="font-semibold">
+              Signatures
+            </h2>
             <SignatureList signatures={signatures} />
             {open && run.technicianId === user.id && can(user.roles, "evidence.sign_performed") && (
-              <SignatureDialog action={signRunAction} recordType="test_run" meaning="performed" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
+              <SignatureDialog
+                action={signRunAction}
+                recordType="test_run"
+                meaning="performed"
+                signerName={user.name}
+                recordLabel={label}
+                contentHash={detail.contentHash}
+                hidden={{ runId: run.id }}
+              />
             )}
-            {run.status === "performed" && can(user.roles, "evidence.verify") && performedBy?.userId !== user.id && (
-              <SignatureDialog action={signRunAction} recordType="test_run" meaning="verified" signerName={user.name} recordLabel={label} contentHash={detail.contentHash} hidden={{ runId: run.id }} />
-            )}
+            {run.status === "performed" &&
+              can(user.roles, "evidence.verify") &&
+              performedBy?.userId !== user.id && (
+                <SignatureDialog
+                  action={signRunAction}
+                  recordType="test_run"
+                  meaning="verified"
+                  signerName={user.name}
+                  recordLabel={label}
+                  contentHash={detail.contentHash}
+                  hidden={{ runId: run.id }}
+                />
+              )}
           </section>
 
-          {(run.status === "performed" || run.status === "verified") && can(user.roles, "evidence.record") && <ReviseForm action={reviseRunAction} runId={run.id} />}
+          {(run.status === "performed" || run.status === "verified") &&
+            can(user.roles, "evidence.record") && (
+              <ReviseForm action={reviseRunAction} runId={run.id} />
+            )}
 
-          <section aria-labelledby="revisions-title" className="rounded-lg border border-stone-200 bg-white p-4 text-sm">
-            <h2 id="revisions-title" className="mb-2 font-semibold">Revisions</h2>
+          <section
+            aria-labelledby="revisions-title"
+            className="rounded-lg border border-stone-200 bg-white p-4 text-sm"
+          >
+            <h2 id="revisions-title" className="mb-2 font-semibold">
+              Revisions
+            </h2>
             <ol className="space-y-2">
               {revisions.map((r) => (
                 <li key={r.id}>
                   {r.id === run.id ? (
                     <span className="font-medium">Revision {r.revision} (this page)</span>
                   ) : (
-                    <Link href={`/evidence/runs/${r.id}`} className="font-medium text-brand-800 hover:underline">
+                    <Link
+                      href={`/evidence/runs/${r.id}`}
+                      className="font-medium text-brand-800 hover:underline"
+                    >
                       Revision {r.revision}
                     </Link>
                   )}{" "}
                   · <RunStatusWord status={r.status} /> · <OutcomeWord outcome={r.outcome} />
-                  {r.revisionReason && <span className="block text-xs text-stone-600">Reason: {r.revisionReason}</span>}
+                  {r.revisionReason && (
+                    <span className="block text-xs text-stone-600">Reason: {r.revisionReason}</span>
+                  )}
                 </li>
               ))}
             </ol>

@@ -12,8 +12,17 @@ export default async function NewRunPage() {
   const options = await runFormOptions();
   return (
     <>
-      <PageHeader title="New test run" description="Which parts, washed with which recipe version, tested how, by whom and where. Samples are entered on the next page." />
-      <RunForm action={createRunAction} options={options} defaultTechnicianId={options.technicians.some((t) => t.id === user.id) ? user.id : undefined} />
+      <PageHeader
+        title="New test run"
+        description="Which parts, washed with which recipe version, tested how, by whom and where. Samples are entered on the next page."
+      />
+      <RunForm
+        action={createRunAction}
+        options={options}
+        defaultTechnicianId={
+          options.technicians.some((t) => t.id === user.id) ? user.id : undefined
+        }
+      />
     </>
   );
 }

@@ -11,7 +11,11 @@ import { updatePartFamilyAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Part family" };
 
-export default async function PartFamilyPage({ params }: { params: Promise<{ familyId: string }> }) {
+export default async function PartFamilyPage({
+  params,
+}: {
+  params: Promise<{ familyId: string }>;
+}) {
   const user = await requirePageUser("parts.view");
   const id = z.uuid().safeParse((await params).familyId);
   if (!id.success) notFound();
@@ -21,7 +25,10 @@ export default async function PartFamilyPage({ params }: { params: Promise<{ fam
   const [specs, inUse] = await Promise.all([specsInForce(), familyInUse(family.id)]);
   return (
     <>
-      <PageHeader title={`${family.code} · ${family.name}`} description={`${family.material}; ${withUnit(family.wettedAreaCm2, "cm²")} wetted area per part.${inUse ? " In use: runs or qualified recipes refer to it." : ""}`} />
+      <PageHeader
+        title={`${family.code} · ${family.name}`}
+        description={`${family.material}; ${withUnit(family.wettedAreaCm2, "cm²")} wetted area per part.${inUse ? " In use: runs or qualified recipes refer to it." : ""}`}
+      />
       {manage ? (
         <PartFamilyForm
           action={updatePartFamilyAction}
@@ -30,7 +37,9 @@ export default async function PartFamilyPage({ params }: { params: Promise<{ fam
           inUse={inUse}
         />
       ) : (
-        <p className="text-sm text-stone-600">Only engineers and administrators edit part families.</p>
+        <p className="text-sm text-stone-600">
+          Only engineers and administrators edit part families.
+        </p>
       )}
     </>
   );

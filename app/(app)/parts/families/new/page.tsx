@@ -13,9 +13,14 @@ export default async function NewPartFamilyPage() {
   const specs = await specsInForce();
   return (
     <>
-      <PageHeader title="New part family" description="A family is the parts one recipe cleans to one specification: same material, similar geometry and wetted area." />
+      <PageHeader
+        title="New part family"
+        description="A family is the parts one recipe cleans to one specification: same material, similar geometry and wetted area."
+      />
       {specs.length === 0 ? (
-        <EmptyState title="No specification in force">Register the customer specification first: every part family must meet one.</EmptyState>
+        <EmptyState title="No specification in force">
+          Register the customer specification first: every part family must meet one.
+        </EmptyState>
       ) : (
         <PartFamilyForm action={createPartFamilyAction} specs={specs} />
       )}

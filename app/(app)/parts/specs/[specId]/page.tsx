@@ -27,14 +27,28 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
   const allFamilies = revisable ? await familyOptions() : [];
   const rows: [string, string][] = [
     ["Customer", spec.customer ?? "—"],
-    ["Customer document", spec.documentNumber ? `${spec.documentNumber} rev ${spec.revision}` : `rev ${spec.revision}`],
-    ["Status", spec.status === "in_force" ? "In force" : `Superseded ${formatDate(spec.supersededAt)}`],
+    [
+      "Customer document",
+      spec.documentNumber ? `${spec.documentNumber} rev ${spec.revision}` : `rev ${spec.revision}`,
+    ],
+    [
+      "Status",
+      spec.status === "in_force" ? "In force" : `Superseded ${formatDate(spec.supersededAt)}`,
+    ],
     ["Cleanliness code", spec.ccc],
     ["Largest metallic particle", withUnit(spec.maxMetallicUm, "µm")],
     ["Largest non-metallic particle", withUnit(spec.maxNonMetallicUm, "µm")],
     ["Largest fibre", withUnit(spec.maxFibreUm, "µm")],
-    ["Gravimetric limit", spec.gravimetricLimitMg === null ? "—" : `≤ ${withUnit(spec.gravimetricLimitMg, "mg")} ${BASIS[spec.gravimetricBasis ?? "per_component"]}`],
-    ["Minimum wetting tension", spec.minWettingTensionMNm === null ? "—" : `≥ ${withUnit(spec.minWettingTensionMNm, "mN/m")}`],
+    [
+      "Gravimetric limit",
+      spec.gravimetricLimitMg === null
+        ? "—"
+        : `≤ ${withUnit(spec.gravimetricLimitMg, "mg")} ${BASIS[spec.gravimetricBasis ?? "per_component"]}`,
+    ],
+    [
+      "Minimum wetting tension",
+      spec.minWettingTensionMNm === null ? "—" : `≥ ${withUnit(spec.minWettingTensionMNm, "mN/m")}`,
+    ],
     ["Visual", spec.visualCriteria ?? "—"],
     ["Dryness", spec.drynessCriteria ?? "—"],
     ["Extra requirements", spec.extraRequirements ?? "—"],
@@ -44,8 +58,13 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
     <>
       <PageHeader title={`${spec.code} rev ${spec.revision} · ${spec.name}`} />
       <div className="mb-8 grid gap-6 lg:grid-cols-2">
-        <section aria-labelledby="limits" className="rounded-lg border border-stone-200 bg-white p-4 text-sm">
-          <h2 id="limits" className="mb-2 font-semibold">Limits</h2>
+        <section
+          aria-labelledby="limits"
+          className="rounded-lg border border-stone-200 bg-white p-4 text-sm"
+        >
+          <h2 id="limits" className="mb-2 font-semibold">
+            Limits
+          </h2>
           <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1">
             {rows.map(([k, v]) => (
               <div key={k} className="contents">
@@ -56,7 +75,10 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
             <dt className="text-stone-500">Source document</dt>
             <dd>
               {spec.sourceFileId ? (
-                <a className="text-brand-800 underline" href={`/api/evidence/files/${spec.sourceFileId}`}>
+                <a
+                  className="text-brand-800 underline"
+                  href={`/api/evidence/files/${spec.sourceFileId}`}
+                >
                   Download
                 </a>
               ) : (
@@ -117,9 +139,13 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
       </div>
       {revisable && (
         <section aria-labelledby="revise">
-          <h2 id="revise" className="mb-1 text-lg font-semibold">New revision</h2>
+          <h2 id="revise" className="mb-1 text-lg font-semibold">
+            New revision
+          </h2>
           <p className="mb-4 max-w-3xl text-sm text-stone-600">
-            The customer issued a new revision: enter its limits in full. It supersedes revision {spec.revision}, and the part families on it move to the new one. A tightened limit lists the families and recipe versions validated against the looser one.
+            The customer issued a new revision: enter its limits in full. It supersedes revision{" "}
+            {spec.revision}, and the part families on it move to the new one. A tightened limit
+            lists the families and recipe versions validated against the looser one.
           </p>
           <SpecForm action={reviseSpecAction} values={spec} families={allFamilies} revising />
         </section>

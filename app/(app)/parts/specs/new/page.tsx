@@ -12,7 +12,10 @@ export default async function NewSpecPage() {
   const families = await familyOptions();
   return (
     <>
-      <PageHeader title="New specification" description="A customer's cleanliness specification as issued: its document, revision and limits." />
+      <PageHeader
+        title="New specification"
+        description="A customer's cleanliness specification as issued: its document, revision and limits."
+      />
       <SpecForm action={createSpecAction} families={families} />
     </>
   );

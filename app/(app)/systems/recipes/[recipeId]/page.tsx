@@ -13,7 +13,11 @@ import { requalificationDue } from "@/lib/changes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRecipePage } from "@/lib/server/changes/queries";
 import { listPartFamilies } from "@/lib/server/plant/queries";
-import { openChangeAction, openInitialValidationAction, setRequalificationIntervalAction } from "../../../changes/actions";
+import {
+  openChangeAction,
+  openInitialValidationAction,
+  setRequalificationIntervalAction,
+} from "../../../changes/actions";
 import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Recipe" };
@@ -28,55 +32,85 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
   const canSeeChanges = can(user.roles, "changes.view");
   // A new recipe's draft first version, waiting to be routed through its initial validation.
   const draft = !effective && !open ? versions.find((v) => v.status === "draft") : undefined;
-  const families = draft && can(user.roles, "change.draft") ? (await listPartFamilies()).map((r) => r.family) : [];
+  const families =
+    draft && can(user.roles, "change.draft") ? (await listPartFamilies()).map((r) => r.family) : [];
   return (
     <>
       <PageHeader
         title={`${recipe.code} · ${recipe.name}`}
         description={
           <>
-            On <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">{system.code} {system.name}</Link>. {recipe.description}
+            On{" "}
+            <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
+              {system.code} {system.name}
+            </Link>
+            . {recipe.description}
           </>
         }
       />
       <div className="grid gap-8 xl:grid-cols-[1fr_24rem]">
-        <section aria-labelledby="effective" className="rounded-lg border border-stone-200 bg-white p-5">
+        <section
+          aria-labelledby="effective"
+          className="rounded-lg border border-stone-200 bg-white p-5"
+        >
           <h2 id="effective" className="text-lg font-semibold">
             {effective ? `Effective version ${effective.version}` : "No effective version"}
           </h2>
           {effective && (
             <p className="text-sm text-stone-600">
-              Effective since {formatDate(effective.effectiveFrom)} · detergent: {effective.detergent ?? "none"} · {effective.notes}
+              Effective since {formatDate(effective.effectiveFrom)} · detergent:{" "}
+              {effective.detergent ?? "none"} · {effective.notes}
             </p>
           )}
-          {content && effective && <RecipeTable content={content} caption={`Parameters of version ${effective.version}`} />}
+          {content && effective && (
+            <RecipeTable content={content} caption={`Parameters of version ${effective.version}`} />
+          )}
         </section>
         <div className="space-y-6">
           {draft && can(user.roles, "change.draft") && (
-            <section aria-labelledby="validate" className="rounded-lg border border-stone-200 bg-white p-5">
+            <section
+              aria-labelledby="validate"
+              className="rounded-lg border border-stone-200 bg-white p-5"
+            >
               <h2 id="validate" className="mb-1 text-base font-semibold">
                 Initial validation
               </h2>
               <p className="mb-3 text-sm text-stone-600">
-                Version {draft.version} is a draft. It becomes effective only when its validation is approved, its evidence gate holds and a second person verifies it.
+                Version {draft.version} is a draft. It becomes effective only when its validation is
+                approved, its evidence gate holds and a second person verifies it.
               </p>
-              <InitialValidationForm action={openInitialValidationAction} recipeId={recipe.id} families={families} />
+              <InitialValidationForm
+                action={openInitialValidationAction}
+                recipeId={recipe.id}
+                families={families}
+              />
             </section>
           )}
           {effective && can(user.roles, "change.draft") && (
-            <section aria-labelledby="change" className="rounded-lg border border-stone-200 bg-white p-5">
+            <section
+              aria-labelledby="change"
+              className="rounded-lg border border-stone-200 bg-white p-5"
+            >
               <h2 id="change" className="mb-3 text-base font-semibold">
                 Change this recipe
               </h2>
               {open ? (
                 <p className="text-sm">
-                  <Link href={`/changes/${open.id}`} className="font-medium text-brand-800 hover:underline">
+                  <Link
+                    href={`/changes/${open.id}`}
+                    className="font-medium text-brand-800 hover:underline"
+                  >
                     {open.number}
                   </Link>{" "}
-                  is open ({CHANGE_STATUS_LABELS[open.status].toLowerCase()}): finish or withdraw it before opening another.
+                  is open ({CHANGE_STATUS_LABELS[open.status].toLowerCase()}): finish or withdraw it
+                  before opening another.
                 </p>
               ) : (
-                <OpenChangeForm action={openChangeAction} recipeId={recipe.id} version={effective.version} />
+                <OpenChangeForm
+                  action={openChangeAction}
+                  recipeId={recipe.id}
+                  version={effective.version}
+                />
               )}
             </section>
           )}
@@ -87,7 +121,10 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
             <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
               {versions.map((v) => (
                 <li key={v.id} className="flex justify-between px-3 py-2">
-                  <Link href={`/systems/recipes/${recipe.id}/versions/${v.version}`} className="text-brand-800 hover:underline">
+                  <Link
+                    href={`/systems/recipes/${recipe.id}/versions/${v.version}`}
+                    className="text-brand-800 hover:underline"
+                  >
                     Version {v.version}
                   </Link>
                   <span>
@@ -104,14 +141,27 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
               Validated part families
             </h2>
             {intervals.length === 0 ? (
-              <p className="text-sm text-stone-600">No part family is validated on the effective version.</p>
+              <p className="text-sm text-stone-600">
+                No part family is validated on the effective version.
+              </p>
             ) : (
               <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
                 {intervals.map(({ interval, family }) => (
                   <li key={interval.id} className="px-3 py-2">
-                    <span className="font-medium">{family.code}</span> {family.name} · requalify every {interval.intervalMonths} months · last {formatDate(interval.lastQualifiedAt)} · next due{" "}
-                    {formatDate(requalificationDue(interval.lastQualifiedAt, interval.intervalMonths))}
-                    {can(user.roles, "recipe.edit") && <IntervalForm action={setRequalificationIntervalAction} intervalId={interval.id} months={interval.intervalMonths} family={family.code} />}
+                    <span className="font-medium">{family.code}</span> {family.name} · requalify
+                    every {interval.intervalMonths} months · last{" "}
+                    {formatDate(interval.lastQualifiedAt)} · next due{" "}
+                    {formatDate(
+                      requalificationDue(interval.lastQualifiedAt, interval.intervalMonths),
+                    )}
+                    {can(user.roles, "recipe.edit") && (
+                      <IntervalForm
+                        action={setRequalificationIntervalAction}
+                        intervalId={interval.id}
+                        months={interval.intervalMonths}
+                        family={family.code}
+                      />
+                    )}
                   </li>
                 ))}
               </ul>
@@ -128,7 +178,10 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                 <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
                   {changes.map((c) => (
                     <li key={c.id} className="px-3 py-2">
-                      <Link href={`/changes/${c.id}`} className="font-medium text-brand-800 hover:underline">
+                      <Link
+                        href={`/changes/${c.id}`}
+                        className="font-medium text-brand-800 hover:underline"
+                      >
                         {c.number}
                       </Link>{" "}
                       {c.title} · {CHANGE_STATUS_LABELS[c.status]}

@@ -9,9 +9,21 @@ import { storeSpecSource } from "@/lib/server/plant/store-spec-source";
 export const POST = defineRoute({ permission: "parts.manage" }, async ({ request, user }) => {
   const form = await request.formData().catch(() => null);
   const file = form?.get("file");
-  if (!(file instanceof File)) return routeError(400, "Choose the specification's source document.");
+  if (!(file instanceof File))
+    return routeError(400, "Choose the specification's source document.");
   const limit = uploadLimitBytes();
-  if (file.size > limit) throw new UserFacingError(`The file is larger than the limit of ${formatSize(limit)}.`, { kind: "too_large", field: "file" });
-  const stored = await storeSpecSource({ id: user.id, name: user.name }, { name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) });
-  return NextResponse.json({ ok: true, message: `${stored.name} stored (SHA-256 ${stored.sha256.slice(0, 12)}…).`, file: stored });
+  if (file.size > limit)
+    throw new UserFacingError(`The file is larger than the limit of ${formatSize(limit)}.`, {
+      kind: "too_large",
+      field: "file",
+    });
+  const stored = await storeSpecSource(
+    { id: user.id, name: user.name },
+    { name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) },
+  );
+  return NextResponse.json({
+    ok: true,
+    message: `${stored.name} stored (SHA-256 ${stored.sha256.slice(0, 12)}…).`,
+    file: stored,
+  });
 });

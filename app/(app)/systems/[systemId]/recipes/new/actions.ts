@@ -9,7 +9,8 @@ export const createRecipeAction = defineAction({
   permission: "recipe.edit",
   input: createRecipeSchema,
   from: "payload",
-  invalidMessage: "Some values need attention. Nothing was saved; everything you typed is still here.",
+  invalidMessage:
+    "Some values need attention. Nothing was saved; everything you typed is still here.",
   run: async ({ user, input }) => {
     const { recipe } = await createRecipe(user, input);
     return { redirect: `/systems/recipes/${recipe.id}`, id: recipe.id };

@@ -16,22 +16,32 @@ export default async function NewRecipePage({ params }: { params: Promise<{ syst
   const system = /^[0-9a-f-]{36}$/.test(systemId) ? await getCleaningSystem(systemId) : undefined;
   if (!system) notFound();
   // The washer's own stages, in its order, each with the first mode it can run: the engineer adjusts from there.
-  const stages = system.stages.map((s) => ({ name: s.name, kind: s.kind, mode: (s.capabilities[0] ?? "") as StageDraft["mode"] }));
+  const stages = system.stages.map((s) => ({
+    name: s.name,
+    kind: s.kind,
+    mode: (s.capabilities[0] ?? "") as StageDraft["mode"],
+  }));
   return (
     <>
       <PageHeader
         title={`New recipe for ${system.code}`}
         description={
           <>
-            On <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">{system.code} {system.name}</Link>. The recipe is saved as a draft first version; it
-            runs parts only after its initial validation is closed.
+            On{" "}
+            <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
+              {system.code} {system.name}
+            </Link>
+            . The recipe is saved as a draft first version; it runs parts only after its initial
+            validation is closed.
           </>
         }
       />
       {system.active ? (
         <NewRecipeForm action={createRecipeAction} systemId={system.id} stages={stages} />
       ) : (
-        <p className="text-sm text-stone-700">{system.code} is retired: recipes are written for systems in use.</p>
+        <p className="text-sm text-stone-700">
+          {system.code} is retired: recipes are written for systems in use.
+        </p>
       )}
     </>
   );

@@ -13,11 +13,18 @@ import { getRecipeVersionPage } from "@/lib/server/changes/queries";
 export const metadata: Metadata = { title: "Recipe version" };
 
 /** Any version of a recipe, read-only: a proposal is edited only on its change request, an earlier version never. */
-export default async function RecipeVersionPage({ params }: { params: Promise<{ recipeId: string; version: string }> }) {
+export default async function RecipeVersionPage({
+  params,
+}: {
+  params: Promise<{ recipeId: string; version: string }>;
+}) {
   const user = await requirePageUser("systems.view");
   const { recipeId, version } = await params;
   const number = /^[1-9][0-9]{0,5}$/.test(version) ? Number(version) : NaN;
-  const page = /^[0-9a-f-]{36}$/.test(recipeId) && Number.isInteger(number) ? await getRecipeVersionPage(recipeId, number) : undefined;
+  const page =
+    /^[0-9a-f-]{36}$/.test(recipeId) && Number.isInteger(number)
+      ? await getRecipeVersionPage(recipeId, number)
+      : undefined;
   if (!page) notFound();
   const { recipe, system, version: v, content, proposedBy } = page;
   const canSeeChanges = can(user.roles, "changes.view");
@@ -27,13 +34,19 @@ export default async function RecipeVersionPage({ params }: { params: Promise<{ 
         title={`${recipe.code} · version ${v.version}`}
         description={
           <>
-            <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">{recipe.name}</Link> on {system.code}. {humanize(v.status)}
+            <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
+              {recipe.name}
+            </Link>{" "}
+            on {system.code}. {humanize(v.status)}
             {v.effectiveFrom ? `, effective from ${formatDate(v.effectiveFrom)}` : ""}
             {v.effectiveTo ? ` to ${formatDate(v.effectiveTo)}` : ""}. Read-only.
           </>
         }
       />
-      <section aria-labelledby="content" className="rounded-lg border border-stone-200 bg-white p-5">
+      <section
+        aria-labelledby="content"
+        className="rounded-lg border border-stone-200 bg-white p-5"
+      >
         <h2 id="content" className="text-lg font-semibold">
           Stages and parameters
         </h2>
@@ -49,7 +62,10 @@ export default async function RecipeVersionPage({ params }: { params: Promise<{ 
           {proposedBy.map((c, i) => (
             <span key={c.id}>
               {i > 0 ? ", " : ""}
-              <Link href={`/changes/${c.id}`} className="font-medium text-brand-800 hover:underline">
+              <Link
+                href={`/changes/${c.id}`}
+                className="font-medium text-brand-800 hover:underline"
+              >
                 {c.number}
               </Link>{" "}
               ({CHANGE_STATUS_LABELS[c.status].toLowerCase()})
