@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# The whole test suite: type-check, lint, unit tests, production build, crash test, browser tests,
+# The whole test suite: type-check, lint, formatting, unit tests, production build, crash test, browser tests,
 # and the CI-size plant benchmark.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -17,6 +17,7 @@ fi
 export PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD=1 NEXT_TELEMETRY_DISABLED=1
 echo "== type-check";  npx tsc --noEmit
 echo "== lint";        npx eslint . --max-warnings=0
+echo "== format";      npx prettier --check . --log-level=warn
 echo "== unit tests";  npx vitest run
 echo "== build";       npx next build > /tmp/washproof-build.log 2>&1 || { cat /tmp/washproof-build.log; exit 1; }
 echo "== crash test (needs the build)"; npx vitest run --config vitest.build.config.ts
