@@ -12,11 +12,11 @@ import {
 } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { openDatabase } from "@/db/client";
 import { seedDemo } from "@/db/seed";
-import { evidenceFiles, partFamilies, recipeVersions, users } from "@/db/schema";
+import { evidenceFiles, partFamilies, recipes, recipeVersions, users } from "@/db/schema";
 import { sha256Hex, verifyAuditChain } from "@/lib/audit";
 import { backup } from "@/lib/backup/backup";
 import { manifestSchema, sha256File, type Manifest } from "@/lib/backup/manifest";
@@ -87,11 +87,12 @@ beforeAll(async () => {
   tech = await byEmail("technician@fennmoor.example");
   const engineer = await byEmail("engineer@fennmoor.example");
   const [family] = await t.db.select().from(partFamilies).where(eq(partFamilies.code, "PF-VB-210"));
-  const [version] = await t.db
-    .select()
+  // The valve body's own recipe: a run opens only on a qualified combination.
+  const [{ version }] = await t.db
+    .select({ version: recipeVersions })
     .from(recipeVersions)
-    .where(eq(recipeVersions.status, "effective"))
-    .limit(1);
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
   runId = (
     await createRun(engineer, {
       partFamilyId: family.id,
