@@ -7,13 +7,28 @@
  */
 import { spawn, spawnSync } from "node:child_process";
 import { resolve } from "node:path";
-import { PLANT_DATABASE_FILE, PLANT_UPLOAD_DIR } from "./plant-paths";
+import { existsSync, mkdirSync, writeFileSync } from "node:fs";
+import { PLANT_DATABASE_FILE, PLANT_SIGNING_KEY_FILE, PLANT_UPLOAD_DIR } from "./plant-paths";
 
 const empty = process.argv.includes("--empty");
 process.env.DATABASE_URL ??= `file:${resolve(empty ? PLANT_DATABASE_FILE : "data/washproof.db")}`;
 process.env.UPLOAD_DIR ??= resolve(empty ? PLANT_UPLOAD_DIR : "data/uploads");
 process.env.DEMO_MODE ??= empty ? "false" : "true";
 process.env.NEXT_TELEMETRY_DISABLED = "1";
+if (empty && !process.env.AUDIT_SIGNING_KEY_FILE && !process.env.AUDIT_SIGNING_KEY) {
+  // The production server refuses to run without a checkpoint key. For a first try, make one beside
+  // the database and say plainly that it proves nothing there: real records need a key kept elsewhere.
+  const keyFile = resolve(PLANT_SIGNING_KEY_FILE);
+  if (!existsSync(keyFile)) {
+    const { generateSigningKeyPem } = await import("@/lib/audit/checkpoint");
+    mkdirSync(resolve("data"), { recursive: true });
+    writeFileSync(keyFile, generateSigningKeyPem(), { mode: 0o600 });
+  }
+  process.env.AUDIT_SIGNING_KEY_FILE = keyFile;
+  console.warn(
+    `No AUDIT_SIGNING_KEY_FILE is set: using the audit checkpoint key ${keyFile}. It lies beside the database, so it proves nothing against someone who can change both: before keeping real records, set AUDIT_SIGNING_KEY_FILE to a key kept off this machine.`,
+  );
+}
 const port = process.env.PORT ?? "3000";
 process.env.APP_URL ??= `http://localhost:${port}`;
 process.env.MAILBOX_FILE ??= resolve("data/mailbox.jsonl");
