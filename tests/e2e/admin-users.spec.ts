@@ -75,15 +75,17 @@ test("an admin sends a test e-mail and reads it in the demo mailbox", async ({ p
 test("Create user clears the form once the user exists, and Reactivate does not carry the deactivation's reason", async ({
   page,
 }) => {
-  const email = `ines.varga-${Date.now()}@fennmoor.example`;
+  // A person of our own, never a demo user other tests sign in as.
+  const name = `Nora Quist ${Date.now()}`;
+  const email = `nora.quist-${Date.now()}@fennmoor.example`;
   await signInAs(page, "admin");
   await page.goto("/admin/users/new");
-  await page.getByLabel("Full name").fill("Ines Varga");
+  await page.getByLabel("Full name").fill(name);
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Job title (optional)").fill("Lab technician");
   await page.getByRole("checkbox", { name: /Technician/ }).check();
   await page.getByRole("button", { name: "Create user" }).click();
-  await expect(page.getByText("Ines Varga can now sign in.")).toBeVisible();
+  await expect(page.getByText(`${name} can now sign in.`)).toBeVisible();
   // A second click must not be able to submit the same person again.
   await expect(page.getByLabel("Full name")).toHaveValue("");
   await expect(page.getByLabel("E-mail")).toHaveValue("");
@@ -92,7 +94,7 @@ test("Create user clears the form once the user exists, and Reactivate does not 
   await expect(page.getByTestId("temporary-password")).toBeVisible();
 
   await page.goto("/admin");
-  await page.getByRole("link", { name: "Ines Varga" }).first().click();
+  await page.getByRole("link", { name }).click();
   const deactivate = page.getByRole("form", { name: "Deactivate user" });
   await deactivate.getByLabel("Reason").fill("Left the company at the end of the contract");
   await deactivate.getByRole("button", { name: "Deactivate" }).click();
