@@ -162,7 +162,11 @@ test("a file counts once per run, the Sample field clears after an upload, and a
   await expect(upload.getByRole("alert")).toContainText("counts once");
   await expect(page.getByRole("link", { name: /^SF12 report/ })).toHaveCount(1);
 
-  await page.getByText("Detach", { exact: true }).click();
+  // The disclosure in the file's row (the column heading also reads "Detach" for screen readers).
+  await page
+    .getByRole("table", { name: "Evidence files" })
+    .locator("summary", { hasText: "Detach" })
+    .click();
   const detach = page.getByRole("form", { name: "Detach SF12 report.pdf" });
   await detach
     .getByLabel("Reason for detaching SF12 report.pdf")
