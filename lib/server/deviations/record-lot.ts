@@ -1,4 +1,4 @@
-import "server-only";
+// Not "server-only": the demo seed counts lots through `recordDeviationLotIn` under tsx.
 import { getDb, type Tx } from "@/db/client";
 import { deviationLots } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
