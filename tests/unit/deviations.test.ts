@@ -11,6 +11,7 @@ import { signDeviation } from "@/lib/server/deviations/sign-deviation";
 import { loadDeviation } from "@/lib/server/deviations/state";
 import { withdrawDeviation } from "@/lib/server/deviations/withdraw-deviation";
 import { listDeviations } from "@/lib/server/deviations/queries";
+import { deviationQueueProvider } from "@/lib/server/deviations/queue-provider";
 import { describeFailure } from "@/lib/server/errors";
 import { createTestDatabase } from "./support/test-db";
 
@@ -186,6 +187,34 @@ describe("a deviation's life", () => {
       .where(and(eq(auditEvents.recordId, id), eq(auditEvents.action, "deviation.expired")));
     expect(expiries).toHaveLength(1);
     expect((await loadDeviation(t.db, id, NOW)).deviation.status).toBe("expired");
+  });
+
+  it("waits in the author's queue to sign, in the approvers' to approve, and in the author's again near its end", async () => {
+    const { id, number } = await createDeviation(people.engineer, form(), NOW);
+    const session = (who: string, roles: ("engineer" | "approver")[]) => ({
+      ...people[who],
+      email: `${who}@fennmoor.example`,
+      roles,
+      mustChangePassword: false,
+      sessionId: "s",
+    });
+    const kinds = async (who: string, roles: ("engineer" | "approver")[], now = NOW) =>
+      (await deviationQueueProvider(session(who, roles), now)).items
+        .filter((i) => i.title.startsWith(number))
+        .map((i) => i.kind);
+    expect(await kinds("engineer", ["engineer"])).toEqual(["Deviation to sign"]);
+    expect(await kinds("approver", ["approver"])).toEqual([]);
+    const { contentHash } = await loadDeviation(t.db, id, NOW);
+    const input = { deviationId: id, password: DEMO_PASSWORD, contentHash };
+    await signDeviation(people.engineer, { ...input, meaning: "authored" }, NOW);
+    expect(await kinds("engineer", ["engineer"])).toEqual([]);
+    expect(await kinds("approver", ["approver"])).toEqual(["Deviation approval"]);
+    await signDeviation(people.approver, { ...input, meaning: "approved" }, NOW);
+    expect(await kinds("approver", ["approver"])).toEqual([]);
+    expect(await kinds("engineer", ["engineer"])).toEqual([]);
+    expect(await kinds("engineer", ["engineer"], new Date("2026-12-08T08:00:00.000Z"))).toEqual([
+      "Deviation ending",
+    ]);
   });
 
   it("expires on the lot that uses up its limit, and refuses a lot after it", async () => {
