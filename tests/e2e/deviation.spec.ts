@@ -17,7 +17,9 @@ async function sign(page: Page, button: string) {
 
 /** A calendar day (UTC) counted from today, as the server counts it. */
 function dayFromToday(days: number) {
-  return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+  const d = new Date(Date.now() + days * 86_400_000);
+  const two = (n: number) => String(n).padStart(2, "0");
+  return `${d.getUTCFullYear()}-${two(d.getUTCMonth() + 1)}-${two(d.getUTCDate())}`;
 }
 
 async function expectMail(browser: Browser, subject: RegExp) {

@@ -3,8 +3,10 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { auditEvents, deviations, emailOutbox, partFamilies, recipes, users } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
+import { todayUtc } from "@/lib/format/date";
 import { deviationSchema } from "@/lib/schemas/deviation";
 import { createDeviation } from "@/lib/server/deviations/create-deviation";
+import { judgeRecordedValue } from "@/lib/server/deviations/judge-value";
 import { recordDeviationLot } from "@/lib/server/deviations/record-lot";
 import { runDeviationJob } from "@/lib/server/deviations/run-deviation-job";
 import { signDeviation } from "@/lib/server/deviations/sign-deviation";
@@ -78,6 +80,23 @@ describe("the demo's deviations", () => {
     expect(events.map((e) => e.action)).toEqual(
       expect.arrayContaining(["deviation.reminder_sent", "deviation.expired"]),
     );
+  });
+});
+
+describe("judging a recorded value", () => {
+  it("says a value beyond the validated range is permitted by the demo's active detergent deviation, and by nothing before it was approved", async () => {
+    const [vb] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB"));
+    const today = todayUtc();
+    // Validated 2–4 %, temporary up to 4.5 % [db/seed-data.ts, db/seed-deviations.ts].
+    const judge = (value: number, on = today) =>
+      judgeRecordedValue(t.db, { recipeId: vb.id, key: "wash.concentration", value, on });
+    expect(await judge(3.5)).toMatchObject({ judgement: "within_validated", deviation: null });
+    const within = await judge(4.3);
+    expect(within?.judgement).toBe("within_temporary");
+    expect(within?.deviation?.number).toMatch(/^DV-\d{4}-\d{3}$/);
+    expect(within?.deviation?.high).toBe(4.5);
+    expect(await judge(4.8)).toMatchObject({ judgement: "outside", deviation: null });
+    expect(await judge(4.3, "2026-01-15")).toMatchObject({ judgement: "outside", deviation: null });
   });
 });
 
