@@ -73,6 +73,8 @@ describe("the demo's deviations", () => {
       ]),
     );
     const expired = rows.find((r) => r.state === "expired")!;
+    // The page says why it ended after the job stored the expiry, not only before.
+    expect((await loadDeviation(t.db, expired.d.id)).expiry).toBe("end_date");
     const events = await t.db
       .select()
       .from(auditEvents)
@@ -250,7 +252,7 @@ describe("a deviation's life", () => {
     await recordDeviationLot(people.technician, { deviationId: id, lot: "PH-L2" }, NOW);
     const view = await loadDeviation(t.db, id, NOW);
     expect(view.deviation.status).toBe("expired");
-    expect(view.expiry).toBeNull();
+    expect(view.expiry).toBe("lots_used");
     expect(
       (await refusal(recordDeviationLot(people.technician, { deviationId: id, lot: "PH-L3" }, NOW)))
         .message,

@@ -128,7 +128,11 @@ export async function loadDeviation(db: Executor, deviationId: string, now = new
     signatures: sigs,
     contentHash,
     state: deviationState(row.d, today, lots.length),
-    expiry: row.d.status === "approved" ? expiryReason(row.d, today, lots.length) : null,
+    // Why it ended (or ends on read): the same rule the job applied.
+    expiry:
+      row.d.status === "approved" || row.d.status === "expired"
+        ? expiryReason(row.d, today, lots.length)
+        : null,
   };
 }
 export type DeviationView = Awaited<ReturnType<typeof loadDeviation>>;
