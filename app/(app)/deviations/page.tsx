@@ -58,7 +58,12 @@ export default async function DeviationsPage({
             })),
           ]}
         />
-        <Field name="recipe" label="Recipe code" dense defaultValue={query.recipe} />
+        <Field
+          name="recipe"
+          label="Recipe code (or part of it)"
+          dense
+          defaultValue={query.recipe}
+        />
         <Button type="submit" variant="secondary">
           Filter
         </Button>

@@ -41,7 +41,7 @@ export async function listDeviations(
     .filter(
       (r) =>
         (filter.state === "all" || r.state === filter.state) &&
-        (filter.recipe === "" || r.recipe === filter.recipe),
+        (filter.recipe === "" || r.recipe.toLowerCase().includes(filter.recipe.toLowerCase())),
     );
 }
 
