@@ -31,7 +31,7 @@ import {
   saveRunDataAction,
   signRunAction,
 } from "../../actions";
-import { formatDateTime } from "@/lib/format/date";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Test run" };
@@ -89,9 +89,9 @@ export default async function RunPage({
             Made under a temporary deviation
           </h2>
           <p className="mb-2 text-sm text-stone-700">
-            On {run.performedOn ?? "today"} this recipe and part family ran under the temporary
-            values below: the process was permitted outside its validated range, so read this result
-            as evidence of that temporary process.
+            On {formatDate(run.performedOn, "today")} this recipe and part family ran under the
+            temporary values below: the process was permitted outside its validated range, so read
+            this result as evidence of that temporary process.
           </p>
           <DeviationList label="Deviations covering this run" items={covering} />
         </section>
