@@ -30,6 +30,14 @@ export async function register() {
       .catch((error) => console.error("requalification reminders failed", error));
   setTimeout(remindRequalification, 5_000).unref();
   setInterval(remindRequalification, 3_600_000).unref();
+  const { runDeviationJob } = await import("@/lib/server/deviations/run-deviation-job");
+  // Records each deviation's expiry once and reminds before the end; the pages compute expiry on read.
+  const deviationPass = () =>
+    runDeviationJob()
+      .then(({ reminded }) => (reminded > 0 ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("deviation expiry and reminders failed", error));
+  setTimeout(deviationPass, 5_000).unref();
+  setInterval(deviationPass, 15 * 60_000).unref();
   const { env } = await import("@/lib/env");
   const { writeCheckpoint } = await import("@/lib/server/audit/write-checkpoint");
   // Skipped when the head has not moved, so an idle system writes nothing.

@@ -123,6 +123,7 @@ export const SIGNED_RECORD_TYPES = [
   "change_request",
   "test_run",
   "recipe_version",
+  "deviation",
 ] as const;
 
 export const EVIDENCE_FILE_KINDS = [

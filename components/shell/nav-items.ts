@@ -23,6 +23,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/parts", label: "Parts & specifications", icon: "parts", permission: "parts.view" },
   { href: "/documents", label: "Documents", icon: "documents", permission: "documents.view" },
   { href: "/changes", label: "Changes", icon: "changes", permission: "changes.view" },
+  { href: "/deviations", label: "Deviations", icon: "changes", permission: "deviation.view" },
   { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
   { href: "/trace", label: "Trace", icon: "trace", permission: "trace.view" },
   { href: "/how-we-compute", label: "How we compute", icon: "calc", permission: "calc.view" },

@@ -5,7 +5,13 @@ import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { MEANING_LABELS } from "@/lib/signatures/rules";
 import type { ParameterHistory } from "@/lib/server/trace/parameter-history";
-import { BINDING_LABELS, CHANGE_LABELS, OUTCOME_LABELS, periodStatus } from "@/lib/trace/labels";
+import {
+  BINDING_LABELS,
+  CHANGE_LABELS,
+  OUTCOME_LABELS,
+  periodStatus,
+  uncontrolledOrigin,
+} from "@/lib/trace/labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import type { ParameterValue } from "@/lib/trace/timeline";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -283,14 +289,43 @@ function TimelineEntry({
             )}
           </section>
         ) : (
-          <p className="mt-4 border-t border-stone-100 pt-3 text-sm text-stone-700">
-            No change request:{" "}
-            {versions[0] === 1
-              ? "the recipe's first validated version"
-              : "a version recorded without change control"}
-            {entry.versionAuthor ? `, recorded by ${entry.versionAuthor}` : ""} on{" "}
-            {formatDate(entry.versionCreatedAt)}. {entry.versionNote ?? ""}
-          </p>
+          <section
+            aria-label="How this value took force"
+            className="mt-4 border-t border-stone-100 pt-3 text-sm text-stone-700"
+          >
+            <p>
+              {uncontrolledOrigin({
+                firstVersion: versions[0] === 1,
+                effectiveFrom: period.effectiveFrom,
+                author: entry.versionAuthor,
+                enteredAt: entry.versionCreatedAt,
+              })}{" "}
+              {entry.versionNote ?? ""}
+            </p>
+            {entry.validations.length === 0 ? (
+              <p className="mt-1 text-stone-600">No validation is recorded for this version.</p>
+            ) : (
+              <ul className="mt-1" aria-label={`Validation of version ${versions[0]}`}>
+                {entry.validations.map((q) => (
+                  <li key={q.partFamilyId}>
+                    Validated for{" "}
+                    <Link
+                      href={`/parts/families/${q.partFamilyId}`}
+                      className="font-semibold text-brand-800 hover:underline"
+                    >
+                      {q.partFamily} {q.partFamilyName}
+                    </Link>
+                    : {q.basis ?? "carried over by a change"}, qualified {formatDate(q.qualifiedAt)}{" "}
+                    (
+                    <Link href="/parts/combinations" className="text-brand-800 hover:underline">
+                      qualified combinations
+                    </Link>
+                    )
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
         )}
       </article>
     </li>

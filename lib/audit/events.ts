@@ -16,6 +16,7 @@ import {
   TEST_TYPES,
   EVIDENCE_FILE_KINDS,
 } from "@/db/enums";
+import { RISK_LEVELS } from "@/lib/deviations/rules";
 
 // ── Building blocks of the payloads ──────────────────────────────────────
 // Payloads are strict: a key a schema does not name is refused rather than
@@ -607,6 +608,50 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   event("api_token.revoked", "api_token", {
     old: obj({ revokedAt: z.null() }),
     new: obj({ name: text, prefix: text, revokedAt: isoTime }),
+  }),
+  // Temporary deviations: a time-limited permission to run outside a validated range
+  event("deviation.created", "deviation", {
+    new: obj({
+      number: text,
+      recipe: text,
+      title: text,
+      riskLevel: z.enum(RISK_LEVELS),
+      endsOn: isoDate.nullable(),
+      maxLots: count.nullable(),
+      reminderDays: count,
+      partFamilies: z.array(text),
+      parameters: z.array(
+        obj({
+          key: text,
+          temporaryLow: z.number().nullable(),
+          temporaryHigh: z.number().nullable(),
+        }),
+      ),
+      contentHash: sha256,
+    }),
+  }),
+  event("deviation.approved", "deviation", {
+    old: obj({ status: z.literal("draft") }),
+    new: obj({ status: z.literal("approved"), contentHash: sha256 }),
+  }),
+  event("deviation.withdrawn", "deviation", {
+    old: obj({ status: z.enum(["draft", "approved"]) }),
+    new: obj({ status: z.literal("withdrawn") }),
+  }),
+  event("deviation.expired", "deviation", {
+    old: obj({ status: z.literal("approved") }),
+    new: obj({
+      status: z.literal("expired"),
+      because: z.enum(["end_date", "lots_used"]),
+      endsOn: isoDate.nullable(),
+      lotsUsed: count,
+    }),
+  }),
+  event("deviation.reminder_sent", "deviation", {
+    new: obj({ endsOn: isoDate, daysLeft: count, to: z.array(text) }),
+  }),
+  event("deviation.lot_recorded", "deviation", {
+    new: obj({ lot: text, lotsUsed: count, maxLots: count.nullable() }),
   }),
 ]);
 

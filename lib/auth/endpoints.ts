@@ -6,6 +6,7 @@ import * as appActions from "@/app/(app)/actions";
 import * as appAdminActions from "@/app/(app)/admin/actions";
 import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
+import * as appDeviationsActions from "@/app/(app)/deviations/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
 import * as appPartsActions from "@/app/(app)/parts/actions";
@@ -44,6 +45,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/admin/actions.ts": appAdminActions,
   "app/(app)/admin/matrix/actions.ts": appAdminMatrixActions,
   "app/(app)/changes/actions.ts": appChangesActions,
+  "app/(app)/deviations/actions.ts": appDeviationsActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
   "app/(app)/parts/actions.ts": appPartsActions,

@@ -53,6 +53,12 @@ export const PERMISSIONS = {
   // Bath and filter log
   "bath.record": ["engineer", "technician"],
   "bath.manage_intervals": ["admin", "engineer"],
+  // Temporary deviations
+  "deviation.view": ALL,
+  "deviation.draft": ["engineer"],
+  "deviation.approve": ["approver"],
+  "deviation.withdraw": ["engineer", "approver"],
+  "deviation.record_lot": ["engineer", "technician"],
 } as const satisfies Record<string, readonly Role[]>;
 
 /** What the role table grants; "action" is kept for server actions. */

@@ -124,6 +124,15 @@ export const MEANING_STATEMENTS: Record<SignedRecordType, Record<SignatureMeanin
     performed: "I ran this recipe version as recorded.",
     verified: "I have checked this recipe version against its validated ranges.",
   },
+  deviation: {
+    authored:
+      "I am the author of this temporary deviation, its scope, justification and risk, and submit it as written.",
+    reviewed: "I have reviewed this temporary deviation and find it fit for approval.",
+    approved:
+      "I approve running outside the validated range as this deviation states, within its limits and until it ends.",
+    performed: "I ran production under this deviation as recorded.",
+    verified: "I have checked that production under this deviation kept to its temporary values.",
+  },
 };
 
 /** What a signature of this meaning on this kind of record affirms. */

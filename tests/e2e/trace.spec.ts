@@ -49,6 +49,10 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   const before = page.getByRole("article", { name: "Version 1: 90 °C" });
   await expect(before).toContainText("80–100 °C");
   await expect(before).toContainText("from 2025-06-02 07:00 UTC to 2026-06-15 07:00 UTC");
+  // The first version took force in 2025 and was proven by the fitting's PQ, whatever day the demo was loaded.
+  const origin = before.getByRole("region", { name: "How this value took force" });
+  await expect(origin).toContainText("first validated version, took force on 2025-06-02");
+  await expect(origin).toContainText("Fitting PQ (first validation), qualified 2025-06-02");
   const entry = page.getByRole("article", { name: "Version 2: 105 °C" });
   await expect(entry).toContainText("90 °C → 105 °C");
   await expect(entry).toContainText("80–100 °C → 95–110 °C");

@@ -780,6 +780,62 @@ const SAMPLES = {
     old: { revokedAt: null },
     new: { name: "LIMS", prefix: "wp_ab12", revokedAt: AT },
   },
+  // lib/server/deviations/create-deviation.ts
+  "deviation.created": {
+    eventType: "deviation.created",
+    recordType: "deviation",
+    recordId: UUID,
+    new: {
+      number: "DV-2026-001",
+      recipe: "R-AW3-VB",
+      title: "Substitute detergent while the usual one is unavailable",
+      riskLevel: "medium",
+      endsOn: "2026-12-20",
+      maxLots: 12,
+      reminderDays: 3,
+      partFamilies: ["PF-VB-210"],
+      parameters: [{ key: "wash.concentration", temporaryLow: 2, temporaryHigh: 4.5 }],
+      contentHash: "a".repeat(64),
+    },
+  },
+  // lib/server/deviations/sign-deviation.ts
+  "deviation.approved": {
+    eventType: "deviation.approved",
+    recordType: "deviation",
+    recordId: UUID,
+    old: { status: "draft" },
+    new: { status: "approved", contentHash: "a".repeat(64) },
+  },
+  // lib/server/deviations/withdraw-deviation.ts
+  "deviation.withdrawn": {
+    eventType: "deviation.withdrawn",
+    recordType: "deviation",
+    recordId: UUID,
+    old: { status: "approved" },
+    new: { status: "withdrawn" },
+    reason: "The usual detergent was delivered early.",
+  },
+  // lib/server/deviations/run-deviation-job.ts
+  "deviation.expired": {
+    eventType: "deviation.expired",
+    recordType: "deviation",
+    recordId: UUID,
+    old: { status: "approved" },
+    new: { status: "expired", because: "end_date", endsOn: "2026-12-20", lotsUsed: 4 },
+  },
+  "deviation.reminder_sent": {
+    eventType: "deviation.reminder_sent",
+    recordType: "deviation",
+    recordId: UUID,
+    new: { endsOn: "2026-12-20", daysLeft: 3, to: ["engineer@fennmoor.example"] },
+  },
+  // lib/server/deviations/record-lot.ts
+  "deviation.lot_recorded": {
+    eventType: "deviation.lot_recorded",
+    recordType: "deviation",
+    recordId: UUID,
+    new: { lot: "L-2026-1204", lotsUsed: 1, maxLots: 12 },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

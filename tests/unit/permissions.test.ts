@@ -40,6 +40,11 @@ const EXPECTED: Record<Permission, Role[]> = {
   "evidence.verify": ["engineer", "reviewer", "approver", "technician"],
   "bath.record": ["engineer", "technician"],
   "bath.manage_intervals": ["admin", "engineer"],
+  "deviation.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "deviation.draft": ["engineer"],
+  "deviation.approve": ["approver"],
+  "deviation.withdraw": ["engineer", "approver"],
+  "deviation.record_lot": ["engineer", "technician"],
 };
 
 describe("role table", () => {

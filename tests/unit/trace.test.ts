@@ -26,6 +26,7 @@ import { writeCheckpoint } from "@/lib/server/audit/write-checkpoint";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
 import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
+import { uncontrolledOrigin } from "@/lib/trace/labels";
 import type { RichDoc } from "@/lib/documents/rich-text";
 import { narrativeDocument } from "@/lib/changes/content";
 import { saveDraft } from "@/lib/server/documents/save-draft";
@@ -169,6 +170,30 @@ describe("parameter history", () => {
     expect(h.entries).toHaveLength(1);
     expect(h.entries[0].period.versions.map((v) => v.version)).toEqual([1, 2, 3, 4]);
     expect(h.entries[0].period.status).toBe("effective");
+  });
+
+  it("says when a first version took force, not the day the demo was loaded, and names the validation that proved its range", async () => {
+    const h = (await getParameterHistory({ recipeId: valveBody, key: "wash.time" }))!;
+    const [first] = h.entries;
+    expect(first.change).toBeNull();
+    // Effective date and PQ basis of the valve body's first version [db/seed-data.ts, db/seed-changes.ts].
+    expect(first.period.effectiveFrom).toBe("2025-03-10T07:00:00.000Z");
+    expect(first.validations).toEqual([
+      expect.objectContaining({
+        partFamily: "PF-VB-210",
+        basis: "Valve body PQ (first validation)",
+        qualifiedAt: "2025-03-10T00:00:00.000Z",
+      }),
+    ]);
+    const words = uncontrolledOrigin({
+      firstVersion: true,
+      effectiveFrom: first.period.effectiveFrom,
+      author: first.versionAuthor,
+      enteredAt: "2026-12-02T15:00:00.000Z",
+    });
+    expect(words).toBe(
+      `No change request: the recipe's first validated version, took force on 2025-03-10 (entered in Washproof by ${first.versionAuthor} on 2026-12-02).`,
+    );
   });
 
   it("reaches from the seeded major change to its evidence: computed outcomes, signatures and file hashes", async () => {

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { DeviationList } from "@/components/deviations/deviation-list";
 import { ParameterPicker } from "@/components/trace/parameter-picker";
 import { ParameterTimeline } from "@/components/trace/parameter-timeline";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -6,6 +7,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { rangeWithUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { deviationsOfRecipe } from "@/lib/server/deviations/queries";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
 import { traceQuerySchema } from "@/lib/schemas/trace";
 import { matchParameters, traceScopes } from "@/lib/trace/parameter-search";
@@ -27,6 +29,9 @@ export default async function TracePage({
     listTraceableParameters(),
     selected ? getParameterHistory(selected) : undefined,
   ]);
+  const temporary = history
+    ? await deviationsOfRecipe(history.recipe.id, new Date(), history.parameter.key)
+    : [];
   const current = history?.entries.findLast((e) => e.period.kind === "in_force")?.period.value;
   const initialRecipe = selected
     ? parameters.find((p) => p.recipeId === selected.recipeId)
@@ -75,6 +80,14 @@ export default async function TracePage({
             · {history.entries.length} {history.entries.length === 1 ? "entry" : "entries"}, newest
             first.
           </p>
+          {temporary.length > 0 && (
+            <section aria-labelledby="deviations" className="mb-6">
+              <h3 id="deviations" className="mb-2 text-base font-semibold">
+                Temporary deviations from the validated range
+              </h3>
+              <DeviationList label="Temporary deviations of this parameter" items={temporary} />
+            </section>
+          )}
           <ParameterTimeline history={history} canExport={can(user.roles, "trace.export")} />
         </section>
       )}

@@ -1,4 +1,4 @@
-import "server-only";
+// Not "server-only": the demo seed signs deviations through it under tsx (it only writes in the caller's transaction).
 import { and, eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { signatures, type SignatureMeaning, type SignedRecordType } from "@/db/schema";

@@ -4,7 +4,9 @@ import { getDb } from "@/db/client";
 import {
   changeRequests,
   cleaningSystems,
+  partFamilies,
   recipeParameters,
+  requalificationIntervals,
   recipes,
   recipeStages,
   recipeVersions,
@@ -144,6 +146,12 @@ export async function getParameterHistory(input: { recipeId: string; key: string
   const signaturesOf = await changeSignaturesOf(db, shown);
   const evidenceOf = await changeEvidenceOf(db, shown);
   const versionById = new Map(versions.map((v) => [v.v.id, v]));
+  // A value that came in without a change request was proven by the validation that qualified
+  // its version: the qualified combinations name it (basis) and when it was qualified.
+  const unchanged = timeline
+    .map((p) => p.introducedBy.versionId)
+    .filter((versionId) => !byVersion.has(versionId));
+  const validationsOf = await versionValidations(db, unchanged);
   const entries = timeline.map((period) => {
     const cr = changes.find((c) => c.toVersionId === period.introducedBy.versionId);
     const version = versionById.get(period.introducedBy.versionId)!;
@@ -153,6 +161,7 @@ export async function getParameterHistory(input: { recipeId: string; key: string
         versionNote: version.v.notes,
         versionAuthor: version.author,
         versionCreatedAt: version.v.createdAt,
+        validations: validationsOf.get(version.v.id) ?? [],
         change: null,
       };
     const state = states.get(cr.id)!;
@@ -209,4 +218,26 @@ export async function getParameterHistory(input: { recipeId: string; key: string
     entries,
   };
 }
+/** The qualified combinations of these versions, each with the validation that proved it. */
+export async function versionValidations(db: ReturnType<typeof getDb>, versionIds: string[]) {
+  const rows = versionIds.length
+    ? await db
+        .select({
+          versionId: requalificationIntervals.recipeVersionId,
+          partFamilyId: partFamilies.id,
+          partFamily: partFamilies.code,
+          partFamilyName: partFamilies.name,
+          basis: requalificationIntervals.basis,
+          qualifiedAt: requalificationIntervals.lastQualifiedAt,
+        })
+        .from(requalificationIntervals)
+        .innerJoin(partFamilies, eq(partFamilies.id, requalificationIntervals.partFamilyId))
+        .where(inArray(requalificationIntervals.recipeVersionId, versionIds))
+        .orderBy(asc(partFamilies.code))
+    : [];
+  const map = new Map<string, Omit<(typeof rows)[number], "versionId">[]>();
+  for (const { versionId, ...r } of rows) map.set(versionId, [...(map.get(versionId) ?? []), r]);
+  return map;
+}
+
 export type ParameterHistory = NonNullable<Awaited<ReturnType<typeof getParameterHistory>>>;

@@ -32,7 +32,7 @@ import { UserFacingError } from "@/lib/server/errors";
 import { narrativeText } from "@/lib/changes/content";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
 import { signatureValidity } from "@/lib/signatures/rules";
-import { excerpt } from "@/lib/server/trace/parameter-history";
+import { excerpt, versionValidations } from "@/lib/server/trace/parameter-history";
 
 /**
  * The whole history of one recipe parameter: each value and validated range it has
@@ -104,6 +104,7 @@ export async function referenceParameterHistory(input: { recipeId: string; key: 
           versionNote: version.v.notes,
           versionAuthor: version.author,
           versionCreatedAt: version.v.createdAt,
+          validations: (await versionValidations(db, [version.v.id])).get(version.v.id) ?? [],
           change: null,
         };
       const state = await loadChangeState(db, cr.id);

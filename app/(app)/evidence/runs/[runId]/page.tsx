@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { DeviationList } from "@/components/deviations/deviation-list";
 import { CsvImport } from "@/components/evidence/csv-import";
 import { FileUpload } from "@/components/evidence/file-upload";
 import { OutcomePanel } from "@/components/evidence/outcome-panel";
@@ -20,6 +21,7 @@ import { formatSize } from "@/lib/format/number";
 import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { deviationsCoveringRun } from "@/lib/server/deviations/queries";
 import { getRunDetail } from "@/lib/server/evidence/queries";
 import {
   addSampleAction,
@@ -29,7 +31,7 @@ import {
   saveRunDataAction,
   signRunAction,
 } from "../../actions";
-import { formatDateTime } from "@/lib/format/date";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Test run" };
@@ -48,6 +50,11 @@ export default async function RunPage({
   if (!detail) notFound();
   const { run, family, spec, recipe, version, outcome, samples, files, signatures, revisions } =
     detail;
+  const covering = await deviationsCoveringRun({
+    recipeVersionId: run.recipeVersionId,
+    partFamilyId: run.partFamilyId,
+    performedOn: run.performedOn,
+  });
   const open = run.status === "open";
   const mayRecord = open && can(user.roles, "evidence.record");
   const label = `${run.number} revision ${run.revision}`;
@@ -73,6 +80,22 @@ export default async function RunPage({
           </span>
         }
       />
+      {covering.length > 0 && (
+        <section
+          aria-labelledby="run-deviations"
+          className="mb-4 rounded-md border border-stone-300 bg-stone-50 p-3"
+        >
+          <h2 id="run-deviations" className="mb-1 text-sm font-semibold">
+            Made under a temporary deviation
+          </h2>
+          <p className="mb-2 text-sm text-stone-700">
+            On {formatDate(run.performedOn, "today")} this recipe and part family ran under the
+            temporary values below: the process was permitted outside its validated range, so read
+            this result as evidence of that temporary process.
+          </p>
+          <DeviationList label="Deviations covering this run" items={covering} />
+        </section>
+      )}
       {run.status === "superseded" && (
         <p className="mb-4 rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm">
           This revision has been superseded.{" "}

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { DeviationList } from "@/components/deviations/deviation-list";
 import { IntervalForm } from "@/components/changes/interval-form";
 import { InitialValidationForm } from "@/components/changes/initial-validation-form";
 import { OpenChangeForm } from "@/components/changes/open-change-form";
@@ -11,6 +12,7 @@ import { humanize } from "@/lib/format/labels";
 import { OPEN_STATUSES, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requalificationDue } from "@/lib/changes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { deviationsOfRecipe } from "@/lib/server/deviations/queries";
 import { getRecipePage } from "@/lib/server/changes/queries";
 import { listPartFamilies } from "@/lib/server/plant/queries";
 import {
@@ -28,6 +30,10 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
   const page = /^[0-9a-f-]{36}$/.test(recipeId) ? await getRecipePage(recipeId) : undefined;
   if (!page) notFound();
   const { recipe, system, effective, content, versions, intervals, changes } = page;
+  // Active ones first: the people at the washer need those; ended ones stay on record.
+  const temporary = (await deviationsOfRecipe(recipe.id)).sort(
+    (a, b) => Number(b.state === "active") - Number(a.state === "active"),
+  );
   const open = changes.find((c) => OPEN_STATUSES.includes(c.status));
   const canSeeChanges = can(user.roles, "changes.view");
   // A new recipe's draft first version, waiting to be routed through its initial validation.
@@ -112,6 +118,14 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                   version={effective.version}
                 />
               )}
+            </section>
+          )}
+          {temporary.length > 0 && (
+            <section aria-labelledby="deviations">
+              <h2 id="deviations" className="mb-2 text-base font-semibold">
+                Temporary deviations
+              </h2>
+              <DeviationList label="Temporary deviations of this recipe" items={temporary} />
             </section>
           )}
           <section aria-labelledby="versions">
