@@ -11,3 +11,4 @@ export * from "./audit";
 export * from "./email";
 export * from "./bath";
 export * from "./change-subjects";
+export * from "./part-pictures";

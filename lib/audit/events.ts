@@ -608,6 +608,17 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     old: obj({ revokedAt: z.null() }),
     new: obj({ name: text, prefix: text, revokedAt: isoTime }),
   }),
+  event("part_family.picture_set", "part_family", {
+    // A first picture has no old one.
+    old: obj({ fileId: text, sha256 }).nullable().default(null),
+    new: obj({
+      fileId: text,
+      sha256,
+      name: text,
+      mimeType: z.enum(["image/png", "image/jpeg"]),
+      sizeBytes: z.number().int(),
+    }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;
