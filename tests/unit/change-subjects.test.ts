@@ -17,12 +17,13 @@ import { narrativeDocument } from "@/lib/changes/content";
 import { DEFAULT_MATRIX } from "@/lib/changes/requalification";
 import { assessEquipment, assessSpecification } from "@/lib/changes/subjects";
 import type { EquipmentStage } from "@/lib/plant/equipment";
-import { openChangeSchema } from "@/lib/schemas/change";
+import { openChangeSchema, proposalSchema } from "@/lib/schemas/change";
 import { reviseSpecSchema } from "@/lib/schemas/spec";
 import { systemSchema } from "@/lib/schemas/system";
 import { approveChange } from "@/lib/server/changes/approve-change";
 import { assessChange } from "@/lib/server/changes/assess-change";
 import { closeChange } from "@/lib/server/changes/close-change";
+import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import { saveDraft } from "@/lib/server/documents/save-draft";
@@ -30,6 +31,7 @@ import { openSpecificationChange, specChangeCandidates } from "@/lib/server/plan
 import { reviseSpec } from "@/lib/server/plant/revise-spec";
 import { updateSystem } from "@/lib/server/systems/update-system";
 import { compareSpecRevisions, type SpecLimits } from "@/lib/specs/compare";
+import { proposalForm } from "./support/proposal-form";
 import { createTestDatabase } from "./support/test-db";
 
 const stage = (over: Partial<EquipmentStage>): EquipmentStage => ({
@@ -269,6 +271,12 @@ describe("a specification change request", () => {
         recipeId: offer!.recipes[0].recipeId,
       }),
     ).rejects.toThrow(`Change request ${cr.number} is already open for this revision on R-AW3-VB.`);
+    // Its kind stays: the diff comes from the revised specification, not from the recipe.
+    await expect(
+      saveProposal(people.engineer, proposalSchema.parse(proposalForm(state))),
+    ).rejects.toThrow(
+      'This change was opened as "Customer specification revised": its kind stays as it is.',
+    );
     // Submitted unchanged: the recipe stays as it is, the new limits are what is assessed.
     await writeNarrative(
       cr.id,
