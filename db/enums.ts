@@ -84,6 +84,7 @@ export const CHANGE_KINDS = [
   "maintenance_interval",
   "equipment",
   "initial_validation",
+  "specification",
 ] as const;
 
 /** A customer specification revision is in force until a later revision supersedes it. */

@@ -8,12 +8,13 @@ import { createSystemSchema } from "@/lib/schemas/system";
 import { createSystemIn } from "@/lib/server/systems/create-system";
 import { createPartFamilyIn } from "@/lib/server/plant/create-part-family";
 import { createSpecIn } from "@/lib/server/plant/create-spec";
+import { createRecipeIn } from "@/lib/server/plant/create-recipe";
+import { createRecipeSchema } from "@/lib/schemas/recipe";
 import { setUpPlantIn } from "@/lib/server/plant/set-up-plant";
 import { getDb, type Database } from "./client";
 import { seedDemoDocuments } from "./seed-documents";
 import {
   recipeParameters,
-  recipes,
   recipeStages,
   recipeVersions,
   sites,
@@ -128,27 +129,69 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     }
 
     const recipeIds = new Map<string, string>();
+    const engineer = engineerId
+      ? {
+          id: engineerId,
+          name: DEMO_USERS.find((u) => u.email === "engineer@fennmoor.example")!.name,
+        }
+      : SYSTEM_ACTOR;
     for (const r of DEMO_RECIPES) {
-      const [recipe] = await tx
-        .insert(recipes)
-        .values({
-          systemId: systemIds.get(r.system)!,
-          code: r.code,
-          name: r.name,
-          description: r.description,
-        })
-        .returning();
-      recipeIds.set(r.code, recipe.id);
-      await audit({
-        eventType: "recipe.created",
-        recordType: "recipe",
-        recordId: recipe.id,
-        new: { code: r.code, name: r.name },
-      });
       let previous: { id: string; version: number } | null = null;
       for (const [i, v] of r.versions.entries()) {
         const isLast = i === r.versions.length - 1;
         const next = r.versions[i + 1];
+        if (i === 0) {
+          // The first version is written as a plant writes it, through the recipe service (its
+          // rules: process order, own ranges, physical limits, modes the washer can run); it was
+          // validated before the demo's records begin, so it then takes its place in the history.
+          const { recipe: created, version } = await createRecipeIn(
+            tx,
+            engineer,
+            createRecipeSchema.parse({
+              systemId: systemIds.get(r.system)!,
+              code: r.code,
+              name: r.name,
+              description: r.description,
+              content: {
+                detergent: v.detergent ?? "",
+                notes: v.notes ?? "",
+                stages: v.stages.map((st) => ({
+                  name: st.name,
+                  kind: st.kind,
+                  mode: st.mode,
+                  parameters: st.parameters.map((p) => ({
+                    key: p.key,
+                    name: p.name,
+                    kind: p.kind,
+                    setpoint: p.setpoint,
+                    unit: p.unit,
+                    validatedLow: p.low,
+                    validatedHigh: p.high,
+                    critical: p.critical ?? false,
+                  })),
+                })),
+              },
+            }),
+          );
+          recipeIds.set(r.code, created.id);
+          await tx
+            .update(recipeVersions)
+            .set({
+              status: isLast ? "effective" : "superseded",
+              effectiveFrom: v.effectiveFrom,
+              effectiveTo: next?.effectiveFrom ?? null,
+            })
+            .where(eq(recipeVersions.id, version.id));
+          await audit({
+            eventType: "recipe_version.effective",
+            recordType: "recipe_version",
+            recordId: version.id,
+            new: { status: "effective", effectiveFrom: v.effectiveFrom },
+          });
+          previous = { id: version.id, version: 1 };
+          continue;
+        }
+        const recipe = { id: recipeIds.get(r.code)! };
         const [version] = await tx
           .insert(recipeVersions)
           .values({

@@ -15,6 +15,7 @@ import type { FormState } from "@/lib/actions/result";
 import {
   CHANGE_KIND_LABELS,
   CHANGE_KINDS_FOR_EFFECTIVE,
+  OPENED_ELSEWHERE,
   type ChangeKind,
 } from "@/lib/changes/workflow";
 import type { RecipeSnapshot } from "@/lib/changes/diff";
@@ -69,9 +70,9 @@ export function ProposalEditor(props: ProposalEditorProps) {
           errorKey="kind"
           value={kind}
           onValueChange={(v) => setKind(v as ChangeKind)}
-          // An initial validation keeps its kind; a change never becomes one.
-          options={(kind === "initial_validation"
-            ? (["initial_validation"] as const)
+          // A kind opened from its own record keeps it; a change never becomes one.
+          options={(OPENED_ELSEWHERE.includes(props.kind)
+            ? [props.kind]
             : CHANGE_KINDS_FOR_EFFECTIVE
           ).map((k) => ({ value: k, label: CHANGE_KIND_LABELS[k] }))}
         />

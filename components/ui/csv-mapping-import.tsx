@@ -27,6 +27,10 @@ export interface CsvMappingImportProps {
   /** Where the file, its mapping and `extra` fields are posted; the answer is { ok, message, rowErrors? }. */
   url: string;
   extra?: Record<string, string>;
+  /** Controls of the form's own (a recipe's code and name): their named values are posted with the file. */
+  children?: ReactNode;
+  /** Called with the server's answer after a successful import (to open what was created). */
+  onDone?: (result: Record<string, unknown>) => void;
 }
 
 /**
@@ -43,6 +47,8 @@ export function CsvMappingImport({
   problems: findProblems,
   url,
   extra = {},
+  children,
+  onDone,
 }: CsvMappingImportProps) {
   const router = useRouter();
   const [file, setFile] = useState<File | null>(null);
@@ -71,7 +77,8 @@ export function CsvMappingImport({
     event.preventDefault();
     if (!file) return;
     setPending(true);
-    const body = new FormData();
+    // The form's own named controls (none on the master-data screen) travel with the file.
+    const body = new FormData(event.currentTarget as HTMLFormElement);
     body.set("file", file);
     body.set("mapping", JSON.stringify(mapping));
     for (const [k, v] of Object.entries(extra)) body.set(k, v);
@@ -87,7 +94,10 @@ export function CsvMappingImport({
         message: raw.message ?? raw.error ?? `The import failed (HTTP ${response.status}).`,
       };
       setResult(json);
-      if (json.ok) router.refresh();
+      if (json.ok) {
+        router.refresh();
+        onDone?.(raw as unknown as Record<string, unknown>);
+      }
     } catch {
       setResult({ ok: false, message: "The file did not reach the server. Nothing was imported." });
     } finally {
@@ -103,6 +113,7 @@ export function CsvMappingImport({
       className="space-y-3 rounded-lg border border-stone-200 bg-white p-4"
       aria-label={title}
     >
+      {children}
       <FileField
         label={fileLabel}
         accept=".csv,text/csv"

@@ -11,3 +11,5 @@ export * from "./audit";
 export * from "./email";
 export * from "./bath";
 export * from "./deviations";
+export * from "./change-subjects";
+export * from "./part-pictures";

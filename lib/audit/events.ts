@@ -653,6 +653,17 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   event("deviation.lot_recorded", "deviation", {
     new: obj({ lot: text, lotsUsed: count, maxLots: count.nullable() }),
   }),
+  event("part_family.picture_set", "part_family", {
+    // A first picture has no old one.
+    old: obj({ fileId: text, sha256 }).nullable().default(null),
+    new: obj({
+      fileId: text,
+      sha256,
+      name: text,
+      mimeType: z.enum(["image/png", "image/jpeg"]),
+      sizeBytes: z.number().int(),
+    }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

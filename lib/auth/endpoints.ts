@@ -24,9 +24,12 @@ import * as apiEvidenceRunsRunidFilesRoute from "@/app/api/evidence/runs/[runId]
 import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId]/import/route";
 import * as apiEvidenceRunsRoute from "@/app/api/evidence/runs/route";
 import * as apiPartsExportRoute from "@/app/api/parts/export/route";
+import * as apiPartsFamiliesFamilyidPictureRoute from "@/app/api/parts/families/[familyId]/picture/route";
 import * as apiPartsImportRoute from "@/app/api/parts/import/route";
 import * as apiPartsSpecsSourceRoute from "@/app/api/parts/specs/source/route";
 import * as apiQueueRoute from "@/app/api/queue/route";
+import * as apiRecipesRecipeidCsvRoute from "@/app/api/recipes/[recipeId]/csv/route";
+import * as apiSystemsSystemidRecipesImportRoute from "@/app/api/systems/[systemId]/recipes/import/route";
 import * as apiTraceParametersRoute from "@/app/api/trace/parameters/route";
 import * as apiV1OpenapiJsonRoute from "@/app/api/v1/openapi.json/route";
 import { rulesOf, type EndpointRule } from "./endpoint-rule";
@@ -64,9 +67,12 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,
   "app/api/evidence/runs/route.ts": apiEvidenceRunsRoute,
   "app/api/parts/export/route.ts": apiPartsExportRoute,
+  "app/api/parts/families/[familyId]/picture/route.ts": apiPartsFamiliesFamilyidPictureRoute,
   "app/api/parts/import/route.ts": apiPartsImportRoute,
   "app/api/parts/specs/source/route.ts": apiPartsSpecsSourceRoute,
   "app/api/queue/route.ts": apiQueueRoute,
+  "app/api/recipes/[recipeId]/csv/route.ts": apiRecipesRecipeidCsvRoute,
+  "app/api/systems/[systemId]/recipes/import/route.ts": apiSystemsSystemidRecipesImportRoute,
   "app/api/trace/parameters/route.ts": apiTraceParametersRoute,
   "app/api/v1/openapi.json/route.ts": apiV1OpenapiJsonRoute,
   ...V1_ROUTE_MODULES,

@@ -14,6 +14,7 @@ import {
   type MatrixRow,
   type RequiredTest,
 } from "./requalification";
+import { mergeTests, type SubjectAssessment } from "./subjects";
 
 export interface Assessment {
   diff: RecipeDiff;
@@ -38,6 +39,8 @@ export function assess(input: {
   initial?: boolean;
   raisedTo: Impact | null;
   matrix: MatrixRow[];
+  /** What the change request changes besides the recipe (equipment, a specification). */
+  subject?: SubjectAssessment | null;
 }): Assessment {
   const diff = diffRecipes(input.from, input.to);
   const extra: ImpactTrigger[] = input.newPartFamily
@@ -50,7 +53,13 @@ export function assess(input: {
         },
       ]
     : [];
-  const computed = maxImpact(diff.impact, extra.length ? "major" : "editorial");
+  const subject = input.subject ?? null;
+  if (subject) extra.push(...subject.triggers);
+  const computed = maxImpact(
+    diff.impact,
+    extra.length ? "major" : "editorial",
+    subject?.impact ?? "editorial",
+  );
   const impact = maxImpact(computed, input.raisedTo ?? "editorial");
   const triggers = impact === "major" ? triggersOf(diff, extra) : [];
   // Raised to major by judgement with no major row: every changed parameter calls up its tests.
@@ -66,7 +75,10 @@ export function assess(input: {
     computed,
     impact,
     triggers,
-    tests: impact === "major" ? requiredTests(triggers, input.matrix) : [],
+    tests:
+      impact === "major"
+        ? mergeTests(requiredTests(triggers, input.matrix), subject?.tests ?? [])
+        : [],
   };
 }
 

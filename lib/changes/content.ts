@@ -13,6 +13,8 @@ export function changeContentHash(input: {
   impact: string | null;
   raiseReason: string | null;
   requirements: { testType: string; samples: number }[];
+  /** An equipment or specification change: what it changes besides the recipe. */
+  subject?: unknown;
 }) {
   return sha256Hex(canonicalJson(input as unknown as Record<string, unknown>));
 }

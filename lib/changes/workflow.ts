@@ -119,6 +119,7 @@ export const CHANGE_KIND_LABELS: Record<ChangeKind, string> = {
   maintenance_interval: "Maintenance-interval change",
   equipment: "Equipment change on the cleaning system",
   initial_validation: "Initial validation of a new recipe",
+  specification: "Customer specification revised",
 };
 
 /** Kinds that qualify the recipe for a part family named on the change request. */
@@ -126,5 +127,16 @@ export function addsPartFamily(kind: ChangeKind): boolean {
   return kind === "new_part_family" || kind === "initial_validation";
 }
 
+/**
+ * Kinds opened from the record that changed, which carries the diff: an initial validation from
+ * the recipe's draft, an equipment change from the washer's editor, a specification change from
+ * the revised specification.
+ */
+export const OPENED_ELSEWHERE: readonly ChangeKind[] = [
+  "initial_validation",
+  "equipment",
+  "specification",
+];
+
 /** Kinds an engineer may open against an effective version (an initial validation is opened on a new recipe's draft). */
-export const CHANGE_KINDS_FOR_EFFECTIVE = CHANGE_KINDS.filter((k) => k !== "initial_validation");
+export const CHANGE_KINDS_FOR_EFFECTIVE = CHANGE_KINDS.filter((k) => !OPENED_ELSEWHERE.includes(k));

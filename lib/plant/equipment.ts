@@ -109,6 +109,8 @@ export function stageProblems(stages: EquipmentStage[]): StageProblem[] {
 
 export interface EquipmentChange {
   stage: string;
+  /** The kind of the stage changed, so a major change calls up the matrix rows for that kind of stage. */
+  kind: string;
   impact: Impact;
   reason: string;
 }
@@ -144,11 +146,13 @@ export function equipmentImpact(
   after: EquipmentStage[],
 ): { impact: Impact; changes: EquipmentChange[] } {
   const changes: EquipmentChange[] = [];
+  let kind = "";
   const add = (stage: string, impact: Impact, reason: string) =>
-    changes.push({ stage, impact, reason });
+    changes.push({ stage, kind, impact, reason });
   const old = keyed(before);
   const next = keyed(after);
   for (const { key, s: o } of old) {
+    kind = o.kind;
     const n = next.find((x) => x.key === key)?.s;
     if (!n) {
       add(o.name, "major", `Stage "${o.name}" removed.`);
@@ -199,7 +203,9 @@ export function equipmentImpact(
         `Bath volume ${o.tankVolumeL ?? "none"} → ${n.tankVolumeL ?? "none"} L: detergent additions scale with it.`,
       );
   }
-  for (const { key, s } of next)
+  for (const { key, s } of next) {
+    kind = s.kind;
     if (!old.some((x) => x.key === key)) add(s.name, "major", `Stage "${s.name}" added.`);
+  }
   return { impact: maxImpact(...changes.map((c) => c.impact)), changes };
 }

@@ -140,6 +140,14 @@ export const openChangeSchema = z.object({
     .refine(
       (k) => k !== "initial_validation",
       "A new recipe's first version is routed from its draft: use Route for initial validation.",
+    )
+    .refine(
+      (k) => k !== "equipment",
+      "An equipment change is opened by saving the new equipment in the washer's editor.",
+    )
+    .refine(
+      (k) => k !== "specification",
+      "A specification change is opened from the revised specification's page.",
     ),
 });
 

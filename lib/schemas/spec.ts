@@ -87,3 +87,9 @@ export const reviseSpecSchema = z
   })
   .refine(gravimetricNeedsBasis, basisRule);
 export type ReviseSpecInput = z.output<typeof reviseSpecSchema>;
+
+/** One click from a revised specification: the change request it calls for on one qualified recipe. */
+export const openSpecChangeSchema = z.object({
+  specId: uuid("the specification"),
+  recipeId: uuid("the recipe"),
+});

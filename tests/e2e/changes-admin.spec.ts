@@ -30,8 +30,9 @@ test("an administrator saves the requalification matrix as a new version; bad va
   );
 });
 
-test("an administrator adding a stage to a washer that runs an effective recipe is sent to change control", async ({
+test("an administrator adding a stage to a washer that runs an effective recipe opens an equipment change request; the washer keeps its stages until it closes", async ({
   page,
+  browser,
 }) => {
   await signInAs(page, "admin");
   await page.goto("/systems");
@@ -46,6 +47,27 @@ test("an administrator adding a stage to a washer that runs an effective recipe 
   await page.getByLabel("Tank volume of stage 4 (L)").fill("300");
   await page.getByRole("button", { name: "Save system" }).click();
   // SC-1 runs R-SC1-SF v2: its validation rests on the equipment as it is.
-  await expect(page.getByText(/equipment changes go through change control/)).toBeVisible();
-  await expect(page.getByRole("table", { name: /Stages of/ })).not.toContainText("Deionised rinse");
+  await expect(page.getByRole("heading", { level: 1 })).toContainText("Equipment change on SC-1");
+  const diff = page.getByRole("table", { name: "Equipment diff, SC-1" });
+  await expect(diff.getByRole("row", { name: /Deionised rinse/ })).toContainText("Major");
+  const changeUrl = page.url();
+  await page.goto("/systems");
+  await expect(page.getByRole("table", { name: /Stages of Single-chamber/ })).not.toContainText(
+    "Deionised rinse",
+  );
+
+  // The engineer withdraws it, so the spray-fitting recipe is free for the other tests.
+  const engineer = await browser.newPage();
+  await signInAs(engineer, "engineer");
+  await engineer.goto(changeUrl);
+  await engineer.getByRole("button", { name: "Withdraw" }).click();
+  await engineer
+    .getByRole("dialog")
+    .getByLabel("Reason")
+    .fill("Raised from the browser test only.");
+  await engineer.getByRole("dialog").getByRole("button", { name: "Withdraw" }).click();
+  await expect(engineer.getByRole("heading", { level: 1 }).locator("..")).toContainText(
+    "Withdrawn",
+  );
+  await engineer.close();
 });

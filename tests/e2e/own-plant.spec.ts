@@ -1,3 +1,4 @@
+import type { Browser, Page } from "@playwright/test";
 import { expect, signIn, test } from "./fixtures";
 
 /*
@@ -176,4 +177,257 @@ test("a plant starts from nothing: set-up page, first administrator signs in, cr
     await page.goto("/systems");
     await expect(page.getByRole("link", { name: /Spray cabinet/ })).toHaveCount(0);
   });
+});
+
+/* The plant's own people, created by its administrator (invented names, none a demo user's). */
+const PEOPLE = {
+  engineer: { name: "Anouk Ferreira", email: "anouk@harrowgate.example", role: /Engineer/ },
+  approver: { name: "Bastian Oyelaran", email: "bastian@harrowgate.example", role: /Approver/ },
+  reviewer: { name: "Carys Lindholm", email: "carys@harrowgate.example", role: /Reviewer/ },
+  technician: { name: "Dario Kettunen", email: "dario@harrowgate.example", role: /Technician/ },
+} as const;
+type Person = keyof typeof PEOPLE;
+const PASSWORD = "Copper-sluice-Heron-73";
+
+async function as(browser: Browser, who: Person, url: string) {
+  const page = await browser.newPage();
+  await signIn(page, PEOPLE[who].email, PASSWORD);
+  await expect(page.getByRole("banner")).toContainText(PEOPLE[who].name);
+  await page.goto(url);
+  return page;
+}
+
+async function sign(page: Page, button: string) {
+  await page.getByRole("button", { name: button }).click();
+  const dialog = page.getByRole("dialog");
+  await dialog.getByLabel("Your password").fill(PASSWORD);
+  await dialog.getByRole("button", { name: "Sign", exact: true }).click();
+}
+
+const SPEC_CSV = [
+  "code,name,customer,document_number,revision,ccc,gravimetric_limit_mg,gravimetric_basis",
+  "CS-HH-01,Valve housings,Kestrel Pumps,KP-CL-100,B,A(B-E17/F-G14/H-N00),2.0,per_component",
+].join("\n");
+const FAMILIES_CSV = [
+  "code,name,part_numbers,material,wetted_area_cm2,wetted_area_method,spec_code",
+  "PF-VH-1,Valve housing VH-1,VH-1-01;VH-1-02,Aluminium 6082,310,cad_model,CS-HH-01",
+  "PF-VH-2,Valve housing VH-2,VH-2-01,Aluminium 6082,295,measured,CS-HH-01",
+].join("\n");
+// AW-1's stages and modes; setpoints inside their own ranges [practice: typical aqueous-washer settings].
+const RECIPE_CSV = [
+  "stage,stage_kind,stage_mode,key,name,kind,setpoint,unit,validated_low,validated_high,critical",
+  "Ultrasonic wash,wash,ultrasonic,wash.temperature,Bath temperature,temperature,60,°C,55,65,yes",
+  "Ultrasonic wash,wash,ultrasonic,wash.time,Wash time,time,300,s,240,360,yes",
+  "Spray rinse,rinse,spray,rinse.time,Rinse time,time,90,s,60,120,no",
+  "Deionised rinse,final_rinse,flood,final.conductivity,Rinse conductivity limit,conductivity_limit,20,µS/cm,,30,yes",
+  "Hot-air dryer,drying,hot_air_drying,drying.temperature,Drying temperature,drying_temperature,90,°C,80,100,yes",
+].join("\n");
+// Residue about 1.2 mg per part against 2.0 mg per component, blank 0.06 mg within 10 % of the limit [ISO 16232 blank rule].
+const GRAVIMETRIC_CSV = [
+  "Part serial,Worst case,Parts,Tare (mg),Gross (mg),Blank (mg)",
+  "VH1-IV-01,yes,1,12.40,13.60,0.06",
+  "VH1-IV-02,no,1,12.41,13.66,0.06",
+].join("\n");
+
+test("from master data to the first run: CSV part families and specification, a recipe by CSV, its initial validation to effective, a run on the qualified combination and a refusal on another", async ({
+  page,
+  browser,
+}) => {
+  test.setTimeout(300_000);
+  const started = Date.now();
+
+  await test.step("the administrator creates the plant's people and a requalification matrix", async () => {
+    await signIn(page, ADMIN.email, ADMIN.password);
+    for (const who of Object.keys(PEOPLE) as Person[]) {
+      await page.goto("/admin/users/new");
+      await page.getByLabel("Full name").fill(PEOPLE[who].name);
+      await page.getByLabel("E-mail").fill(PEOPLE[who].email);
+      await page.getByRole("checkbox", { name: PEOPLE[who].role }).check();
+      await page.getByRole("button", { name: "Create user" }).click();
+      const temporary = (await page.getByTestId("temporary-password").textContent())!;
+      const first = await browser.newPage();
+      await signIn(first, PEOPLE[who].email, temporary);
+      await expect(first).toHaveURL(/\/account\/password$/);
+      await first.getByLabel("Current password").fill(temporary);
+      await first.getByLabel("New password", { exact: true }).fill(PASSWORD);
+      await first.getByLabel("New password again").fill(PASSWORD);
+      await first.getByRole("button", { name: "Change password" }).click();
+      await expect(first).toHaveURL(/\/queue/);
+      await first.close();
+    }
+    // A deliberately small matrix: a new part family calls for a gravimetric test on 2 parts (60 % / 60 %).
+    await page.goto("/admin/matrix");
+    await page.getByRole("button", { name: "Add row" }).click();
+    await page
+      .getByLabel("Subject of row 1")
+      .selectOption({ label: "New part family on the recipe" });
+    await page.getByLabel("Test of row 1").selectOption({ label: "Gravimetric residue" });
+    await page.getByLabel("Confidence of row 1").fill("60");
+    await page.getByLabel("Reliability of row 1").fill("60");
+    await page
+      .getByLabel("What changed and why")
+      .fill("First matrix of the plant, for its first validation");
+    await page.getByRole("button", { name: "Save as new version" }).click();
+    await expect(page.getByText(/Saved as version 1/)).toBeVisible();
+  });
+
+  const engineer = await as(browser, "engineer", "/parts/import");
+  await test.step("the engineer imports a customer specification and two part families by CSV", async () => {
+    const importer = engineer.getByRole("form", { name: "Import specifications from CSV" });
+    await engineer.getByRole("radio", { name: "Specifications" }).check();
+    await importer
+      .getByLabel("CSV file of specifications")
+      .setInputFiles({ name: "specs.csv", mimeType: "text/csv", buffer: Buffer.from(SPEC_CSV) });
+    await importer.getByRole("button", { name: "Import" }).click();
+    await expect(importer.getByRole("status")).toHaveText("1 specification imported.");
+
+    await engineer.getByRole("radio", { name: "Part families" }).check();
+    const families = engineer.getByRole("form", { name: "Import part families from CSV" });
+    await families.getByLabel("CSV file of part families").setInputFiles({
+      name: "families.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(FAMILIES_CSV),
+    });
+    await families.getByRole("button", { name: "Import" }).click();
+    await expect(families.getByRole("status")).toHaveText("2 part families imported.");
+  });
+
+  await test.step("the engineer imports the recipe for AW-1 by CSV and routes its initial validation", async () => {
+    await engineer.goto("/systems");
+    await engineer.getByRole("link", { name: "AW-1 · Four-tank washer" }).click();
+    await engineer.getByRole("link", { name: "Import a recipe from CSV" }).click();
+    const importer = engineer.getByRole("form", { name: "Import a recipe from CSV" });
+    await importer.getByLabel("Recipe code").fill("R-AW1-VH");
+    await importer.getByLabel("Recipe name").fill("Valve housing, ultrasonic");
+    await importer.getByLabel("CSV file of the recipe's stages and parameters").setInputFiles({
+      name: "r-aw1-vh.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(RECIPE_CSV),
+    });
+    await importer.getByRole("button", { name: "Import" }).click();
+    await expect(engineer.getByRole("heading", { level: 1 })).toContainText("R-AW1-VH");
+
+    await engineer
+      .getByLabel("Validation title")
+      .fill("Initial validation for valve housings VH-1");
+    await engineer
+      .getByLabel("Part family validated for")
+      .selectOption({ label: "PF-VH-1 Valve housing VH-1" });
+    await engineer.getByRole("button", { name: "Route for initial validation" }).click();
+    await expect(engineer.getByRole("heading", { level: 1 })).toContainText(
+      "Initial validation for valve housings VH-1",
+    );
+    const narrative = engineer.getByRole("textbox", { name: "Document text" });
+    await narrative.click();
+    await engineer.keyboard.type(
+      "First recipe for VH-1 on AW-1. Risk: residue above the customer's limit; proven by gravimetric test.",
+    );
+    await expect(
+      engineer
+        .getByRole("region", { name: "Justification and risk assessment" })
+        .getByRole("status"),
+    ).toContainText("All changes saved");
+    const required = engineer.getByRole("table", { name: "Required tests" });
+    await expect(required.getByRole("row", { name: /Gravimetric residue 2 parts/ })).toBeVisible();
+    await sign(engineer, "Sign and submit impact assessment");
+    await expect(engineer.getByRole("heading", { level: 1 }).locator("..")).toContainText(
+      "Impact assessed",
+    );
+  });
+  const changeUrl = engineer.url();
+  const changeLabel = `${((await engineer.getByRole("heading", { level: 1 }).textContent()) ?? "").split(" ")[0]} · Initial validation for valve housings VH-1`;
+
+  await test.step("approved, requalified with a verified gravimetric run, verified and closed: the recipe is effective", async () => {
+    const approver = await as(browser, "approver", changeUrl);
+    await sign(approver, "Approve for implementation");
+    await expect(approver.getByRole("heading", { level: 1 }).locator("..")).toContainText(
+      "Approved",
+    );
+    await approver.close();
+
+    await engineer.reload();
+    await engineer.getByRole("button", { name: "Start requalification" }).click();
+    await expect(
+      engineer.getByRole("heading", { name: "Requalification gate: not met" }),
+    ).toBeVisible();
+
+    const tech = await as(browser, "technician", "/evidence");
+    await tech.getByRole("link", { name: "New test run" }).click();
+    await tech.getByLabel("Part family").selectOption({ label: "PF-VH-1 · Valve housing VH-1" });
+    await tech.getByLabel("Recipe version").selectOption({ label: "R-AW1-VH v1 (proposed)" });
+    await tech.getByLabel("Test type").selectOption({ label: "Gravimetric" });
+    await tech.getByLabel("Analysing lab").fill("Tallbrook works lab");
+    await tech
+      .getByLabel("Change request (optional)", { exact: true })
+      .selectOption({ label: changeLabel });
+    await tech
+      .getByLabel("Requirement of the change request (optional)")
+      .fill("Gravimetric residue on 2 parts");
+    await tech.getByRole("button", { name: "Open test run" }).click();
+    await expect(tech.getByRole("heading", { level: 1 })).toContainText("Gravimetric");
+    const runUrl = tech.url();
+    const importer = tech.getByRole("form", { name: "Import filter weighings from CSV" });
+    await importer.getByLabel(/^CSV file of/).setInputFiles({
+      name: "vh1-gravimetric.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(GRAVIMETRIC_CSV),
+    });
+    await expect(importer.getByRole("group", { name: "Match the file's columns" })).toBeVisible();
+    await importer.getByLabel("Filter mass before (mg)").selectOption("Tare (mg)");
+    await importer.getByLabel("Filter mass after (mg)").selectOption("Gross (mg)");
+    await importer.getByLabel("Blank residue (mg)").selectOption("Blank (mg)");
+    await importer.getByRole("button", { name: "Import" }).click();
+    await expect(importer.getByRole("status")).toHaveText(
+      "2 sample(s) imported from vh1-gravimetric.csv.",
+    );
+    await expect(tech.getByRole("heading", { name: /Computed outcome: Pass/ })).toBeVisible();
+    await sign(tech, "Sign as performed");
+    await expect(tech.getByRole("heading", { level: 1 }).locator("..")).toContainText("Performed");
+    await tech.close();
+
+    // A second person verifies the run.
+    await engineer.goto(runUrl);
+    await sign(engineer, "Sign as verified");
+    await expect(engineer.getByRole("heading", { level: 1 }).locator("..")).toContainText(
+      "Verified (locked)",
+    );
+
+    const reviewer = await as(browser, "reviewer", changeUrl);
+    await expect(
+      reviewer.getByRole("heading", { name: "Requalification gate: met" }),
+    ).toBeVisible();
+    await sign(reviewer, "Verify change");
+    await expect(reviewer.getByRole("heading", { level: 1 }).locator("..")).toContainText(
+      "Verified",
+    );
+    await reviewer.close();
+
+    const closer = await as(browser, "approver", changeUrl);
+    await closer.getByRole("button", { name: "Close and make effective" }).click();
+    await expect(closer.getByText("version 1 is effective.")).toBeVisible();
+    await closer.close();
+  });
+
+  await test.step("a technician opens a run on the qualified combination and is refused on one that is not", async () => {
+    const tech = await as(browser, "technician", "/evidence");
+    await tech.getByRole("link", { name: "New test run" }).click();
+    await tech.getByLabel("Part family").selectOption({ label: "PF-VH-2 · Valve housing VH-2" });
+    await tech.getByLabel("Recipe version").selectOption({ label: "R-AW1-VH v1 (effective)" });
+    await tech.getByLabel("Test type").selectOption({ label: "Gravimetric" });
+    await tech.getByLabel("Analysing lab").fill("Tallbrook works lab");
+    await tech.getByRole("button", { name: "Open test run" }).click();
+    await expect(tech.getByLabel("Recipe version")).toHaveAccessibleDescription(
+      /PF-VH-2 is not qualified on R-AW1-VH v1/,
+    );
+
+    await tech.getByLabel("Part family").selectOption({ label: "PF-VH-1 · Valve housing VH-1" });
+    await tech.getByRole("button", { name: "Open test run" }).click();
+    await expect(tech.getByRole("heading", { level: 1 })).toContainText("Gravimetric");
+    await tech.close();
+  });
+  await engineer.close();
+
+  console.log(
+    `own plant: master data to the first run on a qualified combination in ${((Date.now() - started) / 1000).toFixed(1)} s`,
+  );
 });

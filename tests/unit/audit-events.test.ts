@@ -836,6 +836,20 @@ const SAMPLES = {
     recordId: UUID,
     new: { lot: "L-2026-1204", lotsUsed: 1, maxLots: 12 },
   },
+  // lib/server/plant/set-family-picture.ts
+  "part_family.picture_set": {
+    eventType: "part_family.picture_set",
+    recordType: "part_family",
+    recordId: UUID,
+    old: null,
+    new: {
+      fileId: UUID,
+      sha256: "a".repeat(64),
+      name: "vb-210.jpg",
+      mimeType: "image/jpeg",
+      sizeBytes: 48213,
+    },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

@@ -132,7 +132,12 @@ describe("the impact of an equipment change", () => {
 
   it("a stage added or removed is major", () => {
     expect(equipmentImpact(washer, [wash, rinse, dryer]).changes).toEqual([
-      { stage: "DI rinse", impact: "major", reason: 'Stage "DI rinse" removed.' },
+      {
+        stage: "DI rinse",
+        kind: "final_rinse",
+        impact: "major",
+        reason: 'Stage "DI rinse" removed.',
+      },
     ]);
     expect(equipmentImpact([wash, rinse, dryer], washer).impact).toBe("major");
   });

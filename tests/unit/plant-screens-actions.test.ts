@@ -1,4 +1,4 @@
-import { eq } from "drizzle-orm";
+import { desc, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { setUpPlantAction } from "@/app/(auth)/set-up/actions";
 import {
@@ -6,7 +6,14 @@ import {
   retireSystemAction,
   updateSystemAction,
 } from "@/app/(app)/systems/actions";
-import { auditEvents, cleaningSystems, sites, systemStages, users } from "@/db/schema";
+import {
+  auditEvents,
+  changeRequests,
+  cleaningSystems,
+  sites,
+  systemStages,
+  users,
+} from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { ALREADY_SET_UP } from "@/lib/server/plant/set-up-plant";
 import { actAs, changedTables, invoke, tableCounts } from "./support/endpoints";
@@ -201,7 +208,7 @@ describe("cleaning-system actions", () => {
     expect(changedTables(before, await tableCounts(t.client))).toEqual([]);
   });
 
-  it("refuses an equipment edit on a washer that runs an effective recipe with the pointer to change control", async () => {
+  it("turns an equipment edit on a washer that runs an effective recipe into an equipment change request, and shows it", async () => {
     await actAs(admin);
     const [sc1] = await t.db.select().from(cleaningSystems).where(eq(cleaningSystems.code, "SC-1"));
     const stages = await t.db.select().from(systemStages).where(eq(systemStages.systemId, sc1.id));
@@ -227,16 +234,20 @@ describe("cleaning-system actions", () => {
         }),
       ),
     );
-    expect(out).toMatchObject({
-      kind: "result",
-      value: {
-        ok: false,
-        message: expect.stringMatching(
-          /equipment changes go through change control\. Open a change request of kind "equipment"/,
-        ),
-      },
-    });
-    expect(changedTables(before, await tableCounts(t.client))).toEqual([]);
+    const [cr] = await t.db
+      .select()
+      .from(changeRequests)
+      .orderBy(desc(changeRequests.createdAt))
+      .limit(1);
+    expect(out).toEqual({ kind: "redirect", to: `/changes/${cr.id}` });
+    expect(cr.title).toMatch(/^Equipment change on SC-1: /);
+    // The washer's stages are untouched; the change request, its proposal and narrative are written.
+    expect(changedTables(before, await tableCounts(t.client))).toEqual(
+      expect.not.arrayContaining(["system_stages"]),
+    );
+    expect(changedTables(before, await tableCounts(t.client))).toEqual(
+      expect.arrayContaining(["change_requests", "change_request_equipment", "audit_events"]),
+    );
   });
 
   it("retires a washer with its reason in the audit trail; a second retire is refused", async () => {

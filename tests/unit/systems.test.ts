@@ -1,6 +1,14 @@
 import { asc, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { auditEvents, cleaningSystems, sites, systemStages } from "@/db/schema";
+import {
+  auditEvents,
+  changeRequestEquipment,
+  changeRequests,
+  cleaningSystems,
+  sites,
+  systemStages,
+  users,
+} from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { createSystemSchema, retireSystemSchema, systemSchema } from "@/lib/schemas/system";
 import { createSystem } from "@/lib/server/systems/create-system";
@@ -10,14 +18,15 @@ import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
 let siteId: string;
+const admin = { id: "", name: "admin" };
 beforeAll(async () => {
   t = await createTestDatabase();
   await seedDemo(t.db);
   siteId = (await t.db.select().from(sites))[0].id;
+  const [u] = await t.db.select().from(users).where(eq(users.email, "admin@fennmoor.example"));
+  Object.assign(admin, { id: u.id, name: u.name });
 });
 afterAll(() => t.cleanup());
-
-const admin = { id: null, name: "admin" } as const;
 const stagesOf = async (systemId: string) =>
   t.db
     .select()
@@ -209,7 +218,7 @@ describe("editing a cleaning system", () => {
     );
   });
 
-  it("once a system runs an effective recipe, an equipment edit is refused and sent to change control; wording is not", async () => {
+  it("once a system runs an effective recipe, an equipment edit opens an equipment change request instead of saving; wording is saved", async () => {
     const [sys] = await t.db.select().from(cleaningSystems).where(eq(cleaningSystems.code, "SC-1"));
     const stages = await stagesOf(sys.id);
     const before = await t.db.select().from(auditEvents);
@@ -222,10 +231,30 @@ describe("editing a cleaning system", () => {
         filterRatingUm: i === 0 ? "100" : asTyped(s).filterRatingUm,
       })),
     });
-    await expect(updateSystem(admin, coarser)).rejects.toThrow(
-      /SC-1 runs the effective recipe R-SC1-SF v2: equipment changes go through change control. Open a change request of kind "equipment" \(major impact: Spray wash — Filter rating 50 → 100 µm/,
+    const { changeRequestId } = await updateSystem(admin, coarser);
+    expect(changeRequestId).not.toBeNull();
+    // The washer keeps its equipment until the change closes; the proposal waits on the request.
+    expect((await stagesOf(sys.id)).map((s) => s.filterRatingUm)).toEqual(
+      stages.map((s) => s.filterRatingUm),
     );
-    expect(await t.db.select().from(auditEvents)).toHaveLength(before.length);
+    const [cr] = await t.db
+      .select()
+      .from(changeRequests)
+      .where(eq(changeRequests.id, changeRequestId!));
+    expect(cr.title).toBe(
+      "Equipment change on SC-1: Spray wash — Filter rating 50 → 100 µm: coarser filtration leaves more particles in the bath.",
+    );
+    const [link] = await t.db
+      .select()
+      .from(changeRequestEquipment)
+      .where(eq(changeRequestEquipment.changeRequestId, cr.id));
+    expect(link).toMatchObject({ systemId: sys.id, appliedAt: null });
+    const added = (await t.db.select().from(auditEvents)).slice(before.length);
+    expect(added.map((e) => e.action)).toEqual(["recipe_version.proposed", "change.opened"]);
+    // One open equipment change per washer.
+    await expect(updateSystem(admin, coarser)).rejects.toThrow(
+      `Equipment change ${cr.number} is already open on SC-1: finish or withdraw it first.`,
+    );
     const renamed = systemSchema.parse({
       systemId: sys.id,
       name: "Single-chamber spray washer (hall 2)",

@@ -3,10 +3,11 @@
 import { defineAction } from "@/lib/actions/define-action";
 import { qualifyCombinationSchema } from "@/lib/schemas/combination";
 import { partFamilySchema, updatePartFamilySchema } from "@/lib/schemas/part-family";
-import { reviseSpecSchema, specSchema } from "@/lib/schemas/spec";
+import { openSpecChangeSchema, reviseSpecSchema, specSchema } from "@/lib/schemas/spec";
 import { createPartFamily } from "@/lib/server/plant/create-part-family";
 import { createSpec } from "@/lib/server/plant/create-spec";
 import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
+import { openSpecificationChange } from "@/lib/server/plant/open-spec-change";
 import { reviseSpec } from "@/lib/server/plant/revise-spec";
 import { updatePartFamily } from "@/lib/server/plant/update-part-family";
 
@@ -72,4 +73,15 @@ export const qualifyCombinationAction = defineAction({
     return { message: "Combination qualified." };
   },
   revalidate: [["/parts", "layout"]],
+});
+
+/** A revised specification opens its change request on a qualified recipe, prefilled with the limits old → new. */
+export const openSpecChangeAction = defineAction({
+  permission: "change.draft",
+  input: openSpecChangeSchema,
+  run: async ({ user, input }) => {
+    const cr = await openSpecificationChange(user, input);
+    return { redirect: `/changes/${cr.id}`, id: cr.id };
+  },
+  revalidate: (input) => [`/parts/specs/${input.specId}`, "/changes"],
 });

@@ -24,10 +24,12 @@ export const updateSystemAction = defineAction({
   from: "payload",
   invalidMessage: "Some values need attention. Nothing was saved.",
   run: async ({ user, input }) => {
-    await updateSystem(user, input);
+    const { changeRequestId } = await updateSystem(user, input);
+    // The washer runs effective recipes: the edit became an equipment change request, shown next.
+    if (changeRequestId) return { redirect: `/changes/${changeRequestId}` };
     return { message: "Saved." };
   },
-  revalidate: [["/systems", "layout"]],
+  revalidate: [["/systems", "layout"], "/changes"],
 });
 
 export const retireSystemAction = defineAction({

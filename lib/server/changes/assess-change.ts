@@ -27,6 +27,7 @@ export async function assessChange(
     assertHash(state, input.contentHash);
     const { assessment } = state;
     if (
+      !state.subject?.changes.length &&
       assessment.impact === "editorial" &&
       state.assessment.diff.texts.length === 0 &&
       state.assessment.diff.stages.length === 0 &&

@@ -12,6 +12,7 @@ import { notifyNext } from "./notify";
 import { loadGate } from "./snapshot";
 import { loadChangeState } from "./state";
 import { gateRefusal } from "./verify-change";
+import { applyEquipmentChange } from "@/lib/server/systems/equipment-change";
 
 /**
  * Closes a verified change: in one transaction the old version is superseded, the
@@ -57,6 +58,8 @@ export async function closeChange(
       .update(changeRequests)
       .set({ status: "closed", closedAt: at })
       .where(eq(changeRequests.id, state.cr.id));
+    if (state.assessmentRow.kind === "equipment")
+      await applyEquipmentChange(tx, actor, state.cr, at);
 
     const carried = old
       ? await tx

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, desc, eq, inArray, like } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Tx } from "@/db/client";
 import {
   changeRequestAssessments,
   changeRequests,
@@ -25,117 +25,125 @@ export async function openChangeRequest(
   input: { recipeId: string; title: string; kind: ChangeKind },
   now = new Date(),
 ) {
-  return getDb().transaction(async (tx) => {
-    const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, input.recipeId));
-    if (!recipe) throw new UserFacingError("That recipe does not exist.", { kind: "not_found" });
-    const [effective] = await tx
-      .select()
-      .from(recipeVersions)
-      .where(and(eq(recipeVersions.recipeId, recipe.id), eq(recipeVersions.status, "effective")));
-    if (!effective) throw new UserFacingError("This recipe has no effective version to change.");
-    const [open] = await tx
-      .select()
-      .from(changeRequests)
-      .where(
-        and(eq(changeRequests.recipeId, recipe.id), inArray(changeRequests.status, OPEN_STATUSES)),
-      );
-    if (open)
-      throw new UserFacingError(
-        `Change request ${open.number} is already open on this recipe: finish or withdraw it first.`,
-      );
+  return getDb().transaction((tx) => openChangeRequestIn(tx, actor, input, now));
+}
 
-    const [latest] = await tx
-      .select()
-      .from(recipeVersions)
-      .where(eq(recipeVersions.recipeId, recipe.id))
-      .orderBy(desc(recipeVersions.version))
-      .limit(1);
-    const [proposed] = await tx
-      .insert(recipeVersions)
-      .values({
-        recipeId: recipe.id,
-        version: latest.version + 1,
-        status: "proposed",
-        createdBy: actor.id,
-        createdAt: now.toISOString(),
-      })
-      .returning();
-    await writeRecipeContent(tx, proposed.id, await loadRecipeSnapshot(tx, effective.id));
+/** openChangeRequest inside the caller's transaction, for a change opened with its subject (equipment, a specification). */
+export async function openChangeRequestIn(
+  tx: Tx,
+  actor: AuditActor & { id: string },
+  input: { recipeId: string; title: string; kind: ChangeKind },
+  now = new Date(),
+) {
+  const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, input.recipeId));
+  if (!recipe) throw new UserFacingError("That recipe does not exist.", { kind: "not_found" });
+  const [effective] = await tx
+    .select()
+    .from(recipeVersions)
+    .where(and(eq(recipeVersions.recipeId, recipe.id), eq(recipeVersions.status, "effective")));
+  if (!effective) throw new UserFacingError("This recipe has no effective version to change.");
+  const [open] = await tx
+    .select()
+    .from(changeRequests)
+    .where(
+      and(eq(changeRequests.recipeId, recipe.id), inArray(changeRequests.status, OPEN_STATUSES)),
+    );
+  if (open)
+    throw new UserFacingError(
+      `Change request ${open.number} is already open on this recipe: finish or withdraw it first.`,
+    );
 
-    const year = now.getUTCFullYear();
-    const sameYear = await tx
-      .select({ id: changeRequests.id })
-      .from(changeRequests)
-      .where(like(changeRequests.number, `CR-${year}-%`));
-    const number = `CR-${year}-${String(sameYear.length + 1).padStart(3, "0")}`;
-    const [doc] = await tx
-      .insert(documents)
-      .values({
-        number: `CN-${number.slice(3)}`,
-        title: `Justification and risk assessment, ${number}`,
-        type: "change_narrative",
-        recipeVersionId: proposed.id,
-        ownerId: actor.id,
-      })
-      .returning();
-    await tx.insert(documentVersions).values({
-      documentId: doc.id,
-      version: 1,
-      content: narrativeDocument(""),
+  const [latest] = await tx
+    .select()
+    .from(recipeVersions)
+    .where(eq(recipeVersions.recipeId, recipe.id))
+    .orderBy(desc(recipeVersions.version))
+    .limit(1);
+  const [proposed] = await tx
+    .insert(recipeVersions)
+    .values({
+      recipeId: recipe.id,
+      version: latest.version + 1,
+      status: "proposed",
       createdBy: actor.id,
-    });
-    const [cr] = await tx
-      .insert(changeRequests)
-      .values({
+      createdAt: now.toISOString(),
+    })
+    .returning();
+  await writeRecipeContent(tx, proposed.id, await loadRecipeSnapshot(tx, effective.id));
+
+  const year = now.getUTCFullYear();
+  const sameYear = await tx
+    .select({ id: changeRequests.id })
+    .from(changeRequests)
+    .where(like(changeRequests.number, `CR-${year}-%`));
+  const number = `CR-${year}-${String(sameYear.length + 1).padStart(3, "0")}`;
+  const [doc] = await tx
+    .insert(documents)
+    .values({
+      number: `CN-${number.slice(3)}`,
+      title: `Justification and risk assessment, ${number}`,
+      type: "change_narrative",
+      recipeVersionId: proposed.id,
+      ownerId: actor.id,
+    })
+    .returning();
+  await tx.insert(documentVersions).values({
+    documentId: doc.id,
+    version: 1,
+    content: narrativeDocument(""),
+    createdBy: actor.id,
+  });
+  const [cr] = await tx
+    .insert(changeRequests)
+    .values({
+      number,
+      title: input.title,
+      recipeId: recipe.id,
+      fromVersionId: effective.id,
+      toVersionId: proposed.id,
+      narrativeDocumentId: doc.id,
+      createdBy: actor.id,
+      createdAt: now.toISOString(),
+    })
+    .returning();
+  await tx
+    .insert(changeRequestAssessments)
+    .values({ changeRequestId: cr.id, kind: input.kind, updatedAt: now.toISOString() });
+
+  await appendAudit(
+    tx,
+    actor,
+    {
+      eventType: "recipe_version.proposed",
+      recordType: "recipe_version",
+      recordId: proposed.id,
+      new: {
+        recipe: recipe.code,
+        version: proposed.version,
+        copiedFrom: effective.version,
+        changeRequest: number,
+      },
+    },
+    now,
+  );
+  await appendAudit(
+    tx,
+    actor,
+    {
+      eventType: "change.opened",
+      recordType: "change_request",
+      recordId: cr.id,
+      new: {
         number,
         title: input.title,
-        recipeId: recipe.id,
-        fromVersionId: effective.id,
-        toVersionId: proposed.id,
-        narrativeDocumentId: doc.id,
-        createdBy: actor.id,
-        createdAt: now.toISOString(),
-      })
-      .returning();
-    await tx
-      .insert(changeRequestAssessments)
-      .values({ changeRequestId: cr.id, kind: input.kind, updatedAt: now.toISOString() });
-
-    await appendAudit(
-      tx,
-      actor,
-      {
-        eventType: "recipe_version.proposed",
-        recordType: "recipe_version",
-        recordId: proposed.id,
-        new: {
-          recipe: recipe.code,
-          version: proposed.version,
-          copiedFrom: effective.version,
-          changeRequest: number,
-        },
+        kind: input.kind,
+        recipe: recipe.code,
+        fromVersion: effective.version,
+        toVersion: proposed.version,
+        narrativeDocument: doc.number,
       },
-      now,
-    );
-    await appendAudit(
-      tx,
-      actor,
-      {
-        eventType: "change.opened",
-        recordType: "change_request",
-        recordId: cr.id,
-        new: {
-          number,
-          title: input.title,
-          kind: input.kind,
-          recipe: recipe.code,
-          fromVersion: effective.version,
-          toVersion: proposed.version,
-          narrativeDocument: doc.number,
-        },
-      },
-      now,
-    );
-    return cr;
-  });
+    },
+    now,
+  );
+  return cr;
 }

@@ -4,7 +4,12 @@ import { getDb } from "@/db/client";
 import { changeRequestAssessments, changeRequests } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { assess, raiseProblem } from "@/lib/changes/assess";
-import { addsPartFamily } from "@/lib/changes/workflow";
+import {
+  addsPartFamily,
+  CHANGE_KIND_LABELS,
+  OPENED_ELSEWHERE,
+  type ChangeKind,
+} from "@/lib/changes/workflow";
 import type { Proposal } from "@/lib/schemas/change";
 import { UserFacingError } from "@/lib/server/errors";
 import { loadRecipeSnapshot, writeRecipeContent } from "./snapshot";
@@ -36,12 +41,18 @@ export async function saveProposal(
       .select()
       .from(changeRequestAssessments)
       .where(eq(changeRequestAssessments.changeRequestId, cr.id));
-    // An initial validation stays one (it has no effective version to change), and a change never becomes one.
-    if ((a.kind === "initial_validation") !== (input.kind === "initial_validation")) {
+    // A kind opened from its own record (an initial validation, an equipment or specification
+    // change) keeps it, since its diff comes from that record; no other change becomes one.
+    const fixed = (k: ChangeKind) => OPENED_ELSEWHERE.includes(k);
+    if ((fixed(a.kind) || fixed(input.kind)) && a.kind !== input.kind) {
       throw new UserFacingError(
         a.kind === "initial_validation"
           ? "This is the recipe's initial validation: its kind stays as it is."
-          : "An initial validation is routed from a new recipe's draft, not from a change.",
+          : fixed(a.kind)
+            ? `This change was opened as "${CHANGE_KIND_LABELS[a.kind]}": its kind stays as it is.`
+            : input.kind === "initial_validation"
+              ? "An initial validation is routed from a new recipe's draft, not from a change."
+              : `"${CHANGE_KIND_LABELS[input.kind]}" is opened from the record that changed, not chosen here.`,
         "kind",
       );
     }

@@ -19,6 +19,7 @@ import type { MatrixSubject, TestType } from "@/lib/recipes/test-types";
 import { UserFacingError } from "@/lib/server/errors";
 import { changeContentHash } from "@/lib/changes/content";
 import { loadNarratives } from "./snapshot";
+import { loadChangeSubjects } from "./subjects";
 import { loadRecipeSnapshots } from "@/db/recipe-content";
 
 /** What an initial validation compares the new recipe with: nothing was validated before it. */
@@ -115,6 +116,8 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
     rows.map((r) => r.cr.narrativeDocumentId),
   );
 
+  const subjects = await loadChangeSubjects(db, ids, matrix?.rows ?? []);
+
   const build = (id: string) => {
     const { cr, a, recipe } = rowOf.get(id)!;
     const initial = a.kind === "initial_validation";
@@ -126,6 +129,7 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
     const family = a.partFamilyId ? families.find((f) => f.id === a.partFamilyId) : undefined;
     const newPartFamily = addsPartFamily(a.kind) && family ? `${family.code} ${family.name}` : null;
     const draftMatrix = cr.status === "draft" ? matrix : null;
+    const subject = subjects.get(cr.id) ?? null;
     const assessment = assess({
       from,
       to,
@@ -133,6 +137,7 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
       initial,
       raisedTo: a.raisedTo,
       matrix: draftMatrix?.rows ?? [],
+      subject: subject?.assessment,
     });
     // Once submitted, the required tests are the ones frozen at submission, not a re-reading of a later matrix.
     const stored =
@@ -168,6 +173,8 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
       impact,
       raiseReason: a.raiseReason,
       requirements: requirements.map((r) => ({ testType: r.testType, samples: r.samples })),
+      // Only a change with a subject carries the key, so the hashes signed before it came stay valid.
+      ...(subject ? { subject: { kind: subject.kind, changes: subject.changes } } : {}),
     });
     return {
       cr,
@@ -178,6 +185,8 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
       from,
       to,
       family: family ?? null,
+      /** What the change changes besides the recipe (equipment, a specification), or null. */
+      subject,
       assessment,
       impact,
       requirements,

@@ -4,7 +4,9 @@ import type { SQLiteColumn } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import {
   cleanlinessSpecs,
+  evidenceFiles,
   partFamilies,
+  partFamilyPictures,
   recipes,
   recipeVersions,
   requalificationIntervals,
@@ -182,4 +184,14 @@ export async function masterDataForExport(): Promise<{
       dueOn: formatDate(c.dueAt),
     })),
   };
+}
+
+/** The SHA-256 of the family's picture (its version for the browser's cache), or null when it has none. */
+export async function familyPictureVersion(partFamilyId: string): Promise<string | null> {
+  const [row] = await getDb()
+    .select({ sha256: evidenceFiles.sha256 })
+    .from(partFamilyPictures)
+    .innerJoin(evidenceFiles, eq(evidenceFiles.id, partFamilyPictures.fileId))
+    .where(eq(partFamilyPictures.partFamilyId, partFamilyId));
+  return row?.sha256 ?? null;
 }

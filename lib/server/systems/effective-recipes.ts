@@ -5,7 +5,7 @@ import { recipes, recipeVersions } from "@/db/schema";
 /** The effective recipe versions a system runs: while there are any, its equipment is under change control. */
 export async function effectiveRecipesOn(tx: Executor, systemId: string) {
   return tx
-    .select({ code: recipes.code, version: recipeVersions.version })
+    .select({ id: recipes.id, code: recipes.code, version: recipeVersions.version })
     .from(recipes)
     .innerJoin(
       recipeVersions,

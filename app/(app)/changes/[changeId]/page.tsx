@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { DiffView, ImpactWorking } from "@/components/changes/diff-view";
 import { ProposalEditor } from "@/components/changes/proposal-editor";
+import { SubjectView } from "@/components/changes/subject-view";
 import { DocumentEditorLoader } from "@/components/documents/document-editor-loader";
 import { LinkEvidenceForm, ReasonStep, StepButton } from "@/components/changes/step-forms";
 import { RecipeTable } from "@/components/recipes/recipe-table";
@@ -259,6 +260,15 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           matrixVersion={page.matrixVersion}
         />
       </section>
+
+      {page.subject && (
+        <section aria-labelledby="subject" className="mb-8">
+          <h2 id="subject" className="mb-2 text-lg font-semibold">
+            {page.subject.kind === "equipment" ? "Equipment diff" : "Specification diff"}
+          </h2>
+          <SubjectView subject={page.subject} />
+        </section>
+      )}
 
       <section aria-labelledby="diff" className="mb-8">
         <h2 id="diff" className="mb-2 text-lg font-semibold">

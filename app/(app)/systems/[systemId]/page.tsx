@@ -110,6 +110,13 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
           >
             New recipe for {system.code}
           </Link>
+          {" · "}
+          <Link
+            href={`/systems/${system.id}/recipes/import`}
+            className="text-sm font-medium text-brand-800 hover:underline"
+          >
+            Import a recipe from CSV
+          </Link>
         </p>
       )}
       {system.recipes.map((recipe) => {

@@ -1,12 +1,18 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { z } from "zod";
+import { FamilyPicture } from "@/components/parts/family-picture";
 import { PartFamilyForm } from "@/components/parts/part-family-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { familyInUse, getPartFamily, specsInForce } from "@/lib/server/plant/parts-queries";
+import {
+  familyInUse,
+  familyPictureVersion,
+  getPartFamily,
+  specsInForce,
+} from "@/lib/server/plant/parts-queries";
 import { updatePartFamilyAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Part family" };
@@ -22,12 +28,22 @@ export default async function PartFamilyPage({
   const family = await getPartFamily(id.data);
   if (!family) notFound();
   const manage = can(user.roles, "parts.manage");
-  const [specs, inUse] = await Promise.all([specsInForce(), familyInUse(family.id)]);
+  const [specs, inUse, picture] = await Promise.all([
+    specsInForce(),
+    familyInUse(family.id),
+    familyPictureVersion(family.id),
+  ]);
   return (
     <>
       <PageHeader
         title={`${family.code} · ${family.name}`}
         description={`${family.material}; ${withUnit(family.wettedAreaCm2, "cm²")} wetted area per part.${inUse ? " In use: runs or qualified recipes refer to it." : ""}`}
+      />
+      <FamilyPicture
+        familyId={family.id}
+        familyName={family.name}
+        version={picture}
+        canUpload={manage}
       />
       {manage ? (
         <PartFamilyForm

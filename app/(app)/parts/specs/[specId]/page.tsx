@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
+import { SpecChangeOffer } from "@/components/parts/spec-change-offer";
 import { SpecForm } from "@/components/parts/spec-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -10,7 +11,8 @@ import { formatDate } from "@/lib/format/date";
 import { withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { familyOptions, getSpecWithHistory } from "@/lib/server/plant/parts-queries";
-import { reviseSpecAction } from "../../actions";
+import { specChangeCandidates } from "@/lib/server/plant/open-spec-change";
+import { openSpecChangeAction, reviseSpecAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Specification" };
 
@@ -25,6 +27,7 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
   const { spec, revisions, families } = found;
   const revisable = spec.status === "in_force" && can(user.roles, "parts.manage");
   const allFamilies = revisable ? await familyOptions() : [];
+  const changeControl = await specChangeCandidates(spec.id);
   const rows: [string, string][] = [
     ["Customer", spec.customer ?? "—"],
     [
@@ -137,6 +140,51 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
           </Table>
         </div>
       </div>
+      {changeControl && changeControl.comparison.changes.length > 0 && (
+        <section aria-labelledby="spec-change" className="mb-8">
+          <h2 id="spec-change" className="mb-1 text-lg font-semibold">
+            Change control for this revision
+          </h2>
+          <p className="mb-2 max-w-3xl text-sm text-stone-600">
+            {changeControl.comparison.tightens
+              ? "This revision tightens a limit: each recipe qualified to it needs a major change request of kind \u201cspecification\u201d, with requalification evidence against the new limit."
+              : "This revision loosens or rewords its limits: each recipe qualified to it needs a minor change request of kind \u201cspecification\u201d, approved before the new revision is relied on."}
+          </p>
+          <ul className="mb-3 list-disc pl-5 text-sm">
+            {changeControl.comparison.changes.map((c) => (
+              <li key={c.field}>{c.reason}</li>
+            ))}
+          </ul>
+          <Table caption="Recipes qualified to this revision" captionVisible density="compact">
+            <THead>
+              <Th>Recipe</Th>
+              <Th>Effective version</Th>
+              <Th>Change request</Th>
+            </THead>
+            <TBody>
+              {changeControl.recipes.length === 0 && (
+                <tr>
+                  <Td colSpan={3}>No recipe is qualified for a part family on this revision.</Td>
+                </tr>
+              )}
+              {changeControl.recipes.map((r) => (
+                <tr key={r.recipeId}>
+                  <Td className="font-mono text-xs">{r.code}</Td>
+                  <Td numeric>{r.version}</Td>
+                  <Td>
+                    <SpecChangeOffer
+                      action={openSpecChangeAction}
+                      specId={spec.id}
+                      recipe={r}
+                      canOpen={can(user.roles, "change.draft")}
+                    />
+                  </Td>
+                </tr>
+              ))}
+            </TBody>
+          </Table>
+        </section>
+      )}
       {revisable && (
         <section aria-labelledby="revise">
           <h2 id="revise" className="mb-1 text-lg font-semibold">

@@ -65,7 +65,13 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
           {effective && (
             <p className="text-sm text-stone-600">
               Effective since {formatDate(effective.effectiveFrom)} · detergent:{" "}
-              {effective.detergent ?? "none"} · {effective.notes}
+              {effective.detergent ?? "none"} · {effective.notes} ·{" "}
+              <a
+                href={`/api/recipes/${recipe.id}/csv?version=${effective.version}`}
+                className="text-brand-800 underline"
+              >
+                Export as CSV
+              </a>
             </p>
           )}
           {content && effective && (

@@ -32,7 +32,14 @@ export default async function NewRecipePage({ params }: { params: Promise<{ syst
               {system.code} {system.name}
             </Link>
             . The recipe is saved as a draft first version; it runs parts only after its initial
-            validation is closed.
+            validation is closed. A recipe kept in a spreadsheet can be{" "}
+            <Link
+              href={`/systems/${system.id}/recipes/import`}
+              className="text-brand-800 hover:underline"
+            >
+              imported from CSV
+            </Link>
+            .
           </>
         }
       />

@@ -52,7 +52,13 @@ export default async function RecipeVersionPage({
         </h2>
         <p className="text-sm text-stone-600">
           Detergent: {v.detergent ?? "none"}
-          {v.notes ? ` · ${v.notes}` : ""}
+          {v.notes ? ` · ${v.notes}` : ""} ·{" "}
+          <a
+            href={`/api/recipes/${recipe.id}/csv?version=${v.version}`}
+            className="text-brand-800 underline"
+          >
+            Export as CSV
+          </a>
         </p>
         <RecipeTable content={content} caption={`Parameters of version ${v.version}`} />
       </section>
