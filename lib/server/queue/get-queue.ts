@@ -3,6 +3,7 @@ import { z } from "zod";
 import type { SessionUser } from "@/lib/server/auth/sessions";
 import { documentQueueProvider } from "@/lib/server/documents/queue-provider";
 import { bathQueueProvider } from "@/lib/server/bath/queue-provider";
+import { bathLimitsQueueProvider } from "@/lib/server/bath/limits-queue-provider";
 import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
 import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
 import type { QueueItem, QueueProvider, QueueWindow } from "./types";
@@ -15,6 +16,7 @@ const PROVIDERS: QueueProvider[] = [
   documentQueueProvider,
   evidenceQueueProvider,
   bathQueueProvider,
+  bathLimitsQueueProvider,
   changeQueueProvider,
 ];
 

@@ -1,0 +1,248 @@
+import { and, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { seedDemo } from "@/db/seed";
+import {
+  auditEvents,
+  bathRecords,
+  cleaningSystems,
+  recipes,
+  recipeVersions,
+  systemStages,
+  users,
+} from "@/db/schema";
+import { bathLimitSchema, detergentSchema } from "@/lib/schemas/bath-plan";
+import { bathRecordSchema } from "@/lib/schemas/evidence";
+import { bathAge } from "@/lib/server/bath/bath-age";
+import {
+  BATH_ACTION_KIND,
+  BATH_REJECT_KIND,
+  bathLimitsQueueProvider,
+} from "@/lib/server/bath/limits-queue-provider";
+import { recordBathEntry } from "@/lib/server/bath/record-bath-entry";
+import { saveDetergent } from "@/lib/server/bath/save-detergent";
+import { setBathLimit } from "@/lib/server/bath/set-bath-limit";
+import { createTestDatabase } from "./support/test-db";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+type Person = { id: string; name: string };
+let tech: Person;
+let engineer: Person;
+let stageId: string;
+let effectiveVersionId: string;
+let detergentId: string;
+const techUser = () =>
+  ({ ...tech, email: "", roles: ["technician"], mustChangePassword: false }) as never;
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  await seedDemo(t.db);
+  const byEmail = async (email: string) =>
+    (
+      await t.db
+        .select({ id: users.id, name: users.name })
+        .from(users)
+        .where(eq(users.email, email))
+    )[0];
+  tech = await byEmail("technician@fennmoor.example");
+  engineer = await byEmail("engineer@fennmoor.example");
+  // A tank of its own on the demo's three-tank washer, so the seeded plan does not interfere.
+  const [system] = await t.db
+    .select()
+    .from(cleaningSystems)
+    .where(eq(cleaningSystems.code, "AW-3"));
+  const [stage] = await t.db
+    .insert(systemStages)
+    .values({
+      systemId: system.id,
+      position: 90,
+      name: "Test tank",
+      kind: "wash",
+      capabilities: [],
+      tankVolumeL: 500,
+    })
+    .returning();
+  stageId = stage.id;
+  const [v] = await t.db
+    .select({ id: recipeVersions.id })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
+  effectiveVersionId = v.id;
+  detergentId = (
+    await saveDetergent(
+      engineer,
+      detergentSchema.parse({ name: "Test cleaner T-1", factorPctPerMl: "0.5" }),
+    )
+  ).id;
+}, 120_000);
+afterAll(() => t.cleanup());
+
+const limit = (over: Record<string, unknown>) =>
+  bathLimitSchema.parse({ stageId, recipeVersionId: effectiveVersionId, ...over });
+const reading = (over: Record<string, unknown>) =>
+  bathRecordSchema.parse({ stageId, kind: "reading", performedAt: "2026-06-15T08:00", ...over });
+
+describe("bad input is refused beside its field", () => {
+  it("refuses a zero factor, a negative titrant volume, a pH outside 0–14 and limits in the wrong order", () => {
+    const factor = detergentSchema.safeParse({ name: "X", factorPctPerMl: "0" });
+    expect(factor.error?.issues.map((i) => i.path.join("."))).toEqual(["factorPctPerMl"]);
+    const volume = bathRecordSchema.safeParse({
+      stageId,
+      kind: "reading",
+      performedAt: "2026-06-15T08:00",
+      titrantVolumeMl: "-1",
+    });
+    expect(volume.error?.issues.map((i) => i.path.join("."))).toEqual(["titrantVolumeMl"]);
+    const ph = bathRecordSchema.safeParse({
+      stageId,
+      kind: "reading",
+      performedAt: "2026-06-15T08:00",
+      ph: "14.5",
+    });
+    expect(ph.error?.issues.map((i) => i.path.join("."))).toEqual(["ph"]);
+    const order = bathLimitSchema.safeParse({
+      stageId,
+      recipeVersionId: effectiveVersionId,
+      variable: "ph",
+      actionLow: "11",
+      rejectLow: "12",
+      rejectHigh: "13",
+    });
+    expect(order.error?.issues.map((i) => i.path.join("."))).toEqual(["actionLow"]);
+  });
+});
+
+describe("measurement plan", () => {
+  it("takes concentration limits from the recipe version in force and refuses any beyond its validated range", async () => {
+    // R-AW3-VB validates the wash concentration 2–4 % (demo data): blank reject limits take that range.
+    const row = await setBathLimit(
+      engineer,
+      limit({ variable: "concentrationPct", detergentId, actionLow: "2.5", actionHigh: "3.5" }),
+    );
+    expect([row.rejectLow, row.target, row.rejectHigh]).toEqual([2, 3, 4]);
+    await expect(
+      setBathLimit(
+        engineer,
+        limit({
+          variable: "concentrationPct",
+          actionLow: "2.5",
+          actionHigh: "3.5",
+          rejectHigh: "5",
+        }),
+      ),
+    ).rejects.toMatchObject({ field: "rejectHigh" });
+    const [superseded] = await t.db
+      .select({ id: recipeVersions.id })
+      .from(recipeVersions)
+      .where(eq(recipeVersions.status, "superseded"));
+    await expect(
+      setBathLimit(
+        engineer,
+        limit({
+          variable: "ph",
+          recipeVersionId: superseded.id,
+          actionLow: "10",
+          actionHigh: "12",
+        }),
+      ),
+    ).rejects.toMatchObject({ field: "recipeVersionId" });
+    await setBathLimit(
+      engineer,
+      limit({
+        variable: "ph",
+        actionLow: "10",
+        actionHigh: "12",
+        rejectLow: "9",
+        rejectHigh: "13",
+      }),
+    );
+  });
+
+  it("turns a titration into a concentration, queues a reading beyond an action limit and flags one beyond reject", async () => {
+    // [practice] 6.2 mL × 0.5 %/mL = 3.1 %: within the action limits.
+    const ok = await recordBathEntry(
+      tech,
+      reading({ titrantVolumeMl: "6.2" }),
+      new Date("2026-06-16T00:00:00Z"),
+    );
+    expect(ok.concentrationPct).toBe(3.1);
+    expect(ok.limitState).toBe("ok");
+    expect(ok.titrationFactor).toBe(0.5);
+
+    const action = await recordBathEntry(
+      tech,
+      reading({ titrantVolumeMl: "7.4", performedAt: "2026-06-15T09:00" }),
+      new Date("2026-06-16T00:00:00Z"),
+    );
+    expect(action.limitState).toBe("action");
+    let queue = (await bathLimitsQueueProvider(techUser(), new Date())).items.filter((i) =>
+      i.href.endsWith(stageId),
+    );
+    expect(queue.map((i) => i.kind)).toEqual([BATH_ACTION_KIND]);
+
+    const reject = await recordBathEntry(
+      tech,
+      reading({ ph: "13.4", performedAt: "2026-06-15T10:00" }),
+      new Date("2026-06-16T00:00:00Z"),
+    );
+    expect(reject.limitState).toBe("reject");
+    expect(reject.limitFindings).toBe("pH 13.4 pH is above the reject limit 13 pH");
+    const flagged = await t.db
+      .select()
+      .from(auditEvents)
+      .where(
+        and(eq(auditEvents.action, "bath_record.flagged"), eq(auditEvents.recordId, reject.id)),
+      );
+    expect(flagged).toHaveLength(1);
+    queue = (await bathLimitsQueueProvider(techUser(), new Date())).items.filter((i) =>
+      i.href.endsWith(stageId),
+    );
+    expect(queue.map((i) => i.kind)).toEqual([BATH_REJECT_KIND]);
+
+    // Measured again within limits: the item leaves the queue.
+    await recordBathEntry(
+      tech,
+      reading({ ph: "11.2", performedAt: "2026-06-15T11:00" }),
+      new Date("2026-06-16T00:00:00Z"),
+    );
+    queue = (await bathLimitsQueueProvider(techUser(), new Date())).items.filter((i) =>
+      i.href.endsWith(stageId),
+    );
+    expect(queue).toEqual([]);
+  });
+
+  it("refuses a titration with no detergent to take the factor from", async () => {
+    const [other] = await t.db
+      .select()
+      .from(systemStages)
+      .where(eq(systemStages.name, "Tank 2 — rinse"));
+    await expect(
+      recordBathEntry(
+        tech,
+        bathRecordSchema.parse({
+          stageId: other.id,
+          kind: "reading",
+          performedAt: "2026-06-15T08:00",
+          titrantVolumeMl: "5",
+        }),
+      ),
+    ).rejects.toMatchObject({ field: "detergentId" });
+    const rows = await t.db.select().from(bathRecords).where(eq(bathRecords.stageId, other.id));
+    expect(rows.every((r) => r.titrantVolumeMl === null)).toBe(true);
+  });
+
+  it("counts the bath's age in days from its last dump and recharge", async () => {
+    await recordBathEntry(
+      tech,
+      reading({ kind: "bath_change", performedAt: "2026-06-10T07:00" }),
+      new Date("2026-06-16T00:00:00Z"),
+    );
+    const age = await bathAge(t.db, stageId, new Date("2026-06-15T07:00:00Z"));
+    expect(age).toMatchObject({
+      chargedAt: "2026-06-10T07:00:00.000Z",
+      recharged: true,
+      days: 5,
+      cycles: null,
+    });
+  });
+});
