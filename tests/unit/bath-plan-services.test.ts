@@ -1,5 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as bathReadingsRoute from "@/app/api/v1/bath-readings/route";
 import { seedDemo } from "@/db/seed";
 import {
   auditEvents,
@@ -12,6 +13,7 @@ import {
 } from "@/db/schema";
 import { bathLimitSchema, detergentSchema } from "@/lib/schemas/bath-plan";
 import { bathRecordSchema } from "@/lib/schemas/evidence";
+import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { bathAge } from "@/lib/server/bath/bath-age";
 import {
   BATH_ACTION_KIND,
@@ -244,5 +246,72 @@ describe("measurement plan", () => {
       days: 5,
       cycles: null,
     });
+  });
+});
+
+describe("POST /api/v1/bath-readings", () => {
+  const call = (token: string, body: unknown) =>
+    bathReadingsRoute.POST(
+      new Request("http://127.0.0.1/api/v1/bath-readings", {
+        method: "POST",
+        headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
+        body: JSON.stringify(body),
+      }),
+      { params: Promise.resolve({}) },
+    );
+
+  it("records through the tank page's service, grades the reading and names the token in the audit trail", async () => {
+    const { token, id: tokenId } = await createApiToken(tech, {
+      name: "Dosing controller",
+      scope: "read_write",
+    });
+    const res = await call(token, {
+      stageId,
+      kind: "reading",
+      performedAt: "2026-06-15T12:00",
+      titrantVolumeMl: 8.4,
+    });
+    expect(res.status).toBe(201);
+    const body = await res.json();
+    // [practice] 8.4 mL × 0.5 %/mL = 4.2 %, above the 4 % reject limit the recipe validated.
+    expect(body).toMatchObject({ concentrationPct: 4.2, limitState: "reject" });
+    expect(body.findings).toEqual(["Detergent concentration 4.2 % is above the reject limit 4 %"]);
+    const [event] = await t.db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.action, "bath_record.flagged"), eq(auditEvents.recordId, body.id)));
+    expect(event.actorName).toContain(tokenId);
+  });
+
+  it("refuses bad values and unknown keys with the field named, writing nothing", async () => {
+    const { token } = await createApiToken(tech, { name: "Lab system", scope: "read_write" });
+    const before = (await t.db.select().from(bathRecords)).length;
+    const ph = await call(token, {
+      stageId,
+      kind: "reading",
+      performedAt: "2026-06-15T12:00",
+      ph: 15,
+    });
+    expect(ph.status).toBe(422);
+    expect((await ph.json()).fieldErrors.ph).toBeDefined();
+    const extra = await call(token, {
+      stageId,
+      kind: "reading",
+      performedAt: "2026-06-15T12:00",
+      PH: 7,
+    });
+    expect(extra.status).toBe(422);
+    const read = await createApiToken(tech, { name: "Read only", scope: "read" });
+    expect(
+      (
+        await call(read.token, {
+          stageId,
+          kind: "reading",
+          performedAt: "2026-06-15T12:00",
+          ph: 11,
+        })
+      ).status,
+    ).toBe(403);
+    expect((await t.db.select().from(bathRecords)).length).toBe(before);
   });
 });
