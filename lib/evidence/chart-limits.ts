@@ -4,6 +4,8 @@ export interface ChartLimit {
   /** Shown beside the line, e.g. "Reject high 3.5". */
   label: string;
   value: number;
+  /** Which side the line bounds, where known; otherwise read from the target or centre line. */
+  side?: "low" | "high";
 }
 
 export const LIMIT_KIND_WORDS: Record<ChartLimit["kind"], string> = {
@@ -48,7 +50,7 @@ export function pointBeyond(value: number, limits: ChartLimit[]): ChartLimit[] {
   const out: ChartLimit[] = [];
   for (const l of limits) {
     if (l.kind === "centre" || l.kind === "target") continue;
-    const isLower = middle !== undefined ? l.value < middle : false;
+    const isLower = l.side ? l.side === "low" : middle !== undefined ? l.value < middle : false;
     if (isLower ? value < l.value : value > l.value) out.push(l);
   }
   return out;

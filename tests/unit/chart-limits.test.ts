@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { bathControlChart } from "@/lib/evidence/bath-chart";
 import {
   beyondWords,
   chartDomain,
@@ -42,8 +43,46 @@ describe("points beyond limits", () => {
     expect(pointBeyond(2.4, limits).map((l) => l.label)).toEqual(["action low 2.5"]);
     expect(beyondWords([])).toBeNull();
   });
+  it("uses the side a limit bounds when there is no target to read it from", () => {
+    const band: ChartLimit[] = [
+      { kind: "action", label: "action low 2.5", value: 2.5, side: "low" },
+      { kind: "action", label: "action high 3.5", value: 3.5, side: "high" },
+    ];
+    expect(pointBeyond(3, band)).toEqual([]);
+    expect(pointBeyond(2, band).map((l) => l.label)).toEqual(["action low 2.5"]);
+  });
   it("reads a lone specification limit as a maximum", () => {
     expect(pointBeyond(120, [{ kind: "spec", label: "limit 100", value: 100 }])).toHaveLength(1);
     expect(pointBeyond(80, [{ kind: "spec", label: "limit 100", value: 100 }])).toHaveLength(0);
+  });
+});
+
+describe("bath control chart", () => {
+  const records = [2.9, 3.0, 3.1, 3.0, 4.3].map((v, i) => ({
+    performedAt: `2026-06-0${i + 1}T08:00:00.000Z`,
+    values: { concentrationPct: v },
+  }));
+  const plan = { target: 3, actionLow: 2.5, actionHigh: 3.5, rejectLow: 1, rejectHigh: 4 };
+  it("draws the plan's limits with the statistical ones and a range holding all of them", () => {
+    const chart = bathControlChart(records, "concentrationPct", plan)!;
+    expect(chart.limits.map((l) => l.label)).toEqual([
+      "target 3",
+      "action low 2.5",
+      "action high 3.5",
+      "reject low 1",
+      "reject high 4",
+    ]);
+    // The reject low at 1 % lies far below every reading: the axis still reaches it.
+    expect(chart.domain[0]).toBeLessThanOrEqual(1);
+    expect(chart.domain[1]).toBeGreaterThanOrEqual(Math.max(4.3, chart.ucl));
+    const last = chart.points.at(-1)!;
+    expect(last.beyondLimit).toBe("reject");
+    expect(last.beyondWords).toBe("beyond reject high 4; beyond action high 3.5");
+    expect(chart.points[0].beyondLimit).toBeNull();
+  });
+  it("still charts a value with no plan line, with its statistical limits only", () => {
+    const chart = bathControlChart(records, "concentrationPct")!;
+    expect(chart.limits).toEqual([]);
+    expect(chart.domain[1]).toBeGreaterThanOrEqual(chart.ucl);
   });
 });

@@ -1,14 +1,19 @@
 import "server-only";
-import { asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import {
   bathRecords,
   cleaningSystems,
+  detergents,
+  recipes,
+  recipeVersions,
   maintenanceIntervals,
   systemStages,
   users,
 } from "@/db/schema";
 import { maintenanceStatus, type MaintenanceStatus } from "@/lib/evidence/maintenance";
+import { bathAge } from "./bath-age";
+import { loadBathPlan } from "./plan";
 
 export interface MaintenanceItem {
   intervalId: string;
@@ -85,5 +90,20 @@ export async function getTank(stageId: string, now = new Date()) {
     .where(eq(bathRecords.stageId, stageId))
     .orderBy(asc(bathRecords.performedAt));
   const maintenance = (await listMaintenance(now)).filter((m) => m.stageId === stageId);
-  return { ...row, records, maintenance };
+  const [plan, age, versions] = await Promise.all([
+    loadBathPlan(db, stageId),
+    bathAge(db, stageId, now),
+    db
+      .select({ id: recipeVersions.id, code: recipes.code, version: recipeVersions.version })
+      .from(recipeVersions)
+      .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+      .where(and(eq(recipes.systemId, row.system.id), eq(recipeVersions.status, "effective")))
+      .orderBy(asc(recipes.code)),
+  ]);
+  return { ...row, records, maintenance, plan, age, effectiveVersions: versions };
+}
+
+/** The detergent register, by name. */
+export async function listDetergents() {
+  return getDb().select().from(detergents).orderBy(asc(detergents.name));
 }
