@@ -21,6 +21,7 @@ import {
   users,
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
+import { seedBathPlan } from "./seed-bath-plan";
 import { seedChangeControl } from "./seed-changes";
 import {
   DEMO_COMPANY,
@@ -225,6 +226,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     }
 
     await seedEvidence(tx);
+    await seedBathPlan(tx);
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
   });
   // The statistics taken at migration described empty tables: the planner needs the seeded ones.

@@ -1,4 +1,4 @@
-import "server-only";
+// Not "server-only": the demo seed reaches it through recordBathEntryIn under tsx.
 import type { Tx } from "@/db/client";
 import { appendAudit } from "@/lib/audit";
 import type { LimitState } from "@/lib/bath/limits";

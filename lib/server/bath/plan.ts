@@ -1,4 +1,4 @@
-import "server-only";
+// Not "server-only": the demo seed reaches it through recordBathEntryIn under tsx.
 import { eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { bathLimits, detergents, recipes, recipeVersions } from "@/db/schema";

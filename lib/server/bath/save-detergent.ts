@@ -1,6 +1,6 @@
-import "server-only";
+// Not "server-only": the demo seed calls `saveDetergentIn` under tsx.
 import { eq } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Tx } from "@/db/client";
 import { detergents } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import type { DetergentInput } from "@/lib/schemas/bath-plan";
@@ -14,38 +14,45 @@ export async function saveDetergent(
   input: DetergentInput,
   now = new Date(),
 ) {
-  return getDb().transaction(async (tx) => {
-    const [existing] = await tx.select().from(detergents).where(eq(detergents.name, input.name));
-    const values = {
-      name: input.name,
-      supplier: input.supplier ?? null,
-      titrationMethod: input.titrationMethod ?? null,
-      factorPctPerMl: input.factorPctPerMl,
-    };
-    const [row] = existing
-      ? await tx
-          .update(detergents)
-          .set({ ...values, updatedAt: now.toISOString() })
-          .where(eq(detergents.id, existing.id))
-          .returning()
-      : await tx
-          .insert(detergents)
-          .values({ ...values, createdBy: actor.id, createdAt: now.toISOString() })
-          .returning();
-    await appendAudit(tx, actor, {
-      eventType: "detergent.saved",
-      recordType: "detergent",
-      recordId: row.id,
-      old: existing
-        ? {
-            name: existing.name,
-            supplier: existing.supplier,
-            titrationMethod: existing.titrationMethod,
-            factorPctPerMl: existing.factorPctPerMl,
-          }
-        : null,
-      new: values,
-    });
-    return row;
+  return getDb().transaction((tx) => saveDetergentIn(tx, actor, input, now));
+}
+
+export async function saveDetergentIn(
+  tx: Tx,
+  actor: { id: string; name: string },
+  input: DetergentInput,
+  now = new Date(),
+) {
+  const [existing] = await tx.select().from(detergents).where(eq(detergents.name, input.name));
+  const values = {
+    name: input.name,
+    supplier: input.supplier ?? null,
+    titrationMethod: input.titrationMethod ?? null,
+    factorPctPerMl: input.factorPctPerMl,
+  };
+  const [row] = existing
+    ? await tx
+        .update(detergents)
+        .set({ ...values, updatedAt: now.toISOString() })
+        .where(eq(detergents.id, existing.id))
+        .returning()
+    : await tx
+        .insert(detergents)
+        .values({ ...values, createdBy: actor.id, createdAt: now.toISOString() })
+        .returning();
+  await appendAudit(tx, actor, {
+    eventType: "detergent.saved",
+    recordType: "detergent",
+    recordId: row.id,
+    old: existing
+      ? {
+          name: existing.name,
+          supplier: existing.supplier,
+          titrationMethod: existing.titrationMethod,
+          factorPctPerMl: existing.factorPctPerMl,
+        }
+      : null,
+    new: values,
   });
+  return row;
 }
