@@ -1,3 +1,6 @@
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as bathReadingsRoute from "@/app/api/v1/bath-readings/route";
@@ -11,7 +14,10 @@ import {
   systemStages,
   users,
 } from "@/db/schema";
+import { maintenanceStatus } from "@/lib/evidence/maintenance";
 import { bathLimitSchema, detergentSchema } from "@/lib/schemas/bath-plan";
+import { localStore, setStore } from "@/lib/storage";
+import { storeCheckPhoto } from "@/lib/server/bath/store-check-photo";
 import { bathRecordSchema } from "@/lib/schemas/evidence";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { bathAge } from "@/lib/server/bath/bath-age";
@@ -26,6 +32,8 @@ import { setBathLimit } from "@/lib/server/bath/set-bath-limit";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
+const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 1, 2, 3]);
+const PDF = new TextEncoder().encode("%PDF-1.4\n% lab report\n%%EOF\n");
 type Person = { id: string; name: string };
 let tech: Person;
 let engineer: Person;
@@ -313,5 +321,50 @@ describe("POST /api/v1/bath-readings", () => {
       ).status,
     ).toBe(403);
     expect((await t.db.select().from(bathRecords)).length).toBe(before);
+  });
+});
+
+describe("equipment checks", () => {
+  it("keeps a nozzle check's result with its photo, and refuses a photo that is not an image", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "washproof-bath-photo-"));
+    setStore(localStore(dir));
+    try {
+      const photo = await storeCheckPhoto(tech, { name: "nozzles.png", bytes: PNG });
+      const row = await recordBathEntry(
+        tech,
+        bathRecordSchema.parse({
+          stageId,
+          kind: "nozzle_check",
+          performedAt: "2026-06-15T13:00",
+          checkResult: "fail",
+          photoFileId: photo.id,
+        }),
+        new Date("2026-06-16T00:00:00Z"),
+      );
+      expect([row.checkResult, row.photoFileId]).toEqual(["fail", photo.id]);
+      await expect(storeCheckPhoto(tech, { name: "report.pdf", bytes: PDF })).rejects.toMatchObject(
+        { field: "file" },
+      );
+      // A check without its result is refused beside the field.
+      const missing = bathRecordSchema.safeParse({
+        stageId,
+        kind: "ultrasonic_foil_test",
+        performedAt: "2026-06-15T13:00",
+      });
+      expect(missing.error?.issues.map((i) => i.path.join("."))).toEqual(["checkResult"]);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it("puts a check interval through the same due states as bath and filter changes", () => {
+    const since = "2026-05-01T00:00:00.000Z";
+    const lastDoneAt = "2026-06-01T08:00:00.000Z";
+    const status = (now: string) =>
+      maintenanceStatus({ intervalDays: 14, warnDays: 2, lastDoneAt, since }, new Date(now)).state;
+    // [derived] due 14 days after 1 June 08:00 = 15 June 08:00; shown as due from 13 June 08:00.
+    expect(status("2026-06-13T07:59:00Z")).toBe("ok");
+    expect(status("2026-06-13T08:00:00Z")).toBe("due");
+    expect(status("2026-06-15T08:01:00Z")).toBe("overdue");
   });
 });
