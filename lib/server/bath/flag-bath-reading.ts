@@ -12,7 +12,14 @@ import type { LimitState } from "@/lib/bath/limits";
 export async function flagBathReadingBeyondReject(
   tx: Tx,
   actor: { id: string; name: string },
-  record: { id: string; tank: string; state: LimitState; findings: string[] },
+  record: {
+    id: string;
+    tank: string;
+    /** ISO time of the reading: the nonconformance's detection date. */
+    performedAt: string;
+    state: LimitState;
+    findings: string[];
+  },
 ) {
   await appendAudit(tx, actor, {
     eventType: "bath_record.flagged",

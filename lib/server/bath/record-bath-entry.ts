@@ -128,6 +128,7 @@ export async function recordBathEntryIn(
     await flagBathReadingBeyondReject(tx, actor, {
       id: row.id,
       tank: stage.name,
+      performedAt: row.performedAt,
       state: evaluation.state,
       findings: evaluation.findings,
     });
