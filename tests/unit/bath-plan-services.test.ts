@@ -26,6 +26,7 @@ import {
   BATH_REJECT_KIND,
   bathLimitsQueueProvider,
 } from "@/lib/server/bath/limits-queue-provider";
+import { latestGradedByTank } from "@/lib/server/bath/queries";
 import { recordBathEntry } from "@/lib/server/bath/record-bath-entry";
 import { saveDetergent } from "@/lib/server/bath/save-detergent";
 import { setBathLimit } from "@/lib/server/bath/set-bath-limit";
@@ -219,6 +220,7 @@ describe("measurement plan", () => {
       i.href.endsWith(stageId),
     );
     expect(queue).toEqual([]);
+    expect((await latestGradedByTank()).get(stageId)?.limitState).toBe("ok");
   });
 
   it("refuses a titration with no detergent to take the factor from", async () => {

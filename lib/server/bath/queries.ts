@@ -107,3 +107,19 @@ export async function getTank(stageId: string, now = new Date()) {
 export async function listDetergents() {
   return getDb().select().from(detergents).orderBy(asc(detergents.name));
 }
+
+/** Each tank's latest graded reading: its state against the plan and what was beyond a limit. */
+export async function latestGradedByTank() {
+  const rows = await getDb()
+    .select({
+      stageId: bathRecords.stageId,
+      performedAt: bathRecords.performedAt,
+      limitState: bathRecords.limitState,
+      limitFindings: bathRecords.limitFindings,
+    })
+    .from(bathRecords)
+    .where(
+      sql`${bathRecords.limitState} is not null and not exists (select 1 from bath_records later where later.stage_id = ${bathRecords.stageId} and later.limit_state is not null and later.performed_at > ${bathRecords.performedAt})`,
+    );
+  return new Map(rows.map((r) => [r.stageId, r]));
+}

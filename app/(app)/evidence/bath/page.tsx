@@ -4,7 +4,13 @@ import { Caution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
 import { MAINTENANCE_LABELS, STATE_LABELS } from "@/lib/evidence/maintenance";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { listDetergents, listMaintenance, listTanks } from "@/lib/server/bath/queries";
+import {
+  latestGradedByTank,
+  listDetergents,
+  listMaintenance,
+  listTanks,
+} from "@/lib/server/bath/queries";
+import { LIMIT_STATE_LABELS } from "@/lib/bath/limits";
 import { DetergentForm } from "@/components/evidence/bath-forms";
 import { can } from "@/lib/auth/permissions";
 import { saveDetergentAction } from "./actions";
@@ -15,10 +21,11 @@ export const metadata: Metadata = { title: "Bath and filter log" };
 
 export default async function BathIndexPage() {
   const user = await requirePageUser("evidence.view");
-  const [tanks, maintenance, detergents] = await Promise.all([
+  const [tanks, maintenance, detergents, latest] = await Promise.all([
     listTanks(),
     listMaintenance(),
     listDetergents(),
+    latestGradedByTank(),
   ]);
   return (
     <>
@@ -36,6 +43,7 @@ export default async function BathIndexPage() {
         <THead>
           <Th>Tank</Th>
           <Th>Maintenance</Th>
+          <Th>Latest graded reading</Th>
         </THead>
         <TBody>
           {tanks.map(({ stage, system }) => {
@@ -63,6 +71,21 @@ export default async function BathIndexPage() {
                           {formatDate(m.status.dueAt)}
                         </span>
                       ))}
+                </Td>
+                <Td>
+                  {latest.get(stage.id) ? (
+                    <>
+                      <strong>{LIMIT_STATE_LABELS[latest.get(stage.id)!.limitState!]}</strong>
+                      <span className="block text-xs text-stone-600">
+                        {formatDate(latest.get(stage.id)!.performedAt)}
+                        {latest.get(stage.id)!.limitFindings
+                          ? ` · ${latest.get(stage.id)!.limitFindings}`
+                          : ""}
+                      </span>
+                    </>
+                  ) : (
+                    "No plan or no graded reading"
+                  )}
                 </Td>
               </tr>
             );
