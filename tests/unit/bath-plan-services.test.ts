@@ -4,6 +4,7 @@ import { join } from "node:path";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as bathReadingsRoute from "@/app/api/v1/bath-readings/route";
+import * as openapiRoute from "@/app/api/v1/openapi.json/route";
 import { seedDemo } from "@/db/seed";
 import {
   auditEvents,
@@ -291,6 +292,15 @@ describe("POST /api/v1/bath-readings", () => {
       .from(auditEvents)
       .where(and(eq(auditEvents.action, "bath_record.flagged"), eq(auditEvents.recordId, body.id)));
     expect(event.actorName).toContain(tokenId);
+  });
+
+  it("is described in the OpenAPI document with its body and access", async () => {
+    const doc = await openapiRoute.GET().json();
+    const op = doc.paths["/bath-readings"].post;
+    expect(op.operationId).toBe("recordBathReading");
+    expect(op.description ?? op.summary).toBeDefined();
+    expect(JSON.stringify(op.requestBody)).toContain("titrantVolumeMl");
+    expect(Object.keys(op.responses)).toContain("201");
   });
 
   it("refuses bad values and unknown keys with the field named, writing nothing", async () => {
