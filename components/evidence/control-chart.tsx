@@ -86,7 +86,8 @@ export function ControlChart({
       aria-label={`Control chart: ${title}`}
     >
       <h3 className="text-sm font-semibold">
-        {title} ({unit})
+        {title}
+        {unit !== title && ` (${unit})`}
       </h3>
       <div className="mt-2 h-72">
         <ResponsiveContainer width="100%" height="100%">

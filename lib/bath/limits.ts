@@ -115,8 +115,10 @@ export function evaluateReadingValues(
     const result = evaluateReading(value, limits);
     if (result.state === "ok") continue;
     const { label, unit } = BATH_CHEMISTRY[variable];
+    // pH is a number without a unit: "pH 13.2", not "pH 13.2 pH".
+    const withUnit = (n: number | null) => (unit === "pH" ? `${n}` : `${n} ${unit}`);
     findings.push(
-      `${label} ${value} ${unit} is ${result.side === "low" ? "below" : "above"} the ${result.state} limit ${result.limit} ${unit}`,
+      `${label} ${withUnit(value)} is ${result.side === "low" ? "below" : "above"} the ${result.state} limit ${withUnit(result.limit)}`,
     );
     if (RANK[result.state] > RANK[state]) state = result.state;
   }

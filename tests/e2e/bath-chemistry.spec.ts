@@ -25,7 +25,7 @@ test("a bath reading beyond its reject limit is graded in words and raises its i
     .getByRole("row")
     .filter({ hasText: "Bath beyond reject limit (flagged)" })
     .filter({ hasText: "SC-1 · Spray wash" });
-  await expect(row).toContainText("pH 10.2 pH is above the reject limit 9.5 pH");
+  await expect(row).toContainText("pH 10.2 is above the reject limit 9.5");
   await row.getByRole("link", { name: "SC-1 · Spray wash" }).click();
   await expect(page.getByRole("heading", { name: "SC-1 · Spray wash" })).toBeVisible();
 });

@@ -66,7 +66,7 @@ describe("limit evaluation", () => {
     expect(result.state).toBe("reject");
     expect(result.findings).toEqual([
       "Detergent concentration 3.7 % is above the action limit 3.5 %",
-      "pH 13.2 pH is above the reject limit 13 pH",
+      "pH 13.2 is above the reject limit 13",
     ]);
   });
   it("refuses limits in the wrong order, each beside its field", () => {

@@ -198,7 +198,7 @@ describe("measurement plan", () => {
       new Date("2026-06-16T00:00:00Z"),
     );
     expect(reject.limitState).toBe("reject");
-    expect(reject.limitFindings).toBe("pH 13.4 pH is above the reject limit 13 pH");
+    expect(reject.limitFindings).toBe("pH 13.4 is above the reject limit 13");
     const flagged = await t.db
       .select()
       .from(auditEvents)
