@@ -135,9 +135,33 @@ export const EVIDENCE_FILE_KINDS = [
   "other",
 ] as const;
 
-export const BATH_RECORD_KINDS = ["bath_change", "filter_change", "reading"] as const;
+export const BATH_RECORD_KINDS = [
+  "bath_change",
+  "filter_change",
+  "reading",
+  "addition",
+  "nozzle_check",
+  "ultrasonic_foil_test",
+] as const;
 
-export const MAINTENANCE_KINDS = ["bath_change", "filter_change", "reading"] as const;
+export const MAINTENANCE_KINDS = [
+  "bath_change",
+  "filter_change",
+  "reading",
+  "nozzle_check",
+  "ultrasonic_foil_test",
+] as const;
+
+/** A bath value's place against its plan: within the action limits, beyond one, or beyond a reject limit. */
+export const BATH_LIMIT_STATES = ["ok", "action", "reject"] as const;
+export const BATH_CHEMISTRY_KEYS = [
+  "concentrationPct",
+  "ph",
+  "temperatureC",
+  "conductivityUsPerCm",
+  "oilContentGPerL",
+] as const;
+export const CHECK_RESULTS = ["pass", "fail"] as const;
 
 export type Role = (typeof ROLES)[number];
 export type ParameterKind = (typeof PARAMETER_KINDS)[number];

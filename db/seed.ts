@@ -22,6 +22,7 @@ import {
   users,
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
+import { seedBathPlan } from "./seed-bath-plan";
 import { seedChangeControl } from "./seed-changes";
 import { seedDeviations } from "./seed-deviations";
 import {
@@ -269,6 +270,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     }
 
     await seedEvidence(tx);
+    await seedBathPlan(tx);
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
     await seedDeviations(tx, { userIds, recipeIds, familyIds });
   });

@@ -11,16 +11,27 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
+import type { ChartLimit } from "@/lib/evidence/chart-limits";
 import { formatDate } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
 
 export interface ControlChartProps {
   title: string;
   unit: string;
-  points: { at: string; value: number; outOfControl: string | null }[];
+  points: {
+    at: string;
+    value: number;
+    outOfControl: string | null;
+    beyondLimit?: "action" | "reject" | null;
+    beyondWords?: string | null;
+  }[];
   centre: number;
   ucl: number;
   lcl: number;
+  /** The plan's target, action and reject limits (or a specification's), drawn beside the 3σ ones. */
+  limits?: ChartLimit[];
+  /** A y-range that holds every point and every line (chartDomain). */
+  domain?: [number, number];
   movingRangeLimit: number;
   /** Pairs of dates whose moving range is above its limit. */
   movingRangeSignals: string[];
@@ -28,7 +39,20 @@ export interface ControlChartProps {
 
 const fmt = (n: number) => formatNumber(n, 2);
 
-/** Individuals chart: each value with the centre line and 3σ limits; out-of-control points drawn as crosses and listed in words. */
+const LINE_STYLE: Record<ChartLimit["kind"], { stroke: string; dash?: string }> = {
+  reject: { stroke: "#7f1d1d", dash: "2 2" },
+  spec: { stroke: "#7f1d1d", dash: "6 3" },
+  action: { stroke: "#9a3412", dash: "4 4" },
+  control: { stroke: "#44403c", dash: "6 3" },
+  centre: { stroke: "#115e59" },
+  target: { stroke: "#1e3a8a", dash: "1 3" },
+};
+
+/**
+ * Individuals chart: each value with the centre line, 3σ limits and the plan's limits, every line
+ * labelled. Points beyond a reject limit are triangles, beyond an action limit diamonds, out of
+ * statistical control crosses; each is also listed in words under the chart.
+ */
 export function ControlChart({
   title,
   unit,
@@ -36,6 +60,8 @@ export function ControlChart({
   centre,
   ucl,
   lcl,
+  limits = [],
+  domain,
   movingRangeLimit,
   movingRangeSignals,
 }: ControlChartProps) {
@@ -43,49 +69,60 @@ export function ControlChart({
     ...p,
     date: formatDate(p.at),
     flagged: p.outOfControl ? p.value : null,
+    reject: p.beyondLimit === "reject" ? p.value : null,
+    action: p.beyondLimit === "action" ? p.value : null,
   }));
   const flagged = points.filter((p) => p.outOfControl);
+  const beyond = points.filter((p) => p.beyondWords);
+  const lines: ChartLimit[] = [
+    { kind: "control", label: `UCL ${fmt(ucl)}`, value: ucl },
+    { kind: "centre", label: `x̄ ${fmt(centre)}`, value: centre },
+    { kind: "control", label: `LCL ${fmt(lcl)}`, value: lcl },
+    ...limits,
+  ];
   return (
     <figure
       className="rounded-lg border border-stone-200 bg-white p-4"
       aria-label={`Control chart: ${title}`}
     >
       <h3 className="text-sm font-semibold">
-        {title} ({unit})
+        {title}
+        {unit !== title && ` (${unit})`}
       </h3>
-      <div className="mt-2 h-64">
+      <div className="mt-2 h-72">
         <ResponsiveContainer width="100%" height="100%">
-          <ComposedChart data={data} margin={{ left: 12, right: 60, top: 8, bottom: 8 }}>
+          <ComposedChart data={data} margin={{ left: 12, right: 110, top: 8, bottom: 8 }}>
             <CartesianGrid stroke="#e7e5e4" />
             <XAxis dataKey="date" tick={{ fontSize: 11 }} />
             <YAxis
               tick={{ fontSize: 11 }}
-              domain={["auto", "auto"]}
+              domain={domain ?? ["auto", "auto"]}
+              allowDataOverflow={false}
+              tickFormatter={(v: number) => fmt(v)}
               label={{ value: unit, angle: -90, position: "insideLeft", fontSize: 11 }}
             />
             <Tooltip
               formatter={(v, name) => [
                 `${fmt(Number(v))} ${unit}`,
-                name === "flagged" ? "Out of control" : title,
+                name === "flagged"
+                  ? "Out of control"
+                  : name === "reject"
+                    ? "Beyond reject limit"
+                    : name === "action"
+                      ? "Beyond action limit"
+                      : title,
               ]}
             />
-            <ReferenceLine
-              y={ucl}
-              stroke="#44403c"
-              strokeDasharray="6 3"
-              label={{ value: `UCL ${fmt(ucl)}`, position: "right", fontSize: 11 }}
-            />
-            <ReferenceLine
-              y={centre}
-              stroke="#115e59"
-              label={{ value: `x̄ ${fmt(centre)}`, position: "right", fontSize: 11 }}
-            />
-            <ReferenceLine
-              y={lcl}
-              stroke="#44403c"
-              strokeDasharray="6 3"
-              label={{ value: `LCL ${fmt(lcl)}`, position: "right", fontSize: 11 }}
-            />
+            {lines.map((l, i) => (
+              <ReferenceLine
+                key={`${l.kind}-${l.label}-${i}`}
+                y={l.value}
+                stroke={LINE_STYLE[l.kind].stroke}
+                strokeDasharray={LINE_STYLE[l.kind].dash}
+                ifOverflow="extendDomain"
+                label={{ value: l.label, position: "right", fontSize: 11 }}
+              />
+            ))}
             <Line dataKey="value" stroke="#115e59" dot={{ r: 3 }} isAnimationActive={false} />
             <Scatter
               dataKey="flagged"
@@ -94,26 +131,62 @@ export function ControlChart({
               shape="cross"
               isAnimationActive={false}
             />
+            <Scatter
+              dataKey="action"
+              name="action"
+              fill="#9a3412"
+              shape="diamond"
+              isAnimationActive={false}
+            />
+            <Scatter
+              dataKey="reject"
+              name="reject"
+              fill="#7f1d1d"
+              shape="triangle"
+              isAnimationActive={false}
+            />
           </ComposedChart>
         </ResponsiveContainer>
       </div>
-      <figcaption className="mt-2 text-xs text-stone-700">
-        Individuals chart, limits x̄ ± 3·MR̄/1.128 (ASTM E2587).{" "}
-        {flagged.length === 0 ? (
-          "No point out of control."
-        ) : (
-          <span>
-            <strong>Out of control:</strong>{" "}
-            {flagged
-              .map((p) => `${formatDate(p.at)} (${fmt(p.value)} ${unit}, ${p.outOfControl})`)
-              .join("; ")}
-            .
-          </span>
-        )}{" "}
-        Moving range limit {fmt(movingRangeLimit)} {unit}
-        {movingRangeSignals.length
-          ? `; exceeded between ${movingRangeSignals.join(", ")}.`
-          : "; not exceeded."}
+      <figcaption className="mt-2 space-y-1 text-xs text-stone-700">
+        <span className="block">
+          Individuals chart, limits x̄ ± 3·MR̄/1.128 (ASTM E2587).{" "}
+          {limits.length > 0
+            ? `Plan limits drawn: ${limits.map((l) => l.label).join(", ")} ${unit}.`
+            : "No plan limits set for this value."}{" "}
+          Crosses: out of statistical control; diamonds: beyond an action limit; triangles: beyond a
+          reject limit.
+        </span>
+        <span className="block">
+          {beyond.length === 0 ? (
+            "No point beyond a plan limit."
+          ) : (
+            <>
+              <strong>Beyond plan limits:</strong>{" "}
+              {beyond
+                .map((p) => `${formatDate(p.at)} (${fmt(p.value)} ${unit}, ${p.beyondWords})`)
+                .join("; ")}
+              .
+            </>
+          )}
+        </span>
+        <span className="block">
+          {flagged.length === 0 ? (
+            "No point out of control."
+          ) : (
+            <>
+              <strong>Out of control:</strong>{" "}
+              {flagged
+                .map((p) => `${formatDate(p.at)} (${fmt(p.value)} ${unit}, ${p.outOfControl})`)
+                .join("; ")}
+              .
+            </>
+          )}{" "}
+          Moving range limit {fmt(movingRangeLimit)} {unit}
+          {movingRangeSignals.length
+            ? `; exceeded between ${movingRangeSignals.join(", ")}.`
+            : "; not exceeded."}
+        </span>
       </figcaption>
     </figure>
   );

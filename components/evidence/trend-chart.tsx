@@ -3,16 +3,18 @@
 import { useState } from "react";
 import {
   CartesianGrid,
+  ComposedChart,
   Legend,
   Line,
-  LineChart,
   ReferenceLine,
+  Scatter,
   ResponsiveContainer,
   Tooltip,
   XAxis,
   YAxis,
 } from "recharts";
 import { SelectField } from "@/components/ui/field";
+import { chartDomain } from "@/lib/evidence/chart-limits";
 import type { TrendSeries } from "@/lib/evidence/trends";
 import { formatNumber } from "@/lib/format/number";
 
@@ -27,7 +29,14 @@ export function TrendChart({ series }: { series: TrendSeries }) {
     date: p.date,
     outcome: p.outcome,
     value: p.values[group] ?? 0,
+    // Drawn again as a triangle: above the limit by shape and word, not by colour alone.
+    over: current && (p.values[group] ?? 0) > current.limit ? (p.values[group] ?? 0) : null,
   }));
+  // The axis always reaches the specification limit, however far below it the results lie.
+  const domain = chartDomain(
+    data.map((d) => d.value),
+    current ? [{ value: current.limit }] : [],
+  );
   return (
     <figure
       className="rounded-lg border border-stone-200 bg-white p-4"
@@ -43,11 +52,13 @@ export function TrendChart({ series }: { series: TrendSeries }) {
       />
       <div className="mt-3 h-72">
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={data} margin={{ left: 12, right: 24, top: 8, bottom: 8 }}>
+          <ComposedChart data={data} margin={{ left: 12, right: 24, top: 8, bottom: 8 }}>
             <CartesianGrid stroke="#e7e5e4" />
             <XAxis dataKey="date" tick={{ fontSize: 11 }} />
             <YAxis
               tick={{ fontSize: 11 }}
+              domain={domain}
+              tickFormatter={(v: number) => fmt(v)}
               label={{
                 value: `particles ${series.unit}`,
                 angle: -90,
@@ -67,6 +78,7 @@ export function TrendChart({ series }: { series: TrendSeries }) {
             {current && (
               <ReferenceLine
                 y={current.limit}
+                ifOverflow="extendDomain"
                 stroke="#7f1d1d"
                 strokeDasharray="6 3"
                 label={{
@@ -85,12 +97,19 @@ export function TrendChart({ series }: { series: TrendSeries }) {
               dot={{ r: 3 }}
               isAnimationActive={false}
             />
-          </LineChart>
+            <Scatter
+              dataKey="over"
+              name="Above the specification limit (triangle)"
+              fill="#7f1d1d"
+              shape="triangle"
+              isAnimationActive={false}
+            />
+          </ComposedChart>
         </ResponsiveContainer>
       </div>
       <figcaption className="mt-2 text-xs text-stone-600">
-        {data.length} run(s). Dashed line: the specification limit for class {group}
-        {current ? ` (${fmt(current.limit)} ${series.unit})` : ""}. Runs above it:{" "}
+        {data.length} run(s). Dashed line: the specification limit, always drawn for class {group}
+        {current ? ` (${fmt(current.limit)} ${series.unit})` : ""}. Runs above it (triangles):{" "}
         {data
           .filter((d) => current && d.value > current.limit)
           .map((d) => d.run)

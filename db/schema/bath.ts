@@ -1,5 +1,7 @@
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import { BATH_RECORD_KINDS, MAINTENANCE_KINDS } from "../enums";
+import { BATH_LIMIT_STATES, BATH_RECORD_KINDS, CHECK_RESULTS, MAINTENANCE_KINDS } from "../enums";
+import { detergents } from "./bath-plan";
+import { evidenceFiles } from "./evidence";
 import { createdAt, id } from "./columns";
 import { users } from "./people";
 import { systemStages } from "./plant";
@@ -24,7 +26,25 @@ export const bathRecords = sqliteTable(
     countPerMl4: real("count_per_ml_4"),
     countPerMl6: real("count_per_ml_6"),
     countPerMl14: real("count_per_ml_14"),
+    ph: real("ph"),
+    oilContentGPerL: real("oil_content_g_per_l"),
+    /** A titrated concentration keeps its inputs, so the % can be recomputed from what was read. */
+    titrantVolumeMl: real("titrant_volume_ml"),
+    detergentId: text("detergent_id").references(() => detergents.id),
+    titrationFactor: real("titration_factor"),
+    /** A detergent top-up: how much of which lot. */
+    additionQuantity: real("addition_quantity"),
+    additionUnit: text("addition_unit"),
+    additionLot: text("addition_lot"),
     filterDescription: text("filter_description"),
+    filterRatingUm: real("filter_rating_um"),
+    differentialPressureBar: real("differential_pressure_bar"),
+    /** Nozzle checks and ultrasonic foil tests: the result and the photo that shows it. */
+    checkResult: text("check_result", { enum: CHECK_RESULTS }),
+    photoFileId: text("photo_file_id").references(() => evidenceFiles.id),
+    /** The reading graded against the tank's measurement plan when it was recorded. */
+    limitState: text("limit_state", { enum: BATH_LIMIT_STATES }),
+    limitFindings: text("limit_findings"),
     notes: text("notes"),
     recordedBy: text("recorded_by")
       .notNull()

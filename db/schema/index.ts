@@ -13,3 +13,4 @@ export * from "./bath";
 export * from "./deviations";
 export * from "./change-subjects";
 export * from "./part-pictures";
+export * from "./bath-plan";

@@ -3,6 +3,7 @@ import {
   apiRegistry,
   auditEventPage,
   auditEventsQuery,
+  bathReadingOut,
   changeRequestDetailOut,
   changeRequestPage,
   changeRequestsQuery,
@@ -25,6 +26,7 @@ import {
 } from "@/lib/schemas/api";
 import { V1_ENDPOINTS } from "@/lib/api/v1-routes";
 import {
+  bathRecordSchema,
   conductivitySampleSchema,
   gravimetricSampleSchema,
   observationSampleSchema,
@@ -203,6 +205,17 @@ export const API_OPERATIONS: ApiOperation[] = [
     query: auditEventsQuery,
     response: auditEventPage,
     errors: [400, 401, 403],
+  },
+  {
+    method: "post",
+    path: "/bath-readings",
+    operationId: "recordBathReading",
+    summary:
+      "Record a bath reading (or another bath-log entry) for a tank; a titrant volume is turned into a concentration with the detergent's factor, and the reading is graded against the tank's action and reject limits",
+    body: bathRecordSchema,
+    response: bathReadingOut,
+    status: 201,
+    errors: [400, 401, 403, 404, 413, 415, 422, 503],
   },
 ];
 

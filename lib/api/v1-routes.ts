@@ -1,6 +1,7 @@
 import "server-only";
 import { rulesOf, type EndpointRule } from "@/lib/auth/endpoint-rule";
 import * as apiV1AuditEventsRoute from "@/app/api/v1/audit-events/route";
+import * as apiV1BathReadingsRoute from "@/app/api/v1/bath-readings/route";
 import * as apiV1ChangeRequestsChangerequestidRoute from "@/app/api/v1/change-requests/[changeRequestId]/route";
 import * as apiV1ChangeRequestsRoute from "@/app/api/v1/change-requests/route";
 import * as apiV1CleaningSystemsRoute from "@/app/api/v1/cleaning-systems/route";
@@ -21,6 +22,7 @@ import * as apiV1TestRunsRoute from "@/app/api/v1/test-runs/route";
  */
 export const V1_ROUTE_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/v1/audit-events/route.ts": apiV1AuditEventsRoute,
+  "app/api/v1/bath-readings/route.ts": apiV1BathReadingsRoute,
   "app/api/v1/change-requests/[changeRequestId]/route.ts": apiV1ChangeRequestsChangerequestidRoute,
   "app/api/v1/change-requests/route.ts": apiV1ChangeRequestsRoute,
   "app/api/v1/cleaning-systems/route.ts": apiV1CleaningSystemsRoute,

@@ -1,7 +1,10 @@
 import { z } from "zod";
 import {
   API_TOKEN_SCOPES,
+  BATH_CHEMISTRY_KEYS,
+  BATH_LIMIT_STATES,
   BATH_RECORD_KINDS,
+  CHECK_RESULTS,
   CHANGE_KINDS,
   CHANGE_STATUSES,
   DOCUMENT_STATUSES,
@@ -482,6 +485,20 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       countPerMl14: z.number().nullish(),
       filterDescription: text.nullish(),
       notes: text.nullish(),
+      // Since the measurement plan (2026-12): earlier events carry none of these.
+      ph: z.number().nullish(),
+      oilContentGPerL: z.number().nullish(),
+      titrantVolumeMl: z.number().nullish(),
+      detergent: text.nullish(),
+      titrationFactor: z.number().nullish(),
+      additionQuantity: z.number().nullish(),
+      additionUnit: text.nullish(),
+      additionLot: text.nullish(),
+      filterRatingUm: z.number().nullish(),
+      differentialPressureBar: z.number().nullish(),
+      checkResult: z.enum(CHECK_RESULTS).nullish(),
+      photoFileId: id.nullish(),
+      limitState: z.enum(BATH_LIMIT_STATES).nullish(),
     }),
   }),
   event("maintenance_interval.set", "maintenance_interval", {
@@ -663,6 +680,53 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       mimeType: z.enum(["image/png", "image/jpeg"]),
       sizeBytes: z.number().int(),
     }),
+  }),
+  // Bath chemistry: detergent register, measurement plan, readings beyond their reject limit
+  event("detergent.saved", "detergent", {
+    old: obj({
+      name: text,
+      supplier: text.nullable(),
+      titrationMethod: text.nullable(),
+      factorPctPerMl: z.number(),
+    })
+      .nullable()
+      .default(null),
+    new: obj({
+      name: text,
+      supplier: text.nullable(),
+      titrationMethod: text.nullable(),
+      factorPctPerMl: z.number(),
+    }),
+  }),
+  event("bath_limit.set", "bath_limit", {
+    old: obj({
+      recipeVersionId: id,
+      target: z.number().nullable(),
+      actionLow: z.number().nullable(),
+      actionHigh: z.number().nullable(),
+      rejectLow: z.number().nullable(),
+      rejectHigh: z.number().nullable(),
+    })
+      .nullable()
+      .default(null),
+    new: obj({
+      tank: text,
+      variable: z.enum(BATH_CHEMISTRY_KEYS),
+      recipe: text,
+      recipeVersionId: id,
+      detergent: text.nullable(),
+      target: z.number().nullable(),
+      actionLow: z.number().nullable(),
+      actionHigh: z.number().nullable(),
+      rejectLow: z.number().nullable(),
+      rejectHigh: z.number().nullable(),
+    }),
+  }),
+  event("bath_record.flagged", "bath_record", {
+    new: obj({ tank: text, state: z.enum(BATH_LIMIT_STATES), findings: z.array(text) }),
+  }),
+  event("evidence_file.check_photo_uploaded", "evidence_file", {
+    new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
   }),
 ]);
 

@@ -9,6 +9,7 @@ import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDeviationsActions from "@/app/(app)/deviations/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
+import * as appEvidenceBathActions from "@/app/(app)/evidence/bath/actions";
 import * as appPartsActions from "@/app/(app)/parts/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
 import * as appSystemsSystemidRecipesNewActions from "@/app/(app)/systems/[systemId]/recipes/new/actions";
@@ -17,6 +18,7 @@ import * as authSetUpActions from "@/app/(auth)/set-up/actions";
 import * as authSignInActions from "@/app/(auth)/sign-in/actions";
 import * as apiAuditEventsExportRoute from "@/app/api/audit-events/export/route";
 import * as apiAuditEventsRoute from "@/app/api/audit-events/route";
+import * as apiBathPhotosRoute from "@/app/api/bath/photos/route";
 import * as apiAuditPackChangeidRoute from "@/app/api/audit-pack/[changeId]/route";
 import * as apiDocumentsDocumentidVersionsVersionPdfRoute from "@/app/api/documents/[documentId]/versions/[version]/pdf/route";
 import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/route";
@@ -51,6 +53,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/deviations/actions.ts": appDeviationsActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
+  "app/(app)/evidence/bath/actions.ts": appEvidenceBathActions,
   "app/(app)/parts/actions.ts": appPartsActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
   "app/(app)/systems/[systemId]/recipes/new/actions.ts": appSystemsSystemidRecipesNewActions,
@@ -60,6 +63,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/audit-events/export/route.ts": apiAuditEventsExportRoute,
   "app/api/audit-events/route.ts": apiAuditEventsRoute,
   "app/api/audit-pack/[changeId]/route.ts": apiAuditPackChangeidRoute,
+  "app/api/bath/photos/route.ts": apiBathPhotosRoute,
   "app/api/documents/[documentId]/versions/[version]/pdf/route.ts":
     apiDocumentsDocumentidVersionsVersionPdfRoute,
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,

@@ -30,6 +30,9 @@ export const MAINTENANCE_LABELS: Record<BathRecordKind, string> = {
   bath_change: "Bath change",
   filter_change: "Filter change",
   reading: "Bath reading",
+  addition: "Detergent top-up",
+  nozzle_check: "Nozzle check",
+  ultrasonic_foil_test: "Ultrasonic foil test",
 };
 
 export const STATE_LABELS: Record<MaintenanceState, string> = {
@@ -43,5 +46,7 @@ export const BATH_VARIABLES = {
   concentrationPct: { label: "Detergent concentration", unit: "%" },
   conductivityUsPerCm: { label: "Bath conductivity", unit: "µS/cm" },
   temperatureC: { label: "Bath temperature", unit: "°C" },
+  ph: { label: "pH", unit: "pH" },
+  oilContentGPerL: { label: "Oil content", unit: "g/L" },
 } as const;
 export type BathVariable = keyof typeof BATH_VARIABLES;

@@ -447,3 +447,24 @@ export const sampleAddedOut = named(
   "SampleAdded",
   z.object({ sampleId: z.string(), run: testRunDetailOut }),
 );
+
+export const bathReadingOut = named(
+  "BathReadingRecorded",
+  z.object({
+    id: z.string(),
+    stageId: z.string(),
+    kind: z.string(),
+    performedAt: z.string().describe("UTC"),
+    concentrationPct: z
+      .number()
+      .nullable()
+      .describe("Entered, or computed from the titrant volume × the detergent's factor"),
+    limitState: z
+      .enum(["ok", "action", "reject"])
+      .nullable()
+      .describe(
+        "Against the tank's measurement plan; null when the tank has no plan line for the values",
+      ),
+    findings: z.array(z.string()).describe("One sentence per value beyond a limit"),
+  }),
+);

@@ -2,7 +2,13 @@ import { z } from "zod";
 import "./messages";
 import { calendarDate, calendarDateTime } from "./date";
 import { auditReason, optionalAuditReason, storedText } from "@/lib/schemas/text";
-import { BATH_RECORD_KINDS, EVIDENCE_FILE_KINDS, MAINTENANCE_KINDS, TEST_TYPES } from "@/db/enums";
+import {
+  BATH_RECORD_KINDS,
+  CHECK_RESULTS,
+  EVIDENCE_FILE_KINDS,
+  MAINTENANCE_KINDS,
+  TEST_TYPES,
+} from "@/db/enums";
 
 /** ISO 16232 size classes B…N, as form field suffixes and CSV columns. */
 export const CLASS_KEYS = [
@@ -28,21 +34,27 @@ const toNumber = (v: unknown) =>
   blank(v) ? undefined : typeof v === "string" ? Number(v.trim().replace(",", ".")) : v;
 
 /** An optional number typed into a form: empty means "not measured". */
-function optionalNumber(label: string, opts: { min?: number; max?: number; int?: boolean } = {}) {
+export function optionalNumber(
+  label: string,
+  opts: { min?: number; max?: number; int?: boolean } = {},
+) {
   let n = z.number({ error: `${label} must be a number.` }).finite(`${label} must be a number.`);
   if (opts.int) n = n.int(`${label} must be a whole number.`);
   if (opts.min !== undefined) n = n.min(opts.min, `${label} must be at least ${opts.min}.`);
   if (opts.max !== undefined) n = n.max(opts.max, `${label} must be at most ${opts.max}.`);
   return z.preprocess(toNumber, n.optional());
 }
-function requiredNumber(label: string, opts: { min?: number; max?: number; int?: boolean } = {}) {
+export function requiredNumber(
+  label: string,
+  opts: { min?: number; max?: number; int?: boolean } = {},
+) {
   let n = z.number({ error: `Enter ${label.toLowerCase()}.` }).finite(`${label} must be a number.`);
   if (opts.int) n = n.int(`${label} must be a whole number.`);
   if (opts.min !== undefined) n = n.min(opts.min, `${label} must be at least ${opts.min}.`);
   if (opts.max !== undefined) n = n.max(opts.max, `${label} must be at most ${opts.max}.`);
   return z.preprocess(toNumber, n);
 }
-const optionalText = (max: number) =>
+export const optionalText = (max: number) =>
   z.preprocess(
     (v) => (blank(v) ? undefined : v),
     storedText().trim().max(max, `Use at most ${max} characters.`).optional(),
@@ -281,10 +293,61 @@ export const bathRecordSchema = z
     countPerMl4: optionalNumber("Particles ≥ 4 µm(c) per mL", { min: 0, max: 1e9 }),
     countPerMl6: optionalNumber("Particles ≥ 6 µm(c) per mL", { min: 0, max: 1e9 }),
     countPerMl14: optionalNumber("Particles ≥ 14 µm(c) per mL", { min: 0, max: 1e9 }),
+    ph: optionalNumber("pH", { min: 0, max: 14 }),
+    oilContentGPerL: optionalNumber("Oil content (g/L)", { min: 0, max: 1000 }),
+    // A titration: the concentration is computed from the volume and the detergent's factor.
+    titrantVolumeMl: optionalNumber("Titrant volume (mL)", { min: 0, max: 1000 }),
+    detergentId: z.preprocess(
+      (v) => (blank(v) ? undefined : v),
+      z.uuid("Choose the detergent from the list.").optional(),
+    ),
+    additionQuantity: optionalNumber("Quantity added", { min: 0, max: 100_000 }),
+    additionUnit: z.preprocess(
+      (v) => (blank(v) ? undefined : v),
+      z.enum(["L", "kg"], { error: "Choose L or kg." }).optional(),
+    ),
+    additionLot: optionalText(100),
     filterDescription: optionalText(200),
+    filterRatingUm: optionalNumber("Filter rating (µm)", { min: 0, max: 10_000 }),
+    differentialPressureBar: optionalNumber("Differential pressure (bar)", { min: 0, max: 100 }),
+    checkResult: z.preprocess(
+      (v) => (blank(v) ? undefined : v),
+      z.enum(CHECK_RESULTS, { error: "Choose pass or fail." }).optional(),
+    ),
+    photoFileId: z.preprocess(
+      (v) => (blank(v) ? undefined : v),
+      z.uuid("Upload the photo again.").optional(),
+    ),
     notes: optionalText(1000),
   })
   .superRefine((r, ctx) => {
+    if (r.titrantVolumeMl !== undefined && r.concentrationPct !== undefined)
+      ctx.addIssue({
+        code: "custom",
+        path: ["concentrationPct"],
+        message:
+          "Enter the titrant volume or the concentration, not both: the titration gives the concentration.",
+      });
+    if (r.kind === "addition" && (r.additionQuantity === undefined || !r.additionLot))
+      ctx.addIssue({
+        code: "custom",
+        path: [r.additionQuantity === undefined ? "additionQuantity" : "additionLot"],
+        message: "A top-up needs the quantity added and the detergent lot.",
+      });
+    if (r.additionQuantity !== undefined && !r.additionUnit)
+      ctx.addIssue({ code: "custom", path: ["additionUnit"], message: "Choose L or kg." });
+    if (
+      r.kind === "filter_change" &&
+      (r.filterRatingUm === undefined || r.differentialPressureBar === undefined)
+    )
+      ctx.addIssue({
+        code: "custom",
+        path: [r.filterRatingUm === undefined ? "filterRatingUm" : "differentialPressureBar"],
+        message:
+          "A filter change records the filter's rating (µm) and the differential pressure before the change (bar).",
+      });
+    if ((r.kind === "nozzle_check" || r.kind === "ultrasonic_foil_test") && !r.checkResult)
+      ctx.addIssue({ code: "custom", path: ["checkResult"], message: "Choose pass or fail." });
     const counts = [r.countPerMl4, r.countPerMl6, r.countPerMl14];
     const given = counts.filter((c) => c !== undefined).length;
     if (given !== 0 && given !== 3)
@@ -303,7 +366,14 @@ export const bathRecordSchema = z
     if (
       r.kind === "reading" &&
       given === 0 &&
-      [r.concentrationPct, r.conductivityUsPerCm, r.temperatureC].every((v) => v === undefined)
+      [
+        r.concentrationPct,
+        r.titrantVolumeMl,
+        r.ph,
+        r.oilContentGPerL,
+        r.conductivityUsPerCm,
+        r.temperatureC,
+      ].every((v) => v === undefined)
     ) {
       ctx.addIssue({
         code: "custom",

@@ -850,6 +850,48 @@ const SAMPLES = {
       sizeBytes: 48213,
     },
   },
+  // lib/server/bath/*.ts (measurement plan)
+  "detergent.saved": {
+    eventType: "detergent.saved",
+    recordType: "detergent",
+    recordId: UUID,
+    old: null,
+    new: { name: "Alkaline cleaner A", supplier: null, titrationMethod: null, factorPctPerMl: 0.5 },
+  },
+  "bath_limit.set": {
+    eventType: "bath_limit.set",
+    recordType: "bath_limit",
+    recordId: UUID,
+    old: null,
+    new: {
+      tank: "Wash tank",
+      variable: "concentrationPct",
+      recipe: "R-100 v2",
+      recipeVersionId: UUID,
+      detergent: "Alkaline cleaner A",
+      target: 3,
+      actionLow: 2.5,
+      actionHigh: 3.5,
+      rejectLow: 2,
+      rejectHigh: 4,
+    },
+  },
+  "bath_record.flagged": {
+    eventType: "bath_record.flagged",
+    recordType: "bath_record",
+    recordId: UUID,
+    new: {
+      tank: "Wash tank",
+      state: "reject",
+      findings: ["Detergent concentration 4.4 % is above the reject limit 4 %"],
+    },
+  },
+  "evidence_file.check_photo_uploaded": {
+    eventType: "evidence_file.check_photo_uploaded",
+    recordType: "evidence_file",
+    recordId: UUID,
+    new: { sha256: H, name: "foil.jpg", mimeType: "image/jpeg", sizeBytes: 2048, storedNew: true },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

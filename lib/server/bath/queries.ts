@@ -1,14 +1,19 @@
 import "server-only";
-import { asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import {
   bathRecords,
   cleaningSystems,
+  detergents,
+  recipes,
+  recipeVersions,
   maintenanceIntervals,
   systemStages,
   users,
 } from "@/db/schema";
 import { maintenanceStatus, type MaintenanceStatus } from "@/lib/evidence/maintenance";
+import { bathAge } from "./bath-age";
+import { loadBathPlan } from "./plan";
 
 export interface MaintenanceItem {
   intervalId: string;
@@ -85,5 +90,36 @@ export async function getTank(stageId: string, now = new Date()) {
     .where(eq(bathRecords.stageId, stageId))
     .orderBy(asc(bathRecords.performedAt));
   const maintenance = (await listMaintenance(now)).filter((m) => m.stageId === stageId);
-  return { ...row, records, maintenance };
+  const [plan, age, versions] = await Promise.all([
+    loadBathPlan(db, stageId),
+    bathAge(db, stageId, now),
+    db
+      .select({ id: recipeVersions.id, code: recipes.code, version: recipeVersions.version })
+      .from(recipeVersions)
+      .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+      .where(and(eq(recipes.systemId, row.system.id), eq(recipeVersions.status, "effective")))
+      .orderBy(asc(recipes.code)),
+  ]);
+  return { ...row, records, maintenance, plan, age, effectiveVersions: versions };
+}
+
+/** The detergent register, by name. */
+export async function listDetergents() {
+  return getDb().select().from(detergents).orderBy(asc(detergents.name));
+}
+
+/** Each tank's latest graded reading: its state against the plan and what was beyond a limit. */
+export async function latestGradedByTank() {
+  const rows = await getDb()
+    .select({
+      stageId: bathRecords.stageId,
+      performedAt: bathRecords.performedAt,
+      limitState: bathRecords.limitState,
+      limitFindings: bathRecords.limitFindings,
+    })
+    .from(bathRecords)
+    .where(
+      sql`${bathRecords.limitState} is not null and not exists (select 1 from bath_records later where later.stage_id = ${bathRecords.stageId} and later.limit_state is not null and later.performed_at > ${bathRecords.performedAt})`,
+    );
+  return new Map(rows.map((r) => [r.stageId, r]));
 }

@@ -3,6 +3,7 @@ import { z } from "zod";
 import type { SessionUser } from "@/lib/server/auth/sessions";
 import { documentQueueProvider } from "@/lib/server/documents/queue-provider";
 import { bathQueueProvider } from "@/lib/server/bath/queue-provider";
+import { bathLimitsQueueProvider } from "@/lib/server/bath/limits-queue-provider";
 import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
 import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
 import { deviationQueueProvider } from "@/lib/server/deviations/queue-provider";
@@ -16,6 +17,7 @@ const PROVIDERS: QueueProvider[] = [
   documentQueueProvider,
   evidenceQueueProvider,
   bathQueueProvider,
+  bathLimitsQueueProvider,
   changeQueueProvider,
   deviationQueueProvider,
 ];

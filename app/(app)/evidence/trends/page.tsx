@@ -42,6 +42,7 @@ export default async function TrendsPage({
     ? bathControlChart(
         tank.records.map((r) => ({ performedAt: r.record.performedAt, values: r.record })),
         variable,
+        tank.plan.find((l) => l.variable === variable) ?? null,
       )
     : null;
   return (

@@ -1,0 +1,67 @@
+/** A horizontal line on a chart: a specification, action, reject or statistical limit, or a centre line. */
+export interface ChartLimit {
+  kind: "spec" | "action" | "reject" | "control" | "centre" | "target";
+  /** Shown beside the line, e.g. "Reject high 3.5". */
+  label: string;
+  value: number;
+  /** Which side the line bounds, where known; otherwise read from the target or centre line. */
+  side?: "low" | "high";
+}
+
+export const LIMIT_KIND_WORDS: Record<ChartLimit["kind"], string> = {
+  spec: "specification limit",
+  action: "action limit",
+  reject: "reject limit",
+  control: "control limit",
+  centre: "centre line",
+  target: "target",
+};
+
+/**
+ * The y-axis range that holds every point and every limit line, with a margin of 5 % of the span
+ * on each side, so a limit far from the data is still drawn (an "auto" axis fits the data only and
+ * the line silently falls off the chart). A flat series with no limits gets ±1 around its value.
+ */
+export function chartDomain(values: number[], limits: { value: number }[]): [number, number] {
+  const all = [...values, ...limits.map((l) => l.value)].filter(Number.isFinite);
+  if (all.length === 0) return [0, 1];
+  let low = Math.min(...all);
+  let high = Math.max(...all);
+  if (low === high) {
+    const pad = low === 0 ? 1 : Math.abs(low) * 0.1;
+    return [low - pad, high + pad];
+  }
+  const margin = (high - low) * 0.05;
+  // Counts and concentrations never go negative: don't draw an axis below zero for them.
+  low = low >= 0 && low - margin < 0 ? 0 : low - margin;
+  high = high + margin;
+  return [low, high];
+}
+
+/**
+ * Which limits a point lies beyond: above an upper line of its kind or below a lower one. Limits
+ * come in pairs per kind around the centre of the data; a single limit of a kind (a specification
+ * maximum) is read as an upper limit unless it lies below the target or centre line.
+ */
+export function pointBeyond(value: number, limits: ChartLimit[]): ChartLimit[] {
+  const middle =
+    limits.find((l) => l.kind === "target")?.value ??
+    limits.find((l) => l.kind === "centre")?.value;
+  const out: ChartLimit[] = [];
+  for (const l of limits) {
+    if (l.kind === "centre" || l.kind === "target") continue;
+    const isLower = l.side ? l.side === "low" : middle !== undefined ? l.value < middle : false;
+    if (isLower ? value < l.value : value > l.value) out.push(l);
+  }
+  return out;
+}
+
+/** The words a point beyond its limits carries beside its marker, worst first. */
+export function beyondWords(beyond: ChartLimit[]): string | null {
+  if (beyond.length === 0) return null;
+  const order: ChartLimit["kind"][] = ["reject", "spec", "action", "control"];
+  return [...beyond]
+    .sort((a, b) => order.indexOf(a.kind) - order.indexOf(b.kind))
+    .map((l) => `beyond ${l.label}`)
+    .join("; ");
+}

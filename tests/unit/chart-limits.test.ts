@@ -1,0 +1,88 @@
+import { describe, expect, it } from "vitest";
+import { bathControlChart } from "@/lib/evidence/bath-chart";
+import {
+  beyondWords,
+  chartDomain,
+  pointBeyond,
+  type ChartLimit,
+} from "@/lib/evidence/chart-limits";
+
+describe("chart domain", () => {
+  it("extends the axis to a limit far outside the data, so its line is drawn", () => {
+    // Readings around 3 % with a reject limit at 6 %: an axis fitted to the data would end near 3.2.
+    const [low, high] = chartDomain([2.9, 3.0, 3.1], [{ value: 6 }, { value: 1 }]);
+    expect(low).toBeLessThanOrEqual(1);
+    expect(high).toBeGreaterThanOrEqual(6);
+  });
+  it("keeps every point in range when the limits are inside the data", () => {
+    const [low, high] = chartDomain([10, 50, 90], [{ value: 40 }, { value: 60 }]);
+    expect(low).toBeLessThan(10);
+    expect(high).toBeGreaterThan(90);
+  });
+  it("does not draw below zero for positive data, and widens a flat series", () => {
+    expect(chartDomain([0.1, 5], [])[0]).toBe(0);
+    expect(chartDomain([4, 4], [])).toEqual([3.6, 4.4]);
+    expect(chartDomain([], [])).toEqual([0, 1]);
+    // Negative values (a temperature below zero) keep their margin.
+    expect(chartDomain([-10, 10], [])).toEqual([-11, 11]);
+  });
+});
+
+describe("points beyond limits", () => {
+  const limits: ChartLimit[] = [
+    { kind: "target", label: "target 3", value: 3 },
+    { kind: "action", label: "action low 2.5", value: 2.5 },
+    { kind: "action", label: "action high 3.5", value: 3.5 },
+    { kind: "reject", label: "reject high 4", value: 4 },
+  ];
+  it("names each limit a point lies beyond, worst first", () => {
+    expect(pointBeyond(3.2, limits)).toEqual([]);
+    const beyond = pointBeyond(4.2, limits);
+    expect(beyond.map((l) => l.kind)).toEqual(["action", "reject"]);
+    expect(beyondWords(beyond)).toBe("beyond reject high 4; beyond action high 3.5");
+    expect(pointBeyond(2.4, limits).map((l) => l.label)).toEqual(["action low 2.5"]);
+    expect(beyondWords([])).toBeNull();
+  });
+  it("uses the side a limit bounds when there is no target to read it from", () => {
+    const band: ChartLimit[] = [
+      { kind: "action", label: "action low 2.5", value: 2.5, side: "low" },
+      { kind: "action", label: "action high 3.5", value: 3.5, side: "high" },
+    ];
+    expect(pointBeyond(3, band)).toEqual([]);
+    expect(pointBeyond(2, band).map((l) => l.label)).toEqual(["action low 2.5"]);
+  });
+  it("reads a lone specification limit as a maximum", () => {
+    expect(pointBeyond(120, [{ kind: "spec", label: "limit 100", value: 100 }])).toHaveLength(1);
+    expect(pointBeyond(80, [{ kind: "spec", label: "limit 100", value: 100 }])).toHaveLength(0);
+  });
+});
+
+describe("bath control chart", () => {
+  const records = [2.9, 3.0, 3.1, 3.0, 4.3].map((v, i) => ({
+    performedAt: `2026-06-0${i + 1}T08:00:00.000Z`,
+    values: { concentrationPct: v },
+  }));
+  const plan = { target: 3, actionLow: 2.5, actionHigh: 3.5, rejectLow: 1, rejectHigh: 4 };
+  it("draws the plan's limits with the statistical ones and a range holding all of them", () => {
+    const chart = bathControlChart(records, "concentrationPct", plan)!;
+    expect(chart.limits.map((l) => l.label)).toEqual([
+      "target 3",
+      "action low 2.5",
+      "action high 3.5",
+      "reject low 1",
+      "reject high 4",
+    ]);
+    // The reject low at 1 % lies far below every reading: the axis still reaches it.
+    expect(chart.domain[0]).toBeLessThanOrEqual(1);
+    expect(chart.domain[1]).toBeGreaterThanOrEqual(Math.max(4.3, chart.ucl));
+    const last = chart.points.at(-1)!;
+    expect(last.beyondLimit).toBe("reject");
+    expect(last.beyondWords).toBe("beyond reject high 4; beyond action high 3.5");
+    expect(chart.points[0].beyondLimit).toBeNull();
+  });
+  it("still charts a value with no plan line, with its statistical limits only", () => {
+    const chart = bathControlChart(records, "concentrationPct")!;
+    expect(chart.limits).toEqual([]);
+    expect(chart.domain[1]).toBeGreaterThanOrEqual(chart.ucl);
+  });
+});
