@@ -26,3 +26,23 @@ test("during requalification the engineer's next step opens a run for the missin
     "Particle cleanliness on 29 parts",
   );
 });
+
+test("the audit trail names records by number and name and shows values in words, not ids and JSON", async ({
+  page,
+}) => {
+  await signInAs(page, "auditor");
+  await page.goto("/trace/audit?eventType=test_run.created");
+  const table = page.getByRole("table", { name: "Audit events, newest first" });
+  await expect(table).toContainText("TR-0001 · Particle cleanliness on PF-VB-210", {
+    timeout: 30_000,
+  });
+  await expect(table).toContainText("Part family: PF-VB-210 · Valve body VB-210");
+  await expect(table).toContainText("Technician: Ravi Menon");
+  await expect(table).not.toContainText(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-/);
+
+  await page.goto("/trace/audit?eventType=change.opened");
+  await expect(table).toContainText("CR-2025-001 · Raise valve-body wash temperature to 60 °C", {
+    timeout: 30_000,
+  });
+  await expect(table).not.toContainText("{");
+});
