@@ -360,6 +360,12 @@ export const testRunOut = named(
 export const testRunDetailOut = named(
   "TestRunDetail",
   testRunOut.extend({
+    runData: z
+      .record(z.string(), z.unknown())
+      .nullable()
+      .describe(
+        "Run-level raw data: a particle test's extraction series and blank, null until recorded",
+      ),
     samples: z.array(
       z.object({
         id: z.string(),
@@ -446,4 +452,16 @@ export type AuditEventOut = z.infer<typeof auditEventOut>;
 export const sampleAddedOut = named(
   "SampleAdded",
   z.object({ sampleId: z.string(), run: testRunDetailOut }),
+);
+
+export const fileAttachedOut = named(
+  "FileAttached",
+  z.object({
+    fileId: z.string(),
+    sha256: z.string(),
+    created: z
+      .boolean()
+      .describe("False when these bytes were already stored (for another run); they are kept once"),
+    run: testRunDetailOut,
+  }),
 );
