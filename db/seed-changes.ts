@@ -65,7 +65,7 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     .values({
       version: 1,
       status: "effective",
-      note: 'First matrix, after product.md "Change impact"; 95 % confidence, 90 % reliability.',
+      note: "First matrix: each kind of change with the tests that requalify it, at 95 % confidence and 90 % reliability.",
       createdAt: "2025-02-20T09:00:00.000Z",
     })
     .returning();

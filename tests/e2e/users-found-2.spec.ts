@@ -1,4 +1,12 @@
-import { expect, signInAs, test } from "./fixtures";
+import type { Browser } from "@playwright/test";
+import { DEMO_PASSWORD, expect, signInAs, test, type DemoRole } from "./fixtures";
+
+async function as(browser: Browser, role: DemoRole, url: string) {
+  const page = await (await browser.newContext()).newPage();
+  await signInAs(page, role);
+  await page.goto(url);
+  return page;
+}
 
 // Second round of what users found (issue #18): one test per screen item.
 
@@ -45,4 +53,85 @@ test("the audit trail names records by number and name and shows values in words
     timeout: 30_000,
   });
   await expect(table).not.toContainText("{");
+});
+
+test("a validation report opens with report wording and the results of the runs on its part family and recipe version", async ({
+  page,
+}) => {
+  await signInAs(page, "engineer");
+  await page.goto("/documents/new");
+  await page.getByLabel("Kind of document").selectOption({ label: "Validation report" });
+  await page.getByLabel("Title").fill("First PQ report, valve bodies");
+  await page
+    .getByLabel("Cleaning system")
+    .selectOption({ label: "AW-3 — Three-tank aqueous washer" });
+  await page.getByLabel("Part family").selectOption({ label: "PF-VB-210 — Valve body VB-210" });
+  await page
+    .getByLabel("Recipe version")
+    .selectOption({ label: "R-AW3-VB version 1 (superseded) — Valve body, ultrasonic" });
+  await page.getByRole("button", { name: "Create draft from template" }).click();
+  const editor = page.getByRole("textbox", { name: "Document text" });
+  await expect(editor).toContainText("It records the runs performed");
+  await expect(editor).not.toContainText("before the first run");
+  await expect(editor).toContainText("TR-0001 (");
+});
+
+test("on the second round the reviewer sees what changed since sending it back; the author sees the comment and the reviewers are remembered", async ({
+  page,
+  browser,
+}) => {
+  test.setTimeout(180_000);
+  await signInAs(page, "engineer");
+  await page.goto("/documents/new");
+  await page.getByLabel("Kind of document").selectOption({ label: "Procedure" });
+  await page.getByLabel("Title").fill("Loading the spray-washer basket");
+  await page.getByRole("button", { name: "Create draft from template" }).click();
+  const editor = page.getByRole("textbox", { name: "Document text" });
+  await editor.getByText("Record the result.", { exact: true }).click();
+  await page.keyboard.press("End");
+  await page.keyboard.type(" Load ten parts per layer.");
+  await expect(page.getByRole("status").filter({ hasText: "All changes saved" })).toBeVisible();
+  await page.getByRole("link", { name: "Back to the document" }).click();
+  const documentUrl = page.url();
+
+  await page.getByRole("button", { name: "Submit for review" }).click();
+  let dialog = page.getByRole("dialog");
+  await dialog.getByRole("checkbox", { name: /Tomas Brandt/ }).check();
+  await dialog.getByLabel("Approver").selectOption({ label: "Helena Okafor (Quality manager)" });
+  await dialog.getByLabel("Your password").fill(DEMO_PASSWORD);
+  await dialog.getByRole("button", { name: "Sign", exact: true }).click();
+  await expect(page.getByRole("region", { name: "Routing" })).toContainText("Tomas Brandt");
+
+  const reviewer = await as(browser, "reviewer", documentUrl);
+  const sendBack = reviewer.getByRole("form", { name: "Send back" });
+  await sendBack.getByLabel("What must change").fill("Say which layer is the worst case.");
+  await sendBack.getByRole("button", { name: "Send back" }).click();
+  await expect(reviewer.getByRole("region", { name: "Routing" })).toContainText("Sent back");
+
+  // The author edits with the comment in view.
+  await page.goto(documentUrl.replace(/\?.*$/, "") + "/edit");
+  await expect(page.getByRole("region", { name: "Returned with comments" })).toContainText(
+    "Say which layer is the worst case.",
+  );
+  await editor.getByText(/Load ten parts per layer\./).click();
+  await page.keyboard.press("End");
+  await page.keyboard.type(" The lowest layer is the worst case.");
+  await expect(page.getByRole("status").filter({ hasText: "All changes saved" })).toBeVisible();
+  await page.getByRole("link", { name: "Back to the document" }).click();
+
+  // Resubmitting starts from the last round's reviewer and approver.
+  await page.getByRole("button", { name: "Submit for review" }).click();
+  dialog = page.getByRole("dialog");
+  await expect(dialog.getByRole("checkbox", { name: /Tomas Brandt/ })).toBeChecked();
+  await expect(dialog.getByLabel("Approver")).not.toHaveValue("");
+  await dialog.getByLabel("Your password").fill(DEMO_PASSWORD);
+  await dialog.getByRole("button", { name: "Sign", exact: true }).click();
+  await expect(page.getByRole("region", { name: "Version 1" })).toContainText("In review");
+
+  await reviewer.reload();
+  const changed = reviewer.getByRole("region", { name: "Changed since round 1" });
+  await expect(changed).toContainText("Say which layer is the worst case.");
+  await expect(changed.getByTestId("redline").locator("ins")).toContainText(
+    "The lowest layer is the worst case.",
+  );
 });
