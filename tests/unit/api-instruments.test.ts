@@ -36,7 +36,11 @@ const json = (path: string, token: string, body: unknown) =>
     headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
     body: JSON.stringify(body),
   });
-const params = (p: Record<string, string> = {}) => ({ params: Promise.resolve(p) });
+function params(): { params: Promise<Record<string, string>> };
+function params<P extends Record<string, string>>(p: P): { params: Promise<P> };
+function params(p: Record<string, string> = {}) {
+  return { params: Promise.resolve(p) };
+}
 const runBody = () => ({
   partFamilyId: familyId,
   recipeVersionId: versionId,
