@@ -135,3 +135,39 @@ test("on the second round the reviewer sees what changed since sending it back; 
     "The lowest layer is the worst case.",
   );
 });
+
+test("two tabs: after the other tab saves again, Save my text over theirs says so and then saves over the newest text", async ({
+  page,
+}) => {
+  await signInAs(page, "engineer");
+  await page.goto("/documents/new");
+  await page.getByLabel("Kind of document").selectOption({ label: "Procedure" });
+  await page.getByLabel("Title").fill("Two tabs on the rinse procedure");
+  await page.getByRole("button", { name: "Create draft from template" }).click();
+  await expect(page).toHaveURL(/\/edit/);
+  const tabB = await page.context().newPage();
+  await tabB.goto(page.url());
+
+  const type = async (tab: typeof page, text: string) => {
+    await tab
+      .getByRole("textbox", { name: "Document text" })
+      .getByText("Record the result.", { exact: true })
+      .click();
+    await tab.keyboard.press("End");
+    await tab.keyboard.type(text);
+  };
+  await type(page, " Tab A.");
+  await expect(page.getByRole("status").filter({ hasText: "All changes saved" })).toBeVisible();
+  await type(tabB, " Tab B.");
+  const alert = tabB.getByRole("alert");
+  await expect(alert).toContainText("Someone saved this draft after you opened it.");
+  await type(page, " Tab A again.");
+  await expect(page.getByRole("status").filter({ hasText: "All changes saved" })).toBeVisible();
+
+  await alert.getByRole("button", { name: "Save my text over theirs" }).click();
+  await expect(alert).toContainText("They saved again at");
+  await alert.getByRole("button", { name: "Save my text over theirs" }).click();
+  await expect(tabB.getByRole("status").filter({ hasText: "All changes saved" })).toBeVisible();
+  await page.reload();
+  await expect(page.getByRole("textbox", { name: "Document text" })).toContainText("Tab B.");
+});

@@ -189,3 +189,39 @@ describe("the validation-report template", () => {
     );
   });
 });
+
+describe("two tabs on one draft", () => {
+  it("saving over theirs after they saved again says so, and the next press replaces their newest text", async () => {
+    const { versionId } = await createDocument(people.author, {
+      type: "procedure",
+      title: "Two tabs",
+      systemId: null,
+      partFamilyId: null,
+      recipeVersionId: null,
+      confidencePct: 95,
+      reliabilityPct: 90,
+    });
+    const save = (lockVersion: number, text: string, overwrite = false, at = NOW) =>
+      saveDraft(people.author, { versionId, lockVersion, content: doc(p(text)), overwrite }, at);
+    expect(await save(0, "Tab A, first")).toMatchObject({ ok: true, lockVersion: 1 });
+    const conflict = await save(0, "Tab B");
+    expect(conflict).toMatchObject({ ok: false, currentLockVersion: 1 });
+    // Tab A saves again while tab B's author decides.
+    await save(1, "Tab A, again", false, new Date("2026-05-04T08:05:07.000Z"));
+    const overStale = await save(1, "Tab B", true);
+    expect(overStale).toMatchObject({ ok: false, currentLockVersion: 2 });
+    if (overStale.ok) throw new Error("saved over a text the author had not been told about");
+    expect(overStale.message).toBe(
+      "They saved again at 08:05:07 UTC, after the text you chose to replace. Nothing was saved: press “Save my text over theirs” again to replace their newest text, or load theirs.",
+    );
+    expect(await save(overStale.currentLockVersion, "Tab B", true)).toMatchObject({
+      ok: true,
+      lockVersion: 3,
+    });
+    const [row] = await t.db
+      .select()
+      .from(documentVersions)
+      .where(eq(documentVersions.id, versionId));
+    expect(row.content).toEqual(doc(p("Tab B")));
+  });
+});
