@@ -24,9 +24,9 @@ test("during requalification the engineer's next step opens a run for the missin
     .click();
   await expect(page.getByRole("heading", { name: "New test run" })).toBeVisible();
   await expect(page.getByLabel("Test type")).toHaveValue("particle_cleanliness");
-  await expect(page.getByLabel("Change request (optional)").locator("option:checked")).toHaveText(
-    /^CR-2026-002 · /,
-  );
+  await expect(
+    page.getByLabel("Change request (optional)", { exact: true }).locator("option:checked"),
+  ).toHaveText(/^CR-2026-002 · /);
   await expect(page.getByLabel("Recipe version").locator("option:checked")).toHaveText(
     /\(proposed\)$/,
   );
@@ -170,4 +170,41 @@ test("two tabs: after the other tab saves again, Save my text over theirs says s
   await expect(tabB.getByRole("status").filter({ hasText: "All changes saved" })).toBeVisible();
   await page.reload();
   await expect(page.getByRole("textbox", { name: "Document text" })).toContainText("Tab B.");
+});
+
+test("the CSV column-matching panel stays open for review after the last column is matched, until the import", async ({
+  page,
+}) => {
+  await signInAs(page, "technician");
+  await page.goto("/evidence/runs/new");
+  await page.getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
+  // Whichever valve-body version is in force (another spec may have made a later one effective).
+  const inForce = await page
+    .getByLabel("Recipe version")
+    .locator("option", { hasText: /^R-AW3-VB v\d+ \(effective\)$/ })
+    .textContent();
+  await page.getByLabel("Recipe version").selectOption({ label: inForce! });
+  await page.getByLabel("Test type").selectOption({ label: "Gravimetric" });
+  await page.getByLabel("Analysing lab").fill("Larchfield cleanliness lab");
+  await page.getByRole("button", { name: "Open test run" }).click();
+  await expect(page.getByRole("heading", { level: 1 })).toContainText("Gravimetric");
+
+  const importer = page.getByRole("form", { name: "Import filter weighings from CSV" });
+  await importer.getByLabel(/^CSV file of/).setInputFiles({
+    name: "weighings.csv",
+    mimeType: "text/csv",
+    buffer: Buffer.from(
+      "Part serial,Parts,Weight empty,Weight loaded\nVB-CSV-01,1,12.40,13.61\nVB-CSV-02,1,12.41,13.58\n",
+    ),
+  });
+  const matching = importer.getByRole("group", { name: "Match the file's columns" });
+  await expect(matching).toBeVisible();
+  await importer.getByLabel("Filter mass before (mg)").selectOption("Weight empty");
+  await importer.getByLabel("Filter mass after (mg)").selectOption("Weight loaded");
+  // Every column is matched: the panel stays, showing the choices for review.
+  await expect(matching).toBeVisible();
+  await expect(importer.getByLabel("Filter mass after (mg)")).toHaveValue("Weight loaded");
+  await importer.getByRole("button", { name: "Import" }).click();
+  await expect(importer.getByRole("status")).toHaveText("2 sample(s) imported from weighings.csv.");
+  await expect(matching).toBeHidden();
 });
