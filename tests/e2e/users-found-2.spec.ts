@@ -208,3 +208,27 @@ test("the CSV column-matching panel stays open for review after the last column 
   await expect(importer.getByRole("status")).toHaveText("2 sample(s) imported from weighings.csv.");
   await expect(matching).toBeHidden();
 });
+
+test("the API tokens page settles, and menu links are fetched on intent rather than all at load", async ({
+  page,
+}) => {
+  await signInAs(page, "engineer");
+  const routerFetches: string[] = [];
+  page.on("request", (r) => {
+    if (r.headers()["rsc"] === "1") routerFetches.push(new URL(r.url()).pathname);
+  });
+  // Before, a prefetch of the API description behind a router link never settled.
+  await page.goto("/account/tokens", { waitUntil: "networkidle" });
+  await expect(page.getByRole("heading", { name: "API tokens" })).toBeVisible();
+  expect(routerFetches.filter((p) => p.startsWith("/api/"))).toEqual([]);
+  expect(routerFetches).not.toContain("/documents");
+
+  const onHover = page.waitForRequest(
+    (r) => r.headers()["rsc"] === "1" && new URL(r.url()).pathname === "/documents",
+  );
+  await page
+    .getByRole("navigation", { name: "Main" })
+    .getByRole("link", { name: "Documents" })
+    .hover();
+  await onHover;
+});
