@@ -1,6 +1,7 @@
 import { count, eq, sql } from "drizzle-orm";
 import { pathToFileURL } from "node:url";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { asOf } from "@/lib/audit/seed-stamp";
 import { hashPassword } from "@/lib/auth/password";
 import { partFamilySchema } from "@/lib/schemas/part-family";
 import { specSchema } from "@/lib/schemas/spec";
@@ -33,6 +34,15 @@ import {
   DEMO_USERS,
 } from "./seed-data";
 
+/** The invented plant's first day in Washproof, and the week its master data was entered. */
+const DEMO_FIRST_DAY = "2025-01-13T08:00:00.000Z";
+const MASTER_DATA_AT = "2025-01-20T09:00:00.000Z";
+const ENGINEER = "engineer@fennmoor.example";
+const APPROVER = "approver@fennmoor.example";
+/** A recipe version is drafted two weeks before it takes effect. */
+const draftedBefore = (effectiveFrom: string) =>
+  new Date(new Date(effectiveFrom).getTime() - 14 * 24 * 60 * 60 * 1000).toISOString();
+
 /**
  * Loads the invented demo scenario. Idempotent: a database that already holds
  * the demo site is left as it is. Every row is audited, as any other change.
@@ -53,29 +63,38 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     const audit = (input: Parameters<typeof appendAudit>[2]) =>
       appendAudit(tx, SYSTEM_ACTOR, input);
     const userIds = new Map<string, string>();
+    // The demo's events carry the days its story describes and the people who acted in it.
+    const actorOf = (email: string) => {
+      const id = userIds.get(email);
+      return id ? { id, name: DEMO_USERS.find((u) => u.email === email)!.name } : null;
+    };
     // An empty installation is set up the way a plant sets itself up: first administrator, company, site.
     const firstAdmin = DEMO_USERS.find((u) => u.roles.includes("admin"))!;
     let siteId: string;
     if (existingUsers === 0) {
-      const setUp = await setUpPlantIn(tx, {
-        companyName: DEMO_COMPANY,
-        siteName: DEMO_SITE.name,
-        siteLocation: DEMO_SITE.location,
-        adminName: firstAdmin.name,
-        adminEmail: firstAdmin.email,
-        jobTitle: firstAdmin.jobTitle,
-        passwordHash: hashes[DEMO_USERS.indexOf(firstAdmin)],
-      });
+      const setUp = await asOf(DEMO_FIRST_DAY, null, () =>
+        setUpPlantIn(tx, {
+          companyName: DEMO_COMPANY,
+          siteName: DEMO_SITE.name,
+          siteLocation: DEMO_SITE.location,
+          adminName: firstAdmin.name,
+          adminEmail: firstAdmin.email,
+          jobTitle: firstAdmin.jobTitle,
+          passwordHash: hashes[DEMO_USERS.indexOf(firstAdmin)],
+        }),
+      );
       userIds.set(firstAdmin.email, setUp.adminId);
       siteId = setUp.siteId;
     } else {
       const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
-      await audit({
-        eventType: "site.created",
-        recordType: "site",
-        recordId: site.id,
-        new: DEMO_SITE,
-      });
+      await asOf(DEMO_FIRST_DAY, actorOf(firstAdmin.email), () =>
+        audit({
+          eventType: "site.created",
+          recordType: "site",
+          recordId: site.id,
+          new: DEMO_SITE,
+        }),
+      );
       siteId = site.id;
     }
     for (const [i, u] of DEMO_USERS.entries()) {
@@ -88,22 +107,26 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       if (!row) continue; // someone already created this e-mail by hand
       userIds.set(u.email, row.id);
       await tx.insert(userRoles).values(u.roles.map((role) => ({ userId: row.id, role })));
-      await audit({
-        eventType: "user.created",
-        recordType: "user",
-        recordId: row.id,
-        new: { name: u.name, email: u.email, jobTitle: u.jobTitle, roles: [...u.roles].sort() },
-      });
+      await asOf(DEMO_FIRST_DAY, actorOf(firstAdmin.email), () =>
+        audit({
+          eventType: "user.created",
+          recordType: "user",
+          recordId: row.id,
+          new: { name: u.name, email: u.email, jobTitle: u.jobTitle, roles: [...u.roles].sort() },
+        }),
+      );
     }
     const engineerId = userIds.get("engineer@fennmoor.example") ?? null;
 
     const systemIds = new Map<string, string>();
     for (const s of DEMO_SYSTEMS) {
-      const sys = await createSystemIn(
-        tx,
-        SYSTEM_ACTOR,
-        siteId,
-        createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }),
+      const sys = await asOf(MASTER_DATA_AT, actorOf(ENGINEER), () =>
+        createSystemIn(
+          tx,
+          SYSTEM_ACTOR,
+          siteId,
+          createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }),
+        ),
       );
       systemIds.set(s.code, sys.id);
     }
@@ -111,17 +134,21 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     // Specifications and part families go through the same services and schemas as a plant's own.
     const specIds = new Map<string, string>();
     for (const spec of DEMO_SPECS) {
-      const row = await createSpecIn(tx, SYSTEM_ACTOR, specSchema.parse(spec));
+      const row = await asOf(MASTER_DATA_AT, actorOf(ENGINEER), () =>
+        createSpecIn(tx, SYSTEM_ACTOR, specSchema.parse(spec)),
+      );
       specIds.set(spec.code, row.id);
     }
 
     const familyIds = new Map<string, string>();
     for (const pf of DEMO_PART_FAMILIES) {
       const { spec, ...fields } = pf;
-      const row = await createPartFamilyIn(
-        tx,
-        SYSTEM_ACTOR,
-        partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }),
+      const row = await asOf(MASTER_DATA_AT, actorOf(ENGINEER), () =>
+        createPartFamilyIn(
+          tx,
+          SYSTEM_ACTOR,
+          partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }),
+        ),
       );
       familyIds.set(pf.code, row.id);
     }
@@ -138,12 +165,14 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
         })
         .returning();
       recipeIds.set(r.code, recipe.id);
-      await audit({
-        eventType: "recipe.created",
-        recordType: "recipe",
-        recordId: recipe.id,
-        new: { code: r.code, name: r.name },
-      });
+      await asOf(draftedBefore(r.versions[0].effectiveFrom), actorOf(ENGINEER), () =>
+        audit({
+          eventType: "recipe.created",
+          recordType: "recipe",
+          recordId: recipe.id,
+          new: { code: r.code, name: r.name },
+        }),
+      );
       let previous: { id: string; version: number } | null = null;
       for (const [i, v] of r.versions.entries()) {
         const isLast = i === r.versions.length - 1;
@@ -187,27 +216,33 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
             })),
           );
         }
-        await audit({
-          eventType: "recipe_version.created",
-          recordType: "recipe_version",
-          recordId: version.id,
-          new: { recipe: r.code, version: i + 1, notes: v.notes },
-        });
-        if (previous) {
-          await audit({
-            eventType: "recipe_version.superseded",
+        await asOf(draftedBefore(v.effectiveFrom), actorOf(ENGINEER), () =>
+          audit({
+            eventType: "recipe_version.created",
             recordType: "recipe_version",
-            recordId: previous.id,
-            old: { status: "effective" },
-            new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 },
-          });
+            recordId: version.id,
+            new: { recipe: r.code, version: i + 1, notes: v.notes },
+          }),
+        );
+        if (previous) {
+          await asOf(v.effectiveFrom, actorOf(APPROVER), () =>
+            audit({
+              eventType: "recipe_version.superseded",
+              recordType: "recipe_version",
+              recordId: previous.id,
+              old: { status: "effective" },
+              new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 },
+            }),
+          );
         }
-        await audit({
-          eventType: "recipe_version.effective",
-          recordType: "recipe_version",
-          recordId: version.id,
-          new: { status: "effective", effectiveFrom: v.effectiveFrom },
-        });
+        await asOf(v.effectiveFrom, actorOf(APPROVER), () =>
+          audit({
+            eventType: "recipe_version.effective",
+            recordType: "recipe_version",
+            recordId: version.id,
+            new: { status: "effective", effectiveFrom: v.effectiveFrom },
+          }),
+        );
         previous = { id: version.id, version: i + 1 };
       }
     }
