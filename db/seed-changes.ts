@@ -1,5 +1,6 @@
 import { asc, eq } from "drizzle-orm";
 import { appendAudit, canonicalJson, sha256Hex, SYSTEM_ACTOR } from "@/lib/audit";
+import { asOf } from "@/lib/audit/seed-stamp";
 import { computeRunOutcome } from "@/lib/evidence/outcome";
 import { runContentHash } from "@/lib/evidence/run-hash";
 import { changeContentHash, narrativeDocument } from "@/lib/changes/content";
@@ -65,19 +66,21 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     .values({
       version: 1,
       status: "effective",
-      note: 'First matrix, after product.md "Change impact"; 95 % confidence, 90 % reliability.',
+      note: "First matrix: each kind of change with the tests that requalify it, at 95 % confidence and 90 % reliability.",
       createdAt: "2025-02-20T09:00:00.000Z",
     })
     .returning();
   await tx
     .insert(requalificationMatrixRows)
     .values(DEFAULT_MATRIX.map((r) => ({ ...r, matrixId: matrix.id })));
-  await audit({
-    eventType: "requalification_matrix.versioned",
-    recordType: "requalification_matrix",
-    recordId: matrix.id,
-    new: { version: 1, added: DEFAULT_MATRIX.map(matrixRowLine), rows: DEFAULT_MATRIX.length },
-  });
+  await asOf("2025-02-20T09:00:00.000Z", engineer, () =>
+    audit({
+      eventType: "requalification_matrix.versioned",
+      recordType: "requalification_matrix",
+      recordId: matrix.id,
+      new: { version: 1, added: DEFAULT_MATRIX.map(matrixRowLine), rows: DEFAULT_MATRIX.length },
+    }),
+  );
 
   const versionsOf = async (code: string) =>
     tx
@@ -104,18 +107,20 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
         contentHash,
       })
       .returning();
-    await appendAudit(tx, signer, {
-      eventType: "signature.applied",
-      recordType: "signature",
-      recordId: row.id,
-      new: {
-        on: `${recordType}:${recordId}`,
-        meaning,
-        printedName: signer.name,
-        contentHash,
-        signedAt,
-      },
-    });
+    await asOf(signedAt, null, () =>
+      appendAudit(tx, signer, {
+        eventType: "signature.applied",
+        recordType: "signature",
+        recordId: row.id,
+        new: {
+          on: `${recordType}:${recordId}`,
+          meaning,
+          printedName: signer.name,
+          contentHash,
+          signedAt,
+        },
+      }),
+    );
   };
 
   async function change(input: {
@@ -224,6 +229,9 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       contentHash: hash,
       updatedAt: input.openedAt,
     });
+    // Each step is recorded at the time its signature says, as the people did it.
+    const stepAt = (meaning: SignatureMeaning) =>
+      input.steps.find((s) => s.meaning === meaning)?.at ?? input.openedAt;
     const versionNo = async (versionId: string) =>
       (
         await tx
@@ -231,43 +239,50 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
           .from(recipeVersions)
           .where(eq(recipeVersions.id, versionId))
       )[0].version;
-    await audit({
-      eventType: "change.opened",
-      recordType: "change_request",
-      recordId: cr.id,
-      new: {
-        number: cr.number,
-        title: cr.title,
-        kind: "parameter_change",
-        recipe: input.recipe,
-        fromVersion: await versionNo(input.fromId),
-        toVersion: await versionNo(input.toId),
-        narrativeDocument: doc.number,
-      },
-    });
+    const [fromVersion, toVersion] = [await versionNo(input.fromId), await versionNo(input.toId)];
+    await asOf(input.openedAt, engineer, () =>
+      audit({
+        eventType: "change.opened",
+        recordType: "change_request",
+        recordId: cr.id,
+        new: {
+          number: cr.number,
+          title: cr.title,
+          kind: "parameter_change",
+          recipe: input.recipe,
+          fromVersion,
+          toVersion,
+          narrativeDocument: doc.number,
+        },
+      }),
+    );
     for (const s of input.steps)
       await sign("change_request", `${cr.id}#1`, s.by, s.meaning, hash, s.at);
-    await audit({
-      eventType: "change.impact_assessed",
-      recordType: "change_request",
-      recordId: cr.id,
-      old: { status: "draft" },
-      new: {
-        status: "impact_assessed",
-        impact: result.impact,
-        computed: result.computed,
-        matrixVersion: 1,
-        tests: result.tests.map((t) => `${t.testType} × ${t.samples}`),
-        contentHash: hash,
-      },
-    });
-    await audit({
-      eventType: "change.approved",
-      recordType: "change_request",
-      recordId: cr.id,
-      old: { status: "impact_assessed" },
-      new: { status: "approved_for_implementation", impact: result.impact },
-    });
+    await asOf(stepAt("authored"), engineer, () =>
+      audit({
+        eventType: "change.impact_assessed",
+        recordType: "change_request",
+        recordId: cr.id,
+        old: { status: "draft" },
+        new: {
+          status: "impact_assessed",
+          impact: result.impact,
+          computed: result.computed,
+          matrixVersion: 1,
+          tests: result.tests.map((t) => `${t.testType} × ${t.samples}`),
+          contentHash: hash,
+        },
+      }),
+    );
+    await asOf(stepAt("approved"), approver, () =>
+      audit({
+        eventType: "change.approved",
+        recordType: "change_request",
+        recordId: cr.id,
+        old: { status: "impact_assessed" },
+        new: { status: "approved_for_implementation", impact: result.impact },
+      }),
+    );
     return { cr, tests, result };
   }
 
@@ -290,13 +305,15 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       { meaning: "verified", by: reviewer, at: "2025-08-29T10:20:00.000Z" },
     ],
   });
-  await audit({
-    eventType: "change.closed",
-    recordType: "change_request",
-    recordId: minor.cr.id,
-    old: { status: "verified" },
-    new: { status: "closed", effectiveVersion: 2 },
-  });
+  await asOf("2025-09-01T07:00:00.000Z", approver, () =>
+    audit({
+      eventType: "change.closed",
+      recordType: "change_request",
+      recordId: minor.cr.id,
+      old: { status: "verified" },
+      new: { status: "closed", effectiveVersion: 2 },
+    }),
+  );
 
   // ── A closed major change with requalification evidence: fitting drying temperature above its range.
   const [sf1] = await versionsOf("R-SC1-SF");
@@ -389,21 +406,23 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
         createdAt: `2026-06-08T12:${String(i).padStart(2, "0")}:00.000Z`,
       })),
     );
-    await appendAudit(tx, technician, {
-      eventType: "test_run.created",
-      recordType: "test_run",
-      recordId: run.id,
-      new: {
-        number,
-        partFamilyId: run.partFamilyId,
-        recipeVersionId: run.recipeVersionId,
-        testType: run.testType,
-        technicianId: technician.id,
-        lab: "Larchfield cleanliness lab",
-        performedOn: "2026-06-08",
-        changeRequestId: major.cr.id,
-      },
-    });
+    await asOf("2026-06-08T12:00:00.000Z", null, () =>
+      appendAudit(tx, technician, {
+        eventType: "test_run.created",
+        recordType: "test_run",
+        recordId: run.id,
+        new: {
+          number,
+          partFamilyId: run.partFamilyId,
+          recipeVersionId: run.recipeVersionId,
+          testType: run.testType,
+          technicianId: technician.id,
+          lab: "Larchfield cleanliness lab",
+          performedOn: "2026-06-08",
+          changeRequestId: major.cr.id,
+        },
+      }),
+    );
     // The lab's report and one photo of the worst-case basket corner, as uploaded.
     const report = new TextEncoder().encode(
       [
@@ -445,21 +464,23 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
           uploadedBy: technician.id,
         })
         .returning();
-      await appendAudit(tx, technician, {
-        eventType: "evidence_file.uploaded",
-        recordType: "evidence_file",
-        recordId: file.id,
-        new: {
-          run: `${run.number} rev ${run.revision}`,
-          runId: run.id,
-          sha256,
-          name: file.originalName,
-          mimeType: file.mimeType,
-          sizeBytes: bytes.length,
-          kind: file.kind,
-          storedNew: created,
-        },
-      });
+      await asOf(meta.uploadedAt, null, () =>
+        appendAudit(tx, technician, {
+          eventType: "evidence_file.uploaded",
+          recordType: "evidence_file",
+          recordId: file.id,
+          new: {
+            run: `${run.number} rev ${run.revision}`,
+            runId: run.id,
+            sha256,
+            name: file.originalName,
+            mimeType: file.mimeType,
+            sizeBytes: bytes.length,
+            kind: file.kind,
+            storedNew: created,
+          },
+        }),
+      );
     }
     const rows = await tx
       .select()
@@ -493,27 +514,33 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
     .update(recipeVersions)
     .set({ status: "effective", effectiveFrom: closedAt })
     .where(eq(recipeVersions.id, sf2.id));
-  await audit({
-    eventType: "recipe_version.superseded",
-    recordType: "recipe_version",
-    recordId: sf1.id,
-    old: { status: "effective" },
-    new: { status: "superseded", effectiveTo: closedAt, by: 2, changeRequest: major.cr.number },
-  });
-  await audit({
-    eventType: "recipe_version.effective",
-    recordType: "recipe_version",
-    recordId: sf2.id,
-    old: { status: "proposed" },
-    new: { status: "effective", effectiveFrom: closedAt, changeRequest: major.cr.number },
-  });
-  await audit({
-    eventType: "change.closed",
-    recordType: "change_request",
-    recordId: major.cr.id,
-    old: { status: "verified" },
-    new: { status: "closed", effectiveVersion: 2 },
-  });
+  await asOf(closedAt, approver, () =>
+    audit({
+      eventType: "recipe_version.superseded",
+      recordType: "recipe_version",
+      recordId: sf1.id,
+      old: { status: "effective" },
+      new: { status: "superseded", effectiveTo: closedAt, by: 2, changeRequest: major.cr.number },
+    }),
+  );
+  await asOf(closedAt, approver, () =>
+    audit({
+      eventType: "recipe_version.effective",
+      recordType: "recipe_version",
+      recordId: sf2.id,
+      old: { status: "proposed" },
+      new: { status: "effective", effectiveFrom: closedAt, changeRequest: major.cr.number },
+    }),
+  );
+  await asOf(closedAt, approver, () =>
+    audit({
+      eventType: "change.closed",
+      recordType: "change_request",
+      recordId: major.cr.id,
+      old: { status: "verified" },
+      new: { status: "closed", effectiveVersion: 2 },
+    }),
+  );
 
   // ── An open major change waiting for evidence: pump-housing injection pressure above its range.
   const [ph1] = await versionsOf("R-AW3-PH");
@@ -553,13 +580,15 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       { meaning: "approved", by: approver, at: "2026-11-18T10:15:00.000Z" },
     ],
   });
-  await audit({
-    eventType: "change.requalification_started",
-    recordType: "change_request",
-    recordId: open.cr.id,
-    old: { status: "approved_for_implementation" },
-    new: { status: "requalification" },
-  });
+  await asOf("2026-11-19T08:00:00.000Z", engineer, () =>
+    audit({
+      eventType: "change.requalification_started",
+      recordType: "change_request",
+      recordId: open.cr.id,
+      old: { status: "approved_for_implementation" },
+      new: { status: "requalification" },
+    }),
+  );
 
   // ── Validated combinations and their periodic requalification.
   const monthsAgo = (m: number, plusDays = 0) => {
@@ -594,31 +623,37 @@ export async function seedChangeControl(tx: Tx, ids: Ids, now = new Date()) {
       .values({ ...i, recipeVersionId: version.id, intervalMonths: 12 })
       .returning();
     // The same values closing a change records for the first interval of a validated combination.
-    await audit({
-      eventType: "requalification_interval.set",
-      recordType: "requalification_interval",
-      recordId: row.id,
-      new: {
-        recipeVersion: version.version,
-        partFamilyId: i.partFamilyId,
-        intervalMonths: 12,
-        lastQualifiedAt: i.lastQualifiedAt,
-      },
-    });
+    await asOf(i.lastQualifiedAt, approver, () =>
+      audit({
+        eventType: "requalification_interval.set",
+        recordType: "requalification_interval",
+        recordId: row.id,
+        new: {
+          recipeVersion: version.version,
+          partFamilyId: i.partFamilyId,
+          intervalMonths: 12,
+          lastQualifiedAt: i.lastQualifiedAt,
+        },
+      }),
+    );
   }
   // The superseded versions the demo's older runs were made on were qualified in their day too.
-  await qualifyCombinationIn(tx, SYSTEM_ACTOR, {
-    recipeVersionId: vb[0].id,
-    partFamilyId: ids.familyIds.get("PF-VB-210")!,
-    basis: "Valve body PQ (first validation)",
-    qualifiedOn: "2025-03-10",
-    intervalMonths: 12,
-  });
-  await qualifyCombinationIn(tx, SYSTEM_ACTOR, {
-    recipeVersionId: sf1.id,
-    partFamilyId: ids.familyIds.get("PF-SF-12")!,
-    basis: "Fitting PQ (first validation)",
-    qualifiedOn: "2025-06-02",
-    intervalMonths: 12,
-  });
+  await asOf("2025-03-10T16:00:00.000Z", approver, () =>
+    qualifyCombinationIn(tx, SYSTEM_ACTOR, {
+      recipeVersionId: vb[0].id,
+      partFamilyId: ids.familyIds.get("PF-VB-210")!,
+      basis: "Valve body PQ (first validation)",
+      qualifiedOn: "2025-03-10",
+      intervalMonths: 12,
+    }),
+  );
+  await asOf("2025-06-02T16:00:00.000Z", approver, () =>
+    qualifyCombinationIn(tx, SYSTEM_ACTOR, {
+      recipeVersionId: sf1.id,
+      partFamilyId: ids.familyIds.get("PF-SF-12")!,
+      basis: "Fitting PQ (first validation)",
+      qualifiedOn: "2025-06-02",
+      intervalMonths: 12,
+    }),
+  );
 }

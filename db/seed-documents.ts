@@ -1,5 +1,5 @@
 import { asc, eq } from "drizzle-orm";
-import { appendAudit, canonicalJson, sha256Hex, SYSTEM_ACTOR } from "@/lib/audit";
+import { appendAudit, canonicalJson, sha256Hex } from "@/lib/audit";
 import { successRunSampleSize } from "@/lib/stats";
 import { buildTemplate } from "@/templates/documents";
 import type { Tx } from "./client";
@@ -141,7 +141,7 @@ export async function seedDemoDocuments(
   ]);
   await appendAudit(
     tx,
-    SYSTEM_ACTOR,
+    people.engineer,
     {
       eventType: "document.created",
       recordType: "document",
@@ -197,7 +197,8 @@ export async function seedDemoDocuments(
   }
   await appendAudit(
     tx,
-    SYSTEM_ACTOR,
+    // Approved with an effective date of today: in force on the approver's signature.
+    people.approver,
     {
       eventType: "document.effective",
       recordType: "document_version",

@@ -1,5 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { asOf } from "@/lib/audit/seed-stamp";
 import { computeRunOutcome } from "@/lib/evidence/outcome";
 import { runContentHash } from "@/lib/evidence/run-hash";
 import type { Tx } from "./client";
@@ -355,20 +356,22 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
           )
           .returning()
       : [];
-    await audit({
-      eventType: "test_run.created",
-      recordType: "test_run",
-      recordId: run.id,
-      new: {
-        number: run.number,
-        partFamilyId: run.partFamilyId,
-        recipeVersionId: run.recipeVersionId,
-        testType: run.testType,
-        technicianId: technician.id,
-        lab: "Larchfield cleanliness lab",
-        performedOn: demo.performedOn,
-      },
-    });
+    await asOf(createdAt, technician, () =>
+      audit({
+        eventType: "test_run.created",
+        recordType: "test_run",
+        recordId: run.id,
+        new: {
+          number: run.number,
+          partFamilyId: run.partFamilyId,
+          recipeVersionId: run.recipeVersionId,
+          testType: run.testType,
+          technicianId: technician.id,
+          lab: "Larchfield cleanliness lab",
+          performedOn: demo.performedOn,
+        },
+      }),
+    );
     const { hash } = runContentHash(
       run,
       [...rows].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id.localeCompare(b.id)),
@@ -391,22 +394,24 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
           contentHash: hash,
         })
         .returning();
-      await appendAudit(
-        tx,
-        signer,
-        {
-          eventType: "signature.applied",
-          recordType: "signature",
-          recordId: sig.id,
-          new: {
-            on: `test_run:${run.id}`,
-            meaning,
-            printedName: signer.name,
-            contentHash: hash,
-            signedAt: at,
+      await asOf(at, null, () =>
+        appendAudit(
+          tx,
+          signer,
+          {
+            eventType: "signature.applied",
+            recordType: "signature",
+            recordId: sig.id,
+            new: {
+              on: `test_run:${run.id}`,
+              meaning,
+              printedName: signer.name,
+              contentHash: hash,
+              signedAt: at,
+            },
           },
-        },
-        now,
+          now,
+        ),
       );
     };
     if (demo.status !== "open")
@@ -451,23 +456,25 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
       countPerMl14,
       notes,
     } = row;
-    await audit({
-      eventType: "bath_record.created",
-      recordType: "bath_record",
-      recordId: row.id,
-      new: {
-        tank: tank.stage.name,
-        kind,
-        concentrationPct,
-        conductivityUsPerCm,
-        temperatureC,
-        countPerMl4,
-        countPerMl6,
-        countPerMl14,
-        notes,
-        performedAt,
-      },
-    });
+    await asOf(performedAt, technician, () =>
+      audit({
+        eventType: "bath_record.created",
+        recordType: "bath_record",
+        recordId: row.id,
+        new: {
+          tank: tank.stage.name,
+          kind,
+          concentrationPct,
+          conductivityUsPerCm,
+          temperatureC,
+          countPerMl4,
+          countPerMl6,
+          countPerMl14,
+          notes,
+          performedAt,
+        },
+      }),
+    );
   }
   // Filter changes every four weeks; the last one is now overdue, so it shows in My queue.
   for (const weeksAgo of [14, 10, 6]) {
@@ -485,17 +492,19 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
         createdAt: at,
       })
       .returning();
-    await audit({
-      eventType: "bath_record.created",
-      recordType: "bath_record",
-      recordId: row.id,
-      new: {
-        tank: tank.stage.name,
-        kind: "filter_change",
-        filterDescription: row.filterDescription,
-        performedAt: at,
-      },
-    });
+    await asOf(at, technician, () =>
+      audit({
+        eventType: "bath_record.created",
+        recordType: "bath_record",
+        recordId: row.id,
+        new: {
+          tank: tank.stage.name,
+          kind: "filter_change",
+          filterDescription: row.filterDescription,
+          performedAt: at,
+        },
+      }),
+    );
   }
   const since = new Date(now.getTime() - 20 * 7 * DAY).toISOString();
   for (const [kind, intervalDays] of [
@@ -514,11 +523,13 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
         createdAt: since,
       })
       .returning();
-    await audit({
-      eventType: "maintenance_interval.set",
-      recordType: "maintenance_interval",
-      recordId: row.id,
-      new: { tank: tank.stage.name, kind, intervalDays, warnDays: 2 },
-    });
+    await asOf(since, engineer, () =>
+      audit({
+        eventType: "maintenance_interval.set",
+        recordType: "maintenance_interval",
+        recordId: row.id,
+        new: { tank: tank.stage.name, kind, intervalDays, warnDays: 2 },
+      }),
+    );
   }
 }

@@ -1,6 +1,7 @@
 import { count, eq, sql } from "drizzle-orm";
 import { pathToFileURL } from "node:url";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { asOf } from "@/lib/audit/seed-stamp";
 import { hashPassword } from "@/lib/auth/password";
 import { partFamilySchema } from "@/lib/schemas/part-family";
 import { specSchema } from "@/lib/schemas/spec";
@@ -13,14 +14,7 @@ import { createRecipeSchema } from "@/lib/schemas/recipe";
 import { setUpPlantIn } from "@/lib/server/plant/set-up-plant";
 import { getDb, type Database } from "./client";
 import { seedDemoDocuments } from "./seed-documents";
-import {
-  recipeParameters,
-  recipeStages,
-  recipeVersions,
-  sites,
-  userRoles,
-  users,
-} from "./schema";
+import { recipeParameters, recipeStages, recipeVersions, sites, userRoles, users } from "./schema";
 import { seedEvidence } from "./seed-evidence";
 import { seedBathPlan } from "./seed-bath-plan";
 import { seedChangeControl } from "./seed-changes";
@@ -35,6 +29,15 @@ import {
   DEMO_SYSTEMS,
   DEMO_USERS,
 } from "./seed-data";
+
+/** The invented plant's first day in Washproof, and the week its master data was entered. */
+const DEMO_FIRST_DAY = "2025-01-13T08:00:00.000Z";
+const MASTER_DATA_AT = "2025-01-20T09:00:00.000Z";
+const ENGINEER = "engineer@fennmoor.example";
+const APPROVER = "approver@fennmoor.example";
+/** A recipe version is drafted two weeks before it takes effect. */
+const draftedBefore = (effectiveFrom: string) =>
+  new Date(new Date(effectiveFrom).getTime() - 14 * 24 * 60 * 60 * 1000).toISOString();
 
 /**
  * Loads the invented demo scenario. Idempotent: a database that already holds
@@ -56,29 +59,38 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     const audit = (input: Parameters<typeof appendAudit>[2]) =>
       appendAudit(tx, SYSTEM_ACTOR, input);
     const userIds = new Map<string, string>();
+    // The demo's events carry the days its story describes and the people who acted in it.
+    const actorOf = (email: string) => {
+      const id = userIds.get(email);
+      return id ? { id, name: DEMO_USERS.find((u) => u.email === email)!.name } : null;
+    };
     // An empty installation is set up the way a plant sets itself up: first administrator, company, site.
     const firstAdmin = DEMO_USERS.find((u) => u.roles.includes("admin"))!;
     let siteId: string;
     if (existingUsers === 0) {
-      const setUp = await setUpPlantIn(tx, {
-        companyName: DEMO_COMPANY,
-        siteName: DEMO_SITE.name,
-        siteLocation: DEMO_SITE.location,
-        adminName: firstAdmin.name,
-        adminEmail: firstAdmin.email,
-        jobTitle: firstAdmin.jobTitle,
-        passwordHash: hashes[DEMO_USERS.indexOf(firstAdmin)],
-      });
+      const setUp = await asOf(DEMO_FIRST_DAY, null, () =>
+        setUpPlantIn(tx, {
+          companyName: DEMO_COMPANY,
+          siteName: DEMO_SITE.name,
+          siteLocation: DEMO_SITE.location,
+          adminName: firstAdmin.name,
+          adminEmail: firstAdmin.email,
+          jobTitle: firstAdmin.jobTitle,
+          passwordHash: hashes[DEMO_USERS.indexOf(firstAdmin)],
+        }),
+      );
       userIds.set(firstAdmin.email, setUp.adminId);
       siteId = setUp.siteId;
     } else {
       const [site] = await tx.insert(sites).values(DEMO_SITE).returning();
-      await audit({
-        eventType: "site.created",
-        recordType: "site",
-        recordId: site.id,
-        new: DEMO_SITE,
-      });
+      await asOf(DEMO_FIRST_DAY, actorOf(firstAdmin.email), () =>
+        audit({
+          eventType: "site.created",
+          recordType: "site",
+          recordId: site.id,
+          new: DEMO_SITE,
+        }),
+      );
       siteId = site.id;
     }
     for (const [i, u] of DEMO_USERS.entries()) {
@@ -91,22 +103,26 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       if (!row) continue; // someone already created this e-mail by hand
       userIds.set(u.email, row.id);
       await tx.insert(userRoles).values(u.roles.map((role) => ({ userId: row.id, role })));
-      await audit({
-        eventType: "user.created",
-        recordType: "user",
-        recordId: row.id,
-        new: { name: u.name, email: u.email, jobTitle: u.jobTitle, roles: [...u.roles].sort() },
-      });
+      await asOf(DEMO_FIRST_DAY, actorOf(firstAdmin.email), () =>
+        audit({
+          eventType: "user.created",
+          recordType: "user",
+          recordId: row.id,
+          new: { name: u.name, email: u.email, jobTitle: u.jobTitle, roles: [...u.roles].sort() },
+        }),
+      );
     }
     const engineerId = userIds.get("engineer@fennmoor.example") ?? null;
 
     const systemIds = new Map<string, string>();
     for (const s of DEMO_SYSTEMS) {
-      const sys = await createSystemIn(
-        tx,
-        SYSTEM_ACTOR,
-        siteId,
-        createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }),
+      const sys = await asOf(MASTER_DATA_AT, actorOf(ENGINEER), () =>
+        createSystemIn(
+          tx,
+          SYSTEM_ACTOR,
+          siteId,
+          createSystemSchema.parse({ ...s, stages: s.stages.map((st) => ({ ...st, id: null })) }),
+        ),
       );
       systemIds.set(s.code, sys.id);
     }
@@ -114,17 +130,21 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     // Specifications and part families go through the same services and schemas as a plant's own.
     const specIds = new Map<string, string>();
     for (const spec of DEMO_SPECS) {
-      const row = await createSpecIn(tx, SYSTEM_ACTOR, specSchema.parse(spec));
+      const row = await asOf(MASTER_DATA_AT, actorOf(ENGINEER), () =>
+        createSpecIn(tx, SYSTEM_ACTOR, specSchema.parse(spec)),
+      );
       specIds.set(spec.code, row.id);
     }
 
     const familyIds = new Map<string, string>();
     for (const pf of DEMO_PART_FAMILIES) {
       const { spec, ...fields } = pf;
-      const row = await createPartFamilyIn(
-        tx,
-        SYSTEM_ACTOR,
-        partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }),
+      const row = await asOf(MASTER_DATA_AT, actorOf(ENGINEER), () =>
+        createPartFamilyIn(
+          tx,
+          SYSTEM_ACTOR,
+          partFamilySchema.parse({ ...fields, specId: specIds.get(spec)! }),
+        ),
       );
       familyIds.set(pf.code, row.id);
     }
@@ -145,34 +165,39 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
           // The first version is written as a plant writes it, through the recipe service (its
           // rules: process order, own ranges, physical limits, modes the washer can run); it was
           // validated before the demo's records begin, so it then takes its place in the history.
-          const { recipe: created, version } = await createRecipeIn(
-            tx,
-            engineer,
-            createRecipeSchema.parse({
-              systemId: systemIds.get(r.system)!,
-              code: r.code,
-              name: r.name,
-              description: r.description,
-              content: {
-                detergent: v.detergent ?? "",
-                notes: v.notes ?? "",
-                stages: v.stages.map((st) => ({
-                  name: st.name,
-                  kind: st.kind,
-                  mode: st.mode,
-                  parameters: st.parameters.map((p) => ({
-                    key: p.key,
-                    name: p.name,
-                    kind: p.kind,
-                    setpoint: p.setpoint,
-                    unit: p.unit,
-                    validatedLow: p.low,
-                    validatedHigh: p.high,
-                    critical: p.critical ?? false,
-                  })),
-                })),
-              },
-            }),
+          const { recipe: created, version } = await asOf(
+            draftedBefore(v.effectiveFrom),
+            actorOf(ENGINEER),
+            () =>
+              createRecipeIn(
+                tx,
+                engineer,
+                createRecipeSchema.parse({
+                  systemId: systemIds.get(r.system)!,
+                  code: r.code,
+                  name: r.name,
+                  description: r.description,
+                  content: {
+                    detergent: v.detergent ?? "",
+                    notes: v.notes ?? "",
+                    stages: v.stages.map((st) => ({
+                      name: st.name,
+                      kind: st.kind,
+                      mode: st.mode,
+                      parameters: st.parameters.map((p) => ({
+                        key: p.key,
+                        name: p.name,
+                        kind: p.kind,
+                        setpoint: p.setpoint,
+                        unit: p.unit,
+                        validatedLow: p.low,
+                        validatedHigh: p.high,
+                        critical: p.critical ?? false,
+                      })),
+                    })),
+                  },
+                }),
+              ),
           );
           recipeIds.set(r.code, created.id);
           await tx
@@ -183,12 +208,14 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
               effectiveTo: next?.effectiveFrom ?? null,
             })
             .where(eq(recipeVersions.id, version.id));
-          await audit({
-            eventType: "recipe_version.effective",
-            recordType: "recipe_version",
-            recordId: version.id,
-            new: { status: "effective", effectiveFrom: v.effectiveFrom },
-          });
+          await asOf(v.effectiveFrom, actorOf(APPROVER), () =>
+            audit({
+              eventType: "recipe_version.effective",
+              recordType: "recipe_version",
+              recordId: version.id,
+              new: { status: "effective", effectiveFrom: v.effectiveFrom },
+            }),
+          );
           previous = { id: version.id, version: 1 };
           continue;
         }
@@ -232,27 +259,33 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
             })),
           );
         }
-        await audit({
-          eventType: "recipe_version.created",
-          recordType: "recipe_version",
-          recordId: version.id,
-          new: { recipe: r.code, version: i + 1, notes: v.notes },
-        });
-        if (previous) {
-          await audit({
-            eventType: "recipe_version.superseded",
+        await asOf(draftedBefore(v.effectiveFrom), actorOf(ENGINEER), () =>
+          audit({
+            eventType: "recipe_version.created",
             recordType: "recipe_version",
-            recordId: previous.id,
-            old: { status: "effective" },
-            new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 },
-          });
+            recordId: version.id,
+            new: { recipe: r.code, version: i + 1, notes: v.notes },
+          }),
+        );
+        if (previous) {
+          await asOf(v.effectiveFrom, actorOf(APPROVER), () =>
+            audit({
+              eventType: "recipe_version.superseded",
+              recordType: "recipe_version",
+              recordId: previous.id,
+              old: { status: "effective" },
+              new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 },
+            }),
+          );
         }
-        await audit({
-          eventType: "recipe_version.effective",
-          recordType: "recipe_version",
-          recordId: version.id,
-          new: { status: "effective", effectiveFrom: v.effectiveFrom },
-        });
+        await asOf(v.effectiveFrom, actorOf(APPROVER), () =>
+          audit({
+            eventType: "recipe_version.effective",
+            recordType: "recipe_version",
+            recordId: version.id,
+            new: { status: "effective", effectiveFrom: v.effectiveFrom },
+          }),
+        );
         previous = { id: version.id, version: i + 1 };
       }
     }

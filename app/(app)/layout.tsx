@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { Logo } from "@/components/brand/logo";
 import { Providers } from "@/components/providers";
 import { AppNav } from "@/components/shell/app-nav";
@@ -23,9 +23,9 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
         Skip to content
       </a>
       <header className="sticky top-0 z-10 flex items-center justify-between border-b border-stone-200 bg-white/95 px-4 py-2 backdrop-blur lg:px-6">
-        <Link href="/" aria-label="Washproof home">
+        <IntentLink href="/" aria-label="Washproof home">
           <Logo />
-        </Link>
+        </IntentLink>
         <UserMenu name={user.name} roles={user.roles} />
       </header>
       <div className="mx-auto flex max-w-[1600px] flex-col gap-6 px-4 py-6 lg:flex-row lg:px-6">

@@ -64,9 +64,12 @@ const columns = [
     id: "record",
     header: "Record",
     cell: ({ row }) => (
-      <span className="text-xs">
-        {row.original.recordType}
-        <span className="block font-mono break-all text-stone-500">{row.original.recordId}</span>
+      // The id stays in the tooltip for matching against the CSV export; people read the number and name.
+      <span className="text-xs" title={row.original.recordId}>
+        <span className="block font-medium text-stone-900">
+          {row.original.recordLabel ?? row.original.recordId}
+        </span>
+        <span className="block text-stone-500">{row.original.recordTypeLabel}</span>
       </span>
     ),
   }),
@@ -80,10 +83,28 @@ const columns = [
         <ul className="space-y-0.5 text-xs">
           {row.original.changes.map((c) => (
             <li key={c.field}>
-              <span className="font-medium">{c.field}:</span>{" "}
-              {c.old !== null && <del className="text-red-800">{c.old}</del>}
-              {c.old !== null && c.new !== null && " → "}
-              {c.new !== null && <ins className="text-brand-800 no-underline">{c.new}</ins>}
+              <span className="font-medium">{c.label}:</span>{" "}
+              {c.words ? (
+                c.words.map((w, i) =>
+                  w.change === "removed" ? (
+                    <del key={i} className="bg-red-50 text-red-800">
+                      {w.text}
+                    </del>
+                  ) : w.change === "added" ? (
+                    <ins key={i} className="bg-brand-50 text-brand-800 no-underline">
+                      {w.text}
+                    </ins>
+                  ) : (
+                    <span key={i}>{w.text}</span>
+                  ),
+                )
+              ) : (
+                <>
+                  {c.old !== null && <del className="text-red-800">{c.old}</del>}
+                  {c.old !== null && c.new !== null && " → "}
+                  {c.new !== null && <ins className="text-brand-800 no-underline">{c.new}</ins>}
+                </>
+              )}
             </li>
           ))}
         </ul>

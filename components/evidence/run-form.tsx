@@ -7,6 +7,7 @@ import { TEST_TYPES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
 import { humanize } from "@/lib/format/labels";
 import { todayUtc } from "@/lib/format/date";
+import type { RunDefaults } from "@/lib/evidence/run-defaults";
 
 export interface RunFormProps {
   action: (prev: FormState, formData: FormData) => Promise<FormState>;
@@ -18,9 +19,11 @@ export interface RunFormProps {
     changes: { id: string; number: string; title: string }[];
   };
   defaultTechnicianId?: string;
+  /** Filled in when the form is opened from a change request's gate. */
+  defaults?: RunDefaults;
 }
 
-export function RunForm({ action, options, defaultTechnicianId }: RunFormProps) {
+export function RunForm({ action, options, defaultTechnicianId, defaults = {} }: RunFormProps) {
   return (
     <ActionForm
       action={action}
@@ -31,18 +34,21 @@ export function RunForm({ action, options, defaultTechnicianId }: RunFormProps) 
         name="partFamilyId"
         label="Part family"
         placeholder="Choose…"
+        defaultValue={defaults.partFamilyId}
         options={options.families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))}
       />
       <SelectField
         name="recipeVersionId"
         label="Recipe version"
         placeholder="Choose…"
+        defaultValue={defaults.recipeVersionId}
         options={options.versions.map((v) => ({ value: v.id, label: v.label }))}
       />
       <SelectField
         name="testType"
         label="Test type"
         placeholder="Choose…"
+        defaultValue={defaults.testType}
         options={TEST_TYPES.map((t) => ({ value: t, label: humanize(t) }))}
       />
       <SelectField
@@ -64,12 +70,14 @@ export function RunForm({ action, options, defaultTechnicianId }: RunFormProps) 
         name="changeRequestId"
         label="Change request (optional)"
         placeholder="None"
+        defaultValue={defaults.changeRequestId}
         options={options.changes.map((c) => ({ value: c.id, label: `${c.number} · ${c.title}` }))}
       />
       <Field
         name="requirement"
         label="Requirement of the change request (optional)"
         className="sm:col-span-2"
+        defaultValue={defaults.requirement}
         hint="The required requalification test this run answers, in the change request's words."
       />
       <div className="sm:col-span-2">

@@ -1,6 +1,6 @@
 "use client";
 
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { usePathname } from "next/navigation";
 import {
   Calculator,
@@ -37,7 +37,7 @@ export function AppNav({ items }: { items: NavItem[] }) {
           const current = pathname === item.href || pathname.startsWith(`${item.href}/`);
           return (
             <li key={item.href}>
-              <Link
+              <IntentLink
                 href={item.href}
                 aria-current={current ? "page" : undefined}
                 className={`flex items-center gap-2.5 rounded-md px-3 py-2 text-sm ${
@@ -48,7 +48,7 @@ export function AppNav({ items }: { items: NavItem[] }) {
               >
                 <Icon className="h-4 w-4 shrink-0" aria-hidden="true" />
                 {item.label}
-              </Link>
+              </IntentLink>
             </li>
           );
         })}

@@ -1,6 +1,6 @@
 "use client";
 
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { usePathname } from "next/navigation";
 
 export interface SubNavItem {
@@ -19,14 +19,14 @@ export function SubNav({ label, items }: { label: string; items: SubNavItem[] })
           pathname === item.href ||
           (item.alsoCurrentUnder ?? []).some((p) => pathname.startsWith(p));
         return (
-          <Link
+          <IntentLink
             key={item.href}
             href={item.href}
             aria-current={current ? "page" : undefined}
             className={`-mb-px border-b-2 px-3 py-2 text-sm ${current ? "border-brand-700 font-medium text-brand-800" : "border-transparent text-stone-600 hover:text-stone-900"}`}
           >
             {item.label}
-          </Link>
+          </IntentLink>
         );
       })}
     </nav>

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { ROLE_LABELS, type Role } from "@/lib/auth/permissions";
 import { signOutAction } from "@/app/(app)/actions";
 
@@ -24,15 +24,18 @@ export function UserMenu({ name, roles }: { name: string; roles: Role[] }) {
         </span>
       </summary>
       <div className="absolute right-0 z-20 mt-1 w-56 rounded-md border border-stone-200 bg-white p-1 shadow-lg">
-        <Link
+        <IntentLink
           href="/account/password"
           className="block rounded px-3 py-2 text-sm hover:bg-stone-100"
         >
           Change password
-        </Link>
-        <Link href="/account/tokens" className="block rounded px-3 py-2 text-sm hover:bg-stone-100">
+        </IntentLink>
+        <IntentLink
+          href="/account/tokens"
+          className="block rounded px-3 py-2 text-sm hover:bg-stone-100"
+        >
           API tokens
-        </Link>
+        </IntentLink>
         <form action={signOutAction}>
           <button
             type="submit"

@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import { useState, type FormEvent, type ReactNode } from "react";
 import { Button } from "@/components/ui/button";
 import { FileField, SelectField } from "@/components/ui/field";
+import { columnsNeedMatching } from "@/lib/forms/csv-mapping";
 
 type Mapping = Record<string, string | undefined>;
 type Result = {
@@ -56,19 +57,25 @@ export function CsvMappingImport({
   const [mapping, setMapping] = useState<Mapping>({});
   const [result, setResult] = useState<Result | null>(null);
   const [pending, setPending] = useState(false);
+  // Once the file's columns needed matching, the panel stays open for review until the import
+  // succeeds or another file is chosen; it used to vanish as the last column was matched.
+  const [reviewing, setReviewing] = useState(false);
   const problems = file ? findProblems(mapping, headers) : [];
 
   function onFile(next: File | null) {
     setFile(next);
     setResult(null);
     setHeaders([]);
+    setReviewing(false);
     if (!next) return;
     Papa.parse<string[]>(next, {
       preview: 1,
       complete: (r) => {
         const found = (r.data[0] ?? []).map((h) => h.trim()).filter((h) => h !== "");
+        const auto = autoMap(found);
         setHeaders(found);
-        setMapping(autoMap(found));
+        setMapping(auto);
+        setReviewing(columnsNeedMatching(found, auto, findProblems(auto, found)));
       },
     });
   }
@@ -95,6 +102,7 @@ export function CsvMappingImport({
       };
       setResult(json);
       if (json.ok) {
+        setReviewing(false);
         router.refresh();
         onDone?.(raw as unknown as Record<string, unknown>);
       }
@@ -105,8 +113,7 @@ export function CsvMappingImport({
     }
   }
 
-  const unmapped = headers.filter((h) => !Object.values(mapping).includes(h));
-  const needsMapping = headers.length > 0 && (problems.length > 0 || unmapped.length > 0);
+  const needsMapping = reviewing || columnsNeedMatching(headers, mapping, problems);
   return (
     <form
       onSubmit={onSubmit}

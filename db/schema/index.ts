@@ -14,3 +14,4 @@ export * from "./deviations";
 export * from "./change-subjects";
 export * from "./part-pictures";
 export * from "./bath-plan";
+export * from "./document-rounds";

@@ -2,7 +2,11 @@ import "server-only";
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import type { z } from "zod";
-import { unknownFieldErrors, unknownFieldsMessage } from "@/lib/api/strict-keys";
+import {
+  misnamedFormFields,
+  unknownFieldErrors,
+  unknownFieldsMessage,
+} from "@/lib/api/strict-keys";
 import {
   declareEndpoint,
   permissionFor,
@@ -118,19 +122,30 @@ async function perform<S extends z.ZodType, R extends RunResult>(
 ): Promise<ActionState<R>> {
   // A JSON payload is an object like an API body: a key its schema does not know is refused by
   // name, never dropped. (A form's fields are read by name, so only what the schema asks is used.)
-  if (options.from === "payload") {
-    const extra = unknownFieldErrors(options.input, raw);
-    if (extra)
-      return {
-        ok: false,
-        message: unknownFieldsMessage(extra),
-        fieldErrors: extra,
-      } as ActionState<R>;
-  }
+  // A form's own fields are strict too where a key can only be a mistake: under a known field
+  // ("counts.b") or a known name in the wrong case. The page's other hidden fields pass.
+  const extra =
+    options.from === "payload"
+      ? unknownFieldErrors(options.input, raw)
+      : misnamedFormFields(options.input, raw);
+  if (extra)
+    return {
+      ok: false,
+      message: unknownFieldsMessage(extra),
+      fieldErrors: extra,
+    } as ActionState<R>;
   const parsed = options.input.safeParse(raw);
   if (!parsed.success) return invalid(parsed.error, options.invalidMessage) as ActionState<R>;
   const input = parsed.data as z.output<S>;
   const parse = <T extends z.ZodType>(schema: T, value: unknown = raw): z.output<T> => {
+    // The value also holds the fields the action's own input read (the run's id): only mistakes count.
+    const misnamed = misnamedFormFields(schema, value);
+    if (misnamed)
+      throw new InputRefused({
+        ok: false,
+        message: unknownFieldsMessage(misnamed),
+        fieldErrors: misnamed,
+      });
     const again = schema.safeParse(value);
     if (!again.success) throw new InputRefused(invalid(again.error, options.invalidMessage));
     return again.data;

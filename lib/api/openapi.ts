@@ -4,6 +4,7 @@ import {
   auditEventPage,
   auditEventsQuery,
   bathReadingOut,
+  fileAttachedOut,
   changeRequestDetailOut,
   changeRequestPage,
   changeRequestsQuery,
@@ -25,9 +26,12 @@ import {
   testRunsQuery,
 } from "@/lib/schemas/api";
 import { V1_ENDPOINTS } from "@/lib/api/v1-routes";
+import { EVIDENCE_FILE_KINDS } from "@/db/enums";
 import {
   bathRecordSchema,
   conductivitySampleSchema,
+  createRunSchema,
+  particleRunDataApiSchema,
   gravimetricSampleSchema,
   observationSampleSchema,
   particleSampleSchema,
@@ -42,6 +46,8 @@ export interface ApiOperation {
   pathParams?: Record<string, { description: string; schema: Record<string, unknown> }>;
   query?: z.ZodObject;
   body?: z.ZodType;
+  /** A multipart form instead of JSON (a file upload), as a JSON Schema of its fields. */
+  multipart?: Record<string, unknown>;
   response: z.ZodType;
   status?: number;
   errors: number[];
@@ -176,6 +182,55 @@ export const API_OPERATIONS: ApiOperation[] = [
   },
   {
     method: "post",
+    path: "/test-runs",
+    operationId: "openTestRun",
+    summary:
+      "Open a test run: part family, recipe version, test type, technician, lab and date; samples, series and files follow",
+    body: createRunSchema.describe(
+      "As the New test run form: the combination must be qualified, or being qualified by the change request or protocol named",
+    ),
+    response: testRunDetailOut,
+    status: 201,
+    errors: [400, 401, 403, 409, 413, 415, 422, 503],
+  },
+  {
+    method: "post",
+    path: "/test-runs/{runId}/extraction-series",
+    operationId: "saveExtractionSeries",
+    summary:
+      "Record a particle run's extraction series and blank; posting again replaces them, and the outcome is recomputed",
+    pathParams: { runId: uuidParam("Test run id (an open particle cleanliness run)") },
+    body: particleRunDataApiSchema,
+    response: testRunDetailOut,
+    errors: [400, 401, 403, 404, 413, 415, 422, 423, 503],
+  },
+  {
+    method: "post",
+    path: "/test-runs/{runId}/files",
+    operationId: "attachTestRunFile",
+    summary:
+      "Attach one file to an open run: checked for what it is, stored once under its SHA-256, audited",
+    pathParams: { runId: uuidParam("Test run id (the run must be open)") },
+    multipart: {
+      type: "object",
+      required: ["file", "kind"],
+      additionalProperties: false,
+      properties: {
+        file: { type: "string", contentMediaType: "application/octet-stream" },
+        kind: { type: "string", enum: [...EVIDENCE_FILE_KINDS] },
+        sampleLabel: {
+          type: "string",
+          maxLength: 60,
+          description: "The sample a photo or membrane image shows",
+        },
+      },
+    },
+    response: fileAttachedOut,
+    status: 201,
+    errors: [400, 401, 403, 404, 409, 413, 415, 422, 423, 503],
+  },
+  {
+    method: "post",
     path: "/test-runs/{runId}/samples",
     operationId: "addTestSample",
     summary:
@@ -225,7 +280,8 @@ const ERROR_TEXT: Record<number, string> = {
   403: "The token's scope or the owner's roles do not allow this",
   404: "No such record",
   409: "The record's state does not allow this (e.g. the sample is already recorded)",
-  415: "The body is not JSON",
+  413: "The body or file is larger than the limit the message names; nothing was stored",
+  415: "The body is not JSON (or, for a file, not a multipart form)",
   422: "The body breaks the schema: wrong type, missing or unknown field",
   423: "The run is signed and locked: correct it through a new revision",
   503: "The database is busy or read-only; nothing was changed, try again later",
@@ -304,7 +360,14 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
               content: { "application/json": { schema: embedded(op.body, "input") } },
             },
           }
-        : {}),
+        : op.multipart
+          ? {
+              requestBody: {
+                required: true,
+                content: { "multipart/form-data": { schema: op.multipart } },
+              },
+            }
+          : {}),
       responses,
     };
   }
@@ -314,7 +377,7 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
       title: "Washproof API",
       version: "1",
       description:
-        "Read cleaning systems, recipes and their versions, change requests, test runs and the audit trail. Authenticate with a personal API token (Account → API tokens) as `Authorization: Bearer wpk_…`. A token acts with its owner's roles; a read token never writes. Lists are paged with `limit` and `cursor` (pass back `nextCursor`). Unknown query parameters and body fields are refused.",
+        "Read cleaning systems, recipes and their versions, change requests, test runs and the audit trail; instruments open test runs and post their samples, extraction series and files. Authenticate with a personal API token (Account → API tokens) as `Authorization: Bearer wpk_…`. A token acts with its owner's roles; a read token never writes. Lists are paged with `limit` and `cursor` (pass back `nextCursor`). Unknown query parameters and body fields are refused.",
     },
     servers: [{ url: serverUrl }],
     security: [{ bearerAuth: [] }],

@@ -124,3 +124,22 @@ export function unknownFieldsMessage(errors: Record<string, string[]>): string {
     .join(", ");
   return `${keys.length === 1 ? "This field is" : "These fields are"} not known here: ${named}${keys.length > 5 ? ` and ${keys.length - 5} more` : ""}. Nothing was saved.`;
 }
+
+/**
+ * The unknown keys of a submitted form that are surely mistakes: a key under a field the schema
+ * knows ("counts.b" beside "counts.B"), or a top-level key that differs from a known one only in
+ * case ("Reason"). A form may carry other fields for its page (a hidden id that only tells the
+ * page what to refresh), so a wholly different top-level name is left to the schema to ignore.
+ */
+export function misnamedFormFields(
+  schema: z.ZodType,
+  form: unknown,
+): Record<string, string[]> | null {
+  const all = unknownFieldErrors(schema, form);
+  if (!all) return null;
+  const known = [...(knownKeys(schema) ?? [])].map((k) => k.toLowerCase());
+  const kept = Object.entries(all).filter(
+    ([path]) => path.includes(".") || known.includes(path.toLowerCase()),
+  );
+  return kept.length ? Object.fromEntries(kept) : null;
+}

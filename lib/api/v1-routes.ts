@@ -11,6 +11,8 @@ import * as apiV1RecipesRecipeidRoute from "@/app/api/v1/recipes/[recipeId]/rout
 import * as apiV1RecipesRecipeidVersionsVersionRoute from "@/app/api/v1/recipes/[recipeId]/versions/[version]/route";
 import * as apiV1RecipesRoute from "@/app/api/v1/recipes/route";
 import * as apiV1SpecificationsRoute from "@/app/api/v1/specifications/route";
+import * as apiV1TestRunsRunidExtractionSeriesRoute from "@/app/api/v1/test-runs/[runId]/extraction-series/route";
+import * as apiV1TestRunsRunidFilesRoute from "@/app/api/v1/test-runs/[runId]/files/route";
 import * as apiV1TestRunsRunidSamplesRoute from "@/app/api/v1/test-runs/[runId]/samples/route";
 import * as apiV1TestRunsRunidRoute from "@/app/api/v1/test-runs/[runId]/route";
 import * as apiV1TestRunsRoute from "@/app/api/v1/test-runs/route";
@@ -33,6 +35,9 @@ export const V1_ROUTE_MODULES: Record<string, Record<string, unknown>> = {
     apiV1RecipesRecipeidVersionsVersionRoute,
   "app/api/v1/recipes/route.ts": apiV1RecipesRoute,
   "app/api/v1/specifications/route.ts": apiV1SpecificationsRoute,
+  "app/api/v1/test-runs/[runId]/extraction-series/route.ts":
+    apiV1TestRunsRunidExtractionSeriesRoute,
+  "app/api/v1/test-runs/[runId]/files/route.ts": apiV1TestRunsRunidFilesRoute,
   "app/api/v1/test-runs/[runId]/samples/route.ts": apiV1TestRunsRunidSamplesRoute,
   "app/api/v1/test-runs/[runId]/route.ts": apiV1TestRunsRunidRoute,
   "app/api/v1/test-runs/route.ts": apiV1TestRunsRoute,

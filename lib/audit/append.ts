@@ -2,7 +2,13 @@ import { desc } from "drizzle-orm";
 import { auditEvents } from "@/db/schema";
 import type { Tx } from "@/db/client";
 import { canonicalJson } from "./canonical-json";
-import { auditEventSchema, type AuditActor, type AuditEventInput } from "./events";
+import {
+  auditEventSchema,
+  SYSTEM_ACTOR,
+  type AuditActor,
+  type AuditEventInput,
+} from "./events";
+import { seedStamp } from "./seed-stamp";
 import { readsBackUnchanged } from "@/lib/schemas/text";
 import { chainHash, GENESIS_HASH } from "./hash";
 
@@ -18,6 +24,13 @@ export async function appendAudit(
   now = new Date(),
 ) {
   const event = auditEventSchema.parse(input);
+  // Only the demo seed sets a stamp: its story's time, and its person in place of "system".
+  const stamped = seedStamp();
+  if (stamped) {
+    now = stamped.at;
+    if (stamped.actor && actor.id === SYSTEM_ACTOR.id && actor.name === SYSTEM_ACTOR.name)
+      actor = stamped.actor;
+  }
   const [last] = await tx
     .select({ seq: auditEvents.seq, hash: auditEvents.hash })
     .from(auditEvents)

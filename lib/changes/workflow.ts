@@ -88,6 +88,42 @@ export function stepProblem(
   return null;
 }
 
+/**
+ * Whether the change page offers a step: the lifecycle allows it and, for Verify, the
+ * evidence exists. A button that can only be refused is not offered; the page says
+ * what it waits for instead (waitingFor).
+ */
+export function stepOffered(
+  step: ChangeStep,
+  status: ChangeStatus,
+  requiredTests: number,
+  gateHolds: boolean,
+): boolean {
+  if (stepProblem(step, status, requiredTests) !== null) return false;
+  if (step === "verify" && requiredTests > 0 && !gateHolds) return false;
+  return true;
+}
+
+/** What Verify and Close wait for while the change is being requalified, or null when nothing. */
+export function waitingFor(
+  status: ChangeStatus,
+  requiredTests: number,
+  gate: { holds: boolean; missing: string[] },
+): { summary: string; missing: string[] } | null {
+  if (status !== "requalification" || requiredTests === 0) return null;
+  if (!gate.holds)
+    return {
+      summary:
+        "Verify and Close and make effective wait for the requalification evidence. Still missing:",
+      missing: gate.missing,
+    };
+  return {
+    summary:
+      "The evidence is complete. Next a second person signs the change verified; only then is it closed and made effective.",
+    missing: [],
+  };
+}
+
 const STEP_PAST: Record<ChangeStep, string> = {
   assess: "submitted for approval",
   reopen: "reopened",

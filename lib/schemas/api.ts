@@ -360,6 +360,12 @@ export const testRunOut = named(
 export const testRunDetailOut = named(
   "TestRunDetail",
   testRunOut.extend({
+    runData: z
+      .record(z.string(), z.unknown())
+      .nullable()
+      .describe(
+        "Run-level raw data: a particle test's extraction series and blank, null until recorded",
+      ),
     samples: z.array(
       z.object({
         id: z.string(),
@@ -466,5 +472,17 @@ export const bathReadingOut = named(
         "Against the tank's measurement plan; null when the tank has no plan line for the values",
       ),
     findings: z.array(z.string()).describe("One sentence per value beyond a limit"),
+  }),
+);
+
+export const fileAttachedOut = named(
+  "FileAttached",
+  z.object({
+    fileId: z.string(),
+    sha256: z.string(),
+    created: z
+      .boolean()
+      .describe("False when these bytes were already stored (for another run); they are kept once"),
+    run: testRunDetailOut,
   }),
 );

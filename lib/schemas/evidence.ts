@@ -185,6 +185,26 @@ export const particleRunDataSchema = z
   }));
 export type ParticleRunData = z.output<typeof particleRunDataSchema>;
 
+/**
+ * The same extraction series and blank as an instrument sends them over the API: JSON
+ * numbers rather than form text, and the blank required, as the form requires it.
+ */
+export const particleRunDataApiSchema = z
+  .object({
+    extractionSeries: z
+      .array(z.number().int().min(0).max(1e9))
+      .max(10)
+      .describe("Counts of the successive extractions of the declining test (ISO 16232), in order"),
+    blank: z.object({
+      counts: countsSchema.describe("Blank counts per size class (B … N); a class left out is 0"),
+      largestUm: z.number().min(5).max(100_000).nullable().default(null),
+    }),
+  })
+  .transform(({ extractionSeries, blank }): ParticleRunData => ({
+    extractionSeries,
+    blank: { counts: blank.counts, largestUm: blank.largestUm },
+  }));
+
 export const gravimetricSampleSchema = sampleBase
   .extend({
     components: requiredNumber("Components filtered", { min: 1, max: 10_000, int: true }),
@@ -270,6 +290,17 @@ export const reviseRunSchema = z.object({
 });
 
 export const fileKindSchema = z.enum(EVIDENCE_FILE_KINDS);
+
+/** The fields that travel beside an uploaded file, from the run page and from the API alike. */
+export const evidenceFileFieldsSchema = z.object({
+  kind: fileKindSchema,
+  sampleLabel: z.preprocess(
+    (v) => (v === "" || v === null ? undefined : v),
+    storedText().trim().max(60).optional(),
+  ),
+});
+/** Every field an upload form may carry; the API refuses any other by name. */
+export const EVIDENCE_FILE_FORM_KEYS = ["file", "kind", "sampleLabel"] as const;
 
 export const detachFileSchema = z.object({
   runId: uuid,

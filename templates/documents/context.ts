@@ -37,4 +37,14 @@ export interface TemplateContext {
     }[];
   } | null;
   sample: { confidencePct: number; reliabilityPct: number; size: number };
+  /** The test runs on this part family and recipe version (a report's results), oldest first. */
+  runs?: {
+    number: string;
+    testType: string;
+    samples: number;
+    outcome: "pass" | "fail" | "incomplete" | null;
+    status: string;
+    performedOn: string | null;
+    technician: string | null;
+  }[];
 }

@@ -1,4 +1,5 @@
-import { doc, h, ol, p, table, ul, type RichDoc } from "@/lib/documents/rich-text";
+import { doc, h, ol, p, table, ul, type RichDoc, type RichNode } from "@/lib/documents/rich-text";
+import { humanize } from "@/lib/format/labels";
 import { TYPE_LABELS } from "@/lib/documents/lifecycle";
 import {
   acceptanceCriteria,
@@ -16,10 +17,40 @@ import type { TemplateContext } from "./context";
 export type { TemplateContext } from "./context";
 
 function heading(ctx: TemplateContext) {
-  return [
-    h(1, `${ctx.number} — ${ctx.title}`),
-    p(`${TYPE_LABELS[ctx.type]}. Read the whole document before the first run.`),
-  ];
+  // A report records what was done and found; only a protocol or procedure is read before the work.
+  const lead =
+    ctx.type === "report"
+      ? `${TYPE_LABELS[ctx.type]}. It records the runs performed, their results against the acceptance criteria, and the conclusion.`
+      : ctx.type === "change_narrative"
+        ? `${TYPE_LABELS[ctx.type]}.`
+        : `${TYPE_LABELS[ctx.type]}. Read the whole document before the first run.`;
+  return [h(1, `${ctx.number} — ${ctx.title}`), p(lead)];
+}
+
+const OUTCOME_WORDS = {
+  pass: "Pass",
+  fail: "Fail",
+  incomplete: "Incomplete",
+} as const;
+
+/** The report's results: one row per linked run, as computed from its raw data. */
+function resultsTable(ctx: TemplateContext): RichNode {
+  const runs = ctx.runs ?? [];
+  if (runs.length === 0)
+    return table(
+      ["Test", "Run", "Samples", "Computed outcome", "Criterion met"],
+      [["No test run recorded yet on this part family and recipe version", "", "", "", ""]],
+    );
+  return table(
+    ["Test", "Run", "Samples", "Computed outcome", "Criterion met"],
+    runs.map((r) => [
+      humanize(r.testType),
+      `${r.number} (${r.status}${r.performedOn ? `, ${r.performedOn}` : ""}${r.technician ? `, ${r.technician}` : ""})`,
+      String(r.samples),
+      r.outcome ? OUTCOME_WORDS[r.outcome] : "Not computed",
+      r.outcome === "pass" ? "Yes" : r.outcome === "fail" ? "No" : "Not yet",
+    ]),
+  );
 }
 
 function iqProtocol(ctx: TemplateContext): RichDoc {
@@ -135,24 +166,21 @@ function validationReport(ctx: TemplateContext): RichDoc {
     ...heading(ctx),
     h(2, "Purpose"),
     p(
-      "Report the results of the executed protocol, state whether the acceptance criteria were met and conclude on the validated state of the process.",
+      "This report gives the results of the executed protocol, states whether the acceptance criteria were met and concludes on the validated state of the process.",
     ),
     h(2, "Scope"),
     ...scopeFacts(ctx),
     h(2, "Protocol and execution"),
     p(
-      "Name the protocol number and version executed, the dates of the runs and who performed them.",
+      (ctx.runs ?? []).length > 0
+        ? `Runs performed: ${ctx.runs!.map((r) => r.number).join(", ")}. Name the protocol number and version they executed.`
+        : "Name the protocol number and version executed, the dates of the runs and who performed them.",
     ),
     h(2, "Results"),
-    table(
-      ["Test", "Samples", "Result", "Criterion met"],
-      [
-        ["Particle cleanliness", "", "", ""],
-        ["Gravimetry", "", "", ""],
-        ["Wetting tension", "", "", ""],
-        ["Visual and dryness", "", "", ""],
-      ],
+    p(
+      "Computed from each run's stored raw data; a run still open or not yet verified is shown as it stands today.",
     ),
+    resultsTable(ctx),
     ...acceptanceCriteria(ctx),
     h(2, "Deviations"),
     p("List each deviation raised during execution with its assessment and closure."),

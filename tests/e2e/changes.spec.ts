@@ -321,18 +321,13 @@ test("a wash temperature above its validated range is major, is requalified with
     await expect(page.getByRole("table", { name: "Signatures" })).toContainText("Ines Varga");
   }
 
-  // The gate is met, but a change in requalification is closed only after it is verified.
+  // The gate is met, but a change in requalification is closed only after it is verified: Close is not offered yet.
   const early = await as(browser, "approver", changeUrl);
   await expect(early.getByRole("heading", { name: "Requalification gate: met" })).toBeVisible();
-  await early.getByRole("button", { name: "Close and make effective" }).click();
-  await expect(
-    early.getByRole("form", { name: "Close and make effective" }).getByRole("alert"),
-  ).toHaveText(
-    "Verify the change first: a second person signs it verified, and only then is it closed and made effective.",
+  await expect(early.getByRole("note", { name: "What the next step waits for" })).toContainText(
+    "only then is it closed and made effective",
   );
-  await expect(early.getByRole("heading", { level: 1 }).locator("..")).toContainText(
-    "Requalification",
-  );
+  await expect(early.getByRole("button", { name: "Close and make effective" })).toHaveCount(0);
   await early.close();
 
   const reviewer = await as(browser, "reviewer", changeUrl);
@@ -355,19 +350,17 @@ test("a wash temperature above its validated range is major, is requalified with
   await closer.close();
 });
 
-test("closing without evidence is refused with the list of what is missing", async ({ page }) => {
+test("before the evidence exists, Verify and Close are not offered: the next step says what is missing", async ({
+  page,
+}) => {
   await signInAs(page, "approver");
   await page.goto("/changes");
   await page.getByRole("link", { name: "CR-2026-002" }).click();
-  await expect(page.getByRole("list", { name: "What is missing" })).toContainText(
-    "Particle cleanliness (29 samples): no test run linked",
-  );
-  await page.getByRole("button", { name: "Close and make effective" }).click();
-  await expect(
-    page.getByRole("form", { name: "Close and make effective" }).getByRole("alert"),
-  ).toHaveText(
-    "The requalification gate is not met. Missing: Gravimetric residue (29 samples): no test run linked; Particle cleanliness (29 samples): no test run linked.",
-  );
+  const waits = page.getByRole("note", { name: "What the next step waits for" });
+  await expect(waits).toContainText("Particle cleanliness (29 samples): no test run linked");
+  await expect(waits).toContainText("Gravimetric residue (29 samples): no test run linked");
+  await expect(page.getByRole("button", { name: "Close and make effective" })).toHaveCount(0);
+  await expect(page.getByRole("button", { name: "Verify change" })).toHaveCount(0);
   await expect(page.getByRole("heading", { level: 1 }).locator("..")).toContainText(
     "Requalification",
   );

@@ -5,16 +5,75 @@ import { describeChanges } from "@/lib/audit/describe";
 import { toCsv } from "@/lib/csv/to-csv";
 import { auditQuerySchema } from "@/lib/schemas/audit";
 import { iterateAuditEvents, queryAuditEvents } from "@/lib/server/audit/query-audit-events";
+import { users } from "@/db/schema";
 import { createTestDatabase } from "./support/test-db";
 
 describe("describeChanges", () => {
-  it("lists changed fields old → new and leaves unchanged ones out", () => {
+  it("lists changed fields old → new in words and leaves unchanged ones out", () => {
     expect(
       describeChanges({ old: { name: "A", setpoint: 55 }, new: { name: "A", setpoint: 60 } }),
-    ).toEqual([{ field: "setpoint", old: "55", new: "60" }]);
-    expect(describeChanges({ old: null, new: { roles: ["engineer"] } })).toEqual([
-      { field: "roles", old: null, new: '["engineer"]' },
+    ).toEqual([{ field: "setpoint", label: "Setpoint", old: "55", new: "60" }]);
+    // A list reads as a list of words, not as JSON.
+    expect(
+      describeChanges({ old: null, new: { roles: ["engineer", "quality_approver"] } }),
+    ).toEqual([{ field: "roles", label: "Roles", old: null, new: "Engineer; Quality approver" }]);
+  });
+
+  it("names the records an event refers to by number and name, not by id", () => {
+    const labelOf = (type: string, id: string) =>
+      type === "part_family" && id === "f-1" ? "PF-VB-210 · Valve body VB-210" : undefined;
+    const changes = describeChanges(
+      {
+        old: null,
+        new: {
+          partFamilyId: "f-1",
+          recipeVersionId: "v-unknown",
+          effectiveFrom: "2025-03-10T07:00:00.000Z",
+          testType: "uv_inspection",
+          customerApprovesChanges: true,
+          limits: { maxMetallicUm: 400 },
+        },
+      },
+      labelOf,
+    );
+    expect(changes).toEqual([
+      {
+        field: "customerApprovesChanges",
+        label: "Customer approves changes",
+        old: null,
+        new: "yes",
+      },
+      {
+        field: "effectiveFrom",
+        label: "Effective from",
+        old: null,
+        new: "2025-03-10 07:00:00 UTC",
+      },
+      { field: "limits", label: "Limits", old: null, new: "Max metallic µm: 400" },
+      {
+        field: "partFamilyId",
+        label: "Part family",
+        old: null,
+        new: "PF-VB-210 · Valve body VB-210",
+      },
+      // A record that is no longer found keeps its id rather than vanishing.
+      { field: "recipeVersionId", label: "Recipe version", old: null, new: "v-unknown" },
+      { field: "testType", label: "Test type", old: null, new: "UV inspection" },
     ]);
+  });
+
+  it("shows a changed text as a word diff", () => {
+    const [change] = describeChanges({
+      old: { description: "Wash at 55 °C for 4 min" },
+      new: { description: "Wash at 60 °C for 4 min" },
+    });
+    expect(change.words?.filter((w) => w.change !== null)).toEqual([
+      { text: "55", change: "removed" },
+      { text: "60", change: "added" },
+    ]);
+    expect(change.words?.map((w) => (w.change === "removed" ? "" : w.text)).join("")).toBe(
+      "Wash at 60 °C for 4 min",
+    );
   });
 });
 
@@ -112,6 +171,37 @@ describe("audit query", () => {
   it("treats SQL metacharacters in a filter as plain text", async () => {
     const page = await queryAuditEvents(auditQuerySchema.parse({ recordId: "r-1' OR '1'='1" }));
     expect(page.items).toEqual([]);
+  });
+
+  it("shows each event's record by its name, and ids in the values as names", async () => {
+    await t.db.insert(users).values({
+      id: "u-named",
+      email: "named@example.test",
+      name: "Nora Quill",
+      passwordHash: "x",
+    });
+    await t.db.transaction((tx) =>
+      appendAudit(
+        tx,
+        { id: "u-a", name: "Ann" },
+        {
+          eventType: "user.updated",
+          recordType: "user",
+          recordId: "u-named",
+          old: { name: "Nora Q." },
+          new: { name: "Nora Quill" },
+        },
+      ),
+    );
+    const [latest] = (await queryAuditEvents(auditQuerySchema.parse({ limit: "1" }))).items;
+    expect(latest).toMatchObject({
+      recordId: "u-named",
+      recordLabel: "Nora Quill",
+      recordTypeLabel: "User",
+    });
+    // An event on a record that is gone keeps its id and no label.
+    const gone = await queryAuditEvents(auditQuerySchema.parse({ recordId: "r-3" }));
+    expect(gone.items[0]).toMatchObject({ recordId: "r-3", recordLabel: null });
   });
 
   it("iterates every matching event for export", async () => {

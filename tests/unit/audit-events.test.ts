@@ -1014,9 +1014,9 @@ describe("events stored under an earlier name", () => {
     expect(read.event).toBeNull();
     expect(read.eventType).toBe("document.effective");
     expect(describeChanges(read)).toEqual([
-      { field: "effectiveDate", old: null, new: "2026-01-02" },
-      { field: "seeded", old: null, new: "true" },
-      { field: "status", old: null, new: "effective" },
+      { field: "effectiveDate", label: "Effective date", old: null, new: "2026-01-02" },
+      { field: "seeded", label: "Seeded", old: null, new: "yes" },
+      { field: "status", label: "Status", old: null, new: "Effective" },
     ]);
     const unknown = readAuditEvent({
       action: "thing.happened",

@@ -1,6 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { CHANGE_STATUSES } from "@/db/enums";
-import { CHANGE_STEPS, stepProblem, type ChangeStep } from "@/lib/changes/workflow";
+import {
+  CHANGE_STEPS,
+  stepOffered,
+  stepProblem,
+  waitingFor,
+  type ChangeStep,
+} from "@/lib/changes/workflow";
 import { evaluateGate, type GateRequirement, type GateRun } from "@/lib/changes/gate";
 
 const particle: GateRequirement = { id: "r1", testType: "particle_cleanliness", samples: 29 };
@@ -146,5 +152,30 @@ describe("change-request lifecycle", () => {
     expect(stepProblem("close", "requalification", 2)).toBe(
       "Verify the change first: a second person signs it verified, and only then is it closed and made effective.",
     );
+  });
+});
+
+describe("what the change page offers during requalification", () => {
+  const missing = ["Particle cleanliness (29 samples): no test run linked"];
+  it("offers neither Verify nor Close before the evidence exists, and says what is missing", () => {
+    expect(stepOffered("verify", "requalification", 2, false)).toBe(false);
+    expect(stepOffered("close", "requalification", 2, false)).toBe(false);
+    expect(waitingFor("requalification", 2, { holds: false, missing })).toEqual({
+      summary:
+        "Verify and Close and make effective wait for the requalification evidence. Still missing:",
+      missing,
+    });
+  });
+  it("offers Verify once the gate holds, and Close only after the change is verified", () => {
+    expect(stepOffered("verify", "requalification", 2, true)).toBe(true);
+    expect(stepOffered("close", "requalification", 2, true)).toBe(false);
+    expect(waitingFor("requalification", 2, { holds: true, missing: [] })?.summary).toMatch(
+      /only then is it closed/,
+    );
+    expect(stepOffered("close", "verified", 2, true)).toBe(true);
+  });
+  it("a change without tests is verified straight after approval; nothing waits", () => {
+    expect(stepOffered("verify", "approved_for_implementation", 0, true)).toBe(true);
+    expect(waitingFor("approved_for_implementation", 0, { holds: true, missing: [] })).toBeNull();
   });
 });

@@ -477,7 +477,7 @@ export async function getTestRunApi(runId: string): Promise<TestRunDetailOut | u
   const [head] = await runRows(eq(testRuns.id, runId), 1);
   if (!head) return undefined;
   const db = getDb();
-  const [samples, files, sigs] = await Promise.all([
+  const [samples, files, sigs, [stored]] = await Promise.all([
     db
       .select()
       .from(testSamples)
@@ -493,9 +493,11 @@ export async function getTestRunApi(runId: string): Promise<TestRunDetailOut | u
       .from(signatures)
       .where(and(eq(signatures.recordType, "test_run"), eq(signatures.recordId, runId)))
       .orderBy(asc(signatures.signedAt)),
+    db.select({ runData: testRuns.runData }).from(testRuns).where(eq(testRuns.id, runId)),
   ]);
   return {
     ...head.out,
+    runData: stored?.runData ?? null,
     samples: samples.map((r) => ({
       id: r.id,
       sampleLabel: r.sampleLabel,

@@ -1,10 +1,12 @@
 import "server-only";
 import { and, desc, eq, gte, inArray, lt, lte, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
+import { humanize } from "@/lib/format/labels";
 import { auditEvents } from "@/db/schema";
-import { describeChanges } from "@/lib/audit/describe";
+import { describeChanges, referencedRecords } from "@/lib/audit/describe";
 import { currentEventType, readAuditEvent, storedNamesOf } from "@/lib/audit/read";
 import type { AuditQuery } from "@/lib/schemas/audit";
+import { labelRecords } from "./record-labels";
 
 /** The filters as SQL, shared by the browser, the CSV export and the API. */
 export function auditConditions(q: Partial<AuditQuery>): SQL | undefined {
@@ -31,22 +33,29 @@ export async function queryAuditEvents(q: AuditQuery) {
     .orderBy(desc(auditEvents.seq))
     .limit(q.limit + 1);
   const page = rows.slice(0, q.limit);
+  const events = page.map((r) => ({ row: r, event: readAuditEvent(r) }));
+  // Records are shown by their numbers and names, looked up for the whole page at once.
+  const labelOf = await labelRecords(
+    events.flatMap(({ row, event }) => [
+      { recordType: row.recordType, recordId: row.recordId },
+      ...referencedRecords(event),
+    ]),
+  );
   return {
-    items: page.map((r) => {
-      const event = readAuditEvent(r);
-      return {
-        seq: r.seq,
-        at: r.at,
-        actorName: r.actorName,
-        eventType: event.eventType,
-        storedAs: event.storedAs,
-        recordType: r.recordType,
-        recordId: r.recordId,
-        reason: r.reason,
-        changes: describeChanges(event),
-        hash: r.hash,
-      };
-    }),
+    items: events.map(({ row: r, event }) => ({
+      seq: r.seq,
+      at: r.at,
+      actorName: r.actorName,
+      eventType: event.eventType,
+      storedAs: event.storedAs,
+      recordType: r.recordType,
+      recordTypeLabel: humanize(r.recordType),
+      recordId: r.recordId,
+      recordLabel: labelOf(r.recordType, r.recordId) ?? null,
+      reason: r.reason,
+      changes: describeChanges(event, labelOf),
+      hash: r.hash,
+    })),
     nextBefore: rows.length > q.limit ? page[page.length - 1].seq : null,
   };
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { asc, eq, like } from "drizzle-orm";
+import { and, asc, count, eq, like, ne } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { loadParametersInProcessOrder } from "@/db/recipe-content";
 import {
@@ -11,6 +11,9 @@ import {
   recipes,
   recipeVersions,
   systemStages,
+  testRuns,
+  testSamples,
+  users,
 } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { can } from "@/lib/auth/permissions";
@@ -75,6 +78,33 @@ export async function createDocument(actor: DocumentActor, input: CreateDocument
       });
     const params = recipe ? await loadParametersInProcessOrder(tx, [recipe.v.id]) : [];
 
+    // A report opens with the results of the runs on its part family and recipe version.
+    const runs =
+      input.type === "report" && family && recipe
+        ? await tx
+            .select({
+              number: testRuns.number,
+              testType: testRuns.testType,
+              outcome: testRuns.outcome,
+              status: testRuns.status,
+              performedOn: testRuns.performedOn,
+              technician: users.name,
+              samples: count(testSamples.id),
+            })
+            .from(testRuns)
+            .leftJoin(testSamples, eq(testSamples.runId, testRuns.id))
+            .leftJoin(users, eq(users.id, testRuns.technicianId))
+            .where(
+              and(
+                eq(testRuns.partFamilyId, family.f.id),
+                eq(testRuns.recipeVersionId, recipe.v.id),
+                ne(testRuns.status, "superseded"),
+              ),
+            )
+            .groupBy(testRuns.id)
+            .orderBy(asc(testRuns.number))
+        : [];
+
     const prefix = numberPrefix(input.type, system?.code ?? null);
     const taken = await tx
       .select({ number: documents.number })
@@ -119,6 +149,7 @@ export async function createDocument(actor: DocumentActor, input: CreateDocument
         reliabilityPct: input.reliabilityPct,
         size: successRunSampleSize(input.confidencePct / 100, input.reliabilityPct / 100),
       },
+      runs,
     };
     const content = buildTemplate(ctx);
 

@@ -4,6 +4,7 @@ import { getDb } from "@/db/client";
 import {
   cleaningSystems,
   documentReviews,
+  documentRoundTexts,
   documents,
   documentVersions,
   partFamilies,
@@ -179,4 +180,13 @@ export async function getDocumentAndVersion(documentId: string, versionParam: st
     Number(versionParam) || document.versions[0].version,
   );
   return version ? { document, version } : null;
+}
+
+/** The text of a version as submitted in one review round, or null when it was not kept (rounds before texts were kept). */
+export async function getRoundText(versionId: string, round: number): Promise<RichDoc | null> {
+  const [row] = await getDb()
+    .select({ content: documentRoundTexts.content })
+    .from(documentRoundTexts)
+    .where(and(eq(documentRoundTexts.versionId, versionId), eq(documentRoundTexts.round, round)));
+  return row ? (row.content as RichDoc) : null;
 }

@@ -4,8 +4,12 @@ import { getDb } from "@/db/client";
 import { documentVersions } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import type { RichDoc } from "@/lib/documents/rich-text";
+import { formatDateTime } from "@/lib/format/date";
 import { UserFacingError } from "@/lib/server/errors";
 import { assertTransition, hashContent, loadVersion, type DocumentActor } from "./shared";
+
+const formatTime = (iso: string | null) =>
+  iso ? formatDateTime(iso, { seconds: true }).slice(11) : "a moment ago";
 
 export type SaveDraftResult =
   | { ok: true; lockVersion: number; savedAt: string }
@@ -34,8 +38,11 @@ export async function saveDraft(
       return {
         ok: false,
         conflict: true,
-        message:
-          "Someone saved this draft after you opened it. Your text is kept here and was not saved: load their version, or save yours over it on purpose.",
+        // Asked to save over a text that has since been saved again: say so, with the newest
+        // counter, so the next press replaces the text the author has now been told about.
+        message: input.overwrite
+          ? `They saved again at ${formatTime(version.updatedAt)}, after the text you chose to replace. Nothing was saved: press “Save my text over theirs” again to replace their newest text, or load theirs.`
+          : "Someone saved this draft after you opened it. Your text is kept here and was not saved: load their version, or save yours over it on purpose.",
         currentLockVersion: version.lockVersion,
         savedAt: version.updatedAt,
       };

@@ -3,6 +3,7 @@ import { and, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import {
   documentReviews,
+  documentRoundTexts,
   documentVersions,
   signatures,
   userRoles,
@@ -120,6 +121,16 @@ export async function submitForReview(
         lockVersion: version.lockVersion + 1,
       })
       .where(eq(documentVersions.id, version.id));
+    // Kept per round, so the next round's reviewers see what changed since they sent it back.
+    await tx
+      .insert(documentRoundTexts)
+      .values({
+        versionId: version.id,
+        round,
+        contentHash,
+        content: version.content,
+        createdAt: submittedAt,
+      });
     const dueAt = input.dueDate ? `${input.dueDate}T23:59:59.999Z` : null;
     const steps = [
       ...input.reviewerIds.map((assigneeId, i) => ({

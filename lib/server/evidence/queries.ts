@@ -3,6 +3,7 @@ import { and, asc, count, desc, eq, gte, inArray, lte, ne, sql, type SQL } from 
 import { alias } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import {
+  changeRequestAssessments,
   changeRequestEvidence,
   changeRequests,
   changeRequestTests,
@@ -113,8 +114,18 @@ export async function runFormOptions() {
       .where(inArray(documents.type, ["iq_protocol", "oq_protocol", "pq_protocol"]))
       .orderBy(asc(documents.number)),
     db
-      .select({ id: changeRequests.id, number: changeRequests.number, title: changeRequests.title })
+      .select({
+        id: changeRequests.id,
+        number: changeRequests.number,
+        title: changeRequests.title,
+        toVersionId: changeRequests.toVersionId,
+        partFamilyId: changeRequestAssessments.partFamilyId,
+      })
       .from(changeRequests)
+      .leftJoin(
+        changeRequestAssessments,
+        eq(changeRequestAssessments.changeRequestId, changeRequests.id),
+      )
       .where(inArray(changeRequests.status, ["approved_for_implementation", "requalification"]))
       .orderBy(asc(changeRequests.number)),
   ]);

@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { CreateApiTokenForm, RevokeApiTokenForm } from "@/components/account/api-token-forms";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
@@ -39,9 +38,10 @@ export default async function ApiTokensPage() {
           <>
             Tokens let lab instruments and scripts use the Washproof API as you, with your roles and
             never more. A read token never writes. See the{" "}
-            <Link href="/api/v1/openapi.json" className="text-brand-800 hover:underline">
+            {/* A JSON document, not a page: a plain link, which the router never prefetches (its prefetch hung). */}
+            <a href="/api/v1/openapi.json" className="text-brand-800 hover:underline">
               OpenAPI description
-            </Link>
+            </a>
             .
           </>
         }

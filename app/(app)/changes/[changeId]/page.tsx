@@ -15,7 +15,8 @@ import {
   CHANGE_KIND_LABELS,
   CHANGE_STEPS,
   CHANGE_STATUS_LABELS,
-  stepProblem,
+  stepOffered,
+  waitingFor,
   type ChangeStep,
 } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
@@ -60,7 +61,13 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
   } = page;
   const may = (step: ChangeStep) =>
     can(user.roles, CHANGE_STEPS[step].permission) &&
-    stepProblem(step, cr.status, requirements.length) === null;
+    stepOffered(step, cr.status, requirements.length, gate.holds);
+  const waiting = waitingFor(cr.status, requirements.length, gate);
+  // The engineer's next step during requalification is entering the evidence each open requirement lacks.
+  const evidenceToEnter =
+    cr.status === "requalification" && can(user.roles, "evidence.record")
+      ? gate.requirements.filter((r) => r.satisfiedBy === null).map((r) => r.requirement)
+      : [];
   const hidden = { changeRequestId: cr.id };
   const label = `${cr.number} revision ${page.assessmentRow.revision}`;
   const editing = cr.status === "draft" && can(user.roles, "recipe.edit");
@@ -146,8 +153,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
               buttonLabel="Verify change"
             />
           )}
-          {(may("close") ||
-            (cr.status === "requalification" && can(user.roles, "recipe.make_effective"))) && (
+          {may("close") && (
             <StepButton
               action={closeChangeAction}
               changeRequestId={cr.id}
@@ -169,6 +175,39 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
             <ReasonStep action={withdrawChangeAction} changeRequestId={cr.id} label="Withdraw" />
           )}
         </div>
+        {waiting && (
+          <div className="mt-3 text-sm" role="note" aria-label="What the next step waits for">
+            <p>{waiting.summary}</p>
+            {waiting.missing.length > 0 && (
+              <ul className="mt-1 list-disc pl-5">
+                {waiting.missing.map((m) => (
+                  <li key={m}>{m}</li>
+                ))}
+              </ul>
+            )}
+          </div>
+        )}
+        {evidenceToEnter.length > 0 && (
+          <ul className="mt-3 flex flex-wrap gap-3 text-sm" aria-label="Enter the evidence">
+            {evidenceToEnter.map((r) => {
+              const query = new URLSearchParams({
+                change: cr.id,
+                testType: r.testType,
+                samples: String(r.samples),
+              });
+              return (
+                <li key={r.id}>
+                  <Link
+                    href={`/evidence/runs/new?${query}`}
+                    className="font-medium text-brand-800 hover:underline"
+                  >
+                    Open a {TEST_TYPE_LABELS[r.testType].toLowerCase()} run for {cr.number}
+                  </Link>
+                </li>
+              );
+            })}
+          </ul>
+        )}
         {cr.status === "closed" && (
           <p className="mt-2 text-sm">
             Closed on {formatDate(cr.closedAt)}: version {toVersion.version} is effective.

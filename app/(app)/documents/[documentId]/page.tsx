@@ -2,6 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { FileDown, GitCompare, PenLine } from "lucide-react";
+import { RedlineView } from "@/components/documents/redline-view";
+import { ReviewerOrder } from "@/components/documents/reviewer-order";
 import { RoutingTable } from "@/components/documents/routing-table";
 import { StatusBadge } from "@/components/documents/status-badge";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
@@ -12,9 +14,11 @@ import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { can } from "@/lib/auth/permissions";
 import { checkTransition, TYPE_LABELS } from "@/lib/documents/lifecycle";
+import { redline } from "@/lib/documents/redline";
 import { renderRichHtml } from "@/lib/documents/render-html";
+import { lastReturn, previousRouting } from "@/lib/documents/rounds";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { getDocumentAndVersion, listSigners } from "@/lib/server/documents/queries";
+import { getDocumentAndVersion, getRoundText, listSigners } from "@/lib/server/documents/queries";
 import { hashContent } from "@/lib/server/documents/shared";
 import {
   approveAction,
@@ -71,6 +75,14 @@ export default async function DocumentPage({
   const signers = version.status === "draft" && allowed("submit") ? await listSigners() : null;
   const current = version.signatures.filter((s) => s.contentHash === version.contentHash);
   const earlier = version.signatures.filter((s) => s.contentHash !== version.contentHash);
+  const returned = lastReturn(version.reviews);
+  const routedBefore = previousRouting(version.reviews, version.routing);
+  // On a later round, the text as it was when it was last returned, to show what changed since.
+  const returnedText =
+    version.status === "in_review" && returned && returned.round < version.reviewRound
+      ? await getRoundText(version.id, returned.round)
+      : null;
+  const sinceReturn = returnedText ? redline(returnedText, version.content) : null;
 
   return (
     <>
@@ -115,6 +127,19 @@ export default async function DocumentPage({
         ))}
       </nav>
 
+      {sinceReturn && returned && (
+        <div className="mb-6">
+          <Panel title={`Changed since round ${returned.round}`}>
+            <p className="mb-2 text-sm">
+              {returned.by} {returned.decision === "rejected" ? "rejected" : "sent back"} round{" "}
+              {returned.round}: “{returned.comment}”. Since then {sinceReturn.insertedWords} words
+              were added and {sinceReturn.deletedWords} removed.
+            </p>
+            <RedlineView redline={sinceReturn} />
+          </Panel>
+        </div>
+      )}
+
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
         <article aria-label={label} className="min-w-0 rounded-lg border border-stone-200 bg-white">
           {version.status !== "effective" && (
@@ -151,6 +176,18 @@ export default async function DocumentPage({
             </dl>
           </Panel>
 
+          {version.status === "draft" && returned && (
+            <Panel title="Returned with comments">
+              <p className="text-sm">
+                {returned.by} {returned.decision === "rejected" ? "rejected" : "sent back"} round{" "}
+                {returned.round} on {formatDate(returned.at)}:
+              </p>
+              <blockquote className="mt-2 border-l-4 border-amber-400 pl-3 text-sm whitespace-pre-wrap">
+                {returned.comment}
+              </blockquote>
+            </Panel>
+          )}
+
           {version.status === "draft" && allowed("edit") && (
             <Panel title="Draft">
               <div className="flex flex-wrap gap-2">
@@ -171,26 +208,20 @@ export default async function DocumentPage({
                     hidden={{ ...hidden, lockVersion: String(version.lockVersion) }}
                     buttonLabel="Submit for review"
                   >
-                    <ChoiceGroup
-                      type="checkbox"
-                      name="reviewerIds"
-                      legend="Reviewers"
-                      options={signers.reviewers
+                    <ReviewerOrder
+                      reviewers={signers.reviewers
                         .filter((r) => r.id !== user.id)
                         .map((r) => ({
-                          value: r.id,
-                          label: (
-                            <>
-                              {r.name}{" "}
-                              {r.jobTitle && <span className="text-stone-500">({r.jobTitle})</span>}
-                            </>
-                          ),
+                          id: r.id,
+                          label: r.jobTitle ? `${r.name} (${r.jobTitle})` : r.name,
                         }))}
+                      chosen={routedBefore?.reviewerIds ?? []}
                     />
                     <SelectField
                       name="approverId"
                       label="Approver"
                       placeholder="— choose —"
+                      defaultValue={routedBefore?.approverId ?? undefined}
                       options={signers.approvers
                         .filter((a) => a.id !== user.id)
                         .map((a) => ({
@@ -202,7 +233,7 @@ export default async function DocumentPage({
                       type="radio"
                       name="routing"
                       legend="Reviewers sign"
-                      defaultValues={["sequence"]}
+                      defaultValues={[routedBefore?.routing ?? "sequence"]}
                       options={[
                         { value: "sequence", label: "In sequence, in the order listed" },
                         { value: "parallel", label: "In parallel" },

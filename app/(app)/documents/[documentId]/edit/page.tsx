@@ -5,6 +5,8 @@ import { DocumentEditorLoader } from "@/components/documents/document-editor-loa
 import { StatusBadge } from "@/components/documents/status-badge";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
+import { lastReturn } from "@/lib/documents/rounds";
+import { formatDate } from "@/lib/format/date";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getDocumentAndVersion } from "@/lib/server/documents/queries";
 
@@ -23,6 +25,8 @@ export default async function EditDocumentPage({
   if (!found) notFound();
   const { document, version } = found;
   const back = `/documents/${documentId}?version=${version.version}`;
+  // The author answers the comment while editing, so it stays in view above the text.
+  const returned = version.status === "draft" ? lastReturn(version.reviews) : null;
   return (
     <>
       <PageHeader
@@ -44,6 +48,20 @@ export default async function EditDocumentPage({
           </Link>
         }
       />
+      {returned && (
+        <section
+          aria-label="Returned with comments"
+          className="mb-4 rounded-lg border border-amber-300 bg-amber-50 p-4 text-sm"
+        >
+          <p>
+            {returned.by} {returned.decision === "rejected" ? "rejected" : "sent back"} round{" "}
+            {returned.round} on {formatDate(returned.at)}:
+          </p>
+          <blockquote className="mt-1 border-l-4 border-amber-400 pl-3 whitespace-pre-wrap">
+            {returned.comment}
+          </blockquote>
+        </section>
+      )}
       {version.status === "draft" ? (
         <DocumentEditorLoader
           versionId={version.id}

@@ -1,15 +1,21 @@
 import type { Metadata } from "next";
 import { RunForm } from "@/components/evidence/run-form";
 import { PageHeader } from "@/components/ui/page-header";
+import { runDefaultsFromQuery } from "@/lib/evidence/run-defaults";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { runFormOptions } from "@/lib/server/evidence/queries";
 import { createRunAction } from "../../actions";
 
 export const metadata: Metadata = { title: "New test run" };
 
-export default async function NewRunPage() {
+export default async function NewRunPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePageUser("evidence.record");
   const options = await runFormOptions();
+  const defaults = runDefaultsFromQuery(await searchParams, options.changes);
   return (
     <>
       <PageHeader
@@ -19,6 +25,7 @@ export default async function NewRunPage() {
       <RunForm
         action={createRunAction}
         options={options}
+        defaults={defaults}
         defaultTechnicianId={
           options.technicians.some((t) => t.id === user.id) ? user.id : undefined
         }

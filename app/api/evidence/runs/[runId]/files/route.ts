@@ -1,20 +1,12 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { formatSize } from "@/lib/format/number";
-import { storedText } from "@/lib/schemas/text";
-import { fileKindSchema } from "@/lib/schemas/evidence";
+import { evidenceFileFieldsSchema } from "@/lib/schemas/evidence";
 import { defineRoute, routeError } from "@/lib/server/api/handler";
 import { UserFacingError } from "@/lib/server/errors";
 import { storeEvidenceFile, uploadLimitBytes } from "@/lib/server/evidence/store-file";
 
-const fieldsSchema = z.object({
-  runId: z.string().uuid(),
-  kind: fileKindSchema,
-  sampleLabel: z.preprocess(
-    (v) => (v === "" || v === null ? undefined : v),
-    storedText().trim().max(60).optional(),
-  ),
-});
+const fieldsSchema = evidenceFileFieldsSchema.extend({ runId: z.string().uuid() });
 
 /** Uploads one evidence file to an open run (multipart form: file, kind, sampleLabel). */
 export const POST = defineRoute<{ runId: string }>(
