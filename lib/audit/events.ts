@@ -417,6 +417,8 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: obj({
       sampleId: id,
       sampleLabel: text,
+      // Since samples name their wash cycle (2026-12); absent when none was named.
+      cycleNumber: text.optional(),
       basketPosition: text.nullable(),
       worstCase: z.boolean(),
       data: sampleData,
@@ -607,6 +609,22 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   event("api_token.revoked", "api_token", {
     old: obj({ revokedAt: z.null() }),
     new: obj({ name: text, prefix: text, revokedAt: isoTime }),
+  }),
+  // Wash cycles: one event per recording (a form, a washer's log file, an API call), naming its cycles.
+  event("wash_cycles.recorded", "wash_cycle_batch", {
+    new: obj({
+      source: z.enum(["form", "csv", "api"]),
+      count,
+      /** The first 50 cycle ids; the cycles carry the batch id, so the rest are found by it. */
+      cycles: z.array(text),
+      flagged: count,
+      fileName: text.optional(),
+      sha256: sha256.optional(),
+    }),
+  }),
+  // A cycle whose values left the validated range: its own event, so the audit trail lists each one.
+  event("wash_cycle.flagged", "wash_cycle", {
+    new: obj({ cycleNumber: text, system: text, lots: z.array(text), reasons: z.array(text) }),
   }),
 ]);
 

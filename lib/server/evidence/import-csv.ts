@@ -57,9 +57,10 @@ export async function importCsvRows(
       throw new UserFacingError(
         `Already recorded in this run: ${clash.slice(0, 10).join(", ")}. Nothing was imported.`,
       );
-    const values = input.rows.map(({ sampleLabel, basketPosition, worstCase, ...data }) => ({
+    const values = input.rows.map(({ sampleLabel, cycleNumber, basketPosition, worstCase, ...data }) => ({
       runId: run.id,
       sampleLabel,
+      cycleNumber: cycleNumber ?? null,
       basketPosition: basketPosition ?? null,
       worstCase,
       data,
