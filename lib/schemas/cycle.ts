@@ -123,7 +123,11 @@ export const cycleFormSchema = z.preprocess((raw) => {
     ...r,
     version: r.version === "" || r.version === undefined ? undefined : numberText(r.version),
     baskets: numberText(r.baskets),
-    lots: typeof r.lots === "string" ? splitLots(r.lots) : r.lots,
+    lots: Array.isArray(r.lots)
+      ? r.lots.flatMap((l) => (typeof l === "string" ? splitLots(l) : [l]))
+      : typeof r.lots === "string"
+        ? splitLots(r.lots)
+        : r.lots,
     values,
   };
 }, cycleInputSchema);

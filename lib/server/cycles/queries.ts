@@ -1,16 +1,18 @@
 import "server-only";
-import { and, desc, eq, inArray, lt, or, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, lt, or, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb } from "@/db/client";
 import {
   cleaningSystems,
   partFamilies,
+  recipeParameters,
   recipes,
   recipeVersions,
   washCycleLots,
   washCycles,
 } from "@/db/schema";
 import { BadCursorError, decodeCursor, encodeCursor } from "@/lib/api/cursor";
+import { isCycleValue } from "@/lib/cycles/flag";
 import type { cyclesQuery } from "@/lib/schemas/cycle";
 import { loadLotHistory, searchLots } from "./lot-history";
 
@@ -96,3 +98,55 @@ export async function listCycles(q: z.output<typeof cyclesQuery>) {
   };
 }
 export const listCyclesApi = listCycles;
+
+/**
+ * The recipe parameters a cycle records values for, once per key (the newest name and unit), across
+ * every version that has been in force: a log's value columns are mapped to these.
+ */
+export async function cycleValueParameters() {
+  const rows = await getDb()
+    .select({
+      key: recipeParameters.key,
+      name: recipeParameters.name,
+      unit: recipeParameters.unit,
+      kind: recipeParameters.kind,
+    })
+    .from(recipeParameters)
+    .innerJoin(recipeVersions, eq(recipeVersions.id, recipeParameters.versionId))
+    .where(inArray(recipeVersions.status, ["effective", "superseded"]))
+    .orderBy(asc(recipeParameters.key), desc(recipeVersions.createdAt));
+  const byKey = new Map<string, { key: string; name: string; unit: string }>();
+  for (const r of rows) if (isCycleValue(r) && !byKey.has(r.key)) byKey.set(r.key, r);
+  return [...byKey.values()];
+}
+
+/** What the hand-entry form offers: washers, their recipes, part families, and each recipe's value parameters in force. */
+export async function cycleFormOptions() {
+  const db = getDb();
+  const systems = await db
+    .select({ code: cleaningSystems.code, name: cleaningSystems.name })
+    .from(cleaningSystems)
+    .where(eq(cleaningSystems.active, true))
+    .orderBy(asc(cleaningSystems.code));
+  const recipeRows = await db
+    .select({ code: recipes.code, name: recipes.name, system: cleaningSystems.code })
+    .from(recipes)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .orderBy(asc(recipes.code));
+  const families = await db
+    .select({ code: partFamilies.code, name: partFamilies.name })
+    .from(partFamilies)
+    .orderBy(asc(partFamilies.code));
+  return { systems, recipes: recipeRows, families };
+}
+
+/** The measured parameters of a recipe's effective version, for the form's value fields. */
+export async function effectiveCycleParameters(recipeCode: string) {
+  const rows = await getDb()
+    .select({ p: recipeParameters })
+    .from(recipeParameters)
+    .innerJoin(recipeVersions, eq(recipeVersions.id, recipeParameters.versionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(and(eq(recipes.code, recipeCode), eq(recipeVersions.status, "effective")));
+  return rows.map((r) => r.p).filter(isCycleValue);
+}
