@@ -75,7 +75,7 @@ export function evaluateGate(
 ): GateResult {
   const states = requirements.map((requirement): RequirementState => {
     const runs = linked.get(requirement.id) ?? [];
-    const label = `${TEST_TYPE_LABELS[requirement.testType]} (${requirement.samples} samples${requirement.cycles ? ` from ${requirement.cycles} cycles` : ""})`;
+    const label = `${TEST_TYPE_LABELS[requirement.testType]} (${requirement.samples} samples)`;
     if (runs.length === 0)
       return { requirement, satisfiedBy: null, problems: [`${label}: no test run linked`] };
     const checked = runs.map((run) => ({ run, problems: runProblems(requirement, run) }));

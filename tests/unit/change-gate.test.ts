@@ -157,14 +157,14 @@ describe("requalification gate: independent samples from distinct wash cycles", 
     const g = evaluateGate([fromCycles], new Map([["r1", [run(3, 1)]]]));
     expect(g.holds).toBe(false);
     expect(g.missing).toEqual([
-      "Particle cleanliness (3 samples from 3 cycles): TR-1 has 3 parts from 1 cycle; needs 3 cycles",
+      "Particle cleanliness (3 samples): TR-1 has 3 parts from 1 cycle; needs 3 cycles",
     ]);
   });
 
   it("counts parts and cycles apart: enough cycles but too few parts names only the parts", () => {
     const g = evaluateGate([{ ...fromCycles, samples: 29 }], new Map([["r1", [run(5, 3)]]]));
     expect(g.missing).toEqual([
-      "Particle cleanliness (29 samples from 3 cycles): TR-1 has 5 samples, 29 required",
+      "Particle cleanliness (29 samples): TR-1 has 5 samples, 29 required",
     ]);
   });
 
@@ -173,7 +173,7 @@ describe("requalification gate: independent samples from distinct wash cycles", 
     expect(
       evaluateGate([fromCycles], new Map([["r1", [good({ sampleCount: 3 })]]])).missing,
     ).toEqual([
-      "Particle cleanliness (3 samples from 3 cycles): TR-1 has 3 parts from 0 cycles; needs 3 cycles",
+      "Particle cleanliness (3 samples): TR-1 has 3 parts from 0 cycles; needs 3 cycles",
     ]);
   });
 
