@@ -152,6 +152,12 @@ export async function recordCyclesIn(
           ),
         )
     : [];
+  const versionsOf = new Map<string, typeof versionRows>();
+  for (const v of versionRows)
+    versionsOf.set(v.recipeId, [...(versionsOf.get(v.recipeId) ?? []), v]);
+  const keysOf = new Map<string, Set<string>>();
+  for (const p of parameterRows)
+    keysOf.set(p.versionId, (keysOf.get(p.versionId) ?? new Set()).add(p.key));
   const parametersOf = new Map<string, CycleParameter[]>();
   for (const p of parameterRows) {
     const list = parametersOf.get(p.versionId) ?? [];
@@ -185,9 +191,10 @@ export async function recordCyclesIn(
       fail(i, "endedAt", "The end is before the start.");
     let version: (typeof versionRows)[number] | undefined;
     if (recipe) {
-      const versions = versionRows.filter((v) => v.recipeId === recipe.id);
+      const versions = versionsOf.get(recipe.id) ?? [];
       const inForce = versions.find((v) => inForceAt(v, c.startedAt));
-      const at = formatDateTime(c.startedAt);
+      // Formatted only for a refusal: 100,000 cycles would otherwise format 100,000 dates for nothing.
+      const at = () => formatDateTime(c.startedAt);
       if (c.version !== undefined) {
         version = versions.find((v) => v.version === c.version);
         if (!version) fail(i, "version", `${c.recipe} has no version ${c.version}.`);
@@ -195,13 +202,13 @@ export async function recordCyclesIn(
           fail(
             i,
             "version",
-            `${c.recipe} v${c.version} was not in force at the cycle's start (${at}): ${inForce ? `v${inForce.version} was` : "no version was"}.`,
+            `${c.recipe} v${c.version} was not in force at the cycle's start (${at()}): ${inForce ? `v${inForce.version} was` : "no version was"}.`,
           );
           version = undefined;
         }
       } else {
         version = inForce;
-        if (!version) fail(i, "version", `No version of ${c.recipe} was in force at ${at}.`);
+        if (!version) fail(i, "version", `No version of ${c.recipe} was in force at ${at()}.`);
       }
     }
     if (version && family && !qualified.has(`${version.id}|${family.id}`))
@@ -213,7 +220,7 @@ export async function recordCyclesIn(
     const params = version ? (parametersOf.get(version.id) ?? []) : [];
     if (version)
       for (const key of Object.keys(c.values))
-        if (!params.some((p) => p.key === key))
+        if (!keysOf.get(version.id)?.has(key))
           fail(i, `values.${key}`, `${c.recipe} v${version.version} has no parameter ${key}.`);
     if (system) {
       const key = `${system.id}|${c.cycleNumber}`;
