@@ -54,6 +54,17 @@ export const lotNumberSchema = storedText()
   .max(60)
   .regex(/^[A-Za-z0-9][A-Za-z0-9._/-]*$/, "A lot number holds letters, digits and - _ . / only.");
 
+/** A lot from a URL segment: decoded once if it still carries escapes, never throwing on a stray "%". */
+export function lotFromPath(segment: string) {
+  let text = segment;
+  try {
+    text = decodeURIComponent(segment);
+  } catch {
+    // a lone "%" is not an escape: the schema refuses it below
+  }
+  return lotNumberSchema.safeParse(text);
+}
+
 /** Lots written in one field or cell: separated by spaces, commas, semicolons or bars. */
 export const splitLots = (text: string) =>
   text

@@ -5,7 +5,12 @@ import { auditEvents, users, washCycleLots, washCycles } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { cycleFlags, type CycleParameter } from "@/lib/cycles/flag";
 import { inForceAt } from "@/lib/cycles/in-force";
-import { cycleInputSchema, cycleTimeToIso, type CycleInputRaw } from "@/lib/schemas/cycle";
+import {
+  cycleInputSchema,
+  cycleTimeToIso,
+  lotFromPath,
+  type CycleInputRaw,
+} from "@/lib/schemas/cycle";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { loadLotHistory, searchLots } from "@/lib/server/cycles/lot-history";
 import { recordCycles } from "@/lib/server/cycles/record-cycles-now";
@@ -283,6 +288,28 @@ describe("lot history", () => {
     for (const c of h.cycles)
       for (const tank of c.bath)
         if (tank.reading) expect(tank.reading.performedAt <= c.startedAt).toBe(true);
+  });
+
+  it("prints the history as a PDF through the render worker's job, with the lot and its cycles in the text", async () => {
+    const { renderJob } = await import("@/lib/pdf/jobs");
+    const history = await loadLotHistory(t.db, "VB210-250408");
+    const bytes = await renderJob({
+      kind: "lot-history",
+      input: {
+        history,
+        letterhead: { companyName: "Fennmoor Fluidtech", siteName: null },
+        printedAt: "2026-12-02T10:00:00.000Z",
+        printedBy: "Margit Olsen",
+      },
+    });
+    expect(bytes.subarray(0, 5).toString()).toBe("%PDF-");
+    expect(bytes.length).toBeGreaterThan(2000);
+  });
+
+  it("reads a lot from a URL segment without throwing on a stray percent sign", () => {
+    expect(lotFromPath("VB210-250408").data).toBe("VB210-250408");
+    expect(lotFromPath("A%2FB").data).toBe("A/B");
+    expect(lotFromPath("%").success).toBe(false);
   });
 
   it("finds lots by the start of their number and answers an unknown lot with nothing", async () => {

@@ -7,7 +7,7 @@ import { bathLine } from "@/lib/cycles/lot-export";
 import { formatDateTime } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
 import { TEST_TYPE_LABELS, type TestType } from "@/lib/recipes/test-types";
-import { lotNumberSchema } from "@/lib/schemas/cycle";
+import { lotFromPath } from "@/lib/schemas/cycle";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { lotHistory } from "@/lib/server/cycles/queries";
 
@@ -18,7 +18,7 @@ const secondary =
 
 export default async function LotHistoryPage({ params }: { params: Promise<{ lot: string }> }) {
   await requirePageUser("evidence.view");
-  const parsed = lotNumberSchema.safeParse(decodeURIComponent((await params).lot));
+  const parsed = lotFromPath((await params).lot);
   if (!parsed.success) notFound();
   const h = await lotHistory(parsed.data);
   if (h.cycles.length === 0) notFound();

@@ -1,7 +1,7 @@
 import { getDb } from "@/db/client";
 import { lotHistoryCsv } from "@/lib/cycles/lot-export";
 import { fileStamp } from "@/lib/format/date";
-import { lotNumberSchema } from "@/lib/schemas/cycle";
+import { lotFromPath } from "@/lib/schemas/cycle";
 import { defineRoute, routeError } from "@/lib/server/api/handler";
 import { lotHistory } from "@/lib/server/cycles/queries";
 import { renderPdf } from "@/lib/server/pdf/render-pdf";
@@ -11,7 +11,7 @@ import { loadLetterhead } from "@/lib/server/plant/letterhead";
 export const GET = defineRoute<{ lot: string }>(
   { permission: "evidence.view" },
   async ({ request, user, params }) => {
-    const lot = lotNumberSchema.safeParse(decodeURIComponent(params.lot));
+    const lot = lotFromPath(params.lot);
     if (!lot.success) return routeError(404, "No such lot.");
     const format = new URL(request.url).searchParams.get("format") ?? "csv";
     if (format !== "csv" && format !== "pdf")
