@@ -209,8 +209,10 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
               return (
                 <li key={requirement.id} className="rounded-md border border-stone-200 p-3">
                   <p>
-                    <span className="font-medium">{label}</span> on {requirement.samples} parts:{" "}
-                    {satisfiedBy ? `met by ${satisfiedBy}` : "not met"}
+                    <span className="font-medium">{label}</span> on {requirement.samples} parts
+                    {requirement.cycles
+                      ? ` from at least ${requirement.cycles} cycles`
+                      : ""}: {satisfiedBy ? `met by ${satisfiedBy}` : "not met"}
                   </p>
                   {runs.length > 0 && (
                     <p className="text-stone-700">
