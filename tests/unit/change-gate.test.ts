@@ -172,9 +172,7 @@ describe("requalification gate: independent samples from distinct wash cycles", 
     expect(evaluateGate([fromCycles], new Map([["r1", [run(3, 3)]]])).holds).toBe(true);
     expect(
       evaluateGate([fromCycles], new Map([["r1", [good({ sampleCount: 3 })]]])).missing,
-    ).toEqual([
-      "Particle cleanliness (3 samples): TR-1 has 3 parts from 0 cycles; needs 3 cycles",
-    ]);
+    ).toEqual(["Particle cleanliness (3 samples): TR-1 has 3 parts from 0 cycles; needs 3 cycles"]);
   });
 
   it("leaves cycles uncounted on a requirement set before they were counted", () => {
