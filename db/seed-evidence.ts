@@ -30,6 +30,7 @@ import {
 
 type Sample = {
   sampleLabel: string;
+  cycleNumber?: string;
   basketPosition?: string;
   worstCase?: boolean;
   data: Record<string, unknown>;
@@ -96,6 +97,8 @@ function valveBodyRun(
           fibreUm: 760,
         },
         {
+          // One part from each of the morning's three cycles: independent samples (db/seed-cycles.ts records them).
+          cycleNumber: `AW3-${performedOn.replaceAll("-", "").slice(2)}-T${n}`,
           basketPosition: n === 1 ? "top rear corner" : n === 2 ? "centre" : "bottom front",
           worstCase: n === 1,
         },
@@ -348,6 +351,7 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
             demo.samples.map((s, i) => ({
               runId: run.id,
               sampleLabel: s.sampleLabel,
+              cycleNumber: s.cycleNumber ?? null,
               basketPosition: s.basketPosition ?? null,
               worstCase: s.worstCase ?? false,
               data: s.data,

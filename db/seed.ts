@@ -19,6 +19,7 @@ import { seedEvidence } from "./seed-evidence";
 import { seedBathPlan } from "./seed-bath-plan";
 import { seedChangeControl } from "./seed-changes";
 import { seedDeviations } from "./seed-deviations";
+import { seedCycles } from "./seed-cycles";
 import {
   DEMO_COMPANY,
   DEMO_PART_FAMILIES,
@@ -306,6 +307,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     await seedBathPlan(tx);
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
     await seedDeviations(tx, { userIds, recipeIds, familyIds });
+    await seedCycles(tx);
   });
   // The statistics taken at migration described empty tables: the planner needs the seeded ones.
   await db.run(sql`ANALYZE`);

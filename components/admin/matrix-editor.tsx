@@ -7,11 +7,17 @@ import { AddRowButton, PayloadField, RemoveRowButton, useRowList } from "@/compo
 import { SubmitButton } from "@/components/ui/submit-button";
 import { TEST_TYPES } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
-import { samplesFor, type MatrixRow } from "@/lib/changes/requalification";
+import { DEFAULT_MIN_CYCLES, samplesFor, type MatrixRow } from "@/lib/changes/requalification";
 import { MATRIX_SUBJECTS, subjectLabel, TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
-type Draft = { subject: string; testType: string; confidencePct: string; reliabilityPct: string };
+type Draft = {
+  subject: string;
+  testType: string;
+  confidencePct: string;
+  reliabilityPct: string;
+  minCycles: string;
+};
 
 const SUBJECT_OPTIONS = MATRIX_SUBJECTS.map((s) => ({ value: s, label: subjectLabel(s) }));
 const TEST_OPTIONS = TEST_TYPES.map((t) => ({ value: t, label: TEST_TYPE_LABELS[t] }));
@@ -38,6 +44,7 @@ export function MatrixEditor({
       testType: r.testType,
       confidencePct: String(r.confidencePct),
       reliabilityPct: String(r.reliabilityPct),
+      minCycles: String(r.minCycles ?? DEFAULT_MIN_CYCLES),
     })),
   );
   const [note, setNote] = useState("");
@@ -51,6 +58,7 @@ export function MatrixEditor({
           <Th>Confidence (%)</Th>
           <Th>Reliability (%)</Th>
           <Th>Samples</Th>
+          <Th>From at least (cycles)</Th>
           <Th>
             <span className="sr-only">Remove</span>
           </Th>
@@ -102,6 +110,17 @@ export function MatrixEditor({
               </Td>
               <Td className="tabular-nums">{preview(d)}</Td>
               <Td className="[--cell-py:0.375rem]">
+                <NumberField
+                  label={`Distinct cycles of row ${i + 1}`}
+                  hideLabel
+                  dense
+                  integer
+                  errorKey={`rows.${i}.minCycles`}
+                  value={d.minCycles}
+                  onValueChange={(v) => list.update(i, { minCycles: v })}
+                />
+              </Td>
+              <Td className="[--cell-py:0.375rem]">
                 <RemoveRowButton label={`Remove row ${i + 1}`} onRemove={() => list.remove(i)} />
               </Td>
             </tr>
@@ -115,6 +134,7 @@ export function MatrixEditor({
             testType: TEST_TYPES[0],
             confidencePct: "95",
             reliabilityPct: "90",
+            minCycles: String(DEFAULT_MIN_CYCLES),
           })
         }
       >

@@ -139,6 +139,7 @@ export function ImpactWorking({
     confidencePct: number;
     reliabilityPct: number;
     because: string[];
+    minCycles?: number | null;
   }[];
   matrixVersion: number | null;
 }) {
@@ -204,6 +205,7 @@ export function ImpactWorking({
               <Th align="right">Samples</Th>
               <Th>Confidence / reliability</Th>
               <Th>Because</Th>
+              <Th align="right">From at least</Th>
             </THead>
             <TBody>
               {requirements.map((r) => (
@@ -214,6 +216,7 @@ export function ImpactWorking({
                     {r.confidencePct} % / {r.reliabilityPct} %
                   </Td>
                   <Td className="text-stone-700">{r.because.join(" ")}</Td>
+                  <Td numeric>{r.minCycles ? `${r.minCycles} cycles` : "—"}</Td>
                 </tr>
               ))}
             </TBody>

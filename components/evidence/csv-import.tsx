@@ -25,14 +25,16 @@ export function CsvImport({ runId, testType }: { runId: string; testType: CsvTes
           One row per sample. Columns:{" "}
           {testType === "particle_cleanliness" ? (
             <>
-              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no),{" "}
+              <code>sample</code>, <code>cycle</code> (the wash cycle id),{" "}
+              <code>basket_position</code>, <code>worst_case</code> (yes/no),{" "}
               <code>components</code>, <code>B</code> … <code>N</code> (absolute counts),{" "}
               <code>largest_metallic_um</code>, <code>largest_non_metallic_um</code>,{" "}
               <code>largest_fibre_um</code>.
             </>
           ) : (
             <>
-              <code>sample</code>, <code>basket_position</code>, <code>worst_case</code> (yes/no),{" "}
+              <code>sample</code>, <code>cycle</code> (the wash cycle id),{" "}
+              <code>basket_position</code>, <code>worst_case</code> (yes/no),{" "}
               <code>components</code> (filtered together), <code>filter_before_mg</code>,{" "}
               <code>filter_after_mg</code>, <code>blank_mg</code>.
             </>

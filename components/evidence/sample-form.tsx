@@ -55,8 +55,14 @@ export function CountsGrid({
 
 function SampleIdentity() {
   return (
-    <div className="grid gap-3 sm:grid-cols-3">
+    <div className="grid gap-3 sm:grid-cols-4">
       <Field name="sampleLabel" label="Sample (part serial)" />
+      <Field
+        name="cycleNumber"
+        label="Wash cycle (optional)"
+        placeholder="the washer's cycle id"
+        hint="Parts from different cycles are independent samples."
+      />
       <Field
         name="basketPosition"
         label="Basket position (optional)"

@@ -25,6 +25,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/changes", label: "Changes", icon: "changes", permission: "changes.view" },
   { href: "/deviations", label: "Deviations", icon: "changes", permission: "deviation.view" },
   { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
+  { href: "/cycles", label: "Wash cycles & lots", icon: "evidence", permission: "evidence.view" },
   { href: "/trace", label: "Trace", icon: "trace", permission: "trace.view" },
   { href: "/how-we-compute", label: "How we compute", icon: "calc", permission: "calc.view" },
   { href: "/admin", label: "Admin", icon: "admin", permission: "admin.view" },

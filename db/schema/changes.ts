@@ -69,6 +69,8 @@ export const requalificationMatrixRows = sqliteTable(
     testType: text("test_type", { enum: TEST_TYPES }).notNull(),
     confidencePct: real("confidence_pct").notNull(),
     reliabilityPct: real("reliability_pct").notNull(),
+    /** Parts from one basket are not independent: the samples must come from at least this many wash cycles. */
+    minCycles: integer("min_cycles").notNull().default(3),
   },
   (t) => [uniqueIndex("requalification_matrix_rows_uq").on(t.matrixId, t.subject, t.testType)],
 );
@@ -109,6 +111,8 @@ export const changeRequestTests = sqliteTable(
     samples: integer("samples").notNull(),
     confidencePct: real("confidence_pct").notNull(),
     reliabilityPct: real("reliability_pct").notNull(),
+    /** Distinct wash cycles the samples must come from; null on requirements set before cycles were counted. */
+    minCycles: integer("min_cycles"),
     because: text("because", { mode: "json" }).$type<string[]>().notNull(),
   },
   (t) => [uniqueIndex("change_request_tests_uq").on(t.changeRequestId, t.testType)],

@@ -66,12 +66,18 @@ export const testSamples = sqliteTable(
       .notNull()
       .references(() => testRuns.id),
     sampleLabel: text("sample_label").notNull(),
+    /** The washer's cycle id the part came out of, as written on the sample (a wash cycle's number on the run's washer). */
+    cycleNumber: text("cycle_number"),
     basketPosition: text("basket_position"),
     worstCase: bool("worst_case").notNull().default(false),
     data: text("data", { mode: "json" }).notNull(),
     createdAt: createdAt(),
   },
-  (t) => [index("test_samples_run_idx").on(t.runId)],
+  (t) => [
+    index("test_samples_run_idx").on(t.runId),
+    // The lot history finds the runs whose parts came out of a lot's cycles.
+    index("test_samples_cycle_idx").on(t.cycleNumber),
+  ],
 );
 export type TestSample = typeof testSamples.$inferSelect;
 

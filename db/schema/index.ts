@@ -15,3 +15,4 @@ export * from "./change-subjects";
 export * from "./part-pictures";
 export * from "./bath-plan";
 export * from "./document-rounds";
+export * from "./cycles";

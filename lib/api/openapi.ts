@@ -27,6 +27,7 @@ import {
 } from "@/lib/schemas/api";
 import { V1_ENDPOINTS } from "@/lib/api/v1-routes";
 import { EVIDENCE_FILE_KINDS } from "@/db/enums";
+import { cycleBatchSchema, cyclePage, cyclesQuery, cyclesRecordedOut } from "@/lib/schemas/cycle";
 import {
   bathRecordSchema,
   conductivitySampleSchema,
@@ -251,6 +252,26 @@ export const API_OPERATIONS: ApiOperation[] = [
     response: sampleAddedOut,
     status: 201,
     errors: [400, 401, 403, 404, 409, 415, 422, 423, 503],
+  },
+  {
+    method: "get",
+    path: "/cycles",
+    operationId: "listCycles",
+    summary: "Wash cycles, newest first: by washer, lot or flag",
+    query: cyclesQuery,
+    response: cyclePage,
+    errors: [400, 401, 403],
+  },
+  {
+    method: "post",
+    path: "/cycles",
+    operationId: "recordCycles",
+    summary:
+      "Record wash cycles from a washer's feed: one cycle, or { cycles: [...] } up to 1,000, all or none. The recipe version must be in force at each start and the part family qualified on it; values outside their validated range flag the cycle",
+    body: cycleBatchSchema,
+    response: cyclesRecordedOut,
+    status: 201,
+    errors: [400, 401, 403, 413, 415, 422, 503],
   },
   {
     method: "get",

@@ -421,6 +421,8 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: obj({
       sampleId: id,
       sampleLabel: text,
+      // Since samples name their wash cycle (2026-12); absent when none was named.
+      cycleNumber: text.optional(),
       basketPosition: text.nullable(),
       worstCase: z.boolean(),
       data: sampleData,
@@ -727,6 +729,21 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   }),
   event("evidence_file.check_photo_uploaded", "evidence_file", {
     new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
+  // Wash cycles: one event per recording (a form, a washer's log file, an API call), naming its cycles.
+  event("wash_cycles.recorded", "wash_cycle_batch", {
+    new: obj({
+      source: z.enum(["form", "csv", "api"]),
+      count,
+      /** The first 50 cycle ids; the cycles carry the batch id, so the rest are found by it. */
+      cycles: z.array(text),
+      flagged: count,
+      fileName: text.optional(),
+      sha256: sha256.optional(),
+    }),
+  }),
+  // A cycle whose values left the validated range: its own event, so the audit trail lists each one.
+  event("wash_cycle.flagged", "wash_cycle", {
+    new: obj({ cycleNumber: text, system: text, lots: z.array(text), reasons: z.array(text) }),
   }),
 ]);
 

@@ -8,6 +8,7 @@ import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDeviationsActions from "@/app/(app)/deviations/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
+import * as appCyclesActions from "@/app/(app)/cycles/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
 import * as appEvidenceBathActions from "@/app/(app)/evidence/bath/actions";
 import * as appPartsActions from "@/app/(app)/parts/actions";
@@ -23,7 +24,9 @@ import * as apiAuditPackChangeidRoute from "@/app/api/audit-pack/[changeId]/rout
 import * as apiDocumentsDocumentidVersionsVersionPdfRoute from "@/app/api/documents/[documentId]/versions/[version]/pdf/route";
 import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/route";
 import * as apiEvidenceRunsRunidFilesRoute from "@/app/api/evidence/runs/[runId]/files/route";
+import * as apiCyclesImportRoute from "@/app/api/cycles/import/route";
 import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId]/import/route";
+import * as apiLotsLotExportRoute from "@/app/api/lots/[lot]/export/route";
 import * as apiEvidenceRunsRoute from "@/app/api/evidence/runs/route";
 import * as apiPartsExportRoute from "@/app/api/parts/export/route";
 import * as apiPartsFamiliesFamilyidPictureRoute from "@/app/api/parts/families/[familyId]/picture/route";
@@ -52,6 +55,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/changes/actions.ts": appChangesActions,
   "app/(app)/deviations/actions.ts": appDeviationsActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
+  "app/(app)/cycles/actions.ts": appCyclesActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
   "app/(app)/evidence/bath/actions.ts": appEvidenceBathActions,
   "app/(app)/parts/actions.ts": appPartsActions,
@@ -68,7 +72,9 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
     apiDocumentsDocumentidVersionsVersionPdfRoute,
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,
   "app/api/evidence/runs/[runId]/files/route.ts": apiEvidenceRunsRunidFilesRoute,
+  "app/api/cycles/import/route.ts": apiCyclesImportRoute,
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,
+  "app/api/lots/[lot]/export/route.ts": apiLotsLotExportRoute,
   "app/api/evidence/runs/route.ts": apiEvidenceRunsRoute,
   "app/api/parts/export/route.ts": apiPartsExportRoute,
   "app/api/parts/families/[familyId]/picture/route.ts": apiPartsFamiliesFamilyidPictureRoute,

@@ -4,6 +4,8 @@ export interface GateRequirement {
   id: string;
   testType: TestType;
   samples: number;
+  /** Distinct wash cycles the samples must come from; null where the requirement predates counting them. */
+  cycles?: number | null;
 }
 
 export interface GateRun {
@@ -13,6 +15,8 @@ export interface GateRun {
   outcome: "pass" | "fail" | "incomplete" | null;
   status: "open" | "performed" | "verified" | "superseded";
   sampleCount: number;
+  /** Distinct wash cycles the run's samples name; a sample naming none counts for no cycle. */
+  cycleCount?: number;
   /** Who signed "performed" and who signed "verified" on this run. */
   performedBy: string[];
   verifiedBy: string[];
@@ -31,6 +35,8 @@ export interface GateResult {
   missing: string[];
 }
 
+const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
+
 function runProblems(req: GateRequirement, run: GateRun): string[] {
   const problems: string[] = [];
   if (run.testType !== req.testType)
@@ -43,6 +49,12 @@ function runProblems(req: GateRequirement, run: GateRun): string[] {
     );
   if (run.sampleCount < req.samples)
     problems.push(`${run.number} has ${run.sampleCount} samples, ${req.samples} required`);
+  // Parts from one basket are not independent: the success-run sample size assumes they are.
+  const cycles = run.cycleCount ?? 0;
+  if (req.cycles && cycles < req.cycles)
+    problems.push(
+      `${run.number} has ${plural(run.sampleCount, "part")} from ${plural(cycles, "cycle")}; needs ${plural(req.cycles, "cycle")}`,
+    );
   const secondPerson = run.verifiedBy.some((v) => !run.performedBy.includes(v));
   if (run.status === "superseded")
     problems.push(`${run.number} was superseded by a later revision`);

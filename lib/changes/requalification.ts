@@ -9,13 +9,20 @@ export interface MatrixRow {
   /** Confidence and reliability as percentages, e.g. 95 and 90. */
   confidencePct: number;
   reliabilityPct: number;
+  /** Distinct wash cycles the samples must come from (default 3). */
+  minCycles?: number;
 }
+
+/** Samples from one cycle share its wash: three cycles is the usual minimum for independent samples [practice]. */
+export const DEFAULT_MIN_CYCLES = 3;
 
 export interface RequiredTest {
   testType: TestType;
   samples: number;
   confidencePct: number;
   reliabilityPct: number;
+  /** Distinct wash cycles the samples must come from: the most any calling row asks. */
+  minCycles: number;
   /** The changes that call for this test, in words. */
   because: string[];
 }
@@ -23,9 +30,11 @@ export interface RequiredTest {
 /** Sample size for zero failures (success-run theorem, n = ln(1 − C) / ln(R), rounded up). */
 /** One matrix row as a line of text, as the audit trail lists added and removed rows. */
 export function matrixRowLine(
-  r: Pick<MatrixRow, "subject" | "testType" | "confidencePct" | "reliabilityPct">,
+  r: Pick<MatrixRow, "subject" | "testType" | "confidencePct" | "reliabilityPct" | "minCycles">,
 ): string {
-  return `${r.subject} → ${r.testType} @ ${r.confidencePct}/${r.reliabilityPct}`;
+  const cycles = r.minCycles ?? DEFAULT_MIN_CYCLES;
+  // The default is left unwritten, so rows saved before cycles were counted read as they did.
+  return `${r.subject} → ${r.testType} @ ${r.confidencePct}/${r.reliabilityPct}${cycles === DEFAULT_MIN_CYCLES ? "" : ` from ${cycles} cycles`}`;
 }
 
 export function samplesFor(row: Pick<MatrixRow, "confidencePct" | "reliabilityPct">): number {
@@ -78,6 +87,7 @@ export function requiredTests(triggers: ImpactTrigger[], matrix: MatrixRow[]): R
   for (const trigger of triggers) {
     for (const row of matrix.filter((r) => r.subject === trigger.subject)) {
       const samples = samplesFor(row);
+      const minCycles = row.minCycles ?? DEFAULT_MIN_CYCLES;
       const current = byTest.get(row.testType);
       if (!current) {
         byTest.set(row.testType, {
@@ -85,11 +95,13 @@ export function requiredTests(triggers: ImpactTrigger[], matrix: MatrixRow[]): R
           samples,
           confidencePct: row.confidencePct,
           reliabilityPct: row.reliabilityPct,
+          minCycles,
           because: [trigger.reason],
         });
         continue;
       }
       if (!current.because.includes(trigger.reason)) current.because.push(trigger.reason);
+      current.minCycles = Math.max(current.minCycles, minCycles);
       if (samples > current.samples)
         Object.assign(current, {
           samples,

@@ -25,6 +25,11 @@ const SAMPLE_FIELDS = [
     aliases: ["sample", "sample_label", "serial", "part_serial"],
   },
   {
+    key: "cycle",
+    label: "Wash cycle id",
+    aliases: ["cycle", "cycle_id", "cycle_number", "wash_cycle"],
+  },
+  {
     key: "basket_position",
     label: "Basket position",
     aliases: ["basket_position", "position", "basket"],
@@ -89,6 +94,7 @@ type Cell = (k: CsvFieldKey) => string | undefined;
 const yes = (v: string | undefined) => (v ? /^(y|yes|true|1|x)$/i.test(v.trim()) : false);
 const sampleBase = (get: Cell) => ({
   sampleLabel: get("sample"),
+  cycleNumber: get("cycle"),
   basketPosition: get("basket_position"),
   worstCase: yes(get("worst_case")),
   components: get("components") || "1",

@@ -25,6 +25,7 @@ export function runContentHash(
   run: HashableRun,
   samples: {
     sampleLabel: string;
+    cycleNumber?: string | null;
     basketPosition: string | null;
     worstCase: boolean;
     data: unknown;
@@ -47,6 +48,8 @@ export function runContentHash(
     // The key stays "results": every signature already given binds to content hashed under it.
     results: samples.map((r) => ({
       sampleLabel: r.sampleLabel,
+      // Only when named: content signed before samples named their cycle hashes as it did.
+      ...(r.cycleNumber ? { cycleNumber: r.cycleNumber } : {}),
       basketPosition: r.basketPosition,
       worstCase: r.worstCase,
       data: r.data,

@@ -370,6 +370,7 @@ export const testRunDetailOut = named(
       z.object({
         id: z.string(),
         sampleLabel: z.string(),
+        cycleNumber: z.string().nullable().describe("The wash cycle the part came out of."),
         basketPosition: z.string().nullable(),
         worstCase: z.boolean(),
         data: z.record(z.string(), z.unknown()),

@@ -9,6 +9,7 @@ import {
   STAGE_MODES,
   TEST_TYPES,
 } from "@/db/enums";
+import { DEFAULT_MIN_CYCLES } from "@/lib/changes/requalification";
 import { MATRIX_SUBJECTS } from "@/lib/recipes/test-types";
 import { parameterProblems } from "@/lib/recipes/units";
 
@@ -193,6 +194,13 @@ export const matrixRowSchema = z.object({
     .number({ error: "Enter a percentage." })
     .gt(50, "Reliability above 50 %.")
     .lt(100, "Reliability below 100 %."),
+  // Parts from one basket share its wash: independent samples come from distinct cycles [practice].
+  minCycles: z.coerce
+    .number({ error: "Enter a whole number of cycles." })
+    .int("Enter a whole number of cycles.")
+    .min(1, "At least 1 cycle.")
+    .max(100, "At most 100 cycles.")
+    .default(DEFAULT_MIN_CYCLES),
 });
 
 export const matrixSchema = z

@@ -117,6 +117,8 @@ const sampleBase = z.object({
     .trim()
     .min(1, "Enter the sample's part serial or label.")
     .max(60, "Use at most 60 characters."),
+  /** The washer's cycle id the part came out of: samples from distinct cycles are independent. */
+  cycleNumber: optionalText(60),
   basketPosition: optionalText(60),
   worstCase: checkbox,
 });

@@ -66,19 +66,21 @@ async function importCsv(
 const PARTS = Array.from({ length: 29 }, (_, i) => i);
 const serial = (i: number) => `VB210-RQ-${String(i + 1).padStart(2, "0")}`;
 // Counts per part stay far inside CS-VB-01 (E ≤ level 15, F ≤ 13, H ≤ 9, largest metallic ≤ 400 µm) [derived from db/seed-data.ts].
+// The parts came out of three trial wash cycles: the gate asks for samples from distinct cycles.
+const trialCycle = (i: number) => `AW3-RQ-${(i % 3) + 1}`;
 const PARTICLE_CSV = [
-  "Part serial,Basket,Worst case,Parts,50-100 µm,100-150 µm,200-400 µm,Max metallic (µm)",
+  "Part serial,Cycle,Basket,Worst case,Parts,50-100 µm,100-150 µm,200-400 µm,Max metallic (µm)",
   ...PARTS.map(
     (i) =>
-      `${serial(i)},${i % 6 === 0 ? "top rear corner" : "centre"},${i % 6 === 0 ? "yes" : "no"},1,${12 + (i % 5)},${4 + (i % 3)},${i % 2},${300 + (i % 4) * 10}`,
+      `${serial(i)},${trialCycle(i)},${i % 6 === 0 ? "top rear corner" : "centre"},${i % 6 === 0 ? "yes" : "no"},1,${12 + (i % 5)},${4 + (i % 3)},${i % 2},${300 + (i % 4) * 10}`,
   ),
 ].join("\n");
 // Residue 1.20–1.35 mg per part against the 2.0 mg per component limit, blank 0.06 mg ≤ 10 % of it [derived from db/seed-data.ts; ISO 16232 blank rule].
 const GRAVIMETRIC_CSV = [
-  "Part serial,Worst case,Parts,Tare (mg),Gross (mg),Blank (mg)",
+  "Part serial,Cycle,Worst case,Parts,Tare (mg),Gross (mg),Blank (mg)",
   ...PARTS.map(
     (i) =>
-      `${serial(i)},${i % 6 === 0 ? "yes" : "no"},1,${(12.4 + (i % 3) * 0.01).toFixed(2)},${(12.4 + (i % 3) * 0.01 + 1.2 + (i % 4) * 0.05).toFixed(2)},0.06`,
+      `${serial(i)},${trialCycle(i)},${i % 6 === 0 ? "yes" : "no"},1,${(12.4 + (i % 3) * 0.01).toFixed(2)},${(12.4 + (i % 3) * 0.01 + 1.2 + (i % 4) * 0.05).toFixed(2)},0.06`,
   ),
 ].join("\n");
 

@@ -892,6 +892,30 @@ const SAMPLES = {
     recordId: UUID,
     new: { sha256: H, name: "foil.jpg", mimeType: "image/jpeg", sizeBytes: 2048, storedNew: true },
   },
+  "wash_cycles.recorded": {
+    eventType: "wash_cycles.recorded",
+    recordType: "wash_cycle_batch",
+    recordId: UUID,
+    new: {
+      source: "csv",
+      count: 2,
+      cycles: ["AW3-240311-001", "AW3-240311-002"],
+      flagged: 1,
+      fileName: "aw3-log.csv",
+      sha256: "a".repeat(64),
+    },
+  },
+  "wash_cycle.flagged": {
+    eventType: "wash_cycle.flagged",
+    recordType: "wash_cycle",
+    recordId: UUID,
+    new: {
+      cycleNumber: "AW3-240311-002",
+      system: "AW-3",
+      lots: ["L24-0311-A"],
+      reasons: ["Wash temperature 54 °C is below its validated range 55–65 °C."],
+    },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

@@ -179,3 +179,36 @@ describe("what the change page offers during requalification", () => {
     expect(waitingFor("approved_for_implementation", 0, { holds: true, missing: [] })).toBeNull();
   });
 });
+
+describe("requalification gate: independent samples from distinct wash cycles", () => {
+  const fromCycles: GateRequirement = { ...particle, samples: 3, cycles: 3 };
+  const run = (sampleCount: number, cycleCount: number) => good({ sampleCount, cycleCount });
+
+  it("says which is missing when the parts came from too few cycles", () => {
+    const g = evaluateGate([fromCycles], new Map([["r1", [run(3, 1)]]]));
+    expect(g.holds).toBe(false);
+    expect(g.missing).toEqual([
+      "Particle cleanliness (3 samples): TR-1 has 3 parts from 1 cycle; needs 3 cycles",
+    ]);
+  });
+
+  it("counts parts and cycles apart: enough cycles but too few parts names only the parts", () => {
+    const g = evaluateGate([{ ...fromCycles, samples: 29 }], new Map([["r1", [run(5, 3)]]]));
+    expect(g.missing).toEqual([
+      "Particle cleanliness (29 samples): TR-1 has 5 samples, 29 required",
+    ]);
+  });
+
+  it("holds at exactly the cycles asked for, and counts a run naming no cycle as none", () => {
+    expect(evaluateGate([fromCycles], new Map([["r1", [run(3, 3)]]])).holds).toBe(true);
+    expect(
+      evaluateGate([fromCycles], new Map([["r1", [good({ sampleCount: 3 })]]])).missing,
+    ).toEqual(["Particle cleanliness (3 samples): TR-1 has 3 parts from 0 cycles; needs 3 cycles"]);
+  });
+
+  it("leaves cycles uncounted on a requirement set before they were counted", () => {
+    expect(evaluateGate([{ ...particle, cycles: null }], new Map([["r1", [good()]]])).holds).toBe(
+      true,
+    );
+  });
+});

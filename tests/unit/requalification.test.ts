@@ -225,9 +225,37 @@ describe("matrix → required tests", () => {
         samples: 59,
         confidencePct: 95,
         reliabilityPct: 95,
+        // Neither row states its cycles: the default of three distinct cycles holds.
+        minCycles: 3,
         because: ["hotter", "new detergent"],
       },
     ]);
+  });
+
+  it("asks for the most distinct cycles any calling row states", () => {
+    const r = requiredTests(
+      [
+        { subject: "parameter:temperature", reason: "hotter" },
+        { subject: "detergent", reason: "new detergent" },
+      ],
+      [
+        {
+          subject: "parameter:temperature",
+          testType: "gravimetric",
+          confidencePct: 90,
+          reliabilityPct: 90,
+          minCycles: 5,
+        },
+        {
+          subject: "detergent",
+          testType: "gravimetric",
+          confidencePct: 90,
+          reliabilityPct: 90,
+          minCycles: 2,
+        },
+      ],
+    );
+    expect(r[0].minCycles).toBe(5);
   });
 
   it("the engineer may raise the class but never lower it", () => {

@@ -501,6 +501,7 @@ export async function getTestRunApi(runId: string): Promise<TestRunDetailOut | u
     samples: samples.map((r) => ({
       id: r.id,
       sampleLabel: r.sampleLabel,
+      cycleNumber: r.cycleNumber,
       basketPosition: r.basketPosition,
       worstCase: r.worstCase,
       data: r.data as Record<string, unknown>,

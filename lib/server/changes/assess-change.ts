@@ -59,6 +59,7 @@ export async function assessChange(
         samples: r.samples,
         confidencePct: r.confidencePct,
         reliabilityPct: r.reliabilityPct,
+        minCycles: r.minCycles,
         because: r.because,
       });
     }

@@ -94,7 +94,7 @@ export async function loadGates(db: Executor, changeRequestIds: string[]) {
     : [];
   const counts = runIds.length
     ? await db
-        .select({ runId: testSamples.runId })
+        .select({ runId: testSamples.runId, cycleNumber: testSamples.cycleNumber })
         .from(testSamples)
         .where(inArray(testSamples.runId, runIds))
     : [];
@@ -106,7 +106,15 @@ export async function loadGates(db: Executor, changeRequestIds: string[]) {
     : [];
   const runById = new Map(runs.map((r) => [r.id, r]));
   const sampleCount = new Map<string, number>();
-  for (const c of counts) sampleCount.set(c.runId, (sampleCount.get(c.runId) ?? 0) + 1);
+  const cyclesOf = new Map<string, Set<string>>();
+  for (const c of counts) {
+    sampleCount.set(c.runId, (sampleCount.get(c.runId) ?? 0) + 1);
+    if (c.cycleNumber) {
+      const set = cyclesOf.get(c.runId) ?? new Set<string>();
+      set.add(c.cycleNumber);
+      cyclesOf.set(c.runId, set);
+    }
+  }
   const gateRun = (id: string): GateRun & { id: string } => {
     const run = runById.get(id)!;
     return {
@@ -116,6 +124,7 @@ export async function loadGates(db: Executor, changeRequestIds: string[]) {
       outcome: run.outcome,
       status: run.status,
       sampleCount: sampleCount.get(id) ?? 0,
+      cycleCount: cyclesOf.get(id)?.size ?? 0,
       performedBy: sigs
         .filter((s) => s.recordId === id && s.meaning === "performed")
         .map((s) => s.userId),
@@ -144,7 +153,12 @@ export async function loadGates(db: Executor, changeRequestIds: string[]) {
       linked.set(req.id, [...runIdsOfReq].map(gateRun));
     }
     const gate = evaluateGate(
-      requirements.map((r) => ({ id: r.id, testType: r.testType as TestType, samples: r.samples })),
+      requirements.map((r) => ({
+        id: r.id,
+        testType: r.testType as TestType,
+        samples: r.samples,
+        cycles: r.minCycles,
+      })),
       linked,
     );
     gates.set(id, { requirements, linked, gate });

@@ -149,6 +149,7 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
             samples: t.samples,
             confidencePct: t.confidencePct,
             reliabilityPct: t.reliabilityPct,
+            minCycles: t.minCycles as number | null,
             because: t.because,
           }))
         : stored.map((t) => ({
@@ -156,6 +157,7 @@ export async function loadChangeStates(db: Executor, changeRequestIds: string[])
             samples: t.samples,
             confidencePct: t.confidencePct,
             reliabilityPct: t.reliabilityPct,
+            minCycles: t.minCycles,
             because: t.because,
           }));
     const narrative = cr.narrativeDocumentId

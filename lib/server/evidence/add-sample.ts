@@ -9,6 +9,7 @@ import { refreshOutcome } from "./refresh-outcome";
 
 export interface SampleRow {
   sampleLabel: string;
+  cycleNumber?: string;
   basketPosition?: string;
   worstCase: boolean;
   [key: string]: unknown;
@@ -18,7 +19,7 @@ export interface SampleRow {
 export async function addSample(actor: AuditActor, input: { runId: string; sample: SampleRow }) {
   return getDb().transaction(async (tx) => {
     const run = await requireOpenRun(tx, input.runId);
-    const { sampleLabel, basketPosition, worstCase, ...data } = input.sample;
+    const { sampleLabel, cycleNumber, basketPosition, worstCase, ...data } = input.sample;
     const [dup] = await tx
       .select({ id: testSamples.id })
       .from(testSamples)
@@ -33,6 +34,7 @@ export async function addSample(actor: AuditActor, input: { runId: string; sampl
       .values({
         runId: run.id,
         sampleLabel,
+        cycleNumber: cycleNumber ?? null,
         basketPosition: basketPosition ?? null,
         worstCase,
         data,
@@ -46,6 +48,7 @@ export async function addSample(actor: AuditActor, input: { runId: string; sampl
       new: {
         sampleId: row.id,
         sampleLabel,
+        ...(cycleNumber ? { cycleNumber } : {}),
         basketPosition: basketPosition ?? null,
         worstCase,
         data,

@@ -57,13 +57,16 @@ export async function importCsvRows(
       throw new UserFacingError(
         `Already recorded in this run: ${clash.slice(0, 10).join(", ")}. Nothing was imported.`,
       );
-    const values = input.rows.map(({ sampleLabel, basketPosition, worstCase, ...data }) => ({
-      runId: run.id,
-      sampleLabel,
-      basketPosition: basketPosition ?? null,
-      worstCase,
-      data,
-    }));
+    const values = input.rows.map(
+      ({ sampleLabel, cycleNumber, basketPosition, worstCase, ...data }) => ({
+        runId: run.id,
+        sampleLabel,
+        cycleNumber: cycleNumber ?? null,
+        basketPosition: basketPosition ?? null,
+        worstCase,
+        data,
+      }),
+    );
     // The file driver runs each insert synchronously: between batches, other requests (reads beside this
     // transaction) get their turn, so a 100,000-row import does not stall the server.
     for (let i = 0; i < values.length; i += INSERT_BATCH) {

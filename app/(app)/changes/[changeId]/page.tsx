@@ -249,7 +249,8 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
               return (
                 <li key={requirement.id} className="rounded-md border border-stone-200 p-3">
                   <p>
-                    <span className="font-medium">{label}</span> on {requirement.samples} parts:{" "}
+                    <span className="font-medium">{label}</span> on {requirement.samples} parts
+                    {requirement.cycles ? ` from at least ${requirement.cycles} cycles` : ""}:{" "}
                     {satisfiedBy ? `met by ${satisfiedBy}` : "not met"}
                   </p>
                   {runs.length > 0 && (

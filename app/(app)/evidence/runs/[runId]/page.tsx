@@ -128,6 +128,9 @@ export default async function RunPage({
                   <li key={r.id} className="flex items-start justify-between gap-3 px-3 py-2">
                     <div>
                       <span className="font-medium">{r.sampleLabel}</span>
+                      {r.cycleNumber && (
+                        <span className="text-stone-600"> · cycle {r.cycleNumber}</span>
+                      )}
                       {r.basketPosition && (
                         <span className="text-stone-600"> · basket {r.basketPosition}</span>
                       )}
