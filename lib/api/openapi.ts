@@ -31,6 +31,7 @@ import {
   particleSampleSchema,
   wettingSampleSchema,
 } from "@/lib/schemas/evidence";
+import { labDetailsSchema } from "@/lib/schemas/lab-details";
 
 export interface ApiOperation {
   method: "get" | "post";
@@ -40,7 +41,8 @@ export interface ApiOperation {
   pathParams?: Record<string, { description: string; schema: Record<string, unknown> }>;
   query?: z.ZodObject;
   body?: z.ZodType;
-  response: z.ZodType;
+  /** The JSON answer's schema, or "pdf" for a file download (a test report). */
+  response: z.ZodType | "pdf";
   status?: number;
   errors: number[];
 }
@@ -173,6 +175,27 @@ export const API_OPERATIONS: ApiOperation[] = [
     errors: [401, 403, 404],
   },
   {
+    method: "get",
+    path: "/test-runs/{runId}/report",
+    operationId: "getTestReport",
+    summary:
+      "The run's test report as a PDF: component, extraction, filter, analysis, counts per size class, largest particles, evaluation against the specification revision in force, signatures with the content hash; the export is audited",
+    pathParams: { runId: uuidParam("Test run id") },
+    response: "pdf",
+    errors: [401, 403, 404, 503],
+  },
+  {
+    method: "post",
+    path: "/test-runs/{runId}/lab-details",
+    operationId: "saveTestRunLabDetails",
+    summary:
+      "Record how an open particle run was extracted and analysed and on which parts (replaces what was recorded); part of the run's signed content",
+    pathParams: { runId: uuidParam("Test run id (the run must be open)") },
+    body: labDetailsSchema,
+    response: testRunDetailOut,
+    errors: [400, 401, 403, 404, 415, 422, 423, 503],
+  },
+  {
     method: "post",
     path: "/test-runs/{runId}/samples",
     operationId: "addTestSample",
@@ -271,7 +294,10 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
     const responses: Record<string, unknown> = {
       [String(op.status ?? 200)]: {
         description: "OK",
-        content: { "application/json": { schema: ref(op.response) } },
+        content:
+          op.response === "pdf"
+            ? { "application/pdf": { schema: { type: "string", format: "binary" } } }
+            : { "application/json": { schema: ref(op.response) } },
       },
     };
     for (const code of op.errors)

@@ -608,6 +608,20 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     old: obj({ revokedAt: z.null() }),
     new: obj({ name: text, prefix: text, revokedAt: isoTime }),
   }),
+  // Lab details of a test run and its test report
+  event("test_run.lab_details_saved", "test_run", {
+    old: obj({ details: jsonObject.nullable() }),
+    new: obj({ details: jsonObject }),
+  }),
+  event("test_run.report_exported", "test_run", {
+    new: obj({
+      format: z.literal("pdf"),
+      number: text,
+      revision: version,
+      contentHash: sha256,
+      bytes: count,
+    }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

@@ -8,6 +8,7 @@ import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
+import * as appEvidenceRunsRunidActions from "@/app/(app)/evidence/runs/[runId]/actions";
 import * as appPartsActions from "@/app/(app)/parts/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
 import * as appSystemsSystemidRecipesNewActions from "@/app/(app)/systems/[systemId]/recipes/new/actions";
@@ -21,6 +22,7 @@ import * as apiDocumentsDocumentidVersionsVersionPdfRoute from "@/app/api/docume
 import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/route";
 import * as apiEvidenceRunsRunidFilesRoute from "@/app/api/evidence/runs/[runId]/files/route";
 import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId]/import/route";
+import * as apiEvidenceRunsRunidReportRoute from "@/app/api/evidence/runs/[runId]/report/route";
 import * as apiEvidenceRunsRoute from "@/app/api/evidence/runs/route";
 import * as apiPartsExportRoute from "@/app/api/parts/export/route";
 import * as apiPartsImportRoute from "@/app/api/parts/import/route";
@@ -46,6 +48,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/changes/actions.ts": appChangesActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
+  "app/(app)/evidence/runs/[runId]/actions.ts": appEvidenceRunsRunidActions,
   "app/(app)/parts/actions.ts": appPartsActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
   "app/(app)/systems/[systemId]/recipes/new/actions.ts": appSystemsSystemidRecipesNewActions,
@@ -60,6 +63,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,
   "app/api/evidence/runs/[runId]/files/route.ts": apiEvidenceRunsRunidFilesRoute,
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,
+  "app/api/evidence/runs/[runId]/report/route.ts": apiEvidenceRunsRunidReportRoute,
   "app/api/evidence/runs/route.ts": apiEvidenceRunsRoute,
   "app/api/parts/export/route.ts": apiPartsExportRoute,
   "app/api/parts/import/route.ts": apiPartsImportRoute,

@@ -780,6 +780,19 @@ const SAMPLES = {
     old: { revokedAt: null },
     new: { name: "LIMS", prefix: "wp_ab12", revokedAt: AT },
   },
+  "test_run.lab_details_saved": {
+    eventType: "test_run.lab_details_saved",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { details: null },
+    new: { details: { analysis: { system: "sem_edx", magnification: 100, lowerSizeLimitUm: 50 } } },
+  },
+  "test_run.report_exported": {
+    eventType: "test_run.report_exported",
+    recordType: "test_run",
+    recordId: UUID,
+    new: { format: "pdf", number: "TR-2026-001", revision: 1, contentHash: H, bytes: 20480 },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];
