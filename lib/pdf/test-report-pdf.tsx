@@ -1,7 +1,7 @@
 import { Document, Image, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import { formatCount } from "@/lib/cleanliness/format";
-import { formatDate, formatDateTime } from "@/lib/format/date";
+import { formatDateTime } from "@/lib/format/date";
 import { humanize } from "@/lib/format/labels";
 import { formatNumber, withUnit } from "@/lib/format/number";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
@@ -172,11 +172,13 @@ function TestReportPdf({ report: r, printedAt, printedBy }: TestReportPdfInput) 
         </KV>
         <KV k="Lot">{dash(r.component.lot)}</KV>
         <KV k="Number of components">{String(r.component.components)}</KV>
-        <KV k="Wetted area per component">
-          {withUnit(r.component.wettedAreaCm2, "cm²")}
+        <KV k="Wetted area per component">{withUnit(r.component.wettedAreaCm2, "cm²")}</KV>
+        <KV k="Wetted area determined">
           {r.component.wettedAreaMethod
-            ? `, ${(WETTED_AREA_METHOD_LABELS as Record<string, string>)[r.component.wettedAreaMethod]?.toLowerCase() ?? humanize(r.component.wettedAreaMethod)}`
-            : ", method not recorded"}
+            ? ((WETTED_AREA_METHOD_LABELS as Record<string, string>)[
+                r.component.wettedAreaMethod
+              ] ?? humanize(r.component.wettedAreaMethod))
+            : "not recorded"}
         </KV>
 
         <H>2. Specification</H>
@@ -193,7 +195,8 @@ function TestReportPdf({ report: r, printedAt, printedBy }: TestReportPdfInput) 
         </KV>
         {r.spec.gravimetricLimitMg !== null && (
           <KV k="Gravimetric limit">
-            {withUnit(r.spec.gravimetricLimitMg, "mg")} {humanize(r.spec.gravimetricBasis ?? "")}
+            {withUnit(r.spec.gravimetricLimitMg, "mg")}{" "}
+            {r.spec.gravimetricBasis === "per_1000_cm2" ? "per 1000 cm²" : "per component"}
           </KV>
         )}
 
@@ -333,7 +336,11 @@ function TestReportPdf({ report: r, printedAt, printedBy }: TestReportPdfInput) 
                       <Text style={s.small}>
                         Photo {l.photo.name} (SHA-256 {l.photo.sha256.slice(0, 16)}…)
                       </Text>
-                      {l.photo.dataUri && <Image style={s.photo} src={l.photo.dataUri} />}
+                      {l.photo.dataUri && (
+                        // react-pdf's Image takes no alt text; the line above names the photo.
+                        // eslint-disable-next-line jsx-a11y/alt-text
+                        <Image style={s.photo} src={l.photo.dataUri} />
+                      )}
                     </>
                   ) : (
                     <Text style={s.small}>Photo: none attached.</Text>
@@ -421,8 +428,7 @@ function TestReportPdf({ report: r, printedAt, printedBy }: TestReportPdfInput) 
           {r.controlled
             ? "Controlled copy: the run is verified and every signature binds to its content. Check Washproof for a later revision."
             : "Uncontrolled copy: the run is not verified, or a signature no longer binds to its content."}{" "}
-          Printed {formatDateTime(printedAt, { seconds: true })} ({formatDate(printedAt)}) by{" "}
-          {printedBy} from Washproof.
+          Printed {formatDateTime(printedAt, { seconds: true })} by {printedBy} from Washproof.
         </Text>
       </Page>
     </Document>
