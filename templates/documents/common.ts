@@ -165,7 +165,7 @@ export function testMethods(): RichNode[] {
         ],
         [
           "UV inspection for oil films",
-          "Inspect under a UV-A lamp in a darkened booth for fluorescent oil residues.",
+          "Inspect under a UV-A lamp in a darkened booth for fluorescent oil residues; wear UV-blocking glasses and never look into the lamp.",
           "Pass / fail with photo reference",
         ],
       ],

@@ -11,7 +11,9 @@ import { RunDataForm, SampleForm } from "@/components/evidence/sample-form";
 import { OutcomeWord, RunStatusWord } from "@/components/evidence/status-word";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
 import { SignatureList } from "@/components/signatures/signature-list";
+import { Caution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
+import { testEntryCautions } from "@/lib/lab-report/cautions";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
 import { isCsvTestType } from "@/lib/evidence/csv-import";
@@ -127,6 +129,12 @@ export default async function RunPage({
                 ))}
               </ul>
             )}
+            {mayRecord &&
+              testEntryCautions(run.testType).map((c) => (
+                <Caution key={c.kind} title={c.title}>
+                  {c.text}
+                </Caution>
+              ))}
             {mayRecord && (
               <SampleForm action={addSampleAction} runId={run.id} testType={run.testType} />
             )}
