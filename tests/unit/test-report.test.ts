@@ -1,4 +1,5 @@
 import { execFileSync } from "node:child_process";
+import { deflateSync } from "node:zlib";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -25,6 +26,7 @@ import { exportTestReport } from "@/lib/server/lab-report/export-test-report";
 import { getLabDetails } from "@/lib/server/lab-report/lab-details";
 import { saveLabDetails } from "@/lib/server/lab-report/save-lab-details";
 import { loadTestReport } from "@/lib/server/lab-report/test-report";
+import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
 import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
 import { localStore, setStore } from "@/lib/storage";
 import { createTestDatabase } from "./support/test-db";
@@ -116,6 +118,42 @@ afterAll(() => {
   t.cleanup();
   rmSync(storeDir, { recursive: true, force: true });
 });
+
+/** A real 2 × 2 grey PNG, built here so the test needs no file on disk. */
+function png(): Uint8Array {
+  const crcTable = Array.from({ length: 256 }, (_, n) => {
+    let c = n;
+    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
+    return c >>> 0;
+  });
+  const crc = (buf: Buffer) => {
+    let c = 0xffffffff;
+    for (const b of buf) c = crcTable[(c ^ b) & 0xff] ^ (c >>> 8);
+    return (c ^ 0xffffffff) >>> 0;
+  };
+  const chunk = (type: string, data: Buffer) => {
+    const len = Buffer.alloc(4);
+    len.writeUInt32BE(data.length);
+    const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
+    const sum = Buffer.alloc(4);
+    sum.writeUInt32BE(crc(body));
+    return Buffer.concat([len, body, sum]);
+  };
+  const header = Buffer.alloc(13);
+  header.writeUInt32BE(2, 0);
+  header.writeUInt32BE(2, 4);
+  header[8] = 8; // bit depth
+  header[9] = 0; // greyscale
+  const pixels = Buffer.from([0, 90, 160, 0, 200, 30]);
+  return new Uint8Array(
+    Buffer.concat([
+      Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+      chunk("IHDR", header),
+      chunk("IDAT", deflateSync(pixels)),
+      chunk("IEND", Buffer.alloc(0)),
+    ]),
+  );
+}
 
 const newRun = () =>
   createRun(engineer, {
@@ -287,6 +325,67 @@ describe("lab details on a run", () => {
       "D",
     ]);
     expect(report.particles!.rows.find((r) => r.key === "B")!.absolute).toBeNull();
+  });
+
+  it("prints the photo of a largest particle inside the report", async () => {
+    const run = await newRun();
+    await addSample(tech, {
+      runId: run.id,
+      sample: particleSampleSchema.parse({
+        sampleLabel: "L-9",
+        components: "1",
+        counts: { E: "9", H: "1" },
+        largest: { metallicUm: "310" },
+      }),
+    });
+    const { file: photo } = await storeEvidenceFile(tech, {
+      runId: run.id,
+      name: "largest-metallic.png",
+      bytes: png(),
+      kind: "photo",
+    });
+    await saveLabDetails(tech, {
+      runId: run.id,
+      details: labDetailsSchema.parse(
+        form({
+          largest: {
+            metallic: { lengthUm: "310", widthUm: "95", sampleLabel: "L-9", photoFileId: photo.id },
+            nonMetallic: {},
+            fibre: {},
+          },
+        }),
+      ),
+    });
+    const report = (await loadTestReport(run.id))!;
+    expect(report.largest[0].photo).toMatchObject({ name: "largest-metallic.png" });
+    expect(report.largest[0].photo!.dataUri).toMatch(/^data:image\/png;base64,/);
+    const pdf = (await exportTestReport(engineer, run.id))!;
+    const dir = mkdtempSync(join(tmpdir(), "washproof-report-photo-"));
+    writeFileSync(join(dir, "r.pdf"), pdf.bytes);
+    const out = execFileSync("pdftotext", ["-raw", join(dir, "r.pdf"), "-"], { encoding: "utf8" });
+    const images = execFileSync("pdfimages", ["-list", join(dir, "r.pdf")], { encoding: "utf8" });
+    rmSync(dir, { recursive: true, force: true });
+    expect(out.replace(/\s+/g, " ")).toContain("Photo largest-metallic.png");
+    expect(out).toContain("UNCONTROLLED COPY");
+    // One image in the file: the photo itself, 2 × 2 pixels.
+    expect(images.split("\n").filter((l) => /^\s+\d+\s+\d+\s+image/.test(l))).toHaveLength(1);
+    // A photo of another run is refused, naming the field.
+    const other = await newRun();
+    await expect(
+      saveLabDetails(tech, {
+        runId: other.id,
+        details: labDetailsSchema.parse(
+          form({
+            analysis: { system: "sem_edx", magnification: "100", lowerSizeLimitUm: "5" },
+            largest: {
+              metallic: { lengthUm: "310", photoFileId: photo.id },
+              nonMetallic: {},
+              fibre: {},
+            },
+          }),
+        ),
+      }),
+    ).rejects.toMatchObject({ field: "largest.metallic.photoFileId" });
   });
 
   it("travels with a new revision of the run", async () => {
