@@ -29,6 +29,9 @@ import { loadTestReport } from "@/lib/server/lab-report/test-report";
 import { storeEvidenceFile } from "@/lib/server/evidence/store-file";
 import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
 import { localStore, setStore } from "@/lib/storage";
+import * as labDetailsRoute from "@/app/api/v1/test-runs/[runId]/lab-details/route";
+import * as reportRoute from "@/app/api/v1/test-runs/[runId]/report/route";
+import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -386,6 +389,63 @@ describe("lab details on a run", () => {
         ),
       }),
     ).rejects.toMatchObject({ field: "largest.metallic.photoFileId" });
+  });
+
+  it("is recorded through /api/v1 with the same schema, and the report is served as a PDF", async () => {
+    const run = await newRun();
+    const { token } = await createApiToken(tech, { name: "LIMS", scope: "read_write" });
+    const body = {
+      component: {
+        drawingRevision: "B",
+        lot: "LOT-9",
+        wettedAreaCm2: 37.35,
+        wettedAreaMethod: "measured",
+      },
+      extraction: {
+        procedure: "ultrasonic",
+        liquid: "Neutral cleaner",
+        volumeMl: 800,
+        durationS: 120,
+        controlledSurface: "Whole part",
+        extractions: 2,
+      },
+      filter: { material: "Cellulose nitrate", poreSizeUm: 8 },
+      analysis: { system: "sem_edx", magnification: 0, lowerSizeLimitUm: 15 },
+      largest: { metallic: {}, nonMetallic: {}, fibre: {} },
+    };
+    const send = (b: unknown) =>
+      labDetailsRoute.POST(
+        new Request(`http://127.0.0.1/api/v1/test-runs/${run.id}/lab-details`, {
+          method: "POST",
+          headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
+          body: JSON.stringify(b),
+        }),
+        { params: Promise.resolve({ runId: run.id }) },
+      );
+    const refused = await send(body);
+    expect(refused.status).toBe(422);
+    expect((await refused.json()).fieldErrors).toHaveProperty(["analysis.magnification"]);
+    expect(await getLabDetails(t.db, run.id)).toBeNull();
+
+    const saved = await send({ ...body, analysis: { ...body.analysis, magnification: 200 } });
+    expect(saved.status).toBe(200);
+    expect((await saved.json()).labDetails).toMatchObject({
+      analysis: { magnification: 200, lowerSizeLimitUm: 15 },
+    });
+
+    const pdf = await reportRoute.GET(
+      new Request(`http://127.0.0.1/api/v1/test-runs/${run.id}/report`, {
+        headers: { authorization: `Bearer ${token}` },
+      }),
+      { params: Promise.resolve({ runId: run.id }) },
+    );
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get("content-type")).toBe("application/pdf");
+    expect(
+      Buffer.from(await pdf.arrayBuffer())
+        .subarray(0, 5)
+        .toString(),
+    ).toBe("%PDF-");
   });
 
   it("travels with a new revision of the run", async () => {
