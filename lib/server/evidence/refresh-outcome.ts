@@ -39,9 +39,7 @@ export async function computeStoredOutcome(db: Executor, run: TestRun): Promise<
   return computeRunOutcome({
     testType: run.testType,
     // The wetted area recorded with the run is that of the parts tested; the family's is the default.
-    family: lab
-      ? { ...family.family, wettedAreaCm2: lab.component.wettedAreaCm2 }
-      : family.family,
+    family: lab ? { ...family.family, wettedAreaCm2: lab.component.wettedAreaCm2 } : family.family,
     lowerSizeLimitUm: lab?.analysis.lowerSizeLimitUm ?? null,
     spec: family.spec,
     conductivityLimitUsPerCm: limit?.setpoint ?? null,
