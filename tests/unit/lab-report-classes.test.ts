@@ -109,6 +109,7 @@ describe("largest particles against the counts and the specification", () => {
     expect(lines).toContain("Largest metallic particle 380 µm, limit 400 µm: pass");
     expect(lines).toContain("Largest non-metallic particle 420 µm, limit 600 µm: pass");
     expect(lines).toContain("Largest fibre particle 700 µm, limit 1,000 µm: pass");
+    expect(lines).toContain("Particle types: metallic (reflective) 1, non-metallic 21, fibres 1");
     expect(lines.filter((l) => l.startsWith("Flag:"))).toEqual([
       "Flag: Largest non-metallic particle 420 µm lies in class I, which holds no counted particle.",
     ]);

@@ -127,6 +127,13 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
         if (!check.consistent) lines.push(`Flag: ${check.reason}`);
       }
     }
+    if (data.split) {
+      const total = (c: Partial<Record<string, number>>) =>
+        Object.values(c).reduce<number>((a, b) => a + (b ?? 0), 0);
+      lines.push(
+        `Particle types: metallic (reflective) ${total(data.split.metallic)}, non-metallic ${total(data.split.nonMetallic)}, fibres ${total(data.split.fibre)}`,
+      );
+    }
     const sizes = [
       data.largest.metallicUm,
       data.largest.nonMetallicUm,
