@@ -114,7 +114,9 @@ export function HowWeComputeView() {
             The code opens with A, V or N and lists each class analysed with its level, e.g.{" "}
             <Code>A(E7/F6/G00/H4)</Code>; an N code lists counts per component instead of levels.
             The code starts at the smallest class analysed; classes above the largest particle found
-            read 00.
+            read 00. When the run records its analysis&apos;s lower size limit, a class below it is
+            &ldquo;not analysed&rdquo; and left out of the code, never written as 00, and a
+            specification limit on such a class cannot be judged, so the sample is incomplete.
           </p>
           <p>
             A specification uses the same notation. A hyphen joins classes under one limit on their
