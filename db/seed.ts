@@ -20,6 +20,7 @@ import { seedBathPlan } from "./seed-bath-plan";
 import { seedChangeControl } from "./seed-changes";
 import { seedDeviations } from "./seed-deviations";
 import { seedCycles } from "./seed-cycles";
+import { seedLabReport } from "./seed-lab-report";
 import {
   DEMO_COMPANY,
   DEMO_PART_FAMILIES,
@@ -308,6 +309,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
     await seedDeviations(tx, { userIds, recipeIds, familyIds });
     await seedCycles(tx);
+    await seedLabReport(tx);
   });
   // The statistics taken at migration described empty tables: the planner needs the seeded ones.
   await db.run(sql`ANALYZE`);

@@ -181,7 +181,7 @@ export function SampleForm({
           <NumberField
             name="temperatureC"
             label="Water temperature (°C)"
-            hint="Compensated to 25 °C when the outcome is computed."
+            hint="Compensated to 25 °C when the outcome is computed (linear 2 %/°C, instrument practice; below about 1 µS/cm use a meter set for pure water)."
           />
         </div>
       )}

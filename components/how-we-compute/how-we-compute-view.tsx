@@ -114,7 +114,9 @@ export function HowWeComputeView() {
             The code opens with A, V or N and lists each class analysed with its level, e.g.{" "}
             <Code>A(E7/F6/G00/H4)</Code>; an N code lists counts per component instead of levels.
             The code starts at the smallest class analysed; classes above the largest particle found
-            read 00.
+            read 00. When the run records its analysis&apos;s lower size limit, a class below it is
+            &ldquo;not analysed&rdquo; and left out of the code, never written as 00, and a
+            specification limit on such a class cannot be judged, so the sample is incomplete.
           </p>
           <p>
             A specification uses the same notation. A hyphen joins classes under one limit on their
@@ -169,8 +171,10 @@ export function HowWeComputeView() {
           </Formula>
           <p>
             The balance must resolve 0.1 mg or better. Without a controlled room climate, residues
-            below about {GRAVIMETRY_PRACTICAL_LIMIT_MG} mg are not meaningful; Washproof flags them
-            and suggests filtering more parts together.
+            below about {GRAVIMETRY_PRACTICAL_LIMIT_MG} mg are not meaningful: Washproof reports
+            such a sample as not qualified (pool more parts on one filter), never as a pass. The
+            blank is never subtracted from the residue; it qualifies the result when it is at most
+            10 % of it.
           </p>
         </Section>
 
@@ -250,7 +254,7 @@ export function HowWeComputeView() {
         <Section
           id="conductivity"
           title="Conductivity at 25 °C"
-          source="Instrument practice (linear); ISO 7888 — factors f25 for natural water (non-linear)"
+          source="Instrument practice, not a standard (linear 2 %/°C); ISO 7888 — factors f25 for natural water (non-linear)"
         >
           <Formula>
             {"linear:      κ25 = κT / (1 + α (T − 25 °C)),   α ≈ 0.02 per °C\n" +
@@ -258,6 +262,8 @@ export function HowWeComputeView() {
           </Formula>
           <p>
             Check value [derived]: 500 µS/cm at 20 °C with α = 0.02 per °C → 555.6 µS/cm at 25 °C.
+            Below about 1 µS/cm the water itself conducts and the linear formula does not hold:
+            Washproof warns, and the reading should come from a meter set for pure water.
           </p>
           <ReferenceTable
             caption="ISO 7888 factors held by Washproof"
@@ -275,19 +281,19 @@ export function HowWeComputeView() {
         <Section
           id="wetting"
           title="Wetting tension"
-          source="ASTM D2578 / ISO 8296 — wetting tension by test mixtures"
+          source="ASTM D2578 / ISO 8296 — wetting tension by test mixtures; both are written for plastic film, adapted here to cleaned parts"
         >
           <Formula>
             {
-              "result = lowest reading, to the nearest 0.5 mN/m (1 mN/m = 1 dyn/cm);   pass when result ≥ specified minimum"
+              "result = lowest reading, as measured (1 mN/m = 1 dyn/cm);   pass when result ≥ specified minimum"
             }
           </Formula>
           <p>
             A reading is the test mixture that wets the surface for about 2 s. Washproof reports the
-            lowest reading, so a pass means every spot tested met the minimum, and warns when
-            readings spread by more than 1 mN/m, a sign of an unevenly cleaned surface. Minimums
-            such as 38 mN/m before painting or bonding are trade practice and come from the
-            customer&apos;s specification.
+            lowest reading as measured, never rounded up (37.8 mN/m does not meet 38 mN/m), so a
+            pass means every spot tested met the minimum, and warns when readings spread by more
+            than 1 mN/m, a sign of an unevenly cleaned surface. Minimums such as 38 mN/m before
+            painting or bonding are trade practice and come from the customer&apos;s specification.
           </p>
         </Section>
       </div>

@@ -16,3 +16,4 @@ export * from "./part-pictures";
 export * from "./bath-plan";
 export * from "./document-rounds";
 export * from "./cycles";
+export * from "./lab-report";

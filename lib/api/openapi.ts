@@ -38,6 +38,7 @@ import {
   particleSampleSchema,
   wettingSampleSchema,
 } from "@/lib/schemas/evidence";
+import { labDetailsSchema } from "@/lib/schemas/lab-details";
 
 export interface ApiOperation {
   method: "get" | "post";
@@ -49,7 +50,8 @@ export interface ApiOperation {
   body?: z.ZodType;
   /** A multipart form instead of JSON (a file upload), as a JSON Schema of its fields. */
   multipart?: Record<string, unknown>;
-  response: z.ZodType;
+  /** The JSON answer's schema, or "pdf" for a file download (a test report). */
+  response: z.ZodType | "pdf";
   status?: number;
   errors: number[];
 }
@@ -180,6 +182,27 @@ export const API_OPERATIONS: ApiOperation[] = [
     pathParams: { runId: uuidParam("Test run id") },
     response: testRunDetailOut,
     errors: [401, 403, 404],
+  },
+  {
+    method: "get",
+    path: "/test-runs/{runId}/report",
+    operationId: "getTestReport",
+    summary:
+      "The run's test report as a PDF: component, extraction, filter, analysis, counts per size class, largest particles, evaluation against the specification revision in force, signatures with the content hash; the export is audited",
+    pathParams: { runId: uuidParam("Test run id") },
+    response: "pdf",
+    errors: [401, 403, 404, 503],
+  },
+  {
+    method: "post",
+    path: "/test-runs/{runId}/lab-details",
+    operationId: "saveTestRunLabDetails",
+    summary:
+      "Record how an open particle run was extracted and analysed and on which parts (replaces what was recorded); part of the run's signed content",
+    pathParams: { runId: uuidParam("Test run id (the run must be open)") },
+    body: labDetailsSchema,
+    response: testRunDetailOut,
+    errors: [400, 401, 403, 404, 415, 422, 423, 503],
   },
   {
     method: "post",
@@ -361,7 +384,10 @@ export function buildOpenApiDocument(serverUrl = "/api/v1") {
     const responses: Record<string, unknown> = {
       [String(op.status ?? 200)]: {
         description: "OK",
-        content: { "application/json": { schema: ref(op.response) } },
+        content:
+          op.response === "pdf"
+            ? { "application/pdf": { schema: { type: "string", format: "binary" } } }
+            : { "application/json": { schema: ref(op.response) } },
       },
     };
     for (const code of op.errors)

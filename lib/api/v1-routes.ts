@@ -16,6 +16,8 @@ import * as apiV1TestRunsRunidExtractionSeriesRoute from "@/app/api/v1/test-runs
 import * as apiV1TestRunsRunidFilesRoute from "@/app/api/v1/test-runs/[runId]/files/route";
 import * as apiV1TestRunsRunidSamplesRoute from "@/app/api/v1/test-runs/[runId]/samples/route";
 import * as apiV1TestRunsRunidRoute from "@/app/api/v1/test-runs/[runId]/route";
+import * as apiV1TestRunsRunidLabDetailsRoute from "@/app/api/v1/test-runs/[runId]/lab-details/route";
+import * as apiV1TestRunsRunidReportRoute from "@/app/api/v1/test-runs/[runId]/report/route";
 import * as apiV1TestRunsRoute from "@/app/api/v1/test-runs/route";
 
 /**
@@ -42,6 +44,8 @@ export const V1_ROUTE_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/v1/test-runs/[runId]/files/route.ts": apiV1TestRunsRunidFilesRoute,
   "app/api/v1/test-runs/[runId]/samples/route.ts": apiV1TestRunsRunidSamplesRoute,
   "app/api/v1/test-runs/[runId]/route.ts": apiV1TestRunsRunidRoute,
+  "app/api/v1/test-runs/[runId]/lab-details/route.ts": apiV1TestRunsRunidLabDetailsRoute,
+  "app/api/v1/test-runs/[runId]/report/route.ts": apiV1TestRunsRunidReportRoute,
   "app/api/v1/test-runs/route.ts": apiV1TestRunsRoute,
 };
 

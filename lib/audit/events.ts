@@ -745,6 +745,20 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   event("wash_cycle.flagged", "wash_cycle", {
     new: obj({ cycleNumber: text, system: text, lots: z.array(text), reasons: z.array(text) }),
   }),
+  // Lab details of a test run and its test report
+  event("test_run.lab_details_saved", "test_run", {
+    old: obj({ details: jsonObject.nullable() }),
+    new: obj({ details: jsonObject }),
+  }),
+  event("test_run.report_exported", "test_run", {
+    new: obj({
+      format: z.literal("pdf"),
+      number: text,
+      revision: version,
+      contentHash: sha256,
+      bytes: count,
+    }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

@@ -11,6 +11,7 @@ import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appCyclesActions from "@/app/(app)/cycles/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
 import * as appEvidenceBathActions from "@/app/(app)/evidence/bath/actions";
+import * as appEvidenceRunsRunidActions from "@/app/(app)/evidence/runs/[runId]/actions";
 import * as appPartsActions from "@/app/(app)/parts/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
 import * as appSystemsSystemidRecipesNewActions from "@/app/(app)/systems/[systemId]/recipes/new/actions";
@@ -27,6 +28,7 @@ import * as apiEvidenceRunsRunidFilesRoute from "@/app/api/evidence/runs/[runId]
 import * as apiCyclesImportRoute from "@/app/api/cycles/import/route";
 import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId]/import/route";
 import * as apiLotsLotExportRoute from "@/app/api/lots/[lot]/export/route";
+import * as apiEvidenceRunsRunidReportRoute from "@/app/api/evidence/runs/[runId]/report/route";
 import * as apiEvidenceRunsRoute from "@/app/api/evidence/runs/route";
 import * as apiPartsExportRoute from "@/app/api/parts/export/route";
 import * as apiPartsFamiliesFamilyidPictureRoute from "@/app/api/parts/families/[familyId]/picture/route";
@@ -58,6 +60,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/cycles/actions.ts": appCyclesActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
   "app/(app)/evidence/bath/actions.ts": appEvidenceBathActions,
+  "app/(app)/evidence/runs/[runId]/actions.ts": appEvidenceRunsRunidActions,
   "app/(app)/parts/actions.ts": appPartsActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
   "app/(app)/systems/[systemId]/recipes/new/actions.ts": appSystemsSystemidRecipesNewActions,
@@ -75,6 +78,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/cycles/import/route.ts": apiCyclesImportRoute,
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,
   "app/api/lots/[lot]/export/route.ts": apiLotsLotExportRoute,
+  "app/api/evidence/runs/[runId]/report/route.ts": apiEvidenceRunsRunidReportRoute,
   "app/api/evidence/runs/route.ts": apiEvidenceRunsRoute,
   "app/api/parts/export/route.ts": apiPartsExportRoute,
   "app/api/parts/families/[familyId]/picture/route.ts": apiPartsFamiliesFamilyidPictureRoute,

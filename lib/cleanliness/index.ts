@@ -56,4 +56,11 @@ export {
   type GravimetryInput,
   type GravimetryResult,
 } from "./gravimetry";
-export { ISO4406_SCALE, iso4406ScaleNumber, iso4406Code, type Iso4406Scale } from "./iso4406";
+export {
+  ISO4406_MIN_COUNTED,
+  ISO4406_SCALE,
+  iso4406ScaleNumber,
+  iso4406Code,
+  iso4406CodeMarked,
+  type Iso4406Scale,
+} from "./iso4406";

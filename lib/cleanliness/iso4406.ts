@@ -50,3 +50,28 @@ export function iso4406Code(perMl: [number, number, number]): string {
   }
   return codes.join("/");
 }
+
+/** Below this many particles counted in a channel its scale number is statistically weak. */
+export const ISO4406_MIN_COUNTED = 20;
+
+/**
+ * The ISO 4406 code with each channel in which fewer than 20 particles were actually counted
+ * marked "≥" [memory, ISO 4406:1999 and 2021: a scale number from a raw count below 20 is
+ * labelled with ≥, since the true level may be higher], e.g. 14/12/≥7. `counted` holds the raw
+ * particles counted per channel (per mL × the volume analysed), not the counts per mL.
+ */
+export function iso4406CodeMarked(
+  perMl: [number, number, number],
+  counted: [number, number, number],
+): { code: string; weakChannels: ("R4" | "R6" | "R14")[] } {
+  const plain = iso4406Code(perMl).split("/");
+  if (!Array.isArray(counted) || counted.length !== 3 || counted.some((c) => !(c >= 0)))
+    throw new CleanlinessInputError(
+      "Give the particles counted in each of the three channels (≥ 4, ≥ 6, ≥ 14 µm(c)).",
+      "counted",
+    );
+  const names = ["R4", "R6", "R14"] as const;
+  const weakChannels = names.filter((_, i) => counted[i] < ISO4406_MIN_COUNTED);
+  const code = plain.map((n, i) => (counted[i] < ISO4406_MIN_COUNTED ? `≥${n}` : n)).join("/");
+  return { code, weakChannels };
+}

@@ -10,9 +10,10 @@ export type CleanlinessLevel = {
 /**
  * Cleanliness levels of ISO 16232:2018: a level covers normalised counts above the previous
  * level's upper bound up to and including its own (per 1000 cm² or per 100 cm³).
- * Sources: 00, 0, 10, 12, 17 and the upper bounds of 4–9 (16/32/64/130/250/500) [std, ISO
+ * Sources: 00, 0, 10, 12, 16, 17 and the upper bounds of 4–9 (16/32/64/130/250/500) [std, ISO
  * 16232:2018 level table as quoted]; the others [memory], each equal to 100 × the upper bound of
- * the ISO 4406 scale number of the same number (see iso4406.ts), which agrees at every [std] level.
+ * the ISO 4406 scale number of the same number (see iso4406.ts), which agrees at every [std] level
+ * (checked in tests/unit/cleanliness.test.ts).
  */
 export const CLEANLINESS_LEVELS: readonly CleanlinessLevel[] = Object.freeze([
   { level: "00", upper: 0, source: "std" }, // no particle
@@ -32,7 +33,8 @@ export const CLEANLINESS_LEVELS: readonly CleanlinessLevel[] = Object.freeze([
   { level: "13", upper: 8_000, source: "memory" },
   { level: "14", upper: 16_000, source: "memory" },
   { level: "15", upper: 32_000, source: "memory" },
-  { level: "16", upper: 64_000, source: "memory" },
+  // Quoted with level 17 as "64,000 – 130,000 particles per 1000 cm²" (a cleanliness lab's reading of ISO 16232 / VDA 19.1).
+  { level: "16", upper: 64_000, source: "std" },
   { level: "17", upper: 130_000, source: "std" },
   { level: "18", upper: 250_000, source: "memory" },
   { level: "19", upper: 500_000, source: "memory" },

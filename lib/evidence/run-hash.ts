@@ -19,7 +19,8 @@ export interface HashableRun {
  * Exactly what a signature on a run covers: the run's identity and context, its
  * raw data and the hashes of its files. Status is left out, so the "performed"
  * signature stays valid when the run is verified; any change to data or files
- * changes the hash and shows the signature as no longer valid.
+ * changes the hash and shows the signature as no longer valid. The lab details (extraction,
+ * filter, analysis, component data) are part of the content once recorded.
  */
 export function runContentHash(
   run: HashableRun,
@@ -31,8 +32,9 @@ export function runContentHash(
     data: unknown;
   }[],
   files: { sha256: string; originalName: string; kind: string; sampleLabel: string | null }[],
+  labDetails: unknown = null,
 ) {
-  const content = {
+  const content: Record<string, unknown> = {
     number: run.number,
     revision: run.revision,
     partFamilyId: run.partFamilyId,
@@ -61,5 +63,7 @@ export function runContentHash(
       sampleLabel: f.sampleLabel,
     })),
   };
+  // Only a run with lab details carries the key, so every signature given before they existed still binds.
+  if (labDetails !== null) content.labDetails = labDetails;
   return { content, hash: sha256Hex(canonicalJson(content)) };
 }

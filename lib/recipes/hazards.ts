@@ -1,7 +1,8 @@
 /**
  * The usual cautions for a recipe's parameters. Thresholds are common practice
- * (surfaces and water above about 50 °C scald); the site's own safety data sheets,
- * local codes and licensed practice govern.
+ * (water and steam above about 50 °C scald; a hot-air or vacuum dryer's air, walls and parts
+ * give a dry-heat contact burn, not a scald); the site's own safety data sheets, local codes
+ * and licensed practice govern.
  */
 export interface HazardInput {
   kind: string;
@@ -13,7 +14,7 @@ export interface HazardInput {
 }
 
 export interface Hazard {
-  kind: "burn" | "chemical" | "hot_parts" | "noise" | "isolation";
+  kind: "burn" | "dry_heat" | "pressure" | "chemical" | "hot_parts" | "noise" | "isolation";
   title: string;
   text: string;
 }
@@ -22,19 +23,37 @@ const BURN_THRESHOLD_C = 50; // common practice
 
 export function hazardsOfParameters(params: HazardInput[]): Hazard[] {
   const found = new Map<Hazard["kind"], Hazard>();
-  let maxTemperature = -Infinity;
+  let hottestBath = -Infinity;
+  let hottestDryer = -Infinity;
+  let highestPressure = -Infinity;
+  let pressureUnit = "bar";
   for (const p of params) {
     const hottest = Math.max(p.setpoint, p.validatedHigh ?? -Infinity);
-    if (
-      (p.kind === "temperature" || p.kind === "drying_temperature") &&
-      p.unit === "°C" &&
-      hottest > BURN_THRESHOLD_C
-    ) {
-      maxTemperature = Math.max(maxTemperature, hottest);
+    if (p.kind === "temperature" && p.unit === "°C" && hottest > BURN_THRESHOLD_C) {
+      hottestBath = Math.max(hottestBath, hottest);
       found.set("burn", {
         kind: "burn",
         title: "hot bath, steam and hot surfaces",
-        text: `Baths and dryers here run up to ${maxTemperature} °C, which scalds. Let tanks and chambers cool or wear heat-resistant protection before reaching in.`,
+        text: `Baths here run up to ${hottestBath} °C: the water and its steam scald. Let tanks cool or wear heat-resistant protection before reaching in or draining.`,
+      });
+    }
+    if (p.kind === "drying_temperature" && p.unit === "°C" && hottest > BURN_THRESHOLD_C) {
+      hottestDryer = Math.max(hottestDryer, hottest);
+      found.set("dry_heat", {
+        kind: "dry_heat",
+        title: "hot dryer and hot parts",
+        text: `The dryer runs up to ${hottestDryer} °C: its air, chamber walls, baskets and the parts leaving it give a dry-heat contact burn. Let them cool or handle them with heat-resistant gloves.`,
+      });
+    }
+    if (p.kind === "spray_pressure" || p.mode === "spray" || p.mode === "injection") {
+      if (p.kind === "spray_pressure" && hottest > highestPressure) {
+        highestPressure = hottest;
+        pressureUnit = p.unit || pressureUnit;
+      }
+      found.set("pressure", {
+        kind: "pressure",
+        title: "spray and injection pressure",
+        text: `${highestPressure > 0 ? `Jets here run up to ${highestPressure} ${pressureUnit}. ` : ""}A spray or injection jet can cut skin and force hot fluid into it. Keep the chamber closed while the pumps run, never hold a hand or a part into a jet, and isolate the pumps before opening.`,
       });
     }
     if (p.kind === "concentration") {

@@ -386,6 +386,12 @@ export const testRunDetailOut = named(
       }),
     ),
     signatures: z.array(signatureOut),
+    labDetails: z
+      .record(z.string(), z.unknown())
+      .nullable()
+      .describe(
+        "Extraction, filter, analysis and component data as recorded (the body of POST …/lab-details), or null",
+      ),
   }),
 );
 

@@ -10,7 +10,7 @@ export class SurfaceInputError extends RangeError {
 }
 
 export type WettingTensionResult = {
-  /** The lowest reading to the nearest 0.5 mN/m: the surface wets at least this well everywhere tested. */
+  /** The lowest reading as measured: the surface wets at least this well everywhere tested. */
   resultMNm: number;
   /** Mean of the readings to the nearest 0.5 mN/m, for information. */
   meanMNm: number;
@@ -24,7 +24,7 @@ export type WettingTensionResult = {
 /** Readings spread by more than this suggest an unevenly cleaned surface. */
 export const WETTING_SPREAD_WARNING_MNM = 1;
 
-/** To the nearest 0.5 mN/m [std, ASTM D2578 / ISO 8296], halves rounded up. */
+/** To the nearest 0.5 mN/m [std, ASTM D2578 / ISO 8296], halves rounded up: for the mean, shown for information only. */
 export function roundToHalf(value: number): number {
   if (typeof value !== "number" || !Number.isFinite(value)) {
     throw new SurfaceInputError(
@@ -36,9 +36,11 @@ export function roundToHalf(value: number): number {
 }
 
 /**
- * Wetting tension by test inks [std, ASTM D2578 / ISO 8296]: each reading is the test mixture
- * that wets the surface for about 2 s, in mN/m (= dyn/cm), reported to the nearest 0.5 mN/m.
- * The result is the lowest reading, so a pass means every tested spot met the minimum.
+ * Wetting tension by test inks [std, ASTM D2578 / ISO 8296, adapted: both are written for
+ * polyethylene and polypropylene film; the trade applies the same inks to cleaned metal parts]:
+ * each reading is the test mixture that wets the surface for about 2 s, in mN/m (= dyn/cm).
+ * The result is the lowest reading as measured, never rounded up: a 37.8 mN/m spot does not meet
+ * a 38 mN/m minimum, so a pass means every tested spot met it.
  */
 export function evaluateWettingTension(
   readingsMNm: number[],
@@ -65,7 +67,7 @@ export function evaluateWettingTension(
   const lowest = Math.min(...readingsMNm);
   const highest = Math.max(...readingsMNm);
   const mean = readingsMNm.reduce((a, b) => a + b, 0) / readingsMNm.length;
-  const resultMNm = roundToHalf(lowest);
+  const resultMNm = lowest;
   const spreadMNm = highest - lowest;
   const pass = resultMNm >= minimumMNm;
   const warnings: string[] = [];
@@ -79,7 +81,7 @@ export function evaluateWettingTension(
     meanMNm: roundToHalf(mean),
     spreadMNm,
     pass,
-    reason: `${resultMNm.toFixed(1)} mN/m (lowest of ${readingsMNm.length}) against a minimum of ${minimumMNm} mN/m: ${pass ? "pass" : "fail"}`,
+    reason: `${resultMNm.toFixed(1)} mN/m (lowest of ${readingsMNm.length}, as measured) against a minimum of ${minimumMNm} mN/m: ${pass ? "pass" : "fail"}`,
     warnings,
   };
 }

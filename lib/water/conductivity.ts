@@ -38,8 +38,9 @@ function requireTemperature(value: number): number {
 }
 
 /**
- * Linear temperature compensation to 25 °C [std, instrument practice]:
- * κ25 = κT / (1 + α (T − 25)), α ≈ 0.02 per °C for most natural and rinse waters.
+ * Linear temperature compensation to 25 °C [practice: what conductivity meters apply by default;
+ * no standard fixes α]: κ25 = κT / (1 + α (T − 25)), α ≈ 0.02 per °C for most natural and rinse
+ * waters. It does not hold for pure water (see PURE_WATER_BELOW_US_PER_CM).
  */
 export function conductivityAt25C(
   measuredUsPerCm: number,
@@ -125,4 +126,18 @@ export function f25NaturalWater(temperatureC: number): number {
 export function conductivityAt25CNonLinear(measuredUsPerCm: number, temperatureC: number): number {
   requireConductivity(measuredUsPerCm);
   return f25NaturalWater(temperatureC) * measuredUsPerCm;
+}
+
+/**
+ * Below about 1 µS/cm (ISO 3696 grade 2 water is ≤ 1.0 µS/cm [std]) the conductivity of water
+ * itself dominates and changes with temperature far from linearly, so meters switch to a
+ * pure-water (non-linear) compensation [practice]. The 2 %/°C result there is only indicative.
+ */
+export const PURE_WATER_BELOW_US_PER_CM = 1;
+
+/** The warning a compensated reading needs, or null. */
+export function pureWaterWarning(compensatedUsPerCm: number): string | null {
+  return compensatedUsPerCm < PURE_WATER_BELOW_US_PER_CM
+    ? `Below about ${PURE_WATER_BELOW_US_PER_CM} µS/cm the linear 2 %/°C compensation does not hold: pure-water compensation applies. Read the value from a meter set for pure water.`
+    : null;
 }

@@ -145,7 +145,7 @@ export function testMethods(): RichNode[] {
         ],
         [
           "Gravimetry",
-          "Dry and weigh the analysis filter before and after filtration on a balance with 0.1 mg resolution; subtract the blank.",
+          "Dry and weigh the analysis filter before and after filtration on a balance with 0.1 mg resolution. Weigh a blank the same way: it qualifies the result when it is at most 10 % of the residue and is never subtracted. A residue below the method's practical lower limit (about 1 mg) is not qualified: pool more parts.",
           "Residue mass in mg",
         ],
         [
@@ -165,7 +165,7 @@ export function testMethods(): RichNode[] {
         ],
         [
           "UV inspection for oil films",
-          "Inspect under a UV-A lamp in a darkened booth for fluorescent oil residues.",
+          "Inspect under a UV-A lamp in a darkened booth for fluorescent oil residues; wear UV-blocking glasses and never look into the lamp.",
           "Pass / fail with photo reference",
         ],
       ],

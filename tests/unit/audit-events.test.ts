@@ -915,6 +915,18 @@ const SAMPLES = {
       lots: ["L24-0311-A"],
       reasons: ["Wash temperature 54 °C is below its validated range 55–65 °C."],
     },
+  "test_run.lab_details_saved": {
+    eventType: "test_run.lab_details_saved",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { details: null },
+    new: { details: { analysis: { system: "sem_edx", magnification: 100, lowerSizeLimitUm: 50 } } },
+  },
+  "test_run.report_exported": {
+    eventType: "test_run.report_exported",
+    recordType: "test_run",
+    recordId: UUID,
+    new: { format: "pdf", number: "TR-2026-001", revision: 1, contentHash: H, bytes: 20480 },
   },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 

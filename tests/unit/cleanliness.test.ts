@@ -2,6 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   CLEANLINESS_LEVELS,
+  ISO4406_SCALE,
   CleanlinessInputError,
   CleanlinessSpecError,
   SIZE_CLASSES,
@@ -130,7 +131,7 @@ describe("cleanliness levels", () => {
   });
 
   it("marks which bounds were read from the standard and which are recalled", () => {
-    // standards.md §1: 00, 0, 4–10, 12 and 17 [std]; the rest [memory]
+    // standards.md §1: 00, 0, 4–10, 12 and 17 [std]; 16 [std, level 17 quoted as 64,000–130,000 per 1000 cm²]; the rest [memory]
     expect(CLEANLINESS_LEVELS.filter((l) => l.source === "std").map((l) => l.level)).toEqual([
       "00",
       "0",
@@ -142,8 +143,15 @@ describe("cleanliness levels", () => {
       "9",
       "10",
       "12",
+      "16",
       "17",
     ]);
+  });
+
+  it("agrees with 100 × the ISO 4406 bound of the same number at every level, sourced or recalled", () => {
+    // [derived] standards.md §1 and §2: the published level bounds are 100 × the ISO 4406 scale bounds (0.01 × 2^N rounded)
+    for (const l of CLEANLINESS_LEVELS.filter((x) => x.level !== "00"))
+      expect(l.upper).toBeCloseTo(100 * ISO4406_SCALE[Number(l.level)].upperPerMl, 6);
   });
 
   it("refuses negative, NaN and infinite counts", () => {

@@ -72,6 +72,25 @@ describe("gravimetric outcome", () => {
     );
   });
 
+  it("does not pass a residue below the practical lower limit: not qualified, pool more parts", () => {
+    // [std] ISO 16232 gravimetry (standards.md §1): results below about 1 mg are not meaningful without a controlled climate; 0.6 mg < 1 mg
+    const out = gravimetricOutcome(input({ samples: [sample({ filterAfterMg: "100.6" })] }));
+    expect(out.samples[0].outcome).toBe("incomplete");
+    expect(out.samples[0].lines.at(-1)).toMatch(
+      /^Not qualified: .*practical lower limit of 1 mg\. Pool more parts/,
+    );
+    expect(out.outcome).toBe("incomplete");
+  });
+
+  it("never subtracts the blank: the residue and the verdict are the same with or without it", () => {
+    // [std] VDA 19.1:2015 (standards.md §1): the blank is not subtracted; it qualifies the measurement. 0.2 mg ≤ 10 % of 3 mg
+    const withBlank = gravimetricOutcome(input({ samples: [sample({ blankMg: "0.2" })] }));
+    expect(withBlank.samples[0].lines[0]).toMatch(
+      /= 3 mg over 3 component\(s\) → 1 mg per component/,
+    );
+    expect(withBlank.outcome).toBe("pass");
+  });
+
   it("is incomplete when the specification sets no gravimetric limit", () => {
     const out = gravimetricOutcome(input({ limit: null }));
     expect(out.outcome).toBe("incomplete");

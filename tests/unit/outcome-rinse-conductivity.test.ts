@@ -20,10 +20,26 @@ describe("rinse conductivity outcome", () => {
       samples: [sample("22", "35")],
     });
     expect(out.samples[0].lines).toEqual([
-      "22 µS/cm at 35 °C → 18.3 µS/cm at 25 °C (linear, α = 2 %/°C)",
+      "22 µS/cm at 35 °C → 18.3 µS/cm at 25 °C (linear, α = 2 %/°C, instrument practice)",
       "Limit 20 µS/cm at 25 °C: pass",
     ]);
     expect(out.outcome).toBe("pass");
+  });
+
+  it("warns below about 1 µS/cm that pure-water compensation applies", () => {
+    // [practice] 0.8 µS/cm at 25 °C stays 0.8; below 1 µS/cm (ISO 3696 grade 2 is ≤ 1.0 µS/cm [std]) linear compensation does not hold
+    const out = rinseConductivityOutcome({
+      conductivityLimitUsPerCm: 5,
+      samples: [sample("0.8", "25")],
+    });
+    expect(out.samples[0].lines[1]).toMatch(
+      /^Below about 1 µS\/cm the linear 2 %\/°C compensation does not hold: pure-water compensation applies/,
+    );
+    const clean = rinseConductivityOutcome({
+      conductivityLimitUsPerCm: 20,
+      samples: [sample("22", "35")],
+    });
+    expect(clean.samples[0].lines.join(" ")).not.toMatch(/pure-water/);
   });
 
   it("fails a rinse above the limit once compensated", () => {

@@ -61,7 +61,8 @@ describe("computeRunOutcome", () => {
   });
 
   it("sends each test type to its own evaluation", () => {
-    const data = { filterBeforeMg: 100, filterAfterMg: 100.5, components: 1 };
+    // 1.2 mg over 2 parts = 0.6 mg each ≤ 1 mg; the residue itself is above the practical lower limit of about 1 mg (below it: not qualified, never a pass) [std, ISO 16232 gravimetry]
+    const data = { filterBeforeMg: 100, filterAfterMg: 101.2, components: 2 };
     expect(
       computeRunOutcome({ ...base, samples: [{ sampleLabel: "G", worstCase: false, data }] })
         .outcome,

@@ -27,7 +27,10 @@ describe("the cautions shown while a washer's equipment is set", () => {
   });
 
   it("a vacuum dryer: hot parts and the dryer's heat; a flood rinse without a tank or filter: none", () => {
-    expect(kinds([stage("drying", ["vacuum_drying"])])).toEqual(["burn", "hot_parts"]);
+    // [practice] a dryer's hot air, walls and parts burn by contact: a dry-heat burn, not a scald
+    expect(kinds([stage("drying", ["vacuum_drying"])])).toEqual(["dry_heat", "hot_parts"]);
+    const [dryer] = hazardsOfEquipment([stage("drying", ["hot_air_drying"])]);
+    expect(dryer.text).toMatch(/dry-heat contact burn, not a scald/);
     expect(kinds([stage("rinse", ["flood"])])).toEqual([]);
   });
 
@@ -37,7 +40,11 @@ describe("the cautions shown while a washer's equipment is set", () => {
       stage("wash", ["ultrasonic"], { tankVolumeL: 500 }),
       stage("drying", ["hot_air_drying"]),
     ]);
-    expect(all.map((h) => h.kind).sort()).toEqual(["burn", "chemical", "noise"]);
+    expect(all.map((h) => h.kind).sort()).toEqual(["burn", "chemical", "dry_heat", "noise"]);
+  });
+
+  it("spray and injection stages carry the pressure caution [practice]", () => {
+    expect(kinds([stage("wash", ["spray", "injection"])])).toEqual(["chemical", "pressure"]);
   });
 });
 

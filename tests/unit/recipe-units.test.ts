@@ -147,13 +147,27 @@ describe("physically impossible values", () => {
 });
 
 describe("cautions", () => {
-  it("names the burn hazard for a hot bath and a hot top of range, with the hottest temperature", () => {
+  it("names the scald of a hot bath and the dry-heat burn of a dryer apart, each with its hottest temperature", () => {
+    // [practice] hot water and steam scald above about 50 °C; a dryer's air and parts burn by contact (dry heat)
     const h = hazardsOfParameters([
       { kind: "temperature", setpoint: 45, unit: "°C", validatedHigh: 55 },
       { kind: "drying_temperature", setpoint: 110, unit: "°C", validatedHigh: 120 },
     ]);
-    expect(h.map((x) => x.kind)).toEqual(["burn"]);
-    expect(h[0].text).toMatch(/up to 120 °C/);
+    expect(h.map((x) => x.kind)).toEqual(["burn", "dry_heat"]);
+    expect(h[0].text).toMatch(/up to 55 °C: the water and its steam scald/);
+    expect(h[1].text).toMatch(/up to 120 °C: .*dry-heat contact burn/);
+    expect(h[1].text).not.toMatch(/scald/);
+  });
+  it("names spray and injection pressure with the highest setpoint", () => {
+    const h = hazardsOfStages([
+      {
+        mode: "spray",
+        parameters: [{ kind: "spray_pressure", setpoint: 4, unit: "bar", validatedHigh: 6 }],
+      },
+      { mode: "injection", parameters: [] },
+    ]);
+    expect(h.map((x) => x.kind)).toEqual(["pressure"]);
+    expect(h[0].text).toMatch(/^Jets here run up to 6 bar\./);
   });
   it("stays quiet for a cool rinse and names chemical, hot parts, noise and isolation where they apply", () => {
     expect(

@@ -21,6 +21,11 @@ export interface OutcomeInput {
   conductivityLimitUsPerCm: number | null;
   samples: { sampleLabel: string; worstCase: boolean; data: unknown }[];
   runData: unknown;
+  /**
+   * The analysis's lower size limit in µm, when the run records its lab details: classes below it
+   * were not analysed and never appear in the code. Null: the classes from the smallest one counted.
+   */
+  lowerSizeLimitUm?: number | null;
   /** Photos attached to the run (visual, UV and dryness need at least one). */
   photoCount: number;
 }

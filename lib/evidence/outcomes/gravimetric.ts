@@ -1,4 +1,4 @@
-import { gravimetricResidue } from "@/lib/cleanliness";
+import { GRAVIMETRY_PRACTICAL_LIMIT_MG, gravimetricResidue } from "@/lib/cleanliness";
 import type { GravimetricSample } from "@/lib/schemas/evidence";
 import {
   fmt,
@@ -14,7 +14,8 @@ export type GravimetricOutcomeInput = Pick<OutcomeInput, "family" | "spec" | "sa
 
 /**
  * Gravimetric residue (ISO 16232 / VDA 19.1): each sample's residue per component or per 1000 cm²
- * against the specification's limit; a blank above 10 % of the residue leaves the sample unqualified.
+ * against the specification's limit; a blank above 10 % of the residue, or a residue below the
+ * practical lower limit, leaves the sample unqualified. The blank is never subtracted.
  */
 export function gravimetricOutcome(input: GravimetricOutcomeInput): RunOutcome {
   const missing: string[] = [];
@@ -36,6 +37,17 @@ export function gravimetricOutcome(input: GravimetricOutcomeInput): RunOutcome {
         `Residue ${fmt(data.filterAfterMg, 2)} − ${fmt(data.filterBeforeMg, 2)} = ${fmt(r.residueMg, 2)} mg over ${data.components} component(s) → ${fmt(value, 3)} ${unit}`,
         ...r.notes,
       ];
+      // Below the practical lower limit the balance cannot tell the residue from zero: no verdict, pool more parts.
+      if (r.belowPracticalLimit)
+        return {
+          sampleLabel: label,
+          worstCase,
+          outcome: "incomplete",
+          lines: [
+            ...lines,
+            `Not qualified: the residue is below the method's practical lower limit of ${fmt(GRAVIMETRY_PRACTICAL_LIMIT_MG, 0)} mg. Pool more parts on one filter; this is not a pass.`,
+          ],
+        };
       if (r.blankOk === false)
         return {
           sampleLabel: label,

@@ -9,6 +9,7 @@ import {
   type Basis,
   type ParticleCounts,
 } from "@/lib/cleanliness";
+import { analysedClasses, largestAgainstCounts } from "@/lib/lab-report/analysed-classes";
 import { CLASS_KEYS, type ParticleRunData, type ParticleSample } from "@/lib/schemas/evidence";
 import {
   combineOutcome,
@@ -22,7 +23,8 @@ import {
 } from "./common";
 
 /** Inputs a particle test reads; the rest of OutcomeInput does not matter to it. */
-export type ParticleOutcomeInput = Pick<OutcomeInput, "family" | "spec" | "samples" | "runData">;
+export type ParticleOutcomeInput = Pick<OutcomeInput, "family" | "spec" | "samples" | "runData"> &
+  Partial<Pick<OutcomeInput, "lowerSizeLimitUm">>;
 
 function basisOf(
   kind: Basis["kind"],
@@ -57,6 +59,15 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
   const spec = parseCleanlinessSpec(input.spec.ccc);
   const unit = BASIS_UNIT[spec.basis];
   const samples = parsedSamples<ParticleSample>(input);
+  const analysed =
+    input.lowerSizeLimitUm === null || input.lowerSizeLimitUm === undefined
+      ? null
+      : analysedClasses(input.lowerSizeLimitUm);
+  // The code lists only the classes analysed [std, ISO 16232:2018: the CCC names the classes evaluated].
+  const codeOf = (counts: ParticleCounts, basis: Basis) =>
+    analysed && analysed.length > 0
+      ? cleanlinessCode(counts, basis, { classes: analysed })
+      : cleanlinessCode(counts, basis);
   const pooled: ParticleCounts = {};
   let pooledComponents = 0;
   const out: SampleOutcome[] = samples.map(({ label, worstCase, data }) => {
@@ -73,24 +84,70 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
     for (const k of CLASS_KEYS) pooled[k] = (pooled[k] ?? 0) + (data.counts[k] ?? 0);
     pooledComponents += data.components;
     const evaluation = evaluateAgainstSpec(data.counts, basis, spec);
-    const lines = [basisLine(basis), ...evaluation.rows.map((r) => r.reason)];
+    const lines = [basisLine(basis)];
     let pass = evaluation.pass;
-    const largest: [string, number | undefined, number | null][] = [
-      ["metallic", data.largest.metallicUm, input.spec.maxMetallicUm],
-      ["non-metallic", data.largest.nonMetallicUm, input.spec.maxNonMetallicUm],
-      ["fibre", data.largest.fibreUm, input.spec.maxFibreUm],
+    let notAnalysed = false;
+    for (const row of evaluation.rows) {
+      // A limited class below the lower size limit was not looked at: "not analysed", never a zero that passes.
+      const unseen = analysed ? row.classes.filter((k) => !analysed.includes(k)) : [];
+      if (unseen.length === 0) {
+        lines.push(row.reason);
+        continue;
+      }
+      notAnalysed = true;
+      lines.push(
+        `Class${unseen.length === 1 ? "" : "es"} ${unseen.join(", ")}: not analysed (below the lower size limit of ${fmt(input.lowerSizeLimitUm!)} µm), so the specification's limit on ${row.classes.join("-")} cannot be judged`,
+      );
+    }
+    const largest: [
+      string,
+      number | undefined,
+      number | null,
+      Partial<Record<string, number>> | undefined,
+    ][] = [
+      ["metallic", data.largest.metallicUm, input.spec.maxMetallicUm, data.split?.metallic],
+      [
+        "non-metallic",
+        data.largest.nonMetallicUm,
+        input.spec.maxNonMetallicUm,
+        data.split?.nonMetallic,
+      ],
+      ["fibre", data.largest.fibreUm, input.spec.maxFibreUm, data.split?.fibre],
     ];
-    for (const [type, size, limit] of largest) {
-      if (size === undefined || limit === null) continue;
-      const ok = size <= limit;
-      if (!ok) pass = false;
-      lines.push(`Largest ${type} particle ${fmt(size)} µm, limit ${fmt(limit)} µm: ${word(ok)}`);
+    for (const [type, size, limit, typeCounts] of largest) {
+      if (size === undefined) continue;
+      if (limit !== null) {
+        const ok = size <= limit;
+        if (!ok) pass = false;
+        lines.push(`Largest ${type} particle ${fmt(size)} µm, limit ${fmt(limit)} µm: ${word(ok)}`);
+      }
+      // With the split measured, each type's largest is checked against that type's counts.
+      if (typeCounts) {
+        const check = largestAgainstCounts(`Largest ${type} particle`, size, typeCounts);
+        if (!check.consistent) lines.push(`Flag: ${check.reason}`);
+      }
+    }
+    if (data.split) {
+      const total = (c: Partial<Record<string, number>>) =>
+        Object.values(c).reduce<number>((a, b) => a + (b ?? 0), 0);
+      lines.push(
+        `Particle types: metallic (reflective) ${total(data.split.metallic)}, non-metallic ${total(data.split.nonMetallic)}, fibres ${total(data.split.fibre)}`,
+      );
+    }
+    const sizes = [
+      data.largest.metallicUm,
+      data.largest.nonMetallicUm,
+      data.largest.fibreUm,
+    ].filter((v): v is number => v !== undefined);
+    if (sizes.length > 0) {
+      const check = largestAgainstCounts("Largest particle", Math.max(...sizes), data.counts);
+      if (!check.consistent) lines.push(`Flag: ${check.reason}`);
     }
     return {
       sampleLabel: label,
       worstCase,
-      outcome: pass ? "pass" : "fail",
-      code: cleanlinessCode(data.counts, basis),
+      outcome: notAnalysed ? "incomplete" : pass ? "pass" : "fail",
+      code: codeOf(data.counts, basis),
       lines,
     };
   });
@@ -178,7 +235,7 @@ export function particleOutcome(input: ParticleOutcomeInput): RunOutcome {
   let code: string | null = null;
   if (pooledComponents > 0) {
     const basis = basisOf(spec.basis, pooledComponents, input.family);
-    if (basis) code = cleanlinessCode(pooled, basis);
+    if (basis) code = codeOf(pooled, basis);
   }
   return {
     outcome: combineOutcome(out, checks, missing),

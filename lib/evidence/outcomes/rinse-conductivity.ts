@@ -1,4 +1,5 @@
 import { conductivityAt25C } from "@/lib/water";
+import { pureWaterWarning } from "@/lib/water/conductivity";
 import type { ConductivitySample } from "@/lib/schemas/evidence";
 import {
   fmt,
@@ -15,7 +16,10 @@ export type RinseConductivityOutcomeInput = Pick<
   "conductivityLimitUsPerCm" | "samples"
 >;
 
-/** Final-rinse conductivity: each reading compensated to 25 °C (linear, α = 2 %/°C) against the recipe version's limit. */
+/**
+ * Final-rinse conductivity: each reading compensated to 25 °C (linear, α = 2 %/°C, the meters'
+ * default — instrument practice, not a standard) against the recipe version's limit.
+ */
 export function rinseConductivityOutcome(input: RinseConductivityOutcomeInput): RunOutcome {
   const missing: string[] = [];
   const limit = input.conductivityLimitUsPerCm;
@@ -24,8 +28,10 @@ export function rinseConductivityOutcome(input: RinseConductivityOutcomeInput): 
     ({ label, worstCase, data }): SampleOutcome => {
       const k25 = conductivityAt25C(data.measuredUsPerCm, data.temperatureC);
       const lines = [
-        `${fmt(data.measuredUsPerCm)} µS/cm at ${fmt(data.temperatureC)} °C → ${fmt(k25)} µS/cm at 25 °C (linear, α = 2 %/°C)`,
+        `${fmt(data.measuredUsPerCm)} µS/cm at ${fmt(data.temperatureC)} °C → ${fmt(k25)} µS/cm at 25 °C (linear, α = 2 %/°C, instrument practice)`,
       ];
+      const warning = pureWaterWarning(k25);
+      if (warning) lines.push(warning);
       if (limit === null) return { sampleLabel: label, worstCase, outcome: "incomplete", lines };
       const ok = k25 <= limit;
       lines.push(`Limit ${fmt(limit)} µS/cm at 25 °C: ${word(ok)}`);

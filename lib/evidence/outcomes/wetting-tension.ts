@@ -10,7 +10,12 @@ import {
 
 export type WettingTensionOutcomeInput = Pick<OutcomeInput, "spec" | "samples">;
 
-/** Wetting tension by test inks (ISO 8296 / ASTM D2578): each sample's lowest reading against the specification's minimum. */
+/**
+ * Wetting tension by test inks (ISO 8296 / ASTM D2578, adapted from plastic film to metal parts):
+ * each sample's lowest reading, as measured, against the specification's minimum.
+ */
+export const WETTING_METHOD_NOTE =
+  "Test inks per ISO 8296 / ASTM D2578, written for plastic film and adapted here to cleaned parts; the lowest reading counts as measured, never rounded up.";
 export function wettingTensionOutcome(input: WettingTensionOutcomeInput): RunOutcome {
   const missing: string[] = [];
   const min = input.spec.minWettingTensionMNm;
@@ -29,7 +34,12 @@ export function wettingTensionOutcome(input: WettingTensionOutcomeInput): RunOut
         sampleLabel: label,
         worstCase,
         outcome: r.pass ? "pass" : "fail",
-        lines: [`Readings ${data.readingsMNm.join(", ")} mN/m`, r.reason, ...r.warnings],
+        lines: [
+          `Readings ${data.readingsMNm.join(", ")} mN/m`,
+          r.reason,
+          ...r.warnings,
+          WETTING_METHOD_NOTE,
+        ],
       };
     },
   );

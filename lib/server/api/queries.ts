@@ -1,4 +1,5 @@
 import "server-only";
+import { getLabDetails } from "@/lib/server/lab-report/lab-details";
 import { and, asc, desc, eq, gt, inArray, lt, or, type AnyColumn, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb } from "@/db/client";
@@ -519,6 +520,7 @@ export async function getTestRunApi(runId: string): Promise<TestRunDetailOut | u
       signedAt: s.signedAt,
       contentHash: s.contentHash,
     })),
+    labDetails: await getLabDetails(db, runId),
   };
 }
 

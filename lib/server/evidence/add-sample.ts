@@ -4,6 +4,7 @@ import { getDb } from "@/db/client";
 import { testSamples } from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
+import { assertCountsWithinLimit, getLabDetails } from "@/lib/server/lab-report/lab-details";
 import { requireOpenRun } from "./guards";
 import { refreshOutcome } from "./refresh-outcome";
 
@@ -28,6 +29,13 @@ export async function addSample(actor: AuditActor, input: { runId: string; sampl
       throw new UserFacingError(
         `Sample "${sampleLabel}" is already recorded in this run.`,
         "sampleLabel",
+      );
+    const lab = run.testType === "particle_cleanliness" ? await getLabDetails(tx, run.id) : null;
+    if (lab)
+      assertCountsWithinLimit(
+        (data.counts ?? {}) as Partial<Record<string, number>>,
+        lab.analysis.lowerSizeLimitUm,
+        { what: `Sample ${sampleLabel}`, field: (k) => `counts.${k}` },
       );
     const [row] = await tx
       .insert(testSamples)

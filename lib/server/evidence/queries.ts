@@ -165,7 +165,7 @@ export async function getRunDetail(runId: string) {
     .leftJoin(tech, eq(tech.id, testRuns.technicianId))
     .where(eq(testRuns.id, runId));
   if (!row) return undefined;
-  const { hash, samples } = await runContent(db, row.run);
+  const { hash, samples, labDetails } = await runContent(db, row.run);
   const files = await db
     .select({ file: evidenceFiles, uploader: users.name })
     .from(evidenceFiles)
@@ -216,6 +216,7 @@ export async function getRunDetail(runId: string) {
     ...row,
     contentHash: hash,
     samples,
+    labDetails,
     files,
     signatures,
     outcome,

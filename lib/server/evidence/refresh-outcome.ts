@@ -11,6 +11,7 @@ import {
   type TestRun,
 } from "@/db/schema";
 import { computeRunOutcome, type RunOutcome } from "@/lib/evidence/outcome";
+import { getLabDetails } from "@/lib/server/lab-report/lab-details";
 
 /** Everything the outcome is computed from, read from the stored rows. */
 export async function computeStoredOutcome(db: Executor, run: TestRun): Promise<RunOutcome> {
@@ -34,9 +35,12 @@ export async function computeStoredOutcome(db: Executor, run: TestRun): Promise<
     .select({ id: evidenceFiles.id })
     .from(evidenceFiles)
     .where(and(eq(evidenceFiles.runId, run.id), eq(evidenceFiles.kind, "photo")));
+  const lab = await getLabDetails(db, run.id);
   return computeRunOutcome({
     testType: run.testType,
-    family: family.family,
+    // The wetted area recorded with the run is that of the parts tested; the family's is the default.
+    family: lab ? { ...family.family, wettedAreaCm2: lab.component.wettedAreaCm2 } : family.family,
+    lowerSizeLimitUm: lab?.analysis.lowerSizeLimitUm ?? null,
     spec: family.spec,
     conductivityLimitUsPerCm: limit?.setpoint ?? null,
     samples: samples.map((s) => ({

@@ -1,7 +1,13 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { changeRequestEvidence, evidenceFiles, testSamples, testRuns } from "@/db/schema";
+import {
+  changeRequestEvidence,
+  evidenceFiles,
+  testRunLabDetails,
+  testSamples,
+  testRuns,
+} from "@/db/schema";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { refreshOutcome } from "./refresh-outcome";
@@ -47,10 +53,20 @@ export async function reviseRun(
           samples.map(({ id: _r, createdAt, ...r }) => ({ ...r, createdAt, runId: next.id })),
         );
     const files = await tx.select().from(evidenceFiles).where(eq(evidenceFiles.runId, old.id));
+    // New rows for the same stored bytes; the lab details' photo references follow them.
+    const fileIds = new Map(files.map((f) => [f.id, crypto.randomUUID()]));
     if (files.length)
       await tx
         .insert(evidenceFiles)
-        .values(files.map(({ id: _f, ...f }) => ({ ...f, runId: next.id })));
+        .values(files.map((f) => ({ ...f, id: fileIds.get(f.id)!, runId: next.id })));
+    const [lab] = await tx
+      .select()
+      .from(testRunLabDetails)
+      .where(eq(testRunLabDetails.runId, old.id));
+    if (lab)
+      await tx
+        .insert(testRunLabDetails)
+        .values({ ...lab, runId: next.id, details: carryPhotos(lab.details, fileIds) });
     const links = await tx
       .select()
       .from(changeRequestEvidence)
@@ -87,4 +103,19 @@ export async function reviseRun(
     });
     return next;
   });
+}
+
+/** The lab details of a new revision name the new revision's rows of the same photo files. */
+function carryPhotos(details: Record<string, unknown>, fileIds: Map<string, string>) {
+  const largest = details.largest as Record<string, { photoFileId: string | null }> | undefined;
+  if (!largest) return details;
+  return {
+    ...details,
+    largest: Object.fromEntries(
+      Object.entries(largest).map(([type, p]) => [
+        type,
+        { ...p, photoFileId: p.photoFileId ? (fileIds.get(p.photoFileId) ?? null) : null },
+      ]),
+    ),
+  };
 }

@@ -3,6 +3,7 @@ import { asc, eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { evidenceFiles, testSamples, testRuns, type TestRun } from "@/db/schema";
 import { runContentHash } from "@/lib/evidence/run-hash";
+import { getLabDetails } from "@/lib/server/lab-report/lab-details";
 
 /** The run's stored rows in a stable order, and the hash a signature binds to. */
 export async function runContent(db: Executor, run: TestRun) {
@@ -16,8 +17,9 @@ export async function runContent(db: Executor, run: TestRun) {
     .from(evidenceFiles)
     .where(eq(evidenceFiles.runId, run.id))
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
-  const { content, hash } = runContentHash(run, samples, files);
-  return { content, hash, samples, files };
+  const labDetails = await getLabDetails(db, run.id);
+  const { content, hash } = runContentHash(run, samples, files, labDetails);
+  return { content, hash, samples, files, labDetails };
 }
 
 export async function getRunRow(db: Executor, runId: string) {

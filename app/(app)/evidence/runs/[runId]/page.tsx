@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { DeviationList } from "@/components/deviations/deviation-list";
 import { CsvImport } from "@/components/evidence/csv-import";
 import { FileUpload } from "@/components/evidence/file-upload";
+import { LabDetailsForm } from "@/components/lab-report/lab-details-form";
 import { OutcomePanel } from "@/components/evidence/outcome-panel";
 import { SamplePager } from "@/components/evidence/sample-pager";
 import { DetachFileForm, RemoveSampleButton, ReviseForm } from "@/components/evidence/run-actions";
@@ -11,7 +12,9 @@ import { RunDataForm, SampleForm } from "@/components/evidence/sample-form";
 import { OutcomeWord, RunStatusWord } from "@/components/evidence/status-word";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
 import { SignatureList } from "@/components/signatures/signature-list";
+import { Caution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
+import { testEntryCautions } from "@/lib/lab-report/cautions";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
 import { isCsvTestType } from "@/lib/evidence/csv-import";
@@ -32,6 +35,7 @@ import {
   signRunAction,
 } from "../../actions";
 import { formatDate, formatDateTime } from "@/lib/format/date";
+import { saveLabDetailsAction } from "./actions";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Test run" };
@@ -151,6 +155,12 @@ export default async function RunPage({
                 ))}
               </ul>
             )}
+            {mayRecord &&
+              testEntryCautions(run.testType).map((c) => (
+                <Caution key={c.kind} title={c.title}>
+                  {c.text}
+                </Caution>
+              ))}
             {mayRecord && (
               <SampleForm action={addSampleAction} runId={run.id} testType={run.testType} />
             )}
@@ -160,6 +170,27 @@ export default async function RunPage({
                   Extraction (declining test) and blank value
                 </h3>
                 <RunDataForm action={saveRunDataAction} runId={run.id} defaults={runData} />
+              </>
+            )}
+            {mayRecord && run.testType === "particle_cleanliness" && (
+              <>
+                <h3 className="pt-2 text-sm font-semibold">
+                  Extraction, analysis and components tested
+                </h3>
+                <LabDetailsForm
+                  action={saveLabDetailsAction}
+                  runId={run.id}
+                  details={detail.labDetails}
+                  fallback={{
+                    drawingRevision: family.drawingRevision,
+                    wettedAreaCm2: family.wettedAreaCm2,
+                    wettedAreaMethod: family.wettedAreaMethod,
+                  }}
+                  files={files
+                    .filter(({ file }) => file.kind === "photo" || file.kind === "membrane_image")
+                    .map(({ file }) => ({ id: file.id, name: file.originalName }))}
+                  sampleLabels={samples.map((s) => s.sampleLabel)}
+                />
               </>
             )}
             {mayRecord && isCsvTestType(run.testType) && (
@@ -245,7 +276,9 @@ export default async function RunPage({
                 {spec.code} <span className="block font-mono text-xs">{spec.ccc}</span>
               </dd>
               <dt className="text-stone-500">Wetted area</dt>
-              <dd>{family.wettedAreaCm2} cm² per part</dd>
+              <dd>
+                {detail.labDetails?.component.wettedAreaCm2 ?? family.wettedAreaCm2} cm² per part
+              </dd>
               <dt className="text-stone-500">Technician</dt>
               <dd>{detail.technician ?? "—"}</dd>
               <dt className="text-stone-500">Lab</dt>
@@ -263,6 +296,12 @@ export default async function RunPage({
               <dt className="text-stone-500">Content hash</dt>
               <dd className="font-mono text-xs break-all">{detail.contentHash}</dd>
             </dl>
+            <a
+              href={`/api/evidence/runs/${run.id}/report`}
+              className="mt-3 inline-block font-medium text-brand-800 hover:underline"
+            >
+              Download test report (PDF)
+            </a>
           </section>
 
           <section
