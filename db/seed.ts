@@ -270,11 +270,12 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
           }),
         );
         if (previous) {
+          const superseded = previous;
           await asOf(v.effectiveFrom, actorOf(APPROVER), () =>
             audit({
               eventType: "recipe_version.superseded",
               recordType: "recipe_version",
-              recordId: previous.id,
+              recordId: superseded.id,
               old: { status: "effective" },
               new: { status: "superseded", effectiveTo: v.effectiveFrom, by: i + 1 },
             }),

@@ -729,6 +729,7 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   }),
   event("evidence_file.check_photo_uploaded", "evidence_file", {
     new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
+  }),
   // Wash cycles: one event per recording (a form, a washer's log file, an API call), naming its cycles.
   event("wash_cycles.recorded", "wash_cycle_batch", {
     new: obj({

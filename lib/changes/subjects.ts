@@ -4,6 +4,7 @@ import type { TestType } from "@/lib/recipes/test-types";
 import type { LimitChange, SpecComparison, SpecLimits } from "@/lib/specs/compare";
 import type { Impact } from "./diff";
 import {
+  DEFAULT_MIN_CYCLES,
   samplesFor,
   type ImpactTrigger,
   type MatrixRow,
@@ -107,6 +108,7 @@ export function assessSpecification(
     byTest.set(testType, {
       testType,
       samples: samplesFor(row),
+      minCycles: row.minCycles ?? DEFAULT_MIN_CYCLES,
       confidencePct: row.confidencePct,
       reliabilityPct: row.reliabilityPct,
       because: [change.reason],

@@ -915,6 +915,7 @@ const SAMPLES = {
       lots: ["L24-0311-A"],
       reasons: ["Wash temperature 54 °C is below its validated range 55–65 °C."],
     },
+  },
   "test_run.lab_details_saved": {
     eventType: "test_run.lab_details_saved",
     recordType: "test_run",

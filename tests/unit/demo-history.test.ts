@@ -1,4 +1,4 @@
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq, inArray, type SQL } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { auditEvents, changeRequests, requalificationMatrices } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
@@ -10,7 +10,7 @@ import { createTestDatabase } from "./support/test-db";
 // so an audit pack of the demo does not contradict its own signatures.
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
-const events = (where: Parameters<typeof and>[0]) =>
+const events = (where: SQL | undefined) =>
   t.db.select().from(auditEvents).where(where).orderBy(auditEvents.seq);
 
 beforeAll(async () => {
