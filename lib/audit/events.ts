@@ -15,6 +15,16 @@ import {
   SIGNATURE_MEANINGS,
   TEST_TYPES,
   EVIDENCE_FILE_KINDS,
+  NC_ACTION_KINDS,
+  NC_ACTION_STATUSES,
+  NC_CAUSE_METHODS,
+  NC_DISPOSITIONS,
+  NC_EFFECTIVENESS_RESULTS,
+  NC_HOLD_STATES,
+  NC_MANUAL_KINDS,
+  NC_SEVERITIES,
+  NC_SOURCE_KINDS,
+  NC_STATUSES,
 } from "@/db/enums";
 
 // ── Building blocks of the payloads ──────────────────────────────────────
@@ -607,6 +617,87 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   event("api_token.revoked", "api_token", {
     old: obj({ revokedAt: z.null() }),
     new: obj({ name: text, prefix: text, revokedAt: isoTime }),
+  }),
+  // Nonconformances
+  event("nonconformance.raised", "nonconformance", {
+    new: obj({
+      number: text,
+      title: text,
+      severity: z.enum(NC_SEVERITIES),
+      source: z.enum(NC_SOURCE_KINDS),
+      sourceLabel: text,
+      manualKind: z.enum(NC_MANUAL_KINDS).nullable(),
+      detectedOn: isoDate,
+      recipe: text.nullable(),
+      partFamily: text.nullable(),
+      affectedItems: z.array(text),
+    }),
+  }),
+  event("nonconformance.assigned", "nonconformance", {
+    old: obj({ owner: text.nullable(), dueOn: isoDate.nullable() }),
+    new: obj({ owner: text, dueOn: isoDate.nullable() }),
+  }),
+  event("nonconformance.item_hold_set", "nonconformance", {
+    old: obj({ item: text, hold: z.enum(NC_HOLD_STATES) }),
+    new: obj({ item: text, hold: z.enum(NC_HOLD_STATES) }),
+  }),
+  event("nonconformance.item_disposed", "nonconformance", {
+    old: obj({ item: text, disposition: z.enum(NC_DISPOSITIONS).nullable() }),
+    new: obj({
+      item: text,
+      disposition: z.enum(NC_DISPOSITIONS),
+      recleanRecipe: text.nullable(),
+      concessionReference: text.nullable(),
+      concessionFile: sha256.nullable(),
+      note: text.nullable(),
+    }),
+  }),
+  event("nonconformance.root_cause_saved", "nonconformance", {
+    old: obj({ method: z.enum(NC_CAUSE_METHODS).nullable(), contentHash: sha256.nullable() }),
+    new: obj({ method: z.enum(NC_CAUSE_METHODS), contentHash: sha256 }),
+  }),
+  event("nonconformance.status_changed", "nonconformance", {
+    old: obj({ status: z.enum(NC_STATUSES) }),
+    new: obj({ status: z.enum(NC_STATUSES) }),
+  }),
+  event("nonconformance.action_added", "nonconformance", {
+    new: obj({
+      action: id,
+      kind: z.enum(NC_ACTION_KINDS),
+      description: text,
+      owner: text,
+      dueOn: isoDate,
+    }),
+  }),
+  event("nonconformance.action_updated", "nonconformance", {
+    old: obj({ action: id, status: z.enum(NC_ACTION_STATUSES), evidenceLink: text.nullable() }),
+    new: obj({ action: id, status: z.enum(NC_ACTION_STATUSES), evidenceLink: text.nullable() }),
+  }),
+  event("nonconformance.change_opened", "nonconformance", {
+    new: obj({ action: id, changeRequest: text }),
+  }),
+  event("nonconformance.effectiveness_planned", "nonconformance", {
+    old: obj({ criterion: text.nullable(), dueOn: isoDate.nullable() }),
+    new: obj({ criterion: text, dueOn: isoDate }),
+  }),
+  event("nonconformance.effectiveness_recorded", "nonconformance", {
+    new: obj({
+      result: z.enum(NC_EFFECTIVENESS_RESULTS),
+      evidenceRun: text.nullable(),
+      evidenceFile: sha256.nullable(),
+      note: text.nullable(),
+    }),
+  }),
+  event("nonconformance.file_attached", "nonconformance", {
+    new: obj({ file: id, name: text, sha256, storedNew: z.boolean() }),
+  }),
+  event("nonconformance.reminder_sent", "nonconformance", {
+    new: obj({
+      subject: text,
+      dueOn: isoDate,
+      level: z.enum(["due", "overdue"]),
+      to: z.array(text),
+    }),
   }),
 ]);
 

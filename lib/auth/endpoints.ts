@@ -8,6 +8,7 @@ import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
+import * as appNonconformancesActions from "@/app/(app)/nonconformances/actions";
 import * as appPartsActions from "@/app/(app)/parts/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
 import * as appSystemsSystemidRecipesNewActions from "@/app/(app)/systems/[systemId]/recipes/new/actions";
@@ -22,6 +23,7 @@ import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/
 import * as apiEvidenceRunsRunidFilesRoute from "@/app/api/evidence/runs/[runId]/files/route";
 import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId]/import/route";
 import * as apiEvidenceRunsRoute from "@/app/api/evidence/runs/route";
+import * as apiNonconformancesNcidFilesRoute from "@/app/api/nonconformances/[ncId]/files/route";
 import * as apiPartsExportRoute from "@/app/api/parts/export/route";
 import * as apiPartsImportRoute from "@/app/api/parts/import/route";
 import * as apiPartsSpecsSourceRoute from "@/app/api/parts/specs/source/route";
@@ -46,6 +48,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/changes/actions.ts": appChangesActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
+  "app/(app)/nonconformances/actions.ts": appNonconformancesActions,
   "app/(app)/parts/actions.ts": appPartsActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
   "app/(app)/systems/[systemId]/recipes/new/actions.ts": appSystemsSystemidRecipesNewActions,
@@ -61,6 +64,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/evidence/runs/[runId]/files/route.ts": apiEvidenceRunsRunidFilesRoute,
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,
   "app/api/evidence/runs/route.ts": apiEvidenceRunsRoute,
+  "app/api/nonconformances/[ncId]/files/route.ts": apiNonconformancesNcidFilesRoute,
   "app/api/parts/export/route.ts": apiPartsExportRoute,
   "app/api/parts/import/route.ts": apiPartsImportRoute,
   "app/api/parts/specs/source/route.ts": apiPartsSpecsSourceRoute,

@@ -53,6 +53,12 @@ export const PERMISSIONS = {
   // Bath and filter log
   "bath.record": ["engineer", "technician"],
   "bath.manage_intervals": ["admin", "engineer"],
+  // Nonconformances: anyone who works the process may report one; engineers work them; an
+  // approver signs closure; auditors read.
+  "nc.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "nc.open": ["engineer", "technician"],
+  "nc.work": ["engineer"],
+  "nc.approve": ["approver"],
 } as const satisfies Record<string, readonly Role[]>;
 
 /** What the role table grants; "action" is kept for server actions. */

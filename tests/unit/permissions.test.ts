@@ -40,6 +40,10 @@ const EXPECTED: Record<Permission, Role[]> = {
   "evidence.verify": ["engineer", "reviewer", "approver", "technician"],
   "bath.record": ["engineer", "technician"],
   "bath.manage_intervals": ["admin", "engineer"],
+  "nc.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "nc.open": ["engineer", "technician"],
+  "nc.work": ["engineer"],
+  "nc.approve": ["approver"],
 };
 
 describe("role table", () => {

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, desc, eq, inArray, like } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Tx } from "@/db/client";
 import {
   changeRequestAssessments,
   changeRequests,
@@ -24,8 +24,10 @@ export async function openChangeRequest(
   actor: AuditActor & { id: string },
   input: { recipeId: string; title: string; kind: ChangeKind },
   now = new Date(),
+  /** The caller's transaction, when the change opens with another record (a nonconformance's action). */
+  outer?: Tx,
 ) {
-  return getDb().transaction(async (tx) => {
+  return inTransaction(outer, async (tx) => {
     const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, input.recipeId));
     if (!recipe) throw new UserFacingError("That recipe does not exist.", { kind: "not_found" });
     const [effective] = await tx
@@ -138,4 +140,8 @@ export async function openChangeRequest(
     );
     return cr;
   });
+}
+
+function inTransaction<T>(outer: Tx | undefined, work: (tx: Tx) => Promise<T>): Promise<T> {
+  return outer ? work(outer) : getDb().transaction(work);
 }

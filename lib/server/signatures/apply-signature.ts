@@ -1,4 +1,3 @@
-import "server-only";
 import { and, eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { signatures, type SignatureMeaning, type SignedRecordType } from "@/db/schema";
