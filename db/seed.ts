@@ -22,6 +22,7 @@ import {
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
 import { seedChangeControl } from "./seed-changes";
+import { seedNonconformances } from "./seed-nonconformances";
 import {
   DEMO_COMPANY,
   DEMO_PART_FAMILIES,
@@ -226,6 +227,11 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
 
     await seedEvidence(tx);
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
+    if (["engineer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`)))
+      await seedNonconformances(tx, {
+        engineer: person("engineer@fennmoor.example"),
+        approver: person("approver@fennmoor.example"),
+      });
   });
   // The statistics taken at migration described empty tables: the planner needs the seeded ones.
   await db.run(sql`ANALYZE`);

@@ -43,14 +43,17 @@ export function lastPassingTest(
 
 /**
  * The affected items: those processed after the last passing verified test (all of them when
- * there is none), oldest first. The passing test itself is not suspect; the failed one is.
+ * there is none) up to `until` (when the nonconformance was raised), oldest first. The passing
+ * test itself is not suspect; the failed one is.
  */
 export function containmentScope(
   items: readonly ProcessedItem[],
   lastPass: Pick<VerifiedTest, "id" | "at"> | null,
+  until: string,
 ): ProcessedItem[] {
   const from = lastPass ? instant(lastPass.at) : -Infinity;
+  const to = instant(until);
   return items
-    .filter((i) => i.id !== lastPass?.id && instant(i.at) > from)
+    .filter((i) => i.id !== lastPass?.id && instant(i.at) > from && instant(i.at) <= to)
     .toSorted((a, b) => instant(a.at) - instant(b.at) || a.label.localeCompare(b.label));
 }

@@ -100,6 +100,7 @@ export async function raiseNonconformance(
   const affected =
     recipe && family
       ? await affectedRuns(tx, recipe.id, family.id, {
+          until: now.toISOString(),
           failedAt:
             input.source.kind === "run" && input.source.id
               ? await runDate(tx, input.source.id, input.detectedOn)
@@ -159,7 +160,7 @@ async function affectedRuns(
   tx: Tx,
   recipeId: string,
   partFamilyId: string,
-  opts: { failedAt: string },
+  opts: { failedAt: string; until: string },
 ): Promise<ProcessedItem[]> {
   const versionIds = (
     await tx
@@ -194,5 +195,6 @@ async function affectedRuns(
       at: at(r),
     })),
     lastPass,
+    opts.until,
   );
 }
