@@ -674,7 +674,7 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: obj({ action: id, status: z.enum(NC_ACTION_STATUSES), evidenceLink: text.nullable() }),
   }),
   event("nonconformance.change_opened", "nonconformance", {
-    new: obj({ action: id, changeRequest: text }),
+    new: obj({ action: id, changeRequest: text, joinedOpenChange: z.boolean() }),
   }),
   event("nonconformance.effectiveness_planned", "nonconformance", {
     old: obj({ criterion: text.nullable(), dueOn: isoDate.nullable() }),

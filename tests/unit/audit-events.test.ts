@@ -864,7 +864,7 @@ const SAMPLES = {
     eventType: "nonconformance.change_opened",
     recordType: "nonconformance",
     recordId: UUID,
-    new: { action: UUID, changeRequest: "CR-2026-004" },
+    new: { action: UUID, changeRequest: "CR-2026-004", joinedOpenChange: false },
   },
   "nonconformance.effectiveness_planned": {
     eventType: "nonconformance.effectiveness_planned",

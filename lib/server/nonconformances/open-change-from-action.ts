@@ -1,7 +1,8 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
+import { and, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { nonconformanceActions } from "@/db/schema";
+import { changeRequests, nonconformanceActions } from "@/db/schema";
+import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import { appendAudit, type AuditActor } from "@/lib/audit";
 import { openChangeRequest } from "@/lib/server/changes/open-change-request";
 import { UserFacingError } from "@/lib/server/errors";
@@ -9,8 +10,8 @@ import { assertWorkable, loadNc } from "./shared";
 
 /**
  * A corrective action whose fix changes the recipe, its equipment or what it is validated
- * against opens a change request on the nonconformance's recipe, prefilled from it; the
- * action keeps the link, so each page shows the other.
+ * against opens a change request on the nonconformance's recipe, prefilled from it (or joins
+ * the change already open on that recipe); the action keeps the link, so each page shows the other.
  */
 export async function openChangeFromAction(
   actor: AuditActor & { id: string },
@@ -45,16 +46,28 @@ export async function openChangeFromAction(
       throw new UserFacingError(
         "This nonconformance names no recipe: open the change request from the recipe's page.",
       );
-    const cr = await openChangeRequest(
-      actor,
-      {
-        recipeId: nc.recipeId,
-        title: `${nc.number}: ${action.description}`.slice(0, 200),
-        kind: input.kind,
-      },
-      now,
-      tx,
-    );
+    // One open change per recipe: when one is already under way, the fix joins it.
+    const [already] = await tx
+      .select()
+      .from(changeRequests)
+      .where(
+        and(
+          eq(changeRequests.recipeId, nc.recipeId),
+          inArray(changeRequests.status, OPEN_STATUSES),
+        ),
+      );
+    const cr =
+      already ??
+      (await openChangeRequest(
+        actor,
+        {
+          recipeId: nc.recipeId,
+          title: `${nc.number}: ${action.description}`.slice(0, 200),
+          kind: input.kind,
+        },
+        now,
+        tx,
+      ));
     await tx
       .update(nonconformanceActions)
       .set({
@@ -69,7 +82,7 @@ export async function openChangeFromAction(
         eventType: "nonconformance.change_opened",
         recordType: "nonconformance",
         recordId: nc.id,
-        new: { action: action.id, changeRequest: cr.number },
+        new: { action: action.id, changeRequest: cr.number, joinedOpenChange: !!already },
       },
       now,
     );
