@@ -218,3 +218,22 @@ export async function openNcWork() {
     : [];
   return { open, actions };
 }
+
+/** The recipes and part families a nonconformance reported by hand may name. */
+export async function ncFormChoices() {
+  const db = getDb();
+  const [allRecipes, families] = await Promise.all([
+    db
+      .select({ id: recipes.id, code: recipes.code, name: recipes.name })
+      .from(recipes)
+      .orderBy(asc(recipes.code)),
+    db
+      .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
+      .from(partFamilies)
+      .orderBy(asc(partFamilies.code)),
+  ]);
+  return {
+    recipes: allRecipes.map((r) => ({ value: r.id, label: `${r.code} · ${r.name}` })),
+    families: families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` })),
+  };
+}
