@@ -44,6 +44,7 @@ import { loadNc, ncHash } from "@/lib/server/nonconformances/shared";
 import { signClosure } from "@/lib/server/nonconformances/sign-closure";
 import { updateAction } from "@/lib/server/nonconformances/update-action";
 import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
+import { loadAuditPack } from "@/lib/server/trace/audit-pack";
 import { localStore, setStore } from "@/lib/storage";
 import { createTestDatabase } from "./support/test-db";
 
@@ -309,6 +310,10 @@ describe("a run verified as Fail", () => {
     const [change] = await t.db.select().from(changeRequests).where(eq(changeRequests.id, cr.id));
     expect(change.recipeId).toBe(recipeId);
     expect((await nonconformancesOfChange(cr.id)).map((n) => n.id)).toEqual([ncId]);
+    // The change's audit pack names the nonconformance and carries its events.
+    const pack = await loadAuditPack(t.db, cr.id);
+    expect(pack.nonconformances.map((n) => n.id)).toEqual([ncId]);
+    expect(pack.events.some((e) => e.eventType === "nonconformance.change_opened")).toBe(true);
     await advanceNonconformance(engineer, { nonconformanceId: ncId, to: "actions_under_way" });
     await expect(
       advanceNonconformance(engineer, { nonconformanceId: ncId, to: "effectiveness_check" }),

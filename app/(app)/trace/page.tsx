@@ -7,6 +7,7 @@ import { can } from "@/lib/auth/permissions";
 import { rangeWithUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
+import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { traceQuerySchema } from "@/lib/schemas/trace";
 import { matchParameters, traceScopes } from "@/lib/trace/parameter-search";
 
@@ -76,6 +77,7 @@ export default async function TracePage({
             first.
           </p>
           <ParameterTimeline history={history} canExport={can(user.roles, "trace.export")} />
+          <NcPanel roles={user.roles} where={{ recipeId: history.recipe.id }} />
         </section>
       )}
     </>

@@ -6,6 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { familyInUse, getPartFamily, specsInForce } from "@/lib/server/plant/parts-queries";
 import { updatePartFamilyAction } from "../../actions";
 
@@ -41,6 +42,7 @@ export default async function PartFamilyPage({
           Only engineers and administrators edit part families.
         </p>
       )}
+      <NcPanel roles={user.roles} where={{ partFamilyId: family.id }} />
     </>
   );
 }
