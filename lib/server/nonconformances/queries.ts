@@ -237,3 +237,29 @@ export async function ncFormChoices() {
     families: families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` })),
   };
 }
+
+/** The nonconformances a run raised or is held in, for the run's page. */
+export async function nonconformancesOfRun(runId: string) {
+  return getDb()
+    .selectDistinct({
+      id: nonconformances.id,
+      number: nonconformances.number,
+      status: nonconformances.status,
+      sourceId: nonconformances.sourceId,
+    })
+    .from(nonconformances)
+    .leftJoin(
+      nonconformanceItems,
+      and(
+        eq(nonconformanceItems.nonconformanceId, nonconformances.id),
+        eq(nonconformanceItems.itemKind, "run"),
+      ),
+    )
+    .where(
+      or(
+        and(eq(nonconformances.sourceKind, "run"), eq(nonconformances.sourceId, runId)),
+        eq(nonconformanceItems.itemId, runId),
+      ),
+    )
+    .orderBy(asc(nonconformances.number));
+}

@@ -21,6 +21,7 @@ import { humanize } from "@/lib/format/labels";
 import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRunDetail } from "@/lib/server/evidence/queries";
+import { RunNonconformances } from "@/components/nonconformances/run-nonconformances";
 import {
   addSampleAction,
   detachFileAction,
@@ -73,6 +74,7 @@ export default async function RunPage({
           </span>
         }
       />
+      <RunNonconformances runId={run.id} />
       {run.status === "superseded" && (
         <p className="mb-4 rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm">
           This revision has been superseded.{" "}
