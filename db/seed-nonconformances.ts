@@ -18,6 +18,8 @@ import { nonconformanceItems, recipeVersions, testRuns } from "./schema";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 
 type Person = { id: string; name: string };
+/** History needs no e-mail: nobody is waiting for an assignment made in the demo's past. */
+const QUIET = { notify: false };
 
 /** A day of the demo's history at a given UTC hour, so every record sits on its real date. */
 const at = (date: string, hour: number) =>
@@ -60,6 +62,7 @@ export async function seedNonconformances(tx: Tx, people: { engineer: Person; ap
       engineer,
       { nonconformanceId: id, ownerId: engineer.id, dueOn: addDays(day, 30) },
       at(day, 17),
+      QUIET,
     );
     const items = await tx
       .select()
@@ -154,6 +157,7 @@ async function workToClosure(
       dueOn: addDays(day, 10),
     },
     at(addDays(day, 3), 13),
+    QUIET,
   );
   const preventive = await addActionIn(
     tx,
@@ -166,6 +170,7 @@ async function workToClosure(
       dueOn: addDays(day, 20),
     },
     at(addDays(day, 3), 13),
+    QUIET,
   );
   await advanceNonconformanceIn(
     tx,
