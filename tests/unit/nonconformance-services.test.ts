@@ -46,6 +46,7 @@ import { updateAction } from "@/lib/server/nonconformances/update-action";
 import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
 import { loadAuditPack } from "@/lib/server/trace/audit-pack";
 import { localStore, setStore } from "@/lib/storage";
+import { checkSignatures } from "@/lib/server/audit/check-signatures";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -179,6 +180,7 @@ describe("the demo's failed runs", () => {
     // Signed on what the record still hashes to.
     const hash = await t.db.transaction(async (tx) => ncHash(tx, await loadNc(tx, closed[0].id)));
     expect(sigs.every((s) => s.contentHash === hash)).toBe(true);
+    expect((await checkSignatures(t.db)).findings).toEqual([]);
     // Raised on the failed run's own date, numbered per year without gaps.
     for (const nc of ncs) {
       const run = failed.find((r) => r.id === nc.sourceId)!;
@@ -450,5 +452,25 @@ describe("by hand, in the queue and by e-mail", () => {
       .from(nonconformanceActions)
       .where(eq(nonconformanceActions.id, action.id));
     expect(stored.status).toBe("open");
+  });
+});
+
+describe("integrity", () => {
+  it("finds a closed nonconformance changed after its closure was approved", async () => {
+    const [closed] = await t.db
+      .select()
+      .from(nonconformances)
+      .where(eq(nonconformances.status, "closed"))
+      .limit(1);
+    await t.db
+      .update(nonconformances)
+      .set({ description: "Rewritten after approval" })
+      .where(eq(nonconformances.id, closed.id));
+    const { findings } = await checkSignatures(t.db);
+    expect(findings.map((f) => f.message)).toContainEqual(
+      expect.stringContaining(
+        `Nonconformance ${closed.number} was changed after its closure was approved`,
+      ),
+    );
   });
 });

@@ -49,7 +49,7 @@ export async function ncFacts(tx: Tx, nc: Nonconformance): Promise<NcFacts> {
 }
 
 /** The record as the closure signatures bind to it. */
-export async function ncContent(tx: Tx, nc: Nonconformance): Promise<NcContent> {
+export async function ncContent(tx: Executor, nc: Nonconformance): Promise<NcContent> {
   const items = await tx
     .select()
     .from(nonconformanceItems)
@@ -96,7 +96,7 @@ export async function ncContent(tx: Tx, nc: Nonconformance): Promise<NcContent> 
   };
 }
 
-export async function ncHash(tx: Tx, nc: Nonconformance) {
+export async function ncHash(tx: Executor, nc: Nonconformance) {
   return ncContentHash(await ncContent(tx, nc));
 }
 
