@@ -53,7 +53,10 @@ export function containmentScope(
 ): ProcessedItem[] {
   const from = lastPass ? instant(lastPass.at) : -Infinity;
   const to = instant(until);
-  return items
-    .filter((i) => i.id !== lastPass?.id && instant(i.at) > from && instant(i.at) <= to)
-    .toSorted((a, b) => instant(a.at) - instant(b.at) || a.label.localeCompare(b.label));
+  return (
+    items
+      // Same-day items stay suspect: a date without a time cannot say which came first.
+      .filter((i) => i.id !== lastPass?.id && instant(i.at) >= from && instant(i.at) <= to)
+      .toSorted((a, b) => instant(a.at) - instant(b.at) || a.label.localeCompare(b.label))
+  );
 }

@@ -141,6 +141,15 @@ describe("containment", () => {
     ).toEqual(["r1", "r2", "r3", "c1", "r4"]);
   });
 
+  it("keeps a failed run recorded on the same day as the last pass (dates carry no time)", () => {
+    const sameDay = [run("pass", "2025-11-18"), run("fail", "2025-11-18")];
+    expect(
+      containmentScope(sameDay, { id: "pass", at: "2025-11-18" }, "2025-11-18T17:00:00Z").map(
+        (i) => i.id,
+      ),
+    ).toEqual(["fail"]);
+  });
+
   it("keeps each wash cycle's lots with it", () => {
     const scope = containmentScope(items, { id: "r3", at: "2026-03-10" }, "2026-03-11T23:00:00Z");
     expect(scope).toEqual([items[4]]);
