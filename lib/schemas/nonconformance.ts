@@ -80,7 +80,11 @@ export const dispositionSchema = ncIdSchema
 
 export const rootCauseSchema = ncIdSchema.extend({
   method: z.enum(NC_CAUSE_METHODS, { error: "Choose the method used." }),
-  content: contentJsonSchema,
+  // The editor sends nothing while it is empty.
+  content: z
+    .string({ error: "Describe the root cause." })
+    .min(1, "Describe the root cause.")
+    .pipe(contentJsonSchema),
 });
 
 export const addActionSchema = ncIdSchema.extend({

@@ -22,7 +22,7 @@ import {
 import { doc, p } from "@/lib/documents/rich-text";
 import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import { particleRunDataSchema, particleSampleSchema } from "@/lib/schemas/evidence";
-import { dispositionSchema, openNcSchema } from "@/lib/schemas/nonconformance";
+import { dispositionSchema, openNcSchema, rootCauseSchema } from "@/lib/schemas/nonconformance";
 import { addSample } from "@/lib/server/evidence/add-sample";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { getRunRow, runContent } from "@/lib/server/evidence/run-content";
@@ -262,6 +262,10 @@ describe("a run verified as Fail", () => {
     await expect(
       advanceNonconformance(engineer, { nonconformanceId: ncId, to: "cancelled", reason: " " }),
     ).rejects.toMatchObject({ field: "reason" });
+    expect(
+      rootCauseSchema.safeParse({ nonconformanceId: ncId, method: "five_whys", content: "" }).error
+        ?.issues[0].message,
+    ).toBe("Describe the root cause.");
     expect(
       openNcSchema.safeParse({
         manualKind: "customer_complaint",
