@@ -140,10 +140,8 @@ export async function loadNonconformancePage(id: string) {
     .from(signatures)
     .where(and(eq(signatures.recordType, "nonconformance"), eq(signatures.recordId, id)))
     .orderBy(asc(signatures.signedAt));
-  const { facts, hash } = await db.transaction(async (tx) => ({
-    facts: await ncFacts(tx, nc),
-    hash: await ncHash(tx, nc),
-  }));
+  // Plain reads: a page view takes no write lock.
+  const [facts, hash] = await Promise.all([ncFacts(db, nc), ncHash(db, nc)]);
   const engineers = await db
     .select({ id: users.id, name: users.name })
     .from(users)

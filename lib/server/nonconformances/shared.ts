@@ -27,7 +27,7 @@ export function assertWorkable(nc: Nonconformance) {
 }
 
 /** What the lifecycle rules need to know, read from the stored rows. */
-export async function ncFacts(tx: Tx, nc: Nonconformance): Promise<NcFacts> {
+export async function ncFacts(tx: Executor, nc: Nonconformance): Promise<NcFacts> {
   const items = await tx
     .select()
     .from(nonconformanceItems)
