@@ -159,7 +159,7 @@ test("the effectiveness check with evidence lets it close, signed by two people"
 
   // No evidence, no result.
   const record = page.getByRole("form", { name: "Record the effectiveness check" });
-  await record.getByLabel("Effective").check();
+  await record.getByLabel("Effective", { exact: true }).check();
   await record.getByRole("button", { name: "Record the result" }).click();
   await expect(record.getByLabel("Evidence run number")).toHaveAccessibleDescription(
     /Give the evidence/,
@@ -172,7 +172,7 @@ test("the effectiveness check with evidence lets it close, signed by two people"
     page.getByRole("status").filter({ hasText: "PH400 retest report.pdf stored" }),
   ).toBeVisible();
   await record.getByLabel("Or evidence file").selectOption({ label: "PH400 retest report.pdf" });
-  await record.getByLabel("Effective").check();
+  await record.getByLabel("Effective", { exact: true }).check();
   await record.getByRole("button", { name: "Record the result" }).click();
   const effectiveness = page.getByRole("region", { name: "Effectiveness check" });
   await expect(effectiveness).toContainText("Effective ·");
