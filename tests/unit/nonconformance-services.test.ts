@@ -371,6 +371,12 @@ describe("a run verified as Fail", () => {
       evidenceFileId: null,
       note: null,
     });
+    // The approver sees the closure waiting in My queue.
+    const approverQueue = await nonconformanceQueueProvider(
+      { ...approver, email: "", roles: ["approver"], mustChangePassword: false, sessionId: "s" },
+      new Date(),
+    );
+    expect(approverQueue.items.map((i) => i.id)).toContain(`nc:${ncId}:closure`);
     const hash = await t.db.transaction(async (tx) => ncHash(tx, await loadNc(tx, ncId)));
     await expect(
       signClosure(approver, { nonconformanceId: ncId, meaning: "approved", contentHash: hash }),
