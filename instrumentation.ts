@@ -38,6 +38,14 @@ export async function register() {
       .catch((error) => console.error("deviation expiry and reminders failed", error));
   setTimeout(deviationPass, 5_000).unref();
   setInterval(deviationPass, 15 * 60_000).unref();
+  const { sendNonconformanceReminders } =
+    await import("@/lib/server/nonconformances/send-reminders");
+  const remindNonconformances = () =>
+    sendNonconformanceReminders()
+      .then((sent) => (sent > 0 ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("nonconformance reminders failed", error));
+  setTimeout(remindNonconformances, 5_000).unref();
+  setInterval(remindNonconformances, 3_600_000).unref();
   const { env } = await import("@/lib/env");
   const { writeCheckpoint } = await import("@/lib/server/audit/write-checkpoint");
   // Skipped when the head has not moved, so an idle system writes nothing.

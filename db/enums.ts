@@ -125,6 +125,7 @@ export const SIGNED_RECORD_TYPES = [
   "test_run",
   "recipe_version",
   "deviation",
+  "nonconformance",
 ] as const;
 
 export const EVIDENCE_FILE_KINDS = [
@@ -192,3 +193,35 @@ export type BathRecordKind = (typeof BATH_RECORD_KINDS)[number];
 
 export const API_TOKEN_SCOPES = ["read", "read_write"] as const;
 export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];
+
+// ── Nonconformances ───────────────────────────────────────────────────────
+
+/** Where a nonconformance came from: a record that failed, or a person who reported it. */
+export const NC_SOURCE_KINDS = [
+  "run",
+  "bath_reading",
+  "cycle",
+  "calibration",
+  "change_effectiveness",
+  "manual",
+] as const;
+/** What a person reports by hand. */
+export const NC_MANUAL_KINDS = ["customer_complaint", "field_return", "audit_finding"] as const;
+export const NC_SEVERITIES = ["minor", "major", "critical"] as const;
+export const NC_STATUSES = [
+  "open",
+  "contained",
+  "cause_found",
+  "actions_under_way",
+  "effectiveness_check",
+  "closed",
+  "cancelled",
+] as const;
+/** What was processed on the recipe and part family: test runs now, wash cycles with lots later. */
+export const NC_ITEM_KINDS = ["run", "cycle"] as const;
+export const NC_HOLD_STATES = ["pending", "held", "released"] as const;
+export const NC_DISPOSITIONS = ["reclean", "use_as_is", "scrap"] as const;
+export const NC_CAUSE_METHODS = ["five_whys", "cause_and_effect", "other"] as const;
+export const NC_ACTION_KINDS = ["corrective", "preventive"] as const;
+export const NC_ACTION_STATUSES = ["open", "in_progress", "done"] as const;
+export const NC_EFFECTIVENESS_RESULTS = ["confirmed", "not_effective"] as const;

@@ -21,6 +21,7 @@ import { seedChangeControl } from "./seed-changes";
 import { seedDeviations } from "./seed-deviations";
 import { seedCycles } from "./seed-cycles";
 import { seedLabReport } from "./seed-lab-report";
+import { seedNonconformances } from "./seed-nonconformances";
 import {
   DEMO_COMPANY,
   DEMO_PART_FAMILIES,
@@ -311,6 +312,11 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     await seedDeviations(tx, { userIds, recipeIds, familyIds });
     await seedCycles(tx);
     await seedLabReport(tx);
+    if (["engineer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`)))
+      await seedNonconformances(tx, {
+        engineer: person("engineer@fennmoor.example"),
+        approver: person("approver@fennmoor.example"),
+      });
   });
   // The statistics taken at migration described empty tables: the planner needs the seeded ones.
   await db.run(sql`ANALYZE`);

@@ -12,6 +12,7 @@ import {
   Settings2,
   ShowerHead,
   Boxes,
+  OctagonAlert,
 } from "lucide-react";
 import type { NavItem } from "./nav-items";
 
@@ -22,6 +23,7 @@ const ICONS = {
   documents: FileText,
   changes: GitCompareArrows,
   evidence: ClipboardCheck,
+  nonconformances: OctagonAlert,
   trace: History,
   calc: Calculator,
   admin: Settings2,

@@ -10,6 +10,7 @@ export interface NavItem {
     | "documents"
     | "changes"
     | "evidence"
+    | "nonconformances"
     | "trace"
     | "calc"
     | "admin";
@@ -26,6 +27,12 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/deviations", label: "Deviations", icon: "changes", permission: "deviation.view" },
   { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
   { href: "/cycles", label: "Wash cycles & lots", icon: "evidence", permission: "evidence.view" },
+  {
+    href: "/nonconformances",
+    label: "Nonconformances",
+    icon: "nonconformances",
+    permission: "nc.view",
+  },
   { href: "/trace", label: "Trace", icon: "trace", permission: "trace.view" },
   { href: "/how-we-compute", label: "How we compute", icon: "calc", permission: "calc.view" },
   { href: "/admin", label: "Admin", icon: "admin", permission: "admin.view" },

@@ -17,3 +17,4 @@ export * from "./bath-plan";
 export * from "./document-rounds";
 export * from "./cycles";
 export * from "./lab-report";
+export * from "./nonconformances";

@@ -18,6 +18,16 @@ import {
   SIGNATURE_MEANINGS,
   TEST_TYPES,
   EVIDENCE_FILE_KINDS,
+  NC_ACTION_KINDS,
+  NC_ACTION_STATUSES,
+  NC_CAUSE_METHODS,
+  NC_DISPOSITIONS,
+  NC_EFFECTIVENESS_RESULTS,
+  NC_HOLD_STATES,
+  NC_MANUAL_KINDS,
+  NC_SEVERITIES,
+  NC_SOURCE_KINDS,
+  NC_STATUSES,
 } from "@/db/enums";
 import { RISK_LEVELS } from "@/lib/deviations/rules";
 
@@ -758,6 +768,87 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       revision: version,
       contentHash: sha256,
       bytes: count,
+    }),
+  }),
+  // Nonconformances
+  event("nonconformance.raised", "nonconformance", {
+    new: obj({
+      number: text,
+      title: text,
+      severity: z.enum(NC_SEVERITIES),
+      source: z.enum(NC_SOURCE_KINDS),
+      sourceLabel: text,
+      manualKind: z.enum(NC_MANUAL_KINDS).nullable(),
+      detectedOn: isoDate,
+      recipe: text.nullable(),
+      partFamily: text.nullable(),
+      affectedItems: z.array(text),
+    }),
+  }),
+  event("nonconformance.assigned", "nonconformance", {
+    old: obj({ owner: text.nullable(), dueOn: isoDate.nullable() }),
+    new: obj({ owner: text, dueOn: isoDate.nullable() }),
+  }),
+  event("nonconformance.item_hold_set", "nonconformance", {
+    old: obj({ item: text, hold: z.enum(NC_HOLD_STATES) }),
+    new: obj({ item: text, hold: z.enum(NC_HOLD_STATES) }),
+  }),
+  event("nonconformance.item_disposed", "nonconformance", {
+    old: obj({ item: text, disposition: z.enum(NC_DISPOSITIONS).nullable() }),
+    new: obj({
+      item: text,
+      disposition: z.enum(NC_DISPOSITIONS),
+      recleanRecipe: text.nullable(),
+      concessionReference: text.nullable(),
+      concessionFile: sha256.nullable(),
+      note: text.nullable(),
+    }),
+  }),
+  event("nonconformance.root_cause_saved", "nonconformance", {
+    old: obj({ method: z.enum(NC_CAUSE_METHODS).nullable(), contentHash: sha256.nullable() }),
+    new: obj({ method: z.enum(NC_CAUSE_METHODS), contentHash: sha256 }),
+  }),
+  event("nonconformance.status_changed", "nonconformance", {
+    old: obj({ status: z.enum(NC_STATUSES) }),
+    new: obj({ status: z.enum(NC_STATUSES) }),
+  }),
+  event("nonconformance.action_added", "nonconformance", {
+    new: obj({
+      action: id,
+      kind: z.enum(NC_ACTION_KINDS),
+      description: text,
+      owner: text,
+      dueOn: isoDate,
+    }),
+  }),
+  event("nonconformance.action_updated", "nonconformance", {
+    old: obj({ action: id, status: z.enum(NC_ACTION_STATUSES), evidenceLink: text.nullable() }),
+    new: obj({ action: id, status: z.enum(NC_ACTION_STATUSES), evidenceLink: text.nullable() }),
+  }),
+  event("nonconformance.change_opened", "nonconformance", {
+    new: obj({ action: id, changeRequest: text, joinedOpenChange: z.boolean() }),
+  }),
+  event("nonconformance.effectiveness_planned", "nonconformance", {
+    old: obj({ criterion: text.nullable(), dueOn: isoDate.nullable() }),
+    new: obj({ criterion: text, dueOn: isoDate }),
+  }),
+  event("nonconformance.effectiveness_recorded", "nonconformance", {
+    new: obj({
+      result: z.enum(NC_EFFECTIVENESS_RESULTS),
+      evidenceRun: text.nullable(),
+      evidenceFile: sha256.nullable(),
+      note: text.nullable(),
+    }),
+  }),
+  event("nonconformance.file_attached", "nonconformance", {
+    new: obj({ file: id, name: text, sha256, storedNew: z.boolean() }),
+  }),
+  event("nonconformance.reminder_sent", "nonconformance", {
+    new: obj({
+      subject: text,
+      dueOn: isoDate,
+      level: z.enum(["due", "overdue"]),
+      to: z.array(text),
     }),
   }),
 ]);

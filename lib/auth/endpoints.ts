@@ -12,6 +12,7 @@ import * as appCyclesActions from "@/app/(app)/cycles/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
 import * as appEvidenceBathActions from "@/app/(app)/evidence/bath/actions";
 import * as appEvidenceRunsRunidActions from "@/app/(app)/evidence/runs/[runId]/actions";
+import * as appNonconformancesActions from "@/app/(app)/nonconformances/actions";
 import * as appPartsActions from "@/app/(app)/parts/actions";
 import * as appSystemsActions from "@/app/(app)/systems/actions";
 import * as appSystemsSystemidRecipesNewActions from "@/app/(app)/systems/[systemId]/recipes/new/actions";
@@ -30,6 +31,7 @@ import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId
 import * as apiLotsLotExportRoute from "@/app/api/lots/[lot]/export/route";
 import * as apiEvidenceRunsRunidReportRoute from "@/app/api/evidence/runs/[runId]/report/route";
 import * as apiEvidenceRunsRoute from "@/app/api/evidence/runs/route";
+import * as apiNonconformancesNcidFilesRoute from "@/app/api/nonconformances/[ncId]/files/route";
 import * as apiPartsExportRoute from "@/app/api/parts/export/route";
 import * as apiPartsFamiliesFamilyidPictureRoute from "@/app/api/parts/families/[familyId]/picture/route";
 import * as apiPartsImportRoute from "@/app/api/parts/import/route";
@@ -61,6 +63,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/evidence/actions.ts": appEvidenceActions,
   "app/(app)/evidence/bath/actions.ts": appEvidenceBathActions,
   "app/(app)/evidence/runs/[runId]/actions.ts": appEvidenceRunsRunidActions,
+  "app/(app)/nonconformances/actions.ts": appNonconformancesActions,
   "app/(app)/parts/actions.ts": appPartsActions,
   "app/(app)/systems/actions.ts": appSystemsActions,
   "app/(app)/systems/[systemId]/recipes/new/actions.ts": appSystemsSystemidRecipesNewActions,
@@ -80,6 +83,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/lots/[lot]/export/route.ts": apiLotsLotExportRoute,
   "app/api/evidence/runs/[runId]/report/route.ts": apiEvidenceRunsRunidReportRoute,
   "app/api/evidence/runs/route.ts": apiEvidenceRunsRoute,
+  "app/api/nonconformances/[ncId]/files/route.ts": apiNonconformancesNcidFilesRoute,
   "app/api/parts/export/route.ts": apiPartsExportRoute,
   "app/api/parts/families/[familyId]/picture/route.ts": apiPartsFamiliesFamilyidPictureRoute,
   "app/api/parts/import/route.ts": apiPartsImportRoute,

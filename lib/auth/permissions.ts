@@ -59,6 +59,12 @@ export const PERMISSIONS = {
   "deviation.approve": ["approver"],
   "deviation.withdraw": ["engineer", "approver"],
   "deviation.record_lot": ["engineer", "technician"],
+  // Nonconformances: anyone who works the process may report one; engineers work them; an
+  // approver signs closure; auditors read.
+  "nc.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "nc.open": ["engineer", "technician"],
+  "nc.work": ["engineer"],
+  "nc.approve": ["approver"],
 } as const satisfies Record<string, readonly Role[]>;
 
 /** What the role table grants; "action" is kept for server actions. */

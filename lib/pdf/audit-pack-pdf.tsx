@@ -7,6 +7,7 @@ import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { MEANING_LABELS, meaningStatement } from "@/lib/signatures/rules";
 import { BINDING_LABELS, OUTCOME_LABELS } from "@/lib/trace/labels";
 import type { AuditPack } from "@/lib/server/trace/audit-pack";
+import { NC_STATUS_LABELS } from "@/lib/nonconformances/lifecycle";
 import { formatDateTime } from "@/lib/format/date";
 import { letterheadLine, type Letterhead } from "./letterhead";
 import { MONO_ADVANCE_EM, PDF_FONT, PDF_MONO_FONT } from "./fonts";
@@ -206,6 +207,13 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
           → version {pack.toVersion.version} ({humanize(pack.toVersion.status)})
         </KV>
         {pack.family && <KV k="Adds part family">{`${pack.family.code} ${pack.family.name}`}</KV>}
+        {pack.nonconformances.length > 0 && (
+          <KV k="Corrective action of">
+            {pack.nonconformances
+              .map((n) => `${n.number} ${n.title} (${NC_STATUS_LABELS[n.status].toLowerCase()})`)
+              .join("; ")}
+          </KV>
+        )}
         <KV k="Opened">{formatDateTime(cr.createdAt, { seconds: true })}</KV>
         <KV k="Closed">
           {cr.closedAt ? formatDateTime(cr.closedAt, { seconds: true }) : "not closed"}

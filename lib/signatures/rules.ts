@@ -133,6 +133,15 @@ export const MEANING_STATEMENTS: Record<SignedRecordType, Record<SignatureMeanin
     performed: "I ran production under this deviation as recorded.",
     verified: "I have checked that production under this deviation kept to its temporary values.",
   },
+  nonconformance: {
+    authored:
+      "I am the author of this nonconformance's investigation and submit it for closure: containment, dispositions, root cause, actions and effectiveness check as recorded.",
+    reviewed: "I have reviewed this nonconformance as recorded.",
+    approved:
+      "I approve the closure of this nonconformance: the affected product is dispositioned and the actions were shown effective.",
+    performed: "I carried out the actions of this nonconformance as recorded.",
+    verified: "I have checked this nonconformance's records against its requirements.",
+  },
 };
 
 /** What a signature of this meaning on this kind of record affirms. */

@@ -45,6 +45,10 @@ const EXPECTED: Record<Permission, Role[]> = {
   "deviation.approve": ["approver"],
   "deviation.withdraw": ["engineer", "approver"],
   "deviation.record_lot": ["engineer", "technician"],
+  "nc.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "nc.open": ["engineer", "technician"],
+  "nc.work": ["engineer"],
+  "nc.approve": ["approver"],
 };
 
 describe("role table", () => {

@@ -91,10 +91,14 @@ export const signRunAction = defineAction({
   when: { field: "meaning", value: "performed", permission: "evidence.sign_performed" },
   input: signRunSchema,
   run: async ({ user, input }) => {
-    await signRun({ userId: user.id, ...input });
+    const { nonconformance } = await signRun({ userId: user.id, ...input });
     return {
       message:
-        input.meaning === "performed" ? "Signed as performed." : "Verified; the run is locked.",
+        input.meaning === "performed"
+          ? "Signed as performed."
+          : nonconformance
+            ? `Verified; the run is locked. It failed, so nonconformance ${nonconformance.number} is open for it.`
+            : "Verified; the run is locked.",
     };
   },
   revalidate: runPage,

@@ -9,6 +9,7 @@ import { rangeWithUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { deviationsOfRecipe } from "@/lib/server/deviations/queries";
 import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
+import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { traceQuerySchema } from "@/lib/schemas/trace";
 import { matchParameters, traceScopes } from "@/lib/trace/parameter-search";
 
@@ -89,6 +90,7 @@ export default async function TracePage({
             </section>
           )}
           <ParameterTimeline history={history} canExport={can(user.roles, "trace.export")} />
+          <NcPanel roles={user.roles} where={{ recipeId: history.recipe.id }} />
         </section>
       )}
     </>

@@ -1,10 +1,18 @@
 import "server-only";
 import { eq, inArray } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { auditEvents, documentVersions, signatures, testRuns, type Signature } from "@/db/schema";
+import {
+  auditEvents,
+  documentVersions,
+  nonconformances,
+  signatures,
+  testRuns,
+  type Signature,
+} from "@/db/schema";
 import { hashContent } from "@/lib/server/documents/shared";
 import { computeStoredOutcome } from "@/lib/server/evidence/refresh-outcome";
 import { runContent } from "@/lib/server/evidence/run-content";
+import { ncHash } from "@/lib/server/nonconformances/shared";
 import { formatDate } from "@/lib/format/date";
 
 export interface SignatureFinding {
@@ -117,6 +125,24 @@ export async function checkSignatures(
           `Document version ${v.version} (${v.status}) was changed after its approval: its text no longer hashes to what was approved.`,
         );
       }
+    }
+  }
+  // A closed nonconformance still hashes to what its closure approval signed.
+  const ncSigs = byRecord("nonconformance");
+  for (let i = 0, ids = [...ncSigs.keys()]; i < ids.length; i += 200) {
+    const ncs = await db
+      .select()
+      .from(nonconformances)
+      .where(inArray(nonconformances.id, ids.slice(i, i + 200)));
+    for (const nc of ncs) {
+      if (nc.status !== "closed") continue;
+      const hash = await ncHash(db, nc);
+      const approvals = ncSigs.get(nc.id)!.filter((s) => s.meaning === "approved");
+      if (approvals.length > 0 && !approvals.some((s) => original(s) === hash))
+        add(
+          approvals.at(-1)!,
+          `Nonconformance ${nc.number} was changed after its closure was approved: it no longer hashes to what was signed.`,
+        );
     }
   }
   return { checked: rows.length, findings };

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { getDb, type Tx } from "@/db/client";
-import { auditEvents, testRuns } from "@/db/schema";
+import { auditEvents, recipeVersions, testRuns, type TestRun } from "@/db/schema";
 import { appendAudit, storedNamesOf } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { dataEntryProblem } from "@/lib/signatures/rules";
@@ -9,6 +9,10 @@ import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
 import { refreshOutcome } from "./refresh-outcome";
 import { getRunRow, runContent } from "./run-content";
+import { todayUtc } from "@/lib/format/date";
+import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
+import { raiseNonconformance } from "@/lib/server/nonconformances/raise";
+import { openNcForSource } from "@/lib/server/nonconformances/shared";
 
 /**
  * "Performed" by the run's technician moves an open run to performed; "verified"
@@ -66,7 +70,11 @@ export async function signRun(input: {
       old: { status: run.status },
       new: { status, contentHash: hash, outcome: outcome.outcome, code: outcome.code },
     });
-    return { status, outcome: outcome.outcome };
+    const nonconformance =
+      input.meaning === "verified" && outcome.outcome === "fail"
+        ? await raiseForFailedRun(tx, run, signer.id)
+        : null;
+    return { status, outcome: outcome.outcome, nonconformance };
   });
 }
 
@@ -92,4 +100,28 @@ async function dataEntrants(tx: Tx, runId: string): Promise<string[]> {
       ),
     );
   return rows.flatMap((r) => (r.actorId ? [r.actorId] : []));
+}
+
+/**
+ * A run verified as Fail opens its nonconformance in the verification's own transaction, so
+ * no failed result is ever left without an owner (a run already owned by one is not raised twice).
+ */
+async function raiseForFailedRun(tx: Tx, run: TestRun, verifierId: string) {
+  const existing = await openNcForSource(tx, "run", run.id);
+  if (existing) return existing;
+  const [version] = await tx
+    .select({ recipeId: recipeVersions.recipeId })
+    .from(recipeVersions)
+    .where(eq(recipeVersions.id, run.recipeVersionId));
+  const label = run.revision > 1 ? `${run.number} rev. ${run.revision}` : run.number;
+  return raiseNonconformance(tx, {
+    source: { kind: "run", id: run.id, label },
+    title: `${label} verified as Fail (${TEST_TYPE_LABELS[run.testType].toLowerCase()})`,
+    description: `Test run ${label} was verified with the outcome Fail against its specification. Contain what was cleaned on this recipe and part family since the last passing test.`,
+    severity: "major",
+    detectedOn: todayUtc(),
+    recipeId: version?.recipeId ?? null,
+    partFamilyId: run.partFamilyId,
+    actorId: verifierId,
+  });
 }

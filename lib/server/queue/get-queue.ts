@@ -7,6 +7,7 @@ import { bathLimitsQueueProvider } from "@/lib/server/bath/limits-queue-provider
 import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
 import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
 import { deviationQueueProvider } from "@/lib/server/deviations/queue-provider";
+import { nonconformanceQueueProvider } from "@/lib/server/nonconformances/queue-provider";
 import type { QueueItem, QueueProvider, QueueWindow } from "./types";
 
 /**
@@ -20,6 +21,7 @@ const PROVIDERS: QueueProvider[] = [
   bathLimitsQueueProvider,
   changeQueueProvider,
   deviationQueueProvider,
+  nonconformanceQueueProvider,
 ];
 
 export const QUEUE_PAGE_SIZE = 50;

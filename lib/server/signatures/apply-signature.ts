@@ -1,4 +1,4 @@
-// Not "server-only": the demo seed signs deviations through it under tsx (it only writes in the caller's transaction).
+// Not "server-only": the demo seed signs deviations and nonconformances through it under tsx (it only writes in the caller's transaction).
 import { and, eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { signatures, type SignatureMeaning, type SignedRecordType } from "@/db/schema";

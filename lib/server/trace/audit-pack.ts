@@ -1,7 +1,7 @@
 import "server-only";
-import { asc, inArray } from "drizzle-orm";
+import { asc, eq, inArray } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { auditEvents } from "@/db/schema";
+import { auditEvents, nonconformanceActions, nonconformances } from "@/db/schema";
 import { readAuditEvent, verifyAuditChain } from "@/lib/audit";
 import { narrativeText } from "@/lib/changes/content";
 import { compareChainWithCheckpoints } from "@/lib/server/audit/check-integrity";
@@ -22,6 +22,17 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
     changeSignatures(db, changeRequestId),
     changeEvidence(db, changeRequestId),
   ]);
+  // The nonconformances whose corrective actions this change carries out, with their own events.
+  const ncs = await db
+    .selectDistinct({
+      id: nonconformances.id,
+      number: nonconformances.number,
+      title: nonconformances.title,
+      status: nonconformances.status,
+    })
+    .from(nonconformanceActions)
+    .innerJoin(nonconformances, eq(nonconformances.id, nonconformanceActions.nonconformanceId))
+    .where(eq(nonconformanceActions.changeRequestId, changeRequestId));
   const runSignatureIds = evidence.flatMap((r) => r.signatures.map((s) => s.id));
   const recordIds = [
     changeRequestId,
@@ -32,6 +43,7 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
     ...evidence.map((r) => r.id),
     ...runSignatureIds,
     ...evidence.flatMap((r) => r.files.map((f) => f.id)),
+    ...ncs.map((n) => n.id),
   ];
   const [events, chain, checkpoints] = await Promise.all([
     db
@@ -66,6 +78,7 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
           : signatureValidity(s.contentHash, state.contentHash),
     })),
     evidence,
+    nonconformances: ncs,
     // Each row as stored (the pack lists its hash), named by today's event type.
     events: events.map((row) => ({ ...row, eventType: readAuditEvent(row).eventType })),
     chain,

@@ -21,6 +21,7 @@ import {
 } from "@/lib/changes/workflow";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { ChangeNonconformances } from "@/components/nonconformances/change-nonconformances";
 import { getChangeRequestPage } from "@/lib/server/changes/queries";
 import { renderRichHtml } from "@/lib/documents/render-html";
 import type { RichDoc } from "@/lib/documents/rich-text";
@@ -101,6 +102,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           </>
         }
       />
+      <ChangeNonconformances changeRequestId={cr.id} />
 
       <section
         aria-labelledby="next"

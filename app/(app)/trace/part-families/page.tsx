@@ -8,6 +8,7 @@ import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { partFamilyQuerySchema } from "@/lib/schemas/trace";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getPartFamilyHistory, listPartFamilies } from "@/lib/server/trace/part-family-history";
+import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { OUTCOME_LABELS } from "@/lib/trace/labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -19,7 +20,7 @@ export default async function PartFamilyTracePage({
 }: {
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
-  await requirePageUser("trace.view");
+  const user = await requirePageUser("trace.view");
   const q = partFamilyQuerySchema.safeParse(await searchParams);
   const familyId = q.success ? q.data.family : undefined;
   const [families, history] = await Promise.all([
@@ -154,6 +155,7 @@ export default async function PartFamilyTracePage({
             A computed pass supports, and never replaces, the customer&apos;s specification and the
             engineer&apos;s judgement.
           </p>
+          <NcPanel roles={user.roles} where={{ partFamilyId: history.family.id }} />
         </section>
       )}
     </>

@@ -26,6 +26,7 @@ import type { ParticleRunData } from "@/lib/schemas/evidence";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { deviationsCoveringRun } from "@/lib/server/deviations/queries";
 import { getRunDetail } from "@/lib/server/evidence/queries";
+import { RunNonconformances } from "@/components/nonconformances/run-nonconformances";
 import {
   addSampleAction,
   detachFileAction,
@@ -100,6 +101,7 @@ export default async function RunPage({
           <DeviationList label="Deviations covering this run" items={covering} />
         </section>
       )}
+      <RunNonconformances runId={run.id} />
       {run.status === "superseded" && (
         <p className="mb-4 rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm">
           This revision has been superseded.{" "}

@@ -13,6 +13,7 @@ import {
   getPartFamily,
   specsInForce,
 } from "@/lib/server/plant/parts-queries";
+import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { updatePartFamilyAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Part family" };
@@ -57,6 +58,7 @@ export default async function PartFamilyPage({
           Only engineers and administrators edit part families.
         </p>
       )}
+      <NcPanel roles={user.roles} where={{ partFamilyId: family.id }} />
     </>
   );
 }

@@ -13,6 +13,7 @@ import { OPEN_STATUSES, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requalificationDue } from "@/lib/changes/periodic";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { deviationsOfRecipe } from "@/lib/server/deviations/queries";
+import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { getRecipePage } from "@/lib/server/changes/queries";
 import { listPartFamilies } from "@/lib/server/plant/queries";
 import {
@@ -214,6 +215,7 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
           )}
         </div>
       </div>
+      <NcPanel roles={user.roles} where={{ recipeId: recipe.id }} />
     </>
   );
 }
