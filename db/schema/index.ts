@@ -10,3 +10,4 @@ export * from "./evidence";
 export * from "./audit";
 export * from "./email";
 export * from "./bath";
+export * from "./change-types";
