@@ -5,6 +5,7 @@ import * as appAccountTokensActions from "@/app/(app)/account/tokens/actions";
 import * as appActions from "@/app/(app)/actions";
 import * as appAdminActions from "@/app/(app)/admin/actions";
 import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
+import * as appAdminChangeControlActions from "@/app/(app)/admin/change-control/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
@@ -43,6 +44,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/actions.ts": appActions,
   "app/(app)/admin/actions.ts": appAdminActions,
   "app/(app)/admin/matrix/actions.ts": appAdminMatrixActions,
+  "app/(app)/admin/change-control/actions.ts": appAdminChangeControlActions,
   "app/(app)/changes/actions.ts": appChangesActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,

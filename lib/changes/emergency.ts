@@ -26,7 +26,12 @@ export function approvalDueProblem(dueOn: string, today: string, days: number): 
 }
 
 /** Statuses in which the approver has signed the change (it left "impact assessed" forwards). */
-const APPROVED: ChangeStatus[] = ["approved_for_implementation", "requalification", "verified", "closed"];
+const APPROVED: ChangeStatus[] = [
+  "approved_for_implementation",
+  "requalification",
+  "verified",
+  "closed",
+];
 
 export type EmergencyApprovalState = "approved" | "awaiting" | "overdue" | "ended";
 

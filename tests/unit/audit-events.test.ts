@@ -780,6 +780,82 @@ const SAMPLES = {
     old: { revokedAt: null },
     new: { name: "LIMS", prefix: "wp_ab12", revokedAt: AT },
   },
+  "change_control_settings.saved": {
+    eventType: "change_control_settings.saved",
+    recordType: "change_control_settings",
+    recordId: "change_control",
+    old: { emergencyApprovalDays: 3, effectivenessRuns: 3 },
+    new: { emergencyApprovalDays: 2, effectivenessRuns: 5 },
+  },
+  "change.emergency_implemented": {
+    eventType: "change.emergency_implemented",
+    recordType: "change_request",
+    recordId: UUID,
+    new: {
+      effectiveVersion: 3,
+      supersededVersion: 2,
+      approvalDueOn: "2026-12-05",
+      contentHash: "a".repeat(64),
+    },
+    reason: "Detergent supplier cannot deliver; the bath must be recharged today.",
+  },
+  "change.emergency_escalated": {
+    eventType: "change.emergency_escalated",
+    recordType: "change_request",
+    recordId: UUID,
+    new: { approvalDueOn: "2026-12-05", to: ["approver@fennmoor.example"] },
+  },
+  "recipe_version.emergency_reversed": {
+    eventType: "recipe_version.emergency_reversed",
+    recordType: "recipe_version",
+    recordId: UUID,
+    old: { status: "effective" },
+    new: {
+      status: "withdrawn",
+      effectiveTo: "2026-12-04T09:00:00.000Z",
+      changeRequest: "CR-2026-004",
+    },
+    reason: "Rejected: the substitute detergent foams at 60 °C.",
+  },
+  "recipe_version.restored": {
+    eventType: "recipe_version.restored",
+    recordType: "recipe_version",
+    recordId: UUID,
+    old: { status: "superseded" },
+    new: { status: "effective", changeRequest: "CR-2026-004" },
+    reason: "Rejected: the substitute detergent foams at 60 °C.",
+  },
+  "change.document_listed": {
+    eventType: "change.document_listed",
+    recordType: "change_request",
+    recordId: UUID,
+    new: { document: "WI-AW3-01", title: "Loading the baskets", entry: UUID },
+  },
+  "change.document_confirmed_unaffected": {
+    eventType: "change.document_confirmed_unaffected",
+    recordType: "change_request",
+    recordId: UUID,
+    old: { unaffectedReason: null },
+    new: { document: "WI-AW3-01", unaffectedReason: "Quotes the recipe by reference only." },
+  },
+  "change.effectiveness_check_opened": {
+    eventType: "change.effectiveness_check_opened",
+    recordType: "change_request",
+    recordId: UUID,
+    new: { requiredRuns: 3, countsFrom: "2026-12-04T09:00:00.000Z" },
+  },
+  "change.effectiveness_confirmed": {
+    eventType: "change.effectiveness_confirmed",
+    recordType: "change_request",
+    recordId: UUID,
+    new: { runs: ["TR-2026-010", "TR-2026-011", "TR-2026-012"], required: 3 },
+  },
+  "change.effectiveness_failed": {
+    eventType: "change.effectiveness_failed",
+    recordType: "change_request",
+    recordId: UUID,
+    new: { runs: ["TR-2026-010", "TR-2026-011"], required: 3, failedRun: "TR-2026-011" },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

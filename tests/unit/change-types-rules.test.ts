@@ -76,7 +76,11 @@ describe("effectiveness check after a change", () => {
   });
 
   it("is pending with no run, and counts k of N as passing runs arrive", () => {
-    expect(evaluateEffectiveness(3, [])).toMatchObject({ state: "pending", passed: 0, required: 3 });
+    expect(evaluateEffectiveness(3, [])).toMatchObject({
+      state: "pending",
+      passed: 0,
+      required: 3,
+    });
     expect(evaluateEffectiveness(3, [run(1, "pass", 3), run(2, "pass", 4)])).toMatchObject({
       state: "pending",
       passed: 2,
@@ -122,7 +126,9 @@ describe("affected documents before closure", () => {
   ): AffectedDocumentVersion => ({ version, status, createdAt, effectiveDate });
 
   it("counts only a version made after the change opened and put in force", () => {
-    expect(revisionSince([v(1, "effective", "2025-01-01T00:00:00.000Z", "2025-01-05")], opened)).toBeNull();
+    expect(
+      revisionSince([v(1, "effective", "2025-01-01T00:00:00.000Z", "2025-01-05")], opened),
+    ).toBeNull();
     expect(revisionSince([v(2, "approved", "2026-11-12T00:00:00.000Z", null)], opened)).toBeNull();
     expect(revisionSince([v(2, "draft", "2026-11-12T00:00:00.000Z", null)], opened)).toBeNull();
     expect(
@@ -141,7 +147,12 @@ describe("affected documents before closure", () => {
 
   it("refuses closure naming each document neither revised nor confirmed unaffected", () => {
     const missing = affectedDocumentsMissing([
-      { number: "WI-AW3-01", title: "Loading the baskets", revisedBy: null, unaffectedReason: null },
+      {
+        number: "WI-AW3-01",
+        title: "Loading the baskets",
+        revisedBy: null,
+        unaffectedReason: null,
+      },
       {
         number: "PQ-AW3-VB",
         title: "PQ protocol",
@@ -154,7 +165,12 @@ describe("affected documents before closure", () => {
         revisedBy: null,
         unaffectedReason: "Temperature limits are quoted by reference to the recipe, not copied.",
       },
-      { number: "PFMEA-3", title: "Process risk analysis", revisedBy: null, unaffectedReason: "  " },
+      {
+        number: "PFMEA-3",
+        title: "Process risk analysis",
+        revisedBy: null,
+        unaffectedReason: "  ",
+      },
     ]);
     expect(missing).toHaveLength(2);
     expect(missing[0]).toMatch(/^WI-AW3-01 Loading the baskets: /);

@@ -5,6 +5,7 @@ import { documentQueueProvider } from "@/lib/server/documents/queue-provider";
 import { bathQueueProvider } from "@/lib/server/bath/queue-provider";
 import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
 import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
+import { emergencyQueueProvider } from "@/lib/server/changes/emergency-queue-provider";
 import type { QueueItem, QueueProvider, QueueWindow } from "./types";
 
 /**
@@ -16,6 +17,7 @@ const PROVIDERS: QueueProvider[] = [
   evidenceQueueProvider,
   bathQueueProvider,
   changeQueueProvider,
+  emergencyQueueProvider,
 ];
 
 export const QUEUE_PAGE_SIZE = 50;

@@ -33,7 +33,20 @@ import {
   startRequalificationAction,
   verifyChangeAction,
   withdrawChangeAction,
+  implementEmergencyAction,
+  addAffectedDocumentAction,
+  confirmUnaffectedAction,
 } from "../actions";
+import {
+  AffectedDocumentsPanel,
+  EffectivenessPanel,
+  EmergencyBadge,
+  EmergencyFields,
+  EmergencyPanel,
+} from "@/components/changes/change-types-panels";
+import { showsEmergency } from "@/lib/changes/emergency";
+import { OPEN_STATUSES } from "@/lib/changes/workflow";
+import { getChangeTypesPanel } from "@/lib/server/changes/change-types-page";
 import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Change request" };
@@ -57,6 +70,8 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
     linked,
     candidates,
   } = page;
+  const types = await getChangeTypesPanel(cr);
+  const emergencyShown = types.emergency !== null && showsEmergency(cr.status);
   const may = (step: ChangeStep) =>
     can(user.roles, CHANGE_STEPS[step].permission) &&
     stepProblem(step, cr.status, requirements.length) === null;
@@ -76,6 +91,11 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         title={`${cr.number} · ${cr.title}`}
         description={
           <>
+            {emergencyShown && (
+              <>
+                <EmergencyBadge />{" "}
+              </>
+            )}
             Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[cr.status]}</span> ·{" "}
             {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
             <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
@@ -114,6 +134,26 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
               buttonLabel="Sign and submit impact assessment"
             />
           )}
+          {cr.status === "impact_assessed" &&
+            !types.emergency &&
+            page.assessmentRow.kind !== "initial_validation" &&
+            can(user.roles, "change.draft") && (
+              <SignatureDialog
+                action={implementEmergencyAction}
+                recordType="change_request"
+                meaning="authored"
+                signerName={user.name}
+                recordLabel={label}
+                contentHash={page.contentHash}
+                hidden={hidden}
+                buttonLabel="Implement now as emergency change"
+              >
+                <EmergencyFields
+                  latestDue={types.latestDue}
+                  days={types.settings.emergencyApprovalDays}
+                />
+              </SignatureDialog>
+            )}
           {may("approve") && (
             <SignatureDialog
               action={approveChangeAction}
@@ -181,6 +221,12 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         )}
       </section>
 
+      {types.emergency && types.approval && (
+        <EmergencyPanel emergency={types.emergency} approval={types.approval} />
+      )}
+
+      {types.effectiveness && <EffectivenessPanel result={types.effectiveness} />}
+
       {gateMatters && (
         <section
           aria-labelledby="gate"
@@ -246,6 +292,16 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           </p>
         </section>
       )}
+
+      <AffectedDocumentsPanel
+        changeRequestId={cr.id}
+        affected={types.affected}
+        register={types.register}
+        missing={types.documentsMissing}
+        editable={OPEN_STATUSES.includes(cr.status) && can(user.roles, "change.draft")}
+        addAction={addAffectedDocumentAction}
+        unaffectedAction={confirmUnaffectedAction}
+      />
 
       <section aria-labelledby="impact" className="mb-8">
         <h2 id="impact" className="mb-2 text-lg font-semibold">
