@@ -22,6 +22,7 @@ import {
 } from "./schema";
 import { seedEvidence } from "./seed-evidence";
 import { seedChangeControl } from "./seed-changes";
+import { seedChangeTypes } from "./seed-change-types";
 import {
   DEMO_COMPANY,
   DEMO_PART_FAMILIES,
@@ -227,6 +228,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     await seedEvidence(tx);
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
   });
+  await seedChangeTypes(db);
   // The statistics taken at migration described empty tables: the planner needs the seeded ones.
   await db.run(sql`ANALYZE`);
   return { seeded: true };
