@@ -7,6 +7,8 @@ import type { AffectedDocument } from "@/lib/changes/affected-documents";
 import type { EmergencyApprovalState } from "@/lib/changes/emergency";
 import type { EffectivenessResult } from "@/lib/changes/effectiveness";
 import { formatDate, formatDateTime } from "@/lib/format/date";
+import type { CustomerApprovalResult } from "@/lib/changes/customer-approval";
+import { CustomerLetterUpload } from "./customer-letter-upload";
 
 type Action = (prev: FormState, formData: FormData) => Promise<FormState>;
 
@@ -202,6 +204,80 @@ export function EffectivenessPanel({ result }: { result: EffectivenessResult }) 
           : " None verified yet."}
         {result.failedRun ? ` ${result.failedRun} did not pass.` : ""}
       </p>
+    </section>
+  );
+}
+
+export function CustomerApprovalPanel({
+  changeRequestId,
+  result,
+  editable,
+  today,
+  action,
+}: {
+  changeRequestId: string;
+  result: CustomerApprovalResult;
+  editable: boolean;
+  today: string;
+  action: Action;
+}) {
+  return (
+    <section
+      aria-labelledby="customer-approval"
+      className="mb-8 rounded-lg border border-stone-200 bg-white p-5"
+    >
+      <h2 id="customer-approval" className="text-base font-semibold">
+        Customer approval: {result.holds ? "given" : "required"}
+      </h2>
+      <p className="mt-1 text-sm text-stone-600">
+        A major change to a process whose specification says the customer must approve process
+        changes takes force only with the customer&apos;s recorded approval.
+      </p>
+      <ul className="mt-3 space-y-4 text-sm">
+        {result.specs.map(({ spec, decision }) => (
+          <li key={spec.id} className="rounded-md border border-stone-200 p-3">
+            <p>
+              <span className="font-medium">{spec.label}</span>:{" "}
+              {decision
+                ? `${decision.decision === "approved" ? "approved" : "rejected"} by the customer on ${decision.decidedOn} (${decision.reference})`
+                : "no decision recorded"}
+            </p>
+            {decision?.decision === "rejected" && (
+              <p className="mt-1 font-medium text-red-800">
+                The customer rejected this change: the new version cannot take force. Rework the
+                change and record the customer&apos;s new decision, or withdraw it.
+              </p>
+            )}
+            {editable && (
+              <ActionForm
+                action={action}
+                aria-label={`Customer decision for ${spec.label}`}
+                className="mt-3 grid gap-3 sm:grid-cols-2"
+              >
+                <input type="hidden" name="changeRequestId" value={changeRequestId} />
+                <input type="hidden" name="specId" value={spec.id} />
+                <SelectField
+                  name="decision"
+                  label="Customer's decision"
+                  placeholder="Choose…"
+                  options={[
+                    { value: "approved", label: "Approved" },
+                    { value: "rejected", label: "Rejected" },
+                  ]}
+                />
+                <Field name="decidedOn" label="Decided on" type="date" defaultValue={today} />
+                <Field name="reference" label="Customer's reference" />
+                <CustomerLetterUpload label="Customer's letter" />
+                <div className="sm:col-span-2">
+                  <SubmitButton variant="secondary">
+                    Record the customer&apos;s decision
+                  </SubmitButton>
+                </div>
+              </ActionForm>
+            )}
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }

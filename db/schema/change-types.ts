@@ -4,6 +4,8 @@ import { changeRequests } from "./changes";
 import { documents } from "./documents";
 import { users } from "./people";
 import { signatures } from "./audit";
+import { evidenceFiles } from "./evidence";
+import { cleanlinessSpecs } from "./parts";
 
 // ── Change control: emergency changes, effectiveness checks, affected documents ──
 
@@ -86,3 +88,35 @@ export const changeAffectedDocuments = sqliteTable(
   (t) => [uniqueIndex("change_affected_documents_uq").on(t.changeRequestId, t.documentId)],
 );
 export type ChangeAffectedDocument = typeof changeAffectedDocuments.$inferSelect;
+
+/**
+ * The customer's recorded decision on a change, for one specification revision that says the
+ * customer must approve process changes. The latest record for a specification counts; earlier
+ * ones stay as history (a rejection, then an approval of the reworked change).
+ */
+export const changeCustomerDecisions = sqliteTable(
+  "change_customer_decisions",
+  {
+    id: id(),
+    changeRequestId: text("change_request_id")
+      .notNull()
+      .references(() => changeRequests.id),
+    specId: text("spec_id")
+      .notNull()
+      .references(() => cleanlinessSpecs.id),
+    decision: text("decision", { enum: ["approved", "rejected"] }).notNull(),
+    /** Calendar date (YYYY-MM-DD) of the customer's letter. */
+    decidedOn: text("decided_on").notNull(),
+    /** The customer's reference for the decision (letter or deviation number). */
+    reference: text("reference").notNull(),
+    letterFileId: text("letter_file_id")
+      .notNull()
+      .references(() => evidenceFiles.id),
+    recordedBy: text("recorded_by")
+      .notNull()
+      .references(() => users.id),
+    recordedAt: createdAt(),
+  },
+  (t) => [index("change_customer_decisions_change_idx").on(t.changeRequestId)],
+);
+export type ChangeCustomerDecision = typeof changeCustomerDecisions.$inferSelect;

@@ -648,6 +648,22 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
   event("change.effectiveness_failed", "change_request", {
     new: obj({ runs: z.array(text), required: count, failedRun: text }),
   }),
+  event("evidence_file.customer_letter_uploaded", "evidence_file", {
+    new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
+  }),
+  event("change.customer_decision_recorded", "change_request", {
+    old: obj({ decision: z.enum(["approved", "rejected"]) })
+      .nullable()
+      .default(null),
+    new: obj({
+      specification: text,
+      decision: z.enum(["approved", "rejected"]),
+      decidedOn: isoDate,
+      reference: text,
+      letterSha256: sha256,
+      entry: id,
+    }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

@@ -26,6 +26,7 @@ import * as apiEvidenceRunsRoute from "@/app/api/evidence/runs/route";
 import * as apiPartsExportRoute from "@/app/api/parts/export/route";
 import * as apiPartsImportRoute from "@/app/api/parts/import/route";
 import * as apiPartsSpecsSourceRoute from "@/app/api/parts/specs/source/route";
+import * as apiChangesCustomerLetterRoute from "@/app/api/changes/customer-letter/route";
 import * as apiQueueRoute from "@/app/api/queue/route";
 import * as apiTraceParametersRoute from "@/app/api/trace/parameters/route";
 import * as apiV1OpenapiJsonRoute from "@/app/api/v1/openapi.json/route";
@@ -66,6 +67,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/parts/export/route.ts": apiPartsExportRoute,
   "app/api/parts/import/route.ts": apiPartsImportRoute,
   "app/api/parts/specs/source/route.ts": apiPartsSpecsSourceRoute,
+  "app/api/changes/customer-letter/route.ts": apiChangesCustomerLetterRoute,
   "app/api/queue/route.ts": apiQueueRoute,
   "app/api/trace/parameters/route.ts": apiTraceParametersRoute,
   "app/api/v1/openapi.json/route.ts": apiV1OpenapiJsonRoute,

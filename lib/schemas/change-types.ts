@@ -38,3 +38,15 @@ export const changeControlSettingsSchema = z.object({
   emergencyApprovalDays: whole(1, 30, "days"),
   effectivenessRuns: whole(1, 20, "runs"),
 });
+
+/** The customer's decision on a change, for one specification that asks for it. */
+export const customerDecisionSchema = changeIdSchema.extend({
+  specId: z.uuid(),
+  decision: z.enum(["approved", "rejected"], { error: "Choose the customer's decision." }),
+  decidedOn: calendarDate("Enter the date of the customer's decision."),
+  reference: storedText()
+    .trim()
+    .min(2, "Give the customer's reference (letter or approval number).")
+    .max(120),
+  letterFileId: z.uuid({ error: "Upload the customer's letter." }),
+});

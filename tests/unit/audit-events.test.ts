@@ -856,6 +856,32 @@ const SAMPLES = {
     recordId: UUID,
     new: { runs: ["TR-2026-010", "TR-2026-011"], required: 3, failedRun: "TR-2026-011" },
   },
+  "evidence_file.customer_letter_uploaded": {
+    eventType: "evidence_file.customer_letter_uploaded",
+    recordType: "evidence_file",
+    recordId: UUID,
+    new: {
+      sha256: H,
+      name: "NH approval 2026-114.pdf",
+      mimeType: "application/pdf",
+      sizeBytes: 30211,
+      storedNew: true,
+    },
+  },
+  "change.customer_decision_recorded": {
+    eventType: "change.customer_decision_recorded",
+    recordType: "change_request",
+    recordId: UUID,
+    old: null,
+    new: {
+      specification: "NH-CL-7 rev 2 (Norrland Hydraulics)",
+      decision: "approved",
+      decidedOn: "2026-11-28",
+      reference: "NH-QA-2026-114",
+      letterSha256: H,
+      entry: UUID,
+    },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

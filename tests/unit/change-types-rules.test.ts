@@ -12,6 +12,7 @@ import {
   revisionSince,
   type AffectedDocumentVersion,
 } from "@/lib/changes/affected-documents";
+import { evaluateCustomerApproval } from "@/lib/changes/customer-approval";
 
 // Rules from issue #13 items 3, 5 and 6; the default of 3 days and 3 runs is the issue's.
 describe("emergency approval deadline", () => {
@@ -176,5 +177,73 @@ describe("affected documents before closure", () => {
     expect(missing[0]).toMatch(/^WI-AW3-01 Loading the baskets: /);
     expect(missing[1]).toMatch(/^PFMEA-3 /);
     expect(affectedDocumentsMissing([])).toEqual([]);
+  });
+});
+
+describe("customer approval gate", () => {
+  const spec = (id: string, asks: boolean) => ({
+    id,
+    label: `SPEC-${id} rev 1 (Norrland Hydraulics)`,
+    customerApprovesChanges: asks,
+  });
+  const decision = (specId: string, d: "approved" | "rejected", recordedAt: string) => ({
+    specId,
+    decision: d,
+    decidedOn: recordedAt.split("T")[0],
+    reference: `NH-${specId}`,
+    recordedAt,
+  });
+
+  it("asks nothing of a minor change, nor of a specification that does not require it", () => {
+    expect(evaluateCustomerApproval("minor", [spec("A", true)], [])).toMatchObject({
+      required: false,
+      holds: true,
+    });
+    expect(evaluateCustomerApproval("major", [spec("B", false)], [])).toMatchObject({
+      required: false,
+      holds: true,
+    });
+  });
+
+  it("holds a major change until each asking specification has the customer's approval", () => {
+    const specs = [spec("A", true), spec("B", true), spec("C", false)];
+    const none = evaluateCustomerApproval("major", specs, []);
+    expect(none).toMatchObject({ required: true, holds: false });
+    expect(none.missing).toEqual([
+      "SPEC-A rev 1 (Norrland Hydraulics): the customer's decision is not recorded",
+      "SPEC-B rev 1 (Norrland Hydraulics): the customer's decision is not recorded",
+    ]);
+    const one = evaluateCustomerApproval("major", specs, [
+      decision("A", "approved", "2026-11-20T10:00:00.000Z"),
+    ]);
+    expect(one.missing).toHaveLength(1);
+    expect(
+      evaluateCustomerApproval("major", specs, [
+        decision("A", "approved", "2026-11-20T10:00:00.000Z"),
+        decision("B", "approved", "2026-11-21T10:00:00.000Z"),
+      ]).holds,
+    ).toBe(true);
+  });
+
+  it("blocks on a rejection with a plain message, and the latest decision counts", () => {
+    const rejected = evaluateCustomerApproval(
+      "major",
+      [spec("A", true)],
+      [decision("A", "rejected", "2026-11-20T10:00:00.000Z")],
+    );
+    expect(rejected.holds).toBe(false);
+    expect(rejected.missing[0]).toBe(
+      "SPEC-A rev 1 (Norrland Hydraulics): the customer rejected this change on 2026-11-20 (NH-A)",
+    );
+    expect(
+      evaluateCustomerApproval(
+        "major",
+        [spec("A", true)],
+        [
+          decision("A", "approved", "2026-11-25T10:00:00.000Z"),
+          decision("A", "rejected", "2026-11-20T10:00:00.000Z"),
+        ],
+      ).holds,
+    ).toBe(true);
   });
 });

@@ -189,7 +189,8 @@ describe("emergency change (issue #13 item 3)", () => {
     expect(await escalateOverdueEmergencyApprovals(new Date(later.getTime() + DAY))).toBe(0);
 
     const admin = { ...people.admin, roles: ["admin"] } as never;
-    const mine = (items: { href: string }[]) => items.filter((i) => i.href === `/changes/${crId}`);
+    const mine = <T extends { href: string }>(items: T[]) =>
+      items.filter((i) => i.href === `/changes/${crId}`);
     const overdue = mine((await emergencyQueueProvider(admin, later)).items);
     expect(overdue).toHaveLength(1);
     expect(overdue[0]).toMatchObject({ kind: "Emergency approval overdue" });

@@ -25,6 +25,7 @@ import { startRequalification } from "@/lib/server/changes/start-requalification
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import {
   affectedDocumentSchema,
+  customerDecisionSchema,
   emergencySchema,
   unaffectedSchema,
 } from "@/lib/schemas/change-types";
@@ -33,6 +34,7 @@ import {
   confirmDocumentUnaffected,
 } from "@/lib/server/changes/affected-documents";
 import { implementEmergency } from "@/lib/server/changes/implement-emergency";
+import { recordCustomerDecision } from "@/lib/server/changes/customer-approval";
 
 const refresh = (changeRequestId: string): RevalidateTarget[] => [
   `/changes/${changeRequestId}`,
@@ -214,6 +216,17 @@ export const confirmUnaffectedAction = defineAction({
   run: async ({ user, input }) => {
     await confirmDocumentUnaffected(user, input);
     return { message: "Confirmed unaffected." };
+  },
+  revalidate: refreshChange,
+});
+
+export const recordCustomerDecisionAction = defineAction({
+  permission: "change.draft",
+  input: customerDecisionSchema,
+  invalidMessage: "Not recorded: see the fields marked below. Nothing you typed was lost.",
+  run: async ({ user, input }) => {
+    await recordCustomerDecision(user, input);
+    return { message: `Recorded: the customer ${input.decision} the change.` };
   },
   revalidate: refreshChange,
 });

@@ -2,19 +2,20 @@ import "server-only";
 import { getDb } from "@/db/client";
 import { emergencyApprovalState, latestApprovalDue } from "@/lib/changes/emergency";
 import { affectedDocumentsMissing } from "@/lib/changes/affected-documents";
-import type { ChangeStatus } from "@/lib/changes/workflow";
 import { todayUtc } from "@/lib/format/date";
 import { listControlledDocuments, loadAffectedDocuments } from "./affected-documents";
 import { loadEffectiveness } from "./effectiveness";
 import { loadEmergencies } from "./emergencies";
 import { getChangeControlSettings } from "./settings";
+import { loadCustomerApproval } from "./customer-approval";
 
 /** What a change request's page shows of its emergency, affected documents and effectiveness check. */
 export async function getChangeTypesPanel(
-  cr: { id: string; createdAt: string; status: ChangeStatus },
+  state: Parameters<typeof loadCustomerApproval>[1],
   now = new Date(),
 ) {
   const db = getDb();
+  const cr = state.cr;
   const today = todayUtc(now);
   const emergency = (await loadEmergencies(db, [cr.id])).get(cr.id) ?? null;
   const settings = await getChangeControlSettings(db);
@@ -34,5 +35,6 @@ export async function getChangeTypesPanel(
     documentsMissing: affectedDocumentsMissing(affected),
     register,
     effectiveness,
+    customer: await loadCustomerApproval(db, state),
   };
 }

@@ -16,6 +16,7 @@ import { affectedDocumentsMissing } from "@/lib/changes/affected-documents";
 import { loadAffectedDocuments } from "./affected-documents";
 import { openEffectivenessCheck } from "./effectiveness";
 import { loadEmergencies } from "./emergencies";
+import { assertCustomerApproval } from "./customer-approval";
 
 /**
  * Closes a verified change: in one transaction the old version is superseded, the
@@ -51,6 +52,7 @@ export async function closeChange(
       throw new UserFacingError(
         `Not closed: each affected document must be revised through the document workflow or confirmed unaffected with a reason. Missing: ${documentsMissing.join("; ")}.`,
       );
+    await assertCustomerApproval(tx, state);
     // An emergency change put its version in force when it was implemented: closing keeps it so.
     const inForce = (await loadEmergencies(tx, [state.cr.id])).has(state.cr.id);
     const at = now.toISOString();

@@ -9,6 +9,7 @@ import { UserFacingError } from "@/lib/server/errors";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
 import { assertHash } from "./guard";
+import { assertCustomerApproval } from "./customer-approval";
 import { enqueueEmail } from "@/lib/email/outbox";
 import { emergencyImplementedEmail } from "@/templates/email/emergency-change";
 import { usersWithRole } from "./snapshot";
@@ -80,6 +81,8 @@ export async function implementEmergencyIn(
       { kind: "conflict" },
     );
 
+  // The customer's approval is required before the new version takes force, emergency or not.
+  await assertCustomerApproval(tx, state);
   const signature = await applySignature(
     tx,
     {

@@ -36,9 +36,11 @@ import {
   implementEmergencyAction,
   addAffectedDocumentAction,
   confirmUnaffectedAction,
+  recordCustomerDecisionAction,
 } from "../actions";
 import {
   AffectedDocumentsPanel,
+  CustomerApprovalPanel,
   EffectivenessPanel,
   EmergencyBadge,
   EmergencyFields,
@@ -70,7 +72,7 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
     linked,
     candidates,
   } = page;
-  const types = await getChangeTypesPanel(cr);
+  const types = await getChangeTypesPanel(page);
   const emergencyShown = types.emergency !== null && showsEmergency(cr.status);
   const may = (step: ChangeStep) =>
     can(user.roles, CHANGE_STEPS[step].permission) &&
@@ -226,6 +228,16 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
       )}
 
       {types.effectiveness && <EffectivenessPanel result={types.effectiveness} />}
+
+      {types.customer.required && (
+        <CustomerApprovalPanel
+          changeRequestId={cr.id}
+          result={types.customer}
+          editable={OPEN_STATUSES.includes(cr.status) && can(user.roles, "change.draft")}
+          today={types.today}
+          action={recordCustomerDecisionAction}
+        />
+      )}
 
       {gateMatters && (
         <section

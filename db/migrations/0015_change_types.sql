@@ -23,6 +23,23 @@ CREATE TABLE `change_control_settings` (
 	FOREIGN KEY (`updated_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action
 );
 --> statement-breakpoint
+CREATE TABLE `change_customer_decisions` (
+	`id` text PRIMARY KEY NOT NULL,
+	`change_request_id` text NOT NULL,
+	`spec_id` text NOT NULL,
+	`decision` text NOT NULL,
+	`decided_on` text NOT NULL,
+	`reference` text NOT NULL,
+	`letter_file_id` text NOT NULL,
+	`recorded_by` text NOT NULL,
+	`created_at` text NOT NULL,
+	FOREIGN KEY (`change_request_id`) REFERENCES `change_requests`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`spec_id`) REFERENCES `cleanliness_specs`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`letter_file_id`) REFERENCES `evidence_files`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`recorded_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action
+);
+--> statement-breakpoint
+CREATE INDEX `change_customer_decisions_change_idx` ON `change_customer_decisions` (`change_request_id`);--> statement-breakpoint
 CREATE TABLE `change_effectiveness_checks` (
 	`change_request_id` text PRIMARY KEY NOT NULL,
 	`required_runs` integer NOT NULL,
