@@ -1,4 +1,5 @@
 import "server-only";
+import { loadEmergencies } from "@/lib/server/changes/emergencies";
 import { asc, inArray } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { auditEvents } from "@/db/schema";
@@ -44,8 +45,10 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
     // The newest checkpoint alone detects a re-chained rewrite before it; the full check on the integrity page reads them all.
     compareChainWithCheckpoints(db, { newestOnly: true }),
   ]);
+  const emergency = (await loadEmergencies(db, [changeRequestId])).get(changeRequestId) ?? null;
   return {
     cr: state.cr,
+    emergency,
     kind: state.assessmentRow.kind,
     revision: state.assessmentRow.revision,
     raiseReason: state.assessmentRow.raiseReason,

@@ -1,4 +1,6 @@
 import "server-only";
+import { loadEmergencies } from "@/lib/server/changes/emergencies";
+import { showsEmergency } from "@/lib/changes/emergency";
 import { asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import {
@@ -143,6 +145,7 @@ export async function getParameterHistory(input: { recipeId: string; key: string
   const states = await loadChangeStates(db, shown);
   const signaturesOf = await changeSignaturesOf(db, shown);
   const evidenceOf = await changeEvidenceOf(db, shown);
+  const emergencies = await loadEmergencies(db, shown);
   const versionById = new Map(versions.map((v) => [v.v.id, v]));
   const entries = timeline.map((period) => {
     const cr = changes.find((c) => c.toVersionId === period.introducedBy.versionId);
@@ -169,6 +172,8 @@ export async function getParameterHistory(input: { recipeId: string; key: string
         number: cr.number,
         title: cr.title,
         status: cr.status,
+        /** Implemented before approval; the page says "Emergency" until it is closed. */
+        emergency: emergencies.has(cr.id) && showsEmergency(cr.status),
         impact: state.impact,
         author: version.author,
         openedAt: cr.createdAt,

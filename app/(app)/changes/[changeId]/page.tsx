@@ -218,7 +218,8 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         {(cr.status === "rejected" || cr.status === "withdrawn") && (
           <p className="mt-2 text-sm">
             {CHANGE_STATUS_LABELS[cr.status]} on {formatDate(cr.closedAt)}; proposed version{" "}
-            {toVersion.version} was withdrawn.
+            {toVersion.version} was withdrawn
+            {types.emergency ? "; the version it replaced is back in force" : ""}.
           </p>
         )}
       </section>
