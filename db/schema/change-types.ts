@@ -1,5 +1,5 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import { createdAt, id } from "./columns";
+import { id } from "./columns";
 import { changeRequests } from "./changes";
 import { documents } from "./documents";
 import { users } from "./people";
@@ -80,7 +80,7 @@ export const changeAffectedDocuments = sqliteTable(
     addedBy: text("added_by")
       .notNull()
       .references(() => users.id),
-    addedAt: createdAt(),
+    addedAt: text("added_at").notNull(),
     unaffectedReason: text("unaffected_reason"),
     confirmedBy: text("confirmed_by").references(() => users.id),
     confirmedAt: text("confirmed_at"),
@@ -115,7 +115,7 @@ export const changeCustomerDecisions = sqliteTable(
     recordedBy: text("recorded_by")
       .notNull()
       .references(() => users.id),
-    recordedAt: createdAt(),
+    recordedAt: text("recorded_at").notNull(),
   },
   (t) => [index("change_customer_decisions_change_idx").on(t.changeRequestId)],
 );
