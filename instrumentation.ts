@@ -46,6 +46,16 @@ export async function register() {
       .catch((error) => console.error("nonconformance reminders failed", error));
   setTimeout(remindNonconformances, 5_000).unref();
   setInterval(remindNonconformances, 3_600_000).unref();
+  // Emergency changes past their approval date are escalated once; decided effectiveness checks recorded.
+  const { escalateOverdueEmergencyApprovals } =
+    await import("@/lib/server/changes/escalate-emergency-approvals");
+  const { recordEffectivenessOutcomes } = await import("@/lib/server/changes/effectiveness");
+  const changeFollowUp = () =>
+    Promise.all([escalateOverdueEmergencyApprovals(), recordEffectivenessOutcomes()])
+      .then(() => deliverDueEmails())
+      .catch((error) => console.error("emergency escalation or effectiveness pass failed", error));
+  setTimeout(changeFollowUp, 5_000).unref();
+  setInterval(changeFollowUp, 15 * 60_000).unref();
   const { env } = await import("@/lib/env");
   const { writeCheckpoint } = await import("@/lib/server/audit/write-checkpoint");
   // Skipped when the head has not moved, so an idle system writes nothing.

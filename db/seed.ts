@@ -22,6 +22,7 @@ import { seedDeviations } from "./seed-deviations";
 import { seedCycles } from "./seed-cycles";
 import { seedLabReport } from "./seed-lab-report";
 import { seedNonconformances } from "./seed-nonconformances";
+import { seedChangeTypes } from "./seed-change-types";
 import {
   DEMO_COMPANY,
   DEMO_PART_FAMILIES,
@@ -318,6 +319,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
         approver: person("approver@fennmoor.example"),
       });
   });
+  await seedChangeTypes(db);
   // The statistics taken at migration described empty tables: the planner needs the seeded ones.
   await db.run(sql`ANALYZE`);
   return { seeded: true };

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { EmergencyBadge } from "@/components/changes/change-types-panels";
 import { humanize } from "@/lib/format/labels";
 import { formatBytes, rangeWithUnit, withUnit } from "@/lib/format/number";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
@@ -130,7 +131,8 @@ function TimelineEntry({
               >
                 {change.number}
               </Link>{" "}
-              · {change.title} · {CHANGE_STATUS_LABELS[change.status]} · impact{" "}
+              {change.emergency && <EmergencyBadge />} · {change.title} ·{" "}
+              {CHANGE_STATUS_LABELS[change.status]} · impact{" "}
               <span className="font-semibold">{humanize(change.impact)}</span> · opened by{" "}
               {change.author ?? "—"} on {formatDate(change.openedAt)}
               {change.closedAt ? `, closed ${formatDate(change.closedAt)}` : ""}

@@ -18,3 +18,4 @@ export * from "./document-rounds";
 export * from "./cycles";
 export * from "./lab-report";
 export * from "./nonconformances";
+export * from "./change-types";

@@ -851,6 +851,62 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       to: z.array(text),
     }),
   }),
+  // Change types: emergency changes, affected documents, effectiveness checks
+  event("change_control_settings.saved", "change_control_settings", {
+    old: obj({ emergencyApprovalDays: count, effectivenessRuns: count }),
+    new: obj({ emergencyApprovalDays: count, effectivenessRuns: count }),
+  }),
+  event("change.emergency_implemented", "change_request", {
+    new: obj({
+      effectiveVersion: version,
+      supersededVersion: version,
+      approvalDueOn: isoDate,
+      contentHash: sha256,
+    }),
+  }),
+  event("change.emergency_escalated", "change_request", {
+    new: obj({ approvalDueOn: isoDate, to: z.array(text) }),
+  }),
+  event("recipe_version.emergency_reversed", "recipe_version", {
+    old: obj({ status: z.literal("effective") }),
+    new: obj({ status: z.literal("withdrawn"), effectiveTo: isoTime, changeRequest: text }),
+  }),
+  event("recipe_version.restored", "recipe_version", {
+    old: obj({ status: z.literal("superseded") }),
+    new: obj({ status: z.literal("effective"), changeRequest: text }),
+  }),
+  event("change.document_listed", "change_request", {
+    new: obj({ document: text, title: text, entry: id }),
+  }),
+  event("change.document_confirmed_unaffected", "change_request", {
+    old: obj({ unaffectedReason: text.nullable() }),
+    new: obj({ document: text, unaffectedReason: text }),
+  }),
+  event("change.effectiveness_check_opened", "change_request", {
+    new: obj({ requiredRuns: count, countsFrom: isoTime }),
+  }),
+  event("change.effectiveness_confirmed", "change_request", {
+    new: obj({ runs: z.array(text), required: count }),
+  }),
+  event("change.effectiveness_failed", "change_request", {
+    new: obj({ runs: z.array(text), required: count, failedRun: text }),
+  }),
+  event("evidence_file.customer_letter_uploaded", "evidence_file", {
+    new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
+  }),
+  event("change.customer_decision_recorded", "change_request", {
+    old: obj({ decision: z.enum(["approved", "rejected"]) })
+      .nullable()
+      .default(null),
+    new: obj({
+      specification: text,
+      decision: z.enum(["approved", "rejected"]),
+      decidedOn: isoDate,
+      reference: text,
+      letterSha256: sha256,
+      entry: id,
+    }),
+  }),
 ]);
 
 export type AuditEventInput = z.input<typeof auditEventSchema>;

@@ -5,6 +5,7 @@ import * as appAccountTokensActions from "@/app/(app)/account/tokens/actions";
 import * as appActions from "@/app/(app)/actions";
 import * as appAdminActions from "@/app/(app)/admin/actions";
 import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
+import * as appAdminChangeControlActions from "@/app/(app)/admin/change-control/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDeviationsActions from "@/app/(app)/deviations/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
@@ -36,6 +37,7 @@ import * as apiPartsExportRoute from "@/app/api/parts/export/route";
 import * as apiPartsFamiliesFamilyidPictureRoute from "@/app/api/parts/families/[familyId]/picture/route";
 import * as apiPartsImportRoute from "@/app/api/parts/import/route";
 import * as apiPartsSpecsSourceRoute from "@/app/api/parts/specs/source/route";
+import * as apiChangesCustomerLetterRoute from "@/app/api/changes/customer-letter/route";
 import * as apiQueueRoute from "@/app/api/queue/route";
 import * as apiRecipesRecipeidCsvRoute from "@/app/api/recipes/[recipeId]/csv/route";
 import * as apiSystemsSystemidRecipesImportRoute from "@/app/api/systems/[systemId]/recipes/import/route";
@@ -56,6 +58,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/actions.ts": appActions,
   "app/(app)/admin/actions.ts": appAdminActions,
   "app/(app)/admin/matrix/actions.ts": appAdminMatrixActions,
+  "app/(app)/admin/change-control/actions.ts": appAdminChangeControlActions,
   "app/(app)/changes/actions.ts": appChangesActions,
   "app/(app)/deviations/actions.ts": appDeviationsActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
@@ -88,6 +91,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/parts/families/[familyId]/picture/route.ts": apiPartsFamiliesFamilyidPictureRoute,
   "app/api/parts/import/route.ts": apiPartsImportRoute,
   "app/api/parts/specs/source/route.ts": apiPartsSpecsSourceRoute,
+  "app/api/changes/customer-letter/route.ts": apiChangesCustomerLetterRoute,
   "app/api/queue/route.ts": apiQueueRoute,
   "app/api/recipes/[recipeId]/csv/route.ts": apiRecipesRecipeidCsvRoute,
   "app/api/systems/[systemId]/recipes/import/route.ts": apiSystemsSystemidRecipesImportRoute,

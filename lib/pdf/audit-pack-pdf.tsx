@@ -1,4 +1,5 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
+import { showsEmergency } from "@/lib/changes/emergency";
 import type { ReactNode } from "react";
 import { humanize } from "@/lib/format/labels";
 import { formatBytes, rangeWithUnit, withUnit } from "@/lib/format/number";
@@ -198,7 +199,20 @@ function AuditPackPdf({ pack, printedAt, printedBy, letterhead }: AuditPackPdfIn
         <KV k="Change request">
           {cr.number} · {CHANGE_KIND_LABELS[pack.kind]} · revision {pack.revision}
         </KV>
-        <KV k="Status">{CHANGE_STATUS_LABELS[cr.status]}</KV>
+        <KV k="Status">
+          {pack.emergency && showsEmergency(cr.status) ? "EMERGENCY · " : ""}
+          {CHANGE_STATUS_LABELS[cr.status]}
+        </KV>
+        {pack.emergency && (
+          <KV k="Emergency change">
+            In force before approval from {formatDateTime(pack.emergency.implementedAt)}, signed by{" "}
+            {pack.emergency.implementedByName}; approval due by {pack.emergency.approvalDueOn}
+            {pack.emergency.escalatedAt
+              ? `, escalated ${formatDateTime(pack.emergency.escalatedAt)}`
+              : ""}
+            . Why: {pack.emergency.justification}
+          </KV>
+        )}
         <KV k="Recipe">
           {pack.recipe.code} {pack.recipe.name}:{" "}
           {pack.fromVersion

@@ -338,6 +338,24 @@ test("a wash temperature above its validated range is major, is requalified with
   await expect(reviewer.getByRole("heading", { level: 1 }).locator("..")).toContainText("Verified");
   await reviewer.close();
 
+  // CS-VB-01 asks its customer to approve process changes: the engineer records their letter.
+  const engineer = await as(browser, "engineer", changeUrl);
+  await expect(
+    engineer.getByRole("heading", { name: "Customer approval: required" }),
+  ).toBeVisible();
+  const decision = engineer.getByRole("form", { name: /^Customer decision for CS-VB-01/ });
+  await decision.getByLabel("Customer's decision").selectOption({ label: "Approved" });
+  await decision.getByLabel("Customer's reference").fill("HIS-QA-2026-114");
+  await decision.getByLabel("Customer's letter").setInputFiles({
+    name: "HIS change approval.pdf",
+    mimeType: "application/pdf",
+    buffer: LAB_REPORT,
+  });
+  await expect(decision.getByText(/stored \(SHA-256/)).toBeVisible();
+  await decision.getByRole("button", { name: "Record the customer's decision" }).click();
+  await expect(engineer.getByRole("heading", { name: "Customer approval: given" })).toBeVisible();
+  await engineer.close();
+
   const closer = await as(browser, "approver", changeUrl);
   await closer.getByRole("button", { name: "Close and make effective" }).click();
   await expect(closer.getByText(`version ${toVersion} is effective.`)).toBeVisible();

@@ -177,7 +177,7 @@ describe("reading", () => {
       seen.push(...body.data.map((r) => r.code));
       cursor = body.nextCursor;
     } while (cursor);
-    expect(seen).toEqual(["R-AW3-PH", "R-AW3-VB", "R-SC1-SF"]);
+    expect(seen).toEqual(["R-AW3-BC", "R-AW3-PH", "R-AW3-VB", "R-SC1-SF"]);
   });
 
   it("refuses unknown query parameters, wrong types and forged cursors with 400 naming the field", async () => {

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   auditEvents,
   changeRequests,
+  cleanlinessSpecs,
   documentVersions,
   emailOutbox,
   partFamilies,
@@ -38,6 +39,9 @@ import { sendRequalificationReminders } from "@/lib/server/changes/send-requalif
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { verifyChange } from "@/lib/server/changes/verify-change";
+import { customerDecisionSchema } from "@/lib/schemas/change-types";
+import { recordCustomerDecision } from "@/lib/server/changes/customer-approval";
+import { storeCustomerLetter } from "@/lib/server/changes/store-customer-letter";
 import { versionMatrix } from "@/lib/server/matrix/version-matrix";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { reviseRun } from "@/lib/server/evidence/revise-run";
@@ -498,6 +502,38 @@ describe("a major change from proposal to closure", () => {
       (await t.db.select().from(changeRequests).where(eq(changeRequests.id, crId)))[0].status,
     ).toBe("requalification");
     await verifyChange(people.reviewer, await signing(crId));
+    // CS-VB-01 says its customer approves process changes: a major change waits for that decision.
+    await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow(
+      "Not made effective: the customer must approve this major change first. CS-VB-01 rev C (Harrowgate Injection Systems): the customer's decision is not recorded.",
+    );
+    const [spec] = await t.db
+      .select()
+      .from(cleanlinessSpecs)
+      .where(and(eq(cleanlinessSpecs.code, "CS-VB-01"), eq(cleanlinessSpecs.status, "in_force")));
+    const letter = await storeCustomerLetter(people.engineer, {
+      name: "HIS change approval.pdf",
+      bytes: new TextEncoder().encode(
+        "%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n",
+      ),
+    });
+    const decision = {
+      changeRequestId: crId,
+      specId: spec.id,
+      decidedOn: "2026-11-20",
+      reference: "HIS-QA-2026-114",
+      letterFileId: letter.id,
+    };
+    expect(
+      customerDecisionSchema
+        .safeParse({ ...decision, decision: "approved", letterFileId: "", reference: "" })
+        .error?.issues.map((i) => i.path[0])
+        .sort(),
+    ).toEqual(["letterFileId", "reference"]);
+    await recordCustomerDecision(people.engineer, { ...decision, decision: "rejected" });
+    await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow(
+      "the customer rejected this change on 2026-11-20 (HIS-QA-2026-114)",
+    );
+    await recordCustomerDecision(people.engineer, { ...decision, decision: "approved" });
     await closeChange(people.approver, { changeRequestId: crId });
 
     const versions = await t.db

@@ -4,6 +4,7 @@ import {
   auditEvents,
   changeRequests,
   cleaningSystems,
+  cleanlinessSpecs,
   partFamilies,
   recipeVersions,
   requalificationIntervals,
@@ -31,6 +32,8 @@ import { startRequalification } from "@/lib/server/changes/start-requalification
 import { getRecipeVersionPage } from "@/lib/server/changes/queries";
 import { loadChangeState } from "@/lib/server/changes/state";
 import { verifyChange } from "@/lib/server/changes/verify-change";
+import { recordCustomerDecision } from "@/lib/server/changes/customer-approval";
+import { storeCustomerLetter } from "@/lib/server/changes/store-customer-letter";
 import { saveDraft } from "@/lib/server/documents/save-draft";
 import { createRun } from "@/lib/server/evidence/create-run";
 import { createRecipe } from "@/lib/server/plant/create-recipe";
@@ -339,6 +342,28 @@ describe("initial validation of a new recipe", () => {
     await expect(closeChange(people.engineer, { changeRequestId: crId })).rejects.toThrow(
       'Segregation of duties: you signed this change as "authored", so another person must close it.',
     );
+    // PF-VB-210's specification asks its customer to approve process changes, a new recipe included.
+    await expect(closeChange(people.approver, { changeRequestId: crId })).rejects.toThrow(
+      /the customer must approve this major change first\. CS-VB-01 rev C/,
+    );
+    const [spec] = await t.db
+      .select()
+      .from(cleanlinessSpecs)
+      .where(and(eq(cleanlinessSpecs.code, "CS-VB-01"), eq(cleanlinessSpecs.status, "in_force")));
+    const letter = await storeCustomerLetter(people.engineer, {
+      name: "HIS new recipe approval.pdf",
+      bytes: new TextEncoder().encode(
+        "%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n",
+      ),
+    });
+    await recordCustomerDecision(people.engineer, {
+      changeRequestId: crId,
+      specId: spec.id,
+      decision: "approved",
+      decidedOn: "2026-11-20",
+      reference: "HIS-QA-2026-120",
+      letterFileId: letter.id,
+    });
     await closeChange(people.approver, { changeRequestId: crId });
   });
 

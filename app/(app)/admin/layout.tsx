@@ -9,6 +9,7 @@ export default function AdminLayout({ children }: { children: ReactNode }) {
         items={[
           { href: "/admin", label: "Users and roles", alsoCurrentUnder: ["/admin/users"] },
           { href: "/admin/matrix", label: "Requalification matrix" },
+          { href: "/admin/change-control", label: "Change control" },
           { href: "/admin/email", label: "E-mail" },
         ]}
       />

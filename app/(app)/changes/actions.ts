@@ -23,6 +23,18 @@ import { saveProposal } from "@/lib/server/changes/save-proposal";
 import { setRequalificationInterval } from "@/lib/server/changes/set-requalification-interval";
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { verifyChange } from "@/lib/server/changes/verify-change";
+import {
+  affectedDocumentSchema,
+  customerDecisionSchema,
+  emergencySchema,
+  unaffectedSchema,
+} from "@/lib/schemas/change-types";
+import {
+  addAffectedDocument,
+  confirmDocumentUnaffected,
+} from "@/lib/server/changes/affected-documents";
+import { implementEmergency } from "@/lib/server/changes/implement-emergency";
+import { recordCustomerDecision } from "@/lib/server/changes/customer-approval";
 
 const refresh = (changeRequestId: string): RevalidateTarget[] => [
   `/changes/${changeRequestId}`,
@@ -171,4 +183,50 @@ export const setRequalificationIntervalAction = defineAction({
     return { message: `Requalify every ${input.intervalMonths} months.` };
   },
   revalidate: [["/systems", "layout"], "/queue"],
+});
+
+/** Emergency change: the engineer signs the assessed version into force before approval. */
+export const implementEmergencyAction = defineAction({
+  permission: "change.draft",
+  input: emergencySchema,
+  sendsMail: true,
+  invalidMessage: "Not implemented: see the fields marked below. Nothing you typed was lost.",
+  run: async ({ user, input }) => {
+    await implementEmergency(user, input);
+    return {
+      message: `Signed: in force now as an emergency change. An approver must sign by ${input.approvalDueOn}.`,
+    };
+  },
+  revalidate: refreshChange,
+});
+
+export const addAffectedDocumentAction = defineAction({
+  permission: "change.draft",
+  input: affectedDocumentSchema,
+  run: async ({ user, input }) => {
+    await addAffectedDocument(user, input);
+    return { message: "Listed." };
+  },
+  revalidate: refreshChange,
+});
+
+export const confirmUnaffectedAction = defineAction({
+  permission: "change.draft",
+  input: unaffectedSchema,
+  run: async ({ user, input }) => {
+    await confirmDocumentUnaffected(user, input);
+    return { message: "Confirmed unaffected." };
+  },
+  revalidate: refreshChange,
+});
+
+export const recordCustomerDecisionAction = defineAction({
+  permission: "change.draft",
+  input: customerDecisionSchema,
+  invalidMessage: "Not recorded: see the fields marked below. Nothing you typed was lost.",
+  run: async ({ user, input }) => {
+    await recordCustomerDecision(user, input);
+    return { message: `Recorded: the customer ${input.decision} the change.` };
+  },
+  revalidate: refreshChange,
 });

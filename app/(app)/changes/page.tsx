@@ -6,6 +6,9 @@ import { PageHeader } from "@/components/ui/page-header";
 import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { listChangeRequests } from "@/lib/server/changes/queries";
+import { EmergencyBadge } from "@/components/changes/change-types-panels";
+import { showsEmergency } from "@/lib/changes/emergency";
+import type { ChangeStatus } from "@/lib/changes/workflow";
 import { formatDate } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
@@ -16,6 +19,9 @@ import { fromPageParams, readListParams, rowMatches } from "@/lib/url/list-param
 const FILTERS = { status: "", kind: "", q: "" };
 
 export const metadata: Metadata = { title: "Changes" };
+
+const emergencyShown = (r: { emergencyAt: string | null; status: ChangeStatus }) =>
+  r.emergencyAt !== null && showsEmergency(r.status);
 
 export default async function ChangesPage({
   searchParams,
@@ -32,7 +38,7 @@ export default async function ChangesPage({
         kind: { want: filters.kind, have: r.kind },
       },
       q: filters.q,
-      text: [r.number, r.title, r.recipeCode, r.author],
+      text: [r.number, r.title, r.recipeCode, r.author, emergencyShown(r) ? "Emergency" : ""],
     }),
   );
   return (
@@ -94,7 +100,10 @@ export default async function ChangesPage({
                     {r.number}
                   </Link>
                 </Td>
-                <Td>{r.title}</Td>
+                <Td>
+                  {r.title}
+                  {emergencyShown(r) && <EmergencyBadge />}
+                </Td>
                 <Td className="whitespace-nowrap">{r.recipeCode}</Td>
                 <Td>{CHANGE_KIND_LABELS[r.kind]}</Td>
                 <Td>

@@ -13,6 +13,11 @@ import { loadGate } from "./snapshot";
 import { loadChangeState } from "./state";
 import { gateRefusal } from "./verify-change";
 import { applyEquipmentChange } from "@/lib/server/systems/equipment-change";
+import { affectedDocumentsMissing } from "@/lib/changes/affected-documents";
+import { loadAffectedDocuments } from "./affected-documents";
+import { openEffectivenessCheck } from "./effectiveness";
+import { loadEmergencies } from "./emergencies";
+import { assertCustomerApproval } from "./customer-approval";
 
 /**
  * Closes a verified change: in one transaction the old version is superseded, the
@@ -43,17 +48,26 @@ export async function closeChange(
       );
     const problem = closureProblem(signers, actor.id);
     if (problem) throw new UserFacingError(problem);
+    const documentsMissing = affectedDocumentsMissing(await loadAffectedDocuments(tx, state.cr));
+    if (documentsMissing.length > 0)
+      throw new UserFacingError(
+        `Not closed: each affected document must be revised through the document workflow or confirmed unaffected with a reason. Missing: ${documentsMissing.join("; ")}.`,
+      );
+    await assertCustomerApproval(tx, state);
+    // An emergency change put its version in force when it was implemented: closing keeps it so.
+    const inForce = (await loadEmergencies(tx, [state.cr.id])).has(state.cr.id);
     const at = now.toISOString();
     const old = state.fromVersion;
-    if (old)
+    if (old && !inForce)
       await tx
         .update(recipeVersions)
         .set({ status: "superseded", effectiveTo: at })
         .where(and(eq(recipeVersions.id, old.id), eq(recipeVersions.status, "effective")));
-    await tx
-      .update(recipeVersions)
-      .set({ status: "effective", effectiveFrom: at })
-      .where(eq(recipeVersions.id, state.toVersion.id));
+    if (!inForce)
+      await tx
+        .update(recipeVersions)
+        .set({ status: "effective", effectiveFrom: at })
+        .where(eq(recipeVersions.id, state.toVersion.id));
     await tx
       .update(changeRequests)
       .set({ status: "closed", closedAt: at })
@@ -114,7 +128,7 @@ export async function closeChange(
         now,
       );
     }
-    if (old)
+    if (old && !inForce)
       await appendAudit(
         tx,
         actor,
@@ -132,18 +146,19 @@ export async function closeChange(
         },
         now,
       );
-    await appendAudit(
-      tx,
-      actor,
-      {
-        eventType: "recipe_version.effective",
-        recordType: "recipe_version",
-        recordId: state.toVersion.id,
-        old: { status: "proposed" },
-        new: { status: "effective", effectiveFrom: at, changeRequest: state.cr.number },
-      },
-      now,
-    );
+    if (!inForce)
+      await appendAudit(
+        tx,
+        actor,
+        {
+          eventType: "recipe_version.effective",
+          recordType: "recipe_version",
+          recordId: state.toVersion.id,
+          old: { status: "proposed" },
+          new: { status: "effective", effectiveFrom: at, changeRequest: state.cr.number },
+        },
+        now,
+      );
     await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "effective", now);
     await appendAudit(
       tx,
@@ -157,6 +172,7 @@ export async function closeChange(
       },
       now,
     );
+    await openEffectivenessCheck(tx, actor, state.cr, now);
     await notifyNext(tx, {
       cr: state.cr,
       status: "closed",

@@ -7,6 +7,8 @@ import { setNarrativeStatus } from "./narrative-status";
 import { assertStep } from "./guard";
 import { notifyNext } from "./notify";
 import { loadChangeState } from "./state";
+import { loadEmergencies } from "./emergencies";
+import { reverseEmergency } from "./reverse-emergency";
 
 /** Rejection (approver) or withdrawal (engineer) from any open step; the proposed version is withdrawn with it. */
 export async function endChange(
@@ -24,10 +26,13 @@ export async function endChange(
       .where(eq(changeRequests.id, state.cr.id));
     // A new recipe's first version goes back to its draft, so it can be corrected and routed again.
     const initial = state.assessmentRow.kind === "initial_validation";
-    await tx
-      .update(recipeVersions)
-      .set({ status: initial ? "draft" : "withdrawn" })
-      .where(eq(recipeVersions.id, state.toVersion.id));
+    const emergency = (await loadEmergencies(tx, [state.cr.id])).get(state.cr.id);
+    if (emergency && state.fromVersion) await reverseEmergency(tx, actor, state, input.reason, now);
+    else
+      await tx
+        .update(recipeVersions)
+        .set({ status: initial ? "draft" : "withdrawn" })
+        .where(eq(recipeVersions.id, state.toVersion.id));
     await setNarrativeStatus(tx, state.cr.narrativeDocumentId, "retired", now);
     await appendAudit(
       tx,
@@ -56,7 +61,7 @@ export async function endChange(
         },
         now,
       );
-    } else {
+    } else if (!emergency) {
       await appendAudit(
         tx,
         actor,

@@ -13,6 +13,7 @@ import {
   signatures,
   testRuns,
   users,
+  emergencyChanges,
 } from "@/db/schema";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadGate, loadRecipeSnapshot } from "./snapshot";
@@ -32,6 +33,8 @@ export async function listChangeRequests() {
       createdAt: changeRequests.createdAt,
       closedAt: changeRequests.closedAt,
       author: users.name,
+      /** Set when the change was implemented as an emergency before approval. */
+      emergencyAt: emergencyChanges.implementedAt,
     })
     .from(changeRequests)
     .innerJoin(
@@ -40,6 +43,7 @@ export async function listChangeRequests() {
     )
     .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
     .innerJoin(users, eq(users.id, changeRequests.createdBy))
+    .leftJoin(emergencyChanges, eq(emergencyChanges.changeRequestId, changeRequests.id))
     .orderBy(desc(changeRequests.createdAt));
 }
 

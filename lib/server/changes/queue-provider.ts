@@ -7,6 +7,7 @@ import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
 import { dueRequalifications } from "./due-requalifications";
 import { loadGates } from "./snapshot";
+import { loadEmergencies } from "./emergencies";
 import { formatDate } from "@/lib/format/date";
 
 /**
@@ -43,12 +44,16 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
     open.filter((o) => o.cr.status === "requalification").map((o) => o.cr.id),
   );
   const mine = (id: string) => id === user.id;
+  const emergencies = await loadEmergencies(
+    db,
+    open.map((o) => o.cr.id),
+  );
   for (const { cr, recipeCode } of open) {
     const push = (kind: string, detail: string) =>
       items.push({
         id: `change:${cr.id}:${kind}`,
         kind,
-        title: `${cr.number} ${cr.title}`,
+        title: `${emergencies.has(cr.id) ? "Emergency · " : ""}${cr.number} ${cr.title}`,
         detail: `${recipeCode} · ${detail}`,
         href: `/changes/${cr.id}`,
         due: null,

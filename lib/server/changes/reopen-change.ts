@@ -6,6 +6,8 @@ import { appendAudit, type AuditActor } from "@/lib/audit";
 import { setNarrativeStatus } from "./narrative-status";
 import { assertStep } from "./guard";
 import { loadChangeState } from "./state";
+import { loadEmergencies } from "./emergencies";
+import { UserFacingError } from "@/lib/server/errors";
 
 /** Back to draft for editing: a new revision, so the signatures already given stay with the old one. */
 export async function reopenChange(
@@ -16,6 +18,10 @@ export async function reopenChange(
   await getDb().transaction(async (tx) => {
     const state = await loadChangeState(tx, input.changeRequestId);
     assertStep(state, "reopen");
+    if ((await loadEmergencies(tx, [state.cr.id])).size > 0)
+      throw new UserFacingError(
+        "This emergency change is in force as signed: approve or reject it; it cannot be reopened for editing.",
+      );
     await tx.delete(changeRequestTests).where(eq(changeRequestTests.changeRequestId, state.cr.id));
     await tx
       .update(changeRequests)

@@ -8,6 +8,7 @@ import { evidenceQueueProvider } from "@/lib/server/evidence/queue-provider";
 import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
 import { deviationQueueProvider } from "@/lib/server/deviations/queue-provider";
 import { nonconformanceQueueProvider } from "@/lib/server/nonconformances/queue-provider";
+import { emergencyQueueProvider } from "@/lib/server/changes/emergency-queue-provider";
 import type { QueueItem, QueueProvider, QueueWindow } from "./types";
 
 /**
@@ -22,6 +23,7 @@ const PROVIDERS: QueueProvider[] = [
   changeQueueProvider,
   deviationQueueProvider,
   nonconformanceQueueProvider,
+  emergencyQueueProvider,
 ];
 
 export const QUEUE_PAGE_SIZE = 50;

@@ -1,5 +1,6 @@
 import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
+import { loadEmergencies } from "@/lib/server/changes/emergencies";
 import type { Executor } from "@/db/client";
 import { auditEvents, nonconformanceActions, nonconformances } from "@/db/schema";
 import { readAuditEvent, verifyAuditChain } from "@/lib/audit";
@@ -56,8 +57,10 @@ export async function loadAuditPack(db: Executor, changeRequestId: string) {
     // The newest checkpoint alone detects a re-chained rewrite before it; the full check on the integrity page reads them all.
     compareChainWithCheckpoints(db, { newestOnly: true }),
   ]);
+  const emergency = (await loadEmergencies(db, [changeRequestId])).get(changeRequestId) ?? null;
   return {
     cr: state.cr,
+    emergency,
     kind: state.assessmentRow.kind,
     revision: state.assessmentRow.revision,
     raiseReason: state.assessmentRow.raiseReason,

@@ -1,4 +1,6 @@
 import "server-only";
+import { loadEmergencies } from "@/lib/server/changes/emergencies";
+import { showsEmergency } from "@/lib/changes/emergency";
 import { asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import {
@@ -145,6 +147,7 @@ export async function getParameterHistory(input: { recipeId: string; key: string
   const states = await loadChangeStates(db, shown);
   const signaturesOf = await changeSignaturesOf(db, shown);
   const evidenceOf = await changeEvidenceOf(db, shown);
+  const emergencies = await loadEmergencies(db, shown);
   const versionById = new Map(versions.map((v) => [v.v.id, v]));
   // A value that came in without a change request was proven by the validation that qualified
   // its version: the qualified combinations name it (basis) and when it was qualified.
@@ -178,6 +181,8 @@ export async function getParameterHistory(input: { recipeId: string; key: string
         number: cr.number,
         title: cr.title,
         status: cr.status,
+        /** Implemented before approval; the page says "Emergency" until it is closed. */
+        emergency: emergencies.has(cr.id) && showsEmergency(cr.status),
         impact: state.impact,
         author: version.author,
         openedAt: cr.createdAt,

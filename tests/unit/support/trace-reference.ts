@@ -1,6 +1,8 @@
 // The trace of one parameter as it was read before it was batched: one change request at a time
 // through the single-record loaders. Kept only so a test can check the batched read returns
 // exactly the same answer. The loaders below are copies of the single-record ones as they were.
+import { showsEmergency } from "@/lib/changes/emergency";
+import { loadEmergencies } from "@/lib/server/changes/emergencies";
 import { and, asc, desc, eq, gte, inArray, lt, or, sql } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
 import {
@@ -123,6 +125,7 @@ export async function referenceParameterHistory(input: { recipeId: string; key: 
           number: cr.number,
           title: cr.title,
           status: cr.status,
+          emergency: (await loadEmergencies(db, [cr.id])).has(cr.id) && showsEmergency(cr.status),
           impact: state.impact,
           author: version.author,
           openedAt: cr.createdAt,

@@ -36,7 +36,22 @@ import {
   startRequalificationAction,
   verifyChangeAction,
   withdrawChangeAction,
+  implementEmergencyAction,
+  addAffectedDocumentAction,
+  confirmUnaffectedAction,
+  recordCustomerDecisionAction,
 } from "../actions";
+import {
+  AffectedDocumentsPanel,
+  CustomerApprovalPanel,
+  EffectivenessPanel,
+  EmergencyBadge,
+  EmergencyFields,
+  EmergencyPanel,
+} from "@/components/changes/change-types-panels";
+import { showsEmergency } from "@/lib/changes/emergency";
+import { OPEN_STATUSES } from "@/lib/changes/workflow";
+import { getChangeTypesPanel } from "@/lib/server/changes/change-types-page";
 import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Change request" };
@@ -60,6 +75,8 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
     linked,
     candidates,
   } = page;
+  const types = await getChangeTypesPanel(page);
+  const emergencyShown = types.emergency !== null && showsEmergency(cr.status);
   const may = (step: ChangeStep) =>
     can(user.roles, CHANGE_STEPS[step].permission) &&
     stepOffered(step, cr.status, requirements.length, gate.holds);
@@ -85,6 +102,11 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         title={`${cr.number} · ${cr.title}`}
         description={
           <>
+            {emergencyShown && (
+              <>
+                <EmergencyBadge />{" "}
+              </>
+            )}
             Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[cr.status]}</span> ·{" "}
             {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
             <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
@@ -124,6 +146,26 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
               buttonLabel="Sign and submit impact assessment"
             />
           )}
+          {cr.status === "impact_assessed" &&
+            !types.emergency &&
+            page.assessmentRow.kind !== "initial_validation" &&
+            can(user.roles, "change.draft") && (
+              <SignatureDialog
+                action={implementEmergencyAction}
+                recordType="change_request"
+                meaning="authored"
+                signerName={user.name}
+                recordLabel={label}
+                contentHash={page.contentHash}
+                hidden={hidden}
+                buttonLabel="Implement now as emergency change"
+              >
+                <EmergencyFields
+                  latestDue={types.latestDue}
+                  days={types.settings.emergencyApprovalDays}
+                />
+              </SignatureDialog>
+            )}
           {may("approve") && (
             <SignatureDialog
               action={approveChangeAction}
@@ -218,10 +260,27 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
         {(cr.status === "rejected" || cr.status === "withdrawn") && (
           <p className="mt-2 text-sm">
             {CHANGE_STATUS_LABELS[cr.status]} on {formatDate(cr.closedAt)}; proposed version{" "}
-            {toVersion.version} was withdrawn.
+            {toVersion.version} was withdrawn
+            {types.emergency ? "; the version it replaced is back in force" : ""}.
           </p>
         )}
       </section>
+
+      {types.emergency && types.approval && (
+        <EmergencyPanel emergency={types.emergency} approval={types.approval} />
+      )}
+
+      {types.effectiveness && <EffectivenessPanel result={types.effectiveness} />}
+
+      {types.customer.required && (
+        <CustomerApprovalPanel
+          changeRequestId={cr.id}
+          result={types.customer}
+          editable={OPEN_STATUSES.includes(cr.status) && can(user.roles, "change.draft")}
+          today={types.today}
+          action={recordCustomerDecisionAction}
+        />
+      )}
 
       {gateMatters && (
         <section
@@ -289,6 +348,16 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           </p>
         </section>
       )}
+
+      <AffectedDocumentsPanel
+        changeRequestId={cr.id}
+        affected={types.affected}
+        register={types.register}
+        missing={types.documentsMissing}
+        editable={OPEN_STATUSES.includes(cr.status) && can(user.roles, "change.draft")}
+        addAction={addAffectedDocumentAction}
+        unaffectedAction={confirmUnaffectedAction}
+      />
 
       <section aria-labelledby="impact" className="mb-8">
         <h2 id="impact" className="mb-2 text-lg font-semibold">
