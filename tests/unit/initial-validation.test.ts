@@ -137,6 +137,8 @@ async function verifiedRun(
     Array.from({ length: samples }, (_, i) => ({
       runId: run.id,
       sampleLabel: `S${i + 1}`,
+      // Spread over three wash cycles, as the gate asks of independent samples.
+      cycleNumber: `C${(i % 3) + 1}`,
       data: { counts: {} },
     })),
   );
