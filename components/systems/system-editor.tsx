@@ -167,8 +167,8 @@ export function SystemEditor(props: SystemEditorProps) {
         >
           This system runs the effective recipe{props.runs.length === 1 ? "" : "s"}{" "}
           {props.runs.join(", ")}: their validation rests on its equipment as it is. Names and
-          descriptions are saved directly; saving an equipment change opens a change request of
-          kind &ldquo;equipment&rdquo; instead, and the washer changes when that request closes (
+          descriptions are saved directly; saving an equipment change opens a change request of kind
+          &ldquo;equipment&rdquo; instead, and the washer changes when that request closes (
           <Link href="/changes" className="text-brand-800 underline">
             Changes
           </Link>

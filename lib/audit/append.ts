@@ -2,12 +2,7 @@ import { desc } from "drizzle-orm";
 import { auditEvents } from "@/db/schema";
 import type { Tx } from "@/db/client";
 import { canonicalJson } from "./canonical-json";
-import {
-  auditEventSchema,
-  SYSTEM_ACTOR,
-  type AuditActor,
-  type AuditEventInput,
-} from "./events";
+import { auditEventSchema, SYSTEM_ACTOR, type AuditActor, type AuditEventInput } from "./events";
 import { seedStamp } from "./seed-stamp";
 import { readsBackUnchanged } from "@/lib/schemas/text";
 import { chainHash, GENESIS_HASH } from "./hash";

@@ -122,15 +122,13 @@ export async function submitForReview(
       })
       .where(eq(documentVersions.id, version.id));
     // Kept per round, so the next round's reviewers see what changed since they sent it back.
-    await tx
-      .insert(documentRoundTexts)
-      .values({
-        versionId: version.id,
-        round,
-        contentHash,
-        content: version.content,
-        createdAt: submittedAt,
-      });
+    await tx.insert(documentRoundTexts).values({
+      versionId: version.id,
+      round,
+      contentHash,
+      content: version.content,
+      createdAt: submittedAt,
+    });
     const dueAt = input.dueDate ? `${input.dueDate}T23:59:59.999Z` : null;
     const steps = [
       ...input.reviewerIds.map((assigneeId, i) => ({
