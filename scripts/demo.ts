@@ -5,6 +5,7 @@
  * database, data/plant.db, kept apart from the demo's; its set-up page (or `npm run admin:create`)
  * creates the first administrator.
  */
+import "./server-modules-outside-next";
 import { spawn, spawnSync } from "node:child_process";
 import { resolve } from "node:path";
 import { existsSync, mkdirSync, writeFileSync } from "node:fs";

@@ -4,6 +4,7 @@
  * `--empty` serves a fresh database with no seed at all (no user, company or site),
  * in data/e2e-empty/, for the test that starts a plant from nothing.
  */
+import "./server-modules-outside-next";
 import { spawn } from "node:child_process";
 import { existsSync, rmSync } from "node:fs";
 import { resolve } from "node:path";

@@ -8,6 +8,7 @@
  *
  *   npx tsx tests/bench/cycles.ts [--cycles=100000]
  */
+import "../../scripts/server-modules-outside-next";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";

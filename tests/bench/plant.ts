@@ -10,6 +10,7 @@
  * Exits non-zero only when the benchmark itself breaks (an error, a non-2xx
  * response, a check that failed); a missed target is reported, never fatal.
  */
+import "../../scripts/server-modules-outside-next";
 import { spawn, type ChildProcess } from "node:child_process";
 import { createHash } from "node:crypto";
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";

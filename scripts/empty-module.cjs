@@ -1,0 +1,1 @@
+// Stands in for the "server-only" marker in scripts run outside Next.js.
