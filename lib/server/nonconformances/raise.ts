@@ -115,9 +115,10 @@ export async function raiseNonconformance(
               : input.detectedOn,
         })
       : [];
-  if (affected.length > 0)
+  // In slices: a containment of thousands of cycles would pass SQLite's limit on bound values.
+  for (const slice of chunk(affected))
     await tx.insert(nonconformanceItems).values(
-      affected.map((i) => ({
+      slice.map((i) => ({
         nonconformanceId: nc.id,
         itemKind: i.kind,
         itemId: i.id,
