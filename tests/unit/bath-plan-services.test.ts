@@ -226,7 +226,7 @@ describe("measurement plan", () => {
       partFamilyId: null,
       detectedOn: "2026-06-15",
       description: "pH 13.4 is above the reject limit 13",
-      sourceLabel: "Test tank reading 2026-06-15",
+      sourceLabel: "AW-3 · Test tank reading 2026-06-15",
       status: "open",
       openedBy: tech.id,
     });

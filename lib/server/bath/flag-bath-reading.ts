@@ -1,7 +1,7 @@
 // Not "server-only": the demo seed reaches it through recordBathEntryIn under tsx.
 import { eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
-import { bathLimits, recipeVersions } from "@/db/schema";
+import { bathLimits, cleaningSystems, recipeVersions, systemStages } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import type { LimitState } from "@/lib/bath/limits";
 import { formatDate } from "@/lib/format/date";
@@ -34,7 +34,13 @@ export async function flagBathReadingBeyondReject(
   });
   if (await openNcForSource(tx, "bath_reading", record.id)) return;
   const when = formatDate(record.performedAt);
-  const label = `${record.tank} reading ${when}`;
+  // Named as the tank page is titled: tank names repeat from washer to washer.
+  const [washer] = await tx
+    .select({ code: cleaningSystems.code })
+    .from(systemStages)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, systemStages.systemId))
+    .where(eq(systemStages.id, record.stageId));
+  const label = `${washer ? `${washer.code} · ` : ""}${record.tank} reading ${when}`;
   await raiseNonconformance(tx, {
     source: { kind: "bath_reading", id: record.id, label },
     title: `${label} beyond its reject limit`,
