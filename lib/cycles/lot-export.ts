@@ -1,6 +1,7 @@
 import { toCsv } from "@/lib/csv/to-csv";
 import { formatDateTime } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
+import { NC_SEVERITY_LABELS, NC_STATUS_LABELS } from "@/lib/nonconformances/lifecycle";
 import type { LotHistory } from "@/lib/server/cycles/lot-history";
 
 /** A tank's bath as it stood at the cycle's start, in one line. */
@@ -20,7 +21,7 @@ export function bathLine(b: LotHistory["cycles"][number]["bath"][number]): strin
   return `${b.stageName} — ${reading}${change}`;
 }
 
-/** One row per cycle, then one per test run, as the lot history page shows them. */
+/** One row per cycle, then one per test run and per nonconformance, as the lot history page shows them. */
 export function lotHistoryCsv(h: LotHistory): string {
   const header = [
     "record",
@@ -42,6 +43,9 @@ export function lotHistoryCsv(h: LotHistory): string {
     "test_type",
     "status",
     "outcome",
+    "nonconformance",
+    "severity",
+    "names",
   ];
   const rows: (string | number | null)[][] = [
     ...h.cycles.map((c) => [
@@ -62,6 +66,9 @@ export function lotHistoryCsv(h: LotHistory): string {
         .join("; "),
       c.flagged ? `flagged: ${c.flagReasons.join(" ")}` : "in range",
       c.bath.map(bathLine).join(" | "),
+      null,
+      null,
+      null,
       null,
       null,
       null,
@@ -87,6 +94,33 @@ export function lotHistoryCsv(h: LotHistory): string {
       r.testType,
       r.status,
       r.outcome,
+      null,
+      null,
+      null,
+    ]),
+    ...h.nonconformances.map((nc) => [
+      "nonconformance",
+      h.lot,
+      null,
+      null,
+      null,
+      null,
+      null,
+      null,
+      null,
+      nc.detectedOn,
+      null,
+      null,
+      null,
+      null,
+      null,
+      null,
+      null,
+      NC_STATUS_LABELS[nc.status],
+      null,
+      `${nc.number} ${nc.title}`,
+      NC_SEVERITY_LABELS[nc.severity],
+      nc.names.join(" | "),
     ]),
   ];
   return toCsv(header, rows);

@@ -2,6 +2,7 @@ import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-p
 import { bathLine } from "@/lib/cycles/lot-export";
 import { formatDateTime } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
+import { NC_SEVERITY_LABELS, NC_STATUS_LABELS } from "@/lib/nonconformances/lifecycle";
 import { TEST_TYPE_LABELS, type TestType } from "@/lib/recipes/test-types";
 import type { LotHistory } from "@/lib/server/cycles/lot-history";
 import { PDF_FONT } from "./fonts";
@@ -53,7 +54,7 @@ function LotHistoryPdf({ history: h, letterhead, printedAt, printedBy }: LotHist
               <Text style={s.title}>Lot history {h.lot}</Text>
               <Text style={s.small}>
                 {h.cycles.length} cycle(s), {h.cycles.filter((c) => c.flagged).length} flagged ·{" "}
-                {h.runs.length} test run(s)
+                {h.runs.length} test run(s) · {h.nonconformances.length} nonconformance(s)
               </Text>
             </View>
             <View style={s.flow}>{children}</View>
@@ -103,6 +104,17 @@ function LotHistoryPdf({ history: h, letterhead, printedAt, printedBy }: LotHist
             {TEST_TYPE_LABELS[r.testType as TestType] ?? r.testType} · {r.performedOn ?? "no date"}{" "}
             · status {r.status} · outcome {r.outcome ?? "not computed"} · parts from{" "}
             {r.cycles.map((c) => `${c.cycleNumber} (${c.samples})`).join(", ")}
+          </Text>
+        ))}
+        <Text style={s.h2}>Nonconformances naming this lot</Text>
+        {h.nonconformances.length === 0 && (
+          <Text>No nonconformance names this lot or its cycles.</Text>
+        )}
+        {h.nonconformances.map((nc) => (
+          <Text key={nc.id} style={s.cycle}>
+            <Text style={s.bold}>{nc.number}</Text> · {nc.title} · detected {nc.detectedOn} ·{" "}
+            {NC_SEVERITY_LABELS[nc.severity]} · {NC_STATUS_LABELS[nc.status]}
+            {nc.names.length > 0 ? ` · names ${nc.names.join(", ")}` : ""}
           </Text>
         ))}
       </Page>

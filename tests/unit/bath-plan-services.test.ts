@@ -10,6 +10,7 @@ import {
   auditEvents,
   bathRecords,
   cleaningSystems,
+  nonconformances,
   recipes,
   recipeVersions,
   systemStages,
@@ -19,7 +20,9 @@ import { maintenanceStatus } from "@/lib/evidence/maintenance";
 import { bathLimitSchema, detergentSchema } from "@/lib/schemas/bath-plan";
 import { localStore, setStore } from "@/lib/storage";
 import { storeCheckPhoto } from "@/lib/server/bath/store-check-photo";
+import { cycleInputSchema } from "@/lib/schemas/cycle";
 import { bathRecordSchema } from "@/lib/schemas/evidence";
+import { recordCycles } from "@/lib/server/cycles/record-cycles-now";
 import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { bathAge } from "@/lib/server/bath/bath-age";
 import {
@@ -206,6 +209,27 @@ describe("measurement plan", () => {
         and(eq(auditEvents.action, "bath_record.flagged"), eq(auditEvents.recordId, reject.id)),
       );
     expect(flagged).toHaveLength(1);
+    // The same reading opened its nonconformance, on the recipe the tank's plan was taken from.
+    const ncs = await t.db
+      .select()
+      .from(nonconformances)
+      .where(
+        and(
+          eq(nonconformances.sourceKind, "bath_reading"),
+          eq(nonconformances.sourceId, reject.id),
+        ),
+      );
+    expect(ncs).toHaveLength(1);
+    const [aw3] = await t.db.select().from(recipes).where(eq(recipes.code, "R-AW3-VB"));
+    expect(ncs[0]).toMatchObject({
+      recipeId: aw3.id,
+      partFamilyId: null,
+      detectedOn: "2026-06-15",
+      description: "pH 13.4 is above the reject limit 13",
+      sourceLabel: "AW-3 · Test tank reading 2026-06-15",
+      status: "open",
+      openedBy: tech.id,
+    });
     queue = (await bathLimitsQueueProvider(techUser(), new Date())).items.filter((i) =>
       i.href.endsWith(stageId),
     );
@@ -250,12 +274,37 @@ describe("measurement plan", () => {
       reading({ kind: "bath_change", performedAt: "2026-06-10T07:00" }),
       new Date("2026-06-16T00:00:00Z"),
     );
-    const age = await bathAge(t.db, stageId, new Date("2026-06-15T07:00:00Z"));
+    const now = new Date("2026-06-15T07:00:00Z");
+    const before = (await bathAge(t.db, stageId, now)).cycles!;
+    // Cycles on the tank's washer: one before the charge and one after "now" do not count.
+    const run = (cycleNumber: string, startedAt: string, endedAt: string) =>
+      cycleInputSchema.parse({
+        cycleNumber,
+        system: "AW-3",
+        recipe: "R-AW3-VB",
+        partFamily: "PF-VB-210",
+        lots: ["BATH-AGE-1"],
+        baskets: 2,
+        startedAt,
+        endedAt,
+        operator: "B. Operator",
+        values: { "wash.temperature": 60, "wash.time": 240, "drying.temperature": 110 },
+      });
+    await recordCycles(tech, {
+      source: "form",
+      cycles: [
+        run("AGE-0", "2026-06-09 06:00", "2026-06-09 06:40"),
+        run("AGE-1", "2026-06-12 06:00", "2026-06-12 06:40"),
+        run("AGE-2", "2026-06-14 06:00", "2026-06-14 06:40"),
+        run("AGE-3", "2026-06-16 06:00", "2026-06-16 06:40"),
+      ],
+    });
+    const age = await bathAge(t.db, stageId, now);
     expect(age).toMatchObject({
       chargedAt: "2026-06-10T07:00:00.000Z",
       recharged: true,
       days: 5,
-      cycles: null,
+      cycles: before + 2,
     });
   });
 });

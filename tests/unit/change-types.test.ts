@@ -6,6 +6,8 @@ import {
   changeRequests,
   emailOutbox,
   emergencyChanges,
+  nonconformanceItems,
+  nonconformances,
   partFamilies,
   recipes,
   recipeVersions,
@@ -289,7 +291,42 @@ describe("emergency change (issue #13 item 3)", () => {
         and(eq(auditEvents.recordId, crId), eq(auditEvents.action, "change.effectiveness_failed")),
       );
     expect(failed).toHaveLength(1);
+    // The failure opened its nonconformance, raised by the system, on the change's recipe and the
+    // failed run's part family, with the failed run in its containment.
+    const [cr] = await t.db.select().from(changeRequests).where(eq(changeRequests.id, crId));
+    const ncs = await t.db
+      .select()
+      .from(nonconformances)
+      .where(
+        and(
+          eq(nonconformances.sourceKind, "change_effectiveness"),
+          eq(nonconformances.sourceId, crId),
+        ),
+      );
+    expect(ncs).toHaveLength(1);
+    expect(ncs[0]).toMatchObject({
+      sourceLabel: cr.number,
+      recipeId: cr.recipeId,
+      partFamilyId: family.id,
+      openedBy: null,
+      detectedOn: todayUtc(),
+    });
+    const items = await t.db
+      .select()
+      .from(nonconformanceItems)
+      .where(eq(nonconformanceItems.nonconformanceId, ncs[0].id));
+    expect(items.map((i) => i.label)).toContain("TR-EFF-002");
+    const [raised] = await t.db
+      .select()
+      .from(auditEvents)
+      .where(
+        and(eq(auditEvents.recordId, ncs[0].id), eq(auditEvents.action, "nonconformance.raised")),
+      );
+    expect(raised).toMatchObject({ actorId: null, actorName: "system" });
     expect(await recordEffectivenessOutcomes()).toBe(0);
+    expect(
+      await t.db.select().from(nonconformances).where(eq(nonconformances.sourceId, crId)),
+    ).toHaveLength(1);
   });
 
   it("a rejected emergency change puts the previous version back in force", async () => {

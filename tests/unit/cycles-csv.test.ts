@@ -117,9 +117,25 @@ describe("lot history CSV", () => {
           cycles: [{ cycleNumber: "AW3-1", samples: 3 }],
         },
       ],
+      nonconformances: [
+        {
+          id: "n1",
+          number: "NC-2026-004",
+          title: "AW-3 cycle AW3-1 outside its validated range",
+          status: "contained",
+          severity: "major",
+          detectedOn: "2026-03-04",
+          names: ["AW-3 cycle AW3-1"],
+        },
+      ],
     });
     const lines = csv.split("\r\n");
-    expect(lines).toHaveLength(3);
+    expect(lines).toHaveLength(4);
+    expect(lines[0].split(",")).toHaveLength(22);
+    expect(lines[3].split(",")).toHaveLength(22);
+    expect(lines[3]).toMatch(/^nonconformance,L1,/);
+    expect(lines[3]).toContain("NC-2026-004 AW-3 cycle AW3-1 outside its validated range");
+    expect(lines[3]).toContain("Contained");
     expect(lines[1]).toContain("'=HYPERLINK()");
     expect(lines[2]).toContain("TR-0001");
     expect(lines[2]).toContain("AW3-1 (3)");

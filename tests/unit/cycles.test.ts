@@ -1,7 +1,14 @@
 import { and, eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as cyclesRoute from "@/app/api/v1/cycles/route";
-import { auditEvents, users, washCycleLots, washCycles } from "@/db/schema";
+import {
+  auditEvents,
+  nonconformanceItems,
+  nonconformances,
+  users,
+  washCycleLots,
+  washCycles,
+} from "@/db/schema";
 import { seedDemo } from "@/db/seed";
 import { cycleFlags, type CycleParameter } from "@/lib/cycles/flag";
 import { inForceAt } from "@/lib/cycles/in-force";
@@ -212,6 +219,38 @@ describe("recording cycles", () => {
         ),
       );
     expect(JSON.parse(event.newValue!).reasons).toEqual(result.flagged[0].reasons);
+    // The same recording opened its nonconformance, dated on the cycle's start.
+    const [nc] = await t.db
+      .select()
+      .from(nonconformances)
+      .where(
+        and(
+          eq(nonconformances.sourceKind, "cycle"),
+          eq(nonconformances.sourceId, result.flagged[0].id),
+        ),
+      );
+    expect(nc).toMatchObject({
+      sourceLabel: "AW-3 cycle AW3-TEST-002",
+      detectedOn: "2025-10-01",
+      description: "Bath temperature 67 °C is above its validated range 50–65 °C.",
+      status: "open",
+    });
+    const items = await t.db
+      .select()
+      .from(nonconformanceItems)
+      .where(eq(nonconformanceItems.nonconformanceId, nc.id));
+    // Containment: the cycles on the recipe and family since the last passing test, with their lots.
+    const mine = items
+      .filter((i) => i.label.startsWith("AW-3 cycle AW3-TEST-00"))
+      .toSorted((a, b) => a.label.localeCompare(b.label));
+    expect(mine.map((i) => [i.itemKind, i.label, i.lots])).toEqual([
+      ["cycle", "AW-3 cycle AW3-TEST-001", ["TEST-LOT-1"]],
+      ["cycle", "AW-3 cycle AW3-TEST-002", ["TEST-LOT-1"]],
+    ]);
+    // The lot's history names it through its cycles.
+    const h = await loadLotHistory(t.db, "TEST-LOT-1");
+    const named = h.nonconformances.find((n) => n.id === nc.id);
+    expect(named?.names).toEqual(["AW-3 cycle AW3-TEST-001", "AW-3 cycle AW3-TEST-002"]);
   });
 
   it("refuses a version that was not in force at the start, naming the version field", async () => {
@@ -320,6 +359,7 @@ describe("lot history", () => {
       lot: "NO-SUCH-LOT",
       cycles: [],
       runs: [],
+      nonconformances: [],
     });
   });
 });

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, inArray } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seedDemo } from "@/db/seed";
 import { DEMO_PASSWORD } from "@/db/seed-data";
@@ -18,7 +18,11 @@ import {
   signatures,
   testRuns,
   users,
+  washCycleLots,
+  washCycles,
 } from "@/db/schema";
+import { formatDate } from "@/lib/format/date";
+import { recordCycleFlags } from "@/lib/server/cycles/flag-cycles";
 import { doc, p } from "@/lib/documents/rich-text";
 import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import { particleRunDataSchema, particleSampleSchema } from "@/lib/schemas/evidence";
@@ -182,7 +186,7 @@ describe("the demo's failed runs", () => {
     expect(sigs.every((s) => s.contentHash === hash)).toBe(true);
     expect((await checkSignatures(t.db)).findings).toEqual([]);
     // Raised on the failed run's own date, numbered per year without gaps.
-    for (const nc of ncs) {
+    for (const nc of ncs.filter((n) => n.sourceKind === "run")) {
       const run = failed.find((r) => r.id === nc.sourceId)!;
       expect(nc.detectedOn).toBe(run.performedOn);
     }
@@ -190,6 +194,80 @@ describe("the demo's failed runs", () => {
     for (const nc of ncs) byYear.set(nc.year, [...(byYear.get(nc.year) ?? []), nc.sequence]);
     for (const seqs of byYear.values())
       expect(seqs.sort((a, b) => a - b)).toEqual(seqs.map((_, i) => i + 1));
+  });
+});
+
+describe("the demo's flagged wash cycle", () => {
+  it("owns one nonconformance, raised on the cycle's date, whose containment lists cycles with their lots", async () => {
+    const flagged = await t.db.select().from(washCycles).where(eq(washCycles.flagged, true));
+    expect(flagged).toHaveLength(1);
+    const cycle = flagged[0];
+    const ncs = await t.db
+      .select()
+      .from(nonconformances)
+      .where(and(eq(nonconformances.sourceKind, "cycle"), eq(nonconformances.sourceId, cycle.id)));
+    expect(ncs).toHaveLength(1);
+    const [nc] = ncs;
+    expect(nc.detectedOn).toBe(formatDate(cycle.startedAt));
+    expect(nc.sourceLabel).toMatch(new RegExp(`cycle ${cycle.cycleNumber}$`));
+    expect(nc.description).toBe(cycle.flagReasons.join("; "));
+    expect(nc.partFamilyId).toBe(cycle.partFamilyId);
+    const [version] = await t.db
+      .select()
+      .from(recipeVersions)
+      .where(eq(recipeVersions.id, cycle.recipeVersionId));
+    expect(nc.recipeId).toBe(version.recipeId);
+    const items = await t.db
+      .select()
+      .from(nonconformanceItems)
+      .where(eq(nonconformanceItems.nonconformanceId, nc.id));
+    const own = items.find((i) => i.itemKind === "cycle" && i.itemId === cycle.id);
+    const lots = await t.db.select().from(washCycleLots).where(eq(washCycleLots.cycleId, cycle.id));
+    expect(own?.lots.toSorted()).toEqual(lots.map((l) => l.lotNumber).toSorted());
+    // Every cycle listed ran the same part family on a version of the same recipe.
+    const listed = await t.db
+      .select({ family: washCycles.partFamilyId, recipeId: recipeVersions.recipeId })
+      .from(washCycles)
+      .innerJoin(recipeVersions, eq(recipeVersions.id, washCycles.recipeVersionId))
+      .where(
+        inArray(
+          washCycles.id,
+          items.filter((i) => i.itemKind === "cycle").map((i) => i.itemId),
+        ),
+      );
+    expect(listed.every((c) => c.family === cycle.partFamilyId && c.recipeId === nc.recipeId)).toBe(
+      true,
+    );
+  });
+
+  it("is not raised twice when its flags are recorded again", async () => {
+    const [cycle] = await t.db.select().from(washCycles).where(eq(washCycles.flagged, true));
+    const [version] = await t.db
+      .select()
+      .from(recipeVersions)
+      .where(eq(recipeVersions.id, cycle.recipeVersionId));
+    const count = () =>
+      t.db
+        .select({ id: nonconformances.id })
+        .from(nonconformances)
+        .where(
+          and(eq(nonconformances.sourceKind, "cycle"), eq(nonconformances.sourceId, cycle.id)),
+        );
+    await t.db.transaction((tx) =>
+      recordCycleFlags(tx, tech, [
+        {
+          id: cycle.id,
+          cycleNumber: cycle.cycleNumber,
+          system: "AW-3",
+          lots: [],
+          reasons: cycle.flagReasons,
+          startedAt: cycle.startedAt,
+          recipeId: version.recipeId,
+          partFamilyId: cycle.partFamilyId,
+        },
+      ]),
+    );
+    expect(await count()).toHaveLength(1);
   });
 });
 

@@ -1,22 +1,34 @@
 import "server-only";
-import { and, asc, desc, eq } from "drizzle-orm";
+import { and, asc, count, desc, eq, gte, lte } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { bathRecords } from "@/db/schema";
+import { bathRecords, systemStages, washCycles } from "@/db/schema";
 import { bathAgeDays } from "@/lib/bath/limits";
 
 /**
- * Wash cycles run on a tank's bath since it was charged. Cycles are recorded by the wash-cycle
- * feature; until its count is wired in here, none are counted and the page says so (null).
+ * Wash cycles run on a tank's bath since it was charged: the cycles of the washer the tank belongs
+ * to (every cycle of a washer passes through each of its tanks) started from the charge up to `until`.
  */
 export async function countCyclesSinceCharge(
-  _db: Executor,
-  _stageId: string,
-  _chargedAt: string,
-): Promise<number | null> {
-  return null;
+  db: Executor,
+  stageId: string,
+  chargedAt: string,
+  until = new Date(),
+): Promise<number> {
+  const [row] = await db
+    .select({ cycles: count() })
+    .from(washCycles)
+    .innerJoin(systemStages, eq(systemStages.systemId, washCycles.systemId))
+    .where(
+      and(
+        eq(systemStages.id, stageId),
+        gte(washCycles.startedAt, chargedAt),
+        lte(washCycles.startedAt, until.toISOString()),
+      ),
+    );
+  return row?.cycles ?? 0;
 }
 
-/** How old a tank's bath is: days (and cycles, once counted) since the last dump and recharge. */
+/** How old a tank's bath is: days and wash cycles since the last dump and recharge. */
 export async function bathAge(db: Executor, stageId: string, now = new Date()) {
   const [lastCharge] = await db
     .select({ at: bathRecords.performedAt })
@@ -38,6 +50,6 @@ export async function bathAge(db: Executor, stageId: string, now = new Date()) {
     chargedAt,
     recharged: Boolean(lastCharge),
     days: bathAgeDays(chargedAt, now),
-    cycles: chargedAt ? await countCyclesSinceCharge(db, stageId, chargedAt) : null,
+    cycles: chargedAt ? await countCyclesSinceCharge(db, stageId, chargedAt, now) : null,
   };
 }

@@ -127,6 +127,7 @@ export async function recordBathEntryIn(
   if (evaluation?.state === "reject")
     await flagBathReadingBeyondReject(tx, actor, {
       id: row.id,
+      stageId: stage.id,
       tank: stage.name,
       performedAt: row.performedAt,
       state: evaluation.state,

@@ -4,6 +4,9 @@ import { getDb, type Executor, type Tx } from "@/db/client";
 import { changeEffectivenessChecks, changeRequests, signatures, testRuns } from "@/db/schema";
 import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
 import { evaluateEffectiveness, type EffectivenessResult } from "@/lib/changes/effectiveness";
+import { todayUtc } from "@/lib/format/date";
+import { raiseNonconformance } from "@/lib/server/nonconformances/raise";
+import { openNcForSource } from "@/lib/server/nonconformances/shared";
 import { getChangeControlSettings } from "./settings";
 
 /** Opens the check when a change closes: the first N verified runs on its version from now on count. */
@@ -131,10 +134,10 @@ async function decide(
 }
 
 /**
- * The one place a failed effectiveness check leads on from: it records the failure
- * (audited) and is where the nonconformance is opened (issue #13 item 1, source
- * "change_effectiveness"). The nonconformance service is built on another branch; its call
- * belongs here, in this transaction, once both are merged.
+ * The one place a failed effectiveness check leads on from: it records the failure (audited)
+ * and opens its nonconformance in the same transaction, on the change's recipe and the failed
+ * run's part family, so what was cleaned since the last passing test is contained. The
+ * scheduler decides the check, so the system raises it.
  */
 export async function onEffectivenessFailed(
   tx: Tx,
@@ -151,6 +154,43 @@ export async function onEffectivenessFailed(
       recordType: "change_request",
       recordId: input.changeRequestId,
       new: { runs: r.counted, required: r.required, failedRun: r.failedRun! },
+    },
+    now,
+  );
+  if (await openNcForSource(tx, "change_effectiveness", input.changeRequestId)) return;
+  const [cr] = await tx
+    .select({
+      number: changeRequests.number,
+      recipeId: changeRequests.recipeId,
+      toVersionId: changeRequests.toVersionId,
+    })
+    .from(changeRequests)
+    .where(eq(changeRequests.id, input.changeRequestId));
+  const [failed] =
+    cr.toVersionId && r.failedRun
+      ? await tx
+          .select({ partFamilyId: testRuns.partFamilyId })
+          .from(testRuns)
+          .where(
+            and(
+              eq(testRuns.recipeVersionId, cr.toVersionId),
+              eq(testRuns.number, r.failedRun),
+              eq(testRuns.status, "verified"),
+            ),
+          )
+          .limit(1)
+      : [];
+  await raiseNonconformance(
+    tx,
+    {
+      source: { kind: "change_effectiveness", id: input.changeRequestId, label: cr.number },
+      title: `${cr.number} effectiveness check failed`,
+      description: `${r.failedRun ?? "A run"} did not pass among the first ${r.required} runs verified after ${cr.number} closed (${r.passed} passed): the change has not been shown to work.`,
+      severity: "major",
+      detectedOn: todayUtc(now),
+      recipeId: cr.recipeId,
+      partFamilyId: failed?.partFamilyId ?? null,
+      actorId: null,
     },
     now,
   );

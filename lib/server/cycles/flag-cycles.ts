@@ -1,6 +1,9 @@
 // Not "server-only": the demo seed records cycles under tsx.
 import type { Tx } from "@/db/client";
 import { appendAudit, type AuditActor } from "@/lib/audit";
+import { formatDate } from "@/lib/format/date";
+import { cycleLabel, raiseNonconformance } from "@/lib/server/nonconformances/raise";
+import { openNcForSource } from "@/lib/server/nonconformances/shared";
 
 export interface FlaggedCycle {
   id: string;
@@ -16,8 +19,8 @@ export interface FlaggedCycle {
 /**
  * What follows when a cycle left its validated range, in the transaction that recorded it: the
  * cycle row already carries the flag and its reasons; here each flag gets its own audit event, so the
- * trail lists every out-of-range cycle. This is the one place a flagged cycle leads anywhere: a
- * nonconformance is to be raised from here as well.
+ * trail lists every out-of-range cycle, and its nonconformance, so no flagged cycle is left without
+ * an owner (a cycle already owned by one is not raised twice).
  */
 export async function recordCycleFlags(tx: Tx, actor: AuditActor, flagged: FlaggedCycle[]) {
   for (const c of flagged) {
@@ -26,6 +29,18 @@ export async function recordCycleFlags(tx: Tx, actor: AuditActor, flagged: Flagg
       recordType: "wash_cycle",
       recordId: c.id,
       new: { cycleNumber: c.cycleNumber, system: c.system, lots: c.lots, reasons: c.reasons },
+    });
+    if (await openNcForSource(tx, "cycle", c.id)) continue;
+    const label = cycleLabel(c.system, c.cycleNumber);
+    await raiseNonconformance(tx, {
+      source: { kind: "cycle", id: c.id, label },
+      title: `${label} outside its validated range`,
+      description: c.reasons.join("; "),
+      severity: "major",
+      detectedOn: formatDate(c.startedAt),
+      recipeId: c.recipeId,
+      partFamilyId: c.partFamilyId,
+      actorId: actor.id,
     });
   }
 }

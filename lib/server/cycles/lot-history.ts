@@ -1,9 +1,11 @@
 // Not "server-only": the benchmark measures it under tsx. Pages reach it through queries.ts.
-import { and, asc, desc, eq, gte, inArray, lt, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gte, inArray, lt, or, sql } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import {
   bathRecords,
   cleaningSystems,
+  nonconformanceItems,
+  nonconformances,
   partFamilies,
   recipes,
   recipeVersions,
@@ -12,7 +14,11 @@ import {
   testSamples,
   washCycleLots,
   washCycles,
+  type Nonconformance,
 } from "@/db/schema";
+
+type NcStatus = Nonconformance["status"];
+type NcSeverity = Nonconformance["severity"];
 
 export interface LotBathState {
   stageName: string;
@@ -59,10 +65,23 @@ export interface LotRun {
   cycles: { cycleNumber: string; samples: number }[];
 }
 
+/** A nonconformance whose containment names the lot's cycles or runs, or that one of them raised. */
+export interface LotNonconformance {
+  id: string;
+  number: string;
+  title: string;
+  status: NcStatus;
+  severity: NcSeverity;
+  detectedOn: string;
+  /** What of the lot it names: cycle and run labels as its containment lists them. */
+  names: string[];
+}
+
 export interface LotHistory {
   lot: string;
   cycles: LotCycle[];
   runs: LotRun[];
+  nonconformances: LotNonconformance[];
 }
 
 /**
@@ -88,7 +107,7 @@ export async function loadLotHistory(db: Executor, lot: string): Promise<LotHist
     .innerJoin(partFamilies, eq(partFamilies.id, washCycles.partFamilyId))
     .where(eq(washCycleLots.lotNumber, lot))
     .orderBy(asc(washCycles.startedAt), asc(washCycles.cycleNumber));
-  if (rows.length === 0) return { lot, cycles: [], runs: [] };
+  if (rows.length === 0) return { lot, cycles: [], runs: [], nonconformances: [] };
   const ids = rows.map((r) => r.c.id);
   const lotRows = await db
     .select()
@@ -151,8 +170,10 @@ export async function loadLotHistory(db: Executor, lot: string): Promise<LotHist
     run.cycles.push({ cycleNumber: s.cycleNumber!, samples: Number(s.samples) });
     runs.set(s.run.id, run);
   }
+  const lotNcs = await lotNonconformances(db, ids, [...runs.keys()]);
   return {
     lot,
+    nonconformances: lotNcs,
     cycles: rows.map((r) => ({
       id: r.c.id,
       cycleNumber: r.c.cycleNumber,
@@ -193,6 +214,64 @@ export async function loadLotHistory(db: Executor, lot: string): Promise<LotHist
       a.number === b.number ? a.revision - b.revision : a.number < b.number ? -1 : 1,
     ),
   };
+}
+
+/**
+ * The nonconformances that name the lot: every containment item of a cycle carries that cycle's
+ * lots, so an item naming one of the lot's cycles (or runs on its parts) is one naming the lot. The
+ * source counts too, for a failure raised without a containment (no part family known). One
+ * statement: nonconformances are few beside cycles, and each one's items are looked up by its key.
+ */
+async function lotNonconformances(
+  db: Executor,
+  cycleIds: string[],
+  runIds: string[],
+): Promise<LotNonconformance[]> {
+  const names = (kind: "cycle" | "run", ids: string[]) =>
+    ids.length === 0
+      ? []
+      : [
+          and(eq(nonconformanceItems.itemKind, kind), inArray(nonconformanceItems.itemId, ids)),
+          and(eq(nonconformances.sourceKind, kind), inArray(nonconformances.sourceId, ids)),
+        ];
+  const found = await db
+    .select({ nc: nonconformances, item: nonconformanceItems.label })
+    .from(nonconformances)
+    .leftJoin(
+      nonconformanceItems,
+      and(
+        eq(nonconformanceItems.nonconformanceId, nonconformances.id),
+        or(
+          and(
+            eq(nonconformanceItems.itemKind, "cycle"),
+            inArray(nonconformanceItems.itemId, cycleIds),
+          ),
+          runIds.length
+            ? and(
+                eq(nonconformanceItems.itemKind, "run"),
+                inArray(nonconformanceItems.itemId, runIds),
+              )
+            : undefined,
+        ),
+      ),
+    )
+    .where(or(...names("cycle", cycleIds), ...names("run", runIds)))
+    .orderBy(asc(nonconformances.year), asc(nonconformances.sequence));
+  const byId = new Map<string, LotNonconformance>();
+  for (const { nc, item } of found) {
+    const entry = byId.get(nc.id) ?? {
+      id: nc.id,
+      number: nc.number,
+      title: nc.title,
+      status: nc.status,
+      severity: nc.severity,
+      detectedOn: nc.detectedOn,
+      names: [],
+    };
+    if (item && !entry.names.includes(item)) entry.names.push(item);
+    byId.set(nc.id, entry);
+  }
+  return [...byId.values()].map((n) => ({ ...n, names: n.names.toSorted() }));
 }
 
 export interface LotSummary {

@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, ne } from "drizzle-orm";
+import { and, desc, eq, gte, inArray, lte, ne } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import {
   nonconformanceItems,
@@ -6,15 +6,19 @@ import {
   partFamilies,
   recipes,
   recipeVersions,
+  cleaningSystems,
   testRuns,
   users,
+  washCycleLots,
+  washCycles,
 } from "@/db/schema";
-import { appendAudit } from "@/lib/audit";
+import { appendAudit, SYSTEM_ACTOR, type AuditActor } from "@/lib/audit";
 import {
   containmentScope,
   lastPassingTest,
   type ProcessedItem,
 } from "@/lib/nonconformances/containment";
+import { formatDate } from "@/lib/format/date";
 import { nextNcNumber } from "@/lib/nonconformances/numbering";
 import { UserFacingError } from "@/lib/server/errors";
 import type { NC_MANUAL_KINDS, NC_SEVERITIES, NC_SOURCE_KINDS } from "@/db/enums";
@@ -28,7 +32,8 @@ export interface RaiseNonconformanceInput {
   detectedOn: string;
   recipeId?: string | null;
   partFamilyId?: string | null;
-  actorId: string;
+  /** Who raised it; null when the system did (a check decided by the scheduler). */
+  actorId: string | null;
   /** For a report by hand: customer complaint, field return or audit finding. */
   manualKind?: (typeof NC_MANUAL_KINDS)[number] | null;
 }
@@ -43,10 +48,13 @@ export async function raiseNonconformance(
   input: RaiseNonconformanceInput,
   now = new Date(),
 ): Promise<{ id: string; number: string }> {
-  const [actor] = await tx
-    .select({ id: users.id, name: users.name })
-    .from(users)
-    .where(eq(users.id, input.actorId));
+  const [actor]: AuditActor[] =
+    input.actorId === null
+      ? [SYSTEM_ACTOR]
+      : await tx
+          .select({ id: users.id, name: users.name })
+          .from(users)
+          .where(eq(users.id, input.actorId));
   if (!actor)
     throw new UserFacingError("The person raising this is not known.", { kind: "invalid" });
   const recipe = input.recipeId
@@ -107,9 +115,10 @@ export async function raiseNonconformance(
               : input.detectedOn,
         })
       : [];
-  if (affected.length > 0)
+  // In slices: a containment of thousands of cycles would pass SQLite's limit on bound values.
+  for (const slice of chunk(affected))
     await tx.insert(nonconformanceItems).values(
-      affected.map((i) => ({
+      slice.map((i) => ({
         nonconformanceId: nc.id,
         itemKind: i.kind,
         itemId: i.id,
@@ -153,8 +162,9 @@ async function runDate(tx: Tx, runId: string, fallback: string) {
 }
 
 /**
- * The test runs on any version of the recipe for the part family (superseded revisions left
- * out), bounded by the last passing verified run at or before the failure.
+ * The test runs and wash cycles (with their lots) on any version of the recipe for the part
+ * family (superseded run revisions left out), bounded by the last passing verified run at or
+ * before the failure.
  */
 async function affectedRuns(
   tx: Tx,
@@ -186,15 +196,72 @@ async function affectedRuns(
       .map((r) => ({ id: r.id, at: at(r), outcome: r.outcome! })),
     opts.failedAt,
   );
+  const cycles = await cyclesSince(tx, versionIds, partFamilyId, lastPass?.at ?? null, opts.until);
   return containmentScope(
-    runs.map((r) => ({
-      kind: "run" as const,
-      id: r.id,
-      label: r.revision > 1 ? `${r.number} rev. ${r.revision}` : r.number,
-      lots: [],
-      at: at(r),
-    })),
+    [
+      ...runs.map((r) => ({
+        kind: "run" as const,
+        id: r.id,
+        label: r.revision > 1 ? `${r.number} rev. ${r.revision}` : r.number,
+        lots: [],
+        at: at(r),
+      })),
+      ...cycles,
+    ],
     lastPass,
     opts.until,
   );
 }
+
+/**
+ * The wash cycles of the part family on the recipe's versions started in the suspect window, each
+ * with its lots. The window is read through the (version, start) index; `containmentScope` applies
+ * the exact bounds (a bare date as the start of its day).
+ */
+async function cyclesSince(
+  tx: Tx,
+  versionIds: string[],
+  partFamilyId: string,
+  from: string | null,
+  until: string,
+): Promise<ProcessedItem[]> {
+  const rows = await tx
+    .select({
+      id: washCycles.id,
+      cycleNumber: washCycles.cycleNumber,
+      system: cleaningSystems.code,
+      startedAt: washCycles.startedAt,
+    })
+    .from(washCycles)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, washCycles.systemId))
+    .where(
+      and(
+        inArray(washCycles.recipeVersionId, versionIds),
+        eq(washCycles.partFamilyId, partFamilyId),
+        from ? gte(washCycles.startedAt, formatDate(from)) : undefined,
+        lte(washCycles.startedAt, until),
+      ),
+    );
+  if (rows.length === 0) return [];
+  const lots = new Map<string, string[]>();
+  for (const ids of chunk(rows.map((r) => r.id))) {
+    const found = await tx.select().from(washCycleLots).where(inArray(washCycleLots.cycleId, ids));
+    for (const l of found) lots.set(l.cycleId, [...(lots.get(l.cycleId) ?? []), l.lotNumber]);
+  }
+  return rows.map((r) => ({
+    kind: "cycle" as const,
+    id: r.id,
+    label: cycleLabel(r.system, r.cycleNumber),
+    lots: (lots.get(r.id) ?? []).toSorted(),
+    at: r.startedAt,
+  }));
+}
+
+/** How a nonconformance names a wash cycle: the washer and the washer's own cycle id. */
+export function cycleLabel(system: string, cycleNumber: string) {
+  return `${system} cycle ${cycleNumber}`;
+}
+
+// SQLite caps bound parameters per statement; lots are read in slices.
+const chunk = <T>(xs: T[], n = 500) =>
+  Array.from({ length: Math.ceil(xs.length / n) }, (_, i) => xs.slice(i * n, i * n + n));

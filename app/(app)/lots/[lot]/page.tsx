@@ -6,6 +6,7 @@ import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
 import { bathLine } from "@/lib/cycles/lot-export";
 import { formatDateTime } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
+import { NC_SEVERITY_LABELS, NC_STATUS_LABELS } from "@/lib/nonconformances/lifecycle";
 import { TEST_TYPE_LABELS, type TestType } from "@/lib/recipes/test-types";
 import { lotFromPath } from "@/lib/schemas/cycle";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -29,7 +30,7 @@ export default async function LotHistoryPage({ params }: { params: Promise<{ lot
     <>
       <PageHeader
         title={`Lot ${h.lot}`}
-        description={`${h.cycles.length} cycle(s), ${flagged === 0 ? "none flagged" : `${flagged} flagged`}; ${h.runs.length} test run(s) on parts from these cycles.`}
+        description={`${h.cycles.length} cycle(s), ${flagged === 0 ? "none flagged" : `${flagged} flagged`}; ${h.runs.length} test run(s) on parts from these cycles; ${h.nonconformances.length} nonconformance(s).`}
         actions={
           <>
             <a href={exportHref("csv")} className={secondary}>
@@ -136,6 +137,41 @@ export default async function LotHistoryPage({ params }: { params: Promise<{ lot
                   {r.cycles
                     .map((c) => `${c.cycleNumber} (${c.samples} part${c.samples === 1 ? "" : "s"})`)
                     .join(", ")}
+                </Td>
+              </tr>
+            ))}
+          </TBody>
+        </Table>
+      </div>
+      <div className="mt-6">
+        <Table caption="Nonconformances naming this lot" captionVisible>
+          <THead>
+            <Th>Nonconformance</Th>
+            <Th>Detected</Th>
+            <Th>Severity and status</Th>
+            <Th>Names</Th>
+          </THead>
+          <TBody>
+            {h.nonconformances.length === 0 && (
+              <EmptyRow colSpan={4}>No nonconformance names this lot or its cycles.</EmptyRow>
+            )}
+            {h.nonconformances.map((nc) => (
+              <tr key={nc.id}>
+                <Td>
+                  <Link
+                    href={`/nonconformances/${nc.id}`}
+                    className="font-medium text-brand-800 hover:underline"
+                  >
+                    {nc.number}
+                  </Link>
+                  <span className="block text-xs text-stone-600">{nc.title}</span>
+                </Td>
+                <Td>{nc.detectedOn}</Td>
+                <Td>
+                  {NC_SEVERITY_LABELS[nc.severity]} · {NC_STATUS_LABELS[nc.status]}
+                </Td>
+                <Td className="text-xs">
+                  {nc.names.join(", ") || "Raised from a cycle or run of this lot"}
                 </Td>
               </tr>
             ))}

@@ -52,7 +52,7 @@ export default async function TankPage({ params }: { params: Promise<{ stageId: 
         description={[
           tank.stage.tankVolumeL !== null ? `Tank volume ${tank.stage.tankVolumeL} L.` : null,
           tank.age.days !== null
-            ? `Bath age ${tank.age.days} days since ${tank.age.recharged ? "the last dump and recharge" : "the first log entry (no recharge logged)"} on ${formatDate(tank.age.chargedAt)}; ${tank.age.cycles !== null ? `${tank.age.cycles} wash cycles` : "wash cycles not counted yet"}.`
+            ? `Bath age ${tank.age.days} days since ${tank.age.recharged ? "the last dump and recharge" : "the first log entry (no recharge logged)"} on ${formatDate(tank.age.chargedAt)}; ${tank.age.cycles === 1 ? "1 wash cycle" : `${tank.age.cycles ?? 0} wash cycles`} since.`
             : "Bath age unknown: nothing logged yet.",
         ]
           .filter(Boolean)
