@@ -19,7 +19,7 @@ const DAY = 86_400_000;
 /**
  * Two invented deviations, through the services the screens use: one active on the valve-body
  * wash (a substitute detergent needs a stronger bath while the usual one is on back-order), and
- * one on the fitting dryer whose last day has passed, which the expiry job ends.
+ * one on the fitting dryer whose last day has passed, which the expiry job ended the next morning.
  */
 export async function seedDeviations(tx: Tx, ids: Ids, now = new Date()) {
   const person = (email: string) => ({
@@ -87,6 +87,9 @@ export async function seedDeviations(tx: Tx, ids: Ids, now = new Date()) {
     await recordDeviationLotIn(tx, technician, { deviationId: dryer, lot }, daysAgo(ago, 11));
   // The job's pass three days before the dryer deviation's last day: its reminder e-mail.
   await runDeviationJobIn(tx, daysAgo(23, 6));
+  // Its pass the morning after that last day ends the dryer deviation and records why, so the
+  // deviation shows the day it really ended, not the day the demo was loaded.
+  await runDeviationJobIn(tx, daysAgo(19, 6));
 
   const detergent = await approved(
     {
@@ -111,7 +114,4 @@ export async function seedDeviations(tx: Tx, ids: Ids, now = new Date()) {
     ["VB210-L2612-01", 1],
   ] as const)
     await recordDeviationLotIn(tx, technician, { deviationId: detergent, lot }, daysAgo(ago, 11));
-
-  // The expiry job's pass, as the server runs it: it ends the dryer deviation and records why.
-  await runDeviationJobIn(tx, now);
 }
