@@ -8,7 +8,7 @@ import {
   systemStages,
   users,
 } from "./schema";
-import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { appendAudit } from "@/lib/audit";
 import { bathLimitSchema, detergentSchema } from "@/lib/schemas/bath-plan";
 import { bathRecordSchema } from "@/lib/schemas/evidence";
 import { recordBathEntryIn } from "@/lib/server/bath/record-bath-entry";
@@ -50,6 +50,9 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
     const d = new Date(Math.floor(now.getTime() / DAY) * DAY - daysAgo * DAY + hour * 3_600_000);
     return d.toISOString().replace(/:\d\d\.\d{3}Z$/, "");
   };
+  // The engineer set the register, the limits and the check intervals up one morning a month ago,
+  // before the readings below were taken against them.
+  const setUp = (minutes: number) => new Date(`${at(30, 9)}:00Z`).getTime() + minutes * 60_000;
 
   const alkaline = await saveDetergentIn(
     tx,
@@ -60,7 +63,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       titrationMethod: "10 mL bath sample, 0.1 mol/L HCl to the phenolphthalein end point",
       factorPctPerMl: 0.5,
     }),
-    now,
+    new Date(setUp(0)),
   );
   const neutral = await saveDetergentIn(
     tx,
@@ -71,7 +74,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       titrationMethod: "20 mL bath sample, 0.1 mol/L HCl to pH 4.5",
       factorPctPerMl: 0.25,
     }),
-    now,
+    new Date(setUp(5)),
   );
 
   const wash = await tank("AW-3", 1);
@@ -82,7 +85,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
         tx,
         engineer,
         bathLimitSchema.parse({ stageId: wash.id, recipeVersionId: valveBody, ...values }),
-        now,
+        new Date(setUp(20)),
       );
     // Reject limits left blank take the recipe's validated range (2–4 %, 50–65 °C).
     await line({
@@ -139,7 +142,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
         tx,
         engineer,
         bathLimitSchema.parse({ stageId: spray.id, recipeVersionId: fitting, ...values }),
-        now,
+        new Date(setUp(40)),
       );
     await line({
       variable: "concentrationPct",
@@ -181,7 +184,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
     [wash, "ultrasonic_foil_test", 90],
   ] as const) {
     if (!stage) continue;
-    const since = new Date(now.getTime() - 30 * DAY).toISOString();
+    const since = new Date(setUp(60)).toISOString();
     const [row] = await tx
       .insert(maintenanceIntervals)
       .values({
@@ -195,7 +198,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       .returning();
     await appendAudit(
       tx,
-      SYSTEM_ACTOR,
+      engineer,
       {
         eventType: "maintenance_interval.set",
         recordType: "maintenance_interval",
@@ -203,7 +206,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
         old: null,
         new: { tank: stage.name, kind, intervalDays, warnDays: 2 },
       },
-      now,
+      new Date(since),
     );
   }
 }
