@@ -9,6 +9,7 @@ import {
   users,
 } from "./schema";
 import { appendAudit } from "@/lib/audit";
+import { asOf } from "@/lib/audit/seed-stamp";
 import { bathLimitSchema, detergentSchema } from "@/lib/schemas/bath-plan";
 import { bathRecordSchema } from "@/lib/schemas/evidence";
 import { recordBathEntryIn } from "@/lib/server/bath/record-bath-entry";
@@ -52,40 +53,47 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
   };
   // The engineer set the register, the limits and the check intervals up one morning a month ago,
   // before the readings below were taken against them.
-  const setUp = (minutes: number) => new Date(`${at(30, 9)}:00Z`).getTime() + minutes * 60_000;
+  const setUp = (minutes: number) =>
+    new Date(new Date(`${at(30, 9)}:00Z`).getTime() + minutes * 60_000);
 
-  const alkaline = await saveDetergentIn(
-    tx,
-    engineer,
-    detergentSchema.parse({
-      name: "Alkaline cleaner AC-14 (mildly alkaline, silicate-free)",
-      supplier: "Larchfield Chemie (demo)",
-      titrationMethod: "10 mL bath sample, 0.1 mol/L HCl to the phenolphthalein end point",
-      factorPctPerMl: 0.5,
-    }),
-    new Date(setUp(0)),
+  const alkaline = await asOf(setUp(0), null, () =>
+    saveDetergentIn(
+      tx,
+      engineer,
+      detergentSchema.parse({
+        name: "Alkaline cleaner AC-14 (mildly alkaline, silicate-free)",
+        supplier: "Larchfield Chemie (demo)",
+        titrationMethod: "10 mL bath sample, 0.1 mol/L HCl to the phenolphthalein end point",
+        factorPctPerMl: 0.5,
+      }),
+      setUp(0),
+    ),
   );
-  const neutral = await saveDetergentIn(
-    tx,
-    engineer,
-    detergentSchema.parse({
-      name: "Neutral cleaner NC-7",
-      supplier: "Larchfield Chemie (demo)",
-      titrationMethod: "20 mL bath sample, 0.1 mol/L HCl to pH 4.5",
-      factorPctPerMl: 0.25,
-    }),
-    new Date(setUp(5)),
+  const neutral = await asOf(setUp(5), null, () =>
+    saveDetergentIn(
+      tx,
+      engineer,
+      detergentSchema.parse({
+        name: "Neutral cleaner NC-7",
+        supplier: "Larchfield Chemie (demo)",
+        titrationMethod: "20 mL bath sample, 0.1 mol/L HCl to pH 4.5",
+        factorPctPerMl: 0.25,
+      }),
+      setUp(5),
+    ),
   );
 
   const wash = await tank("AW-3", 1);
   const valveBody = await effective("R-AW3-VB");
   if (wash && valveBody) {
     const line = (values: Record<string, unknown>) =>
-      setBathLimitIn(
-        tx,
-        engineer,
-        bathLimitSchema.parse({ stageId: wash.id, recipeVersionId: valveBody, ...values }),
-        new Date(setUp(20)),
+      asOf(setUp(20), null, () =>
+        setBathLimitIn(
+          tx,
+          engineer,
+          bathLimitSchema.parse({ stageId: wash.id, recipeVersionId: valveBody, ...values }),
+          setUp(20),
+        ),
       );
     // Reject limits left blank take the recipe's validated range (2–4 %, 50–65 °C).
     await line({
@@ -106,7 +114,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
     await line({ variable: "oilContentGPerL", actionHigh: 3, rejectHigh: 6 });
     const entry = (values: Record<string, unknown>) => {
       const input = bathRecordSchema.parse({ stageId: wash.id, ...values });
-      return recordBathEntryIn(tx, technician, input, new Date(`${input.performedAt}:00Z`));
+      const when = new Date(`${input.performedAt}:00Z`);
+      return asOf(when, null, () => recordBathEntryIn(tx, technician, input, when));
     };
     await entry({
       kind: "reading",
@@ -138,11 +147,13 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
   const fitting = await effective("R-SC1-SF");
   if (spray && fitting) {
     const line = (values: Record<string, unknown>) =>
-      setBathLimitIn(
-        tx,
-        engineer,
-        bathLimitSchema.parse({ stageId: spray.id, recipeVersionId: fitting, ...values }),
-        new Date(setUp(40)),
+      asOf(setUp(40), null, () =>
+        setBathLimitIn(
+          tx,
+          engineer,
+          bathLimitSchema.parse({ stageId: spray.id, recipeVersionId: fitting, ...values }),
+          setUp(40),
+        ),
       );
     await line({
       variable: "concentrationPct",
@@ -166,7 +177,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       checkResult: "pass",
       notes: "All 24 nozzles clear; spray pattern even",
     });
-    await recordBathEntryIn(tx, technician, input, new Date(`${input.performedAt}:00Z`));
+    const checkedAt = new Date(`${input.performedAt}:00Z`);
+    await asOf(checkedAt, null, () => recordBathEntryIn(tx, technician, input, checkedAt));
     const filter = bathRecordSchema.parse({
       stageId: spray.id,
       kind: "filter_change",
@@ -175,7 +187,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       filterRatingUm: 25,
       differentialPressureBar: 1.4,
     });
-    await recordBathEntryIn(tx, technician, filter, new Date(`${filter.performedAt}:00Z`));
+    const changedAt = new Date(`${filter.performedAt}:00Z`);
+    await asOf(changedAt, null, () => recordBathEntryIn(tx, technician, filter, changedAt));
   }
 
   // Check intervals: the nozzle check falls due in the demo's queue, the foil test is in date.
@@ -184,7 +197,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
     [wash, "ultrasonic_foil_test", 90],
   ] as const) {
     if (!stage) continue;
-    const since = new Date(setUp(60)).toISOString();
+    const since = setUp(60).toISOString();
     const [row] = await tx
       .insert(maintenanceIntervals)
       .values({
