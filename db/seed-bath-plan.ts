@@ -133,7 +133,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       additionUnit: "L",
       additionLot: "AC14-2611-07",
     });
-    // Oil creeping up: beyond its action limit, so it waits in My queue for a skim and a re-check.
+    // Oil creeping up with the skimmer out of service (its deviation: db/seed-deviations.ts): beyond
+    // its action limit, so it waits in My queue for a skim by hand and a re-check.
     await entry({
       kind: "reading",
       performedAt: at(1, 7),
