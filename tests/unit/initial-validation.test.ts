@@ -137,6 +137,8 @@ async function verifiedRun(
     Array.from({ length: samples }, (_, i) => ({
       runId: run.id,
       sampleLabel: `S${i + 1}`,
+      // Parts from three washer cycles: the gate's usual minimum of independent washes [practice].
+      cycleNumber: `${number}-C${(i % 3) + 1}`,
       data: { counts: {} },
     })),
   );
