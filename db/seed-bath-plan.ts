@@ -8,7 +8,8 @@ import {
   systemStages,
   users,
 } from "./schema";
-import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { appendAudit } from "@/lib/audit";
+import { asOf } from "@/lib/audit/seed-stamp";
 import { bathLimitSchema, detergentSchema } from "@/lib/schemas/bath-plan";
 import { bathRecordSchema } from "@/lib/schemas/evidence";
 import { recordBathEntryIn } from "@/lib/server/bath/record-bath-entry";
@@ -50,39 +51,49 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
     const d = new Date(Math.floor(now.getTime() / DAY) * DAY - daysAgo * DAY + hour * 3_600_000);
     return d.toISOString().replace(/:\d\d\.\d{3}Z$/, "");
   };
+  // The engineer set the register, the limits and the check intervals up one morning a month ago,
+  // before the readings below were taken against them.
+  const setUp = (minutes: number) =>
+    new Date(new Date(`${at(30, 9)}:00Z`).getTime() + minutes * 60_000);
 
-  const alkaline = await saveDetergentIn(
-    tx,
-    engineer,
-    detergentSchema.parse({
-      name: "Alkaline cleaner AC-14 (mildly alkaline, silicate-free)",
-      supplier: "Larchfield Chemie (demo)",
-      titrationMethod: "10 mL bath sample, 0.1 mol/L HCl to the phenolphthalein end point",
-      factorPctPerMl: 0.5,
-    }),
-    now,
+  const alkaline = await asOf(setUp(0), null, () =>
+    saveDetergentIn(
+      tx,
+      engineer,
+      detergentSchema.parse({
+        name: "Alkaline cleaner AC-14 (mildly alkaline, silicate-free)",
+        supplier: "Larchfield Chemie (demo)",
+        titrationMethod: "10 mL bath sample, 0.1 mol/L HCl to the phenolphthalein end point",
+        factorPctPerMl: 0.5,
+      }),
+      setUp(0),
+    ),
   );
-  const neutral = await saveDetergentIn(
-    tx,
-    engineer,
-    detergentSchema.parse({
-      name: "Neutral cleaner NC-7",
-      supplier: "Larchfield Chemie (demo)",
-      titrationMethod: "20 mL bath sample, 0.1 mol/L HCl to pH 4.5",
-      factorPctPerMl: 0.25,
-    }),
-    now,
+  const neutral = await asOf(setUp(5), null, () =>
+    saveDetergentIn(
+      tx,
+      engineer,
+      detergentSchema.parse({
+        name: "Neutral cleaner NC-7",
+        supplier: "Larchfield Chemie (demo)",
+        titrationMethod: "20 mL bath sample, 0.1 mol/L HCl to pH 4.5",
+        factorPctPerMl: 0.25,
+      }),
+      setUp(5),
+    ),
   );
 
   const wash = await tank("AW-3", 1);
   const valveBody = await effective("R-AW3-VB");
   if (wash && valveBody) {
     const line = (values: Record<string, unknown>) =>
-      setBathLimitIn(
-        tx,
-        engineer,
-        bathLimitSchema.parse({ stageId: wash.id, recipeVersionId: valveBody, ...values }),
-        now,
+      asOf(setUp(20), null, () =>
+        setBathLimitIn(
+          tx,
+          engineer,
+          bathLimitSchema.parse({ stageId: wash.id, recipeVersionId: valveBody, ...values }),
+          setUp(20),
+        ),
       );
     // Reject limits left blank take the recipe's validated range (2–4 %, 50–65 °C).
     await line({
@@ -103,7 +114,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
     await line({ variable: "oilContentGPerL", actionHigh: 3, rejectHigh: 6 });
     const entry = (values: Record<string, unknown>) => {
       const input = bathRecordSchema.parse({ stageId: wash.id, ...values });
-      return recordBathEntryIn(tx, technician, input, new Date(`${input.performedAt}:00Z`));
+      const when = new Date(`${input.performedAt}:00Z`);
+      return asOf(when, null, () => recordBathEntryIn(tx, technician, input, when));
     };
     await entry({
       kind: "reading",
@@ -121,7 +133,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       additionUnit: "L",
       additionLot: "AC14-2611-07",
     });
-    // Oil creeping up: beyond its action limit, so it waits in My queue for a skim and a re-check.
+    // Oil creeping up with the skimmer out of service (its deviation: db/seed-deviations.ts): beyond
+    // its action limit, so it waits in My queue for a skim by hand and a re-check.
     await entry({
       kind: "reading",
       performedAt: at(1, 7),
@@ -135,11 +148,13 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
   const fitting = await effective("R-SC1-SF");
   if (spray && fitting) {
     const line = (values: Record<string, unknown>) =>
-      setBathLimitIn(
-        tx,
-        engineer,
-        bathLimitSchema.parse({ stageId: spray.id, recipeVersionId: fitting, ...values }),
-        now,
+      asOf(setUp(40), null, () =>
+        setBathLimitIn(
+          tx,
+          engineer,
+          bathLimitSchema.parse({ stageId: spray.id, recipeVersionId: fitting, ...values }),
+          setUp(40),
+        ),
       );
     await line({
       variable: "concentrationPct",
@@ -163,7 +178,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       checkResult: "pass",
       notes: "All 24 nozzles clear; spray pattern even",
     });
-    await recordBathEntryIn(tx, technician, input, new Date(`${input.performedAt}:00Z`));
+    const checkedAt = new Date(`${input.performedAt}:00Z`);
+    await asOf(checkedAt, null, () => recordBathEntryIn(tx, technician, input, checkedAt));
     const filter = bathRecordSchema.parse({
       stageId: spray.id,
       kind: "filter_change",
@@ -172,7 +188,8 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       filterRatingUm: 25,
       differentialPressureBar: 1.4,
     });
-    await recordBathEntryIn(tx, technician, filter, new Date(`${filter.performedAt}:00Z`));
+    const changedAt = new Date(`${filter.performedAt}:00Z`);
+    await asOf(changedAt, null, () => recordBathEntryIn(tx, technician, filter, changedAt));
   }
 
   // Check intervals: the nozzle check falls due in the demo's queue, the foil test is in date.
@@ -181,7 +198,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
     [wash, "ultrasonic_foil_test", 90],
   ] as const) {
     if (!stage) continue;
-    const since = new Date(now.getTime() - 30 * DAY).toISOString();
+    const since = setUp(60).toISOString();
     const [row] = await tx
       .insert(maintenanceIntervals)
       .values({
@@ -195,7 +212,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
       .returning();
     await appendAudit(
       tx,
-      SYSTEM_ACTOR,
+      engineer,
       {
         eventType: "maintenance_interval.set",
         recordType: "maintenance_interval",
@@ -203,7 +220,7 @@ export async function seedBathPlan(tx: Tx, now = new Date()) {
         old: null,
         new: { tank: stage.name, kind, intervalDays, warnDays: 2 },
       },
-      now,
+      new Date(since),
     );
   }
 }

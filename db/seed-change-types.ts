@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { appendAudit } from "@/lib/audit";
 import { narrativeDocument } from "@/lib/changes/content";
 import { addDays } from "@/lib/changes/emergency";
 import type { RichDoc } from "@/lib/documents/rich-text";
@@ -17,6 +17,10 @@ import { recipes, recipeVersions, users } from "./schema";
 import { DEMO_PASSWORD } from "./seed-data";
 
 const DAY = 86_400_000;
+const MINUTE = 60_000;
+/** Midnight UTC of the day `days` before `now`, plus `hour` hours: demo steps fall on whole times. */
+const dayBefore = (now: Date, days: number, hour: number) =>
+  new Date(Math.floor(now.getTime() / DAY) * DAY - days * DAY + hour * 60 * MINUTE);
 
 /**
  * An emergency change past its approval deadline: the bearing-cap recipe's final rinse was
@@ -30,14 +34,19 @@ export async function seedChangeTypes(db: Database, now = new Date()) {
     return u ? { id: u.id, name: u.name } : null;
   };
   const engineer = await person("engineer@fennmoor.example");
+  // The approver who put version 1 in force; without one, the engineer stands in for the history.
+  const approver = (await person("approver@fennmoor.example")) ?? engineer;
   const [source] = await db
     .select({ version: recipeVersions, systemId: recipes.systemId })
     .from(recipes)
     .innerJoin(recipeVersions, eq(recipeVersions.recipeId, recipes.id))
     .where(and(eq(recipes.code, "R-AW3-VB"), eq(recipeVersions.status, "effective")));
-  if (!engineer || !source) return;
+  if (!engineer || !approver || !source) return;
 
-  const validatedAt = new Date(now.getTime() - 200 * DAY).toISOString();
+  // Version 1 was drafted two weeks before it was validated and put in force, like the other
+  // recipes of the plant's first year.
+  const validatedAt = "2025-06-16T07:00:00.000Z";
+  const draftedAt = new Date("2025-06-02T07:00:00.000Z");
   const content = await loadRecipeSnapshot(db, source.version.id);
   const recipeId = await db.transaction(async (tx) => {
     const [recipe] = await tx
@@ -49,12 +58,17 @@ export async function seedChangeTypes(db: Database, now = new Date()) {
         description: "Bearing caps in baskets of 36; same stages as the valve body.",
       })
       .returning();
-    await appendAudit(tx, SYSTEM_ACTOR, {
-      eventType: "recipe.created",
-      recordType: "recipe",
-      recordId: recipe.id,
-      new: { code: recipe.code, name: recipe.name },
-    });
+    await appendAudit(
+      tx,
+      engineer,
+      {
+        eventType: "recipe.created",
+        recordType: "recipe",
+        recordId: recipe.id,
+        new: { code: recipe.code, name: recipe.name },
+      },
+      draftedAt,
+    );
     const [v1] = await tx
       .insert(recipeVersions)
       .values({
@@ -65,27 +79,39 @@ export async function seedChangeTypes(db: Database, now = new Date()) {
         notes: "First validated version.",
         effectiveFrom: validatedAt,
         createdBy: engineer.id,
-        createdAt: validatedAt,
+        createdAt: draftedAt.toISOString(),
       })
       .returning();
     await writeRecipeContent(tx, v1.id, { ...content, notes: "First validated version." });
-    await appendAudit(tx, SYSTEM_ACTOR, {
-      eventType: "recipe_version.created",
-      recordType: "recipe_version",
-      recordId: v1.id,
-      new: { recipe: recipe.code, version: 1, notes: "First validated version." },
-    });
-    await appendAudit(tx, SYSTEM_ACTOR, {
-      eventType: "recipe_version.effective",
-      recordType: "recipe_version",
-      recordId: v1.id,
-      new: { status: "effective", effectiveFrom: validatedAt },
-    });
+    await appendAudit(
+      tx,
+      engineer,
+      {
+        eventType: "recipe_version.created",
+        recordType: "recipe_version",
+        recordId: v1.id,
+        new: { recipe: recipe.code, version: 1, notes: "First validated version." },
+      },
+      draftedAt,
+    );
+    await appendAudit(
+      tx,
+      approver,
+      {
+        eventType: "recipe_version.effective",
+        recordType: "recipe_version",
+        recordId: v1.id,
+        new: { status: "effective", effectiveFrom: validatedAt },
+      },
+      new Date(validatedAt),
+    );
     return recipe.id;
   });
 
-  // From here on, through the services the screens use, dated six days ago.
-  const at = new Date(now.getTime() - 6 * DAY);
+  // From here on, through the services the screens use, late on the morning six days ago: the stains
+  // are found on the caps shipped that morning, and the change is in force within the hour.
+  const at = dayBefore(now, 6, 10);
+  const step = (minutes: number) => new Date(at.getTime() + minutes * MINUTE);
   const actor = { ...engineer, roles: ["engineer" as const] };
   const cr = await openChangeRequest(
     engineer,
@@ -118,7 +144,7 @@ export async function seedChangeTypes(db: Database, now = new Date()) {
         })),
       },
     }),
-    at,
+    step(10),
   );
   const narrative = (await loadChangeState(db, cr.id)).narrative!;
   await saveDraft(
@@ -131,22 +157,22 @@ export async function seedChangeTypes(db: Database, now = new Date()) {
       ) as RichDoc,
       overwrite: false,
     },
-    at,
+    step(25),
   );
   const signed = async () => ({
     changeRequestId: cr.id,
     password: DEMO_PASSWORD,
     contentHash: (await loadChangeState(db, cr.id)).contentHash,
   });
-  await assessChange(engineer, await signed(), at);
+  await assessChange(engineer, await signed(), step(35));
   await implementEmergency(
     engineer,
     {
       ...(await signed()),
       justification:
-        "The customer's line stops tonight without clean caps; the approver is away until Monday.",
+        "The customer's line stops tonight without clean caps; the approver is away for the next three days.",
       approvalDueOn: addDays(todayUtc(at), 3),
     },
-    at,
+    step(45),
   );
 }

@@ -12,8 +12,10 @@ import {
   users,
 } from "./schema";
 import { isCycleValue } from "@/lib/cycles/flag";
+import { todayUtc } from "@/lib/format/date";
 import { inForceAt } from "@/lib/cycles/in-force";
 import type { CycleInput } from "@/lib/schemas/cycle";
+import { asOf } from "@/lib/audit/seed-stamp";
 import { recordCyclesIn } from "@/lib/server/cycles/record-cycles";
 
 const DAY = 86_400_000;
@@ -21,6 +23,17 @@ const HOUR = 3_600_000;
 const yymmdd = (t: number) => new Date(t).toISOString().slice(2, 10).replaceAll("-", "");
 /** "PF-VB-210" → "VB210": the short family mark printed on the lot travellers. */
 const familyMark = (code: string) => code.replace(/^PF-/, "").replaceAll("-", "");
+/** The cycles in groups by key, in key order (Map.groupBy needs Node 21). */
+function groupSorted<K extends string | number>(cycles: CycleInput[], key: (c: CycleInput) => K) {
+  const groups = new Map<K, CycleInput[]>();
+  for (const c of cycles) {
+    const k = key(c);
+    const group = groups.get(k);
+    if (group) group.push(c);
+    else groups.set(k, [c]);
+  }
+  return [...groups].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+}
 
 /**
  * The demo's wash cycles, recorded through the same service as the form, the log import and the API:
@@ -100,8 +113,13 @@ export async function seedCycles(tx: Tx, now = new Date()) {
       values: valuesFor(combo.versionId),
     });
   }
-  if (testCycles.length > 0)
-    await recordCyclesIn(tx, operator, { source: "form", cycles: testCycles });
+  // Each test day's cycles are entered on the form that morning, before the run is opened at 08:00.
+  for (const [day, cycles] of groupSorted(testCycles, (c) => todayUtc(new Date(c.startedAt)))) {
+    const recordedAt = new Date(`${day}T07:30:00.000Z`);
+    await asOf(recordedAt, null, () =>
+      recordCyclesIn(tx, operator, { source: "form", cycles }, recordedAt),
+    );
+  }
 
   // Routine production: two cycles a day on each washer, on the combinations in force.
   const first = Math.floor(now.getTime() / DAY) * DAY - 120 * DAY;
@@ -131,5 +149,13 @@ export async function seedCycles(tx: Tx, now = new Date()) {
           values: valuesFor(combo.versionId, si === 0 && d === 60 && shift === 0),
         });
       }
-  if (routine.length > 0) await recordCyclesIn(tx, operator, { source: "csv", cycles: routine });
+  // The washers' logs are imported once a week, the morning after the week's last shift; the
+  // flagged cycle's event then carries the day its week was imported.
+  const weekOf = (c: CycleInput) => Math.floor((Date.parse(c.startedAt) - first) / (7 * DAY));
+  for (const [week, cycles] of groupSorted(routine, weekOf)) {
+    const recordedAt = new Date(first + (week + 1) * 7 * DAY + 7 * HOUR);
+    await asOf(recordedAt, null, () =>
+      recordCyclesIn(tx, operator, { source: "csv", cycles }, recordedAt),
+    );
+  }
 }

@@ -18,8 +18,9 @@ const DAY = 86_400_000;
 
 /**
  * Two invented deviations, through the services the screens use: one active on the valve-body
- * wash (a substitute detergent needs a stronger bath while the usual one is on back-order), and
- * one on the fitting dryer whose last day has passed, which the expiry job ends.
+ * wash (a stronger bath carries the oil while the tank's skimmer is repaired; the bath log shows
+ * the oil rising, db/seed-bath-plan.ts), and
+ * one on the fitting dryer whose last day has passed, which the expiry job ended the next morning.
  */
 export async function seedDeviations(tx: Tx, ids: Ids, now = new Date()) {
   const person = (email: string) => ({
@@ -87,15 +88,18 @@ export async function seedDeviations(tx: Tx, ids: Ids, now = new Date()) {
     await recordDeviationLotIn(tx, technician, { deviationId: dryer, lot }, daysAgo(ago, 11));
   // The job's pass three days before the dryer deviation's last day: its reminder e-mail.
   await runDeviationJobIn(tx, daysAgo(23, 6));
+  // Its pass the morning after that last day ends the dryer deviation and records why, so the
+  // deviation shows the day it really ended, not the day the demo was loaded.
+  await runDeviationJobIn(tx, daysAgo(19, 6));
 
-  const detergent = await approved(
+  const skimmer = await approved(
     {
       recipeId: ids.recipeIds.get("R-AW3-VB")!,
-      title: "Substitute detergent AC-22 at up to 4.5 % while AC-14 is on back-order",
+      title: "Wash concentration up to 4.5 % while the tank 1 oil skimmer is repaired",
       justification:
-        "The supplier cannot deliver Alkaline cleaner AC-14 before January. AC-22 is the same supplier's silicate-free alkaline cleaner; for the same free alkalinity it needs 4–4.5 %, above the validated 2–4 %.",
+        "The belt skimmer of the AW-3 wash tank failed; the spare belt is on order. Without skimming the bath carries more oil, and AC-14 at up to 4.5 %, above the validated 2–4 %, keeps it emulsified until the skimmer runs again.",
       riskLevel: "low",
-      risk: "Residue of the stronger bath on the valve bodies. Contained by rinse conductivity checked every shift and one particle test on the first lot cleaned with AC-22.",
+      risk: "Residue of the stronger bath on the valve bodies. Contained by rinse conductivity checked every shift, the oil content read at every bath reading, and one particle test on the first lot cleaned under this deviation.",
       endsOn: todayUtc(new Date(now.getTime() + 24 * DAY)),
       maxLots: "40",
       reminderDays: "3",
@@ -110,8 +114,5 @@ export async function seedDeviations(tx: Tx, ids: Ids, now = new Date()) {
     ["VB210-L2611-28", 3],
     ["VB210-L2612-01", 1],
   ] as const)
-    await recordDeviationLotIn(tx, technician, { deviationId: detergent, lot }, daysAgo(ago, 11));
-
-  // The expiry job's pass, as the server runs it: it ends the dryer deviation and records why.
-  await runDeviationJobIn(tx, now);
+    await recordDeviationLotIn(tx, technician, { deviationId: skimmer, lot }, daysAgo(ago, 11));
 }

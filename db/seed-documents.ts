@@ -22,6 +22,15 @@ import { formatDate } from "@/lib/format/date";
  * One effective, fully signed OQ protocol for the demo: Ines wrote it, Tomas
  * reviewed it, Helena approved it. Invented text from our own template.
  */
+/** The OQ was written the week the valve-body recipe's version 2 took effect (CR-2025-001),
+ * before the first run on it, and went through review and approval over three days. */
+const OQ = {
+  drafted: "2025-09-02T09:00:00.000Z",
+  authored: "2025-09-02T15:00:00.000Z",
+  reviewed: "2025-09-03T10:30:00.000Z",
+  approved: "2025-09-04T14:00:00.000Z",
+} as const;
+
 export async function seedDemoDocuments(
   tx: Tx,
   people: {
@@ -29,7 +38,6 @@ export async function seedDemoDocuments(
     reviewer: { id: string; name: string };
     approver: { id: string; name: string };
   },
-  now = new Date(),
 ) {
   const [system] = await tx.select().from(cleaningSystems).where(eq(cleaningSystems.code, "AW-3"));
   const stages = await tx
@@ -83,8 +91,7 @@ export async function seedDemoDocuments(
     sample: { confidencePct: 95, reliabilityPct: 90, size: sampleSize },
   });
   const contentHash = sha256Hex(canonicalJson(content));
-  const at = now.toISOString();
-  const today = formatDate(at);
+  const effectiveDate = formatDate(OQ.approved);
 
   const [document] = await tx
     .insert(documents)
@@ -96,6 +103,7 @@ export async function seedDemoDocuments(
       partFamilyId: family.f.id,
       recipeVersionId: effective.id,
       ownerId: people.engineer.id,
+      createdAt: OQ.drafted,
     })
     .returning();
   const [version] = await tx
@@ -107,12 +115,13 @@ export async function seedDemoDocuments(
       content,
       contentHash,
       lockVersion: 1,
-      effectiveDate: today,
+      effectiveDate,
       reviewRound: 1,
       routing: "sequence",
-      submittedAt: at,
-      approvedAt: at,
+      submittedAt: OQ.authored,
+      approvedAt: OQ.approved,
       createdBy: people.engineer.id,
+      createdAt: OQ.drafted,
     })
     .returning();
   await tx.insert(documentReviews).values([
@@ -122,10 +131,10 @@ export async function seedDemoDocuments(
       step: 1,
       role: "reviewer",
       assigneeId: people.reviewer.id,
-      activatedAt: at,
-      dueAt: at,
+      activatedAt: OQ.authored,
+      dueAt: OQ.reviewed,
       decision: "reviewed",
-      decidedAt: at,
+      decidedAt: OQ.reviewed,
     },
     {
       versionId: version.id,
@@ -133,10 +142,10 @@ export async function seedDemoDocuments(
       step: 2,
       role: "approver",
       assigneeId: people.approver.id,
-      activatedAt: at,
-      dueAt: at,
+      activatedAt: OQ.reviewed,
+      dueAt: OQ.approved,
       decision: "approved",
-      decidedAt: at,
+      decidedAt: OQ.approved,
     },
   ]);
   await appendAudit(
@@ -157,13 +166,14 @@ export async function seedDemoDocuments(
         sampleSize,
       },
     },
-    now,
+    new Date(OQ.drafted),
   );
   for (const [person, meaning] of [
     [people.engineer, "authored"],
     [people.reviewer, "reviewed"],
     [people.approver, "approved"],
   ] as const) {
+    const signedAt = OQ[meaning];
     const [sig] = await tx
       .insert(signatures)
       .values({
@@ -172,7 +182,7 @@ export async function seedDemoDocuments(
         userId: person.id,
         printedName: person.name,
         meaning,
-        signedAt: at,
+        signedAt,
         contentHash,
       })
       .returning();
@@ -189,22 +199,22 @@ export async function seedDemoDocuments(
           meaning,
           printedName: person.name,
           contentHash,
-          signedAt: at,
+          signedAt,
         },
       },
-      now,
+      new Date(signedAt),
     );
   }
   await appendAudit(
     tx,
-    // Approved with an effective date of today: in force on the approver's signature.
+    // Approved with an effective date of the approval day: in force on the approver's signature.
     people.approver,
     {
       eventType: "document.effective",
       recordType: "document_version",
       recordId: version.id,
-      new: { status: "effective", effectiveDate: today, version: version.version },
+      new: { status: "effective", effectiveDate, version: version.version },
     },
-    now,
+    new Date(OQ.approved),
   );
 }

@@ -1,5 +1,5 @@
 import { and, desc, eq, like } from "drizzle-orm";
-import { appendAudit, SYSTEM_ACTOR } from "@/lib/audit";
+import { appendAudit } from "@/lib/audit";
 import { computeRunOutcome } from "@/lib/evidence/outcome";
 import { runContentHash } from "@/lib/evidence/run-hash";
 import { labDetailsSchema } from "@/lib/schemas/lab-details";
@@ -67,7 +67,7 @@ function sample(i: 0 | 1 | 2) {
   };
 }
 
-export async function seedLabReport(tx: Tx, now = new Date()) {
+export async function seedLabReport(tx: Tx) {
   const person = async (email: string) =>
     (
       await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, email))
@@ -169,9 +169,11 @@ export async function seedLabReport(tx: Tx, now = new Date()) {
     updatedBy: technician.id,
     updatedAt: `${AT}T14:00:00.000Z`,
   });
+  // Each event on the lab day, by who did it: the run opened in the morning, the lab details
+  // entered in the afternoon, then the two signatures.
   await appendAudit(
     tx,
-    SYSTEM_ACTOR,
+    technician,
     {
       eventType: "test_run.created",
       recordType: "test_run",
@@ -186,11 +188,11 @@ export async function seedLabReport(tx: Tx, now = new Date()) {
         performedOn: AT,
       },
     },
-    now,
+    new Date(`${AT}T08:00:00.000Z`),
   );
   await appendAudit(
     tx,
-    SYSTEM_ACTOR,
+    technician,
     {
       eventType: "test_run.lab_details_saved",
       recordType: "test_run",
@@ -198,7 +200,7 @@ export async function seedLabReport(tx: Tx, now = new Date()) {
       old: { details: null },
       new: { details },
     },
-    now,
+    new Date(`${AT}T14:00:00.000Z`),
   );
   const { hash } = runContentHash(
     run,
@@ -238,7 +240,7 @@ export async function seedLabReport(tx: Tx, now = new Date()) {
           signedAt,
         },
       },
-      now,
+      new Date(signedAt),
     );
   }
 }

@@ -173,6 +173,15 @@ describe("measurement plan", () => {
     );
   });
 
+  it("bounds a wash tank's temperature by the recipe's wash stage, not by its rinse", async () => {
+    // R-AW3-VB v2 (demo data): wash 50–65 °C at 60 °C; its rinse, listed later, 35–55 °C.
+    const row = await setBathLimit(
+      engineer,
+      limit({ variable: "temperatureC", actionLow: "55", actionHigh: "63" }),
+    );
+    expect([row.rejectLow, row.target, row.rejectHigh]).toEqual([50, 60, 65]);
+  });
+
   it("turns a titration into a concentration, queues a reading beyond an action limit and flags one beyond reject", async () => {
     // [practice] 6.2 mL × 0.5 %/mL = 3.1 %: within the action limits.
     const ok = await recordBathEntry(

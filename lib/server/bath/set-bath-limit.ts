@@ -5,6 +5,7 @@ import {
   bathLimits,
   detergents,
   recipeParameters,
+  recipeStages,
   recipes,
   recipeVersions,
   systemStages,
@@ -78,16 +79,22 @@ export async function setBathLimitIn(
   const bound = RECIPE_KIND[input.variable];
   if (bound) {
     const params = await tx
-      .select()
+      .select({ parameter: recipeParameters, stageKind: recipeStages.kind })
       .from(recipeParameters)
+      .innerJoin(recipeStages, eq(recipeStages.id, recipeParameters.stageId))
       .where(
         and(
           eq(recipeParameters.versionId, input.recipeVersionId),
           eq(recipeParameters.kind, bound.kind),
           eq(recipeParameters.unit, bound.unit),
         ),
-      );
-    const p = params.find((x) => x.validatedLow !== null || x.validatedHigh !== null);
+      )
+      .orderBy(recipeStages.position);
+    const bounded = params.filter(
+      (x) => x.parameter.validatedLow !== null || x.parameter.validatedHigh !== null,
+    );
+    // A washer's wash and rinse stages each have a temperature: the tank's own stage bounds its line.
+    const p = (bounded.find((x) => x.stageKind === stage.kind) ?? bounded[0])?.parameter;
     if (p) {
       limits.rejectLow ??= p.validatedLow;
       limits.rejectHigh ??= p.validatedHigh;

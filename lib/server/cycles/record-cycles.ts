@@ -79,6 +79,7 @@ export async function recordCyclesIn(
   tx: Tx,
   actor: AuditActor & { id: string },
   input: RecordCycles,
+  now = new Date(),
 ) {
   const { cycles } = input;
   if (cycles.length === 0)
@@ -280,7 +281,7 @@ export async function recordCyclesIn(
     );
 
   const batchId = crypto.randomUUID();
-  const now = new Date().toISOString();
+  const recordedAt = now.toISOString();
   const rows = (checked as Checked[]).map((c) => ({
     id: crypto.randomUUID(),
     systemId: c.systemId,
@@ -297,7 +298,7 @@ export async function recordCyclesIn(
     source: input.source,
     batchId,
     recordedBy: actor.id,
-    createdAt: now,
+    createdAt: recordedAt,
   }));
   for (const part of chunks(rows)) {
     await tx.insert(washCycles).values(part);
@@ -327,18 +328,23 @@ export async function recordCyclesIn(
           },
         ];
   });
-  await appendAudit(tx, actor, {
-    eventType: "wash_cycles.recorded",
-    recordType: "wash_cycle_batch",
-    recordId: batchId,
-    new: {
-      source: input.source,
-      count: rows.length,
-      cycles: rows.slice(0, 50).map((r) => r.cycleNumber),
-      flagged: flagged.length,
-      ...(input.file ? { fileName: input.file.name, sha256: input.file.sha256 } : {}),
+  await appendAudit(
+    tx,
+    actor,
+    {
+      eventType: "wash_cycles.recorded",
+      recordType: "wash_cycle_batch",
+      recordId: batchId,
+      new: {
+        source: input.source,
+        count: rows.length,
+        cycles: rows.slice(0, 50).map((r) => r.cycleNumber),
+        flagged: flagged.length,
+        ...(input.file ? { fileName: input.file.name, sha256: input.file.sha256 } : {}),
+      },
     },
-  });
+    now,
+  );
   await recordCycleFlags(tx, actor, flagged);
   return {
     batchId,
