@@ -5,6 +5,7 @@ import {
   auditEvents,
   nonconformanceItems,
   nonconformances,
+  requalificationMatrixRows,
   users,
   washCycleLots,
   washCycles,
@@ -22,6 +23,7 @@ import { createApiToken } from "@/lib/server/api-tokens/create-api-token";
 import { loadLotHistory, searchLots } from "@/lib/server/cycles/lot-history";
 import { recordCycles } from "@/lib/server/cycles/record-cycles-now";
 import { CycleRecordingError } from "@/lib/server/cycles/record-cycles";
+import { getEffectiveMatrix } from "@/lib/server/changes/state";
 import { createTestDatabase } from "./support/test-db";
 
 const temperature: CycleParameter = {
@@ -168,6 +170,23 @@ const refusal = async (input: Parameters<typeof recordCycles>[1]) => {
   expect(error).toBeInstanceOf(CycleRecordingError);
   return error as CycleRecordingError;
 };
+
+describe("the effective requalification matrix", () => {
+  it("keeps each row's minimum of distinct cycles, so a change asks what the matrix states", async () => {
+    const row = (await getEffectiveMatrix(t.db))!.rows[0];
+    await t.db
+      .update(requalificationMatrixRows)
+      .set({ minCycles: 2 })
+      .where(eq(requalificationMatrixRows.id, row.id));
+    const matrix = await getEffectiveMatrix(t.db);
+    const loaded = matrix!.rows.find((r) => r.id === row.id);
+    expect(loaded?.minCycles).toBe(2);
+    await t.db
+      .update(requalificationMatrixRows)
+      .set({ minCycles: row.minCycles ?? 3 })
+      .where(eq(requalificationMatrixRows.id, row.id));
+  });
+});
 
 describe("recording cycles", () => {
   it("seeds a few hundred demo cycles with lots, one of them flagged", async () => {

@@ -46,6 +46,7 @@ export async function getEffectiveMatrix(db: Executor) {
       testType: r.testType as TestType,
       confidencePct: r.confidencePct,
       reliabilityPct: r.reliabilityPct,
+      minCycles: r.minCycles,
     })),
   };
 }
