@@ -45,6 +45,9 @@ test("an administrator adding a stage to a washer that runs an effective recipe 
   await page.getByLabel("Kind of stage 4").selectOption({ label: "Final rinse" });
   await page.getByRole("group", { name: "Stage 4 can run" }).getByLabel("Spray").check();
   await page.getByLabel("Tank volume of stage 4 (L)").fill("300");
+  await page.getByLabel("Spray pressure of stage 4 (bar)").fill("2");
+  // Stages run in process order: the final rinse goes before the dryer.
+  await page.getByRole("button", { name: "Move stage 4 up" }).click();
   await page.getByRole("button", { name: "Save system" }).click();
   // SC-1 runs R-SC1-SF v2: its validation rests on the equipment as it is.
   await expect(page.getByRole("heading", { level: 1 })).toContainText("Equipment change on SC-1");

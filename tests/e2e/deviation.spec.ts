@@ -41,6 +41,7 @@ test("an engineer drafts a deviation, an approver approves it, and it shows in t
   await signInAs(page, "engineer");
   await page.getByRole("navigation").getByRole("link", { name: "Deviations" }).click();
   await page.getByRole("link", { name: "New deviation" }).click();
+  await expect(page).toHaveURL(/\/deviations\/new$/);
 
   const title = `Injection at 16 bar while the nozzles are re-drilled ${Date.now()}`;
   await page
@@ -58,7 +59,7 @@ test("an engineer drafts a deviation, an approver approves it, and it shows in t
     .fill("Seal wear on the fixture, checked at every shift change.");
   await page.getByLabel("PF-PH-400 · Pump housing PH-400").check();
   await page
-    .getByLabel("Parameter 1")
+    .getByLabel("Parameter 1", { exact: true })
     .selectOption({ label: "Injection pressure (wash.injection_pressure)" });
   // Bad input first: an inverted range and a last day in the past, refused beside their fields.
   await page.getByLabel("Temporary low 1").fill("16");

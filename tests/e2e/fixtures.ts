@@ -14,6 +14,8 @@ export const DEMO = {
 export type DemoRole = keyof typeof DEMO;
 
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
+  // A second person on the same page: a signed-in visitor to /sign-in is sent to their queue.
+  await page.context().clearCookies();
   await page.goto("/sign-in");
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill(password);

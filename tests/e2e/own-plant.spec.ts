@@ -181,7 +181,11 @@ test("a plant starts from nothing: set-up page, first administrator signs in, cr
 
 /* The plant's own people, created by its administrator (invented names, none a demo user's). */
 const PEOPLE = {
-  engineer: { name: "Anouk Ferreira", email: "anouk@harrowgate.example", role: /Engineer/ },
+  engineer: {
+    name: "Anouk Ferreira",
+    email: "anouk@harrowgate.example",
+    role: /^Quality engineer/,
+  },
   approver: { name: "Bastian Oyelaran", email: "bastian@harrowgate.example", role: /Approver/ },
   reviewer: { name: "Carys Lindholm", email: "carys@harrowgate.example", role: /Reviewer/ },
   technician: { name: "Dario Kettunen", email: "dario@harrowgate.example", role: /Technician/ },
@@ -224,9 +228,9 @@ const RECIPE_CSV = [
 ].join("\n");
 // Residue about 1.2 mg per part against 2.0 mg per component, blank 0.06 mg within 10 % of the limit [ISO 16232 blank rule].
 const GRAVIMETRIC_CSV = [
-  "Part serial,Worst case,Parts,Tare (mg),Gross (mg),Blank (mg)",
-  "VH1-IV-01,yes,1,12.40,13.60,0.06",
-  "VH1-IV-02,no,1,12.41,13.66,0.06",
+  "Part serial,Worst case,Parts,Cycle,Tare (mg),Gross (mg),Blank (mg)",
+  "VH1-IV-01,yes,1,AW1-IV-1,12.40,13.60,0.06",
+  "VH1-IV-02,no,1,AW1-IV-2,12.41,13.66,0.06",
 ].join("\n");
 
 test("from master data to the first run: CSV part families and specification, a recipe by CSV, its initial validation to effective, a run on the qualified combination and a refusal on another", async ({
@@ -238,6 +242,7 @@ test("from master data to the first run: CSV part families and specification, a 
 
   await test.step("the administrator creates the plant's people and a requalification matrix", async () => {
     await signIn(page, ADMIN.email, ADMIN.password);
+    await expect(page).toHaveURL(/\/queue/);
     for (const who of Object.keys(PEOPLE) as Person[]) {
       await page.goto("/admin/users/new");
       await page.getByLabel("Full name").fill(PEOPLE[who].name);
@@ -264,6 +269,8 @@ test("from master data to the first run: CSV part families and specification, a 
     await page.getByLabel("Test of row 1").selectOption({ label: "Gravimetric residue" });
     await page.getByLabel("Confidence of row 1").fill("60");
     await page.getByLabel("Reliability of row 1").fill("60");
+    // Independent samples: the two parts come from two wash cycles.
+    await page.getByLabel("Distinct cycles of row 1").fill("2");
     await page
       .getByLabel("What changed and why")
       .fill("First matrix of the plant, for its first validation");
@@ -329,6 +336,8 @@ test("from master data to the first run: CSV part families and specification, a 
     ).toContainText("All changes saved");
     const required = engineer.getByRole("table", { name: "Required tests" });
     await expect(required.getByRole("row", { name: /Gravimetric residue 2 parts/ })).toBeVisible();
+    // The signature binds to the change as shown: read it again with the justification saved.
+    await engineer.reload();
     await sign(engineer, "Sign and submit impact assessment");
     await expect(engineer.getByRole("heading", { level: 1 }).locator("..")).toContainText(
       "Impact assessed",

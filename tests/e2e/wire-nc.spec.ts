@@ -22,7 +22,7 @@ test("a cycle out of its validated range opens a nonconformance that the lot's h
   await importer
     .getByLabel("Cycle log (CSV)")
     .setInputFiles({ name: "aw3-hot.csv", mimeType: "text/csv", buffer: Buffer.from(log) });
-  await expect(importer.getByRole("group", { name: "Match the file's columns" })).toBeVisible();
+  // Every column is named as the importer expects, so there is nothing to match by hand.
   await importer.getByRole("button", { name: "Import" }).click();
   await expect(importer.getByRole("status")).toContainText("1 cycle(s) imported from aw3-hot.csv");
 

@@ -310,6 +310,8 @@ await recordBathEntry(
     kind: "filter_change",
     performedAt: "2026-11-29T08:00",
     filterDescription: HOSTILE_SHORT,
+    filterRatingUm: "25",
+    differentialPressureBar: "0.8",
     notes: `Notes ${HOSTILE}`,
   }),
 );
