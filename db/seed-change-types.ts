@@ -28,6 +28,8 @@ const dayBefore = (now: Date, days: number, hour: number) =>
  * approver has signed since. The server's escalation pass e-mails approvers and
  * administrators once. On a recipe of its own, so the other recipes stay free for changes.
  */
+// The change request is made through the services the screens use, which write to the process
+// database (getDb): a caller seeding another database calls setProcessDatabase first.
 export async function seedChangeTypes(db: Database, now = new Date()) {
   const person = async (email: string) => {
     const [u] = await db.select().from(users).where(eq(users.email, email));

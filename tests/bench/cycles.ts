@@ -13,7 +13,7 @@ import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { and, eq, inArray, sql } from "drizzle-orm";
-import { openDatabase, type Database } from "@/db/client";
+import { openDatabase, setProcessDatabase, type Database } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import {
   cleaningSystems,
@@ -156,6 +156,8 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   const { db, client } = openDatabase(`file:${join(dir, "bench.db")}`);
   try {
     await migrateDatabase(db, client);
+    // The seed's change requests go through the services, which use the process database.
+    setProcessDatabase(db, client);
     const { seedDemo } = await import("@/db/seed");
     await seedDemo(db);
     console.log(cycleBenchLine(await measureCycles(db, count)));

@@ -87,8 +87,9 @@ beforeAll(async () => {
   baseUrl = `http://127.0.0.1:${port}`;
   const { db, client } = openDatabase(databaseUrl);
   await migrateDatabase(db, client);
-  await seedDemo(db);
+  // Before the seed: its change requests go through the services, which use the process database.
   setProcessDatabase(db, client);
+  await seedDemo(db);
   const [tech] = await db
     .select({ id: users.id, name: users.name })
     .from(users)
