@@ -15,6 +15,7 @@ import {
   saveRootCauseAction,
   setDispositionAction,
   setItemHoldAction,
+  setPendingItemsHoldAction,
   updateNcAction,
 } from "@/app/(app)/nonconformances/actions";
 import { ActionForm } from "@/components/ui/action-form";
@@ -149,6 +150,29 @@ export function HoldButtons(props: { ncId: string; itemId: string; label: string
             <SubmitButton variant="secondary">{h === "held" ? "Hold" : "Release"}</SubmitButton>
           </ActionForm>
         ))}
+    </div>
+  );
+}
+
+/** Decides every item still pending at once: hold all, or release all shown not to be affected. */
+export function PendingItemsHoldButtons(props: { ncId: string; undecided: number }) {
+  const what =
+    props.undecided === 1 ? "the 1 undecided item" : `all ${props.undecided} undecided items`;
+  return (
+    <div className="flex flex-wrap gap-2">
+      {(["held", "released"] as const).map((h) => (
+        <ActionForm
+          key={h}
+          action={setPendingItemsHoldAction}
+          aria-label={`${h === "held" ? "Hold" : "Release"} ${what}`}
+        >
+          <input type="hidden" name="nonconformanceId" value={props.ncId} />
+          <input type="hidden" name="hold" value={h} />
+          <SubmitButton variant="secondary">
+            {h === "held" ? "Hold" : "Release"} {what}
+          </SubmitButton>
+        </ActionForm>
+      ))}
     </div>
   );
 }

@@ -48,6 +48,11 @@ export const itemHoldSchema = ncIdSchema.extend({
   hold: z.enum(["held", "released"]),
 });
 
+/** Every item still undecided, held or released at once. */
+export const pendingItemsHoldSchema = ncIdSchema.extend({
+  hold: z.enum(["held", "released"]),
+});
+
 export const dispositionSchema = ncIdSchema
   .extend({
     itemId: uuid("the item"),

@@ -44,6 +44,7 @@ import { saveRootCause } from "@/lib/server/nonconformances/save-root-cause";
 import { sendNonconformanceReminders } from "@/lib/server/nonconformances/send-reminders";
 import { setDisposition } from "@/lib/server/nonconformances/set-disposition";
 import { setItemHold } from "@/lib/server/nonconformances/set-item-hold";
+import { setPendingItemsHold } from "@/lib/server/nonconformances/set-pending-items-hold";
 import { loadNc, ncHash } from "@/lib/server/nonconformances/shared";
 import { signClosure } from "@/lib/server/nonconformances/sign-closure";
 import { updateAction } from "@/lib/server/nonconformances/update-action";
@@ -238,6 +239,46 @@ describe("the demo's flagged wash cycle", () => {
     expect(listed.every((c) => c.family === cycle.partFamilyId && c.recipeId === nc.recipeId)).toBe(
       true,
     );
+  });
+
+  it("holds one cycle by hand and releases every other undecided one at once, each audited", async () => {
+    const [cycle] = await t.db.select().from(washCycles).where(eq(washCycles.flagged, true));
+    const [nc] = await t.db
+      .select()
+      .from(nonconformances)
+      .where(and(eq(nonconformances.sourceKind, "cycle"), eq(nonconformances.sourceId, cycle.id)));
+    const itemsOf = () =>
+      t.db
+        .select()
+        .from(nonconformanceItems)
+        .where(eq(nonconformanceItems.nonconformanceId, nc.id));
+    const before = await itemsOf();
+    const own = before.find((i) => i.itemId === cycle.id)!;
+    const undecided = before.filter((i) => i.hold === "pending" && i.id !== own.id);
+    expect(undecided.length).toBeGreaterThan(1);
+    await setItemHold(engineer, { nonconformanceId: nc.id, itemId: own.id, hold: "held" });
+    const eventsBefore = await t.db
+      .select({ seq: auditEvents.seq })
+      .from(auditEvents)
+      .where(eq(auditEvents.recordId, nc.id));
+    const { count } = await setPendingItemsHold(engineer, {
+      nonconformanceId: nc.id,
+      hold: "released",
+    });
+    expect(count).toBe(undecided.length);
+    const after = await itemsOf();
+    expect(after.find((i) => i.id === own.id)?.hold).toBe("held");
+    expect(after.filter((i) => i.hold === "pending")).toEqual([]);
+    expect(after.filter((i) => i.hold === "released")).toHaveLength(undecided.length);
+    const eventsAfter = await t.db
+      .select({ seq: auditEvents.seq })
+      .from(auditEvents)
+      .where(eq(auditEvents.recordId, nc.id));
+    expect(eventsAfter.length - eventsBefore.length).toBe(undecided.length);
+    // Nothing is left to decide: a second call says so rather than writing nothing.
+    await expect(
+      setPendingItemsHold(engineer, { nonconformanceId: nc.id, hold: "held" }),
+    ).rejects.toThrow(/No item is waiting/);
   });
 
   it("is not raised twice when its flags are recorded again", async () => {

@@ -10,6 +10,7 @@ import {
   itemHoldSchema,
   openChangeFromActionSchema,
   openNcSchema,
+  pendingItemsHoldSchema,
   planEffectivenessSchema,
   recordEffectivenessSchema,
   rootCauseSchema,
@@ -26,6 +27,7 @@ import { recordEffectiveness } from "@/lib/server/nonconformances/record-effecti
 import { saveRootCause } from "@/lib/server/nonconformances/save-root-cause";
 import { setDisposition } from "@/lib/server/nonconformances/set-disposition";
 import { setItemHold } from "@/lib/server/nonconformances/set-item-hold";
+import { setPendingItemsHold } from "@/lib/server/nonconformances/set-pending-items-hold";
 import { signClosure } from "@/lib/server/nonconformances/sign-closure";
 import { updateAction } from "@/lib/server/nonconformances/update-action";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
@@ -63,6 +65,17 @@ export const setItemHoldAction = defineAction({
   run: async ({ user, input }) => {
     await setItemHold(actorOf(user), input);
     return { message: input.hold === "held" ? "Held." : "Released." };
+  },
+  revalidate: refresh,
+});
+
+export const setPendingItemsHoldAction = defineAction({
+  permission: "nc.work",
+  input: pendingItemsHoldSchema,
+  run: async ({ user, input }) => {
+    const { count } = await setPendingItemsHold(actorOf(user), input);
+    const what = count === 1 ? "1 item" : `${count} items`;
+    return { message: input.hold === "held" ? `${what} held.` : `${what} released.` };
   },
   revalidate: refresh,
 });

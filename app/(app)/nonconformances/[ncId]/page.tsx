@@ -9,6 +9,7 @@ import {
   CancelForm,
   DispositionForm,
   HoldButtons,
+  PendingItemsHoldButtons,
   NcFileUpload,
   OpenChangeFromActionForm,
   PlanEffectivenessForm,
@@ -159,6 +160,9 @@ export default async function NonconformancePage({
           to when the nonconformance was raised. Hold what may be affected; release what is shown
           not to be.
         </p>
+        {works && facts.undecidedItems > 1 && (
+          <PendingItemsHoldButtons ncId={nc.id} undecided={facts.undecidedItems} />
+        )}
         <Table caption="Affected items" density="compact">
           <THead>
             <Th>Item</Th>
