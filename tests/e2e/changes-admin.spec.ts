@@ -50,7 +50,11 @@ test("an administrator adding a stage to a washer that runs an effective recipe 
   await page.getByRole("button", { name: "Move stage 4 up" }).click();
   await page.getByRole("button", { name: "Save system" }).click();
   // SC-1 runs R-SC1-SF v2: its validation rests on the equipment as it is.
-  await expect(page.getByRole("heading", { level: 1 })).toContainText("Equipment change on SC-1");
+  // Saving diffs the washer against every recipe it runs and opens the change: on a loaded machine that
+  // and the redirect can take longer than one ordinary expectation.
+  await expect(page.getByRole("heading", { level: 1 })).toContainText("Equipment change on SC-1", {
+    timeout: 30_000,
+  });
   const diff = page.getByRole("table", { name: "Equipment diff, SC-1" });
   await expect(diff.getByRole("row", { name: /Deionised rinse/ })).toContainText("Major");
   const changeUrl = page.url();
