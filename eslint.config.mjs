@@ -16,6 +16,25 @@ const config = [
     },
   },
   {
+    files: ["app/**/*.tsx", "components/**/*.tsx"],
+    ignores: ["components/ui/intent-link.tsx"],
+    rules: {
+      // A plain Link prefetches its page as soon as it is drawn: a table of fifty rows fetched fifty
+      // pages at load and kept each screen busy. Links fetch on intent instead.
+      "no-restricted-imports": [
+        "error",
+        {
+          paths: [
+            {
+              name: "next/link",
+              message: "Use IntentLink from @/components/ui/intent-link: it prefetches on intent.",
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     ignores: [
       ".next/**",
       "node_modules/**",

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 
 export default function Forbidden() {
   return (
@@ -13,9 +13,12 @@ export default function Forbidden() {
         Access is granted by role. If you need this page for your work, ask an administrator to
         review your roles.
       </p>
-      <Link href="/" className="mt-6 inline-block text-sm font-medium text-brand-700 underline">
+      <IntentLink
+        href="/"
+        className="mt-6 inline-block text-sm font-medium text-brand-700 underline"
+      >
         Back to Washproof
-      </Link>
+      </IntentLink>
     </main>
   );
 }

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 
 export default function NotFound() {
   return (
@@ -9,9 +9,12 @@ export default function NotFound() {
       <h1 className="mt-2 text-2xl font-semibold text-stone-900">
         There is no such page or record
       </h1>
-      <Link href="/" className="mt-6 inline-block text-sm font-medium text-brand-700 underline">
+      <IntentLink
+        href="/"
+        className="mt-6 inline-block text-sm font-medium text-brand-700 underline"
+      >
         Back to Washproof
-      </Link>
+      </IntentLink>
     </main>
   );
 }

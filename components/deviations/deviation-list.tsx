@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { DEVIATION_STATE_LABELS, type DeviationState } from "@/lib/deviations/rules";
 import { formatDate } from "@/lib/format/date";
 import { rangeWithUnit } from "@/lib/format/number";
@@ -29,9 +29,12 @@ export function DeviationList({
       {items.map(({ deviation: d, state, parameters }) => (
         <li key={d.id} className="rounded-md border border-stone-200 bg-white p-3 text-sm">
           <p>
-            <Link href={`/deviations/${d.id}`} className="font-semibold text-brand-800 underline">
+            <IntentLink
+              href={`/deviations/${d.id}`}
+              className="font-semibold text-brand-800 underline"
+            >
               {d.number}
-            </Link>{" "}
+            </IntentLink>{" "}
             · {d.title} · <span className="font-semibold">{DEVIATION_STATE_LABELS[state]}</span>
           </p>
           <ul className="mt-1 text-stone-700">

@@ -8,7 +8,7 @@ import {
   type PaginationState,
   type SortingState,
 } from "@tanstack/react-table";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { useListParams } from "@/components/ui/use-list-params";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 import { humanize } from "@/lib/format/labels";
@@ -23,13 +23,13 @@ const columns: ColumnDef<EvidenceListRow>[] = [
     header: "Run",
     accessorKey: "number",
     cell: ({ row }) => (
-      <Link
+      <IntentLink
         href={`/evidence/runs/${row.original.id}`}
         className="font-medium text-brand-800 hover:underline"
       >
         {row.original.number}
         {row.original.revision > 1 ? ` rev ${row.original.revision}` : ""}
-      </Link>
+      </IntentLink>
     ),
   },
   {

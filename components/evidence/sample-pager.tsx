@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { formatNumber } from "@/lib/format/number";
 import type { SamplePage } from "@/lib/evidence/sample-page";
 
@@ -24,14 +24,14 @@ export function SamplePager({
         {formatNumber(page.pages, 0)})
       </span>
       {page.page > 1 && (
-        <Link className={link} href={href(page.page - 1)}>
+        <IntentLink className={link} href={href(page.page - 1)}>
           Previous samples
-        </Link>
+        </IntentLink>
       )}
       {page.page < page.pages && (
-        <Link className={link} href={href(page.page + 1)}>
+        <IntentLink className={link} href={href(page.page + 1)}>
           Next samples
-        </Link>
+        </IntentLink>
       )}
     </nav>
   );

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { NC_STATUS_LABELS } from "@/lib/nonconformances/lifecycle";
 import { nonconformancesOfChange } from "@/lib/server/nonconformances/queries";
 
@@ -12,9 +12,12 @@ export async function ChangeNonconformances({ changeRequestId }: { changeRequest
       {rows.map((nc, i) => (
         <span key={nc.id}>
           {i > 0 && ", "}
-          <Link href={`/nonconformances/${nc.id}`} className="font-medium text-brand-800 underline">
+          <IntentLink
+            href={`/nonconformances/${nc.id}`}
+            className="font-medium text-brand-800 underline"
+          >
             {nc.number}
-          </Link>{" "}
+          </IntentLink>{" "}
           ({nc.title}; {NC_STATUS_LABELS[nc.status].toLowerCase()})
         </span>
       ))}

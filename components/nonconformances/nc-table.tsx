@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
 import { formatDate } from "@/lib/format/date";
 import { NC_MANUAL_LABELS, NC_SOURCE_LABELS } from "@/lib/nonconformances/lifecycle";
@@ -34,12 +34,12 @@ export function NcTable({
         {rows.map((r) => (
           <tr key={r.id}>
             <Td className="whitespace-nowrap">
-              <Link
+              <IntentLink
                 href={`/nonconformances/${r.id}`}
                 className="font-medium text-brand-800 hover:underline"
               >
                 {r.number}
-              </Link>
+              </IntentLink>
             </Td>
             <Td>{r.title}</Td>
             <Td>

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { NC_STATUS_LABELS } from "@/lib/nonconformances/lifecycle";
 import { nonconformancesOfRun } from "@/lib/server/nonconformances/queries";
 
@@ -13,9 +13,12 @@ export async function RunNonconformances({ runId }: { runId: string }) {
           {nc.sourceId === runId
             ? "Nonconformance opened for this run: "
             : "In the containment of "}
-          <Link href={`/nonconformances/${nc.id}`} className="font-medium text-brand-800 underline">
+          <IntentLink
+            href={`/nonconformances/${nc.id}`}
+            className="font-medium text-brand-800 underline"
+          >
             {nc.number}
-          </Link>{" "}
+          </IntentLink>{" "}
           ({NC_STATUS_LABELS[nc.status].toLowerCase()})
         </li>
       ))}

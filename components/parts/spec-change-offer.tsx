@@ -1,6 +1,6 @@
 "use client";
 
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { ActionForm } from "@/components/ui/action-form";
 import { SubmitButton } from "@/components/ui/submit-button";
 import type { FormState } from "@/lib/actions/result";
@@ -26,9 +26,9 @@ export function SpecChangeOffer({
 }) {
   if (recipe.changeRequest)
     return (
-      <Link href={`/changes/${recipe.changeRequest.id}`} className="text-brand-800 underline">
+      <IntentLink href={`/changes/${recipe.changeRequest.id}`} className="text-brand-800 underline">
         {recipe.changeRequest.number}
-      </Link>
+      </IntentLink>
     );
   if (!canOpen) return <span className="text-stone-500">No change request yet</span>;
   const label = `Open change request on ${recipe.code}`;

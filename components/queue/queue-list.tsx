@@ -2,7 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { AlarmClock, CalendarClock } from "lucide-react";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import type { QueuePage } from "@/lib/server/queue/get-queue";
 import { EmptyState } from "@/components/ui/empty-state";
 import { formatDate } from "@/lib/format/date";
@@ -62,9 +62,9 @@ export function QueueList({ initial }: { initial: QueuePage }) {
             <tr key={item.id}>
               <Td className="font-medium whitespace-nowrap">{item.kind}</Td>
               <Td>
-                <Link href={item.href} className="font-medium text-brand-800 hover:underline">
+                <IntentLink href={item.href} className="font-medium text-brand-800 hover:underline">
                   {item.title}
-                </Link>
+                </IntentLink>
                 <span className="block text-xs text-stone-600">{item.detail}</span>
               </Td>
               <Td className="whitespace-nowrap">
@@ -105,24 +105,24 @@ function QueuePager({ queue }: { queue: QueuePage }) {
           {queue.kind}: page {queue.page} of {pages} ({total} waiting)
         </span>
         {queue.page > 1 && (
-          <Link
+          <IntentLink
             className="text-brand-800 hover:underline"
             href={`/queue${pageQuery(queue.kind, queue.page - 1)}`}
           >
             Previous page
-          </Link>
+          </IntentLink>
         )}
         {queue.page < pages && (
-          <Link
+          <IntentLink
             className="text-brand-800 hover:underline"
             href={`/queue${pageQuery(queue.kind, queue.page + 1)}`}
           >
             Next page
-          </Link>
+          </IntentLink>
         )}
-        <Link className="text-brand-800 hover:underline" href="/queue">
+        <IntentLink className="text-brand-800 hover:underline" href="/queue">
           Everything waiting
-        </Link>
+        </IntentLink>
       </nav>
     );
   }
@@ -133,9 +133,12 @@ function QueuePager({ queue }: { queue: QueuePage }) {
       {longer.map((k) => (
         <li key={k.kind}>
           {k.kind}: {shown(k.kind)} of {k.total} shown.{" "}
-          <Link className="text-brand-800 hover:underline" href={`/queue${pageQuery(k.kind, 2)}`}>
+          <IntentLink
+            className="text-brand-800 hover:underline"
+            href={`/queue${pageQuery(k.kind, 2)}`}
+          >
             Next page of {k.kind.toLowerCase()}
-          </Link>
+          </IntentLink>
         </li>
       ))}
     </ul>

@@ -1,6 +1,6 @@
 "use client";
 
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { useState } from "react";
 import { ActionForm } from "@/components/ui/action-form";
 import { Caution } from "@/components/ui/caution";
@@ -169,9 +169,9 @@ export function SystemEditor(props: SystemEditorProps) {
           {props.runs.join(", ")}: their validation rests on its equipment as it is. Names and
           descriptions are saved directly; saving an equipment change opens a change request of kind
           &ldquo;equipment&rdquo; instead, and the washer changes when that request closes (
-          <Link href="/changes" className="text-brand-800 underline">
+          <IntentLink href="/changes" className="text-brand-800 underline">
             Changes
-          </Link>
+          </IntentLink>
           ).
         </p>
       )}

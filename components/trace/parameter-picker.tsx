@@ -1,7 +1,7 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { useDeferredValue, useId, useState } from "react";
 import { Field, SelectField } from "@/components/ui/field";
 import {
@@ -118,7 +118,7 @@ export function ParameterPicker({
           const current = selected?.recipeId === p.recipeId && selected.key === p.key;
           return (
             <li key={`${p.recipeId} ${p.key}`}>
-              <Link
+              <IntentLink
                 href={`/trace?recipe=${p.recipeId}&key=${encodeURIComponent(p.key)}`}
                 aria-current={current ? "true" : undefined}
                 className={`flex flex-wrap items-baseline justify-between gap-x-4 px-3 py-2 text-sm hover:bg-brand-50 ${current ? "bg-brand-50 font-semibold" : ""}`}
@@ -130,7 +130,7 @@ export function ParameterPicker({
                   {p.stage} · {p.recipeCode} · {p.systemCode} · {p.versions} version
                   {p.versions === 1 ? "" : "s"}
                 </span>
-              </Link>
+              </IntentLink>
             </li>
           );
         })}

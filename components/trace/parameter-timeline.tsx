@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { EmergencyBadge } from "@/components/changes/change-types-panels";
 import { humanize } from "@/lib/format/labels";
 import { formatBytes, rangeWithUnit, withUnit } from "@/lib/format/number";
@@ -125,12 +125,12 @@ function TimelineEntry({
             className="mt-4 border-t border-stone-100 pt-3 text-sm"
           >
             <p>
-              <Link
+              <IntentLink
                 href={`/changes/${change.id}`}
                 className="font-semibold text-brand-800 hover:underline"
               >
                 {change.number}
-              </Link>{" "}
+              </IntentLink>{" "}
               {change.emergency && <EmergencyBadge />} · {change.title} ·{" "}
               {CHANGE_STATUS_LABELS[change.status]} · impact{" "}
               <span className="font-semibold">{humanize(change.impact)}</span> · opened by{" "}
@@ -156,15 +156,18 @@ function TimelineEntry({
               {change.justification || "No justification written."}
             </blockquote>
             <p className="mt-2 flex flex-wrap gap-x-4">
-              <Link href={`/changes/${change.id}#diff`} className="text-brand-800 hover:underline">
+              <IntentLink
+                href={`/changes/${change.id}#diff`}
+                className="text-brand-800 hover:underline"
+              >
                 Parameter diff of {change.number}
-              </Link>
-              <Link
+              </IntentLink>
+              <IntentLink
                 href={`/changes/${change.id}#impact`}
                 className="text-brand-800 hover:underline"
               >
                 Impact with its working
-              </Link>
+              </IntentLink>
               {canExport && (
                 <>
                   <a
@@ -240,12 +243,12 @@ function TimelineEntry({
                     {change.evidence.map((run) => (
                       <li key={run.id} className="rounded-md border border-stone-200 p-3">
                         <p>
-                          <Link
+                          <IntentLink
                             href={`/evidence/runs/${run.id}`}
                             className="font-semibold text-brand-800 hover:underline"
                           >
                             {run.number}
-                          </Link>{" "}
+                          </IntentLink>{" "}
                           · {TEST_TYPE_LABELS[run.testType]} · computed outcome{" "}
                           <span className="font-semibold">
                             {run.outcome ? OUTCOME_LABELS[run.outcome] : "not computed"}
@@ -311,17 +314,20 @@ function TimelineEntry({
                 {entry.validations.map((q) => (
                   <li key={q.partFamilyId}>
                     Validated for{" "}
-                    <Link
+                    <IntentLink
                       href={`/parts/families/${q.partFamilyId}`}
                       className="font-semibold text-brand-800 hover:underline"
                     >
                       {q.partFamily} {q.partFamilyName}
-                    </Link>
+                    </IntentLink>
                     : {q.basis ?? "carried over by a change"}, qualified {formatDate(q.qualifiedAt)}{" "}
                     (
-                    <Link href="/parts/combinations" className="text-brand-800 hover:underline">
+                    <IntentLink
+                      href="/parts/combinations"
+                      className="text-brand-800 hover:underline"
+                    >
                       qualified combinations
-                    </Link>
+                    </IntentLink>
                     )
                   </li>
                 ))}

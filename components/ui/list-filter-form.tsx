@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 
 export interface ListFilter {
   name: string;
@@ -54,9 +54,9 @@ export function ListFilterForm({
         Filter
       </button>
       {active && (
-        <Link href={action} className="px-1 py-1.5 text-sm text-brand-800 hover:underline">
+        <IntentLink href={action} className="px-1 py-1.5 text-sm text-brand-800 hover:underline">
           Clear filters
-        </Link>
+        </IntentLink>
       )}
     </form>
   );

@@ -236,3 +236,23 @@ test("the API tokens page settles, and menu links are fetched on intent rather t
     .hover();
   await onHover;
 });
+
+test("a list's row links are fetched on intent too: a page of change requests fetches no other page at load", async ({
+  page,
+}) => {
+  await signInAs(page, "engineer");
+  const routerFetches: string[] = [];
+  page.on("request", (r) => {
+    if (r.headers()["rsc"] === "1") routerFetches.push(new URL(r.url()).pathname);
+  });
+  await page.goto("/changes", { waitUntil: "networkidle" });
+  const first = page.getByRole("link", { name: /^CR-\d{4}-\d{3}$/ }).first();
+  await expect(first).toBeVisible();
+  expect(routerFetches).toEqual([]);
+  const target = new URL((await first.getAttribute("href"))!, page.url()).pathname;
+  const onHover = page.waitForRequest(
+    (r) => r.headers()["rsc"] === "1" && new URL(r.url()).pathname === target,
+  );
+  await first.hover();
+  await onHover;
+});

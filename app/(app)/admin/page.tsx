@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { UserStatus } from "@/components/admin/user-status";
 import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
@@ -18,12 +18,12 @@ export default async function AdminPage() {
         title="Users and roles"
         description="People who use Washproof and what each may do. Users are deactivated, never deleted: their signatures and history stay theirs."
         actions={
-          <Link
+          <IntentLink
             href="/admin/users/new"
             className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
           >
             New user
-          </Link>
+          </IntentLink>
         }
       />
       <Table caption="Users">
@@ -37,12 +37,12 @@ export default async function AdminPage() {
           {users.map((u) => (
             <tr key={u.id}>
               <Td>
-                <Link
+                <IntentLink
                   href={`/admin/users/${u.id}`}
                   className="font-medium text-brand-800 hover:underline"
                 >
                   {u.name}
-                </Link>
+                </IntentLink>
                 {u.jobTitle && <span className="block text-xs text-stone-500">{u.jobTitle}</span>}
               </Td>
               <Td>{u.email}</Td>

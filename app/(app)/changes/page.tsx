@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { ImpactWord } from "@/components/changes/diff-view";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
@@ -73,9 +73,9 @@ export default async function ChangesPage({
       ) : rows.length === 0 ? (
         <EmptyState title="No change requests yet">
           An engineer opens a change request from a recipe&apos;s effective version under{" "}
-          <Link href="/systems" className="text-brand-800 underline">
+          <IntentLink href="/systems" className="text-brand-800 underline">
             Cleaning systems
-          </Link>
+          </IntentLink>
           .
         </EmptyState>
       ) : (
@@ -93,12 +93,12 @@ export default async function ChangesPage({
             {rows.map((r) => (
               <tr key={r.id}>
                 <Td className="whitespace-nowrap">
-                  <Link
+                  <IntentLink
                     href={`/changes/${r.id}`}
                     className="font-medium text-brand-800 hover:underline"
                   >
                     {r.number}
-                  </Link>
+                  </IntentLink>
                 </Td>
                 <Td>
                   {r.title}

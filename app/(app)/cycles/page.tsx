@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -37,17 +37,17 @@ export default async function CyclesPage({
         description="Every cycle a washer ran: the recipe version in force at its start, the part family and lots it washed, and the values it held. A value outside its validated range flags the cycle."
         actions={
           <>
-            <Link href="/lots" className={secondary}>
+            <IntentLink href="/lots" className={secondary}>
               Lot history
-            </Link>
+            </IntentLink>
             {can(user.roles, "evidence.record") && (
               <>
-                <Link href="/cycles/import" className={secondary}>
+                <IntentLink href="/cycles/import" className={secondary}>
                   Import a cycle log
-                </Link>
-                <Link href="/cycles/new" className={button}>
+                </IntentLink>
+                <IntentLink href="/cycles/new" className={button}>
                   Record a cycle
-                </Link>
+                </IntentLink>
               </>
             )}
           </>
@@ -90,13 +90,13 @@ export default async function CyclesPage({
               <Td>{c.partFamily}</Td>
               <Td>
                 {c.lots.map((lot) => (
-                  <Link
+                  <IntentLink
                     key={lot}
                     href={`/lots/${encodeURIComponent(lot)}`}
                     className="mr-2 text-brand-800 hover:underline"
                   >
                     {lot}
-                  </Link>
+                  </IntentLink>
                 ))}
               </Td>
               <Td>

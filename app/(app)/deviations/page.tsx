@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { linkButton, secondaryLink } from "@/components/parts/link-styles";
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
@@ -34,9 +34,9 @@ export default async function DeviationsPage({
         description="Planned, time-limited permissions to run outside a validated range, each approved by a second person and ended by its date or its number of lots."
         actions={
           can(user.roles, "deviation.draft") ? (
-            <Link href="/deviations/new" className={linkButton}>
+            <IntentLink href="/deviations/new" className={linkButton}>
               New deviation
-            </Link>
+            </IntentLink>
           ) : undefined
         }
       />
@@ -68,9 +68,9 @@ export default async function DeviationsPage({
           Filter
         </Button>
         {(query.state !== "all" || query.recipe) && (
-          <Link href="/deviations" className={secondaryLink}>
+          <IntentLink href="/deviations" className={secondaryLink}>
             Clear
-          </Link>
+          </IntentLink>
         )}
       </form>
       <Table caption="Deviations">
@@ -89,9 +89,9 @@ export default async function DeviationsPage({
           {rows.map((r) => (
             <tr key={r.d.id}>
               <Td className="font-mono text-xs">
-                <Link href={`/deviations/${r.d.id}`} className="text-brand-800 underline">
+                <IntentLink href={`/deviations/${r.d.id}`} className="text-brand-800 underline">
                   {r.d.number}
-                </Link>
+                </IntentLink>
               </Td>
               <Td>{r.d.title}</Td>
               <Td>{r.recipe}</Td>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { StatusBadge } from "@/components/documents/status-badge";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
@@ -43,12 +43,12 @@ export default async function DocumentsPage({
         description="Validation protocols (IQ, OQ, PQ), validation reports and procedures, with their versions and signatures."
         actions={
           mayDraft && (
-            <Link
+            <IntentLink
               href="/documents/new"
               className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
             >
               New document
-            </Link>
+            </IntentLink>
           )
         }
       />
@@ -97,12 +97,12 @@ export default async function DocumentsPage({
             {rows.map((d) => (
               <tr key={d.id}>
                 <Td className="font-mono text-xs whitespace-nowrap">
-                  <Link
+                  <IntentLink
                     href={`/documents/${d.id}`}
                     className="font-medium text-brand-800 hover:underline"
                   >
                     {d.number}
-                  </Link>
+                  </IntentLink>
                 </Td>
                 <Td>{d.title}</Td>
                 <Td className="whitespace-nowrap">{TYPE_LABELS[d.type]}</Td>

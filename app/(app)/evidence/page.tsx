@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { EvidenceTable } from "@/components/evidence/evidence-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
@@ -18,12 +18,12 @@ export default async function EvidencePage() {
         description="Test runs with their raw data per sample, lab files and computed outcomes. A computed pass or fail supports, and never replaces, the customer's specification and the engineer's judgement."
         actions={
           can(user.roles, "evidence.record") ? (
-            <Link
+            <IntentLink
               href="/evidence/runs/new"
               className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
             >
               New test run
-            </Link>
+            </IntentLink>
           ) : undefined
         }
       />

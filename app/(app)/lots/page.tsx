@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -42,12 +42,12 @@ export default async function LotsPage({
           {lots.map((l) => (
             <tr key={l.lot}>
               <Td>
-                <Link
+                <IntentLink
                   href={`/lots/${encodeURIComponent(l.lot)}`}
                   className="font-medium text-brand-800 hover:underline"
                 >
                   {l.lot}
-                </Link>
+                </IntentLink>
               </Td>
               <Td numeric>{l.cycles}</Td>
               <Td>{formatDateTime(l.firstStart)}</Td>

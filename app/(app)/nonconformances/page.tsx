@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { NcTable } from "@/components/nonconformances/nc-table";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { PageHeader } from "@/components/ui/page-header";
@@ -52,12 +52,12 @@ export default async function NonconformancesPage({
         description="Failed results and reported problems, from containment to a signed closure."
         actions={
           can(user.roles, "nc.open") ? (
-            <Link
+            <IntentLink
               href="/nonconformances/new"
               className="rounded-md bg-brand-700 px-3 py-2 text-sm font-medium text-white hover:bg-brand-800"
             >
               Report a nonconformance
-            </Link>
+            </IntentLink>
           ) : undefined
         }
       />

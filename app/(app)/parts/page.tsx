@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { linkButton } from "@/components/parts/link-styles";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
@@ -22,9 +22,9 @@ export default async function PartsPage() {
         description="Part families with their wetted surface and the cleanliness specification each must meet."
         actions={
           manage ? (
-            <Link href="/parts/families/new" className={linkButton}>
+            <IntentLink href="/parts/families/new" className={linkButton}>
               New part family
-            </Link>
+            </IntentLink>
           ) : undefined
         }
       />
@@ -49,9 +49,12 @@ export default async function PartsPage() {
             {families.map(({ family, spec }) => (
               <tr key={family.id}>
                 <Td className="font-mono text-xs">
-                  <Link href={`/parts/families/${family.id}`} className="text-brand-800 underline">
+                  <IntentLink
+                    href={`/parts/families/${family.id}`}
+                    className="text-brand-800 underline"
+                  >
                     {family.code}
-                  </Link>
+                  </IntentLink>
                 </Td>
                 <Td>{family.name}</Td>
                 <Td className="text-xs">{family.partNumbers.join(", ") || "—"}</Td>
@@ -64,9 +67,9 @@ export default async function PartsPage() {
                     : "—"}
                 </Td>
                 <Td>
-                  <Link href={`/parts/specs/${spec.id}`} className="text-brand-800 underline">
+                  <IntentLink href={`/parts/specs/${spec.id}`} className="text-brand-800 underline">
                     {spec.code} rev {spec.revision}
-                  </Link>
+                  </IntentLink>
                 </Td>
               </tr>
             ))}

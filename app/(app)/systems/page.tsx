@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { humanize, STAGE_MODE_LABELS } from "@/lib/format/labels";
@@ -21,12 +21,12 @@ export default async function SystemsPage() {
         description="The plant's washers, their stages and the recipes they run."
         actions={
           manage && (
-            <Link
+            <IntentLink
               href="/systems/new"
               className="rounded-md bg-brand-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-brand-800"
             >
               New cleaning system
-            </Link>
+            </IntentLink>
           )
         }
       />
@@ -46,9 +46,9 @@ export default async function SystemsPage() {
             >
               <div className="flex items-baseline justify-between gap-3">
                 <h2 id={`sys-${s.id}`} className="text-lg font-semibold">
-                  <Link href={`/systems/${s.id}`} className="text-brand-800 hover:underline">
+                  <IntentLink href={`/systems/${s.id}`} className="text-brand-800 hover:underline">
                     {s.code} · {s.name}
-                  </Link>
+                  </IntentLink>
                 </h2>
                 <span className="text-xs text-stone-600">
                   {s.active ? "In service" : "Retired"} · {s.siteName}
@@ -81,12 +81,12 @@ export default async function SystemsPage() {
                   : s.recipes.map((r, i) => (
                       <span key={r.id}>
                         {i > 0 && "; "}
-                        <Link
+                        <IntentLink
                           href={`/systems/recipes/${r.id}`}
                           className="text-brand-800 hover:underline"
                         >
                           {r.code} {r.name}
-                        </Link>
+                        </IntentLink>
                       </span>
                     ))}
               </p>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { DiffView, ImpactWorking } from "@/components/changes/diff-view";
 import { ProposalEditor } from "@/components/changes/proposal-editor";
@@ -109,9 +109,12 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
             )}
             Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[cr.status]}</span> ·{" "}
             {CHANGE_KIND_LABELS[page.assessmentRow.kind]} ·{" "}
-            <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
+            <IntentLink
+              href={`/systems/recipes/${recipe.id}`}
+              className="text-brand-800 hover:underline"
+            >
               {recipe.code}
-            </Link>{" "}
+            </IntentLink>{" "}
             {fromVersion
               ? `version ${fromVersion.version} → proposed version ${toVersion.version}`
               : `first version ${toVersion.version}`}
@@ -241,12 +244,12 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
               });
               return (
                 <li key={r.id}>
-                  <Link
+                  <IntentLink
                     href={`/evidence/runs/new?${query}`}
                     className="font-medium text-brand-800 hover:underline"
                   >
                     Open a {TEST_TYPE_LABELS[r.testType].toLowerCase()} run for {cr.number}
-                  </Link>
+                  </IntentLink>
                 </li>
               );
             })}

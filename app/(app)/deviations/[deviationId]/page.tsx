@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { getDb } from "@/db/client";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
@@ -72,9 +72,12 @@ export default async function DeviationPage({
         <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[max-content_1fr]">
           <dt className="text-stone-600">Recipe</dt>
           <dd>
-            <Link href={`/systems/recipes/${view.recipe.id}`} className="text-brand-800 underline">
+            <IntentLink
+              href={`/systems/recipes/${view.recipe.id}`}
+              className="text-brand-800 underline"
+            >
               {view.recipe.code}
-            </Link>{" "}
+            </IntentLink>{" "}
             {view.recipe.name}
           </dd>
           <dt className="text-stone-600">Part families</dt>
@@ -129,12 +132,12 @@ export default async function DeviationPage({
                 {rangeWithUnit(p.temporaryLow, p.temporaryHigh, p.unit)}
               </Td>
               <Td>
-                <Link
+                <IntentLink
                   href={`/trace?recipe=${view.recipe.id}&key=${encodeURIComponent(p.key)}`}
                   className="text-brand-800 underline"
                 >
                   Trace of {p.key}
-                </Link>
+                </IntentLink>
               </Td>
             </tr>
           ))}

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { FileDown, GitCompare, PenLine } from "lucide-react";
 import { RedlineView } from "@/components/documents/redline-view";
@@ -100,9 +100,9 @@ export default async function DocumentPage({
         actions={
           <>
             {document.versions.length > 1 && (
-              <Link href={`/documents/${documentId}/compare`} className={linkButton}>
+              <IntentLink href={`/documents/${documentId}/compare`} className={linkButton}>
                 <GitCompare className="h-4 w-4" aria-hidden="true" /> Compare versions
-              </Link>
+              </IntentLink>
             )}
             <a
               href={`/api/documents/${documentId}/versions/${version.version}/pdf`}
@@ -116,14 +116,14 @@ export default async function DocumentPage({
 
       <nav aria-label="Versions" className="mb-4 flex flex-wrap gap-2 text-sm">
         {document.versions.map((v) => (
-          <Link
+          <IntentLink
             key={v.id}
             href={`/documents/${documentId}?version=${v.version}`}
             aria-current={v.version === version.version ? "page" : undefined}
             className="inline-flex items-center gap-1.5 rounded-md border border-stone-200 bg-white px-2.5 py-1 hover:bg-stone-100 aria-[current=page]:border-brand-600 aria-[current=page]:font-semibold"
           >
             Version {v.version} <StatusBadge status={v.status} />
-          </Link>
+          </IntentLink>
         ))}
       </nav>
 
@@ -191,12 +191,12 @@ export default async function DocumentPage({
           {version.status === "draft" && allowed("edit") && (
             <Panel title="Draft">
               <div className="flex flex-wrap gap-2">
-                <Link
+                <IntentLink
                   href={`/documents/${documentId}/edit?version=${version.version}`}
                   className={linkButton}
                 >
                   <PenLine className="h-4 w-4" aria-hidden="true" /> Edit draft
-                </Link>
+                </IntentLink>
                 {signers && draftHash && (
                   <SignatureDialog
                     action={submitAction}

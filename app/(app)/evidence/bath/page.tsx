@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { Caution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
 import { MAINTENANCE_LABELS, STATE_LABELS } from "@/lib/evidence/maintenance";
@@ -51,12 +51,12 @@ export default async function BathIndexPage() {
             return (
               <tr key={stage.id}>
                 <Td>
-                  <Link
+                  <IntentLink
                     href={`/evidence/bath/${stage.id}`}
                     className="font-medium text-brand-800 hover:underline"
                   >
                     {system.code} · {stage.name}
-                  </Link>
+                  </IntentLink>
                   {stage.tankVolumeL !== null && (
                     <span className="block text-xs text-stone-600">{stage.tankVolumeL} L</span>
                   )}

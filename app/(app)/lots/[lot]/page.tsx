@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { PageHeader } from "@/components/ui/page-header";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -120,13 +120,13 @@ export default async function LotHistoryPage({ params }: { params: Promise<{ lot
             {h.runs.map((r) => (
               <tr key={r.id}>
                 <Td>
-                  <Link
+                  <IntentLink
                     href={`/evidence/runs/${r.id}`}
                     className="font-medium text-brand-800 hover:underline"
                   >
                     {r.number}
                     {r.revision > 1 ? ` rev ${r.revision}` : ""}
-                  </Link>
+                  </IntentLink>
                 </Td>
                 <Td>{TEST_TYPE_LABELS[r.testType as TestType] ?? r.testType}</Td>
                 <Td>{r.performedOn ?? "—"}</Td>
@@ -158,12 +158,12 @@ export default async function LotHistoryPage({ params }: { params: Promise<{ lot
             {h.nonconformances.map((nc) => (
               <tr key={nc.id}>
                 <Td>
-                  <Link
+                  <IntentLink
                     href={`/nonconformances/${nc.id}`}
                     className="font-medium text-brand-800 hover:underline"
                   >
                     {nc.number}
-                  </Link>
+                  </IntentLink>
                   <span className="block text-xs text-stone-600">{nc.title}</span>
                 </Td>
                 <Td>{nc.detectedOn}</Td>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
 import {
@@ -110,12 +110,12 @@ export default async function NonconformancePage({
           <dd>
             {nc.manualKind ? NC_MANUAL_LABELS[nc.manualKind] : NC_SOURCE_LABELS[nc.sourceKind]}:{" "}
             {page.sourceRun ? (
-              <Link
+              <IntentLink
                 href={`/evidence/runs/${page.sourceRun.id}`}
                 className="text-brand-800 underline"
               >
                 {nc.sourceLabel}
-              </Link>
+              </IntentLink>
             ) : (
               nc.sourceLabel
             )}
@@ -183,9 +183,12 @@ export default async function NonconformancePage({
               <tr key={item.id}>
                 <Td className="whitespace-nowrap">
                   {run ? (
-                    <Link href={`/evidence/runs/${run.id}`} className="text-brand-800 underline">
+                    <IntentLink
+                      href={`/evidence/runs/${run.id}`}
+                      className="text-brand-800 underline"
+                    >
                       {item.label}
-                    </Link>
+                    </IntentLink>
                   ) : (
                     item.label
                   )}
@@ -294,13 +297,13 @@ export default async function NonconformancePage({
                 <Td>{action.evidenceLink ?? "—"}</Td>
                 <Td>
                   {action.changeRequestId ? (
-                    <Link
+                    <IntentLink
                       href={`/changes/${action.changeRequestId}`}
                       className="text-brand-800 underline"
                     >
                       {changeNumber}
                       {changeStatus && ` (${CHANGE_STATUS_LABELS[changeStatus].toLowerCase()})`}
-                    </Link>
+                    </IntentLink>
                   ) : works &&
                     action.kind === "corrective" &&
                     nc.recipeId &&
@@ -337,12 +340,12 @@ export default async function NonconformancePage({
           <dt className="text-stone-500">Evidence</dt>
           <dd>
             {page.effectivenessRun ? (
-              <Link
+              <IntentLink
                 href={`/evidence/runs/${page.effectivenessRun.id}`}
                 className="text-brand-800 underline"
               >
                 {page.effectivenessRun.number}
-              </Link>
+              </IntentLink>
             ) : nc.effectivenessFileId ? (
               (page.files.find((f) => f.id === nc.effectivenessFileId)?.name ?? "file")
             ) : (

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { QualifyForm } from "@/components/parts/qualify-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -48,9 +48,12 @@ export default async function CombinationsPage() {
                 <span className="font-mono text-xs">{c.familyCode}</span> · {c.familyName}
               </Td>
               <Td>
-                <Link href={`/systems/recipes/${c.recipeId}`} className="text-brand-800 underline">
+                <IntentLink
+                  href={`/systems/recipes/${c.recipeId}`}
+                  className="text-brand-800 underline"
+                >
                   {c.recipeCode} v{c.recipeVersion}
-                </Link>{" "}
+                </IntentLink>{" "}
                 ({c.recipeVersionStatus})
               </Td>
               <Td>{c.basis ?? "carried over by a change"}</Td>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { z } from "zod";
 import { linkButton, secondaryLink } from "@/components/parts/link-styles";
 import { Button } from "@/components/ui/button";
@@ -39,9 +39,9 @@ export default async function SpecRegisterPage({
         description="Customer cleanliness specifications by revision. A new revision supersedes the one in force; runs keep the revision they were tested against."
         actions={
           can(user.roles, "parts.manage") ? (
-            <Link href="/parts/specs/new" className={linkButton}>
+            <IntentLink href="/parts/specs/new" className={linkButton}>
               New specification
-            </Link>
+            </IntentLink>
           ) : undefined
         }
       />
@@ -72,9 +72,9 @@ export default async function SpecRegisterPage({
           Filter
         </Button>
         {(query.q || query.status !== "in_force") && (
-          <Link href="/parts/specs" className={secondaryLink}>
+          <IntentLink href="/parts/specs" className={secondaryLink}>
             Clear
-          </Link>
+          </IntentLink>
         )}
       </form>
       <Table caption="Specifications">
@@ -93,9 +93,9 @@ export default async function SpecRegisterPage({
           {specs.map((s) => (
             <tr key={s.id}>
               <Td className="font-mono text-xs">
-                <Link href={`/parts/specs/${s.id}`} className="text-brand-800 underline">
+                <IntentLink href={`/parts/specs/${s.id}`} className="text-brand-800 underline">
                   {s.code}
-                </Link>
+                </IntentLink>
               </Td>
               <Td>{s.revision}</Td>
               <Td>{STATUS_WORDS[s.status]}</Td>

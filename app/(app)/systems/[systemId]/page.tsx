@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { SystemEditor } from "@/components/systems/system-editor";
@@ -104,19 +104,19 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
       </section>
       {can(user.roles, "recipe.edit") && system.active && (
         <p className="mb-4">
-          <Link
+          <IntentLink
             href={`/systems/${system.id}/recipes/new`}
             className="text-sm font-medium text-brand-800 hover:underline"
           >
             New recipe for {system.code}
-          </Link>
+          </IntentLink>
           {" · "}
-          <Link
+          <IntentLink
             href={`/systems/${system.id}/recipes/import`}
             className="text-sm font-medium text-brand-800 hover:underline"
           >
             Import a recipe from CSV
-          </Link>
+          </IntentLink>
         </p>
       )}
       {system.recipes.map((recipe) => {
@@ -128,12 +128,12 @@ export default async function SystemPage({ params }: { params: Promise<{ systemI
             aria-labelledby={`r-${recipe.id}`}
           >
             <h2 id={`r-${recipe.id}`} className="text-lg font-semibold">
-              <Link
+              <IntentLink
                 href={`/systems/recipes/${recipe.id}`}
                 className="text-brand-800 hover:underline"
               >
                 {recipe.code} · {recipe.name}
-              </Link>
+              </IntentLink>
             </h2>
             <p className="text-sm text-stone-600">
               {v

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { SystemEditor } from "@/components/systems/system-editor";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -17,9 +17,9 @@ export default async function NewSystemPage() {
         title="New cleaning system"
         description="A washer with its stages in process order and the equipment each carries. Recipes are written for it afterwards."
         actions={
-          <Link href="/systems" className="text-sm text-brand-800 hover:underline">
+          <IntentLink href="/systems" className="text-sm text-brand-800 hover:underline">
             Back to cleaning systems
-          </Link>
+          </IntentLink>
         }
       />
       <section className="rounded-lg border border-stone-200 bg-white p-5">

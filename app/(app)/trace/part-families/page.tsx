@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { EmptyState } from "@/components/ui/empty-state";
 import { SelectField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
@@ -78,12 +78,12 @@ export default async function PartFamilyTracePage({
               {history.versions.map((v) => (
                 <li key={v.id} className="rounded-lg border border-stone-200 bg-white p-5">
                   <h3 className="font-semibold">
-                    <Link
+                    <IntentLink
                       href={`/systems/recipes/${v.recipe.id}`}
                       className="text-brand-800 hover:underline"
                     >
                       {v.recipe.code}
-                    </Link>{" "}
+                    </IntentLink>{" "}
                     version {v.version} · {humanize(v.status)}
                   </h3>
                   <p className="text-sm text-stone-700">
@@ -132,12 +132,12 @@ export default async function PartFamilyTracePage({
                             </Td>
                             <Td>
                               {r.changeRequestId && r.changeNumber ? (
-                                <Link
+                                <IntentLink
                                   href={`/changes/${r.changeRequestId}`}
                                   className="text-brand-800 hover:underline"
                                 >
                                   {r.changeNumber}
-                                </Link>
+                                </IntentLink>
                               ) : (
                                 "—"
                               )}

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { RedlineView } from "@/components/documents/redline-view";
 import { StatusBadge } from "@/components/documents/status-badge";
@@ -38,12 +38,12 @@ export default async function ComparePage({
         title={`Compare ${document.number}: version ${from} → version ${to}`}
         description={`${result.insertedWords} words inserted, ${result.deletedWords} words deleted.`}
         actions={
-          <Link
+          <IntentLink
             href={`/documents/${documentId}`}
             className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100"
           >
             Back to the document
-          </Link>
+          </IntentLink>
         }
       />
       <form className="mb-4 flex flex-wrap items-end gap-3 text-sm" aria-label="Choose versions">
@@ -68,20 +68,20 @@ export default async function ComparePage({
           Compare
         </button>
         <span className="ml-auto flex gap-2">
-          <Link
+          <IntentLink
             href={href("redline")}
             aria-current={view === "redline" ? "page" : undefined}
             className="rounded-md px-2 py-1 aria-[current=page]:bg-brand-100 aria-[current=page]:font-semibold"
           >
             Redline
-          </Link>
-          <Link
+          </IntentLink>
+          <IntentLink
             href={href("side")}
             aria-current={view === "side" ? "page" : undefined}
             className="rounded-md px-2 py-1 aria-[current=page]:bg-brand-100 aria-[current=page]:font-semibold"
           >
             Side by side
-          </Link>
+          </IntentLink>
         </span>
       </form>
       {view === "redline" ? (

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { DocumentEditorLoader } from "@/components/documents/document-editor-loader";
 import { StatusBadge } from "@/components/documents/status-badge";
@@ -40,12 +40,12 @@ export default async function EditDocumentPage({
           </>
         }
         actions={
-          <Link
+          <IntentLink
             href={back}
             className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100"
           >
             Back to the document
-          </Link>
+          </IntentLink>
         }
       />
       {returned && (

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { DeviationList } from "@/components/deviations/deviation-list";
 import { CsvImport } from "@/components/evidence/csv-import";
@@ -105,12 +105,12 @@ export default async function RunPage({
       {run.status === "superseded" && (
         <p className="mb-4 rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm">
           This revision has been superseded.{" "}
-          <Link
+          <IntentLink
             className="font-medium text-brand-800 underline"
             href={`/evidence/runs/${revisions[0].id}`}
           >
             Open the current revision
-          </Link>
+          </IntentLink>
           .
         </p>
       )}
@@ -358,12 +358,12 @@ export default async function RunPage({
                   {r.id === run.id ? (
                     <span className="font-medium">Revision {r.revision} (this page)</span>
                   ) : (
-                    <Link
+                    <IntentLink
                       href={`/evidence/runs/${r.id}`}
                       className="font-medium text-brand-800 hover:underline"
                     >
                       Revision {r.revision}
-                    </Link>
+                    </IntentLink>
                   )}{" "}
                   · <RunStatusWord status={r.status} /> · <OutcomeWord outcome={r.outcome} />
                   {r.revisionReason && (

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { SpecChangeOffer } from "@/components/parts/spec-change-offer";
@@ -105,9 +105,12 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
               {families.map((f) => (
                 <tr key={f.id}>
                   <Td className="font-mono text-xs">
-                    <Link href={`/parts/families/${f.id}`} className="text-brand-800 underline">
+                    <IntentLink
+                      href={`/parts/families/${f.id}`}
+                      className="text-brand-800 underline"
+                    >
                       {f.code}
-                    </Link>
+                    </IntentLink>
                   </Td>
                   <Td>{f.name}</Td>
                 </tr>
@@ -127,9 +130,12 @@ export default async function SpecPage({ params }: { params: Promise<{ specId: s
                     {r.id === spec.id ? (
                       <span aria-current="page">{r.revision}</span>
                     ) : (
-                      <Link href={`/parts/specs/${r.id}`} className="text-brand-800 underline">
+                      <IntentLink
+                        href={`/parts/specs/${r.id}`}
+                        className="text-brand-800 underline"
+                      >
                         {r.revision}
-                      </Link>
+                      </IntentLink>
                     )}
                   </Td>
                   <Td>{r.status === "in_force" ? "In force" : "Superseded"}</Td>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { DeviationList } from "@/components/deviations/deviation-list";
 import { IntervalForm } from "@/components/changes/interval-form";
@@ -48,9 +48,9 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
         description={
           <>
             On{" "}
-            <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
+            <IntentLink href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
               {system.code} {system.name}
-            </Link>
+            </IntentLink>
             . {recipe.description}
           </>
         }
@@ -109,12 +109,12 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
               </h2>
               {open ? (
                 <p className="text-sm">
-                  <Link
+                  <IntentLink
                     href={`/changes/${open.id}`}
                     className="font-medium text-brand-800 hover:underline"
                   >
                     {open.number}
-                  </Link>{" "}
+                  </IntentLink>{" "}
                   is open ({CHANGE_STATUS_LABELS[open.status].toLowerCase()}): finish or withdraw it
                   before opening another.
                 </p>
@@ -142,12 +142,12 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
             <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
               {versions.map((v) => (
                 <li key={v.id} className="flex justify-between px-3 py-2">
-                  <Link
+                  <IntentLink
                     href={`/systems/recipes/${recipe.id}/versions/${v.version}`}
                     className="text-brand-800 hover:underline"
                   >
                     Version {v.version}
-                  </Link>
+                  </IntentLink>
                   <span>
                     {humanize(v.status)}
                     {v.effectiveFrom ? ` · from ${formatDate(v.effectiveFrom)}` : ""}
@@ -199,12 +199,12 @@ export default async function RecipePage({ params }: { params: Promise<{ recipeI
                 <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
                   {changes.map((c) => (
                     <li key={c.id} className="px-3 py-2">
-                      <Link
+                      <IntentLink
                         href={`/changes/${c.id}`}
                         className="font-medium text-brand-800 hover:underline"
                       >
                         {c.number}
-                      </Link>{" "}
+                      </IntentLink>{" "}
                       {c.title} · {CHANGE_STATUS_LABELS[c.status]}
                       {c.impact ? ` · ${c.impact}` : ""}
                     </li>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { RecipeCsvImport } from "@/components/recipes/recipe-csv-import";
 import { PageHeader } from "@/components/ui/page-header";
@@ -24,18 +24,18 @@ export default async function ImportRecipePage({
         description={
           <>
             On{" "}
-            <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
+            <IntentLink href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
               {system.code} {system.name}
-            </Link>
+            </IntentLink>
             . The file&apos;s stages and parameters are checked as the recipe form checks them and
             saved as a draft first version, all of it or nothing; it runs parts only after its
             initial validation is closed. Or{" "}
-            <Link
+            <IntentLink
               href={`/systems/${system.id}/recipes/new`}
               className="text-brand-800 hover:underline"
             >
               type the recipe in
-            </Link>
+            </IntentLink>
             .
           </>
         }

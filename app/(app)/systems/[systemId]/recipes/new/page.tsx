@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { NewRecipeForm } from "@/components/recipes/new-recipe-form";
 import type { StageDraft } from "@/components/recipes/recipe-stages-editor";
@@ -28,17 +28,17 @@ export default async function NewRecipePage({ params }: { params: Promise<{ syst
         description={
           <>
             On{" "}
-            <Link href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
+            <IntentLink href={`/systems/${system.id}`} className="text-brand-800 hover:underline">
               {system.code} {system.name}
-            </Link>
+            </IntentLink>
             . The recipe is saved as a draft first version; it runs parts only after its initial
             validation is closed. A recipe kept in a spreadsheet can be{" "}
-            <Link
+            <IntentLink
               href={`/systems/${system.id}/recipes/import`}
               className="text-brand-800 hover:underline"
             >
               imported from CSV
-            </Link>
+            </IntentLink>
             .
           </>
         }

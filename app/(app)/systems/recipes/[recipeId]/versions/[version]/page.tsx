@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { PageHeader } from "@/components/ui/page-header";
@@ -34,9 +34,12 @@ export default async function RecipeVersionPage({
         title={`${recipe.code} · version ${v.version}`}
         description={
           <>
-            <Link href={`/systems/recipes/${recipe.id}`} className="text-brand-800 hover:underline">
+            <IntentLink
+              href={`/systems/recipes/${recipe.id}`}
+              className="text-brand-800 hover:underline"
+            >
               {recipe.name}
-            </Link>{" "}
+            </IntentLink>{" "}
             on {system.code}. {humanize(v.status)}
             {v.effectiveFrom ? `, effective from ${formatDate(v.effectiveFrom)}` : ""}
             {v.effectiveTo ? ` to ${formatDate(v.effectiveTo)}` : ""}. Read-only.
@@ -68,12 +71,12 @@ export default async function RecipeVersionPage({
           {proposedBy.map((c, i) => (
             <span key={c.id}>
               {i > 0 ? ", " : ""}
-              <Link
+              <IntentLink
                 href={`/changes/${c.id}`}
                 className="font-medium text-brand-800 hover:underline"
               >
                 {c.number}
-              </Link>{" "}
+              </IntentLink>{" "}
               ({CHANGE_STATUS_LABELS[c.status].toLowerCase()})
             </span>
           ))}
