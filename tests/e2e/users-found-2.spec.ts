@@ -1,4 +1,4 @@
-import type { Browser } from "@playwright/test";
+import type { Browser, Page } from "@playwright/test";
 import { DEMO_PASSWORD, expect, signInAs, test, type DemoRole } from "./fixtures";
 
 async function as(browser: Browser, role: DemoRole, url: string) {
@@ -213,14 +213,20 @@ test("the CSV column-matching panel stays open for review after the last column 
   await expect(matching).toBeHidden();
 });
 
+/** The pages the client router fetches (prefetches and navigations), by path. */
+function recordRouterFetches(page: Page) {
+  const paths: string[] = [];
+  page.on("request", (r) => {
+    if (r.headers()["rsc"] === "1") paths.push(new URL(r.url()).pathname);
+  });
+  return paths;
+}
+
 test("the API tokens page settles, and menu links are fetched on intent rather than all at load", async ({
   page,
 }) => {
   await signInAs(page, "engineer");
-  const routerFetches: string[] = [];
-  page.on("request", (r) => {
-    if (r.headers()["rsc"] === "1") routerFetches.push(new URL(r.url()).pathname);
-  });
+  const routerFetches = recordRouterFetches(page);
   // Before, a prefetch of the API description behind a router link never settled.
   await page.goto("/account/tokens", { waitUntil: "networkidle" });
   await expect(page.getByRole("heading", { name: "API tokens" })).toBeVisible();
@@ -241,10 +247,7 @@ test("a list's row links are fetched on intent too: a page of change requests fe
   page,
 }) => {
   await signInAs(page, "engineer");
-  const routerFetches: string[] = [];
-  page.on("request", (r) => {
-    if (r.headers()["rsc"] === "1") routerFetches.push(new URL(r.url()).pathname);
-  });
+  const routerFetches = recordRouterFetches(page);
   await page.goto("/changes", { waitUntil: "networkidle" });
   const first = page.getByRole("link", { name: /^CR-\d{4}-\d{3}$/ }).first();
   await expect(first).toBeVisible();
