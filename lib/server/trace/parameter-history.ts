@@ -140,14 +140,14 @@ export async function getParameterHistory(
     .where(eq(recipeVersions.recipeId, input.recipeId))
     .orderBy(asc(recipeVersions.version));
   const ids = versions.map((v) => v.v.id);
-  const params = ids.length
+  // This parameter's row in each version only (by the (version, key) index), not the whole recipe.
+  const mine = ids.length
     ? await db
         .select({ p: recipeParameters, stage: recipeStages.name })
         .from(recipeParameters)
         .innerJoin(recipeStages, eq(recipeStages.id, recipeParameters.stageId))
-        .where(inArray(recipeParameters.versionId, ids))
+        .where(and(inArray(recipeParameters.versionId, ids), eq(recipeParameters.key, input.key)))
     : [];
-  const mine = params.filter((r) => r.p.key === input.key);
   if (mine.length === 0) return undefined;
 
   const values: VersionValue[] = versions.map(({ v }) => {
@@ -171,8 +171,19 @@ export async function getParameterHistory(
         : null,
     };
   });
+  // Only what the timeline prints of every change of the recipe: the assessment details (large)
+  // are read by loadChangeStates for the changes shown.
   const changes = await db
-    .select()
+    .select({
+      id: changeRequests.id,
+      number: changeRequests.number,
+      title: changeRequests.title,
+      status: changeRequests.status,
+      fromVersionId: changeRequests.fromVersionId,
+      toVersionId: changeRequests.toVersionId,
+      createdAt: changeRequests.createdAt,
+      closedAt: changeRequests.closedAt,
+    })
     .from(changeRequests)
     .where(eq(changeRequests.recipeId, input.recipeId));
   const proposedFrom = new Map(
