@@ -139,7 +139,8 @@ try {
       name: "Trace of the busy parameter",
       path: `/trace?recipe=${plant.busy.recipeId}&key=${plant.busy.key}`,
       role: "auditor",
-      check: (b) => b.includes(plant.busy.key) && b.includes("CR-00001"),
+      // The newest entries, and the link to the older ones (the first change is among those).
+      check: (b) => b.includes(plant.busy.key) && /Show \d+ older entr/.test(b),
     },
     {
       name: "Audit-trail page data",
@@ -483,10 +484,21 @@ function startServer(p: PlantManifest): ChildProcess {
     SMTP_URL: `smtp://127.0.0.1:${PORT + 1000}`,
     MAILBOX_FILE: `${dataDir}/mailbox.jsonl`,
   };
+  // The production server's heap cap, as `npm start` sets it (package.json is its one place).
+  const start = JSON.parse(readFileSync("package.json", "utf8")).scripts.start as string;
+  const heapCap = /--max-old-space-size=\d+/.exec(start)?.[0];
   // Its own process group, so stopping it stops whatever it started and nothing else.
   const child = spawn(
     process.execPath,
-    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
+    [
+      ...(heapCap ? [heapCap] : []),
+      "node_modules/next/dist/bin/next",
+      "start",
+      "-H",
+      "127.0.0.1",
+      "-p",
+      String(PORT),
+    ],
     { env, detached: true, stdio: ["ignore", "ignore", "inherit"] },
   );
   child.on(

@@ -106,8 +106,7 @@ export default async function TracePage({
                 href={`/trace?recipe=${history.recipe.id}&key=${encodeURIComponent(history.parameter.key)}&entries=${shown + TRACE_ENTRIES_PAGE}`}
                 className="font-semibold text-brand-800 hover:underline"
               >
-                Show {Math.min(older, TRACE_ENTRIES_PAGE)} older{" "}
-                {Math.min(older, TRACE_ENTRIES_PAGE) === 1 ? "entry" : "entries"}
+                {`Show ${Math.min(older, TRACE_ENTRIES_PAGE)} older ${Math.min(older, TRACE_ENTRIES_PAGE) === 1 ? "entry" : "entries"}`}
               </Link>
             </p>
           )}
