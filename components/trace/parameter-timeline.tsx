@@ -31,12 +31,12 @@ export function ParameterTimeline({
   history: ParameterHistory;
   canExport: boolean;
 }) {
-  // Each entry's previous value is the last value in force before it (entries arrive oldest first).
-  const rows = history.entries.map((entry, i) => ({
-    entry,
-    previous: history.entries.slice(0, i).findLast((e) => e.period.kind === "in_force")?.period
-      .value,
-  }));
+  // Each entry's previous value is the last value in force before it (entries arrive oldest first);
+  // before the oldest entry shown, the service says what was in force among those not shown.
+  const rows = history.entries.map((entry, i) => {
+    const earlier = history.entries.slice(0, i).findLast((e) => e.period.kind === "in_force");
+    return { entry, previous: earlier ? earlier.period.value : history.older?.previous };
+  });
   return (
     <ol aria-label="Parameter history" className="space-y-6">
       {rows.reverse().map(({ entry, previous }) => (

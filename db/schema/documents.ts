@@ -58,7 +58,11 @@ export const documentVersions = sqliteTable(
     createdAt: createdAt(),
     updatedAt: text("updated_at"),
   },
-  (t) => [uniqueIndex("document_versions_uq").on(t.documentId, t.version)],
+  (t) => [
+    uniqueIndex("document_versions_uq").on(t.documentId, t.version),
+    // My queue finds the few drafts and versions in review among a library of effective ones.
+    index("document_versions_status_idx").on(t.status),
+  ],
 );
 export type DocumentVersion = typeof documentVersions.$inferSelect;
 

@@ -10,7 +10,12 @@ export const traceQuerySchema = z.object({
     .regex(/^[a-z0-9_.]{1,80}$/)
     .optional()
     .catch(undefined),
+  /** How many of the newest timeline entries to show; the "older entries" link raises it. */
+  entries: z.coerce.number().int().min(1).max(10_000).optional().catch(undefined),
 });
+
+/** Timeline entries a trace shows at first, newest first; each "older entries" link adds as many. */
+export const TRACE_ENTRIES_PAGE = 10;
 
 export const partFamilyQuerySchema = z.object({ family: z.uuid().optional().catch(undefined) });
 

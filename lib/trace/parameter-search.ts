@@ -41,7 +41,12 @@ export function matchParameters(
 }
 
 /** The cleaning systems and recipes that hold traceable parameters, for the two choosers. */
-export function traceScopes(parameters: readonly TraceParameter[]) {
+export function traceScopes(
+  parameters: readonly Pick<
+    TraceParameter,
+    "systemId" | "systemCode" | "systemName" | "recipeId" | "recipeCode" | "recipeName"
+  >[],
+) {
   const systems = new Map<string, { id: string; label: string }>();
   const recipes = new Map<string, { id: string; label: string; systemId: string }>();
   for (const p of parameters) {

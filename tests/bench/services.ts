@@ -17,10 +17,16 @@ import { openDatabase, setProcessDatabase } from "@/db/client";
 import { userRoles, users } from "@/db/schema";
 import { verifyAuditChain } from "@/lib/audit";
 import { getQueue } from "@/lib/server/queue/get-queue";
-import { getParameterHistory } from "@/lib/server/trace/parameter-history";
+import {
+  getParameterHistory,
+  listTraceableParameters,
+  listTraceScopes,
+} from "@/lib/server/trace/parameter-history";
+import { TRACE_ENTRIES_PAGE } from "@/lib/schemas/trace";
 import { referenceParameterHistory } from "../unit/support/trace-reference";
 import { scaleFromArgs } from "./plant-scale";
 import { seedPlant } from "./seed-plant";
+import { rawTraceRows } from "./trace-anchor";
 
 const scale = scaleFromArgs(process.argv.slice(2), process.env);
 const reuse = process.argv.includes("--reuse");
@@ -109,11 +115,33 @@ const trace = await time(() => getParameterHistory(input));
 const before = await time(() => referenceParameterHistory(input));
 const same = JSON.stringify(trace.result) === JSON.stringify(before.result);
 row(
-  "Trace of the busy parameter (batched)",
+  "Trace of the busy parameter (batched, whole history)",
   trace,
   `${trace.result?.entries.length} periods; same answer as before: ${same}`,
 );
 row("  anchor: the read before batching", before);
+// What the trace page itself reads: the choosers' names, the recipe's parameters for the list and
+// the newest entries of the timeline; beside it the same rows read with hand-written SQL.
+const pageReads = await time(() =>
+  Promise.all([
+    listTraceScopes(),
+    listTraceableParameters({ recipeId: input.recipeId }),
+    getParameterHistory(input, { newest: TRACE_ENTRIES_PAGE }),
+  ]),
+);
+const raw = await time(() => rawTraceRows(client, input.recipeId, input.key, TRACE_ENTRIES_PAGE));
+const picker = await time(() => listTraceableParameters());
+row(
+  `Trace page's reads (choosers, the recipe's parameters, newest ${TRACE_ENTRIES_PAGE} entries)`,
+  pageReads,
+  `${(pageReads.p50 / raw.p50).toFixed(1)}× the raw SQL at p50, ${(pageReads.p95 / raw.p95).toFixed(1)}× at p95`,
+);
+row(`  anchor: raw SQL for the same rows`, raw, `${raw.result} rows`);
+row(
+  "  before: the picker's plant-wide list, read on every view",
+  picker,
+  `${picker.result.length} parameters`,
+);
 load();
 
 // ── Audit verification beside raw SHA-256 of the same text ──

@@ -249,3 +249,25 @@ test("a token created in Account settings is shown once, reads the API, and is r
     /^This API token was revoked on \d{4}-\d{2}-\d{2}\. Create a new one\.$/,
   );
 });
+
+test("a trace shows the newest entries first and opens older ones from its link, each still showing the value before it", async ({
+  page,
+}) => {
+  await signInAs(page, "auditor");
+  await page.getByRole("navigation").getByRole("link", { name: "Trace" }).click();
+  await page.getByLabel("Recipe").selectOption({ label: "R-SC1-SF · Fitting, spray" });
+  await page
+    .getByRole("list", { name: "Matching parameters" })
+    .getByRole("link", { name: /Drying temperature drying\.temperature/ })
+    .click();
+  await expect(page).toHaveURL(/key=drying\.temperature/);
+  // One entry a page, so the demo's two versions need the link [db/seed-changes.ts: 90 °C → 105 °C].
+  await page.goto(`${page.url()}&entries=1`);
+  const newest = page.getByRole("article", { name: "Version 2: 105 °C" });
+  await expect(newest).toContainText("90 °C → 105 °C");
+  await expect(page.getByRole("article", { name: "Version 1: 90 °C" })).toHaveCount(0);
+  await expect(page.getByText("1 of 2 entries shown.")).toBeVisible();
+  await page.getByRole("link", { name: "Show 1 older entry" }).click();
+  await expect(page.getByRole("article", { name: "Version 1: 90 °C" })).toBeVisible();
+  await expect(page.getByRole("link", { name: /Show \d+ older/ })).toHaveCount(0);
+});

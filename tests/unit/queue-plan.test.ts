@@ -4,12 +4,14 @@ import { seedDemo } from "@/db/seed";
 import { users } from "@/db/schema";
 import { runQueueQueries, VERIFY_KIND } from "@/lib/server/evidence/queue-provider";
 import { openChangeIds } from "@/lib/server/changes/queue-provider";
+import { documentQueueQueries } from "@/lib/server/documents/queue-provider";
 import { getQueue, QUEUE_PAGE_SIZE } from "@/lib/server/queue/get-queue";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
 let engineer: { id: string; name: string };
 const RUNS = 6000;
+const DOCUMENTS = 3000;
 const PERFORMED_EVERY = 40; // 150 performed runs among 6,000: waiting runs are a sliver, as in a plant.
 
 beforeAll(async () => {
@@ -26,6 +28,22 @@ beforeAll(async () => {
            case when n % ${PERFORMED_EVERY} = 0 then 'performed' else 'verified' end, 'pass', 1, r.technician_id, r.lab, r.performed_on, r.created_by, r.created_at
     from (with recursive seq(n) as (select 1 union all select n + 1 from seq where n < ${RUNS}) select n from seq),
          (select * from test_runs limit 1) r`);
+  // A library of thousands of effective documents, as a plant holds, owned by the engineer: the
+  // drafts and versions in review are the sliver the queue looks for.
+  await t.client.execute(`
+    insert into documents (id, number, title, type, owner_id, created_at)
+    select 'plan-doc-' || n, 'QP-DOC-' || printf('%06d', n), 'Library document ' || n, d.type, '${engineer.id}', d.created_at
+    from (with recursive seq(n) as (select 1 union all select n + 1 from seq where n < ${DOCUMENTS}) select n from seq),
+         (select * from documents limit 1) d`);
+  await t.client.execute(`
+    insert into document_versions (id, document_id, version, status, content, created_by, created_at)
+    select 'plan-ver-' || substr(d.id, 10), d.id, 1, 'effective', v.content, v.created_by, v.created_at
+    from documents d, (select * from document_versions limit 1) v where d.id like 'plan-doc-%'`);
+  // Each library version was approved once: thousands of decided review steps, a few still open.
+  await t.client.execute(`
+    insert into document_reviews (id, version_id, round, step, role, assignee_id, activated_at, decision, decided_at, created_at)
+    select 'plan-rev-' || substr(v.id, 10), v.id, 1, 1, 'approver', '${engineer.id}', v.created_at, 'approved', v.created_at, v.created_at
+    from document_versions v where v.id like 'plan-ver-%'`);
   await t.client.execute("ANALYZE");
 });
 afterAll(() => t.cleanup());
@@ -50,6 +68,18 @@ describe("My queue at plant shape", () => {
     expect(detail).toMatch(
       /SEARCH change_requests USING (COVERING )?INDEX change_requests_status_idx \(status=\?\)/,
     );
+  });
+
+  it("finds the engineer's drafts and the reviews waiting on them through indexes, never a scan of every document version", async () => {
+    const q = documentQueueQueries(engineer.id);
+    const returned = await plan(q.returned.getSQL());
+    expect(returned).toMatch(
+      /SEARCH (document_versions|v) USING (COVERING )?INDEX document_versions_status_idx \(status=\?\)/,
+    );
+    expect(returned).not.toMatch(/SCAN (document_versions|documents)\b/);
+    const steps = await plan(q.steps.getSQL());
+    expect(steps).toMatch(/SEARCH document_reviews USING INDEX document_reviews_assignee_idx/);
+    expect(steps).not.toMatch(/SCAN /);
   });
 
   it("pages one kind at a time and counts every kind in full", async () => {

@@ -23,7 +23,12 @@ import { localStore, setStore } from "@/lib/storage";
 import { loadAuditPack } from "@/lib/server/trace/audit-pack";
 import { exportAuditPack } from "@/lib/server/trace/export-audit-pack";
 import { writeCheckpoint } from "@/lib/server/audit/write-checkpoint";
-import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
+import {
+  getParameterHistory,
+  listTraceableParameters,
+  listTraceScopes,
+} from "@/lib/server/trace/parameter-history";
+import { traceScopes } from "@/lib/trace/parameter-search";
 import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
 import { uncontrolledOrigin } from "@/lib/trace/labels";
@@ -260,6 +265,43 @@ describe("parameter history", () => {
       all.find((p) => p.recipeId === valveBody && p.key === "wash.temperature")?.versions,
     ).toBe(4);
     expect(await getParameterHistory({ recipeId: valveBody, key: "wash.nothing" })).toBeUndefined();
+  });
+
+  it("reads the newest entries in full and says how many older ones there are and what was in force before them", async () => {
+    const whole = (await getParameterHistory({ recipeId: valveBody, key: "wash.temperature" }))!;
+    expect(whole.entries.length).toBeGreaterThanOrEqual(3);
+    expect(whole).not.toHaveProperty("older");
+    for (const newest of [1, 2, whole.entries.length, whole.entries.length + 5]) {
+      const paged = (await getParameterHistory(
+        { recipeId: valveBody, key: "wash.temperature" },
+        { newest },
+      ))!;
+      const hidden = Math.max(0, whole.entries.length - newest);
+      // The entries shown are exactly the newest of the whole history, read the same way.
+      expect(paged.entries).toEqual(whole.entries.slice(hidden));
+      expect(paged.older?.count).toBe(hidden);
+      expect(paged.older?.previous).toEqual(
+        whole.entries.slice(0, hidden).findLast((e) => e.period.kind === "in_force")?.period.value,
+      );
+    }
+  });
+
+  it("lists a recipe's or a system's parameters alone, the same rows the plant-wide list holds for it", async () => {
+    const all = await listTraceableParameters();
+    const mine = await listTraceableParameters({ recipeId: valveBody });
+    expect(mine.length).toBeGreaterThan(0);
+    expect(mine).toEqual(all.filter((p) => p.recipeId === valveBody));
+    const systemId = mine[0].systemId;
+    expect(await listTraceableParameters({ systemId })).toEqual(
+      all.filter((p) => p.systemId === systemId),
+    );
+    // The choosers read names only and offer the same systems and recipes as before.
+    const scopes = await listTraceScopes();
+    const expected = traceScopes(all);
+    expect(scopes.systems).toEqual(expect.arrayContaining(expected.systems));
+    expect(scopes.systems).toHaveLength(expected.systems.length);
+    expect(scopes.recipes).toEqual(expect.arrayContaining(expected.recipes));
+    expect(scopes.recipes).toHaveLength(expected.recipes.length);
   });
 
   it("timeline: a removed parameter ends a period, and a withdrawn proposal never counts as in force", () => {

@@ -8,10 +8,15 @@ import { can } from "@/lib/auth/permissions";
 import { rangeWithUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { deviationsOfRecipe } from "@/lib/server/deviations/queries";
-import { getParameterHistory, listTraceableParameters } from "@/lib/server/trace/parameter-history";
+import {
+  getParameterHistory,
+  listTraceableParameters,
+  listTraceScopes,
+} from "@/lib/server/trace/parameter-history";
 import { NcPanel } from "@/components/nonconformances/nc-panel";
-import { traceQuerySchema } from "@/lib/schemas/trace";
-import { matchParameters, traceScopes } from "@/lib/trace/parameter-search";
+import { TRACE_ENTRIES_PAGE, traceQuerySchema } from "@/lib/schemas/trace";
+import { matchParameters } from "@/lib/trace/parameter-search";
+import Link from "next/link";
 
 export const metadata: Metadata = { title: "Trace" };
 
@@ -26,13 +31,18 @@ export default async function TracePage({
     query.success && query.data.recipe && query.data.key
       ? { recipeId: query.data.recipe, key: query.data.key }
       : undefined;
-  const [parameters, history] = await Promise.all([
-    listTraceableParameters(),
-    selected ? getParameterHistory(selected) : undefined,
+  const shown = (query.success && query.data.entries) || TRACE_ENTRIES_PAGE;
+  // The choosers need names only; the list under them reads the chosen recipe's parameters alone.
+  const [scopes, parameters, history] = await Promise.all([
+    listTraceScopes(),
+    listTraceableParameters(selected ? { recipeId: selected.recipeId } : {}),
+    selected ? getParameterHistory(selected, { newest: shown }) : undefined,
   ]);
   const temporary = history
     ? await deviationsOfRecipe(history.recipe.id, new Date(), history.parameter.key)
     : [];
+  const older = history?.older?.count ?? 0;
+  const total = (history?.entries.length ?? 0) + older;
   const current = history?.entries.findLast((e) => e.period.kind === "in_force")?.period.value;
   const initialRecipe = selected
     ? parameters.find((p) => p.recipeId === selected.recipeId)
@@ -49,7 +59,7 @@ export default async function TracePage({
         description="Every value a recipe parameter has had, who changed it, why, who approved it and which evidence requalified it."
       />
       <ParameterPicker
-        scopes={traceScopes(parameters)}
+        scopes={scopes}
         initial={matchParameters(parameters, initialFilter)}
         initialFilter={initialFilter}
         selected={selected}
@@ -78,8 +88,7 @@ export default async function TracePage({
             {current
               ? ` · now ${current.setpoint} ${current.unit}, validated ${rangeWithUnit(current.validatedLow, current.validatedHigh, current.unit)}`
               : ""}{" "}
-            · {history.entries.length} {history.entries.length === 1 ? "entry" : "entries"}, newest
-            first.
+            · {total} {total === 1 ? "entry" : "entries"}, newest first.
           </p>
           {temporary.length > 0 && (
             <section aria-labelledby="deviations" className="mb-6">
@@ -90,6 +99,17 @@ export default async function TracePage({
             </section>
           )}
           <ParameterTimeline history={history} canExport={can(user.roles, "trace.export")} />
+          {older > 0 && (
+            <p className="mt-4 text-sm">
+              {history.entries.length} of {total} entries shown.{" "}
+              <Link
+                href={`/trace?recipe=${history.recipe.id}&key=${encodeURIComponent(history.parameter.key)}&entries=${shown + TRACE_ENTRIES_PAGE}`}
+                className="font-semibold text-brand-800 hover:underline"
+              >
+                {`Show ${Math.min(older, TRACE_ENTRIES_PAGE)} older ${Math.min(older, TRACE_ENTRIES_PAGE) === 1 ? "entry" : "entries"}`}
+              </Link>
+            </p>
+          )}
           <NcPanel roles={user.roles} where={{ recipeId: history.recipe.id }} />
         </section>
       )}

@@ -1,16 +1,33 @@
 import "server-only";
-import { and, desc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
+import { and, desc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { documentReviews, documents, documentVersions } from "@/db/schema";
 import { TYPE_LABELS } from "@/lib/documents/lifecycle";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
 import { formatDate } from "@/lib/format/date";
 
-/** Reviews and approvals whose turn has come for the user, and the user's drafts that were returned. */
-export const documentQueueProvider: QueueProvider = async (user) => {
+// The queue names a version and links to it: the content (the document itself) is never read here.
+const versionFields = {
+  id: documentVersions.id,
+  version: documentVersions.version,
+  reviewRound: documentVersions.reviewRound,
+};
+const documentFields = {
+  id: documents.id,
+  number: documents.number,
+  title: documents.title,
+  type: documents.type,
+};
+
+/**
+ * The provider's two reads: review steps waiting on the user, and the user's drafts. Exported so
+ * a test can read their query plans (a plant's library is thousands of effective versions; the
+ * drafts are found through the status index, never by scanning every version's content).
+ */
+export function documentQueueQueries(userId: string) {
   const db = getDb();
-  const steps = await db
-    .select({ review: documentReviews, version: documentVersions, document: documents })
+  const steps = db
+    .select({ review: documentReviews, version: versionFields, document: documentFields })
     .from(documentReviews)
     .innerJoin(
       documentVersions,
@@ -22,12 +39,27 @@ export const documentQueueProvider: QueueProvider = async (user) => {
     .innerJoin(documents, eq(documents.id, documentVersions.documentId))
     .where(
       and(
-        eq(documentReviews.assigneeId, user.id),
+        eq(documentReviews.assigneeId, userId),
         isNull(documentReviews.decision),
         isNotNull(documentReviews.activatedAt),
         eq(documentVersions.status, "in_review"),
       ),
     );
+  // The unary + keeps SQLite from walking every document and looking up its versions (its
+  // statistics see a status cover a third of the versions): the drafts are read first, by status.
+  const returned = db
+    .select({ version: versionFields, document: documentFields })
+    .from(documentVersions)
+    .innerJoin(documents, eq(documents.id, sql`+${documentVersions.documentId}`))
+    .where(and(eq(documents.ownerId, userId), eq(documentVersions.status, "draft")));
+  return { steps, returned };
+}
+
+/** Reviews and approvals whose turn has come for the user, and the user's drafts that were returned. */
+export const documentQueueProvider: QueueProvider = async (user) => {
+  const db = getDb();
+  const queries = documentQueueQueries(user.id);
+  const steps = await queries.steps;
   const items: QueueItem[] = steps.map(({ review, version, document }) => ({
     id: `document-review:${review.id}`,
     kind: review.role === "approver" ? "Approval" : "Review",
@@ -37,11 +69,7 @@ export const documentQueueProvider: QueueProvider = async (user) => {
     due: review.dueAt,
   }));
 
-  const returned = await db
-    .select({ version: documentVersions, document: documents })
-    .from(documentVersions)
-    .innerJoin(documents, eq(documents.id, documentVersions.documentId))
-    .where(and(eq(documents.ownerId, user.id), eq(documentVersions.status, "draft")));
+  const returned = await queries.returned;
   const withRounds = returned.filter((r) => r.version.reviewRound > 0);
   if (withRounds.length) {
     const decisions = await db

@@ -30,7 +30,15 @@ export async function computeStoredOutcome(db: Executor, run: TestRun): Promise<
         eq(recipeParameters.kind, "conductivity_limit"),
       ),
     );
-  const samples = await db.select().from(testSamples).where(eq(testSamples.runId, run.id));
+  // The three columns the outcome reads: a run imported from a 100,000-row file is read whole here.
+  const samples = await db
+    .select({
+      sampleLabel: testSamples.sampleLabel,
+      worstCase: testSamples.worstCase,
+      data: testSamples.data,
+    })
+    .from(testSamples)
+    .where(eq(testSamples.runId, run.id));
   const photos = await db
     .select({ id: evidenceFiles.id })
     .from(evidenceFiles)
@@ -43,11 +51,7 @@ export async function computeStoredOutcome(db: Executor, run: TestRun): Promise<
     lowerSizeLimitUm: lab?.analysis.lowerSizeLimitUm ?? null,
     spec: family.spec,
     conductivityLimitUsPerCm: limit?.setpoint ?? null,
-    samples: samples.map((s) => ({
-      sampleLabel: s.sampleLabel,
-      worstCase: s.worstCase,
-      data: s.data,
-    })),
+    samples,
     runData: run.runData,
     photoCount: photos.length,
   });

@@ -1,7 +1,7 @@
 import "server-only";
 import { loadEmergencies } from "@/lib/server/changes/emergencies";
 import { showsEmergency } from "@/lib/changes/emergency";
-import { asc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import {
   changeRequests,
@@ -16,6 +16,7 @@ import {
 } from "@/db/schema";
 import { narrativeText } from "@/lib/changes/content";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
+import { traceScopes, type TraceScopes } from "@/lib/trace/parameter-search";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadChangeStates } from "@/lib/server/changes/state";
 import { changeEvidenceOf, changeSignaturesOf } from "./evidence-of-change";
@@ -30,8 +31,17 @@ export function excerpt(text: string, max = EXCERPT) {
   return `${cut.slice(0, Math.max(cut.lastIndexOf(" "), max - 20))} …`;
 }
 
-/** Every parameter of every recipe that can be traced, one row per recipe and key, for the search. */
-export async function listTraceableParameters() {
+/** Where the trace search looks: one recipe, one cleaning system's recipes, or the whole plant. */
+export interface TraceScope {
+  systemId?: string;
+  recipeId?: string;
+}
+
+/**
+ * Every parameter that can be traced, one row per recipe and key, for the search; within a scope
+ * when one is given (a recipe's own rows come through its versions' index, never the whole plant).
+ */
+export async function listTraceableParameters(scope: TraceScope = {}) {
   const db = getDb();
   // One row per recipe and key, grouped in SQLite: with a single max() the bare
   // columns come from the row holding the maximum (SQLite, "bare columns in an
@@ -60,6 +70,12 @@ export async function listTraceableParameters() {
     .innerJoin(recipeVersions, eq(recipeVersions.id, recipeParameters.versionId))
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .where(
+      and(
+        scope.recipeId ? eq(recipeVersions.recipeId, scope.recipeId) : undefined,
+        scope.systemId ? eq(recipes.systemId, scope.systemId) : undefined,
+      ),
+    )
     .groupBy(recipes.id, recipeParameters.key);
   // Parameters of a recipe in process order (wash before drying), as everywhere else.
   return rows
@@ -75,11 +91,41 @@ export async function listTraceableParameters() {
 export type TraceableParameter = Awaited<ReturnType<typeof listTraceableParameters>>[number];
 
 /**
+ * The cleaning systems and recipes the trace search offers, without reading any parameter: the
+ * two choosers need names only, and every recipe holds parameters from its first version.
+ */
+export async function listTraceScopes(): Promise<TraceScopes> {
+  const rows = await getDb()
+    .select({
+      systemId: cleaningSystems.id,
+      systemCode: cleaningSystems.code,
+      systemName: cleaningSystems.name,
+      recipeId: recipes.id,
+      recipeCode: recipes.code,
+      recipeName: recipes.name,
+    })
+    .from(recipes)
+    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
+    .where(
+      sql`exists (select 1 from ${recipeVersions} where ${recipeVersions.recipeId} = ${recipes.id})`,
+    )
+    .orderBy(asc(cleaningSystems.code), asc(recipes.code));
+  return traceScopes(rows);
+}
+
+/**
  * The whole history of one recipe parameter: each value and validated range it has
  * had, when it was in force, and for each change the request with its justification,
  * impact, signatures and the evidence that requalified it.
+ *
+ * With `newest`, only the newest that many entries are read in full (a busy parameter has
+ * dozens); `older` then says how many came before them and the value in force before the
+ * first one shown, so the page can still show "from → to" and offer the rest.
  */
-export async function getParameterHistory(input: { recipeId: string; key: string }) {
+export async function getParameterHistory(
+  input: { recipeId: string; key: string },
+  options: { newest?: number } = {},
+) {
   const db = getDb();
   const [head] = await db
     .select({ recipe: recipes, system: cleaningSystems })
@@ -94,14 +140,14 @@ export async function getParameterHistory(input: { recipeId: string; key: string
     .where(eq(recipeVersions.recipeId, input.recipeId))
     .orderBy(asc(recipeVersions.version));
   const ids = versions.map((v) => v.v.id);
-  const params = ids.length
+  // This parameter's row in each version only (by the (version, key) index), not the whole recipe.
+  const mine = ids.length
     ? await db
         .select({ p: recipeParameters, stage: recipeStages.name })
         .from(recipeParameters)
         .innerJoin(recipeStages, eq(recipeStages.id, recipeParameters.stageId))
-        .where(inArray(recipeParameters.versionId, ids))
+        .where(and(inArray(recipeParameters.versionId, ids), eq(recipeParameters.key, input.key)))
     : [];
-  const mine = params.filter((r) => r.p.key === input.key);
   if (mine.length === 0) return undefined;
 
   const values: VersionValue[] = versions.map(({ v }) => {
@@ -125,14 +171,27 @@ export async function getParameterHistory(input: { recipeId: string; key: string
         : null,
     };
   });
+  // Only what the timeline prints of every change of the recipe: the assessment details (large)
+  // are read by loadChangeStates for the changes shown.
   const changes = await db
-    .select()
+    .select({
+      id: changeRequests.id,
+      number: changeRequests.number,
+      title: changeRequests.title,
+      status: changeRequests.status,
+      fromVersionId: changeRequests.fromVersionId,
+      toVersionId: changeRequests.toVersionId,
+      createdAt: changeRequests.createdAt,
+      closedAt: changeRequests.closedAt,
+    })
     .from(changeRequests)
     .where(eq(changeRequests.recipeId, input.recipeId));
   const proposedFrom = new Map(
     changes.filter((c) => c.toVersionId).map((c) => [c.toVersionId!, c.fromVersionId]),
   );
-  const timeline = buildParameterTimeline(values, proposedFrom);
+  const whole = buildParameterTimeline(values, proposedFrom);
+  const hidden = options.newest === undefined ? 0 : Math.max(0, whole.length - options.newest);
+  const timeline = whole.slice(hidden);
 
   // Everything about the changes is read for all of them at once: a statement per change grew with
   // the parameter's history (a busy parameter issued hundreds per view).
@@ -221,6 +280,14 @@ export async function getParameterHistory(input: { recipeId: string; key: string
       critical: latest.p.critical,
     },
     entries,
+    ...(options.newest === undefined
+      ? {}
+      : {
+          older: {
+            count: hidden,
+            previous: whole.slice(0, hidden).findLast((p) => p.kind === "in_force")?.value,
+          },
+        }),
   };
 }
 /** The qualified combinations of these versions, each with the validation that proved it. */

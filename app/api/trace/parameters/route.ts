@@ -11,10 +11,7 @@ export const GET = defineRoute({ permission: "trace.view" }, async ({ request })
   if (!parsed.success)
     return jsonError(400, "Some search values are not valid.", zodFieldErrors(parsed.error));
   const { system, recipe, q } = parsed.data;
-  const result = matchParameters(await listTraceableParameters(), {
-    systemId: system || undefined,
-    recipeId: recipe || undefined,
-    q,
-  });
+  const scope = { systemId: system || undefined, recipeId: recipe || undefined };
+  const result = matchParameters(await listTraceableParameters(scope), { ...scope, q });
   return NextResponse.json(result, { headers: { "Cache-Control": "no-store" } });
 });

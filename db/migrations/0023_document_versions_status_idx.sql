@@ -1,0 +1,1 @@
+CREATE INDEX `document_versions_status_idx` ON `document_versions` (`status`);
