@@ -1,0 +1,1 @@
+CREATE INDEX `test_runs_family_status_idx` ON `test_runs` (`part_family_id`,`status`,`performed_on`);

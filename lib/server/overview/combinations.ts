@@ -1,0 +1,62 @@
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import type { Executor } from "@/db/client";
+import {
+  cleanlinessSpecs,
+  partFamilies,
+  recipes,
+  recipeVersions,
+  requalificationIntervals,
+} from "@/db/schema";
+
+/** A qualified combination on an effective recipe version, with what the overview names it by. */
+export interface OverviewCombination {
+  systemId: string;
+  recipeId: string;
+  recipeCode: string;
+  recipeVersionId: string;
+  version: number;
+  familyId: string;
+  familyCode: string;
+  familyName: string;
+  family: { wettedAreaCm2: number; wettedVolumeCm3: number | null };
+  spec: typeof cleanlinessSpecs.$inferSelect;
+  lastQualifiedAt: string;
+  intervalMonths: number;
+}
+
+/**
+ * Every qualified combination on an effective version, plant-wide, in one statement: a plant
+ * qualifies dozens to hundreds of them, not thousands, so the page reads them whole.
+ */
+export async function loadCombinations(db: Executor): Promise<OverviewCombination[]> {
+  const rows = await db
+    .select({
+      interval: requalificationIntervals,
+      version: recipeVersions,
+      recipe: recipes,
+      family: partFamilies,
+      spec: cleanlinessSpecs,
+    })
+    .from(requalificationIntervals)
+    .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .innerJoin(partFamilies, eq(partFamilies.id, requalificationIntervals.partFamilyId))
+    .innerJoin(cleanlinessSpecs, eq(cleanlinessSpecs.id, partFamilies.specId))
+    .where(eq(recipeVersions.status, "effective"))
+    .orderBy(asc(partFamilies.code), asc(recipes.code));
+  return rows.map((r) => ({
+    systemId: r.recipe.systemId,
+    recipeId: r.recipe.id,
+    recipeCode: r.recipe.code,
+    recipeVersionId: r.version.id,
+    version: r.version.version,
+    familyId: r.family.id,
+    familyCode: r.family.code,
+    familyName: r.family.name,
+    family: { wettedAreaCm2: r.family.wettedAreaCm2, wettedVolumeCm3: r.family.wettedVolumeCm3 },
+    spec: r.spec,
+    lastQualifiedAt: r.interval.lastQualifiedAt,
+    intervalMonths: r.interval.intervalMonths,
+  }));
+}
