@@ -38,6 +38,7 @@ export function ResultTrend({ data, title }: { data: TrendChartData; title: stri
               tick={{ fontSize: 10 }}
               domain={data.domain}
               allowDataOverflow={false}
+              tickCount={4}
               tickFormatter={(v: number) => formatNumber(v, 1)}
             />
             <Tooltip
@@ -76,8 +77,8 @@ export function ResultTrend({ data, title }: { data: TrendChartData; title: stri
         </ResponsiveContainer>
       </div>
       <figcaption className="text-xs text-stone-600">
-        {data.label} ({data.unit}), last {data.points.length} verified run
-        {data.points.length === 1 ? "" : "s"}; dashed line:{" "}
+        Last {data.points.length} verified run{data.points.length === 1 ? "" : "s"}, oldest on the
+        left; dashed line:{" "}
         {data.limits.length ? data.limits.map((l) => l.label).join(", ") : "no limit set"}.{" "}
         {beyond.length === 0 ? (
           "No run beyond the limit."

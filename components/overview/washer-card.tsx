@@ -56,7 +56,7 @@ function FamilyBlock({ family }: { family: OverviewFamilyRow }) {
           </li>
         ))}
       </ul>
-      <div className="mt-2 grid gap-3 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      <div className="mt-2 space-y-2">
         <Table
           density="compact"
           caption={`Last verified results, ${family.familyCode}`}
@@ -65,27 +65,28 @@ function FamilyBlock({ family }: { family: OverviewFamilyRow }) {
           <THead>
             <Th>Test</Th>
             <Th>Run</Th>
+            <Th>Performed</Th>
             <Th>Outcome</Th>
-            <Th align="right">Key value</Th>
+            <Th align="right">Result</Th>
           </THead>
           <TBody>
             {family.last.length === 0 && (
-              <EmptyRow colSpan={4}>No verified run on this washer yet.</EmptyRow>
+              <EmptyRow colSpan={5}>No verified run on this washer yet.</EmptyRow>
             )}
             {family.last.map((r) => (
               <tr key={r.runId}>
                 <Td>{TEST_TYPE_LABELS[r.testType]}</Td>
                 <Td>
-                  <Link href={`/evidence/runs/${r.runId}`} className={link}>
+                  <Link href={`/evidence/runs/${r.runId}`} className={`${link} whitespace-nowrap`}>
                     {r.run}
                   </Link>
-                  <span className="block text-xs text-stone-600">{formatDate(r.at)}</span>
                 </Td>
+                <Td className="whitespace-nowrap">{formatDate(r.at)}</Td>
                 <Td>
                   <OutcomeWord outcome={r.outcome} />
                 </Td>
                 <Td numeric>
-                  {r.code && <span className="block font-mono text-xs">{r.code}</span>}
+                  {r.code && <span className="block font-mono text-xs break-all">{r.code}</span>}
                   {r.key ? (
                     <span>
                       {r.key.atLeast ? "≥ " : ""}
@@ -103,10 +104,15 @@ function FamilyBlock({ family }: { family: OverviewFamilyRow }) {
           </TBody>
         </Table>
         {chart ? (
-          <ResultTrend
-            data={chart}
-            title={`${family.familyCode} ${TEST_TYPE_LABELS[chart.testType]}`}
-          />
+          <>
+            <h5 className="text-xs font-semibold text-stone-700">
+              Trend: {TEST_TYPE_LABELS[chart.testType].toLowerCase()}, {chart.label} ({chart.unit})
+            </h5>
+            <ResultTrend
+              data={chart}
+              title={`${family.familyCode} ${TEST_TYPE_LABELS[chart.testType]}`}
+            />
+          </>
         ) : (
           <p className="self-center text-xs text-stone-600">
             No measured result to draw yet: the trend appears after the first verified particle,
@@ -114,11 +120,6 @@ function FamilyBlock({ family }: { family: OverviewFamilyRow }) {
           </p>
         )}
       </div>
-      {chart && (
-        <p className="mt-1 text-xs text-stone-600">
-          Trend of {TEST_TYPE_LABELS[chart.testType].toLowerCase()}.
-        </p>
-      )}
     </section>
   );
 }
