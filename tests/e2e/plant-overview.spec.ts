@@ -5,6 +5,8 @@ const STATE_WORDS = /Action needed|Needs attention|In order/;
 test("a quality engineer lands on the plant overview, reads each washer's state in words and follows its tiles to the records", async ({
   page,
 }, testInfo) => {
+  // Two viewports, two screenshots and three round trips: more than the default minute on a busy machine.
+  test.setTimeout(150_000);
   await signInAs(page, "engineer");
   await expect(page).toHaveURL(/\/overview$/);
   await expect(page.getByRole("heading", { name: "Plant overview", level: 1 })).toBeVisible();
