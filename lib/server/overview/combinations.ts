@@ -1,6 +1,7 @@
 import "server-only";
 import { asc, eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
+import type { SpecForOutcome } from "@/lib/evidence/outcome";
 import {
   cleanlinessSpecs,
   partFamilies,
@@ -20,7 +21,7 @@ export interface OverviewCombination {
   familyCode: string;
   familyName: string;
   family: { wettedAreaCm2: number; wettedVolumeCm3: number | null };
-  spec: typeof cleanlinessSpecs.$inferSelect;
+  spec: SpecForOutcome & { code: string; revision: string };
   lastQualifiedAt: string;
   intervalMonths: number;
 }
@@ -31,12 +32,32 @@ export interface OverviewCombination {
  */
 export async function loadCombinations(db: Executor): Promise<OverviewCombination[]> {
   const rows = await db
+    // Only the columns the page reads: a plant's hundreds of combinations, each with its spec.
     .select({
-      interval: requalificationIntervals,
-      version: recipeVersions,
-      recipe: recipes,
-      family: partFamilies,
-      spec: cleanlinessSpecs,
+      interval: {
+        lastQualifiedAt: requalificationIntervals.lastQualifiedAt,
+        intervalMonths: requalificationIntervals.intervalMonths,
+      },
+      version: { id: recipeVersions.id, version: recipeVersions.version },
+      recipe: { id: recipes.id, code: recipes.code, systemId: recipes.systemId },
+      family: {
+        id: partFamilies.id,
+        code: partFamilies.code,
+        name: partFamilies.name,
+        wettedAreaCm2: partFamilies.wettedAreaCm2,
+        wettedVolumeCm3: partFamilies.wettedVolumeCm3,
+      },
+      spec: {
+        code: cleanlinessSpecs.code,
+        revision: cleanlinessSpecs.revision,
+        ccc: cleanlinessSpecs.ccc,
+        maxMetallicUm: cleanlinessSpecs.maxMetallicUm,
+        maxNonMetallicUm: cleanlinessSpecs.maxNonMetallicUm,
+        maxFibreUm: cleanlinessSpecs.maxFibreUm,
+        gravimetricLimitMg: cleanlinessSpecs.gravimetricLimitMg,
+        gravimetricBasis: cleanlinessSpecs.gravimetricBasis,
+        minWettingTensionMNm: cleanlinessSpecs.minWettingTensionMNm,
+      },
     })
     .from(requalificationIntervals)
     .innerJoin(recipeVersions, eq(recipeVersions.id, requalificationIntervals.recipeVersionId))
