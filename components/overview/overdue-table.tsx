@@ -8,6 +8,9 @@ import {
 } from "@/lib/overview/overdue";
 import { CellState } from "./state-word";
 
+/** Rows shown: overdue first, so the oldest are always on the page; the rest are counted. */
+export const OVERDUE_ROWS_SHOWN = 50;
+
 /** Plant-wide tests and checks past their date or due soon, overdue first. */
 export function OverdueTable({
   items,
@@ -35,7 +38,7 @@ export function OverdueTable({
         </THead>
         <TBody>
           {items.length === 0 && <EmptyRow colSpan={5}>Nothing overdue or due soon.</EmptyRow>}
-          {items.map((i) => (
+          {items.slice(0, OVERDUE_ROWS_SHOWN).map((i) => (
             <tr key={`${i.source}-${i.href}-${i.characteristic}-${i.subject}`}>
               <Td>
                 <CellState level={i.state === "overdue" ? "bad" : "warn"}>
@@ -54,6 +57,12 @@ export function OverdueTable({
           ))}
         </TBody>
       </Table>
+      {items.length > OVERDUE_ROWS_SHOWN && (
+        <p className="mt-2 text-sm text-stone-600">
+          Showing the first {OVERDUE_ROWS_SHOWN} of {items.length}; each washer&apos;s checks and
+          its bath log list the rest.
+        </p>
+      )}
     </section>
   );
 }
