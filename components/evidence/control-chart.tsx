@@ -11,7 +11,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
-import type { ChartLimit } from "@/lib/evidence/chart-limits";
+import { chartDomain, type ChartLimit } from "@/lib/evidence/chart-limits";
 import { formatDate } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
 
@@ -30,7 +30,7 @@ export interface ControlChartProps {
   lcl: number;
   /** The plan's target, action and reject limits (or a specification's), drawn beside the 3σ ones. */
   limits?: ChartLimit[];
-  /** A y-range that holds every point and every line (chartDomain). */
+  /** A y-range that holds every point and every line; computed here with chartDomain when not given. */
   domain?: [number, number];
   movingRangeLimit: number;
   /** Pairs of dates whose moving range is above its limit. */
@@ -96,7 +96,13 @@ export function ControlChart({
             <XAxis dataKey="date" tick={{ fontSize: 11 }} />
             <YAxis
               tick={{ fontSize: 11 }}
-              domain={domain ?? ["auto", "auto"]}
+              domain={
+                domain ??
+                chartDomain(
+                  points.map((p) => p.value),
+                  lines,
+                )
+              }
               allowDataOverflow={false}
               tickFormatter={(v: number) => fmt(v)}
               label={{ value: unit, angle: -90, position: "insideLeft", fontSize: 11 }}

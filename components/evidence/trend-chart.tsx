@@ -28,13 +28,14 @@ export function TrendChart({ series }: { series: TrendSeries }) {
     run: p.run,
     date: p.date,
     outcome: p.outcome,
-    value: p.values[group] ?? 0,
+    // A run that counted no size class of this group has no point, never a zero that looks clean.
+    value: p.values[group] ?? null,
     // Drawn again as a triangle: above the limit by shape and word, not by colour alone.
     over: current && (p.values[group] ?? 0) > current.limit ? (p.values[group] ?? 0) : null,
   }));
   // The axis always reaches the specification limit, however far below it the results lie.
   const domain = chartDomain(
-    data.map((d) => d.value),
+    data.flatMap((d) => (d.value === null ? [] : [d.value])),
     current ? [{ value: current.limit }] : [],
   );
   return (
@@ -91,6 +92,7 @@ export function TrendChart({ series }: { series: TrendSeries }) {
             <Line
               type="monotone"
               dataKey="value"
+              connectNulls
               name={`Class ${group} ${series.unit} (worst sample)`}
               stroke="#115e59"
               strokeWidth={2}
@@ -111,7 +113,7 @@ export function TrendChart({ series }: { series: TrendSeries }) {
         {data.length} run(s). Dashed line: the specification limit, always drawn for class {group}
         {current ? ` (${fmt(current.limit)} ${series.unit})` : ""}. Runs above it (triangles):{" "}
         {data
-          .filter((d) => current && d.value > current.limit)
+          .filter((d) => current && d.value !== null && d.value > current.limit)
           .map((d) => d.run)
           .join(", ") || "none"}
         .

@@ -3,14 +3,16 @@
 import { useState } from "react";
 import {
   Bar,
-  BarChart,
   CartesianGrid,
+  ComposedChart,
   ReferenceLine,
   ResponsiveContainer,
+  Scatter,
   Tooltip,
   XAxis,
   YAxis,
 } from "recharts";
+import { chartDomain } from "@/lib/evidence/chart-limits";
 import { evaluateExtraction } from "@/lib/cleanliness";
 import {
   attempt,
@@ -53,9 +55,15 @@ export function ExtractionCalculator() {
   const rows = outcome.ok
     ? outcome.value.ratios.map((ratio, i) => {
         cumulative += series[i];
-        return { n: i + 1, count: series[i], cumulative, ratio, percent: ratio * 100 };
+        const percent = ratio * 100;
+        // Drawn again as a triangle on its bar: above the limit by shape and word, not colour alone.
+        const above = ratio > limit ? percent : null;
+        return { n: i + 1, count: series[i], cumulative, ratio, percent, above };
       })
     : [];
+  const above = rows.filter((r) => r.above !== null).map((r) => r.n);
+  // Decay values are shares (0–100 %); the axis still reaches a limit typed above them.
+  const domain = chartDomain([0, 100, ...rows.map((r) => r.percent)], [{ value: limit * 100 }]);
 
   return (
     <CalcPanel
@@ -136,18 +144,24 @@ export function ExtractionCalculator() {
                   aria-label={`Decay values in percent: ${rows.map((r) => `n ${r.n}: ${r.percent.toFixed(1)} %`).join(", ")}; limit ${(limit * 100).toFixed(1)} %.`}
                 >
                   <ResponsiveContainer width="100%" height="100%">
-                    <BarChart data={rows} margin={{ top: 8, right: 16, bottom: 16, left: 0 }}>
+                    <ComposedChart data={rows} margin={{ top: 8, right: 16, bottom: 16, left: 0 }}>
                       <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" />
                       <XAxis
                         dataKey="n"
                         label={{ value: "Extraction n", position: "insideBottom", offset: -8 }}
                       />
-                      <YAxis unit=" %" domain={[0, 100]} />
+                      <YAxis unit=" %" domain={domain} />
                       <Tooltip
                         formatter={(value) => [`${Number(value).toFixed(1)} %`, "Decay value"]}
                         labelFormatter={(n) => `Extraction ${n}`}
                       />
                       <Bar dataKey="percent" fill="#1f7f78" isAnimationActive={false} />
+                      <Scatter
+                        dataKey="above"
+                        fill="#7f1d1d"
+                        shape="triangle"
+                        isAnimationActive={false}
+                      />
                       <ReferenceLine
                         y={limit * 100}
                         stroke="#44403c"
@@ -158,11 +172,12 @@ export function ExtractionCalculator() {
                           fill: "#44403c",
                         }}
                       />
-                    </BarChart>
+                    </ComposedChart>
                   </ResponsiveContainer>
                 </div>
                 <figcaption className="text-xs text-stone-600">
-                  Bars: decay value C_n / (C_1 + … + C_n) in %; dashed line: the limit.
+                  Bars: decay value C_n / (C_1 + … + C_n) in %; dashed line: the limit. Triangles:
+                  above the limit ({above.length ? `n = ${above.join(", ")}` : "none"}).
                 </figcaption>
               </figure>
             </>

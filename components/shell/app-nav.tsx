@@ -13,10 +13,12 @@ import {
   ShowerHead,
   Boxes,
   OctagonAlert,
+  Gauge,
 } from "lucide-react";
 import type { NavItem } from "./nav-items";
 
 const ICONS = {
+  overview: Gauge,
   queue: Inbox,
   systems: ShowerHead,
   parts: Boxes,

@@ -4,6 +4,7 @@ export interface NavItem {
   href: string;
   label: string;
   icon:
+    | "overview"
     | "queue"
     | "systems"
     | "parts"
@@ -19,6 +20,7 @@ export interface NavItem {
 
 /** Screens are named for what the user does there. */
 export const NAV_ITEMS: NavItem[] = [
+  { href: "/overview", label: "Plant overview", icon: "overview", permission: "overview.view" },
   { href: "/queue", label: "My queue", icon: "queue", permission: "queue.view" },
   { href: "/systems", label: "Cleaning systems", icon: "systems", permission: "systems.view" },
   { href: "/parts", label: "Parts & specifications", icon: "parts", permission: "parts.view" },

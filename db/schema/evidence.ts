@@ -48,6 +48,8 @@ export const testRuns = sqliteTable(
   (t) => [
     uniqueIndex("test_runs_number_revision_uq").on(t.number, t.revision),
     index("test_runs_family_idx").on(t.partFamilyId),
+    // The plant overview reads each part family's newest verified runs.
+    index("test_runs_family_status_idx").on(t.partFamilyId, t.status, t.performedOn),
     index("test_runs_recipe_version_idx").on(t.recipeVersionId),
     index("test_runs_change_idx").on(t.changeRequestId),
     // My queue reads the open and performed runs; the evidence table pages newest first.

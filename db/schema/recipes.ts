@@ -6,16 +6,21 @@ import { cleaningSystems } from "./plant";
 
 // ── Recipes ───────────────────────────────────────────────────────────────
 
-export const recipes = sqliteTable("recipes", {
-  id: id(),
-  systemId: text("system_id")
-    .notNull()
-    .references(() => cleaningSystems.id),
-  code: text("code").notNull().unique(),
-  name: text("name").notNull(),
-  description: text("description"),
-  createdAt: createdAt(),
-});
+export const recipes = sqliteTable(
+  "recipes",
+  {
+    id: id(),
+    systemId: text("system_id")
+      .notNull()
+      .references(() => cleaningSystems.id),
+    code: text("code").notNull().unique(),
+    name: text("name").notNull(),
+    description: text("description"),
+    createdAt: createdAt(),
+  },
+  // The plant overview reads a washer's recipe versions for each of its part families.
+  (t) => [index("recipes_system_idx").on(t.systemId)],
+);
 export type Recipe = typeof recipes.$inferSelect;
 
 export const recipeVersions = sqliteTable(

@@ -14,6 +14,7 @@ const CONTROLLERS: readonly Role[] = ["admin", "engineer", "reviewer", "approver
 export const PERMISSIONS = {
   // Reading
   "queue.view": ACTORS,
+  "overview.view": ALL,
   "systems.view": ALL,
   "parts.view": ALL,
   "documents.view": ALL,

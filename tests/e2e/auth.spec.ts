@@ -2,6 +2,7 @@ import { DEMO, expect, signIn, signInAs, test, type DemoRole } from "./fixtures"
 
 const NAV: Record<DemoRole, string[]> = {
   admin: [
+    "Plant overview",
     "My queue",
     "Cleaning systems",
     "Parts & specifications",
@@ -16,6 +17,7 @@ const NAV: Record<DemoRole, string[]> = {
     "Admin",
   ],
   engineer: [
+    "Plant overview",
     "My queue",
     "Cleaning systems",
     "Parts & specifications",
@@ -29,6 +31,7 @@ const NAV: Record<DemoRole, string[]> = {
     "How we compute",
   ],
   reviewer: [
+    "Plant overview",
     "My queue",
     "Cleaning systems",
     "Parts & specifications",
@@ -42,6 +45,7 @@ const NAV: Record<DemoRole, string[]> = {
     "How we compute",
   ],
   approver: [
+    "Plant overview",
     "My queue",
     "Cleaning systems",
     "Parts & specifications",
@@ -55,6 +59,7 @@ const NAV: Record<DemoRole, string[]> = {
     "How we compute",
   ],
   technician: [
+    "Plant overview",
     "My queue",
     "Cleaning systems",
     "Parts & specifications",
@@ -66,6 +71,7 @@ const NAV: Record<DemoRole, string[]> = {
     "How we compute",
   ],
   auditor: [
+    "Plant overview",
     "Cleaning systems",
     "Parts & specifications",
     "Documents",

@@ -242,7 +242,7 @@ test("from master data to the first run: CSV part families and specification, a 
 
   await test.step("the administrator creates the plant's people and a requalification matrix", async () => {
     await signIn(page, ADMIN.email, ADMIN.password);
-    await expect(page).toHaveURL(/\/queue/);
+    await expect(page).toHaveURL(/\/overview/);
     for (const who of Object.keys(PEOPLE) as Person[]) {
       await page.goto("/admin/users/new");
       await page.getByLabel("Full name").fill(PEOPLE[who].name);
@@ -257,7 +257,8 @@ test("from master data to the first run: CSV part families and specification, a 
       await first.getByLabel("New password", { exact: true }).fill(PASSWORD);
       await first.getByLabel("New password again").fill(PASSWORD);
       await first.getByRole("button", { name: "Change password" }).click();
-      await expect(first).toHaveURL(/\/queue/);
+      // Engineers land on the plant overview, the others on My queue.
+      await expect(first).toHaveURL(who === "engineer" ? /\/overview/ : /\/queue/);
       await first.close();
     }
     // A deliberately small matrix: a new part family calls for a gravimetric test on 2 parts (60 % / 60 %).

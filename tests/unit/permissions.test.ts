@@ -7,6 +7,7 @@ import { can, PERMISSIONS, ROLES, type Permission, type Role } from "@/lib/auth/
  */
 const EXPECTED: Record<Permission, Role[]> = {
   "queue.view": ["admin", "engineer", "reviewer", "approver", "technician"],
+  "overview.view": [...ROLES],
   "systems.view": [...ROLES],
   "parts.view": [...ROLES],
   "documents.view": [...ROLES],

@@ -26,7 +26,8 @@ import {
 export type ParticleOutcomeInput = Pick<OutcomeInput, "family" | "spec" | "samples" | "runData"> &
   Partial<Pick<OutcomeInput, "lowerSizeLimitUm">>;
 
-function basisOf(
+/** The basis a sample's counts are normalised on, or null (a V() specification with no wetted volume). */
+export function basisOf(
   kind: Basis["kind"],
   components: number,
   family: OutcomeInput["family"],

@@ -1,0 +1,71 @@
+import "server-only";
+import type { Executor } from "@/db/client";
+import { dueState, requalificationDue } from "@/lib/changes/periodic";
+import { MAINTENANCE_LABELS } from "@/lib/evidence/maintenance";
+import { sortOverdue, type OverdueTest } from "@/lib/overview/overdue";
+import { listMaintenance, type MaintenanceItem } from "@/lib/server/bath/queries";
+import { loadCombinations, type OverviewCombination } from "./combinations";
+
+/** What the overview has already read, so the section costs no second query. */
+export interface OverdueInputs {
+  maintenance: MaintenanceItem[];
+  combinations: OverviewCombination[];
+}
+
+function fromMaintenance(items: MaintenanceItem[]): OverdueTest[] {
+  return items
+    .filter((m) => m.status.state !== "ok")
+    .map((m) => ({
+      // A reading with an interval is the tank's measurement plan saying how often to measure.
+      source: m.kind === "reading" ? "bath_reading" : "equipment_check",
+      systemId: m.systemId,
+      recipeVersionId: null,
+      partFamilyId: null,
+      characteristic: MAINTENANCE_LABELS[m.kind],
+      subject: `${m.system} · ${m.tank}`,
+      dueAt: m.status.dueAt,
+      state: m.status.state === "overdue" ? "overdue" : "due",
+      href: `/evidence/bath/${m.stageId}`,
+    }));
+}
+
+function fromRequalifications(combinations: OverviewCombination[], now: Date): OverdueTest[] {
+  const out: OverdueTest[] = [];
+  for (const c of combinations) {
+    const dueAt = requalificationDue(c.lastQualifiedAt, c.intervalMonths);
+    const state = dueState(dueAt, now);
+    if (state === "not_due") continue;
+    out.push({
+      source: "requalification",
+      systemId: c.systemId,
+      recipeVersionId: c.recipeVersionId,
+      partFamilyId: c.familyId,
+      characteristic: "Periodic requalification",
+      subject: `${c.recipeCode} v${c.version} × ${c.familyCode}`,
+      dueAt,
+      state: state === "overdue" ? "overdue" : "due",
+      href: `/systems/recipes/${c.recipeId}`,
+    });
+  }
+  return out;
+}
+
+/**
+ * Every test and check that is overdue or falls due soon, plant-wide: periodic requalification of
+ * each qualified combination, equipment checks (filter, nozzle, ultrasonic foil, bath change) and
+ * bath readings whose measurement interval has run out.
+ *
+ * Seam for control plans: their scheduled tests join this list as source "control_plan" — read
+ * them with `listDueControlPlanTests(db, now)` (rows { systemId, recipeVersionId, partFamilyId,
+ * characteristic, dueAt, state }) and map each with `fromControlPlan` (lib/overview/overdue.ts), beside the sources here.
+ */
+export async function listOverdueTests(
+  db: Executor,
+  now: Date,
+  loaded?: OverdueInputs,
+): Promise<OverdueTest[]> {
+  const [maintenance, combinations] = loaded
+    ? [loaded.maintenance, loaded.combinations]
+    : await Promise.all([listMaintenance(now), loadCombinations(db)]);
+  return sortOverdue([...fromRequalifications(combinations, now), ...fromMaintenance(maintenance)]);
+}
