@@ -64,11 +64,14 @@ export interface ScheduleInput {
   everyN: number | null;
   /** When the plan version took effect: with no satisfying record yet, counting starts here. */
   effectiveFrom: string;
-  /** The newest satisfying record: a verified run of the test type on the combination, or a reading of the value on the tank. */
+  /**
+   * The newest satisfying record: a verified run of the test type on the combination, or a reading
+   * of the value on the tank. One from before `effectiveFrom` is not counted.
+   */
   lastDoneAt: string | null;
   /**
-   * Starts of the combination's wash cycles after the reference (the last record, else the plan's
-   * start), oldest first; only the first 2 N are needed for "every N cycles".
+   * Starts of the combination's wash cycles after the reference (the later of the last record and
+   * the plan's start), oldest first; only the first 2 N are needed for "every N cycles".
    */
   cycleStarts: readonly string[];
   /** For "per lot": when each lot first washed after the reference was first washed, oldest first (two suffice). */
@@ -101,7 +104,10 @@ function stateAt(now: Date, dueAt: Date | null, overdueAt: Date | null): DueStat
  * - Per lot: due when a lot is first washed after the last test, overdue when a second new lot is.
  */
 export function scheduleLine(input: ScheduleInput): ScheduleResult {
-  const reference = new Date(input.lastDoneAt ?? input.effectiveFrom);
+  // A test before the plan took effect starts nothing: a new plan's first test is due from its start.
+  const lastDoneAt =
+    input.lastDoneAt !== null && input.lastDoneAt >= input.effectiveFrom ? input.lastDoneAt : null;
+  const reference = new Date(lastDoneAt ?? input.effectiveFrom);
   const iso = (d: Date | null) => (d ? d.toISOString() : null);
   const result = (dueAt: Date | null, overdueAt: Date | null): ScheduleResult => ({
     dueAt: iso(dueAt),
@@ -114,7 +120,7 @@ export function scheduleLine(input: ScheduleInput): ScheduleResult {
     case "daily":
     case "weekly": {
       const kind = input.frequency;
-      if (input.lastDoneAt === null) {
+      if (lastDoneAt === null) {
         return result(reference, nextBoundary(kind, reference, input.clock));
       }
       const dueAt = nextBoundary(kind, reference, input.clock);

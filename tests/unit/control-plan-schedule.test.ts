@@ -162,6 +162,21 @@ describe("when the next routine test is due", () => {
     });
   });
 
+  it("a test from before the plan took effect starts nothing: the first is due from the plan's start", () => {
+    const r = scheduleLine({
+      ...base,
+      frequency: "daily",
+      lastDoneAt: "2026-05-20T08:00:00.000Z",
+      now: new Date("2026-06-01T09:00:00Z"),
+    });
+    // Plan effective 2026-06-01 08:00 UTC = 10:00 CEST; that local day ends at 22:00 UTC.
+    expect(r).toEqual({
+      dueAt: "2026-06-01T08:00:00.000Z",
+      overdueAt: "2026-06-01T22:00:00.000Z",
+      state: "due",
+    });
+  });
+
   it("every N cycles: due at the N-th cycle since the last test, overdue at the 2N-th", () => {
     const starts = [1, 2, 3, 4, 5, 6].map((h) => `2026-06-10T0${h}:00:00.000Z`);
     const line = {

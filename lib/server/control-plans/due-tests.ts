@@ -162,7 +162,7 @@ export async function listDueControlPlanTests(
           .limit(1);
         lastDoneAt = run?.at ?? null;
       }
-      const reference = lastDoneAt ?? effectiveFrom;
+      const reference = lastDoneAt && lastDoneAt > effectiveFrom ? lastDoneAt : effectiveFrom;
       const onCombination = and(
         eq(washCycles.recipeVersionId, plan.recipeVersionId),
         eq(washCycles.partFamilyId, plan.partFamilyId),
