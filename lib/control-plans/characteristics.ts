@@ -60,6 +60,16 @@ export function takesMinCycles(c: Characteristic): boolean {
   return !isBathCharacteristic(c) && c !== "final_rinse_conductivity";
 }
 
+/** "1 part", "5 parts", "1 reading", "2 water samples": what a line's sample size counts. */
+export function sampleWords(c: Characteristic, n: number): string {
+  const [one, many] = isBathCharacteristic(c)
+    ? ["reading", "readings"]
+    : c === "final_rinse_conductivity"
+      ? ["water sample", "water samples"]
+      : ["part", "parts"];
+  return `${n} ${n === 1 ? one : many}`;
+}
+
 export const FREQUENCIES = ["every_n_cycles", "per_shift", "daily", "weekly", "per_lot"] as const;
 export type Frequency = (typeof FREQUENCIES)[number];
 

@@ -43,15 +43,13 @@ export function runDefaultsFromQuery(
     : undefined;
   const samples = Number(one("samples"));
   if (!change) {
-    // A control plan's due test (`?recipeVersion=…&partFamily=…&testType=…&samples=…`) names its combination.
+    // A control plan's due test (`?recipeVersion=…&partFamily=…&testType=…`) names its combination; it answers no change request.
     const recipeVersionId = combination.versions.find((v) => v.id === one("recipeVersion"))?.id;
     const partFamilyId = combination.families.find((f) => f.id === one("partFamily"))?.id;
     const defaults: RunDefaults = {};
     if (testType) defaults.testType = testType;
     if (recipeVersionId) defaults.recipeVersionId = recipeVersionId;
     if (partFamilyId) defaults.partFamilyId = partFamilyId;
-    if (testType && recipeVersionId && Number.isInteger(samples) && samples > 0)
-      defaults.requirement = `Control plan: ${TEST_TYPE_LABELS[testType].toLowerCase()} on ${samples} parts`;
     return defaults;
   }
   return {

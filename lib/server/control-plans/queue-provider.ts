@@ -13,6 +13,7 @@ import {
   CHARACTERISTIC_LABELS,
   DUE_STATE_LABELS,
   frequencyWords,
+  sampleWords,
 } from "@/lib/control-plans/characteristics";
 import { formatDateTime } from "@/lib/format/date";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
@@ -46,7 +47,7 @@ export const controlPlanQueueProvider: QueueProvider = async (user, now) => {
         id: `control-plan-test:${t.lineId}`,
         kind: "Routine test",
         title: `${CHARACTERISTIC_LABELS[t.characteristic]}${where} · ${t.combination}`,
-        detail: `${DUE_STATE_LABELS[t.state]} since ${formatDateTime(t.state === "overdue" ? t.overdueAt : t.dueAt)}; ${frequencyWords(t.frequency, t.everyN).toLowerCase()}, ${t.sampleSize} ${t.testType ? "parts" : "reading"}${t.minCycles ? ` from ${t.minCycles} cycles` : ""} (${t.method})`,
+        detail: `${DUE_STATE_LABELS[t.state]} since ${formatDateTime(t.state === "overdue" ? t.overdueAt : t.dueAt)}; ${frequencyWords(t.frequency, t.everyN).toLowerCase()}, ${sampleWords(t.characteristic, t.sampleSize)}${t.minCycles ? ` from ${t.minCycles} cycles` : ""} (${t.method})`,
         href: dueTestHref(t),
         due: t.overdueAt,
       });

@@ -18,6 +18,7 @@ import {
   DUE_STATE_LABELS,
   frequencyWords,
   isBathCharacteristic,
+  sampleWords,
 } from "@/lib/control-plans/characteristics";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -60,9 +61,7 @@ function LinesTable({ version }: { version: Version }) {
               {l.tank ? <span className="block text-xs text-stone-600">on {l.tank}</span> : null}
             </Td>
             <Td>{l.method}</Td>
-            <Td numeric>
-              {l.sampleSize} {isBathCharacteristic(l.characteristic) ? "readings" : "parts"}
-            </Td>
+            <Td numeric>{sampleWords(l.characteristic, l.sampleSize)}</Td>
             <Td numeric>{l.minCycles === null ? "—" : `${l.minCycles} cycles`}</Td>
             <Td>{frequencyWords(l.frequency, l.everyN)}</Td>
             <Td className="whitespace-pre-line">{l.reactionPlan}</Td>
