@@ -56,6 +56,15 @@ export async function register() {
       .catch((error) => console.error("emergency escalation or effectiveness pass failed", error));
   setTimeout(changeFollowUp, 5_000).unref();
   setInterval(changeFollowUp, 15 * 60_000).unref();
+  const { sendControlPlanOverdueNotices } =
+    await import("@/lib/server/control-plans/send-overdue-notices");
+  // Once per line and due date: a routine test of a control plan that became overdue.
+  const controlPlanPass = () =>
+    sendControlPlanOverdueNotices()
+      .then((sent) => (sent > 0 ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("control plan overdue notices failed", error));
+  setTimeout(controlPlanPass, 5_000).unref();
+  setInterval(controlPlanPass, 15 * 60_000).unref();
   const { env } = await import("@/lib/env");
   const { writeCheckpoint } = await import("@/lib/server/audit/write-checkpoint");
   // Skipped when the head has not moved, so an idle system writes nothing.

@@ -126,6 +126,7 @@ export const SIGNED_RECORD_TYPES = [
   "recipe_version",
   "deviation",
   "nonconformance",
+  "control_plan_version",
 ] as const;
 
 export const EVIDENCE_FILE_KINDS = [

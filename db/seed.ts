@@ -23,6 +23,7 @@ import { seedCycles } from "./seed-cycles";
 import { seedLabReport } from "./seed-lab-report";
 import { seedNonconformances } from "./seed-nonconformances";
 import { seedChangeTypes } from "./seed-change-types";
+import { seedControlPlans } from "./seed-control-plans";
 import {
   DEMO_COMPANY,
   DEMO_PART_FAMILIES,
@@ -316,6 +317,12 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     if (["engineer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`)))
       await seedNonconformances(tx, {
         engineer: person("engineer@fennmoor.example"),
+        approver: person("approver@fennmoor.example"),
+      });
+    if (["engineer", "reviewer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`)))
+      await seedControlPlans(tx, {
+        engineer: person("engineer@fennmoor.example"),
+        reviewer: person("reviewer@fennmoor.example"),
         approver: person("approver@fennmoor.example"),
       });
   });

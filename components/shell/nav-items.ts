@@ -30,6 +30,12 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
   { href: "/cycles", label: "Wash cycles & lots", icon: "evidence", permission: "evidence.view" },
   {
+    href: "/control-plans",
+    label: "Control plans",
+    icon: "evidence",
+    permission: "control_plan.view",
+  },
+  {
     href: "/nonconformances",
     label: "Nonconformances",
     icon: "nonconformances",

@@ -30,6 +30,7 @@ import {
   NC_STATUSES,
 } from "@/db/enums";
 import { RISK_LEVELS } from "@/lib/deviations/rules";
+import { CHARACTERISTICS, CONTROL_PLAN_STATUSES } from "@/lib/control-plans/characteristics";
 
 // ── Building blocks of the payloads ──────────────────────────────────────
 // Payloads are strict: a key a schema does not name is refused rather than
@@ -906,6 +907,41 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       letterSha256: sha256,
       entry: id,
     }),
+  }),
+  // Control plans: the routine tests of a qualified combination, and the site's shifts they follow
+  event("control_plan.created", "control_plan_version", {
+    new: obj({
+      combination: text,
+      version,
+      lines: count,
+      contentHash: sha256,
+    }),
+  }),
+  event("control_plan.draft_saved", "control_plan_version", {
+    old: obj({ lines: count, contentHash: sha256 }),
+    new: obj({ lines: count, contentHash: sha256 }),
+  }),
+  event("control_plan.revised", "control_plan_version", {
+    new: obj({ combination: text, version, fromVersion: version, note: text, contentHash: sha256 }),
+  }),
+  event("control_plan.status_changed", "control_plan_version", {
+    old: obj({ status: z.enum(CONTROL_PLAN_STATUSES) }),
+    new: obj({ status: z.enum(CONTROL_PLAN_STATUSES), contentHash: sha256 }),
+  }),
+  event("control_plan.overdue_notified", "control_plan_line", {
+    new: obj({
+      characteristic: z.enum(CHARACTERISTICS),
+      combination: text,
+      dueAt: isoTime,
+      to: z.array(text),
+    }),
+  }),
+  event("site.clock_saved", "site", {
+    // The first save replaces the defaults, which were never stored.
+    old: obj({ timeZone: text, shiftStarts: z.array(text) })
+      .nullable()
+      .default(null),
+    new: obj({ timeZone: text, shiftStarts: z.array(text) }),
   }),
 ]);
 

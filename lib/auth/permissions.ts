@@ -66,6 +66,14 @@ export const PERMISSIONS = {
   "nc.open": ["engineer", "technician"],
   "nc.work": ["engineer"],
   "nc.approve": ["approver"],
+  // Control plans: engineers write them, a reviewer and an approver sign, technicians do the tests.
+  "control_plan.view": ALL,
+  "control_plan.draft": ["engineer"],
+  "control_plan.review": ["reviewer"],
+  "control_plan.approve": ["approver"],
+  "control_plan.perform": ["technician"],
+  // The site's shift times and zone, which per-shift and daily tests follow.
+  "site.manage_clock": ["admin"],
 } as const satisfies Record<string, readonly Role[]>;
 
 /** What the role table grants; "action" is kept for server actions. */

@@ -16,6 +16,11 @@ interface ChangeOption {
   partFamilyId: string | null;
 }
 
+interface CombinationOptions {
+  versions: readonly { id: string }[];
+  families: readonly { id: string }[];
+}
+
 /**
  * What the new-run form starts with when it is opened from a change request's
  * requalification gate (`?change=…&testType=…&samples=…`): the change, the version it
@@ -25,6 +30,7 @@ interface ChangeOption {
 export function runDefaultsFromQuery(
   query: Record<string, string | string[] | undefined>,
   changes: ChangeOption[],
+  combination: CombinationOptions = { versions: [], families: [] },
 ): RunDefaults {
   const one = (key: string) => {
     const v = query[key];
@@ -36,7 +42,16 @@ export function runDefaultsFromQuery(
     ? (type as TestType)
     : undefined;
   const samples = Number(one("samples"));
-  if (!change) return testType ? { testType } : {};
+  if (!change) {
+    // A control plan's due test (`?recipeVersion=…&partFamily=…&testType=…`) names its combination; it answers no change request.
+    const recipeVersionId = combination.versions.find((v) => v.id === one("recipeVersion"))?.id;
+    const partFamilyId = combination.families.find((f) => f.id === one("partFamily"))?.id;
+    const defaults: RunDefaults = {};
+    if (testType) defaults.testType = testType;
+    if (recipeVersionId) defaults.recipeVersionId = recipeVersionId;
+    if (partFamilyId) defaults.partFamilyId = partFamilyId;
+    return defaults;
+  }
   return {
     changeRequestId: change.id,
     recipeVersionId: change.toVersionId ?? undefined,

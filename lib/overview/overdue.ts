@@ -62,9 +62,13 @@ export interface DueControlPlanTest {
   systemId: string;
   recipeVersionId: string;
   partFamilyId: string;
+  /** The characteristic in words. */
   characteristic: string;
-  dueAt: string;
+  /** Null while the line counts cycles or lots and the count is not reached. */
+  dueAt: string | null;
   state: string;
+  /** The plan's own page, when known. */
+  href?: string;
 }
 
 /** What a qualified combination is called and where it is shown. */
@@ -84,7 +88,7 @@ export function fromControlPlan(
 ): OverdueTest[] {
   const byPair = new Map(combinations.map((c) => [`${c.recipeVersionId}|${c.familyId}`, c]));
   return rows
-    .filter((r) => r.state === "overdue" || r.state === "due")
+    .filter((r) => (r.state === "overdue" || r.state === "due") && r.dueAt !== null)
     .map((r) => {
       const c = byPair.get(`${r.recipeVersionId}|${r.partFamilyId}`);
       return {
@@ -94,9 +98,9 @@ export function fromControlPlan(
         partFamilyId: r.partFamilyId,
         characteristic: r.characteristic,
         subject: c ? `${c.recipeCode} v${c.version} × ${c.familyCode}` : "Qualified combination",
-        dueAt: r.dueAt,
+        dueAt: r.dueAt as string,
         state: r.state === "overdue" ? "overdue" : "due",
-        href: c ? `/systems/recipes/${c.recipeId}` : "/parts/combinations",
+        href: r.href ?? (c ? `/systems/recipes/${c.recipeId}` : "/parts/combinations"),
       };
     });
 }

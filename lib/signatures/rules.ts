@@ -142,6 +142,15 @@ export const MEANING_STATEMENTS: Record<SignedRecordType, Record<SignatureMeanin
     performed: "I carried out the actions of this nonconformance as recorded.",
     verified: "I have checked this nonconformance's records against its requirements.",
   },
+  control_plan_version: {
+    authored:
+      "I am the author of this control plan version, its tests, frequencies and reaction plans, and submit it as written.",
+    reviewed: "I have reviewed this control plan version and find it fit for approval.",
+    approved:
+      "I approve this control plan version: these routine tests, at these frequencies, keep the combination in its validated state.",
+    performed: "I carried out the tests of this control plan as recorded.",
+    verified: "I have checked this control plan version against its requirements.",
+  },
 };
 
 /** What a signature of this meaning on this kind of record affirms. */

@@ -1147,6 +1147,56 @@ const SAMPLES = {
       entry: UUID,
     },
   },
+  "control_plan.created": {
+    eventType: "control_plan.created",
+    recordType: "control_plan_version",
+    recordId: UUID,
+    new: { combination: "VB-STD version 2 × VB-100", version: 1, lines: 3, contentHash: H },
+  },
+  "control_plan.draft_saved": {
+    eventType: "control_plan.draft_saved",
+    recordType: "control_plan_version",
+    recordId: UUID,
+    old: { lines: 3, contentHash: H },
+    new: { lines: 4, contentHash: H },
+  },
+  "control_plan.revised": {
+    eventType: "control_plan.revised",
+    recordType: "control_plan_version",
+    recordId: UUID,
+    new: {
+      combination: "VB-STD version 2 × VB-100",
+      version: 2,
+      fromVersion: 1,
+      note: "Weekly gravimetric added",
+      contentHash: H,
+    },
+  },
+  "control_plan.status_changed": {
+    eventType: "control_plan.status_changed",
+    recordType: "control_plan_version",
+    recordId: UUID,
+    old: { status: "reviewed" },
+    new: { status: "effective", contentHash: H },
+  },
+  "control_plan.overdue_notified": {
+    eventType: "control_plan.overdue_notified",
+    recordType: "control_plan_line",
+    recordId: UUID,
+    new: {
+      characteristic: "particle_cleanliness",
+      combination: "VB-STD version 2 × VB-100",
+      dueAt: "2026-11-30T05:00:00.000Z",
+      to: ["technician@fennmoor.example"],
+    },
+  },
+  "site.clock_saved": {
+    eventType: "site.clock_saved",
+    recordType: "site",
+    recordId: UUID,
+    old: null,
+    new: { timeZone: "Europe/Berlin", shiftStarts: ["06:00", "14:00", "22:00"] },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

@@ -50,6 +50,12 @@ const EXPECTED: Record<Permission, Role[]> = {
   "nc.open": ["engineer", "technician"],
   "nc.work": ["engineer"],
   "nc.approve": ["approver"],
+  "control_plan.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "control_plan.draft": ["engineer"],
+  "control_plan.review": ["reviewer"],
+  "control_plan.approve": ["approver"],
+  "control_plan.perform": ["technician"],
+  "site.manage_clock": ["admin"],
 };
 
 describe("role table", () => {

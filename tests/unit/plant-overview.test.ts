@@ -335,6 +335,25 @@ describe("overdue tests", () => {
       },
     ]);
   });
+
+  it("links a control-plan test to its plan and leaves one whose cycle count is not reached", () => {
+    const base = { systemId: "s1", recipeVersionId: "v1", partFamilyId: "f1", state: "due" };
+    const rows = fromControlPlan(
+      [
+        { ...base, characteristic: "Residue mass", dueAt: null, href: "/control-plans/p1" },
+        {
+          ...base,
+          characteristic: "Dryness",
+          dueAt: "2026-05-02T06:00:00.000Z",
+          href: "/control-plans/p1",
+        },
+      ],
+      [],
+    );
+    expect(rows.map((r) => [r.characteristic, r.subject, r.href])).toEqual([
+      ["Dryness", "Qualified combination", "/control-plans/p1"],
+    ]);
+  });
 });
 
 describe("landing page after sign-in", () => {

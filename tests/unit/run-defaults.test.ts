@@ -33,3 +33,21 @@ describe("a new run opened from a change request's gate", () => {
     expect(runDefaultsFromQuery({ testType: ["gravimetric", "visual"] }, changes)).toEqual({});
   });
 });
+
+describe("a new run opened from a control plan's due test", () => {
+  const offered = { versions: [{ id: "v3" }], families: [{ id: "fam-7" }] };
+  it("starts on the combination and the test, tied to no change request", () => {
+    expect(
+      runDefaultsFromQuery(
+        { recipeVersion: "v3", partFamily: "fam-7", testType: "dryness", samples: "3" },
+        changes,
+        offered,
+      ),
+    ).toEqual({ recipeVersionId: "v3", partFamilyId: "fam-7", testType: "dryness" });
+  });
+  it("ignores a version or family that is not on offer", () => {
+    expect(
+      runDefaultsFromQuery({ recipeVersion: "v4", partFamily: "fam-9" }, changes, offered),
+    ).toEqual({});
+  });
+});

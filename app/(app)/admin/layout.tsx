@@ -10,6 +10,7 @@ export default function AdminLayout({ children }: { children: ReactNode }) {
           { href: "/admin", label: "Users and roles", alsoCurrentUnder: ["/admin/users"] },
           { href: "/admin/matrix", label: "Requalification matrix" },
           { href: "/admin/change-control", label: "Change control" },
+          { href: "/admin/shifts", label: "Shifts" },
           { href: "/admin/email", label: "E-mail" },
         ]}
       />

@@ -2,7 +2,9 @@ import "server-only";
 import type { Executor } from "@/db/client";
 import { dueState, requalificationDue } from "@/lib/changes/periodic";
 import { MAINTENANCE_LABELS } from "@/lib/evidence/maintenance";
-import { sortOverdue, type OverdueTest } from "@/lib/overview/overdue";
+import { CHARACTERISTIC_LABELS } from "@/lib/control-plans/characteristics";
+import { fromControlPlan, sortOverdue, type OverdueTest } from "@/lib/overview/overdue";
+import { listDueControlPlanTests } from "@/lib/server/control-plans/due-tests";
 import { listMaintenance, type MaintenanceItem } from "@/lib/server/bath/queries";
 import { loadCombinations, type OverviewCombination } from "./combinations";
 
@@ -53,11 +55,8 @@ function fromRequalifications(combinations: OverviewCombination[], now: Date): O
 /**
  * Every test and check that is overdue or falls due soon, plant-wide: periodic requalification of
  * each qualified combination, equipment checks (filter, nozzle, ultrasonic foil, bath change) and
- * bath readings whose measurement interval has run out.
- *
- * Seam for control plans: their scheduled tests join this list as source "control_plan" — read
- * them with `listDueControlPlanTests(db, now)` (rows { systemId, recipeVersionId, partFamilyId,
- * characteristic, dueAt, state }) and map each with `fromControlPlan` (lib/overview/overdue.ts), beside the sources here.
+ * bath readings whose measurement interval has run out, and the routine tests of each effective
+ * control plan that are due or overdue.
  */
 export async function listOverdueTests(
   db: Executor,
@@ -67,5 +66,18 @@ export async function listOverdueTests(
   const [maintenance, combinations] = loaded
     ? [loaded.maintenance, loaded.combinations]
     : await Promise.all([listMaintenance(now), loadCombinations(db)]);
-  return sortOverdue([...fromRequalifications(combinations, now), ...fromMaintenance(maintenance)]);
+  const planned = await listDueControlPlanTests({ db, now, states: ["due", "overdue"] });
+  const fromPlans = fromControlPlan(
+    planned.map((t) => ({
+      ...t,
+      characteristic: CHARACTERISTIC_LABELS[t.characteristic],
+      href: `/control-plans/${t.controlPlanId}`,
+    })),
+    combinations,
+  );
+  return sortOverdue([
+    ...fromRequalifications(combinations, now),
+    ...fromMaintenance(maintenance),
+    ...fromPlans,
+  ]);
 }

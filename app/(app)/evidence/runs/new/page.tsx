@@ -15,7 +15,7 @@ export default async function NewRunPage({
 }) {
   const user = await requirePageUser("evidence.record");
   const options = await runFormOptions();
-  const defaults = runDefaultsFromQuery(await searchParams, options.changes);
+  const defaults = runDefaultsFromQuery(await searchParams, options.changes, options);
   return (
     <>
       <PageHeader

@@ -14,6 +14,8 @@ import {
   specsInForce,
 } from "@/lib/server/plant/parts-queries";
 import { NcPanel } from "@/components/nonconformances/nc-panel";
+import { ControlPlanLinks } from "@/components/control-plans/control-plan-links";
+import { controlPlansOf } from "@/lib/server/control-plans/queries";
 import { updatePartFamilyAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Part family" };
@@ -29,10 +31,11 @@ export default async function PartFamilyPage({
   const family = await getPartFamily(id.data);
   if (!family) notFound();
   const manage = can(user.roles, "parts.manage");
-  const [specs, inUse, picture] = await Promise.all([
+  const [specs, inUse, picture, plans] = await Promise.all([
     specsInForce(),
     familyInUse(family.id),
     familyPictureVersion(family.id),
+    controlPlansOf({ partFamilyId: family.id }),
   ]);
   return (
     <>
@@ -58,6 +61,10 @@ export default async function PartFamilyPage({
           Only engineers and administrators edit part families.
         </p>
       )}
+      <ControlPlanLinks
+        plans={plans}
+        none="No control plan for this part family yet: one per qualified recipe version."
+      />
       <NcPanel roles={user.roles} where={{ partFamilyId: family.id }} />
     </>
   );

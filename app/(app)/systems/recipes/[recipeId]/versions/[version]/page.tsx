@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
+import { ControlPlanLinks } from "@/components/control-plans/control-plan-links";
 import { RecipeTable } from "@/components/recipes/recipe-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
@@ -9,6 +10,7 @@ import { formatDate } from "@/lib/format/date";
 import { humanize } from "@/lib/format/labels";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getRecipeVersionPage } from "@/lib/server/changes/queries";
+import { controlPlansOf } from "@/lib/server/control-plans/queries";
 
 export const metadata: Metadata = { title: "Recipe version" };
 
@@ -28,6 +30,7 @@ export default async function RecipeVersionPage({
   if (!page) notFound();
   const { recipe, system, version: v, content, proposedBy } = page;
   const canSeeChanges = can(user.roles, "changes.view");
+  const plans = await controlPlansOf({ recipeVersionId: v.id });
   return (
     <>
       <PageHeader
@@ -65,6 +68,10 @@ export default async function RecipeVersionPage({
         </p>
         <RecipeTable content={content} caption={`Parameters of version ${v.version}`} />
       </section>
+      <ControlPlanLinks
+        plans={plans}
+        none="No control plan on this version yet: each qualified part family gets one."
+      />
       {canSeeChanges && proposedBy.length > 0 && (
         <p className="mt-4 text-sm">
           Proposed by{" "}
