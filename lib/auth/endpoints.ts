@@ -8,6 +8,7 @@ import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
 import * as appAdminChangeControlActions from "@/app/(app)/admin/change-control/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDeviationsActions from "@/app/(app)/deviations/actions";
+import * as appInstrumentsActions from "@/app/(app)/instruments/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appCyclesActions from "@/app/(app)/cycles/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
@@ -23,6 +24,7 @@ import * as authSignInActions from "@/app/(auth)/sign-in/actions";
 import * as apiAuditEventsExportRoute from "@/app/api/audit-events/export/route";
 import * as apiAuditEventsRoute from "@/app/api/audit-events/route";
 import * as apiBathPhotosRoute from "@/app/api/bath/photos/route";
+import * as apiInstrumentsCertificatesRoute from "@/app/api/instruments/certificates/route";
 import * as apiAuditPackChangeidRoute from "@/app/api/audit-pack/[changeId]/route";
 import * as apiDocumentsDocumentidVersionsVersionPdfRoute from "@/app/api/documents/[documentId]/versions/[version]/pdf/route";
 import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/route";
@@ -61,6 +63,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/admin/change-control/actions.ts": appAdminChangeControlActions,
   "app/(app)/changes/actions.ts": appChangesActions,
   "app/(app)/deviations/actions.ts": appDeviationsActions,
+  "app/(app)/instruments/actions.ts": appInstrumentsActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/cycles/actions.ts": appCyclesActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
@@ -77,6 +80,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/audit-events/route.ts": apiAuditEventsRoute,
   "app/api/audit-pack/[changeId]/route.ts": apiAuditPackChangeidRoute,
   "app/api/bath/photos/route.ts": apiBathPhotosRoute,
+  "app/api/instruments/certificates/route.ts": apiInstrumentsCertificatesRoute,
   "app/api/documents/[documentId]/versions/[version]/pdf/route.ts":
     apiDocumentsDocumentidVersionsVersionPdfRoute,
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,

@@ -65,6 +65,9 @@ export const PERMISSIONS = {
   "nc.open": ["engineer", "technician"],
   "nc.work": ["engineer"],
   "nc.approve": ["approver"],
+  // Instruments: the lab and quality keep the register and record calibrations; all may read it.
+  "instrument.view": ALL,
+  "instrument.manage": ["admin", "engineer", "technician"],
 } as const satisfies Record<string, readonly Role[]>;
 
 /** What the role table grants; "action" is kept for server actions. */

@@ -49,6 +49,8 @@ const EXPECTED: Record<Permission, Role[]> = {
   "nc.open": ["engineer", "technician"],
   "nc.work": ["engineer"],
   "nc.approve": ["approver"],
+  "instrument.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "instrument.manage": ["admin", "engineer", "technician"],
 };
 
 describe("role table", () => {
