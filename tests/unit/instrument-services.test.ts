@@ -10,6 +10,7 @@ import {
   cleanlinessSpecs,
   emailOutbox,
   instruments,
+  testRunInstruments,
   nonconformanceItems,
   nonconformances,
   partFamilies,
@@ -39,6 +40,7 @@ import { updateInstrument } from "@/lib/server/instruments/update-instrument";
 import { qualifyCombination } from "@/lib/server/plant/qualify-combination";
 import type { SessionUser } from "@/lib/server/auth/sessions";
 import { localStore, setStore } from "@/lib/storage";
+import { checkSignatures } from "@/lib/server/audit/check-signatures";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -152,6 +154,21 @@ const signPerformed = async (runId: string) =>
 
 const eventsOf = (recordId: string) =>
   t.db.select().from(auditEvents).where(eq(auditEvents.recordId, recordId));
+
+describe("the demo's register", () => {
+  it("has instruments with calibration history cited by signed runs whose signatures still hold", async () => {
+    const rows = await t.db.select().from(instruments);
+    const byAsset = new Map(rows.map((r) => [r.assetNumber, r]));
+    expect([...byAsset.keys()]).toEqual(
+      expect.arrayContaining(["BAL-01", "AN-01", "CM-01", "INK-01"]),
+    );
+    // The rinse meter falls due within the fortnight: due soon, still usable.
+    expect(byAsset.get("CM-01")!.dueOn).toBe(addDays(today, 12));
+    const cited = await t.db.select().from(testRunInstruments);
+    expect(cited.length).toBeGreaterThanOrEqual(6);
+    expect((await checkSignatures(t.db)).findings).toEqual([]);
+  });
+});
 
 describe("the register", () => {
   it("audits a new instrument and refuses its asset number twice, beside the field", async () => {
