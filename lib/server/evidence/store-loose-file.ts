@@ -21,7 +21,8 @@ export async function storeLooseFile(
     eventType:
       | "evidence_file.check_photo_uploaded"
       | "evidence_file.customer_letter_uploaded"
-      | "evidence_file.certificate_uploaded";
+      | "evidence_file.certificate_uploaded"
+      | "evidence_file.spec_source_uploaded";
     /** A further refusal for this use (a photo must be an image), as a message beside the file. */
     refuse?: (checked: CheckedFile) => string | null;
   },
