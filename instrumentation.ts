@@ -65,6 +65,15 @@ export async function register() {
       .catch((error) => console.error("control plan overdue notices failed", error));
   setTimeout(controlPlanPass, 5_000).unref();
   setInterval(controlPlanPass, 15 * 60_000).unref();
+  const { sendInstrumentOverdueNotices } =
+    await import("@/lib/server/instruments/send-overdue-notices");
+  // Once per instrument and due date, when its calibration (or ink set) becomes overdue.
+  const instrumentPass = () =>
+    sendInstrumentOverdueNotices()
+      .then((sent) => (sent > 0 ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("instrument overdue notices failed", error));
+  setTimeout(instrumentPass, 5_000).unref();
+  setInterval(instrumentPass, 3_600_000).unref();
   const { env } = await import("@/lib/env");
   const { writeCheckpoint } = await import("@/lib/server/audit/write-checkpoint");
   // Skipped when the head has not moved, so an idle system writes nothing.

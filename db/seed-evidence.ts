@@ -4,6 +4,7 @@ import { asOf } from "@/lib/audit/seed-stamp";
 import { computeRunOutcome } from "@/lib/evidence/outcome";
 import { runContentHash } from "@/lib/evidence/run-hash";
 import type { Tx } from "./client";
+import { citeDemoInstruments } from "./seed-instruments";
 import {
   bathRecords,
   cleanlinessSpecs,
@@ -43,6 +44,8 @@ type DemoRun = {
   performedOn: string;
   status: "open" | "performed" | "verified";
   runData?: Record<string, unknown>;
+  /** Asset numbers of the instruments the run used (db/seed-instruments.ts). */
+  instruments?: string[];
   samples: Sample[];
 };
 
@@ -62,7 +65,12 @@ function valveBodyRun(
   performedOn: string,
   version: number,
   seed: number,
-  opts: { bigParticle?: boolean; manyIJ?: boolean; status?: DemoRun["status"] } = {},
+  opts: {
+    bigParticle?: boolean;
+    manyIJ?: boolean;
+    status?: DemoRun["status"];
+    instruments?: string[];
+  } = {},
 ): DemoRun {
   const v = (base: number, i: number) =>
     Math.max(0, Math.round(base * (0.8 + ((seed * 7 + i * 13) % 10) / 25)));
@@ -73,6 +81,7 @@ function valveBodyRun(
     testType: "particle_cleanliness",
     performedOn,
     status: opts.status ?? "verified",
+    instruments: opts.instruments,
     runData: {
       extractionSeries: [v(1480, 1), v(260, 2), v(70, 3)],
       blank: { counts: { B: v(120, 4), C: v(40, 5), D: v(10, 6), E: 2 }, largestUm: 80 },
@@ -113,10 +122,10 @@ const DEMO_RUNS: DemoRun[] = [
   valveBodyRun("2025-06-10", 1, 3, { manyIJ: true }),
   valveBodyRun("2025-07-08", 1, 4),
   valveBodyRun("2025-09-09", 2, 5),
-  valveBodyRun("2025-10-14", 2, 6),
-  valveBodyRun("2025-11-11", 2, 7, { bigParticle: true }),
-  valveBodyRun("2025-12-09", 2, 8),
-  valveBodyRun("2026-01-13", 2, 9, { status: "performed" }),
+  valveBodyRun("2025-10-14", 2, 6, { instruments: ["AN-01"] }),
+  valveBodyRun("2025-11-11", 2, 7, { bigParticle: true, instruments: ["AN-01"] }),
+  valveBodyRun("2025-12-09", 2, 8, { instruments: ["AN-01"] }),
+  valveBodyRun("2026-01-13", 2, 9, { status: "performed", instruments: ["AN-01"] }),
   {
     family: "PF-VB-210",
     recipe: "R-AW3-VB",
@@ -124,6 +133,7 @@ const DEMO_RUNS: DemoRun[] = [
     testType: "rinse_conductivity",
     performedOn: "2025-12-09",
     status: "verified",
+    instruments: ["CM-01"],
     samples: [
       {
         sampleLabel: "Final rinse, start of shift",
@@ -162,6 +172,7 @@ const DEMO_RUNS: DemoRun[] = [
     testType: "gravimetric",
     performedOn: "2025-11-18",
     status: "verified",
+    instruments: ["BAL-01"],
     samples: [
       {
         sampleLabel: "PH400-1118-1",
@@ -376,10 +387,13 @@ export async function seedEvidence(tx: Tx, now = new Date()) {
         },
       }),
     );
+    const cited = await citeDemoInstruments(tx, run.id, demo.instruments ?? []);
     const { hash } = runContentHash(
       run,
       [...rows].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id.localeCompare(b.id)),
       [],
+      null,
+      cited,
     );
     const sign = async (
       signer: { id: string; name: string },

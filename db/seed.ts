@@ -19,6 +19,7 @@ import { seedEvidence } from "./seed-evidence";
 import { seedBathPlan } from "./seed-bath-plan";
 import { seedChangeControl } from "./seed-changes";
 import { seedDeviations } from "./seed-deviations";
+import { seedInstruments } from "./seed-instruments";
 import { seedCycles } from "./seed-cycles";
 import { seedLabReport } from "./seed-lab-report";
 import { seedNonconformances } from "./seed-nonconformances";
@@ -308,6 +309,7 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
       });
     }
 
+    await seedInstruments(tx);
     await seedEvidence(tx);
     await seedBathPlan(tx);
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });

@@ -2,7 +2,8 @@
 
 import { useState } from "react";
 import { ActionForm } from "@/components/ui/action-form";
-import { DateField, Field, FileField, NumberField, SelectField } from "@/components/ui/field";
+import { DateField, Field, NumberField, SelectField } from "@/components/ui/field";
+import { StoredFileUpload } from "@/components/ui/stored-file-upload";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { BATH_CHEMISTRY_KEYS, BATH_RECORD_KINDS, MAINTENANCE_KINDS } from "@/db/enums";
 import type { FormState } from "@/lib/actions/result";
@@ -119,7 +120,14 @@ export function BathRecordForm({
               { value: "fail", label: "Fail" },
             ]}
           />
-          <CheckPhotoUpload />
+          <StoredFileUpload
+            endpoint="/api/bath/photos"
+            name="photoFileId"
+            label="Photo"
+            accept=".jpg,.jpeg,.png"
+            hint="The foil or the spray pattern; kept by its SHA-256 hash."
+            what="photo"
+          />
         </>
       )}
       <Field name="notes" label="Notes" className="sm:col-span-3" />
@@ -127,59 +135,6 @@ export function BathRecordForm({
         <SubmitButton>Record</SubmitButton>
       </div>
     </ActionForm>
-  );
-}
-
-/** Uploads the check's photo as soon as it is chosen and keeps its stored id in the form. */
-function CheckPhotoUpload() {
-  const [stored, setStored] = useState<{ id: string; name: string } | null>(null);
-  const [status, setStatus] = useState<{ error: boolean; text: string } | null>(null);
-  async function upload(file: File | null) {
-    setStatus(null);
-    setStored(null);
-    if (!file) return;
-    setStatus({ error: false, text: `Uploading ${file.name}…` });
-    const body = new FormData();
-    body.set("file", file);
-    try {
-      const response = await fetch("/api/bath/photos", { method: "POST", body });
-      const json = (await response.json().catch(() => null)) as {
-        ok?: boolean;
-        message?: string;
-        file?: { id: string; name: string };
-      } | null;
-      if (!response.ok || !json?.ok || !json.file) {
-        setStatus({
-          error: true,
-          text: json?.message ?? `The upload failed (HTTP ${response.status}).`,
-        });
-        return;
-      }
-      setStored(json.file);
-      setStatus({ error: false, text: json.message ?? "Stored." });
-    } catch {
-      setStatus({ error: true, text: "The photo did not reach the server." });
-    }
-  }
-  return (
-    <div className="space-y-1">
-      <input type="hidden" name="photoFileId" value={stored?.id ?? ""} />
-      <FileField
-        label="Photo"
-        errorKey="photoFileId"
-        accept=".jpg,.jpeg,.png"
-        onChange={(e) => void upload(e.target.files?.[0] ?? null)}
-        hint="The foil or the spray pattern; kept by its SHA-256 hash."
-      />
-      {status && (
-        <p
-          role={status.error ? "alert" : "status"}
-          className={`text-sm ${status.error ? "text-red-800" : "text-stone-700"}`}
-        >
-          {status.text}
-        </p>
-      )}
-    </div>
   );
 }
 

@@ -28,6 +28,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/changes", label: "Changes", icon: "changes", permission: "changes.view" },
   { href: "/deviations", label: "Deviations", icon: "changes", permission: "deviation.view" },
   { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
+  { href: "/instruments", label: "Instruments", icon: "evidence", permission: "instrument.view" },
   { href: "/cycles", label: "Wash cycles & lots", icon: "evidence", permission: "evidence.view" },
   {
     href: "/control-plans",

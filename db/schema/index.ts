@@ -20,3 +20,4 @@ export * from "./lab-report";
 export * from "./nonconformances";
 export * from "./change-types";
 export * from "./control-plans";
+export * from "./instruments";

@@ -28,6 +28,7 @@ import {
 import { V1_ENDPOINTS } from "@/lib/api/v1-routes";
 import { EVIDENCE_FILE_KINDS } from "@/db/enums";
 import { cycleBatchSchema, cyclePage, cyclesQuery, cyclesRecordedOut } from "@/lib/schemas/cycle";
+import { instrumentPage, instrumentsQuery } from "@/lib/schemas/instrument-api";
 import {
   bathRecordSchema,
   conductivitySampleSchema,
@@ -283,6 +284,16 @@ export const API_OPERATIONS: ApiOperation[] = [
     summary: "Wash cycles, newest first: by washer, lot or flag",
     query: cyclesQuery,
     response: cyclePage,
+    errors: [400, 401, 403],
+  },
+  {
+    method: "get",
+    path: "/instruments",
+    operationId: "listInstruments",
+    summary:
+      "The instrument register by asset number: kind, location, status and calibration standing (a test-ink set by its expiry date)",
+    query: instrumentsQuery,
+    response: instrumentPage,
     errors: [400, 401, 403],
   },
   {

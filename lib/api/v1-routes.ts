@@ -6,6 +6,7 @@ import * as apiV1ChangeRequestsChangerequestidRoute from "@/app/api/v1/change-re
 import * as apiV1ChangeRequestsRoute from "@/app/api/v1/change-requests/route";
 import * as apiV1CleaningSystemsRoute from "@/app/api/v1/cleaning-systems/route";
 import * as apiV1CyclesRoute from "@/app/api/v1/cycles/route";
+import * as apiV1InstrumentsRoute from "@/app/api/v1/instruments/route";
 import * as apiV1PartFamiliesRoute from "@/app/api/v1/part-families/route";
 import * as apiV1QualifiedCombinationsRoute from "@/app/api/v1/qualified-combinations/route";
 import * as apiV1RecipesRecipeidRoute from "@/app/api/v1/recipes/[recipeId]/route";
@@ -32,6 +33,7 @@ export const V1_ROUTE_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/v1/change-requests/route.ts": apiV1ChangeRequestsRoute,
   "app/api/v1/cleaning-systems/route.ts": apiV1CleaningSystemsRoute,
   "app/api/v1/cycles/route.ts": apiV1CyclesRoute,
+  "app/api/v1/instruments/route.ts": apiV1InstrumentsRoute,
   "app/api/v1/part-families/route.ts": apiV1PartFamiliesRoute,
   "app/api/v1/qualified-combinations/route.ts": apiV1QualifiedCombinationsRoute,
   "app/api/v1/recipes/[recipeId]/route.ts": apiV1RecipesRecipeidRoute,

@@ -31,6 +31,12 @@ import {
 } from "@/db/enums";
 import { RISK_LEVELS } from "@/lib/deviations/rules";
 import { CHARACTERISTICS, CONTROL_PLAN_STATUSES } from "@/lib/control-plans/characteristics";
+import {
+  CALIBRATION_PERFORMERS,
+  CALIBRATION_RESULTS,
+  INSTRUMENT_KINDS,
+  INSTRUMENT_STATUSES,
+} from "@/lib/instruments/kinds";
 
 // ── Building blocks of the payloads ──────────────────────────────────────
 // Payloads are strict: a key a schema does not name is refused rather than
@@ -124,6 +130,20 @@ const specDetails = obj({
   drynessCriteria: text.nullable(),
   extraRequirements: text.nullable(),
   customerApprovesChanges: z.boolean(),
+});
+
+/** An instrument's register entry as its created and updated events record it. */
+const instrumentDetails = obj({
+  assetNumber: text,
+  kind: z.enum(INSTRUMENT_KINDS),
+  description: text,
+  location: text,
+  range: text.nullable(),
+  resolution: text.nullable(),
+  status: z.enum(INSTRUMENT_STATUSES),
+  statusReason: text.nullable(),
+  calibrationIntervalMonths: count.nullable(),
+  expiresOn: isoDate.nullable(),
 });
 
 export const auditEventSchema = z.discriminatedUnion("eventType", [
@@ -893,6 +913,42 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
     new: obj({ runs: z.array(text), required: count, failedRun: text }),
   }),
   event("evidence_file.customer_letter_uploaded", "evidence_file", {
+    new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
+  }),
+  // Instruments and calibration
+  event("instrument.created", "instrument", { new: instrumentDetails }),
+  event("instrument.updated", "instrument", {
+    old: instrumentDetails.partial(),
+    new: instrumentDetails.partial(),
+  }),
+  event("instrument.retired", "instrument", {
+    old: obj({ status: z.enum(INSTRUMENT_STATUSES) }),
+    new: obj({ status: z.literal("retired") }),
+  }),
+  event("instrument.calibrated", "instrument", {
+    old: obj({ dueOn: isoDate.nullable() }),
+    new: obj({
+      calibrationId: id,
+      calibratedOn: isoDate,
+      dueOn: isoDate,
+      performer: z.enum(CALIBRATION_PERFORMERS),
+      performedBy: text,
+      certificateNumber: text.nullable(),
+      certificateSha256: sha256.nullable(),
+      result: z.enum(CALIBRATION_RESULTS),
+      note: text.nullable(),
+      nonconformance: text.nullable(),
+      suspectRuns: z.array(text),
+    }),
+  }),
+  event("instrument.overdue_notice_sent", "instrument", {
+    new: obj({ dueOn: isoDate, to: z.array(text) }),
+  }),
+  event("test_run.instruments_cited", "test_run", {
+    old: obj({ instruments: z.array(text) }),
+    new: obj({ instruments: z.array(text) }),
+  }),
+  event("evidence_file.certificate_uploaded", "evidence_file", {
     new: obj({ sha256, name: text, mimeType: text, sizeBytes: count, storedNew: z.boolean() }),
   }),
   event("change.customer_decision_recorded", "change_request", {

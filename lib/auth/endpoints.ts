@@ -10,6 +10,7 @@ import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDeviationsActions from "@/app/(app)/deviations/actions";
 import * as appControlPlansActions from "@/app/(app)/control-plans/actions";
 import * as appAdminShiftsActions from "@/app/(app)/admin/shifts/actions";
+import * as appInstrumentsActions from "@/app/(app)/instruments/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appCyclesActions from "@/app/(app)/cycles/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
@@ -25,6 +26,7 @@ import * as authSignInActions from "@/app/(auth)/sign-in/actions";
 import * as apiAuditEventsExportRoute from "@/app/api/audit-events/export/route";
 import * as apiAuditEventsRoute from "@/app/api/audit-events/route";
 import * as apiBathPhotosRoute from "@/app/api/bath/photos/route";
+import * as apiInstrumentsCertificatesRoute from "@/app/api/instruments/certificates/route";
 import * as apiAuditPackChangeidRoute from "@/app/api/audit-pack/[changeId]/route";
 import * as apiDocumentsDocumentidVersionsVersionPdfRoute from "@/app/api/documents/[documentId]/versions/[version]/pdf/route";
 import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/route";
@@ -65,6 +67,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/deviations/actions.ts": appDeviationsActions,
   "app/(app)/control-plans/actions.ts": appControlPlansActions,
   "app/(app)/admin/shifts/actions.ts": appAdminShiftsActions,
+  "app/(app)/instruments/actions.ts": appInstrumentsActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/cycles/actions.ts": appCyclesActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,
@@ -81,6 +84,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/audit-events/route.ts": apiAuditEventsRoute,
   "app/api/audit-pack/[changeId]/route.ts": apiAuditPackChangeidRoute,
   "app/api/bath/photos/route.ts": apiBathPhotosRoute,
+  "app/api/instruments/certificates/route.ts": apiInstrumentsCertificatesRoute,
   "app/api/documents/[documentId]/versions/[version]/pdf/route.ts":
     apiDocumentsDocumentidVersionsVersionPdfRoute,
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,

@@ -74,6 +74,9 @@ export const PERMISSIONS = {
   "control_plan.perform": ["technician"],
   // The site's shift times and zone, which per-shift and daily tests follow.
   "site.manage_clock": ["admin"],
+  // Instruments: the lab and quality keep the register and record calibrations; all may read it.
+  "instrument.view": ALL,
+  "instrument.manage": ["admin", "engineer", "technician"],
 } as const satisfies Record<string, readonly Role[]>;
 
 /** What the role table grants; "action" is kept for server actions. */

@@ -20,7 +20,7 @@ export interface HashableRun {
  * raw data and the hashes of its files. Status is left out, so the "performed"
  * signature stays valid when the run is verified; any change to data or files
  * changes the hash and shows the signature as no longer valid. The lab details (extraction,
- * filter, analysis, component data) are part of the content once recorded.
+ * filter, analysis, component data) and the instruments used are part of the content once recorded.
  */
 export function runContentHash(
   run: HashableRun,
@@ -33,6 +33,7 @@ export function runContentHash(
   }[],
   files: { sha256: string; originalName: string; kind: string; sampleLabel: string | null }[],
   labDetails: unknown = null,
+  instruments: readonly string[] = [],
 ) {
   const content: Record<string, unknown> = {
     number: run.number,
@@ -65,5 +66,7 @@ export function runContentHash(
   };
   // Only a run with lab details carries the key, so every signature given before they existed still binds.
   if (labDetails !== null) content.labDetails = labDetails;
+  // The instruments cited (asset numbers, sorted); only when some are, for the same reason.
+  if (instruments.length > 0) content.instruments = [...instruments].sort();
   return { content, hash: sha256Hex(canonicalJson(content)) };
 }

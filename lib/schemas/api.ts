@@ -24,7 +24,7 @@ import {
 
 /** The schemas the OpenAPI document lists under components, by name. */
 export const apiRegistry = z.registry<{ id: string }>();
-function named<T extends z.ZodType>(id: string, schema: T): T {
+export function named<T extends z.ZodType>(id: string, schema: T): T {
   apiRegistry.add(schema, { id });
   return schema;
 }
@@ -423,7 +423,7 @@ export const auditEventOut = named(
   }),
 );
 
-function pageOf<T extends z.ZodType>(id: string, item: T) {
+export function pageOf<T extends z.ZodType>(id: string, item: T) {
   return named(
     id,
     z.object({

@@ -1197,6 +1197,88 @@ const SAMPLES = {
     old: null,
     new: { timeZone: "Europe/Berlin", shiftStarts: ["06:00", "14:00", "22:00"] },
   },
+  // lib/server/instruments/create-instrument.ts
+  "instrument.created": {
+    eventType: "instrument.created",
+    recordType: "instrument",
+    recordId: UUID,
+    new: {
+      assetNumber: "BAL-01",
+      kind: "balance",
+      description: "Analytical balance, filter weighing",
+      location: "Cleanliness lab",
+      range: "0–220 g",
+      resolution: "0.01 mg",
+      status: "in_service",
+      statusReason: null,
+      calibrationIntervalMonths: 12,
+      expiresOn: null,
+    },
+  },
+  // lib/server/instruments/update-instrument.ts: only what changed
+  "instrument.updated": {
+    eventType: "instrument.updated",
+    recordType: "instrument",
+    recordId: UUID,
+    old: { location: "Cleanliness lab", status: "in_service", statusReason: null },
+    new: { location: "Goods-in lab", status: "out_of_service", statusReason: "Sent for repair" },
+  },
+  "instrument.retired": {
+    eventType: "instrument.retired",
+    recordType: "instrument",
+    recordId: UUID,
+    old: { status: "out_of_service" },
+    new: { status: "retired" },
+    reason: "Load cell failed; replaced by BAL-02.",
+  },
+  // lib/server/instruments/record-calibration.ts
+  "instrument.calibrated": {
+    eventType: "instrument.calibrated",
+    recordType: "instrument",
+    recordId: UUID,
+    old: { dueOn: "2026-11-30" },
+    new: {
+      calibrationId: UUID,
+      calibratedOn: "2026-12-02",
+      dueOn: "2027-12-02",
+      performer: "external",
+      performedBy: "Calibration lab",
+      certificateNumber: "C-2026-0412",
+      certificateSha256: H,
+      result: "out_of_tolerance",
+      note: null,
+      nonconformance: "NC-2026-004",
+      suspectRuns: ["TR-2026-0007"],
+    },
+  },
+  // lib/server/instruments/send-overdue-notices.ts
+  "instrument.overdue_notice_sent": {
+    eventType: "instrument.overdue_notice_sent",
+    recordType: "instrument",
+    recordId: UUID,
+    new: { dueOn: "2026-11-30", to: ["lab@example.test"] },
+  },
+  // lib/server/instruments/cite-instruments.ts
+  "test_run.instruments_cited": {
+    eventType: "test_run.instruments_cited",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { instruments: [] },
+    new: { instruments: ["BAL-01", "TH-03"] },
+  },
+  // lib/server/instruments/store-certificate.ts
+  "evidence_file.certificate_uploaded": {
+    eventType: "evidence_file.certificate_uploaded",
+    recordType: "evidence_file",
+    recordId: UUID,
+    new: {
+      sha256: H,
+      name: "BAL-01 certificate.pdf",
+      mimeType: "application/pdf",
+      sizeBytes: 20480,
+      storedNew: true,
+    },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

@@ -56,6 +56,8 @@ const EXPECTED: Record<Permission, Role[]> = {
   "control_plan.approve": ["approver"],
   "control_plan.perform": ["technician"],
   "site.manage_clock": ["admin"],
+  "instrument.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "instrument.manage": ["admin", "engineer", "technician"],
 };
 
 describe("role table", () => {

@@ -51,14 +51,14 @@ import { loadChangeState } from "@/lib/server/changes/state";
 import { changeEvidence, changeSignatures } from "@/lib/server/trace/evidence-of-change";
 
 /** Rows after the cursor in (key, id) order. */
-function after(key: AnyColumn, id: AnyColumn, cursor: string | undefined): SQL | undefined {
+export function after(key: AnyColumn, id: AnyColumn, cursor: string | undefined): SQL | undefined {
   if (!cursor) return undefined;
   const c = decodeCursor(cursor);
   if (!c) throw new BadCursorError();
   return or(gt(key, c.key), and(eq(key, c.key), gt(id, c.id)));
 }
 
-function page<T>(rows: T[], limit: number, cursorOf: (row: T) => [string, string]) {
+export function page<T>(rows: T[], limit: number, cursorOf: (row: T) => [string, string]) {
   const data = rows.slice(0, limit);
   const last = data.at(-1);
   return { data, nextCursor: rows.length > limit && last ? encodeCursor(...cursorOf(last)) : null };

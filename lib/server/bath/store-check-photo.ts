@@ -1,11 +1,5 @@
 import "server-only";
-import { getDb } from "@/db/client";
-import { evidenceFiles } from "@/db/schema";
-import { appendAudit } from "@/lib/audit";
-import { checkUpload, FileCheckError } from "@/lib/evidence/files";
-import { UserFacingError } from "@/lib/server/errors";
-import { sha256OfBytes, uploadLimitBytes } from "@/lib/server/evidence/store-file";
-import { getStore } from "@/lib/storage";
+import { storeLooseFile } from "@/lib/server/evidence/store-loose-file";
 
 /**
  * Stores the photo of a nozzle check or an ultrasonic foil test under its SHA-256, as an evidence
@@ -15,43 +9,11 @@ export async function storeCheckPhoto(
   actor: { id: string; name: string },
   input: { name: string; bytes: Uint8Array },
 ) {
-  let checked;
-  try {
-    checked = checkUpload({ name: input.name, bytes: input.bytes, maxBytes: uploadLimitBytes() });
-  } catch (error) {
-    if (error instanceof FileCheckError)
-      throw new UserFacingError(error.message, { kind: error.kind, field: "file" });
-    throw error;
-  }
-  if (!checked.mime.startsWith("image/"))
-    throw new UserFacingError("Choose a photo (JPEG or PNG).", { kind: "invalid", field: "file" });
-  const sha256 = sha256OfBytes(input.bytes);
-  const { created } = await getStore().put(sha256, input.bytes);
-  return getDb().transaction(async (tx) => {
-    const [file] = await tx
-      .insert(evidenceFiles)
-      .values({
-        runId: null,
-        sha256,
-        originalName: checked.name,
-        mimeType: checked.mime,
-        sizeBytes: input.bytes.byteLength,
-        kind: "photo",
-        uploadedBy: actor.id,
-      })
-      .returning();
-    await appendAudit(tx, actor, {
-      eventType: "evidence_file.check_photo_uploaded",
-      recordType: "evidence_file",
-      recordId: file.id,
-      new: {
-        sha256,
-        name: checked.name,
-        mimeType: checked.mime,
-        sizeBytes: input.bytes.byteLength,
-        storedNew: created,
-      },
-    });
-    return { id: file.id, name: checked.name, sha256 };
+  return storeLooseFile(actor, {
+    ...input,
+    kind: "photo",
+    eventType: "evidence_file.check_photo_uploaded",
+    refuse: (checked) =>
+      checked.mime.startsWith("image/") ? null : "Choose a photo (JPEG or PNG).",
   });
 }

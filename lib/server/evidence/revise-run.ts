@@ -12,6 +12,7 @@ import { appendAudit, type AuditActor } from "@/lib/audit";
 import { UserFacingError } from "@/lib/server/errors";
 import { refreshOutcome } from "./refresh-outcome";
 import { getRunRow } from "./run-content";
+import { copyCitedInstruments } from "@/lib/server/instruments/cited";
 
 /**
  * A correction of a performed or verified run: a new open revision carrying the
@@ -67,6 +68,7 @@ export async function reviseRun(
       await tx
         .insert(testRunLabDetails)
         .values({ ...lab, runId: next.id, details: carryPhotos(lab.details, fileIds) });
+    await copyCitedInstruments(tx, old.id, next.id);
     const links = await tx
       .select()
       .from(changeRequestEvidence)

@@ -4,6 +4,7 @@ import type { Executor } from "@/db/client";
 import { evidenceFiles, testSamples, testRuns, type TestRun } from "@/db/schema";
 import { runContentHash } from "@/lib/evidence/run-hash";
 import { getLabDetails } from "@/lib/server/lab-report/lab-details";
+import { citedAssetNumbers } from "@/lib/server/instruments/cited";
 
 /** The run's stored rows in a stable order, and the hash a signature binds to. */
 export async function runContent(db: Executor, run: TestRun) {
@@ -18,7 +19,8 @@ export async function runContent(db: Executor, run: TestRun) {
     .where(eq(evidenceFiles.runId, run.id))
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
   const labDetails = await getLabDetails(db, run.id);
-  const { content, hash } = runContentHash(run, samples, files, labDetails);
+  const instruments = await citedAssetNumbers(db, run.id);
+  const { content, hash } = runContentHash(run, samples, files, labDetails, instruments);
   return { content, hash, samples, files, labDetails };
 }
 

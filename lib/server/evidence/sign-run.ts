@@ -13,6 +13,7 @@ import { todayUtc } from "@/lib/format/date";
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { raiseNonconformance } from "@/lib/server/nonconformances/raise";
 import { openNcForSource } from "@/lib/server/nonconformances/shared";
+import { assertCitedInstrumentsCalibrated } from "@/lib/server/instruments/calibration-gate";
 
 /**
  * "Performed" by the run's technician moves an open run to performed; "verified"
@@ -49,6 +50,7 @@ export async function signRun(input: {
       );
     if (samples.length === 0)
       throw new UserFacingError("Record at least one sample before signing.");
+    if (input.meaning === "performed") await assertCitedInstrumentsCalibrated(tx, run.id);
     if (input.meaning === "verified") {
       const problem = dataEntryProblem(await dataEntrants(tx, run.id), signer.id);
       if (problem) throw new UserFacingError(problem);

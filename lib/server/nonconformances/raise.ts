@@ -36,6 +36,8 @@ export interface RaiseNonconformanceInput {
   actorId: string | null;
   /** For a report by hand: customer complaint, field return or audit finding. */
   manualKind?: (typeof NC_MANUAL_KINDS)[number] | null;
+  /** Containment the caller found itself (the runs that cited an instrument found out of tolerance). */
+  items?: ProcessedItem[];
 }
 
 /**
@@ -105,8 +107,9 @@ export async function raiseNonconformance(
     })
     .returning();
 
-  const affected =
-    recipe && family
+  const affected = input.items
+    ? input.items
+    : recipe && family
       ? await affectedRuns(tx, recipe.id, family.id, {
           until: now.toISOString(),
           failedAt:

@@ -10,6 +10,7 @@ import { deviationQueueProvider } from "@/lib/server/deviations/queue-provider";
 import { nonconformanceQueueProvider } from "@/lib/server/nonconformances/queue-provider";
 import { emergencyQueueProvider } from "@/lib/server/changes/emergency-queue-provider";
 import { controlPlanQueueProvider } from "@/lib/server/control-plans/queue-provider";
+import { instrumentQueueProvider } from "@/lib/server/instruments/queue-provider";
 import type { QueueItem, QueueProvider, QueueWindow } from "./types";
 
 /**
@@ -26,6 +27,7 @@ const PROVIDERS: QueueProvider[] = [
   nonconformanceQueueProvider,
   emergencyQueueProvider,
   controlPlanQueueProvider,
+  instrumentQueueProvider,
 ];
 
 export const QUEUE_PAGE_SIZE = 50;

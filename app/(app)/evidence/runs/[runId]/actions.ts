@@ -4,6 +4,8 @@ import { defineAction } from "@/lib/actions/define-action";
 import { runIdSchema } from "@/lib/schemas/evidence";
 import { labDetailsSchema } from "@/lib/schemas/lab-details";
 import { saveLabDetails } from "@/lib/server/lab-report/save-lab-details";
+import { citeInstrumentsSchema } from "@/lib/schemas/instrument";
+import { citeInstruments } from "@/lib/server/instruments/cite-instruments";
 
 export const saveLabDetailsAction = defineAction({
   permission: "evidence.record",
@@ -14,6 +16,20 @@ export const saveLabDetailsAction = defineAction({
       { runId: input.runId, details: parse(labDetailsSchema) },
     );
     return { message: "Extraction, analysis and component details saved." };
+  },
+  revalidate: (input) => [`/evidence/runs/${input.runId}`],
+});
+
+/** The instruments the run used; retired or out-of-service ones are refused by name. */
+export const citeInstrumentsAction = defineAction({
+  permission: "evidence.record",
+  input: citeInstrumentsSchema,
+  run: async ({ user, input }) => {
+    const { instruments } = await citeInstruments(user, input);
+    return {
+      message:
+        instruments.length === 0 ? "No instrument cited." : `Cited: ${instruments.join(", ")}.`,
+    };
   },
   revalidate: (input) => [`/evidence/runs/${input.runId}`],
 });

@@ -27,6 +27,7 @@ import { requirePageUser } from "@/lib/server/auth/current-user";
 import { deviationsCoveringRun } from "@/lib/server/deviations/queries";
 import { getRunDetail } from "@/lib/server/evidence/queries";
 import { RunNonconformances } from "@/components/nonconformances/run-nonconformances";
+import { RunInstruments } from "@/components/instruments/run-instruments";
 import {
   addSampleAction,
   detachFileAction,
@@ -202,6 +203,8 @@ export default async function RunPage({
               </>
             )}
           </section>
+
+          <RunInstruments runId={run.id} mayRecord={mayRecord} />
 
           <section aria-labelledby="files-title" className="space-y-3">
             <h2 id="files-title" className="text-base font-semibold">

@@ -1,29 +1,9 @@
-import { NextResponse } from "next/server";
-import { formatSize } from "@/lib/format/number";
-import { defineRoute, routeError } from "@/lib/server/api/handler";
-import { UserFacingError } from "@/lib/server/errors";
-import { uploadLimitBytes } from "@/lib/server/evidence/store-file";
+import { looseFileUpload } from "@/lib/server/evidence/loose-file-upload";
 import { storeSpecSource } from "@/lib/server/plant/store-spec-source";
 
 /** Uploads a specification's source document before the register form is saved; answers the file's id for the form. */
-export const POST = defineRoute({ permission: "parts.manage" }, async ({ request, user }) => {
-  const form = await request.formData().catch(() => null);
-  const file = form?.get("file");
-  if (!(file instanceof File))
-    return routeError(400, "Choose the specification's source document.");
-  const limit = uploadLimitBytes();
-  if (file.size > limit)
-    throw new UserFacingError(`The file is larger than the limit of ${formatSize(limit)}.`, {
-      kind: "too_large",
-      field: "file",
-    });
-  const stored = await storeSpecSource(
-    { id: user.id, name: user.name },
-    { name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) },
-  );
-  return NextResponse.json({
-    ok: true,
-    message: `${stored.name} stored (SHA-256 ${stored.sha256.slice(0, 12)}…).`,
-    file: stored,
-  });
+export const POST = looseFileUpload({
+  permission: "parts.manage",
+  missing: "Choose the specification's source document.",
+  store: storeSpecSource,
 });
