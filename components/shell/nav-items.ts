@@ -27,6 +27,8 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/deviations", label: "Deviations", icon: "changes", permission: "deviation.view" },
   { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
   { href: "/cycles", label: "Wash cycles & lots", icon: "evidence", permission: "evidence.view" },
+  { href: "/lab/methods", label: "Lab methods", icon: "evidence", permission: "lab.view" },
+  { href: "/lab/training", label: "Training", icon: "evidence", permission: "lab.view" },
   {
     href: "/nonconformances",
     label: "Nonconformances",

@@ -19,3 +19,4 @@ export * from "./cycles";
 export * from "./lab-report";
 export * from "./nonconformances";
 export * from "./change-types";
+export * from "./lab-methods";

@@ -8,6 +8,8 @@ import * as appAdminMatrixActions from "@/app/(app)/admin/matrix/actions";
 import * as appAdminChangeControlActions from "@/app/(app)/admin/change-control/actions";
 import * as appChangesActions from "@/app/(app)/changes/actions";
 import * as appDeviationsActions from "@/app/(app)/deviations/actions";
+import * as appLabMethodsActions from "@/app/(app)/lab/methods/actions";
+import * as appLabTrainingActions from "@/app/(app)/lab/training/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appCyclesActions from "@/app/(app)/cycles/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
@@ -61,6 +63,8 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/admin/change-control/actions.ts": appAdminChangeControlActions,
   "app/(app)/changes/actions.ts": appChangesActions,
   "app/(app)/deviations/actions.ts": appDeviationsActions,
+  "app/(app)/lab/methods/actions.ts": appLabMethodsActions,
+  "app/(app)/lab/training/actions.ts": appLabTrainingActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/cycles/actions.ts": appCyclesActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,

@@ -49,6 +49,11 @@ const EXPECTED: Record<Permission, Role[]> = {
   "nc.open": ["engineer", "technician"],
   "nc.work": ["engineer"],
   "nc.approve": ["approver"],
+  "lab.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "lab.method_draft": ["engineer"],
+  "lab.method_approve": ["approver"],
+  "training.sign_off": ["admin", "engineer", "approver", "technician"],
+  "training.acknowledge": ["admin", "engineer", "reviewer", "approver", "technician"],
 };
 
 describe("role table", () => {

@@ -4,6 +4,7 @@ import type { Executor } from "@/db/client";
 import { evidenceFiles, testSamples, testRuns, type TestRun } from "@/db/schema";
 import { runContentHash } from "@/lib/evidence/run-hash";
 import { getLabDetails } from "@/lib/server/lab-report/lab-details";
+import { getRunMethods } from "./run-methods";
 
 /** The run's stored rows in a stable order, and the hash a signature binds to. */
 export async function runContent(db: Executor, run: TestRun) {
@@ -18,8 +19,9 @@ export async function runContent(db: Executor, run: TestRun) {
     .where(eq(evidenceFiles.runId, run.id))
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
   const labDetails = await getLabDetails(db, run.id);
-  const { content, hash } = runContentHash(run, samples, files, labDetails);
-  return { content, hash, samples, files, labDetails };
+  const methods = await getRunMethods(db, run.id);
+  const { content, hash } = runContentHash(run, samples, files, labDetails, methods);
+  return { content, hash, samples, files, labDetails, methods };
 }
 
 export async function getRunRow(db: Executor, runId: string) {

@@ -9,6 +9,7 @@ import { changeQueueProvider } from "@/lib/server/changes/queue-provider";
 import { deviationQueueProvider } from "@/lib/server/deviations/queue-provider";
 import { nonconformanceQueueProvider } from "@/lib/server/nonconformances/queue-provider";
 import { emergencyQueueProvider } from "@/lib/server/changes/emergency-queue-provider";
+import { trainingQueueProvider } from "@/lib/server/training/queue-provider";
 import type { QueueItem, QueueProvider, QueueWindow } from "./types";
 
 /**
@@ -24,6 +25,7 @@ const PROVIDERS: QueueProvider[] = [
   deviationQueueProvider,
   nonconformanceQueueProvider,
   emergencyQueueProvider,
+  trainingQueueProvider,
 ];
 
 export const QUEUE_PAGE_SIZE = 50;
