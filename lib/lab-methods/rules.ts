@@ -29,8 +29,8 @@ export interface AnalysisFields {
  * Checks an analysis method's fields against each other [std, ISO 16232:2018 / VDA 19.1:2015
  * analysis methods]: a light microscope sees reflection, not composition, so "metallic" needs
  * element analysis (SEM/EDX); a magnification describes an optical system only above 0×; a
- * filter whose pores are as large as the lower size limit lets particles of that size through
- * [practice: the pore size is chosen below the smallest size analysed].
+ * filter whose pores are larger than the lower size limit lets particles of that size through
+ * [practice: the pore size is at most the smallest size analysed].
  */
 export function analysisMethodProblems(a: AnalysisFields, prefix = "details."): FieldProblem[] {
   const problems: FieldProblem[] = [];
@@ -50,10 +50,10 @@ export function analysisMethodProblems(a: AnalysisFields, prefix = "details."): 
       field: `${prefix}distinguishes`,
       message: "Tick at least one kind of particle the system tells apart.",
     });
-  if (a.poreSizeUm >= a.lowerSizeLimitUm)
+  if (a.poreSizeUm > a.lowerSizeLimitUm)
     problems.push({
       field: `${prefix}poreSizeUm`,
-      message: `The pore size must be smaller than the lower size limit (${a.lowerSizeLimitUm} µm), or particles of that size pass the filter.`,
+      message: `The pore size must not exceed the lower size limit (${a.lowerSizeLimitUm} µm), or particles of that size pass the filter.`,
     });
   return problems;
 }

@@ -42,9 +42,10 @@ describe("analysis method fields", () => {
     const problems = analysisMethodProblems({ ...lightMicroscope, magnification: 0 });
     expect(problems.map((p) => p.field)).toEqual(["details.magnification"]);
   });
-  it("refuses a pore size not below the lower size limit [practice]", () => {
-    const problems = analysisMethodProblems({ ...lightMicroscope, poreSizeUm: 15 });
+  it("refuses a pore size above the lower size limit, takes one equal to it [practice]", () => {
+    const problems = analysisMethodProblems({ ...lightMicroscope, poreSizeUm: 20 });
     expect(problems.map((p) => p.field)).toEqual(["details.poreSizeUm"]);
+    expect(analysisMethodProblems({ ...lightMicroscope, poreSizeUm: 15 })).toEqual([]);
   });
   it("reports through the form schema under the field's path", () => {
     const parsed = labMethodSchema.safeParse({

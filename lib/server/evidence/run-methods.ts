@@ -1,4 +1,4 @@
-import "server-only";
+// Not "server-only": a plain read, also used by the demo seed under tsx.
 import { asc, eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
 import { labMethods, testRunMethods } from "@/db/schema";
