@@ -36,16 +36,11 @@ export function SignOffForm(props: {
         options={props.methods}
       />
       <DateField name="trainedOn" label="Trained on" defaultValue={props.today} />
-      <p className="rounded-md bg-stone-50 p-3 text-sm text-stone-700">
-        {props.signerName}: “{meaningStatement("training_record", "verified")}”
-      </p>
-      <Field
-        name="password"
-        type="password"
-        label="Your password"
-        autoComplete="current-password"
+      <SignWithPassword
+        signerName={props.signerName}
+        statement={meaningStatement("training_record", "verified")}
+        button="Sign off training"
       />
-      <SubmitButton>Sign off training</SubmitButton>
     </ActionForm>
   );
 }
@@ -68,8 +63,21 @@ export function AcknowledgeForm(props: {
         placeholder="Choose…"
         options={props.procedures}
       />
+      <SignWithPassword
+        signerName={props.signerName}
+        statement={meaningStatement("training_record", "reviewed")}
+        button="Sign acknowledgement"
+      />
+    </ActionForm>
+  );
+}
+
+/** What the signer affirms, in their name, then their password: each signing asks for it. */
+function SignWithPassword(props: { signerName: string; statement: string; button: string }) {
+  return (
+    <>
       <p className="rounded-md bg-stone-50 p-3 text-sm text-stone-700">
-        {props.signerName}: “{meaningStatement("training_record", "reviewed")}”
+        {props.signerName}: “{props.statement}”
       </p>
       <Field
         name="password"
@@ -77,7 +85,7 @@ export function AcknowledgeForm(props: {
         label="Your password"
         autoComplete="current-password"
       />
-      <SubmitButton>Sign acknowledgement</SubmitButton>
-    </ActionForm>
+      <SubmitButton>{props.button}</SubmitButton>
+    </>
   );
 }

@@ -5,9 +5,8 @@ import { documents, documentVersions, trainingRecords } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { todayUtc } from "@/lib/format/date";
 import { addMonths, DEFAULT_INTERVAL_MONTHS, trainingState } from "@/lib/training/rules";
-import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { UserFacingError } from "@/lib/server/errors";
-import { trainingContentHash } from "./state";
+import { insertSignedTraining } from "./state";
 
 /**
  * A person signs that they have read and understood the effective version of a controlled
@@ -57,22 +56,7 @@ export async function acknowledgeProcedureIn(
     expiresOn: addMonths(today, DEFAULT_INTERVAL_MONTHS),
     trainerId: null,
   };
-  const contentHash = trainingContentHash(values);
-  const [row] = await tx
-    .insert(trainingRecords)
-    .values({ ...values, createdAt: now.toISOString() })
-    .returning({ id: trainingRecords.id });
-  await applySignature(
-    tx,
-    {
-      signer: person,
-      recordType: "training_record",
-      recordId: row.id,
-      meaning: "reviewed",
-      contentHash,
-    },
-    now,
-  );
+  const { row, contentHash } = await insertSignedTraining(tx, values, person, "reviewed", now);
   const procedure = `${found.document.number} v${found.version.version}`;
   await appendAudit(
     tx,

@@ -1,14 +1,13 @@
 // Not "server-only": the demo seed signs off its technician's training under tsx.
 import { and, eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
-import { labMethods, trainingRecords, userRoles, users } from "@/db/schema";
+import { labMethods, userRoles, users } from "@/db/schema";
 import { appendAudit } from "@/lib/audit";
 import { todayUtc } from "@/lib/format/date";
 import { addMonths, trainingState } from "@/lib/training/rules";
-import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { UserFacingError } from "@/lib/server/errors";
 import { methodLabel } from "@/lib/server/lab-methods/state";
-import { methodTrainingOf, trainingContentHash } from "./state";
+import { insertSignedTraining, methodTrainingOf } from "./state";
 
 /**
  * A trainer signs off a person's practical training on a lab method (its approved version). The
@@ -73,22 +72,7 @@ export async function signOffTrainingIn(
     expiresOn: addMonths(input.trainedOn, method.trainingIntervalMonths),
     trainerId: trainer.id,
   };
-  const contentHash = trainingContentHash(values);
-  const [row] = await tx
-    .insert(trainingRecords)
-    .values({ ...values, createdAt: now.toISOString() })
-    .returning({ id: trainingRecords.id });
-  await applySignature(
-    tx,
-    {
-      signer: trainer,
-      recordType: "training_record",
-      recordId: row.id,
-      meaning: "verified",
-      contentHash,
-    },
-    now,
-  );
+  const { row, contentHash } = await insertSignedTraining(tx, values, trainer, "verified", now);
   await appendAudit(
     tx,
     trainer,

@@ -1,9 +1,10 @@
 // Not "server-only": the demo seed records training under tsx.
 import { and, desc, eq, inArray } from "drizzle-orm";
-import type { Executor } from "@/db/client";
+import type { Executor, Tx } from "@/db/client";
 import { labMethods, testRunMethods, trainingRecords, type TrainingRecord } from "@/db/schema";
 import { canonicalJson, sha256Hex } from "@/lib/audit";
 import { trainingGateProblems } from "@/lib/training/rules";
+import { applySignature } from "@/lib/server/signatures/apply-signature";
 
 /** What the signature on a training record binds to. */
 export function trainingContentHash(
@@ -76,4 +77,27 @@ export async function trainingProblemsForRun(
     ),
     today,
   );
+}
+
+type TrainingValues = Parameters<typeof trainingContentHash>[0];
+
+/** Writes a training record and the signature bound to its content, in the caller's transaction. */
+export async function insertSignedTraining(
+  tx: Tx,
+  values: TrainingValues,
+  signer: { id: string; name: string },
+  meaning: "verified" | "reviewed",
+  now: Date,
+) {
+  const contentHash = trainingContentHash(values);
+  const [row] = await tx
+    .insert(trainingRecords)
+    .values({ ...values, createdAt: now.toISOString() })
+    .returning({ id: trainingRecords.id });
+  await applySignature(
+    tx,
+    { signer, recordType: "training_record", recordId: row.id, meaning, contentHash },
+    now,
+  );
+  return { row, contentHash };
 }
