@@ -34,7 +34,7 @@ export default async function TrainingPage() {
           {columns.map((c) => (
             <Th key={c.key}>
               <span className="block">{c.label}</span>
-              <span className="block text-xs font-normal text-stone-600">
+              <span className="block text-xs font-normal normal-case text-stone-600">
                 {c.kind === "method" ? "Lab method" : "Procedure"}: {c.title}
               </span>
             </Th>
