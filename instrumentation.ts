@@ -46,6 +46,14 @@ export async function register() {
       .catch((error) => console.error("nonconformance reminders failed", error));
   setTimeout(remindNonconformances, 5_000).unref();
   setInterval(remindNonconformances, 3_600_000).unref();
+  // Retraining reminders: once per person, subject and expiry date, a month ahead.
+  const { sendTrainingReminders } = await import("@/lib/server/training/send-training-reminders");
+  const remindTraining = () =>
+    sendTrainingReminders()
+      .then(({ sent }) => (sent > 0 ? deliverDueEmails() : undefined))
+      .catch((error) => console.error("training reminders failed", error));
+  setTimeout(remindTraining, 5_000).unref();
+  setInterval(remindTraining, 3_600_000).unref();
   // Emergency changes past their approval date are escalated once; decided effectiveness checks recorded.
   const { escalateOverdueEmergencyApprovals } =
     await import("@/lib/server/changes/escalate-emergency-approvals");

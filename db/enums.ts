@@ -127,6 +127,8 @@ export const SIGNED_RECORD_TYPES = [
   "deviation",
   "nonconformance",
   "control_plan_version",
+  "lab_method",
+  "training_record",
 ] as const;
 
 export const EVIDENCE_FILE_KINDS = [
@@ -226,3 +228,15 @@ export const NC_CAUSE_METHODS = ["five_whys", "cause_and_effect", "other"] as co
 export const NC_ACTION_KINDS = ["corrective", "preventive"] as const;
 export const NC_ACTION_STATUSES = ["open", "in_progress", "done"] as const;
 export const NC_EFFECTIVENESS_RESULTS = ["confirmed", "not_effective"] as const;
+
+// ── Lab methods and training ─────────────────────────────────────────────
+
+/** The three kinds of lab method a run cites: how parts were extracted, how the filter was analysed, how residue was weighed. */
+export const LAB_METHOD_KINDS = ["extraction", "analysis", "gravimetric"] as const;
+export type LabMethodKind = (typeof LAB_METHOD_KINDS)[number];
+/** A method version is drafted, approved (citable), then superseded by the next approved version. */
+export const LAB_METHOD_STATUSES = ["draft", "approved", "superseded"] as const;
+export type LabMethodStatus = (typeof LAB_METHOD_STATUSES)[number];
+/** A practical sign-off on a lab method, or a read-and-understood acknowledgement of a procedure version. */
+export const TRAINING_KINDS = ["method", "procedure"] as const;
+export type TrainingKind = (typeof TRAINING_KINDS)[number];

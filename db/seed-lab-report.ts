@@ -10,7 +10,9 @@ import {
   recipes,
   recipeVersions,
   signatures,
+  labMethods,
   testRunLabDetails,
+  testRunMethods,
   testRuns,
   testSamples,
   users,
@@ -67,7 +69,10 @@ function sample(i: 0 | 1 | 2) {
   };
 }
 
-export async function seedLabReport(tx: Tx) {
+export async function seedLabReport(
+  tx: Tx,
+  methods: { extraction: string; analysis: string } | null = null,
+) {
   const person = async (email: string) =>
     (
       await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, email))
@@ -169,6 +174,26 @@ export async function seedLabReport(tx: Tx) {
     updatedBy: technician.id,
     updatedAt: `${AT}T14:00:00.000Z`,
   });
+  // The approved method versions the lab used, cited with the lab details.
+  const cited = methods
+    ? await tx
+        .insert(testRunMethods)
+        .values([
+          { runId: run.id, kind: "extraction" as const, methodId: methods.extraction },
+          { runId: run.id, kind: "analysis" as const, methodId: methods.analysis },
+        ])
+        .returning()
+    : [];
+  const citedVersions = await Promise.all(
+    cited.map(async (c) => {
+      const [m] = await tx.select().from(labMethods).where(eq(labMethods.id, c.methodId));
+      return { kind: c.kind, methodId: m.id, code: m.code, version: m.version };
+    }),
+  );
+  const citedLabel = (kind: string) => {
+    const m = citedVersions.find((c) => c.kind === kind);
+    return m ? `${m.code} v${m.version}` : null;
+  };
   // Each event on the lab day, by who did it: the run opened in the morning, the lab details
   // entered in the afternoon, then the two signatures.
   await appendAudit(
@@ -202,11 +227,30 @@ export async function seedLabReport(tx: Tx) {
     },
     new Date(`${AT}T14:00:00.000Z`),
   );
+  if (citedVersions.length)
+    await appendAudit(
+      tx,
+      technician,
+      {
+        eventType: "test_run.methods_cited",
+        recordType: "test_run",
+        recordId: run.id,
+        old: { extraction: null, analysis: null, gravimetric: null },
+        new: {
+          extraction: citedLabel("extraction"),
+          analysis: citedLabel("analysis"),
+          gravimetric: null,
+        },
+      },
+      new Date(`${AT}T14:00:00.000Z`),
+    );
   const { hash } = runContentHash(
     run,
     [...rows].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id.localeCompare(b.id)),
     [],
     details,
+    [],
+    citedVersions,
   );
   for (const [signer, meaning, time] of [
     [technician, "performed", "15:30"],

@@ -22,6 +22,7 @@ import { seedDeviations } from "./seed-deviations";
 import { seedInstruments } from "./seed-instruments";
 import { seedCycles } from "./seed-cycles";
 import { seedLabReport } from "./seed-lab-report";
+import { citeOnOpenRuns, seedLabMethods } from "./seed-lab-methods";
 import { seedNonconformances } from "./seed-nonconformances";
 import { seedChangeTypes } from "./seed-change-types";
 import { seedControlPlans } from "./seed-control-plans";
@@ -315,7 +316,9 @@ export async function seedDemo(db: Database): Promise<{ seeded: boolean }> {
     await seedChangeControl(tx, { userIds, recipeIds, familyIds });
     await seedDeviations(tx, { userIds, recipeIds, familyIds });
     await seedCycles(tx);
-    await seedLabReport(tx);
+    const methods = await seedLabMethods(tx);
+    await seedLabReport(tx, methods);
+    if (methods) await citeOnOpenRuns(tx, methods);
     if (["engineer", "approver"].every((r) => userIds.has(`${r}@fennmoor.example`)))
       await seedNonconformances(tx, {
         engineer: person("engineer@fennmoor.example"),

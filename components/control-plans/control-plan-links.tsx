@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 
 /** The control plans of a recipe version or a part family, linked from its page. */
 export function ControlPlanLinks({
@@ -19,9 +19,9 @@ export function ControlPlanLinks({
         <ul className="list-disc pl-5 text-sm">
           {plans.map((p) => (
             <li key={p.id}>
-              <Link href={`/control-plans/${p.id}`} className="text-brand-800 underline">
+              <IntentLink href={`/control-plans/${p.id}`} className="text-brand-800 underline">
                 Control plan {p.name}
-              </Link>
+              </IntentLink>
             </li>
           ))}
         </ul>

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { formatDate, todayUtc } from "@/lib/format/date";
 import {
   dueState,
@@ -39,9 +39,12 @@ export async function RunInstruments({ runId, mayRecord }: { runId: string; mayR
         <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white text-sm">
           {cited.map((i) => (
             <li key={i.id} className="px-3 py-2">
-              <Link href={`/instruments/${i.id}`} className="font-medium text-brand-800 underline">
+              <IntentLink
+                href={`/instruments/${i.id}`}
+                className="font-medium text-brand-800 underline"
+              >
                 {i.assetNumber}
-              </Link>{" "}
+              </IntentLink>{" "}
               · {INSTRUMENT_KIND_LABELS[i.kind]} · {i.description}
               <span className="block text-xs text-stone-700">
                 {INSTRUMENT_STATUS_LABELS[i.status]}; calibration {standing(i, today)}

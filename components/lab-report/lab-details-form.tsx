@@ -1,5 +1,6 @@
 "use client";
 
+import type { MethodPrefill } from "@/lib/lab-methods/prefill";
 import { ActionForm } from "@/components/ui/action-form";
 import { Field, NumberField, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
@@ -34,10 +35,13 @@ export function LabDetailsForm({
   fallback,
   files,
   sampleLabels,
+  fromMethods,
 }: {
   action: Action;
   runId: string;
   details: LabDetails | null;
+  /** The cited methods' values, offered until the run records its own details. */
+  fromMethods?: MethodPrefill;
   /** The part family's own values, offered until the run records its own. */
   fallback: {
     drawingRevision: string | null;
@@ -49,6 +53,9 @@ export function LabDetailsForm({
   sampleLabels: string[];
 }) {
   const d = details;
+  const ex = d?.extraction ?? fromMethods?.extraction;
+  const fi = d?.filter ?? fromMethods?.filter;
+  const an = d?.analysis ?? fromMethods?.analysis;
   return (
     <ActionForm
       action={action}
@@ -90,50 +97,50 @@ export function LabDetailsForm({
             label="Extraction procedure"
             placeholder="Choose…"
             options={options(EXTRACTION_PROCEDURES, EXTRACTION_PROCEDURE_LABELS)}
-            defaultValue={d?.extraction.procedure ?? ""}
+            defaultValue={ex?.procedure ?? ""}
           />
           <Field
             name="extraction.liquid"
             label="Extraction liquid"
             placeholder="e.g. filtered cold cleaner, neutral aqueous solution"
-            defaultValue={d?.extraction.liquid ?? ""}
+            defaultValue={ex?.liquid ?? ""}
           />
           <NumberField
             name="extraction.volumeMl"
             label="Liquid volume"
             unit="mL"
-            defaultValue={str(d?.extraction.volumeMl)}
+            defaultValue={str(ex?.volumeMl)}
           />
           <NumberField
             name="extraction.pressureBar"
             label="Pressure"
             unit="bar"
             hint="Needed for pressure and internal rinsing."
-            defaultValue={str(d?.extraction.pressureBar)}
+            defaultValue={str(ex?.pressureBar)}
           />
           <NumberField
             name="extraction.flowLPerMin"
             label="Flow (optional)"
             unit="L/min"
-            defaultValue={str(d?.extraction.flowLPerMin)}
+            defaultValue={str(ex?.flowLPerMin)}
           />
           <NumberField
             name="extraction.durationS"
             label="Extraction time"
             unit="s"
-            defaultValue={str(d?.extraction.durationS)}
+            defaultValue={str(ex?.durationS)}
           />
           <Field
             name="extraction.controlledSurface"
             label="Controlled surface"
             placeholder="e.g. all wetted internal surfaces, sealing faces excluded"
-            defaultValue={d?.extraction.controlledSurface ?? ""}
+            defaultValue={ex?.controlledSurface ?? ""}
           />
           <NumberField
             name="extraction.extractions"
             label="Number of extractions"
             integer
-            defaultValue={str(d?.extraction.extractions)}
+            defaultValue={str(ex?.extractions)}
           />
         </div>
       </fieldset>
@@ -145,33 +152,33 @@ export function LabDetailsForm({
             name="filter.material"
             label="Filter membrane material"
             placeholder="e.g. PET mesh, cellulose nitrate"
-            defaultValue={d?.filter.material ?? ""}
+            defaultValue={fi?.material ?? ""}
           />
           <NumberField
             name="filter.poreSizeUm"
             label="Pore size"
             unit="µm"
-            defaultValue={str(d?.filter.poreSizeUm)}
+            defaultValue={str(fi?.poreSizeUm)}
           />
           <SelectField
             name="analysis.system"
             label="Analysis system"
             placeholder="Choose…"
             options={options(ANALYSIS_SYSTEMS, ANALYSIS_SYSTEM_LABELS)}
-            defaultValue={d?.analysis.system ?? ""}
+            defaultValue={an?.system ?? ""}
           />
           <NumberField
             name="analysis.magnification"
             label="Magnification"
             unit="×"
-            defaultValue={str(d?.analysis.magnification)}
+            defaultValue={str(an?.magnification)}
           />
           <NumberField
             name="analysis.lowerSizeLimitUm"
             label="Lower size limit"
             unit="µm"
             hint="Size classes below it are reported as not analysed."
-            defaultValue={str(d?.analysis.lowerSizeLimitUm)}
+            defaultValue={str(an?.lowerSizeLimitUm)}
           />
         </div>
       </fieldset>

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { Table, TBody, Td, Th, THead, EmptyRow } from "@/components/ui/table";
 import { formatDate } from "@/lib/format/date";
 import {
@@ -47,9 +47,12 @@ export function OverdueTable({
               </Td>
               <Td>{formatDate(i.dueAt)}</Td>
               <Td>
-                <Link href={i.href} className="text-brand-800 underline-offset-2 hover:underline">
+                <IntentLink
+                  href={i.href}
+                  className="text-brand-800 underline-offset-2 hover:underline"
+                >
                   {i.characteristic}
-                </Link>
+                </IntentLink>
               </Td>
               <Td>{i.subject}</Td>
               <Td>{OVERDUE_SOURCE_LABELS[i.source]}</Td>

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import type { PlantOverview } from "@/lib/server/overview/load-overview";
 
 interface Tile {
@@ -58,7 +58,7 @@ export function SummaryTiles({ summary }: { summary: PlantOverview["summary"] })
       <ul className="grid grid-cols-2 gap-3 md:grid-cols-3 xl:grid-cols-5">
         {tiles.map((t) => (
           <li key={t.label}>
-            <Link
+            <IntentLink
               href={t.href}
               className={`block h-full rounded-lg border bg-white px-4 py-3 hover:bg-stone-50 ${
                 t.urgent ? "border-2 border-red-700" : "border-stone-200"
@@ -74,7 +74,7 @@ export function SummaryTiles({ summary }: { summary: PlantOverview["summary"] })
                 {t.urgent ? "Needs action: " : ""}
                 {t.note}
               </span>
-            </Link>
+            </IntentLink>
           </li>
         ))}
       </ul>

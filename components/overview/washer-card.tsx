@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { OutcomeWord } from "@/components/evidence/status-word";
 import { Table, TBody, Td, Th, THead, EmptyRow } from "@/components/ui/table";
 import { LIMIT_STATE_LABELS } from "@/lib/bath/limits";
@@ -38,9 +38,9 @@ function FamilyBlock({ family }: { family: OverviewFamilyRow }) {
     >
       <div className="flex flex-wrap items-baseline justify-between gap-x-3 gap-y-1">
         <h4 className="text-sm font-semibold text-stone-900">
-          <Link href={`/parts/families/${family.familyId}`} className={link}>
+          <IntentLink href={`/parts/families/${family.familyId}`} className={link}>
             {family.familyCode}
-          </Link>{" "}
+          </IntentLink>{" "}
           <span className="font-normal text-stone-700">{family.familyName}</span>
         </h4>
         <span className="text-xs text-stone-600">Specification {family.specCode}</span>
@@ -48,9 +48,9 @@ function FamilyBlock({ family }: { family: OverviewFamilyRow }) {
       <ul className="mt-1 space-y-0.5 text-xs text-stone-700">
         {family.combinations.map((c) => (
           <li key={c.recipeId}>
-            <Link href={`/systems/recipes/${c.recipeId}`} className={link}>
+            <IntentLink href={`/systems/recipes/${c.recipeId}`} className={link}>
               {c.recipeCode} v{c.version}
-            </Link>
+            </IntentLink>
             : requalification {REQUAL_WORDS[c.requalificationState]}, due{" "}
             {formatDate(c.requalificationDue)}
           </li>
@@ -77,9 +77,12 @@ function FamilyBlock({ family }: { family: OverviewFamilyRow }) {
               <tr key={r.runId}>
                 <Td>{TEST_TYPE_LABELS[r.testType]}</Td>
                 <Td>
-                  <Link href={`/evidence/runs/${r.runId}`} className={`${link} whitespace-nowrap`}>
+                  <IntentLink
+                    href={`/evidence/runs/${r.runId}`}
+                    className={`${link} whitespace-nowrap`}
+                  >
                     {r.run}
-                  </Link>
+                  </IntentLink>
                 </Td>
                 <Td className="whitespace-nowrap">{formatDate(r.at)}</Td>
                 <Td>
@@ -138,16 +141,16 @@ function OpenRecords({ open }: { open: OverviewWasher["open"] }) {
         .map((k) => (
           <div key={k}>
             <h5 className="text-xs font-semibold tracking-wide text-stone-600 uppercase">
-              <Link href={OPEN_KIND[k].href} className={link}>
+              <IntentLink href={OPEN_KIND[k].href} className={link}>
                 {OPEN_KIND[k].label}: {open.counts[k]} open
-              </Link>
+              </IntentLink>
             </h5>
             <ul className="mt-0.5 space-y-0.5 text-sm">
               {byKind(k).map((i) => (
                 <li key={i.id}>
-                  <Link href={i.href} className={link}>
+                  <IntentLink href={i.href} className={link}>
                     {i.number}
-                  </Link>{" "}
+                  </IntentLink>{" "}
                   {i.title} · <span className="text-stone-700">{i.status}</span>
                   {i.emergency && (
                     <span className="ml-1 font-medium text-red-800">
@@ -159,9 +162,9 @@ function OpenRecords({ open }: { open: OverviewWasher["open"] }) {
               {open.counts[k] > byKind(k).length && (
                 <li className="text-stone-600">
                   and {open.counts[k] - byKind(k).length} more in{" "}
-                  <Link href={OPEN_KIND[k].href} className={link}>
+                  <IntentLink href={OPEN_KIND[k].href} className={link}>
                     the list
-                  </Link>
+                  </IntentLink>
                 </li>
               )}
             </ul>
@@ -181,9 +184,9 @@ export function WasherCard({ washer }: { washer: OverviewWasher }) {
     >
       <header className="flex flex-wrap items-center justify-between gap-2">
         <h3 id={`washer-${washer.id}`} className="text-base font-semibold text-stone-900">
-          <Link href={`/systems/${washer.id}`} className={link}>
+          <IntentLink href={`/systems/${washer.id}`} className={link}>
             {washer.code}
-          </Link>{" "}
+          </IntentLink>{" "}
           <span className="font-normal text-stone-700">{washer.name}</span>
         </h3>
         <OverviewStateWord state={washer.state.state} />
@@ -223,9 +226,9 @@ export function WasherCard({ washer }: { washer: OverviewWasher }) {
               {washer.tanks.map((t) => (
                 <tr key={t.stageId}>
                   <Td>
-                    <Link href={`/evidence/bath/${t.stageId}`} className={link}>
+                    <IntentLink href={`/evidence/bath/${t.stageId}`} className={link}>
                       {t.name}
-                    </Link>
+                    </IntentLink>
                   </Td>
                   <Td>
                     {t.state ? (
@@ -260,9 +263,9 @@ export function WasherCard({ washer }: { washer: OverviewWasher }) {
               {washer.checks.map((m) => (
                 <tr key={m.intervalId}>
                   <Td>
-                    <Link href={`/evidence/bath/${m.stageId}`} className={link}>
+                    <IntentLink href={`/evidence/bath/${m.stageId}`} className={link}>
                       {MAINTENANCE_LABELS[m.kind]}
-                    </Link>
+                    </IntentLink>
                     <span className="block text-xs text-stone-600">{m.tank}</span>
                   </Td>
                   <Td>

@@ -30,6 +30,8 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/evidence", label: "Evidence", icon: "evidence", permission: "evidence.view" },
   { href: "/instruments", label: "Instruments", icon: "evidence", permission: "instrument.view" },
   { href: "/cycles", label: "Wash cycles & lots", icon: "evidence", permission: "evidence.view" },
+  { href: "/lab/methods", label: "Lab methods", icon: "evidence", permission: "lab.view" },
+  { href: "/lab/training", label: "Training", icon: "evidence", permission: "lab.view" },
   {
     href: "/control-plans",
     label: "Control plans",

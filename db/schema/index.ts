@@ -21,3 +21,4 @@ export * from "./nonconformances";
 export * from "./change-types";
 export * from "./control-plans";
 export * from "./instruments";
+export * from "./lab-methods";

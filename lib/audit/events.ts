@@ -28,6 +28,7 @@ import {
   NC_SEVERITIES,
   NC_SOURCE_KINDS,
   NC_STATUSES,
+  LAB_METHOD_KINDS,
 } from "@/db/enums";
 import { RISK_LEVELS } from "@/lib/deviations/rules";
 import { CHARACTERISTICS, CONTROL_PLAN_STATUSES } from "@/lib/control-plans/characteristics";
@@ -998,6 +999,60 @@ export const auditEventSchema = z.discriminatedUnion("eventType", [
       .nullable()
       .default(null),
     new: obj({ timeZone: text, shiftStarts: z.array(text) }),
+  }),
+  // Lab methods (versioned, approved) and training
+  event("lab_method.drafted", "lab_method", {
+    new: obj({
+      code: text,
+      version,
+      kind: z.enum(LAB_METHOD_KINDS),
+      name: text,
+      details: jsonObject,
+      qualificationRun: text.nullable(),
+      trainingIntervalMonths: count,
+    }),
+  }),
+  event("lab_method.approved", "lab_method", {
+    old: obj({ status: z.literal("draft") }),
+    new: obj({ status: z.literal("approved"), contentHash: sha256, supersedes: text.nullable() }),
+  }),
+  event("lab_method.superseded", "lab_method", {
+    old: obj({ status: z.literal("approved") }),
+    new: obj({ status: z.literal("superseded"), by: text }),
+  }),
+  event("test_run.methods_cited", "test_run", {
+    old: obj({
+      extraction: text.nullable(),
+      analysis: text.nullable(),
+      gravimetric: text.nullable(),
+    }),
+    new: obj({
+      extraction: text.nullable(),
+      analysis: text.nullable(),
+      gravimetric: text.nullable(),
+    }),
+  }),
+  event("training.signed_off", "training_record", {
+    new: obj({
+      person: text,
+      method: text,
+      trainedOn: isoDate,
+      expiresOn: isoDate,
+      trainer: text,
+      contentHash: sha256,
+    }),
+  }),
+  event("training.procedure_acknowledged", "training_record", {
+    new: obj({
+      person: text,
+      procedure: text,
+      trainedOn: isoDate,
+      expiresOn: isoDate,
+      contentHash: sha256,
+    }),
+  }),
+  event("training.reminder_sent", "training_record", {
+    new: obj({ subject: text, expiresOn: isoDate, to: z.array(text) }),
   }),
 ]);
 

@@ -11,6 +11,8 @@ import * as appDeviationsActions from "@/app/(app)/deviations/actions";
 import * as appControlPlansActions from "@/app/(app)/control-plans/actions";
 import * as appAdminShiftsActions from "@/app/(app)/admin/shifts/actions";
 import * as appInstrumentsActions from "@/app/(app)/instruments/actions";
+import * as appLabMethodsActions from "@/app/(app)/lab/methods/actions";
+import * as appLabTrainingActions from "@/app/(app)/lab/training/actions";
 import * as appDocumentsActions from "@/app/(app)/documents/actions";
 import * as appCyclesActions from "@/app/(app)/cycles/actions";
 import * as appEvidenceActions from "@/app/(app)/evidence/actions";
@@ -68,6 +70,8 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/(app)/control-plans/actions.ts": appControlPlansActions,
   "app/(app)/admin/shifts/actions.ts": appAdminShiftsActions,
   "app/(app)/instruments/actions.ts": appInstrumentsActions,
+  "app/(app)/lab/methods/actions.ts": appLabMethodsActions,
+  "app/(app)/lab/training/actions.ts": appLabTrainingActions,
   "app/(app)/documents/actions.ts": appDocumentsActions,
   "app/(app)/cycles/actions.ts": appCyclesActions,
   "app/(app)/evidence/actions.ts": appEvidenceActions,

@@ -77,6 +77,14 @@ export const PERMISSIONS = {
   // Instruments: the lab and quality keep the register and record calibrations; all may read it.
   "instrument.view": ALL,
   "instrument.manage": ["admin", "engineer", "technician"],
+  // Lab methods and training: engineers draft methods, approvers approve them; a trainer (someone
+  // trained on the method, an approver or an administrator — checked in the service) signs off a
+  // practical training; each person acknowledges a procedure for themselves.
+  "lab.view": ALL,
+  "lab.method_draft": ["engineer"],
+  "lab.method_approve": ["approver"],
+  "training.sign_off": ["admin", "engineer", "approver", "technician"],
+  "training.acknowledge": ACTORS,
 } as const satisfies Record<string, readonly Role[]>;
 
 /** What the role table grants; "action" is kept for server actions. */

@@ -1,5 +1,13 @@
 import { canonicalJson, sha256Hex } from "@/lib/audit";
 
+/** A lab method version a run cites, as its hash covers it. */
+export interface CitedMethodVersion {
+  kind: string;
+  methodId: string;
+  code: string;
+  version: number;
+}
+
 export interface HashableRun {
   number: string;
   revision: number;
@@ -34,6 +42,7 @@ export function runContentHash(
   files: { sha256: string; originalName: string; kind: string; sampleLabel: string | null }[],
   labDetails: unknown = null,
   instruments: readonly string[] = [],
+  methods: readonly CitedMethodVersion[] = [],
 ) {
   const content: Record<string, unknown> = {
     number: run.number,
@@ -68,5 +77,10 @@ export function runContentHash(
   if (labDetails !== null) content.labDetails = labDetails;
   // The instruments cited (asset numbers, sorted); only when some are, for the same reason.
   if (instruments.length > 0) content.instruments = [...instruments].sort();
+  // Likewise the method versions cited: only a run that cites one carries the key.
+  if (methods.length > 0)
+    content.methods = [...methods]
+      .sort((a, b) => a.kind.localeCompare(b.kind))
+      .map((m) => ({ kind: m.kind, methodId: m.methodId, code: m.code, version: m.version }));
   return { content, hash: sha256Hex(canonicalJson(content)) };
 }

@@ -117,6 +117,8 @@ function TestReportPdf({ report: r, printedAt, printedBy }: TestReportPdfInput) 
   const owner = letterheadLine(r.letterhead);
   const title = `${r.run.number}${r.run.revision > 1 ? ` rev. ${r.run.revision}` : ""}`;
   const lab = r.lab;
+  const method = (kind: "extraction" | "analysis" | "gravimetric") =>
+    r.methods?.find((m) => m.kind === kind)?.label ?? null;
   const p = r.particles;
   const marking = r.controlled ? "CONTROLLED COPY" : "UNCONTROLLED COPY";
   const gravimetric = r.run.testType === "gravimetric";
@@ -201,6 +203,7 @@ function TestReportPdf({ report: r, printedAt, printedBy }: TestReportPdfInput) 
         )}
 
         <H>3. Extraction</H>
+        {method("extraction") && <KV k="Extraction method">{method("extraction")}</KV>}
         {lab ? (
           <>
             <KV k="Procedure">{EXTRACTION_PROCEDURE_LABELS[lab.extraction.procedure]}</KV>
@@ -234,6 +237,8 @@ function TestReportPdf({ report: r, printedAt, printedBy }: TestReportPdfInput) 
         )}
 
         <H>4. Filter and analysis</H>
+        {method("analysis") && <KV k="Analysis method">{method("analysis")}</KV>}
+        {method("gravimetric") && <KV k="Gravimetric method">{method("gravimetric")}</KV>}
         {lab ? (
           <>
             <KV k="Filter membrane">

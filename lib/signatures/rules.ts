@@ -151,6 +151,22 @@ export const MEANING_STATEMENTS: Record<SignedRecordType, Record<SignatureMeanin
     performed: "I carried out the tests of this control plan as recorded.",
     verified: "I have checked this control plan version against its requirements.",
   },
+  lab_method: {
+    authored: "I am the author of this lab method version and submit it as written.",
+    reviewed: "I have reviewed this lab method version and find it fit for approval.",
+    approved:
+      "I approve this lab method version for use: runs may cite it from now until a later version supersedes it.",
+    performed: "I applied this lab method as written.",
+    verified: "I have checked this lab method version against its qualification.",
+  },
+  training_record: {
+    authored: "I recorded this training as it took place.",
+    reviewed: "I have read and understood this version of the procedure and will work to it.",
+    approved: "I approve this training record.",
+    performed: "I took part in this training as recorded.",
+    verified:
+      "I have watched this person carry out the method and confirm they perform it correctly and unaided.",
+  },
 };
 
 /** What a signature of this meaning on this kind of record affirms. */

@@ -1279,6 +1279,72 @@ const SAMPLES = {
       storedNew: true,
     },
   },
+  "lab_method.drafted": {
+    eventType: "lab_method.drafted",
+    recordType: "lab_method",
+    recordId: UUID,
+    new: {
+      code: "AN-01",
+      version: 2,
+      kind: "analysis",
+      name: "Membrane analysis, automated light microscope",
+      details: { magnification: 50, lowerSizeLimitUm: 15 },
+      qualificationRun: null,
+      trainingIntervalMonths: 24,
+    },
+  },
+  "lab_method.approved": {
+    eventType: "lab_method.approved",
+    recordType: "lab_method",
+    recordId: UUID,
+    old: { status: "draft" },
+    new: { status: "approved", contentHash: H, supersedes: "AN-01 v1" },
+  },
+  "lab_method.superseded": {
+    eventType: "lab_method.superseded",
+    recordType: "lab_method",
+    recordId: UUID,
+    old: { status: "approved" },
+    new: { status: "superseded", by: "AN-01 v2" },
+  },
+  "test_run.methods_cited": {
+    eventType: "test_run.methods_cited",
+    recordType: "test_run",
+    recordId: UUID,
+    old: { extraction: null, analysis: null, gravimetric: null },
+    new: { extraction: "EX-01 v1", analysis: "AN-01 v2", gravimetric: null },
+  },
+  "training.signed_off": {
+    eventType: "training.signed_off",
+    recordType: "training_record",
+    recordId: UUID,
+    new: {
+      person: "Ravi Menon",
+      method: "GR-01 v1",
+      trainedOn: "2026-12-03",
+      expiresOn: "2028-12-03",
+      trainer: "Helena Okafor",
+      contentHash: H,
+    },
+  },
+  "training.procedure_acknowledged": {
+    eventType: "training.procedure_acknowledged",
+    recordType: "training_record",
+    recordId: UUID,
+    new: {
+      person: "Ravi Menon",
+      procedure: "SOP-LAB-001 v1",
+      trainedOn: "2026-12-03",
+      expiresOn: "2028-12-03",
+      contentHash: H,
+    },
+  },
+  "training.reminder_sent": {
+    eventType: "training.reminder_sent",
+    recordType: "training_record",
+    recordId: UUID,
+    new: { subject: "GR-01", expiresOn: "2026-12-20", to: ["technician@fennmoor.example"] },
+  },
 } satisfies { [T in AuditEventType]: Extract<AuditEventInput, { eventType: T }> };
 
 const samples = Object.values(SAMPLES) as AuditEventInput[];

@@ -58,6 +58,11 @@ const EXPECTED: Record<Permission, Role[]> = {
   "site.manage_clock": ["admin"],
   "instrument.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
   "instrument.manage": ["admin", "engineer", "technician"],
+  "lab.view": ["admin", "engineer", "reviewer", "approver", "technician", "auditor"],
+  "lab.method_draft": ["engineer"],
+  "lab.method_approve": ["approver"],
+  "training.sign_off": ["admin", "engineer", "approver", "technician"],
+  "training.acknowledge": ["admin", "engineer", "reviewer", "approver", "technician"],
 };
 
 describe("role table", () => {

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { linkButton, secondaryLink } from "@/components/parts/link-styles";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { PageHeader } from "@/components/ui/page-header";
@@ -35,9 +35,9 @@ export default async function ControlPlansPage({
         description="For each qualified combination of recipe version and part family: which characteristic is tested, how, on how many parts, how often, and what to do when a result is out. An approved plan schedules the routine tests in My queue."
         actions={
           can(user.roles, "control_plan.draft") ? (
-            <Link href="/control-plans/new" className={linkButton}>
+            <IntentLink href="/control-plans/new" className={linkButton}>
               New control plan
-            </Link>
+            </IntentLink>
           ) : undefined
         }
       />
@@ -59,9 +59,9 @@ export default async function ControlPlansPage({
           {rows.map((r) => (
             <tr key={r.id}>
               <Td>
-                <Link href={`/control-plans/${r.id}`} className="text-brand-800 underline">
+                <IntentLink href={`/control-plans/${r.id}`} className="text-brand-800 underline">
                   {r.combination}
-                </Link>
+                </IntentLink>
                 {r.versionStatus !== "effective" && (
                   <span className="block text-xs text-stone-600">
                     Recipe version {r.versionStatus}: no tests are scheduled
@@ -87,17 +87,17 @@ export default async function ControlPlansPage({
       {pages > 1 && (
         <nav aria-label="Pages" className="mt-4 flex items-center gap-3 text-sm">
           {page > 1 && (
-            <Link href={pageHref(page - 1)} className={secondaryLink}>
+            <IntentLink href={pageHref(page - 1)} className={secondaryLink}>
               Previous page
-            </Link>
+            </IntentLink>
           )}
           <span>
             Page {page} of {pages} ({total} plans)
           </span>
           {page < pages && (
-            <Link href={pageHref(page + 1)} className={secondaryLink}>
+            <IntentLink href={pageHref(page + 1)} className={secondaryLink}>
               Next page
-            </Link>
+            </IntentLink>
           )}
         </nav>
       )}

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { linkButton } from "@/components/parts/link-styles";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { PageHeader } from "@/components/ui/page-header";
@@ -50,9 +50,9 @@ export default async function InstrumentsPage({
         description="The lab's measuring equipment and its calibration: a run cites the instruments it used, and cannot be signed as performed while one is past its due date."
         actions={
           can(user.roles, "instrument.manage") ? (
-            <Link href="/instruments/new" className={linkButton}>
+            <IntentLink href="/instruments/new" className={linkButton}>
               Register an instrument
-            </Link>
+            </IntentLink>
           ) : undefined
         }
       />
@@ -95,9 +95,9 @@ export default async function InstrumentsPage({
           {rows.map((r) => (
             <tr key={r.id}>
               <Td className="font-mono text-xs">
-                <Link href={`/instruments/${r.id}`} className="text-brand-800 underline">
+                <IntentLink href={`/instruments/${r.id}`} className="text-brand-800 underline">
                   {r.assetNumber}
-                </Link>
+                </IntentLink>
               </Td>
               <Td>{INSTRUMENT_KIND_LABELS[r.kind]}</Td>
               <Td>{r.description}</Td>
@@ -121,14 +121,14 @@ export default async function InstrumentsPage({
           Page {pageNumber} of {pages} · {total} instrument{total === 1 ? "" : "s"}
         </span>
         {pageNumber > 1 && (
-          <Link href={href(pageNumber - 1)} className="text-brand-800 underline">
+          <IntentLink href={href(pageNumber - 1)} className="text-brand-800 underline">
             Previous page
-          </Link>
+          </IntentLink>
         )}
         {pageNumber < pages && (
-          <Link href={href(pageNumber + 1)} className="text-brand-800 underline">
+          <IntentLink href={href(pageNumber + 1)} className="text-brand-800 underline">
             Next page
-          </Link>
+          </IntentLink>
         )}
       </nav>
     </>

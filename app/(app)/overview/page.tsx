@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { OverdueTable } from "@/components/overview/overdue-table";
 import { SummaryTiles } from "@/components/overview/summary-tiles";
 import { OverviewStateWord } from "@/components/overview/state-word";
@@ -38,9 +38,9 @@ export default async function OverviewPage({
       {overview.totalWashers === 0 ? (
         <EmptyState title="No cleaning system yet">
           The overview fills in once an administrator adds the plant&apos;s washers under{" "}
-          <Link href="/systems" className="text-brand-800 underline">
+          <IntentLink href="/systems" className="text-brand-800 underline">
             Cleaning systems
-          </Link>
+          </IntentLink>
           .
         </EmptyState>
       ) : (
@@ -67,23 +67,23 @@ export default async function OverviewPage({
           {overview.pages > 1 && (
             <nav aria-label="Washer pages" className="flex items-center gap-3 text-sm">
               {overview.page > 1 && (
-                <Link
+                <IntentLink
                   href={`/overview?page=${overview.page - 1}`}
                   className="text-brand-800 underline"
                 >
                   Previous washers
-                </Link>
+                </IntentLink>
               )}
               <span>
                 Page {overview.page} of {overview.pages} ({overview.totalWashers} washers)
               </span>
               {overview.page < overview.pages && (
-                <Link
+                <IntentLink
                   href={`/overview?page=${overview.page + 1}`}
                   className="text-brand-800 underline"
                 >
                   Next washers
-                </Link>
+                </IntentLink>
               )}
             </nav>
           )}
@@ -98,9 +98,12 @@ export default async function OverviewPage({
           <ul className="mt-2 space-y-1 text-sm">
             {overview.plantWide.map((i) => (
               <li key={i.id}>
-                <Link href={i.href} className="text-brand-800 underline-offset-2 hover:underline">
+                <IntentLink
+                  href={i.href}
+                  className="text-brand-800 underline-offset-2 hover:underline"
+                >
                   {i.number}
-                </Link>{" "}
+                </IntentLink>{" "}
                 {i.title} · {i.status}
               </li>
             ))}

@@ -16,7 +16,7 @@ import {
 import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { TRACE_ENTRIES_PAGE, traceQuerySchema } from "@/lib/schemas/trace";
 import { matchParameters } from "@/lib/trace/parameter-search";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 
 export const metadata: Metadata = { title: "Trace" };
 
@@ -102,12 +102,12 @@ export default async function TracePage({
           {older > 0 && (
             <p className="mt-4 text-sm">
               {history.entries.length} of {total} entries shown.{" "}
-              <Link
+              <IntentLink
                 href={`/trace?recipe=${history.recipe.id}&key=${encodeURIComponent(history.parameter.key)}&entries=${shown + TRACE_ENTRIES_PAGE}`}
                 className="font-semibold text-brand-800 hover:underline"
               >
                 {`Show ${Math.min(older, TRACE_ENTRIES_PAGE)} older ${Math.min(older, TRACE_ENTRIES_PAGE) === 1 ? "entry" : "entries"}`}
-              </Link>
+              </IntentLink>
             </p>
           )}
           <NcPanel roles={user.roles} where={{ recipeId: history.recipe.id }} />

@@ -5,6 +5,7 @@ import {
   changeRequestEvidence,
   evidenceFiles,
   testRunLabDetails,
+  testRunMethods,
   testSamples,
   testRuns,
 } from "@/db/schema";
@@ -69,6 +70,10 @@ export async function reviseRun(
         .insert(testRunLabDetails)
         .values({ ...lab, runId: next.id, details: carryPhotos(lab.details, fileIds) });
     await copyCitedInstruments(tx, old.id, next.id);
+    // The method versions the corrected run used stay cited, approved or since superseded.
+    const cited = await tx.select().from(testRunMethods).where(eq(testRunMethods.runId, old.id));
+    if (cited.length)
+      await tx.insert(testRunMethods).values(cited.map((c) => ({ ...c, runId: next.id })));
     const links = await tx
       .select()
       .from(changeRequestEvidence)

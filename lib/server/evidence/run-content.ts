@@ -5,6 +5,7 @@ import { evidenceFiles, testSamples, testRuns, type TestRun } from "@/db/schema"
 import { runContentHash } from "@/lib/evidence/run-hash";
 import { getLabDetails } from "@/lib/server/lab-report/lab-details";
 import { citedAssetNumbers } from "@/lib/server/instruments/cited";
+import { getRunMethods } from "./run-methods";
 
 /** The run's stored rows in a stable order, and the hash a signature binds to. */
 export async function runContent(db: Executor, run: TestRun) {
@@ -19,9 +20,12 @@ export async function runContent(db: Executor, run: TestRun) {
     .where(eq(evidenceFiles.runId, run.id))
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id));
   const labDetails = await getLabDetails(db, run.id);
-  const instruments = await citedAssetNumbers(db, run.id);
-  const { content, hash } = runContentHash(run, samples, files, labDetails, instruments);
-  return { content, hash, samples, files, labDetails };
+  const [instruments, methods] = await Promise.all([
+    citedAssetNumbers(db, run.id),
+    getRunMethods(db, run.id),
+  ]);
+  const { content, hash } = runContentHash(run, samples, files, labDetails, instruments, methods);
+  return { content, hash, samples, files, labDetails, methods };
 }
 
 export async function getRunRow(db: Executor, runId: string) {

@@ -7,6 +7,7 @@ import { UserFacingError } from "@/lib/server/errors";
 import { dataEntryProblem } from "@/lib/signatures/rules";
 import { applySignature } from "@/lib/server/signatures/apply-signature";
 import { verifySigner } from "@/lib/server/signatures/verify-signer";
+import { assertReadyToPerform } from "./ready-to-perform";
 import { refreshOutcome } from "./refresh-outcome";
 import { getRunRow, runContent } from "./run-content";
 import { todayUtc } from "@/lib/format/date";
@@ -50,6 +51,7 @@ export async function signRun(input: {
       );
     if (samples.length === 0)
       throw new UserFacingError("Record at least one sample before signing.");
+    if (input.meaning === "performed") await assertReadyToPerform(tx, run, signer);
     if (input.meaning === "performed") await assertCitedInstrumentsCalibrated(tx, run.id);
     if (input.meaning === "verified") {
       const problem = dataEntryProblem(await dataEntrants(tx, run.id), signer.id);

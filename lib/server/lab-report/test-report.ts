@@ -11,6 +11,7 @@ import { getRunDetail } from "@/lib/server/evidence/queries";
 import { loadLetterhead } from "@/lib/server/plant/letterhead";
 import { getStore } from "@/lib/storage";
 import { getLabDetails } from "./lab-details";
+import { getRunMethods } from "@/lib/server/evidence/run-methods";
 
 /** Photos travel to the PDF worker inside the job; larger ones are named, not embedded. */
 const PHOTO_EMBED_LIMIT = 2 * 1024 * 1024;
@@ -64,6 +65,8 @@ export interface TestReport {
     minWettingTensionMNm: number | null;
   };
   lab: LabDetails | null;
+  /** The lab method versions the run cites (name and version, as approved). */
+  methods: { kind: "extraction" | "analysis" | "gravimetric"; label: string }[];
   /** Particle runs: the pooled counts per class with the basis they are normalised to. */
   particles: {
     basisUnit: string;
@@ -126,6 +129,10 @@ export async function loadTestReport(runId: string): Promise<TestReport | null> 
   const db = getDb();
   const { run, family, spec, recipe, outcome, samples, files, signatures } = detail;
   const lab = await getLabDetails(db, run.id);
+  const methods = (await getRunMethods(db, run.id)).map((m) => ({
+    kind: m.kind,
+    label: `${m.code} v${m.version} · ${m.name}`,
+  }));
   const particle = run.testType === "particle_cleanliness";
   const sampleData = samples.map(
     (s) => s.data as Partial<ParticleSample> & { components?: number },
@@ -274,6 +281,7 @@ export async function loadTestReport(runId: string): Promise<TestReport | null> 
       minWettingTensionMNm: spec.minWettingTensionMNm,
     },
     lab,
+    methods,
     particles,
     largest,
     evaluation: {

@@ -11,6 +11,7 @@ import { nonconformanceQueueProvider } from "@/lib/server/nonconformances/queue-
 import { emergencyQueueProvider } from "@/lib/server/changes/emergency-queue-provider";
 import { controlPlanQueueProvider } from "@/lib/server/control-plans/queue-provider";
 import { instrumentQueueProvider } from "@/lib/server/instruments/queue-provider";
+import { trainingQueueProvider } from "@/lib/server/training/queue-provider";
 import type { QueueItem, QueueProvider, QueueWindow } from "./types";
 
 /**
@@ -28,6 +29,7 @@ const PROVIDERS: QueueProvider[] = [
   emergencyQueueProvider,
   controlPlanQueueProvider,
   instrumentQueueProvider,
+  trainingQueueProvider,
 ];
 
 export const QUEUE_PAGE_SIZE = 50;

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { getDb } from "@/db/client";
 import { ControlPlanForm } from "@/components/control-plans/control-plan-form";
@@ -92,15 +92,15 @@ export default async function ControlPlanPage({ params }: { params: Promise<{ pl
         description={`Routine tests of ${c.family.code} ${c.family.name} washed on ${c.systemCode} with ${c.recipeCode} ${c.recipeName}, version ${c.version}.`}
       />
       <p className="mb-4 flex flex-wrap gap-4 text-sm">
-        <Link
+        <IntentLink
           href={`/systems/recipes/${c.recipeId}/versions/${c.version}`}
           className="text-brand-800 underline"
         >
           Recipe {c.recipeCode} version {c.version}
-        </Link>
-        <Link href={`/parts/families/${c.family.id}`} className="text-brand-800 underline">
+        </IntentLink>
+        <IntentLink href={`/parts/families/${c.family.id}`} className="text-brand-800 underline">
           Part family {c.family.code}
-        </Link>
+        </IntentLink>
       </p>
       {hasBathLines && (
         <div className="mb-6">
@@ -152,9 +152,9 @@ export default async function ControlPlanPage({ params }: { params: Promise<{ pl
                 <Td className="font-semibold">{DUE_STATE_LABELS[t.state]}</Td>
                 <Td>
                   {t.state !== "ok" ? (
-                    <Link href={dueTestHref(t)} className="text-brand-800 underline">
+                    <IntentLink href={dueTestHref(t)} className="text-brand-800 underline">
                       {t.testType ? "Open a run" : "Record a reading"}
-                    </Link>
+                    </IntentLink>
                   ) : (
                     "—"
                   )}

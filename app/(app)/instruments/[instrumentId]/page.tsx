@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { IntentLink } from "@/components/ui/intent-link";
 import { notFound } from "next/navigation";
 import { RunStatusWord } from "@/components/evidence/status-word";
 import {
@@ -119,12 +119,12 @@ export default async function InstrumentPage({
                     </Td>
                     <Td>
                       {nc?.id ? (
-                        <Link
+                        <IntentLink
                           href={`/nonconformances/${nc.id}`}
                           className="text-brand-800 underline"
                         >
                           {nc.number}
-                        </Link>
+                        </IntentLink>
                       ) : (
                         "—"
                       )}
@@ -171,10 +171,13 @@ export default async function InstrumentPage({
                 {runs.map((r) => (
                   <tr key={r.id}>
                     <Td>
-                      <Link href={`/evidence/runs/${r.id}`} className="text-brand-800 underline">
+                      <IntentLink
+                        href={`/evidence/runs/${r.id}`}
+                        className="text-brand-800 underline"
+                      >
                         {r.number}
                         {r.revision > 1 ? ` rev ${r.revision}` : ""}
-                      </Link>
+                      </IntentLink>
                     </Td>
                     <Td>{formatDate(r.performedOn, "not yet tested")}</Td>
                     <Td>

@@ -3,6 +3,8 @@
 import { defineAction } from "@/lib/actions/define-action";
 import { runIdSchema } from "@/lib/schemas/evidence";
 import { labDetailsSchema } from "@/lib/schemas/lab-details";
+import { citeMethodsSchema } from "@/lib/schemas/lab-method";
+import { citeMethods } from "@/lib/server/evidence/cite-methods";
 import { saveLabDetails } from "@/lib/server/lab-report/save-lab-details";
 import { citeInstrumentsSchema } from "@/lib/schemas/instrument";
 import { citeInstruments } from "@/lib/server/instruments/cite-instruments";
@@ -30,6 +32,17 @@ export const citeInstrumentsAction = defineAction({
       message:
         instruments.length === 0 ? "No instrument cited." : `Cited: ${instruments.join(", ")}.`,
     };
+  },
+  revalidate: (input) => [`/evidence/runs/${input.runId}`],
+});
+
+/** The approved method versions the run used; refused for a draft or superseded version. */
+export const citeMethodsAction = defineAction({
+  permission: "evidence.record",
+  input: citeMethodsSchema,
+  run: async ({ user, input }) => {
+    const { cited } = await citeMethods({ id: user.id, name: user.name }, input);
+    return { message: cited.length ? `Methods used: ${cited.join(", ")}.` : "No method cited." };
   },
   revalidate: (input) => [`/evidence/runs/${input.runId}`],
 });

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { IntentLink } from "@/components/ui/intent-link";
+import { getDb } from "@/db/client";
 import { notFound } from "next/navigation";
 import { DeviationList } from "@/components/deviations/deviation-list";
 import { CsvImport } from "@/components/evidence/csv-import";
@@ -37,7 +38,13 @@ import {
   signRunAction,
 } from "../../actions";
 import { formatDate, formatDateTime } from "@/lib/format/date";
-import { saveLabDetailsAction } from "./actions";
+import { citeMethodsAction, saveLabDetailsAction } from "./actions";
+import { CiteMethodsForm } from "@/components/lab-methods/cite-methods-form";
+import { labDetailsFromMethods } from "@/lib/lab-methods/prefill";
+import { LAB_METHOD_KIND_LABELS } from "@/lib/schemas/lab-method";
+import { METHOD_KINDS_BY_TEST } from "@/lib/lab-methods/kinds";
+import { getRunMethods } from "@/lib/server/evidence/run-methods";
+import { approvedMethods } from "@/lib/server/lab-methods/queries";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Test run" };
@@ -70,6 +77,11 @@ export default async function RunPage({
   const shown = samplePage(samples, requestedPage);
   const worked = samplePage(outcome.samples, requestedPage);
   const runPath = `/evidence/runs/${run.id}`;
+  const methodKinds = METHOD_KINDS_BY_TEST[run.testType] ?? [];
+  const [cited, citable] = await Promise.all([
+    getRunMethods(getDb(), run.id),
+    mayRecord && methodKinds.length ? approvedMethods() : Promise.resolve([]),
+  ]);
   return (
     <>
       <PageHeader
@@ -167,6 +179,42 @@ export default async function RunPage({
             {mayRecord && (
               <SampleForm action={addSampleAction} runId={run.id} testType={run.testType} />
             )}
+            {methodKinds.length > 0 && (
+              <>
+                <h3 className="pt-2 text-sm font-semibold">Methods used</h3>
+                {cited.length > 0 ? (
+                  <ul className="text-sm" aria-label="Cited methods">
+                    {cited.map((m) => (
+                      <li key={m.kind}>
+                        {LAB_METHOD_KIND_LABELS[m.kind]}:{" "}
+                        <IntentLink
+                          href={`/lab/methods/${m.methodId}`}
+                          className="text-brand-800 underline"
+                        >
+                          {m.code} v{m.version}
+                        </IntentLink>{" "}
+                        {m.name}
+                      </li>
+                    ))}
+                  </ul>
+                ) : (
+                  <p className="text-sm text-stone-600">No lab method cited.</p>
+                )}
+                {mayRecord && (
+                  <CiteMethodsForm
+                    action={citeMethodsAction}
+                    runId={run.id}
+                    kinds={methodKinds}
+                    cited={Object.fromEntries(cited.map((m) => [m.kind, m.methodId]))}
+                    options={{
+                      extraction: optionsOf(citable, "extraction"),
+                      analysis: optionsOf(citable, "analysis"),
+                      gravimetric: optionsOf(citable, "gravimetric"),
+                    }}
+                  />
+                )}
+              </>
+            )}
             {mayRecord && run.testType === "particle_cleanliness" && (
               <>
                 <h3 className="pt-2 text-sm font-semibold">
@@ -181,6 +229,8 @@ export default async function RunPage({
                   Extraction, analysis and components tested
                 </h3>
                 <LabDetailsForm
+                  key={cited.map((m) => m.methodId).join(",")}
+                  fromMethods={labDetailsFromMethods(cited)}
                   action={saveLabDetailsAction}
                   runId={run.id}
                   details={detail.labDetails}
@@ -380,4 +430,13 @@ export default async function RunPage({
       </div>
     </>
   );
+}
+
+function optionsOf(
+  methods: { id: string; kind: string; code: string; version: number; name: string }[],
+  kind: string,
+) {
+  return methods
+    .filter((m) => m.kind === kind)
+    .map((m) => ({ value: m.id, label: `${m.code} v${m.version} · ${m.name}` }));
 }

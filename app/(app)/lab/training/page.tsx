@@ -1,0 +1,105 @@
+import type { Metadata } from "next";
+import { IntentLink } from "@/components/ui/intent-link";
+import { AcknowledgeForm, SignOffForm } from "@/components/lab-methods/training-forms";
+import { TrainingStateWord } from "@/components/lab-methods/training-state-word";
+import { PageHeader } from "@/components/ui/page-header";
+import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { can } from "@/lib/auth/permissions";
+import { todayUtc } from "@/lib/format/date";
+import { requirePageUser } from "@/lib/server/auth/current-user";
+import { loadTrainingMatrix } from "@/lib/server/training/queries";
+import { REMINDER_DAYS } from "@/lib/training/rules";
+import { acknowledgeProcedureAction, signOffTrainingAction } from "./actions";
+
+export const metadata: Metadata = { title: "Training matrix" };
+
+export default async function TrainingPage() {
+  const user = await requirePageUser("lab.view");
+  const today = todayUtc();
+  const { columns, rows, methods, procedures } = await loadTrainingMatrix(today);
+  return (
+    <>
+      <PageHeader
+        title="Training matrix"
+        description={`Who is trained on which lab method (a trainer's practical sign-off) and which procedure version (the person's signed acknowledgement). "Expires soon" means within ${REMINDER_DAYS} days; the person is reminded by e-mail and in My queue.`}
+        actions={
+          <IntentLink href="/lab/methods" className="text-sm font-medium text-brand-800 underline">
+            Lab methods
+          </IntentLink>
+        }
+      />
+      <Table caption="Training matrix" frameClassName="mb-8">
+        <THead>
+          <Th>Person</Th>
+          {columns.map((c) => (
+            <Th key={c.key}>
+              <span className="block">{c.label}</span>
+              <span className="block text-xs font-normal normal-case text-stone-600">
+                {c.kind === "method" ? "Lab method" : "Procedure"}: {c.title}
+              </span>
+            </Th>
+          ))}
+        </THead>
+        <TBody>
+          {rows.length === 0 && (
+            <EmptyRow colSpan={columns.length + 1}>Nobody to train yet.</EmptyRow>
+          )}
+          {rows.map((r) => (
+            <tr key={r.person.id}>
+              <Th scope="row">{r.person.name}</Th>
+              {r.cells.map((cell, i) => (
+                <Td key={columns[i].key}>
+                  <TrainingStateWord state={cell.state} expiresOn={cell.expiresOn} />
+                </Td>
+              ))}
+            </tr>
+          ))}
+        </TBody>
+      </Table>
+
+      <div className="grid gap-8 lg:grid-cols-2">
+        {can(user.roles, "training.sign_off") && methods.length > 0 && (
+          <section aria-labelledby="sign-off">
+            <h2 id="sign-off" className="mb-1 text-lg font-semibold">
+              Sign off practical training
+            </h2>
+            <p className="mb-3 text-sm text-stone-600">
+              As the trainer: someone whose own training on the method is current, or an approver or
+              administrator. Nobody signs off their own training.
+            </p>
+            <SignOffForm
+              action={signOffTrainingAction}
+              people={rows
+                .filter((r) => r.person.id !== user.id)
+                .map((r) => ({ value: r.person.id, label: r.person.name }))}
+              methods={methods.map((m) => ({
+                value: m.code,
+                label: `${m.code} v${m.version} · ${m.name}`,
+              }))}
+              today={today}
+              signerName={user.name}
+            />
+          </section>
+        )}
+        {can(user.roles, "training.acknowledge") && procedures.length > 0 && (
+          <section aria-labelledby="acknowledge">
+            <h2 id="acknowledge" className="mb-1 text-lg font-semibold">
+              Acknowledge a procedure
+            </h2>
+            <p className="mb-3 text-sm text-stone-600">
+              Read the version in force under Documents first, then sign for yourself.
+            </p>
+            <AcknowledgeForm
+              action={acknowledgeProcedureAction}
+              procedures={procedures.map((p) => ({
+                value: p.versionId,
+                label: `${p.number} v${p.version} · ${p.title}`,
+              }))}
+              signerName={user.name}
+            />
+          </section>
+        )}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,312 @@
+import { and, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import {
+  auditEvents,
+  emailOutbox,
+  labMethods,
+  signatures,
+  testRunMethods,
+  testRuns,
+  users,
+} from "@/db/schema";
+import { seedDemo } from "@/db/seed";
+import { labMethodSchema } from "@/lib/schemas/lab-method";
+import { citeMethods } from "@/lib/server/evidence/cite-methods";
+import { runContent } from "@/lib/server/evidence/run-content";
+import { describeFailure } from "@/lib/server/errors";
+import { approveMethodIn } from "@/lib/server/lab-methods/approve-method-in";
+import { draftMethod } from "@/lib/server/lab-methods/draft-method";
+import { loadMethod } from "@/lib/server/lab-methods/state";
+import { trainingQueueProvider } from "@/lib/server/training/queue-provider";
+import { sendTrainingReminders } from "@/lib/server/training/send-training-reminders";
+import { signOffTrainingIn } from "@/lib/server/training/sign-off-training-in";
+import { trainingProblemsForRun } from "@/lib/server/training/state";
+import { createTestDatabase } from "./support/test-db";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+const people: Record<string, { id: string; name: string; email: string }> = {};
+const NOW = new Date("2026-12-03T10:00:00.000Z");
+let openRun = "";
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  await seedDemo(t.db);
+  for (const role of ["engineer", "approver", "technician", "admin"]) {
+    const [u] = await t.db
+      .select()
+      .from(users)
+      .where(eq(users.email, `${role}@fennmoor.example`));
+    people[role] = { id: u.id, name: u.name, email: u.email };
+  }
+  const [run] = await t.db
+    .select({ id: testRuns.id })
+    .from(testRuns)
+    .where(and(eq(testRuns.status, "open"), eq(testRuns.testType, "particle_cleanliness")));
+  openRun = run.id;
+}, 120_000);
+afterAll(() => t.cleanup());
+
+async function refusal(promise: Promise<unknown>) {
+  try {
+    await promise;
+  } catch (error) {
+    return describeFailure(error);
+  }
+  throw new Error("expected a refusal");
+}
+
+const byCode = async (code: string, version: number) =>
+  (
+    await t.db
+      .select()
+      .from(labMethods)
+      .where(and(eq(labMethods.code, code), eq(labMethods.version, version)))
+  )[0];
+
+describe("the demo's methods", () => {
+  it("are approved, and the verified lab-report run's signatures bind to content citing them", async () => {
+    const [ex, an, gr] = await Promise.all([
+      byCode("EX-01", 1),
+      byCode("AN-01", 1),
+      byCode("GR-01", 1),
+    ]);
+    expect([ex.status, an.status, gr.status]).toEqual(["approved", "approved", "approved"]);
+    expect(ex.qualificationRunId).not.toBeNull();
+    const cited = await t.db
+      .select({ runId: testRunMethods.runId })
+      .from(testRunMethods)
+      .innerJoin(testRuns, eq(testRuns.id, testRunMethods.runId))
+      .where(and(eq(testRunMethods.methodId, an.id), eq(testRuns.status, "verified")));
+    expect(cited).toHaveLength(1);
+    const [run] = await t.db.select().from(testRuns).where(eq(testRuns.id, cited[0].runId));
+    const { hash, content } = await runContent(t.db, run);
+    expect(content.methods).toEqual([
+      { kind: "analysis", methodId: an.id, code: "AN-01", version: 1 },
+      { kind: "extraction", methodId: ex.id, code: "EX-01", version: 1 },
+    ]);
+    const sigs = await t.db
+      .select()
+      .from(signatures)
+      .where(and(eq(signatures.recordType, "test_run"), eq(signatures.recordId, run.id)));
+    expect(sigs.map((s) => s.contentHash)).toEqual([hash, hash]);
+  });
+});
+
+describe("versioning and approval", () => {
+  const v2 = () =>
+    labMethodSchema.parse({
+      kind: "analysis",
+      code: "AN-01",
+      name: "Membrane analysis, automated light microscope",
+      trainingIntervalMonths: "24",
+      details: {
+        filterMaterial: "PET mesh",
+        poreSizeUm: "5",
+        system: "light_microscope_automated",
+        magnification: "100",
+        lowerSizeLimitUm: "15",
+        distinguishes: ["reflective", "non_reflective", "fibre"],
+      },
+    });
+  let draftId = "";
+
+  it("drafts the next version of a code, one draft at a time, and audits it", async () => {
+    const { id, version } = await draftMethod(people.engineer, v2());
+    draftId = id;
+    expect(version).toBe(2);
+    const again = await refusal(draftMethod(people.engineer, v2()));
+    expect(again.fieldErrors).toHaveProperty("code");
+    expect(again.message).toMatch(/AN-01 v2 is still a draft/);
+    const [event] = await t.db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.recordId, id), eq(auditEvents.action, "lab_method.drafted")));
+    expect(event.actorId).toBe(people.engineer.id);
+  });
+
+  it("refuses a draft cited by a run, naming the field", async () => {
+    const failure = await refusal(
+      citeMethods(people.technician, {
+        runId: openRun,
+        extraction: null,
+        analysis: draftId,
+        gravimetric: null,
+      }),
+    );
+    expect(failure.fieldErrors).toHaveProperty("analysis");
+    expect(failure.message).toMatch(/a draft, not yet approved/);
+  });
+
+  it("refuses the drafter's own approval and a stale hash", async () => {
+    const view = await loadMethod(t.db, draftId);
+    const own = await refusal(
+      t.db.transaction((tx) =>
+        approveMethodIn(tx, people.engineer, { methodId: draftId, contentHash: view.contentHash }),
+      ),
+    );
+    expect(own.kind).toBe("forbidden");
+    const stale = await refusal(
+      t.db.transaction((tx) =>
+        approveMethodIn(tx, people.approver, { methodId: draftId, contentHash: "0".repeat(64) }),
+      ),
+    );
+    expect(stale.message).toMatch(/changed since you opened it/);
+  });
+
+  it("approves with a signature bound to the content and supersedes the version before", async () => {
+    const view = await loadMethod(t.db, draftId);
+    await t.db.transaction((tx) =>
+      approveMethodIn(tx, people.approver, { methodId: draftId, contentHash: view.contentHash }),
+    );
+    expect((await byCode("AN-01", 2)).status).toBe("approved");
+    const v1 = await byCode("AN-01", 1);
+    expect(v1.status).toBe("superseded");
+    const [sig] = await t.db
+      .select()
+      .from(signatures)
+      .where(and(eq(signatures.recordType, "lab_method"), eq(signatures.recordId, draftId)));
+    expect(sig).toMatchObject({ meaning: "approved", contentHash: view.contentHash });
+    const events = await t.db
+      .select({ action: auditEvents.action, recordId: auditEvents.recordId })
+      .from(auditEvents)
+      .where(eq(auditEvents.recordType, "lab_method"));
+    expect(events).toContainEqual({ action: "lab_method.approved", recordId: draftId });
+    expect(events).toContainEqual({ action: "lab_method.superseded", recordId: v1.id });
+
+    // The superseded version is no longer citable; the kind must fit the test type.
+    const superseded = await refusal(
+      citeMethods(people.technician, {
+        runId: openRun,
+        extraction: null,
+        analysis: v1.id,
+        gravimetric: null,
+      }),
+    );
+    expect(superseded.fieldErrors).toHaveProperty("analysis");
+    const gr = await byCode("GR-01", 1);
+    const wrongKind = await refusal(
+      citeMethods(people.technician, {
+        runId: openRun,
+        extraction: null,
+        analysis: null,
+        gravimetric: gr.id,
+      }),
+    );
+    expect(wrongKind.fieldErrors).toHaveProperty("gravimetric");
+  });
+
+  it("cites the approved version, changing the run's content hash, audited", async () => {
+    const [run] = await t.db.select().from(testRuns).where(eq(testRuns.id, openRun));
+    const before = (await runContent(t.db, run)).hash;
+    const ex = await byCode("EX-01", 1);
+    await citeMethods(people.technician, {
+      runId: openRun,
+      extraction: ex.id,
+      analysis: draftId,
+      gravimetric: null,
+    });
+    expect((await runContent(t.db, run)).hash).not.toBe(before);
+    const [event] = await t.db
+      .select()
+      .from(auditEvents)
+      .where(
+        and(eq(auditEvents.recordId, openRun), eq(auditEvents.action, "test_run.methods_cited")),
+      )
+      .orderBy(auditEvents.seq);
+    expect(event).toBeDefined();
+  });
+});
+
+describe("training gate and sign-offs", () => {
+  it("passes the demo technician today and names the lapse on the expiry day", async () => {
+    expect(await trainingProblemsForRun(t.db, openRun, people.technician.id, "2026-12-03")).toEqual(
+      [],
+    );
+    // The engineer was signed off on 2026-01-15 for 24 months [derived: lapses 2028-01-15].
+    const problems = await trainingProblemsForRun(t.db, openRun, people.engineer.id, "2028-01-15");
+    expect(problems.join(" ")).toMatch(/EX-01 v1 .* lapsed on 2028-01-15/);
+    expect(await trainingProblemsForRun(t.db, openRun, people.engineer.id, "2028-01-14")).toEqual(
+      [],
+    );
+  });
+
+  it("lets a currently trained technician train others on that method, not on one they have lapsed on", async () => {
+    const ok = await t.db.transaction((tx) =>
+      signOffTrainingIn(
+        tx,
+        people.technician,
+        { userId: people.engineer.id, methodCode: "EX-01", trainedOn: "2026-12-01" },
+        NOW,
+      ),
+    );
+    expect(ok.expiresOn).toBe("2028-12-01");
+    const lapsed = await refusal(
+      t.db.transaction((tx) =>
+        signOffTrainingIn(
+          tx,
+          people.technician,
+          { userId: people.engineer.id, methodCode: "GR-01", trainedOn: "2026-12-01" },
+          NOW,
+        ),
+      ),
+    );
+    expect(lapsed.kind).toBe("forbidden");
+    const own = await refusal(
+      t.db.transaction((tx) =>
+        signOffTrainingIn(
+          tx,
+          people.approver,
+          { userId: people.approver.id, methodCode: "GR-01", trainedOn: "2026-12-01" },
+          NOW,
+        ),
+      ),
+    );
+    expect(own.fieldErrors).toHaveProperty("userId");
+    const future = await refusal(
+      t.db.transaction((tx) =>
+        signOffTrainingIn(
+          tx,
+          people.approver,
+          { userId: people.technician.id, methodCode: "GR-01", trainedOn: "2026-12-04" },
+          NOW,
+        ),
+      ),
+    );
+    expect(future.fieldErrors).toHaveProperty("trainedOn");
+  });
+
+  it("reminds the technician of the lapsed weighing training once, in My queue and by e-mail", async () => {
+    const queue = await trainingQueueProvider(
+      { id: people.technician.id, roles: ["technician"] } as never,
+      NOW,
+    );
+    expect(queue.items.map((i) => i.title)).toEqual([
+      "Lapsed: your training on GR-01 Residue weighing on 5 µm membranes",
+    ]);
+    expect((await sendTrainingReminders(NOW)).sent).toBe(1);
+    expect((await sendTrainingReminders(NOW)).sent).toBe(0);
+    const mail = await t.db
+      .select()
+      .from(emailOutbox)
+      .where(eq(emailOutbox.to, people.technician.email));
+    expect(mail.map((m) => m.subject).join("\n")).toContain(
+      "Training lapsed: GR-01 Residue weighing on 5 µm membranes",
+    );
+  });
+
+  it("after the approver's sign-off the retraining clears the queue item", async () => {
+    await t.db.transaction((tx) =>
+      signOffTrainingIn(
+        tx,
+        people.approver,
+        { userId: people.technician.id, methodCode: "GR-01", trainedOn: "2026-12-03" },
+        NOW,
+      ),
+    );
+    const queue = await trainingQueueProvider(
+      { id: people.technician.id, roles: ["technician"] } as never,
+      NOW,
+    );
+    expect(queue.items).toEqual([]);
+  });
+});
