@@ -54,7 +54,7 @@ export function SummaryTiles({ summary }: { summary: PlantOverview["summary"] })
     },
   ];
   return (
-    <nav aria-label="Plant summary">
+    <section aria-label="Plant summary">
       <ul className="grid grid-cols-2 gap-3 md:grid-cols-3 xl:grid-cols-5">
         {tiles.map((t) => (
           <li key={t.label}>
@@ -78,6 +78,6 @@ export function SummaryTiles({ summary }: { summary: PlantOverview["summary"] })
           </li>
         ))}
       </ul>
-    </nav>
+    </section>
   );
 }
