@@ -8,6 +8,7 @@ import { saveLabDetails } from "@/lib/server/lab-report/save-lab-details";
 export const saveLabDetailsAction = defineAction({
   permission: "evidence.record",
   input: runIdSchema,
+  alsoReads: [labDetailsSchema],
   run: async ({ user, input, parse }) => {
     await saveLabDetails(
       { id: user.id, name: user.name },
