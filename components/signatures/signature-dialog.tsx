@@ -25,6 +25,8 @@ export interface SignatureDialogProps {
   /** Extra fields, such as a required comment. */
   children?: ReactNode;
   buttonLabel?: string;
+  /** Send the meaning as a field: only for an action that signs more than one meaning. */
+  postsMeaning?: boolean;
 }
 
 /**
@@ -41,6 +43,7 @@ export function SignatureDialog({
   hidden = {},
   children,
   buttonLabel,
+  postsMeaning = false,
 }: SignatureDialogProps) {
   const dialog = useRef<HTMLDialogElement>(null);
   const label = buttonLabel ?? `Sign as ${MEANING_LABELS[meaning].toLowerCase()}`;
@@ -74,7 +77,7 @@ export function SignatureDialog({
             {Object.entries(hidden).map(([name, value]) => (
               <input key={name} type="hidden" name={name} value={value} />
             ))}
-            <input type="hidden" name="meaning" value={meaning} />
+            {postsMeaning && <input type="hidden" name="meaning" value={meaning} />}
             <input type="hidden" name="contentHash" value={contentHash} />
             {children}
             <Field

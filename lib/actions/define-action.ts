@@ -2,11 +2,7 @@ import "server-only";
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import type { z } from "zod";
-import {
-  misnamedFormFields,
-  unknownFieldErrors,
-  unknownFieldsMessage,
-} from "@/lib/api/strict-keys";
+import { unknownFieldErrors, unknownFieldsMessage, unknownFormFields } from "@/lib/api/strict-keys";
 import {
   declareEndpoint,
   permissionFor,
@@ -48,6 +44,11 @@ interface Common<S extends z.ZodType, R extends RunResult> {
   input: S;
   /** "form" (default): the form's fields; "payload": the JSON the row editors put in one field. */
   from?: "form" | "payload";
+  /**
+   * Schemas the form's other fields are read with: one `parse` picks once the record is known, or
+   * a field the page sends only to say what to refresh. Any other key of the form is refused.
+   */
+  alsoReads?: readonly z.ZodType[];
   /** The headline when the input fails its schema; the field errors go beside the fields. */
   invalidMessage?: string;
   /** Pages to refresh after a success; a function gets the parsed input, `run`'s result and the form as read. */
@@ -120,14 +121,12 @@ async function perform<S extends z.ZodType, R extends RunResult>(
   raw: unknown,
   run: (ctx: ActionContext<z.output<S>>) => Promise<R>,
 ): Promise<ActionState<R>> {
-  // A JSON payload is an object like an API body: a key its schema does not know is refused by
-  // name, never dropped. (A form's fields are read by name, so only what the schema asks is used.)
-  // A form's own fields are strict too where a key can only be a mistake: under a known field
-  // ("counts.b") or a known name in the wrong case. The page's other hidden fields pass.
+  // A key the action does not read is refused by name, never dropped, whether the body is a JSON
+  // payload (like an API body) or a form's fields (which may also be read by `alsoReads`).
   const extra =
     options.from === "payload"
       ? unknownFieldErrors(options.input, raw)
-      : misnamedFormFields(options.input, raw);
+      : unknownFormFields(options.input, raw, options.alsoReads);
   if (extra)
     return {
       ok: false,
@@ -138,8 +137,9 @@ async function perform<S extends z.ZodType, R extends RunResult>(
   if (!parsed.success) return invalid(parsed.error, options.invalidMessage) as ActionState<R>;
   const input = parsed.data as z.output<S>;
   const parse = <T extends z.ZodType>(schema: T, value: unknown = raw): z.output<T> => {
-    // The value also holds the fields the action's own input read (the run's id): only mistakes count.
-    const misnamed = misnamedFormFields(schema, value);
+    // The value also holds the fields the action's own input read (the run's id); any other key is
+    // one neither schema reads.
+    const misnamed = unknownFormFields(schema, value, [options.input]);
     if (misnamed)
       throw new InputRefused({
         ok: false,

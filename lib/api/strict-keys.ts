@@ -26,6 +26,11 @@ export function knownKeys(schema: z.ZodType): Set<string> | null {
   if (!def) return null;
   if (def.type === "object" && def.shape) return new Set(Object.keys(def.shape));
   if (def.type === "pipe" && def.in) return knownKeys(def.in);
+  if (def.type === "union" && def.options) {
+    // Any option's fields (a method's kind picks which): the full check is the option's own.
+    const sets = def.options.map(knownKeys);
+    return sets.every(Boolean) ? new Set(sets.flatMap((k) => [...k!])) : null;
+  }
   const inner = def.innerType ?? def.schema;
   return inner ? knownKeys(inner) : null;
 }
@@ -126,20 +131,21 @@ export function unknownFieldsMessage(errors: Record<string, string[]>): string {
 }
 
 /**
- * The unknown keys of a submitted form that are surely mistakes: a key under a field the schema
- * knows ("counts.b" beside "counts.B"), or a top-level key that differs from a known one only in
- * case ("Reason"). A form may carry other fields for its page (a hidden id that only tells the
- * page what to refresh), so a wholly different top-level name is left to the schema to ignore.
+ * Every key of a submitted form that its action does not read, refused by name rather than
+ * dropped: a lower-case class under "counts" or a mis-typed field would otherwise vanish and the
+ * record would look complete. A form's action reads its input schema and, for some forms, a
+ * second schema chosen once the record is known (a run's test type picks its sample schema) or
+ * a field the page sends only to say what to refresh: those are the `alsoReads` schemas, whose
+ * top-level keys pass here and are checked in full when that schema is parsed.
  */
-export function misnamedFormFields(
+export function unknownFormFields(
   schema: z.ZodType,
   form: unknown,
+  alsoReads: readonly z.ZodType[] = [],
 ): Record<string, string[]> | null {
   const all = unknownFieldErrors(schema, form);
   if (!all) return null;
-  const known = [...(knownKeys(schema) ?? [])].map((k) => k.toLowerCase());
-  const kept = Object.entries(all).filter(
-    ([path]) => path.includes(".") || known.includes(path.toLowerCase()),
-  );
+  const readLater = new Set(alsoReads.flatMap((other) => [...(knownKeys(other) ?? [])]));
+  const kept = Object.entries(all).filter(([path]) => path.includes(".") || !readLater.has(path));
   return kept.length ? Object.fromEntries(kept) : null;
 }

@@ -25,13 +25,9 @@ function refresh(documentId?: string) {
 }
 
 /** Signing forms name the version; they also send the document's id so its page is refreshed. */
+const documentToRefresh = z.object({ documentId: z.string().optional() });
 const refreshDocumentOf = (_input: unknown, _result: unknown, raw: unknown) =>
-  refresh(
-    z
-      .string()
-      .uuid()
-      .safeParse((raw as Record<string, unknown> | null)?.documentId).data,
-  );
+  refresh(z.string().uuid().safeParse(documentToRefresh.safeParse(raw).data?.documentId).data);
 
 export const createDocumentAction = defineAction({
   permission: "document.draft",
@@ -60,6 +56,7 @@ export const submitAction = defineAction({
     await submitForReview(user, input);
     return { message: "Submitted and signed as authored. The first reviewers have been e-mailed." };
   },
+  alsoReads: [documentToRefresh],
   revalidate: refreshDocumentOf,
 });
 
@@ -71,6 +68,7 @@ export const signReviewAction = defineAction({
     await signReview(user, input);
     return { message: "Signed as reviewed." };
   },
+  alsoReads: [documentToRefresh],
   revalidate: refreshDocumentOf,
 });
 
@@ -86,6 +84,7 @@ export const approveAction = defineAction({
         : `Approved; it becomes effective on ${input.effectiveDate}.`,
     };
   },
+  alsoReads: [documentToRefresh],
   revalidate: refreshDocumentOf,
 });
 
@@ -97,6 +96,7 @@ export const sendBackAction = defineAction({
     await returnToAuthor(user, { ...input, decision: "sent_back" });
     return { message: "Sent back; the author has been told." };
   },
+  alsoReads: [documentToRefresh],
   revalidate: refreshDocumentOf,
 });
 
@@ -108,6 +108,7 @@ export const rejectAction = defineAction({
     await returnToAuthor(user, { ...input, decision: "rejected" });
     return { message: "Rejected; the author has been told." };
   },
+  alsoReads: [documentToRefresh],
   revalidate: refreshDocumentOf,
 });
 

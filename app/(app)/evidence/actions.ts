@@ -42,6 +42,7 @@ export const createRunAction = defineAction({
 export const addSampleAction = defineAction({
   permission: "evidence.record",
   input: runIdSchema,
+  alsoReads: Object.values(SAMPLE_SCHEMAS),
   run: async ({ user, input, parse }) => {
     const run = await getRunRow(getDb(), input.runId);
     if (!run) throw new UserFacingError("This test run does not exist.", { kind: "not_found" });
@@ -78,6 +79,7 @@ export const detachFileAction = defineAction({
 export const saveRunDataAction = defineAction({
   permission: "evidence.record",
   input: runIdSchema,
+  alsoReads: [particleRunDataSchema],
   run: async ({ user, input, parse }) => {
     await saveRunData(actorOf(user), { runId: input.runId, data: parse(particleRunDataSchema) });
     return { message: "Extraction series and blank saved." };

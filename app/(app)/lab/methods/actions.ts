@@ -8,6 +8,7 @@ import { draftMethod } from "@/lib/server/lab-methods/draft-method";
 export const draftMethodAction = defineAction({
   permission: "lab.method_draft",
   input: methodFormSchema,
+  alsoReads: [labMethodSchema],
   invalidMessage:
     "Some values need attention. Nothing was saved; everything you typed is still here.",
   run: async ({ user, input, raw, parse }) => {

@@ -398,6 +398,7 @@ export default async function NonconformancePage({
         {readyToClose && !authored && can(user.roles, "nc.work") && (
           <SignatureDialog
             action={signClosureAction}
+            postsMeaning
             recordType="nonconformance"
             meaning="authored"
             signerName={user.name}
@@ -413,6 +414,7 @@ export default async function NonconformancePage({
           can(user.roles, "nc.approve") && (
             <SignatureDialog
               action={signClosureAction}
+              postsMeaning
               recordType="nonconformance"
               meaning="approved"
               signerName={user.name}

@@ -12,6 +12,7 @@ import { citeInstruments } from "@/lib/server/instruments/cite-instruments";
 export const saveLabDetailsAction = defineAction({
   permission: "evidence.record",
   input: runIdSchema,
+  alsoReads: [labDetailsSchema],
   run: async ({ user, input, parse }) => {
     await saveLabDetails(
       { id: user.id, name: user.name },

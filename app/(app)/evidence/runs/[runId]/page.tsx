@@ -370,6 +370,7 @@ export default async function RunPage({
             {open && run.technicianId === user.id && can(user.roles, "evidence.sign_performed") && (
               <SignatureDialog
                 action={signRunAction}
+                postsMeaning
                 recordType="test_run"
                 meaning="performed"
                 signerName={user.name}
@@ -383,6 +384,7 @@ export default async function RunPage({
               performedBy?.userId !== user.id && (
                 <SignatureDialog
                   action={signRunAction}
+                  postsMeaning
                   recordType="test_run"
                   meaning="verified"
                   signerName={user.name}
