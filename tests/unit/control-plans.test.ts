@@ -11,6 +11,8 @@ import {
   requalificationIntervals,
   signatures,
   sites,
+  testRuns,
+  testSamples,
   users,
 } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
@@ -127,6 +129,46 @@ describe("the demo's control plan", () => {
     );
     expect(after.state).toBe("ok");
     expect(after.dueAt! > now.toISOString()).toBe(true);
+  });
+});
+
+describe("independent samples", () => {
+  it("a run counts for a line only when its parts came out of the line's number of distinct cycles", async () => {
+    const [line] = (await listDueControlPlanTests()).filter(
+      (d) => d.characteristic === "gravimetric_residue",
+    );
+    expect(line.minCycles).toBe(3);
+    const before = line.lastDoneAt;
+    const [run] = await t.db
+      .insert(testRuns)
+      .values({
+        number: "TR-CP-CYCLES",
+        partFamilyId: line.partFamilyId,
+        recipeVersionId: line.recipeVersionId,
+        testType: "gravimetric",
+        status: "verified",
+        outcome: "pass",
+        createdBy: people.technician.id,
+        createdAt: new Date(Date.now() - 60_000).toISOString(),
+      })
+      .returning();
+    const sample = (label: string, cycleNumber: string) => ({
+      runId: run.id,
+      sampleLabel: label,
+      cycleNumber,
+      data: { residueMg: 0.4 },
+    });
+    // Three parts, all from one basket of one cycle: not three independent samples.
+    await t.db
+      .insert(testSamples)
+      .values([sample("S1", "C-9001"), sample("S2", "C-9001"), sample("S3", "C-9002")]);
+    const [still] = (await listDueControlPlanTests()).filter((d) => d.lineId === line.lineId);
+    expect(still.lastDoneAt).toBe(before);
+    // A part from a third cycle makes it count.
+    await t.db.insert(testSamples).values(sample("S4", "C-9003"));
+    const [after] = (await listDueControlPlanTests()).filter((d) => d.lineId === line.lineId);
+    expect(after.lastDoneAt).toBe(run.createdAt);
+    expect(after.state).toBe("ok");
   });
 });
 

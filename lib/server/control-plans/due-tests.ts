@@ -12,6 +12,7 @@ import {
   recipeVersions,
   systemStages,
   testRuns,
+  testSamples,
   washCycleLots,
   washCycles,
 } from "@/db/schema";
@@ -156,6 +157,11 @@ export async function listDueControlPlanTests(
               eq(testRuns.testType, testType),
               eq(testRuns.status, "verified"),
               lte(testRuns.createdAt, nowIso),
+              // Parts from one basket are not independent samples: a run satisfies the line only
+              // when its samples came out of at least the line's number of distinct cycles.
+              line.minCycles && line.minCycles > 1
+                ? sql`(select count(distinct ${testSamples.cycleNumber}) from ${testSamples} where ${testSamples.runId} = ${testRuns.id}) >= ${line.minCycles}`
+                : undefined,
             ),
           )
           .orderBy(desc(testRuns.createdAt))
