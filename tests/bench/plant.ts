@@ -105,7 +105,9 @@ const tracePair = await (async () => {
     client.close();
   }
 })();
-const traceLine = `Trace page's reads in this process (choosers, the recipe's parameters, the newest timeline entries): p50 ${tracePair.page.p50.toFixed(1)} ms, p95 ${tracePair.page.p95.toFixed(1)} ms; anchor, raw SQL for the same rows: p50 ${tracePair.raw.p50.toFixed(1)} ms, p95 ${tracePair.raw.p95.toFixed(1)} ms; ratio ${(tracePair.page.p50 / tracePair.raw.p50).toFixed(1)}× at p50, ${(tracePair.page.p95 / tracePair.raw.p95).toFixed(1)}× at p95.`;
+const ms = (x: { p50: number; p95: number }) =>
+  `p50 ${x.p50.toFixed(1)} ms, p95 ${x.p95.toFixed(1)} ms`;
+const traceLine = `Trace page's reads in this process (choosers, the recipe's parameters, the newest timeline entries), read again under an unchanged audit chain: ${ms(tracePair.page)}; read cold, as after a write: ${ms(tracePair.cold)}; anchor, raw SQL for the same rows: ${ms(tracePair.raw)}; ratio ${(tracePair.page.p50 / tracePair.raw.p50).toFixed(1)}× again and ${(tracePair.cold.p50 / tracePair.raw.p50).toFixed(1)}× cold at p50.`;
 log(traceLine);
 // [practice] our own bound: a lot lookup an auditor waits on answers well inside a screen refresh.
 if (cycleBench.lotP95 > 50)
@@ -326,7 +328,8 @@ const lines = [
   `| trace p95 ≤ 50 ms at 10 connections | ${at10("Trace")?.p95.toFixed(1) ?? "—"} ms | ${mark(at10("Trace") && at10("Trace")!.p95 <= 50)} |`,
   `| My queue p95 ≤ 50 ms at 1 connection | ${at("My queue", 1)?.p95.toFixed(1) ?? "—"} ms | ${mark(at("My queue", 1) && at("My queue", 1)!.p95 <= 50)} |`,
   `| My queue p95 ≤ 200 ms at 10 connections | ${at10("My queue")?.p95.toFixed(1) ?? "—"} ms | ${mark(at10("My queue") && at10("My queue")!.p95 <= 200)} |`,
-  `| trace page's reads ≤ 3× raw SQL for the same rows (p50) | ${(tracePair.page.p50 / tracePair.raw.p50).toFixed(1)}× | ${mark(tracePair.page.p50 <= 3 * tracePair.raw.p50)} |`,
+  `| trace page's reads ≤ 3× raw SQL for the same rows (p50), read again | ${(tracePair.page.p50 / tracePair.raw.p50).toFixed(1)}× | ${mark(tracePair.page.p50 <= 3 * tracePair.raw.p50)} |`,
+  `| trace page's reads ≤ 3× raw SQL for the same rows (p50), cold after a write | ${(tracePair.cold.p50 / tracePair.raw.p50).toFixed(1)}× | ${mark(tracePair.cold.p50 <= 3 * tracePair.raw.p50)} |`,
   `| audit page p95 ≤ 100 ms at 10 connections | ${at10("Audit")?.p95.toFixed(1) ?? "—"} ms | ${mark(at10("Audit") && at10("Audit")!.p95 <= 100)} |`,
   `| verification ≥ 50 % of raw hashing | ${(ratio * 100).toFixed(1)} % | ${mark(ratio >= 0.5)} |`,
   `| server RSS ≤ 400 MB | ${(peak.kb / 1024).toFixed(0)} MB | ${mark(peak.kb / 1024 <= 400)} |`,

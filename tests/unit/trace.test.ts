@@ -24,6 +24,7 @@ import { loadAuditPack } from "@/lib/server/trace/audit-pack";
 import { exportAuditPack } from "@/lib/server/trace/export-audit-pack";
 import { writeCheckpoint } from "@/lib/server/audit/write-checkpoint";
 import {
+  forgetParameterHistories,
   getParameterHistory,
   listTraceableParameters,
   listTraceScopes,
@@ -122,6 +123,7 @@ describe("parameter history", () => {
 
   it("reads a parameter's history in the same number of statements however many changes it had", async () => {
     const statements = async (recipeId: string, key: string) => {
+      forgetParameterHistories(); // a cold read, not the one remembered from the test above
       const spy = vi.spyOn(t.client, "execute");
       try {
         const h = (await getParameterHistory({ recipeId, key }))!;
@@ -134,10 +136,11 @@ describe("parameter history", () => {
     const quiet = await statements(valveBody, "wash.time");
     expect(busy.changes).toBeGreaterThanOrEqual(2);
     expect(quiet.changes).toBe(0);
-    // Four statements for the recipe, its versions and parameters, then a fixed set for all the changes together.
+    // The audit chain's head, four statements for the recipe, its versions and parameters, then a
+    // fixed set for all the changes together.
     expect(busy.count).toBeGreaterThan(quiet.count);
-    expect(busy.count).toBeLessThanOrEqual(20);
-    expect(quiet.count).toBeLessThanOrEqual(6);
+    expect(busy.count).toBeLessThanOrEqual(21);
+    expect(quiet.count).toBeLessThanOrEqual(7);
   });
 
   it("lists every value a parameter that changed several times has had, in order, each with the change that brought it", async () => {
@@ -432,4 +435,22 @@ describe("audit pack", () => {
       expect(exports.every((e) => e.actorName === people.auditor.name)).toBe(true);
     },
   );
+});
+
+describe("a trace read again", () => {
+  it("is read once per audit chain head, and again after any audited write", async () => {
+    const input = { recipeId: valveBody, key: "wash.temperature" };
+    const first = (await getParameterHistory(input, { newest: 10 }))!;
+    // Nothing was written: the same history, not a second read.
+    expect(await getParameterHistory(input, { newest: 10 })).toBe(first);
+    const title = "Wash valve bodies at 60 °C again";
+    await changeWashTemperature(title, "60");
+    const after = (await getParameterHistory(input, { newest: 10 }))!;
+    expect(after).not.toBe(first);
+    expect(after.entries.at(-1)?.change?.title).toBe(title);
+    expect(first.entries.some((e) => e.change?.title === title)).toBe(false);
+    // And what it remembered is what a cold read gives.
+    forgetParameterHistories();
+    expect(await getParameterHistory(input, { newest: 10 })).toEqual(after);
+  });
 });

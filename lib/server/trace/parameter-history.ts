@@ -1,9 +1,10 @@
 import "server-only";
 import { loadEmergencies } from "@/lib/server/changes/emergencies";
 import { showsEmergency } from "@/lib/changes/emergency";
-import { and, asc, eq, inArray, sql } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
+import { getDb, type Executor } from "@/db/client";
 import {
+  auditEvents,
   changeRequests,
   cleaningSystems,
   partFamilies,
@@ -127,6 +128,54 @@ export async function getParameterHistory(
   options: { newest?: number } = {},
 ) {
   const db = getDb();
+  // Every committed write appends an audit event in its own transaction, so the chain's newest hash
+  // names the state of the data: a history read under the same head is the same history. It is read
+  // first, so a write landing during the read can only leave a newer history under an older head,
+  // which the next request reads again.
+  const chainHead = await auditChainHead(db);
+  const cacheKey = `${input.recipeId}|${input.key}|${options.newest ?? "all"}`;
+  const perDb = historyCache.get(db) ?? new Map<string, CachedHistory>();
+  historyCache.set(db, perDb);
+  const hit = perDb.get(cacheKey);
+  if (hit && hit.chainHead === chainHead) {
+    perDb.delete(cacheKey);
+    perDb.set(cacheKey, hit); // most recently used last
+    return hit.history;
+  }
+  const history = await readParameterHistory(db, input, options);
+  perDb.set(cacheKey, { chainHead, history });
+  if (perDb.size > HISTORY_CACHE_SIZE) perDb.delete(perDb.keys().next().value!);
+  return history;
+}
+
+type History = Awaited<ReturnType<typeof readParameterHistory>>;
+interface CachedHistory {
+  chainHead: string | null;
+  history: History;
+}
+/** Histories recently read, per database, each under the audit chain head it was read at. */
+const historyCache = new WeakMap<object, Map<string, CachedHistory>>();
+const HISTORY_CACHE_SIZE = 64;
+
+/** Drops the remembered histories, so the next read is a cold one (the benchmark measures both). */
+export function forgetParameterHistories() {
+  historyCache.delete(getDb());
+}
+
+async function auditChainHead(db: Executor): Promise<string | null> {
+  const [row] = await db
+    .select({ hash: auditEvents.hash })
+    .from(auditEvents)
+    .orderBy(desc(auditEvents.seq))
+    .limit(1);
+  return row?.hash ?? null;
+}
+
+async function readParameterHistory(
+  db: ReturnType<typeof getDb>,
+  input: { recipeId: string; key: string },
+  options: { newest?: number },
+) {
   const [head] = await db
     .select({ recipe: recipes, system: cleaningSystems })
     .from(recipes)
