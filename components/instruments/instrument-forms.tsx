@@ -169,6 +169,7 @@ export function CalibrationForm({
   return (
     <ActionForm
       action={recordCalibrationAction}
+      resetOnSuccess
       className="grid gap-4 sm:grid-cols-2"
       aria-label="Record a calibration"
     >

@@ -1,11 +1,7 @@
 import { IntentLink } from "@/components/ui/intent-link";
 import { Table, TBody, Td, Th, THead, EmptyRow } from "@/components/ui/table";
 import { formatDate } from "@/lib/format/date";
-import {
-  OVERDUE_SOURCE_LABELS,
-  OVERDUE_STATE_LABELS,
-  type OverdueTest,
-} from "@/lib/overview/overdue";
+import { OVERDUE_SOURCE_LABELS, overdueStateLabel, type OverdueTest } from "@/lib/overview/overdue";
 import { CellState } from "./state-word";
 
 /** Rows shown: overdue first, so the oldest are always on the page; the rest are counted. */
@@ -15,9 +11,11 @@ export const OVERDUE_ROWS_SHOWN = 50;
 export function OverdueTable({
   items,
   counts,
+  now = new Date(),
 }: {
   items: OverdueTest[];
   counts: Record<OverdueTest["state"], number>;
+  now?: Date;
 }) {
   return (
     <section id="overdue-tests" aria-labelledby="overdue-title" className="mt-8 scroll-mt-4">
@@ -25,8 +23,8 @@ export function OverdueTable({
         Overdue tests
       </h2>
       <p className="mb-2 text-sm text-stone-600">
-        {counts.overdue} overdue, {counts.due} due soon: periodic requalifications, equipment checks
-        and bath readings whose interval has run out.
+        {counts.overdue} overdue, {counts.due} due now or soon: periodic requalifications, equipment
+        checks, bath readings whose interval has run out, and the routine tests of control plans.
       </p>
       <Table caption="Overdue and due tests and checks">
         <THead>
@@ -42,7 +40,7 @@ export function OverdueTable({
             <tr key={`${i.source}-${i.href}-${i.characteristic}-${i.subject}`}>
               <Td>
                 <CellState level={i.state === "overdue" ? "bad" : "warn"}>
-                  {OVERDUE_STATE_LABELS[i.state]}
+                  {overdueStateLabel(i, now)}
                 </CellState>
               </Td>
               <Td>{formatDate(i.dueAt)}</Td>

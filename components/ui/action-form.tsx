@@ -134,7 +134,7 @@ export function ActionForm<S extends FormState>({
         {state && !state.ok && (
           <div
             role="alert"
-            className="mb-4 rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900"
+            className="col-span-full mb-4 rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900"
           >
             <p>{state.message}</p>
             {state.fieldErrors && (
@@ -149,7 +149,7 @@ export function ActionForm<S extends FormState>({
         {showSuccess && state?.ok && state.message && (
           <p
             role="status"
-            className="mb-4 rounded-md border border-brand-300 bg-brand-50 px-3 py-2 text-sm text-brand-900"
+            className="col-span-full mb-4 rounded-md border border-brand-300 bg-brand-50 px-3 py-2 text-sm text-brand-900"
           >
             {state.message}
           </p>

@@ -1,6 +1,6 @@
 "use client";
 
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { FileField } from "@/components/ui/field";
 
 /**
@@ -26,6 +26,19 @@ export function StoredFileUpload({
 }) {
   const [stored, setStored] = useState<{ id: string; name: string } | null>(null);
   const [status, setStatus] = useState<{ error: boolean; text: string } | null>(null);
+  // When the form is reset after a save, the stored file goes with it: a second record saved
+  // without choosing a file must not cite the first one's.
+  const box = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const form = box.current?.closest("form");
+    if (!form) return;
+    const forget = () => {
+      setStored(null);
+      setStatus(null);
+    };
+    form.addEventListener("reset", forget);
+    return () => form.removeEventListener("reset", forget);
+  }, []);
   async function upload(file: File | null) {
     setStatus(null);
     setStored(null);
@@ -55,7 +68,7 @@ export function StoredFileUpload({
     }
   }
   return (
-    <div className="space-y-1">
+    <div ref={box} className="space-y-1">
       <input type="hidden" name={name} value={stored?.id ?? ""} />
       <FileField
         label={label}

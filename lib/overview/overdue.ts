@@ -31,6 +31,12 @@ export const OVERDUE_STATE_LABELS: Record<OverdueState, string> = {
   due: "Due soon",
 };
 
+/** The state in words: a test not yet overdue whose date has come is due now, not "soon". */
+export function overdueStateLabel(item: Pick<OverdueTest, "state" | "dueAt">, now: Date): string {
+  if (item.state === "due" && item.dueAt <= now.toISOString()) return "Due now";
+  return OVERDUE_STATE_LABELS[item.state];
+}
+
 export const OVERDUE_SOURCE_LABELS: Record<OverdueSource, string> = {
   requalification: "Requalification",
   equipment_check: "Equipment check",

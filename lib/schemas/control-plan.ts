@@ -9,13 +9,18 @@ import {
 import { isTimeZone } from "@/lib/control-plans/zone";
 import { storedText } from "@/lib/schemas/text";
 
-/** A whole number typed as text; empty is null. */
-const count = (what: string) =>
+/**
+ * A whole number typed as text; empty is null. Its lower bound is checked on the field itself, so
+ * it is named in the same answer as every other field's mistake (a whole-line rule runs only once
+ * each field reads).
+ */
+const count = (what: string, least = 0, tooFew = `${what} cannot be below ${least}.`) =>
   z.preprocess(
     (v) => (typeof v === "string" ? (v.trim() === "" ? null : Number(v)) : (v ?? null)),
     z
       .number({ error: `Enter ${what} as a whole number.` })
       .int(`Enter ${what} as a whole number.`)
+      .min(least, tooFew.charAt(0).toUpperCase() + tooFew.slice(1))
       .max(10_000)
       .nullable(),
   );
@@ -29,10 +34,14 @@ export const controlPlanLineSchema = z
       .trim()
       .transform((v) => (v === "" ? null : v))
       .pipe(z.uuid({ error: "Choose the tank." }).nullable()),
-    sampleSize: count("the sample size"),
-    minCycles: count("the number of cycles"),
+    sampleSize: count(
+      "the sample size",
+      1,
+      "a sample size below 1 tests nothing: at least 1 part (or 1 reading).",
+    ),
+    minCycles: count("the number of cycles", 1, "at least 1 cycle."),
     frequency: z.enum(FREQUENCIES, { error: "Choose how often." }),
-    everyN: count("N"),
+    everyN: count("N", 1, "N must be at least 1 cycle."),
     reactionPlan: storedText()
       .trim()
       .min(1, "Say what to do when a result is out: a line without a reaction plan is refused.")
@@ -42,11 +51,8 @@ export const controlPlanLineSchema = z
     const issue = (path: string, message: string) =>
       ctx.addIssue({ code: "custom", path: [path], message });
     if (line.sampleSize === null) issue("sampleSize", "Give the sample size.");
-    else if (line.sampleSize < 1)
-      issue("sampleSize", "A sample size of 0 tests nothing: at least 1 part (or 1 reading).");
     if (line.frequency === "every_n_cycles") {
       if (line.everyN === null) issue("everyN", "Give N: every how many cycles.");
-      else if (line.everyN < 1) issue("everyN", "N must be at least 1 cycle.");
       else if (line.everyN > 500) issue("everyN", "At most every 500 cycles.");
     } else if (line.everyN !== null)
       issue("everyN", "N applies only to “every N cycles”: leave it empty.");
@@ -55,7 +61,6 @@ export const controlPlanLineSchema = z
     } else if (line.stageId !== null)
       issue("stageId", "A test on parts names no tank: leave it empty.");
     if (takesMinCycles(line.characteristic)) {
-      if (line.minCycles !== null && line.minCycles < 1) issue("minCycles", "At least 1 cycle.");
       if (line.minCycles !== null && line.sampleSize !== null && line.minCycles > line.sampleSize)
         issue(
           "minCycles",

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import "./messages";
 import { calendarDate, calendarDateTime } from "./date";
+import { todayUtc } from "@/lib/format/date";
 import { auditReason, optionalAuditReason, storedText } from "@/lib/schemas/text";
 import {
   BATH_RECORD_KINDS,
@@ -118,7 +119,17 @@ const sampleBase = z.object({
     .min(1, "Enter the sample's part serial or label.")
     .max(60, "Use at most 60 characters."),
   /** The washer's cycle id the part came out of: samples from distinct cycles are independent. */
-  cycleNumber: optionalText(60),
+  cycleNumber: z.preprocess(
+    (v) => (blank(v) ? undefined : v),
+    storedText()
+      .trim()
+      .max(60, "Use at most 60 characters.")
+      .regex(
+        /^[A-Za-z0-9][A-Za-z0-9._/-]*$/,
+        "Enter the washer's cycle id as printed: it starts with a letter or digit (not a minus sign).",
+      )
+      .optional(),
+  ),
   basketPosition: optionalText(60),
   worstCase: checkbox,
 });
@@ -255,6 +266,10 @@ export const SAMPLE_SCHEMAS = {
 const uuid = z.string().uuid("Choose from the list.");
 const optionalUuid = z.preprocess((v) => (blank(v) ? undefined : v), uuid.optional());
 
+function latestToday(now = new Date()): string {
+  return todayUtc(new Date(now.getTime() + 24 * 3_600_000));
+}
+
 export const createRunSchema = z.object({
   partFamilyId: uuid,
   recipeVersionId: uuid,
@@ -264,7 +279,12 @@ export const createRunSchema = z.object({
     .trim()
     .min(2, "Name the analysing lab.")
     .max(120),
-  performedOn: calendarDate("Enter the test date."),
+  // A test is recorded on or after the day it was done. The UTC date plus one is today somewhere
+  // on Earth (a plant east of Greenwich is a day ahead of UTC in its morning).
+  performedOn: calendarDate("Enter the test date.").refine(
+    (d) => d <= latestToday(),
+    "The test date cannot be in the future.",
+  ),
   protocolDocumentId: optionalUuid,
   changeRequestId: optionalUuid,
   requirement: optionalText(120),

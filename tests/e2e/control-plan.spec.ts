@@ -41,7 +41,7 @@ test("the engineer drafts a control plan, a reviewer and an approver sign it, an
   await line.getByLabel("Frequency 1").selectOption({ label: "Every N cycles" });
   await line.getByLabel("Every N cycles 1").fill("0");
   await page.getByRole("button", { name: "Save draft" }).click();
-  await expect(line.getByText("A sample size of 0 tests nothing")).toBeVisible();
+  await expect(line.getByText("A sample size below 1 tests nothing")).toBeVisible();
   await expect(line.getByText("N must be at least 1 cycle.")).toBeVisible();
   await expect(line.getByText("a line without a reaction plan is refused")).toBeVisible();
   await expect(line.getByLabel("Method 1")).toHaveValue(

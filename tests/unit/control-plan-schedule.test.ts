@@ -264,6 +264,12 @@ describe("control plan line input", () => {
     expect(Object.keys(errors({ reactionPlan: "   " }))).toEqual(["reactionPlan"]);
   });
 
+  it("names every field's mistake in one answer: a negative sample size beside unreadable counts", () => {
+    const e = errors({ sampleSize: "-2", minCycles: "abc", everyN: "ten" });
+    expect(Object.keys(e).sort()).toEqual(["everyN", "minCycles", "sampleSize"]);
+    expect(e.sampleSize).toMatch(/below 1 tests nothing/);
+  });
+
   it("asks a bath line for its tank and refuses distinct cycles on it", () => {
     expect(Object.keys(errors({ characteristic: "ph", minCycles: "" }))).toEqual(["stageId"]);
     expect(Object.keys(errors({ characteristic: "ph", stageId: crypto.randomUUID() }))).toEqual([

@@ -214,3 +214,32 @@ describe("formToObject", () => {
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
   });
 });
+
+describe("dates and cycle ids a user can mistype", () => {
+  const run = {
+    partFamilyId: "7c9e6679-7425-40de-944b-e07fc1f90ae7",
+    recipeVersionId: "7c9e6679-7425-40de-944b-e07fc1f90ae8",
+    testType: "gravimetric",
+    technicianId: "7c9e6679-7425-40de-944b-e07fc1f90ae9",
+    lab: "Larchfield cleanliness lab",
+  };
+  const day = (offsetDays: number) =>
+    new Date(Date.now() + offsetDays * 86_400_000).toISOString().slice(0, 10);
+
+  it("refuses a test dated months ahead, and takes today", () => {
+    const ahead = createRunSchema.safeParse({ ...run, performedOn: day(90) });
+    expect(ahead.error?.issues.map((i) => [i.path[0], i.message])).toEqual([
+      ["performedOn", "The test date cannot be in the future."],
+    ]);
+    expect(createRunSchema.safeParse({ ...run, performedOn: day(0) }).success).toBe(true);
+  });
+
+  it("refuses a sample's cycle id that starts with a minus sign", () => {
+    const sample = { ...id, components: "1", filterBeforeMg: "91.42", filterAfterMg: "94.63" };
+    const bad = gravimetricSampleSchema.safeParse({ ...sample, cycleNumber: "-4" });
+    expect(bad.error?.issues.map((i) => i.path[0])).toEqual(["cycleNumber"]);
+    expect(
+      gravimetricSampleSchema.safeParse({ ...sample, cycleNumber: "AW3-261201-2" }).success,
+    ).toBe(true);
+  });
+});

@@ -12,6 +12,7 @@ import {
 import {
   countOverdue,
   fromControlPlan,
+  overdueStateLabel,
   sortOverdue,
   type OverdueTest,
 } from "@/lib/overview/overdue";
@@ -353,6 +354,21 @@ describe("overdue tests", () => {
     expect(rows.map((r) => [r.characteristic, r.subject, r.href])).toEqual([
       ["Dryness", "Qualified combination", "/control-plans/p1"],
     ]);
+  });
+});
+
+describe("the overdue list's state in words", () => {
+  it("says a test whose date has passed but is not yet overdue is due now, not soon", () => {
+    const now = new Date("2026-12-03T06:00:00.000Z");
+    expect(overdueStateLabel({ state: "due", dueAt: "2026-11-28T06:00:00.000Z" }, now)).toBe(
+      "Due now",
+    );
+    expect(overdueStateLabel({ state: "due", dueAt: "2026-12-15T06:00:00.000Z" }, now)).toBe(
+      "Due soon",
+    );
+    expect(overdueStateLabel({ state: "overdue", dueAt: "2026-11-01T06:00:00.000Z" }, now)).toBe(
+      "Overdue",
+    );
   });
 });
 

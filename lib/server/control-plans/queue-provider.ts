@@ -49,7 +49,9 @@ export const controlPlanQueueProvider: QueueProvider = async (user, now) => {
         title: `${CHARACTERISTIC_LABELS[t.characteristic]}${where} · ${t.combination}`,
         detail: `${DUE_STATE_LABELS[t.state]} since ${formatDateTime(t.state === "overdue" ? t.overdueAt : t.dueAt)}; ${frequencyWords(t.frequency, t.everyN).toLowerCase()}, ${sampleWords(t.characteristic, t.sampleSize)}${t.minCycles ? ` from ${t.minCycles} cycles` : ""} (${t.method})`,
         href: dueTestHref(t),
-        due: t.overdueAt,
+        // A line counting cycles has no overdue time until its second interval starts: it is
+        // due (and sorted) from when it fell due.
+        due: t.overdueAt ?? t.dueAt,
       });
     }
   }

@@ -151,7 +151,8 @@ export default async function ControlPlanPage({ params }: { params: Promise<{ pl
                 <Td>{formatDateTime(t.overdueAt)}</Td>
                 <Td className="font-semibold">{DUE_STATE_LABELS[t.state]}</Td>
                 <Td>
-                  {t.state !== "ok" ? (
+                  {t.state !== "ok" &&
+                  can(user.roles, t.testType ? "evidence.record" : "bath.record") ? (
                     <IntentLink href={dueTestHref(t)} className="text-brand-800 underline">
                       {t.testType ? "Open a run" : "Record a reading"}
                     </IntentLink>
