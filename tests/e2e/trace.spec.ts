@@ -256,9 +256,10 @@ test("a trace shows the newest entries first and opens older ones from its link,
   await signInAs(page, "auditor");
   await page.getByRole("navigation").getByRole("link", { name: "Trace" }).click();
   await page.getByLabel("Recipe").selectOption({ label: "R-SC1-SF · Fitting, spray" });
+  // The list narrows to the chosen recipe once the choice has gone through: wait for its own row.
   await page
     .getByRole("list", { name: "Matching parameters" })
-    .getByRole("link", { name: /Drying temperature drying\.temperature/ })
+    .getByRole("link", { name: /Drying temperature drying\.temperature.*R-SC1-SF/ })
     .click();
   await expect(page).toHaveURL(/key=drying\.temperature/);
   // One entry a page, so the demo's two versions need the link [db/seed-changes.ts: 90 °C → 105 °C].
