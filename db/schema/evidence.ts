@@ -1,4 +1,5 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { sql } from "drizzle-orm";
 import { TEST_TYPES, RUN_STATUSES, OUTCOMES, EVIDENCE_FILE_KINDS } from "../enums";
 import { bool, createdAt, id } from "./columns";
 import { changeRequests } from "./changes";
@@ -77,8 +78,11 @@ export const testSamples = sqliteTable(
   },
   (t) => [
     index("test_samples_run_idx").on(t.runId),
-    // The lot history finds the runs whose parts came out of a lot's cycles.
-    index("test_samples_cycle_idx").on(t.cycleNumber),
+    // The lot history finds the runs whose parts came out of a lot's cycles. Partial: most samples
+    // name no cycle, and a full index's statistics then tell the planner a cycle id matches them all.
+    index("test_samples_cycle_idx")
+      .on(t.cycleNumber)
+      .where(sql`${t.cycleNumber} is not null`),
   ],
 );
 export type TestSample = typeof testSamples.$inferSelect;

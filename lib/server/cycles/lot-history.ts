@@ -84,6 +84,23 @@ export interface LotHistory {
   nonconformances: LotNonconformance[];
 }
 
+/** Runs with samples naming any of these cycle ids, counted per run and cycle id; read through the cycle index. */
+export function runsNamingCycles(db: Executor, cycleNumbers: string[]) {
+  return db
+    .select({
+      run: testRuns,
+      systemId: recipes.systemId,
+      cycleNumber: testSamples.cycleNumber,
+      samples: sql<number>`count(*)`,
+    })
+    .from(testSamples)
+    .innerJoin(testRuns, eq(testRuns.id, testSamples.runId))
+    .innerJoin(recipeVersions, eq(recipeVersions.id, testRuns.recipeVersionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(inArray(testSamples.cycleNumber, cycleNumbers))
+    .groupBy(testRuns.id, testSamples.cycleNumber);
+}
+
 /**
  * Everything a lot went through, in a fixed number of statements whatever the plant's size: its
  * cycles (by the lot key), the bath each tank held at each cycle's start (one indexed look-back per
@@ -140,19 +157,7 @@ export async function loadLotHistory(db: Executor, lot: string): Promise<LotHist
   const recordById = new Map(records.map((r) => [r.id, r]));
   // Runs whose samples name one of the cycles, on the same washer (cycle ids are unique per washer only).
   const numbers = [...new Set(rows.map((r) => r.c.cycleNumber))];
-  const sampleRows = await db
-    .select({
-      run: testRuns,
-      systemId: recipes.systemId,
-      cycleNumber: testSamples.cycleNumber,
-      samples: sql<number>`count(*)`,
-    })
-    .from(testSamples)
-    .innerJoin(testRuns, eq(testRuns.id, testSamples.runId))
-    .innerJoin(recipeVersions, eq(recipeVersions.id, testRuns.recipeVersionId))
-    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
-    .where(inArray(testSamples.cycleNumber, numbers))
-    .groupBy(testRuns.id, testSamples.cycleNumber);
+  const sampleRows = await runsNamingCycles(db, numbers);
   const onLot = new Set(rows.map((r) => `${r.c.systemId}|${r.c.cycleNumber}`));
   const runs = new Map<string, LotRun>();
   for (const s of sampleRows) {
