@@ -33,9 +33,15 @@ export async function listMaintenance(now = new Date()): Promise<MaintenanceItem
   // The last record of each interval's kind in the same statement (one indexed look-up per interval), not a query per interval.
   const intervals = await db
     .select({
-      interval: maintenanceIntervals,
-      stage: systemStages,
-      system: cleaningSystems,
+      interval: {
+        id: maintenanceIntervals.id,
+        kind: maintenanceIntervals.kind,
+        intervalDays: maintenanceIntervals.intervalDays,
+        warnDays: maintenanceIntervals.warnDays,
+        createdAt: maintenanceIntervals.createdAt,
+      },
+      stage: { id: systemStages.id, name: systemStages.name },
+      system: { id: cleaningSystems.id, code: cleaningSystems.code },
       lastAt: sql<
         string | null
       >`(select max(${bathRecords.performedAt}) from ${bathRecords} where ${bathRecords.stageId} = ${systemStages.id} and ${bathRecords.kind} = ${maintenanceIntervals.kind})`,

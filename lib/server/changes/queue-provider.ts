@@ -1,5 +1,5 @@
 import "server-only";
-import { eq, inArray, sql } from "drizzle-orm";
+import { count, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { changeRequests, changeRequestTests, recipes } from "@/db/schema";
 import { can } from "@/lib/auth/permissions";
@@ -20,14 +20,25 @@ export const openChangeIds = sql`(select id from change_requests indexed by chan
 export const changeQueueProvider: QueueProvider = async (user, now) => {
   const db = getDb();
   const items: QueueItem[] = [];
+  // The fields the items print: a change's whole row carries its assessment details.
   const open = await db
-    .select({ cr: changeRequests, recipeCode: recipes.code })
+    .select({
+      cr: {
+        id: changeRequests.id,
+        number: changeRequests.number,
+        title: changeRequests.title,
+        status: changeRequests.status,
+        impact: changeRequests.impact,
+        createdBy: changeRequests.createdBy,
+      },
+      recipeCode: recipes.code,
+    })
     .from(changeRequests)
     .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
     .where(inArray(changeRequests.id, openChangeIds));
   const tests = open.length
     ? await db
-        .select()
+        .select({ changeRequestId: changeRequestTests.changeRequestId, n: count() })
         .from(changeRequestTests)
         .where(
           inArray(
@@ -35,10 +46,9 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
             open.map((o) => o.cr.id),
           ),
         )
+        .groupBy(changeRequestTests.changeRequestId)
     : [];
-  const requiredCount = new Map<string, number>();
-  for (const t of tests)
-    requiredCount.set(t.changeRequestId, (requiredCount.get(t.changeRequestId) ?? 0) + 1);
+  const requiredCount = new Map(tests.map((t) => [t.changeRequestId, t.n]));
   const gates = await loadGates(
     db,
     open.filter((o) => o.cr.status === "requalification").map((o) => o.cr.id),
