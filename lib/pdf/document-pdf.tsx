@@ -65,7 +65,9 @@ function inline(nodes: RichNode[] = []): ReactNode[] {
   return nodes.map((n, i) => {
     if (n.type === "hardBreak") return "\n";
     if (n.type !== "text") return null;
-    const marks = new Set((n.marks ?? []).map((m) => m.type));
+    // A run without marks is plain text in its block: a nested Text per run costs the layout a node.
+    if (!n.marks?.length) return n.text ?? "";
+    const marks = new Set(n.marks.map((m) => m.type));
     const href = n.marks?.find((m) => m.type === "link")?.attrs?.href;
     return (
       <Text
@@ -85,6 +87,23 @@ function inline(nodes: RichNode[] = []): ReactNode[] {
       </Text>
     );
   });
+}
+
+/** A cell holding one paragraph is that paragraph's text in the cell's box: one node, not three. */
+function tableCell(cell: RichNode, key: number): ReactNode {
+  const style = cell.type === "tableHeader" ? s.headCell : s.cell;
+  const content = cell.content ?? [];
+  if (content.length === 1 && content[0].type === "paragraph")
+    return (
+      <Text key={key} style={style}>
+        {inline(content[0].content)}
+      </Text>
+    );
+  return (
+    <View key={key} style={style}>
+      {content.map((x, i) => block(x, i))}
+    </View>
+  );
 }
 
 function block(node: RichNode, key: number | string, ordinal?: string): ReactNode {
@@ -131,11 +150,7 @@ function block(node: RichNode, key: number | string, ordinal?: string): ReactNod
         <View key={key} style={s.table}>
           {children.map((row, r) => (
             <View key={r} style={s.row} wrap={false}>
-              {(row.content ?? []).map((cell, c) => (
-                <View key={c} style={cell.type === "tableHeader" ? s.headCell : s.cell}>
-                  {(cell.content ?? []).map((x, i) => block(x, i))}
-                </View>
-              ))}
+              {(row.content ?? []).map((cell, c) => tableCell(cell, c))}
             </View>
           ))}
         </View>

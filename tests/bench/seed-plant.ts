@@ -1685,7 +1685,7 @@ export function fortyPageProtocol(number: string): RichNode {
         ]),
       ),
       ul(
-        b(`Record the bath temperature, concentration and conductivity before load case ${n}.`),
+        p(b(`Record the bath temperature, concentration and conductivity before load case ${n}.`)),
         "Record the filter-bag change if the differential pressure passed its limit.",
         "Isolate and lock out the pump before opening the filter housing.",
       ),
