@@ -12,7 +12,7 @@
  */
 import "../../scripts/server-modules-outside-next";
 import { spawn, type ChildProcess } from "node:child_process";
-import { createHash } from "node:crypto";
+import { createHash, generateKeyPairSync } from "node:crypto";
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { cpus, totalmem } from "node:os";
 import { resolve } from "node:path";
@@ -320,7 +320,7 @@ const lines = [
   traceLine,
   `Sizes of the first answers: ${sizes.join(", ")}.`,
   pdfPair
-    ? `Protocol PDF in this process, best of 2: ${pdfPair.pages} pages, ${pdfPair.words.toLocaleString("en")} words, ${(pdfPair.protocolMs / 1000).toFixed(2)} s; anchor, the same words on ${pdfPair.plainPages} plain pages in the same font: ${(pdfPair.plainMs / 1000).toFixed(2)} s; ratio ${pdfRatio.toFixed(1)}×.`
+    ? `Protocol PDF in this process, best of 2: ${pdfPair.pages} pages, ${pdfPair.words.toLocaleString("en")} words, ${(pdfPair.protocolMs / 1000).toFixed(2)} s; anchor, the same words on ${pdfPair.plainPages} plain pages in the same font: ${(pdfPair.plainMs / 1000).toFixed(2)} s; ratio ${pdfRatio.toFixed(1)}×. Second anchor, the same words in the protocol's ${pdfPair.blocks.toLocaleString("en")} text blocks stacked without styles, tables, header or footer: ${(pdfPair.blocksMs / 1000).toFixed(2)} s, ${(pdfPair.blocksMs / pdfPair.plainMs).toFixed(1)}× the plain pages; the protocol is ${(pdfPair.protocolMs / pdfPair.blocksMs).toFixed(2)}× its blocks.`
     : "Protocol PDF beside its plain anchor: not measured.",
   "",
   "| target | figure | |",
@@ -333,7 +333,7 @@ const lines = [
   `| audit page p95 ≤ 100 ms at 10 connections | ${at10("Audit")?.p95.toFixed(1) ?? "—"} ms | ${mark(at10("Audit") && at10("Audit")!.p95 <= 100)} |`,
   `| verification ≥ 50 % of raw hashing | ${(ratio * 100).toFixed(1)} % | ${mark(ratio >= 0.5)} |`,
   `| server RSS ≤ 400 MB | ${(peak.kb / 1024).toFixed(0)} MB | ${mark(peak.kb / 1024 <= 400)} |`,
-  `| protocol PDF ≤ 1.5× a plain document of the same pages and words | ${Number.isFinite(pdfRatio) ? `${pdfRatio.toFixed(1)}×` : "—"} | ${mark(pdfRatio <= 1.5)} |`,
+  `| protocol PDF ≤ 1.5× a plain document of the same pages and words | ${pdfPair ? `${pdfRatio.toFixed(1)}× (its text blocks alone: ${(pdfPair.blocksMs / pdfPair.plainMs).toFixed(1)}×)` : "—"} | ${mark(pdfRatio <= 1.5)} |`,
   // [practice] our own bound: a person waiting on a list notices 2 s; the import used to hold every request for its whole length.
   `| lot history p95 ≤ 50 ms on ${cycleBench.cycles.toLocaleString("en")} cycles | ${cycleBench.lotP95.toFixed(1)} ms | ${mark(cycleBench.lotP95 <= 50)} |`,
   `| longest read beside a 100,000-row import ≤ 2 s | ${imported ? `${imported.max.toFixed(0)} ms` : "—"} | ${mark(imported !== null && imported.max <= 2000)} |`,
@@ -486,6 +486,10 @@ function startServer(p: PlantManifest): ChildProcess {
     APP_URL: BASE,
     SMTP_URL: `smtp://127.0.0.1:${PORT + 1000}`,
     MAILBOX_FILE: `${dataDir}/mailbox.jsonl`,
+    // A key of the run's own, so the server's audit checkpoints are signed as in production.
+    AUDIT_SIGNING_KEY: generateKeyPairSync("ed25519")
+      .privateKey.export({ type: "pkcs8", format: "pem" })
+      .toString(),
   };
   // The production server's heap cap, as `npm start` sets it (package.json is its one place).
   const start = JSON.parse(readFileSync("package.json", "utf8")).scripts.start as string;
