@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { IntentLink } from "@/components/ui/intent-link";
-import { linkButton, secondaryLink } from "@/components/parts/link-styles";
+import { PageNav } from "@/components/ui/page-nav";
+import { linkButton } from "@/components/parts/link-styles";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
@@ -85,21 +86,13 @@ export default async function ControlPlansPage({
         </TBody>
       </Table>
       {pages > 1 && (
-        <nav aria-label="Pages" className="mt-4 flex items-center gap-3 text-sm">
-          {page > 1 && (
-            <IntentLink href={pageHref(page - 1)} className={secondaryLink}>
-              Previous page
-            </IntentLink>
-          )}
-          <span>
-            Page {page} of {pages} ({total} plans)
-          </span>
-          {page < pages && (
-            <IntentLink href={pageHref(page + 1)} className={secondaryLink}>
-              Next page
-            </IntentLink>
-          )}
-        </nav>
+        <PageNav
+          label="Pages of the control plans"
+          page={page}
+          pages={pages}
+          summary={`${total} plans`}
+          href={pageHref}
+        />
       )}
     </>
   );

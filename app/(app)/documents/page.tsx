@@ -6,14 +6,15 @@ import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { DOCUMENT_STATUS_LABELS, TYPE_LABELS } from "@/lib/documents/lifecycle";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { listDocuments } from "@/lib/server/documents/queries";
+import { hasDocuments, listDocuments } from "@/lib/server/documents/queries";
+import { PageNav } from "@/components/ui/page-nav";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { DOCUMENT_STATUSES, DOCUMENT_TYPES } from "@/db/enums";
-import { fromPageParams, readListParams, rowMatches } from "@/lib/url/list-params";
+import { fromPageParams, listSearch, readListParams } from "@/lib/url/list-params";
 
-/** The list's filters, read from the address so a filtered list can be linked and reloaded. */
-const FILTERS = { type: "", status: "", q: "" };
+/** The list's filters and page, read from the address so a filtered list can be linked and reloaded. */
+const FILTERS = { type: "", status: "", q: "", page: "1" };
 
 export const metadata: Metadata = { title: "Documents" };
 
@@ -24,17 +25,13 @@ export default async function DocumentsPage({
 }) {
   const user = await requirePageUser("documents.view");
   const filters = readListParams(fromPageParams(await searchParams), FILTERS);
-  const all = await listDocuments();
-  const rows = all.filter((d) =>
-    rowMatches({
-      equals: {
-        type: { want: filters.type, have: d.type },
-        status: { want: filters.status, have: d.latest.status },
-      },
-      q: filters.q,
-      text: [d.number, d.title, d.owner],
-    }),
-  );
+  const [list, any] = await Promise.all([
+    listDocuments({ ...filters, page: Number.parseInt(filters.page, 10) || 1 }),
+    hasDocuments(),
+  ]);
+  const rows = list.rows;
+  const pageHref = (page: number) =>
+    `/documents${listSearch({ ...filters, page: String(page) }, FILTERS)}`;
   const mayDraft = can(user.roles, "document.draft");
   return (
     <>
@@ -52,7 +49,7 @@ export default async function DocumentsPage({
           )
         }
       />
-      {all.length > 0 && (
+      {any && (
         <ListFilterForm
           label="Filter documents"
           action="/documents"
@@ -76,7 +73,7 @@ export default async function DocumentsPage({
           ]}
         />
       )}
-      {all.length > 0 && rows.length === 0 ? (
+      {any && rows.length === 0 ? (
         <p className="text-sm text-stone-600">No documents match these filters.</p>
       ) : rows.length === 0 ? (
         <EmptyState title="No documents yet">
@@ -119,6 +116,15 @@ export default async function DocumentsPage({
             ))}
           </TBody>
         </Table>
+      )}
+      {rows.length > 0 && (
+        <PageNav
+          label="Pages of the document list"
+          page={list.page}
+          pages={list.pages}
+          summary={`${list.total.toLocaleString("en")} document${list.total === 1 ? "" : "s"}`}
+          href={pageHref}
+        />
       )}
     </>
   );

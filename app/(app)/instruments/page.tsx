@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { IntentLink } from "@/components/ui/intent-link";
+import { PageNav } from "@/components/ui/page-nav";
 import { linkButton } from "@/components/parts/link-styles";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { PageHeader } from "@/components/ui/page-header";
@@ -116,21 +117,13 @@ export default async function InstrumentsPage({
           ))}
         </TBody>
       </Table>
-      <nav aria-label="Pages of the register" className="mt-3 flex items-center gap-3 text-sm">
-        <span>
-          Page {pageNumber} of {pages} · {total} instrument{total === 1 ? "" : "s"}
-        </span>
-        {pageNumber > 1 && (
-          <IntentLink href={href(pageNumber - 1)} className="text-brand-800 underline">
-            Previous page
-          </IntentLink>
-        )}
-        {pageNumber < pages && (
-          <IntentLink href={href(pageNumber + 1)} className="text-brand-800 underline">
-            Next page
-          </IntentLink>
-        )}
-      </nav>
+      <PageNav
+        label="Pages of the register"
+        page={pageNumber}
+        pages={pages}
+        summary={`${total} instrument${total === 1 ? "" : "s"}`}
+        href={href}
+      />
     </>
   );
 }

@@ -1,5 +1,6 @@
 import "server-only";
-import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, sql } from "drizzle-orm";
+import { alias } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import {
   cleaningSystems,
@@ -14,39 +15,89 @@ import {
   users,
 } from "@/db/schema";
 import type { RichDoc } from "@/lib/documents/rich-text";
+import type { Document, DocumentVersion } from "@/db/schema";
 import { listSignatures } from "@/lib/server/signatures/queries";
 
-/** Every document with its latest version and the version in force, by number. */
-export async function listDocuments() {
+export const DOCUMENTS_PAGE_SIZE = 50;
+
+export interface DocumentListQuery {
+  type?: string;
+  /** The latest version's status. */
+  status?: string;
+  /** Words that must each appear in the number, title or owner's name (any case). */
+  q?: string;
+  page?: number;
+}
+
+/** `%` and `_` match themselves in a search word. */
+const likeWord = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/**
+ * One page of documents by number, each with its latest version and the version in force, and
+ * how many documents match: filtered and paged in SQL, since a plant's library runs to thousands.
+ */
+export async function listDocuments(query: DocumentListQuery = {}) {
   const db = getDb();
-  const rows = await db
-    .select({ document: documents, owner: users.name, systemCode: cleaningSystems.code })
+  const latest = alias(documentVersions, "latest");
+  const inForce = alias(documentVersions, "in_force");
+  const words = (query.q ?? "").toLowerCase().split(/\s+/).filter(Boolean);
+  const where = and(
+    query.type ? eq(documents.type, query.type as Document["type"]) : undefined,
+    query.status ? eq(latest.status, query.status as DocumentVersion["status"]) : undefined,
+    ...words.map(
+      (w) =>
+        sql`(${documents.number} like ${likeWord(w)} escape '\\' or ${documents.title} like ${likeWord(w)} escape '\\' or ${users.name} like ${likeWord(w)} escape '\\')`,
+    ),
+  );
+  const newest = sql`(select max(v.version) from ${documentVersions} v where v.document_id = ${documents.id})`;
+  const from = () =>
+    db
+      .select({
+        document: documents,
+        owner: users.name,
+        systemCode: cleaningSystems.code,
+        latest: { version: latest.version, status: latest.status },
+        effective: { version: inForce.version, effectiveDate: inForce.effectiveDate },
+      })
+      .from(documents)
+      .innerJoin(users, eq(users.id, documents.ownerId))
+      .leftJoin(cleaningSystems, eq(cleaningSystems.id, documents.systemId))
+      .innerJoin(latest, and(eq(latest.documentId, documents.id), eq(latest.version, newest)))
+      .leftJoin(inForce, and(eq(inForce.documentId, documents.id), eq(inForce.status, "effective")))
+      .where(where);
+  const [{ total }] = await db
+    .select({ total: count() })
     .from(documents)
     .innerJoin(users, eq(users.id, documents.ownerId))
-    .leftJoin(cleaningSystems, eq(cleaningSystems.id, documents.systemId))
-    .orderBy(asc(documents.number));
-  const versions = await db
-    .select({
-      documentId: documentVersions.documentId,
-      version: documentVersions.version,
-      status: documentVersions.status,
-      effectiveDate: documentVersions.effectiveDate,
-    })
-    .from(documentVersions)
-    .orderBy(asc(documentVersions.version));
-  return rows.map(({ document, owner, systemCode }) => {
-    const mine = versions.filter((v) => v.documentId === document.id);
-    return {
+    .innerJoin(latest, and(eq(latest.documentId, documents.id), eq(latest.version, newest)))
+    .where(where);
+  const pages = Math.max(1, Math.ceil(total / DOCUMENTS_PAGE_SIZE));
+  const page = Math.min(Math.max(1, query.page ?? 1), pages);
+  const rows = await from()
+    .orderBy(asc(documents.number))
+    .limit(DOCUMENTS_PAGE_SIZE)
+    .offset((page - 1) * DOCUMENTS_PAGE_SIZE);
+  return {
+    total,
+    page,
+    pages,
+    rows: rows.map(({ document, owner, systemCode, latest, effective }) => ({
       ...document,
       owner,
       systemCode,
-      latest: mine.at(-1)!,
-      effective: mine.find((v) => v.status === "effective") ?? null,
-    };
-  });
+      latest,
+      effective: effective?.version != null ? effective : null,
+    })),
+  };
 }
 
-export type DocumentListRow = Awaited<ReturnType<typeof listDocuments>>[number];
+/** Whether any document exists: an empty library shows how to begin, not "no matches". */
+export async function hasDocuments() {
+  const [row] = await getDb().select({ id: documents.id }).from(documents).limit(1);
+  return row !== undefined;
+}
+
+export type DocumentListRow = Awaited<ReturnType<typeof listDocuments>>["rows"][number];
 
 export async function getDocument(documentId: string) {
   const db = getDb();
