@@ -17,6 +17,7 @@ interface Matches {
 }
 
 interface ParameterPickerProps {
+  /** Every system, and the recipes of the first filter's system (none before one is chosen). */
   scopes: TraceScopes;
   /** The matches for the first filter, rendered on the server so the list shows before any search. */
   initial: Matches;
@@ -37,6 +38,14 @@ async function fetchMatches(filter: ParameterFilter): Promise<Matches> {
         "The search failed; try again.",
     );
   return response.json();
+}
+
+async function fetchRecipes(systemId: string): Promise<TraceScopes["recipes"]> {
+  const response = await fetch(`/api/trace/recipes?system=${encodeURIComponent(systemId)}`, {
+    cache: "no-store",
+  });
+  if (!response.ok) throw new Error("The recipes of this system could not be read; try again.");
+  return ((await response.json()) as { recipes: TraceScopes["recipes"] }).recipes;
 }
 
 /**
@@ -64,7 +73,14 @@ export function ParameterPicker({
     placeholderData: keepPreviousData,
   });
   const matches = data ?? initial;
-  const recipes = scopes.recipes.filter((r) => !systemId || r.systemId === systemId);
+  // A plant has hundreds of recipes: the chosen system's are asked for as it is chosen.
+  const systemRecipes = useQuery({
+    queryKey: ["trace-recipes", systemId],
+    queryFn: () => fetchRecipes(systemId),
+    enabled: systemId !== "",
+    initialData: systemId === initialFilter.systemId ? scopes.recipes : undefined,
+  });
+  const recipes = systemId === "" ? [] : (systemRecipes.data ?? []);
 
   return (
     <section
@@ -89,7 +105,14 @@ export function ParameterPicker({
           label="Recipe"
           value={recipeId}
           onValueChange={setRecipeId}
-          placeholder="All recipes"
+          placeholder={
+            systemId === ""
+              ? "Choose a system first"
+              : systemRecipes.isPending
+                ? "Reading the recipes…"
+                : "All recipes"
+          }
+          disabled={systemId === ""}
           options={recipes.map((recipe) => ({ value: recipe.id, label: recipe.label }))}
         />
         <Field
@@ -102,8 +125,8 @@ export function ParameterPicker({
         />
       </div>
       <p className="mt-3 text-xs text-stone-600" aria-live="polite">
-        {error
-          ? error.message
+        {error || systemRecipes.error
+          ? (error ?? systemRecipes.error)!.message
           : matches.total === 0
             ? "No parameter matches."
             : `${matches.total} parameter${matches.total === 1 ? "" : "s"} match${matches.total === 1 ? "es" : ""}${matches.total > MATCH_LIMIT ? `; the first ${MATCH_LIMIT} are shown` : ""}.`}

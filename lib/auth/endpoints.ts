@@ -48,6 +48,7 @@ import * as apiQueueRoute from "@/app/api/queue/route";
 import * as apiRecipesRecipeidCsvRoute from "@/app/api/recipes/[recipeId]/csv/route";
 import * as apiSystemsSystemidRecipesImportRoute from "@/app/api/systems/[systemId]/recipes/import/route";
 import * as apiTraceParametersRoute from "@/app/api/trace/parameters/route";
+import * as apiTraceRecipesRoute from "@/app/api/trace/recipes/route";
 import * as apiV1OpenapiJsonRoute from "@/app/api/v1/openapi.json/route";
 import { rulesOf, type EndpointRule } from "./endpoint-rule";
 
@@ -108,6 +109,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/recipes/[recipeId]/csv/route.ts": apiRecipesRecipeidCsvRoute,
   "app/api/systems/[systemId]/recipes/import/route.ts": apiSystemsSystemidRecipesImportRoute,
   "app/api/trace/parameters/route.ts": apiTraceParametersRoute,
+  "app/api/trace/recipes/route.ts": apiTraceRecipesRoute,
   "app/api/v1/openapi.json/route.ts": apiV1OpenapiJsonRoute,
   ...V1_ROUTE_MODULES,
 };

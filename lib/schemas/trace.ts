@@ -33,3 +33,8 @@ export const parameterSearchQuerySchema = z
     q: z.string().max(200, "Search with 200 characters at most.").optional(),
   })
   .strict();
+
+/** The recipe chooser's query string: the cleaning system whose recipes it offers. */
+export const traceRecipesQuerySchema = z
+  .object({ system: z.uuid("Choose a cleaning system from the list.") })
+  .strict();

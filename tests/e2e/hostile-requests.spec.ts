@@ -139,6 +139,8 @@ test.describe("no server insides in any answer", () => {
       "/api/trace/parameters?system=not-a-uuid",
       `/api/trace/parameters?q=${"x".repeat(201)}`,
       "/api/trace/parameters?colour=red",
+      "/api/trace/recipes?system=not-a-uuid",
+      "/api/trace/recipes",
       `/api/audit-pack/${UNKNOWN}`,
       `/api/audit-pack/${UNKNOWN}?format=exe`,
       "/api/documents/not-a-uuid/versions/1/pdf",

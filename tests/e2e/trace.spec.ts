@@ -255,6 +255,11 @@ test("a trace shows the newest entries first and opens older ones from its link,
 }) => {
   await signInAs(page, "auditor");
   await page.getByRole("navigation").getByRole("link", { name: "Trace" }).click();
+  // The recipe chooser waits for a system: a plant's recipes are read for the chosen one.
+  await expect(page.getByLabel("Recipe")).toBeDisabled();
+  await page
+    .getByLabel("Cleaning system")
+    .selectOption({ label: "SC-1 · Single-chamber spray washer" });
   await page.getByLabel("Recipe").selectOption({ label: "R-SC1-SF · Fitting, spray" });
   // The list narrows to the chosen recipe once the choice has gone through: wait for its own row.
   await page

@@ -298,13 +298,16 @@ describe("parameter history", () => {
     expect(await listTraceableParameters({ systemId })).toEqual(
       all.filter((p) => p.systemId === systemId),
     );
-    // The choosers read names only and offer the same systems and recipes as before.
+    // The choosers read names only: every system with recipes, and a chosen system's recipes,
+    // the same the plant-wide list holds; no recipe before a system is chosen.
     const scopes = await listTraceScopes();
     const expected = traceScopes(all);
-    expect(scopes.systems).toEqual(expect.arrayContaining(expected.systems));
-    expect(scopes.systems).toHaveLength(expected.systems.length);
-    expect(scopes.recipes).toEqual(expect.arrayContaining(expected.recipes));
-    expect(scopes.recipes).toHaveLength(expected.recipes.length);
+    expect(scopes.systems).toEqual(expected.systems);
+    expect(scopes.recipes).toEqual([]);
+    for (const system of expected.systems)
+      expect((await listTraceScopes(system.id)).recipes).toEqual(
+        expected.recipes.filter((r) => r.systemId === system.id),
+      );
   });
 
   it("timeline: a removed parameter ends a period, and a withdrawn proposal never counts as in force", () => {

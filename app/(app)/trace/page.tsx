@@ -33,8 +33,7 @@ export default async function TracePage({
       : undefined;
   const shown = (query.success && query.data.entries) || TRACE_ENTRIES_PAGE;
   // The choosers need names only; the list under them reads the chosen recipe's parameters alone.
-  const [scopes, parameters, history] = await Promise.all([
-    listTraceScopes(),
+  const [parameters, history] = await Promise.all([
     listTraceableParameters(selected ? { recipeId: selected.recipeId } : {}),
     selected ? getParameterHistory(selected, { newest: shown }) : undefined,
   ]);
@@ -51,6 +50,7 @@ export default async function TracePage({
     systemId: initialRecipe?.systemId ?? "",
     recipeId: initialRecipe?.recipeId ?? "",
   };
+  const scopes = await listTraceScopes(initialFilter.systemId || undefined);
 
   return (
     <>

@@ -17,7 +17,7 @@ import {
 } from "@/db/schema";
 import { narrativeText } from "@/lib/changes/content";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
-import { traceScopes, type TraceScopes } from "@/lib/trace/parameter-search";
+import type { TraceScopes } from "@/lib/trace/parameter-search";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadChangeStates } from "@/lib/server/changes/state";
 import { changeEvidenceOf, changeSignaturesOf } from "./evidence-of-change";
@@ -92,26 +92,38 @@ export async function listTraceableParameters(scope: TraceScope = {}) {
 export type TraceableParameter = Awaited<ReturnType<typeof listTraceableParameters>>[number];
 
 /**
- * The cleaning systems and recipes the trace search offers, without reading any parameter: the
- * two choosers need names only, and every recipe holds parameters from its first version.
+ * The cleaning systems the trace search offers, and the recipes of one of them, without reading any
+ * parameter: the two choosers need names only, and every recipe holds parameters from its first
+ * version. A plant's hundreds of recipes are read for the chosen system alone (none before one is
+ * chosen); the recipe chooser asks for another system's as it is chosen.
  */
-export async function listTraceScopes(): Promise<TraceScopes> {
-  const rows = await getDb()
-    .select({
-      systemId: cleaningSystems.id,
-      systemCode: cleaningSystems.code,
-      systemName: cleaningSystems.name,
-      recipeId: recipes.id,
-      recipeCode: recipes.code,
-      recipeName: recipes.name,
-    })
-    .from(recipes)
-    .innerJoin(cleaningSystems, eq(cleaningSystems.id, recipes.systemId))
-    .where(
-      sql`exists (select 1 from ${recipeVersions} where ${recipeVersions.recipeId} = ${recipes.id})`,
-    )
-    .orderBy(asc(cleaningSystems.code), asc(recipes.code));
-  return traceScopes(rows);
+export async function listTraceScopes(systemId?: string): Promise<TraceScopes> {
+  const db = getDb();
+  const hasVersions = sql`exists (select 1 from ${recipeVersions} where ${recipeVersions.recipeId} = ${recipes.id})`;
+  const [systems, systemRecipes] = await Promise.all([
+    db
+      .select({ id: cleaningSystems.id, code: cleaningSystems.code, name: cleaningSystems.name })
+      .from(cleaningSystems)
+      .where(
+        sql`exists (select 1 from ${recipes} where ${recipes.systemId} = ${cleaningSystems.id} and ${hasVersions})`,
+      )
+      .orderBy(asc(cleaningSystems.code)),
+    systemId
+      ? db
+          .select({ id: recipes.id, code: recipes.code, name: recipes.name })
+          .from(recipes)
+          .where(and(eq(recipes.systemId, systemId), hasVersions))
+          .orderBy(asc(recipes.code))
+      : [],
+  ]);
+  return {
+    systems: systems.map((x) => ({ id: x.id, label: `${x.code} · ${x.name}` })),
+    recipes: systemRecipes.map((r) => ({
+      id: r.id,
+      label: `${r.code} · ${r.name}`,
+      systemId: systemId!,
+    })),
+  };
 }
 
 /**
