@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { seedDemo } from "@/db/seed";
 import { users } from "@/db/schema";
-import { DOCUMENTS_PAGE_SIZE, hasDocuments, listDocuments } from "@/lib/server/documents/queries";
+import { hasDocuments, listDocuments } from "@/lib/server/documents/queries";
+import { LIST_PAGE_SIZE as DOCUMENTS_PAGE_SIZE } from "@/lib/server/list-query";
 import { createTestDatabase } from "./support/test-db";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;

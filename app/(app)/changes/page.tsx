@@ -5,7 +5,8 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { CHANGE_KIND_LABELS, CHANGE_STATUS_LABELS } from "@/lib/changes/workflow";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { listChangeRequests } from "@/lib/server/changes/queries";
+import { hasChangeRequests, listChangeRequests } from "@/lib/server/changes/queries";
+import { PageNav } from "@/components/ui/page-nav";
 import { EmergencyBadge } from "@/components/changes/change-types-panels";
 import { showsEmergency } from "@/lib/changes/emergency";
 import type { ChangeStatus } from "@/lib/changes/workflow";
@@ -13,10 +14,10 @@ import { formatDate } from "@/lib/format/date";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
 import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { CHANGE_KINDS, CHANGE_STATUSES } from "@/db/enums";
-import { fromPageParams, readListParams, rowMatches } from "@/lib/url/list-params";
+import { fromPageParams, listSearch, readListParams } from "@/lib/url/list-params";
 
-/** The list's filters, read from the address so a filtered list can be linked and reloaded. */
-const FILTERS = { status: "", kind: "", q: "" };
+/** The list's filters and page, read from the address so a filtered list can be linked and reloaded. */
+const FILTERS = { status: "", kind: "", q: "", page: "1" };
 
 export const metadata: Metadata = { title: "Changes" };
 
@@ -30,24 +31,20 @@ export default async function ChangesPage({
 }) {
   await requirePageUser("changes.view");
   const filters = readListParams(fromPageParams(await searchParams), FILTERS);
-  const all = await listChangeRequests();
-  const rows = all.filter((r) =>
-    rowMatches({
-      equals: {
-        status: { want: filters.status, have: r.status },
-        kind: { want: filters.kind, have: r.kind },
-      },
-      q: filters.q,
-      text: [r.number, r.title, r.recipeCode, r.author, emergencyShown(r) ? "Emergency" : ""],
-    }),
-  );
+  const [list, any] = await Promise.all([
+    listChangeRequests({ ...filters, page: Number.parseInt(filters.page, 10) || 1 }),
+    hasChangeRequests(),
+  ]);
+  const rows = list.rows;
+  const pageHref = (page: number) =>
+    `/changes${listSearch({ ...filters, page: String(page) }, FILTERS)}`;
   return (
     <>
       <PageHeader
         title="Changes"
         description="Change requests against effective recipe versions: parameter diff, computed impact, approval and requalification."
       />
-      {all.length > 0 && (
+      {any && (
         <ListFilterForm
           label="Filter change requests"
           action="/changes"
@@ -68,7 +65,7 @@ export default async function ChangesPage({
           ]}
         />
       )}
-      {all.length > 0 && rows.length === 0 ? (
+      {any && rows.length === 0 ? (
         <p className="text-sm text-stone-600">No change requests match these filters.</p>
       ) : rows.length === 0 ? (
         <EmptyState title="No change requests yet">
@@ -117,6 +114,15 @@ export default async function ChangesPage({
             ))}
           </TBody>
         </Table>
+      )}
+      {rows.length > 0 && (
+        <PageNav
+          label="Pages of the change list"
+          page={list.page}
+          pages={list.pages}
+          summary={`${list.total.toLocaleString("en")} change request${list.total === 1 ? "" : "s"}`}
+          href={pageHref}
+        />
       )}
     </>
   );

@@ -1,5 +1,6 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, like } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, like, sql } from "drizzle-orm";
+import type { SQLiteSelect } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import {
   changeRequestAssessments,
@@ -17,34 +18,81 @@ import {
 } from "@/db/schema";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadGate, loadRecipeSnapshot } from "./snapshot";
+import { anyFieldContains, pageWithin, searchWords } from "@/lib/server/list-query";
+import type { ChangeKind, ChangeStatus } from "@/lib/changes/workflow";
 import { getEffectiveMatrix, loadChangeState } from "./state";
 
-export async function listChangeRequests() {
-  return getDb()
-    .select({
-      id: changeRequests.id,
-      number: changeRequests.number,
-      title: changeRequests.title,
-      status: changeRequests.status,
-      impact: changeRequests.impact,
-      kind: changeRequestAssessments.kind,
-      recipeCode: recipes.code,
-      recipeId: recipes.id,
-      createdAt: changeRequests.createdAt,
-      closedAt: changeRequests.closedAt,
-      author: users.name,
-      /** Set when the change was implemented as an emergency before approval. */
-      emergencyAt: emergencyChanges.implementedAt,
-    })
-    .from(changeRequests)
-    .innerJoin(
-      changeRequestAssessments,
-      eq(changeRequestAssessments.changeRequestId, changeRequests.id),
-    )
-    .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
-    .innerJoin(users, eq(users.id, changeRequests.createdBy))
-    .leftJoin(emergencyChanges, eq(emergencyChanges.changeRequestId, changeRequests.id))
-    .orderBy(desc(changeRequests.createdAt));
+export interface ChangeListQuery {
+  status?: string;
+  kind?: string;
+  /** Words that must each appear in the number, title, recipe code or author ("emergency" too, while it shows). */
+  q?: string;
+  page?: number;
+}
+
+/**
+ * One page of change requests, newest first, and how many match: filtered and paged in SQL,
+ * since a plant's changes run to tens of thousands.
+ */
+export async function listChangeRequests(query: ChangeListQuery = {}) {
+  const db = getDb();
+  // The word "Emergency" shows on a change until it is closed, rejected or withdrawn.
+  const emergencyLabel = sql`case when ${emergencyChanges.implementedAt} is not null and ${changeRequests.status} not in ('closed', 'rejected', 'withdrawn') then 'Emergency' else '' end`;
+  const where = and(
+    query.status ? eq(changeRequests.status, query.status as ChangeStatus) : undefined,
+    query.kind ? eq(changeRequestAssessments.kind, query.kind as ChangeKind) : undefined,
+    ...searchWords(query.q).map((w) =>
+      anyFieldContains(w, [
+        changeRequests.number,
+        changeRequests.title,
+        recipes.code,
+        users.name,
+        emergencyLabel,
+      ]),
+    ),
+  );
+  const joined = <T extends SQLiteSelect>(q: T) =>
+    q
+      .innerJoin(
+        changeRequestAssessments,
+        eq(changeRequestAssessments.changeRequestId, changeRequests.id),
+      )
+      .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
+      .innerJoin(users, eq(users.id, changeRequests.createdBy))
+      .leftJoin(emergencyChanges, eq(emergencyChanges.changeRequestId, changeRequests.id))
+      .where(where);
+  const [{ total }] = await joined(db.select({ total: count() }).from(changeRequests).$dynamic());
+  const { page, pages, offset, limit } = pageWithin(total, query.page);
+  const rows = await joined(
+    db
+      .select({
+        id: changeRequests.id,
+        number: changeRequests.number,
+        title: changeRequests.title,
+        status: changeRequests.status,
+        impact: changeRequests.impact,
+        kind: changeRequestAssessments.kind,
+        recipeCode: recipes.code,
+        recipeId: recipes.id,
+        createdAt: changeRequests.createdAt,
+        closedAt: changeRequests.closedAt,
+        author: users.name,
+        /** Set when the change was implemented as an emergency before approval. */
+        emergencyAt: emergencyChanges.implementedAt,
+      })
+      .from(changeRequests)
+      .$dynamic(),
+  )
+    .orderBy(desc(changeRequests.createdAt), desc(changeRequests.number))
+    .limit(limit)
+    .offset(offset);
+  return { rows, total, page, pages };
+}
+
+/** Whether any change request exists: an empty list shows how to begin, not "no matches". */
+export async function hasChangeRequests() {
+  const [row] = await getDb().select({ id: changeRequests.id }).from(changeRequests).limit(1);
+  return row !== undefined;
 }
 
 /** The change request page: state, gate, signatures of every revision, and runs that could be linked. */

@@ -17,8 +17,7 @@ import {
 import type { RichDoc } from "@/lib/documents/rich-text";
 import type { Document, DocumentVersion } from "@/db/schema";
 import { listSignatures } from "@/lib/server/signatures/queries";
-
-export const DOCUMENTS_PAGE_SIZE = 50;
+import { anyFieldContains, pageWithin, searchWords } from "@/lib/server/list-query";
 
 export interface DocumentListQuery {
   type?: string;
@@ -29,9 +28,6 @@ export interface DocumentListQuery {
   page?: number;
 }
 
-/** `%` and `_` match themselves in a search word. */
-const likeWord = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-
 /**
  * One page of documents by number, each with its latest version and the version in force, and
  * how many documents match: filtered and paged in SQL, since a plant's library runs to thousands.
@@ -40,14 +36,11 @@ export async function listDocuments(query: DocumentListQuery = {}) {
   const db = getDb();
   const latest = alias(documentVersions, "latest");
   const inForce = alias(documentVersions, "in_force");
-  const words = (query.q ?? "").toLowerCase().split(/\s+/).filter(Boolean);
+  const words = searchWords(query.q);
   const where = and(
     query.type ? eq(documents.type, query.type as Document["type"]) : undefined,
     query.status ? eq(latest.status, query.status as DocumentVersion["status"]) : undefined,
-    ...words.map(
-      (w) =>
-        sql`(${documents.number} like ${likeWord(w)} escape '\\' or ${documents.title} like ${likeWord(w)} escape '\\' or ${users.name} like ${likeWord(w)} escape '\\')`,
-    ),
+    ...words.map((w) => anyFieldContains(w, [documents.number, documents.title, users.name])),
   );
   const newest = sql`(select max(v.version) from ${documentVersions} v where v.document_id = ${documents.id})`;
   const from = () =>
@@ -71,12 +64,8 @@ export async function listDocuments(query: DocumentListQuery = {}) {
     .innerJoin(users, eq(users.id, documents.ownerId))
     .innerJoin(latest, and(eq(latest.documentId, documents.id), eq(latest.version, newest)))
     .where(where);
-  const pages = Math.max(1, Math.ceil(total / DOCUMENTS_PAGE_SIZE));
-  const page = Math.min(Math.max(1, query.page ?? 1), pages);
-  const rows = await from()
-    .orderBy(asc(documents.number))
-    .limit(DOCUMENTS_PAGE_SIZE)
-    .offset((page - 1) * DOCUMENTS_PAGE_SIZE);
+  const { page, pages, offset, limit } = pageWithin(total, query.page);
+  const rows = await from().orderBy(asc(documents.number)).limit(limit).offset(offset);
   return {
     total,
     page,
