@@ -20,6 +20,9 @@ import { loadMethod } from "@/lib/server/lab-methods/state";
 import { trainingQueueProvider } from "@/lib/server/training/queue-provider";
 import { sendTrainingReminders } from "@/lib/server/training/send-training-reminders";
 import { signOffTrainingIn } from "@/lib/server/training/sign-off-training-in";
+import { acknowledgeProcedureIn } from "@/lib/server/training/acknowledge-procedure-in";
+import { loadTrainingMatrix } from "@/lib/server/training/queries";
+import { todayUtc } from "@/lib/format/date";
 import { trainingProblemsForRun } from "@/lib/server/training/state";
 import { createTestDatabase } from "./support/test-db";
 
@@ -308,5 +311,36 @@ describe("training gate and sign-offs", () => {
       NOW,
     );
     expect(queue.items).toEqual([]);
+  });
+});
+
+describe("the training matrix", () => {
+  it("shows a procedure as a column once someone has acknowledged it, not every procedure in the library", async () => {
+    // A procedure in force that nobody has read yet.
+    await t.client.execute(`
+      insert into documents (id, number, title, type, owner_id, created_at)
+      values ('matrix-sop', 'SOP-MX-01', 'Filter housing change', 'procedure', '${people.engineer.id}', '2026-11-01T00:00:00.000Z')`);
+    await t.client.execute(`
+      insert into document_versions (id, document_id, version, status, content, effective_date, created_by, created_at)
+      select 'matrix-sop-v1', 'matrix-sop', 1, 'effective', content, '2026-11-02', created_by, created_at
+      from document_versions limit 1`);
+    const today = todayUtc(NOW);
+    const before = await loadTrainingMatrix(today);
+    const columnsOf = (m: typeof before) =>
+      m.columns.filter((c) => c.kind === "procedure").map((c) => c.subjectId);
+    const unread = before.procedures.filter((p) => !columnsOf(before).includes(p.versionId));
+    const next = unread.find((p) => p.versionId === "matrix-sop-v1")!;
+    expect(next).toBeDefined();
+    await t.db.transaction((tx) =>
+      acknowledgeProcedureIn(tx, people.engineer, { documentVersionId: next.versionId }, NOW),
+    );
+    const after = await loadTrainingMatrix(today);
+    expect(columnsOf(after)).toEqual(
+      expect.arrayContaining([...columnsOf(before), next.versionId]),
+    );
+    expect(columnsOf(after)).toHaveLength(columnsOf(before).length + 1);
+    const column = after.columns.findIndex((c) => c.subjectId === next.versionId);
+    const row = after.rows.find((r) => r.person.id === people.engineer.id)!;
+    expect(row.cells[column].state).toBe("current");
   });
 });

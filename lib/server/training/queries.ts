@@ -28,7 +28,8 @@ export interface MatrixCell {
 
 /**
  * People × lab methods and procedures: for each approved method (by code) the person's newest
- * sign-off, for each procedure in force the newest acknowledgement of its effective version.
+ * sign-off, for each procedure in force that anyone has acknowledged the newest acknowledgement
+ * of its effective version.
  * Everyone who works in the plant is a row; auditors only read.
  */
 export async function loadTrainingMatrix(today: string) {
@@ -58,6 +59,17 @@ export async function loadTrainingMatrix(today: string) {
       .where(and(eq(documents.type, "procedure"), eq(documentVersions.status, "effective")))
       .orderBy(asc(documents.number)),
   ]);
+  // A procedure becomes a column once anyone has acknowledged any version of it: a plant's library
+  // holds thousands of procedures, and a column per procedure made the matrix tens of megabytes.
+  const acknowledged = new Set(
+    (
+      await db
+        .selectDistinct({ documentId: documentVersions.documentId })
+        .from(trainingRecords)
+        .innerJoin(documentVersions, eq(documentVersions.id, trainingRecords.documentVersionId))
+        .where(eq(trainingRecords.kind, "procedure"))
+    ).map((r) => r.documentId),
+  );
   const columns: MatrixColumn[] = [
     ...methods.map((m) => ({
       key: `method:${m.code}`,
@@ -66,13 +78,15 @@ export async function loadTrainingMatrix(today: string) {
       title: m.name,
       subjectId: m.id,
     })),
-    ...procedures.map((p) => ({
-      key: `procedure:${p.documentId}`,
-      kind: "procedure" as const,
-      label: `${p.number} v${p.version}`,
-      title: p.title,
-      subjectId: p.versionId,
-    })),
+    ...procedures
+      .filter((p) => acknowledged.has(p.documentId))
+      .map((p) => ({
+        key: `procedure:${p.documentId}`,
+        kind: "procedure" as const,
+        label: `${p.number} v${p.version}`,
+        title: p.title,
+        subjectId: p.versionId,
+      })),
   ];
   const ids = people.map((p) => p.id);
   const records =

@@ -21,7 +21,7 @@ export default async function TrainingPage() {
     <>
       <PageHeader
         title="Training matrix"
-        description={`Who is trained on which lab method (a trainer's practical sign-off) and which procedure version (the person's signed acknowledgement). "Expires soon" means within ${REMINDER_DAYS} days; the person is reminded by e-mail and in My queue.`}
+        description={`Who is trained on which lab method (a trainer's practical sign-off) and which procedure version (the person's signed acknowledgement); a procedure shows here once someone has acknowledged it. "Expires soon" means within ${REMINDER_DAYS} days; the person is reminded by e-mail and in My queue.`}
         actions={
           <IntentLink href="/lab/methods" className="text-sm font-medium text-brand-800 underline">
             Lab methods
