@@ -164,6 +164,12 @@ try {
       check: (b) => /Page 1 of [\d,]+ · [\d,]+ documents/.test(b),
     },
     {
+      name: "Change list, first page",
+      path: "/changes",
+      role: "engineer",
+      check: (b) => /Page 1 of [\d,]+ · [\d,]+ change requests/.test(b),
+    },
+    {
       // The anchor for the pages: the same frame, menu and session check around a list the plant
       // has not begun (no control plans), so what a page costs beyond the framework shows beside it.
       name: "App frame with an empty list (anchor)",

@@ -4,13 +4,13 @@ import { EvidenceTable } from "@/components/evidence/evidence-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { runFormOptions } from "@/lib/server/evidence/queries";
+import { evidenceFilterOptions } from "@/lib/server/evidence/queries";
 
 export const metadata: Metadata = { title: "Evidence" };
 
 export default async function EvidencePage() {
   const user = await requirePageUser("evidence.view");
-  const options = await runFormOptions();
+  const options = await evidenceFilterOptions();
   return (
     <>
       <PageHeader

@@ -84,6 +84,31 @@ export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPa
 }
 
 /** Choices for the run form and the list filters. */
+/** The evidence list's filter choices: part families and recipe versions, as the selects print them. */
+export async function evidenceFilterOptions() {
+  const db = getDb();
+  const [families, versions] = await Promise.all([
+    db
+      .select({ id: partFamilies.id, code: partFamilies.code })
+      .from(partFamilies)
+      .orderBy(asc(partFamilies.code)),
+    db
+      .select({
+        id: recipeVersions.id,
+        version: recipeVersions.version,
+        status: recipeVersions.status,
+        code: recipes.code,
+      })
+      .from(recipeVersions)
+      .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+      .orderBy(asc(recipes.code), desc(recipeVersions.version)),
+  ]);
+  return {
+    families,
+    versions: versions.map((v) => ({ id: v.id, label: `${v.code} v${v.version} (${v.status})` })),
+  };
+}
+
 export async function runFormOptions() {
   const db = getDb();
   const [families, versions, technicians, protocols, changes] = await Promise.all([
