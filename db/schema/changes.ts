@@ -40,6 +40,8 @@ export const changeRequests = sqliteTable(
   (t) => [
     index("change_requests_recipe_idx").on(t.recipeId),
     index("change_requests_status_idx").on(t.status),
+    // The change list, newest first, stops after one page.
+    index("change_requests_created_idx").on(t.createdAt, t.number),
   ],
 );
 export type ChangeRequest = typeof changeRequests.$inferSelect;

@@ -37,11 +37,12 @@ export interface ChangeListQuery {
 export async function listChangeRequests(query: ChangeListQuery = {}) {
   const db = getDb();
   // The word "Emergency" shows on a change until it is closed, rejected or withdrawn.
+  const words = searchWords(query.q);
   const emergencyLabel = sql`case when ${emergencyChanges.implementedAt} is not null and ${changeRequests.status} not in ('closed', 'rejected', 'withdrawn') then 'Emergency' else '' end`;
   const where = and(
     query.status ? eq(changeRequests.status, query.status as ChangeStatus) : undefined,
     query.kind ? eq(changeRequestAssessments.kind, query.kind as ChangeKind) : undefined,
-    ...searchWords(query.q).map((w) =>
+    ...words.map((w) =>
       anyFieldContains(w, [
         changeRequests.number,
         changeRequests.title,
@@ -51,17 +52,26 @@ export async function listChangeRequests(query: ChangeListQuery = {}) {
       ]),
     ),
   );
-  const joined = <T extends SQLiteSelect>(q: T) =>
-    q
-      .innerJoin(
-        changeRequestAssessments,
-        eq(changeRequestAssessments.changeRequestId, changeRequests.id),
-      )
-      .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
-      .innerJoin(users, eq(users.id, changeRequests.createdBy))
-      .leftJoin(emergencyChanges, eq(emergencyChanges.changeRequestId, changeRequests.id))
-      .where(where);
-  const [{ total }] = await joined(db.select({ total: count() }).from(changeRequests).$dynamic());
+  const joined = <T extends SQLiteSelect>(q: T, names = true) => {
+    const assessed = q.innerJoin(
+      changeRequestAssessments,
+      eq(changeRequestAssessments.changeRequestId, changeRequests.id),
+    );
+    // Recipe, author and emergency are at most one row each per change (required keys), so a
+    // count without search words leaves them out.
+    return (
+      names
+        ? assessed
+            .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
+            .innerJoin(users, eq(users.id, changeRequests.createdBy))
+            .leftJoin(emergencyChanges, eq(emergencyChanges.changeRequestId, changeRequests.id))
+        : assessed
+    ).where(where);
+  };
+  const [{ total }] = await joined(
+    db.select({ total: count() }).from(changeRequests).$dynamic(),
+    words.length > 0,
+  );
   const { page, pages, offset, limit } = pageWithin(total, query.page);
   const rows = await joined(
     db

@@ -58,12 +58,16 @@ export async function listDocuments(query: DocumentListQuery = {}) {
       .innerJoin(latest, and(eq(latest.documentId, documents.id), eq(latest.version, newest)))
       .leftJoin(inForce, and(eq(inForce.documentId, documents.id), eq(inForce.status, "effective")))
       .where(where);
-  const [{ total }] = await db
-    .select({ total: count() })
-    .from(documents)
-    .innerJoin(users, eq(users.id, documents.ownerId))
-    .innerJoin(latest, and(eq(latest.documentId, documents.id), eq(latest.version, newest)))
-    .where(where);
+  // Every document has an owner and a version from its creation, so the count joins them only
+  // when a filter reads them.
+  let counted = db.select({ total: count() }).from(documents).$dynamic();
+  if (words.length > 0) counted = counted.innerJoin(users, eq(users.id, documents.ownerId));
+  if (query.status)
+    counted = counted.innerJoin(
+      latest,
+      and(eq(latest.documentId, documents.id), eq(latest.version, newest)),
+    );
+  const [{ total }] = await counted.where(where);
   const { page, pages, offset, limit } = pageWithin(total, query.page);
   const rows = await from().orderBy(asc(documents.number)).limit(limit).offset(offset);
   return {

@@ -1,0 +1,1 @@
+CREATE INDEX `change_requests_created_idx` ON `change_requests` (`created_at`,`number`);
