@@ -20,14 +20,38 @@ export async function loadRecipeSnapshots(
   const ids = [...new Set(versionIds)];
   const snapshots = new Map<string, RecipeSnapshot>();
   if (ids.length === 0) return snapshots;
-  const versions = await db.select().from(recipeVersions).where(inArray(recipeVersions.id, ids));
+  // The snapshot's fields only: a trace reads the snapshots of every change it shows.
+  const versions = await db
+    .select({
+      id: recipeVersions.id,
+      detergent: recipeVersions.detergent,
+      notes: recipeVersions.notes,
+    })
+    .from(recipeVersions)
+    .where(inArray(recipeVersions.id, ids));
   const stages = await db
-    .select()
+    .select({
+      id: recipeStages.id,
+      versionId: recipeStages.versionId,
+      name: recipeStages.name,
+      kind: recipeStages.kind,
+      mode: recipeStages.mode,
+    })
     .from(recipeStages)
     .where(inArray(recipeStages.versionId, ids))
     .orderBy(asc(recipeStages.position));
   const params = await db
-    .select()
+    .select({
+      stageId: recipeParameters.stageId,
+      key: recipeParameters.key,
+      name: recipeParameters.name,
+      kind: recipeParameters.kind,
+      setpoint: recipeParameters.setpoint,
+      unit: recipeParameters.unit,
+      validatedLow: recipeParameters.validatedLow,
+      validatedHigh: recipeParameters.validatedHigh,
+      critical: recipeParameters.critical,
+    })
     .from(recipeParameters)
     .where(inArray(recipeParameters.versionId, ids))
     .orderBy(sql`rowid`);
