@@ -1,6 +1,7 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
+import { useEffect } from "react";
 import {
   getCoreRowModel,
   useReactTable,
@@ -150,6 +151,11 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
     setList({ [key]: event.target.value, page: "1" });
   };
   const pages = Math.max(1, Math.ceil((data?.total ?? 0) / pagination.pageSize));
+  // A page past the end (an old link, an edited address) shows the last page, as the server lists do.
+  const pastTheEnd = data !== undefined && data.total > 0 && pagination.pageIndex + 1 > pages;
+  useEffect(() => {
+    if (pastTheEnd) setList({ page: String(pages) });
+  }, [pastTheEnd, pages, setList]);
   const select = "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
   return (
     <section aria-label="Test runs">
@@ -226,7 +232,7 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
       )}
       <DataTable
         table={table}
-        caption={`Test runs, ${data?.total ?? 0} found`}
+        caption={`Test runs, ${(data?.total ?? 0).toLocaleString("en")} found`}
         busy={isFetching}
         bodyClassName="whitespace-nowrap"
         empty={data ? "No test runs match these filters." : undefined}
@@ -234,7 +240,7 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
       <div className="mt-3 flex items-center justify-between text-sm text-stone-700">
         <p>
           {data
-            ? `${data.total} run${data.total === 1 ? "" : "s"} · page ${pagination.pageIndex + 1} of ${pages}`
+            ? `${data.total.toLocaleString("en")} run${data.total === 1 ? "" : "s"} · page ${(pagination.pageIndex + 1).toLocaleString("en")} of ${pages.toLocaleString("en")}`
             : "Loading…"}
         </p>
         <div className="flex gap-2">

@@ -28,6 +28,12 @@ export default async function TrainingPage() {
           </IntentLink>
         }
       />
+      {columns.length === 0 && (
+        <p className="mb-3 text-sm text-stone-600">
+          No lab method is approved and nobody has acknowledged a procedure yet: each becomes a
+          column here once it is.
+        </p>
+      )}
       <Table caption="Training matrix" frameClassName="mb-8">
         <THead>
           <Th>Person</Th>
