@@ -1,7 +1,7 @@
 /**
  * The plant-scale benchmark: seeds a generated Fennmoor plant into a fresh SQLite
  * file, verifies its audit chain beside raw SHA-256 over the same bytes, serves the
- * production build with `next start` on 127.0.0.1 and loads six endpoints with
+ * production build with `next start` on 127.0.0.1 and loads its endpoints with
  * autocannon at 1, 10 and 50 connections, watching the server's peak RSS.
  *
  *   npx next build && npm run bench                 full size (by hand)
