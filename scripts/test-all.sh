@@ -15,12 +15,15 @@ if [ ! -x /usr/bin/chromium ] || ! command -v pdftotext >/dev/null 2>&1; then
 fi
 
 export PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD=1 NEXT_TELEMETRY_DISABLED=1
-echo "== type-check";  npx tsc --noEmit
-echo "== lint";        npx eslint . --max-warnings=0
-echo "== format";      npx prettier --check . --log-level=warn
-echo "== unit tests";  npx vitest run
-echo "== build";       npx next build > /tmp/washproof-build.log 2>&1 || { cat /tmp/washproof-build.log; exit 1; }
-echo "== crash test (needs the build)"; npx vitest run --config vitest.build.config.ts
-echo "== browser tests"; npx playwright test
+# Each step's heading says how long the suite has run so far, so a slow step shows in CI's log.
+step() { echo "== $1 (at $((SECONDS / 60)) min $((SECONDS % 60)) s)"; }
+step "type-check";  npx tsc --noEmit
+step "lint";        npx eslint . --max-warnings=0
+step "format";      npx prettier --check . --log-level=warn
+step "unit tests";  npx vitest run
+step "build";       npx next build > /tmp/washproof-build.log 2>&1 || { cat /tmp/washproof-build.log; exit 1; }
+step "crash test (needs the build)"; npx vitest run --config vitest.build.config.ts
+step "browser tests"; npx playwright test
 # Fails only if the benchmark breaks (an error or a non-2xx response); a missed target is reported.
-echo "== plant benchmark (CI size)"; npx tsx tests/bench/plant.ts --scale=ci
+step "plant benchmark (CI size)"; npx tsx tests/bench/plant.ts --scale=ci
+step "done"
