@@ -83,35 +83,9 @@ export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPa
   };
 }
 
-/** Choices for the run form and the list filters. */
-/** The evidence list's filter choices: part families and recipe versions, as the selects print them. */
-export async function evidenceFilterOptions() {
-  const db = getDb();
-  const [families, versions] = await Promise.all([
-    db
-      .select({ id: partFamilies.id, code: partFamilies.code })
-      .from(partFamilies)
-      .orderBy(asc(partFamilies.code)),
-    db
-      .select({
-        id: recipeVersions.id,
-        version: recipeVersions.version,
-        status: recipeVersions.status,
-        code: recipes.code,
-      })
-      .from(recipeVersions)
-      .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
-      .orderBy(asc(recipes.code), desc(recipeVersions.version)),
-  ]);
-  return {
-    families,
-    versions: versions.map((v) => ({ id: v.id, label: `${v.code} v${v.version} (${v.status})` })),
-  };
-}
-
-export async function runFormOptions() {
-  const db = getDb();
-  const [families, versions, technicians, protocols, changes] = await Promise.all([
+/** Part families and recipe versions, by code and newest version first: the run form's and the list's choices. */
+function familyAndVersionChoices(db: ReturnType<typeof getDb>) {
+  return Promise.all([
     db
       .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
       .from(partFamilies)
@@ -127,6 +101,26 @@ export async function runFormOptions() {
       .from(recipeVersions)
       .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
       .orderBy(asc(recipes.code), desc(recipeVersions.version)),
+  ]);
+}
+
+const versionLabel = (v: { code: string; version: number; status: string }) =>
+  `${v.code} v${v.version} (${v.status})`;
+
+/** The evidence list's filter choices, as the selects print them (no names: they are sent to the browser). */
+export async function evidenceFilterOptions() {
+  const [families, versions] = await familyAndVersionChoices(getDb());
+  return {
+    families: families.map((f) => ({ id: f.id, code: f.code })),
+    versions: versions.map((v) => ({ id: v.id, label: versionLabel(v) })),
+  };
+}
+
+/** Choices for the run form. */
+export async function runFormOptions() {
+  const db = getDb();
+  const [[families, versions], technicians, protocols, changes] = await Promise.all([
+    familyAndVersionChoices(db),
     db
       .select({ id: users.id, name: users.name })
       .from(users)
@@ -158,7 +152,7 @@ export async function runFormOptions() {
     families,
     versions: versions.map((v) => ({
       id: v.id,
-      label: `${v.code} v${v.version} (${v.status})`,
+      label: versionLabel(v),
       name: v.name,
     })),
     technicians,
