@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import {
   CHANGE_STATUSES,
@@ -146,6 +147,14 @@ export type ChangeRequestEvidence = typeof changeRequestEvidence.$inferSelect;
  * must be requalified. A run is opened only on one of these (or on the change or the validation
  * protocol that qualifies one); closing a change carries them to the new version.
  */
+// Day of the month kept, or the target month's last day when it is shorter; time of day kept.
+const requalificationDueSql = sql.raw(
+  `date(last_qualified_at, 'start of month', '+' || interval_months || ' months', ` +
+    `'+' || (min(cast(strftime('%d', last_qualified_at) as integer), ` +
+    `cast(strftime('%d', date(last_qualified_at, 'start of month', '+' || (interval_months + 1) || ' months', '-1 day')) as integer)) - 1) || ' days')` +
+    ` || 'T' || strftime('%H:%M:%f', last_qualified_at) || 'Z'`,
+);
+
 export const requalificationIntervals = sqliteTable(
   "requalification_intervals",
   {
@@ -164,7 +173,16 @@ export const requalificationIntervals = sqliteTable(
     /** The due date a reminder was last e-mailed for, so each is sent once. */
     notifiedForDue: text("notified_for_due"),
     createdAt: createdAt(),
+    /**
+     * When the next requalification falls due: the same day `interval_months` calendar months on,
+     * clamped to the month's last day, at the same time (lib/changes/periodic.ts computes the same).
+     * SQLite derives it from the row, so it cannot drift, and My queue pages on its index.
+     */
+    dueAt: text("due_at").generatedAlwaysAs(requalificationDueSql, { mode: "virtual" }),
   },
-  (t) => [uniqueIndex("requalification_intervals_uq").on(t.recipeVersionId, t.partFamilyId)],
+  (t) => [
+    uniqueIndex("requalification_intervals_uq").on(t.recipeVersionId, t.partFamilyId),
+    index("requalification_intervals_due_idx").on(t.dueAt),
+  ],
 );
 export type RequalificationInterval = typeof requalificationIntervals.$inferSelect;

@@ -5,7 +5,11 @@ import { changeRequests, changeRequestTests, recipes } from "@/db/schema";
 import { can } from "@/lib/auth/permissions";
 import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import type { QueueItem, QueueProvider } from "@/lib/server/queue/types";
-import { dueRequalifications } from "./due-requalifications";
+import {
+  countDueRequalifications,
+  dueRequalificationPage,
+  type RequalificationDueState,
+} from "./due-requalifications";
 import { loadGates } from "./snapshot";
 import { loadEmergencies } from "./emergencies";
 import { formatDate } from "@/lib/format/date";
@@ -17,7 +21,7 @@ import { formatDate } from "@/lib/format/date";
 export const openChangeIds = sql`(select id from change_requests indexed by change_requests_status_idx where status in ${OPEN_STATUSES})`;
 
 /** Change-control steps waiting for this user, and periodic requalifications falling due. */
-export const changeQueueProvider: QueueProvider = async (user, now) => {
+export const changeQueueProvider: QueueProvider = async (user, now, window) => {
   const db = getDb();
   const items: QueueItem[] = [];
   // The fields the items print: a change's whole row carries its assessment details.
@@ -92,17 +96,35 @@ export const changeQueueProvider: QueueProvider = async (user, now) => {
     if (cr.status === "verified" && can(user.roles, "recipe.make_effective"))
       push("Close change", "verified: close to make the new version effective");
   }
+  const totals: Record<string, number> = {};
   if (can(user.roles, "change.draft")) {
-    for (const d of await dueRequalifications(db, now)) {
-      items.push({
-        id: `requalification:${d.interval.id}`,
-        kind: d.state === "overdue" ? "Requalification overdue" : "Requalification due",
-        title: `${d.recipe.code} v${d.version.version} × ${d.family.code}`,
-        detail: `Periodic requalification every ${d.interval.intervalMonths} months; last ${formatDate(d.interval.lastQualifiedAt)}`,
-        href: `/systems/recipes/${d.recipe.id}`,
-        due: d.due,
-      });
+    // A plant can have hundreds of combinations due at once: each kind is counted and paged in SQL.
+    const counts = await countDueRequalifications(db, now);
+    for (const state of ["overdue", "due_soon"] as const satisfies RequalificationDueState[]) {
+      const kind = REQUALIFICATION_KIND[state];
+      totals[kind] = counts[state];
+      if (counts[state] === 0) continue;
+      const page = await dueRequalificationPage(
+        db,
+        now,
+        state,
+        window?.(kind) ?? { offset: 0, limit: -1 },
+      );
+      for (const d of page)
+        items.push({
+          id: `requalification:${d.interval.id}`,
+          kind,
+          title: `${d.recipe.code} v${d.version.version} × ${d.family.code}`,
+          detail: `Periodic requalification every ${d.interval.intervalMonths} months; last ${formatDate(d.interval.lastQualifiedAt)}`,
+          href: `/systems/recipes/${d.recipe.id}`,
+          due: d.due,
+        });
     }
   }
-  return { items };
+  return { items, totals };
+};
+
+const REQUALIFICATION_KIND: Record<RequalificationDueState, string> = {
+  overdue: "Requalification overdue",
+  due_soon: "Requalification due",
 };

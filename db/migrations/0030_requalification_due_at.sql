@@ -1,0 +1,2 @@
+ALTER TABLE `requalification_intervals` ADD `due_at` text GENERATED ALWAYS AS (date(last_qualified_at, 'start of month', '+' || interval_months || ' months', '+' || (min(cast(strftime('%d', last_qualified_at) as integer), cast(strftime('%d', date(last_qualified_at, 'start of month', '+' || (interval_months + 1) || ' months', '-1 day')) as integer)) - 1) || ' days') || 'T' || strftime('%H:%M:%f', last_qualified_at) || 'Z') VIRTUAL;--> statement-breakpoint
+CREATE INDEX `requalification_intervals_due_idx` ON `requalification_intervals` (`due_at`);
