@@ -38,6 +38,7 @@ import { setRequalificationInterval } from "@/lib/server/changes/set-requalifica
 import { sendRequalificationReminders } from "@/lib/server/changes/send-requalification-reminders";
 import { startRequalification } from "@/lib/server/changes/start-requalification";
 import { loadChangeState } from "@/lib/server/changes/state";
+import { getChangeRequestHeading, getChangeRequestPage } from "@/lib/server/changes/queries";
 import { verifyChange } from "@/lib/server/changes/verify-change";
 import { customerDecisionSchema } from "@/lib/schemas/change-types";
 import { recordCustomerDecision } from "@/lib/server/changes/customer-approval";
@@ -184,6 +185,41 @@ describe("periodic requalification", () => {
     expect(techItems.find((i) => i.title.startsWith("CR-2026-002"))?.kind).toBe(
       "Requalification tests",
     );
+  });
+});
+
+describe("a change request whose page cannot be built", () => {
+  it("is refused with its reason, not as missing, and can still be named", async () => {
+    const [cr] = await t.db
+      .select()
+      .from(changeRequests)
+      .where(eq(changeRequests.status, "closed"))
+      .limit(1);
+    // A change whose proposed version is gone: the page cannot compare versions.
+    await t.db
+      .update(changeRequests)
+      .set({ toVersionId: null })
+      .where(eq(changeRequests.id, cr.id));
+    try {
+      await expect(getChangeRequestPage(cr.id)).rejects.toMatchObject({
+        kind: "conflict",
+        message: "This change request has no recipe versions to compare.",
+      });
+      expect(await getChangeRequestHeading(cr.id)).toEqual({
+        number: cr.number,
+        title: cr.title,
+        status: "closed",
+      });
+      await expect(getChangeRequestPage(crypto.randomUUID())).rejects.toMatchObject({
+        kind: "not_found",
+      });
+      expect(await getChangeRequestHeading(crypto.randomUUID())).toBeNull();
+    } finally {
+      await t.db
+        .update(changeRequests)
+        .set({ toVersionId: cr.toVersionId })
+        .where(eq(changeRequests.id, cr.id));
+    }
   });
 });
 

@@ -106,6 +106,19 @@ export async function hasChangeRequests() {
 }
 
 /** The change request page: state, gate, signatures of every revision, and runs that could be linked. */
+/** A change request's number, title and status alone: enough to name one whose full page cannot be built. */
+export async function getChangeRequestHeading(changeRequestId: string) {
+  const [row] = await getDb()
+    .select({
+      number: changeRequests.number,
+      title: changeRequests.title,
+      status: changeRequests.status,
+    })
+    .from(changeRequests)
+    .where(eq(changeRequests.id, changeRequestId));
+  return row ?? null;
+}
+
 export async function getChangeRequestPage(changeRequestId: string) {
   const db = getDb();
   const state = await loadChangeState(db, changeRequestId);

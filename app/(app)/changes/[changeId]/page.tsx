@@ -22,7 +22,9 @@ import {
 import { TEST_TYPE_LABELS } from "@/lib/recipes/test-types";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { ChangeNonconformances } from "@/components/nonconformances/change-nonconformances";
-import { getChangeRequestPage } from "@/lib/server/changes/queries";
+import { getChangeRequestHeading, getChangeRequestPage } from "@/lib/server/changes/queries";
+import { UserFacingError } from "@/lib/server/errors";
+import { EmptyState } from "@/components/ui/empty-state";
 import { renderRichHtml } from "@/lib/documents/render-html";
 import type { RichDoc } from "@/lib/documents/rich-text";
 import {
@@ -59,10 +61,19 @@ export const metadata: Metadata = { title: "Change request" };
 export default async function ChangePage({ params }: { params: Promise<{ changeId: string }> }) {
   const user = await requirePageUser("changes.view");
   const { changeId } = await params;
-  const page = /^[0-9a-f-]{36}$/.test(changeId)
-    ? await getChangeRequestPage(changeId).catch(() => undefined)
-    : undefined;
-  if (!page) notFound();
+  if (!/^[0-9a-f-]{36}$/.test(changeId)) notFound();
+  const loaded = await getChangeRequestPage(changeId).then(
+    (page) => ({ page, refusal: null }),
+    (error: unknown) => {
+      // Only a missing change is "not found"; a change that exists but cannot be shown says why,
+      // and anything unexpected reaches the error page rather than hiding as a 404.
+      if (!(error instanceof UserFacingError)) throw error;
+      if (error.kind === "not_found") notFound();
+      return { page: null, refusal: error.message };
+    },
+  );
+  if (!loaded.page) return <UnshownChange changeId={changeId} reason={loaded.refusal} />;
+  const page = loaded.page;
   const {
     cr,
     recipe,
@@ -463,6 +474,34 @@ export default async function ChangePage({ params }: { params: Promise<{ changeI
           Content hash of this revision: {page.contentHash}
         </p>
       </section>
+    </>
+  );
+}
+
+/** A change request that exists but whose page cannot be built (its versions are missing). */
+async function UnshownChange({ changeId, reason }: { changeId: string; reason: string }) {
+  const heading = await getChangeRequestHeading(changeId);
+  if (!heading) notFound();
+  return (
+    <>
+      <PageHeader
+        title={`${heading.number} · ${heading.title}`}
+        description={
+          <>
+            Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[heading.status]}</span>
+          </>
+        }
+      />
+      <EmptyState title="This change request cannot be shown in full">
+        <p>{reason}</p>
+        <p className="mt-2">
+          The other change requests are in the{" "}
+          <IntentLink href="/changes" className="text-brand-800 hover:underline">
+            change list
+          </IntentLink>
+          .
+        </p>
+      </EmptyState>
     </>
   );
 }
