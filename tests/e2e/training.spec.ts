@@ -117,3 +117,35 @@ test("an engineer drafts an analysis method, bad values are refused beside their
   await expect(page.getByText("Status: Approved")).toBeVisible();
   await expect(page.getByRole("table", { name: "Signatures" })).toContainText("Helena Okafor");
 });
+
+test("a technician acknowledges the bath-change procedure in force; a wrong password keeps the choice", async ({
+  page,
+}) => {
+  await signInAs(page, "technician");
+  await page.goto("/lab/training");
+  const matrix = page.getByRole("table", { name: "Training matrix" });
+  await expect(matrix).not.toContainText("SOP-AW3-0001");
+  const form = page.getByRole("form", { name: "Acknowledge a procedure" });
+  const sop = "SOP-AW3-0001 v1 · Changing the wash bath and its filter on the three-tank washer";
+  await form.getByLabel("Procedure").selectOption({ label: sop });
+  await form.getByLabel("Your password").fill("not my password");
+  await form.getByRole("button", { name: "Sign acknowledgement" }).click();
+  await expect(form.getByRole("alert")).toContainText(/password/i);
+  await expect(form.getByLabel("Procedure")).toHaveValue(
+    (await form.getByRole("option", { name: sop }).getAttribute("value"))!,
+  );
+  await form.getByLabel("Your password").fill(DEMO_PASSWORD);
+  await form.getByRole("button", { name: "Sign acknowledgement" }).click();
+  // Acknowledged and current: the procedure is no longer offered, and it is a column of the matrix.
+  await expect(page.getByRole("option", { name: sop })).toHaveCount(0);
+  await page.reload();
+  await expect(matrix.getByRole("columnheader", { name: /SOP-AW3-0001 v1/ })).toBeVisible();
+  const column = await matrix.getByRole("columnheader").allTextContents();
+  const index = column.findIndex((c) => c.includes("SOP-AW3-0001"));
+  await expect(
+    matrix
+      .getByRole("row", { name: /Ravi Menon/ })
+      .getByRole("cell")
+      .nth(index - 1),
+  ).toContainText("Current until");
+});

@@ -21,7 +21,7 @@ import { trainingQueueProvider } from "@/lib/server/training/queue-provider";
 import { sendTrainingReminders } from "@/lib/server/training/send-training-reminders";
 import { signOffTrainingIn } from "@/lib/server/training/sign-off-training-in";
 import { acknowledgeProcedureIn } from "@/lib/server/training/acknowledge-procedure-in";
-import { loadTrainingMatrix } from "@/lib/server/training/queries";
+import { loadTrainingMatrix, proceduresToAcknowledge } from "@/lib/server/training/queries";
 import { todayUtc } from "@/lib/format/date";
 import { trainingProblemsForRun } from "@/lib/server/training/state";
 import { createTestDatabase } from "./support/test-db";
@@ -328,7 +328,8 @@ describe("the training matrix", () => {
     const before = await loadTrainingMatrix(today);
     const columnsOf = (m: typeof before) =>
       m.columns.filter((c) => c.kind === "procedure").map((c) => c.subjectId);
-    const unread = before.procedures.filter((p) => !columnsOf(before).includes(p.versionId));
+    expect(columnsOf(before)).not.toContain("matrix-sop-v1");
+    const { procedures: unread } = await proceduresToAcknowledge(people.engineer.id, today);
     const next = unread.find((p) => p.versionId === "matrix-sop-v1")!;
     expect(next).toBeDefined();
     await t.db.transaction((tx) =>
@@ -342,5 +343,36 @@ describe("the training matrix", () => {
     const column = after.columns.findIndex((c) => c.subjectId === next.versionId);
     const row = after.rows.find((r) => r.person.id === people.engineer.id)!;
     expect(row.cells[column].state).toBe("current");
+  });
+
+  it("offers each person the procedures they have still to acknowledge, searchable, fifty at a time", async () => {
+    // 60 more procedures in force, SOP-BULK-01 to SOP-BULK-60.
+    await t.client.execute(`
+      insert into documents (id, number, title, type, owner_id, created_at)
+      select 'bulk-' || n, 'SOP-BULK-' || printf('%02d', n), 'Bulk procedure ' || n || ': drain to 40% fill_level', 'procedure', '${people.engineer.id}', '2026-11-01T00:00:00.000Z'
+      from (with recursive s(n) as (select 1 union all select n + 1 from s where n < 60) select n from s)`);
+    await t.client.execute(`
+      insert into document_versions (id, document_id, version, status, content, effective_date, created_by, created_at)
+      select 'bulk-' || n || '-v1', 'bulk-' || n, 1, 'effective', (select content from document_versions limit 1), '2026-11-02', '${people.engineer.id}', '2026-11-01T00:00:00.000Z'
+      from (with recursive s(n) as (select 1 union all select n + 1 from s where n < 60) select n from s)`);
+    const today = todayUtc(NOW);
+    const engineer = await proceduresToAcknowledge(people.engineer.id, today);
+    expect(engineer.total).toBeGreaterThanOrEqual(60);
+    expect(engineer.procedures).toHaveLength(50);
+    const numbers = engineer.procedures.map((p) => p.number);
+    expect(numbers).toEqual([...numbers].sort());
+    // The procedure the engineer acknowledged above is current, so it is not offered again.
+    expect(engineer.procedures.map((p) => p.versionId)).not.toContain("matrix-sop-v1");
+    const technician = await proceduresToAcknowledge(people.technician.id, today, "sop-mx");
+    expect(technician.procedures.map((p) => p.versionId)).toEqual(["matrix-sop-v1"]);
+
+    const found = await proceduresToAcknowledge(people.engineer.id, today, "BULK-5 procedure");
+    expect(found.procedures.map((p) => p.number)).toEqual(
+      Array.from({ length: 10 }, (_, i) => `SOP-BULK-5${i}`),
+    );
+    // `%` and `_` in the search match themselves, not any text.
+    expect((await proceduresToAcknowledge(people.engineer.id, today, "fill_level")).total).toBe(60);
+    expect((await proceduresToAcknowledge(people.engineer.id, today, "%fill")).total).toBe(0);
+    expect((await proceduresToAcknowledge(people.engineer.id, today, "drain_to")).total).toBe(0);
   });
 });

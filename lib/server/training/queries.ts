@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, ne } from "drizzle-orm";
+import { and, asc, count, eq, gt, inArray, ne, notInArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import {
   documents,
@@ -9,7 +9,13 @@ import {
   userRoles,
   users,
 } from "@/db/schema";
-import { latestExpiry, trainingState, type TrainingState } from "@/lib/training/rules";
+import {
+  latestExpiry,
+  REMINDER_DAYS,
+  trainingState,
+  type TrainingState,
+} from "@/lib/training/rules";
+import { anyFieldContains, LIST_PAGE_SIZE, searchWords } from "@/lib/server/list-query";
 
 export interface MatrixColumn {
   /** `method:<code>` or `procedure:<document id>`. */
@@ -46,6 +52,8 @@ export async function loadTrainingMatrix(today: string) {
       .from(labMethods)
       .where(eq(labMethods.status, "approved"))
       .orderBy(asc(labMethods.code)),
+    // A procedure becomes a column once anyone has acknowledged any version of it: a plant's library
+    // holds thousands of procedures, and a column per procedure made the matrix tens of megabytes.
     db
       .select({
         documentId: documents.id,
@@ -56,20 +64,25 @@ export async function loadTrainingMatrix(today: string) {
       })
       .from(documentVersions)
       .innerJoin(documents, eq(documents.id, documentVersions.documentId))
-      .where(and(eq(documents.type, "procedure"), eq(documentVersions.status, "effective")))
+      .where(
+        and(
+          eq(documents.type, "procedure"),
+          eq(documentVersions.status, "effective"),
+          inArray(
+            documents.id,
+            db
+              .select({ documentId: documentVersions.documentId })
+              .from(trainingRecords)
+              .innerJoin(
+                documentVersions,
+                eq(documentVersions.id, trainingRecords.documentVersionId),
+              )
+              .where(eq(trainingRecords.kind, "procedure")),
+          ),
+        ),
+      )
       .orderBy(asc(documents.number)),
   ]);
-  // A procedure becomes a column once anyone has acknowledged any version of it: a plant's library
-  // holds thousands of procedures, and a column per procedure made the matrix tens of megabytes.
-  const acknowledged = new Set(
-    (
-      await db
-        .selectDistinct({ documentId: documentVersions.documentId })
-        .from(trainingRecords)
-        .innerJoin(documentVersions, eq(documentVersions.id, trainingRecords.documentVersionId))
-        .where(eq(trainingRecords.kind, "procedure"))
-    ).map((r) => r.documentId),
-  );
   const columns: MatrixColumn[] = [
     ...methods.map((m) => ({
       key: `method:${m.code}`,
@@ -78,15 +91,13 @@ export async function loadTrainingMatrix(today: string) {
       title: m.name,
       subjectId: m.id,
     })),
-    ...procedures
-      .filter((p) => acknowledged.has(p.documentId))
-      .map((p) => ({
-        key: `procedure:${p.documentId}`,
-        kind: "procedure" as const,
-        label: `${p.number} v${p.version}`,
-        title: p.title,
-        subjectId: p.versionId,
-      })),
+    ...procedures.map((p) => ({
+      key: `procedure:${p.documentId}`,
+      kind: "procedure" as const,
+      label: `${p.number} v${p.version}`,
+      title: p.title,
+      subjectId: p.versionId,
+    })),
   ];
   const ids = people.map((p) => p.id);
   const records =
@@ -118,5 +129,51 @@ export async function loadTrainingMatrix(today: string) {
       return { state: trainingState(expiresOn, today), expiresOn };
     }),
   }));
-  return { columns, rows, methods, procedures };
+  return { columns, rows, methods };
+}
+
+/**
+ * The procedure versions in force that the person has still to acknowledge (never, lapsed, or
+ * expiring within the reminder window), matching the search words, by number: the first
+ * LIST_PAGE_SIZE and how many match. A plant's library holds thousands of procedures.
+ */
+export async function proceduresToAcknowledge(userId: string, today: string, search?: string) {
+  const db = getDb();
+  const currentUntil = new Date(Date.parse(`${today}T00:00:00Z`) + REMINDER_DAYS * 86_400_000)
+    .toISOString()
+    .slice(0, 10);
+  const currentlyAcknowledged = db
+    .select({ versionId: trainingRecords.documentVersionId })
+    .from(trainingRecords)
+    .where(
+      and(
+        eq(trainingRecords.userId, userId),
+        eq(trainingRecords.kind, "procedure"),
+        gt(trainingRecords.expiresOn, currentUntil),
+      ),
+    );
+  const where = and(
+    eq(documents.type, "procedure"),
+    eq(documentVersions.status, "effective"),
+    notInArray(documentVersions.id, currentlyAcknowledged),
+    ...searchWords(search).map((w) => anyFieldContains(w, [documents.number, documents.title])),
+  );
+  const [{ total }] = await db
+    .select({ total: count() })
+    .from(documentVersions)
+    .innerJoin(documents, eq(documents.id, documentVersions.documentId))
+    .where(where);
+  const procedures = await db
+    .select({
+      versionId: documentVersions.id,
+      number: documents.number,
+      title: documents.title,
+      version: documentVersions.version,
+    })
+    .from(documentVersions)
+    .innerJoin(documents, eq(documents.id, documentVersions.documentId))
+    .where(where)
+    .orderBy(asc(documents.number))
+    .limit(LIST_PAGE_SIZE);
+  return { procedures, total };
 }

@@ -7,16 +7,29 @@ import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
 import { can } from "@/lib/auth/permissions";
 import { todayUtc } from "@/lib/format/date";
 import { requirePageUser } from "@/lib/server/auth/current-user";
-import { loadTrainingMatrix } from "@/lib/server/training/queries";
+import { loadTrainingMatrix, proceduresToAcknowledge } from "@/lib/server/training/queries";
+import { ListFilterForm } from "@/components/ui/list-filter-form";
+import { fromPageParams, readListParams } from "@/lib/url/list-params";
 import { REMINDER_DAYS } from "@/lib/training/rules";
 import { acknowledgeProcedureAction, signOffTrainingAction } from "./actions";
 
 export const metadata: Metadata = { title: "Training matrix" };
 
-export default async function TrainingPage() {
+const FILTERS = { procedure: "" };
+
+export default async function TrainingPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePageUser("lab.view");
   const today = todayUtc();
-  const { columns, rows, methods, procedures } = await loadTrainingMatrix(today);
+  const { procedure: search } = readListParams(fromPageParams(await searchParams), FILTERS);
+  const mayAcknowledge = can(user.roles, "training.acknowledge");
+  const [{ columns, rows, methods }, toAcknowledge] = await Promise.all([
+    loadTrainingMatrix(today),
+    mayAcknowledge ? proceduresToAcknowledge(user.id, today, search) : null,
+  ]);
   return (
     <>
       <PageHeader
@@ -87,22 +100,42 @@ export default async function TrainingPage() {
             />
           </section>
         )}
-        {can(user.roles, "training.acknowledge") && procedures.length > 0 && (
+        {toAcknowledge && (
           <section aria-labelledby="acknowledge">
             <h2 id="acknowledge" className="mb-1 text-lg font-semibold">
               Acknowledge a procedure
             </h2>
             <p className="mb-3 text-sm text-stone-600">
-              Read the version in force under Documents first, then sign for yourself.
+              Read the version in force under Documents first, then sign for yourself. Listed: the
+              procedures in force you have not acknowledged, or whose acknowledgement lapses within{" "}
+              {REMINDER_DAYS} days.
             </p>
-            <AcknowledgeForm
-              action={acknowledgeProcedureAction}
-              procedures={procedures.map((p) => ({
-                value: p.versionId,
-                label: `${p.number} v${p.version} · ${p.title}`,
-              }))}
-              signerName={user.name}
-            />
+            {(toAcknowledge.total > toAcknowledge.procedures.length || search !== "") && (
+              <ListFilterForm
+                label="Find a procedure to acknowledge"
+                action="/lab/training"
+                filters={[{ name: "procedure", label: "Number or title", value: search }]}
+              />
+            )}
+            <p className="mb-3 text-sm text-stone-600" role="status">
+              {toAcknowledge.total === 0
+                ? search === ""
+                  ? "Nothing to acknowledge: your acknowledgement of every procedure in force is current."
+                  : `No procedure to acknowledge matches “${search}”.`
+                : toAcknowledge.total > toAcknowledge.procedures.length
+                  ? `The first ${toAcknowledge.procedures.length} of ${toAcknowledge.total.toLocaleString("en-GB")} by number; search to narrow them.`
+                  : `${toAcknowledge.total} to acknowledge.`}
+            </p>
+            {toAcknowledge.total > 0 && (
+              <AcknowledgeForm
+                action={acknowledgeProcedureAction}
+                procedures={toAcknowledge.procedures.map((p) => ({
+                  value: p.versionId,
+                  label: `${p.number} v${p.version} · ${p.title}`,
+                }))}
+                signerName={user.name}
+              />
+            )}
           </section>
         )}
       </div>
