@@ -27,9 +27,10 @@ import {
   forgetParameterHistories,
   getParameterHistory,
   listTraceableParameters,
+  searchTraceableParameters,
   listTraceScopes,
 } from "@/lib/server/trace/parameter-history";
-import { traceScopes } from "@/lib/trace/parameter-search";
+import { matchParameters, traceScopes } from "@/lib/trace/parameter-search";
 import { getPartFamilyHistory } from "@/lib/server/trace/part-family-history";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
 import { uncontrolledOrigin } from "@/lib/trace/labels";
@@ -287,6 +288,17 @@ describe("parameter history", () => {
         whole.entries.slice(0, hidden).findLast((e) => e.period.kind === "in_force")?.period.value,
       );
     }
+  });
+
+  it("answers the search with nothing chosen from the first systems' parameters and a count in SQL: the same as matching the whole plant's", async () => {
+    const all = await listTraceableParameters();
+    const opening = await searchTraceableParameters({});
+    expect(opening).toEqual(matchParameters(all, {}));
+    expect(opening.total).toBe(all.length);
+    // The first systems' parameters fill the first page: the demo's first washer alone does not.
+    expect(new Set(opening.items.map((p) => p.systemId)).size).toBeGreaterThan(1);
+    for (const filter of [{ q: "temperature" }, { systemId: all.at(-1)!.systemId }, { q: "  " }])
+      expect(await searchTraceableParameters(filter)).toEqual(matchParameters(all, filter));
   });
 
   it("lists a recipe's or a system's parameters alone, the same rows the plant-wide list holds for it", async () => {

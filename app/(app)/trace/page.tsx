@@ -12,6 +12,7 @@ import {
   getParameterHistory,
   listTraceableParameters,
   listTraceScopes,
+  searchTraceableParameters,
 } from "@/lib/server/trace/parameter-history";
 import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { TRACE_ENTRIES_PAGE, traceQuerySchema } from "@/lib/schemas/trace";
@@ -34,7 +35,7 @@ export default async function TracePage({
   const shown = (query.success && query.data.entries) || TRACE_ENTRIES_PAGE;
   // The choosers need names only; the list under them reads the chosen recipe's parameters alone.
   const [parameters, history] = await Promise.all([
-    listTraceableParameters(selected ? { recipeId: selected.recipeId } : {}),
+    selected ? listTraceableParameters({ recipeId: selected.recipeId }) : [],
     selected ? getParameterHistory(selected, { newest: shown }) : undefined,
   ]);
   const temporary = history
@@ -50,7 +51,10 @@ export default async function TracePage({
     systemId: initialRecipe?.systemId ?? "",
     recipeId: initialRecipe?.recipeId ?? "",
   };
-  const scopes = await listTraceScopes(initialFilter.systemId || undefined);
+  const [scopes, initial] = await Promise.all([
+    listTraceScopes(initialFilter.systemId || undefined),
+    selected ? matchParameters(parameters, initialFilter) : searchTraceableParameters({}),
+  ]);
 
   return (
     <>
@@ -60,7 +64,7 @@ export default async function TracePage({
       />
       <ParameterPicker
         scopes={scopes}
-        initial={matchParameters(parameters, initialFilter)}
+        initial={initial}
         initialFilter={initialFilter}
         selected={selected}
       />

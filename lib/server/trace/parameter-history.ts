@@ -17,7 +17,12 @@ import {
 } from "@/db/schema";
 import { narrativeText } from "@/lib/changes/content";
 import { buildParameterTimeline, type VersionValue } from "@/lib/trace/timeline";
-import type { TraceScopes } from "@/lib/trace/parameter-search";
+import {
+  matchParameters,
+  MATCH_LIMIT,
+  type ParameterFilter,
+  type TraceScopes,
+} from "@/lib/trace/parameter-search";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { loadChangeStates } from "@/lib/server/changes/state";
 import { changeEvidenceOf, changeSignaturesOf } from "./evidence-of-change";
@@ -90,6 +95,36 @@ export async function listTraceableParameters(scope: TraceScope = {}) {
     .map(({ latest: _l, order: _o, stagePosition: _p, ...r }) => r);
 }
 export type TraceableParameter = Awaited<ReturnType<typeof listTraceableParameters>>[number];
+
+/**
+ * The trace search's answer: the first MATCH_LIMIT matches in list order and how many in all.
+ * With no system, recipe or words (the page as it opens) every parameter of the plant matches:
+ * tens of thousands at plant size. They are then counted in SQL, and only the first systems'
+ * parameters are read, system by system in list order, until the first MATCH_LIMIT are found.
+ */
+export async function searchTraceableParameters(filter: ParameterFilter) {
+  const { systemId, recipeId, q } = filter;
+  if (systemId || recipeId || (q ?? "").trim() !== "")
+    return matchParameters(await listTraceableParameters({ systemId, recipeId }), filter);
+  const db = getDb();
+  const [counted] = await db.all<{ total: number }>(sql`
+    select count(*) as total from (
+      select 1 from ${recipeParameters}
+      join ${recipeStages} on ${recipeStages.id} = ${recipeParameters.stageId}
+      join ${recipeVersions} on ${recipeVersions.id} = ${recipeParameters.versionId}
+      join ${recipes} on ${recipes.id} = ${recipeVersions.recipeId}
+      join ${cleaningSystems} on ${cleaningSystems.id} = ${recipes.systemId}
+      group by ${recipes.id}, ${recipeParameters.key})`);
+  const systems = (
+    await db.select({ id: cleaningSystems.id, code: cleaningSystems.code }).from(cleaningSystems)
+  ).sort((a, b) => a.code.localeCompare(b.code));
+  const items: TraceableParameter[] = [];
+  for (const system of systems) {
+    if (items.length >= MATCH_LIMIT) break;
+    items.push(...(await listTraceableParameters({ systemId: system.id })));
+  }
+  return { total: Number(counted?.total ?? 0), items: items.slice(0, MATCH_LIMIT) };
+}
 
 /**
  * The cleaning systems the trace search offers, and the recipes of one of them, without reading any

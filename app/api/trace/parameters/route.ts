@@ -2,8 +2,7 @@ import { NextResponse } from "next/server";
 import { jsonError, searchParamsObject, zodFieldErrors } from "@/lib/http/json";
 import { parameterSearchQuerySchema } from "@/lib/schemas/trace";
 import { defineRoute } from "@/lib/server/api/handler";
-import { listTraceableParameters } from "@/lib/server/trace/parameter-history";
-import { matchParameters } from "@/lib/trace/parameter-search";
+import { searchTraceableParameters } from "@/lib/server/trace/parameter-history";
 
 /** The trace page's search as the user types: the first matches and how many there are. */
 export const GET = defineRoute({ permission: "trace.view" }, async ({ request }) => {
@@ -12,6 +11,6 @@ export const GET = defineRoute({ permission: "trace.view" }, async ({ request })
     return jsonError(400, "Some search values are not valid.", zodFieldErrors(parsed.error));
   const { system, recipe, q } = parsed.data;
   const scope = { systemId: system || undefined, recipeId: recipe || undefined };
-  const result = matchParameters(await listTraceableParameters(scope), { ...scope, q });
+  const result = await searchTraceableParameters({ ...scope, q });
   return NextResponse.json(result, { headers: { "Cache-Control": "no-store" } });
 });
