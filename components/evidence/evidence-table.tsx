@@ -70,12 +70,13 @@ const columns: ColumnDef<EvidenceListRow>[] = [
 
 export interface EvidenceTableProps {
   families: { id: string; code: string }[];
-  versions: { id: string; label: string }[];
+  recipes: { id: string; code: string }[];
 }
 
 type Filters = {
   partFamilyId: string;
-  recipeVersionId: string;
+  recipeId: string;
+  version: string;
   testType: string;
   outcome: string;
   from: string;
@@ -84,7 +85,8 @@ type Filters = {
 /** Filters, sort and page live in the address (lib/url/list-params.ts), so a filtered list can be linked and reloaded. */
 const LIST_DEFAULTS = {
   partFamilyId: "",
-  recipeVersionId: "",
+  recipeId: "",
+  version: "",
   testType: "",
   outcome: "",
   from: "",
@@ -103,7 +105,7 @@ async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
 }
 
 /** The evidence list: filters, sorting and paging are done by the server; the page is fetched here. */
-export function EvidenceTable({ families, versions }: EvidenceTableProps) {
+export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
   const [list, setList] = useListParams(LIST_DEFAULTS);
   const { sort, dir, page, ...filters } = list;
   const sorting: SortingState = [{ id: sort, desc: dir !== "asc" }];
@@ -160,7 +162,7 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
   return (
     <section aria-label="Test runs">
       <form
-        className="mb-3 grid gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-3 lg:grid-cols-6"
+        className="mb-3 grid gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-4 lg:grid-cols-7"
         aria-label="Filter test runs"
         onSubmit={(e) => e.preventDefault()}
       >
@@ -180,19 +182,33 @@ export function EvidenceTable({ families, versions }: EvidenceTableProps) {
           </select>
         </label>
         <label className="text-xs text-stone-600">
-          Recipe version
+          Recipe
           <select
             className={select}
-            value={filters.recipeVersionId}
-            onChange={setFilter("recipeVersionId")}
+            value={filters.recipeId}
+            onChange={(e) => setList({ recipeId: e.target.value, version: "", page: "1" })}
           >
             <option value="">All</option>
-            {versions.map((v) => (
-              <option key={v.id} value={v.id}>
-                {v.label}
+            {recipes.map((r) => (
+              <option key={r.id} value={r.id}>
+                {r.code}
               </option>
             ))}
           </select>
+        </label>
+        <label className="text-xs text-stone-600">
+          Version
+          <input
+            type="number"
+            min={1}
+            step={1}
+            inputMode="numeric"
+            placeholder={filters.recipeId ? "All" : "Choose a recipe"}
+            disabled={!filters.recipeId}
+            className={select}
+            value={filters.version}
+            onChange={setFilter("version")}
+          />
         </label>
         <label className="text-xs text-stone-600">
           Test type

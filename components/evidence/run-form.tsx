@@ -1,6 +1,9 @@
 "use client";
 
+import { useState } from "react";
+import { useQuery } from "@tanstack/react-query";
 import { ActionForm } from "@/components/ui/action-form";
+import { IntentLink } from "@/components/ui/intent-link";
 import { DateField, Field, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { TEST_TYPES } from "@/db/enums";
@@ -15,15 +18,45 @@ export interface RunFormProps {
     families: { id: string; code: string; name: string }[];
     versions: { id: string; label: string }[];
     technicians: { id: string; name: string }[];
-    protocols: { id: string; number: string; title: string }[];
     changes: { id: string; number: string; title: string }[];
   };
   defaultTechnicianId?: string;
   /** Filled in when the form is opened from a change request's gate. */
   defaults?: RunDefaults;
+  /** Whether superseded and withdrawn versions are offered too, and the address that switches. */
+  versions: { all: boolean; switchHref: string };
 }
 
-export function RunForm({ action, options, defaultTechnicianId, defaults = {} }: RunFormProps) {
+interface Protocol {
+  id: string;
+  number: string;
+  title: string;
+}
+
+async function fetchProtocols(partFamily: string, recipeVersion: string): Promise<Protocol[]> {
+  const qs = new URLSearchParams({ partFamily, recipeVersion });
+  const response = await fetch(`/api/evidence/protocols?${qs}`, { cache: "no-store" });
+  const body = await response.json().catch(() => null);
+  if (!response.ok) throw new Error(body?.error ?? "The protocols could not be loaded.");
+  return body.protocols;
+}
+
+export function RunForm({
+  action,
+  options,
+  defaultTechnicianId,
+  defaults = {},
+  versions,
+}: RunFormProps) {
+  const [familyId, setFamilyId] = useState(defaults.partFamilyId ?? "");
+  const [versionId, setVersionId] = useState(defaults.recipeVersionId ?? "");
+  const combination = familyId !== "" && versionId !== "";
+  // A plant has thousands of protocols: those for the chosen family and version are asked for.
+  const protocols = useQuery({
+    queryKey: ["run-protocols", familyId, versionId],
+    queryFn: () => fetchProtocols(familyId, versionId),
+    enabled: combination,
+  });
   return (
     <ActionForm
       action={action}
@@ -35,6 +68,7 @@ export function RunForm({ action, options, defaultTechnicianId, defaults = {} }:
         label="Part family"
         placeholder="Choose…"
         defaultValue={defaults.partFamilyId}
+        onValueChange={setFamilyId}
         options={options.families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))}
       />
       <SelectField
@@ -42,7 +76,18 @@ export function RunForm({ action, options, defaultTechnicianId, defaults = {} }:
         label="Recipe version"
         placeholder="Choose…"
         defaultValue={defaults.recipeVersionId}
+        onValueChange={setVersionId}
         options={options.versions.map((v) => ({ value: v.id, label: v.label }))}
+        hint={
+          <>
+            {versions.all
+              ? "Every version, superseded and withdrawn ones too. "
+              : "Versions in force, proposed or in first validation. "}
+            <IntentLink href={versions.switchHref} className="text-brand-800 underline">
+              {versions.all ? "Show current versions only" : "Results for an older version?"}
+            </IntentLink>
+          </>
+        }
       />
       <SelectField
         name="testType"
@@ -64,7 +109,21 @@ export function RunForm({ action, options, defaultTechnicianId, defaults = {} }:
         name="protocolDocumentId"
         label="Protocol (optional)"
         placeholder="None"
-        options={options.protocols.map((p) => ({ value: p.id, label: `${p.number} · ${p.title}` }))}
+        disabled={!combination}
+        options={(combination ? (protocols.data ?? []) : []).map((p) => ({
+          value: p.id,
+          label: `${p.number} · ${p.title}`,
+        }))}
+        error={protocols.error?.message}
+        hint={
+          !combination
+            ? "Choose the part family and recipe version first: the protocols for them are listed."
+            : protocols.isPending
+              ? "Loading the protocols for this part family and recipe version…"
+              : protocols.data?.length === 0
+                ? "No IQ, OQ or PQ protocol is written for this part family and recipe version."
+                : undefined
+        }
       />
       <SelectField
         name="changeRequestId"

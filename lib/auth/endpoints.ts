@@ -32,6 +32,7 @@ import * as apiInstrumentsCertificatesRoute from "@/app/api/instruments/certific
 import * as apiAuditPackChangeidRoute from "@/app/api/audit-pack/[changeId]/route";
 import * as apiDocumentsDocumentidVersionsVersionPdfRoute from "@/app/api/documents/[documentId]/versions/[version]/pdf/route";
 import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/route";
+import * as apiEvidenceProtocolsRoute from "@/app/api/evidence/protocols/route";
 import * as apiEvidenceRunsRunidFilesRoute from "@/app/api/evidence/runs/[runId]/files/route";
 import * as apiCyclesImportRoute from "@/app/api/cycles/import/route";
 import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId]/import/route";
@@ -93,6 +94,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
   "app/api/documents/[documentId]/versions/[version]/pdf/route.ts":
     apiDocumentsDocumentidVersionsVersionPdfRoute,
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,
+  "app/api/evidence/protocols/route.ts": apiEvidenceProtocolsRoute,
   "app/api/evidence/runs/[runId]/files/route.ts": apiEvidenceRunsRunidFilesRoute,
   "app/api/cycles/import/route.ts": apiCyclesImportRoute,
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,

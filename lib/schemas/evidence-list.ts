@@ -10,6 +10,15 @@ const optional = <T extends z.ZodType>(schema: T) =>
 export const evidenceListQuerySchema = z.object({
   partFamilyId: optional(z.string().uuid("Unknown part family.")),
   recipeVersionId: optional(z.string().uuid("Unknown recipe version.")),
+  recipeId: optional(z.string().uuid("Unknown recipe.")),
+  /** A version number of the chosen recipe. */
+  version: optional(
+    z.coerce
+      .number({ error: "Enter a version number." })
+      .int("Enter a whole version number.")
+      .min(1, "Versions are numbered from 1.")
+      .max(100_000, "Enter a version number of the recipe."),
+  ),
   testType: optional(z.enum(TEST_TYPES)),
   outcome: optional(z.enum(OUTCOMES)),
   from: optional(calendarDate()),
@@ -44,3 +53,11 @@ export interface EvidenceListPage {
   page: number;
   pageSize: number;
 }
+
+/** `GET /api/evidence/protocols`: the protocols a run on one part family and recipe version can execute. */
+export const runProtocolsQuerySchema = z
+  .object({
+    partFamily: z.uuid("Choose the part family."),
+    recipeVersion: z.uuid("Choose the recipe version."),
+  })
+  .strict();

@@ -255,3 +255,58 @@ test("the bath log shows the isolation caution, records a reading and raises ove
   await expect(form.getByRole("status")).toContainText("Recorded in the bath log.");
   await expect(page.getByRole("table", { name: "Bath log" })).toContainText("3.05 %");
 });
+
+test("the new-run form offers the protocols for the chosen part family and recipe version, and older versions on request", async ({
+  page,
+}) => {
+  await signInAs(page, "technician");
+  await page.goto("/evidence/runs/new?testType=gravimetric");
+  const version = page.getByLabel("Recipe version");
+  const protocol = page.getByLabel("Protocol (optional)");
+  await expect(protocol).toBeDisabled();
+  await expect(protocol).toHaveAccessibleDescription(/Choose the part family and recipe version/);
+  await expect(version.locator("option", { hasText: "(superseded)" })).toHaveCount(0);
+
+  // Results that arrive for an older version: the form lists every version, keeping the address's choices.
+  await page.getByRole("link", { name: "Results for an older version?" }).click();
+  await expect(page).toHaveURL(/testType=gravimetric&versions=all/);
+  await expect(page.getByLabel("Test type")).toHaveValue("gravimetric");
+  await expect(version.locator("option", { hasText: "(superseded)" })).not.toHaveCount(0);
+  await page.getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
+  const v2 = await version.locator("option", { hasText: /^R-AW3-VB v2 / }).textContent();
+  await version.selectOption({ label: v2! });
+  await expect(protocol).toBeEnabled();
+  await expect(protocol.locator("option", { hasText: "OQ-AW3-0001" })).toHaveCount(1);
+  await protocol.selectOption({
+    label: "OQ-AW3-0001 · OQ of the three-tank aqueous washer for valve bodies",
+  });
+
+  // The OQ was written for the valve body on that version: another family is not offered it.
+  await page.getByLabel("Part family").selectOption({ label: "PF-PH-400 · Pump housing PH-400" });
+  await expect(protocol.locator("option", { hasText: "OQ-AW3-0001" })).toHaveCount(0);
+  await page.getByRole("link", { name: "Show current versions only" }).click();
+  await expect(page).toHaveURL(/\/evidence\/runs\/new\?testType=gravimetric$/);
+});
+
+test("the evidence list filters by recipe and by a version number of it", async ({ page }) => {
+  await signInAs(page, "engineer");
+  await page.goto("/evidence");
+  const filters = page.getByRole("form", { name: "Filter test runs" });
+  const version = filters.getByLabel("Version");
+  await expect(version).toBeDisabled();
+  await filters.getByLabel("Recipe").selectOption({ label: "R-AW3-VB" });
+  await expect(version).toBeEnabled();
+  await version.fill("2");
+  await expect(page).toHaveURL(/version=2/);
+  const table = page.getByRole("table", { name: /Test runs, \d+ found/ });
+  const recipeCells = table.locator("tbody tr td:nth-child(4)");
+  await expect(recipeCells.first()).toHaveText("R-AW3-VB v2");
+  for (const text of await recipeCells.allTextContents()) expect(text).toBe("R-AW3-VB v2");
+  // A version the recipe never had finds nothing, and says so.
+  await version.fill("99");
+  await expect(page.getByText("No test runs match these filters.")).toBeVisible();
+  await version.fill("0");
+  await expect(page.getByRole("region", { name: "Test runs" }).getByRole("alert")).toContainText(
+    "Versions are numbered from 1.",
+  );
+});

@@ -151,6 +151,8 @@ test.describe("no server insides in any answer", () => {
       `/api/evidence/files/${UNKNOWN}`,
       "/api/evidence/runs?sort=number;drop&dir=sideways&page=-1",
       "/api/evidence/runs?partFamilyId=' OR 1=1 --",
+      "/api/evidence/protocols?partFamily=' OR 1=1 --&recipeVersion=x",
+      "/api/evidence/protocols",
       "/api/queue?x=%27",
       "/api/v1/recipes",
       "/api/v1/recipes?cursor=abc",

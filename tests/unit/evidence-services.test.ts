@@ -46,7 +46,7 @@ import { sendMaintenanceReminders } from "@/lib/server/bath/send-maintenance-rem
 import { getQueue } from "@/lib/server/queue/get-queue";
 import { getTank, listTanks } from "@/lib/server/bath/queries";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
-import { listRunsPage } from "@/lib/server/evidence/queries";
+import { listRunsPage, particleRunVersions } from "@/lib/server/evidence/queries";
 import { evidenceListQuerySchema } from "@/lib/schemas/evidence-list";
 import { createTestDatabase } from "./support/test-db";
 
@@ -509,6 +509,70 @@ describe("demo history, list and queue", () => {
     );
     expect(page.rows).toHaveLength(5);
     expect(page.rows[0].number <= page.rows[4].number).toBe(true);
+  });
+
+  it("filters by recipe, and by a version number of it, the same runs as by the version's id", async () => {
+    const versions = await t.db
+      .select({
+        id: recipeVersions.id,
+        recipeId: recipeVersions.recipeId,
+        version: recipeVersions.version,
+      })
+      .from(recipeVersions);
+    const all = { pageSize: "100", includeSuperseded: "true" };
+    const ids = async (query: Record<string, string>) =>
+      (await listRunsPage(evidenceListQuerySchema.parse({ ...all, ...query }))).rows
+        .map((r) => r.id)
+        .sort();
+    const withRuns: typeof versions = [];
+    for (const v of versions)
+      if ((await ids({ recipeVersionId: v.id })).length > 0) withRuns.push(v);
+    const recipe = withRuns.find((v) =>
+      withRuns.some((w) => w.recipeId === v.recipeId && w.id !== v.id),
+    );
+    expect(recipe, "a recipe with runs on two of its versions").toBeDefined();
+    const ofRecipe = withRuns.filter((v) => v.recipeId === recipe!.recipeId);
+    const byRecipe = await ids({ recipeId: recipe!.recipeId });
+    expect(byRecipe).toEqual(
+      (await Promise.all(ofRecipe.map((v) => ids({ recipeVersionId: v.id })))).flat().sort(),
+    );
+    for (const v of ofRecipe)
+      expect(await ids({ recipeId: v.recipeId, version: String(v.version) })).toEqual(
+        await ids({ recipeVersionId: v.id }),
+      );
+    expect(await ids({ recipeId: recipe!.recipeId, version: "999" })).toEqual([]);
+    expect(() =>
+      evidenceListQuerySchema.parse({ recipeId: recipe!.recipeId, version: "0" }),
+    ).toThrow("Versions are numbered from 1.");
+  });
+
+  it("offers a family's particle trend the versions its particle runs were washed with, superseded ones too", async () => {
+    const runs = await t.db
+      .select({
+        familyId: testRuns.partFamilyId,
+        versionId: testRuns.recipeVersionId,
+        status: testRuns.status,
+        type: testRuns.testType,
+      })
+      .from(testRuns);
+    const particle = runs.filter(
+      (r) => r.type === "particle_cleanliness" && r.status !== "superseded",
+    );
+    const families = [...new Set(particle.map((r) => r.familyId))];
+    expect(families.length).toBeGreaterThan(0);
+    for (const family of families) {
+      const offered = (await particleRunVersions(family)).map((v) => v.id).sort();
+      const expected = [
+        ...new Set(particle.filter((r) => r.familyId === family).map((r) => r.versionId)),
+      ].sort();
+      expect(offered).toEqual(expected);
+    }
+    const versionStatuses = new Map(
+      (await t.db.select().from(recipeVersions)).map((v) => [v.id, v.status]),
+    );
+    // Labels say each version's status, so a superseded one reads as such.
+    for (const v of await particleRunVersions(families[0]))
+      expect(v.label).toMatch(new RegExp(`\\(${versionStatuses.get(v.id)}\\)$`));
   });
 
   it("queues tests to perform and verify, and due bath maintenance, and mails each reminder once", async () => {

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   auditEvents,
   changeRequests,
+  cleaningSystems,
   cleanlinessSpecs,
   documents,
   partFamilies,
@@ -17,6 +18,11 @@ import { partFamilySchema, updatePartFamilySchema } from "@/lib/schemas/part-fam
 import { reviseSpecSchema, specSchema } from "@/lib/schemas/spec";
 import { qualifyCombinationSchema } from "@/lib/schemas/combination";
 import { createRun } from "@/lib/server/evidence/create-run";
+import {
+  CURRENT_VERSION_STATUSES,
+  protocolsFor,
+  runFormOptions,
+} from "@/lib/server/evidence/queries";
 import { computeStoredOutcome } from "@/lib/server/evidence/refresh-outcome";
 import { createPartFamily } from "@/lib/server/plant/create-part-family";
 import { createSpec } from "@/lib/server/plant/create-spec";
@@ -352,6 +358,61 @@ describe("qualified combinations", () => {
     );
     const run = await createRun(engineer, { ...input, protocolDocumentId: protocol.id });
     expect(run.protocolDocumentId).toBe(protocol.id);
+  });
+
+  it("offers a new run the protocols for its part family and recipe version, and current versions unless asked for all", async () => {
+    const manifold = await family("PF-MN-05");
+    const valveBody = await family("PF-VB-210");
+    const ph1 = await version("R-AW3-PH", 1);
+    const numbers = async (f: string, v: string) => (await protocolsFor(f, v)).map((p) => p.number);
+    expect(await numbers(manifold.id, ph1.id)).toContain("PQ-MN-05");
+    expect(await numbers(valveBody.id, ph1.id)).not.toContain("PQ-MN-05");
+    // A protocol that names neither a family nor a version is offered with every combination.
+    await t.db.insert(documents).values({
+      number: "IQ-ANY-01",
+      title: "IQ of the plant's washers",
+      type: "iq_protocol",
+      ownerId: engineer.id,
+    });
+    expect(await numbers(valveBody.id, ph1.id)).toContain("IQ-ANY-01");
+    // An IQ written for a washer alone goes with the runs of that washer's recipes only.
+    const systems = await t.db.select().from(cleaningSystems);
+    const aw3 = systems.find((x) => x.code === "AW-3")!;
+    const other = systems.find((x) => x.code !== "AW-3")!;
+    await t.db.insert(documents).values([
+      {
+        number: "IQ-AW3-09",
+        title: "IQ of AW-3",
+        type: "iq_protocol",
+        systemId: aw3.id,
+        ownerId: engineer.id,
+      },
+      {
+        number: "IQ-OTHER-09",
+        title: "IQ elsewhere",
+        type: "iq_protocol",
+        systemId: other.id,
+        ownerId: engineer.id,
+      },
+    ]);
+    expect(await numbers(valveBody.id, ph1.id)).toContain("IQ-AW3-09");
+    expect(await numbers(valveBody.id, ph1.id)).not.toContain("IQ-OTHER-09");
+    // Procedures and reports are never a run's protocol.
+    expect(await numbers(valveBody.id, ph1.id)).not.toContain("SOP-AW3-0001");
+
+    const statusOf = new Map(
+      (await t.db.select().from(recipeVersions)).map((v) => [v.id, v.status]),
+    );
+    const current = await runFormOptions();
+    const all = await runFormOptions("all");
+    expect(all.versions).toHaveLength(statusOf.size);
+    expect(current.versions.map((v) => v.id)).toEqual(
+      all.versions
+        .map((v) => v.id)
+        .filter((id) => CURRENT_VERSION_STATUSES.includes(statusOf.get(id) as never)),
+    );
+    expect([...statusOf.values()]).toContain("superseded");
+    expect(current.versions.length).toBeLessThan(all.versions.length);
   });
 
   it("qualifies a combination once, audited, and then runs open on it", async () => {

@@ -27,7 +27,7 @@ export default async function EvidencePage() {
           ) : undefined
         }
       />
-      <EvidenceTable families={options.families} versions={options.versions} />
+      <EvidenceTable families={options.families} recipes={options.recipes} />
     </>
   );
 }

@@ -1,5 +1,19 @@
 import "server-only";
-import { and, asc, count, desc, eq, gte, inArray, lte, ne, sql, type SQL } from "drizzle-orm";
+import {
+  and,
+  asc,
+  count,
+  desc,
+  eq,
+  gte,
+  inArray,
+  isNull,
+  lte,
+  ne,
+  or,
+  sql,
+  type SQL,
+} from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
 import {
@@ -32,6 +46,21 @@ export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPa
   if (!q.includeSuperseded) where.push(ne(testRuns.status, "superseded"));
   if (q.partFamilyId) where.push(eq(testRuns.partFamilyId, q.partFamilyId));
   if (q.recipeVersionId) where.push(eq(testRuns.recipeVersionId, q.recipeVersionId));
+  if (q.recipeId)
+    where.push(
+      inArray(
+        testRuns.recipeVersionId,
+        db
+          .select({ id: recipeVersions.id })
+          .from(recipeVersions)
+          .where(
+            and(
+              eq(recipeVersions.recipeId, q.recipeId),
+              q.version === undefined ? undefined : eq(recipeVersions.version, q.version),
+            ),
+          ),
+      ),
+    );
   if (q.testType) where.push(eq(testRuns.testType, q.testType));
   if (q.outcome) where.push(eq(testRuns.outcome, q.outcome));
   if (q.from) where.push(gte(testRuns.performedOn, q.from));
@@ -83,13 +112,20 @@ export async function listRunsPage(q: EvidenceListQuery): Promise<EvidenceListPa
   };
 }
 
-/** Part families and recipe versions, by code and newest version first: the run form's and the list's choices. */
-function familyAndVersionChoices(db: ReturnType<typeof getDb>) {
+/** Recipe versions a new run is usually for: in force, proposed by a change, or a first draft being validated. */
+export const CURRENT_VERSION_STATUSES = ["effective", "proposed", "draft"] as const;
+
+/**
+ * Part families and recipe versions, by code and newest version first: the run form's and the
+ * list's choices. `versions: "current"` leaves out superseded and withdrawn versions: a plant's
+ * recipes have thousands of them, and a new run is rarely for one.
+ */
+function familyAndVersionChoices(
+  db: ReturnType<typeof getDb>,
+  versions: "all" | "current" = "all",
+) {
   return Promise.all([
-    db
-      .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
-      .from(partFamilies)
-      .orderBy(asc(partFamilies.code)),
+    partFamilyChoices(),
     db
       .select({
         id: recipeVersions.id,
@@ -100,6 +136,11 @@ function familyAndVersionChoices(db: ReturnType<typeof getDb>) {
       })
       .from(recipeVersions)
       .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+      .where(
+        versions === "current"
+          ? inArray(recipeVersions.status, CURRENT_VERSION_STATUSES)
+          : undefined,
+      )
       .orderBy(asc(recipes.code), desc(recipeVersions.version)),
   ]);
 }
@@ -107,31 +148,38 @@ function familyAndVersionChoices(db: ReturnType<typeof getDb>) {
 const versionLabel = (v: { code: string; version: number; status: string }) =>
   `${v.code} v${v.version} (${v.status})`;
 
-/** The evidence list's filter choices, as the selects print them (no names: they are sent to the browser). */
+/**
+ * The evidence list's filter choices, as the selects print them (no names: they are sent to the
+ * browser). Recipes, not their versions: a plant's recipes have thousands of versions between
+ * them, so the list takes a recipe and a version number.
+ */
 export async function evidenceFilterOptions() {
-  const [families, versions] = await familyAndVersionChoices(getDb());
-  return {
-    families: families.map((f) => ({ id: f.id, code: f.code })),
-    versions: versions.map((v) => ({ id: v.id, label: versionLabel(v) })),
-  };
+  const db = getDb();
+  const [families, recipeRows] = await Promise.all([
+    db
+      .select({ id: partFamilies.id, code: partFamilies.code })
+      .from(partFamilies)
+      .orderBy(asc(partFamilies.code)),
+    db.select({ id: recipes.id, code: recipes.code }).from(recipes).orderBy(asc(recipes.code)),
+  ]);
+  return { families, recipes: recipeRows };
 }
 
-/** Choices for the run form. */
-export async function runFormOptions() {
+/**
+ * Choices for the run form: the current recipe versions unless `versions` is "all" (results that
+ * arrive for a superseded version). Protocols are offered once the part family and version are
+ * chosen (protocolsFor): a plant has thousands.
+ */
+export async function runFormOptions(versions: "all" | "current" = "current") {
   const db = getDb();
-  const [[families, versions], technicians, protocols, changes] = await Promise.all([
-    familyAndVersionChoices(db),
+  const [[families, versionRows], technicians, changes] = await Promise.all([
+    familyAndVersionChoices(db, versions),
     db
       .select({ id: users.id, name: users.name })
       .from(users)
       .innerJoin(userRoles, eq(userRoles.userId, users.id))
       .where(and(eq(userRoles.role, "technician"), eq(users.active, true)))
       .orderBy(asc(users.name)),
-    db
-      .select({ id: documents.id, number: documents.number, title: documents.title })
-      .from(documents)
-      .where(inArray(documents.type, ["iq_protocol", "oq_protocol", "pq_protocol"]))
-      .orderBy(asc(documents.number)),
     db
       .select({
         id: changeRequests.id,
@@ -150,15 +198,35 @@ export async function runFormOptions() {
   ]);
   return {
     families,
-    versions: versions.map((v) => ({
+    versions: versionRows.map((v) => ({
       id: v.id,
       label: versionLabel(v),
       name: v.name,
     })),
     technicians,
-    protocols,
     changes,
   };
+}
+
+/**
+ * The IQ, OQ and PQ protocols a run on this part family and recipe version can execute: each
+ * link a protocol names (washer, part family, recipe version) must be the run's; a protocol
+ * written for the washer alone (an IQ) is offered with every family and version run on it.
+ */
+export async function protocolsFor(partFamilyId: string, recipeVersionId: string) {
+  const systemOfVersion = sql`(select ${recipes.systemId} from ${recipes} where ${recipes.id} = (select ${recipeVersions.recipeId} from ${recipeVersions} where ${recipeVersions.id} = ${recipeVersionId}))`;
+  return getDb()
+    .select({ id: documents.id, number: documents.number, title: documents.title })
+    .from(documents)
+    .where(
+      and(
+        inArray(documents.type, ["iq_protocol", "oq_protocol", "pq_protocol"]),
+        or(isNull(documents.systemId), eq(documents.systemId, systemOfVersion)),
+        or(isNull(documents.partFamilyId), eq(documents.partFamilyId, partFamilyId)),
+        or(isNull(documents.recipeVersionId), eq(documents.recipeVersionId, recipeVersionId)),
+      ),
+    )
+    .orderBy(asc(documents.number));
 }
 
 /** A run with everything its page shows: context, raw data, files, signatures, computed outcome, revisions. */
@@ -245,6 +313,40 @@ export async function getRunDetail(runId: string) {
   };
 }
 export type RunDetail = NonNullable<Awaited<ReturnType<typeof getRunDetail>>>;
+
+/** Part families by code with their names: the trends page's chooser. */
+export function partFamilyChoices() {
+  return getDb()
+    .select({ id: partFamilies.id, code: partFamilies.code, name: partFamilies.name })
+    .from(partFamilies)
+    .orderBy(asc(partFamilies.code));
+}
+
+/**
+ * The recipe versions a part family's particle runs were washed with, by code and newest first:
+ * the trend's version choices (a plant's recipes have thousands of versions in all).
+ */
+export async function particleRunVersions(partFamilyId: string) {
+  const rows = await getDb()
+    .selectDistinct({
+      id: recipeVersions.id,
+      version: recipeVersions.version,
+      status: recipeVersions.status,
+      code: recipes.code,
+    })
+    .from(testRuns)
+    .innerJoin(recipeVersions, eq(recipeVersions.id, testRuns.recipeVersionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(
+      and(
+        eq(testRuns.partFamilyId, partFamilyId),
+        eq(testRuns.testType, "particle_cleanliness"),
+        ne(testRuns.status, "superseded"),
+      ),
+    )
+    .orderBy(asc(recipes.code), desc(recipeVersions.version));
+  return rows.map((v) => ({ id: v.id, label: versionLabel(v) }));
+}
 
 /** Particle runs of a part family (optionally one recipe version) with their samples, oldest first, for the trend chart. */
 export async function particleHistory(partFamilyId: string, recipeVersionId?: string) {

@@ -9,7 +9,11 @@ import { BATH_VARIABLES, type BathVariable } from "@/lib/evidence/maintenance";
 import { particleTrend } from "@/lib/evidence/trends";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getTank, listTanks } from "@/lib/server/bath/queries";
-import { particleHistory, runFormOptions } from "@/lib/server/evidence/queries";
+import {
+  particleHistory,
+  particleRunVersions,
+  partFamilyChoices,
+} from "@/lib/server/evidence/queries";
 
 export const metadata: Metadata = { title: "Trends" };
 
@@ -23,9 +27,12 @@ export default async function TrendsPage({
 }) {
   await requirePageUser("evidence.view");
   const sp = await searchParams;
-  const options = await runFormOptions();
-  const familyId = pick(sp.family) ?? options.families[0]?.id;
-  const versionId = pick(sp.version);
+  const families = await partFamilyChoices();
+  const familyId = pick(sp.family) ?? families[0]?.id;
+  // The versions this family's particle runs were washed with, superseded ones too.
+  const versions = familyId ? await particleRunVersions(familyId) : [];
+  // A version from another family's list (the family was changed) would hide every run: ignored.
+  const versionId = versions.find((v) => v.id === pick(sp.version))?.id;
   const history = familyId ? await particleHistory(familyId, versionId) : null;
   const series = history?.family
     ? particleTrend(history.family.spec.ccc, history.family.family, history.runs)
@@ -65,7 +72,7 @@ export default async function TrendsPage({
             label="Part family"
             dense
             defaultValue={familyId}
-            options={options.families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))}
+            options={families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))}
           />
           <SelectField
             name="version"
@@ -73,7 +80,7 @@ export default async function TrendsPage({
             dense
             defaultValue={versionId ?? ""}
             placeholder="All versions"
-            options={options.versions.map((v) => ({ value: v.id, label: v.label }))}
+            options={versions.map((v) => ({ value: v.id, label: v.label }))}
           />
           {stageId && <input type="hidden" name="tank" value={stageId} />}
           <input type="hidden" name="variable" value={variable} />

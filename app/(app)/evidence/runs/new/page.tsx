@@ -14,8 +14,18 @@ export default async function NewRunPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const user = await requirePageUser("evidence.record");
-  const options = await runFormOptions();
-  const defaults = runDefaultsFromQuery(await searchParams, options.changes, options);
+  const query = await searchParams;
+  const allVersions = query.versions === "all";
+  const options = await runFormOptions(allVersions ? "all" : "current");
+  const defaults = runDefaultsFromQuery(query, options.changes, options);
+  // The switch between current and all versions keeps what the address fills in (a change's gate).
+  const switched = new URLSearchParams(
+    Object.entries(query).filter(
+      (e): e is [string, string] => typeof e[1] === "string" && e[0] !== "versions",
+    ),
+  );
+  if (!allVersions) switched.set("versions", "all");
+  const switchHref = `/evidence/runs/new${switched.size ? `?${switched}` : ""}`;
   return (
     <>
       <PageHeader
@@ -26,6 +36,7 @@ export default async function NewRunPage({
         action={createRunAction}
         options={options}
         defaults={defaults}
+        versions={{ all: allVersions, switchHref }}
         defaultTechnicianId={
           options.technicians.some((t) => t.id === user.id) ? user.id : undefined
         }
