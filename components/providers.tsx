@@ -2,10 +2,14 @@
 
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useState, type ReactNode } from "react";
+import { retryUnlessRefused } from "@/lib/http/refused";
 
 export function Providers({ children }: { children: ReactNode }) {
   const [client] = useState(
-    () => new QueryClient({ defaultOptions: { queries: { staleTime: 10_000 } } }),
+    () =>
+      new QueryClient({
+        defaultOptions: { queries: { staleTime: 10_000, retry: retryUnlessRefused } },
+      }),
   );
   return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
 }

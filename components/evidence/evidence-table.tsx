@@ -12,6 +12,7 @@ import {
 import { IntentLink } from "@/components/ui/intent-link";
 import { useListParams } from "@/components/ui/use-list-params";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
+import { RequestRefused } from "@/lib/http/refused";
 import { humanize } from "@/lib/format/labels";
 import type { EvidenceListPage, EvidenceListRow } from "@/lib/schemas/evidence-list";
 import { Button } from "@/components/ui/button";
@@ -100,7 +101,10 @@ const PAGE_SIZE = 20;
 async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
   const response = await fetch(`/api/evidence/runs?${params}`, { cache: "no-store" });
   const body = await response.json().catch(() => null);
-  if (!response.ok) throw new Error(body?.error ?? "The list could not be loaded.");
+  if (!response.ok) {
+    const message = body?.error ?? "The list could not be loaded.";
+    throw response.status < 500 ? new RequestRefused(message) : new Error(message);
+  }
   return body;
 }
 
@@ -125,8 +129,17 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
     const next = typeof updater === "function" ? updater(pagination) : updater;
     setList({ page: String(next.pageIndex + 1) });
   };
+  // A version number counts only under a chosen recipe, and only as a whole number from 1.
+  const versionProblem =
+    filters.recipeId && filters.version !== "" && !/^[1-9]\d{0,5}$/.test(filters.version)
+      ? "Enter a whole version number from 1."
+      : null;
+  const sent = {
+    ...filters,
+    version: filters.recipeId && !versionProblem ? filters.version : "",
+  };
   const params = new URLSearchParams({
-    ...Object.fromEntries(Object.entries(filters).filter(([, v]) => v !== "")),
+    ...Object.fromEntries(Object.entries(sent).filter(([, v]) => v !== "")),
     sort: sorting[0]?.id ?? "performedOn",
     dir: sorting[0]?.desc === false ? "asc" : "desc",
     page: String(pagination.pageIndex + 1),
@@ -158,7 +171,8 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
   useEffect(() => {
     if (pastTheEnd) setList({ page: String(pages) });
   }, [pastTheEnd, pages, setList]);
-  const select = "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm";
+  const select =
+    "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm disabled:cursor-not-allowed disabled:bg-stone-100 disabled:text-stone-500";
   return (
     <section aria-label="Test runs">
       <form
@@ -203,12 +217,20 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
             min={1}
             step={1}
             inputMode="numeric"
-            placeholder={filters.recipeId ? "All" : "Choose a recipe"}
+            placeholder={filters.recipeId ? "All" : "—"}
+            title={filters.recipeId ? undefined : "Choose a recipe first"}
             disabled={!filters.recipeId}
+            aria-invalid={versionProblem !== null}
+            aria-describedby={versionProblem ? "version-problem" : undefined}
             className={select}
-            value={filters.version}
+            value={filters.recipeId ? filters.version : ""}
             onChange={setFilter("version")}
           />
+          {versionProblem && (
+            <span id="version-problem" className="mt-1 block text-red-800">
+              {versionProblem}
+            </span>
+          )}
         </label>
         <label className="text-xs text-stone-600">
           Test type
@@ -251,13 +273,21 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
         caption={`Test runs, ${(data?.total ?? 0).toLocaleString("en")} found`}
         busy={isFetching}
         bodyClassName="whitespace-nowrap"
-        empty={data ? "No test runs match these filters." : undefined}
+        empty={
+          data
+            ? "No test runs match these filters."
+            : error
+              ? "The list could not be loaded."
+              : undefined
+        }
       />
       <div className="mt-3 flex items-center justify-between text-sm text-stone-700">
         <p>
           {data
             ? `${data.total.toLocaleString("en")} run${data.total === 1 ? "" : "s"} · page ${(pagination.pageIndex + 1).toLocaleString("en")} of ${pages.toLocaleString("en")}`
-            : "Loading…"}
+            : error
+              ? ""
+              : "Loading…"}
         </p>
         <div className="flex gap-2">
           <Button

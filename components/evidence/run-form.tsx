@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { ActionForm } from "@/components/ui/action-form";
 import { IntentLink } from "@/components/ui/intent-link";
+import { RequestRefused } from "@/lib/http/refused";
 import { DateField, Field, SelectField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { TEST_TYPES } from "@/db/enums";
@@ -33,11 +34,18 @@ interface Protocol {
   title: string;
 }
 
-async function fetchProtocols(partFamily: string, recipeVersion: string): Promise<Protocol[]> {
+async function fetchProtocols(
+  partFamily: string,
+  recipeVersion: string,
+  signal?: AbortSignal,
+): Promise<Protocol[]> {
   const qs = new URLSearchParams({ partFamily, recipeVersion });
-  const response = await fetch(`/api/evidence/protocols?${qs}`, { cache: "no-store" });
+  const response = await fetch(`/api/evidence/protocols?${qs}`, { cache: "no-store", signal });
   const body = await response.json().catch(() => null);
-  if (!response.ok) throw new Error(body?.error ?? "The protocols could not be loaded.");
+  if (!response.ok) {
+    const message = body?.error ?? "The protocols could not be loaded.";
+    throw response.status < 500 ? new RequestRefused(message) : new Error(message);
+  }
   return body.protocols;
 }
 
@@ -50,11 +58,15 @@ export function RunForm({
 }: RunFormProps) {
   const [familyId, setFamilyId] = useState(defaults.partFamilyId ?? "");
   const [versionId, setVersionId] = useState(defaults.recipeVersionId ?? "");
-  const combination = familyId !== "" && versionId !== "";
+  // A version chosen from the other list (all versions, then current only) is no longer on offer.
+  const combination =
+    familyId !== "" &&
+    options.families.some((f) => f.id === familyId) &&
+    options.versions.some((v) => v.id === versionId);
   // A plant has thousands of protocols: those for the chosen family and version are asked for.
   const protocols = useQuery({
     queryKey: ["run-protocols", familyId, versionId],
-    queryFn: () => fetchProtocols(familyId, versionId),
+    queryFn: ({ signal }) => fetchProtocols(familyId, versionId, signal),
     enabled: combination,
   });
   return (

@@ -2,7 +2,8 @@
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { IntentLink } from "@/components/ui/intent-link";
-import { useDeferredValue, useId, useState } from "react";
+import { useEffect, useId, useState } from "react";
+import { RequestRefused } from "@/lib/http/refused";
 import { Field, SelectField } from "@/components/ui/field";
 import {
   MATCH_LIMIT,
@@ -25,18 +26,32 @@ interface ParameterPickerProps {
   selected?: { recipeId: string; key: string };
 }
 
-async function fetchMatches(filter: ParameterFilter): Promise<Matches> {
+/** How long typing pauses before the search is sent: each keystroke would otherwise be a request. */
+const SEARCH_PAUSE_MS = 250;
+
+/** `value` once it has stayed the same for `ms`. */
+function useDebounced<T>(value: T, ms: number): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const timer = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(timer);
+  }, [value, ms]);
+  return settled;
+}
+
+async function fetchMatches(filter: ParameterFilter, signal?: AbortSignal): Promise<Matches> {
   const qs = new URLSearchParams({
     system: filter.systemId ?? "",
     recipe: filter.recipeId ?? "",
     q: filter.q ?? "",
   });
-  const response = await fetch(`/api/trace/parameters?${qs}`, { cache: "no-store" });
-  if (!response.ok)
-    throw new Error(
+  const response = await fetch(`/api/trace/parameters?${qs}`, { cache: "no-store", signal });
+  if (!response.ok) {
+    const message =
       ((await response.json().catch(() => null)) as { error?: string } | null)?.error ??
-        "The search failed; try again.",
-    );
+      "The search failed; try again.";
+    throw response.status < 500 ? new RequestRefused(message) : new Error(message);
+  }
   return response.json();
 }
 
@@ -63,12 +78,13 @@ export function ParameterPicker({
   const [systemId, setSystemId] = useState(initialFilter.systemId);
   const [recipeId, setRecipeId] = useState(initialFilter.recipeId);
   const [query, setQuery] = useState("");
-  const q = useDeferredValue(query);
+  const q = useDebounced(query, SEARCH_PAUSE_MS);
   const isInitial =
     systemId === initialFilter.systemId && recipeId === initialFilter.recipeId && q.trim() === "";
   const { data, error, isPlaceholderData } = useQuery({
     queryKey: ["trace-parameters", systemId, recipeId, q.trim()],
-    queryFn: () => fetchMatches({ systemId, recipeId, q }),
+    // A newer search cancels the request of an older one (react-query aborts `signal`).
+    queryFn: ({ signal }) => fetchMatches({ systemId, recipeId, q }, signal),
     initialData: isInitial ? initial : undefined,
     placeholderData: keepPreviousData,
   });
@@ -127,9 +143,11 @@ export function ParameterPicker({
       <p className="mt-3 text-xs text-stone-600" aria-live="polite">
         {error || systemRecipes.error
           ? (error ?? systemRecipes.error)!.message
-          : matches.total === 0
-            ? "No parameter matches."
-            : `${matches.total} parameter${matches.total === 1 ? "" : "s"} match${matches.total === 1 ? "es" : ""}${matches.total > MATCH_LIMIT ? `; the first ${MATCH_LIMIT} are shown` : ""}.`}
+          : isPlaceholderData || query !== q
+            ? "Searching…"
+            : matches.total === 0
+              ? "No parameter matches."
+              : `${matches.total.toLocaleString("en-GB")} parameter${matches.total === 1 ? "" : "s"} match${matches.total === 1 ? "es" : ""}${matches.total > MATCH_LIMIT ? `; the first ${MATCH_LIMIT} are shown` : ""}.`}
       </p>
       <ul
         id={`${id}-results`}

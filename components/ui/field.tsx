@@ -86,7 +86,7 @@ function useControl(props: { name?: string; errorKey?: string; error?: string })
 }
 
 const box =
-  "block rounded-md border border-stone-300 bg-white text-sm shadow-xs focus:border-brand-600 aria-invalid:border-red-700";
+  "block rounded-md border border-stone-300 bg-white text-sm shadow-xs focus:border-brand-600 aria-invalid:border-red-700 disabled:cursor-not-allowed disabled:bg-stone-100 disabled:text-stone-500";
 const boxClass = (dense?: boolean) => `${box} ${dense ? "px-2 py-1" : "px-3 py-2"}`;
 
 /** Label above, the control, then hint and errors: the frame every field shares. */

@@ -306,7 +306,14 @@ test("the evidence list filters by recipe and by a version number of it", async 
   await version.fill("99");
   await expect(page.getByText("No test runs match these filters.")).toBeVisible();
   await version.fill("0");
+  await expect(filters.getByText("Enter a whole version number from 1.")).toBeVisible();
+  await expect(version).toHaveAttribute("aria-invalid", "true");
+  // A crafted address with a bad filter is refused and said in words, never left loading; it is
+  // not asked again (three retries would take seven seconds before the message showed).
+  await page.goto("/evidence?outcome=maybe");
   await expect(page.getByRole("region", { name: "Test runs" }).getByRole("alert")).toContainText(
-    "Versions are numbered from 1.",
+    "outcome:",
+    { timeout: 4_000 },
   );
+  await expect(page.getByText("The list could not be loaded.")).toBeVisible();
 });
