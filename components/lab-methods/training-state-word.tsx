@@ -13,9 +13,12 @@ const ICONS = {
 export function TrainingStateWord({
   state,
   expiresOn,
+  subject = "method",
 }: {
   state: TrainingState;
   expiresOn: string | null;
+  /** A procedure is acknowledged, not trained on: its "never" reads so. */
+  subject?: "method" | "procedure";
 }) {
   const Icon = ICONS[state];
   const tone =
@@ -24,7 +27,9 @@ export function TrainingStateWord({
     <span className={`inline-flex items-center gap-1 ${tone}`}>
       <Icon className="h-4 w-4" aria-hidden="true" />
       <span>
-        {TRAINING_STATE_LABELS[state]}
+        {subject === "procedure" && state === "never"
+          ? "Not acknowledged"
+          : TRAINING_STATE_LABELS[state]}
         {expiresOn && state !== "lapsed" && (
           <span className="text-xs text-stone-600"> until {formatDate(expiresOn)}</span>
         )}

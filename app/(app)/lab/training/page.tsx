@@ -47,34 +47,40 @@ export default async function TrainingPage({
           column here once it is.
         </p>
       )}
-      <Table caption="Training matrix" frameClassName="mb-8">
-        <THead>
-          <Th>Person</Th>
-          {columns.map((c) => (
-            <Th key={c.key}>
-              <span className="block">{c.label}</span>
-              <span className="block text-xs font-normal normal-case text-stone-600">
-                {c.kind === "method" ? "Lab method" : "Procedure"}: {c.title}
-              </span>
-            </Th>
-          ))}
-        </THead>
-        <TBody>
-          {rows.length === 0 && (
-            <EmptyRow colSpan={columns.length + 1}>Nobody to train yet.</EmptyRow>
-          )}
-          {rows.map((r) => (
-            <tr key={r.person.id}>
-              <Th scope="row">{r.person.name}</Th>
-              {r.cells.map((cell, i) => (
-                <Td key={columns[i].key}>
-                  <TrainingStateWord state={cell.state} expiresOn={cell.expiresOn} />
-                </Td>
-              ))}
-            </tr>
-          ))}
-        </TBody>
-      </Table>
+      {columns.length > 0 && (
+        <Table caption="Training matrix" frameClassName="mb-8">
+          <THead>
+            <Th>Person</Th>
+            {columns.map((c) => (
+              <Th key={c.key}>
+                <span className="block">{c.label}</span>
+                <span className="block text-xs font-normal normal-case text-stone-600">
+                  {c.kind === "method" ? "Lab method" : "Procedure"}: {c.title}
+                </span>
+              </Th>
+            ))}
+          </THead>
+          <TBody>
+            {rows.length === 0 && (
+              <EmptyRow colSpan={columns.length + 1}>Nobody to train yet.</EmptyRow>
+            )}
+            {rows.map((r) => (
+              <tr key={r.person.id}>
+                <Th scope="row">{r.person.name}</Th>
+                {r.cells.map((cell, i) => (
+                  <Td key={columns[i].key}>
+                    <TrainingStateWord
+                      state={cell.state}
+                      expiresOn={cell.expiresOn}
+                      subject={columns[i].kind}
+                    />
+                  </Td>
+                ))}
+              </tr>
+            ))}
+          </TBody>
+        </Table>
+      )}
 
       <div className="grid gap-8 lg:grid-cols-2">
         {can(user.roles, "training.sign_off") && methods.length > 0 && (
@@ -113,18 +119,12 @@ export default async function TrainingPage({
             {(toAcknowledge.total > toAcknowledge.procedures.length || search !== "") && (
               <ListFilterForm
                 label="Find a procedure to acknowledge"
-                action="/lab/training"
+                action="/lab/training#acknowledge"
                 filters={[{ name: "procedure", label: "Number or title", value: search }]}
               />
             )}
             <p className="mb-3 text-sm text-stone-600" role="status">
-              {toAcknowledge.total === 0
-                ? search === ""
-                  ? "Nothing to acknowledge: your acknowledgement of every procedure in force is current."
-                  : `No procedure to acknowledge matches “${search}”.`
-                : toAcknowledge.total > toAcknowledge.procedures.length
-                  ? `The first ${toAcknowledge.procedures.length} of ${toAcknowledge.total.toLocaleString("en-GB")} by number; search to narrow them.`
-                  : `${toAcknowledge.total} to acknowledge.`}
+              {acknowledgeStatus(toAcknowledge, search)}
             </p>
             {toAcknowledge.total > 0 && (
               <AcknowledgeForm
@@ -141,4 +141,20 @@ export default async function TrainingPage({
       </div>
     </>
   );
+}
+
+/** What the acknowledge list holds, in words: with a search, how many of the person's match it. */
+function acknowledgeStatus(list: { total: number; procedures: unknown[] }, search: string) {
+  const total = list.total.toLocaleString("en-GB");
+  if (search === "")
+    return list.total === 0
+      ? "Nothing to acknowledge: your acknowledgement of every procedure in force is current."
+      : list.total > list.procedures.length
+        ? `${total} to acknowledge; the first ${list.procedures.length} by number are listed. Search to narrow them.`
+        : `${total} to acknowledge.`;
+  if (list.total === 0)
+    return `None of the procedures you have to acknowledge matches “${search}”.`;
+  return list.total > list.procedures.length
+    ? `${total} of the procedures you have to acknowledge match “${search}”; the first ${list.procedures.length} are listed.`
+    : `${total} of the procedures you have to acknowledge match${list.total === 1 ? "es" : ""} “${search}”.`;
 }
