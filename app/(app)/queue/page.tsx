@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { redirect } from "next/navigation";
 import { QueueList } from "@/components/queue/queue-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/server/auth/current-user";
@@ -15,6 +16,14 @@ export default async function QueuePage({
   // A link to one kind's page is kept in the URL; a malformed one shows the first page of everything.
   const query = queueQuery.safeParse(await searchParams);
   const initial = await getQueue(user, query.success ? query.data : {});
+  // An address past a kind's last page, or naming a kind with nothing waiting, moves to what exists.
+  if (initial.kind !== null) {
+    const total = initial.kinds.find((k) => k.kind === initial.kind)?.total ?? 0;
+    const pages = Math.ceil(total / initial.pageSize);
+    if (total === 0) redirect("/queue");
+    if (initial.page > pages)
+      redirect(`/queue?${new URLSearchParams({ kind: initial.kind, page: String(pages) })}`);
+  }
   return (
     <>
       <PageHeader

@@ -113,8 +113,13 @@ export async function getChangeRequestHeading(changeRequestId: string) {
       number: changeRequests.number,
       title: changeRequests.title,
       status: changeRequests.status,
+      createdAt: changeRequests.createdAt,
+      recipeCode: recipes.code,
+      author: users.name,
     })
     .from(changeRequests)
+    .innerJoin(recipes, eq(recipes.id, changeRequests.recipeId))
+    .innerJoin(users, eq(users.id, changeRequests.createdBy))
     .where(eq(changeRequests.id, changeRequestId));
   return row ?? null;
 }

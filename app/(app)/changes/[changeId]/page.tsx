@@ -488,15 +488,20 @@ async function UnshownChange({ changeId, reason }: { changeId: string; reason: s
         title={`${heading.number} · ${heading.title}`}
         description={
           <>
-            Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[heading.status]}</span>
+            Status: <span className="font-semibold">{CHANGE_STATUS_LABELS[heading.status]}</span> ·{" "}
+            {heading.recipeCode} · opened by {heading.author} on {formatDate(heading.createdAt)}
           </>
         }
       />
       <EmptyState title="This change request cannot be shown in full">
         <p>{reason}</p>
         <p className="mt-2">
-          The other change requests are in the{" "}
-          <IntentLink href="/changes" className="text-brand-800 hover:underline">
+          Its parameter diff, impact and signatures need the recipe versions it compares. Its events
+          stay in the audit trail. Other change requests with this status are in the{" "}
+          <IntentLink
+            href={`/changes?status=${heading.status}`}
+            className="text-brand-800 hover:underline"
+          >
             change list
           </IntentLink>
           .
