@@ -39,7 +39,9 @@ export function individualsChart(values: number[]): IndividualsChart {
   const n = values.length;
   let sum = 0;
   for (const v of values) sum += v;
-  const centre = sum / n;
+  // A series with no variation sits on its centre line: twenty readings of 3.1 sum to a mean of
+  // 3.100000000000001, which would put every reading beyond limits that are zero apart.
+  const centre = values.every((v) => v === values[0]) ? values[0] : sum / n;
   const movingRanges: number[] = [];
   for (let i = 1; i < n; i++) movingRanges.push(Math.abs(values[i] - values[i - 1]));
   const mrBar = movingRanges.reduce((a, b) => a + b, 0) / movingRanges.length;

@@ -225,6 +225,16 @@ describe("individualsChart", () => {
     expect(broken.outOfControl.filter((p) => p.rule === "run-of-8")).toEqual([]);
   });
 
+  it("finds nothing out of control in a series with no variation", () => {
+    // common practice: a process with no variation has σ = 0 and every reading on the centre line.
+    // Twenty readings of 3.1 sum in floating point to a mean of 3.100000000000001 (from a bath
+    // held at 3.1 % in the plant-size data), which had put each reading below limits zero apart.
+    const flat = individualsChart(Array(20).fill(3.1));
+    expect(flat.individuals).toEqual({ centre: 3.1, ucl: 3.1, lcl: 3.1 });
+    expect(flat.outOfControl).toEqual([]);
+    expect(individualsChart([0.1, 0.1, 0.1]).outOfControl).toEqual([]);
+  });
+
   it("agrees with simple-statistics on generated data", () => {
     fc.assert(
       fc.property(
