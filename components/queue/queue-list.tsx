@@ -51,6 +51,7 @@ export function QueueList({ initial }: { initial: QueuePage }) {
   }
   return (
     <>
+      <QueueScope queue={queue} />
       <Table caption="Waiting for you" busy={isFetching}>
         <THead>
           <Th>What</Th>
@@ -129,7 +130,11 @@ function QueuePager({ queue }: { queue: QueuePage }) {
   const longer = queue.kinds.filter((k) => k.total > shown(k.kind));
   if (longer.length === 0) return null;
   return (
-    <ul aria-label="More waiting" className="mt-3 space-y-1 text-sm text-stone-700">
+    <ul
+      id="more-waiting"
+      aria-label="More waiting"
+      className="mt-3 space-y-1 text-sm text-stone-700"
+    >
       {longer.map((k) => (
         <li key={k.kind}>
           {k.kind}: {shown(k.kind)} of {k.total} shown.{" "}
@@ -142,5 +147,34 @@ function QueuePager({ queue }: { queue: QueuePage }) {
         </li>
       ))}
     </ul>
+  );
+}
+
+/** Above the list, what it holds: one kind only, or the first page of each with more waiting below. */
+function QueueScope({ queue }: { queue: QueuePage }) {
+  const count = (n: number) => n.toLocaleString("en-GB");
+  if (queue.kind !== null) {
+    const total = queue.kinds.find((k) => k.kind === queue.kind)?.total ?? 0;
+    return (
+      <p className="mb-3 text-sm text-stone-700">
+        Showing {queue.kind.toLowerCase()} only ({count(total)} waiting).{" "}
+        <IntentLink className="text-brand-800 hover:underline" href="/queue">
+          Everything waiting
+        </IntentLink>
+      </p>
+    );
+  }
+  const shown = (kind: string) => queue.items.filter((i) => i.kind === kind).length;
+  const longer = queue.kinds.filter((k) => k.total > shown(k.kind));
+  if (longer.length === 0) return null;
+  return (
+    <p className="mb-3 text-sm text-stone-700">
+      The first {queue.pageSize} of each kind are listed; more wait for{" "}
+      {longer.map((k) => `${k.kind.toLowerCase()} (${count(k.total)})`).join(", ")}:{" "}
+      <a className="text-brand-800 hover:underline" href="#more-waiting">
+        their further pages
+      </a>
+      .
+    </p>
   );
 }
