@@ -61,7 +61,13 @@ export function useFormResult() {
   return useContext(FormStateContext);
 }
 
-function UnclaimedErrors({
+/**
+ * The banner's text: the summary, then every field error no control shows. When the summary is
+ * word for word the error a control shows beside itself (a wrong password), the banner points to
+ * that control instead of saying it twice; a service's error filed under a field no control shows
+ * repeats the summary, and is said once too.
+ */
+function BannerText({
   claims,
   fieldErrors,
   summary,
@@ -71,19 +77,24 @@ function UnclaimedErrors({
   summary: string;
 }) {
   useSyncExternalStore(claims.subscribe, claims.snapshot, claims.snapshot);
-  // A service's error filed under a field repeats the summary word for word: say it once.
-  const rest = Object.entries(fieldErrors).filter(
-    ([key, messages]) => !claims.has(key) && messages.join(" ") !== summary,
-  );
-  if (rest.length === 0) return null;
+  const errors = Object.entries(fieldErrors).map(([key, messages]) => ({
+    key,
+    text: messages.join(" "),
+    shownBeside: claims.has(key),
+  }));
+  const pointTo = errors.find((e) => e.shownBeside && e.text === summary);
+  const rest = errors.filter((e) => !e.shownBeside && e.text !== summary);
   return (
-    <ul className="mt-1 list-disc pl-5">
-      {rest.map(([key, messages]) => (
-        <li key={key}>
-          {key === "_form" ? messages.join(" ") : `${fieldKeyLabel(key)}: ${messages.join(" ")}`}
-        </li>
-      ))}
-    </ul>
+    <>
+      <p>{pointTo ? `One field needs attention: ${fieldKeyLabel(pointTo.key)}.` : summary}</p>
+      {rest.length > 0 && (
+        <ul className="mt-1 list-disc pl-5">
+          {rest.map(({ key, text }) => (
+            <li key={key}>{key === "_form" ? text : `${fieldKeyLabel(key)}: ${text}`}</li>
+          ))}
+        </ul>
+      )}
+    </>
   );
 }
 
@@ -136,14 +147,11 @@ export function ActionForm<S extends FormState>({
             role="alert"
             className="col-span-full mb-4 rounded-md border border-red-300 bg-red-50 px-3 py-2 text-sm text-red-900"
           >
-            <p>{state.message}</p>
-            {state.fieldErrors && (
-              <UnclaimedErrors
-                claims={claims}
-                fieldErrors={state.fieldErrors}
-                summary={state.message}
-              />
-            )}
+            <BannerText
+              claims={claims}
+              fieldErrors={state.fieldErrors ?? {}}
+              summary={state.message}
+            />
           </div>
         )}
         {showSuccess && state?.ok && state.message && (

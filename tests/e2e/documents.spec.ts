@@ -101,8 +101,9 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
   const reviewer = await as(browser, "reviewer");
   await reviewer.goto(new URL(link).pathname + new URL(link).search);
   const dialog = await signInDialog(reviewer, "Sign as reviewed", "not the password");
-  await expect(dialog.getByRole("alert")).toContainText(
-    "The password is not correct. Nothing was signed.",
+  await expect(dialog.getByRole("alert")).toHaveText("One field needs attention: Password.");
+  await expect(dialog.getByLabel("Your password")).toHaveAccessibleDescription(
+    /The password is not correct\. Nothing was signed\./,
   );
   await dialog.getByLabel("Your password").fill(DEMO_PASSWORD);
   await dialog.getByRole("button", { name: "Sign", exact: true }).click();

@@ -130,7 +130,12 @@ test("a technician acknowledges the bath-change procedure in force; a wrong pass
   await form.getByLabel("Procedure").selectOption({ label: sop });
   await form.getByLabel("Your password").fill("not my password");
   await form.getByRole("button", { name: "Sign acknowledgement" }).click();
-  await expect(form.getByRole("alert")).toContainText(/password/i);
+  // The reason is said once, beside the password; the banner points to it.
+  await expect(form.getByRole("alert")).toHaveText("One field needs attention: Password.");
+  await expect(form.getByLabel("Your password")).toHaveAccessibleDescription(
+    /The password is not correct\. Nothing was signed\./,
+  );
+  await expect(form.getByText("The password is not correct.", { exact: false })).toHaveCount(1);
   await expect(form.getByLabel("Procedure")).toHaveValue(
     (await form.getByRole("option", { name: sop }).getAttribute("value"))!,
   );
