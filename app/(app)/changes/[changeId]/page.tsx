@@ -55,8 +55,15 @@ import { showsEmergency } from "@/lib/changes/emergency";
 import { OPEN_STATUSES } from "@/lib/changes/workflow";
 import { getChangeTypesPanel } from "@/lib/server/changes/change-types-page";
 import { formatDate } from "@/lib/format/date";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Change request" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ changeId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("change", (await params).changeId, "Change request");
+}
 
 export default async function ChangePage({ params }: { params: Promise<{ changeId: string }> }) {
   const user = await requirePageUser("changes.view");

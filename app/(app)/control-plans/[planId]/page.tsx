@@ -36,8 +36,15 @@ import {
   saveControlPlanDraftAction,
   signControlPlanAction,
 } from "../actions";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Control plan" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ planId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("controlPlan", (await params).planId, "Control plan");
+}
 
 type Version = ControlPlanView["versions"][number];
 

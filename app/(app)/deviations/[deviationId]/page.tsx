@@ -23,8 +23,15 @@ import {
   signDeviationAction,
   withdrawDeviationAction,
 } from "../actions";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Deviation" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ deviationId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("deviation", (await params).deviationId, "Deviation");
+}
 
 const EXPIRY_WORDS = { end_date: "its last day has passed", lots_used: "its lots are used up" };
 

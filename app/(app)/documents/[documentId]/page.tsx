@@ -30,8 +30,15 @@ import {
   submitAction,
 } from "../actions";
 import { formatDate } from "@/lib/format/date";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Document" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ documentId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("document", (await params).documentId, "Document");
+}
 
 const linkButton =
   "inline-flex items-center gap-1.5 rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-100";

@@ -23,8 +23,15 @@ import {
 } from "@/lib/instruments/kinds";
 import { requirePageUser } from "@/lib/server/auth/current-user";
 import { getInstrumentDetail } from "@/lib/server/instruments/queries";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Instrument" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ instrumentId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("instrument", (await params).instrumentId, "Instrument");
+}
 
 /** Kinds checked in place on a washer, where the bath, the spray or the line is live. */
 const CHECKED_IN_PLACE: readonly InstrumentKind[] = [

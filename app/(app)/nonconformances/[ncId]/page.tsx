@@ -43,8 +43,15 @@ import { requirePageUser } from "@/lib/server/auth/current-user";
 import { loadNonconformancePage } from "@/lib/server/nonconformances/queries";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { signClosureAction } from "../actions";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Nonconformance" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ ncId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("nonconformance", (await params).ncId, "Nonconformance");
+}
 
 const NEXT: Partial<Record<NcStatus, NcStatus>> = {
   open: "contained",

@@ -14,8 +14,15 @@ import { retireSystemAction, updateSystemAction } from "../actions";
 import { formatDate } from "@/lib/format/date";
 import { withUnit } from "@/lib/format/number";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Cleaning system" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ systemId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("system", (await params).systemId, "Cleaning system");
+}
 
 export default async function SystemPage({ params }: { params: Promise<{ systemId: string }> }) {
   const user = await requirePageUser("systems.view");

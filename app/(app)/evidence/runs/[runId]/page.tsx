@@ -46,8 +46,15 @@ import { METHOD_KINDS_BY_TEST } from "@/lib/lab-methods/kinds";
 import { getRunMethods } from "@/lib/server/evidence/run-methods";
 import { approvedMethods } from "@/lib/server/lab-methods/queries";
 import { TBody, Table, Td, Th, THead } from "@/components/ui/table";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Test run" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ runId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("run", (await params).runId, "Test run");
+}
 
 export default async function RunPage({
   params,

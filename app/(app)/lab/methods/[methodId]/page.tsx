@@ -17,8 +17,15 @@ import { UserFacingError } from "@/lib/server/errors";
 import { loadMethod } from "@/lib/server/lab-methods/state";
 import { signatureValidity } from "@/lib/signatures/rules";
 import { approveMethodAction } from "../actions";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Lab method" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ methodId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("labMethod", (await params).methodId, "Lab method");
+}
 
 export default async function MethodPage({ params }: { params: Promise<{ methodId: string }> }) {
   const user = await requirePageUser("lab.view");

@@ -17,8 +17,15 @@ import { NcPanel } from "@/components/nonconformances/nc-panel";
 import { ControlPlanLinks } from "@/components/control-plans/control-plan-links";
 import { controlPlansOf } from "@/lib/server/control-plans/queries";
 import { updatePartFamilyAction } from "../../actions";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Part family" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ familyId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("partFamily", (await params).familyId, "Part family");
+}
 
 export default async function PartFamilyPage({
   params,

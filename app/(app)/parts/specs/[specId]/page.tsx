@@ -13,8 +13,15 @@ import { requirePageUser } from "@/lib/server/auth/current-user";
 import { familyOptions, getSpecWithHistory } from "@/lib/server/plant/parts-queries";
 import { specChangeCandidates } from "@/lib/server/plant/open-spec-change";
 import { openSpecChangeAction, reviseSpecAction } from "../../actions";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Specification" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ specId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("spec", (await params).specId, "Specification");
+}
 
 const BASIS = { per_component: "per part", per_1000_cm2: "per 1000 cm²" } as const;
 

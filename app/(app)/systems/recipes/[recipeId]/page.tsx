@@ -22,8 +22,15 @@ import {
   setRequalificationIntervalAction,
 } from "../../../changes/actions";
 import { formatDate } from "@/lib/format/date";
+import { recordTitle } from "@/lib/server/page-titles";
 
-export const metadata: Metadata = { title: "Recipe" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ recipeId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("recipe", (await params).recipeId, "Recipe");
+}
 
 export default async function RecipePage({ params }: { params: Promise<{ recipeId: string }> }) {
   const user = await requirePageUser("systems.view");
