@@ -22,8 +22,20 @@ interface ParameterPickerProps {
   scopes: TraceScopes;
   /** The matches for the first filter, rendered on the server so the list shows before any search. */
   initial: Matches;
-  initialFilter: { systemId: string; recipeId: string };
+  /** The filter the page opened with: from its address, else the chosen parameter's recipe. */
+  initialFilter: { systemId: string; recipeId: string; q: string };
   selected?: { recipeId: string; key: string };
+}
+
+const CHOOSER_PARAMS = ["system", "inRecipe", "q"] as const;
+
+/** The chooser's filter as the page's query string reads it back; empty parts are left out. */
+function chooserParams(filter: { systemId: string; recipeId: string; q: string }): string {
+  const params = new URLSearchParams();
+  if (filter.systemId) params.set("system", filter.systemId);
+  if (filter.systemId && filter.recipeId) params.set("inRecipe", filter.recipeId);
+  if (filter.q) params.set("q", filter.q);
+  return params.toString();
 }
 
 /** How long typing pauses before the search is sent: each keystroke would otherwise be a request. */
@@ -77,10 +89,22 @@ export function ParameterPicker({
   const id = useId();
   const [systemId, setSystemId] = useState(initialFilter.systemId);
   const [recipeId, setRecipeId] = useState(initialFilter.recipeId);
-  const [query, setQuery] = useState("");
+  const [query, setQuery] = useState(initialFilter.q);
   const q = useDebounced(query, SEARCH_PAUSE_MS);
   const isInitial =
-    systemId === initialFilter.systemId && recipeId === initialFilter.recipeId && q.trim() === "";
+    systemId === initialFilter.systemId &&
+    recipeId === initialFilter.recipeId &&
+    q.trim() === initialFilter.q.trim();
+  // The filter lives in the address too, so a reload, Back or a shared link opens it again. It is
+  // replaced, not pushed: each keystroke is not a step of the browser's history.
+  const filterParams = chooserParams({ systemId, recipeId, q: q.trim() });
+  useEffect(() => {
+    const url = new URL(window.location.href);
+    for (const name of CHOOSER_PARAMS) url.searchParams.delete(name);
+    for (const [name, value] of new URLSearchParams(filterParams))
+      url.searchParams.set(name, value);
+    if (url.href !== window.location.href) window.history.replaceState(null, "", url);
+  }, [filterParams]);
   const { data, error, isPlaceholderData } = useQuery({
     queryKey: ["trace-parameters", systemId, recipeId, q.trim()],
     // A newer search cancels the request of an older one (react-query aborts `signal`).
@@ -160,7 +184,7 @@ export function ParameterPicker({
           return (
             <li key={`${p.recipeId} ${p.key}`}>
               <IntentLink
-                href={`/trace?recipe=${p.recipeId}&key=${encodeURIComponent(p.key)}`}
+                href={`/trace?${new URLSearchParams({ recipe: p.recipeId, key: p.key })}${filterParams ? `&${filterParams}` : ""}`}
                 aria-current={current ? "true" : undefined}
                 className={`flex flex-wrap items-baseline justify-between gap-x-4 px-3 py-2 text-sm hover:bg-brand-50 ${current ? "bg-brand-50 font-semibold" : ""}`}
               >

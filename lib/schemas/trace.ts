@@ -1,7 +1,10 @@
 import { z } from "zod";
 import "./messages";
 
-/** The trace page's query string: which recipe parameter to show. Anything else is ignored, not an error. */
+/**
+ * The trace page's query string: which recipe parameter to show, and the chooser's filter.
+ * Anything else is ignored, not an error.
+ */
 export const traceQuerySchema = z.object({
   recipe: z.uuid().optional().catch(undefined),
   key: z
@@ -12,6 +15,10 @@ export const traceQuerySchema = z.object({
     .catch(undefined),
   /** How many of the newest timeline entries to show; the "older entries" link raises it. */
   entries: z.coerce.number().int().min(1).max(10_000).optional().catch(undefined),
+  /** The chooser's own filter, kept in the address so a reload or a shared link keeps it. */
+  system: z.uuid().optional().catch(undefined),
+  inRecipe: z.uuid().optional().catch(undefined),
+  q: z.string().trim().max(80).optional().catch(undefined),
 });
 
 /** Timeline entries a trace shows at first, newest first; each "older entries" link adds as many. */

@@ -44,6 +44,12 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   await expect(matches.getByRole("link")).toHaveCount(1);
   await matches.getByRole("link", { name: /Drying temperature drying\.temperature/ }).click();
   await expect(page).toHaveURL(/key=drying\.temperature/);
+  // The chooser's filter is in the address: after choosing, and after a reload, it is still there.
+  await expect(page).toHaveURL(/q=dry\+temp/);
+  await page.reload();
+  await expect(page.getByLabel("Search parameters")).toHaveValue("dry temp");
+  await expect(page.getByLabel("Recipe")).toHaveValue(/^[0-9a-f-]{36}$/);
+  await expect(matches.getByRole("link")).toHaveCount(1);
 
   // Values, ranges and periods from the demo's CR-2026-001 [db/seed-changes.ts].
   const before = page.getByRole("article", { name: "Version 1: 90 °C" });

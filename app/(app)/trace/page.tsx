@@ -47,14 +47,26 @@ export default async function TracePage({
   const initialRecipe = selected
     ? parameters.find((p) => p.recipeId === selected.recipeId)
     : undefined;
+  // The chooser's filter from the address (kept there as the user narrows it), else the chosen
+  // parameter's own system and recipe.
+  const asked = query.success ? query.data : {};
+  const systemId = asked.system ?? initialRecipe?.systemId ?? "";
+  const scopes = await listTraceScopes(systemId || undefined);
+  const knownSystem = scopes.systems.some((s) => s.id === systemId);
+  const recipeId = !knownSystem
+    ? ""
+    : asked.system
+      ? (scopes.recipes.find((r) => r.id === asked.inRecipe)?.id ?? "")
+      : (initialRecipe?.recipeId ?? "");
   const initialFilter = {
-    systemId: initialRecipe?.systemId ?? "",
-    recipeId: initialRecipe?.recipeId ?? "",
+    systemId: knownSystem ? systemId : "",
+    recipeId,
+    q: asked.q ?? "",
   };
-  const [scopes, initial] = await Promise.all([
-    listTraceScopes(initialFilter.systemId || undefined),
-    selected ? matchParameters(parameters, initialFilter) : searchTraceableParameters({}),
-  ]);
+  const initial =
+    selected && recipeId === selected.recipeId
+      ? matchParameters(parameters, initialFilter)
+      : await searchTraceableParameters(initialFilter);
 
   return (
     <>
