@@ -218,15 +218,20 @@ test("the evidence table filters on the server and the trend chart renders", asy
   await expect(table.getByText("Pass")).toHaveCount(0);
 
   await page.getByRole("link", { name: "Trends" }).click();
-  await page
-    .getByRole("form", { name: "Choose part family and recipe version" })
-    .getByLabel("Part family")
-    .selectOption({ label: "PF-VB-210 · Valve body VB-210" });
-  await page
-    .getByRole("form", { name: "Choose part family and recipe version" })
-    .getByRole("button", { name: "Show" })
-    .click();
+  const choose = page.getByRole("form", { name: "Choose part family and recipe version" });
+  const firstFamilyVersions = await choose
+    .getByLabel("Recipe version")
+    .locator("option")
+    .allTextContents();
+  // Choosing the family shows it at once, with its own versions (none from the family before).
+  await choose.getByLabel("Part family").selectOption({ label: "PF-VB-210 · Valve body VB-210" });
   await expect(page).toHaveURL(/family=/);
+  await expect(page).not.toHaveURL(/version=/);
+  await expect(choose.getByLabel("Recipe version")).toBeEnabled();
+  await expect(choose.getByLabel("Recipe version")).toHaveValue("");
+  expect(await choose.getByLabel("Recipe version").locator("option").allTextContents()).not.toEqual(
+    firstFamilyVersions,
+  );
   const chart = page.getByRole("figure", { name: "Particle trend chart" });
   await expect(chart).toContainText(/\d+ run\(s\)\. Dashed line: the specification limit/, {
     timeout: 30_000,

@@ -4,6 +4,7 @@ import { TrendChart } from "@/components/evidence/trend-chart";
 import { EmptyState } from "@/components/ui/empty-state";
 import { SelectField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
+import { SubmittingSelect } from "@/components/ui/submitting-select";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
 import { BATH_VARIABLES, type BathVariable } from "@/lib/evidence/maintenance";
 import { particleTrend } from "@/lib/evidence/trends";
@@ -67,9 +68,10 @@ export default async function TrendsPage({
           method="get"
           aria-label="Choose part family and recipe version"
         >
-          <SelectField
+          <SubmittingSelect
             name="family"
             label="Part family"
+            clears={["version"]}
             dense
             defaultValue={familyId}
             options={families.map((f) => ({ value: f.id, label: `${f.code} · ${f.name}` }))}
