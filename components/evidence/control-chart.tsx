@@ -11,7 +11,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
-import { chartDomain, type ChartLimit } from "@/lib/evidence/chart-limits";
+import { chartDomain, labelNudges, type ChartLimit } from "@/lib/evidence/chart-limits";
 import { formatDate } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
 
@@ -53,6 +53,9 @@ const LINE_STYLE: Record<ChartLimit["kind"], { stroke: string; dash?: string }> 
  * labelled. Points beyond a reject limit are triangles, beyond an action limit diamonds, out of
  * statistical control crosses; each is also listed in words under the chart.
  */
+/** The plotting area's height inside the h-72 (288 px) box, less the margins and the date axis. */
+const PLOT_HEIGHT_PX = 288 - 8 - 8 - 30;
+
 export function ControlChart({
   title,
   unit,
@@ -80,6 +83,18 @@ export function ControlChart({
     { kind: "control", label: `LCL ${fmt(lcl)}`, value: lcl },
     ...limits,
   ];
+  const yDomain =
+    domain ??
+    chartDomain(
+      points.map((p) => p.value),
+      lines,
+    );
+  // Labels of lines close in value (UCL just inside an action limit) are moved apart.
+  const nudges = labelNudges(
+    lines.map((l) => l.value),
+    yDomain,
+    PLOT_HEIGHT_PX,
+  );
   return (
     <figure
       className="rounded-lg border border-stone-200 bg-white p-4"
@@ -96,13 +111,7 @@ export function ControlChart({
             <XAxis dataKey="date" tick={{ fontSize: 11 }} />
             <YAxis
               tick={{ fontSize: 11 }}
-              domain={
-                domain ??
-                chartDomain(
-                  points.map((p) => p.value),
-                  lines,
-                )
-              }
+              domain={yDomain}
               allowDataOverflow={false}
               tickFormatter={(v: number) => fmt(v)}
               label={{ value: unit, angle: -90, position: "insideLeft", fontSize: 11 }}
@@ -126,7 +135,7 @@ export function ControlChart({
                 stroke={LINE_STYLE[l.kind].stroke}
                 strokeDasharray={LINE_STYLE[l.kind].dash}
                 ifOverflow="extendDomain"
-                label={{ value: l.label, position: "right", fontSize: 11 }}
+                label={{ value: l.label, position: "right", fontSize: 11, dy: nudges[i] }}
               />
             ))}
             <Line dataKey="value" stroke="#115e59" dot={{ r: 3 }} isAnimationActive={false} />

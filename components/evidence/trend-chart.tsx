@@ -60,12 +60,7 @@ export function TrendChart({ series }: { series: TrendSeries }) {
               tick={{ fontSize: 11 }}
               domain={domain}
               tickFormatter={(v: number) => fmt(v)}
-              label={{
-                value: `particles ${series.unit}`,
-                angle: -90,
-                position: "insideLeft",
-                fontSize: 11,
-              }}
+              // No rotated axis title: it printed over wide tick labels. The legend names the unit.
             />
             <Tooltip
               formatter={(v) => [`${fmt(Number(v))} ${series.unit}`, `Class ${group}`]}

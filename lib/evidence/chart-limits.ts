@@ -65,3 +65,29 @@ export function beyondWords(beyond: ChartLimit[]): string | null {
     .map((l) => `beyond ${l.label}`)
     .join("; ");
 }
+
+/**
+ * How far (in pixels, downwards) to move each line's label so that no two labels beside the plot
+ * overlap: lines close in value (a control limit just inside an action limit) would otherwise print
+ * one label over the other. Labels keep their top-to-bottom order; a label already clear of the
+ * others stays on its line. `plotPx` is the height of the plotting area.
+ */
+export function labelNudges(
+  values: readonly number[],
+  domain: readonly [number, number],
+  plotPx: number,
+  minGapPx = 12,
+): number[] {
+  const [low, high] = domain;
+  const span = high - low || 1;
+  const y = values.map((v) => ((high - v) / span) * plotPx);
+  const order = values.map((_, i) => i).sort((a, b) => y[a] - y[b] || a - b);
+  const nudges = values.map(() => 0);
+  let previous = -Infinity;
+  for (const i of order) {
+    const placed = Math.max(y[i], previous + minGapPx);
+    nudges[i] = placed - y[i];
+    previous = placed;
+  }
+  return nudges;
+}

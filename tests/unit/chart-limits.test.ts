@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
 import {
+  labelNudges,
   beyondWords,
   chartDomain,
   pointBeyond,
@@ -84,5 +85,27 @@ describe("bath control chart", () => {
     const chart = bathControlChart(records, "concentrationPct")!;
     expect(chart.limits).toEqual([]);
     expect(chart.domain[1]).toBeGreaterThanOrEqual(chart.ucl);
+  });
+});
+
+// Label placement is our own layout rule (common practice: labels of a chart must not overprint).
+describe("limit labels beside the plot", () => {
+  const plot = 240; // px for a domain of 0..24: 10 px per unit
+  it("leaves labels that are already apart on their lines", () => {
+    expect(labelNudges([20, 10, 2], [0, 24], plot)).toEqual([0, 0, 0]);
+  });
+  it("moves the lower of two close labels down until they are the gap apart, keeping their order", () => {
+    // UCL 3.42 and action limit 3.5 on a 0..24 axis: 0.8 px apart before.
+    const nudges = labelNudges([3.42, 3.5], [0, 24], plot);
+    const y = [3.42, 3.5].map((v, i) => ((24 - v) / 24) * plot + nudges[i]);
+    expect(nudges[1]).toBe(0); // the upper one stays
+    expect(y[0] - y[1]).toBeCloseTo(12, 9);
+  });
+  it("pushes a run of equal values down one gap each", () => {
+    const nudges = labelNudges([5, 5, 5], [0, 10], 100, 12);
+    expect(nudges).toEqual([0, 12, 24]);
+  });
+  it("does not divide by zero on a flat domain", () => {
+    expect(labelNudges([1, 1], [1, 1], 100)).toEqual([0, 12]);
   });
 });
