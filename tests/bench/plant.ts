@@ -525,14 +525,20 @@ function startServer(p: PlantManifest): ChildProcess {
       .privateKey.export({ type: "pkcs8", format: "pem" })
       .toString(),
   };
-  // The production server's heap cap, as `npm start` sets it (package.json is its one place).
+  // The production server's memory settings, as `npm start` sets them (package.json is their one
+  // place): the environment it starts with and node's flags.
   const start = JSON.parse(readFileSync("package.json", "utf8")).scripts.start as string;
-  const heapCap = /--max-old-space-size=\d+/.exec(start)?.[0];
+  const [, startEnv = "", nodeFlags = ""] =
+    /^((?:\w+=\S+\s+)*)node\s+((?:--\S+\s+)*)/.exec(start) ?? [];
+  for (const assignment of startEnv.split(/\s+/).filter(Boolean)) {
+    const [name, value] = assignment.split("=");
+    (env as Record<string, string>)[name] = value;
+  }
   // Its own process group, so stopping it stops whatever it started and nothing else.
   const child = spawn(
     process.execPath,
     [
-      ...(heapCap ? [heapCap] : []),
+      ...nodeFlags.split(/\s+/).filter(Boolean),
       "node_modules/next/dist/bin/next",
       "start",
       "-H",
