@@ -10,7 +10,7 @@ import {
   type SortingState,
 } from "@tanstack/react-table";
 import { IntentLink } from "@/components/ui/intent-link";
-import { useListParams } from "@/components/ui/use-list-params";
+import { useListParams, type ListChange } from "@/components/ui/use-list-params";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 import { RequestRefused } from "@/lib/http/refused";
 import { humanize } from "@/lib/format/labels";
@@ -162,14 +162,17 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
     enableMultiSort: false,
     rowCount: data?.total ?? 0,
   });
-  const setFilter = (key: keyof Filters) => (event: { target: { value: string } }) => {
-    setList({ [key]: event.target.value, page: "1" });
-  };
+  const setFilter =
+    (key: keyof Filters, change: ListChange = "step") =>
+    (event: { target: { value: string } }) => {
+      setList({ [key]: event.target.value, page: "1" }, change);
+    };
   const pages = Math.max(1, Math.ceil((data?.total ?? 0) / pagination.pageSize));
   // A page past the end (an old link, an edited address) shows the last page, as the server lists do.
   const pastTheEnd = data !== undefined && data.total > 0 && pagination.pageIndex + 1 > pages;
   useEffect(() => {
-    if (pastTheEnd) setList({ page: String(pages) });
+    // A correction, not a step of the user's: Back should not return to the empty page.
+    if (pastTheEnd) setList({ page: String(pages) }, "typing");
   }, [pastTheEnd, pages, setList]);
   const select =
     "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm disabled:cursor-not-allowed disabled:bg-stone-100 disabled:text-stone-500";
@@ -224,7 +227,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
             aria-describedby={versionProblem ? "version-problem" : undefined}
             className={select}
             value={filters.recipeId ? filters.version : ""}
-            onChange={setFilter("version")}
+            onChange={setFilter("version", "typing")}
           />
           {versionProblem && (
             <span id="version-problem" className="mt-1 block text-red-800">
@@ -256,11 +259,21 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
         </label>
         <label className="text-xs text-stone-600">
           From
-          <input type="date" className={select} value={filters.from} onChange={setFilter("from")} />
+          <input
+            type="date"
+            className={select}
+            value={filters.from}
+            onChange={setFilter("from", "typing")}
+          />
         </label>
         <label className="text-xs text-stone-600">
           To
-          <input type="date" className={select} value={filters.to} onChange={setFilter("to")} />
+          <input
+            type="date"
+            className={select}
+            value={filters.to}
+            onChange={setFilter("to", "typing")}
+          />
         </label>
       </form>
       {error && (

@@ -5,23 +5,33 @@ import { useCallback, useMemo } from "react";
 import { listSearch, readListParams, type ListState } from "@/lib/url/list-params";
 
 /**
- * A client list's filters, sort and page, kept in the address. The URL is replaced through the
- * History API, which Next keeps in step with useSearchParams without asking the server for the
- * page again; Back does not step through every filter change.
+ * How a change reaches the browser's history: a choice (a select, a sort, a page) is a step Back
+ * undoes; typing replaces the address as it goes, so Back does not step through every keystroke.
  */
-export function useListParams<T extends ListState>(defaults: T): [T, (patch: Partial<T>) => void] {
+export type ListChange = "step" | "typing";
+
+/**
+ * A client list's filters, sort and page, kept in the address through the History API, which
+ * Next keeps in step with useSearchParams without asking the server for the page again.
+ */
+export function useListParams<T extends ListState>(
+  defaults: T,
+): [T, (patch: Partial<T>, change?: ListChange) => void] {
   const search = useSearchParams();
   const pathname = usePathname();
   // `defaults` is a module constant at every call site; its keys decide what is read.
   // eslint-disable-next-line react-hooks/exhaustive-deps
   const state = useMemo(() => readListParams(search, defaults), [search]);
   const update = useCallback(
-    (patch: Partial<T>) => {
+    (patch: Partial<T>, change: ListChange = "step") => {
       const next = {
         ...readListParams(new URLSearchParams(window.location.search), defaults),
         ...patch,
       } as T;
-      window.history.replaceState(null, "", `${pathname}${listSearch(next, defaults)}`);
+      const url = `${pathname}${listSearch(next, defaults)}`;
+      if (url === `${pathname}${window.location.search}`) return;
+      if (change === "step") window.history.pushState(null, "", url);
+      else window.history.replaceState(null, "", url);
     },
     // eslint-disable-next-line react-hooks/exhaustive-deps
     [pathname],

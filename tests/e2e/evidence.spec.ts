@@ -216,6 +216,15 @@ test("the evidence table filters on the server and the trend chart renders", asy
   await page.reload();
   await expect(page.getByLabel("Outcome")).toHaveValue("fail");
   await expect(table.getByText("Pass")).toHaveCount(0);
+  // Each choice is a step of the browser's history: Back undoes the last one.
+  await page.getByLabel("Outcome").selectOption({ label: "Pass" });
+  await expect(page).toHaveURL(/[?&]outcome=pass\b/);
+  await expect(table.getByText("Fail")).toHaveCount(0);
+  await page.goBack();
+  await expect(page).toHaveURL(/[?&]outcome=fail\b/);
+  await expect(page.getByLabel("Outcome")).toHaveValue("fail");
+  await expect(table.getByText("Pass")).toHaveCount(0);
+  await expect(table.getByText("Fail").first()).toBeVisible();
 
   await page.getByRole("link", { name: "Trends" }).click();
   const choose = page.getByRole("form", { name: "Choose part family and recipe version" });
