@@ -121,12 +121,10 @@ export function AffectedDocumentsPanel({
       </p>
       <Table caption="Affected documents">
         <THead>
-          <tr>
-            <Th>Document</Th>
-            <Th>Title</Th>
-            <Th>State</Th>
-            {editable && <Th>Confirm unaffected</Th>}
-          </tr>
+          <Th>Document</Th>
+          <Th>Title</Th>
+          <Th>State</Th>
+          {editable && <Th>Confirm unaffected</Th>}
         </THead>
         <TBody>
           {affected.length === 0 && (

@@ -376,7 +376,9 @@ test("before the evidence exists, Verify and Close are not offered: the next ste
   await signInAs(page, "approver");
   await page.goto("/changes");
   await page.getByRole("link", { name: "CR-2026-002" }).click();
-  // The tab is named after the change, so several open changes can be told apart.
+  // Loaded whole, the page's server HTML is the browser's first render (the fixture fails the test
+  // on a mismatch); its tab is named after the change, so several open changes can be told apart.
+  await page.reload();
   await expect(page).toHaveTitle(/^CR-2026-002 .+ · Washproof$/);
   const waits = page.getByRole("note", { name: "What the next step waits for" });
   await expect(waits).toContainText("Particle cleanliness (29 samples): no test run linked");

@@ -27,5 +27,24 @@ export async function signInAs(page: Page, role: DemoRole) {
   await expect(page.getByRole("banner")).toContainText(DEMO[role].name);
 }
 
-export const test = base;
+/**
+ * Every test's page fails its test when React had to throw away the server's HTML and render the
+ * page again in the browser (a hydration mismatch, React error 418 in a production build): the
+ * page works, but flickers, loses what was typed before it ran, and costs a second render.
+ */
+export const test = base.extend({
+  page: async ({ page }, provide) => {
+    const mismatches: string[] = [];
+    const note = (text: string) => {
+      if (/Hydration failed|Minified React error #4(18|19|23|25)\b/.test(text))
+        mismatches.push(`${page.url()}: ${text.slice(0, 300)}`);
+    };
+    page.on("pageerror", (error) => note(error.message));
+    page.on("console", (message) => {
+      if (message.type() === "error") note(message.text());
+    });
+    await provide(page);
+    expect(mismatches, "the server's HTML did not match the browser's first render").toEqual([]);
+  },
+});
 export { expect };
