@@ -525,15 +525,9 @@ function startServer(p: PlantManifest): ChildProcess {
       .privateKey.export({ type: "pkcs8", format: "pem" })
       .toString(),
   };
-  // The production server's memory settings, as `npm start` sets them (package.json is their one
-  // place): the environment it starts with and node's flags.
+  // The production server's memory flags, as `npm start` sets them (package.json is their one place).
   const start = JSON.parse(readFileSync("package.json", "utf8")).scripts.start as string;
-  const [, startEnv = "", nodeFlags = ""] =
-    /^((?:\w+=\S+\s+)*)node\s+((?:--\S+\s+)*)/.exec(start) ?? [];
-  for (const assignment of startEnv.split(/\s+/).filter(Boolean)) {
-    const [name, value] = assignment.split("=");
-    (env as Record<string, string>)[name] = value;
-  }
+  const nodeFlags = /^node\s+((?:--\S+\s+)*)/.exec(start)?.[1] ?? "";
   // Its own process group, so stopping it stops whatever it started and nothing else.
   const child = spawn(
     process.execPath,
