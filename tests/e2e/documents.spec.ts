@@ -193,3 +193,16 @@ test("a stale save is refused with the text kept, an oversized draft is refused,
   expect(text).toContain("Status: Draft");
   await other.context().close();
 });
+
+test("a change narrative is routed through its change request, and its page says so with a link", async ({
+  page,
+}) => {
+  await signInAs(page, "auditor");
+  await page.goto("/documents?q=CN-2026-003");
+  await page.getByRole("link", { name: "CN-2026-003" }).click();
+  const routing = page.getByRole("region", { name: "Routing" });
+  await expect(routing).toContainText("Not routed on its own");
+  await expect(routing).not.toContainText("Not routed yet");
+  await routing.getByRole("link", { name: "CR-2026-003" }).click();
+  await expect(page).toHaveTitle(/^CR-2026-003 /);
+});

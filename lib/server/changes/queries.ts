@@ -124,6 +124,15 @@ export async function getChangeRequestHeading(changeRequestId: string) {
   return row ?? null;
 }
 
+/** The change request a change narrative document belongs to: its routing is the change's steps. */
+export async function changeOfNarrative(documentId: string) {
+  const [row] = await getDb()
+    .select({ id: changeRequests.id, number: changeRequests.number })
+    .from(changeRequests)
+    .where(eq(changeRequests.narrativeDocumentId, documentId));
+  return row ?? null;
+}
+
 export async function getChangeRequestPage(changeRequestId: string) {
   const db = getDb();
   const state = await loadChangeState(db, changeRequestId);

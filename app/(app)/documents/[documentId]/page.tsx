@@ -5,6 +5,7 @@ import { FileDown, GitCompare, PenLine } from "lucide-react";
 import { RedlineView } from "@/components/documents/redline-view";
 import { ReviewerOrder } from "@/components/documents/reviewer-order";
 import { RoutingTable } from "@/components/documents/routing-table";
+import { changeOfNarrative } from "@/lib/server/changes/queries";
 import { StatusBadge } from "@/components/documents/status-badge";
 import { SignatureDialog } from "@/components/signatures/signature-dialog";
 import { SignatureList } from "@/components/signatures/signature-list";
@@ -64,6 +65,8 @@ export default async function DocumentPage({
   const found = await getDocumentAndVersion(documentId, (await searchParams).version);
   if (!found) notFound();
   const { document, version } = found;
+  const narrativeOf =
+    document.type === "change_narrative" ? await changeOfNarrative(document.id) : null;
 
   const now = new Date().toISOString();
   const label = `${document.number} version ${version.version}`;
@@ -334,7 +337,20 @@ export default async function DocumentPage({
           )}
 
           <Panel title="Routing">
-            <RoutingTable reviews={version.reviews} now={now} />
+            {narrativeOf ? (
+              <p className="text-sm text-stone-700">
+                Not routed on its own: this narrative is reviewed, approved and signed as part of{" "}
+                <IntentLink
+                  href={`/changes/${narrativeOf.id}`}
+                  className="font-semibold text-brand-800 hover:underline"
+                >
+                  {narrativeOf.number}
+                </IntentLink>
+                , and its status follows the change request&apos;s.
+              </p>
+            ) : (
+              <RoutingTable reviews={version.reviews} now={now} />
+            )}
           </Panel>
 
           <Panel title="Signatures">
