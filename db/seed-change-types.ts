@@ -78,13 +78,16 @@ export async function seedChangeTypes(db: Database, now = new Date()) {
         version: 1,
         status: "effective",
         detergent: content.detergent,
-        notes: "First validated version.",
+        notes: "Settings from the commissioning trials.",
         effectiveFrom: validatedAt,
         createdBy: engineer.id,
         createdAt: draftedAt.toISOString(),
       })
       .returning();
-    await writeRecipeContent(tx, v1.id, { ...content, notes: "First validated version." });
+    await writeRecipeContent(tx, v1.id, {
+      ...content,
+      notes: "Settings from the commissioning trials.",
+    });
     await appendAudit(
       tx,
       engineer,
@@ -92,7 +95,7 @@ export async function seedChangeTypes(db: Database, now = new Date()) {
         eventType: "recipe_version.created",
         recordType: "recipe_version",
         recordId: v1.id,
-        new: { recipe: recipe.code, version: 1, notes: "First validated version." },
+        new: { recipe: recipe.code, version: 1, notes: "Settings from the commissioning trials." },
       },
       draftedAt,
     );

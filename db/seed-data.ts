@@ -255,7 +255,7 @@ export type DemoRecipeVersion = {
 
 const valveBodyV1: DemoRecipeVersion = {
   detergent: "Alkaline cleaner AC-14 (mildly alkaline, silicate-free)",
-  notes: "First validated version.",
+  notes: "Settings from the commissioning trials.",
   effectiveFrom: "2025-03-10T07:00:00.000Z",
   stages: [
     {
@@ -472,7 +472,7 @@ export const DEMO_RECIPES: {
     versions: [
       {
         detergent: "Alkaline cleaner AC-14 (mildly alkaline, silicate-free)",
-        notes: "First validated version.",
+        notes: "Settings from the commissioning trials.",
         effectiveFrom: "2025-05-20T07:00:00.000Z",
         stages: [
           {
@@ -593,7 +593,7 @@ export const DEMO_RECIPES: {
     versions: [
       {
         detergent: "Neutral cleaner NC-7",
-        notes: "First validated version.",
+        notes: "Settings from the commissioning trials.",
         effectiveFrom: "2025-06-02T07:00:00.000Z",
         stages: [
           {
