@@ -11,7 +11,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
-import { chartDomain, labelNudges, type ChartLimit } from "@/lib/evidence/chart-limits";
+import { chartDomain, labelNudges, roundAxis, type ChartLimit } from "@/lib/evidence/chart-limits";
 import { formatDate } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
 
@@ -83,16 +83,17 @@ export function ControlChart({
     { kind: "control", label: `LCL ${fmt(lcl)}`, value: lcl },
     ...limits,
   ];
-  const yDomain =
+  const axis = roundAxis(
     domain ??
-    chartDomain(
-      points.map((p) => p.value),
-      lines,
-    );
+      chartDomain(
+        points.map((p) => p.value),
+        lines,
+      ),
+  );
   // Labels of lines close in value (UCL just inside an action limit) are moved apart.
   const nudges = labelNudges(
     lines.map((l) => l.value),
-    yDomain,
+    axis.domain,
     PLOT_HEIGHT_PX,
   );
   return (
@@ -111,7 +112,8 @@ export function ControlChart({
             <XAxis dataKey="date" tick={{ fontSize: 11 }} />
             <YAxis
               tick={{ fontSize: 11 }}
-              domain={yDomain}
+              domain={axis.domain}
+              ticks={axis.ticks}
               allowDataOverflow={false}
               tickFormatter={(v: number) => fmt(v)}
               label={{ value: unit, angle: -90, position: "insideLeft", fontSize: 11 }}

@@ -14,7 +14,7 @@ import {
   YAxis,
 } from "recharts";
 import { SelectField } from "@/components/ui/field";
-import { chartDomain } from "@/lib/evidence/chart-limits";
+import { chartDomain, roundAxis } from "@/lib/evidence/chart-limits";
 import type { TrendSeries } from "@/lib/evidence/trends";
 import { formatNumber } from "@/lib/format/number";
 
@@ -34,9 +34,11 @@ export function TrendChart({ series }: { series: TrendSeries }) {
     over: current && (p.values[group] ?? 0) > current.limit ? (p.values[group] ?? 0) : null,
   }));
   // The axis always reaches the specification limit, however far below it the results lie.
-  const domain = chartDomain(
-    data.flatMap((d) => (d.value === null ? [] : [d.value])),
-    current ? [{ value: current.limit }] : [],
+  const axis = roundAxis(
+    chartDomain(
+      data.flatMap((d) => (d.value === null ? [] : [d.value])),
+      current ? [{ value: current.limit }] : [],
+    ),
   );
   return (
     <figure
@@ -58,7 +60,8 @@ export function TrendChart({ series }: { series: TrendSeries }) {
             <XAxis dataKey="date" tick={{ fontSize: 11 }} />
             <YAxis
               tick={{ fontSize: 11 }}
-              domain={domain}
+              domain={axis.domain}
+              ticks={axis.ticks}
               tickFormatter={(v: number) => fmt(v)}
               // No rotated axis title: it printed over wide tick labels. The legend names the unit.
             />

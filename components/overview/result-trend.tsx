@@ -13,6 +13,7 @@ import {
 import type { TrendChartData } from "@/lib/overview/key-result";
 import { formatDate } from "@/lib/format/date";
 import { formatNumber } from "@/lib/format/number";
+import { roundAxis } from "@/lib/evidence/chart-limits";
 
 const fmt = (n: number) => formatNumber(n, 2);
 
@@ -27,6 +28,7 @@ export function ResultTrend({ data, title }: { data: TrendChartData; title: stri
     beyondValue: p.beyond ? p.value : null,
   }));
   const beyond = data.points.filter((p) => p.beyond);
+  const axis = roundAxis(data.domain, 4);
   return (
     <figure aria-label={`Trend: ${title}`} className="min-w-0">
       <div className="h-28 w-full">
@@ -36,9 +38,9 @@ export function ResultTrend({ data, title }: { data: TrendChartData; title: stri
             <YAxis
               width={44}
               tick={{ fontSize: 10 }}
-              domain={data.domain}
+              domain={axis.domain}
+              ticks={axis.ticks}
               allowDataOverflow={false}
-              tickCount={4}
               tickFormatter={(v: number) => formatNumber(v, 1)}
             />
             <Tooltip

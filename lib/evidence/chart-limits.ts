@@ -1,3 +1,5 @@
+import { nice, ticks } from "d3-array";
+
 /** A horizontal line on a chart: a specification, action, reject or statistical limit, or a centre line. */
 export interface ChartLimit {
   kind: "spec" | "action" | "reject" | "control" | "centre" | "target";
@@ -90,4 +92,17 @@ export function labelNudges(
     previous = placed;
   }
   return nudges;
+}
+
+/**
+ * A y-axis on round numbers: `domain` widened to the nearest round values and the ticks between
+ * them (d3-array's `nice` and `ticks`: steps of 1, 2 or 5 times a power of ten). A domain ending on
+ * 4,510 and 261,690 printed those odd values as ticks; it now runs 0 to 300,000 in 50,000s.
+ */
+export function roundAxis(
+  domain: readonly [number, number],
+  count = 5,
+): { domain: [number, number]; ticks: number[] } {
+  const [low, high] = nice(domain[0], domain[1], count);
+  return { domain: [low, high], ticks: ticks(low, high, count) };
 }

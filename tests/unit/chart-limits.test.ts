@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
 import {
   labelNudges,
+  roundAxis,
   beyondWords,
   chartDomain,
   pointBeyond,
@@ -107,5 +108,40 @@ describe("limit labels beside the plot", () => {
   });
   it("does not divide by zero on a flat domain", () => {
     expect(labelNudges([1, 1], [1, 1], 100)).toEqual([0, 12]);
+  });
+});
+
+// Round tick steps of 1, 2 or 5 × 10^k are common practice for chart axes.
+describe("a y-axis on round numbers", () => {
+  it("widens an axis that ended on odd values to round ones, with round ticks between", () => {
+    expect(roundAxis([4510, 261690])).toEqual({
+      domain: [0, 300000],
+      ticks: [0, 50000, 100000, 150000, 200000, 250000, 300000],
+    });
+    expect(roundAxis([9.39, 10.04])).toEqual({
+      domain: [9.2, 10.2],
+      ticks: [9.2, 9.4, 9.6, 9.8, 10, 10.2],
+    });
+  });
+  it("always holds the range it was given, on a step of 1, 2 or 5 times a power of ten", () => {
+    for (const [low, high] of [
+      [0, 1],
+      [-11, 11],
+      [2.85, 6.3],
+      [0.0012, 0.0049],
+      [3.6, 4.4],
+    ] as const) {
+      const axis = roundAxis([low, high]);
+      expect(axis.domain[0]).toBeLessThanOrEqual(low);
+      expect(axis.domain[1]).toBeGreaterThanOrEqual(high);
+      const step = axis.ticks[1] - axis.ticks[0];
+      const mantissa = step / 10 ** Math.floor(Math.log10(step));
+      expect(
+        [1, 2, 5].some((m) => Math.abs(mantissa - m) < 1e-9),
+        `${low}..${high}`,
+      ).toBe(true);
+      expect(axis.ticks[0]).toBe(axis.domain[0]);
+      expect(axis.ticks.at(-1)).toBe(axis.domain[1]);
+    }
   });
 });
