@@ -1,7 +1,7 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { useEffect } from "react";
+import { useEffect, useMemo, useRef, useState, type InputHTMLAttributes } from "react";
 import {
   getCoreRowModel,
   useReactTable,
@@ -10,10 +10,11 @@ import {
   type SortingState,
 } from "@tanstack/react-table";
 import { IntentLink } from "@/components/ui/intent-link";
-import { useListParams, type ListChange } from "@/components/ui/use-list-params";
+import { useListParams } from "@/components/ui/use-list-params";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 import { RequestRefused } from "@/lib/http/refused";
 import { humanize } from "@/lib/format/labels";
+import { usableListAddress } from "@/lib/evidence/list-address";
 import type { EvidenceListPage, EvidenceListRow } from "@/lib/schemas/evidence-list";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";
@@ -108,9 +109,56 @@ async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
   return body;
 }
 
+/**
+ * A box whose text is kept in the address: what is typed shows at once, and the address follows.
+ * Bound to the address alone, a fast second keystroke landed before the address had caught up
+ * with the first and replaced it ("12" became "2"). The address's value is shown again when it
+ * changes to one this box did not send (Back, a cleared filter).
+ */
+function TypedInput({
+  value,
+  onType,
+  ...input
+}: Omit<InputHTMLAttributes<HTMLInputElement>, "value" | "onChange"> & {
+  value: string;
+  onType: (value: string) => void;
+}) {
+  const [text, setText] = useState(value);
+  // What was typed since the box took focus: the address passes through each on its way.
+  const sent = useRef(new Set<string>());
+  useEffect(() => {
+    if (!sent.current.has(value)) setText(value);
+  }, [value]);
+  return (
+    <input
+      {...input}
+      value={input.disabled ? value : text}
+      onChange={(event) => {
+        sent.current.add(event.target.value);
+        setText(event.target.value);
+        onType(event.target.value);
+      }}
+      onFocus={() => sent.current.clear()}
+    />
+  );
+}
+
 /** The evidence list: filters, sorting and paging are done by the server; the page is fetched here. */
 export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
-  const [list, setList] = useListParams(LIST_DEFAULTS);
+  const [address, setList] = useListParams(LIST_DEFAULTS);
+  const known = useMemo(
+    () => ({
+      familyIds: new Set(families.map((f) => f.id)),
+      recipeIds: new Set(recipes.map((r) => r.id)),
+    }),
+    [families, recipes],
+  );
+  // An old or edited address opens the list with what it can use; the address is corrected too.
+  const list = usableListAddress(address, LIST_DEFAULTS, known);
+  const unusable = JSON.stringify(list) !== JSON.stringify(address);
+  useEffect(() => {
+    if (unusable) setList(list, "correction");
+  }, [unusable, list, setList]);
   const { sort, dir, page, ...filters } = list;
   const sorting: SortingState = [{ id: sort, desc: dir !== "asc" }];
   const pageIndex = Math.max(0, (Number.parseInt(page, 10) || 1) - 1);
@@ -158,21 +206,21 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
     onSortingChange: setSorting,
     onPaginationChange: setPagination,
     manualSorting: true,
+    // A click on the sorted column turns its order round; there is always one order.
+    enableSortingRemoval: false,
     manualPagination: true,
     enableMultiSort: false,
     rowCount: data?.total ?? 0,
   });
-  const setFilter =
-    (key: keyof Filters, change: ListChange = "step") =>
-    (event: { target: { value: string } }) => {
-      setList({ [key]: event.target.value, page: "1" }, change);
-    };
+  const setFilter = (key: keyof Filters) => (event: { target: { value: string } }) => {
+    setList({ [key]: event.target.value, page: "1" });
+  };
   const pages = Math.max(1, Math.ceil((data?.total ?? 0) / pagination.pageSize));
   // A page past the end (an old link, an edited address) shows the last page, as the server lists do.
   const pastTheEnd = data !== undefined && data.total > 0 && pagination.pageIndex + 1 > pages;
   useEffect(() => {
     // A correction, not a step of the user's: Back should not return to the empty page.
-    if (pastTheEnd) setList({ page: String(pages) }, "typing");
+    if (pastTheEnd) setList({ page: String(pages) }, "correction");
   }, [pastTheEnd, pages, setList]);
   const select =
     "block w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm disabled:cursor-not-allowed disabled:bg-stone-100 disabled:text-stone-500";
@@ -215,7 +263,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
         </label>
         <label className="text-xs text-stone-600">
           Version
-          <input
+          <TypedInput
             type="number"
             min={1}
             step={1}
@@ -227,7 +275,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
             aria-describedby={versionProblem ? "version-problem" : undefined}
             className={select}
             value={filters.recipeId ? filters.version : ""}
-            onChange={setFilter("version", "typing")}
+            onType={(v) => setList({ version: v, page: "1" }, "typing")}
           />
           {versionProblem && (
             <span id="version-problem" className="mt-1 block text-red-800">
@@ -259,20 +307,20 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
         </label>
         <label className="text-xs text-stone-600">
           From
-          <input
+          <TypedInput
             type="date"
             className={select}
             value={filters.from}
-            onChange={setFilter("from", "typing")}
+            onType={(v) => setList({ from: v, page: "1" }, "typing")}
           />
         </label>
         <label className="text-xs text-stone-600">
           To
-          <input
+          <TypedInput
             type="date"
             className={select}
             value={filters.to}
-            onChange={setFilter("to", "typing")}
+            onType={(v) => setList({ to: v, page: "1" }, "typing")}
           />
         </label>
       </form>

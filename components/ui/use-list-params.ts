@@ -1,14 +1,16 @@
 "use client";
 
 import { usePathname, useSearchParams } from "next/navigation";
-import { useCallback, useMemo } from "react";
+import { useCallback, useMemo, useRef } from "react";
 import { listSearch, readListParams, type ListState } from "@/lib/url/list-params";
 
 /**
- * How a change reaches the browser's history: a choice (a select, a sort, a page) is a step Back
- * undoes; typing replaces the address as it goes, so Back does not step through every keystroke.
+ * How a change reaches the browser's history. A choice (a select, a sort, a page) is a step Back
+ * undoes. Typing is one step for the whole of what is typed into one field: its first keystroke
+ * adds the step, the rest replace it. A correction (an address the list cannot use, a page past
+ * the end) replaces the address without a step.
  */
-export type ListChange = "step" | "typing";
+export type ListChange = "step" | "typing" | "correction";
 
 /**
  * A client list's filters, sort and page, kept in the address through the History API, which
@@ -22,6 +24,8 @@ export function useListParams<T extends ListState>(
   // `defaults` is a module constant at every call site; its keys decide what is read.
   // eslint-disable-next-line react-hooks/exhaustive-deps
   const state = useMemo(() => readListParams(search, defaults), [search]);
+  // The fields of the typing that made the current step, while it goes on.
+  const typingIn = useRef<string | null>(null);
   const update = useCallback(
     (patch: Partial<T>, change: ListChange = "step") => {
       const next = {
@@ -30,8 +34,12 @@ export function useListParams<T extends ListState>(
       } as T;
       const url = `${pathname}${listSearch(next, defaults)}`;
       if (url === `${pathname}${window.location.search}`) return;
-      if (change === "step") window.history.pushState(null, "", url);
-      else window.history.replaceState(null, "", url);
+      const fields = Object.keys(patch).sort().join(",");
+      const replace =
+        change === "correction" || (change === "typing" && typingIn.current === fields);
+      if (change !== "correction") typingIn.current = change === "typing" ? fields : null;
+      if (replace) window.history.replaceState(null, "", url);
+      else window.history.pushState(null, "", url);
     },
     // eslint-disable-next-line react-hooks/exhaustive-deps
     [pathname],
