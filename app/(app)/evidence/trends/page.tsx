@@ -4,6 +4,7 @@ import { TrendChart } from "@/components/evidence/trend-chart";
 import { EmptyState } from "@/components/ui/empty-state";
 import { SelectField } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
+import { ShowsItsPage } from "@/components/ui/shows-its-page";
 import { SubmittingSelect } from "@/components/ui/submitting-select";
 import { bathControlChart } from "@/lib/evidence/bath-chart";
 import { BATH_VARIABLES, type BathVariable } from "@/lib/evidence/maintenance";
@@ -67,7 +68,10 @@ export default async function TrendsPage({
           className="flex flex-wrap items-end gap-3"
           method="get"
           aria-label="Choose part family and recipe version"
+          // Not refilled by the browser on Back: the fields show what the page shows.
+          autoComplete="off"
         >
+          <ShowsItsPage />
           <SubmittingSelect
             name="family"
             label="Part family"
@@ -107,7 +111,10 @@ export default async function TrendsPage({
           className="flex flex-wrap items-end gap-3"
           method="get"
           aria-label="Choose tank and value"
+          // Not refilled by the browser on Back: the fields show what the page shows.
+          autoComplete="off"
         >
+          <ShowsItsPage />
           {familyId && <input type="hidden" name="family" value={familyId} />}
           {versionId && <input type="hidden" name="version" value={versionId} />}
           <SelectField
