@@ -34,6 +34,41 @@ interface Protocol {
   title: string;
 }
 
+async function fetchFamilyVersions(partFamily: string, signal?: AbortSignal): Promise<string[]> {
+  const qs = new URLSearchParams({ partFamily });
+  const response = await fetch(`/api/evidence/family-versions?${qs}`, {
+    cache: "no-store",
+    signal,
+  });
+  const body = await response.json().catch(() => null);
+  if (!response.ok) {
+    const message = body?.error ?? "The family's recipe versions could not be loaded.";
+    throw response.status < 500 ? new RequestRefused(message) : new Error(message);
+  }
+  return body.versionIds;
+}
+
+/**
+ * The version choices for the chosen family: those it was run, qualified or planned with first,
+ * then every other (a first run on a new combination); one list until a family is chosen.
+ */
+function versionChoices(
+  versions: RunFormProps["options"]["versions"],
+  familyCode: string | undefined,
+  usedIds: string[] | undefined,
+) {
+  const used = new Set(usedIds ?? []);
+  const all = versions.map((v) => ({ value: v.id, label: v.label }));
+  if (!familyCode || used.size === 0) return { options: all, groups: [] };
+  return {
+    options: [],
+    groups: [
+      { label: `Used with ${familyCode}`, options: all.filter((v) => used.has(v.value)) },
+      { label: "Other versions", options: all.filter((v) => !used.has(v.value)) },
+    ].filter((g) => g.options.length > 0),
+  };
+}
+
 async function fetchProtocols(
   partFamily: string,
   recipeVersion: string,
@@ -63,6 +98,13 @@ export function RunForm({
     familyId !== "" &&
     options.families.some((f) => f.id === familyId) &&
     options.versions.some((v) => v.id === versionId);
+  const family = options.families.find((f) => f.id === familyId);
+  const usedVersions = useQuery({
+    queryKey: ["run-family-versions", familyId],
+    queryFn: ({ signal }) => fetchFamilyVersions(familyId, signal),
+    enabled: family !== undefined,
+  });
+  const versionList = versionChoices(options.versions, family?.code, usedVersions.data);
   // A plant has thousands of protocols: those for the chosen family and version are asked for.
   const protocols = useQuery({
     queryKey: ["run-protocols", familyId, versionId],
@@ -87,9 +129,12 @@ export function RunForm({
         name="recipeVersionId"
         label="Recipe version"
         placeholder="Choose…"
-        defaultValue={defaults.recipeVersionId}
+        // Controlled: the options move between groups as the family changes, the choice stays.
+        value={versionId}
         onValueChange={setVersionId}
-        options={options.versions.map((v) => ({ value: v.id, label: v.label }))}
+        options={versionList.options}
+        groups={versionList.groups}
+        error={usedVersions.error?.message}
         hint={
           <>
             {versions.all

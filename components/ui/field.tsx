@@ -225,6 +225,8 @@ export interface SelectFieldProps
   extends ControlProps, Omit<SelectHTMLAttributes<HTMLSelectElement>, "className"> {
   name?: string;
   options: readonly { value: string; label: string }[];
+  /** Labelled groups of options, listed after `options`. */
+  groups?: readonly { label: string; options: readonly { value: string; label: string }[] }[];
   /** Text of an empty first option, e.g. "Choose…". */
   placeholder?: string;
 }
@@ -240,6 +242,7 @@ export function SelectField({
   onValueChange,
   dense,
   options,
+  groups = [],
   placeholder,
   className,
   onChange,
@@ -269,6 +272,15 @@ export function SelectField({
           <option key={o.value} value={o.value}>
             {o.label}
           </option>
+        ))}
+        {groups.map((g) => (
+          <optgroup key={g.label} label={g.label}>
+            {g.options.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
+          </optgroup>
         ))}
       </select>
     </FieldFrame>

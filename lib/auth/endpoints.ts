@@ -33,6 +33,7 @@ import * as apiAuditPackChangeidRoute from "@/app/api/audit-pack/[changeId]/rout
 import * as apiDocumentsDocumentidVersionsVersionPdfRoute from "@/app/api/documents/[documentId]/versions/[version]/pdf/route";
 import * as apiEvidenceFilesFileidRoute from "@/app/api/evidence/files/[fileId]/route";
 import * as apiEvidenceProtocolsRoute from "@/app/api/evidence/protocols/route";
+import * as apiEvidenceFamilyVersionsRoute from "@/app/api/evidence/family-versions/route";
 import * as apiEvidenceRunsRunidFilesRoute from "@/app/api/evidence/runs/[runId]/files/route";
 import * as apiCyclesImportRoute from "@/app/api/cycles/import/route";
 import * as apiEvidenceRunsRunidImportRoute from "@/app/api/evidence/runs/[runId]/import/route";
@@ -95,6 +96,7 @@ export const ENDPOINT_MODULES: Record<string, Record<string, unknown>> = {
     apiDocumentsDocumentidVersionsVersionPdfRoute,
   "app/api/evidence/files/[fileId]/route.ts": apiEvidenceFilesFileidRoute,
   "app/api/evidence/protocols/route.ts": apiEvidenceProtocolsRoute,
+  "app/api/evidence/family-versions/route.ts": apiEvidenceFamilyVersionsRoute,
   "app/api/evidence/runs/[runId]/files/route.ts": apiEvidenceRunsRunidFilesRoute,
   "app/api/cycles/import/route.ts": apiCyclesImportRoute,
   "app/api/evidence/runs/[runId]/import/route.ts": apiEvidenceRunsRunidImportRoute,

@@ -61,3 +61,8 @@ export const runProtocolsQuerySchema = z
     recipeVersion: z.uuid("Choose the recipe version."),
   })
   .strict();
+
+/** `?partFamily=` of GET /api/evidence/family-versions. */
+export const familyVersionsQuerySchema = z
+  .object({ partFamily: z.uuid("Choose the part family.") })
+  .strict();

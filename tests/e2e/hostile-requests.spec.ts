@@ -153,6 +153,8 @@ test.describe("no server insides in any answer", () => {
       "/api/evidence/runs?partFamilyId=' OR 1=1 --",
       "/api/evidence/protocols?partFamily=' OR 1=1 --&recipeVersion=x",
       "/api/evidence/protocols",
+      "/api/evidence/family-versions?partFamily=' OR 1=1 --",
+      "/api/evidence/family-versions",
       "/api/queue?x=%27",
       "/api/v1/recipes",
       "/api/v1/recipes?cursor=abc",

@@ -5,6 +5,7 @@ import {
   changeRequests,
   cleaningSystems,
   cleanlinessSpecs,
+  controlPlans,
   documents,
   partFamilies,
   recipes,
@@ -22,6 +23,7 @@ import {
   CURRENT_VERSION_STATUSES,
   protocolsFor,
   runFormOptions,
+  versionsUsedWith,
 } from "@/lib/server/evidence/queries";
 import { computeStoredOutcome } from "@/lib/server/evidence/refresh-outcome";
 import { createPartFamily } from "@/lib/server/plant/create-part-family";
@@ -413,6 +415,33 @@ describe("qualified combinations", () => {
     );
     expect([...statusOf.values()]).toContain("superseded");
     expect(current.versions.length).toBeLessThan(all.versions.length);
+  });
+
+  it("lists first, for a family, the versions it was run, qualified or planned with, and no other", async () => {
+    const pairs = [
+      ...(await t.db
+        .select({ f: testRuns.partFamilyId, v: testRuns.recipeVersionId })
+        .from(testRuns)),
+      ...(await t.db
+        .select({
+          f: requalificationIntervals.partFamilyId,
+          v: requalificationIntervals.recipeVersionId,
+        })
+        .from(requalificationIntervals)),
+      ...(await t.db
+        .select({ f: controlPlans.partFamilyId, v: controlPlans.recipeVersionId })
+        .from(controlPlans)),
+    ];
+    const families = await t.db.select({ id: partFamilies.id }).from(partFamilies);
+    let listed = 0;
+    for (const { id } of families) {
+      const expected = [...new Set(pairs.filter((p) => p.f === id).map((p) => p.v))].sort();
+      expect((await versionsUsedWith(id)).sort(), id).toEqual(expected);
+      listed += expected.length;
+    }
+    expect(listed).toBeGreaterThan(0);
+    // A family with no records yet lists none: the form then offers every version as one list.
+    expect(await versionsUsedWith("00000000-0000-4000-8000-00000000dead")).toEqual([]);
   });
 
   it("qualifies a combination once, audited, and then runs open on it", async () => {

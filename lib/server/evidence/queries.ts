@@ -229,6 +229,19 @@ export async function protocolsFor(partFamilyId: string, recipeVersionId: string
     .orderBy(asc(documents.number));
 }
 
+/**
+ * The recipe versions a part family has been washed with as far as the records say: a test run of
+ * it, a qualified combination (requalification interval) or a control plan. The new-run form lists
+ * these first; a first run on a new combination still finds every version below them.
+ */
+export async function versionsUsedWith(partFamilyId: string): Promise<string[]> {
+  const rows = await getDb().all<{ id: string }>(sql`
+    select recipe_version_id as id from test_runs where part_family_id = ${partFamilyId}
+    union select recipe_version_id from requalification_intervals where part_family_id = ${partFamilyId}
+    union select recipe_version_id from control_plans where part_family_id = ${partFamilyId}`);
+  return rows.map((r) => r.id);
+}
+
 /** A run with everything its page shows: context, raw data, files, signatures, computed outcome, revisions. */
 export async function getRunDetail(runId: string) {
   const db = getDb();
