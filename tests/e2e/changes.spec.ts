@@ -378,6 +378,7 @@ test("before the evidence exists, Verify and Close are not offered: the next ste
   await page.getByRole("link", { name: "CR-2026-002" }).click();
   // Loaded whole, the page's server HTML is the browser's first render (the fixture fails the test
   // on a mismatch); its tab is named after the change, so several open changes can be told apart.
+  await expect(page).toHaveURL(/\/changes\/[0-9a-f-]{36}$/);
   await page.reload();
   await expect(page).toHaveTitle(/^CR-2026-002 .+ · Washproof$/);
   const waits = page.getByRole("note", { name: "What the next step waits for" });
