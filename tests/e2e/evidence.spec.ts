@@ -249,7 +249,9 @@ test("the evidence table filters on the server and the trend chart renders", asy
   await expect(chart.locator(".recharts-line-dot")).not.toHaveCount(0);
   // Back from another family: the choosers show the family the chart is of, not the one chosen after.
   const valveBody = await choose.getByLabel("Part family").inputValue();
-  await choose.getByLabel("Part family").selectOption({ label: "PF-SF-12 · Straight fitting SF-12" });
+  await choose
+    .getByLabel("Part family")
+    .selectOption({ label: "PF-SF-12 · Straight fitting SF-12" });
   await expect(page).not.toHaveURL(new RegExp(`family=${valveBody}`));
   await page.goBack();
   await expect(page).toHaveURL(new RegExp(`family=${valveBody}`));
