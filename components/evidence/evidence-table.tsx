@@ -116,10 +116,13 @@ async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
  * changes to one this box did not send (Back, a cleared filter).
  */
 function TypedInput({
+  param,
   value,
   onType,
   ...input
 }: Omit<InputHTMLAttributes<HTMLInputElement>, "value" | "onChange"> & {
+  /** Its name in the address. */
+  param: string;
   value: string;
   onType: (value: string) => void;
 }) {
@@ -129,6 +132,13 @@ function TypedInput({
   useEffect(() => {
     if (!sent.current.has(value)) setText(value);
   }, [value]);
+  // Back and Forward show the address's value at once: under load the list's own reading of the
+  // address can still be on its way, and would not change from what it was.
+  useEffect(() => {
+    const onHistory = () => setText(new URLSearchParams(window.location.search).get(param) ?? "");
+    window.addEventListener("popstate", onHistory);
+    return () => window.removeEventListener("popstate", onHistory);
+  }, [param]);
   return (
     <input
       {...input}
@@ -264,6 +274,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
         <label className="text-xs text-stone-600">
           Version
           <TypedInput
+            param="version"
             type="number"
             min={1}
             step={1}
@@ -308,6 +319,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
         <label className="text-xs text-stone-600">
           From
           <TypedInput
+            param="from"
             type="date"
             className={select}
             value={filters.from}
@@ -317,6 +329,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
         <label className="text-xs text-stone-600">
           To
           <TypedInput
+            param="to"
             type="date"
             className={select}
             value={filters.to}
