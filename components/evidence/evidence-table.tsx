@@ -14,7 +14,11 @@ import { useListParams } from "@/components/ui/use-list-params";
 import { OUTCOMES, TEST_TYPES } from "@/db/enums";
 import { RequestRefused } from "@/lib/http/refused";
 import { humanize } from "@/lib/format/labels";
-import { usableListAddress } from "@/lib/evidence/list-address";
+import {
+  EVIDENCE_LIST_DEFAULTS,
+  usableListAddress,
+  type EvidenceListAddress,
+} from "@/lib/evidence/list-address";
 import type { EvidenceListPage, EvidenceListRow } from "@/lib/schemas/evidence-list";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";
@@ -75,28 +79,7 @@ export interface EvidenceTableProps {
   recipes: { id: string; code: string }[];
 }
 
-type Filters = {
-  partFamilyId: string;
-  recipeId: string;
-  version: string;
-  testType: string;
-  outcome: string;
-  from: string;
-  to: string;
-};
-/** Filters, sort and page live in the address (lib/url/list-params.ts), so a filtered list can be linked and reloaded. */
-const LIST_DEFAULTS = {
-  partFamilyId: "",
-  recipeId: "",
-  version: "",
-  testType: "",
-  outcome: "",
-  from: "",
-  to: "",
-  sort: "performedOn",
-  dir: "desc",
-  page: "1",
-};
+type Filters = Omit<EvidenceListAddress, "sort" | "dir" | "page">;
 const PAGE_SIZE = 20;
 
 async function fetchPage(params: URLSearchParams): Promise<EvidenceListPage> {
@@ -155,7 +138,7 @@ function TypedInput({
 
 /** The evidence list: filters, sorting and paging are done by the server; the page is fetched here. */
 export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
-  const [address, setList] = useListParams(LIST_DEFAULTS);
+  const [address, setList] = useListParams(EVIDENCE_LIST_DEFAULTS);
   const known = useMemo(
     () => ({
       familyIds: new Set(families.map((f) => f.id)),
@@ -164,7 +147,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
     [families, recipes],
   );
   // An old or edited address opens the list with what it can use; the address is corrected too.
-  const list = usableListAddress(address, LIST_DEFAULTS, known);
+  const list = usableListAddress(address, EVIDENCE_LIST_DEFAULTS, known);
   const unusable = JSON.stringify(list) !== JSON.stringify(address);
   useEffect(() => {
     if (unusable) setList(list, "correction");
@@ -176,7 +159,7 @@ export function EvidenceTable({ families, recipes }: EvidenceTableProps) {
   const setSorting = (updater: SortingState | ((old: SortingState) => SortingState)) => {
     const next = typeof updater === "function" ? updater(sorting) : updater;
     setList({
-      sort: next[0]?.id ?? LIST_DEFAULTS.sort,
+      sort: next[0]?.id ?? EVIDENCE_LIST_DEFAULTS.sort,
       dir: next[0]?.desc === false ? "asc" : "desc",
       page: "1",
     });

@@ -1,7 +1,7 @@
 import { evidenceListQuerySchema } from "@/lib/schemas/evidence-list";
 
 /** The evidence list's state as its address holds it: every value a string, "" for none. */
-export interface EvidenceListAddress {
+export type EvidenceListAddress = {
   partFamilyId: string;
   recipeId: string;
   version: string;
@@ -12,7 +12,25 @@ export interface EvidenceListAddress {
   sort: string;
   dir: string;
   page: string;
-}
+};
+
+/**
+ * What the list shows with nothing in its address: newest first, page 1, no filter. Filters, sort
+ * and page live in the address (lib/url/list-params.ts), so a filtered list can be linked and
+ * reloaded.
+ */
+export const EVIDENCE_LIST_DEFAULTS: EvidenceListAddress = {
+  partFamilyId: "",
+  recipeId: "",
+  version: "",
+  testType: "",
+  outcome: "",
+  from: "",
+  to: "",
+  sort: "performedOn",
+  dir: "desc",
+  page: "1",
+};
 
 const CHECKED = ["testType", "outcome", "from", "to", "sort", "dir", "page"] as const;
 

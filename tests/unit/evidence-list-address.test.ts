@@ -1,19 +1,8 @@
 import { describe, expect, it } from "vitest";
-import { usableListAddress, type EvidenceListAddress } from "@/lib/evidence/list-address";
+import { EVIDENCE_LIST_DEFAULTS, usableListAddress } from "@/lib/evidence/list-address";
 import { evidenceListQuerySchema } from "@/lib/schemas/evidence-list";
 
-const DEFAULTS: EvidenceListAddress = {
-  partFamilyId: "",
-  recipeId: "",
-  version: "",
-  testType: "",
-  outcome: "",
-  from: "",
-  to: "",
-  sort: "performedOn",
-  dir: "desc",
-  page: "1",
-};
+const DEFAULTS = EVIDENCE_LIST_DEFAULTS;
 const FAMILY = "00000000-0000-4000-8000-000000000001";
 const RECIPE = "00000000-0000-4000-8000-000000000002";
 const known = { familyIds: new Set([FAMILY]), recipeIds: new Set([RECIPE]) };
