@@ -6,6 +6,7 @@ import {
   type Transaction,
   type TransactionMode,
 } from "@libsql/client";
+import { wrapClient } from "./wrap-client";
 
 /**
  * One writer at a time inside this process, queued before SQLite sees it.
@@ -97,7 +98,7 @@ export function serialiseWrites(client: Client, timeoutMs: number): Client {
     return isRead(statement) ? client.execute(statement) : queued(() => client.execute(statement));
   };
 
-  return {
+  return wrapClient(client, {
     execute,
     batch: (stmts, mode) =>
       mode === "read" ? client.batch(stmts, mode) : queued(() => client.batch(stmts, mode)),
@@ -113,16 +114,7 @@ export function serialiseWrites(client: Client, timeoutMs: number): Client {
       }
     },
     executeMultiple: (sql) => queued(() => client.executeMultiple(sql)),
-    sync: () => client.sync(),
-    close: () => client.close(),
-    reconnect: () => client.reconnect(),
-    get closed() {
-      return client.closed;
-    },
-    get protocol() {
-      return client.protocol;
-    },
-  } as Client;
+  });
 }
 
 function isRead(stmt: InStatement) {
