@@ -5,6 +5,7 @@ import { users } from "@/db/schema";
 import { runQueueQueries, VERIFY_KIND } from "@/lib/server/evidence/queue-provider";
 import { openChangeIds } from "@/lib/server/changes/queue-provider";
 import { documentQueueQueries } from "@/lib/server/documents/queue-provider";
+import { beyondLimitReadings } from "@/lib/server/bath/limits-queue-provider";
 import { getQueue, QUEUE_PAGE_SIZE } from "@/lib/server/queue/get-queue";
 import { createTestDatabase } from "./support/test-db";
 
@@ -44,6 +45,12 @@ beforeAll(async () => {
     insert into document_reviews (id, version_id, round, step, role, assignee_id, activated_at, decision, decided_at, created_at)
     select 'plan-rev-' || substr(v.id, 10), v.id, 1, 1, 'approver', '${engineer.id}', v.created_at, 'approved', v.created_at, v.created_at
     from document_versions v where v.id like 'plan-ver-%'`);
+  // Years of bath log, every reading within its limits: the readings beyond one are the sliver.
+  await t.client.execute(`
+    insert into bath_records (id, stage_id, kind, performed_at, recorded_by, created_at)
+    select 'plan-bath-' || n, b.stage_id, b.kind, strftime('%Y-%m-%dT%H:%M:%fZ', '2020-01-01', '+' || n || ' hours'), b.recorded_by, b.created_at
+    from (with recursive seq(n) as (select 1 union all select n + 1 from seq where n < 5000) select n from seq),
+         (select * from bath_records limit 1) b`);
   await t.client.execute("ANALYZE");
 });
 afterAll(() => t.cleanup());
@@ -80,6 +87,15 @@ describe("My queue at plant shape", () => {
     const steps = await plan(q.steps.getSQL());
     expect(steps).toMatch(/SEARCH document_reviews USING INDEX document_reviews_assignee_idx/);
     expect(steps).not.toMatch(/SCAN /);
+  });
+
+  it("finds tank readings beyond a limit through their partial index, never a scan of the bath log", async () => {
+    const detail = await plan(beyondLimitReadings().getSQL());
+    expect(detail).toMatch(/USING (COVERING )?INDEX bath_records_beyond_limit_idx/);
+    // Walking the partial index reads only the readings beyond a limit; any other walk reads the log.
+    expect(detail).not.toMatch(
+      /SCAN bath_records(?! USING (COVERING )?INDEX bath_records_beyond_limit_idx)/,
+    );
   });
 
   it("pages one kind at a time and counts every kind in full", async () => {

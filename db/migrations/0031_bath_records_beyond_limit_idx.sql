@@ -1,0 +1,1 @@
+CREATE INDEX `bath_records_beyond_limit_idx` ON `bath_records` (`stage_id`,`performed_at`) WHERE "bath_records"."limit_state" in ('action', 'reject');
