@@ -16,6 +16,7 @@ import {
   partFamilies,
   recipes,
   recipeVersions,
+  systemStages,
   testRuns,
 } from "@/db/schema";
 import { can, type Permission } from "@/lib/auth/permissions";
@@ -129,6 +130,17 @@ const TITLES = {
       return r && `${r.code} ${r.name}`;
     },
   },
+  tank: {
+    permission: "evidence.view",
+    read: async (id: string) => {
+      const [r] = await getDb()
+        .select({ system: cleaningSystems.code, stage: systemStages.name })
+        .from(systemStages)
+        .innerJoin(cleaningSystems, eq(cleaningSystems.id, systemStages.systemId))
+        .where(eq(systemStages.id, id));
+      return r && `Tank log ${r.system} · ${r.stage}`;
+    },
+  },
   labMethod: {
     permission: "lab.view",
     read: async (id: string) => {
@@ -159,11 +171,24 @@ export async function recordTitle(
   id: string,
   fallback: string,
 ): Promise<Metadata> {
+  const name = await readableName(kind, id);
+  return { title: name ?? fallback };
+}
+
+/** The trace of one parameter: "Trace R-W01-001 wash.temperature" when the user may trace. */
+export async function traceTitle(recipeId: string | undefined, key: string | undefined) {
+  const user = await getCurrentUser();
+  const recipe =
+    recipeId && key && user && can(user.roles, "trace.view") && /^[0-9a-f-]{36}$/.test(recipeId)
+      ? await byId(recipes, { code: recipes.code }, recipeId)
+      : undefined;
+  return { title: recipe ? `Trace ${recipe.code} ${key}` : "Trace" };
+}
+
+async function readableName(kind: TitledRecord, id: string): Promise<string | null> {
   const entry = TITLES[kind];
   const user = await getCurrentUser();
-  if (!user || !can(user.roles, entry.permission) || !/^[0-9a-f-]{36}$/.test(id)) {
-    return { title: fallback };
-  }
+  if (!user || !can(user.roles, entry.permission) || !/^[0-9a-f-]{36}$/.test(id)) return null;
   const name = await entry.read(id);
-  return { title: typeof name === "string" ? name : fallback };
+  return typeof name === "string" ? name : null;
 }

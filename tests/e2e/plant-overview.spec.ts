@@ -57,6 +57,7 @@ test("a quality engineer lands on the plant overview, reads each washer's state 
   // Tiles lead to their records.
   await baths.getByRole("link", { name: /Tank 1/ }).click();
   await expect(page).toHaveURL(/\/evidence\/bath\/[0-9a-f-]{36}$/);
+  await expect(page).toHaveTitle(/^Tank log \S+ · .*Tank 1.* · Washproof$/);
   await page.goBack();
   await page
     .getByRole("region", { name: "Plant summary" })

@@ -44,6 +44,8 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   await expect(matches.getByRole("link")).toHaveCount(1);
   await matches.getByRole("link", { name: /Drying temperature drying\.temperature/ }).click();
   await expect(page).toHaveURL(/key=drying\.temperature/);
+  // The tab names the recipe and the parameter traced.
+  await expect(page).toHaveTitle(/^Trace R-[A-Z0-9-]+ drying\.temperature · Washproof$/);
   // The chooser's filter is in the address: after choosing, and after a reload, it is still there.
   await expect(page).toHaveURL(/q=dry\+temp/);
   await page.reload();

@@ -7,6 +7,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { can } from "@/lib/auth/permissions";
 import { rangeWithUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { traceTitle } from "@/lib/server/page-titles";
 import { deviationsOfRecipe } from "@/lib/server/deviations/queries";
 import {
   getParameterHistory,
@@ -19,7 +20,14 @@ import { TRACE_ENTRIES_PAGE, traceQuerySchema } from "@/lib/schemas/trace";
 import { matchParameters } from "@/lib/trace/parameter-search";
 import { IntentLink } from "@/components/ui/intent-link";
 
-export const metadata: Metadata = { title: "Trace" };
+export async function generateMetadata({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}): Promise<Metadata> {
+  const query = traceQuerySchema.safeParse(await searchParams);
+  return query.success ? traceTitle(query.data.recipe, query.data.key) : { title: "Trace" };
+}
 
 export default async function TracePage({
   searchParams,

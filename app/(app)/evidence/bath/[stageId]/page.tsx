@@ -15,6 +15,7 @@ import {
 } from "@/lib/evidence/maintenance";
 import { withUnit } from "@/lib/format/number";
 import { requirePageUser } from "@/lib/server/auth/current-user";
+import { recordTitle } from "@/lib/server/page-titles";
 import { getTank, listDetergents } from "@/lib/server/bath/queries";
 import { setBathLimitAction } from "../actions";
 import { BATH_CHEMISTRY, LIMIT_STATE_LABELS } from "@/lib/bath/limits";
@@ -23,7 +24,13 @@ import { recordBathAction, setMaintenanceIntervalAction } from "../../actions";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import { EmptyRow, TBody, Table, Td, Th, THead } from "@/components/ui/table";
 
-export const metadata: Metadata = { title: "Tank log" };
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ stageId: string }>;
+}): Promise<Metadata> {
+  return recordTitle("tank", (await params).stageId, "Tank log");
+}
 
 export default async function TankPage({ params }: { params: Promise<{ stageId: string }> }) {
   const user = await requirePageUser("evidence.view");
