@@ -71,10 +71,12 @@ function BannerText({
   claims,
   fieldErrors,
   summary,
+  focusField,
 }: {
   claims: Claims;
   fieldErrors: Record<string, string[]>;
   summary: string;
+  focusField: (key: string) => void;
 }) {
   useSyncExternalStore(claims.subscribe, claims.snapshot, claims.snapshot);
   const errors = Object.entries(fieldErrors).map(([key, messages]) => ({
@@ -86,7 +88,23 @@ function BannerText({
   const rest = errors.filter((e) => !e.shownBeside && e.text !== summary);
   return (
     <>
-      <p>{pointTo ? `One field needs attention: ${fieldKeyLabel(pointTo.key)}.` : summary}</p>
+      <p>
+        {pointTo ? (
+          <>
+            One field needs attention:{" "}
+            <button
+              type="button"
+              className="font-medium underline underline-offset-2 hover:text-red-700"
+              onClick={() => focusField(pointTo.key)}
+            >
+              {fieldKeyLabel(pointTo.key)}
+            </button>
+            .
+          </>
+        ) : (
+          summary
+        )}
+      </p>
       {rest.length > 0 && (
         <ul className="mt-1 list-disc pl-5">
           {rest.map(({ key, text }) => (
@@ -128,6 +146,15 @@ export function ActionForm<S extends FormState>({
   useEffect(() => {
     if (resetOnSuccess && state?.ok) form.current?.reset();
   }, [state, resetOnSuccess]);
+  /** Takes the user to the control named `key`: the banner's pointer to the field in question. */
+  function focusField(key: string) {
+    const named = form.current?.elements.namedItem(key);
+    const control = named instanceof RadioNodeList ? named[0] : named;
+    if (control instanceof HTMLElement) {
+      control.focus();
+      control.scrollIntoView({ block: "center" });
+    }
+  }
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const data = new FormData(event.currentTarget);
@@ -151,6 +178,7 @@ export function ActionForm<S extends FormState>({
               claims={claims}
               fieldErrors={state.fieldErrors ?? {}}
               summary={state.message}
+              focusField={focusField}
             />
           </div>
         )}

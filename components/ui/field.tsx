@@ -4,6 +4,7 @@ import "@/lib/schemas/messages";
 import {
   useEffect,
   useId,
+  useRef,
   type ChangeEvent,
   type InputHTMLAttributes,
   type ReactNode,
@@ -152,8 +153,17 @@ function TextBox({
   ...input
 }: FieldProps & { boxClassName?: string }) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
+  const element = useRef<HTMLInputElement>(null);
+  // After a refusal the password box is emptied for the next try, as a sign-in page does: no one
+  // types on after a wrong password, and the refused one is not left in the page.
+  const { state } = useFormResult();
+  const refusal = input.autoComplete === "current-password" && state && !state.ok ? state : null;
+  useEffect(() => {
+    if (refusal && element.current) element.current.value = "";
+  }, [refusal]);
   const box = (
     <input
+      ref={element}
       id={id}
       name={name}
       aria-invalid={invalid}

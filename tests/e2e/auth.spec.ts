@@ -122,6 +122,7 @@ test("a wrong password shows the generic error and keeps the e-mail", async ({ p
   const alert = page.getByRole("form", { name: "Sign in" }).getByRole("alert");
   await expect(alert).toHaveText(/e-mail or password is not correct/);
   await expect(page.getByLabel("E-mail")).toHaveValue(DEMO.reviewer.email);
+  await expect(page.getByLabel("Password")).toHaveValue("");
   // An unknown e-mail gets exactly the same message.
   const first = await alert.textContent();
   await page.getByLabel("E-mail").fill("nobody@fennmoor.example");

@@ -105,6 +105,10 @@ test("a PQ protocol goes from template to effective with e-mailed, signed steps 
   await expect(dialog.getByLabel("Your password")).toHaveAccessibleDescription(
     /The password is not correct\. Nothing was signed\./,
   );
+  // The refused password is gone from the box, and the banner's field name leads to it.
+  await expect(dialog.getByLabel("Your password")).toHaveValue("");
+  await dialog.getByRole("alert").getByRole("button", { name: "Password" }).click();
+  await expect(dialog.getByLabel("Your password")).toBeFocused();
   await dialog.getByLabel("Your password").fill(DEMO_PASSWORD);
   await dialog.getByRole("button", { name: "Sign", exact: true }).click();
   await expect(

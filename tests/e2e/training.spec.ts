@@ -136,6 +136,7 @@ test("a technician acknowledges the bath-change procedure in force; a wrong pass
     /The password is not correct\. Nothing was signed\./,
   );
   await expect(form.getByText("The password is not correct.", { exact: false })).toHaveCount(1);
+  await expect(form.getByLabel("Your password")).toHaveValue("");
   await expect(form.getByLabel("Procedure")).toHaveValue(
     (await form.getByRole("option", { name: sop }).getAttribute("value"))!,
   );
