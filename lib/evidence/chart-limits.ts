@@ -106,3 +106,33 @@ export function roundAxis(
   const [low, high] = nice(domain[0], domain[1], count);
   return { domain: [low, high], ticks: ticks(low, high, count) };
 }
+
+/**
+ * Whether counts are better read on a logarithmic axis: the largest of the values and the limit
+ * is at least `ratio` times the smallest count above zero, so on a straight axis from zero the
+ * small counts would lie flat along its foot. Cleanliness levels are logarithmic themselves: each
+ * level's upper bound is about double the one below (ISO 16232:2018, table of cleanliness levels).
+ */
+export function countsSpanDecades(values: readonly number[], limit: number | null, ratio = 100) {
+  const positive = values.filter((v) => Number.isFinite(v) && v > 0);
+  if (positive.length === 0) return false;
+  const high = Math.max(...positive, limit ?? 0);
+  return high / Math.min(...positive) >= ratio;
+}
+
+/**
+ * A logarithmic count axis on powers of ten: from the power at or below the lowest count up to the
+ * first at or above the highest (10, 100, 1,000 …). When a count is zero the axis starts at 0, drawn
+ * with a symmetric log scale that is linear below 1, so a run that found no particle of the class
+ * is at the foot of the axis, not off it.
+ */
+export function decadeAxis(
+  low: number,
+  high: number,
+): { domain: [number, number]; ticks: number[] } {
+  const topPower = Math.ceil(Math.log10(Math.max(high, 1)));
+  const lowPower = low > 0 ? Math.min(Math.floor(Math.log10(low)), topPower) : 0;
+  const ticks = low > 0 ? [] : [0];
+  for (let k = lowPower; k <= topPower; k++) ticks.push(10 ** k);
+  return { domain: [low > 0 ? 10 ** lowPower : 0, 10 ** topPower], ticks };
+}

@@ -202,7 +202,9 @@ test("an engineer verifies the run from My queue; the outcome and code appear an
   expect((await download).suggestedFilename()).toBe("VB210 lab report.pdf");
 });
 
-test("the evidence table filters on the server and the trend chart renders", async ({ page }) => {
+test("the evidence table filters on the server and the trend chart renders", async ({
+  page,
+}, testInfo) => {
   await signInAs(page, "auditor");
   await page.goto("/evidence");
   const table = page.getByRole("table", { name: /Test runs/ });
@@ -242,11 +244,25 @@ test("the evidence table filters on the server and the trend chart renders", asy
     firstFamilyVersions,
   );
   const chart = page.getByRole("figure", { name: "Particle trend chart" });
-  await expect(chart).toContainText(/\d+ run\(s\)\. Dashed line: the specification limit/, {
-    timeout: 30_000,
-  });
+  await expect(chart).toContainText(
+    /\d+ run\(s\)(, on a logarithmic axis)?\. Dashed line: the specification limit/,
+    { timeout: 30_000 },
+  );
   await expect(chart.locator("path.recharts-line-curve")).toHaveCount(1, { timeout: 30_000 });
   await expect(chart.locator(".recharts-line-dot")).not.toHaveCount(0);
+  // Counts far below the limit can be spread out on a logarithmic axis, and back.
+  const ticks = chart.locator(".recharts-yAxis-tick-labels .recharts-cartesian-axis-tick-value");
+  const logAxis = chart.getByLabel(/Logarithmic axis/);
+  await logAxis.check();
+  await expect(chart).toContainText("on a logarithmic axis");
+  const powersOfTen = async () =>
+    (await ticks.allTextContents()).every((t) => /^(0|0\.\d*1|1|10|100)(,000)*$/.test(t));
+  await expect.poll(powersOfTen).toBe(true);
+  await chart.screenshot({ path: testInfo.outputPath("trend-log.png") });
+  await logAxis.uncheck();
+  await expect(chart).not.toContainText("on a logarithmic axis");
+  await expect.poll(powersOfTen).toBe(false);
+  await chart.screenshot({ path: testInfo.outputPath("trend-linear.png") });
   // Back from another family: the choosers show the family the chart is of, not the one chosen after.
   const valveBody = await choose.getByLabel("Part family").inputValue();
   await choose

@@ -3,6 +3,8 @@ import { bathControlChart } from "@/lib/evidence/bath-chart";
 import {
   labelNudges,
   roundAxis,
+  countsSpanDecades,
+  decadeAxis,
   beyondWords,
   chartDomain,
   pointBeyond,
@@ -143,5 +145,35 @@ describe("a y-axis on round numbers", () => {
       expect(axis.ticks[0]).toBe(axis.domain[0]);
       expect(axis.ticks.at(-1)).toBe(axis.domain[1]);
     }
+  });
+});
+
+// Cleanliness levels are logarithmic: each level's upper bound about doubles the one below
+// (ISO 16232:2018, table of cleanliness levels: 16, 32, 64, 130, 250, 500, 1,000 per 1,000 cm²).
+describe("a logarithmic axis for particle counts", () => {
+  it("is chosen when the counts and the limit span two decades or more", () => {
+    // Level 7 (limit 130) against counts of 1 to 4: on a straight axis they lie along its foot.
+    expect(countsSpanDecades([1, 2, 4], 130)).toBe(true);
+    // Counts of 40 to 120 under the same limit read well on a straight axis.
+    expect(countsSpanDecades([40, 80, 120], 130)).toBe(false);
+    // A zero count is a real result but has no logarithm: the span is read from the others.
+    expect(countsSpanDecades([0, 0, 1.5], 250)).toBe(true);
+    expect(countsSpanDecades([0, 0], 250)).toBe(false);
+    expect(countsSpanDecades([], 250)).toBe(false);
+  });
+  it("runs on powers of ten from the one at or below the lowest count to the one at or above the highest", () => {
+    // Counts of 16,000 under a level-18 limit of 250,000: 10,000 to 1,000,000.
+    expect(decadeAxis(16000, 250000)).toEqual({
+      domain: [10000, 1000000],
+      ticks: [10000, 100000, 1000000],
+    });
+    expect(decadeAxis(1, 130)).toEqual({ domain: [1, 1000], ticks: [1, 10, 100, 1000] });
+    expect(decadeAxis(100, 1000)).toEqual({ domain: [100, 1000], ticks: [100, 1000] });
+    // Fractions of a particle per 1,000 cm² reach down to their own power of ten.
+    expect(decadeAxis(0.4, 130)).toEqual({ domain: [0.1, 1000], ticks: [0.1, 1, 10, 100, 1000] });
+  });
+  it("starts at zero when a run found no particle of the class", () => {
+    expect(decadeAxis(0, 130)).toEqual({ domain: [0, 1000], ticks: [0, 1, 10, 100, 1000] });
+    expect(decadeAxis(0, 0)).toEqual({ domain: [0, 1], ticks: [0, 1] });
   });
 });
