@@ -154,10 +154,15 @@ function TextBox({
 }: FieldProps & { boxClassName?: string }) {
   const { id, errors, invalid } = useControl({ name, errorKey, error });
   const element = useRef<HTMLInputElement>(null);
-  // After a refusal the password box is emptied for the next try, as a sign-in page does: no one
-  // types on after a wrong password, and the refused one is not left in the page.
+  // A password the server refused is emptied for the next try, as a sign-in page does: no one
+  // types on after a wrong one. Refused means its own error, or a refusal that names no field (a
+  // sign-in does not say which of the two was wrong); an error on another field keeps it.
   const { state } = useFormResult();
-  const refusal = input.autoComplete === "current-password" && state && !state.ok ? state : null;
+  const namesNoField = Object.keys((state && !state.ok && state.fieldErrors) || {}).length === 0;
+  const refusal =
+    input.autoComplete === "current-password" && state && !state.ok && (errors || namesNoField)
+      ? state
+      : null;
   useEffect(() => {
     if (refusal && element.current) element.current.value = "";
   }, [refusal]);

@@ -41,8 +41,21 @@ test("an admin creates a user who must choose a password at first sign-in", asyn
   await other.getByLabel("New password again").fill("short");
   await other.getByRole("button", { name: "Change password" }).click();
   await expect(other.getByText("Use at least 12 characters.")).toBeVisible();
+  // An error on another field keeps the current password where it was typed.
   await expect(other.getByLabel("Current password")).toHaveValue(temporary!);
 
+  // A wrong current password is emptied from its box; the new password stays.
+  await other.getByLabel("Current password").fill("not the temporary one");
+  await other.getByLabel("New password", { exact: true }).fill("basket rinse conductivity");
+  await other.getByLabel("New password again").fill("basket rinse conductivity");
+  await other.getByRole("button", { name: "Change password" }).click();
+  await expect(other.getByText("The current password is not correct.")).toBeVisible();
+  await expect(other.getByLabel("Current password")).toHaveValue("");
+  await expect(other.getByLabel("New password", { exact: true })).toHaveValue(
+    "basket rinse conductivity",
+  );
+
+  await other.getByLabel("Current password").fill(temporary!);
   await other.getByLabel("New password", { exact: true }).fill("basket rinse conductivity");
   await other.getByLabel("New password again").fill("basket rinse conductivity");
   await other.getByRole("button", { name: "Change password" }).click();
