@@ -162,8 +162,11 @@ export function ActionForm<S extends FormState>({
   }
   return (
     <FormStateContext.Provider value={{ state, pending, claim: claims.claim }}>
+      {/* POST even before the page's script runs: a form left to the browser's default (GET)
+          would put what was typed, a password too, into the address, its history and logs. */}
       <form
         ref={form}
+        method="post"
         onSubmit={onSubmit}
         className={className}
         noValidate

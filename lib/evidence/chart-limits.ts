@@ -22,7 +22,8 @@ export const LIMIT_KIND_WORDS: Record<ChartLimit["kind"], string> = {
 /**
  * The y-axis range that holds every point and every limit line, with a margin of 5 % of the span
  * on each side, so a limit far from the data is still drawn (an "auto" axis fits the data only and
- * the line silently falls off the chart). A flat series with no limits gets ±1 around its value.
+ * the line silently falls off the chart). A flat series gets ±10 % around its value, or 0 to 1
+ * when that value is zero.
  */
 export function chartDomain(values: number[], limits: { value: number }[]): [number, number] {
   const all = [...values, ...limits.map((l) => l.value)].filter(Number.isFinite);
@@ -31,7 +32,8 @@ export function chartDomain(values: number[], limits: { value: number }[]): [num
   let high = Math.max(...all);
   if (low === high) {
     const pad = low === 0 ? 1 : Math.abs(low) * 0.1;
-    return [low - pad, high + pad];
+    // A run of zero counts under a limit of zero: from 0 up, never below.
+    return [low === 0 ? 0 : low - pad, high + pad];
   }
   const margin = (high - low) * 0.05;
   // Counts and concentrations never go negative: don't draw an axis below zero for them.

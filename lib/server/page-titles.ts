@@ -1,5 +1,5 @@
 import "server-only";
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { SelectedFields, SQLiteColumn, SQLiteTable } from "drizzle-orm/sqlite-core";
 import type { Metadata } from "next";
 import { getDb } from "@/db/client";
@@ -15,6 +15,7 @@ import {
   nonconformances,
   partFamilies,
   recipes,
+  recipeParameters,
   recipeVersions,
   systemStages,
   testRuns,
@@ -175,14 +176,22 @@ export async function recordTitle(
   return { title: name ?? fallback };
 }
 
-/** The trace of one parameter: "Trace R-W01-001 wash.temperature" when the user may trace. */
+/**
+ * The trace of one parameter: "Trace R-W01-001 wash.temperature" when the user may trace and the
+ * recipe has that parameter in some version; else "Trace", as the page then says nothing is chosen.
+ */
 export async function traceTitle(recipeId: string | undefined, key: string | undefined) {
   const user = await getCurrentUser();
-  const recipe =
-    recipeId && key && user && can(user.roles, "trace.view") && /^[0-9a-f-]{36}$/.test(recipeId)
-      ? await byId(recipes, { code: recipes.code }, recipeId)
-      : undefined;
-  return { title: recipe ? `Trace ${recipe.code} ${key}` : "Trace" };
+  if (!recipeId || !key || !user || !can(user.roles, "trace.view")) return { title: "Trace" };
+  if (!/^[0-9a-f-]{36}$/.test(recipeId)) return { title: "Trace" };
+  const [found] = await getDb()
+    .select({ code: recipes.code })
+    .from(recipeParameters)
+    .innerJoin(recipeVersions, eq(recipeVersions.id, recipeParameters.versionId))
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .where(and(eq(recipeVersions.recipeId, recipeId), eq(recipeParameters.key, key)))
+    .limit(1);
+  return { title: found ? `Trace ${found.code} ${key}` : "Trace" };
 }
 
 async function readableName(kind: TitledRecord, id: string): Promise<string | null> {

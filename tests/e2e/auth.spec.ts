@@ -132,6 +132,21 @@ test("a wrong password shows the generic error and keeps the e-mail", async ({ p
   await expect(alert).toHaveText(first!);
 });
 
+test("a sign-in sent before the page's script runs never puts the password in the address", async ({
+  browser,
+}) => {
+  const context = await browser.newContext({ javaScriptEnabled: false });
+  const page = await context.newPage();
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(DEMO.reviewer.email);
+  await page.getByLabel("Password").fill("a password typed early");
+  await page.getByLabel("Password").press("Enter");
+  await page.waitForLoadState();
+  expect(page.url()).not.toContain("password");
+  expect(page.url()).not.toContain("typed");
+  await context.close();
+});
+
 test("empty sign-in fields get their own errors beside them", async ({ page }) => {
   await page.goto("/sign-in");
   await page.getByRole("button", { name: "Sign in" }).click();

@@ -44,8 +44,12 @@ test("an auditor traces the fitting's drying temperature to its change, signatur
   await expect(matches.getByRole("link")).toHaveCount(1);
   await matches.getByRole("link", { name: /Drying temperature drying\.temperature/ }).click();
   await expect(page).toHaveURL(/key=drying\.temperature/);
-  // The tab names the recipe and the parameter traced.
+  // The tab names the recipe and the parameter traced; a key the recipe never had names nothing.
   await expect(page).toHaveTitle(/^Trace R-[A-Z0-9-]+ drying\.temperature · Washproof$/);
+  const traced = page.url();
+  await page.goto(traced.replace("key=drying.temperature", "key=drying.nothing"));
+  await expect(page).toHaveTitle("Trace · Washproof");
+  await page.goto(traced);
   // The chooser's filter is in the address: after choosing, and after a reload, it is still there.
   await expect(page).toHaveURL(/q=dry\+temp/);
   await page.reload();

@@ -1,3 +1,4 @@
+import { can } from "@/lib/auth/permissions";
 import { and, desc, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
@@ -182,8 +183,12 @@ describe("periodic requalification", () => {
       mustChangePassword: false,
     };
     const techItems = (await changeQueueProvider(technician as never, new Date())).items;
-    expect(techItems.find((i) => i.title.startsWith("CR-2026-002"))?.kind).toBe(
-      "Requalification tests",
+    const tests = techItems.find((i) => i.title.startsWith("CR-2026-002"));
+    expect(tests?.kind).toBe("Requalification tests");
+    // The technician may not open change requests: the item opens the run form for the change.
+    expect(can(technician.roles, "changes.view")).toBe(false);
+    expect(tests?.href).toMatch(
+      /^\/evidence\/runs\/new\?change=[0-9a-f-]{36}&testType=\w+&samples=\d+$/,
     );
   });
 });

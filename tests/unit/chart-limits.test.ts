@@ -27,6 +27,8 @@ describe("chart domain", () => {
     expect(chartDomain([0.1, 5], [])[0]).toBe(0);
     expect(chartDomain([4, 4], [])).toEqual([3.6, 4.4]);
     expect(chartDomain([], [])).toEqual([0, 1]);
+    // One run that found no particle under a limit of zero (level 00): no negative counts.
+    expect(chartDomain([0], [{ value: 0 }])).toEqual([0, 1]);
     // Negative values (a temperature below zero) keep their margin.
     expect(chartDomain([-10, 10], [])).toEqual([-11, 11]);
   });

@@ -13,6 +13,7 @@ import {
 import { loadGates } from "./snapshot";
 import { loadEmergencies } from "./emergencies";
 import { formatDate } from "@/lib/format/date";
+import type { GateResult } from "@/lib/changes/gate";
 
 /**
  * Open changes are few among the plant's closed ones; without per-value statistics (no STAT4 in
@@ -63,13 +64,13 @@ export const changeQueueProvider: QueueProvider = async (user, now, window) => {
     open.map((o) => o.cr.id),
   );
   for (const { cr, recipeCode } of open) {
-    const push = (kind: string, detail: string) =>
+    const push = (kind: string, detail: string, href = `/changes/${cr.id}`) =>
       items.push({
         id: `change:${cr.id}:${kind}`,
         kind,
         title: `${emergencies.has(cr.id) ? "Emergency · " : ""}${cr.number} ${cr.title}`,
         detail: `${recipeCode} · ${detail}`,
-        href: `/changes/${cr.id}`,
+        href,
         due: null,
       });
     const required = requiredCount.get(cr.id) ?? 0;
@@ -89,6 +90,9 @@ export const changeQueueProvider: QueueProvider = async (user, now, window) => {
         push(
           "Requalification tests",
           `${gate.missing.length} item${gate.missing.length > 1 ? "s" : ""} missing`,
+          // A technician may record the tests but not open change requests: the item opens the
+          // run form for the first test still missing, filled in for this change.
+          can(user.roles, "changes.view") ? undefined : firstTestToEnter(cr.id, gate),
         );
       if (gate.holds && can(user.roles, "change.verify"))
         push("Change verification", "requalification evidence complete: verify");
@@ -123,6 +127,17 @@ export const changeQueueProvider: QueueProvider = async (user, now, window) => {
   }
   return { items, totals };
 };
+
+/** The new-run form for the first requirement no run satisfies yet, as the change page links it. */
+function firstTestToEnter(changeId: string, gate: GateResult): string {
+  const next = gate.requirements.find((r) => r.satisfiedBy === null)?.requirement;
+  const query = new URLSearchParams({ change: changeId });
+  if (next) {
+    query.set("testType", next.testType);
+    query.set("samples", String(next.samples));
+  }
+  return `/evidence/runs/new?${query}`;
+}
 
 const REQUALIFICATION_KIND: Record<RequalificationDueState, string> = {
   overdue: "Requalification overdue",
