@@ -115,7 +115,7 @@ describe("limit labels beside the plot", () => {
   });
 });
 
-// Round tick steps of 1, 2 or 5 × 10^k are common practice for chart axes.
+// [practice] Round tick steps of 1, 2 or 5 × 10^k are common practice for chart axes.
 describe("a y-axis on round numbers", () => {
   it("widens an axis that ended on odd values to round ones, with round ticks between", () => {
     expect(roundAxis([4510, 261690])).toEqual({
@@ -150,7 +150,7 @@ describe("a y-axis on round numbers", () => {
   });
 });
 
-// Cleanliness levels are logarithmic: each level's upper bound about doubles the one below
+// [std] Cleanliness levels are logarithmic: each level's upper bound about doubles the one below
 // (ISO 16232:2018, table of cleanliness levels: 16, 32, 64, 130, 250, 500, 1,000 per 1,000 cm²).
 describe("a logarithmic axis for particle counts", () => {
   it("is chosen when the counts and the limit span two decades or more", () => {
